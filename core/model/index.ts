@@ -1,0 +1,202 @@
+// Shared data types that flow through the pipeline (see ../shared design notes in DEVELOPERS.md).
+// Coordinate convention everywhere: x = column, y = row, 0-based, pixel centres at integers.
+// Positions along the AP axis: x/EL in [0, 1], 0 = anterior pole, 1 = posterior pole.
+
+/** A point in image pixel coordinates (x = column, y = row, centre of the first pixel at 0,0). */
+export interface ImagePoint {
+  readonly x: number;
+  readonly y: number;
+}
+
+/** Pixel storage that a decoder may return, by sample type. */
+export type PixelArray =
+  | Uint8Array
+  | Int8Array
+  | Uint16Array
+  | Int16Array
+  | Uint32Array
+  | Int32Array
+  | Float32Array
+  | Float64Array;
+
+/** Sample types Eggline reads (TIFF SampleFormat × BitsPerSample, or OME Pixels@Type). */
+export type SampleType = 'uint8' | 'int8' | 'uint16' | 'int16' | 'uint32' | 'int32' | 'float32' | 'float64';
+
+/** One decoded 2-D plane, row-major; data.length === width * height. */
+export interface RawPlane {
+  readonly width: number;
+  readonly height: number;
+  readonly data: PixelArray;
+}
+
+/** A 2-D float image used by every analysis step (row-major, data.length === width * height). */
+export interface Plane {
+  readonly width: number;
+  readonly height: number;
+  readonly data: Float32Array;
+}
+
+/** A binary image: 1 inside, 0 outside (row-major). */
+export interface Mask {
+  readonly width: number;
+  readonly height: number;
+  readonly data: Uint8Array;
+}
+
+/** Where a pixel size came from; always reported next to the value. */
+export type PixelSizeSource = 'ome' | 'tiff-resolution' | 'user' | 'unknown';
+
+/** Pixel size in micrometres per pixel, with its provenance. */
+export interface PixelSize {
+  readonly xUm: number | null;
+  readonly yUm: number | null;
+  readonly zUm: number | null;
+  readonly source: PixelSizeSource;
+}
+
+/** The six OME DimensionOrder values. */
+export type DimensionOrder = 'XYZCT' | 'XYZTC' | 'XYCTZ' | 'XYCZT' | 'XYTCZ' | 'XYTZC';
+
+/** What the tag reader learns about a file without decoding pixels. */
+export interface StackInfo {
+  readonly byteOrder: 'II' | 'MM';
+  readonly bigTiff: boolean;
+  readonly isOme: boolean;
+  readonly sizeX: number;
+  readonly sizeY: number;
+  readonly sizeZ: number;
+  readonly sizeC: number;
+  readonly sizeT: number;
+  readonly dimensionOrder: DimensionOrder;
+  readonly sampleType: SampleType;
+  readonly samplesPerPixel: number;
+  readonly channelNames: readonly string[];
+  readonly pixelSize: PixelSize;
+  /** Human-readable compression of the first plane, e.g. "LZW + horizontal predictor". */
+  readonly compression: string;
+  /** IFD index of plane (z, c, t): planeIfd[(t * sizeC + c) * sizeZ + z]. */
+  readonly planeIfd: Int32Array;
+  /** Number of IFDs in the main chain. */
+  readonly ifdCount: number;
+  /** Raw ImageDescription of IFD 0 (OME-XML or other text), or null. */
+  readonly description: string | null;
+  readonly warnings: readonly string[];
+}
+
+/** Z projection methods. 'slice' takes one chosen plane. */
+export type ProjectionMethod = 'max' | 'mean' | 'sum' | 'slice';
+
+/** The AP axis in image coordinates, with how it was set. */
+export interface ApAxis {
+  readonly anterior: ImagePoint;
+  readonly posterior: ImagePoint;
+  /** 'auto' = found by the core; 'hand' = set or corrected by the user. */
+  readonly source: 'auto' | 'hand';
+}
+
+/** A binned profile along the AP axis. All arrays have one entry per bin. */
+export interface Profile {
+  readonly channel: string;
+  /** Bin centres in x/EL (0 = anterior pole). */
+  readonly xEl: Float64Array;
+  /** Bin centres in µm from the anterior pole. */
+  readonly xUm: Float64Array;
+  /** Mean intensity per bin after background subtraction. */
+  readonly mean: Float64Array;
+  /** Standard deviation of the pixels in each bin. */
+  readonly sd: Float64Array;
+  /** Number of pixels in each bin. */
+  readonly n: Float64Array;
+}
+
+/** A fitted exponential gradient A·exp(−x/λ) + B over a range of x/EL. */
+export interface ExponentialFit {
+  readonly amplitude: number;
+  readonly amplitudeSe: number;
+  readonly lambdaUm: number;
+  readonly lambdaSeUm: number;
+  readonly lambdaCiLowUm: number;
+  readonly lambdaCiHighUm: number;
+  readonly lambdaEl: number;
+  readonly lambdaSeEl: number;
+  readonly background: number;
+  readonly backgroundSe: number;
+  readonly r2: number;
+  readonly rss: number;
+  readonly dof: number;
+  readonly iterations: number;
+  readonly fitRangeEl: readonly [number, number];
+  /** x/EL of each point used in the fit, and its residual (data − model). */
+  readonly xEl: Float64Array;
+  readonly residuals: Float64Array;
+}
+
+/** Boundary-finding methods. */
+export type BoundaryMethod = 'logistic' | 'half-max' | 'threshold';
+
+/** One boundary found in one channel by one method. */
+export interface Boundary {
+  readonly channel: string;
+  readonly method: BoundaryMethod;
+  /** Position in x/EL (null when the method found none). */
+  readonly positionEl: number | null;
+  readonly positionUm: number | null;
+  /** Logistic width (x/EL) for 'logistic', null otherwise. */
+  readonly widthEl: number | null;
+  /** Standard error of the position in x/EL where the method gives one. */
+  readonly positionSeEl: number | null;
+  /** 'falling' when expression is high anterior of the boundary. */
+  readonly direction: 'rising' | 'falling' | null;
+  readonly note: string | null;
+}
+
+/** A hand-placed landmark and its projection onto the AP axis. */
+export interface Landmark {
+  readonly name: string;
+  readonly point: ImagePoint;
+}
+
+/** A landmark projected onto the AP axis. */
+export interface LandmarkPosition {
+  readonly name: string;
+  readonly point: ImagePoint;
+  readonly xEl: number;
+  readonly xUm: number;
+  /** Signed distance from the axis line in µm (positive to the left of anterior→posterior). */
+  readonly offAxisUm: number;
+}
+
+/** Background estimate subtracted from one channel. */
+export interface BackgroundEstimate {
+  readonly channel: string;
+  readonly method: 'outside' | 'region' | 'none';
+  /** Value subtracted (intensity units of the projected image). */
+  readonly value: number;
+}
+
+/** Hand corrections kept per file in the project; the batch uses them when present. */
+export interface HandEdits {
+  readonly axis: ApAxis | null;
+  readonly landmarks: readonly Landmark[];
+}
+
+/** Everything measured for one embryo (one file). */
+export interface EmbryoResult {
+  /** Path relative to the input folder (or the file name). */
+  readonly file: string;
+  readonly status: 'ok' | 'error';
+  readonly error: string | null;
+  readonly warnings: readonly string[];
+  readonly pixelSizeUm: number | null;
+  readonly pixelSizeSource: PixelSizeSource;
+  readonly eggLengthUm: number | null;
+  readonly eggWidthUm: number | null;
+  readonly axis: ApAxis | null;
+  readonly gradientChannel: string | null;
+  readonly gradientProfile: Profile | null;
+  readonly gradientFit: ExponentialFit | null;
+  readonly boundaryProfiles: readonly Profile[];
+  readonly boundaries: readonly Boundary[];
+  readonly landmarks: readonly LandmarkPosition[];
+  readonly backgrounds: readonly BackgroundEstimate[];
+}

@@ -1,0 +1,53 @@
+// Analysis settings: everything the batch command and the desktop app can set. Units are in the names.
+import type { BoundaryMethod, ProjectionMethod } from '../model';
+
+/** A channel chosen by 1-based index or by the name stored in the file. */
+export type ChannelRef = number | string;
+
+/** Which edge of the embryo the edge band follows, seen with anterior left and dorsal up. */
+export type EdgeSide = 'dorsal' | 'ventral' | 'both';
+
+/** How the profile is sampled. */
+export interface ProfileSettings {
+  /** 'edge' = band just inside the outline (the nuclear layer); 'axis' = strip centred on the AP axis. */
+  readonly mode: 'edge' | 'axis';
+  readonly edgeSide: EdgeSide;
+  /** Which side of the A→P line is dorsal: 'left' means left of the direction anterior→posterior in image coordinates. */
+  readonly dorsalSide: 'left' | 'right';
+  /** Depth of the edge band inward from the outline, µm. */
+  readonly edgeDepthUm: number;
+  /** Full width of the axis strip, µm. */
+  readonly axisWidthUm: number;
+  /** Number of bins from x/EL 0 to 1. */
+  readonly binCount: number;
+}
+
+/** Background subtraction. */
+export interface BackgroundSettings {
+  /** 'outside' = robust estimate from pixels outside the embryo; 'region' = mean of a given rectangle; 'none'. */
+  readonly mode: 'outside' | 'region' | 'none';
+  /** Rectangle in pixels (x, y = top-left, 0-based) when mode is 'region'. */
+  readonly regionPx: { readonly x: number; readonly y: number; readonly width: number; readonly height: number } | null;
+}
+
+/** Every setting of one analysis. */
+export interface AnalysisSettings {
+  readonly gradientChannel: ChannelRef;
+  readonly boundaryChannels: readonly ChannelRef[];
+  /** Fallback pixel size when the file has none, µm per pixel. */
+  readonly pixelSizeUm: number | null;
+  readonly projection: ProjectionMethod;
+  /** 0-based slice for projection 'slice'; null = pick automatically (see README). */
+  readonly sliceIndex: number | null;
+  readonly profile: ProfileSettings;
+  readonly background: BackgroundSettings;
+  /** x/EL range of the exponential fit, [start, end]. */
+  readonly fitRangeEl: readonly [number, number];
+  /** 'auto' = anterior is the high end of the gradient channel; 'high'/'low' force it. */
+  readonly anterior: 'auto' | 'high' | 'low';
+  readonly boundaryMethods: readonly BoundaryMethod[];
+  /** Threshold for the 'threshold' boundary method, as a fraction of the profile's range (0..1). */
+  readonly boundaryThresholdFraction: number;
+  /** Time point to analyse (0-based). */
+  readonly timeIndex: number;
+}

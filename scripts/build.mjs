@@ -1,0 +1,48 @@
+// Build everything into dist/: the CLI, workers and Electron processes with esbuild, the renderer with Vite.
+// Entries that do not exist yet are skipped so the tree builds at every stage of development.
+import { build } from 'esbuild';
+import { existsSync } from 'node:fs';
+import { build as viteBuild } from 'vite';
+
+const nodeEntries = [
+  { in: 'app/cli/main.ts', out: 'cli' },
+  { in: 'app/workers/batch-worker.ts', out: 'batch-worker' },
+  { in: 'app/workers/analysis-worker.ts', out: 'analysis-worker' },
+  { in: 'bench/bench.ts', out: 'bench' },
+].filter((e) => existsSync(e.in));
+
+const common = { bundle: true, platform: 'node', target: 'node20', sourcemap: true, logLevel: 'warning' };
+
+if (nodeEntries.length > 0) {
+  await build({
+    ...common,
+    entryPoints: nodeEntries,
+    outdir: 'dist',
+    format: 'esm',
+    outExtension: { '.js': '.mjs' },
+    packages: 'external',
+    banner: { js: "import { createRequire as __cr } from 'node:module'; const require = __cr(import.meta.url);" },
+  });
+}
+
+const electronEntries = [
+  { in: 'app/main/main.ts', out: 'main' },
+  { in: 'app/preload/preload.ts', out: 'preload' },
+].filter((e) => existsSync(e.in));
+
+if (electronEntries.length > 0) {
+  await build({
+    ...common,
+    entryPoints: electronEntries,
+    outdir: 'dist',
+    format: 'cjs',
+    outExtension: { '.js': '.cjs' },
+    external: ['electron', 'sharp'],
+    packages: 'external',
+  });
+}
+
+if (existsSync('renderer/index.html')) {
+  await viteBuild({ configFile: 'renderer/vite.config.ts', logLevel: 'warn' });
+}
+console.log('build: done');
