@@ -34,6 +34,7 @@ export default tseslint.config(
   },
   {
     files: ['renderer/**/*.{ts,tsx}'],
+    ignores: ['renderer/vite.config.ts'],
     rules: layer('renderer/ draws state: it may import core/ and the API contract, never node, electron, sharp or app/.',
       ['electron', 'sharp', ...nodeBuiltins], ['**/app/**', 'core/io', '**/core/io', '**/core/io/**']),
   },
