@@ -200,3 +200,35 @@ export interface EmbryoResult {
   readonly landmarks: readonly LandmarkPosition[];
   readonly backgrounds: readonly BackgroundEstimate[];
 }
+
+/** Reads decoded planes of one stack; implemented by the sharp decoder (app/) and the geotiff decoder (core/tiff). */
+export interface PlaneSource {
+  /** Decode plane (z, c, t), all 0-based. Rejects with a clear message on bad data. */
+  readPlane(z: number, c: number, t: number): Promise<RawPlane>;
+  /** Release file handles. */
+  close(): Promise<void>;
+}
+
+/** A stack projected over Z: one float plane per channel, plus calibration. */
+export interface ProjectedStack {
+  readonly channels: readonly Plane[];
+  readonly channelNames: readonly string[];
+  /** µm per pixel (x; y assumed equal unless the file says otherwise, then warned). */
+  readonly pixelSizeUm: number | null;
+  readonly pixelSizeSource: PixelSizeSource;
+  readonly projection: ProjectionMethod;
+  /** The slice used when projection is 'slice' (0-based), else null. */
+  readonly sliceIndex: number | null;
+  readonly warnings: readonly string[];
+}
+
+/** What segmentation and axis finding produce for one embryo. */
+export interface Detection {
+  readonly mask: Mask;
+  /** Outline of the mask as a closed polygon in image coordinates. */
+  readonly outline: readonly ImagePoint[];
+  readonly axis: ApAxis;
+  readonly eggLengthUm: number;
+  readonly eggWidthUm: number;
+  readonly warnings: readonly string[];
+}

@@ -1,0 +1,113 @@
+// The one contract between the renderer and the app (main process). Everything crossing it is plain data
+// (objects, arrays, typed arrays); errors come back as values, never as thrown exceptions.
+import type {
+  ApAxis, Detection, EmbryoResult, Landmark, ProjectedStack, StackInfo,
+} from '../model';
+import type { AnalysisSettings } from '../settings';
+
+/** Error codes the app returns; messages are one line and name the file when there is one. */
+export type ApiErrorCode =
+  | 'cancelled' | 'not-found' | 'not-allowed' | 'bad-file' | 'bad-argument' | 'io' | 'busy' | 'internal';
+
+/** Result of every API call. */
+export type ApiResult<T> = { ok: true; value: T } | { ok: false; error: { code: ApiErrorCode; message: string } };
+
+/** One file of the open folder, with its status in the project. */
+export interface FolderEntry {
+  /** Absolute path (allowed because it came from a dialog, drop, or project). */
+  readonly path: string;
+  /** Path relative to the folder, for display. */
+  readonly name: string;
+  readonly status: 'new' | 'analysed' | 'edited' | 'error';
+  readonly message: string | null;
+}
+
+/** Per-file hand work kept in the project. */
+export interface FileEdits {
+  readonly axis: ApAxis | null;
+  readonly landmarks: readonly Landmark[];
+  /** Per-file fit range override, x/EL. */
+  readonly fitRangeEl: readonly [number, number] | null;
+}
+
+/** The project file's content (JSON, versioned). */
+export interface ProjectDoc {
+  readonly schema: 'eggline-project';
+  readonly version: 1;
+  /** Folder the project's files are in (absolute). */
+  readonly folder: string | null;
+  readonly settings: AnalysisSettings;
+  /** Keyed by path relative to `folder` (or absolute when there is no folder). */
+  readonly files: Readonly<Record<string, FileEdits>>;
+}
+
+/** A stack loaded for viewing and live measurement. */
+export interface LoadedStack {
+  readonly path: string;
+  readonly info: StackInfo;
+  /** Projected channels (per the settings' projection) for display and measurement in the renderer. */
+  readonly projected: ProjectedStack;
+  /** Automatic detection (mask, outline, axis). */
+  readonly detection: Detection;
+}
+
+/** One Z slice of one channel, for the Z slider. */
+export interface SliceRequest { readonly path: string; readonly z: number; readonly c: number; readonly t: number }
+
+/** Progress of a running batch. */
+export interface BatchProgress {
+  readonly runId: string;
+  readonly done: number;
+  readonly total: number;
+  readonly file: string | null;
+  readonly status: 'ok' | 'error' | 'running' | 'finished' | 'cancelled';
+  readonly message: string | null;
+}
+
+/** Summary when a batch ends. */
+export interface BatchSummary {
+  readonly runId: string;
+  readonly outDir: string;
+  readonly ok: number;
+  readonly failed: number;
+  readonly cancelled: boolean;
+  readonly results: readonly EmbryoResult[];
+}
+
+/** What may be exported through a save dialog. */
+export type ExportKind = 'svg' | 'png' | 'csv' | 'json';
+
+/** The API object the preload exposes as window.eggline. */
+export interface EgglineApi {
+  /** Write the built-in demo data set to the app's data folder (once) and open it. */
+  openDemo(): Promise<ApiResult<{ folder: string; entries: FolderEntry[]; project: ProjectDoc; projectPath: string }>>;
+  /** Native dialog: pick a folder of stacks; null when cancelled. */
+  chooseFolder(): Promise<ApiResult<{ folder: string; entries: FolderEntry[]; project: ProjectDoc; projectPath: string } | null>>;
+  /** Native dialog: pick stack files; null when cancelled. */
+  chooseFiles(): Promise<ApiResult<FolderEntry[] | null>>;
+  /** Files dropped on the window (paths resolved by the preload). */
+  openDropped(paths: readonly string[]): Promise<ApiResult<FolderEntry[]>>;
+  /** Recently opened folders and files. */
+  recent(): Promise<ApiResult<string[]>>;
+  /** Read, project and detect one stack (runs off the main thread). */
+  loadStack(path: string, settings: AnalysisSettings): Promise<ApiResult<LoadedStack>>;
+  /** One raw slice for the Z slider. */
+  loadSlice(req: SliceRequest): Promise<ApiResult<{ width: number; height: number; data: Float32Array }>>;
+  /** Save the project atomically at its path. */
+  saveProject(projectPath: string, doc: ProjectDoc): Promise<ApiResult<{ savedAt: string }>>;
+  /** Native dialog: open a project file. */
+  openProject(): Promise<ApiResult<{ project: ProjectDoc; projectPath: string; entries: FolderEntry[] } | null>>;
+  /** Start a batch over a folder with the given settings and hand edits; progress arrives via onBatchProgress. */
+  runBatch(folder: string, outDir: string, doc: ProjectDoc): Promise<ApiResult<BatchSummary>>;
+  cancelBatch(runId: string): Promise<ApiResult<null>>;
+  /** Native dialog: choose an output folder. */
+  chooseOutputFolder(): Promise<ApiResult<string | null>>;
+  /** Subscribe to batch progress; returns an unsubscribe function. */
+  onBatchProgress(listener: (p: BatchProgress) => void): () => void;
+  /** Save dialog then write: text (svg/csv/json) or bytes (png). */
+  exportFile(kind: ExportKind, suggestedName: string, content: string | Uint8Array): Promise<ApiResult<string | null>>;
+  /** Render an SVG string to PNG bytes (through sharp). */
+  svgToPng(svg: string, scale: number): Promise<ApiResult<Uint8Array>>;
+  /** Subscribe to application-menu commands (e.g. 'open-folder', 'save', 'undo'); returns an unsubscribe function. */
+  onMenuCommand(listener: (command: string) => void): () => void;
+}
