@@ -1,0 +1,9 @@
+// Public surface of core/stats: descriptive statistics, t intervals, straight-line regression, seeded RNG.
+export { mean, sd, sem, median, quantile, mad, robustSigma, MAD_TO_SIGMA } from './descriptive';
+export { tQuantile, tConfidenceInterval } from './t-distribution';
+export type { MeanInterval } from './t-distribution';
+export { linearRegression, weightedLinearRegression } from './regression';
+export type { LinearRegression } from './regression';
+export { createRng } from './rng';
+export type { Rng } from './rng';
+export { logGamma } from './log-gamma';
