@@ -1,0 +1,200 @@
+// Reducer tests: one block per named action. All inputs are demo data.
+import { describe, expect, it } from 'vitest';
+import type { ApAxis } from '../../core/model';
+import { currentEdits, effectiveAxis, effectiveFitRange } from './fileEdits';
+import { initialState } from './initial';
+import { editorReducer as reduce, perform } from './reducer';
+import type { EditorAction, EditorState } from './types';
+
+const AUTO: ApAxis = { anterior: { x: 10, y: 50 }, posterior: { x: 90, y: 50 }, source: 'auto' };
+const run = (s: EditorState, ...actions: EditorAction[]) => actions.reduce(reduce, s);
+const opened = (): EditorState => run(initialState(), { type: 'selectFile', key: 'e1.tif', autoAxis: AUTO });
+
+describe('openDoc', () => {
+  it('replaces the document and clears history', () => {
+    const s = run(opened(), { type: 'swapPoles' });
+    const doc = { settings: { ...s.doc.settings, projection: 'max' as const }, files: {} };
+    const next = reduce(s, { type: 'openDoc', doc });
+    expect(next.doc).toBe(doc);
+    expect(next.past).toEqual([]);
+    expect(next.future).toEqual([]);
+  });
+});
+
+describe('selectFile', () => {
+  it('shows a file with its automatic axis and no history entry', () => {
+    const s = opened();
+    expect(s.current).toBe('e1.tif');
+    expect(effectiveAxis(s)).toBe(AUTO);
+    expect(s.past).toHaveLength(0);
+  });
+});
+
+describe('setAxisHandle', () => {
+  it('moves one pole, makes the axis a hand axis, and enters history', () => {
+    const s = reduce(opened(), { type: 'setAxisHandle', end: 'posterior', point: { x: 80, y: 40 } });
+    expect(effectiveAxis(s)).toEqual({ anterior: { x: 10, y: 50 }, posterior: { x: 80, y: 40 }, source: 'hand' });
+    expect(s.past).toHaveLength(1);
+  });
+  it('coalesced moves of a drag add no more history', () => {
+    const s = run(opened(),
+      { type: 'setAxisHandle', end: 'anterior', point: { x: 11, y: 50 } },
+      { type: 'setAxisHandle', end: 'anterior', point: { x: 12, y: 50 }, coalesce: true },
+      { type: 'setAxisHandle', end: 'anterior', point: { x: 13, y: 50 }, coalesce: true });
+    expect(s.past).toHaveLength(1);
+    expect(effectiveAxis(s)?.anterior).toEqual({ x: 13, y: 50 });
+  });
+  it('does nothing without a file', () => {
+    const s0 = initialState();
+    expect(reduce(s0, { type: 'setAxisHandle', end: 'anterior', point: { x: 1, y: 1 } })).toBe(s0);
+  });
+});
+
+describe('swapPoles', () => {
+  it('exchanges anterior and posterior', () => {
+    const s = reduce(opened(), { type: 'swapPoles' });
+    expect(effectiveAxis(s)).toEqual({ anterior: AUTO.posterior, posterior: AUTO.anterior, source: 'hand' });
+    expect(s.past).toHaveLength(1);
+  });
+});
+
+describe('resetAxis', () => {
+  it('drops the hand axis', () => {
+    const s = run(opened(), { type: 'swapPoles' }, { type: 'resetAxis' });
+    expect(effectiveAxis(s)).toBe(AUTO);
+    expect(s.past).toHaveLength(2);
+  });
+  it('is a no-op without a hand axis', () => {
+    const s = opened();
+    expect(reduce(s, { type: 'resetAxis' })).toBe(s);
+  });
+});
+
+describe('addLandmark', () => {
+  it('adds L1, L2 with default names and selects the new one', () => {
+    const s = run(opened(), { type: 'addLandmark', point: { x: 30, y: 40 } }, { type: 'addLandmark', point: { x: 31, y: 41 } });
+    expect(currentEdits(s).landmarks).toEqual([
+      { name: 'L1', point: { x: 30, y: 40 } }, { name: 'L2', point: { x: 31, y: 41 } }]);
+    expect(s.selectedLandmark).toBe(1);
+  });
+  it('uses a given name, trimmed', () => {
+    const s = reduce(opened(), { type: 'addLandmark', point: { x: 1, y: 2 }, name: '  fold ' });
+    expect(currentEdits(s).landmarks[0].name).toBe('fold');
+  });
+});
+
+describe('moveLandmark', () => {
+  it('moves one landmark; a coalesced move adds no history', () => {
+    const s = run(opened(), { type: 'addLandmark', point: { x: 30, y: 40 } },
+      { type: 'moveLandmark', index: 0, point: { x: 35, y: 40 } },
+      { type: 'moveLandmark', index: 0, point: { x: 36, y: 41 }, coalesce: true });
+    expect(currentEdits(s).landmarks[0].point).toEqual({ x: 36, y: 41 });
+    expect(s.past).toHaveLength(2);
+  });
+  it('ignores a bad index', () => {
+    const s = opened();
+    expect(reduce(s, { type: 'moveLandmark', index: 3, point: { x: 0, y: 0 } })).toBe(s);
+  });
+});
+
+describe('renameLandmark', () => {
+  it('renames and refuses blank names', () => {
+    const s = run(opened(), { type: 'addLandmark', point: { x: 1, y: 1 } }, { type: 'renameLandmark', index: 0, name: 'furrow' });
+    expect(currentEdits(s).landmarks[0].name).toBe('furrow');
+    expect(reduce(s, { type: 'renameLandmark', index: 0, name: '  ' })).toBe(s);
+  });
+});
+
+describe('deleteLandmark', () => {
+  it('removes the landmark and clears the selection', () => {
+    const s = run(opened(), { type: 'addLandmark', point: { x: 1, y: 1 } }, { type: 'addLandmark', point: { x: 2, y: 2 } },
+      { type: 'deleteLandmark', index: 0 });
+    expect(currentEdits(s).landmarks.map((l) => l.name)).toEqual(['L2']);
+    expect(s.selectedLandmark).toBeNull();
+  });
+});
+
+describe('selectLandmark', () => {
+  it('selects without history', () => {
+    const s = reduce(opened(), { type: 'selectLandmark', index: 2 });
+    expect(s.selectedLandmark).toBe(2);
+    expect(s.past).toHaveLength(0);
+  });
+});
+
+describe('setFitRange', () => {
+  it('sets the file override, sorted and clamped', () => {
+    const s = reduce(opened(), { type: 'setFitRange', rangeEl: [0.7, -0.1] });
+    expect(effectiveFitRange(s)).toEqual([0, 0.7]);
+    expect(s.past).toHaveLength(1);
+  });
+  it('refuses a range narrower than 0.05 EL', () => {
+    const s = opened();
+    expect(reduce(s, { type: 'setFitRange', rangeEl: [0.3, 0.32] })).toBe(s);
+  });
+  it('falls back to the settings range without an override', () => {
+    expect(effectiveFitRange(opened())).toEqual([0.1, 0.6]);
+  });
+});
+
+describe('setSetting', () => {
+  it('merges into the settings and enters history', () => {
+    const s = reduce(opened(), { type: 'setSetting', patch: { projection: 'max' } });
+    expect(s.doc.settings.projection).toBe('max');
+    expect(s.doc.settings.fitRangeEl).toEqual([0.1, 0.6]);
+    expect(s.past).toHaveLength(1);
+  });
+});
+
+describe('initChannelDisplay / setChannelDisplay / setDisplayMode', () => {
+  const withChannels = () => reduce(opened(), { type: 'initChannelDisplay', channels: [
+    { colour: '#00ff00', low: 0, high: 100 }, { colour: '#ff00ff', low: 5, high: 50 }] });
+  it('sets channel displays without history', () => {
+    const s = withChannels();
+    expect(s.display.channels).toHaveLength(2);
+    expect(s.past).toHaveLength(0);
+  });
+  it('changes one channel and swaps low above high', () => {
+    const s = reduce(withChannels(), { type: 'setChannelDisplay', index: 1, patch: { low: 80 } });
+    expect(s.display.channels[1]).toEqual({ colour: '#ff00ff', low: 50, high: 80 });
+  });
+  it('switches to one channel, clamping the index', () => {
+    const s = reduce(withChannels(), { type: 'setDisplayMode', mode: 'single', active: 7 });
+    expect(s.display).toMatchObject({ mode: 'single', active: 1 });
+  });
+});
+
+describe('setView / setTool', () => {
+  it('change without history', () => {
+    const s = run(opened(), { type: 'setView', view: { zoom: 2, offsetX: 3, offsetY: 4 } }, { type: 'setTool', tool: 'pan' });
+    expect(s.view).toEqual({ zoom: 2, offsetX: 3, offsetY: 4 });
+    expect(s.tool).toBe('pan');
+    expect(s.past).toHaveLength(0);
+  });
+});
+
+describe('undo / redo', () => {
+  it('undo restores the previous document; redo re-applies; a new edit clears redo', () => {
+    const s1 = run(opened(), { type: 'addLandmark', point: { x: 5, y: 5 } }, { type: 'moveLandmark', index: 0, point: { x: 9, y: 9 } });
+    const u = reduce(s1, { type: 'undo' });
+    expect(currentEdits(u).landmarks[0].point).toEqual({ x: 5, y: 5 });
+    const r = reduce(u, { type: 'redo' });
+    expect(currentEdits(r).landmarks[0].point).toEqual({ x: 9, y: 9 });
+    const branched = reduce(u, { type: 'swapPoles' });
+    expect(branched.future).toHaveLength(0);
+  });
+  it('keeps view state on undo', () => {
+    const s = run(opened(), { type: 'swapPoles' }, { type: 'setView', view: { zoom: 4, offsetX: 0, offsetY: 0 } }, { type: 'undo' });
+    expect(s.view.zoom).toBe(4);
+    expect(effectiveAxis(s)).toBe(AUTO);
+  });
+  it('is a no-op with empty history', () => {
+    const s = opened();
+    expect(perform(s, { type: 'undo' }).state).toBe(s);
+    expect(perform(s, { type: 'redo' }).state).toBe(s);
+  });
+  it('bumps the revision on every document change', () => {
+    const s = run(opened(), { type: 'swapPoles' }, { type: 'undo' });
+    expect(s.revision).toBe(2);
+  });
+});

@@ -1,0 +1,29 @@
+// Analysis edits: the fit range of the shown file and the shared settings.
+import type { AnalysisSettings } from '../../core/settings';
+import { withEdits } from './fileEdits';
+import type { ActionOutcome, EditorState } from './types';
+
+/** Narrowest fit range accepted, x/EL (a fit of three parameters needs several bins). */
+export const MIN_FIT_WIDTH_EL = 0.05;
+
+/** Sort, clamp to [0, 1] and round a fit range to 1e-4 x/EL; null when narrower than MIN_FIT_WIDTH_EL. */
+export function normaliseFitRange(rangeEl: readonly [number, number]): [number, number] | null {
+  const clamp = (v: number) => Math.round(Math.min(1, Math.max(0, v)) * 1e4) / 1e4;
+  const lo = clamp(Math.min(rangeEl[0], rangeEl[1]));
+  const hi = clamp(Math.max(rangeEl[0], rangeEl[1]));
+  if (!Number.isFinite(lo) || !Number.isFinite(hi) || hi - lo < MIN_FIT_WIDTH_EL) return null;
+  return [lo, hi];
+}
+
+/** Set the shown file's fit range (x/EL); ranges too narrow or not finite are ignored. */
+export function setFitRange(state: EditorState, rangeEl: readonly [number, number], coalesce = false): ActionOutcome {
+  const range = normaliseFitRange(rangeEl);
+  if (range === null || state.current === null) return { state, history: 'none' };
+  return { state: withEdits(state, { fitRangeEl: range }), history: coalesce ? 'none' : 'push' };
+}
+
+/** Merge `patch` into the analysis settings (shared by every file of the project). */
+export function setSetting(state: EditorState, patch: Partial<AnalysisSettings>): ActionOutcome {
+  const settings = { ...state.doc.settings, ...patch };
+  return { state: { ...state, doc: { ...state.doc, settings } }, history: 'push' };
+}

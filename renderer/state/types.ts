@@ -1,0 +1,76 @@
+// Editor state: the undoable document (settings + per-file hand edits) and the non-undoable view state.
+import type { ApAxis, ImagePoint } from '../../core/model';
+import type { AnalysisSettings } from '../../core/settings';
+import type { FileEdits } from '../../core/contract';
+import type { ViewTransform } from '../geometry';
+
+/** Pointer tools in the image view. */
+export type ToolName = 'pan' | 'axis' | 'landmark';
+
+/** How one channel is shown: colour (CSS hex) and display range in image intensity units. */
+export interface ChannelDisplay {
+  readonly colour: string;
+  readonly low: number;
+  readonly high: number;
+}
+
+/** Channel display: one channel at a time ('single', the active one) or all merged additively. */
+export interface DisplayState {
+  readonly mode: 'single' | 'merged';
+  readonly active: number;
+  readonly channels: readonly ChannelDisplay[];
+}
+
+/** The part of the state that undo/redo restores and the project file stores. */
+export interface DocState {
+  readonly settings: AnalysisSettings;
+  readonly files: Readonly<Record<string, FileEdits>>;
+}
+
+/** Everything the editor needs to draw; large pixel data lives outside (see app/useStack). */
+export interface EditorState {
+  readonly doc: DocState;
+  /** Key of the shown file in doc.files (its path relative to the folder). */
+  readonly current: string | null;
+  /** The automatically found axis of the shown file (used when there is no hand axis). */
+  readonly autoAxis: ApAxis | null;
+  readonly display: DisplayState;
+  readonly view: ViewTransform;
+  readonly tool: ToolName;
+  readonly selectedLandmark: number | null;
+  readonly past: readonly DocState[];
+  readonly future: readonly DocState[];
+  /** Bumped whenever doc changes, so the autosave effect can debounce on it. */
+  readonly revision: number;
+}
+
+/** Which end of the AP axis a handle moves. */
+export type AxisEnd = 'anterior' | 'posterior';
+
+/** Every named edit. `coalesce` marks the continuation of a drag that already entered history. */
+export type EditorAction =
+  | { type: 'openDoc'; doc: DocState }
+  | { type: 'selectFile'; key: string; autoAxis: ApAxis | null }
+  | { type: 'setAxisHandle'; end: AxisEnd; point: ImagePoint; coalesce?: boolean }
+  | { type: 'swapPoles' }
+  | { type: 'resetAxis' }
+  | { type: 'addLandmark'; point: ImagePoint; name?: string }
+  | { type: 'moveLandmark'; index: number; point: ImagePoint; coalesce?: boolean }
+  | { type: 'renameLandmark'; index: number; name: string }
+  | { type: 'deleteLandmark'; index: number }
+  | { type: 'selectLandmark'; index: number | null }
+  | { type: 'setFitRange'; rangeEl: readonly [number, number]; coalesce?: boolean }
+  | { type: 'setSetting'; patch: Partial<AnalysisSettings> }
+  | { type: 'setChannelDisplay'; index: number; patch: Partial<ChannelDisplay> }
+  | { type: 'initChannelDisplay'; channels: readonly ChannelDisplay[] }
+  | { type: 'setDisplayMode'; mode: 'single' | 'merged'; active?: number }
+  | { type: 'setView'; view: ViewTransform }
+  | { type: 'setTool'; tool: ToolName }
+  | { type: 'undo' }
+  | { type: 'redo' };
+
+/** What an action does: the new state and whether the previous document enters undo history. */
+export interface ActionOutcome {
+  readonly state: EditorState;
+  readonly history: 'push' | 'none';
+}
