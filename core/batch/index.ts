@@ -1,0 +1,21 @@
+// Public surface of core/batch: batch settings from config + flags, output tables, results JSON, project edits.
+export { BatchOptionError } from './option-error';
+export {
+  parseSettingsFlags, parseFitRange, parsePixelSize, parseProjection, parseChannelRef,
+  type SettingsFlags, type SettingsOverrides,
+} from './parse-flags';
+export { settingsFromConfig, parseConfigText } from './parse-config';
+export { mergeSettings } from './merge-settings';
+export { csvCell, csvRow, toCsv, type CsvValue } from './csv-write';
+export { parseCsv, parseCsvRecords, CsvError } from './csv-parse';
+export {
+  EMBRYO_COLUMNS, BOUNDARY_COLUMNS, PROFILE_COLUMNS, LANDMARK_COLUMNS,
+  embryoRow, embryosCsv, boundariesCsv, profilesCsv, landmarksCsv, summaryBoundary, embryoProfiles,
+} from './tables';
+export { resultsToJson, resultsFromJson, RESULTS_SCHEMA, RESULTS_VERSION } from './results-json';
+export {
+  PROJECT_FILE_NAME, parseProjectDoc, projectKey, editsForFile, toHandEdits, settingsForFile,
+} from './project-edits';
+export { isStackFileName, sortStackPaths } from './stack-files';
+export { runRecordToJson, type RunRecord, type RunInput, type SoftwareVersions } from './run-record';
+export { errorResult } from './error-result';

@@ -1,0 +1,52 @@
+import { describe, expect, it } from 'vitest';
+import { DEFAULT_SETTINGS } from '../settings';
+import { editsForFile, parseProjectDoc, settingsForFile, toHandEdits } from './project-edits';
+import { isStackFileName, sortStackPaths } from './stack-files';
+
+// Source: demo data; messages are this project's pinned wording.
+const doc = {
+  schema: 'eggline-project', version: 1, folder: '/data/run', settings: DEFAULT_SETTINGS,
+  files: {
+    'sub/E02.ome.tif': { axis: { anterior: { x: 1, y: 2 }, posterior: { x: 90, y: 3 }, source: 'auto' }, landmarks: [], fitRangeEl: [0.2, 0.5] },
+    'E01.ome.tif': { axis: null, landmarks: [{ name: 'furrow', point: { x: 30, y: 4 } }], fitRangeEl: null },
+  },
+};
+
+describe('project edits', () => {
+  it('parses a project and finds edits by relative path (either slash)', () => {
+    const p = parseProjectDoc(JSON.stringify(doc), 'p.json');
+    expect(editsForFile(p, 'sub\\E02.ome.tif')?.fitRangeEl).toEqual([0.2, 0.5]);
+    expect(editsForFile(p, 'missing.tif')).toBeNull();
+    expect(editsForFile(null, 'E01.ome.tif')).toBeNull();
+  });
+  it('turns edits into hand edits (axis marked hand) and a per-file fit range', () => {
+    const p = parseProjectDoc(JSON.stringify(doc), 'p.json');
+    const e2 = editsForFile(p, 'sub/E02.ome.tif');
+    expect(toHandEdits(e2)?.axis?.source).toBe('hand');
+    expect(settingsForFile(DEFAULT_SETTINGS, e2).fitRangeEl).toEqual([0.2, 0.5]);
+    const e1 = editsForFile(p, 'E01.ome.tif');
+    expect(toHandEdits(e1)).toEqual({ axis: null, landmarks: [{ name: 'furrow', point: { x: 30, y: 4 } }] });
+    expect(settingsForFile(DEFAULT_SETTINGS, e1)).toBe(DEFAULT_SETTINGS);
+    expect(toHandEdits({ axis: null, landmarks: [], fitRangeEl: null })).toBeNull();
+  });
+  it('pins the messages for bad project files', () => {
+    expect(() => parseProjectDoc('{"schema":"other"}', 'p.json')).toThrow('p.json: not an Eggline project file (schema must be "eggline-project")');
+    expect(() => parseProjectDoc('{"schema":"eggline-project","version":9,"files":{}}', 'p.json')).toThrow('p.json: unsupported project version 9 (expected 1)');
+    const badRange = { ...doc, files: { 'a.tif': { axis: null, landmarks: [], fitRangeEl: [0.9, 0.1] } } };
+    expect(() => parseProjectDoc(JSON.stringify(badRange), 'p.json'))
+      .toThrow('p.json: edits for "a.tif": fitRangeEl must be two numbers [a, b] with 0 ≤ a < b ≤ 1');
+  });
+});
+
+describe('stack file names', () => {
+  it('accepts the TIFF family and skips others and hidden files', () => {
+    // Source: OME-TIFF specification (file extensions .ome.tif/.ome.tiff/.ome.btf/.ome.tf8/.ome.tf2)
+    for (const n of ['a.tif', 'b.TIFF', 'c.ome.tif', 'd.ome.tiff', 'e.btf', 'f.ome.tf8', 'g.tf2']) expect(isStackFileName(n)).toBe(true);
+    for (const n of ['a.png', 'notes.txt', '._a.tif', 'tif', 'a.tif.bak']) expect(isStackFileName(n)).toBe(false);
+  });
+  it('sorts by code unit, not locale', () => {
+    // Source: demo data
+    expect(sortStackPaths(['b.tif', 'B.tif', 'a/z.tif', 'a.tif', 'E10.tif', 'E2.tif']))
+      .toEqual(['B.tif', 'E10.tif', 'E2.tif', 'a.tif', 'a/z.tif', 'b.tif']);
+  });
+});

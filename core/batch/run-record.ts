@@ -1,0 +1,47 @@
+// run.json: what is needed to reproduce a batch (settings, software versions, inputs and their hashes).
+import type { AnalysisSettings } from '../settings';
+
+/** Software versions recorded with a run. */
+export interface SoftwareVersions {
+  readonly eggline: string;
+  readonly node: string;
+  readonly sharp: string | null;
+  readonly libvips: string | null;
+}
+
+/** One input file of a run: relative path, size in bytes, SHA-256 (hex) and outcome. */
+export interface RunInput {
+  readonly file: string;
+  readonly bytes: number | null;
+  readonly sha256: string | null;
+  readonly status: 'ok' | 'error' | 'not-run';
+  readonly error: string | null;
+}
+
+/** The run record written as run.json next to every batch output. */
+export interface RunRecord {
+  readonly schema: 'eggline-run';
+  readonly version: 1;
+  readonly runId: string;
+  readonly software: SoftwareVersions;
+  /** ISO 8601 UTC times. */
+  readonly startedAt: string;
+  readonly endedAt: string;
+  readonly commandLine: readonly string[] | null;
+  readonly folder: string;
+  readonly outDir: string;
+  readonly projectFile: string | null;
+  readonly configFile: string | null;
+  readonly settings: AnalysisSettings;
+  readonly jobs: number;
+  readonly timeoutPerFileS: number;
+  readonly cancelled: boolean;
+  readonly ok: number;
+  readonly failed: number;
+  readonly inputs: readonly RunInput[];
+}
+
+/** run.json text (pretty-printed, ends with a newline). */
+export function runRecordToJson(record: RunRecord): string {
+  return `${JSON.stringify(record, null, 2)}\n`;
+}

@@ -1,0 +1,83 @@
+import { describe, expect, it } from 'vitest';
+import type { EmbryoResult, Profile } from '../model';
+import { parseCsv } from './csv-parse';
+import { errorResult } from './error-result';
+import { resultsFromJson, resultsToJson } from './results-json';
+import { boundariesCsv, embryosCsv, EMBRYO_COLUMNS, landmarksCsv, profilesCsv, summaryBoundary } from './tables';
+
+// Source: demo data (a hand-built result; every expected cell is copied from it).
+const profile = (channel: string, mean: number[]): Profile => ({
+  channel, xEl: Float64Array.from([0.25, 0.75]), xUm: Float64Array.from([125, 375]),
+  mean: Float64Array.from(mean), sd: Float64Array.from([1, 2]), n: Float64Array.from([10, 12]),
+});
+const ok: EmbryoResult = {
+  file: 'dose,half/E01.ome.tif', status: 'ok', error: null, warnings: ['pixel size from "file"', 'edge clipped'],
+  pixelSizeUm: 0.5, pixelSizeSource: 'ome', eggLengthUm: 500, eggWidthUm: 180,
+  axis: { anterior: { x: 10, y: 20 }, posterior: { x: 1010, y: 22.5 }, source: 'hand' },
+  gradientChannel: 'grad', gradientProfile: profile('grad', [100, 5]),
+  gradientFit: {
+    amplitude: 120, amplitudeSe: 2, lambdaUm: 100, lambdaSeUm: 3, lambdaCiLowUm: 94, lambdaCiHighUm: 106, lambdaEl: 0.2,
+    lambdaSeEl: 0.006, background: 4, backgroundSe: 0.5, r2: 0.99, rss: 1, dof: 10, iterations: 7, fitRangeEl: [0.1, 0.6],
+    xEl: Float64Array.from([0.1, 0.2]), residuals: Float64Array.from([Number.NaN, -0.5]),
+  },
+  boundaryProfiles: [profile('grad', [100, 5]), profile('stripe', [50, 1])],
+  boundaries: [
+    { channel: 'stripe', method: 'half-max', positionEl: 0.48, positionUm: 240, widthEl: null, positionSeEl: null, direction: 'falling', note: null },
+    { channel: 'stripe', method: 'logistic', positionEl: 0.5, positionUm: 250, widthEl: 0.02, positionSeEl: 0.001, direction: 'falling', note: 'a "note", with comma' },
+    { channel: 'other', method: 'logistic', positionEl: 0.7, positionUm: 350, widthEl: 0.03, positionSeEl: null, direction: 'rising', note: null },
+  ],
+  landmarks: [{ name: 'furrow', point: { x: 330, y: 40 }, xEl: 0.32, xUm: 160, offAxisUm: -1.5 }],
+  backgrounds: [{ channel: 'grad', method: 'outside', value: 4 }],
+};
+const bad = errorResult('junk.tif', 'junk.tif: not a TIFF file\n(first bytes 00 00)');
+
+describe('output tables', () => {
+  it('embryos.csv has every column and one row per file with the known cells', () => {
+    const rows = parseCsv(embryosCsv([ok, bad]));
+    expect(rows[0]).toEqual([...EMBRYO_COLUMNS]);
+    expect(rows).toHaveLength(3);
+    const row = Object.fromEntries(EMBRYO_COLUMNS.map((c, i) => [c, rows[1][i]]));
+    expect(row).toMatchObject({
+      file: 'dose,half/E01.ome.tif', status: 'ok', error: '', warnings: 'pixel size from "file"; edge clipped',
+      pixel_size_um: '0.5', anterior_y_px: '20', posterior_y_px: '22.5', axis_source: 'hand', lambda_um: '100',
+      lambda_el: '0.2', fit_start_el: '0.1', fit_end_el: '0.6', boundary_el: '0.5', boundary_width_el: '0.02',
+    });
+    expect(rows[2].slice(0, 4)).toEqual(['junk.tif', 'error', 'junk.tif: not a TIFF file (first bytes 00 00)', '']);
+    expect(rows[2].slice(4).every((c, i) => c === '' || EMBRYO_COLUMNS[i + 4] === 'pixel_size_source')).toBe(true);
+  });
+  it('summary boundary is the first channel, logistic preferred', () => {
+    expect(summaryBoundary(ok)?.positionEl).toBe(0.5);
+    expect(summaryBoundary(bad)).toBeNull();
+  });
+  it('boundaries, profiles and landmarks tables', () => {
+    expect(boundariesCsv([ok, bad]).split('\r\n')[2])
+      .toBe('dose,half/E01.ome.tif,stripe,logistic,0.5,250,0.02,0.001,falling,"a ""note"", with comma"'.replace('dose,half/E01.ome.tif', '"dose,half/E01.ome.tif"'));
+    const profiles = parseCsv(profilesCsv([ok, bad]));
+    expect(profiles).toEqual([
+      ['file', 'channel', 'x_el', 'x_um', 'mean', 'sd', 'n'],
+      [ok.file, 'grad', '0.25', '125', '100', '1', '10'], [ok.file, 'grad', '0.75', '375', '5', '2', '12'],
+      [ok.file, 'stripe', '0.25', '125', '50', '1', '10'], [ok.file, 'stripe', '0.75', '375', '1', '2', '12'],
+    ]);
+    expect(landmarksCsv([ok])).toBe('file,name,x_px,y_px,x_el,x_um,off_axis_um\r\n"dose,half/E01.ome.tif",furrow,330,40,0.32,160,-1.5\r\n');
+  });
+});
+
+describe('results.json', () => {
+  it('round-trips results, typed arrays included (NaN comes back as NaN)', () => {
+    const text = resultsToJson([ok, bad]);
+    expect(JSON.parse(text)).toMatchObject({ schema: 'eggline-results', version: 1 });
+    expect(JSON.parse(text).results[0].gradientProfile.mean).toEqual([100, 5]);
+    const back = resultsFromJson(text);
+    expect(back[0].gradientProfile?.mean).toBeInstanceOf(Float64Array);
+    expect(Array.from(back[0].gradientFit?.residuals ?? [])).toEqual([Number.NaN, -0.5]);
+    expect(back[0]).toEqual(ok);
+    expect(back[1]).toEqual(bad);
+  });
+  it('rejects other files with one-line messages', () => {
+    expect(() => resultsFromJson('nope')).toThrow(/^results\.json: not valid JSON/);
+    expect(() => resultsFromJson('{"schema":"x"}')).toThrow('results.json: not an Eggline results file (schema must be "eggline-results")');
+    expect(() => resultsFromJson('{"schema":"eggline-results","version":2,"results":[]}')).toThrow('results.json: unsupported version 2 (expected 1)');
+    expect(() => resultsFromJson('{"schema":"eggline-results","version":1,"results":[{}]}'))
+      .toThrow('results.json: entry 0 is not an embryo result (needs "file" and "status")');
+  });
+});

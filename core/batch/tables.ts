@@ -1,0 +1,81 @@
+// The tidy CSV tables a batch writes: one row per observation, units in the column names.
+import type { Boundary, EmbryoResult, Profile } from '../model';
+import { toCsv, type CsvValue } from './csv-write';
+
+/** Columns of embryos.csv, one row per input file. */
+export const EMBRYO_COLUMNS = [
+  'file', 'status', 'error', 'warnings', 'pixel_size_um', 'pixel_size_source', 'egg_length_um', 'egg_width_um',
+  'anterior_x_px', 'anterior_y_px', 'posterior_x_px', 'posterior_y_px', 'axis_source', 'gradient_channel',
+  'lambda_um', 'lambda_el', 'lambda_se_um', 'lambda_ci_low_um', 'lambda_ci_high_um', 'amplitude', 'background', 'r2',
+  'fit_start_el', 'fit_end_el', 'boundary_el', 'boundary_width_el',
+] as const;
+
+/** Columns of boundaries.csv, one row per file × channel × method. */
+export const BOUNDARY_COLUMNS = [
+  'file', 'channel', 'method', 'position_el', 'position_um', 'width_el', 'position_se_el', 'direction', 'note',
+] as const;
+
+/** Columns of profiles.csv (long format), one row per file × channel × bin. */
+export const PROFILE_COLUMNS = ['file', 'channel', 'x_el', 'x_um', 'mean', 'sd', 'n'] as const;
+
+/** Columns of landmarks.csv, one row per hand-marked landmark. */
+export const LANDMARK_COLUMNS = ['file', 'name', 'x_px', 'y_px', 'x_el', 'x_um', 'off_axis_um'] as const;
+
+/** The summary boundary of one embryo: first boundary channel, its logistic result if present, else its first method. */
+export function summaryBoundary(result: EmbryoResult): Boundary | null {
+  const first = result.boundaries[0];
+  if (first === undefined) return null;
+  const sameChannel = result.boundaries.filter((b) => b.channel === first.channel);
+  return sameChannel.find((b) => b.method === 'logistic') ?? first;
+}
+
+/** One embryos.csv row (cells in EMBRYO_COLUMNS order). */
+export function embryoRow(r: EmbryoResult): CsvValue[] {
+  const fit = r.gradientFit;
+  const boundary = summaryBoundary(r);
+  return [
+    r.file, r.status, r.error, r.warnings.join('; '), r.pixelSizeUm, r.pixelSizeSource, r.eggLengthUm, r.eggWidthUm,
+    r.axis?.anterior.x, r.axis?.anterior.y, r.axis?.posterior.x, r.axis?.posterior.y, r.axis?.source,
+    r.gradientChannel, fit?.lambdaUm, fit?.lambdaEl, fit?.lambdaSeUm, fit?.lambdaCiLowUm, fit?.lambdaCiHighUm,
+    fit?.amplitude, fit?.background, fit?.r2, fit?.fitRangeEl[0], fit?.fitRangeEl[1],
+    boundary?.positionEl, boundary?.widthEl,
+  ];
+}
+
+/** embryos.csv text for all results, in the given order. */
+export function embryosCsv(results: readonly EmbryoResult[]): string {
+  return toCsv(EMBRYO_COLUMNS, results.map(embryoRow));
+}
+
+/** boundaries.csv text: every boundary of every embryo. */
+export function boundariesCsv(results: readonly EmbryoResult[]): string {
+  const rows = results.flatMap((r) => r.boundaries.map((b): CsvValue[] => [
+    r.file, b.channel, b.method, b.positionEl, b.positionUm, b.widthEl, b.positionSeEl, b.direction, b.note,
+  ]));
+  return toCsv(BOUNDARY_COLUMNS, rows);
+}
+
+/** The profiles of one embryo: the gradient channel's, then each boundary channel's not already listed. */
+export function embryoProfiles(result: EmbryoResult): Profile[] {
+  const all = result.gradientProfile ? [result.gradientProfile, ...result.boundaryProfiles] : [...result.boundaryProfiles];
+  return all.filter((p, i) => all.findIndex((q) => q.channel === p.channel) === i);
+}
+
+/** profiles.csv text (long format): one row per bin of every profile. */
+export function profilesCsv(results: readonly EmbryoResult[]): string {
+  const rows: CsvValue[][] = [];
+  for (const r of results) {
+    for (const p of embryoProfiles(r)) {
+      for (let i = 0; i < p.xEl.length; i += 1) rows.push([r.file, p.channel, p.xEl[i], p.xUm[i], p.mean[i], p.sd[i], p.n[i]]);
+    }
+  }
+  return toCsv(PROFILE_COLUMNS, rows);
+}
+
+/** landmarks.csv text: every landmark with its image position and its projection on the AP axis. */
+export function landmarksCsv(results: readonly EmbryoResult[]): string {
+  const rows = results.flatMap((r) => r.landmarks.map((l): CsvValue[] => [
+    r.file, l.name, l.point.x, l.point.y, l.xEl, l.xUm, l.offAxisUm,
+  ]));
+  return toCsv(LANDMARK_COLUMNS, rows);
+}
