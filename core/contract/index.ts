@@ -110,4 +110,34 @@ export interface EgglineApi {
   svgToPng(svg: string, scale: number): Promise<ApiResult<Uint8Array>>;
   /** Subscribe to application-menu commands (e.g. 'open-folder', 'save', 'undo'); returns an unsubscribe function. */
   onMenuCommand(listener: (command: string) => void): () => void;
+  /** Reopen a folder or stack file from the recent list (only paths on that list are accepted). */
+  openRecent?(path: string): Promise<ApiResult<OpenedRecent>>;
+  /** The file-system path of a file dropped on the window (desktop app only; '' when it has none). */
+  pathForDroppedFile?(file: File): string;
 }
+
+/** A folder opened through a dialog, the demo or the recent list, with its project. */
+export interface OpenedFolder {
+  readonly folder: string;
+  readonly entries: FolderEntry[];
+  readonly project: ProjectDoc;
+  readonly projectPath: string;
+}
+
+/** What reopening a recent path gives: a folder with its project, or loose stack files. */
+export type OpenedRecent = ({ readonly kind: 'folder' } & OpenedFolder) | { readonly kind: 'files'; readonly entries: FolderEntry[] };
+
+/** Prefix of every IPC channel between preload and main. */
+export const API_CHANNEL_PREFIX = 'eggline:';
+
+/** Methods the preload forwards with ipcRenderer.invoke on `eggline:<name>` (everything but the subscriptions). */
+export const API_INVOKE_METHODS = [
+  'openDemo', 'chooseFolder', 'chooseFiles', 'openDropped', 'recent', 'loadStack', 'loadSlice', 'saveProject',
+  'openProject', 'runBatch', 'cancelBatch', 'chooseOutputFolder', 'exportFile', 'svgToPng', 'openRecent',
+] as const satisfies readonly (keyof EgglineApi)[];
+
+/** Main → renderer event channels. */
+export const API_EVENT_CHANNELS = Object.freeze({
+  batchProgress: 'eggline:batch-progress',
+  menuCommand: 'eggline:menu-command',
+} as const);

@@ -1,0 +1,81 @@
+// Validation of a project document (schema 'eggline-project', version 1) from disk or from the renderer.
+import type { FileEdits, ProjectDoc } from '../../core/contract';
+import type { ApAxis, ImagePoint, Landmark } from '../../core/model';
+import { badField } from './format-error';
+import { checkFiniteNumber, checkOneOf, isRecord } from './check-values';
+import { checkRangeEl, checkSettings } from './check-settings';
+
+/** The schema name and the newest version this build reads and writes. */
+export const PROJECT_SCHEMA = 'eggline-project';
+export const PROJECT_VERSION = 1;
+
+/** Check an image point {x, y} in pixels. */
+function checkPoint(value: unknown, where: string): ImagePoint {
+  if (!isRecord(value)) return badField(where, 'must be a point {x, y}');
+  return { x: checkFiniteNumber(value.x, `${where}.x`), y: checkFiniteNumber(value.y, `${where}.y`) };
+}
+
+/** Check an AP axis or null. */
+function checkAxis(value: unknown, where: string): ApAxis | null {
+  if (value === null || value === undefined) return null;
+  if (!isRecord(value)) return badField(where, 'must be null or an axis {anterior, posterior, source}');
+  return {
+    anterior: checkPoint(value.anterior, `${where}.anterior`),
+    posterior: checkPoint(value.posterior, `${where}.posterior`),
+    source: checkOneOf(value.source, ['auto', 'hand'], `${where}.source`),
+  };
+}
+
+/** Check one landmark {name, point}. */
+function checkLandmark(value: unknown, where: string): Landmark {
+  if (!isRecord(value)) return badField(where, 'must be a landmark {name, point}');
+  if (typeof value.name !== 'string' || value.name.trim() === '') badField(`${where}.name`, 'must be a non-empty text');
+  return { name: value.name as string, point: checkPoint(value.point, `${where}.point`) };
+}
+
+/** Check the hand edits of one file. */
+export function checkFileEdits(value: unknown, where: string): FileEdits {
+  if (!isRecord(value)) return badField(where, 'must be an object');
+  const landmarks = value.landmarks ?? [];
+  if (!Array.isArray(landmarks)) return badField(`${where}.landmarks`, 'must be a list');
+  return {
+    axis: checkAxis(value.axis, `${where}.axis`),
+    landmarks: landmarks.map((l, i) => checkLandmark(l, `${where}.landmarks[${i}]`)),
+    fitRangeEl: value.fitRangeEl === null || value.fitRangeEl === undefined ? null
+      : checkRangeEl(value.fitRangeEl, `${where}.fitRangeEl`),
+  };
+}
+
+/** Check schema and version; a newer version is refused rather than half-read. */
+function checkHeader(value: Record<string, unknown>): void {
+  if (value.schema !== PROJECT_SCHEMA) {
+    badField('schema', `must be '${PROJECT_SCHEMA}' (found ${JSON.stringify(value.schema) ?? 'nothing'}); this is not an Eggline project`);
+  }
+  const v = value.version;
+  if (!Number.isInteger(v) || (v as number) < 1) badField('version', 'must be a whole number ≥ 1');
+  if ((v as number) > PROJECT_VERSION) {
+    badField('version', `is ${v as number}, newer than this Eggline reads (${PROJECT_VERSION}); update Eggline to open it`);
+  }
+}
+
+/** Validate a whole project document and return a clean copy (unknown fields dropped). Throws ProjectFormatError. */
+export function checkProjectDoc(value: unknown): ProjectDoc {
+  if (!isRecord(value)) return badField('project', 'must be a JSON object');
+  checkHeader(value);
+  if (value.folder !== null && value.folder !== undefined && (typeof value.folder !== 'string' || value.folder === '')) {
+    badField('folder', 'must be null or a folder path');
+  }
+  const files = value.files ?? {};
+  if (!isRecord(files)) return badField('files', 'must be an object keyed by file path');
+  const cleanFiles: Record<string, FileEdits> = {};
+  for (const [key, edits] of Object.entries(files)) {
+    if (key === '' || key.includes('\0')) badField('files', 'has an empty or invalid file key');
+    cleanFiles[key] = checkFileEdits(edits, `files[${JSON.stringify(key)}]`);
+  }
+  return {
+    schema: PROJECT_SCHEMA, version: PROJECT_VERSION,
+    folder: (value.folder as string | null | undefined) ?? null,
+    settings: checkSettings(value.settings ?? {}),
+    files: cleanFiles,
+  };
+}

@@ -1,0 +1,9 @@
+// Public surface of app/project: project files (versioned JSON, atomic save with backup) and their validation.
+export { ProjectFormatError } from './format-error';
+export { PROJECT_SCHEMA, PROJECT_VERSION, checkProjectDoc, checkFileEdits } from './check-project';
+export { checkSettings, checkRangeEl } from './check-settings';
+export { writeFileAtomic, type AtomicWriteOptions } from './atomic-write';
+export {
+  loadProject, saveProject, serializeProject, projectKeyFor, pathForProjectKey, toPortablePath, MAX_PROJECT_BYTES,
+} from './project-file';
+export { newProject, PROJECT_FILE_NAME } from './new-project';

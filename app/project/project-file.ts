@@ -1,0 +1,71 @@
+// Reading and writing project files. On disk the folder is stored relative to the project file, and file keys
+// relative to the folder, so a project moved together with its images still opens.
+import { promises as fs } from 'node:fs';
+import { basename, dirname, isAbsolute, relative, resolve, sep } from 'node:path';
+import type { ProjectDoc } from '../../core/contract';
+import { checkProjectDoc } from './check-project';
+import { ProjectFormatError } from './format-error';
+import { writeFileAtomic } from './atomic-write';
+
+/** Largest project file we read, bytes; a larger file is surely not ours and would stall the app. */
+export const MAX_PROJECT_BYTES = 64 * 1024 * 1024;
+
+/** Turn a path into the forward-slash form stored in project files. */
+export function toPortablePath(p: string): string {
+  return sep === '\\' ? p.split('\\').join('/') : p;
+}
+
+/** The key a file has in ProjectDoc.files: its path relative to the folder (forward slashes), or absolute when outside. */
+export function projectKeyFor(folder: string | null, filePath: string): string {
+  if (folder === null) return toPortablePath(resolve(filePath));
+  const rel = relative(folder, filePath);
+  const outside = rel === '' || rel.startsWith('..') || isAbsolute(rel);
+  return toPortablePath(outside ? resolve(filePath) : rel);
+}
+
+/** The absolute path of a ProjectDoc.files key. */
+export function pathForProjectKey(folder: string | null, key: string): string {
+  return isAbsolute(key) || folder === null ? resolve(key) : resolve(folder, key);
+}
+
+/** Load, parse and validate a project file; folder comes back absolute. Throws ProjectFormatError or a node error. */
+export async function loadProject(projectPath: string): Promise<ProjectDoc> {
+  const name = basename(projectPath);
+  const stat = await fs.stat(projectPath);
+  if (!stat.isFile()) throw new ProjectFormatError(`${name}: is not a file`);
+  if (stat.size > MAX_PROJECT_BYTES) throw new ProjectFormatError(`${name}: too large for a project file (${stat.size} bytes)`);
+  const text = await fs.readFile(projectPath, 'utf8');
+  let raw: unknown;
+  try {
+    raw = JSON.parse(text);
+  } catch (e) {
+    throw new ProjectFormatError(`${name}: not valid JSON (${(e as Error).message.split('\n')[0]})`);
+  }
+  let doc: ProjectDoc;
+  try {
+    doc = checkProjectDoc(raw);
+  } catch (e) {
+    if (e instanceof ProjectFormatError) throw new ProjectFormatError(`${name}: ${e.message}`);
+    throw e;
+  }
+  const folder = doc.folder === null ? null : resolve(dirname(resolve(projectPath)), doc.folder);
+  return { ...doc, folder };
+}
+
+/** The JSON text stored for a document: folder relative to the project file, file keys relative to the folder. */
+export function serializeProject(projectPath: string, doc: ProjectDoc): string {
+  const checked = checkProjectDoc(doc);
+  const folderAbs = checked.folder === null ? null : resolve(checked.folder);
+  const files: Record<string, unknown> = {};
+  for (const [key, edits] of Object.entries(checked.files)) {
+    files[projectKeyFor(folderAbs, pathForProjectKey(folderAbs, key))] = edits;
+  }
+  const folderRel = folderAbs === null ? null : toPortablePath(relative(dirname(resolve(projectPath)), folderAbs) || '.');
+  const folder = folderRel !== null && isAbsolute(folderRel) ? folderAbs : folderRel;
+  return `${JSON.stringify({ ...checked, folder, files }, null, 2)}\n`;
+}
+
+/** Validate and save a project atomically, keeping the previous version as `<path>.bak`. */
+export async function saveProject(projectPath: string, doc: ProjectDoc): Promise<void> {
+  await writeFileAtomic(projectPath, serializeProject(projectPath, doc), { backup: true });
+}
