@@ -1,0 +1,23 @@
+// Public surface of core/cohort: conditions from a sample sheet or file-name rule, per-condition statistics,
+// positional error, the dosage-shift test of the threshold model, and the cohort CSV tables.
+export type {
+  CohortAnalysis, CohortAssignment, CohortOptions, ConditionInfo, ConditionProfile, ConditionStat, DosageFit,
+  FilenameRule, Normalisation, Observation, QuantityKind, QuantityUnit, ReferenceLambda, ResolvedCohortOptions,
+  SampleRow, SampleSheet, ShiftRow,
+} from './types';
+export { CohortError } from './cohort-error';
+export { checkCohortOptions } from './options';
+export { parseSampleSheet } from './sample-sheet';
+export { sheetFromFilenameRule } from './filename-rule';
+export { assignConditions } from './assign';
+export { observationsOf, boundaryQuantity, landmarkQuantity } from './observations';
+export { describeSample, type SampleSummary } from './describe';
+export { conditionStats } from './condition-stats';
+export { welchDifference, type MeanDifference } from './welch';
+export { referenceLambda, shiftRows, dosageFits, ratioWithCi, twoGradientShiftEl, positionQuantities } from './dosage-test';
+export { gridEl, interpolateOnGrid, normaliseProfile, centralSlope, conditionProfile } from './profiles';
+export { analyseCohort } from './analyse';
+export { conditionsCsv, shiftsCsv, dosageFitCsv, positionalErrorCsv } from './tables';
+export { makeDemoCohort, type DemoCohortSpec } from './demo-cohort';
+export { parseCsvRows, toCsv, csvCell } from './csv-local';
+export { fitLine, type LineFit } from './stats-local';

@@ -1,0 +1,187 @@
+// Data types of the cohort step. Positions along the AP axis are x/EL (0 = anterior pole, 1 = posterior pole).
+import type { EmbryoResult } from '../model';
+
+/** How gradient profiles are scaled before averaging: none, divided by the fitted amplitude A, or to [0, 1]. */
+export type Normalisation = 'none' | 'amplitude' | 'minmax';
+
+/** Unit of a cohort quantity: x/EL (or λ as a fraction of EL), micrometres, or arbitrary intensity units. */
+export type QuantityUnit = 'EL' | 'um' | 'a.u.';
+
+/** What a quantity measures; boundaries and landmarks are positions that enter the dosage test. */
+export type QuantityKind = 'lambda' | 'amplitude' | 'egg-length' | 'boundary' | 'landmark';
+
+/** One row of a sample sheet. */
+export interface SampleRow {
+  readonly file: string;
+  readonly condition: string;
+  /** Dosage relative to the reference (the reference has 1), null when not given. */
+  readonly dosage: number | null;
+  /** Free columns, by header name. */
+  readonly extra: Readonly<Record<string, string>>;
+  /** 1-based line in the sheet (0 for rows made by a file-name rule). */
+  readonly line: number;
+}
+
+/** A parsed sample sheet (or the rows a file-name rule produced). */
+export interface SampleSheet {
+  /** Name shown in messages (the sheet's file name, or "file-name rule"). */
+  readonly source: string;
+  readonly rows: readonly SampleRow[];
+}
+
+/** Assign conditions from file names: a regex with a named group `condition` (and optionally `dosage`). */
+export interface FilenameRule {
+  readonly pattern: string | RegExp;
+  /** Dosage per condition name, used when the pattern has no `dosage` group. */
+  readonly dosages?: Readonly<Record<string, number>>;
+}
+
+/** One condition of the cohort. */
+export interface ConditionInfo {
+  readonly name: string;
+  /** Dosage as given in the sheet (null when unknown). */
+  readonly dosage: number | null;
+  /** Dosage factor relative to the reference, f = dosage / dosage(reference); null when unknown. */
+  readonly factor: number | null;
+}
+
+/** Embryos grouped by condition, in the order conditions first appear in the sheet. */
+export interface CohortAssignment {
+  readonly groups: readonly { readonly condition: ConditionInfo; readonly embryos: readonly EmbryoResult[] }[];
+  /** Name of the reference condition, or null when none could be chosen (then no dosage test). */
+  readonly reference: string | null;
+  readonly warnings: readonly string[];
+}
+
+/** One measured value of one embryo. */
+export interface Observation {
+  readonly file: string;
+  readonly condition: string;
+  /** ln f of the embryo's condition (null when the dosage is unknown). */
+  readonly lnF: number | null;
+  readonly quantity: string;
+  readonly kind: QuantityKind;
+  readonly unit: QuantityUnit;
+  readonly value: number;
+}
+
+/** Summary of one quantity in one condition; `sd` of a boundary or landmark is its positional error. */
+export interface ConditionStat {
+  readonly condition: string;
+  readonly dosage: number | null;
+  readonly quantity: string;
+  readonly kind: QuantityKind;
+  readonly unit: QuantityUnit;
+  readonly n: number;
+  readonly mean: number;
+  readonly sd: number;
+  readonly sem: number;
+  readonly ciLow: number;
+  readonly ciHigh: number;
+}
+
+/** The λ (x/EL) the threshold-model prediction uses, measured on the reference condition. */
+export interface ReferenceLambda {
+  readonly condition: string;
+  readonly n: number;
+  readonly lambdaEl: number;
+  readonly seEl: number;
+  readonly ciLowEl: number;
+  readonly ciHighEl: number;
+  readonly dof: number;
+}
+
+/** Observed and predicted boundary shift of one quantity in one non-reference condition (all in x/EL). */
+export interface ShiftRow {
+  readonly quantity: string;
+  readonly condition: string;
+  readonly dosage: number | null;
+  readonly lnF: number | null;
+  readonly nReference: number;
+  readonly nCondition: number;
+  readonly observedShiftEl: number;
+  readonly ciLow: number;
+  readonly ciHigh: number;
+  readonly predictedShiftEl: number | null;
+  readonly predictedCiLow: number | null;
+  readonly predictedCiHigh: number | null;
+  readonly predictedTwoGradientEl: number | null;
+  readonly ratio: number | null;
+  readonly ratioCiLow: number | null;
+  readonly ratioCiHigh: number | null;
+}
+
+/** Regression of one position (x/EL) on ln f over all embryos with a known dosage. */
+export interface DosageFit {
+  readonly quantity: string;
+  readonly slopeEl: number;
+  readonly slopeSeEl: number;
+  readonly ciLow: number;
+  readonly ciHigh: number;
+  readonly interceptEl: number;
+  readonly r2: number;
+  readonly n: number;
+  /** λ of the reference (x/EL): the slope the threshold model predicts. */
+  readonly predictedSlopeEl: number | null;
+  /** 1 / (1/λ_A + 1/λ_P) when a posterior gradient is given, else null. */
+  readonly predictedTwoGradientSlopeEl: number | null;
+}
+
+/** Mean gradient profile of one condition on the common x/EL grid; NaN marks grid points without data. */
+export interface ConditionProfile {
+  readonly condition: string;
+  readonly dosage: number | null;
+  readonly xEl: Float64Array;
+  readonly mean: Float64Array;
+  /** SD across embryos at each grid point. */
+  readonly sd: Float64Array;
+  /** Number of embryos contributing at each grid point. */
+  readonly n: Float64Array;
+  /** Slope of the mean profile, intensity per unit x/EL (central difference). */
+  readonly slopePerEl: Float64Array;
+  /** Positional error implied by the gradient, σx = σC / |dC̄/dx|, in x/EL and in µm (mean egg length). */
+  readonly sigmaXEl: Float64Array;
+  readonly sigmaXUm: Float64Array;
+  readonly meanEggLengthUm: number | null;
+  readonly embryoCount: number;
+}
+
+/** Options of the cohort analysis (validated by checkCohortOptions). */
+export interface CohortOptions {
+  /** Reference condition; default: the condition with dosage 1. */
+  readonly reference?: string | null;
+  /** Profile normalisation before averaging; default 'none'. */
+  readonly normalisation?: Normalisation;
+  /** Decay length of an opposing posterior gradient (x/EL) for the two-gradient prediction; default none. */
+  readonly lambdaPosteriorEl?: number | null;
+  /** Spacing of the common x/EL grid; default 0.01. */
+  readonly gridStepEl?: number;
+  /** Half-width of the central difference for dC̄/dx, x/EL; default 0.02. */
+  readonly slopeHalfWidthEl?: number;
+  /** Confidence level of every interval; default 0.95. */
+  readonly level?: number;
+}
+
+/** Options with every default filled in. */
+export interface ResolvedCohortOptions {
+  readonly reference: string | null;
+  readonly normalisation: Normalisation;
+  readonly lambdaPosteriorEl: number | null;
+  readonly gridStepEl: number;
+  readonly slopeHalfWidthEl: number;
+  readonly level: number;
+}
+
+/** Everything the cohort step computes. */
+export interface CohortAnalysis {
+  readonly options: ResolvedCohortOptions;
+  readonly conditions: readonly ConditionInfo[];
+  readonly reference: string | null;
+  readonly referenceLambda: ReferenceLambda | null;
+  readonly observations: readonly Observation[];
+  readonly stats: readonly ConditionStat[];
+  readonly shifts: readonly ShiftRow[];
+  readonly dosageFits: readonly DosageFit[];
+  readonly profiles: readonly ConditionProfile[];
+  readonly warnings: readonly string[];
+}
