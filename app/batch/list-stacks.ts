@@ -1,0 +1,37 @@
+// Find the stacks of a batch: every TIFF-family file in a folder and its subfolders, in a stable order.
+import { promises as fs } from 'node:fs';
+import { join, relative, resolve, sep } from 'node:path';
+import { isStackFileName, sortStackPaths } from '../../core/batch';
+
+/** A stack found in the input folder. */
+export interface StackFile {
+  readonly path: string;
+  /** Relative to the folder, forward slashes. */
+  readonly file: string;
+}
+
+/** True when `child` is `parent` or inside it (both resolved). */
+export function isInside(parent: string, child: string): boolean {
+  const rel = relative(resolve(parent), resolve(child));
+  return rel === '' || (!rel.startsWith('..') && !rel.startsWith(sep) && !/^[a-zA-Z]:/.test(rel));
+}
+
+/** Every stack file under `folder` (hidden entries and the `skipDirs` skipped; symlinked folders not followed), sorted. */
+export async function listStackFiles(folder: string, skipDirs: readonly string[] = []): Promise<StackFile[]> {
+  const root = resolve(folder);
+  const found: string[] = [];
+  const walk = async (dir: string): Promise<void> => {
+    const entries = await fs.readdir(dir, { withFileTypes: true });
+    for (const e of entries) {
+      if (e.name.startsWith('.')) continue;
+      const full = join(dir, e.name);
+      if (e.isDirectory()) {
+        if (!skipDirs.some((s) => isInside(s, full))) await walk(full);
+      } else if (isStackFileName(e.name) && (e.isFile() || (e.isSymbolicLink() && (await fs.stat(full).catch(() => null))?.isFile()))) {
+        found.push(relative(root, full).split(sep).join('/'));
+      }
+    }
+  };
+  await walk(root);
+  return sortStackPaths(found).map((file) => ({ file, path: join(root, ...file.split('/')) }));
+}

@@ -1,0 +1,73 @@
+import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { errorResult, parseCsv, resultsFromJson } from '../../core/batch';
+import type { ProjectDoc } from '../../core/contract';
+import type { EmbryoResult } from '../../core/model';
+import { DEFAULT_SETTINGS } from '../../core/settings';
+import { runBatch } from './run-batch';
+import type { BatchTask } from './task';
+
+// Demo data: a folder of placeholder files and a stand-in analysis that echoes what it was given.
+const root = mkdtempSync(join(tmpdir(), 'eggline-runbatch-'));
+const input = join(root, 'in');
+mkdirSync(join(input, 'sub'), { recursive: true });
+mkdirSync(join(input, '.hidden'));
+for (const f of ['b.tif', 'a.ome.tiff', 'sub/c.TIF', 'notes.txt', '.hidden/x.tif', '._a.tif', 'bad.tif']) writeFileSync(join(input, f), `bytes of ${f}`);
+afterAll(() => rmSync(root, { recursive: true, force: true }));
+
+const fake = async (t: BatchTask): Promise<EmbryoResult> => (t.file === 'bad.tif'
+  ? errorResult(t.file, `${t.file}: not a TIFF file`)
+  : { ...errorResult(t.file, ''), status: 'ok', error: null, gradientChannel: String(t.settings.fitRangeEl),
+    landmarks: (t.handEdits?.landmarks ?? []).map((l) => ({ ...l, xEl: 0.5, xUm: 100, offAxisUm: 0 })) });
+
+const doc: ProjectDoc = {
+  schema: 'eggline-project', version: 1, folder: input, settings: DEFAULT_SETTINGS,
+  files: { 'sub/c.TIF': { axis: null, landmarks: [{ name: 'furrow', point: { x: 3, y: 4 } }], fitRangeEl: [0.2, 0.4] } },
+};
+
+describe('runBatch (in-process mode)', () => {
+  it('analyses stack files in sorted order, applies project edits, writes all outputs, leaves the input alone', async () => {
+    const before = readdirSync(input, { recursive: true }).sort();
+    const progress: string[] = [];
+    const out = join(root, 'out');
+    const summary = await runBatch({
+      folder: input, outDir: out, settings: DEFAULT_SETTINGS, doc, jobs: 0, analyzeInProcess: fake,
+      onProgress: (p) => progress.push(`${p.status}:${p.file ?? ''}:${p.done}/${p.total}`), commandLine: ['batch', input],
+    });
+    expect(readdirSync(input, { recursive: true }).sort()).toEqual(before);
+    expect(summary.results.map((r) => r.file)).toEqual(['a.ome.tiff', 'b.tif', 'bad.tif', 'sub/c.TIF']);
+    expect([summary.ok, summary.failed, summary.cancelled]).toEqual([3, 1, false]);
+    expect(summary.results[3].gradientChannel).toBe('0.2,0.4');
+    expect(summary.results[0].gradientChannel).toBe('0.1,0.6');
+    expect(progress.at(-1)).toBe('finished::4/4');
+    expect(readdirSync(out).sort()).toEqual(['boundaries.csv', 'embryos.csv', 'landmarks.csv', 'profiles.csv', 'results.json', 'run.json']);
+    const embryos = parseCsv(readFileSync(join(out, 'embryos.csv'), 'utf8'));
+    expect(embryos.slice(1).map((r) => [r[0], r[1], r[2]])).toEqual([
+      ['a.ome.tiff', 'ok', ''], ['b.tif', 'ok', ''], ['bad.tif', 'error', 'bad.tif: not a TIFF file'], ['sub/c.TIF', 'ok', ''],
+    ]);
+    expect(readFileSync(join(out, 'landmarks.csv'), 'utf8')).toContain('sub/c.TIF,furrow,3,4,0.5,100,0');
+    expect(resultsFromJson(readFileSync(join(out, 'results.json'), 'utf8'))).toHaveLength(4);
+    const run = JSON.parse(readFileSync(join(out, 'run.json'), 'utf8'));
+    // Source: SHA-256 of the same bytes from node:crypto (OpenSSL), a reference outside the streamed hashing code
+    const { createHash } = await import('node:crypto');
+    expect(run.inputs[1]).toEqual({ file: 'b.tif', bytes: 14, sha256: createHash('sha256').update('bytes of b.tif').digest('hex'), status: 'ok', error: null });
+    expect(run.software.node).toBe(process.versions.node);
+    expect(run.commandLine).toEqual(['batch', input]);
+  });
+  it('refuses an output folder equal to the input or containing it, and a missing input', async () => {
+    const base = { settings: DEFAULT_SETTINGS, doc: null, jobs: 0, analyzeInProcess: fake };
+    await expect(runBatch({ ...base, folder: input, outDir: input })).rejects.toThrow(`the output folder must not be the input folder (${input})`);
+    await expect(runBatch({ ...base, folder: input, outDir: root })).rejects.toThrow(`the output folder must not contain the input folder (${root})`);
+    await expect(runBatch({ ...base, folder: join(root, 'nope'), outDir: join(root, 'o2') })).rejects.toThrow(`input folder not found: ${join(root, 'nope')}`);
+  });
+  it('an output folder inside the input is allowed and never scanned', async () => {
+    const out = join(input, 'results');
+    mkdirSync(out);
+    writeFileSync(join(out, 'old.tif'), 'x');
+    const summary = await runBatch({ folder: input, outDir: out, settings: DEFAULT_SETTINGS, doc: null, jobs: 0, analyzeInProcess: fake });
+    expect(summary.results.map((r) => r.file)).not.toContain('results/old.tif');
+    rmSync(out, { recursive: true });
+  });
+});

@@ -1,0 +1,31 @@
+// Write a batch's tables, results.json and run.json into the output folder (each file atomically).
+import { promises as fs } from 'node:fs';
+import { join } from 'node:path';
+import {
+  boundariesCsv, embryosCsv, landmarksCsv, profilesCsv, resultsToJson, runRecordToJson, type RunRecord,
+} from '../../core/batch';
+import type { EmbryoResult } from '../../core/model';
+import { writeFileAtomic } from '../project';
+
+/** Names of the files every batch writes. */
+export const OUTPUT_FILES = ['embryos.csv', 'boundaries.csv', 'profiles.csv', 'landmarks.csv', 'results.json', 'run.json'] as const;
+
+/** Write all outputs; returns the paths written. */
+export async function writeBatchOutputs(outDir: string, results: readonly EmbryoResult[], record: RunRecord): Promise<string[]> {
+  await fs.mkdir(outDir, { recursive: true });
+  const contents: Record<(typeof OUTPUT_FILES)[number], string> = {
+    'embryos.csv': embryosCsv(results),
+    'boundaries.csv': boundariesCsv(results),
+    'profiles.csv': profilesCsv(results),
+    'landmarks.csv': landmarksCsv(results),
+    'results.json': resultsToJson(results),
+    'run.json': runRecordToJson(record),
+  };
+  const written: string[] = [];
+  for (const name of OUTPUT_FILES) {
+    const path = join(outDir, name);
+    await writeFileAtomic(path, contents[name]);
+    written.push(path);
+  }
+  return written;
+}
