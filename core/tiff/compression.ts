@@ -1,0 +1,20 @@
+// Human-readable names for TIFF Compression and Predictor codes (TIFF 6.0 §3, §9, §13, §14; Adobe TIFF Technical Notes).
+
+const COMPRESSION_NAMES: Record<number, string> = {
+  1: 'none', 2: 'CCITT RLE', 3: 'CCITT Group 3', 4: 'CCITT Group 4', 5: 'LZW', 6: 'old-style JPEG', 7: 'JPEG',
+  8: 'Deflate', 32946: 'Deflate', 32773: 'PackBits', 34712: 'JPEG 2000', 34887: 'LERC', 34925: 'LZMA',
+  50000: 'Zstandard', 50001: 'WebP',
+};
+
+/** "LZW + horizontal predictor", "none", "Deflate + floating-point predictor", "compression 12345". */
+export function describeCompression(compression: number, predictor: number): string {
+  const name = COMPRESSION_NAMES[compression] ?? `compression ${compression}`;
+  if (predictor === 2) return `${name} + horizontal predictor`;
+  if (predictor === 3) return `${name} + floating-point predictor`;
+  return name;
+}
+
+/** True for compressions that cannot hold grey-level microscope data (bilevel fax codes). */
+export function isBilevelCompression(compression: number): boolean {
+  return compression >= 2 && compression <= 4;
+}

@@ -1,0 +1,39 @@
+// Human-readable summary of a StackInfo, one fact per line (for the inspect command).
+import type { StackInfo } from '../model';
+import { planeSlot } from './dimension-order';
+
+/** Formats a µm value without float noise. */
+function um(value: number | null): string {
+  return value === null ? '?' : `${Number(value.toPrecision(6))} µm`;
+}
+
+/** Lines describing dims, channels, pixel size and its source, compression, sample type and the plane map. */
+export function describeStack(info: StackInfo): string[] {
+  const kind = `${info.isOme ? 'OME-TIFF' : 'TIFF'}${info.bigTiff ? ' (BigTIFF)' : ''}, byte order ${info.byteOrder}`;
+  const lines = [
+    `format: ${kind}, ${info.ifdCount} IFD${info.ifdCount === 1 ? '' : 's'}`,
+    `dimensions: X ${info.sizeX} × Y ${info.sizeY} × Z ${info.sizeZ} × C ${info.sizeC} × T ${info.sizeT} (order ${info.dimensionOrder})`,
+    `channels: ${info.channelNames.map((n, c) => `${c}=${n}`).join(', ')}`,
+    `pixel size: ${info.pixelSize.xUm === null ? 'unknown' : `${um(info.pixelSize.xUm)} × ${um(info.pixelSize.yUm)}`}` +
+      `${info.pixelSize.zUm !== null ? `, z step ${um(info.pixelSize.zUm)}` : ''} (source: ${info.pixelSize.source})`,
+    `sample type: ${info.sampleType}${info.samplesPerPixel > 1 ? `, ${info.samplesPerPixel} samples per pixel` : ''}`,
+    `compression: ${info.compression}`,
+    ...planeMapLines(info),
+  ];
+  return [...lines, ...info.warnings.map((w) => `warning: ${w}`)];
+}
+
+/** "plane map: t0 c0: IFD 0..2" lines, one per (t, c), compressed into ranges when consecutive. */
+function planeMapLines(info: StackInfo): string[] {
+  const lines: string[] = [];
+  for (let t = 0; t < info.sizeT; t++) {
+    for (let c = 0; c < info.sizeC; c++) {
+      const ifds = Array.from({ length: info.sizeZ }, (_, z) => info.planeIfd[planeSlot(info, z, c, t)]);
+      const consecutive = ifds.every((v, i) => i === 0 || v === ifds[i - 1] + 1);
+      const list = consecutive && ifds.length > 1 ? `${ifds[0]}..${ifds[ifds.length - 1]}` : ifds.join(', ');
+      lines.push(`plane map: t${t} c${c} z0..${info.sizeZ - 1} → IFD ${list}`);
+    }
+  }
+  // Long time series: the first lines show the pattern; the rest would only scroll.
+  return lines.length <= 12 ? lines : [...lines.slice(0, 10), `plane map: … ${lines.length - 10} more (t, c) pairs`];
+}

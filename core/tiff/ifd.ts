@@ -1,0 +1,94 @@
+// Image File Directories: entry lists and the chain that links them (TIFF 6.0 §2; BigTIFF design).
+import type { ByteSource } from './byte-source';
+import { TiffError } from './errors';
+import type { TiffHeader } from './header';
+import { fieldTypeSize } from './tags';
+
+/** One 12-byte (TIFF) or 20-byte (BigTIFF) directory entry. */
+export interface IfdEntry {
+  readonly tag: number;
+  /** TIFF field type code (1 BYTE … 12 DOUBLE, 16 LONG8, 17 SLONG8, 18 IFD8). */
+  readonly type: number;
+  readonly count: number;
+  /** The value bytes when they fit in the entry, else null. */
+  readonly inline: Uint8Array | null;
+  /** File offset of the value when it does not fit in the entry. */
+  readonly valueOffset: number;
+}
+
+/** A parsed IFD: where it is, its entries by tag, and the next IFD's offset (0 = last). */
+export interface Ifd {
+  readonly index: number;
+  readonly offset: number;
+  readonly entries: ReadonlyMap<number, IfdEntry>;
+  readonly nextOffset: number;
+}
+
+/** Reads an unsigned integer of 2, 4 or 8 bytes as a JS number. */
+function readUint(view: DataView, at: number, bytes: number, le: boolean): number {
+  if (bytes === 2) return view.getUint16(at, le);
+  if (bytes === 4) return view.getUint32(at, le);
+  return Number(view.getBigUint64(at, le));
+}
+
+/** Reads IFD number `index` at `offset`; throws TiffError on offsets outside the file or a cut IFD. */
+export async function readIfd(source: ByteSource, header: TiffHeader, offset: number, index: number, fileLabel: string): Promise<Ifd> {
+  const le = header.littleEndian;
+  const countBytes = header.bigTiff ? 8 : 2;
+  const entryBytes = header.bigTiff ? 20 : 12;
+  const pointerBytes = header.bigTiff ? 8 : 4;
+  if (offset >= source.size) {
+    throw new TiffError('bad-offset', fileLabel, `IFD ${index} offset ${offset} is past the end of the file (${source.size} bytes)`);
+  }
+  const countRaw = await source.read(offset, countBytes);
+  if (countRaw.length < countBytes) throw new TiffError('truncated', fileLabel, `file ends inside IFD ${index} (offset ${offset})`);
+  const count = readUint(new DataView(countRaw.buffer, countRaw.byteOffset, countBytes), 0, countBytes, le);
+  if (count === 0) throw new TiffError('bad-offset', fileLabel, `IFD ${index} at offset ${offset} has no entries`);
+  const blockBytes = count * entryBytes + pointerBytes;
+  if (count > 65535 || blockBytes > source.size) {
+    throw new TiffError('bad-offset', fileLabel, `IFD ${index} at offset ${offset} claims ${count} entries, more than the file can hold`);
+  }
+  const block = await source.read(offset + countBytes, blockBytes);
+  if (block.length < blockBytes) throw new TiffError('truncated', fileLabel, `file ends inside IFD ${index} (offset ${offset})`);
+  return parseIfdBlock(block, header, count, offset, index);
+}
+
+/** Splits an IFD's bytes into entries; values that fit in the entry are kept inline. */
+function parseIfdBlock(block: Uint8Array, header: TiffHeader, count: number, offset: number, index: number): Ifd {
+  const le = header.littleEndian;
+  const view = new DataView(block.buffer, block.byteOffset, block.length);
+  const entryBytes = header.bigTiff ? 20 : 12;
+  const slotBytes = header.bigTiff ? 8 : 4;
+  const entries = new Map<number, IfdEntry>();
+  for (let i = 0; i < count; i++) {
+    const at = i * entryBytes;
+    const tag = view.getUint16(at, le);
+    const type = view.getUint16(at + 2, le);
+    const n = readUint(view, at + 4, slotBytes, le);
+    const slot = at + 4 + slotBytes;
+    const valueBytes = n * fieldTypeSize(type); // unknown types: 0 bytes, never read
+    const inline = valueBytes <= slotBytes ? block.slice(slot, slot + slotBytes) : null;
+    const valueOffset = inline ? 0 : readUint(view, slot, slotBytes, le);
+    if (!entries.has(tag)) entries.set(tag, { tag, type, count: n, inline, valueOffset });
+  }
+  const nextOffset = readUint(view, count * entryBytes, slotBytes, le);
+  return { index, offset, entries, nextOffset };
+}
+
+/** Walks the main IFD chain from IFD 0; guards against loops, offsets past the end and absurd lengths. */
+export async function readIfdChain(source: ByteSource, header: TiffHeader, fileLabel: string, maxIfds = 1_000_000): Promise<Ifd[]> {
+  const ifds: Ifd[] = [];
+  const seen = new Set<number>();
+  let offset = header.firstIfdOffset;
+  while (offset !== 0) {
+    if (seen.has(offset)) {
+      throw new TiffError('ifd-loop', fileLabel, `IFD chain loops back to offset ${offset} after ${ifds.length} IFDs`);
+    }
+    if (ifds.length >= maxIfds) throw new TiffError('too-large', fileLabel, `more than ${maxIfds} IFDs in the chain`);
+    seen.add(offset);
+    const ifd = await readIfd(source, header, offset, ifds.length, fileLabel);
+    ifds.push(ifd);
+    offset = ifd.nextOffset;
+  }
+  return ifds;
+}

@@ -1,0 +1,21 @@
+// Public surface of core/tiff: TIFF/BigTIFF/OME-TIFF tag reading, plane decoding via geotiff, and writing.
+export type { ByteSource } from './byte-source';
+export { memoryByteSource } from './byte-source';
+export { TiffError, type TiffErrorCode } from './errors';
+export { readTiffHeader, type TiffHeader } from './header';
+export { readIfd, readIfdChain, type Ifd, type IfdEntry } from './ifd';
+export { readTag, readNumber, readNumbers, type TagValue } from './tag-value';
+export { readImageLayout, type ImageLayout } from './layout';
+export { Tag } from './tags';
+export { sampleTypeOf, bytesPerSample } from './sample-type';
+export { describeCompression } from './compression';
+export { micrometresPerUnit } from './units';
+export { micrometresPerPixel } from './resolution';
+export { DIMENSION_ORDERS, isDimensionOrder, planeNumber, planeCoordinates, planeSlot, type PlaneCounts } from './dimension-order';
+export { parseOmeXml, looksLikeOmeXml, type OmeImage, type OmeTiffData } from './ome';
+export { mapOmePlanes, sequentialPlaneMap } from './plane-map';
+export { parseImageJDescription, type ImageJDescription } from './imagej';
+export { readStackInfo, type StackInfoOptions } from './stack-info';
+export { describeStack } from './describe';
+export { writeOmeTiff, writePlainTiff, type WritePlane, type OmeTiffMeta, type PlainTiffOptions } from './write';
+export { toRational } from './rational';

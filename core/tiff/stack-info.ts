@@ -1,0 +1,159 @@
+// readStackInfo: everything about a stack that the tags say, without decoding pixels.
+import type { DimensionOrder, PixelSize, SampleType, StackInfo } from '../model';
+import type { ByteSource } from './byte-source';
+import { describeCompression, isBilevelCompression } from './compression';
+import { sequentialPlaneMap, mapOmePlanes } from './plane-map';
+import { TiffError } from './errors';
+import { readTiffHeader, type TiffHeader } from './header';
+import { readIfdChain, type Ifd } from './ifd';
+import { parseImageJDescription } from './imagej';
+import { readImageLayout, type ImageLayout } from './layout';
+import { looksLikeOmeXml, parseOmeXml, type OmeImage } from './ome';
+import { micrometresPerPixel } from './resolution';
+import { sampleTypeOf } from './sample-type';
+import { readNumber, readTag } from './tag-value';
+import { Tag } from './tags';
+import { checkPlaneBudget } from './budget';
+
+/** Options for readStackInfo. */
+export interface StackInfoOptions {
+  /** Largest decoded plane (bytes) the caller will accept; default 1 GiB. */
+  readonly maxPlaneBytes?: number;
+}
+
+/** Reads tags (OME-XML, ImageJ description or plain TIFF) into a StackInfo; throws TiffError with a one-line message. */
+export async function readStackInfo(source: ByteSource, fileLabel: string, options: StackInfoOptions = {}): Promise<StackInfo> {
+  const maxPlaneBytes = options.maxPlaneBytes ?? 2 ** 30;
+  if (!(maxPlaneBytes > 0)) throw new Error('maxPlaneBytes must be a positive number');
+  const header = await readTiffHeader(source, fileLabel);
+  const ifds = await readIfdChain(source, header, fileLabel);
+  const layout = await readImageLayout(source, header, ifds[0], fileLabel);
+  if (isBilevelCompression(layout.compression)) throw new TiffError('unsupported', fileLabel, '1-bit (bilevel) images are not supported');
+  const sampleType = sampleTypeOf(layout, fileLabel);
+  checkPlaneBudget(layout, sampleType, source.size, maxPlaneBytes, fileLabel);
+  const descriptionTag = await readTag(source, header, ifds[0], Tag.ImageDescription, fileLabel);
+  const description = descriptionTag?.kind === 'ascii' ? descriptionTag.text : null;
+  const base = { header, ifds, layout, sampleType, description };
+  const stack = description !== null && looksLikeOmeXml(description)
+    ? await omeStack(source, base, parseOmeXml(description, fileLabel), fileLabel)
+    : await plainStack(source, base, fileLabel);
+  await checkPlaneSizes(source, header, ifds, stack.planeIfd, layout, fileLabel, stack.isOme);
+  return stack;
+}
+
+/** What both the OME and the plain path start from. */
+interface BaseInfo {
+  readonly header: TiffHeader;
+  readonly ifds: readonly Ifd[];
+  readonly layout: ImageLayout;
+  readonly sampleType: SampleType;
+  readonly description: string | null;
+}
+
+/** Pixel size from resolution tags, or unknown. */
+function resolutionPixelSize(layout: ImageLayout, zUm: number | null = null): PixelSize {
+  const xUm = micrometresPerPixel(layout.xResolution, layout.resolutionUnit);
+  const yUm = micrometresPerPixel(layout.yResolution, layout.resolutionUnit);
+  if (xUm === null) return { xUm: null, yUm: null, zUm, source: 'unknown' };
+  return { xUm, yUm: yUm ?? xUm, zUm, source: 'tiff-resolution' };
+}
+
+/** The StackInfo fields common to every path. */
+function common(base: BaseInfo) {
+  return {
+    byteOrder: base.header.littleEndian ? 'II' as const : 'MM' as const,
+    bigTiff: base.header.bigTiff,
+    sizeX: base.layout.widthPx,
+    sizeY: base.layout.heightPx,
+    sampleType: base.sampleType,
+    samplesPerPixel: base.layout.samplesPerPixel,
+    compression: describeCompression(base.layout.compression, base.layout.predictor),
+    ifdCount: base.ifds.length,
+    description: base.description,
+  };
+}
+
+/** OME-TIFF: sizes, order, channel names and physical sizes from the XML; TIFF values win on disagreement. */
+async function omeStack(_source: ByteSource, base: BaseInfo, ome: OmeImage, fileLabel: string): Promise<StackInfo> {
+  const warnings = [...ome.warnings];
+  if (base.layout.samplesPerPixel > 1) {
+    throw new TiffError('unsupported', fileLabel, `OME-TIFF with ${base.layout.samplesPerPixel} samples per pixel (RGB) is not supported for analysis`);
+  }
+  if (ome.sizeX !== base.layout.widthPx || ome.sizeY !== base.layout.heightPx) {
+    warnings.push(`OME size ${ome.sizeX}×${ome.sizeY} differs from the TIFF size ${base.layout.widthPx}×${base.layout.heightPx}; using the TIFF size`);
+  }
+  const omeType = ome.type === 'float' ? 'float32' : ome.type === 'double' ? 'float64' : ome.type;
+  if (omeType !== base.sampleType) warnings.push(`OME Type "${ome.type}" differs from the TIFF sample type ${base.sampleType}; using the TIFF type`);
+  const counts = { sizeZ: ome.sizeZ, sizeC: ome.sizeC, sizeT: ome.sizeT };
+  const planeIfd = mapOmePlanes(ome.dimensionOrder, counts, ome.tiffData, base.ifds.length, fileLabel);
+  const pixelSize: PixelSize = ome.physicalSizeXUm !== null
+    ? { xUm: ome.physicalSizeXUm, yUm: ome.physicalSizeYUm ?? ome.physicalSizeXUm, zUm: ome.physicalSizeZUm, source: 'ome' }
+    : resolutionPixelSize(base.layout, ome.physicalSizeZUm);
+  if (pixelSize.source === 'unknown') warnings.push('pixel size unknown (no OME PhysicalSizeX and no usable resolution tags)');
+  const channelNames = Array.from({ length: ome.sizeC }, (_, c) => ome.channelNames[c] || `C${c}`);
+  return { ...common(base), isOme: true, ...counts, dimensionOrder: ome.dimensionOrder, channelNames, pixelSize, planeIfd, warnings };
+}
+
+/** Plain TIFF: full-resolution IFDs as Z (or ImageJ channels/slices/frames); samples per pixel become channels. */
+async function plainStack(source: ByteSource, base: BaseInfo, fileLabel: string): Promise<StackInfo> {
+  const warnings: string[] = [];
+  const planes = await fullResolutionIfds(source, base, fileLabel);
+  if (planes.length < base.ifds.length) warnings.push(`${base.ifds.length - planes.length} IFDs of another size or reduced resolution ignored`);
+  const imagej = base.description !== null ? parseImageJDescription(base.description) : null;
+  const spp = base.layout.samplesPerPixel;
+  let counts = { sizeZ: planes.length, sizeC: 1, sizeT: 1 };
+  let order: DimensionOrder = 'XYZCT';
+  if (spp > 1) {
+    warnings.push(`${spp} samples per pixel read as ${spp} channels`);
+    counts = { sizeZ: planes.length, sizeC: spp, sizeT: 1 };
+  } else if (imagej && (imagej.channels ?? 1) * (imagej.slices ?? 1) * (imagej.frames ?? 1) === planes.length) {
+    counts = { sizeZ: imagej.slices ?? 1, sizeC: imagej.channels ?? 1, sizeT: imagej.frames ?? 1 };
+    order = 'XYCZT'; // ImageJ hyperstacks store channel fastest, then slice, then frame
+  } else if (imagej && imagej.images !== null && imagej.images !== planes.length) {
+    warnings.push(`ImageJ description declares ${imagej.images} images but the file has ${planes.length} IFDs; reading the IFDs as Z`);
+  }
+  const planeIfd = spp > 1 ? expandSamples(planes, spp) : sequentialPlaneMap(order, counts, planes);
+  let pixelSize = resolutionPixelSize(base.layout, imagej?.spacingUm ?? null);
+  if (pixelSize.source === 'unknown' && imagej?.unitUm != null && base.layout.xResolution !== null) {
+    const xUm = imagej.unitUm / base.layout.xResolution;
+    pixelSize = { xUm, yUm: base.layout.yResolution !== null ? imagej.unitUm / base.layout.yResolution : xUm, zUm: imagej.spacingUm, source: 'tiff-resolution' };
+  }
+  if (pixelSize.source === 'unknown') warnings.push('pixel size unknown (no usable resolution tags)');
+  const channelNames = Array.from({ length: counts.sizeC }, (_, c) => `C${c}`);
+  return { ...common(base), isOme: false, ...counts, dimensionOrder: order, channelNames, pixelSize, planeIfd, warnings };
+}
+
+/** planeIfd when samples are channels: slot (z, c) → IFD of z (every channel shares it). */
+function expandSamples(planes: readonly number[], spp: number): Int32Array {
+  const map = new Int32Array(planes.length * spp);
+  for (let c = 0; c < spp; c++) for (let z = 0; z < planes.length; z++) map[c * planes.length + z] = planes[z];
+  return map;
+}
+
+/** Indices of IFDs that are full-resolution (NewSubfileType bit 0 clear) and the size of IFD 0. */
+async function fullResolutionIfds(source: ByteSource, base: BaseInfo, fileLabel: string): Promise<number[]> {
+  const out: number[] = [0];
+  for (let i = 1; i < base.ifds.length; i++) {
+    const ifd = base.ifds[i];
+    const subfile = await readNumber(source, base.header, ifd, Tag.NewSubfileType, fileLabel, 0);
+    const w = await readNumber(source, base.header, ifd, Tag.ImageWidth, fileLabel, 0);
+    const h = await readNumber(source, base.header, ifd, Tag.ImageLength, fileLabel, 0);
+    if ((subfile & 1) === 0 && w === base.layout.widthPx && h === base.layout.heightPx) out.push(i);
+  }
+  return out;
+}
+
+/** Every mapped IFD must have the size of IFD 0 (OME: the TIFF structure is the truth). */
+async function checkPlaneSizes(source: ByteSource, header: TiffHeader, ifds: readonly Ifd[], planeIfd: Int32Array, layout: ImageLayout, fileLabel: string, isOme: boolean): Promise<void> {
+  const checked = new Set<number>([0]);
+  for (const i of planeIfd) {
+    if (checked.has(i)) continue;
+    checked.add(i);
+    const w = await readNumber(source, header, ifds[i], Tag.ImageWidth, fileLabel, 0);
+    const h = await readNumber(source, header, ifds[i], Tag.ImageLength, fileLabel, 0);
+    if (w !== layout.widthPx || h !== layout.heightPx) {
+      throw new TiffError(isOme ? 'bad-ome' : 'unsupported', fileLabel, `IFD ${i} is ${w}×${h} but IFD 0 is ${layout.widthPx}×${layout.heightPx}`);
+    }
+  }
+}
+
