@@ -1,7 +1,7 @@
 // Demo data: invented synthetic embryo results for a dosage series, built from known parameters with seeded noise.
 // Gradient C(x) = A·f·exp(−x/λ) + B; a boundary where C crosses a fixed threshold T sits at x_b = λ·ln(A·f/T).
 import type { Boundary, EmbryoResult, ExponentialFit, LandmarkPosition, Profile } from '../model';
-import { seededRandom, type SeededRandom } from './rng-local';
+import { createRng, type Rng } from '../stats';
 
 /** Parameters of the demo series (all positions in x/EL, lengths in µm). */
 export interface DemoCohortSpec {
@@ -21,7 +21,7 @@ export interface DemoCohortSpec {
 
 /** Make demo EmbryoResults and the matching sample sheet (CSV text with file, condition, dosage). */
 export function makeDemoCohort(spec: DemoCohortSpec): { results: EmbryoResult[]; sheetCsv: string } {
-  const rng = seededRandom(spec.seed ?? 1);
+  const rng = createRng(spec.seed ?? 1);
   const results: EmbryoResult[] = [];
   const lines = ['file,condition,dosage'];
   for (const c of spec.conditions) {
@@ -34,7 +34,7 @@ export function makeDemoCohort(spec: DemoCohortSpec): { results: EmbryoResult[];
   return { results, sheetCsv: lines.join('\n') + '\n' };
 }
 
-function demoEmbryo(file: string, f: number, spec: DemoCohortSpec, rng: SeededRandom): EmbryoResult {
+function demoEmbryo(file: string, f: number, spec: DemoCohortSpec, rng: Rng): EmbryoResult {
   const lambdaEl = (spec.lambdaEl ?? 0.2) + (spec.lambdaSdEl ?? 0.01) * rng.normal();
   const A = (spec.amplitude ?? 1000) * f;
   const B = spec.background ?? 50;
@@ -53,13 +53,13 @@ function demoEmbryo(file: string, f: number, spec: DemoCohortSpec, rng: SeededRa
   };
 }
 
-function demoProfile(A: number, lambdaEl: number, B: number, L: number, rng: SeededRandom): Profile {
+function demoProfile(A: number, lambdaEl: number, B: number, L: number, rng: Rng): Profile {
   const xEl = Float64Array.from({ length: 100 }, (_, i) => (i + 0.5) / 100);
   const mean = xEl.map((x) => A * Math.exp(-x / lambdaEl) + B + 0.02 * A * rng.normal());
   return { channel: 'gradient', xEl, xUm: xEl.map((x) => x * L), mean, sd: mean.map((m) => 0.1 * Math.abs(m) + 5), n: xEl.map(() => 40) };
 }
 
-function demoFit(A: number, lambdaEl: number, B: number, L: number, rng: SeededRandom): ExponentialFit {
+function demoFit(A: number, lambdaEl: number, B: number, L: number, rng: Rng): ExponentialFit {
   const fitted = lambdaEl * (1 + 0.01 * rng.normal());
   const se = 0.01 * fitted;
   return {

@@ -19,5 +19,4 @@ export { gridEl, interpolateOnGrid, normaliseProfile, centralSlope, conditionPro
 export { analyseCohort } from './analyse';
 export { conditionsCsv, shiftsCsv, dosageFitCsv, positionalErrorCsv } from './tables';
 export { makeDemoCohort, type DemoCohortSpec } from './demo-cohort';
-export { parseCsvRows, toCsv, csvCell } from './csv-local';
 export { fitLine, type LineFit } from './stats-local';

@@ -1,11 +1,11 @@
 // Sample sheet: CSV with columns file, condition, optional dosage (relative to the reference) and free columns.
 import { CohortError } from './cohort-error';
-import { parseCsvRows } from './csv-local';
+import { parseCsv } from '../batch';
 import type { SampleRow, SampleSheet } from './types';
 
 /** Parse a sample sheet; `source` (the file name) appears in every error, e.g. `samples.csv line 4: ...`. */
 export function parseSampleSheet(text: string, source: string): SampleSheet {
-  const table = parseCsvRows(text).filter((r) => r.some((c) => c.trim() !== ''));
+  const table = readTable(text, source).filter((r) => r.some((c) => c.trim() !== ''));
   if (table.length === 0) throw new CohortError(`${source}: the sample sheet is empty`);
   const header = table[0].map((h) => h.trim());
   const lower = header.map((h) => h.toLowerCase());
@@ -44,4 +44,12 @@ function parseRow(
     if (c !== cols.fileCol && c !== cols.condCol && c !== cols.doseCol && h !== '') extra[h] = cell(c);
   });
   return { file, condition, dosage, extra, line };
+}
+
+function readTable(text: string, source: string): string[][] {
+  try {
+    return parseCsv(text);
+  } catch (e) {
+    throw new CohortError(`${source}: ${(e as Error).message}`);
+  }
 }

@@ -1,28 +1,20 @@
-// Small statistics helpers used by the cohort step. Kept local so the cohort folder does not wait on core/stats;
-// the formulas are the textbook ones (sample SD with n − 1, t-based intervals, ordinary least squares).
-import tQuantileLib from '@stdlib/stats-base-dists-t-quantile';
+// Thin NaN-tolerant wrappers over core/stats: the cohort tables must show an empty cell (not stop) when a
+// condition has one embryo, or a regression has no spread in ln f.
+import { linearRegression, mean, sd, tQuantile } from '../stats';
 
-/** Arithmetic mean of finite values (NaN for an empty list). */
+/** Arithmetic mean (NaN for an empty list). */
 export function meanOf(values: readonly number[]): number {
-  if (values.length === 0) return NaN;
-  let s = 0;
-  for (const v of values) s += v;
-  return s / values.length;
+  return values.length === 0 ? NaN : mean(values);
 }
 
-/** Sample standard deviation with n − 1 in the denominator (NaN when n < 2). */
+/** Sample standard deviation with n − 1 (NaN when n < 2). */
 export function sdOf(values: readonly number[]): number {
-  if (values.length < 2) return NaN;
-  const m = meanOf(values);
-  let ss = 0;
-  for (const v of values) ss += (v - m) * (v - m);
-  return Math.sqrt(ss / (values.length - 1));
+  return values.length < 2 ? NaN : sd(values);
 }
 
-/** Quantile p of Student's t distribution with `dof` degrees of freedom (dof may be fractional). */
+/** Quantile p of Student's t distribution (dof may be fractional; NaN when dof is not positive). */
 export function tQuantileOf(p: number, dof: number): number {
-  if (!(dof > 0)) return NaN;
-  return tQuantileLib(p, dof);
+  return dof > 0 && Number.isFinite(dof) ? tQuantile(p, dof) : NaN;
 }
 
 /** Ordinary least squares y = intercept + slope·x with t-based CIs at `level` (two-sided). */
@@ -38,33 +30,11 @@ export interface LineFit {
   readonly dof: number;
 }
 
-/** Fit a straight line by ordinary least squares; slope/intercept NaN when x has no spread or n < 2. */
+/** Fit a straight line; every field NaN (n kept) when n < 2 or x has no spread. */
 export function fitLine(x: readonly number[], y: readonly number[], level = 0.95): LineFit {
-  const n = x.length;
-  const mx = meanOf(x);
-  const my = meanOf(y);
-  let sxx = 0;
-  let sxy = 0;
-  let syy = 0;
-  for (let i = 0; i < n; i++) {
-    sxx += (x[i] - mx) * (x[i] - mx);
-    sxy += (x[i] - mx) * (y[i] - my);
-    syy += (y[i] - my) * (y[i] - my);
+  if (x.length < 2 || new Set(x).size < 2) {
+    return { slope: NaN, intercept: NaN, slopeSe: NaN, interceptSe: NaN, slopeCi: [NaN, NaN], interceptCi: [NaN, NaN], r2: NaN, n: x.length, dof: x.length - 2 };
   }
-  const slope = n >= 2 && sxx > 0 ? sxy / sxx : NaN;
-  const intercept = my - slope * mx;
-  let rss = 0;
-  for (let i = 0; i < n; i++) rss += (y[i] - intercept - slope * x[i]) ** 2;
-  const dof = n - 2;
-  const s2 = dof > 0 ? rss / dof : NaN;
-  const slopeSe = Math.sqrt(s2 / sxx);
-  const interceptSe = Math.sqrt(s2 * (1 / n + (mx * mx) / sxx));
-  const t = tQuantileOf(1 - (1 - level) / 2, dof);
-  return {
-    slope, intercept, slopeSe, interceptSe,
-    slopeCi: [slope - t * slopeSe, slope + t * slopeSe],
-    interceptCi: [intercept - t * interceptSe, intercept + t * interceptSe],
-    r2: syy > 0 ? 1 - rss / syy : NaN,
-    n, dof,
-  };
+  const f = linearRegression(x, y, level);
+  return { slope: f.slope, intercept: f.intercept, slopeSe: f.slopeSe, interceptSe: f.interceptSe, slopeCi: f.slopeCi, interceptCi: f.interceptCi, r2: f.r2, n: f.n, dof: f.dof };
 }

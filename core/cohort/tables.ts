@@ -1,5 +1,5 @@
 // CSV tables of the cohort step (tidy: one row per observation; units in column names or a unit column).
-import { toCsv } from './csv-local';
+import { toCsv, type CsvValue } from '../batch';
 import type { CohortAnalysis } from './types';
 
 /** conditions.csv: one row per condition × quantity × unit. */
@@ -30,7 +30,7 @@ export function dosageFitCsv(a: CohortAnalysis): string {
 
 /** positional_error.csv: mean profile ± SD per condition on the grid, and σx in x/EL and µm (long format). */
 export function positionalErrorCsv(a: CohortAnalysis): string {
-  const rows: (string | number | null)[][] = [];
+  const rows: CsvValue[][] = [];
   for (const p of a.profiles) {
     for (let i = 0; i < p.xEl.length; i++) {
       rows.push([p.condition, a.options.normalisation, p.xEl[i], p.n[i], p.mean[i], p.sd[i], p.slopePerEl[i], p.sigmaXEl[i], p.sigmaXUm[i]]);

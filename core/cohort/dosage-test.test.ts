@@ -1,0 +1,75 @@
+import { describe, expect, it } from 'vitest';
+import { analyseCohort } from './analyse';
+import { makeDemoCohort } from './demo-cohort';
+import { ratioWithCi, twoGradientShiftEl } from './dosage-test';
+import { parseSampleSheet } from './sample-sheet';
+
+function series(dosages: number[], count: number, seed: number) {
+  const demo = makeDemoCohort({ conditions: dosages.map((d) => ({ name: `f${d}`, dosage: d, count })), seed });
+  return analyseCohort(demo.results, parseSampleSheet(demo.sheetCsv, 'samples.csv'));
+}
+
+describe('dosage test (threshold model Δx = λ·ln f)', () => {
+  it('sign rule: f > 1 moves boundaries posterior (Δx > 0), f < 1 anterior (Δx < 0)', () => {
+    // Source: threshold model x_b = λ·ln(A·f/T) (from memory); demo data
+    const a = series([0.5, 1, 2], 6, 11);
+    for (const s of a.shifts) {
+      const sign = Math.sign(Math.log(s.dosage as number));
+      expect(Math.sign(s.predictedShiftEl as number)).toBe(sign);
+      expect(Math.sign(s.observedShiftEl)).toBe(sign);
+    }
+    expect(a.shifts.length).toBe(2 * 3); // 2 boundaries + 1 landmark, 2 non-reference conditions
+  });
+  it('runs over dosages 0.5–6 without trouble and the observed/predicted ratio covers 1', () => {
+    // Source: dosage range 0.5–6 is one the field has used (from memory); demo data
+    const a = series([0.5, 1, 1.5, 2, 3, 4, 6], 8, 5);
+    expect(a.shifts.length).toBe(6 * 3);
+    for (const s of a.shifts) {
+      for (const v of [s.observedShiftEl, s.ciLow, s.ciHigh, s.predictedShiftEl, s.ratio, s.ratioCiLow, s.ratioCiHigh]) expect(Number.isFinite(v)).toBe(true);
+      if (Math.abs(s.lnF as number) > 0.6) {
+        expect(s.ratioCiLow as number).toBeLessThan(1);
+        expect(s.ratioCiHigh as number).toBeGreaterThan(1);
+      }
+    }
+  });
+  it('regression of position on ln f recovers slope = λ within its CI (synthetic series, known λ, fixed threshold)', () => {
+    // Source: demo data built with λ = 0.2 EL and x_b = λ·ln(A·f/T) plus seeded noise
+    for (const seed of [1, 2, 3]) {
+      const a = series([0.5, 1, 2, 4], 10, seed);
+      const fit = a.dosageFits.find((f) => f.quantity === 'boundary target logistic');
+      expect(fit).toBeDefined();
+      expect(fit!.ciLow).toBeLessThan(0.2);
+      expect(fit!.ciHigh).toBeGreaterThan(0.2);
+      expect(fit!.n).toBe(40);
+      expect(fit!.predictedSlopeEl!).toBeCloseTo(0.2, 1);
+      // intercept = λ·ln(A/T) = 0.2·ln(1000/105) ≈ 0.4508 x/EL
+      expect(fit!.interceptEl).toBeCloseTo(0.2 * Math.log(1000 / 105), 1);
+    }
+  });
+  it('the predicted interval is λ’s interval scaled by ln f (ends swap for f < 1)', () => {
+    // Source: demo data; propagation with ln f exact (hand rule)
+    const a = series([0.5, 1], 5, 9);
+    const lam = a.referenceLambda!;
+    const s = a.shifts[0];
+    expect(s.predictedShiftEl).toBeCloseTo(lam.lambdaEl * Math.log(0.5), 12);
+    expect(s.predictedCiLow).toBeCloseTo(lam.ciHighEl * Math.log(0.5), 12);
+    expect(s.predictedCiHigh).toBeCloseTo(lam.ciLowEl * Math.log(0.5), 12);
+  });
+  it('two opposing gradients: Δx = ln f / (1/λA + 1/λP)', () => {
+    // Source: hand-computed: ln 2 / (1/0.2 + 1/0.2) = ln 2 / 10
+    expect(twoGradientShiftEl(Math.log(2), 0.2, 0.2)).toBeCloseTo(Math.log(2) / 10, 14);
+    const demo = makeDemoCohort({ conditions: [{ name: 'r', dosage: 1, count: 4 }, { name: 'd', dosage: 2, count: 4 }], seed: 4 });
+    const a = analyseCohort(demo.results, parseSampleSheet(demo.sheetCsv, 's.csv'), { lambdaPosteriorEl: 0.3 });
+    const lam = a.referenceLambda!.lambdaEl;
+    expect(a.shifts[0].predictedTwoGradientEl).toBeCloseTo(Math.log(2) / (1 / lam + 1 / 0.3), 12);
+  });
+  it('ratio interval by the delta method on a hand case; none when the prediction is 0', () => {
+    // Source: hand-computed: O = 0.1 ± 0.02, P = 0.2 ± 0.01 → r = 0.5, se = sqrt(0.1² + 0.025²); t(0.975, 4) = 2.776445 (from memory)
+    const r = ratioWithCi(0.1, 0.02, 4, 0.2, 0.01, 10);
+    const se = Math.sqrt(0.1 ** 2 + 0.025 ** 2);
+    expect(r.ratio).toBeCloseTo(0.5, 14);
+    expect(r.ratioCiLow!).toBeCloseTo(0.5 - 2.776445 * se, 5);
+    expect(r.ratioCiHigh!).toBeCloseTo(0.5 + 2.776445 * se, 5);
+    expect(ratioWithCi(0.1, 0.02, 4, 0, 0.01, 10)).toEqual({ ratio: null, ratioCiLow: null, ratioCiHigh: null });
+  });
+});

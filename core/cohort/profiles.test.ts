@@ -1,0 +1,67 @@
+import { describe, expect, it } from 'vitest';
+import type { EmbryoResult, Profile } from '../model';
+import { makeDemoCohort } from './demo-cohort';
+import { centralSlope, conditionProfile, gridEl, interpolateOnGrid, normaliseProfile } from './profiles';
+
+const f64 = (v: number[]): Float64Array => Float64Array.from(v);
+
+describe('profile helpers', () => {
+  it('grid from 0 to 1 inclusive', () => {
+    // Source: hand-computed
+    expect([...gridEl(0.25)]).toEqual([0, 0.25, 0.5, 0.75, 1]);
+    expect(gridEl(0.01).length).toBe(101);
+  });
+  it('linear interpolation with NaN outside the data (no extrapolation) and NaN inputs skipped', () => {
+    // Source: hand-computed
+    const out = interpolateOnGrid(f64([0.1, 0.3, 0.5, 0.7]), f64([10, 20, NaN, 40]), f64([0, 0.1, 0.2, 0.4, 0.6, 0.7, 0.8]));
+    expect([...out]).toEqual([NaN, 10, 15, 25, 35, 40, NaN]);
+  });
+  it('normalisation: none, ÷ amplitude, min-max; null when impossible', () => {
+    // Source: hand-computed
+    expect([...normaliseProfile(f64([2, 4, 6]), 'none', null)!]).toEqual([2, 4, 6]);
+    expect([...normaliseProfile(f64([2, 4, 6]), 'amplitude', 4)!]).toEqual([0.5, 1, 1.5]);
+    expect([...normaliseProfile(f64([2, 4, 6]), 'minmax', null)!]).toEqual([0, 0.5, 1]);
+    expect(normaliseProfile(f64([2, 4]), 'amplitude', null)).toBeNull();
+    expect(normaliseProfile(f64([3, 3]), 'minmax', null)).toBeNull();
+  });
+  it('central slope over ±k grid steps; NaN at the ends', () => {
+    // Source: hand-computed: y = x² on x = 0..4 (step 1), k = 1 → slope 2x
+    const s = centralSlope(f64([0, 1, 2, 3, 4]), f64([0, 1, 4, 9, 16]), 1);
+    expect([...s]).toEqual([NaN, 2, 4, 6, NaN]);
+  });
+});
+
+function linearEmbryo(file: string, offset: number): EmbryoResult {
+  // C(x) = 100 + offset − 50·x on bins 0.005..0.995: slope −50 per EL everywhere
+  const xEl = Float64Array.from({ length: 100 }, (_, i) => (i + 0.5) / 100);
+  const mean = xEl.map((x) => 100 + offset - 50 * x);
+  const profile: Profile = { channel: 'g', xEl, xUm: xEl.map((x) => 400 * x), mean, sd: mean.map(() => 1), n: mean.map(() => 1) };
+  const base = makeDemoCohort({ conditions: [{ name: 'c', dosage: 1, count: 1 }] }).results[0];
+  return { ...base, file, eggLengthUm: 400, gradientProfile: profile };
+}
+
+describe('conditionProfile (positional error σx = σC / |dC̄/dx|)', () => {
+  it('two linear profiles offset by ±1: SD √2, slope −50 /EL → σx = √2/50 EL and ×400 µm', () => {
+    // Source: hand-computed (Gregor et al. 2007 definition of σx)
+    const r = conditionProfile([linearEmbryo('a', 1), linearEmbryo('b', -1)], { name: 'c', dosage: 1, factor: 1 },
+      { normalisation: 'none', gridStepEl: 0.01, slopeHalfWidthEl: 0.02 });
+    const p = r.profile!;
+    const i = 50; // x = 0.5
+    expect(p.xEl[i]).toBeCloseTo(0.5, 12);
+    expect(p.mean[i]).toBeCloseTo(75, 9);
+    expect(p.sd[i]).toBeCloseTo(Math.SQRT2, 9);
+    expect(p.slopePerEl[i]).toBeCloseTo(-50, 9);
+    expect(p.sigmaXEl[i]).toBeCloseTo(Math.SQRT2 / 50, 9);
+    expect(p.sigmaXUm[i]).toBeCloseTo((Math.SQRT2 / 50) * 400, 7);
+    expect(p.n[i]).toBe(2);
+    expect(p.mean[0]).toBeNaN(); // x = 0 lies before the first bin centre: not extrapolated
+  });
+  it('amplitude normalisation leaves out embryos without a fit, with a warning naming the file', () => {
+    // Source: demo data
+    const e = { ...linearEmbryo('nofit.tif', 0), gradientFit: null };
+    const r = conditionProfile([e, linearEmbryo('b', 0)], { name: 'c', dosage: 1, factor: 1 },
+      { normalisation: 'amplitude', gridStepEl: 0.01, slopeHalfWidthEl: 0.02 });
+    expect(r.warnings).toEqual(['nofit.tif: no amplitude-normalised gradient profile; left out of the mean profile']);
+    expect(r.profile!.embryoCount).toBe(1);
+  });
+});
