@@ -56,9 +56,15 @@ export function solveUpperTriangular(r: Float64Array, c: Float64Array, cols: num
   return x;
 }
 
-/** Least-squares solution of min ‖A x − b‖ (A rows × cols, row-major); null when A is rank deficient. */
+/**
+ * Least-squares solution of min ‖A x − b‖ (A rows × cols, row-major); null when A is rank deficient
+ * (a pivot of R below 1e-14 of the largest, i.e. dependent columns up to rounding).
+ */
 export function solveLeastSquares(a: Float64Array, b: Float64Array, rows: number, cols: number): Float64Array | null {
   const { r, qtb } = householderQr(a, b, rows, cols);
+  let largest = 0;
+  for (let k = 0; k < cols; k++) largest = Math.max(largest, Math.abs(r[k * cols + k]));
+  for (let k = 0; k < cols; k++) if (!(Math.abs(r[k * cols + k]) > 1e-14 * largest)) return null;
   return solveUpperTriangular(r, qtb, cols);
 }
 

@@ -4,7 +4,7 @@ import { levenbergMarquardt } from 'ml-levenberg-marquardt';
 import { inverseNormalMatrix } from './covariance';
 import { FitError } from './fit-error';
 import type { LmRun } from './lm-core';
-import { runLevenbergMarquardt } from './lm-core';
+import { polishGaussNewton, runLevenbergMarquardt } from './lm-core';
 import type { NonlinearOptions } from './nonlinear-options';
 import { checkNonlinearInput } from './nonlinear-options';
 import type { LeastSquaresProblem, ModelFunction } from './problem';
@@ -72,7 +72,9 @@ function bestRun(problem: LeastSquaresProblem, initial: number[], initialRss: nu
   for (const start of starts) {
     for (const scaling of ['column', 'unit'] as const) {
       const run = runLevenbergMarquardt(problem, start.params, scaling, maxIterations);
-      if (run.converged && Number.isFinite(run.rss)) runs.push({ ...run, iterations: run.iterations + start.iterations });
+      if (run.converged && Number.isFinite(run.rss)) {
+        runs.push({ ...polishGaussNewton(problem, run), iterations: run.iterations + start.iterations });
+      }
     }
   }
   if (runs.length === 0) return null;
