@@ -1,31 +1,77 @@
 // The renderer↔app API as plain functions (no electron import), so tests and the browser harness can call them.
-import type { BatchProgress, EgglineApi, ExportKind } from '../../core/contract';
+// Every handler validates its arguments, checks paths against the allow-list and never throws.
+import type { EgglineApi } from '../../core/contract';
+import { createPathAllowList } from './allow-list';
+import { cancelBatch, runBatch } from './batch-handlers';
+import type { HandlerDeps, ShellContext } from './context';
+import { createDefaultEngine } from './default-engine';
+import { openDemo } from './demo';
+import { exportFile, svgToPng } from './export-handlers';
+import { openDropped, openFiles, openFolder, openProjectFile, openRecent } from './open-handlers';
+import { saveProject } from './project-handlers';
+import { addRecent, readRecent } from './recent';
+import { guard, labelOf, withLabel } from './result';
+import { loadSlice, loadStack } from './stack-handlers';
 
-/** Native dialogs and other shell services the handlers need; main.ts supplies electron-backed versions. */
-export interface HandlerDeps {
-  /** Folder for app data: demo set, recent list. */
-  readonly dataDir: string;
-  readonly dialogs: {
-    chooseFolder(): Promise<string | null>;
-    chooseFiles(): Promise<string[] | null>;
-    chooseOutputFolder(): Promise<string | null>;
-    openProjectFile(): Promise<string | null>;
-    saveFile(suggestedName: string, kind: ExportKind): Promise<string | null>;
-  };
-  /** Push batch progress to the renderer. */
-  emitBatchProgress(p: BatchProgress): void;
-}
+export type { HandlerDeps } from './context';
 
 /** Every API method except the two event subscriptions (those live in the preload). */
-export type ApiHandlers = Omit<EgglineApi, 'onBatchProgress' | 'onMenuCommand'>;
+export type ApiHandlers = Omit<EgglineApi, 'onBatchProgress' | 'onMenuCommand' | 'pathForDroppedFile' | 'openRecent'>
+  & { openRecent: NonNullable<EgglineApi['openRecent']> };
 
-const notReady = async () => ({ ok: false as const, error: { code: 'internal' as const, message: 'not ready' } });
+/** The label a path argument gets in messages (null when it is not a string). */
+function labelArg(value: unknown): string | null {
+  return typeof value === 'string' && value !== '' ? labelOf(value) : null;
+}
 
-/** Build the API handlers over the given shell services. */
-export function createHandlers(_deps: HandlerDeps): ApiHandlers {
+/** A new context with an empty allow-list. */
+function createContext(deps: HandlerDeps): ShellContext {
   return {
-    openDemo: notReady, chooseFolder: notReady, chooseFiles: notReady, openDropped: notReady, recent: notReady,
-    loadStack: notReady, loadSlice: notReady, saveProject: notReady, openProject: notReady, runBatch: notReady,
-    cancelBatch: notReady, chooseOutputFolder: notReady, exportFile: notReady, svgToPng: notReady,
+    deps,
+    engine: deps.engine ?? createDefaultEngine(),
+    allow: createPathAllowList(),
+    batches: new Map(),
+    noteRecent: async (path) => {
+      const list = await addRecent(deps.dataDir, path).catch(() => null);
+      if (list !== null) deps.onRecentChanged?.(list);
+    },
   };
+}
+
+/** Show a dialog and run `then` on its answer; null (cancelled) passes through. */
+async function afterDialog<T, R>(ask: () => Promise<T | null>, then: (v: T) => Promise<R>): Promise<R | null> {
+  const chosen = await ask();
+  return chosen === null ? null : then(chosen);
+}
+
+/** Build the API handlers over the given shell services. Each call returns a result value and never throws. */
+export function createHandlers(deps: HandlerDeps): ApiHandlers {
+  const ctx = createContext(deps);
+  const d = deps.dialogs;
+  const handlers: ApiHandlers = {
+    openDemo: () => guard('demo', () => openDemo(ctx)),
+    chooseFolder: () => guard(null, () => afterDialog(() => d.chooseFolder(), (f) => withLabel(labelOf(f), () => openFolder(ctx, f)))),
+    chooseFiles: () => guard(null, () => afterDialog(() => d.chooseFiles(), async (paths) => {
+      const entries = await openFiles(ctx, paths);
+      for (const p of paths) await ctx.noteRecent(p);
+      return entries;
+    })),
+    openDropped: (paths) => guard(null, () => openDropped(ctx, paths)),
+    recent: () => guard(null, () => readRecent(deps.dataDir)),
+    openRecent: (path) => guard(labelArg(path), () => openRecent(ctx, path)),
+    loadStack: (path, settings) => guard(labelArg(path), () => loadStack(ctx, path, settings), 'bad-file'),
+    loadSlice: (req) => guard(labelArg((req as { path?: unknown } | null)?.path), () => loadSlice(ctx, req), 'bad-file'),
+    saveProject: (path, doc) => guard(labelArg(path), () => saveProject(ctx, path, doc), 'io'),
+    openProject: () => guard(null, () => afterDialog(() => d.openProjectFile(),
+      (p) => withLabel(labelOf(p), () => openProjectFile(ctx, p)))),
+    runBatch: (folder, outDir, doc) => guard(null, () => runBatch(ctx, folder, outDir, doc)),
+    cancelBatch: async (runId) => guard(null, async () => cancelBatch(ctx, runId)),
+    chooseOutputFolder: () => guard(null, () => afterDialog(() => d.chooseOutputFolder(), async (dir) => {
+      ctx.allow.allowTree('output', dir);
+      return dir;
+    })),
+    exportFile: (kind, name, content) => guard(labelArg(name), () => exportFile(ctx, kind, name, content), 'io'),
+    svgToPng: (svg, scale) => guard(null, () => svgToPng(svg, scale)),
+  };
+  return handlers;
 }

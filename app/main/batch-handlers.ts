@@ -1,0 +1,43 @@
+// Batches: one at a time, each with its own AbortController; progress is re-labelled with our run id.
+import { availableParallelism } from 'node:os';
+import { randomUUID } from 'node:crypto';
+import type { BatchSummary } from '../../core/contract';
+import { requireAllowed, requireProjectDoc, requireText } from './args';
+import type { ShellContext } from './context';
+import { ApiFailure } from './result';
+
+/** Worker count when the deps do not say: leave one core for the window. */
+export function defaultBatchJobs(): number {
+  return Math.max(1, availableParallelism() - 1);
+}
+
+/** Run a batch over an allowed folder into a chosen output folder; resolves when it ends. */
+export async function runBatch(ctx: ShellContext, folderArg: unknown, outArg: unknown, docArg: unknown): Promise<BatchSummary> {
+  const folder = requireAllowed(ctx.allow, 'read', folderArg, 'folder');
+  const outDir = requireAllowed(ctx.allow, 'output', outArg, 'outDir');
+  const doc = requireProjectDoc(docArg);
+  // Two batches would compete for the same cores and could write into the same folder.
+  if (ctx.batches.size > 0) throw new ApiFailure('busy', 'a batch is already running; cancel it or wait for it to finish');
+  const runId = randomUUID();
+  const controller = new AbortController();
+  ctx.batches.set(runId, controller);
+  try {
+    const summary = await ctx.engine.runBatch({
+      folder, outDir, settings: doc.settings, doc: { ...doc, folder }, jobs: ctx.deps.batchJobs ?? defaultBatchJobs(),
+      onProgress: (p) => ctx.deps.emitBatchProgress({ ...p, runId }),
+      signal: controller.signal,
+    });
+    return { ...summary, runId };
+  } finally {
+    ctx.batches.delete(runId);
+  }
+}
+
+/** Ask a running batch to stop; it resolves soon after with cancelled: true. */
+export function cancelBatch(ctx: ShellContext, runIdArg: unknown): null {
+  const runId = requireText(runIdArg, 'runId', 100);
+  const controller = ctx.batches.get(runId);
+  if (controller === undefined) throw new ApiFailure('not-found', `batch ${runId}: not running`);
+  controller.abort();
+  return null;
+}

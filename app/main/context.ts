@@ -1,0 +1,39 @@
+// Shared state of one handler set: dependencies, the path allow-list and running batches.
+import type { BatchProgress, ExportKind } from '../../core/contract';
+import type { AnalysisSettings } from '../../core/settings';
+import type { PathAllowList } from './allow-list';
+import type { AnalysisEngine, ViewData } from './engine';
+
+/** Native dialogs and other shell services the handlers need; main.ts supplies electron-backed versions. */
+export interface HandlerDeps {
+  /** Folder for app data: demo set, recent list. */
+  readonly dataDir: string;
+  readonly dialogs: {
+    chooseFolder(): Promise<string | null>;
+    chooseFiles(): Promise<string[] | null>;
+    chooseOutputFolder(): Promise<string | null>;
+    openProjectFile(): Promise<string | null>;
+    saveFile(suggestedName: string, kind: ExportKind): Promise<string | null>;
+  };
+  /** Push batch progress to the renderer. */
+  emitBatchProgress(p: BatchProgress): void;
+  /** Run loadStack's analysis off the main thread (the app passes a worker runner); in-process when absent. */
+  readonly runAnalysisOffThread?: (path: string, label: string, settings: AnalysisSettings) => Promise<ViewData>;
+  /** The analysis services; the real modules when absent. */
+  readonly engine?: AnalysisEngine;
+  /** Told when the recent list changes (the app rebuilds its menu). */
+  readonly onRecentChanged?: (paths: readonly string[]) => void;
+  /** Worker count for batches; default: cores − 1, at least 1. */
+  readonly batchJobs?: number;
+}
+
+/** What every handler group shares. */
+export interface ShellContext {
+  readonly deps: HandlerDeps;
+  readonly engine: AnalysisEngine;
+  readonly allow: PathAllowList;
+  /** Running batches by run id. */
+  readonly batches: Map<string, AbortController>;
+  /** Record a path in the recent list (failures to write it are ignored: it is a convenience). */
+  noteRecent(path: string): Promise<void>;
+}

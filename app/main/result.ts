@@ -1,0 +1,75 @@
+// Errors as values: every handler result is {ok, value} or {ok: false, error: {code, message}} with a one-line message.
+import { basename } from 'node:path';
+import type { ApiErrorCode, ApiResult } from '../../core/contract';
+import { ProjectFormatError } from '../project';
+
+/** An expected failure with its API code; handlers throw it internally and guard() turns it into a value. */
+export class ApiFailure extends Error {
+  override readonly name = 'ApiFailure';
+  constructor(readonly code: ApiErrorCode, message: string) {
+    super(message);
+  }
+}
+
+/** A successful result. */
+export function ok<T>(value: T): ApiResult<T> {
+  return { ok: true, value };
+}
+
+/** Collapse a message to one line and make sure it names the file (`label`) when there is one. */
+export function oneLine(message: string, label: string | null): string {
+  const line = message.replace(/\s*\n\s*/g, ' ').trim() || 'unknown error';
+  // A message that already starts with a file name ("x.json: …") names its file; do not stack a second one.
+  const namesFile = /^\S+\.[A-Za-z0-9]{1,5}: /.test(line);
+  return label === null || namesFile || line.includes(label) ? line : `${label}: ${line}`;
+}
+
+const ERRNO_CODES: Readonly<Record<string, [ApiErrorCode, string]>> = {
+  ENOENT: ['not-found', 'not found'],
+  ENOTDIR: ['not-found', 'not found (a parent is not a folder)'],
+  EACCES: ['io', 'permission denied'],
+  EPERM: ['io', 'operation not permitted'],
+  ENOSPC: ['io', 'the disk is full'],
+  EROFS: ['io', 'the disk is read-only'],
+  EISDIR: ['io', 'is a folder, not a file'],
+  EBUSY: ['io', 'the file is in use'],
+};
+const TIFF_CODES = new Set(['not-tiff', 'truncated', 'empty', 'bad-offset', 'ifd-loop', 'too-large', 'unsupported', 'bad-ome']);
+
+/** Map anything thrown to a failure value. `label` names the file; `fallback` is the code for unknown errors. */
+export function failureFrom(e: unknown, label: string | null, fallback: ApiErrorCode = 'internal'): ApiResult<never> {
+  const fail = (code: ApiErrorCode, message: string): ApiResult<never> => ({ ok: false, error: { code, message: oneLine(message, label) } });
+  if (e instanceof ApiFailure) return fail(e.code, e.message);
+  if (e instanceof ProjectFormatError) return fail('bad-file', e.message);
+  const err: Error & { code?: unknown } = e instanceof Error ? e : new Error(String(e));
+  if (err.name === 'AbortError') return fail('cancelled', 'cancelled');
+  const errno = typeof err.code === 'string' ? ERRNO_CODES[err.code] : undefined;
+  if (errno !== undefined) return fail(errno[0], errno[1]);
+  if (err.name === 'TiffError' || (typeof err.code === 'string' && TIFF_CODES.has(err.code))) return fail('bad-file', err.message);
+  return fail(fallback, err.message);
+}
+
+/** Run `body`, turning any throw into a failure value: handlers never throw. */
+export async function guard<T>(label: string | null, body: () => Promise<T>, fallback: ApiErrorCode = 'internal'): Promise<ApiResult<T>> {
+  try {
+    return ok(await body());
+  } catch (e) {
+    return failureFrom(e, label, fallback);
+  }
+}
+
+/** The label used in messages for a path: its file name. */
+export function labelOf(path: string): string {
+  return basename(path) || path;
+}
+
+/** Run `body`; anything it throws becomes an ApiFailure whose message names `label` (for paths known only later). */
+export async function withLabel<T>(label: string, body: () => Promise<T>, fallback: ApiErrorCode = 'internal'): Promise<T> {
+  try {
+    return await body();
+  } catch (e) {
+    const failure = failureFrom(e, label, fallback);
+    if (failure.ok) throw e;
+    throw new ApiFailure(failure.error.code, failure.error.message);
+  }
+}
