@@ -1,0 +1,135 @@
+// `eggline batch <folder> --out <dir> …`: resolve settings (defaults < config < flags), load hand edits, run the batch.
+import { promises as fs } from 'node:fs';
+import { join, resolve } from 'node:path';
+import {
+  BatchOptionError, mergeSettings, parseConfigText, parseSettingsFlags, PROJECT_FILE_NAME, type SettingsOverrides,
+} from '../../core/batch';
+import type { ProjectDoc } from '../../core/contract';
+import { DEFAULT_SETTINGS, type AnalysisSettings } from '../../core/settings';
+import { defaultJobs, runBatch, type RunBatchOptions } from '../batch/run-batch';
+import { loadProject } from '../project';
+import { BATCH_HELP } from './help';
+import { parseCommandArgs } from './parse-command-args';
+import { progressPrinter } from './progress';
+import { UsageError, type CliIo } from './usage-error';
+
+const OPTIONS = {
+  out: { type: 'string' }, jobs: { type: 'string' }, 'gradient-channel': { type: 'string' },
+  'boundary-channel': { type: 'string', multiple: true }, 'pixel-size': { type: 'string' }, projection: { type: 'string' },
+  profile: { type: 'string' }, 'fit-range': { type: 'string' }, anterior: { type: 'string' }, config: { type: 'string' },
+  project: { type: 'string' }, 'no-project': { type: 'boolean' }, samples: { type: 'string' }, reference: { type: 'string' },
+  'file-timeout': { type: 'string' }, help: { type: 'boolean', short: 'h' },
+} as const;
+
+/** Everything the batch command resolved from its arguments, before running. */
+export interface BatchPlan {
+  readonly folder: string;
+  readonly outDir: string;
+  readonly jobs: number;
+  readonly settings: AnalysisSettings;
+  readonly doc: ProjectDoc | null;
+  readonly projectFile: string | null;
+  readonly configFile: string | null;
+  readonly samples: string | null;
+  readonly reference: string | null;
+  readonly timeoutS: number | undefined;
+  readonly notes: readonly string[];
+}
+
+function wholeNumber(text: string, flag: string, min: number, max: number): number {
+  const n = Number(text);
+  if (!/^\d+$/.test(text.trim()) || n < min || n > max) throw new UsageError(`${flag} must be a whole number from ${min} to ${max} (got "${text}")`, 'batch');
+  return n;
+}
+
+async function readConfig(path: string): Promise<SettingsOverrides> {
+  const text = await fs.readFile(path, 'utf8').catch((e: NodeJS.ErrnoException) => {
+    throw new UsageError(`cannot read config file ${path} (${e.code ?? e.message})`, 'batch');
+  });
+  return parseConfigText(text, path);
+}
+
+async function readProject(given: string | undefined, folder: string, skip: boolean): Promise<{ doc: ProjectDoc | null; path: string | null; note: string | null }> {
+  const path = given !== undefined ? resolve(given) : skip ? null : join(folder, PROJECT_FILE_NAME);
+  if (path === null) return { doc: null, path: null, note: null };
+  const exists = await fs.stat(path).then((s) => s.isFile(), () => false);
+  if (!exists) {
+    if (given !== undefined) throw new UsageError(`project file not found: ${given}`, 'batch');
+    return { doc: null, path: null, note: null };
+  }
+  try {
+    const doc = await loadProject(path);
+    return { doc, path, note: `using hand edits from ${path}${given === undefined ? ' (found in the input folder; --no-project to ignore)' : ''}` };
+  } catch (e) {
+    throw new UsageError((e as Error).message.split('\n')[0], 'batch');
+  }
+}
+
+/** Resolve the batch command's arguments into a plan; throws UsageError / BatchOptionError for bad input. */
+export async function planBatch(argv: readonly string[]): Promise<BatchPlan | 'help'> {
+  const { values: v, positionals } = parseCommandArgs(argv, OPTIONS, 'batch');
+  if (v.help) return 'help';
+  if (positionals.length === 0) throw new UsageError('missing the input folder', 'batch');
+  if (positionals.length > 1) throw new UsageError(`expected one input folder, got ${positionals.length}: ${positionals.join(' ')}`, 'batch');
+  if (v.out === undefined) throw new UsageError('missing --out <dir> (where the tables go)', 'batch');
+  const folder = resolve(positionals[0]);
+  const stat = await fs.stat(folder).catch(() => null);
+  if (!stat?.isDirectory()) throw new UsageError(`${stat ? 'not a folder' : 'input folder not found'}: ${positionals[0]}`, 'batch');
+  if (resolve(v.out) === folder) throw new UsageError('--out must not be the input folder (nothing is written next to the inputs)', 'batch');
+  if (v.reference !== undefined && v.samples === undefined) throw new UsageError('--reference needs --samples', 'batch');
+  if (v.samples !== undefined && !(await fs.stat(v.samples).then((s) => s.isFile(), () => false))) {
+    throw new UsageError(`sample sheet not found: ${v.samples}`, 'batch');
+  }
+  const flags = parseSettingsFlags({
+    gradientChannel: v['gradient-channel'], boundaryChannel: v['boundary-channel'], pixelSize: v['pixel-size'],
+    projection: v.projection, profile: v.profile, fitRange: v['fit-range'], anterior: v.anterior,
+  });
+  const config = v.config !== undefined ? await readConfig(v.config) : {};
+  const project = await readProject(v.project, folder, v['no-project'] === true);
+  return {
+    folder, outDir: resolve(v.out), settings: mergeSettings(DEFAULT_SETTINGS, config, flags), doc: project.doc,
+    jobs: v.jobs !== undefined ? wholeNumber(v.jobs, '--jobs', 1, 256) : defaultJobs(),
+    projectFile: project.path, configFile: v.config !== undefined ? resolve(v.config) : null,
+    samples: v.samples !== undefined ? resolve(v.samples) : null, reference: v.reference ?? null,
+    timeoutS: v['file-timeout'] !== undefined ? wholeNumber(v['file-timeout'], '--file-timeout', 1, 86_400) : undefined,
+    notes: project.note ? [project.note] : [],
+  };
+}
+
+/** Run `eggline batch`; returns the exit code (0 all ok, 1 some failed or cancelled, 2 usage error). */
+export async function batchCommand(argv: readonly string[], io: CliIo, extra: Partial<RunBatchOptions> = {}): Promise<number> {
+  let plan: BatchPlan | 'help';
+  try {
+    plan = await planBatch(argv);
+  } catch (e) {
+    if (e instanceof BatchOptionError) throw new UsageError(e.message, 'batch');
+    throw e;
+  }
+  if (plan === 'help') { io.stdout.write(BATCH_HELP); return 0; }
+  for (const note of plan.notes) io.stderr.write(`eggline: ${note}\n`);
+  const abort = new AbortController();
+  const onSigint = (): void => { io.stderr.write('\neggline: cancelling; finished files are kept\n'); abort.abort(); };
+  process.once('SIGINT', onSigint);
+  const printer = progressPrinter(io);
+  try {
+    const summary = await runBatch({
+      folder: plan.folder, outDir: plan.outDir, settings: plan.settings, doc: plan.doc, jobs: plan.jobs,
+      onProgress: printer.onProgress, signal: abort.signal, timeoutPerFileS: plan.timeoutS,
+      commandLine: ['eggline', 'batch', ...argv], projectFile: plan.projectFile, configFile: plan.configFile,
+      cohort: plan.samples ? { sampleSheetPath: plan.samples, reference: plan.reference } : null, ...extra,
+    });
+    printer.end();
+    for (const w of summary.warnings) io.stderr.write(`eggline: warning: ${w}\n`);
+    const total = summary.ok + summary.failed;
+    if (total === 0) {
+      io.stderr.write(`eggline: no stacks (.tif, .tiff, .ome.tif, .btf, .tf8) found in ${plan.folder}\n`);
+      return 1;
+    }
+    io.stdout.write(`${summary.cancelled ? 'Cancelled after' : 'Analysed'} ${total} file${total === 1 ? '' : 's'}: ${summary.ok} ok, ${summary.failed} failed.\n`);
+    io.stdout.write(`Tables written to ${summary.outDir}\n`);
+    return summary.failed > 0 || summary.cancelled ? 1 : 0;
+  } finally {
+    printer.end();
+    process.removeListener('SIGINT', onSigint);
+  }
+}

@@ -1,0 +1,26 @@
+// `eggline demo <dir>`: write the synthetic demo data set and say what to try next.
+import { join, relative } from 'node:path';
+import { writeDemoDataSet } from '../batch/write-demo';
+import { DEMO_HELP } from './help';
+import { parseCommandArgs } from './parse-command-args';
+import { UsageError, type CliIo } from './usage-error';
+
+/** Run `eggline demo`; exit code 0, or 2 for usage errors. */
+export async function demoCommand(argv: readonly string[], io: CliIo): Promise<number> {
+  const { values, positionals } = parseCommandArgs(argv, { count: { type: 'string' }, help: { type: 'boolean', short: 'h' } } as const, 'demo');
+  if (values.help) { io.stdout.write(DEMO_HELP); return 0; }
+  if (positionals.length !== 1) throw new UsageError(positionals.length === 0 ? 'missing the folder to write the demo data to' : 'demo takes one folder', 'demo');
+  let count: number | undefined;
+  if (values.count !== undefined) {
+    count = Number(values.count);
+    if (!/^\d+$/.test(values.count) || count < 1) throw new UsageError(`--count must be a whole number ≥ 1 (got "${values.count}")`, 'demo');
+  }
+  const dir = positionals[0];
+  io.stderr.write(`eggline: writing synthetic demo data to ${dir} …\n`);
+  const result = await writeDemoDataSet(dir, count === undefined ? {} : { subset: count });
+  const show = (p: string): string => relative(process.cwd(), p) || '.';
+  const out = join(dir, '..', `${dir.replace(/[\\/]+$/, '').split(/[\\/]/).pop() ?? 'demo'}-results`);
+  io.stdout.write(`Wrote ${result.files.length} synthetic stacks, ${show(result.samplesPath)} and ${show(result.projectPath)}.\n`);
+  io.stdout.write(`Next, try:\n  eggline batch ${dir} --out ${out} --boundary-channel 2 --samples ${show(result.samplesPath)}\n`);
+  return 0;
+}

@@ -1,0 +1,58 @@
+// Help texts for `eggline --help` and `eggline <command> --help`.
+
+/** Top-level help. */
+export const MAIN_HELP = `eggline — measure morphogen gradients along the AP axis of embryo images
+
+Usage:
+  eggline batch <folder> --out <dir> [options]   analyse every stack in a folder, write tables
+  eggline cohort <results-dir> --samples <csv>   compare conditions of a finished batch
+  eggline inspect <file>                         show what a TIFF / OME-TIFF file holds
+  eggline demo <dir>                             write a synthetic demo data set to try things on
+  eggline --version                              print the version
+
+Run "eggline <command> --help" for the options of a command.
+`;
+
+/** Help for the batch command. */
+export const BATCH_HELP = `Usage: eggline batch <folder> --out <dir> [options]
+
+Analyses every .tif/.tiff/.ome.tif(f)/.btf/.tf8/.tf2 file in <folder> and its subfolders (sorted by path;
+hidden files skipped) and writes embryos.csv, boundaries.csv, profiles.csv, landmarks.csv, results.json and
+run.json to <dir>. Nothing is ever written into <folder>; <dir> must not be <folder> itself.
+
+Options:
+  --out DIR                   output folder (created if missing)                       [required]
+  --jobs N                    worker threads                            [default: number of cores]
+  --gradient-channel N|NAME   channel of the exponential gradient (1-based or name)        [1]
+  --boundary-channel N|NAME   channel to find expression boundaries in; repeat for more
+  --pixel-size UM             µm per pixel, used when a file does not say
+  --projection P              max | mean | sum | slice | slice:Z (Z is 0-based)         [mean]
+  --profile MODE              edge (band under the outline) | axis (strip on the axis)  [edge]
+  --fit-range A,B             x/EL range of the exponential fit, 0 ≤ A < B ≤ 1        [0.1,0.6]
+  --anterior A                auto (high end of the gradient) | high | low             [auto]
+  --config FILE               settings JSON (keys as in results.json settings); flags win over it
+  --project FILE              hand edits (axis, landmarks, fit range per file)
+                              [default: <folder>/eggline-project.json when present]
+  --no-project                ignore <folder>/eggline-project.json
+  --samples CSV               sample sheet (file,condition[,dosage]); runs the cohort step after
+  --reference COND            reference condition for the cohort step (needs --samples)
+  --file-timeout S            give up on one file after S seconds                       [900]
+  -h, --help                  show this help
+
+Exit status: 0 all files analysed, 1 some files failed, 2 usage error.
+`;
+
+/** Help for the inspect command. */
+export const INSPECT_HELP = `Usage: eggline inspect <file>
+
+Prints what the file's tags say: format, dimensions, channels, pixel size and where it came from,
+sample type, compression and which IFD holds each plane. Pixels are not decoded.
+`;
+
+/** Help for the demo command. */
+export const DEMO_HELP = `Usage: eggline demo <dir> [--count N]
+
+Writes a synthetic demo data set (invented embryos, OME-TIFF with deflate) to <dir>, with samples.csv
+(file,condition,dosage), eggline-project.json (a hand-marked landmark per file) and README.txt.
+  --count N    write only the first N embryos of the set
+`;

@@ -1,0 +1,31 @@
+// `eggline inspect <file>`: what a TIFF / OME-TIFF holds, from its tags only (no pixels decoded).
+import { basename } from 'node:path';
+import { describeStack, readStackInfo } from '../../core/tiff';
+import { openByteSource } from '../batch/deps';
+import { INSPECT_HELP } from './help';
+import { parseCommandArgs } from './parse-command-args';
+import { UsageError, type CliIo } from './usage-error';
+
+/** Run `eggline inspect`; exit code 0, 1 when the file cannot be read, 2 for usage errors. */
+export async function inspectCommand(argv: readonly string[], io: CliIo): Promise<number> {
+  const { values, positionals } = parseCommandArgs(argv, { help: { type: 'boolean', short: 'h' } } as const, 'inspect');
+  if (values.help) { io.stdout.write(INSPECT_HELP); return 0; }
+  if (positionals.length !== 1) throw new UsageError(positionals.length === 0 ? 'missing the file to inspect' : 'inspect takes one file', 'inspect');
+  const path = positionals[0];
+  const label = basename(path);
+  let source: Awaited<ReturnType<typeof openByteSource>> | null = null;
+  try {
+    source = await openByteSource(path);
+    const info = await readStackInfo(source, label);
+    io.stdout.write(`file: ${path}\n${describeStack(info).join('\n')}\n`);
+    return 0;
+  } catch (e) {
+    const err = e as NodeJS.ErrnoException;
+    const text = err.code === 'ENOENT' ? `${label}: file not found` : err.code === 'EISDIR' ? `${label}: is a folder, not a file`
+      : err.message.split(/\r?\n/)[0];
+    io.stderr.write(`eggline inspect: ${text.startsWith(label) ? text : `${label}: ${text}`}\n`);
+    return 1;
+  } finally {
+    await source?.close().catch(() => undefined);
+  }
+}
