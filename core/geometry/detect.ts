@@ -1,0 +1,64 @@
+// Detect the embryo in a projected stack: mask, outline, AP axis (anterior chosen from the gradient), size.
+import type { ApAxis, Detection, Mask } from '../model';
+import type { AnalysisSettings } from '../settings';
+import { describeChannelRef, resolveChannel, segmentEmbryo } from '../image';
+import type { ProjectedStack } from '../model';
+import { maskOutline } from './outline';
+import { principalAxis } from './principal-axis';
+import { polesFromOutline } from './poles';
+import { chooseAnterior, endMeans } from './orientation';
+
+/** Detection plus the sizes in pixels (µm values are NaN when the pixel size is unknown). */
+export interface EmbryoDetection extends Detection {
+  readonly eggLengthPx: number;
+  readonly eggWidthPx: number;
+}
+
+/** Smallest region accepted as an embryo, in pixels. */
+const MIN_EMBRYO_PX = 100;
+
+/** Warnings about where the mask lies in the frame. */
+function maskWarnings(mask: Mask, lengthPx: number, widthPx: number): string[] {
+  const w: string[] = [];
+  const { width, height, data } = mask;
+  let touches = false;
+  for (let x = 0; x < width && !touches; x++) touches = data[x] === 1 || data[(height - 1) * width + x] === 1;
+  for (let y = 0; y < height && !touches; y++) touches = data[y * width] === 1 || data[y * width + width - 1] === 1;
+  if (touches) w.push('the embryo touches the image border; its outline and egg length may be cut short');
+  if (widthPx > 0.85 * lengthPx) w.push('the embryo is nearly round, so the AP axis direction is uncertain; check the axis');
+  return w;
+}
+
+/**
+ * Segment the embryo from all channels, find its principal axis and poles, and orient the axis by settings.anterior
+ * ('auto'/'high' = anterior at the high end of the gradient channel, 'low' = at the low end).
+ * Throws a one-line Error when no embryo stands out from the background.
+ */
+export function detectEmbryo(projected: ProjectedStack, settings: AnalysisSettings): EmbryoDetection {
+  if (projected.channels.length === 0) throw new Error('the stack has no channels');
+  const mask = segmentEmbryo(projected.channels);
+  let area = 0;
+  for (let i = 0; i < mask.data.length; i++) area += mask.data[i];
+  if (area < MIN_EMBRYO_PX) throw new Error('no embryo found: no region stands out from the background');
+  const outline = maskOutline(mask);
+  const pa = principalAxis(mask);
+  const ext = polesFromOutline(outline, pa);
+  const warnings = maskWarnings(mask, ext.lengthPx, ext.widthPx);
+  const g = resolveChannel(settings.gradientChannel, projected.channelNames);
+  let firstIsAnterior = true;
+  if (g === null) {
+    warnings.push(`the file has no ${describeChannelRef(settings.gradientChannel)} (gradient); the anterior end was chosen arbitrarily`);
+  } else {
+    const choice = chooseAnterior(endMeans(projected.channels[g], mask, ext.first, ext.second), settings.anterior);
+    firstIsAnterior = choice.firstIsAnterior;
+    if (choice.warning) warnings.push(choice.warning);
+  }
+  const axis: ApAxis = firstIsAnterior
+    ? { anterior: ext.first, posterior: ext.second, source: 'auto' }
+    : { anterior: ext.second, posterior: ext.first, source: 'auto' };
+  const um = projected.pixelSizeUm ?? NaN;
+  return {
+    mask, outline, axis, eggLengthUm: ext.lengthPx * um, eggWidthUm: ext.widthPx * um,
+    eggLengthPx: ext.lengthPx, eggWidthPx: ext.widthPx, warnings,
+  };
+}

@@ -1,0 +1,38 @@
+// Choose which pole is anterior from the gradient channel (the gradient is high at the anterior end).
+import type { ImagePoint, Mask, Plane } from '../model';
+import { estimateBackgroundLevel } from '../image';
+
+/** Mean background-subtracted intensity of `plane` over mask pixels in the first and last `fraction` of first→second. */
+export function endMeans(plane: Plane, mask: Mask, first: ImagePoint, second: ImagePoint, fraction = 0.2): { first: number; second: number } {
+  const dx = second.x - first.x;
+  const dy = second.y - first.y;
+  const len2 = dx * dx + dy * dy;
+  const bg = estimateBackgroundLevel(plane.data).level;
+  let s1 = 0; let n1 = 0; let s2 = 0; let n2 = 0;
+  const { width, data } = mask;
+  for (let i = 0; i < data.length; i++) {
+    if (!data[i]) continue;
+    const t = (((i % width) - first.x) * dx + (Math.floor(i / width) - first.y) * dy) / len2;
+    if (t <= fraction) { s1 += plane.data[i] - bg; n1++; } else if (t >= 1 - fraction) { s2 += plane.data[i] - bg; n2++; }
+  }
+  return { first: n1 ? s1 / n1 : NaN, second: n2 ? s2 / n2 : NaN };
+}
+
+/**
+ * Which end is anterior: 'high' (and 'auto') = the end with the higher gradient-channel mean in its last 20% EL,
+ * 'low' = the other. Returns whether `first` is anterior, and a warning when the two ends differ by < 20%.
+ */
+export function chooseAnterior(means: { first: number; second: number }, mode: 'auto' | 'high' | 'low'): { firstIsAnterior: boolean; warning: string | null } {
+  const firstHigher = means.first >= means.second;
+  const hi = Math.max(means.first, means.second);
+  const lo = Math.min(means.first, means.second);
+  let warning: string | null = null;
+  if (mode === 'auto' && !(hi > 0 && hi >= 1.2 * Math.max(lo, 0))) {
+    warning = `anterior end is ambiguous: the gradient channel differs little between the two ends (${round(means.first)} vs ${round(means.second)}); check the axis`;
+  }
+  return { firstIsAnterior: mode === 'low' ? !firstHigher : firstHigher, warning };
+}
+
+function round(v: number): string {
+  return Number.isFinite(v) ? v.toPrecision(3) : 'n/a';
+}

@@ -1,0 +1,19 @@
+// Public surface of core/image: projection, smoothing, thresholds, components, morphology, distances, sampling.
+// Coordinate convention: x = column, y = row, 0-based, pixel centres at integers; images are row-major.
+export { createProjector } from './projector';
+export type { Projector } from './projector';
+export { projectStack, chooseSliceScore } from './project-stack';
+export { toFloatPlane } from './plane-convert';
+export { gaussianKernel, gaussianSmooth } from './gaussian';
+export { otsuThreshold, otsuBin } from './threshold';
+export { labelComponents, largestComponent } from './components';
+export { fillHoles } from './fill-holes';
+export { squaredDistanceToFeatures, distanceInside, distanceOutside } from './distance';
+export { dilate, erode, open, close } from './morphology';
+export { maxFilter } from './max-filter';
+export { sampleBilinear } from './bilinear';
+export { estimateBackgroundLevel, sortedSample, sortedQuantile } from './background-level';
+export type { BackgroundLevel } from './background-level';
+export { segmentEmbryo, combinedSnr, channelSnr, checkSegmentOptions } from './segment';
+export type { SegmentOptions } from './segment';
+export { resolveChannel, describeChannelRef } from './channel-ref';

@@ -1,0 +1,101 @@
+// Project a stack over Z per channel, reading plane by plane (a stack is never held whole).
+import type { PixelSize, PixelSizeSource, Plane, PlaneSource, ProjectedStack, RawPlane, StackInfo } from '../model';
+import type { AnalysisSettings } from '../settings';
+import { createProjector } from './projector';
+import type { Projector } from './projector';
+import { toFloatPlane } from './plane-convert';
+
+/**
+ * Score used to pick a slice automatically: the variance of the plane's pixel values, summed over channels.
+ * Why: the in-focus mid-section shows the largest embryo section with the sharpest edges, so it has the most
+ * contrast; out-of-focus slices are blurred and their variance drops.
+ */
+export function chooseSliceScore(planes: readonly (RawPlane | Plane)[]): number {
+  let score = 0;
+  for (const p of planes) {
+    let s = 0;
+    let s2 = 0;
+    const d = p.data;
+    for (let i = 0; i < d.length; i++) { s += d[i]; s2 += d[i] * d[i]; }
+    const m = s / d.length;
+    score += s2 / d.length - m * m;
+  }
+  return score;
+}
+
+/** Pixel size to use: the file's, else the user's fallback, else unknown (with warnings). */
+function resolvePixelSize(px: PixelSize, fallbackUm: number | null, warnings: string[]): { um: number | null; source: PixelSizeSource } {
+  if (px.xUm !== null && px.xUm > 0 && px.source !== 'unknown' && px.source !== 'user') {
+    if (px.yUm !== null && Math.abs(px.yUm - px.xUm) > 0.01 * px.xUm) {
+      warnings.push(`pixel size differs in x (${px.xUm} µm) and y (${px.yUm} µm); x is used for both`);
+    }
+    return { um: px.xUm, source: px.source };
+  }
+  if (fallbackUm !== null && fallbackUm > 0) return { um: fallbackUm, source: 'user' };
+  if (px.xUm !== null && px.xUm > 0) return { um: px.xUm, source: px.source };
+  warnings.push('pixel size unknown: lengths are in pixels and µm values are left empty');
+  return { um: null, source: 'unknown' };
+}
+
+/** Read one plane and check it has the declared size. */
+async function readChecked(source: PlaneSource, info: StackInfo, z: number, c: number, t: number): Promise<RawPlane> {
+  const p = await source.readPlane(z, c, t);
+  if (p.width !== info.sizeX || p.height !== info.sizeY || p.data.length !== info.sizeX * info.sizeY) {
+    throw new Error(`plane z=${z} c=${c} t=${t} is ${p.width}×${p.height}, expected ${info.sizeX}×${info.sizeY}`);
+  }
+  return p;
+}
+
+/** Check the time and slice indices against the stack's size (exact messages). */
+function checkIndices(info: StackInfo, settings: AnalysisSettings): void {
+  if (!Number.isInteger(settings.timeIndex) || settings.timeIndex < 0 || settings.timeIndex >= info.sizeT) {
+    throw new Error(`time index ${settings.timeIndex} is out of range (the file has ${info.sizeT} time point(s))`);
+  }
+  const z = settings.sliceIndex;
+  if (settings.projection === 'slice' && z !== null && (!Number.isInteger(z) || z < 0 || z >= info.sizeZ)) {
+    throw new Error(`slice index ${z} is out of range (the file has ${info.sizeZ} slice(s))`);
+  }
+}
+
+/** Automatic slice: keep only the best-scoring z (all channels) while streaming through the stack. */
+async function bestSlice(info: StackInfo, source: PlaneSource, t: number): Promise<{ planes: Plane[]; z: number }> {
+  let best: Plane[] = [];
+  let bestZ = 0;
+  let bestScore = -Infinity;
+  for (let z = 0; z < info.sizeZ; z++) {
+    const planes: RawPlane[] = [];
+    for (let c = 0; c < info.sizeC; c++) planes.push(await readChecked(source, info, z, c, t));
+    const score = chooseSliceScore(planes);
+    if (score > bestScore) { bestScore = score; bestZ = z; best = planes.map(toFloatPlane); }
+  }
+  return { planes: best, z: bestZ };
+}
+
+/**
+ * Project every channel of a stack over Z at settings.timeIndex with settings.projection, reading one plane at a time.
+ * 'slice' uses settings.sliceIndex, or, when null, the slice with the highest contrast (see chooseSliceScore).
+ * Rejects with a one-line message on bad indices or planes of the wrong size.
+ */
+export async function projectStack(info: StackInfo, source: PlaneSource, settings: AnalysisSettings): Promise<ProjectedStack> {
+  checkIndices(info, settings);
+  const warnings: string[] = [];
+  const px = resolvePixelSize(info.pixelSize, settings.pixelSizeUm, warnings);
+  const t = settings.timeIndex;
+  const names = Array.from({ length: info.sizeC }, (_, c) => info.channelNames[c] || `C${c + 1}`);
+  let channels: Plane[];
+  let sliceIndex: number | null = null;
+  if (settings.projection === 'slice' && settings.sliceIndex === null) {
+    const best = await bestSlice(info, source, t);
+    channels = best.planes;
+    sliceIndex = best.z;
+  } else {
+    const projectors: Projector[] = names.map(() => createProjector(info.sizeX, info.sizeY, settings.projection));
+    const zs = settings.projection === 'slice' ? [settings.sliceIndex as number] : Array.from({ length: info.sizeZ }, (_, z) => z);
+    for (const z of zs) {
+      for (let c = 0; c < info.sizeC; c++) projectors[c].add(await readChecked(source, info, z, c, t));
+    }
+    channels = projectors.map((p) => p.result());
+    if (settings.projection === 'slice') sliceIndex = settings.sliceIndex;
+  }
+  return { channels, channelNames: names, pixelSizeUm: px.um, pixelSizeSource: px.source, projection: settings.projection, sliceIndex, warnings };
+}

@@ -1,0 +1,103 @@
+// Embryo segmentation that works whatever the channels contain (a bright gradient end next to a dim end).
+import type { Mask, Plane } from '../model';
+import { estimateBackgroundLevel } from './background-level';
+import { largestComponent } from './components';
+import { fillHoles } from './fill-holes';
+import { gaussianSmooth } from './gaussian';
+import { maxFilter } from './max-filter';
+import { dilate, open } from './morphology';
+import { distanceInside } from './distance';
+import { otsuThreshold } from './threshold';
+
+/** Options of segmentEmbryo, all in pixels or noise-SD units. */
+export interface SegmentOptions {
+  /** Strong smoothing for the coarse mask (px). @default 4 */
+  readonly coarseSigmaPx?: number;
+  /** Light smoothing for the edge position (px). @default 1.5 */
+  readonly fineSigmaPx?: number;
+  /** Radius of the neighbourhood whose maximum is the local embryo level (px). @default 8 */
+  readonly localRadiusPx?: number;
+  /** Edge = where the signal falls to this fraction of the local level (0..1). @default 0.5 */
+  readonly edgeFraction?: number;
+}
+
+/** Check and fill segmentation options; exact messages are pinned by tests. */
+export function checkSegmentOptions(o: SegmentOptions = {}): Required<SegmentOptions> {
+  const out = { coarseSigmaPx: 4, fineSigmaPx: 1.5, localRadiusPx: 8, edgeFraction: 0.5, ...o };
+  for (const key of ['coarseSigmaPx', 'fineSigmaPx', 'localRadiusPx'] as const) {
+    if (!(out[key] > 0) || !Number.isFinite(out[key])) throw new Error(`${key} must be a positive number, got ${out[key]}`);
+  }
+  if (!(out.edgeFraction > 0 && out.edgeFraction < 1)) {
+    throw new Error(`edgeFraction must be between 0 and 1, got ${out.edgeFraction}`);
+  }
+  return out;
+}
+
+/** One channel smoothed by sigmaPx, minus its background level, divided by its noise SD (units: noise SDs). */
+export function channelSnr(channel: Plane, sigmaPx: number): Plane {
+  const s = gaussianSmooth(channel, sigmaPx).data;
+  const bg = estimateBackgroundLevel(s);
+  const out = new Float32Array(s.length);
+  for (let i = 0; i < s.length; i++) out[i] = (s[i] - bg.level) / bg.noiseSd;
+  return { width: channel.width, height: channel.height, data: out };
+}
+
+/**
+ * Signal-to-noise image: the maximum over channels of channelSnr. Normalising by noise lets a dim channel count as
+ * much as a bright one.
+ */
+export function combinedSnr(channels: readonly Plane[], sigmaPx: number): Plane {
+  const { width, height } = channels[0];
+  const out = new Float32Array(width * height).fill(-Infinity);
+  for (const ch of channels) {
+    const z = channelSnr(ch, sigmaPx).data;
+    for (let i = 0; i < z.length; i++) if (z[i] > out[i]) out[i] = z[i];
+  }
+  return { width, height, data: out };
+}
+
+/** Coarse mask: Otsu on log SNR (log so a dim end is not lost beside a bright one), kept within 4..30 noise SDs. */
+function coarseMask(snr: Plane): Mask {
+  const logs = new Float32Array(snr.data.length);
+  for (let i = 0; i < logs.length; i++) logs[i] = Math.log(Math.max(1, snr.data[i]));
+  const t = Math.min(30, Math.max(4, Math.exp(otsuThreshold(logs))));
+  const data = new Uint8Array(logs.length);
+  for (let i = 0; i < data.length; i++) data[i] = snr.data[i] > t ? 1 : 0;
+  return fillHoles(largestComponent({ width: snr.width, height: snr.height, data }));
+}
+
+/** Pixels where some channel is at least edgeFraction of its own local maximum (and above 3 noise SDs). */
+function nearLocalLevel(channels: readonly Plane[], o: Required<SegmentOptions>): Uint8Array {
+  const keep = new Uint8Array(channels[0].data.length);
+  for (const ch of channels) {
+    const fine = channelSnr(ch, o.fineSigmaPx);
+    const local = maxFilter(fine, o.localRadiusPx).data;
+    for (let i = 0; i < keep.length; i++) {
+      if (fine.data[i] >= Math.max(3, o.edgeFraction * local[i])) keep[i] = 1;
+    }
+  }
+  return keep;
+}
+
+/**
+ * Segment the embryo from all channels of a projected stack (same size): returns the filled largest region.
+ * Two stages: a coarse SNR mask (strong smoothing, low threshold) finds where the embryo is; near its edge the
+ * outline is then placed where a lightly smoothed channel falls to edgeFraction of its own local maximum, so a very
+ * bright end is not pushed outwards. Each channel is judged on its own so a step inside one channel (an expression
+ * boundary) does not cut the embryo; the coarse mask's deep interior is kept as is.
+ */
+export function segmentEmbryo(channels: readonly Plane[], options: SegmentOptions = {}): Mask {
+  const o = checkSegmentOptions(options);
+  if (channels.length === 0) throw new Error('segmentEmbryo needs at least one channel');
+  const { width, height } = channels[0];
+  const coarse = coarseMask(combinedSnr(channels, o.coarseSigmaPx));
+  const depth = distanceInside(coarse);
+  const near = dilate(coarse, o.localRadiusPx).data;
+  const keep = nearLocalLevel(channels, o);
+  const data = new Uint8Array(width * height);
+  for (let i = 0; i < data.length; i++) {
+    data[i] = depth[i] > 2 * o.localRadiusPx || (near[i] && keep[i]) ? 1 : 0;
+  }
+  const filled = fillHoles(largestComponent({ width, height, data }));
+  return fillHoles(largestComponent(open(filled, 1.5)));
+}

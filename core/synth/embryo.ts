@@ -1,0 +1,171 @@
+// Seeded synthetic embryo stack (demo data): an ellipsoidal embryo with a nuclear layer, an exponential gradient
+// channel and a boundary channel, imaged as a small Z stack with defocus blur, camera offset, shot and read noise.
+import type { ImagePoint, Plane } from '../model';
+import { gaussianSmooth } from '../image';
+import { createRng } from '../stats';
+import type { Rng } from '../stats';
+import { checkSynthParams, DEFAULT_SYNTH_PARAMS } from './params';
+import type { SyntheticEmbryoParams } from './params';
+
+/** The known answers a synthetic embryo was built from (image coordinates in px, x/EL from the anterior pole). */
+export interface SyntheticTruth {
+  readonly anterior: ImagePoint;
+  readonly posterior: ImagePoint;
+  readonly centre: ImagePoint;
+  readonly angleDeg: number;
+  readonly eggLengthUm: number;
+  readonly eggWidthUm: number;
+  readonly lambdaUm: number;
+  /** Where the boundary channel switches off (gradient = threshold), x/EL; NaN when the gradient never reaches it. */
+  readonly boundaryEl: number;
+  /** Furrow landmark on the outline, left of A→P, at x/EL furrowEl (same threshold rule). */
+  readonly furrowPoint: ImagePoint;
+  readonly furrowEl: number;
+}
+
+/** A synthetic stack: uint16 planes in XYZCT order (plane index = c·sizeZ + z), plus calibration and truth. */
+export interface SyntheticEmbryo {
+  readonly stack: { readonly sizeX: number; readonly sizeY: number; readonly sizeZ: number; readonly sizeC: number; readonly planes: Uint16Array[] };
+  readonly pixelSizeUm: number;
+  readonly channelNames: readonly string[];
+  readonly params: SyntheticEmbryoParams;
+  readonly truth: SyntheticTruth;
+}
+
+/** x/EL where a gradient of amplitude ampl decays to level (x = λ·ln(ampl/level)). */
+function thresholdEl(p: SyntheticEmbryoParams, level: number): number {
+  const ampl = p.gradientAmplitude * p.dosage;
+  return ampl > level && level > 0 ? (p.lambdaUm * Math.log(ampl / level)) / p.eggLengthUm : NaN;
+}
+
+/** Random or given placement that keeps the rotated ellipse (plus a margin) inside the frame. */
+function placement(p: SyntheticEmbryoParams, rng: Rng): { centre: ImagePoint; angleDeg: number } {
+  const angleDeg = p.angleDeg ?? rng.uniform() * 360;
+  if (p.centre) return { centre: p.centre, angleDeg };
+  const th = (angleDeg * Math.PI) / 180;
+  const a = p.eggLengthUm / 2 / p.pixelSizeUm;
+  const b = p.eggWidthUm / 2 / p.pixelSizeUm;
+  const hx = Math.hypot(a * Math.cos(th), b * Math.sin(th)) + 12;
+  const hy = Math.hypot(a * Math.sin(th), b * Math.cos(th)) + 12;
+  const pick = (size: number, h: number): number => (size - 1 - 2 * h > 0 ? h + rng.uniform() * (size - 1 - 2 * h) : (size - 1) / 2);
+  return { centre: { x: pick(p.widthPx, hx), y: pick(p.heightPx, hy) }, angleDeg };
+}
+
+/** Build the truth record from the placement. */
+function makeTruth(p: SyntheticEmbryoParams, centre: ImagePoint, angleDeg: number): SyntheticTruth {
+  const th = (angleDeg * Math.PI) / 180;
+  const ux = Math.cos(th);
+  const uy = Math.sin(th);
+  const a = p.eggLengthUm / 2 / p.pixelSizeUm;
+  const b = p.eggWidthUm / 2 / p.pixelSizeUm;
+  const furrowEl = thresholdEl(p, p.furrowThreshold);
+  const fx = -a + (Number.isFinite(furrowEl) ? furrowEl : 0.5) * 2 * a;
+  const fy = b * Math.sqrt(Math.max(0, 1 - (fx / a) ** 2));
+  // Left of the A→P heading (ux, uy) in image coordinates is (uy, −ux).
+  return {
+    anterior: { x: centre.x - a * ux, y: centre.y - a * uy },
+    posterior: { x: centre.x + a * ux, y: centre.y + a * uy },
+    centre, angleDeg, eggLengthUm: p.eggLengthUm, eggWidthUm: p.eggWidthUm, lambdaUm: p.lambdaUm,
+    boundaryEl: thresholdEl(p, p.boundaryThreshold),
+    furrowPoint: { x: centre.x + fx * ux + fy * uy, y: centre.y + fx * uy - fy * ux },
+    furrowEl,
+  };
+}
+
+/** Per-pixel terms that do not change with z: position in the embryo frame (µm) and the channels' AP patterns. */
+interface Frame {
+  readonly X: Float32Array;
+  readonly Y: Float32Array;
+  /** Gradient-channel signal of the layer: (B + A·f·exp(−x/λ)) × nuclei texture. */
+  readonly gradient: Float32Array;
+  /** Boundary-channel signal of the layer: amplitude × logistic on/off × nuclei texture. */
+  readonly boundary: Float32Array;
+}
+
+/** Compute the z-independent terms once per embryo. */
+function embryoFrame(p: SyntheticEmbryoParams, t: SyntheticTruth): Frame {
+  const { widthPx: w, heightPx: h, pixelSizeUm: px } = p;
+  const th = (t.angleDeg * Math.PI) / 180;
+  const ux = Math.cos(th);
+  const uy = Math.sin(th);
+  const n = w * h;
+  const f = { X: new Float32Array(n), Y: new Float32Array(n), gradient: new Float32Array(n), boundary: new Float32Array(n) };
+  const ampl = p.gradientAmplitude * p.dosage;
+  const period = 7; // µm between nuclei of the texture
+  const widthUm = p.boundaryWidthUm > 0 ? p.boundaryWidthUm : 1e-6;
+  const xb = p.lambdaUm * Math.log(ampl / p.boundaryThreshold);
+  for (let i = 0; i < n; i++) {
+    const dx = ((i % w) - t.centre.x) * px;
+    const dy = (Math.floor(i / w) - t.centre.y) * px;
+    const X = dx * ux + dy * uy; // µm along A→P from the centre
+    const Y = dx * uy - dy * ux; // µm to the left of A→P
+    const xAp = X + p.eggLengthUm / 2;
+    const tex = 1 - p.nucleiContrast * 0.5 * (1 - Math.cos((2 * Math.PI * X) / period) * Math.cos((2 * Math.PI * Y) / period));
+    f.X[i] = X;
+    f.Y[i] = Y;
+    f.gradient[i] = (p.gradientBaseline + ampl * Math.exp(-xAp / p.lambdaUm)) * tex;
+    f.boundary[i] = (p.boundaryAmplitude * tex) / (1 + Math.exp((xAp - xb) / widthUm));
+  }
+  return f;
+}
+
+/** Noise-free signal (photons) of both channels in the Z section at height zUm from the mid-section. */
+function sectionSignal(p: SyntheticEmbryoParams, f: Frame, zUm: number): [Plane, Plane] {
+  const { widthPx: w, heightPx: h, pixelSizeUm: px } = p;
+  const s = Math.sqrt(Math.max(0, 1 - (zUm / (p.eggWidthUm / 2)) ** 2));
+  const ia = 1 / ((p.eggLengthUm / 2) * s);
+  const ib = 1 / ((p.eggWidthUm / 2) * s);
+  const g = new Float32Array(w * h);
+  const e = new Float32Array(w * h);
+  for (let i = 0; i < g.length; i++) {
+    const qx = f.X[i] * ia;
+    const qy = f.Y[i] * ib;
+    const r = Math.sqrt(qx * qx + qy * qy);
+    if (r > 1 + 2 * px * ia) continue;
+    // First-order distance inside the surface: (1 − r) / |∇r|.
+    const grad = Math.sqrt((qx * ia) ** 2 + (qy * ib) ** 2) / Math.max(r, 1e-9);
+    const depthUm = r > 0 ? (1 - r) / grad : 1 / ib;
+    const cover = Math.min(1, Math.max(0, 0.5 + depthUm / px));
+    if (cover === 0) continue;
+    const layer = p.interiorLevel + (1 - p.interiorLevel) / (1 + Math.exp((depthUm - p.nuclearLayerUm) / 2));
+    g[i] = cover * (p.autofluorescence + f.gradient[i] * layer);
+    e[i] = cover * (p.autofluorescence + f.boundary[i] * layer);
+  }
+  return [{ width: w, height: h, data: g }, { width: w, height: h, data: e }];
+}
+
+/** Blur for defocus, then camera: offset + Poisson(photons + background) + Gaussian read noise, rounded to uint16. */
+function camera(p: SyntheticEmbryoParams, plane: Plane, blurPx: number, rng: Rng): Uint16Array {
+  const blurred = gaussianSmooth(plane, blurPx).data;
+  const out = new Uint16Array(blurred.length);
+  for (let i = 0; i < out.length; i++) {
+    const v = p.cameraOffset + rng.poisson(Math.max(0, blurred[i]) + p.backgroundPhotons) + p.readNoiseSd * rng.normal();
+    out[i] = Math.min(65535, Math.max(0, Math.round(v)));
+  }
+  return out;
+}
+
+/**
+ * Make a synthetic embryo (demo data) from params (missing fields take DEFAULT_SYNTH_PARAMS) and a seed.
+ * Channel 1 = gradient A·f·exp(−x/λ) + B, channel 2 = boundary (on where the gradient exceeds boundaryThreshold).
+ */
+export function makeSyntheticEmbryo(params: Partial<SyntheticEmbryoParams>, seed: number): SyntheticEmbryo {
+  const p: SyntheticEmbryoParams = { ...DEFAULT_SYNTH_PARAMS, ...params };
+  checkSynthParams(p);
+  const rng = createRng(seed);
+  const { centre, angleDeg } = placement(p, rng);
+  const truth = makeTruth(p, centre, angleDeg);
+  const planes: Uint16Array[] = new Array(2 * p.sizeZ);
+  const frame = embryoFrame(p, truth);
+  for (let z = 0; z < p.sizeZ; z++) {
+    const zUm = (z - (p.sizeZ - 1) / 2) * p.zStepUm;
+    const blurPx = p.blurPx + p.defocusBlurPxPerUm * Math.abs(zUm);
+    const [g, e] = sectionSignal(p, frame, zUm);
+    planes[z] = camera(p, g, blurPx, rng);
+    planes[p.sizeZ + z] = camera(p, e, blurPx, rng);
+  }
+  return {
+    stack: { sizeX: p.widthPx, sizeY: p.heightPx, sizeZ: p.sizeZ, sizeC: 2, planes },
+    pixelSizeUm: p.pixelSizeUm, channelNames: ['gradient', 'boundary'], params: p, truth,
+  };
+}

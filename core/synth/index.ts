@@ -1,0 +1,8 @@
+// Public surface of core/synth: seeded synthetic embryos and the demo dosage series (demo data, invented).
+export { makeSyntheticEmbryo } from './embryo';
+export type { SyntheticEmbryo, SyntheticTruth } from './embryo';
+export { DEFAULT_SYNTH_PARAMS, checkSynthParams } from './params';
+export type { SyntheticEmbryoParams } from './params';
+export { demoDataSet, DEMO_DOSAGES, DEMO_EMBRYOS_PER_CONDITION } from './demo';
+export type { DemoItem } from './demo';
+export { syntheticStackInfo, syntheticPlaneSource } from './source';
