@@ -10,6 +10,7 @@ export type TiffErrorCode =
   | 'too-large'
   | 'unsupported'
   | 'bad-ome'
+  | 'decode'
   | 'io';
 
 /** A clear, one-line reading error; `message` starts with the file label. */

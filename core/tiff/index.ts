@@ -19,3 +19,5 @@ export { readStackInfo, type StackInfoOptions } from './stack-info';
 export { describeStack } from './describe';
 export { writeOmeTiff, writePlainTiff, type WritePlane, type OmeTiffMeta, type PlainTiffOptions } from './write';
 export { toRational } from './rational';
+export { createGeotiffPlaneSource, checkPlaneIndex } from './geotiff-source';
+export { checkChunkExtents } from './chunk-extent';

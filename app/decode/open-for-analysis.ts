@@ -1,0 +1,51 @@
+// Open a stack for analysis: tags from core/tiff, pixels from sharp, geotiff when sharp cannot or fails.
+import type { PlaneSource, RawPlane, StackInfo } from '../../core/model';
+import { openFileByteSource } from '../../core/io';
+import { createGeotiffPlaneSource, readStackInfo, type StackInfoOptions } from '../../core/tiff';
+import { createSharpPlaneSource, sharpDecodesExactly } from './sharp-decoder';
+
+/** What openStackForAnalysis returns; `warnings` grows when a plane falls back to the geotiff decoder. */
+export interface OpenedStack {
+  readonly info: StackInfo;
+  readonly source: PlaneSource;
+  readonly warnings: string[];
+}
+
+/** A PlaneSource that tries sharp first and, when sharp rejects a plane, decodes it with geotiff and warns. */
+function withFallback(primary: PlaneSource, fallback: PlaneSource, warnings: string[], fileLabel: string): PlaneSource {
+  return {
+    async readPlane(z: number, c: number, t: number): Promise<RawPlane> {
+      try {
+        return await primary.readPlane(z, c, t);
+      } catch (err) {
+        if (err instanceof RangeError) throw err;
+        const plane = await fallback.readPlane(z, c, t);
+        const reason = err instanceof Error ? err.message.replace(`${fileLabel}: `, '') : String(err);
+        warnings.push(`${fileLabel}: plane z=${z} c=${c} t=${t} decoded with the pure-JS decoder (${reason})`);
+        return plane;
+      }
+    },
+    async close(): Promise<void> {
+      await Promise.all([primary.close(), fallback.close()]);
+    },
+  };
+}
+
+/**
+ * Reads tags with core and returns a PlaneSource: sharp for the sample types it decodes exactly, geotiff for
+ * the rest (int16, float64, several samples per pixel) and for any plane sharp fails on. Throws TiffError.
+ */
+export async function openStackForAnalysis(path: string, fileLabel: string, options: StackInfoOptions = {}): Promise<OpenedStack> {
+  const bytes = await openFileByteSource(path, fileLabel);
+  let info: StackInfo;
+  try {
+    info = await readStackInfo(bytes, fileLabel, options);
+  } catch (err) {
+    await bytes.close();
+    throw err;
+  }
+  const geotiff = createGeotiffPlaneSource(bytes, info, fileLabel);
+  const warnings: string[] = [];
+  if (!sharpDecodesExactly(info)) return { info, source: geotiff, warnings };
+  return { info, source: withFallback(createSharpPlaneSource(path, info, fileLabel), geotiff, warnings, fileLabel), warnings };
+}

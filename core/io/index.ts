@@ -1,0 +1,3 @@
+// Public surface of core/io: file access for the pure-TS readers (the only core folder that may use node:fs).
+export { openFileByteSource, type FileByteSource } from './file-byte-source';
+export { openStackFile, readStackInfoFromFile } from './open-stack';
