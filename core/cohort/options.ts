@@ -18,7 +18,7 @@ export function checkCohortOptions(options: CohortOptions = {}): ResolvedCohortO
   if (!(Number.isFinite(gridStepEl) && gridStepEl > 0 && gridStepEl <= 0.5)) {
     throw new CohortError('gridStepEl must be a number in (0, 0.5]');
   }
-  const slopeHalfWidthEl = options.slopeHalfWidthEl ?? 0.02;
+  const slopeHalfWidthEl = options.slopeHalfWidthEl ?? 0.04;
   if (!(Number.isFinite(slopeHalfWidthEl) && slopeHalfWidthEl >= gridStepEl && slopeHalfWidthEl <= 0.25)) {
     throw new CohortError('slopeHalfWidthEl must be a number from gridStepEl to 0.25');
   }

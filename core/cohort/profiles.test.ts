@@ -41,20 +41,27 @@ function linearEmbryo(file: string, offset: number): EmbryoResult {
 }
 
 describe('conditionProfile (positional error σx = σC / |dC̄/dx|)', () => {
-  it('two linear profiles offset by ±1: SD √2, slope −50 /EL → σx = √2/50 EL and ×400 µm', () => {
+  it('two linear profiles offset by ±0.1: SD 0.1·√2, slope −50 /EL → σx = 0.1·√2/50 EL and ×400 µm', () => {
     // Source: hand-computed (Gregor et al. 2007 definition of σx)
-    const r = conditionProfile([linearEmbryo('a', 1), linearEmbryo('b', -1)], { name: 'c', dosage: 1, factor: 1 },
+    const r = conditionProfile([linearEmbryo('a', 0.1), linearEmbryo('b', -0.1)], { name: 'c', dosage: 1, factor: 1 },
       { normalisation: 'none', gridStepEl: 0.01, slopeHalfWidthEl: 0.02 });
     const p = r.profile!;
     const i = 50; // x = 0.5
     expect(p.xEl[i]).toBeCloseTo(0.5, 12);
     expect(p.mean[i]).toBeCloseTo(75, 9);
-    expect(p.sd[i]).toBeCloseTo(Math.SQRT2, 9);
+    expect(p.sd[i]).toBeCloseTo(0.1 * Math.SQRT2, 9);
     expect(p.slopePerEl[i]).toBeCloseTo(-50, 9);
-    expect(p.sigmaXEl[i]).toBeCloseTo(Math.SQRT2 / 50, 9);
-    expect(p.sigmaXUm[i]).toBeCloseTo((Math.SQRT2 / 50) * 400, 7);
+    expect(p.sigmaXEl[i]).toBeCloseTo((0.1 * Math.SQRT2) / 50, 9);
+    expect(p.sigmaXUm[i]).toBeCloseTo(((0.1 * Math.SQRT2) / 50) * 400, 7);
     expect(p.n[i]).toBe(2);
     expect(p.mean[0]).toBeNaN(); // x = 0 lies before the first bin centre: not extrapolated
+  });
+  it('σx is undefined where the slope is not resolved (change within 2 SE of zero)', () => {
+    // Source: hand-computed: offsets ±1 → SD √2, n = 2; change over ±0.02 EL = 2 < 2·√(1 + 1) = 2.83
+    const r = conditionProfile([linearEmbryo('a', 1), linearEmbryo('b', -1)], { name: 'c', dosage: 1, factor: 1 },
+      { normalisation: 'none', gridStepEl: 0.01, slopeHalfWidthEl: 0.02 });
+    expect(r.profile!.slopePerEl[50]).toBeCloseTo(-50, 9);
+    expect(r.profile!.sigmaXEl[50]).toBeNaN();
   });
   it('amplitude normalisation leaves out embryos without a fit, with a warning naming the file', () => {
     // Source: demo data

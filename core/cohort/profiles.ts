@@ -67,7 +67,8 @@ export function conditionProfile(
   if (curves.length === 0) return { profile: null, warnings };
   const stats = pointwise(curves, grid.length);
   const slopePerEl = centralSlope(grid, stats.mean, options.slopeHalfWidthEl);
-  const sigmaXEl = stats.sd.map((s, i) => (Math.abs(slopePerEl[i]) > 0 ? s / Math.abs(slopePerEl[i]) : NaN));
+  const resolved = slopeResolved(stats, options.slopeHalfWidthEl / options.gridStepEl);
+  const sigmaXEl = stats.sd.map((s, i) => (resolved[i] && Math.abs(slopePerEl[i]) > 0 ? s / Math.abs(slopePerEl[i]) : NaN));
   const lengths = embryos.map((e) => e.eggLengthUm).filter((v): v is number => v !== null && Number.isFinite(v));
   const meanEggLengthUm = lengths.length > 0 ? meanOf(lengths) : null;
   const sigmaXUm = sigmaXEl.map((s) => (meanEggLengthUm !== null ? s * meanEggLengthUm : NaN));
@@ -75,6 +76,22 @@ export function conditionProfile(
     profile: { condition: condition.name, dosage: condition.dosage, xEl: grid, ...stats, slopePerEl, sigmaXEl, sigmaXUm, meanEggLengthUm, embryoCount: curves.length },
     warnings,
   };
+}
+
+/**
+ * Where the mean profile's change across the slope window, |C̄(x+h) − C̄(x−h)|, exceeds twice its standard error
+ * √(SD²(x+h)/n + SD²(x−h)/n). Elsewhere the gradient is too flat to read a position from and σx is left undefined
+ * (otherwise noise-over-noise values dominate the posterior half of the plot).
+ */
+function slopeResolved(stats: { mean: Float64Array; sd: Float64Array; n: Float64Array }, halfSteps: number): boolean[] {
+  const k = Math.max(1, Math.round(halfSteps));
+  const len = stats.mean.length;
+  return Array.from({ length: len }, (_, i) => {
+    if (i - k < 0 || i + k >= len) return false;
+    const change = Math.abs(stats.mean[i + k] - stats.mean[i - k]);
+    const se = Math.sqrt(stats.sd[i + k] ** 2 / stats.n[i + k] + stats.sd[i - k] ** 2 / stats.n[i - k]);
+    return Number.isFinite(se) && change > 2 * se;
+  });
 }
 
 function pointwise(curves: readonly Float64Array[], length: number): { mean: Float64Array; sd: Float64Array; n: Float64Array } {

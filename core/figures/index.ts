@@ -1,0 +1,11 @@
+// Public surface of core/figures: pure functions that return standalone SVG strings (no DOM), used by the
+// HTML report and by the desktop app alike.
+export type { FigureOptions } from './common';
+export { escapeXml, FONT_FAMILY } from './svg';
+export { SERIES_COLOURS, seriesColour } from './palette';
+export { profileFigure, type ProfileFigureInput, type ProfileFigureOptions } from './profile-figure';
+export { cohortProfilesFigure, type ProfileSeries } from './cohort-profiles-figure';
+export { lambdaByConditionFigure, type StripGroup } from './lambda-figure';
+export { shiftVsLnFFigure, type ShiftFigureInput, type FigureLine } from './shift-figure';
+export { positionalErrorFigure, type SigmaSeries } from './positional-error-figure';
+export { cohortFigures, figureSlug, type NamedFigure } from './cohort-figures';
