@@ -5,3 +5,5 @@ export { fitNonlinear } from './levenberg-marquardt';
 export type { NonlinearFit } from './levenberg-marquardt';
 export type { NonlinearOptions } from './nonlinear-options';
 export type { JacobianFunction, ModelFunction } from './problem';
+export { fitExponentialDecay } from './exponential';
+export type { ExponentialOptions } from './exponential';

@@ -14,33 +14,39 @@ export function householderQr(a: Float64Array, b: Float64Array, rows: number, co
   const m = Float64Array.from(a);
   const v = Float64Array.from(b);
   for (let k = 0; k < cols; k++) {
-    let norm = 0;
-    for (let i = k; i < rows; i++) norm = Math.hypot(norm, m[i * cols + k]);
+    const norm = columnNorm(m, rows, cols, k);
     if (norm === 0) continue;
     const alpha = m[k * cols + k] > 0 ? -norm : norm;
     // Householder vector u = x − alpha·e1, stored in place in column k (rows k..end).
     m[k * cols + k] -= alpha;
     let uu = 0;
-    for (let i = k; i < rows; i++) uu += m[i * cols + k] ** 2;
-    for (let j = k + 1; j < cols; j++) applyReflector(m, rows, cols, k, uu, (i) => m[i * cols + j], (i, val) => { m[i * cols + j] = val; });
-    applyReflector(m, rows, cols, k, uu, (i) => v[i], (i, val) => { v[i] = val; });
+    for (let i = k; i < rows; i++) uu += m[i * cols + k] * m[i * cols + k];
+    for (let j = k + 1; j < cols; j++) {
+      let dot = 0;
+      for (let i = k; i < rows; i++) dot += m[i * cols + k] * m[i * cols + j];
+      const factor = (2 * dot) / uu;
+      for (let i = k; i < rows; i++) m[i * cols + j] -= factor * m[i * cols + k];
+    }
+    let dot = 0;
+    for (let i = k; i < rows; i++) dot += m[i * cols + k] * v[i];
+    const factor = (2 * dot) / uu;
+    for (let i = k; i < rows; i++) v[i] -= factor * m[i * cols + k];
     m[k * cols + k] = alpha;
     for (let i = k + 1; i < rows; i++) m[i * cols + k] = 0;
   }
   const r = new Float64Array(cols * cols);
   for (let i = 0; i < cols; i++) for (let j = i; j < cols; j++) r[i * cols + j] = m[i * cols + j];
-  return { r, qtb: v.subarray(0, cols).slice(), cols };
+  return { r, qtb: v.slice(0, cols), cols };
 }
 
-/** Applies I − 2uuᵀ/(uᵀu) (u in column k of m, rows k..end) to the vector read/written by get/set. */
-function applyReflector(
-  m: Float64Array, rows: number, cols: number, k: number, uu: number,
-  get: (i: number) => number, set: (i: number, value: number) => void,
-): void {
-  let dot = 0;
-  for (let i = k; i < rows; i++) dot += m[i * cols + k] * get(i);
-  const factor = (2 * dot) / uu;
-  for (let i = k; i < rows; i++) set(i, get(i) - factor * m[i * cols + k]);
+/** Euclidean norm of column k from row k down, scaled by the largest entry so squares cannot overflow. */
+function columnNorm(m: Float64Array, rows: number, cols: number, k: number): number {
+  let largest = 0;
+  for (let i = k; i < rows; i++) largest = Math.max(largest, Math.abs(m[i * cols + k]));
+  if (largest === 0 || !Number.isFinite(largest)) return largest;
+  let s = 0;
+  for (let i = k; i < rows; i++) s += (m[i * cols + k] / largest) ** 2;
+  return largest * Math.sqrt(s);
 }
 
 /** Solves R x = c by back substitution; returns null when R has a zero (or non-finite) pivot. */

@@ -54,6 +54,12 @@ function libraryPass(problem: LeastSquaresProblem, initial: number[], initialRss
   }
 }
 
+/** One column-scaled LM run plus polishing; null when it does not converge. */
+function singleRun(problem: LeastSquaresProblem, initial: number[], maxIterations: number): LmRun | null {
+  const run = runLevenbergMarquardt(problem, initial, 'column', maxIterations);
+  return run.converged && Number.isFinite(run.rss) ? polishGaussNewton(problem, run) : null;
+}
+
 /** Distance between parameter vectors, each coordinate relative to the start's magnitude. */
 function relativeDistance(a: readonly number[], start: readonly number[]): number {
   return Math.hypot(...a.map((v, k) => (v - start[k]) / (Math.abs(start[k]) || 1)));
@@ -108,7 +114,8 @@ export function fitNonlinear(
   if (!Number.isFinite(initialRss)) {
     throw new FitError('nan', 'fitNonlinear: the model gives NaN or Infinity at the starting parameters');
   }
-  const run = bestRun(problem, initial.slice(), initialRss, checked.maxIterations);
+  const run = (checked.restarts ? null : singleRun(problem, initial.slice(), checked.maxIterations))
+    ?? bestRun(problem, initial.slice(), initialRss, checked.maxIterations);
   if (!run) {
     throw new FitError('not-converged', `fitNonlinear: no convergence within ${checked.maxIterations} iterations`);
   }

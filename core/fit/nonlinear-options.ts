@@ -10,6 +10,12 @@ export interface NonlinearOptions {
   readonly weights?: Float64Array;
   /** Iteration limit of each LM run. @default 500 */
   readonly maxIterations?: number;
+  /**
+   * true: library pass plus LM runs from every start × scaling, best kept (robust on hard problems, ~10× the
+   * work). false: one column-scaled LM run from `initial`, falling back to the thorough search only if it fails;
+   * for callers that already have a good start. @default true
+   */
+  readonly restarts?: boolean;
 }
 
 /** Options with defaults filled in. */
@@ -17,6 +23,7 @@ export interface CheckedNonlinearOptions {
   readonly jacobian: JacobianFunction | null;
   readonly weights: Float64Array;
   readonly maxIterations: number;
+  readonly restarts: boolean;
 }
 
 function bad(message: string): FitError {
@@ -50,5 +57,5 @@ export function checkNonlinearInput(
   for (let i = 0; i < weights.length; i++) {
     if (!(weights[i] > 0 && Number.isFinite(weights[i]))) throw bad(`weights[${i}] must be a positive finite number`);
   }
-  return { jacobian: options.jacobian ?? null, weights, maxIterations };
+  return { jacobian: options.jacobian ?? null, weights, maxIterations, restarts: options.restarts ?? true };
 }

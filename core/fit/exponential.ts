@@ -1,0 +1,116 @@
+// The gradient fit: y = A·exp(−x/λ) + B over the points whose x/EL lies in a chosen range.
+// x is in µm from the anterior pole. A negative λ is reported as such: it means the profile RISES towards the
+// posterior over the fit range (a gradient from the other end); the caller decides whether to warn.
+import type { ExponentialFit } from '../model';
+import { tQuantile } from '../stats';
+import { exponentialStart } from './exponential-start';
+import { FitError } from './fit-error';
+import { fitNonlinear } from './levenberg-marquardt';
+
+/** Options of fitExponentialDecay; xEl (x/EL per point) selects the points, weights (e.g. 1/σ²) are optional. */
+export interface ExponentialOptions {
+  readonly eggLengthUm: number;
+  readonly fitRangeEl: readonly [number, number];
+  readonly xEl: Float64Array;
+  readonly weights?: Float64Array;
+}
+
+const NAME = 'fitExponentialDecay';
+
+function bad(message: string): FitError {
+  return new FitError('bad-input', `${NAME}: ${message}`);
+}
+
+/** Validates the options and returns the indices of the points inside the fit range (inclusive). */
+function selectPoints(xUm: Float64Array, y: Float64Array, options: ExponentialOptions): number[] {
+  const { eggLengthUm, fitRangeEl, xEl, weights } = options;
+  if (xUm.length !== y.length || xEl.length !== y.length) {
+    throw bad(`xUm, xEl and y differ in length (${xUm.length}, ${xEl.length}, ${y.length})`);
+  }
+  if (!(eggLengthUm > 0 && Number.isFinite(eggLengthUm))) throw bad(`eggLengthUm must be a positive number, got ${eggLengthUm}`);
+  const [start, end] = fitRangeEl ?? [NaN, NaN];
+  if (!(Number.isFinite(start) && Number.isFinite(end) && start < end)) {
+    throw bad(`fitRangeEl must be [start, end] with start < end, got [${fitRangeEl?.join(', ')}]`);
+  }
+  if (weights && weights.length !== y.length) throw bad(`weights and y differ in length (${weights.length} vs ${y.length})`);
+  const used: number[] = [];
+  for (let i = 0; i < y.length; i++) {
+    if (!(xEl[i] >= start && xEl[i] <= end)) continue;
+    if (!Number.isFinite(y[i]) || !Number.isFinite(xUm[i])) {
+      throw bad(`point ${i} (x/EL ${xEl[i]}) is NaN or Infinity inside the fit range`);
+    }
+    if (weights && !(weights[i] > 0 && Number.isFinite(weights[i]))) throw bad(`weights[${i}] must be a positive finite number`);
+    used.push(i);
+  }
+  if (used.length < 4) throw bad(`only ${used.length} points in the fit range [${start}, ${end}] x/EL; need at least 4`);
+  return used;
+}
+
+/** Covariance of g(p) from that of p by the delta method: G·C·Gᵀ. */
+function transformCovariance(g: number[][], c: number[][]): number[][] {
+  const gc = g.map((row) => c[0].map((_, j) => row.reduce((s, v, k) => s + v * c[k][j], 0)));
+  return gc.map((row) => g.map((gRow) => row.reduce((s, v, k) => s + v * gRow[k], 0)));
+}
+
+/**
+ * Fits A·exp(−x/λ) + B to (xUm, y) restricted to points with xEl in fitRangeEl (inclusive). Returns λ in µm and
+ * EL (λ/eggLengthUm) with standard errors from the Jacobian and a 95% t interval. Throws FitError.
+ */
+export function fitExponentialDecay(xUm: Float64Array, y: Float64Array, options: ExponentialOptions): ExponentialFit {
+  const used = selectPoints(xUm, y, options);
+  const x = Float64Array.from(used, (i) => xUm[i]);
+  const yy = Float64Array.from(used, (i) => y[i]);
+  const w = options.weights ? Float64Array.from(used, (i) => options.weights![i]) : undefined;
+  // Amplitude is fitted at the mean x of the range (A0), far better conditioned than at x = 0.
+  const xRef = x.reduce((s, v) => s + v, 0) / x.length;
+  if (yy.every((v) => v === yy[0])) throw bad('the profile is constant in the fit range');
+  const start = exponentialStart(x, yy, w ? w.map(Math.sqrt) : new Float64Array(x.length).fill(1), xRef);
+  if (!start) throw bad(`the points in the fit range span no distance in x`);
+  const fit = runFit(x, yy, w, xRef, [start.a0, start.k, start.b]);
+  const [a0, k, b] = fit.params;
+  const lambdaUm = 1 / k;
+  if (!Number.isFinite(lambdaUm) || Math.abs(lambdaUm) > 1000 * options.eggLengthUm) {
+    throw new FitError('not-converged', `${NAME}: no decay in the fit range (the profile is flat)`);
+  }
+  // A "decay" over less than two point spacings is one or two points fitted by an exponential (noise or an
+  // edge artefact), not a gradient; report it rather than a meaningless λ.
+  const spacingUm = Math.abs(x[x.length - 1] - x[0]) / (x.length - 1);
+  if (Math.abs(lambdaUm) < 2 * spacingUm) {
+    throw new FitError('not-converged',
+      `${NAME}: the decay length (${lambdaUm.toPrecision(3)} µm) is shorter than two point spacings; no gradient resolved in the fit range`);
+  }
+  const growth = Math.exp(k * xRef);
+  const g = [[growth, a0 * xRef * growth, 0], [0, -1 / (k * k), 0], [0, 0, 1]];
+  const cov = transformCovariance(g, fit.covariance);
+  const lambdaSeUm = Math.sqrt(cov[1][1]);
+  const t = tQuantile(0.975, fit.dof);
+  const model = (v: number): number => a0 * Math.exp(-k * (v - xRef)) + b;
+  return {
+    amplitude: a0 * growth, amplitudeSe: Math.sqrt(cov[0][0]),
+    lambdaUm, lambdaSeUm, lambdaCiLowUm: lambdaUm - t * lambdaSeUm, lambdaCiHighUm: lambdaUm + t * lambdaSeUm,
+    lambdaEl: lambdaUm / options.eggLengthUm, lambdaSeEl: lambdaSeUm / options.eggLengthUm,
+    background: b, backgroundSe: Math.sqrt(cov[2][2]),
+    r2: fit.r2, rss: fit.rss, dof: fit.dof, iterations: fit.iterations,
+    fitRangeEl: [options.fitRangeEl[0], options.fitRangeEl[1]],
+    xEl: Float64Array.from(used, (i) => options.xEl[i]),
+    residuals: yy.map((v, i) => v - model(x[i])),
+  };
+}
+
+/** The LM refinement with an analytic Jacobian; FitErrors are re-labelled with this function's name. */
+function runFit(x: Float64Array, y: Float64Array, w: Float64Array | undefined, xRef: number, initial: number[]) {
+  try {
+    return fitNonlinear(x, y, ([a0, k, b]) => (v) => a0 * Math.exp(-k * (v - xRef)) + b, initial, {
+      jacobian: ([a0, k]) => (v) => {
+        const e = Math.exp(-k * (v - xRef));
+        return [e, -a0 * (v - xRef) * e, 1];
+      },
+      ...(w ? { weights: w } : {}),
+      // The variable-projection start is already close; the thorough search runs only if this fails.
+      restarts: false,
+    });
+  } catch (e) {
+    if (e instanceof FitError) throw new FitError(e.code, e.message.replace(/^fitNonlinear: /, `${NAME}: `));
+    throw e;
+  }
+}
