@@ -1,0 +1,64 @@
+// Runs loadStack's analysis in a worker thread so the main process (and with it every window) never blocks.
+import { Worker } from 'node:worker_threads';
+import type { AnalysisSettings } from '../../core/settings';
+import type { ViewData } from './engine';
+
+/** A request to the analysis worker. */
+export interface AnalysisRequest { readonly id: number; readonly path: string; readonly label: string; readonly settings: AnalysisSettings }
+
+/** The worker's answer: the view data or the error's name, code and message. */
+export type AnalysisReply =
+  | { readonly id: number; readonly ok: true; readonly value: ViewData }
+  | { readonly id: number; readonly ok: false; readonly error: { readonly name: string; readonly code: string | null; readonly message: string } };
+
+/** A worker-backed runner: `run` has the signature of HandlerDeps.runAnalysisOffThread. */
+export interface AnalysisRunner {
+  run(path: string, label: string, settings: AnalysisSettings): Promise<ViewData>;
+  /** Stop the worker (pending calls are rejected). */
+  close(): Promise<void>;
+}
+
+interface Pending { resolve(v: ViewData): void; reject(e: Error): void; label: string; timer: NodeJS.Timeout }
+
+/** Rebuild an error from the worker so failureFrom can map it (TiffError → bad-file, ENOENT → not-found). */
+function errorFrom(reply: Extract<AnalysisReply, { ok: false }>): Error {
+  return Object.assign(new Error(reply.error.message), { name: reply.error.name, code: reply.error.code ?? undefined });
+}
+
+/** Start (lazily) one analysis worker from `workerPath`; a call taking longer than `timeoutMs` restarts it. */
+export function createAnalysisRunner(workerPath: string, timeoutMs = 180_000): AnalysisRunner {
+  let worker: Worker | null = null;
+  let nextId = 1;
+  const pending = new Map<number, Pending>();
+  const failAll = (why: (label: string) => string): void => {
+    for (const [id, p] of pending) { clearTimeout(p.timer); p.reject(new Error(why(p.label))); pending.delete(id); }
+  };
+  const stop = async (): Promise<void> => { const w = worker; worker = null; if (w !== null) await w.terminate(); };
+  const start = (): Worker => {
+    const w = new Worker(workerPath);
+    w.on('message', (reply: AnalysisReply) => {
+      const p = pending.get(reply.id);
+      if (p === undefined) return;
+      pending.delete(reply.id);
+      clearTimeout(p.timer);
+      if (reply.ok) p.resolve(reply.value); else p.reject(errorFrom(reply));
+    });
+    w.on('error', (e) => { if (worker === w) worker = null; failAll((label) => `${label}: analysis stopped unexpectedly (${e.message})`); });
+    w.on('exit', (code) => { if (worker === w) worker = null; failAll((label) => `${label}: analysis stopped unexpectedly (exit code ${code})`); });
+    return w;
+  };
+  return {
+    run: (path, label, settings) => new Promise<ViewData>((resolve, reject) => {
+      worker ??= start();
+      const id = nextId++;
+      const timer = setTimeout(() => {
+        pending.delete(id);
+        reject(new Error(`${label}: analysis took longer than ${Math.round(timeoutMs / 1000)} s and was stopped`));
+        void stop();
+      }, timeoutMs);
+      pending.set(id, { resolve, reject, label, timer });
+      worker.postMessage({ id, path, label, settings } satisfies AnalysisRequest);
+    }),
+    close: async () => { failAll((label) => `${label}: cancelled`); await stop(); },
+  };
+}

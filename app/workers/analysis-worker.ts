@@ -1,0 +1,28 @@
+// Worker thread for the desktop app: reads, projects and detects one stack per request, off the main thread.
+import { parentPort } from 'node:worker_threads';
+import type { AnalysisReply, AnalysisRequest } from '../main/analysis-runner';
+import { createDefaultEngine } from '../main/default-engine';
+
+const engine = createDefaultEngine();
+
+/** The typed arrays' buffers, moved (not copied) back to the main thread. */
+function transferList(reply: AnalysisReply): ArrayBuffer[] {
+  if (!reply.ok) return [];
+  const arrays = [...reply.value.projected.channels.map((c) => c.data), reply.value.detection.mask.data];
+  const buffers = arrays.map((a) => a.buffer).filter((b): b is ArrayBuffer => b instanceof ArrayBuffer);
+  return [...new Set(buffers)];
+}
+
+/** Answer one request; errors travel as name, code and message. */
+async function answer(request: AnalysisRequest): Promise<AnalysisReply> {
+  try {
+    return { id: request.id, ok: true, value: await engine.loadForView(request.path, request.label, request.settings) };
+  } catch (e) {
+    const err: Error & { code?: unknown } = e instanceof Error ? e : new Error(String(e));
+    return { id: request.id, ok: false, error: { name: err.name, code: typeof err.code === 'string' ? err.code : null, message: err.message } };
+  }
+}
+
+parentPort?.on('message', (request: AnalysisRequest) => {
+  void answer(request).then((reply) => parentPort?.postMessage(reply, transferList(reply)));
+});
