@@ -18,7 +18,9 @@ export async function analyzeFile(task: BatchTask): Promise<EmbryoResult> {
     opened = await openStack(task.path, task.file);
     const result = await analyze(opened.info, opened.source, task.settings,
       task.handEdits ? { fileLabel: task.file, handEdits: task.handEdits } : { fileLabel: task.file });
-    return result.status === 'error' && result.error ? { ...result, file: task.file, error: fileMessage(task.file, result.error) } : { ...result, file: task.file };
+    const warnings = [...result.warnings, ...opened.warnings.filter((w) => !result.warnings.includes(w))];
+    const error = result.status === 'error' && result.error ? fileMessage(task.file, result.error) : result.error;
+    return { ...result, file: task.file, error, warnings };
   } catch (e) {
     return errorResult(task.file, fileMessage(task.file, e));
   } finally {

@@ -3,8 +3,7 @@
 import { randomUUID } from 'node:crypto';
 import { promises as fs } from 'node:fs';
 import { availableParallelism } from 'node:os';
-import { dirname, join, resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { join, resolve } from 'node:path';
 import {
   BatchOptionError, editsForFile, errorResult, settingsForFile, toHandEdits, type RunInput, type RunRecord,
 } from '../../core/batch';
@@ -54,10 +53,10 @@ export interface BatchRunResult extends BatchSummary {
   readonly record: RunRecord;
 }
 
-/** batch-worker.mjs beside the running bundle (dist/). The desktop main process (CommonJS) passes workerPath. */
+/** batch-worker.mjs beside the running CommonJS bundle (dist/main.cjs), else dist/ under the working folder.
+ *  ESM entries (the CLI, the benchmark) pass workerPath from their own import.meta.url. */
 export function defaultWorkerPath(): string {
-  if (typeof __dirname !== 'undefined') return join(__dirname, 'batch-worker.mjs');
-  return join(dirname(fileURLToPath(import.meta.url)), 'batch-worker.mjs');
+  return typeof __dirname !== 'undefined' ? join(__dirname, 'batch-worker.mjs') : resolve('dist', 'batch-worker.mjs');
 }
 
 /** Default number of jobs: the cores this process may use. */
@@ -136,7 +135,7 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   }
   const ok = results.filter((r) => r.status === 'ok').length;
   const record: RunRecord = {
-    schema: 'eggline-run', version: 1, runId, software: softwareVersions(), startedAt, endedAt: new Date().toISOString(),
+    schema: 'eggline-run', version: 1, runId, software: await softwareVersions(), startedAt, endedAt: new Date().toISOString(),
     commandLine: opts.commandLine ?? null, folder, outDir, projectFile: opts.projectFile ?? null, configFile: opts.configFile ?? null,
     settings: opts.settings, jobs: opts.jobs, timeoutPerFileS: timeoutMs / 1000, cancelled, ok, failed: results.length - ok, inputs,
   };

@@ -15,7 +15,7 @@ export async function inspectCommand(argv: readonly string[], io: CliIo): Promis
   const label = basename(path);
   let source: Awaited<ReturnType<typeof openByteSource>> | null = null;
   try {
-    source = await openByteSource(path);
+    source = await openByteSource(path, label);
     const info = await readStackInfo(source, label);
     io.stdout.write(`file: ${path}\n${describeStack(info).join('\n')}\n`);
     return 0;

@@ -8,12 +8,17 @@ import { MAIN_HELP } from './help';
 import { inspectCommand } from './inspect-command';
 import { UsageError, type CliIo } from './usage-error';
 
-const COMMANDS: Record<string, (argv: readonly string[], io: CliIo) => Promise<number>> = {
-  batch: batchCommand, cohort: runCohortCommand, inspect: inspectCommand, demo: demoCommand,
-};
+/** Where the entry point found things it alone can locate (the built worker next to the bundle). */
+export interface CliEnv {
+  readonly workerPath?: string;
+}
 
 /** Run the command line; resolves with the exit code (0 ok, 1 some files failed, 2 usage error). */
-export async function runCli(argv: readonly string[], io: CliIo): Promise<number> {
+export async function runCli(argv: readonly string[], io: CliIo, env: CliEnv = {}): Promise<number> {
+  const COMMANDS: Record<string, (argv: readonly string[], io: CliIo) => Promise<number>> = {
+    batch: (a, o) => batchCommand(a, o, env.workerPath ? { workerPath: env.workerPath } : {}),
+    cohort: runCohortCommand, inspect: inspectCommand, demo: demoCommand,
+  };
   const [first, ...rest] = argv;
   if (first === undefined || first === '--help' || first === '-h' || first === 'help') {
     io[first === undefined ? 'stderr' : 'stdout'].write(MAIN_HELP);

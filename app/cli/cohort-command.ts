@@ -1,0 +1,103 @@
+// `eggline cohort <results-dir> --samples sheet.csv [...]`: the cohort step on a finished batch's results.json.
+import { readFile } from 'node:fs/promises';
+import { join } from 'node:path';
+import { parseArgs } from 'node:util';
+import { resultsFromJson } from '../../core/batch';
+import type { Normalisation } from '../../core/cohort';
+import { runCohortStep } from '../cohort/run-cohort';
+
+/** Streams the command writes to (process.stdout/stderr, or buffers in tests). */
+export interface CohortCommandIo {
+  readonly stdout: { write(text: string): unknown };
+  readonly stderr: { write(text: string): unknown };
+}
+
+/** Help for the cohort command. */
+export const COHORT_HELP = `Usage: eggline cohort <results-dir> --samples <csv> [options]
+
+Reads <results-dir>/results.json (written by "eggline batch"), groups the embryos by the sample sheet and
+writes conditions.csv, shifts.csv, dosage_fit.csv, positional_error.csv, one .svg per figure and a
+self-contained report.html.
+
+Sample sheet: CSV with a header; columns file, condition, and optionally dosage (relative to the reference)
+and any free columns. Files match by relative path, or by file name when that is unique.
+
+Options:
+  --samples CSV               sample sheet                                              [required]
+  --reference COND            reference condition              [default: the one with dosage 1]
+  --normalise MODE            none | amplitude | minmax: profile scaling before averaging [none]
+  --lambda-posterior-el V     decay length of an opposing posterior gradient (x/EL), adds the
+                              two-gradient prediction Δx = ln f / (1/λ_A + 1/λ_P)
+  --out DIR                   output folder                          [default: <results-dir>/cohort]
+  -h, --help                  show this help
+
+Exit status: 0 outputs written, 1 bad input (results, sample sheet) or write failure, 2 usage error.
+`;
+
+const NORMALISE = ['none', 'amplitude', 'minmax'];
+
+interface CohortPlan { resultsDir: string; samples: string; reference: string | null; normalisation: Normalisation; lambdaPosteriorEl: number | null; outDir: string }
+
+/** Parse the arguments; returns a plan, 'help', or a usage-error message. */
+export function parseCohortArgs(argv: readonly string[]): CohortPlan | 'help' | { usage: string } {
+  let parsed;
+  try {
+    parsed = parseArgs({
+      args: [...argv], allowPositionals: true, strict: true,
+      options: { samples: { type: 'string' }, reference: { type: 'string' }, normalise: { type: 'string' }, 'lambda-posterior-el': { type: 'string' }, out: { type: 'string' }, help: { type: 'boolean', short: 'h' } },
+    });
+  } catch (e) {
+    return { usage: (e as Error).message.split('\n')[0].replace(/\. To specify a positional argument.*$/, '') };
+  }
+  const v = parsed.values;
+  if (v.help) return 'help';
+  if (parsed.positionals.length !== 1) return { usage: parsed.positionals.length === 0 ? 'missing <results-dir>' : `expected one <results-dir>, got ${parsed.positionals.length}` };
+  if (!v.samples) return { usage: '--samples <csv> is required' };
+  if (v.normalise !== undefined && !NORMALISE.includes(v.normalise)) return { usage: `--normalise must be none, amplitude or minmax (got "${v.normalise}")` };
+  const lp = v['lambda-posterior-el'];
+  const lambdaPosteriorEl = lp === undefined ? null : Number(lp);
+  if (lambdaPosteriorEl !== null && !(Number.isFinite(lambdaPosteriorEl) && lambdaPosteriorEl > 0)) return { usage: `--lambda-posterior-el must be a positive number (got "${lp}")` };
+  const resultsDir = parsed.positionals[0];
+  return { resultsDir, samples: v.samples, reference: v.reference ?? null, normalisation: (v.normalise ?? 'none') as Normalisation, lambdaPosteriorEl, outDir: v.out ?? join(resultsDir, 'cohort') };
+}
+
+async function readOptionalJson(path: string): Promise<unknown> {
+  try {
+    return JSON.parse(await readFile(path, 'utf8')) as unknown;
+  } catch {
+    return null;
+  }
+}
+
+/** Run `eggline cohort`; resolves with the exit code (0 written, 1 bad input, 2 usage). Never throws. */
+export async function cohortCommand(argv: string[], io: CohortCommandIo): Promise<number> {
+  const plan = parseCohortArgs(argv);
+  if (plan === 'help') { io.stdout.write(COHORT_HELP); return 0; }
+  if ('usage' in plan) { io.stderr.write(`eggline cohort: ${plan.usage} (see "eggline cohort --help")\n`); return 2; }
+  const resultsPath = join(plan.resultsDir, 'results.json');
+  try {
+    let text: string;
+    try {
+      text = await readFile(resultsPath, 'utf8');
+    } catch (e) {
+      throw new Error(`${resultsPath}: cannot read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+    }
+    let results;
+    try {
+      results = resultsFromJson(text);
+    } catch (e) {
+      throw new Error(`${resultsPath}: ${(e as Error).message.replace(/^results\.json: /, '')}`);
+    }
+    const runRecord = await readOptionalJson(join(plan.resultsDir, 'run.json'));
+    const out = await runCohortStep({
+      results, failures: [], sampleSheetPath: plan.samples, reference: plan.reference, outDir: plan.outDir, runRecord,
+      normalisation: plan.normalisation, lambdaPosteriorEl: plan.lambdaPosteriorEl,
+    });
+    for (const w of out.warnings) io.stderr.write(`warning: ${w}\n`);
+    io.stdout.write(`wrote ${out.written.length} files to ${plan.outDir} (open report.html)\n`);
+    return 0;
+  } catch (e) {
+    io.stderr.write(`eggline cohort: ${((e as Error).message ?? String(e)).split(/\r?\n/)[0]}\n`);
+    return 1;
+  }
+}
