@@ -1,0 +1,173 @@
+// The editor window: file list and settings on the left, image over straightened strip over profile in the middle,
+// numbers, display and landmarks on the right; batch and cohort views as tabs.
+import { useCallback, useEffect, useMemo, useReducer, useRef, useState } from 'react';
+import type { Plane } from '../core/model';
+import { getApi } from './api';
+import { BatchPanel } from './components/BatchPanel';
+import { ChannelPanel } from './components/ChannelPanel';
+import { CohortView } from './components/CohortView';
+import { FitNumbers } from './components/FitNumbers';
+import { FolderList } from './components/FolderList';
+import { ImageView } from './components/ImageView';
+import { LandmarkList } from './components/LandmarkList';
+import { ProfilePlot } from './components/ProfilePlot';
+import { SettingsPanel } from './components/SettingsPanel';
+import { StraightView } from './components/StraightView';
+import { Toolbar } from './components/Toolbar';
+import { screenPt, zoomAt } from './geometry';
+import { toProjectDoc, useAutosave } from './hooks/useAutosave';
+import { useBatch } from './hooks/useBatch';
+import { useElementSize } from './hooks/useElementSize';
+import { keyCommand } from './hooks/useKeys';
+import { useSession } from './hooks/useSession';
+import { useStackLoader } from './hooks/useStackLoader';
+import { useExports } from './hooks/useExports';
+import { measureLive, prepareLive } from './live';
+import { currentEdits, editorReducer, effectiveAxis, effectiveFitRange, initialState } from './state';
+import { autoDisplayRange, CHANNEL_COLOURS } from './view';
+
+/** Which main view is shown. */
+export type Tab = 'embryo' | 'batch' | 'cohort';
+
+/** The whole window. */
+export function App() {
+  const api = useMemo(getApi, []);
+  const [state, dispatch] = useReducer(editorReducer, undefined, initialState);
+  const [tab, setTab] = useState<Tab>('embryo');
+  const [fitRequest, setFitRequest] = useState(0);
+  const [spaceHeld, setSpaceHeld] = useState(false);
+  const [zSlice, setZSlice] = useState<number | null>(null);
+  const [slicePlanes, setSlicePlanes] = useState<Plane[] | null>(null);
+  const select = useCallback((name: string | null) => { if (name !== null) { dispatch({ type: 'selectFile', key: name, autoAxis: null }); setZSlice(null); } }, []);
+  const { session, openDemo, openFolder, openProject, setMessage } = useSession(api, dispatch, select);
+  const entry = session.entries.find((e) => e.name === state.current) ?? null;
+  const { stack, loading, error: loadError } = useStackLoader(api, entry?.path ?? null, state.doc.settings);
+  const [saveStatus, saveNow] = useAutosave(api, session.projectPath, session.folder, state.doc, state.revision);
+  const { batch, chooseOutput, run, cancel } = useBatch(api);
+  const centre = useRef<HTMLDivElement>(null);
+  const centreSize = useElementSize(centre);
+
+  useEffect(() => { void openDemo(); }, []);
+
+  // A newly loaded stack brings its automatic axis and fresh display ranges.
+  useEffect(() => {
+    if (stack === null || state.current === null || entry?.path !== stack.path) return;
+    dispatch({ type: 'selectFile', key: state.current, autoAxis: stack.detection.axis });
+    dispatch({ type: 'initChannelDisplay', channels: stack.projected.channels.map((p, i) => {
+      const [low, high] = autoDisplayRange(p);
+      return { colour: CHANNEL_COLOURS[i % CHANNEL_COLOURS.length], low, high };
+    }) });
+    setFitRequest((n) => n + 1);
+  }, [stack]);
+
+  useEffect(() => {
+    if (api === null || stack === null || zSlice === null) { setSlicePlanes(null); return; }
+    let live = true;
+    Promise.all(stack.projected.channels.map((_, c) => api.loadSlice({ path: stack.path, z: zSlice, c, t: state.doc.settings.timeIndex }))).then((rs) => {
+      if (!live) return;
+      const bad = rs.find((r) => !r.ok);
+      if (bad !== undefined && !bad.ok) { setMessage(bad.error.message); return; }
+      setSlicePlanes(rs.map((r) => (r.ok ? r.value : { width: 0, height: 0, data: new Float32Array(0) })));
+    }, (e: unknown) => setMessage(String(e)));
+    return () => { live = false; };
+  }, [api, stack, zSlice]);
+
+  const settings = state.doc.settings;
+  const prepared = useMemo(() => (stack === null ? null : prepareLive(stack, settings)), [stack, settings]);
+  const axis = stack === null ? null : effectiveAxis(state);
+  const edits = currentEdits(state);
+  const fitRangeEl = effectiveFitRange(state);
+  const measurement = useMemo(() => (prepared === null || axis === null ? null : measureLive(prepared, axis, settings, edits.landmarks, fitRangeEl)),
+    [prepared, axis, settings, edits.landmarks, fitRangeEl]);
+  const planes = slicePlanes ?? stack?.projected.channels ?? [];
+  const names = stack?.projected.channelNames ?? [];
+  const pixelSizeUm = prepared === null ? null : (stack?.projected.pixelSizeUm ?? settings.pixelSizeUm);
+  const exports = useExports(api, { state, stack, measurement, axis, entryName: state.current, setMessage, planes });
+
+  const step = (d: number) => {
+    const i = session.entries.findIndex((e) => e.name === state.current);
+    const next = session.entries[i + d];
+    if (next !== undefined) select(next.name);
+  };
+
+  const stateRef = useRef(state);
+  stateRef.current = state;
+  useEffect(() => {
+    const down = (e: KeyboardEvent) => {
+      const t = e.target as HTMLElement | null;
+      if (t !== null && ['INPUT', 'SELECT', 'TEXTAREA'].includes(t.tagName)) return;
+      if (e.key === ' ') { setSpaceHeld(true); e.preventDefault(); return; }
+      const cmd = keyCommand(e);
+      if (cmd === null) return;
+      e.preventDefault();
+      const s = stateRef.current;
+      const mid = screenPt(centreSize.width / 2, 200);
+      switch (cmd) {
+        case 'undo': case 'redo': dispatch({ type: cmd }); break;
+        case 'save': void saveNow(); break;
+        case 'swap': dispatch({ type: 'swapPoles' }); break;
+        case 'fit': setFitRequest((n) => n + 1); break;
+        case 'zoom-in': dispatch({ type: 'setView', view: zoomAt(s.view, mid, 1.25) }); break;
+        case 'zoom-out': dispatch({ type: 'setView', view: zoomAt(s.view, mid, 0.8) }); break;
+        case 'delete': if (s.selectedLandmark !== null) dispatch({ type: 'deleteLandmark', index: s.selectedLandmark }); break;
+        case 'next-file': step(1); break;
+        case 'prev-file': step(-1); break;
+        case 'tool-pan': dispatch({ type: 'setTool', tool: 'pan' }); break;
+        case 'tool-axis': dispatch({ type: 'setTool', tool: 'axis' }); break;
+        case 'tool-landmark': dispatch({ type: 'setTool', tool: 'landmark' }); break;
+      }
+    };
+    const up = (e: KeyboardEvent) => { if (e.key === ' ') setSpaceHeld(false); };
+    window.addEventListener('keydown', down);
+    window.addEventListener('keyup', up);
+    return () => { window.removeEventListener('keydown', down); window.removeEventListener('keyup', up); };
+  });
+
+  useEffect(() => api?.onMenuCommand((c) => {
+    if (c === 'open-folder') void openFolder();
+    else if (c === 'open-project') void openProject();
+    else if (c === 'open-demo') void openDemo();
+    else if (c === 'save') void saveNow();
+    else if (c === 'undo' || c === 'redo') dispatch({ type: c });
+  }), [api]);
+
+  if (api === null) return <div className="fatal">This page must run inside Eggline: the app connection (window.eggline) is missing.</div>;
+  const halfWidthPx = stack === null || pixelSizeUm === null ? 50 : (stack.detection.eggWidthUm / pixelSizeUm) * 0.6;
+  const stripWidth = Math.max(200, centreSize.width);
+
+  return (
+    <div className="app">
+      <Toolbar state={state} dispatch={dispatch} tab={tab} onTab={setTab} onOpenFolder={openFolder} onOpenProject={openProject} onOpenDemo={openDemo}
+        onFit={() => setFitRequest((n) => n + 1)} saveStatus={saveStatus} exports={exports} hasMeasurement={measurement !== null} />
+      {session.message && <div className="message" data-testid="message" onClick={() => setMessage(null)}>{session.message}</div>}
+      <div className="body">
+        <aside className="left">
+          <FolderList folder={session.folder} entries={session.entries} current={state.current} onSelect={select}
+            edited={(n) => { const f = state.doc.files[n]; return f !== undefined && (f.axis !== null || f.landmarks.length > 0 || f.fitRangeEl !== null); }} />
+          <SettingsPanel settings={settings} channelNames={names} dispatch={dispatch} />
+        </aside>
+        <main className="centre" ref={centre}>
+          <div className={tab === 'embryo' ? 'embryo-view' : 'hidden'}>
+            {loadError && <div className="error" data-testid="load-error">{loadError}</div>}
+            <ImageView state={state} dispatch={dispatch} planes={planes} channelNames={names} outline={stack?.detection.outline ?? []} axis={axis}
+              measurement={measurement} fitRangeEl={fitRangeEl} pixelSizeUm={pixelSizeUm} halfWidthPx={halfWidthPx} fitRequest={fitRequest} spaceHeld={spaceHeld} />
+            <StraightView measurement={measurement} display={state.display} width={stripWidth} fitRangeEl={fitRangeEl} />
+            <ProfilePlot measurement={measurement} width={stripWidth} fitRangeEl={fitRangeEl} dispatch={dispatch} />
+          </div>
+          {tab === 'batch' && <BatchPanel batch={batch} folder={session.folder} fileCount={session.entries.length} onChooseOutput={chooseOutput}
+            onRun={() => { if (session.folder !== null) void run(session.folder, toProjectDoc(state.doc, session.folder)); }} onCancel={cancel} />}
+          {tab === 'cohort' && <CohortView summary={batch.summary} />}
+        </main>
+        <aside className="right">
+          <FitNumbers m={measurement} pixelSizeUm={pixelSizeUm} loading={loading || session.opening} />
+          <ChannelPanel state={state} dispatch={dispatch} planes={planes} names={names} sizeZ={stack?.info.sizeZ ?? 1} zSlice={zSlice} onZSlice={setZSlice} />
+          <LandmarkList landmarks={measurement?.landmarks ?? []} selected={state.selectedLandmark} dispatch={dispatch} />
+        </aside>
+      </div>
+      <footer className="statusbar">
+        <span>{entry?.name ?? 'no file'}{axis ? ` · axis ${axis.source}` : ''}{edits.fitRangeEl ? ' · own fit range' : ''}</span>
+        <span className="muted">drag A/P handles · S swap · L landmark tool · Del delete · Space+drag pan · wheel/± zoom · F fit · Ctrl+Z / Ctrl+Shift+Z</span>
+      </footer>
+    </div>
+  );
+}

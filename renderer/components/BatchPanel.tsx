@@ -1,0 +1,48 @@
+// Batch: choose an output folder, run over the open folder with the current settings and hand edits, follow progress.
+import type { BatchState } from '../hooks/useBatch';
+import { fixed, fmt } from '../ui/format';
+
+/** Props of the batch panel. */
+export interface BatchPanelProps {
+  readonly batch: BatchState;
+  readonly folder: string | null;
+  readonly fileCount: number;
+  readonly onChooseOutput: () => void;
+  readonly onRun: () => void;
+  readonly onCancel: () => void;
+}
+
+/** The batch panel. */
+export function BatchPanel({ batch, folder, fileCount, onChooseOutput, onRun, onCancel }: BatchPanelProps) {
+  const pct = batch.total > 0 ? (100 * batch.done) / batch.total : 0;
+  return (
+    <section className="panel batch" data-testid="batch-panel">
+      <h3>Batch <span className="muted">all {fileCount} files of the folder, current settings and hand edits</span></h3>
+      <div className="row"><span className="muted">input</span><code>{folder ?? '—'}</code></div>
+      <div className="row"><span className="muted">output</span><code data-testid="batch-out">{batch.outDir ?? 'not chosen'}</code>
+        <button onClick={onChooseOutput} disabled={batch.running} data-testid="batch-choose">Choose…</button></div>
+      <div className="row">
+        <button className="primary" onClick={onRun} disabled={batch.running || batch.outDir === null || folder === null} data-testid="batch-run">Run batch</button>
+        <button onClick={onCancel} disabled={!batch.running} data-testid="batch-cancel">Cancel</button>
+      </div>
+      <div className="progress" data-testid="batch-progress"><div style={{ width: `${pct}%` }} /><span>{batch.done} / {batch.total}{batch.running ? ' · running' : ''}</span></div>
+      {batch.error && <p className="error" data-testid="batch-error">{batch.error}</p>}
+      {batch.files.length > 0 && !batch.summary && (
+        <ul className="batch-files">{batch.files.map((f) => <li key={f.file}><span className={`status status-${f.status}`}>{f.status}</span> {f.file} {f.message && <em>{f.message}</em>}</li>)}</ul>
+      )}
+      {batch.summary && (
+        <>
+          <p data-testid="batch-summary">{batch.summary.cancelled ? 'Cancelled' : 'Finished'}: {batch.summary.ok} ok, {batch.summary.failed} failed · written to <code>{batch.summary.outDir}</code></p>
+          <table className="results" data-testid="batch-results"><thead><tr><th>file</th><th>status</th><th>λ µm</th><th>± SE</th><th>λ/EL</th><th>R²</th><th>EL µm</th><th>boundaries (x/EL)</th><th>message</th></tr></thead>
+            <tbody>{batch.summary.results.map((r) => (
+              <tr key={r.file} className={r.status === 'error' ? 'row-error' : ''}>
+                <td>{r.file}</td><td>{r.status}</td><td>{fmt(r.gradientFit?.lambdaUm)}</td><td>{fmt(r.gradientFit?.lambdaSeUm, 2)}</td>
+                <td>{fixed(r.gradientFit?.lambdaEl, 4)}</td><td>{fixed(r.gradientFit?.r2, 3)}</td><td>{fmt(r.eggLengthUm, 4)}</td>
+                <td>{r.boundaries.filter((b) => b.positionEl !== null).map((b) => `${b.channel} ${b.method} ${fixed(b.positionEl, 3)}`).join('; ')}</td>
+                <td>{r.error ?? r.warnings.join('; ')}</td>
+              </tr>))}</tbody></table>
+        </>
+      )}
+    </section>
+  );
+}

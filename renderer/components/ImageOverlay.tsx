@@ -1,0 +1,79 @@
+// Vector overlays on the image, in screen coordinates: outline, sampled band, AP axis with handles, boundaries, landmarks.
+import type { ApAxis, ImagePoint } from '../../core/model';
+import { axisLeftNormal, imagePt, imageToScreen, pointAtFraction } from '../geometry';
+import type { ViewTransform } from '../geometry';
+import type { LiveMeasurement } from '../live';
+import { fixed } from '../ui/format';
+import { OVERLAY_CSS } from './overlayCss';
+
+/** Props for the overlay. */
+export interface ImageOverlayProps {
+  readonly view: ViewTransform;
+  readonly width: number;
+  readonly height: number;
+  readonly outline: readonly ImagePoint[];
+  readonly axis: ApAxis | null;
+  readonly measurement: LiveMeasurement | null;
+  readonly fitRangeEl: readonly [number, number];
+  readonly halfWidthPx: number;
+  readonly selectedLandmark: number | null;
+}
+
+/** Colours for boundary channels, in order. */
+export const BOUNDARY_COLOURS = ['#ffcf4a', '#7fd8ff', '#ff9a6a'];
+
+const toS = (v: ViewTransform, p: ImagePoint) => imageToScreen(v, imagePt(p.x, p.y));
+const pts = (v: ViewTransform, ps: readonly ImagePoint[]) => ps.map((p) => { const s = toS(v, p); return `${s.x.toFixed(1)},${s.y.toFixed(1)}`; }).join(' ');
+
+/** A line across the embryo, perpendicular to the axis at x/EL. */
+function crossLine(axis: ApAxis, xEl: number, halfPx: number): [ImagePoint, ImagePoint] {
+  const c = pointAtFraction(axis.anterior, axis.posterior, xEl);
+  const n = axisLeftNormal(axis.anterior, axis.posterior);
+  return [{ x: c.x + halfPx * n.x, y: c.y + halfPx * n.y }, { x: c.x - halfPx * n.x, y: c.y - halfPx * n.y }];
+}
+
+/** The axis, its fit-range segment and the labelled A/P handles. */
+function AxisLayer({ view, axis, fitRangeEl }: { view: ViewTransform; axis: ApAxis; fitRangeEl: readonly [number, number] }) {
+  const a = toS(view, axis.anterior), p = toS(view, axis.posterior);
+  const f0 = toS(view, pointAtFraction(axis.anterior, axis.posterior, fitRangeEl[0]));
+  const f1 = toS(view, pointAtFraction(axis.anterior, axis.posterior, fitRangeEl[1]));
+  return (
+    <g className="axis-layer">
+      <line x1={a.x} y1={a.y} x2={p.x} y2={p.y} className="axis-line" />
+      <line x1={f0.x} y1={f0.y} x2={f1.x} y2={f1.y} className="axis-fit" />
+      {([['anterior', a, 'A'], ['posterior', p, 'P']] as const).map(([end, s, label]) => (
+        <g key={end} data-testid={`handle-${end}`} data-x={s.x.toFixed(1)} data-y={s.y.toFixed(1)}>
+          <circle cx={s.x} cy={s.y} r={8} className={`handle handle-${end}`} />
+          <text x={s.x} y={s.y + 4} className="handle-label" textAnchor="middle">{label}</text>
+        </g>
+      ))}
+    </g>
+  );
+}
+
+/** All overlays. */
+export function ImageOverlay(props: ImageOverlayProps) {
+  const { view, width, height, outline, axis, measurement: m, fitRangeEl, halfWidthPx, selectedLandmark } = props;
+  return (
+    <svg className="image-overlay" width={width} height={height} xmlns="http://www.w3.org/2000/svg">
+      <style>{OVERLAY_CSS}</style>
+      {outline.length > 2 && <polygon points={pts(view, outline)} className="outline" />}
+      {m?.bandOutlines.map((poly, i) => <polygon key={i} points={pts(view, poly)} className="band" data-testid="band" />)}
+      {axis !== null && m?.boundaries.map((b, i) => {
+        if (b.positionEl === null) return null;
+        const [u, w] = crossLine(axis, b.positionEl, halfWidthPx).map((q) => toS(view, q));
+        return <line key={i} x1={u.x} y1={u.y} x2={w.x} y2={w.y} className="boundary-line" stroke={BOUNDARY_COLOURS[i % 3]} />;
+      })}
+      {axis !== null && <AxisLayer view={view} axis={axis} fitRangeEl={fitRangeEl} />}
+      {m?.landmarks.map((l, i) => {
+        const s = toS(view, l.point);
+        return (
+          <g key={i} className={`landmark${selectedLandmark === i ? ' selected' : ''}`} data-testid="landmark" data-name={l.name} data-x={s.x.toFixed(1)} data-y={s.y.toFixed(1)}>
+            <path d={`M${s.x} ${s.y - 7} L${s.x + 7} ${s.y} L${s.x} ${s.y + 7} L${s.x - 7} ${s.y} Z`} />
+            <text x={s.x + 10} y={s.y - 8}>{`${l.name} · ${fixed(l.xEl, 3)} EL`}</text>
+          </g>
+        );
+      })}
+    </svg>
+  );
+}

@@ -1,0 +1,122 @@
+// The image panel: canvas + overlays, pointer tools, wheel zoom, scale bar and the value under the cursor.
+import { useEffect, useRef, useState } from 'react';
+import type { Dispatch } from 'react';
+import type { ApAxis, ImagePoint, Plane } from '../../core/model';
+import { axisFraction, chooseScaleBar, fitToWindow, pixelUnder, screenPt, screenToImage, zoomAt } from '../geometry';
+import type { ScreenPt } from '../geometry';
+import type { LiveMeasurement } from '../live';
+import type { EditorAction, EditorState } from '../state';
+import { IDLE, pointerDown, pointerMove, pointerUp } from '../tools';
+import type { Gesture } from '../tools';
+import { useElementSize } from '../hooks/useElementSize';
+import { fixed, fmt } from '../ui/format';
+import { ImageCanvas } from './ImageCanvas';
+import { ImageOverlay } from './ImageOverlay';
+
+/** Props of the image panel. */
+export interface ImageViewProps {
+  readonly state: EditorState;
+  readonly dispatch: Dispatch<EditorAction>;
+  readonly planes: readonly Plane[];
+  readonly channelNames: readonly string[];
+  readonly outline: readonly ImagePoint[];
+  readonly axis: ApAxis | null;
+  readonly measurement: LiveMeasurement | null;
+  readonly fitRangeEl: readonly [number, number];
+  readonly pixelSizeUm: number | null;
+  readonly halfWidthPx: number;
+  /** Bumped to ask for fit-to-window (new file, or the F key). */
+  readonly fitRequest: number;
+  readonly spaceHeld: boolean;
+}
+
+/** Screen position of a pointer event relative to the element. */
+const localPt = (e: { clientX: number; clientY: number }, el: HTMLElement): ScreenPt => {
+  const r = el.getBoundingClientRect();
+  return screenPt(e.clientX - r.left, e.clientY - r.top);
+};
+
+/** The image panel. */
+export function ImageView(props: ImageViewProps) {
+  const { state, dispatch, planes, measurement, axis } = props;
+  const box = useRef<HTMLDivElement>(null);
+  const size = useElementSize(box);
+  const gesture = useRef<Gesture>(IDLE);
+  const stateRef = useRef(state);
+  stateRef.current = state;
+  const [cursor, setCursor] = useState<ScreenPt | null>(null);
+  const first = planes[0];
+
+  useEffect(() => {
+    if (first === undefined || size.width === 0) return;
+    dispatch({ type: 'setView', view: fitToWindow(first.width, first.height, size.width, size.height) });
+  }, [props.fitRequest, first?.width, first?.height, size.width > 0]);
+
+  useEffect(() => {
+    const el = box.current;
+    if (el === null) return;
+    const onWheel = (e: WheelEvent) => {
+      e.preventDefault();
+      dispatch({ type: 'setView', view: zoomAt(stateRef.current.view, localPt(e, el), Math.pow(1.0015, -e.deltaY)) });
+    };
+    el.addEventListener('wheel', onWheel, { passive: false });
+    return () => el.removeEventListener('wheel', onWheel);
+  }, [dispatch]);
+
+  const run = (step: { gesture: Gesture; actions: readonly EditorAction[] }) => {
+    gesture.current = step.gesture;
+    step.actions.forEach(dispatch);
+  };
+  const input = (e: React.PointerEvent) => {
+    const screen = localPt(e, e.currentTarget as HTMLElement);
+    return { state: stateRef.current, screen, image: screenToImage(stateRef.current.view, screen), spaceHeld: props.spaceHeld };
+  };
+  const toolClass = props.spaceHeld || state.tool === 'pan' ? 'tool-pan' : `tool-${state.tool}`;
+
+  return (
+    <div ref={box} className={`image-view ${toolClass}`} data-testid="image-view"
+      onPointerDown={(e) => { if (e.button !== 0) return; e.currentTarget.setPointerCapture(e.pointerId); run(pointerDown(gesture.current, input(e))); }}
+      onPointerMove={(e) => { setCursor(localPt(e, e.currentTarget)); if (gesture.current.kind !== 'idle') run(pointerMove(gesture.current, input(e))); }}
+      onPointerUp={() => run(pointerUp(gesture.current))}
+      onPointerCancel={() => run(pointerUp(gesture.current))}
+      onPointerLeave={() => setCursor(null)}>
+      <ImageCanvas planes={planes} display={state.display} view={state.view} width={size.width} height={size.height} />
+      <ImageOverlay view={state.view} width={size.width} height={size.height} outline={props.outline} axis={axis}
+        measurement={measurement} fitRangeEl={props.fitRangeEl} halfWidthPx={props.halfWidthPx} selectedLandmark={state.selectedLandmark} />
+      <ScaleBar pixelSizeUm={props.pixelSizeUm} zoom={state.view.zoom} />
+      <Readout cursor={cursor} state={state} planes={planes} names={props.channelNames} axis={axis} pixelSizeUm={props.pixelSizeUm} />
+      {first === undefined && <div className="image-empty">No image</div>}
+    </div>
+  );
+}
+
+/** A round-length scale bar in µm (or a note when the pixel size is unknown). */
+function ScaleBar({ pixelSizeUm, zoom }: { pixelSizeUm: number | null; zoom: number }) {
+  const bar = pixelSizeUm === null ? null : chooseScaleBar(pixelSizeUm, zoom, 160);
+  if (bar === null) return <div className="scale-bar muted">pixel size unknown</div>;
+  return (
+    <div className="scale-bar" data-testid="scale-bar">
+      <div className="scale-bar-line" style={{ width: bar.screenPx }} />
+      <span>{bar.lengthUm} µm</span>
+    </div>
+  );
+}
+
+/** Pixel position and values under the cursor, and its x/EL along the axis. */
+function Readout({ cursor, state, planes, names, axis, pixelSizeUm }: { cursor: ScreenPt | null; state: EditorState; planes: readonly Plane[]; names: readonly string[]; axis: ApAxis | null; pixelSizeUm: number | null }) {
+  const first = planes[0];
+  if (cursor === null || first === undefined) return null;
+  const img = screenToImage(state.view, cursor);
+  const px = pixelUnder(img, first.width, first.height);
+  if (px === null) return null;
+  const k = px.row * first.width + px.col;
+  const xEl = axis === null ? null : axisFraction(axis.anterior, axis.posterior, img);
+  const um = pixelSizeUm === null ? '' : ` (${fixed(px.col * pixelSizeUm, 1)}, ${fixed(px.row * pixelSizeUm, 1)} µm)`;
+  return (
+    <div className="readout" data-testid="readout">
+      x {px.col}, y {px.row}{um}
+      {planes.map((p, i) => <span key={i}> · {names[i] ?? `c${i + 1}`} {fmt(p.data[k], 4)}</span>)}
+      {xEl !== null && <span> · {fixed(xEl, 3)} EL</span>}
+    </div>
+  );
+}

@@ -1,0 +1,70 @@
+// The embryo straightened along its axis (anterior left), on the same x/EL scale as the profile plot below.
+import { useEffect, useMemo, useRef } from 'react';
+import type { LiveMeasurement } from '../live';
+import type { DisplayState } from '../state';
+import { compositeRgba } from '../view';
+import { elToPx } from '../ui/plotLayout';
+import { BOUNDARY_COLOURS } from './ImageOverlay';
+
+/** Props of the straightened view. */
+export interface StraightViewProps {
+  readonly measurement: LiveMeasurement | null;
+  readonly display: DisplayState;
+  readonly width: number;
+  readonly fitRangeEl: readonly [number, number];
+}
+
+/** Height of the strip panel, CSS px (the strip is scaled to fit; the vertical factor is shown). */
+export const STRIP_HEIGHT_PX = 130;
+
+/** The straightened embryo with band, fit range, boundaries and landmarks. */
+export function StraightView({ measurement: m, display, width, fitRangeEl }: StraightViewProps) {
+  const ref = useRef<HTMLCanvasElement>(null);
+  const strip = m?.strips[0];
+  const bitmap = useMemo(() => {
+    if (m === null || strip === undefined) return null;
+    const c = document.createElement('canvas');
+    c.width = strip.width; c.height = strip.height;
+    c.getContext('2d')?.putImageData(new ImageData(compositeRgba(m.strips, display), strip.width, strip.height), 0, 0);
+    return c;
+  }, [m, display]);
+  const n = strip?.width ?? 2;
+  const x0 = elToPx(-0.5 / (n - 1), width), x1 = elToPx(1 + 0.5 / (n - 1), width);
+  useEffect(() => {
+    const canvas = ref.current;
+    if (canvas === null) return;
+    const dpr = window.devicePixelRatio || 1;
+    canvas.width = Math.max(1, Math.round(width * dpr)); canvas.height = Math.round(STRIP_HEIGHT_PX * dpr);
+    const ctx = canvas.getContext('2d');
+    if (ctx === null) return;
+    ctx.fillStyle = '#0d0f12';
+    ctx.fillRect(0, 0, canvas.width, canvas.height);
+    if (bitmap !== null) ctx.drawImage(bitmap, x0 * dpr, 0, (x1 - x0) * dpr, canvas.height);
+  }, [bitmap, width, x0, x1]);
+  const rowY = (row: number) => ((row + 0.5) / (strip?.height ?? 1)) * STRIP_HEIGHT_PX;
+  const colX = (i: number) => elToPx(i / (n - 1), width);
+  const edges = m === null ? [] : (['top', 'bottom'] as const).flatMap((side) => [0, 1].map((k) => m.bands
+    .map((b, i) => (b[side] === null ? null : `${colX(i).toFixed(1)},${rowY((b[side] as readonly [number, number])[k] + (k === 0 ? -0.5 : 0.5)).toFixed(1)}`))
+    .filter((s): s is string => s !== null).join(' ')));
+  const squeeze = strip === undefined ? 1 : ((x1 - x0) / strip.width) / (STRIP_HEIGHT_PX / strip.height);
+  return (
+    <div className="straight-view" data-testid="straight-view" style={{ height: STRIP_HEIGHT_PX }}>
+      <canvas ref={ref} style={{ width, height: STRIP_HEIGHT_PX }} />
+      <svg width={width} height={STRIP_HEIGHT_PX} className="straight-overlay">
+        <rect x={elToPx(fitRangeEl[0], width)} width={elToPx(fitRangeEl[1], width) - elToPx(fitRangeEl[0], width)} y={0} height={STRIP_HEIGHT_PX} className="fit-shade" />
+        {edges.map((p, i) => p.length > 0 && <polyline key={i} points={p} className="band-edge" />)}
+        {m?.boundaries.map((b, i) => b.positionEl !== null &&
+          <line key={i} x1={elToPx(b.positionEl, width)} x2={elToPx(b.positionEl, width)} y1={0} y2={STRIP_HEIGHT_PX} className="boundary-line" stroke={BOUNDARY_COLOURS[i % 3]} />)}
+        {m?.landmarks.map((l, i) => (
+          <g key={i} className="strip-landmark">
+            <line x1={elToPx(l.xEl, width)} x2={elToPx(l.xEl, width)} y1={0} y2={STRIP_HEIGHT_PX} />
+            <text x={elToPx(l.xEl, width) + 3} y={12}>{l.name}</text>
+          </g>
+        ))}
+        <text x={8} y={16} className="strip-label">A</text>
+        <text x={width - 14} y={16} className="strip-label">P</text>
+        {squeeze > 1.05 && <text x={8} y={STRIP_HEIGHT_PX - 6} className="strip-note">height ×{squeeze.toFixed(1)}</text>}
+      </svg>
+    </div>
+  );
+}

@@ -1,0 +1,13 @@
+import { describe, expect, it } from 'vitest';
+import { annotatedSvg } from './annotatedSvg';
+
+// Demo input.
+describe('annotatedSvg', () => {
+  it('sizes the document to the image and embeds image and overlay', () => {
+    const s = annotatedSvg(20, 10, 'data:image/png;base64,AAA', '<circle r="1"/>');
+    expect(s.startsWith('<svg xmlns="http://www.w3.org/2000/svg"')).toBe(true);
+    expect(s).toContain('viewBox="0 0 20 10"');
+    expect(s).toContain('href="data:image/png;base64,AAA"');
+    expect(s.endsWith('<circle r="1"/></svg>')).toBe(true);
+  });
+});

@@ -1,0 +1,36 @@
+// Saves the project a moment after every document change (debounced), so no edit is lost.
+import { useEffect, useRef, useState } from 'react';
+import type { EgglineApi, ProjectDoc } from '../../core/contract';
+import type { DocState } from '../state';
+
+/** Delay between the last edit and the save, ms. */
+export const AUTOSAVE_DELAY_MS = 400;
+
+/** Save status for the status bar. */
+export type SaveStatus = { kind: 'idle' } | { kind: 'pending' } | { kind: 'saved'; at: string } | { kind: 'error'; message: string };
+
+/** The project file content for a document. */
+export function toProjectDoc(doc: DocState, folder: string | null): ProjectDoc {
+  return { schema: 'eggline-project', version: 1, folder, settings: doc.settings, files: doc.files };
+}
+
+/** Debounced autosave keyed on the state revision; also returns a function to save at once. */
+export function useAutosave(api: EgglineApi | null, projectPath: string | null, folder: string | null, doc: DocState, revision: number): [SaveStatus, () => Promise<void>] {
+  const [status, setStatus] = useState<SaveStatus>({ kind: 'idle' });
+  const latest = useRef({ doc, folder, projectPath });
+  latest.current = { doc, folder, projectPath };
+  const saveNow = async () => {
+    const { doc: d, folder: f, projectPath: p } = latest.current;
+    if (api === null || p === null) return;
+    const r = await api.saveProject(p, toProjectDoc(d, f));
+    setStatus(r.ok ? { kind: 'saved', at: r.value.savedAt } : { kind: 'error', message: r.error.message });
+  };
+  useEffect(() => {
+    if (revision === 0 || projectPath === null) return;
+    setStatus({ kind: 'pending' });
+    const t = setTimeout(() => { void saveNow(); }, AUTOSAVE_DELAY_MS);
+    return () => clearTimeout(t);
+    // saveNow reads the latest values through the ref.
+  }, [revision, projectPath]);
+  return [status, saveNow];
+}

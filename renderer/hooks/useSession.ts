@@ -1,0 +1,50 @@
+// The open folder and project: opening the demo, a folder or a project file, and which file is shown.
+import { useState } from 'react';
+import type { Dispatch } from 'react';
+import type { EgglineApi, FolderEntry, ProjectDoc } from '../../core/contract';
+import type { EditorAction } from '../state';
+
+/** Folder, its files and where the project is saved. */
+export interface Session {
+  readonly folder: string | null;
+  readonly entries: readonly FolderEntry[];
+  readonly projectPath: string | null;
+  /** Last error from opening things, one line. */
+  readonly message: string | null;
+  readonly opening: boolean;
+}
+
+type Opened = { folder: string | null; entries: FolderEntry[]; project: ProjectDoc; projectPath: string };
+
+/** Session state and the commands that open things. */
+export function useSession(api: EgglineApi | null, dispatch: Dispatch<EditorAction>, onOpened: (firstFile: string | null) => void) {
+  const [session, setSession] = useState<Session>({ folder: null, entries: [], projectPath: null, message: null, opening: false });
+  const adopt = (o: Opened) => {
+    setSession({ folder: o.folder, entries: o.entries, projectPath: o.projectPath, message: null, opening: false });
+    dispatch({ type: 'openDoc', doc: { settings: o.project.settings, files: o.project.files } });
+    onOpened(o.entries[0]?.name ?? null);
+  };
+  const fail = (message: string) => setSession((s) => ({ ...s, message, opening: false }));
+  const wrap = async (call: () => Promise<void>) => {
+    setSession((s) => ({ ...s, opening: true, message: null }));
+    try { await call(); } catch (e) { fail(String(e)); }
+  };
+  const openDemo = () => wrap(async () => {
+    if (api === null) return;
+    const r = await api.openDemo();
+    if (r.ok) adopt(r.value); else fail(r.error.message);
+  });
+  const openFolder = () => wrap(async () => {
+    if (api === null) return;
+    const r = await api.chooseFolder();
+    if (!r.ok) fail(r.error.message); else if (r.value !== null) adopt(r.value); else setSession((s) => ({ ...s, opening: false }));
+  });
+  const openProject = () => wrap(async () => {
+    if (api === null) return;
+    const r = await api.openProject();
+    if (!r.ok) fail(r.error.message);
+    else if (r.value !== null) adopt({ ...r.value, folder: r.value.project.folder });
+    else setSession((s) => ({ ...s, opening: false }));
+  });
+  return { session, openDemo, openFolder, openProject, setMessage: (m: string | null) => setSession((s) => ({ ...s, message: m })) };
+}
