@@ -18,7 +18,7 @@ export interface AnalysisRunner {
   close(): Promise<void>;
 }
 
-interface Pending { resolve(v: ViewData): void; reject(e: Error): void; label: string; timer: NodeJS.Timeout }
+interface Pending { resolve(v: ViewData): void; reject(e: Error): void; label: string; timer: NodeJS.Timeout; worker: Worker }
 
 /** Rebuild an error from the worker so failureFrom can map it (TiffError → bad-file, ENOENT → not-found). */
 function errorFrom(reply: Extract<AnalysisReply, { ok: false }>): Error {
@@ -30,8 +30,12 @@ export function createAnalysisRunner(workerPath: string, timeoutMs = 180_000): A
   let worker: Worker | null = null;
   let nextId = 1;
   const pending = new Map<number, Pending>();
-  const failAll = (why: (label: string) => string): void => {
-    for (const [id, p] of pending) { clearTimeout(p.timer); p.reject(new Error(why(p.label))); pending.delete(id); }
+  // Only the calls of the worker that died fail; calls already moved to a new worker carry on.
+  const failAll = (why: (label: string) => string, of: Worker | null): void => {
+    for (const [id, p] of pending) {
+      if (of !== null && p.worker !== of) continue;
+      clearTimeout(p.timer); p.reject(new Error(why(p.label))); pending.delete(id);
+    }
   };
   const stop = async (): Promise<void> => { const w = worker; worker = null; if (w !== null) await w.terminate(); };
   const start = (): Worker => {
@@ -43,22 +47,24 @@ export function createAnalysisRunner(workerPath: string, timeoutMs = 180_000): A
       clearTimeout(p.timer);
       if (reply.ok) p.resolve(reply.value); else p.reject(errorFrom(reply));
     });
-    w.on('error', (e) => { if (worker === w) worker = null; failAll((label) => `${label}: analysis stopped unexpectedly (${e.message})`); });
-    w.on('exit', (code) => { if (worker === w) worker = null; failAll((label) => `${label}: analysis stopped unexpectedly (exit code ${code})`); });
+    w.on('error', (e) => { if (worker === w) worker = null; failAll((label) => `${label}: analysis stopped unexpectedly (${e.message})`, w); });
+    w.on('exit', (code) => { if (worker === w) worker = null; failAll((label) => `${label}: analysis stopped unexpectedly (exit code ${code})`, w); });
     return w;
   };
   return {
     run: (path, label, settings) => new Promise<ViewData>((resolve, reject) => {
-      worker ??= start();
+      const w = worker ??= start();
       const id = nextId++;
       const timer = setTimeout(() => {
         pending.delete(id);
-        reject(new Error(`${label}: analysis took longer than ${Math.round(timeoutMs / 1000)} s and was stopped`));
-        void stop();
+        reject(new Error(`${label}: analysis took longer than ${+(timeoutMs / 1000).toFixed(1)} s and was stopped`));
+        // The worker is stuck: its other calls fail with it, and the next call starts a fresh one.
+        if (worker === w) void stop();
+        failAll((other) => `${other}: analysis stopped (another file hung the analysis thread)`, w);
       }, timeoutMs);
-      pending.set(id, { resolve, reject, label, timer });
-      worker.postMessage({ id, path, label, settings } satisfies AnalysisRequest);
+      pending.set(id, { resolve, reject, label, timer, worker: w });
+      w.postMessage({ id, path, label, settings } satisfies AnalysisRequest);
     }),
-    close: async () => { failAll((label) => `${label}: cancelled`); await stop(); },
+    close: async () => { failAll((label) => `${label}: cancelled`, null); await stop(); },
   };
 }
