@@ -15,6 +15,10 @@ export async function checkChunkExtents(source: ByteSource, header: TiffHeader, 
     throw new TiffError('unsupported', fileLabel, `${what}: IFD ${ifd.index} lacks ${tiled ? 'tile' : 'strip'} offsets or byte counts`);
   }
   for (let i = 0; i < offsets.length; i++) {
+    if (offsets[i] >= source.size) {
+      throw new TiffError('bad-offset', fileLabel,
+        `${what}: ${tiled ? 'tile' : 'strip'} ${i} of IFD ${ifd.index} starts at ${offsets[i]}, past the end of the file (${source.size} bytes)`);
+    }
     if (offsets[i] + counts[i] > source.size) {
       throw new TiffError('truncated', fileLabel,
         `${what}: ${tiled ? 'tile' : 'strip'} ${i} of IFD ${ifd.index} runs past the end of the file (${offsets[i] + counts[i]} > ${source.size} bytes)`);

@@ -50,6 +50,9 @@ export async function readTiffHeader(source: ByteSource, fileLabel: string): Pro
 function checkFirstOffset(source: ByteSource, fileLabel: string, header: TiffHeader, headerBytes: number): TiffHeader {
   const offset = header.firstIfdOffset;
   if (offset === 0) throw new TiffError('empty', fileLabel, 'contains no images (first IFD offset is 0)');
+  if (source.size <= headerBytes) {
+    throw new TiffError('truncated', fileLabel, `file ends after the TIFF header (${source.size} bytes)`);
+  }
   if (offset < headerBytes || offset >= source.size) {
     throw new TiffError('bad-offset', fileLabel, `first IFD offset ${offset} is outside the file (${source.size} bytes)`);
   }

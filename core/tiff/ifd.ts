@@ -45,9 +45,12 @@ export async function readIfd(source: ByteSource, header: TiffHeader, offset: nu
   const count = readUint(new DataView(countRaw.buffer, countRaw.byteOffset, countBytes), 0, countBytes, le);
   if (count === 0) throw new TiffError('bad-offset', fileLabel, `IFD ${index} at offset ${offset} has no entries`);
   const blockBytes = count * entryBytes + pointerBytes;
-  if (count > 65535 || blockBytes > source.size) {
+  const fits = blockBytes <= source.size - offset - countBytes;
+  // A cut file ends inside a sensible IFD; a garbage pointer lands on a huge "count" that no real writer uses.
+  if (count > 65535 || (!fits && count > 4096)) {
     throw new TiffError('bad-offset', fileLabel, `IFD ${index} at offset ${offset} claims ${count} entries, more than the file can hold`);
   }
+  if (!fits) throw new TiffError('truncated', fileLabel, `file ends inside IFD ${index} (offset ${offset})`);
   const block = await source.read(offset + countBytes, blockBytes);
   if (block.length < blockBytes) throw new TiffError('truncated', fileLabel, `file ends inside IFD ${index} (offset ${offset})`);
   return parseIfdBlock(block, header, count, offset, index);
