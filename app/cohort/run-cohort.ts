@@ -1,0 +1,87 @@
+// The cohort step as files: reads the sample sheet, analyses, writes conditions.csv, shifts.csv, dosage_fit.csv,
+// positional_error.csv, one .svg per figure and report.html into outDir. Every file is written atomically.
+import { mkdir, readFile, rename, writeFile } from 'node:fs/promises';
+import { basename, join } from 'node:path';
+import type { EmbryoResult } from '../../core/model';
+import {
+  analyseCohort, CohortError, conditionsCsv, dosageFitCsv, positionalErrorCsv, sheetFromFilenameRule, parseSampleSheet, shiftsCsv,
+  type FilenameRule, type Normalisation, type SampleSheet,
+} from '../../core/cohort';
+import { cohortFigures } from '../../core/figures';
+import { cohortReportHtml } from './report-html';
+
+/** Options of runCohortStep (see the file comment). */
+export interface CohortStepOptions {
+  readonly results: EmbryoResult[];
+  readonly failures: { file: string; error: string }[];
+  /** CSV with file, condition, optional dosage; null = use `filenameRule`, or else one condition "all" (no dosage test). */
+  readonly sampleSheetPath: string | null;
+  readonly reference: string | null;
+  readonly outDir: string;
+  readonly runRecord: unknown;
+  readonly normalisation?: Normalisation;
+  /** Decay length of an opposing posterior gradient, x/EL, for the two-gradient prediction. */
+  readonly lambdaPosteriorEl?: number | null;
+  readonly filenameRule?: FilenameRule;
+}
+
+/** Write text via a temporary file and rename, so a crash never leaves a half-written output. */
+async function writeAtomic(path: string, text: string): Promise<void> {
+  const tmp = `${path}.tmp-${process.pid}`;
+  await writeFile(tmp, text, 'utf8');
+  await rename(tmp, path);
+}
+
+async function loadSheet(opts: CohortStepOptions, warnings: string[]): Promise<SampleSheet> {
+  if (opts.sampleSheetPath !== null) {
+    let text: string;
+    try {
+      text = await readFile(opts.sampleSheetPath, 'utf8');
+    } catch (e) {
+      throw new CohortError(`${opts.sampleSheetPath}: cannot read the sample sheet (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+    }
+    return parseSampleSheet(text, basename(opts.sampleSheetPath));
+  }
+  const files = opts.results.filter((r) => r.status === 'ok').map((r) => r.file);
+  if (opts.filenameRule) {
+    const r = sheetFromFilenameRule(files, opts.filenameRule);
+    warnings.push(...r.warnings);
+    return r.sheet;
+  }
+  warnings.push('no sample sheet: all embryos form one condition "all"; no dosage test');
+  return { source: 'no sample sheet', rows: files.map((file) => ({ file, condition: 'all', dosage: null, extra: {}, line: 0 })) };
+}
+
+/** Failures given by the caller plus results with status 'error', one entry per file. */
+function allFailures(opts: CohortStepOptions): { file: string; error: string }[] {
+  const out = [...opts.failures];
+  for (const r of opts.results) {
+    if (r.status === 'error' && !out.some((f) => f.file === r.file)) out.push({ file: r.file, error: r.error ?? 'analysis failed' });
+  }
+  return out;
+}
+
+/** Run the cohort step and write its outputs; rejects with CohortError (one line, names the file) for bad input. */
+export async function runCohortStep(opts: CohortStepOptions): Promise<{ written: string[]; warnings: string[] }> {
+  if (typeof opts.outDir !== 'string' || opts.outDir.trim() === '') throw new CohortError('outDir must be a non-empty path');
+  const warnings: string[] = [];
+  const sheet = await loadSheet(opts, warnings);
+  const analysis = analyseCohort(opts.results, sheet, {
+    reference: opts.reference, normalisation: opts.normalisation ?? 'none', lambdaPosteriorEl: opts.lambdaPosteriorEl ?? null,
+  });
+  warnings.push(...analysis.warnings);
+  const figures = cohortFigures(analysis);
+  const failures = allFailures(opts);
+  const html = cohortReportHtml({ analysis, figures, failures, runRecord: opts.runRecord, warnings, sheetSource: sheet.source, generatedAt: new Date().toISOString() });
+  const files: [string, string][] = [
+    ['conditions.csv', conditionsCsv(analysis)], ['shifts.csv', shiftsCsv(analysis)], ['dosage_fit.csv', dosageFitCsv(analysis)],
+    ['positional_error.csv', positionalErrorCsv(analysis)], ...figures.map((f): [string, string] => [`${f.name}.svg`, f.svg]), ['report.html', html],
+  ];
+  try {
+    await mkdir(opts.outDir, { recursive: true });
+    for (const [name, text] of files) await writeAtomic(join(opts.outDir, name), text);
+  } catch (e) {
+    throw new CohortError(`${opts.outDir}: cannot write the cohort outputs (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+  }
+  return { written: files.map(([name]) => join(opts.outDir, name)), warnings };
+}

@@ -1,0 +1,88 @@
+import { XMLParser, XMLValidator } from 'fast-xml-parser';
+import { describe, expect, it } from 'vitest';
+import { analyseCohort, makeDemoCohort, parseSampleSheet } from '../cohort';
+import { cohortFigures, cohortProfilesFigure, escapeXml, lambdaByConditionFigure, positionalErrorFigure, profileFigure, shiftVsLnFFigure } from './index';
+
+// Source: demo data throughout (invented synthetic embryos); XML rules per W3C XML 1.0 (well-formedness), checked by fast-xml-parser.
+const count = (svg: string, re: RegExp): number => (svg.match(re) ?? []).length;
+
+function checkSvg(svg: string): void {
+  expect(XMLValidator.validate(svg)).toBe(true);
+  expect(svg).not.toMatch(/NaN|Infinity|undefined/);
+  const doc = new XMLParser({ ignoreAttributes: false }).parse(svg) as { svg: Record<string, string> };
+  expect(doc.svg['@_xmlns']).toBe('http://www.w3.org/2000/svg');
+  expect(doc.svg['@_font-family']).toBe('system-ui, sans-serif');
+}
+
+const demo = makeDemoCohort({ conditions: [{ name: 'low <A&B>', dosage: 0.5, count: 5 }, { name: 'ref', dosage: 1, count: 5 }, { name: 'high', dosage: 2, count: 5 }], seed: 2 });
+const analysis = analyseCohort(demo.results, parseSampleSheet(demo.sheetCsv, 's.csv'), { lambdaPosteriorEl: 0.3 });
+
+describe('escapeXml', () => {
+  it('escapes the five XML special characters', () => {
+    // Source: W3C XML 1.0 §2.4 (predefined entities)
+    expect(escapeXml(`a<b>&"c"'`)).toBe('a&lt;b&gt;&amp;&quot;c&quot;&apos;');
+  });
+});
+
+describe('profileFigure', () => {
+  const e = demo.results[6];
+  it('draws one point per bin, the fit over its range, boundaries and landmarks, labelled axes', () => {
+    const svg = profileFigure({ profile: e.gradientProfile!, fit: e.gradientFit, boundaries: e.boundaries, landmarks: e.landmarks });
+    checkSvg(svg);
+    expect(count(svg, /class="data-point"/g)).toBe(100);
+    expect(count(svg, /class="fit-curve"/g)).toBe(1);
+    expect(count(svg, /class="fit-range"/g)).toBe(1);
+    expect(count(svg, /class="boundary"/g)).toBe(2);
+    expect(count(svg, /class="landmark"/g)).toBe(1);
+    expect(svg).toContain('x/EL (0 = anterior pole)');
+    expect(svg).toContain('furrow');
+    expect(svg).toContain('λ = ');
+  });
+  it('residual panel and µm axis on request', () => {
+    const fit = { ...e.gradientFit!, xEl: Float64Array.from([0.1, 0.2, 0.3]), residuals: Float64Array.from([1, -2, 0.5]) };
+    const svg = profileFigure({ profile: e.gradientProfile!, fit }, { showResiduals: true, xAxis: 'um', widthPx: 500, heightPx: 500 });
+    checkSvg(svg);
+    expect(count(svg, /class="residual-point"/g)).toBe(3);
+    expect(svg).toContain('distance from the anterior pole (µm)');
+    expect(svg).toContain('width="500"');
+  });
+  it('rejects bad sizes with an exact message', () => {
+    expect(() => profileFigure({ profile: e.gradientProfile! }, { widthPx: 10 })).toThrow('widthPx must be a number from 120 to 4000');
+  });
+  it('NaN bins are gaps, not "NaN" in the file', () => {
+    const p = e.gradientProfile!;
+    const mean = Float64Array.from(p.mean);
+    mean[10] = NaN;
+    const svg = profileFigure({ profile: { ...p, mean } });
+    checkSvg(svg);
+    expect(count(svg, /class="data-point"/g)).toBe(99);
+  });
+});
+
+describe('cohort figures', () => {
+  it('one figure per kind plus one shift figure per position quantity; all valid, labels escaped', () => {
+    const figs = cohortFigures(analysis);
+    expect(figs.map((f) => f.name)).toEqual(['cohort-profiles', 'lambda-by-condition', 'shift-boundary-target-logistic', 'shift-boundary-target-half-max', 'shift-landmark-furrow', 'positional-error']);
+    for (const f of figs) checkSvg(f.svg);
+    const prof = figs[0].svg;
+    expect(count(prof, /class="mean-line"/g)).toBe(3);
+    expect(count(prof, /class="sd-band"/g)).toBe(3);
+    expect(prof).toContain('low &lt;A&amp;B&gt; (n=5)');
+    const lam = figs[1].svg;
+    expect(count(lam, /class="embryo-point"/g)).toBe(15);
+    expect(count(lam, /class="ci-bar"/g)).toBe(3);
+    expect(lam).toContain('decay length λ (fraction of egg length, EL)');
+    const shift = figs[2].svg;
+    expect(count(shift, /class="embryo-point"/g)).toBe(15);
+    expect(count(shift, /class="fitted-line"/g)).toBe(1);
+    expect(count(shift, /class="predicted-line"/g)).toBe(2);
+    expect(count(shift, /class="group-mean"/g)).toBe(3);
+    expect(shift).toContain('ln f (f = dosage relative to the reference)');
+    expect(count(figs[5].svg, /class="sigma-line"/g)).toBe(3);
+    expect(figs[5].svg).toContain('positional error σx (fraction of EL)');
+  });
+  it('empty inputs still give valid SVG', () => {
+    for (const svg of [cohortProfilesFigure([]), lambdaByConditionFigure([]), positionalErrorFigure([]), shiftVsLnFFigure({ quantity: 'q', points: [] })]) checkSvg(svg);
+    checkSvg(lambdaByConditionFigure([{ label: 'one', values: [0.2], mean: 0.2, ciLow: NaN, ciHigh: NaN }]));
+  });
+});

@@ -1,0 +1,67 @@
+import { XMLValidator } from 'fast-xml-parser';
+import { mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { makeDemoCohort } from '../../core/cohort';
+import type { EmbryoResult } from '../../core/model';
+import { runCohortStep } from '../../app/cohort/run-cohort';
+
+// Source: demo data throughout (invented synthetic embryos, dosages 0.5–6, λ = 0.2 EL).
+const dir = mkdtempSync(join(tmpdir(), 'eggline-cohort-'));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+const demo = makeDemoCohort({ conditions: [0.5, 1, 2, 6].map((d) => ({ name: d === 1 ? 'reference' : `x${d}`, dosage: d, count: 6 })), seed: 13 });
+const failed: EmbryoResult = { ...demo.results[0], file: 'broken/embryo_99.tif', status: 'error', error: 'broken/embryo_99.tif: not a TIFF file' };
+const sheetPath = join(dir, 'samples.csv');
+writeFileSync(sheetPath, demo.sheetCsv);
+
+describe('runCohortStep', () => {
+  it('writes the tables, one SVG per figure and a self-contained report', async () => {
+    const out = join(dir, 'out');
+    const r = await runCohortStep({
+      results: [...demo.results, failed], failures: [{ file: 'gone.tif', error: 'gone.tif: file vanished during the batch' }],
+      sampleSheetPath: sheetPath, reference: null, outDir: out, runRecord: { settings: { fitRangeEl: [0.1, 0.6] }, eggline: '0.1.0' },
+      normalisation: 'amplitude', lambdaPosteriorEl: 0.3,
+    });
+    const names = readdirSync(out).sort();
+    expect(names).toEqual(['cohort-profiles.svg', 'conditions.csv', 'dosage_fit.csv', 'lambda-by-condition.svg', 'positional-error.svg', 'positional_error.csv', 'report.html',
+      'shift-boundary-target-half-max.svg', 'shift-boundary-target-logistic.svg', 'shift-landmark-furrow.svg', 'shifts.csv']);
+    expect(r.written.length).toBe(names.length);
+    expect(r.warnings).toEqual([]); // the failed result is a failure, not an unmatched file
+    const shifts = readFileSync(join(out, 'shifts.csv'), 'utf8').trim().split('\r\n');
+    expect(shifts.length).toBe(1 + 3 * 3);
+    const fits = readFileSync(join(out, 'dosage_fit.csv'), 'utf8');
+    expect(fits).toContain('boundary target logistic,0.');
+    for (const n of names.filter((x) => x.endsWith('.svg'))) expect(XMLValidator.validate(readFileSync(join(out, n), 'utf8'))).toBe(true);
+    const html = readFileSync(join(out, 'report.html'), 'utf8');
+    expect(html).not.toMatch(/<script|<link|<img|src="|url\(http|@import/i);
+    expect((html.match(/<svg /g) ?? []).length).toBe(6);
+    expect(html).toContain('gone.tif: file vanished during the batch');
+    expect(html).toContain('broken/embryo_99.tif: not a TIFF file');
+    expect(html).toContain('profile normalisation</td><td class="t">amplitude');
+    expect(html).toContain('Caveats');
+    expect(html).toContain('&quot;fitRangeEl&quot;');
+  });
+  it('without a sample sheet all embryos form one condition and the dosage test is skipped', async () => {
+    const out = join(dir, 'nosheet');
+    const r = await runCohortStep({ results: demo.results, failures: [], sampleSheetPath: null, reference: null, outDir: out, runRecord: null });
+    expect(r.warnings[0]).toBe('no sample sheet: all embryos form one condition "all"; no dosage test');
+    expect(readFileSync(join(out, 'shifts.csv'), 'utf8').trim().split('\r\n').length).toBe(1);
+    expect(readFileSync(join(out, 'conditions.csv'), 'utf8')).toContain('all,,lambda,EL,24,');
+  });
+  it('a file-name rule can stand in for the sheet', async () => {
+    const r = await runCohortStep({ results: demo.results, failures: [], sampleSheetPath: null, reference: 'reference', outDir: join(dir, 'rule'), runRecord: null,
+      filenameRule: { pattern: '^(?<condition>[a-z0-9.]+)/', dosages: { reference: 1, 'x0.5': 0.5, x2: 2, x6: 6 } } });
+    expect(r.warnings).toEqual([]);
+    expect(readFileSync(join(dir, 'rule', 'shifts.csv'), 'utf8')).toContain(',x6,6,1.79');
+  });
+  it('bad input rejects with one line naming the file', async () => {
+    await expect(runCohortStep({ results: demo.results, failures: [], sampleSheetPath: join(dir, 'missing.csv'), reference: null, outDir: join(dir, 'x'), runRecord: null }))
+      .rejects.toThrow(`${join(dir, 'missing.csv')}: cannot read the sample sheet (ENOENT)`);
+    const bad = join(dir, 'bad.csv');
+    writeFileSync(bad, 'file,cond\na,b\n');
+    await expect(runCohortStep({ results: demo.results, failures: [], sampleSheetPath: bad, reference: null, outDir: join(dir, 'x'), runRecord: null }))
+      .rejects.toThrow('bad.csv: missing column "condition" (the header needs file, condition; dosage is optional)');
+  });
+});
