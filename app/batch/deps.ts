@@ -1,6 +1,7 @@
 // Adapters to the modules of other areas that the batch uses (decoder, pipeline), kept in one place.
 import type { EmbryoResult, HandEdits, PlaneSource, StackInfo } from '../../core/model';
 import type { AnalysisSettings } from '../../core/settings';
+import { analyzeStack } from '../../core/pipeline';
 import { openStackForAnalysis } from '../decode';
 
 export { openFileByteSource as openByteSource } from '../../core/io';
@@ -11,9 +12,8 @@ export function openStack(path: string, label: string): Promise<{ info: StackInf
 }
 
 /** Analyse one opened stack (never throws for bad data: returns status 'error'). */
-export async function analyze(
+export function analyze(
   info: StackInfo, source: PlaneSource, settings: AnalysisSettings, opts: { fileLabel: string; handEdits?: HandEdits },
 ): Promise<EmbryoResult> {
-  void info; void source; void settings;
-  throw new Error(`${opts.fileLabel}: the analysis pipeline is not part of this build yet`);
+  return analyzeStack(info, source, settings, opts);
 }

@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BOUNDARY_COLUMNS, EMBRYO_COLUMNS, LANDMARK_COLUMNS, parseCsv, PROFILE_COLUMNS, resultsFromJson } from '../../core/batch';
 import { cli, ensureBuilt, listing, tinyTiff } from './helpers';
 
-// Demo data: 4 synthetic embryos written by `eggline demo --count 4`, plus hand-made bad files.
+// Demo data: 2 synthetic embryos written by `eggline demo --count 2`, plus hand-made bad files.
 const dir = mkdtempSync(join(tmpdir(), 'eggline-cli-batch-'));
 const demo = join(dir, 'demo');
 const table = (path: string): Record<string, string>[] => {
@@ -15,7 +15,7 @@ const table = (path: string): Record<string, string>[] => {
 
 beforeAll(async () => {
   ensureBuilt();
-  const r = await cli(['demo', demo, '--count', '4']);
+  const r = await cli(['demo', demo, '--count', '2']);
   expect(r.code).toBe(0);
 }, 180_000);
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -23,7 +23,7 @@ afterAll(() => rmSync(dir, { recursive: true, force: true }));
 describe('eggline demo', () => {
   it('writes the stacks, a sample sheet, a project with a furrow landmark per file and a README', () => {
     const files = listing(demo).map((l) => l.split(' ')[0]);
-    expect(files.filter((f) => f.endsWith('.ome.tif'))).toHaveLength(4);
+    expect(files.filter((f) => f.endsWith('.ome.tif'))).toHaveLength(2);
     expect(files).toEqual(expect.arrayContaining(['samples.csv', 'eggline-project.json', 'README.txt']));
     expect(parseCsv(readFileSync(join(demo, 'samples.csv'), 'utf8'))[0]).toEqual(['file', 'condition', 'dosage']);
     const project = JSON.parse(readFileSync(join(demo, 'eggline-project.json'), 'utf8'));
@@ -42,14 +42,14 @@ describe('eggline batch on the demo set', () => {
     expect(listing(demo)).toEqual(before);
     const embryos = parseCsv(readFileSync(join(out, 'embryos.csv'), 'utf8'));
     expect(embryos[0]).toEqual([...EMBRYO_COLUMNS]);
-    expect(embryos).toHaveLength(5);
-    expect(embryos.slice(1).map((row) => row[1])).toEqual(['ok', 'ok', 'ok', 'ok']);
+    expect(embryos).toHaveLength(3);
+    expect(embryos.slice(1).map((row) => row[1])).toEqual(['ok', 'ok']);
     expect(parseCsv(readFileSync(join(out, 'boundaries.csv'), 'utf8'))[0]).toEqual([...BOUNDARY_COLUMNS]);
     expect(parseCsv(readFileSync(join(out, 'profiles.csv'), 'utf8'))[0]).toEqual([...PROFILE_COLUMNS]);
     const landmarks = table(join(out, 'landmarks.csv'));
     expect(parseCsv(readFileSync(join(out, 'landmarks.csv'), 'utf8'))[0]).toEqual([...LANDMARK_COLUMNS]);
-    expect(landmarks.map((l) => l.name)).toEqual(['furrow', 'furrow', 'furrow', 'furrow']);
-    expect(resultsFromJson(readFileSync(join(out, 'results.json'), 'utf8'))).toHaveLength(4);
+    expect(landmarks.map((l) => l.name)).toEqual(['furrow', 'furrow']);
+    expect(resultsFromJson(readFileSync(join(out, 'results.json'), 'utf8'))).toHaveLength(2);
     const run = JSON.parse(readFileSync(join(out, 'run.json'), 'utf8'));
     expect(run.inputs.map((i: { sha256: string }) => i.sha256)).toEqual(expect.arrayContaining([expect.stringMatching(/^[0-9a-f]{64}$/)]));
   }, 180_000);
