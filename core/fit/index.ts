@@ -7,3 +7,8 @@ export type { NonlinearOptions } from './nonlinear-options';
 export type { JacobianFunction, ModelFunction } from './problem';
 export { fitExponentialDecay } from './exponential';
 export type { ExponentialOptions } from './exponential';
+export { fitLogisticBoundary } from './logistic-boundary';
+export type { LogisticBoundary, LogisticOptions } from './logistic-boundary';
+export { halfMaxCrossing, thresholdCrossing } from './crossing';
+export type { CrossingOptions, CrossingResult, Threshold } from './crossing';
+export { findBoundaries } from './boundary';
