@@ -4,6 +4,7 @@ import type { ImagePoint, Plane } from '../model';
 import { gaussianSmooth } from '../image';
 import { createRng } from '../stats';
 import type { Rng } from '../stats';
+import { ellipseDepth } from './ellipse-distance';
 import { checkSynthParams, DEFAULT_SYNTH_PARAMS } from './params';
 import type { SyntheticEmbryoParams } from './params';
 
@@ -122,9 +123,8 @@ function sectionSignal(p: SyntheticEmbryoParams, f: Frame, zUm: number): [Plane,
     const qy = f.Y[i] * ib;
     const r = Math.sqrt(qx * qx + qy * qy);
     if (r > 1 + 2 * px * ia) continue;
-    // First-order distance inside the surface: (1 − r) / |∇r|.
-    const grad = Math.sqrt((qx * ia) ** 2 + (qy * ib) ** 2) / Math.max(r, 1e-9);
-    const depthUm = r > 0 ? (1 - r) / grad : 1 / ib;
+    // Deep inside, only "deeper than the layer" matters, so the exact distance is computed near the surface only.
+    const depthUm = r < 1 - 40 * ib ? 40 : ellipseDepth(f.X[i], f.Y[i], 1 / ia, 1 / ib);
     const cover = Math.min(1, Math.max(0, 0.5 + depthUm / px));
     if (cover === 0) continue;
     const layer = p.interiorLevel + (1 - p.interiorLevel) / (1 + Math.exp((depthUm - p.nuclearLayerUm) / 2));

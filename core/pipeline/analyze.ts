@@ -1,0 +1,60 @@
+// One embryo end to end: project → detect → (hand axis) → prepare → measure, as an EmbryoResult that never throws.
+import type { EmbryoResult, HandEdits, PlaneSource, StackInfo } from '../model';
+import type { AnalysisSettings } from '../settings';
+import { projectStack } from '../image';
+import { detectEmbryo } from '../geometry';
+import { measureEmbryo, prepareSampling } from '../profile';
+
+/** Per-file options of analyzeStack. */
+export interface AnalyzeOptions {
+  /** File name or path relative to the input folder; starts every error message. */
+  readonly fileLabel: string;
+  /** Hand axis and landmarks from the project; the hand axis replaces the automatic one. */
+  readonly handEdits?: HandEdits | null;
+}
+
+/** An error result naming the file, with a one-line message. */
+export function errorResult(file: string, message: string, warnings: readonly string[] = []): EmbryoResult {
+  const line = message.split('\n')[0].trim() || 'unknown error';
+  return {
+    file, status: 'error', error: line.startsWith(file) ? line : `${file}: ${line}`, warnings, pixelSizeUm: null,
+    pixelSizeSource: 'unknown', eggLengthUm: null, eggWidthUm: null, axis: null, gradientChannel: null,
+    gradientProfile: null, gradientFit: null, boundaryProfiles: [], boundaries: [], landmarks: [], backgrounds: [],
+  };
+}
+
+/** Check that the stack has something to analyse (exact messages). */
+function checkInfo(info: StackInfo): string | null {
+  if (!(info.sizeX > 0 && info.sizeY > 0)) return `image size ${info.sizeX}×${info.sizeY} has no pixels`;
+  if (!(info.sizeZ > 0 && info.sizeC > 0 && info.sizeT > 0)) return `stack has ${info.sizeZ} slice(s), ${info.sizeC} channel(s), ${info.sizeT} time point(s); nothing to analyse`;
+  return null;
+}
+
+/**
+ * Analyse one stack with the given settings. Pixel size: the file's, else settings.pixelSizeUm ('user'), else
+ * unknown (lengths in px, µm values null, with a warning). Bad data gives status 'error' with a one-line message
+ * naming the file; this function does not throw for bad data.
+ */
+export async function analyzeStack(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, options: AnalyzeOptions): Promise<EmbryoResult> {
+  const file = options.fileLabel;
+  const bad = checkInfo(info);
+  if (bad) return errorResult(file, bad);
+  try {
+    const projected = await projectStack(info, source, settings);
+    const detection = detectEmbryo(projected, settings);
+    const hand = options.handEdits?.axis ?? null;
+    const axis = hand ? { ...hand, source: 'hand' as const } : detection.axis;
+    const prepared = prepareSampling(projected, detection, settings);
+    const m = measureEmbryo(prepared, axis, settings, options.handEdits?.landmarks ?? []);
+    const px = projected.pixelSizeUm;
+    const warnings = [...new Set([...info.warnings, ...projected.warnings, ...detection.warnings, ...m.warnings])];
+    return {
+      file, status: 'ok', error: null, warnings, pixelSizeUm: px, pixelSizeSource: projected.pixelSizeSource,
+      eggLengthUm: m.eggLengthUm, eggWidthUm: px !== null ? detection.eggWidthUm : null, axis,
+      gradientChannel: m.gradientChannel, gradientProfile: m.gradientProfile, gradientFit: m.gradientFit,
+      boundaryProfiles: m.boundaryProfiles, boundaries: m.boundaries, landmarks: m.landmarks, backgrounds: m.backgrounds,
+    };
+  } catch (e) {
+    return errorResult(file, e instanceof Error ? e.message : String(e));
+  }
+}

@@ -1,0 +1,67 @@
+// Background estimates per channel: outside the embryo (robust), a drawn rectangle, or none.
+import type { BackgroundEstimate, Mask, Plane } from '../model';
+import type { BackgroundSettings } from '../settings';
+import { distanceOutside, sortedQuantile } from '../image';
+
+/** Fewest outside pixels accepted for the 'outside' estimate before falling back to a low percentile. */
+const MIN_OUTSIDE_PX = 100;
+
+/**
+ * 'outside' background: the median of the pixels farther than marginPx from the mask (the margin keeps blurred
+ * embryo light out of the estimate; the median ignores debris and neighbours). With too few such pixels, the 2nd
+ * percentile of the whole image is used instead and a warning says so.
+ */
+export function outsideBackground(plane: Plane, mask: Mask, marginPx: number): { value: number; warning: string | null } {
+  return outsideBackgroundFar(plane, farFromMask(mask, marginPx));
+}
+
+/** 1 where a pixel centre lies farther than marginPx from every mask pixel centre. */
+export function farFromMask(mask: Mask, marginPx: number): Uint8Array {
+  const dist = distanceOutside(mask);
+  const far = new Uint8Array(dist.length);
+  for (let i = 0; i < dist.length; i++) far[i] = dist[i] > marginPx ? 1 : 0;
+  return far;
+}
+
+/** outsideBackground with the far-from-mask pixels already known (so several channels share one distance map). */
+export function outsideBackgroundFar(plane: Plane, far: Uint8Array): { value: number; warning: string | null } {
+  const values = new Float32Array(far.length);
+  let n = 0;
+  for (let i = 0; i < far.length; i++) if (far[i] && Number.isFinite(plane.data[i])) values[n++] = plane.data[i];
+  if (n >= MIN_OUTSIDE_PX) return { value: sortedQuantile(values.subarray(0, n).sort(), 0.5), warning: null };
+  const all = Float64Array.from(plane.data).sort();
+  return { value: sortedQuantile(all, 0.02), warning: 'too little background outside the embryo; the 2nd percentile of the image was used as background' };
+}
+
+/** Mean of the pixels of `plane` inside the rectangle (clipped to the image); NaN when nothing is left. */
+export function regionMean(plane: Plane, region: { x: number; y: number; width: number; height: number }): number {
+  const x0 = Math.max(0, Math.floor(region.x));
+  const y0 = Math.max(0, Math.floor(region.y));
+  const x1 = Math.min(plane.width, Math.floor(region.x + region.width));
+  const y1 = Math.min(plane.height, Math.floor(region.y + region.height));
+  let s = 0;
+  let n = 0;
+  for (let y = y0; y < y1; y++) for (let x = x0; x < x1; x++) { s += plane.data[y * plane.width + x]; n++; }
+  return n > 0 ? s / n : NaN;
+}
+
+/** Background of every channel by settings.mode, with warnings (a bad region gives 0 and a warning). */
+export function estimateBackgrounds(channels: readonly Plane[], names: readonly string[], mask: Mask, settings: BackgroundSettings, marginPx: number): { backgrounds: BackgroundEstimate[]; warnings: string[] } {
+  const warnings: string[] = [];
+  const far = settings.mode === 'outside' ? farFromMask(mask, marginPx) : null;
+  const backgrounds = channels.map((plane, c): BackgroundEstimate => {
+    if (settings.mode === 'none') return { channel: names[c], method: 'none', value: 0 };
+    if (settings.mode === 'region') {
+      const v = settings.regionPx ? regionMean(plane, settings.regionPx) : NaN;
+      if (!Number.isFinite(v)) {
+        if (c === 0) warnings.push('background region is missing or lies outside the image; no background was subtracted');
+        return { channel: names[c], method: 'region', value: 0 };
+      }
+      return { channel: names[c], method: 'region', value: v };
+    }
+    const out = outsideBackgroundFar(plane, far as Uint8Array);
+    if (out.warning && c === 0) warnings.push(out.warning);
+    return { channel: names[c], method: 'outside', value: out.value };
+  });
+  return { backgrounds, warnings };
+}

@@ -1,0 +1,112 @@
+// Measure one embryo along a given AP axis: profiles, exponential fit, boundaries and landmark positions.
+// Fast enough for live use: everything independent of the axis was done by prepareSampling.
+import type { ApAxis, BackgroundEstimate, Boundary, ExponentialFit, Landmark, LandmarkPosition, Profile } from '../model';
+import type { AnalysisSettings, ChannelRef } from '../settings';
+import { describeChannelRef, resolveChannel } from '../image';
+import { axisLengthPx, projectPointOntoAxis } from '../geometry';
+import { fitExponentialDecay } from '../fit';
+import type { PreparedSampling } from './prepare';
+import { binIndices, binProfile } from './bin';
+import type { SideFilter } from './bin';
+import { boundaryFinder } from './boundary-finder';
+
+/** Everything measured along one axis. µm values are null/NaN when the pixel size is unknown. */
+export interface Measurement {
+  readonly gradientChannel: string | null;
+  readonly gradientProfile: Profile | null;
+  /** null (with a warning) when the fit fails or the gradient channel is missing. */
+  readonly gradientFit: ExponentialFit | null;
+  readonly boundaryProfiles: readonly Profile[];
+  readonly boundaries: readonly Boundary[];
+  readonly landmarks: readonly LandmarkPosition[];
+  readonly backgrounds: readonly BackgroundEstimate[];
+  readonly eggLengthUm: number | null;
+  readonly warnings: readonly string[];
+}
+
+/** Side of the A→P line sampled: edge mode follows edgeSide and dorsalSide; the axis strip takes both sides. */
+export function sideFilter(settings: AnalysisSettings): SideFilter {
+  const p = settings.profile;
+  if (p.mode === 'axis' || p.edgeSide === 'both') return 'all';
+  const dorsalLeft = p.dorsalSide === 'left';
+  return (p.edgeSide === 'dorsal') === dorsalLeft ? 'left' : 'right';
+}
+
+/** Copy of a profile without its empty bins (fit and boundary finders need finite values). */
+export function filledBins(p: Profile): Profile {
+  const keep: number[] = [];
+  for (let b = 0; b < p.n.length; b++) if (p.n[b] > 0 && Number.isFinite(p.mean[b])) keep.push(b);
+  const pick = (a: Float64Array): Float64Array => Float64Array.from(keep, (b) => a[b]);
+  return { channel: p.channel, xEl: pick(p.xEl), xUm: pick(p.xUm), mean: pick(p.mean), sd: pick(p.sd), n: pick(p.n) };
+}
+
+/**
+ * Exponential fit of a profile over settings.fitRangeEl; null + warning on failure. Without a pixel size the fit
+ * runs in pixels and its µm values are NaN (λ in EL stays valid).
+ */
+export function fitProfile(profile: Profile, axisPx: number, pixelSizeUm: number | null, fitRangeEl: readonly [number, number], warnings: string[]): ExponentialFit | null {
+  const p = filledBins(profile);
+  const scale = pixelSizeUm ?? 1;
+  const xUm = Float64Array.from(p.xEl, (x) => x * axisPx * scale);
+  try {
+    const fit = fitExponentialDecay(xUm, p.mean, { eggLengthUm: axisPx * scale, fitRangeEl, xEl: p.xEl });
+    if (pixelSizeUm !== null) return fit;
+    return { ...fit, lambdaUm: NaN, lambdaSeUm: NaN, lambdaCiLowUm: NaN, lambdaCiHighUm: NaN };
+  } catch (e) {
+    warnings.push(`exponential fit of ${profile.channel} failed: ${e instanceof Error ? e.message : String(e)}`);
+    return null;
+  }
+}
+
+/** Resolve channel refs, warning (not failing) for channels the file lacks. */
+function resolveRefs(refs: readonly ChannelRef[], names: readonly string[], role: string, warnings: string[]): number[] {
+  const out: number[] = [];
+  for (const ref of refs) {
+    const c = resolveChannel(ref, names);
+    if (c === null) warnings.push(`the file has no ${describeChannelRef(ref)} (${role}); it was skipped`);
+    else out.push(c);
+  }
+  return out;
+}
+
+/**
+ * Measure along `axis` with the prepared pixels: binned profiles of the gradient and boundary channels (edge band or
+ * axis strip, background subtracted), the exponential fit of the gradient, boundaries per boundary channel and the
+ * landmarks' positions on the axis.
+ */
+export function measureEmbryo(prepared: PreparedSampling, axis: ApAxis, settings: AnalysisSettings, landmarks: readonly Landmark[]): Measurement {
+  const warnings: string[] = [...prepared.warnings];
+  const px = prepared.pixelSizeUm;
+  const axisPx = axisLengthPx(axis);
+  const eggLengthUm = px !== null ? axisPx * px : null;
+  const prof = settings.profile;
+  const set = prof.mode === 'axis' ? prepared.inside : prepared.band;
+  const halfStripPx = prof.mode === 'axis' ? (px ? prof.axisWidthUm / px : prof.axisWidthUm) / 2 : Infinity;
+  const bins = binIndices(set.xs, set.ys, axis, prof.binCount, sideFilter(settings), halfStripPx);
+  const profileOf = (c: number): Profile => binProfile(set.values[c], bins, prof.binCount, prepared.channelNames[c], eggLengthUm);
+  const g = resolveRefs([settings.gradientChannel], prepared.channelNames, 'gradient', warnings)[0] ?? null;
+  const gradientProfile = g !== null ? profileOf(g) : null;
+  const gradientFit = gradientProfile ? fitProfile(gradientProfile, axisPx, px, settings.fitRangeEl, warnings) : null;
+  const bc = resolveRefs(settings.boundaryChannels, prepared.channelNames, 'boundary', warnings);
+  const boundaryProfiles = bc.map(profileOf);
+  const finder = boundaryFinder();
+  if (!finder && boundaryProfiles.length > 0) warnings.push('boundary finder not available in this build; boundaries were not measured');
+  const boundaries = finder ? boundaryProfiles.flatMap((p) => {
+    try {
+      return finder(filledBins(p), settings.boundaryMethods, settings.boundaryThresholdFraction, eggLengthUm);
+    } catch (e) {
+      warnings.push(`boundaries of ${p.channel} failed: ${e instanceof Error ? e.message : String(e)}`);
+      return [];
+    }
+  }) : [];
+  const used = [...new Set(g !== null ? [g, ...bc] : bc)];
+  return {
+    gradientChannel: g !== null ? prepared.channelNames[g] : null, gradientProfile, gradientFit, boundaryProfiles, boundaries,
+    landmarks: landmarks.map((l) => ({ name: l.name, point: l.point, ...pick(projectPointOntoAxis(l.point, axis, px)) })),
+    backgrounds: used.map((c) => prepared.backgrounds[c]), eggLengthUm, warnings,
+  };
+}
+
+function pick(p: { xEl: number; xUm: number; offAxisUm: number }): { xEl: number; xUm: number; offAxisUm: number } {
+  return { xEl: p.xEl, xUm: p.xUm, offAxisUm: p.offAxisUm };
+}

@@ -1,0 +1,77 @@
+// Everything about sampling that does not depend on where the axis handles are: computed once per detection.
+import type { BackgroundEstimate, Detection, Mask, ProjectedStack } from '../model';
+import type { AnalysisSettings } from '../settings';
+import { distanceInside } from '../image';
+import { estimateBackgrounds } from './background';
+
+/** Pixel positions (px, pixel centres) and background-subtracted values of every channel at those pixels. */
+export interface PixelSet {
+  readonly xs: Float32Array;
+  readonly ys: Float32Array;
+  /** values[c][k] = channel c at pixel k, background subtracted. */
+  readonly values: readonly Float32Array[];
+}
+
+/** Result of prepareSampling; pass it to measureEmbryo and sampleBandOutline. Re-prepare when the projection,
+ * the mask, the edge depth or the background settings change. */
+export interface PreparedSampling {
+  readonly width: number;
+  readonly height: number;
+  readonly pixelSizeUm: number | null;
+  readonly channelNames: readonly string[];
+  readonly mask: Mask;
+  /** Distance from each mask pixel centre to the nearest outside pixel centre, px (0 outside). */
+  readonly depthPx: Float32Array;
+  /** Band depth used (px) and the mask of the band pixels. */
+  readonly edgeDepthPx: number;
+  readonly bandMask: Mask;
+  /** Pixels of the edge band, and all pixels of the mask (for the axis strip). */
+  readonly band: PixelSet;
+  readonly inside: PixelSet;
+  readonly backgrounds: readonly BackgroundEstimate[];
+  readonly warnings: readonly string[];
+}
+
+/** Collect positions and background-subtracted values of the pixels where keep[i] is set. */
+function pixelSet(projected: ProjectedStack, keep: (i: number) => boolean, backgrounds: readonly BackgroundEstimate[]): PixelSet {
+  const { width, data } = projected.channels[0];
+  const idx: number[] = [];
+  for (let i = 0; i < data.length; i++) if (keep(i)) idx.push(i);
+  const xs = new Float32Array(idx.length);
+  const ys = new Float32Array(idx.length);
+  idx.forEach((i, k) => { xs[k] = i % width; ys[k] = Math.floor(i / width); });
+  const values = projected.channels.map((ch, c) => {
+    const v = new Float32Array(idx.length);
+    const b = backgrounds[c].value;
+    idx.forEach((i, k) => { v[k] = ch.data[i] - b; });
+    return v;
+  });
+  return { xs, ys, values };
+}
+
+/**
+ * Prepare sampling for one detection: distance-to-edge map, the edge band (pixels whose centre lies within
+ * edgeDepthUm of the outline: depth − 0.5 px ≤ edgeDepth, the outline lying half a pixel outside the last inside
+ * centre), all mask pixels, and background estimates per channel (outside margin: 10 µm, at least 5 px).
+ */
+export function prepareSampling(projected: ProjectedStack, detection: Detection, settings: AnalysisSettings): PreparedSampling {
+  const warnings: string[] = [];
+  const px = projected.pixelSizeUm;
+  if (px === null) warnings.push('pixel size unknown: edge depth, strip width and background margin are taken as pixels');
+  const toPx = (um: number): number => (px ? um / px : um);
+  const mask = detection.mask;
+  const depthPx = distanceInside(mask);
+  const edgeDepthPx = toPx(settings.profile.edgeDepthUm);
+  const bg = estimateBackgrounds(projected.channels, projected.channelNames, mask, settings.background, Math.max(5, toPx(10)));
+  warnings.push(...bg.warnings);
+  const inBand = (i: number): boolean => mask.data[i] === 1 && depthPx[i] - 0.5 <= edgeDepthPx;
+  const bandData = new Uint8Array(mask.data.length);
+  for (let i = 0; i < bandData.length; i++) bandData[i] = inBand(i) ? 1 : 0;
+  return {
+    width: mask.width, height: mask.height, pixelSizeUm: px, channelNames: projected.channelNames, mask, depthPx,
+    edgeDepthPx, bandMask: { width: mask.width, height: mask.height, data: bandData },
+    band: pixelSet(projected, (i) => bandData[i] === 1, bg.backgrounds),
+    inside: pixelSet(projected, (i) => mask.data[i] === 1, bg.backgrounds),
+    backgrounds: bg.backgrounds, warnings,
+  };
+}
