@@ -13,7 +13,7 @@ function slopeSentence(fit: DosageFit, pct: number): string {
   if (fit.predictedSlopeEl === null) return `${head} No prediction: the reference has no fitted λ.`;
   const inside = fit.predictedSlopeEl >= fit.ciLow && fit.predictedSlopeEl <= fit.ciHigh;
   const verdict = inside
-    ? 'which lies inside that interval: the shift is consistent with a fixed threshold on this gradient.'
+    ? 'which lies inside that interval: within this precision the shift is consistent with a fixed threshold on this gradient.'
     : fit.predictedSlopeEl > fit.ciHigh
       ? 'which is above that interval: the position moves less than a fixed threshold on this gradient alone predicts.'
       : 'which is below that interval: the position moves more than a fixed threshold on this gradient alone predicts.';
@@ -29,7 +29,7 @@ function shiftSentence(s: ShiftRow): string {
   const dir = s.observedShiftEl > 0 ? 'posterior' : 'anterior';
   const expected = s.lnF === null || s.lnF === 0 ? '' : (s.lnF > 0) === (s.observedShiftEl > 0) ? ' (the direction the model expects)' : ' (opposite to the direction the model expects)';
   const ratio = s.ratio !== null ? `; observed/predicted ${prose(s.ratio)} (CI ${prose(s.ratioCiLow)} to ${prose(s.ratioCiHigh)})` : '';
-  return `${s.condition} (f = ${prose(s.lnF !== null ? Math.exp(s.lnF) : null)}, n = ${s.nCondition} vs ${s.nReference}): moved ${prose(s.observedShiftEl, true)} x/EL ${dir}${expected}, CI ${prose(s.ciLow, true)} to ${prose(s.ciHigh, true)}; predicted ${prose(s.predictedShiftEl, true)}${ratio}.`;
+  return `${s.condition} (f = ${prose(s.lnF !== null ? Math.exp(s.lnF) : null)}, n = ${s.nCondition} vs ${s.nReference} in the reference): moved ${prose(Math.abs(s.observedShiftEl))} x/EL ${dir}${expected}, CI ${prose(s.ciLow, true)} to ${prose(s.ciHigh, true)}; predicted ${prose(s.predictedShiftEl, true)}${ratio}.`;
 }
 
 /** Paragraphs (plain text) reading the dosage test per quantity, then the caveats. */

@@ -18,8 +18,8 @@ const esc = escapeXml;
 const CSS = `body{font-family:system-ui,sans-serif;margin:2rem auto;max-width:1100px;padding:0 1rem;color:#222;line-height:1.45}
 h1{font-size:1.6rem}h2{font-size:1.25rem;margin-top:2.2rem;border-bottom:1px solid #ddd;padding-bottom:.2rem}h3{font-size:1.05rem}
 table{border-collapse:collapse;margin:.6rem 0 1rem;font-size:.88rem}th,td{border:1px solid #ddd;padding:.25rem .5rem;text-align:right}
-th{background:#f4f4f4}td.t,th.t{text-align:left}figure{margin:1rem 0}figcaption{font-size:.85rem;color:#555}
-svg{max-width:100%;height:auto}pre{background:#f7f7f7;padding:.6rem;overflow:auto;font-size:.8rem}.warn{color:#8a4b00}.note{color:#555;font-size:.9rem}`;
+th{background:#f4f4f4}td{white-space:nowrap}td.t,th.t{text-align:left;white-space:normal}figure{margin:1rem 0}figcaption{font-size:.85rem;color:#555}
+figure svg{width:100%;max-width:860px;height:auto}pre{background:#f7f7f7;padding:.6rem;overflow:auto;font-size:.8rem}.warn{color:#8a4b00}.note{color:#555;font-size:.9rem}`;
 
 function table(header: readonly string[], rows: readonly (readonly string[])[], textCols = 1): string {
   const th = header.map((h, i) => `<th${i < textCols ? ' class="t"' : ''}>${esc(h)}</th>`).join('');
