@@ -8,6 +8,7 @@ export interface StrdModel {
   readonly jacobian?: JacobianFunction;
 }
 
+/** Model (and analytic Jacobian where given) per dataset name, as stated in the NIST files. */
 export const STRD_MODELS: Record<string, StrdModel> = {
   // y = b1*(1-exp[-b2*x])  (Misra1a and BoxBOD)
   Misra1a: {
