@@ -4,11 +4,10 @@ import type { ApAxis, BackgroundEstimate, Boundary, ExponentialFit, Landmark, La
 import type { AnalysisSettings, ChannelRef } from '../settings';
 import { describeChannelRef, resolveChannel } from '../image';
 import { axisLengthPx, projectPointOntoAxis } from '../geometry';
-import { fitExponentialDecay } from '../fit';
+import { findBoundaries, fitExponentialDecay } from '../fit';
 import type { PreparedSampling } from './prepare';
 import { binIndices, binProfile } from './bin';
 import type { SideFilter } from './bin';
-import { boundaryFinder } from './boundary-finder';
 
 /** Everything measured along one axis. µm values are null/NaN when the pixel size is unknown. */
 export interface Measurement {
@@ -89,16 +88,14 @@ export function measureEmbryo(prepared: PreparedSampling, axis: ApAxis, settings
   const gradientFit = gradientProfile ? fitProfile(gradientProfile, axisPx, px, settings.fitRangeEl, warnings) : null;
   const bc = resolveRefs(settings.boundaryChannels, prepared.channelNames, 'boundary', warnings);
   const boundaryProfiles = bc.map(profileOf);
-  const finder = boundaryFinder();
-  if (!finder && boundaryProfiles.length > 0) warnings.push('boundary finder not available in this build; boundaries were not measured');
-  const boundaries = finder ? boundaryProfiles.flatMap((p) => {
+  const boundaries = boundaryProfiles.flatMap((p) => {
     try {
-      return finder(filledBins(p), settings.boundaryMethods, settings.boundaryThresholdFraction, eggLengthUm);
+      return findBoundaries(filledBins(p), settings.boundaryMethods, settings.boundaryThresholdFraction, eggLengthUm);
     } catch (e) {
       warnings.push(`boundaries of ${p.channel} failed: ${e instanceof Error ? e.message : String(e)}`);
       return [];
     }
-  }) : [];
+  });
   const used = [...new Set(g !== null ? [g, ...bc] : bc)];
   return {
     gradientChannel: g !== null ? prepared.channelNames[g] : null, gradientProfile, gradientFit, boundaryProfiles, boundaries,
