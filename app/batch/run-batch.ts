@@ -50,6 +50,8 @@ export interface RunBatchOptions {
 export interface BatchRunResult extends BatchSummary {
   readonly written: readonly string[];
   readonly warnings: readonly string[];
+  /** Why the cohort step failed (the batch tables are written regardless); null when it ran or was not asked for. */
+  readonly cohortError: string | null;
   readonly record: RunRecord;
 }
 
@@ -141,6 +143,7 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   };
   const written = await writeBatchOutputs(outDir, results, record);
   const warnings: string[] = [];
+  let cohortError: string | null = null;
   if (opts.cohort && !cancelled) {
     const failures = results.filter((r) => r.status === 'error').map((r) => ({ file: r.file, error: r.error ?? 'error' }));
     const step = await runCohort({
@@ -148,7 +151,8 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
     });
     written.push(...step.written);
     warnings.push(...step.warnings);
+    cohortError = step.error;
   }
   progress({ done, file: null, status: cancelled ? 'cancelled' : 'finished', message: null });
-  return { runId, outDir, ok, failed: results.length - ok, cancelled, results, written, warnings, record };
+  return { runId, outDir, ok, failed: results.length - ok, cancelled, results, written, warnings, cohortError, record };
 }

@@ -127,7 +127,9 @@ export async function batchCommand(argv: readonly string[], io: CliIo, extra: Pa
     }
     io.stdout.write(`${summary.cancelled ? 'Cancelled after' : 'Analysed'} ${total} file${total === 1 ? '' : 's'}: ${summary.ok} ok, ${summary.failed} failed.\n`);
     io.stdout.write(`Tables written to ${summary.outDir}\n`);
-    return summary.failed > 0 || summary.cancelled ? 1 : 0;
+    if (summary.cohortError) io.stderr.write(`eggline: the cohort step failed: ${summary.cohortError}\n`);
+    else if (plan.samples) io.stdout.write(`Cohort report: ${join(summary.outDir, 'report.html')}\n`);
+    return summary.failed > 0 || summary.cancelled || summary.cohortError ? 1 : 0;
   } finally {
     printer.end();
     process.removeListener('SIGINT', onSigint);

@@ -2,7 +2,7 @@
 import { BatchOptionError } from '../../core/batch';
 import { EGGLINE_VERSION } from '../batch/versions';
 import { batchCommand } from './batch-command';
-import { runCohortCommand } from './cohort-entry';
+import { cohortCommand } from './cohort-command';
 import { demoCommand } from './demo-command';
 import { MAIN_HELP } from './help';
 import { inspectCommand } from './inspect-command';
@@ -17,7 +17,7 @@ export interface CliEnv {
 export async function runCli(argv: readonly string[], io: CliIo, env: CliEnv = {}): Promise<number> {
   const COMMANDS: Record<string, (argv: readonly string[], io: CliIo) => Promise<number>> = {
     batch: (a, o) => batchCommand(a, o, env.workerPath ? { workerPath: env.workerPath } : {}),
-    cohort: runCohortCommand, inspect: inspectCommand, demo: demoCommand,
+    cohort: (a, o) => cohortCommand([...a], o), inspect: inspectCommand, demo: demoCommand,
   };
   const [first, ...rest] = argv;
   if (first === undefined || first === '--help' || first === '-h' || first === 'help') {

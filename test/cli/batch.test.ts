@@ -33,10 +33,10 @@ describe('eggline demo', () => {
 });
 
 describe('eggline batch on the demo set', () => {
-  it('writes every table with all columns, one row per file, all ok, landmarks from the project', async () => {
+  it('writes every table with all columns, one row per file, all ok, landmarks from the project, then the cohort report', async () => {
     const out = join(dir, 'out-demo');
     const before = listing(demo);
-    const r = await cli(['batch', demo, '--out', out, '--jobs', '2', '--boundary-channel', '2']);
+    const r = await cli(['batch', demo, '--out', out, '--jobs', '2', '--boundary-channel', '2', '--samples', join(demo, 'samples.csv')]);
     expect(r.stderr).toContain('using hand edits from');
     expect(r.code).toBe(0);
     expect(listing(demo)).toEqual(before);
@@ -51,6 +51,8 @@ describe('eggline batch on the demo set', () => {
     expect(landmarks.map((l) => l.name)).toEqual(['furrow', 'furrow']);
     expect(resultsFromJson(readFileSync(join(out, 'results.json'), 'utf8'))).toHaveLength(2);
     const run = JSON.parse(readFileSync(join(out, 'run.json'), 'utf8'));
+    expect(r.stdout).toContain(`Cohort report: ${join(out, 'report.html')}`);
+    expect(listing(out).map((l) => l.split(' ')[0])).toEqual(expect.arrayContaining(['report.html', 'conditions.csv']));
     expect(run.inputs.map((i: { sha256: string }) => i.sha256)).toEqual(expect.arrayContaining([expect.stringMatching(/^[0-9a-f]{64}$/)]));
   }, 180_000);
 });
