@@ -23,7 +23,9 @@ export interface HandlerDeps {
   readonly engine?: AnalysisEngine;
   /** Told when the recent list changes (the app rebuilds its menu). */
   readonly onRecentChanged?: (paths: readonly string[]) => void;
-  /** Worker count for batches; default: cores − 1, at least 1. */
+  /** Write only this many demo embryos (spread over the conditions); default: the whole demo set. */
+  readonly demoSubset?: number;
+  /** Worker count for batches (0 = in this thread); default: cores − 1, at least 1. */
   readonly batchJobs?: number;
 }
 

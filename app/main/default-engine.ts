@@ -1,17 +1,55 @@
-// The real analysis services: sharp decoding, the core pipeline, the batch engine and the demo writer.
-import type { AnalysisEngine } from './engine';
+// The real analysis services: sharp decoding (app/decode), the core pipeline, the batch engine and the demo writer.
+import { detectEmbryo, projectStack } from '../../core/pipeline';
+import type { AnalysisSettings } from '../../core/settings';
+import { runBatch } from '../batch/run-batch';
+import { writeDemoDataSet } from '../batch/write-demo';
+import { openStackForAnalysis } from '../decode';
+import type { AnalysisEngine, BatchRunOptions, SliceData, ViewData } from './engine';
 import { ApiFailure } from './result';
 
-const missing = (what: string) => async (): Promise<never> => {
-  throw new ApiFailure('internal', `${what} is not available in this build yet`);
-};
+/** Read, project over Z and detect; decoder fallbacks are reported with the projection's warnings. */
+async function loadForView(path: string, label: string, settings: AnalysisSettings): Promise<ViewData> {
+  const opened = await openStackForAnalysis(path, label);
+  try {
+    const projected = await projectStack(opened.info, opened.source, settings);
+    const detection = detectEmbryo(projected, settings);
+    return { info: opened.info, projected: { ...projected, warnings: [...projected.warnings, ...opened.warnings] }, detection };
+  } finally {
+    await opened.source.close();
+  }
+}
+
+/** Check a plane index against the stack's size. */
+function checkIndex(label: string, name: string, value: number, size: number, unit: string): void {
+  if (value >= size) throw new ApiFailure('bad-argument', `${label}: ${name}=${value} is out of range (the stack has ${size} ${unit})`);
+}
+
+/** Decode plane (z, c, t) as floats. */
+async function readSlice(path: string, label: string, z: number, c: number, t: number): Promise<SliceData> {
+  const opened = await openStackForAnalysis(path, label);
+  try {
+    checkIndex(label, 'z', z, opened.info.sizeZ, 'slices');
+    checkIndex(label, 'c', c, opened.info.sizeC, 'channels');
+    checkIndex(label, 't', t, opened.info.sizeT, 'time points');
+    const plane = await opened.source.readPlane(z, c, t);
+    return { width: plane.width, height: plane.height, data: Float32Array.from(plane.data) };
+  } finally {
+    await opened.source.close();
+  }
+}
+
+/** Run the batch engine and keep only the summary the renderer needs. */
+async function runBatchSummary(options: BatchRunOptions) {
+  const r = await runBatch({ ...options, doc: options.doc });
+  return { runId: r.runId, outDir: r.outDir, ok: r.ok, failed: r.failed, cancelled: r.cancelled, results: r.results };
+}
 
 /** The engine backed by app/decode, core/pipeline and app/batch. */
 export function createDefaultEngine(): AnalysisEngine {
   return {
-    loadForView: missing('stack analysis'),
-    readSlice: missing('slice reading'),
-    runBatch: missing('the batch engine'),
-    writeDemoDataSet: missing('the demo data writer'),
+    loadForView,
+    readSlice,
+    runBatch: runBatchSummary,
+    writeDemoDataSet: (dir, options) => writeDemoDataSet(dir, options),
   };
 }

@@ -18,7 +18,7 @@ export async function ensureDemoData(ctx: ShellContext): Promise<string> {
   await fs.mkdir(ctx.deps.dataDir, { recursive: true });
   const tmp = `${dir}.${process.pid}.${randomBytes(4).toString('hex')}.tmp`;
   try {
-    await ctx.engine.writeDemoDataSet(tmp);
+    await ctx.engine.writeDemoDataSet(tmp, ctx.deps.demoSubset === undefined ? {} : { subset: ctx.deps.demoSubset });
     await fs.rename(tmp, dir);
   } catch (e) {
     await fs.rm(tmp, { recursive: true, force: true });

@@ -38,5 +38,5 @@ export interface AnalysisEngine {
   /** Run a batch to completion or cancellation. */
   runBatch(options: BatchRunOptions): Promise<BatchSummary>;
   /** Write the synthetic demo data set into `dir` (which must be empty or missing). */
-  writeDemoDataSet(dir: string): Promise<{ files: string[]; samplesPath: string; projectPath: string }>;
+  writeDemoDataSet(dir: string, options?: { subset?: number }): Promise<{ files: string[]; samplesPath: string; projectPath: string }>;
 }

@@ -43,6 +43,7 @@ export function failureFrom(e: unknown, label: string | null, fallback: ApiError
   if (e instanceof ProjectFormatError) return fail('bad-file', e.message);
   const err: Error & { code?: unknown } = e instanceof Error ? e : new Error(String(e));
   if (err.name === 'AbortError') return fail('cancelled', 'cancelled');
+  if (err.name === 'BatchOptionError') return fail('bad-argument', err.message);
   const errno = typeof err.code === 'string' ? ERRNO_CODES[err.code] : undefined;
   if (errno !== undefined) return fail(errno[0], errno[1]);
   if (err.name === 'TiffError' || (typeof err.code === 'string' && TIFF_CODES.has(err.code))) return fail('bad-file', err.message);

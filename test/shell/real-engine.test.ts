@@ -1,0 +1,77 @@
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import { mkdtemp, mkdir, readdir, rm, writeFile } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { ApiResult, BatchProgress, OpenedFolder } from '../../core/contract';
+import { createHandlers, type ApiHandlers } from '../../app/main/handlers';
+
+// End to end through the real decoder, pipeline, batch engine and demo writer, in this thread (demo data: the
+// synthetic demo embryos, a subset of 2 to keep the test quick).
+let root: string;
+let api: ApiHandlers;
+let demo: OpenedFolder;
+const progress: BatchProgress[] = [];
+let outDir: string | null = null;
+
+function value<T>(r: ApiResult<T>): T {
+  if (!r.ok) throw new Error(`expected ok, got ${r.error.code}: ${r.error.message}`);
+  return r.value;
+}
+
+beforeAll(async () => {
+  root = await mkdtemp(join(tmpdir(), 'eggline-real-'));
+  api = createHandlers({
+    dataDir: join(root, 'data'),
+    dialogs: { chooseFolder: async () => null, chooseFiles: async () => null, chooseOutputFolder: async () => outDir,
+      openProjectFile: async () => null, saveFile: async () => null },
+    emitBatchProgress: (p) => { progress.push(p); },
+    demoSubset: 2,
+    batchJobs: 0,
+  });
+  demo = value(await api.openDemo());
+}, 300_000);
+afterAll(async () => { await rm(root, { recursive: true, force: true }); });
+
+describe('handlers with the real analysis engine', () => {
+  it('opens the demo with its project and hand-marked landmarks', () => {
+    expect(demo.entries).toHaveLength(2);
+    for (const e of demo.entries) expect(e.status).toBe('edited');
+    expect(Object.keys(demo.project.files).sort()).toEqual(demo.entries.map((e) => e.name).sort());
+  });
+
+  it('loads a demo stack: projected channels and a detected axis', async () => {
+    const loaded = value(await api.loadStack(demo.entries[0].path, demo.project.settings));
+    expect(loaded.projected.channels).toHaveLength(loaded.info.sizeC);
+    expect(loaded.projected.channels[0].data).toBeInstanceOf(Float32Array);
+    expect(loaded.detection.eggLengthUm).toBeGreaterThan(0);
+    const slice = value(await api.loadSlice({ path: demo.entries[0].path, z: loaded.info.sizeZ - 1, c: 0, t: 0 }));
+    expect(slice.data).toHaveLength(loaded.info.sizeX * loaded.info.sizeY);
+    const out = await api.loadSlice({ path: demo.entries[0].path, z: loaded.info.sizeZ, c: 0, t: 0 });
+    expect(out).toEqual({ ok: false, error: { code: 'bad-argument',
+      message: `${demo.entries[0].name.split('/').pop()}: z=${loaded.info.sizeZ} is out of range (the stack has ${loaded.info.sizeZ} slices)` } });
+  });
+
+  it('reports a file that is not a TIFF with a one-line message naming it', async () => {
+    const bad = join(root, 'not-a-stack.tif');
+    await writeFile(bad, 'hello, this is text');
+    value(await api.openDropped([bad]));
+    const r = await api.loadStack(bad, demo.project.settings);
+    expect(r.ok).toBe(false);
+    if (!r.ok) {
+      expect(r.error.code).toBe('bad-file');
+      expect(r.error.message.startsWith('not-a-stack.tif: ')).toBe(true);
+      expect(r.error.message).not.toContain('\n');
+    }
+  });
+
+  it('runs a batch on the demo folder into a chosen output folder', async () => {
+    outDir = join(root, 'results');
+    await mkdir(outDir);
+    value(await api.chooseOutputFolder());
+    const summary = value(await api.runBatch(demo.folder, outDir, demo.project));
+    expect(summary).toMatchObject({ ok: 2, failed: 0, cancelled: false, outDir });
+    expect(progress.length).toBeGreaterThan(0);
+    expect(new Set(progress.map((p) => p.runId))).toEqual(new Set([summary.runId]));
+    expect(await readdir(outDir)).toEqual(expect.arrayContaining(['embryos.csv', 'results.json']));
+  });
+});
