@@ -59,52 +59,91 @@ function weightedNorm(d: Float64Array, v: ArrayLike<number>): number {
   return Math.sqrt(s);
 }
 
+/** A tried step: the trial point, its residuals and sum of squares, and the gain ratio ρ (≤ 0 = reject). */
+interface Trial {
+  readonly delta: Float64Array;
+  readonly params: number[];
+  readonly r: Float64Array;
+  readonly rss: number;
+  readonly predicted: number;
+  readonly rho: number;
+}
+
+/** Mutable state of one LM run. */
+interface LmState {
+  p: number[];
+  r: Float64Array;
+  rss: number;
+  j: Float64Array;
+  readonly d: Float64Array;
+  mu: number;
+  nu: number;
+}
+
+/** Solves the damped step and evaluates it; null when the step cannot be solved. */
+function tryStep(problem: LeastSquaresProblem, s: LmState, n: number, m: number): Trial | null {
+  const delta = dampedStep(s.j, s.r, s.d, s.mu, n, m);
+  if (!delta) return null;
+  const params = s.p.map((v, k) => v + delta[k]);
+  const r = weightedResiduals(problem, params);
+  const rss = sumOfSquares(r);
+  // Predicted decrease of the linear model: δᵀ(μD²δ + Jᵀr) (exact identity for the damped normal equations).
+  const g = jtr(s.j, s.r, n, m);
+  const predicted = delta.reduce((acc, v, k) => acc + v * (g[k] + s.mu * s.d[k] * s.d[k] * v), 0);
+  const rho = Number.isFinite(rss) && predicted > 0 ? (s.rss - rss) / predicted : -1;
+  return { delta, params, r, rss, predicted, rho };
+}
+
+/** Takes an accepted step, updates scaling and damping; true when the run has converged. */
+function acceptStep(problem: LeastSquaresProblem, s: LmState, t: Trial, scaling: ParameterScaling, n: number, m: number): boolean {
+  const stepSize = weightedNorm(s.d, t.delta), size = weightedNorm(s.d, s.p);
+  const relativeDecrease = (s.rss - t.rss) / s.rss;
+  s.p = t.params; s.r = t.r; s.rss = t.rss;
+  s.j = modelJacobian(problem, s.p);
+  if (scaling === 'column') columnNorms(s.j, n, m).forEach((v, k) => { s.d[k] = Math.max(s.d[k], v); });
+  s.mu *= Math.max(1 / 3, 1 - (2 * t.rho - 1) ** 3);
+  s.nu = 2;
+  // Converged when the step is at rounding level or the sum of squares stops moving in its last digits.
+  return stepSize <= 1e-13 * (size + 1e-300) || (relativeDecrease <= 1e-15 && t.predicted / s.rss <= 1e-15);
+}
+
+/** Initial state: scaling D (column norms or ones) and damping μ = 1e-3 × largest scaled diagonal of JᵀJ. */
+function initialState(problem: LeastSquaresProblem, p: number[], r: Float64Array, rss: number, scaling: ParameterScaling): LmState {
+  const n = problem.x.length, m = p.length;
+  const j = modelJacobian(problem, p);
+  const norms = columnNorms(j, n, m);
+  const d = scaling === 'unit' ? new Float64Array(m).fill(1) : norms.map((v) => v || 1);
+  let mu = 1e-3 * Math.max(...norms.map((v, k) => (v / d[k]) ** 2));
+  if (!(mu > 0) || !Number.isFinite(mu)) mu = 1e-3;
+  return { p, r, rss, j, d, mu, nu: 2 };
+}
+
 /** Runs LM from `start`; never throws for numeric trouble (NaN trial points are treated as rejected steps). */
 export function runLevenbergMarquardt(
   problem: LeastSquaresProblem, start: readonly number[], scaling: ParameterScaling, maxIterations: number,
 ): LmRun {
   const n = problem.x.length, m = start.length;
-  let p = start.slice();
-  let r = weightedResiduals(problem, p);
-  let rss = sumOfSquares(r);
+  const p = start.slice();
+  const r = weightedResiduals(problem, p);
+  const rss = sumOfSquares(r);
   if (!Number.isFinite(rss)) return { params: p, rss, iterations: 0, converged: false };
-  let j = modelJacobian(problem, p);
-  const d = scaling === 'unit' ? new Float64Array(m).fill(1) : columnNorms(j, n, m).map((v) => v || 1);
-  let mu = 1e-3 * Math.max(...columnNorms(j, n, m).map((v, k) => (v / d[k]) ** 2));
-  if (!(mu > 0) || !Number.isFinite(mu)) mu = 1e-3;
-  const muLimit = mu * 1e40;
-  let nu = 2;
+  const s = initialState(problem, p, r, rss, scaling);
+  const muLimit = s.mu * 1e40;
   for (let it = 1; it <= maxIterations; it++) {
-    if (rss === 0 || gradientCosine(j, r, n, m) <= 1e-14) return { params: p, rss, iterations: it - 1, converged: true };
-    const delta = dampedStep(j, r, d, mu, n, m);
-    const trial = delta ? p.map((v, k) => v + delta[k]) : null;
-    const trialR = trial ? weightedResiduals(problem, trial) : null;
-    const trialRss = trialR ? sumOfSquares(trialR) : NaN;
-    const g = delta ? jtr(j, r, n, m) : null;
-    const predicted = delta && g ? delta.reduce((s, v, k) => s + v * (g[k] + mu * d[k] * d[k] * v), 0) : 0;
-    const rho = Number.isFinite(trialRss) && predicted > 0 ? (rss - trialRss) / predicted : -1;
-    if (trial && trialR && delta && rho > 0) {
-      const stepSize = weightedNorm(d, delta), size = weightedNorm(d, p);
-      const relativeDecrease = (rss - trialRss) / rss;
-      p = trial; r = trialR; rss = trialRss;
-      j = modelJacobian(problem, p);
-      if (scaling === 'column') columnNorms(j, n, m).forEach((v, k) => { d[k] = Math.max(d[k], v); });
-      mu *= Math.max(1 / 3, 1 - (2 * rho - 1) ** 3);
-      nu = 2;
-      // Converged when the step is at rounding level or the sum of squares stops moving in its last digits.
-      if (stepSize <= 1e-13 * (size + 1e-300) || (relativeDecrease <= 1e-15 && predicted / rss <= 1e-15)) {
-        return { params: p, rss, iterations: it, converged: true };
-      }
-    } else {
-      mu *= nu;
-      nu *= 2;
-      // No representable improvement is left: converged if (nearly) stationary, else stuck.
-      if (!(mu <= muLimit)) {
-        return { params: p, rss, iterations: it, converged: gradientCosine(j, r, n, m) <= 1e-6 };
-      }
+    if (s.rss === 0 || gradientCosine(s.j, s.r, n, m) <= 1e-14) return { params: s.p, rss: s.rss, iterations: it - 1, converged: true };
+    const trial = tryStep(problem, s, n, m);
+    if (trial && trial.rho > 0) {
+      if (acceptStep(problem, s, trial, scaling, n, m)) return { params: s.p, rss: s.rss, iterations: it, converged: true };
+      continue;
+    }
+    s.mu *= s.nu;
+    s.nu *= 2;
+    // No representable improvement is left: converged if (nearly) stationary, else stuck.
+    if (!(s.mu <= muLimit)) {
+      return { params: s.p, rss: s.rss, iterations: it, converged: gradientCosine(s.j, s.r, n, m) <= 1e-6 };
     }
   }
-  return { params: p, rss, iterations: maxIterations, converged: false };
+  return { params: s.p, rss: s.rss, iterations: maxIterations, converged: false };
 }
 
 function jtr(j: Float64Array, r: Float64Array, n: number, m: number): Float64Array {
