@@ -23,6 +23,8 @@ describe('dosageReading', () => {
     expect(r.findings[0].sentences[1]).toContain('moved 0.05 x/EL anterior (opposite to the direction the model expects)');
     const higher: CohortAnalysis = { ...a, dosageFits: [{ ...fit, slopeEl: 0.4, ciLow: 0.35, ciHigh: 0.45 }] };
     expect(dosageReading(higher).findings[0].sentences[0]).toContain('which is below that interval: the position moves more than');
+    const close: CohortAnalysis = { ...a, dosageFits: [{ ...fit, predictedSlopeEl: 0.2, slopeEl: 0.197, ciLow: 0.1965, ciHigh: 0.1975 }] };
+    expect(dosageReading(close).findings[0].sentences[0]).toContain('The difference is small, though (1.5% of the prediction).');
   });
   it('caveats name the reference λ and small conditions', () => {
     const c = dosageReading(a).caveats;

@@ -18,6 +18,9 @@ function slopeSentence(fit: DosageFit, pct: number): string {
       ? 'which is above that interval: the position moves less than a fixed threshold on this gradient alone predicts.'
       : 'which is below that interval: the position moves more than a fixed threshold on this gradient alone predicts.';
   let text = `${head} The threshold model with the reference λ predicts a slope of ${prose(fit.predictedSlopeEl)}, ${verdict}`;
+  const relative = Math.abs(fit.slopeEl - fit.predictedSlopeEl) / Math.abs(fit.predictedSlopeEl);
+  // A very precise fit can exclude the prediction by a biologically negligible margin; say how large it is.
+  if (!inside && relative < 0.05) text += ` The difference is small, though (${prose(relative * 100)}% of the prediction).`;
   if (fit.predictedTwoGradientSlopeEl !== null) {
     const in2 = fit.predictedTwoGradientSlopeEl >= fit.ciLow && fit.predictedTwoGradientSlopeEl <= fit.ciHigh;
     text += ` The two-gradient reading predicts ${prose(fit.predictedTwoGradientSlopeEl)} (${in2 ? 'inside' : 'outside'} the interval).`;
