@@ -56,6 +56,19 @@ describe('fitLogisticBoundary', () => {
     expect(covered).toBeGreaterThanOrEqual(181);
     expect(covered).toBeLessThanOrEqual(198);
   });
+  it('uses weights (a corrupted bin with tiny weight barely moves the boundary)', () => {
+    // Source: demo data — exact logistic with one bin near the boundary raised by 60.
+    const y = logisticProfile(10, 100, 0.4, 0.02);
+    y[42] += 60;
+    const weights = new Float64Array(100).fill(1);
+    weights[42] = 1e-8;
+    expect(fitLogisticBoundary(xEl, y, { weights }).positionEl).toBeCloseTo(0.4, 6);
+    expect(Math.abs(fitLogisticBoundary(xEl, y).positionEl - 0.4)).toBeGreaterThan(1e-4);
+    expect(() => fitLogisticBoundary(xEl, y, { weights: new Float64Array(3) })).toThrow(
+      'fitLogisticBoundary: weights and y differ in length (3 vs 100)');
+    weights[5] = 0;
+    expect(() => fitLogisticBoundary(xEl, y, { weights })).toThrow('fitLogisticBoundary: weights[5] must be a positive finite number');
+  });
   it('skips non-finite bins', () => {
     const y = logisticProfile(10, 100, 0.4, 0.02);
     y[3] = NaN;

@@ -22,8 +22,11 @@ export interface LogisticBoundary {
   readonly note: string | null;
 }
 
-/** Options of fitLogisticBoundary (none yet; kept for symmetry with the other finders). */
-export type LogisticOptions = Record<string, never>;
+/** Options of fitLogisticBoundary. */
+export interface LogisticOptions {
+  /** Weight per bin (e.g. n/SD², all > 0), same length as y; default all 1. */
+  readonly weights?: Float64Array;
+}
 
 /** 1/(1 + e^z) without overflow for large |z|. */
 function logistic(z: number): number {
@@ -41,7 +44,7 @@ const jacobian = ([lower, upper, x0, w]: number[]) => (x: number) => {
 };
 
 /** Best of a few width starts (1, 3, 10 % of the x span), each signed by the profile's overall direction. */
-function bestFit(x: Float64Array, y: Float64Array, x0: number, falling: boolean): NonlinearFit {
+function bestFit(x: Float64Array, y: Float64Array, x0: number, falling: boolean, weights?: Float64Array): NonlinearFit {
   const low = quantile(y, 0.05), high = quantile(y, 0.95);
   const span = x[x.length - 1] - x[0];
   let best: NonlinearFit | null = null;
@@ -51,7 +54,7 @@ function bestFit(x: Float64Array, y: Float64Array, x0: number, falling: boolean)
     // Falling (high anterior) with w > 0 means the x → −∞ level, "upper", is the high one.
     const start = falling ? [low, high, x0, w] : [high, low, x0, w];
     try {
-      const fit = fitNonlinear(x, y, model, start, { jacobian, restarts: false });
+      const fit = fitNonlinear(x, y, model, start, { jacobian, restarts: false, ...(weights ? { weights } : {}) });
       if (!best || fit.rss < best.rss) best = fit;
     } catch (e) {
       lastError = e;
@@ -68,8 +71,9 @@ function bestFit(x: Float64Array, y: Float64Array, x0: number, falling: boolean)
  * the variance) is reported as sharp. Throws FitError when fewer than 5 finite bins remain, the profile never
  * crosses its half-maximum, or the fit fails.
  */
-export function fitLogisticBoundary(xEl: ArrayLike<number>, y: ArrayLike<number>, _options: LogisticOptions = {}): LogisticBoundary {
+export function fitLogisticBoundary(xEl: ArrayLike<number>, y: ArrayLike<number>, options: LogisticOptions = {}): LogisticBoundary {
   const points = finitePoints(xEl, y, 'fitLogisticBoundary');
+  const weights = options.weights ? keptWeights(options.weights, points.index, y.length) : undefined;
   if (points.y.length < 5) {
     throw new FitError('bad-input', `fitLogisticBoundary: need at least 5 finite bins, got ${points.y.length}`);
   }
@@ -81,7 +85,7 @@ export function fitLogisticBoundary(xEl: ArrayLike<number>, y: ArrayLike<number>
   const step = twoLevelStep(points.xEl, points.y, crossing.positionEl);
   let fit: NonlinearFit;
   try {
-    fit = bestFit(points.xEl, points.y, crossing.positionEl, crossing.direction === 'falling');
+    fit = bestFit(points.xEl, points.y, crossing.positionEl, crossing.direction === 'falling', weights);
   } catch (e) {
     if (step.r2 >= 0.9) return { ...step, note: SHARP_NOTE };
     throw e;
@@ -94,6 +98,18 @@ export function fitLogisticBoundary(xEl: ArrayLike<number>, y: ArrayLike<number>
     direction: anterior > posterior ? 'falling' : 'rising',
     lower: Math.min(l, u), upper: Math.max(l, u), r2: fit.r2, note: null,
   };
+}
+
+/** The weights of the kept points; throws FitError('bad-input') on a length mismatch or a bad weight. */
+function keptWeights(weights: Float64Array, index: Int32Array, length: number): Float64Array {
+  if (weights.length !== length) {
+    throw new FitError('bad-input', `fitLogisticBoundary: weights and y differ in length (${weights.length} vs ${length})`);
+  }
+  const kept = Float64Array.from(index, (i) => weights[i]);
+  kept.forEach((w, k) => {
+    if (!(w > 0 && Number.isFinite(w))) throw new FitError('bad-input', `fitLogisticBoundary: weights[${index[k]}] must be a positive finite number`);
+  });
+  return kept;
 }
 
 const SHARP_NOTE = 'the step is sharper than the bin spacing; position is the midpoint of the bracketing bins';

@@ -5,6 +5,8 @@ import { FitError } from './fit-error';
 export interface FinitePoints {
   readonly xEl: Float64Array;
   readonly y: Float64Array;
+  /** Index of each kept point in the input arrays. */
+  readonly index: Int32Array;
 }
 
 /**
@@ -15,11 +17,11 @@ export function finitePoints(xEl: ArrayLike<number>, y: ArrayLike<number>, name:
   if (xEl.length !== y.length) {
     throw new FitError('bad-input', `${name}: xEl and y differ in length (${xEl.length} vs ${y.length})`);
   }
-  const xs: number[] = [], ys: number[] = [];
+  const xs: number[] = [], ys: number[] = [], kept: number[] = [];
   for (let i = 0; i < y.length; i++) {
-    if (Number.isFinite(xEl[i]) && Number.isFinite(y[i])) { xs.push(xEl[i]); ys.push(y[i]); }
+    if (Number.isFinite(xEl[i]) && Number.isFinite(y[i])) { xs.push(xEl[i]); ys.push(y[i]); kept.push(i); }
   }
-  return { xEl: Float64Array.from(xs), y: Float64Array.from(ys) };
+  return { xEl: Float64Array.from(xs), y: Float64Array.from(ys), index: Int32Array.from(kept) };
 }
 
 /** Centred moving average over `bins` points (odd, ≥ 1), shrinking the window at the ends. */
