@@ -39,7 +39,9 @@ export function createAnalysisRunner(workerPath: string, timeoutMs = 180_000): A
   };
   const stop = async (): Promise<void> => { const w = worker; worker = null; if (w !== null) await w.terminate(); };
   const start = (): Worker => {
-    const w = new Worker(workerPath);
+    // workerData must be an object: a dependency of the TIFF decoder (web-worker) reads fields of it when it is
+    // loaded inside any worker thread, and throws when it is undefined.
+    const w = new Worker(workerPath, { workerData: { role: 'eggline-analysis' } });
     w.on('message', (reply: AnalysisReply) => {
       const p = pending.get(reply.id);
       if (p === undefined) return;

@@ -1,0 +1,47 @@
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import { mkdir, mkdtemp, rm, writeFile } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import { build } from 'esbuild';
+import { createAnalysisRunner, type AnalysisRunner } from '../../app/main/analysis-runner';
+import { writeDemoDataSet } from '../../app/batch/write-demo';
+import { DEFAULT_SETTINGS } from '../../core/settings';
+
+// The real worker bundle (built here the way scripts/build.mjs builds it) analysing one synthetic demo embryo.
+const outDir = resolve('test/fixtures/generated/shell');
+let dataDir: string;
+let stack: string;
+let runner: AnalysisRunner;
+
+beforeAll(async () => {
+  await mkdir(outDir, { recursive: true });
+  await build({
+    entryPoints: [{ in: 'app/workers/analysis-worker.ts', out: 'analysis-worker' }], outdir: outDir, bundle: true,
+    platform: 'node', target: 'node20', format: 'esm', outExtension: { '.js': '.mjs' }, packages: 'external', logLevel: 'warning',
+    banner: { js: "import { createRequire as __cr } from 'node:module'; const require = __cr(import.meta.url);" },
+  });
+  dataDir = await mkdtemp(join(tmpdir(), 'eggline-worker-'));
+  stack = (await writeDemoDataSet(dataDir, { subset: 1 })).files[0];
+  runner = createAnalysisRunner(join(outDir, 'analysis-worker.mjs'));
+}, 300_000);
+afterAll(async () => {
+  await runner?.close();
+  await rm(dataDir, { recursive: true, force: true });
+});
+
+describe('analysis worker (built bundle)', () => {
+  it('projects and detects a demo stack off the main thread', async () => {
+    const view = await runner.run(stack, 'demo.ome.tif', DEFAULT_SETTINGS);
+    expect(view.projected.channels.length).toBe(view.info.sizeC);
+    expect(view.projected.channels[0].data).toBeInstanceOf(Float32Array);
+    expect(view.projected.channels[0].data.length).toBe(view.info.sizeX * view.info.sizeY);
+    expect(view.detection.mask.data).toBeInstanceOf(Uint8Array);
+    expect(view.detection.eggLengthUm).toBeGreaterThan(0);
+  });
+
+  it('reports a bad file as a TiffError naming it', async () => {
+    const bad = join(dataDir, 'bad.tif');
+    await writeFile(bad, new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0, 0, 0, 0]));
+    await expect(runner.run(bad, 'bad.tif', DEFAULT_SETTINGS)).rejects.toMatchObject({ name: 'TiffError', message: expect.stringMatching(/^bad\.tif: /) });
+  });
+});
