@@ -7,7 +7,7 @@ export interface BackgroundLevel {
 }
 
 /** Sorted copy of at most ~maxCount finite values taken at a regular stride (enough for quantiles). */
-export function sortedSample(values: ArrayLike<number>, maxCount = 250_000): Float32Array {
+export function sortedSample(values: ArrayLike<number>, maxCount = 65_536): Float32Array {
   const stride = Math.max(1, Math.floor(values.length / maxCount));
   const out = new Float32Array(Math.ceil(values.length / stride));
   let n = 0;

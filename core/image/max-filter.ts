@@ -1,15 +1,33 @@
 // Grey-level dilation (running maximum) over a square window, separable so the cost is O(N·window).
 import type { Plane } from '../model';
 
-/** Running maximum along one stride-addressed line with half-window r (window clipped at the ends). */
-function maxLine(src: Float32Array, dst: Float32Array, start: number, stride: number, n: number, r: number): void {
+/**
+ * Running maximum along one stride-addressed line with half-window r (window clipped at the ends), by the van Herk /
+ * Gil–Werman method: block-wise prefix and suffix maxima give each window's maximum in O(1).
+ */
+function maxLine(src: Float32Array, dst: Float32Array, start: number, stride: number, n: number, r: number, g: Float32Array, h: Float32Array): void {
+  const w = 2 * r + 1;
   for (let i = 0; i < n; i++) {
-    let m = -Infinity;
+    const v = src[start + i * stride];
+    g[i] = i % w === 0 ? v : Math.max(g[i - 1], v);
+  }
+  for (let i = n - 1; i >= 0; i--) {
+    const v = src[start + i * stride];
+    h[i] = i === n - 1 || (i + 1) % w === 0 ? v : Math.max(h[i + 1], v);
+  }
+  for (let i = 0; i < n; i++) {
     const a = Math.max(0, i - r);
     const b = Math.min(n - 1, i + r);
-    for (let j = a; j <= b; j++) { const v = src[start + j * stride]; if (v > m) m = v; }
-    dst[start + i * stride] = m;
+    // Window [a, b] spans at most two blocks: suffix max from a within its block, prefix max up to b within its block.
+    dst[start + i * stride] = Math.floor(a / w) === Math.floor(b / w) ? blockMax(src, start, stride, a, b) : Math.max(h[a], g[b]);
   }
+}
+
+/** Maximum of src over [a, b] directly (only for windows clipped inside one block, i.e. near the line ends). */
+function blockMax(src: Float32Array, start: number, stride: number, a: number, b: number): number {
+  let m = -Infinity;
+  for (let j = a; j <= b; j++) { const v = src[start + j * stride]; if (v > m) m = v; }
+  return m;
 }
 
 /** Maximum over the (2·radiusPx+1)² square centred on each pixel (window clipped at the image border). */
@@ -18,7 +36,9 @@ export function maxFilter(plane: Plane, radiusPx: number): Plane {
   const { width, height } = plane;
   const tmp = new Float32Array(width * height);
   const out = new Float32Array(width * height);
-  for (let y = 0; y < height; y++) maxLine(plane.data, tmp, y * width, 1, width, r);
-  for (let x = 0; x < width; x++) maxLine(tmp, out, x, width, height, r);
+  const g = new Float32Array(Math.max(width, height));
+  const h = new Float32Array(Math.max(width, height));
+  for (let y = 0; y < height; y++) maxLine(plane.data, tmp, y * width, 1, width, r, g, h);
+  for (let x = 0; x < width; x++) maxLine(tmp, out, x, width, height, r, g, h);
   return { width, height, data: out };
 }

@@ -15,7 +15,8 @@ export interface SegmentOptions {
   readonly coarseSigmaPx?: number;
   /** Light smoothing for the edge position (px). @default 1.5 */
   readonly fineSigmaPx?: number;
-  /** Radius of the neighbourhood whose maximum is the local embryo level (px). @default 8 */
+  /** Radius of the neighbourhood whose maximum is the local embryo level (px); small so a steep gradient along
+   * the edge does not raise it much. @default 5 */
   readonly localRadiusPx?: number;
   /** Edge = where the signal falls to this fraction of the local level (0..1). @default 0.5 */
   readonly edgeFraction?: number;
@@ -23,7 +24,7 @@ export interface SegmentOptions {
 
 /** Check and fill segmentation options; exact messages are pinned by tests. */
 export function checkSegmentOptions(o: SegmentOptions = {}): Required<SegmentOptions> {
-  const out = { coarseSigmaPx: 4, fineSigmaPx: 1.5, localRadiusPx: 8, edgeFraction: 0.5, ...o };
+  const out = { coarseSigmaPx: 4, fineSigmaPx: 1.5, localRadiusPx: 5, edgeFraction: 0.5, ...o };
   for (const key of ['coarseSigmaPx', 'fineSigmaPx', 'localRadiusPx'] as const) {
     if (!(out[key] > 0) || !Number.isFinite(out[key])) throw new Error(`${key} must be a positive number, got ${out[key]}`);
   }
@@ -92,11 +93,13 @@ export function segmentEmbryo(channels: readonly Plane[], options: SegmentOption
   const { width, height } = channels[0];
   const coarse = coarseMask(combinedSnr(channels, o.coarseSigmaPx));
   const depth = distanceInside(coarse);
-  const near = dilate(coarse, o.localRadiusPx).data;
+  // The coarse edge may sit up to ~2 coarse sigmas inside a dim end and ~3 outside a bright end.
+  const near = dilate(coarse, 2 * o.coarseSigmaPx).data;
+  const protectPx = Math.max(2 * o.localRadiusPx, 3 * o.coarseSigmaPx);
   const keep = nearLocalLevel(channels, o);
   const data = new Uint8Array(width * height);
   for (let i = 0; i < data.length; i++) {
-    data[i] = depth[i] > 2 * o.localRadiusPx || (near[i] && keep[i]) ? 1 : 0;
+    data[i] = depth[i] > protectPx || (near[i] && keep[i]) ? 1 : 0;
   }
   const filled = fillHoles(largestComponent({ width, height, data }));
   return fillHoles(largestComponent(open(filled, 1.5)));

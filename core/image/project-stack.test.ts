@@ -1,0 +1,78 @@
+import { describe, expect, it } from 'vitest';
+import type { PlaneSource, StackInfo } from '../model';
+import { DEFAULT_SETTINGS } from '../settings';
+import { chooseSliceScore, projectStack } from './project-stack';
+
+// Demo data: a 3×1 stack with 2 channels and 3 slices; plane (z, c) holds values (10c + z) · [1, 2, 3],
+// except slice 1 of both channels, which has the most contrast.
+function tinyStack(pixelSize: StackInfo['pixelSize']): { info: StackInfo; source: PlaneSource; reads: string[] } {
+  const reads: string[] = [];
+  const info: StackInfo = {
+    byteOrder: 'II', bigTiff: false, isOme: false, sizeX: 3, sizeY: 1, sizeZ: 3, sizeC: 2, sizeT: 1,
+    dimensionOrder: 'XYZCT', sampleType: 'uint16', samplesPerPixel: 1, channelNames: ['first', ''], pixelSize,
+    compression: 'none', planeIfd: new Int32Array(6), ifdCount: 6, description: null, warnings: [],
+  };
+  const source: PlaneSource = {
+    async readPlane(z, c, t) {
+      reads.push(`${z},${c},${t}`);
+      const k = 10 * c + z;
+      const data = z === 1 ? new Uint16Array([0, 50, 100]) : new Uint16Array([k, 2 * k, 3 * k]);
+      return { width: 3, height: 1, data };
+    },
+    async close() { /* nothing */ },
+  };
+  return { info, source, reads };
+}
+
+const known = { xUm: 0.5, yUm: 0.5, zUm: 1, source: 'ome' } as const;
+const none = { xUm: null, yUm: null, zUm: null, source: 'unknown' } as const;
+
+describe('projectStack', () => {
+  it('mean-projects every channel reading each plane once', async () => {
+    const { info, source, reads } = tinyStack(known);
+    const p = await projectStack(info, source, { ...DEFAULT_SETTINGS, projection: 'mean' });
+    // Source: hand computation, channel 0: ([0,0,0] + [0,50,100] + [2,4,6]) / 3.
+    expect(Array.from(p.channels[0].data)).toEqual([2 / 3, 54 / 3, 106 / 3].map(Math.fround));
+    expect(Array.from(p.channels[1].data)).toEqual([(10 + 12) / 3, (20 + 50 + 24) / 3, (30 + 100 + 36) / 3].map(Math.fround));
+    expect(reads).toHaveLength(6);
+    expect(p.channelNames).toEqual(['first', 'C2']);
+    expect(p.pixelSizeUm).toBe(0.5);
+    expect(p.pixelSizeSource).toBe('ome');
+    expect(p.sliceIndex).toBeNull();
+  });
+
+  it('takes the chosen slice and reads only it', async () => {
+    const { info, source, reads } = tinyStack(known);
+    const p = await projectStack(info, source, { ...DEFAULT_SETTINGS, projection: 'slice', sliceIndex: 2 });
+    expect(Array.from(p.channels[1].data)).toEqual([12, 24, 36]);
+    expect(reads).toEqual(['2,0,0', '2,1,0']);
+    expect(p.sliceIndex).toBe(2);
+  });
+
+  it('picks the slice with the most contrast when sliceIndex is null', async () => {
+    const { info, source } = tinyStack(known);
+    const p = await projectStack(info, source, { ...DEFAULT_SETTINGS, projection: 'slice', sliceIndex: null });
+    expect(p.sliceIndex).toBe(1);
+    expect(Array.from(p.channels[0].data)).toEqual([0, 50, 100]);
+  });
+
+  it('falls back to the user pixel size, then to unknown with a warning', async () => {
+    const { info, source } = tinyStack(none);
+    const user = await projectStack(info, source, { ...DEFAULT_SETTINGS, pixelSizeUm: 1.25 });
+    expect([user.pixelSizeUm, user.pixelSizeSource]).toEqual([1.25, 'user']);
+    const unknown = await projectStack(info, source, DEFAULT_SETTINGS);
+    expect([unknown.pixelSizeUm, unknown.pixelSizeSource]).toEqual([null, 'unknown']);
+    expect(unknown.warnings).toContain('pixel size unknown: lengths are in pixels and µm values are left empty');
+  });
+
+  it('rejects out-of-range indices with exact messages', async () => {
+    const { info, source } = tinyStack(known);
+    await expect(projectStack(info, source, { ...DEFAULT_SETTINGS, timeIndex: 1 })).rejects.toThrow('time index 1 is out of range (the file has 1 time point(s))');
+    await expect(projectStack(info, source, { ...DEFAULT_SETTINGS, projection: 'slice', sliceIndex: 3 })).rejects.toThrow('slice index 3 is out of range (the file has 3 slice(s))');
+  });
+
+  it('scores slices by summed variance', () => {
+    // Source: hand computation, variance of [0, 2] is 1, of [1, 1] is 0.
+    expect(chooseSliceScore([{ width: 2, height: 1, data: new Float32Array([0, 2]) }, { width: 2, height: 1, data: new Float32Array([1, 1]) }])).toBe(1);
+  });
+});
