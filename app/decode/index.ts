@@ -1,3 +1,3 @@
 // Public surface of app/decode: sharp decoding with geotiff fallback.
 export { createSharpPlaneSource, sharpDecodesExactly } from './sharp-decoder';
-export { openStackForAnalysis, type OpenedStack } from './open-for-analysis';
+export { openStackForAnalysis, withDecoderFallback, type OpenedStack } from './open-for-analysis';

@@ -11,8 +11,8 @@ export interface OpenedStack {
   readonly warnings: string[];
 }
 
-/** A PlaneSource that tries sharp first and, when sharp rejects a plane, decodes it with geotiff and warns. */
-function withFallback(primary: PlaneSource, fallback: PlaneSource, warnings: string[], fileLabel: string): PlaneSource {
+/** A PlaneSource that tries `primary` first and, when it rejects a plane, decodes it with `fallback` and warns. */
+export function withDecoderFallback(primary: PlaneSource, fallback: PlaneSource, warnings: string[], fileLabel: string): PlaneSource {
   return {
     async readPlane(z: number, c: number, t: number): Promise<RawPlane> {
       try {
@@ -47,5 +47,5 @@ export async function openStackForAnalysis(path: string, fileLabel: string, opti
   const geotiff = createGeotiffPlaneSource(bytes, info, fileLabel);
   const warnings: string[] = [];
   if (!sharpDecodesExactly(info)) return { info, source: geotiff, warnings };
-  return { info, source: withFallback(createSharpPlaneSource(path, info, fileLabel), geotiff, warnings, fileLabel), warnings };
+  return { info, source: withDecoderFallback(createSharpPlaneSource(path, info, fileLabel), geotiff, warnings, fileLabel), warnings };
 }

@@ -16,10 +16,12 @@ const EXACT: Partial<Record<SampleType, { depth: RawDepth; array: new (b: ArrayB
 };
 
 /**
- * True when sharp returns exact values for this stack. Checked against geotiff: int16 loses negative values,
- * float64 is refused, and extra samples get expanded to sRGB bands, so those go to the geotiff decoder.
+ * True when sharp returns exact values for this stack. Checked against known patterns (test/tiff): int16 loses
+ * negative values, float64 is refused, extra samples get expanded to sRGB bands, and big-endian files with the
+ * floating-point predictor come back byte-swapped, so those go to the geotiff decoder.
  */
 export function sharpDecodesExactly(info: StackInfo): boolean {
+  if (info.byteOrder === 'MM' && info.compression.endsWith('floating-point predictor')) return false;
   return info.samplesPerPixel === 1 && EXACT[info.sampleType] !== undefined;
 }
 

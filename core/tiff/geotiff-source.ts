@@ -1,5 +1,5 @@
 // PlaneSource backed by geotiff (pure JS): the fallback decoder and the reference in tests.
-import { GeoTIFF } from 'geotiff';
+import { GeoTIFF, getDecoder } from 'geotiff';
 import type { PixelArray, PlaneSource, RawPlane, SampleType, StackInfo } from '../model';
 import { memoryByteSource, type ByteSource } from './byte-source';
 import { checkChunkExtents } from './chunk-extent';
@@ -7,6 +7,7 @@ import { planeSlot } from './dimension-order';
 import { TiffError } from './errors';
 import { readTiffHeader } from './header';
 import { readIfdChain, type Ifd } from './ifd';
+import { undoHorizontalPredictor } from './predictor';
 
 type GeotiffSource = Parameters<typeof GeoTIFF.fromSource>[0];
 
@@ -24,6 +25,36 @@ function toGeotiffSource(source: ByteSource): GeotiffSource {
     close: async () => undefined,
   };
   return adapter as unknown as GeotiffSource;
+}
+
+/** geotiff's decoder parameters (see its compression/index.js). */
+interface DecoderParameters {
+  tileWidth: number;
+  tileHeight: number;
+  planarConfiguration: number;
+  bitsPerSample: number | number[] | ArrayLike<number>;
+  predictor: number;
+}
+
+/**
+ * A decoder "pool" for geotiff that decompresses with geotiff but undoes Predictor 2 itself: geotiff sums
+ * 16/32-bit differences in host byte order, which is wrong for big-endian files (found with tiffcp -B -c lzw:2).
+ */
+function predictorFixingPool(littleEndian: boolean) {
+  return {
+    bindParameters(compression: number, params: DecoderParameters) {
+      return {
+        async decode(buffer: ArrayBuffer): Promise<ArrayBuffer> {
+          const asGeotiff = (p: DecoderParameters) => p as unknown as Parameters<typeof getDecoder>[1];
+          if (params.predictor !== 2) return (await getDecoder(compression, asGeotiff(params))).decode(buffer) as Promise<ArrayBuffer>;
+          const raw = (await (await getDecoder(compression, asGeotiff({ ...params, predictor: 1 }))).decode(buffer)) as ArrayBuffer;
+          const bits = typeof params.bitsPerSample === 'number' ? [params.bitsPerSample] : Array.from(params.bitsPerSample);
+          const stride = params.planarConfiguration === 2 ? 1 : bits.length;
+          return undoHorizontalPredictor(raw, { widthPx: params.tileWidth, bitsPerSample: bits[0], stride, littleEndian });
+        },
+      };
+    },
+  };
 }
 
 /** Typed array constructors by sample type. */
@@ -66,7 +97,8 @@ export function createGeotiffPlaneSource(bytesOrSource: Uint8Array | ByteSource,
       try {
         const image = await (await openTiff()).getImage(ifd);
         const sample = info.samplesPerPixel > 1 ? c : 0;
-        const rasters = (await image.readRasters({ samples: [sample], interleave: false })) as unknown as ArrayLike<number>[];
+        const pool = predictorFixingPool(header.littleEndian) as unknown as NonNullable<Parameters<typeof image.readRasters>[0]>['pool'];
+        const rasters = (await image.readRasters({ samples: [sample], interleave: false, pool })) as unknown as ArrayLike<number>[];
         const data = asSampleType(rasters[0], info.sampleType);
         if (data.length !== info.sizeX * info.sizeY) throw new Error(`decoded ${data.length} pixels, expected ${info.sizeX * info.sizeY}`);
         return { width: info.sizeX, height: info.sizeY, data };
