@@ -1,0 +1,72 @@
+import { describe, expect, it } from 'vitest';
+import type { ApAxis } from '../model';
+import { binIndices, binProfile } from './bin';
+import { regionMean, outsideBackground } from './background';
+import { filledBins, sideFilter } from './measure';
+import { DEFAULT_SETTINGS } from '../settings';
+
+const axis: ApAxis = { anterior: { x: 0, y: 0 }, posterior: { x: 4, y: 0 }, source: 'hand' };
+
+describe('binIndices / binProfile', () => {
+  it('bins pixels by x/EL with exact mean, sample SD and n', () => {
+    // Source: hand computation; x/EL = 0, .25, .5, .75 → bins [0, 0, 1, 1] of 2; means 1.5 and 4; SDs √0.5 and √2.
+    const xs = Float32Array.from([0, 1, 2, 3]);
+    const ys = Float32Array.from([0, 0, 0, 0]);
+    const bins = binIndices(xs, ys, axis, 2, 'all');
+    expect(Array.from(bins)).toEqual([0, 0, 1, 1]);
+    const p = binProfile(Float32Array.from([1, 2, 3, 5]), bins, 2, 'g', 8);
+    expect(Array.from(p.xEl)).toEqual([0.25, 0.75]);
+    expect(Array.from(p.xUm)).toEqual([2, 6]);
+    expect(Array.from(p.mean)).toEqual([1.5, 4]);
+    expect(p.sd[0]).toBeCloseTo(Math.SQRT1_2, 12);
+    expect(p.sd[1]).toBeCloseTo(Math.SQRT2, 12);
+    expect(Array.from(p.n)).toEqual([2, 2]);
+  });
+
+  it('excludes points beyond the poles, on the wrong side or outside the strip; x/EL = 1 goes to the last bin', () => {
+    const xs = Float32Array.from([-1, 4, 2, 2, 2, 5]);
+    const ys = Float32Array.from([0, 0, -1, 1, -3, 0]);
+    expect(Array.from(binIndices(xs, ys, axis, 4, 'all'))).toEqual([-1, 3, 2, 2, 2, -1]);
+    expect(Array.from(binIndices(xs, ys, axis, 4, 'left'))).toEqual([-1, -1, 2, -1, 2, -1]); // y < 0 is left of +x
+    expect(Array.from(binIndices(xs, ys, axis, 4, 'right'))).toEqual([-1, -1, -1, 2, -1, -1]);
+    expect(Array.from(binIndices(xs, ys, axis, 4, 'all', 2))).toEqual([-1, 3, 2, 2, -1, -1]);
+  });
+
+  it('leaves empty bins NaN with n 0, and filledBins drops them; µm NaN without an egg length', () => {
+    const p = binProfile(Float32Array.from([7]), Int32Array.from([2]), 3, 'g', null);
+    expect(Array.from(p.n)).toEqual([0, 0, 1]);
+    expect(Number.isNaN(p.mean[0]) && Number.isNaN(p.xUm[2])).toBe(true);
+    expect(p.sd[2]).toBe(0);
+    const f = filledBins(p);
+    expect(Array.from(f.mean)).toEqual([7]);
+    expect(Array.from(f.xEl)).toEqual([2.5 / 3]);
+  });
+});
+
+describe('sideFilter', () => {
+  it('maps edge side and dorsal side to the left/right of A→P', () => {
+    const s = (edgeSide: 'dorsal' | 'ventral' | 'both', dorsalSide: 'left' | 'right', mode: 'edge' | 'axis' = 'edge') =>
+      sideFilter({ ...DEFAULT_SETTINGS, profile: { ...DEFAULT_SETTINGS.profile, edgeSide, dorsalSide, mode } });
+    expect([s('dorsal', 'left'), s('ventral', 'left'), s('dorsal', 'right'), s('ventral', 'right'), s('both', 'left'), s('dorsal', 'left', 'axis')])
+      .toEqual(['left', 'right', 'right', 'left', 'all', 'all']);
+  });
+});
+
+describe('background', () => {
+  it('averages a rectangle clipped to the image', () => {
+    // Source: hand computation on a 3×2 plane [[1,2,3],[4,5,6]].
+    const plane = { width: 3, height: 2, data: Float32Array.from([1, 2, 3, 4, 5, 6]) };
+    expect(regionMean(plane, { x: 1, y: 0, width: 5, height: 5 })).toBe(4);
+    expect(Number.isNaN(regionMean(plane, { x: 5, y: 5, width: 2, height: 2 }))).toBe(true);
+  });
+
+  it('takes the median of pixels beyond the margin around the mask', () => {
+    // Demo data: 12×12 plane, value = 1000 on a 2×2 mask at the centre, 10 + (i mod 3) elsewhere.
+    const w = 12;
+    const data = Float32Array.from({ length: w * w }, (_, i) => 10 + (i % 3));
+    const m = new Uint8Array(w * w);
+    for (const i of [5 * w + 5, 5 * w + 6, 6 * w + 5, 6 * w + 6]) { data[i] = 1000; m[i] = 1; }
+    const bg = outsideBackground({ width: w, height: w, data }, { width: w, height: w, data: m }, 2);
+    expect(bg).toEqual({ value: 11, warning: null });
+  });
+});
