@@ -43,7 +43,11 @@ async function onReady(e: ElectronModule, state: { window: electron.BrowserWindo
     if (w !== null && !w.isDestroyed()) w.webContents.send(channel, payload);
   };
   const setMenu = (recent: readonly string[]): void => {
-    const template = buildMenuTemplate((command) => send(API_EVENT_CHANNELS.menuCommand, command), recent, process.platform === 'darwin');
+    const about = (): void => {
+      void e.dialog.showMessageBox({ type: 'info', title: 'About Eggline', message: `Eggline ${e.app.getVersion()}`,
+        detail: 'Measures morphogen gradients along the anterior–posterior axis of embryo images.' });
+    };
+    const template = buildMenuTemplate((command) => send(API_EVENT_CHANNELS.menuCommand, command), recent, process.platform === 'darwin', about);
     e.Menu.setApplicationMenu(e.Menu.buildFromTemplate(template as electron.MenuItemConstructorOptions[]));
   };
   const runner = createAnalysisRunner(join(distDir, 'analysis-worker.mjs'));

@@ -1,5 +1,6 @@
 // The application menu as plain data; each item sends a command string to the renderer, which decides what it does.
 import { basename } from 'node:path';
+import { MENU_OPEN_RECENT_PREFIX, type MenuCommand } from '../../core/contract';
 
 /** One menu item (a structural subset of Electron's MenuItemConstructorOptions). */
 export interface MenuItemSpec {
@@ -12,30 +13,21 @@ export interface MenuItemSpec {
   readonly submenu?: readonly MenuItemSpec[];
 }
 
-/** Commands the renderer receives through onMenuCommand. 'open-recent:<path>' carries a path from the recent list. */
-export const MENU_COMMANDS = Object.freeze([
-  'open-folder', 'open-files', 'open-project', 'save', 'export', 'undo', 'redo',
-  'fit-to-window', 'zoom-in', 'zoom-out', 'swap-poles', 'show-help', 'show-about',
-] as const);
-
-/** A menu command name. */
-export type MenuCommand = (typeof MENU_COMMANDS)[number];
-
 /** The recent submenu: one item per path, newest first. */
 function recentItems(recent: readonly string[], send: (command: string) => void): MenuItemSpec[] {
   if (recent.length === 0) return [{ label: 'No recent items', enabled: false }];
-  return recent.map((path) => ({ label: `${basename(path)} — ${path}`, click: () => send(`open-recent:${path}`) }));
+  return recent.map((path) => ({ label: `${basename(path)} — ${path}`, click: () => send(`${MENU_OPEN_RECENT_PREFIX}${path}`) }));
 }
 
-/** Build the menu template. `isMac` adds the app menu that macOS expects. */
-export function buildMenuTemplate(send: (command: string) => void, recent: readonly string[], isMac: boolean): MenuItemSpec[] {
+/** Build the menu template. `isMac` adds the app menu that macOS expects; `about` shows the About box (main side). */
+export function buildMenuTemplate(send: (command: string) => void, recent: readonly string[], isMac: boolean, about: () => void = () => undefined): MenuItemSpec[] {
   const item = (label: string, command: MenuCommand, accelerator?: string): MenuItemSpec =>
     ({ label, click: () => send(command), ...(accelerator === undefined ? {} : { accelerator }) });
   const sep: MenuItemSpec = { type: 'separator' };
   const template: MenuItemSpec[] = [
     { label: 'File', submenu: [
       item('Open Folder…', 'open-folder', 'CmdOrCtrl+O'), item('Open Files…', 'open-files'),
-      item('Open Project…', 'open-project'), { label: 'Recent', submenu: recentItems(recent, send) }, sep,
+      item('Open Project…', 'open-project'), item('Open Demo Data', 'open-demo'), { label: 'Recent', submenu: recentItems(recent, send) }, sep,
       item('Save', 'save', 'CmdOrCtrl+S'), item('Export…', 'export'), sep, { role: isMac ? 'close' : 'quit' },
     ] },
     { label: 'Edit', submenu: [
@@ -46,7 +38,7 @@ export function buildMenuTemplate(send: (command: string) => void, recent: reado
       item('Fit to Window', 'fit-to-window', 'CmdOrCtrl+0'), item('Zoom In', 'zoom-in', 'CmdOrCtrl+='),
       item('Zoom Out', 'zoom-out', 'CmdOrCtrl+-'), sep, item('Swap Anterior/Posterior', 'swap-poles'),
     ] },
-    { label: 'Help', submenu: [item('Eggline Help', 'show-help', 'F1'), item('About Eggline', 'show-about')] },
+    { label: 'Help', submenu: [item('Eggline Help', 'show-help', 'F1'), { label: 'About Eggline', click: about }] },
   ];
   return isMac ? [{ label: 'Eggline', submenu: [{ role: 'about' }, sep, { role: 'hide' }, { role: 'quit' }] }, ...template] : template;
 }

@@ -136,6 +136,18 @@ export const API_INVOKE_METHODS = [
   'openProject', 'runBatch', 'cancelBatch', 'chooseOutputFolder', 'exportFile', 'svgToPng', 'openRecent',
 ] as const satisfies readonly (keyof EgglineApi)[];
 
+/** Commands the application menu sends through onMenuCommand (plus `open-recent:<path>`, see below). */
+export const MENU_COMMANDS = Object.freeze([
+  'open-folder', 'open-files', 'open-project', 'open-demo', 'save', 'export', 'undo', 'redo',
+  'fit-to-window', 'zoom-in', 'zoom-out', 'swap-poles', 'show-help',
+] as const);
+
+/** A menu command name. */
+export type MenuCommand = (typeof MENU_COMMANDS)[number];
+
+/** Prefix of the command sent by File ▸ Recent: `open-recent:` + a path to pass to openRecent. */
+export const MENU_OPEN_RECENT_PREFIX = 'open-recent:';
+
 /** Main → renderer event channels. */
 export const API_EVENT_CHANNELS = Object.freeze({
   batchProgress: 'eggline:batch-progress',

@@ -1,5 +1,6 @@
 import { describe, it, expect } from 'vitest';
-import { buildMenuTemplate, MENU_COMMANDS, type MenuItemSpec } from '../../app/main/menu';
+import { buildMenuTemplate, type MenuItemSpec } from '../../app/main/menu';
+import { MENU_COMMANDS } from '../../core/contract';
 
 /** Every clickable item, with its top-level menu. */
 function flatten(items: readonly MenuItemSpec[], top = ''): { top: string; item: MenuItemSpec }[] {
@@ -17,10 +18,10 @@ describe('application menu', () => {
     expect(byLabel.get('Save')?.accelerator).toBe('CmdOrCtrl+S');
     expect(byLabel.get('Undo')?.accelerator).toBe('CmdOrCtrl+Z');
     expect(byLabel.get('Redo')?.accelerator).toBe('CmdOrCtrl+Shift+Z');
-    for (const label of ['Open Files…', 'Open Project…', 'Export…', 'Fit to Window', 'Zoom In', 'Zoom Out', 'Swap Anterior/Posterior']) {
+    for (const label of ['Open Files…', 'Open Project…', 'Open Demo Data', 'Export…', 'Fit to Window', 'Zoom In', 'Zoom Out', 'Swap Anterior/Posterior']) {
       byLabel.get(label)?.click?.();
     }
-    expect(sent).toEqual(['open-files', 'open-project', 'export', 'fit-to-window', 'zoom-in', 'zoom-out', 'swap-poles']);
+    expect(sent).toEqual(['open-files', 'open-project', 'open-demo', 'export', 'fit-to-window', 'zoom-in', 'zoom-out', 'swap-poles']);
     for (const c of sent) expect(MENU_COMMANDS).toContain(c);
   });
 
@@ -33,6 +34,13 @@ describe('application menu', () => {
     expect(sent).toEqual(['open-recent:/data/run1/e1.tif']);
     const empty = flatten(buildMenuTemplate(() => undefined, [], false)).find(({ item }) => item.label === 'Recent')!.item.submenu!;
     expect(empty).toEqual([{ label: 'No recent items', enabled: false }]);
+  });
+
+  it('shows the About box from the main process', () => {
+    let shown = 0;
+    const help = buildMenuTemplate(() => undefined, [], false, () => { shown++; }).find((m) => m.label === 'Help')!;
+    help.submenu!.find((i) => i.label === 'About Eggline')!.click!();
+    expect(shown).toBe(1);
   });
 
   it('adds the application menu on macOS', () => {
