@@ -16,7 +16,7 @@ export interface CohortCommandIo {
 export const COHORT_HELP = `Usage: eggline cohort <results-dir> --samples <csv> [options]
 
 Reads <results-dir>/results.json (written by "eggline batch"), groups the embryos by the sample sheet and
-writes conditions.csv, shifts.csv, dosage_fit.csv, positional_error.csv, one .svg per figure and a
+writes conditions.csv, shifts.csv, dosage_fit.csv, positional_error.csv, each figure as .svg and .png, and a
 self-contained report.html.
 
 Sample sheet: CSV with a header; columns file, condition, and optionally dosage (relative to the reference)
@@ -70,7 +70,7 @@ async function readOptionalJson(path: string): Promise<unknown> {
 }
 
 /** Run `eggline cohort`; resolves with the exit code (0 written, 1 bad input, 2 usage). Never throws. */
-export async function cohortCommand(argv: string[], io: CohortCommandIo): Promise<number> {
+export async function cohortCommand(argv: readonly string[], io: CohortCommandIo): Promise<number> {
   const plan = parseCohortArgs(argv);
   if (plan === 'help') { io.stdout.write(COHORT_HELP); return 0; }
   if ('usage' in plan) { io.stderr.write(`eggline cohort: ${plan.usage} (see "eggline cohort --help")\n`); return 2; }

@@ -68,7 +68,7 @@ function dosageSection(a: CohortAnalysis): string {
 
 /** Build the report HTML. */
 export function cohortReportHtml(r: ReportInput): string {
-  const figs = r.figures.map((f) => `<figure id="fig-${esc(f.name)}">${f.svg}<figcaption>${esc(f.title)} (also saved as ${esc(f.name)}.svg)</figcaption></figure>`).join('');
+  const figs = r.figures.map((f) => `<figure id="fig-${esc(f.name)}">${f.svg}<figcaption>${esc(f.title)} (also saved as ${esc(f.name)}.svg and .png)</figcaption></figure>`).join('');
   const warnings = r.warnings.length ? `<h2>Warnings</h2><ul>${r.warnings.map((w) => `<li class="warn">${esc(w)}</li>`).join('')}</ul>` : '';
   const failed = `<h2>Failed files</h2>${r.failures.length ? table(['file', 'reason'], r.failures.map((f) => [f.file, f.error]), 2) : '<p class="note">None.</p>'}`;
   return `<!DOCTYPE html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">`

@@ -1,6 +1,7 @@
 // The cohort step as files: reads the sample sheet, analyses, writes conditions.csv, shifts.csv, dosage_fit.csv,
-// positional_error.csv, one .svg per figure and report.html into outDir. Every file is written atomically.
+// positional_error.csv, one .svg and one .png per figure and report.html into outDir. Every file is written atomically.
 import { mkdir, readFile, rename, writeFile } from 'node:fs/promises';
+import sharp from 'sharp';
 import { basename, join } from 'node:path';
 import type { EmbryoResult } from '../../core/model';
 import {
@@ -12,8 +13,8 @@ import { cohortReportHtml } from './report-html';
 
 /** Options of runCohortStep (see the file comment). */
 export interface CohortStepOptions {
-  readonly results: EmbryoResult[];
-  readonly failures: { file: string; error: string }[];
+  readonly results: readonly EmbryoResult[];
+  readonly failures: readonly { readonly file: string; readonly error: string }[];
   /** CSV with file, condition, optional dosage; null = use `filenameRule`, or else one condition "all" (no dosage test). */
   readonly sampleSheetPath: string | null;
   readonly reference: string | null;
@@ -25,10 +26,10 @@ export interface CohortStepOptions {
   readonly filenameRule?: FilenameRule;
 }
 
-/** Write text via a temporary file and rename, so a crash never leaves a half-written output. */
-async function writeAtomic(path: string, text: string): Promise<void> {
+/** Write text or bytes via a temporary file and rename, so a crash never leaves a half-written output. */
+async function writeAtomic(path: string, text: string | Uint8Array): Promise<void> {
   const tmp = `${path}.tmp-${process.pid}`;
-  await writeFile(tmp, text, 'utf8');
+  await writeFile(tmp, text);
   await rename(tmp, path);
 }
 
@@ -83,5 +84,21 @@ export async function runCohortStep(opts: CohortStepOptions): Promise<{ written:
   } catch (e) {
     throw new CohortError(`${opts.outDir}: cannot write the cohort outputs (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
   }
-  return { written: files.map(([name]) => join(opts.outDir, name)), warnings };
+  const pngs = await writePngs(figures, opts.outDir, warnings);
+  return { written: [...files.map(([name]) => join(opts.outDir, name)), ...pngs], warnings };
+}
+
+/** Each figure also as PNG (2× scale, white background); a failure here is a warning, the SVGs stay. */
+async function writePngs(figures: readonly { name: string; svg: string }[], outDir: string, warnings: string[]): Promise<string[]> {
+  const written: string[] = [];
+  for (const f of figures) {
+    const path = join(outDir, `${f.name}.png`);
+    try {
+      await writeAtomic(path, await sharp(Buffer.from(f.svg), { density: 144 }).png().toBuffer());
+      written.push(path);
+    } catch (e) {
+      warnings.push(`${f.name}.png: not written (${(e as Error).message.split('\n')[0]})`);
+    }
+  }
+  return written;
 }

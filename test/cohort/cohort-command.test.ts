@@ -30,7 +30,7 @@ describe('eggline cohort', () => {
     expect(b.err.join('')).toBe('');
     expect(code).toBe(0);
     expect(existsSync(join(resultsDir, 'cohort', 'report.html'))).toBe(true);
-    expect(b.out.join('')).toMatch(/^wrote 11 files to .*cohort \(open report\.html\)\n$/);
+    expect(b.out.join('')).toMatch(/^wrote 17 files to .*cohort \(open report\.html\)\n$/);
   });
   it('usage errors exit 2 with one line and a hint', async () => {
     const cases: [string[], string][] = [

@@ -25,8 +25,8 @@ describe('runCohortStep', () => {
       normalisation: 'amplitude', lambdaPosteriorEl: 0.3,
     });
     const names = readdirSync(out).sort();
-    expect(names).toEqual(['cohort-profiles.svg', 'conditions.csv', 'dosage_fit.csv', 'lambda-by-condition.svg', 'positional-error.svg', 'positional_error.csv', 'report.html',
-      'shift-boundary-target-half-max.svg', 'shift-boundary-target-logistic.svg', 'shift-landmark-furrow.svg', 'shifts.csv']);
+    const figures = ['cohort-profiles', 'lambda-by-condition', 'positional-error', 'shift-boundary-target-half-max', 'shift-boundary-target-logistic', 'shift-landmark-furrow'];
+    expect(names).toEqual([...figures.flatMap((f) => [`${f}.png`, `${f}.svg`]), 'conditions.csv', 'dosage_fit.csv', 'positional_error.csv', 'report.html', 'shifts.csv'].sort());
     expect(r.written.length).toBe(names.length);
     expect(r.warnings).toEqual([]); // the failed result is a failure, not an unmatched file
     const shifts = readFileSync(join(out, 'shifts.csv'), 'utf8').trim().split('\r\n');
