@@ -78,6 +78,12 @@ describe('readStackInfo: plain TIFF', () => {
     expect(s.pixelSize).toEqual({ xUm: 1 / 20000, yUm: 1 / 20000, zUm: 1.5, source: 'tiff-resolution' });
   });
 
+  // Source: TIFF 6.0 §3 (PhotometricInterpretation 0 = WhiteIsZero).
+  it('warns about WhiteIsZero images', async () => {
+    const s = await info(patchInlineValue(writePlainTiff(planes(1), { pixelSizeUm: 1 }), 262, 0));
+    expect(s.warnings).toEqual(['image is WhiteIsZero: values are used as stored (high = dark)']);
+  });
+
   it('reads extra samples as channels', async () => {
     const s = await info(writePlainTiff([{ width: 2, height: 2, data: new Uint8Array(12), samplesPerPixel: 3 }]));
     expect(s).toMatchObject({ sizeZ: 1, sizeC: 3, samplesPerPixel: 3, channelNames: ['C0', 'C1', 'C2'] });
@@ -107,6 +113,8 @@ describe('readStackInfo: bad input fails fast with a code and a message naming t
       /^bad\.tif: declares 100000×100000 uint16 pixels per plane \(18\.6 GB\) but the file has only 404 bytes$/],
     ['complex SampleFormat', patchInlineValue(good, 339, 6), 'unsupported', 'bad.tif: complex samples (16-bit) not supported'],
     ['1-bit samples', patchInlineValue(good, 258, 1), 'unsupported', 'bad.tif: 1-bit (bilevel) images are not supported'],
+    ['RGB colour image', patchInlineValue(good, 262, 2), 'unsupported', 'bad.tif: RGB colour images are not supported for analysis (export the raw grey-level channels)'],
+    ['palette image', patchInlineValue(good, 262, 3), 'unsupported', 'bad.tif: palette colour images are not supported for analysis (export the raw grey-level channels)'],
     ['malformed OME-XML', writePlainTiff(planes(1), { description: '<OME><Image>' }), 'bad-ome', /^bad\.tif: OME-XML is not well-formed/],
   ];
   for (const [what, bytes, code, message] of cases) {

@@ -14,6 +14,7 @@ import { sampleTypeOf } from './sample-type';
 import { readNumber, readTag } from './tag-value';
 import { Tag } from './tags';
 import { checkPlaneBudget } from './budget';
+import { colourModelOf } from './photometric';
 
 /** Options for readStackInfo. */
 export interface StackInfoOptions {
@@ -30,6 +31,10 @@ export async function readStackInfo(source: ByteSource, fileLabel: string, optio
   const layout = await readImageLayout(source, header, ifds[0], fileLabel);
   if (isBilevelCompression(layout.compression)) throw new TiffError('unsupported', fileLabel, '1-bit (bilevel) images are not supported');
   const sampleType = sampleTypeOf(layout, fileLabel);
+  const colour = colourModelOf(layout.photometric);
+  if (colour !== null) {
+    throw new TiffError('unsupported', fileLabel, `${colour} images are not supported for analysis (export the raw grey-level channels)`);
+  }
   checkPlaneBudget(layout, sampleType, source.size, maxPlaneBytes, fileLabel);
   const descriptionTag = await readTag(source, header, ifds[0], Tag.ImageDescription, fileLabel);
   const description = descriptionTag?.kind === 'ascii' ? descriptionTag.text : null;
@@ -97,6 +102,8 @@ async function omeStack(_source: ByteSource, base: BaseInfo, ome: OmeImage, file
 /** Plain TIFF: full-resolution IFDs as Z (or ImageJ channels/slices/frames); samples per pixel become channels. */
 async function plainStack(source: ByteSource, base: BaseInfo, fileLabel: string): Promise<StackInfo> {
   const warnings: string[] = [];
+  // WhiteIsZero (TIFF 6.0 §3) flips the meaning of values; analysis keeps them as stored, so say so.
+  if (base.layout.photometric === 0) warnings.push('image is WhiteIsZero: values are used as stored (high = dark)');
   const planes = await fullResolutionIfds(source, base, fileLabel);
   if (planes.length < base.ifds.length) warnings.push(`${base.ifds.length - planes.length} IFDs of another size or reduced resolution ignored`);
   const imagej = base.description !== null ? parseImageJDescription(base.description) : null;
