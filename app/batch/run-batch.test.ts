@@ -71,3 +71,19 @@ describe('runBatch (in-process mode)', () => {
     rmSync(out, { recursive: true });
   });
 });
+
+describe('runBatch cancel', () => {
+  it('stops after the current file when the signal fires, writes what finished and marks the run cancelled', async () => {
+    const ctrl = new AbortController();
+    const out = join(root, 'out-cancel');
+    const summary = await runBatch({
+      folder: input, outDir: out, settings: DEFAULT_SETTINGS, doc: null, jobs: 0, signal: ctrl.signal,
+      analyzeInProcess: async (t) => { if (t.index === 1) ctrl.abort(); return fake(t); },
+    });
+    expect(summary.cancelled).toBe(true);
+    expect(summary.results.map((r) => r.file)).toEqual(['a.ome.tiff', 'b.tif']);
+    const run = JSON.parse(readFileSync(join(out, 'run.json'), 'utf8'));
+    expect(run.cancelled).toBe(true);
+    expect(run.inputs.map((i: { status: string }) => i.status)).toEqual(['ok', 'ok', 'not-run', 'not-run']);
+  });
+});
