@@ -1,0 +1,47 @@
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { DEFAULT_SETTINGS } from '../../core/settings';
+import { planBatch } from './batch-command';
+
+// Demo data: temp folders and a tiny project; expected messages are this project's pinned wording.
+const root = mkdtempSync(join(tmpdir(), 'eggline-plan-'));
+const input = join(root, 'in');
+mkdirSync(input);
+const project = (files: Record<string, unknown>): string => JSON.stringify({
+  schema: 'eggline-project', version: 1, folder: '.', settings: DEFAULT_SETTINGS, files,
+});
+writeFileSync(join(input, 'eggline-project.json'), project({ 'a.tif': { axis: null, landmarks: [{ name: 'furrow', point: { x: 1, y: 2 } }], fitRangeEl: null } }));
+writeFileSync(join(root, 'other-project.json'), project({}));
+writeFileSync(join(root, 'broken.json'), '{ nope');
+afterAll(() => rmSync(root, { recursive: true, force: true }));
+
+describe('planBatch', () => {
+  it('uses <folder>/eggline-project.json by default and says so', async () => {
+    const plan = await planBatch([input, '--out', join(root, 'out')]);
+    if (plan === 'help') throw new Error('unexpected help');
+    expect(Object.keys(plan.doc?.files ?? {})).toEqual(['a.tif']);
+    expect(plan.projectFile).toBe(join(input, 'eggline-project.json'));
+    expect(plan.notes[0]).toBe(`using hand edits from ${join(input, 'eggline-project.json')} (found in the input folder; --no-project to ignore)`);
+  });
+  it('--project picks another file, --no-project ignores the default', async () => {
+    const other = await planBatch([input, '--out', join(root, 'out'), '--project', join(root, 'other-project.json')]);
+    expect(other !== 'help' && other.projectFile).toBe(join(root, 'other-project.json'));
+    const none = await planBatch([input, '--out', join(root, 'out'), '--no-project']);
+    expect(none !== 'help' && [none.doc, none.projectFile, none.notes]).toEqual([null, null, []]);
+  });
+  it('rejects a missing or broken project file naming it', async () => {
+    await expect(planBatch([input, '--out', join(root, 'o'), '--project', join(root, 'missing.json')]))
+      .rejects.toThrow(`project file not found: ${join(root, 'missing.json')}`);
+    await expect(planBatch([input, '--out', join(root, 'o'), '--project', join(root, 'broken.json')])).rejects.toThrow(/^broken\.json: /);
+  });
+  it('parses jobs, timeout, repeated boundary channels and projection slices', async () => {
+    const plan = await planBatch([input, '--out', join(root, 'o'), '--jobs', '3', '--file-timeout', '30', '--boundary-channel', '2',
+      '--boundary-channel', 'stripes', '--projection', 'slice:5', '--no-project']);
+    if (plan === 'help') throw new Error('unexpected help');
+    expect([plan.jobs, plan.timeoutS, plan.settings.boundaryChannels, plan.settings.projection, plan.settings.sliceIndex])
+      .toEqual([3, 30, [2, 'stripes'], 'slice', 5]);
+    expect(await planBatch(['--help'])).toBe('help');
+  });
+});
