@@ -25,12 +25,40 @@ export function svgDocument(widthPx: number, heightPx: number, title: string, bo
   ].join('');
 }
 
-/** A text element (escaped); `anchor` is the SVG text-anchor. */
-export function textSvg(x: number, y: number, text: string, attrs: { anchor?: 'start' | 'middle' | 'end'; size?: number; weight?: string; fill?: string; rotate?: number; cls?: string } = {}): string {
-  const rot = attrs.rotate ? ` transform="rotate(${attrs.rotate} ${px(x)} ${px(y)})"` : '';
-  const cls = attrs.cls ? ` class="${attrs.cls}"` : '';
-  const weight = attrs.weight ? ` font-weight="${attrs.weight}"` : '';
-  return `<text${cls} x="${px(x)}" y="${px(y)}" text-anchor="${attrs.anchor ?? 'start'}" font-size="${attrs.size ?? 12}" fill="${attrs.fill ?? '#222222'}"${weight}${rot}>${escapeXml(text)}</text>`;
+/** Attribute values: numbers are px-formatted, strings escaped, undefined/null/'' left out. */
+export type SvgAttrs = Readonly<Record<string, string | number | null | undefined>>;
+
+/** One SVG element; `content` is inserted as is (already-built markup), so escape text before passing it. */
+export function el(tag: string, attrs: SvgAttrs, content = ''): string {
+  const parts = Object.entries(attrs)
+    .filter(([, v]) => v !== undefined && v !== null && v !== '')
+    .map(([k, v]) => `${k}="${typeof v === 'number' ? px(v) : escapeXml(v as string)}"`);
+  const open = parts.length > 0 ? `<${tag} ${parts.join(' ')}` : `<${tag}`;
+  return content === '' ? `${open}/>` : `${open}>${content}</${tag}>`;
+}
+
+/** Text style of textSvg. */
+export interface TextStyle {
+  readonly anchor?: 'start' | 'middle' | 'end';
+  readonly size?: number;
+  readonly weight?: string;
+  readonly fill?: string;
+  /** Rotation in degrees about (x, y). */
+  readonly rotate?: number;
+  readonly cls?: string;
+}
+
+/** A text element with escaped content. */
+export function textSvg(x: number, y: number, text: string, style: TextStyle = {}): string {
+  return el('text', {
+    class: style.cls, x, y, 'text-anchor': style.anchor ?? 'start', 'font-size': style.size ?? 12, fill: style.fill ?? '#222222',
+    'font-weight': style.weight, transform: style.rotate ? `rotate(${style.rotate} ${px(x)} ${px(y)})` : undefined,
+  }, escapeXml(text) || ' ');
+}
+
+/** A straight line segment. */
+export function lineSvg(x1: number, y1: number, x2: number, y2: number, attrs: SvgAttrs = {}): string {
+  return el('line', { x1, y1, x2, y2, ...attrs });
 }
 
 /** Validate width/height options: whole pixels between 120 and 4000; throws with an exact message. */
