@@ -141,6 +141,7 @@ const VARIANTS: readonly [string, SampleType, readonly string[]][] = [
   ['uint16-be-lzw2.tif', 'uint16', ['-B', '-c', 'lzw:2']],
   ['uint32-be-lzw2.tif', 'uint32', ['-B', '-c', 'lzw:2']],
   ['float32-be-lzw2.tif', 'float32', ['-B', '-c', 'lzw:2']],
+  ['uint16-tiles-be-lzw2.tif', 'uint16', ['-B', '-t', '-w', '16', '-l', '16', '-c', 'lzw:2']],
   ['uint8-lzw2.tif', 'uint8', ['-c', 'lzw:2']],
   ['int8-packbits.tif', 'int8', ['-c', 'packbits']],
   ['int16-be.tif', 'int16', ['-B']],
@@ -187,6 +188,9 @@ export function makeTiffFixtures(dir: string = FIXTURE_DIR): TiffFixture[] {
   const separate = join(dir, 'uint8-3samples-separate.tif');
   tiffcp(['-p', 'separate'], join(dir, 'uint8-3samples.tif'), separate);
   fixtures.push(samplesFixture('uint8-3samples-separate.tif', separate, ['-p', 'separate']));
+  const separateLzw = join(dir, 'uint8-3samples-separate-lzw2.tif');
+  tiffcp(['-p', 'separate', '-c', 'lzw:2'], join(dir, 'uint8-3samples.tif'), separateLzw);
+  fixtures.push(samplesFixture('uint8-3samples-separate-lzw2.tif', separateLzw, ['-p', 'separate', '-c', 'lzw:2']));
   for (const [order, args] of [['XYTZC', ['-8', '-c', 'lzw:2']], ['XYCZT', ['-B', '-t', '-w', '16', '-l', '16']]] as const) {
     const name = `ome-${order}-${args.join('').replace(/[^a-z0-9]/gi, '')}.ome.tif`;
     tiffcp(args, join(dir, `ome-${order}.ome.tif`), join(dir, name));
