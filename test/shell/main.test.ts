@@ -90,7 +90,7 @@ describe('main process (electron mocked)', () => {
     const serve = mock.state.protocolHandlers.get('eggline')!;
     const page = await serve({ url: 'eggline://app/index.html' });
     expect(page.status).toBe(200);
-    // Source: Electron security checklist item 7 (define a Content-Security-Policy); policy text from the app's brief.
+    // Source: Electron security checklist item 7 (define a Content-Security-Policy); policy text from the Eggline shell specification.
     expect(page.headers.get('content-security-policy')).toBe("default-src 'self'; script-src 'self'; style-src 'self' 'unsafe-inline'; "
       + "img-src 'self' blob: data:; worker-src 'self' blob:; object-src 'none'; base-uri 'none'; frame-src 'none'");
     expect((await serve({ url: 'eggline://app/..%2f..%2fpackage.json' })).status).toBe(403);

@@ -13,7 +13,7 @@ describe('application menu', () => {
     const template = buildMenuTemplate((c) => sent.push(c), [], false);
     expect(template.map((m) => m.label)).toEqual(['File', 'Edit', 'View', 'Help']);
     const byLabel = new Map(flatten(template).map(({ item }) => [item.label, item]));
-    // Source: the app's menu specification in the shell brief (Open Folder Ctrl+O, Save Ctrl+S, Undo Ctrl+Z, Redo Ctrl+Shift+Z).
+    // Source: Eggline shell specification, menu section (Open Folder Ctrl+O, Save Ctrl+S, Undo Ctrl+Z, Redo Ctrl+Shift+Z).
     expect(byLabel.get('Open Folder…')?.accelerator).toBe('CmdOrCtrl+O');
     expect(byLabel.get('Save')?.accelerator).toBe('CmdOrCtrl+S');
     expect(byLabel.get('Undo')?.accelerator).toBe('CmdOrCtrl+Z');
