@@ -58,7 +58,10 @@ export function ImageOverlay(props: ImageOverlayProps) {
     <svg className="image-overlay" width={width} height={height} xmlns="http://www.w3.org/2000/svg">
       <style>{OVERLAY_CSS}</style>
       {outline.length > 2 && <polygon points={pts(view, outline)} className="outline" />}
-      {m?.bandOutlines.map((poly, i) => <polygon key={i} points={pts(view, poly)} className="band" data-testid="band" />)}
+      {m !== null && m.bandOutlines.length > 0 && (
+        // One even-odd path: the band's outer and inner contours together leave the interior unfilled.
+        <path d={m.bandOutlines.map((poly) => `M${pts(view, poly)}Z`).join(' ')} fillRule="evenodd" className="band" data-testid="band" />
+      )}
       {axis !== null && m?.boundaries.map((b, i) => {
         if (b.positionEl === null) return null;
         const [u, w] = crossLine(axis, b.positionEl, halfWidthPx).map((q) => toS(view, q));

@@ -12,7 +12,7 @@ export function LandmarkList({ landmarks, selected, dispatch }: { landmarks: rea
       {landmarks.length === 0 ? <p className="muted small">none</p> : (
         <table><thead><tr><th>name</th><th>x/EL</th><th>µm</th><th>off-axis µm</th><th /></tr></thead><tbody>
           {landmarks.map((l, i) => (
-            <tr key={i} className={selected === i ? 'selected' : ''} onClick={() => dispatch({ type: 'selectLandmark', index: i })}>
+            <tr key={i} data-testid="landmark-row" data-name={l.name} className={selected === i ? 'selected' : ''} onClick={() => dispatch({ type: 'selectLandmark', index: i })}>
               <td><input className="name" defaultValue={l.name} key={l.name} onBlur={(e) => dispatch({ type: 'renameLandmark', index: i, name: e.target.value })}
                 onKeyDown={(e) => { if (e.key === 'Enter') (e.target as HTMLInputElement).blur(); }} /></td>
               <td data-testid="landmark-xel">{fixed(l.xEl, 3)}</td><td>{fixed(l.xUm, 1)}</td><td>{fixed(l.offAxisUm, 1)}</td>

@@ -25,7 +25,13 @@ export function StraightView({ measurement: m, display, width, fitRangeEl }: Str
     if (m === null || strip === undefined) return null;
     const c = document.createElement('canvas');
     c.width = strip.width; c.height = strip.height;
-    c.getContext('2d')?.putImageData(new ImageData(compositeRgba(m.strips, display), strip.width, strip.height), 0, 0);
+    const rgba = compositeRgba(m.strips, display);
+    // Tint the sampled pixels so the strip shows exactly where the profile comes from.
+    for (let k = 0; k < m.bandStrip.data.length; k += 1) {
+      if (m.bandStrip.data[k] < 0.5) continue;
+      rgba[4 * k] = rgba[4 * k] * 0.75 + 95 * 0.25; rgba[4 * k + 1] = rgba[4 * k + 1] * 0.75 + 211 * 0.25; rgba[4 * k + 2] = rgba[4 * k + 2] * 0.75 + 224 * 0.25;
+    }
+    c.getContext('2d')?.putImageData(new ImageData(rgba, strip.width, strip.height), 0, 0);
     return c;
   }, [m, display]);
   const n = strip?.width ?? 2;
@@ -41,18 +47,12 @@ export function StraightView({ measurement: m, display, width, fitRangeEl }: Str
     ctx.fillRect(0, 0, canvas.width, canvas.height);
     if (bitmap !== null) ctx.drawImage(bitmap, x0 * dpr, 0, (x1 - x0) * dpr, canvas.height);
   }, [bitmap, width, x0, x1]);
-  const rowY = (row: number) => ((row + 0.5) / (strip?.height ?? 1)) * STRIP_HEIGHT_PX;
-  const colX = (i: number) => elToPx(i / (n - 1), width);
-  const edges = m === null ? [] : (['top', 'bottom'] as const).flatMap((side) => [0, 1].map((k) => m.bands
-    .map((b, i) => (b[side] === null ? null : `${colX(i).toFixed(1)},${rowY((b[side] as readonly [number, number])[k] + (k === 0 ? -0.5 : 0.5)).toFixed(1)}`))
-    .filter((s): s is string => s !== null).join(' ')));
   const squeeze = strip === undefined ? 1 : ((x1 - x0) / strip.width) / (STRIP_HEIGHT_PX / strip.height);
   return (
     <div className="straight-view" data-testid="straight-view" style={{ height: STRIP_HEIGHT_PX }}>
       <canvas ref={ref} style={{ width, height: STRIP_HEIGHT_PX }} />
       <svg width={width} height={STRIP_HEIGHT_PX} className="straight-overlay">
         <rect x={elToPx(fitRangeEl[0], width)} width={elToPx(fitRangeEl[1], width) - elToPx(fitRangeEl[0], width)} y={0} height={STRIP_HEIGHT_PX} className="fit-shade" />
-        {edges.map((p, i) => p.length > 0 && <polyline key={i} points={p} className="band-edge" />)}
         {m?.boundaries.map((b, i) => b.positionEl !== null &&
           <line key={i} x1={elToPx(b.positionEl, width)} x2={elToPx(b.positionEl, width)} y1={0} y2={STRIP_HEIGHT_PX} className="boundary-line" stroke={BOUNDARY_COLOURS[i % 3]} />)}
         {m?.landmarks.map((l, i) => (

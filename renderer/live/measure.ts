@@ -1,41 +1,30 @@
-// Live measurement of the shown embryo: straighten along the axis, sample the band, fit, find boundaries.
-// Runs in the renderer on every edit, so it only does per-edit work; per-file work is in prepareLive.
+// Live measurement of the shown embryo with the same core functions the batch uses (prepareSampling once per
+// file and settings, measureEmbryo per edit), plus the straightened strip for the view.
 import type { LoadedStack } from '../../core/contract';
 import type { ApAxis, Boundary, ExponentialFit, ImagePoint, Landmark, LandmarkPosition, Plane, Profile } from '../../core/model';
+import { measureEmbryo, prepareSampling, sampleBandOutline } from '../../core/pipeline';
+import type { PreparedSampling } from '../../core/pipeline';
 import type { AnalysisSettings } from '../../core/settings';
-import { axisLeftNormal, distancePx } from '../geometry';
-import { backgroundLevel } from './background';
-import { bandRows, bandSelection } from './bandSelect';
-import type { ColumnBand } from './bandSelect';
-import { resolveChannel } from './channels';
-import { fitProfileExponential } from './expFit';
-import { halfMaxBoundary } from './halfMax';
-import { landmarkPositions } from './landmarks';
-import { profileFromStrip } from './stripProfile';
+import { distancePx } from '../geometry';
 import { straightenPlane } from './straighten';
 
-/** Per-file values that do not change while the axis or landmarks are edited. */
+/** Per-file values that do not change while the axis, landmarks or fit range are edited. */
 export interface LivePrepared {
   readonly stack: LoadedStack;
-  readonly maskPlane: Plane;
-  readonly gradientIndex: number | null;
-  readonly boundaryIndices: readonly number[];
-  /** Background per channel, image intensity units. */
-  readonly backgrounds: readonly number[];
-  readonly pixelSizeUm: number;
-  readonly warnings: readonly string[];
+  readonly sampling: PreparedSampling;
+  /** The sampled band (edge mode) or the whole mask (axis mode) as a 0/1 float plane, for the strip overlay. */
+  readonly bandPlane: Plane;
 }
 
 /** Everything the views draw for one axis. */
 export interface LiveMeasurement {
+  /** Egg length along the axis, µm (px when the pixel size is unknown). */
   readonly eggLengthUm: number;
-  /** Straightened channels (anterior left; row 0 = left of A→P) and mask, same size. */
+  /** Straightened channels (anterior left; row 0 = left of A→P), same size. */
   readonly strips: readonly Plane[];
-  readonly maskStrip: Plane;
-  /** Strip row spacing in image px. */
-  readonly rowStepPx: number;
-  readonly bands: readonly ColumnBand[];
-  /** Sampled band outlines in image coordinates (one closed polygon per sampled side). */
+  /** Straightened 0/1 plane of the pixels the profile samples (same size as the strips). */
+  readonly bandStrip: Plane;
+  /** Sampled region outlines in image coordinates. */
   readonly bandOutlines: readonly (readonly ImagePoint[])[];
   readonly profile: Profile | null;
   readonly fit: ExponentialFit | null;
@@ -45,69 +34,46 @@ export interface LiveMeasurement {
   readonly warnings: readonly string[];
 }
 
-/** Per-file preparation: channel choice, backgrounds, the mask as a float plane. */
+/** Per-file preparation (re-run when the stack or the settings change). */
 export function prepareLive(stack: LoadedStack, settings: AnalysisSettings): LivePrepared {
-  const names = stack.projected.channelNames;
-  const warnings = [...stack.projected.warnings, ...stack.detection.warnings];
-  const gradientIndex = resolveChannel(settings.gradientChannel, names);
-  if (gradientIndex === null) warnings.push(`gradient channel ${settings.gradientChannel} is not in this file (channels: ${names.join(', ')})`);
-  const boundaryIndices = settings.boundaryChannels.map((c) => resolveChannel(c, names)).filter((i): i is number => i !== null);
-  const { mask } = stack.detection;
-  const maskPlane = { width: mask.width, height: mask.height, data: Float32Array.from(mask.data) };
-  const backgrounds = stack.projected.channels.map((p) => backgroundLevel(p, mask, settings.background));
-  const known = stack.projected.pixelSizeUm !== null && stack.projected.pixelSizeUm > 0;
-  if (!known) warnings.push('pixel size unknown: lengths are in pixels (set a pixel size in the settings)');
-  return { stack, maskPlane, gradientIndex, boundaryIndices, backgrounds, pixelSizeUm: known ? stack.projected.pixelSizeUm as number : (settings.pixelSizeUm ?? 1), warnings };
+  const sampling = prepareSampling(stack.projected, stack.detection, settings);
+  const src = settings.profile.mode === 'edge' ? sampling.bandMask : sampling.mask;
+  return { stack, sampling, bandPlane: { width: src.width, height: src.height, data: Float32Array.from(src.data) } };
 }
 
 /** Longest strip side in samples, so a drag on a large image still updates within a frame. */
 export const MAX_STRIP_SAMPLES = 640;
 
-/** Measure along `axis` with the current settings, landmarks and fit range (x/EL). */
-export function measureLive(prep: LivePrepared, axis: ApAxis, settings: AnalysisSettings, landmarks: readonly Landmark[], fitRangeEl: readonly [number, number]): LiveMeasurement {
-  const lengthPx = Math.max(1, distancePx(axis.anterior, axis.posterior));
-  const eggLengthUm = lengthPx * prep.pixelSizeUm;
-  const samplesAlong = Math.max(2, Math.min(MAX_STRIP_SAMPLES, Math.round(lengthPx)));
-  const rowStepPx = lengthPx / (samplesAlong - 1);
-  const halfWidthImgPx = Math.max(4, (prep.stack.detection.eggWidthUm / prep.pixelSizeUm) * 0.6);
-  const halfRows = Math.max(1, Math.round(halfWidthImgPx / rowStepPx));
-  const strips = prep.stack.projected.channels.map((p) => straightenPlane(p, axis, halfRows, samplesAlong, rowStepPx));
-  const maskStrip = straightenPlane(prep.maskPlane, axis, halfRows, samplesAlong, rowStepPx);
-  const bands = bandRows(maskStrip, settings.profile, rowStepPx * prep.pixelSizeUm);
-  const select = bandSelection(samplesAlong, 2 * halfRows + 1, bands);
-  const names = prep.stack.projected.channelNames;
-  const profileOf = (c: number) => profileFromStrip(strips[c], eggLengthUm, settings.profile.binCount, prep.backgrounds[c], names[c], select);
-  const warnings = [...prep.warnings];
-  const profile = prep.gradientIndex === null ? null : profileOf(prep.gradientIndex);
-  let fit: ExponentialFit | null = null;
-  if (profile !== null) {
-    const f = fitProfileExponential(profile, fitRangeEl, eggLengthUm);
-    if (typeof f === 'string') warnings.push(f); else fit = f;
-  }
-  const boundaryProfiles = prep.boundaryIndices.map(profileOf);
-  const boundaries = boundaryProfiles.map((p) => halfMaxBoundary(p, eggLengthUm));
-  const bandOutlines = outlinesOf(axis, bands, halfRows, samplesAlong, rowStepPx);
-  return { eggLengthUm, strips, maskStrip, rowStepPx, bands, bandOutlines, profile, fit, boundaryProfiles, boundaries, landmarks: landmarkPositions(landmarks, axis, prep.pixelSizeUm), warnings };
+/** Keep only the strip rows on the sampled side(s) and, for the axis strip, within its half width. */
+function sampledRows(band: Plane, settings: AnalysisSettings, rowStepUm: number): Plane {
+  const p = settings.profile;
+  const centre = (band.height - 1) / 2;
+  const dorsalTop = p.dorsalSide === 'left';
+  const keepTop = p.mode === 'axis' || p.edgeSide === 'both' || (p.edgeSide === 'dorsal') === dorsalTop;
+  const keepBottom = p.mode === 'axis' || p.edgeSide === 'both' || (p.edgeSide === 'ventral') === dorsalTop;
+  const half = p.mode === 'axis' ? p.axisWidthUm / 2 / rowStepUm : Infinity;
+  const data = band.data.map((v, k) => {
+    const d = Math.floor(k / band.width) - centre;
+    const ok = (d <= 0 ? keepTop : keepBottom) && Math.abs(d) <= half;
+    return ok && v >= 0.5 ? 1 : 0;
+  });
+  return { ...band, data };
 }
 
-/** Closed image-space polygons around the sampled rows, one per side, for drawing where the band samples. */
-function outlinesOf(axis: ApAxis, bands: readonly ColumnBand[], halfRows: number, samplesAlong: number, rowStepPx: number): ImagePoint[][] {
-  const n = axisLeftNormal(axis.anterior, axis.posterior);
-  const at = (i: number, row: number): ImagePoint => {
-    const t = i / (samplesAlong - 1);
-    const off = (halfRows - row) * rowStepPx;
-    return { x: axis.anterior.x + t * (axis.posterior.x - axis.anterior.x) + off * n.x, y: axis.anterior.y + t * (axis.posterior.y - axis.anterior.y) + off * n.y };
+/** Measure along `axis` with the current settings, landmarks and fit range (x/EL). */
+export function measureLive(prep: LivePrepared, axis: ApAxis, settings: AnalysisSettings, landmarks: readonly Landmark[], fitRangeEl: readonly [number, number]): LiveMeasurement {
+  const s = { ...settings, fitRangeEl };
+  const m = measureEmbryo(prep.sampling, axis, s, landmarks);
+  const lengthPx = Math.max(1, distancePx(axis.anterior, axis.posterior));
+  const pxUm = prep.sampling.pixelSizeUm ?? 1;
+  const samplesAlong = Math.max(2, Math.min(MAX_STRIP_SAMPLES, Math.round(lengthPx)));
+  const rowStepPx = lengthPx / (samplesAlong - 1);
+  const halfRows = Math.max(1, Math.round((prep.stack.detection.eggWidthUm / pxUm) * 0.6 / rowStepPx));
+  const strips = prep.stack.projected.channels.map((p) => straightenPlane(p, axis, halfRows, samplesAlong, rowStepPx));
+  const bandStrip = sampledRows(straightenPlane(prep.bandPlane, axis, halfRows, samplesAlong, rowStepPx), s, rowStepPx * pxUm);
+  return {
+    eggLengthUm: m.eggLengthUm ?? lengthPx, strips, bandStrip, bandOutlines: sampleBandOutline(prep.sampling, axis, s),
+    profile: m.gradientProfile, fit: m.gradientFit, boundaryProfiles: m.boundaryProfiles, boundaries: m.boundaries,
+    landmarks: m.landmarks, warnings: m.warnings,
   };
-  const polys: ImagePoint[][] = [];
-  for (const side of ['top', 'bottom'] as const) {
-    const outer: ImagePoint[] = [], inner: ImagePoint[] = [];
-    const step = Math.max(1, Math.floor(samplesAlong / 160));
-    bands.forEach((b, i) => {
-      const r = b[side];
-      if (r === null || i % step !== 0) return;
-      outer.push(at(i, r[0] - 0.5)); inner.push(at(i, r[1] + 0.5));
-    });
-    if (outer.length > 1) polys.push([...outer, ...inner.reverse()]);
-  }
-  return polys;
 }

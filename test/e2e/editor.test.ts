@@ -1,0 +1,163 @@
+// End to end in Chromium: the built window over the real app handlers (see harness.ts). Demo data only.
+import { mkdtempSync, promises as fs } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { ARTIFACTS, chooseEngine, ensureRendererBuilt, startHarness } from './harness';
+import type { Harness } from './harness';
+
+let h: Harness;
+let scratch: string;
+let dataDir: string;
+let engineName = '';
+
+const shot = (page: Page, name: string) => page.screenshot({ path: join(ARTIFACTS, `${name}.png`) });
+const text = async (page: Page, testId: string) => (await page.getByTestId(testId).first().textContent()) ?? '';
+const centre = async (page: Page, selector: string) => {
+  const box = await page.locator(selector).first().boundingBox();
+  if (box === null) throw new Error(`${selector} is not visible`);
+  return { x: box.x + box.width / 2, y: box.y + box.height / 2 };
+};
+const drag = async (page: Page, from: { x: number; y: number }, to: { x: number; y: number }) => {
+  await page.mouse.move(from.x, from.y);
+  await page.mouse.down();
+  for (let k = 1; k <= 8; k += 1) await page.mouse.move(from.x + ((to.x - from.x) * k) / 8, from.y + ((to.y - from.y) * k) / 8);
+  await page.mouse.up();
+};
+/** λ text changes away from `before`. */
+/** x/EL shown for the landmark named `name` in the landmark table. */
+const landmarkXel = (page: Page, name: string) => page.locator(`[data-testid=landmark-row][data-name="${name}"] [data-testid=landmark-xel]`).textContent().then((t) => t ?? '');
+const lambdaChanges = (page: Page, before: string) => expect.poll(() => text(page, 'lambda-um'), { timeout: 10_000 }).not.toBe(before);
+
+beforeAll(async () => {
+  scratch = mkdtempSync(join(tmpdir(), 'eggline-e2e-'));
+  dataDir = join(scratch, 'data');
+  await fs.mkdir(ARTIFACTS, { recursive: true });
+  await ensureRendererBuilt();
+  const engine = chooseEngine();
+  engineName = engine.name;
+  console.log(`e2e engine: ${engineName}`);
+  // Four demo embryos keep the run short; they span the demo's conditions.
+  h = await startHarness(dataDir, engine.engine, 4);
+}, 180_000);
+
+afterAll(async () => {
+  await h?.close();
+  await fs.rm(scratch, { recursive: true, force: true });
+});
+
+describe('editor window', { timeout: 150_000 }, () => {
+  let handleA = { x: 0, y: 0 };
+  let handleP = { x: 0, y: 0 };
+  let lambdaAfterEdits = '';
+  let placedXel = '';
+
+  it('opens the demo at start: the axis appears with A and P handles and a fitted λ', async () => {
+    const { page } = h;
+    await page.getByTestId('handle-anterior').waitFor({ timeout: 90_000 });
+    await expect.poll(() => text(page, 'lambda-um'), { timeout: 20_000 }).toMatch(/µm/);
+    expect(await page.getByTestId('folder-entry').count()).toBeGreaterThan(1);
+    expect(await page.getByTestId('band').count()).toBeGreaterThan(0);
+    await shot(page, '01-demo-opened');
+  });
+
+  it('dragging the posterior handle changes λ', async () => {
+    const { page } = h;
+    const before = await text(page, 'lambda-um');
+    const p = await centre(page, '[data-testid=handle-posterior] circle');
+    await drag(page, p, { x: p.x - 70, y: p.y + 12 });
+    await lambdaChanges(page, before);
+    expect(await text(page, 'undo')).toBe('Undo');
+    await shot(page, '02-posterior-dragged');
+  });
+
+  it('swap A/P exchanges the poles (button), and S swaps back', async () => {
+    const { page } = h;
+    const a0 = await centre(page, '[data-testid=handle-anterior] circle');
+    const p0 = await centre(page, '[data-testid=handle-posterior] circle');
+    await page.getByTestId('swap').click();
+    const a1 = await centre(page, '[data-testid=handle-anterior] circle');
+    expect(Math.abs(a1.x - p0.x)).toBeLessThan(1.5);
+    expect(Math.abs(a1.y - p0.y)).toBeLessThan(1.5);
+    await shot(page, '03-poles-swapped');
+    await page.keyboard.press('s');
+    const a2 = await centre(page, '[data-testid=handle-anterior] circle');
+    expect(Math.abs(a2.x - a0.x)).toBeLessThan(1.5);
+  });
+
+  it('places a landmark, moves it, and undo puts it back', async () => {
+    const { page } = h;
+    await page.getByTestId('tool-landmark').click();
+    const a = await centre(page, '[data-testid=handle-anterior] circle');
+    const p = await centre(page, '[data-testid=handle-posterior] circle');
+    const spot = { x: a.x + (p.x - a.x) * 0.35, y: a.y + (p.y - a.y) * 0.35 - 20 };
+    await page.mouse.click(spot.x, spot.y);
+    await page.locator('[data-testid=landmark][data-name=L1]').waitFor();
+    const placed = await landmarkXel(page, 'L1');
+    expect(Number(placed)).toBeGreaterThan(0.25);
+    expect(Number(placed)).toBeLessThan(0.45);
+    await drag(page, spot, { x: spot.x + 60, y: spot.y });
+    await expect.poll(() => landmarkXel(page, 'L1')).not.toBe(placed);
+    await shot(page, '04a-landmark-moved');
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => landmarkXel(page, 'L1')).toBe(placed);
+    placedXel = placed;
+    await page.getByTestId('tool-axis').click();
+    await shot(page, '04b-landmark-move-undone');
+  });
+
+  it('saves the project with the hand axis and the landmark', async () => {
+    const { page } = h;
+    await expect.poll(() => text(page, 'save-status'), { timeout: 10_000 }).toMatch(/^saved/);
+    const doc = JSON.parse(await fs.readFile(join(dataDir, 'demo', 'eggline-project.json'), 'utf8')) as { files: Record<string, { axis: { source: string } | null; landmarks: { name: string }[] }> };
+    const edited = Object.values(doc.files).find((f) => f.landmarks.some((l) => l.name === 'L1'));
+    expect(edited?.axis?.source).toBe('hand');
+    handleA = await centre(page, '[data-testid=handle-anterior] circle');
+    handleP = await centre(page, '[data-testid=handle-posterior] circle');
+    lambdaAfterEdits = await text(page, 'lambda-um');
+  });
+
+  it('after a reload with fresh handlers on the same data folder, everything is restored', async () => {
+    const { page } = h;
+    h.freshHandlers();
+    await page.reload();
+    await page.locator('[data-testid=landmark][data-name=L1]').waitFor({ timeout: 60_000 });
+    await expect.poll(() => text(page, 'lambda-um'), { timeout: 20_000 }).toBe(lambdaAfterEdits);
+    const a = await centre(page, '[data-testid=handle-anterior] circle');
+    const p = await centre(page, '[data-testid=handle-posterior] circle');
+    expect(Math.abs(a.x - handleA.x) + Math.abs(a.y - handleA.y)).toBeLessThan(1.5);
+    expect(Math.abs(p.x - handleP.x) + Math.abs(p.y - handleP.y)).toBeLessThan(1.5);
+    expect(await landmarkXel(page, 'L1')).toBe(placedXel);
+    expect(await page.locator('[data-testid=folder-entry] .status-edited').count()).toBeGreaterThanOrEqual(1);
+    await shot(page, '05-restored-after-reload');
+  });
+
+  it('dragging the fit-range end changes λ', async () => {
+    const { page } = h;
+    const before = await text(page, 'lambda-um');
+    const hi = await centre(page, '[data-testid=fit-hi] rect');
+    await drag(page, hi, { x: hi.x + 90, y: hi.y });
+    await lambdaChanges(page, before);
+    await shot(page, '06-fit-range-dragged');
+  });
+
+  it('runs a batch on the demo folder: progress, then results', async () => {
+    const { page } = h;
+    const out = join(scratch, 'out');
+    await fs.mkdir(out);
+    h.dialogs.output = out;
+    await page.getByTestId('tab-batch').click();
+    await page.getByTestId('batch-choose').click();
+    await expect.poll(() => text(page, 'batch-out')).toBe(out);
+    await page.getByTestId('batch-run').click();
+    await page.getByTestId('batch-results').waitFor({ timeout: 120_000 });
+    expect(h.progress.length).toBeGreaterThan(2);
+    expect(await text(page, 'batch-progress')).toMatch(/^(\d+) \/ \1/);
+    expect(await page.locator('[data-testid=batch-results] tbody tr').count()).toBeGreaterThan(1);
+    await shot(page, '07-batch-finished');
+    await page.getByTestId('tab-cohort').click();
+    await page.getByTestId('cohort-view').waitFor();
+    await shot(page, '08-cohort');
+  });
+});

@@ -1,0 +1,127 @@
+// Browser harness: the built renderer in Debian's Chromium (playwright-core, no downloads), served from
+// dist/renderer through page.route, with window.eggline built from the REAL app handlers running in this process.
+import { existsSync, promises as fs, statSync, readdirSync } from 'node:fs';
+import { extname, join, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { chromium } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
+import { createHandlers } from '../../app/main/handlers';
+import type { ApiHandlers, HandlerDeps } from '../../app/main/handlers';
+import type { AnalysisEngine } from '../../app/main/engine';
+import { API_INVOKE_METHODS } from '../../core/contract';
+import type { BatchProgress, ExportKind } from '../../core/contract';
+import { createStandInEngine } from './standInEngine';
+
+/** Repository root and the built renderer. */
+export const ROOT = fileURLToPath(new URL('../..', import.meta.url)).replace(/\/$/, '');
+export const RENDERER_DIST = join(ROOT, 'dist/renderer');
+/** Where screenshots go (gitignored). */
+export const ARTIFACTS = join(ROOT, 'test/artifacts/e2e');
+
+const MIME: Record<string, string> = {
+  '.html': 'text/html', '.js': 'text/javascript', '.css': 'text/css', '.map': 'application/json', '.svg': 'image/svg+xml', '.png': 'image/png',
+};
+
+/** Newest modification time of the files under a folder (ms). */
+function newestMtime(dir: string): number {
+  let t = 0;
+  for (const e of readdirSync(dir, { withFileTypes: true })) {
+    const p = join(dir, e.name);
+    t = Math.max(t, e.isDirectory() ? newestMtime(p) : statSync(p).mtimeMs);
+  }
+  return t;
+}
+
+/** Build the renderer with Vite unless dist/renderer is newer than every renderer and core source. */
+export async function ensureRendererBuilt(): Promise<void> {
+  const index = join(RENDERER_DIST, 'index.html');
+  const built = existsSync(index) ? statSync(index).mtimeMs : 0;
+  if (built > Math.max(newestMtime(join(ROOT, 'renderer')), newestMtime(join(ROOT, 'core')))) return;
+  const { build } = await import('vite');
+  await build({ configFile: join(ROOT, 'renderer/vite.config.ts'), logLevel: 'warn' });
+}
+
+/** The app's real engine, unless EGGLINE_E2E_ENGINE=stand-in asks for the synthetic stand-in (see standInEngine.ts). */
+export function chooseEngine(): { engine: AnalysisEngine | undefined; name: 'real' | 'stand-in' } {
+  return process.env.EGGLINE_E2E_ENGINE === 'stand-in' ? { engine: createStandInEngine(), name: 'stand-in' } : { engine: undefined, name: 'real' };
+}
+
+/** Dialog answers the test sets before clicking. */
+export interface FakeDialogs {
+  folder: string | null;
+  output: string | null;
+  project: string | null;
+  /** Folder that save dialogs write into (file name = suggested name). */
+  saveDir: string | null;
+}
+
+/** A running harness. */
+export interface Harness {
+  readonly browser: Browser;
+  readonly page: Page;
+  readonly dialogs: FakeDialogs;
+  readonly progress: BatchProgress[];
+  /** Replace the handlers by a fresh instance over the same data folder (as after an app restart). */
+  freshHandlers(): void;
+  close(): Promise<void>;
+}
+
+/** Launch Chromium, wire window.eggline to real handlers and open the app page. */
+export async function startHarness(dataDir: string, engine: AnalysisEngine | undefined, demoSubset?: number): Promise<Harness> {
+  const dialogs: FakeDialogs = { folder: null, output: null, project: null, saveDir: null };
+  const progress: BatchProgress[] = [];
+  let page: Page | null = null;
+  const deps: HandlerDeps = {
+    dataDir, engine, batchJobs: 1, demoSubset,
+    dialogs: {
+      chooseFolder: async () => dialogs.folder,
+      chooseFiles: async () => null,
+      chooseOutputFolder: async () => dialogs.output,
+      openProjectFile: async () => dialogs.project,
+      saveFile: async (name: string, _kind: ExportKind) => (dialogs.saveDir === null ? null : join(dialogs.saveDir, name)),
+    },
+    emitBatchProgress: (p) => {
+      progress.push(p);
+      void page?.evaluate((q) => (window as unknown as { __egglineProgress(p: unknown): void }).__egglineProgress(q), p).catch(() => undefined);
+    },
+  };
+  const current: { handlers: ApiHandlers } = { handlers: createHandlers(deps) };
+  const browser = await chromium.launch({
+    executablePath: '/usr/bin/chromium',
+    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--no-first-run', '--disable-sync'],
+  });
+  const context = await browser.newContext({ viewport: { width: 1440, height: 900 }, deviceScaleFactor: 1 });
+  page = await context.newPage();
+  await page.route('http://app.test/**', async (route) => {
+    const rel = decodeURIComponent(new URL(route.request().url()).pathname).replace(/^\/+/, '') || 'index.html';
+    const file = resolve(RENDERER_DIST, rel);
+    if (!file.startsWith(RENDERER_DIST) || !existsSync(file)) { await route.fulfill({ status: 404, body: 'not found' }); return; }
+    await route.fulfill({ status: 200, contentType: MIME[extname(file)] ?? 'application/octet-stream', body: await fs.readFile(file) });
+  });
+  for (const m of API_INVOKE_METHODS) {
+    await page.exposeFunction(`__eggline_${m}`, (...args: unknown[]) => (current.handlers[m] as (...a: unknown[]) => unknown)(...args));
+  }
+  // A plain script string: a bundled function would carry helpers (e.g. __name) that do not exist in the page.
+  await page.addInitScript(`(() => {
+    const methods = ${JSON.stringify([...API_INVOKE_METHODS])};
+    const progressListeners = new Set();
+    const menuListeners = new Set();
+    const api = {
+      onBatchProgress: (l) => { progressListeners.add(l); return () => progressListeners.delete(l); },
+      onMenuCommand: (l) => { menuListeners.add(l); return () => menuListeners.delete(l); },
+    };
+    for (const m of methods) api[m] = (...a) => window['__eggline_' + m](...a);
+    window.eggline = Object.freeze(api);
+    window.__egglineProgress = (p) => progressListeners.forEach((l) => l(p));
+    window.__egglineMenu = (c) => menuListeners.forEach((l) => l(c));
+  })();`);
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  page.on('console', (msg) => { if (msg.type() === 'error') errors.push(msg.text()); });
+  await page.goto('http://app.test/index.html');
+  return {
+    browser, page, dialogs, progress,
+    freshHandlers: () => { current.handlers = createHandlers(deps); },
+    close: async () => { await browser.close(); if (errors.length > 0) console.warn(`page errors:\n${errors.join('\n')}`); },
+  };
+}
