@@ -3,7 +3,7 @@ import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { parseArgs } from 'node:util';
 import { resultsFromJson } from '../../core/batch';
-import type { Normalisation } from '../../core/cohort';
+import type { FilenameRule, Normalisation } from '../../core/cohort';
 import { runCohortStep } from '../cohort/run-cohort';
 
 /** Streams the command writes to (process.stdout/stderr, or buffers in tests). */
@@ -23,7 +23,10 @@ Sample sheet: CSV with a header; columns file, condition, and optionally dosage 
 and any free columns. Files match by relative path, or by file name when that is unique.
 
 Options:
-  --samples CSV               sample sheet                                              [required]
+  --samples CSV               sample sheet                          [required unless --pattern]
+  --pattern REGEX             take conditions from file names instead: a regular expression with a
+                              named group (?<condition>...) and optionally (?<dosage>...)
+  --dosage COND=F             dosage of a condition for --pattern (repeat for each condition)
   --reference COND            reference condition              [default: the one with dosage 1]
   --normalise MODE            none | amplitude | minmax: profile scaling before averaging [none]
   --lambda-posterior-el V     decay length of an opposing posterior gradient (x/EL), adds the
@@ -36,7 +39,22 @@ Exit status: 0 outputs written, 1 bad input (results, sample sheet) or write fai
 
 const NORMALISE = ['none', 'amplitude', 'minmax'];
 
-interface CohortPlan { resultsDir: string; samples: string; reference: string | null; normalisation: Normalisation; lambdaPosteriorEl: number | null; outDir: string }
+interface CohortPlan {
+  resultsDir: string; samples: string | null; rule: FilenameRule | null; reference: string | null;
+  normalisation: Normalisation; lambdaPosteriorEl: number | null; outDir: string;
+}
+
+/** `--dosage COND=F` values as a map, or a usage message. */
+function parseDosages(values: readonly string[]): Record<string, number> | { usage: string } {
+  const out: Record<string, number> = {};
+  for (const v of values) {
+    const eq = v.lastIndexOf('=');
+    const f = Number(v.slice(eq + 1));
+    if (eq <= 0 || !(Number.isFinite(f) && f > 0)) return { usage: `--dosage must look like CONDITION=F with F > 0 (got "${v}")` };
+    out[v.slice(0, eq)] = f;
+  }
+  return out;
+}
 
 /** Parse the arguments; returns a plan, 'help', or a usage-error message. */
 export function parseCohortArgs(argv: readonly string[]): CohortPlan | 'help' | { usage: string } {
@@ -44,7 +62,7 @@ export function parseCohortArgs(argv: readonly string[]): CohortPlan | 'help' | 
   try {
     parsed = parseArgs({
       args: [...argv], allowPositionals: true, strict: true,
-      options: { samples: { type: 'string' }, reference: { type: 'string' }, normalise: { type: 'string' }, 'lambda-posterior-el': { type: 'string' }, out: { type: 'string' }, help: { type: 'boolean', short: 'h' } },
+      options: { samples: { type: 'string' }, pattern: { type: 'string' }, dosage: { type: 'string', multiple: true }, reference: { type: 'string' }, normalise: { type: 'string' }, 'lambda-posterior-el': { type: 'string' }, out: { type: 'string' }, help: { type: 'boolean', short: 'h' } },
     });
   } catch (e) {
     return { usage: (e as Error).message.split('\n')[0].replace(/\. To specify a positional argument.*$/, '') };
@@ -52,13 +70,17 @@ export function parseCohortArgs(argv: readonly string[]): CohortPlan | 'help' | 
   const v = parsed.values;
   if (v.help) return 'help';
   if (parsed.positionals.length !== 1) return { usage: parsed.positionals.length === 0 ? 'missing <results-dir>' : `expected one <results-dir>, got ${parsed.positionals.length}` };
-  if (!v.samples) return { usage: '--samples <csv> is required' };
+  if (!v.samples && !v.pattern) return { usage: '--samples <csv> is required' };
+  if (v.samples && v.pattern) return { usage: 'use either --samples or --pattern, not both' };
+  const dosages = parseDosages(v.dosage ?? []);
+  if ('usage' in dosages) return { usage: dosages.usage as string };
   if (v.normalise !== undefined && !NORMALISE.includes(v.normalise)) return { usage: `--normalise must be none, amplitude or minmax (got "${v.normalise}")` };
   const lp = v['lambda-posterior-el'];
   const lambdaPosteriorEl = lp === undefined ? null : Number(lp);
   if (lambdaPosteriorEl !== null && !(Number.isFinite(lambdaPosteriorEl) && lambdaPosteriorEl > 0)) return { usage: `--lambda-posterior-el must be a positive number (got "${lp}")` };
   const resultsDir = parsed.positionals[0];
-  return { resultsDir, samples: v.samples, reference: v.reference ?? null, normalisation: (v.normalise ?? 'none') as Normalisation, lambdaPosteriorEl, outDir: v.out ?? join(resultsDir, 'cohort') };
+  const rule = v.pattern ? { pattern: v.pattern, dosages: dosages as Record<string, number> } : null;
+  return { resultsDir, samples: v.samples ?? null, rule, reference: v.reference ?? null, normalisation: (v.normalise ?? 'none') as Normalisation, lambdaPosteriorEl, outDir: v.out ?? join(resultsDir, 'cohort') };
 }
 
 async function readOptionalJson(path: string): Promise<unknown> {
@@ -91,7 +113,7 @@ export async function cohortCommand(argv: readonly string[], io: CohortCommandIo
     const runRecord = await readOptionalJson(join(plan.resultsDir, 'run.json'));
     const out = await runCohortStep({
       results, failures: [], sampleSheetPath: plan.samples, reference: plan.reference, outDir: plan.outDir, runRecord,
-      normalisation: plan.normalisation, lambdaPosteriorEl: plan.lambdaPosteriorEl,
+      normalisation: plan.normalisation, lambdaPosteriorEl: plan.lambdaPosteriorEl, ...(plan.rule ? { filenameRule: plan.rule } : {}),
     });
     for (const w of out.warnings) io.stderr.write(`warning: ${w}\n`);
     io.stdout.write(`wrote ${out.written.length} files to ${plan.outDir} (open report.html)\n`);

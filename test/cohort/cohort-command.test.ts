@@ -32,6 +32,14 @@ describe('eggline cohort', () => {
     expect(existsSync(join(resultsDir, 'cohort', 'report.html'))).toBe(true);
     expect(b.out.join('')).toMatch(/^wrote 17 files to .*cohort \(open report\.html\)\n$/);
   });
+  it('--pattern with --dosage takes conditions from file names', async () => {
+    const b = buffers();
+    const out = join(dir, 'by-pattern');
+    const code = await cohortCommand([resultsDir, '--pattern', '^(?<condition>[a-z]+)/', '--dosage', 'ref=1', '--dosage', 'dbl=2', '--out', out], b.io);
+    expect(b.err.join('')).toBe('');
+    expect(code).toBe(0);
+    expect(existsSync(join(out, 'shifts.csv'))).toBe(true);
+  });
   it('usage errors exit 2 with one line and a hint', async () => {
     const cases: [string[], string][] = [
       [[], 'eggline cohort: missing <results-dir> (see "eggline cohort --help")\n'],
@@ -39,6 +47,8 @@ describe('eggline cohort', () => {
       [[resultsDir, '--samples', 's.csv', '--normalise', 'log'], 'eggline cohort: --normalise must be none, amplitude or minmax (got "log") (see "eggline cohort --help")\n'],
       [[resultsDir, '--samples', 's.csv', '--lambda-posterior-el', '0'], 'eggline cohort: --lambda-posterior-el must be a positive number (got "0") (see "eggline cohort --help")\n'],
     ];
+    cases.push([[resultsDir, '--pattern', 'x', '--dosage', 'ref'], 'eggline cohort: --dosage must look like CONDITION=F with F > 0 (got "ref") (see "eggline cohort --help")\n']);
+    cases.push([[resultsDir, '--pattern', 'x', '--samples', 's.csv'], 'eggline cohort: use either --samples or --pattern, not both (see "eggline cohort --help")\n']);
     for (const [argv, message] of cases) {
       const b = buffers();
       expect(await cohortCommand(argv, b.io)).toBe(2);
@@ -61,6 +71,9 @@ describe('eggline cohort', () => {
     const d = buffers();
     expect(await cohortCommand([resultsDir, '--samples', join(dir, 'samples.csv'), '--reference', 'nope'], d.io)).toBe(1);
     expect(d.err.join('')).toBe('eggline cohort: samples.csv: reference condition "nope" is not in the sheet (conditions: ref, dbl)\n');
+    const e = buffers();
+    expect(await cohortCommand([resultsDir, '--pattern', '^(.*)/'], e.io)).toBe(1);
+    expect(e.err.join('')).toBe('eggline cohort: file-name rule: the pattern needs a named group (?<condition>...)\n');
   });
   it('--help prints the usage (exit 0)', async () => {
     const b = buffers();
