@@ -24,29 +24,59 @@ export function sortedQuantile(sorted: ArrayLike<number>, p: number): number {
   return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
 }
 
+/** Histogram of the finite values within [lo, hi] (values outside are ignored) and the count below lo. */
+function histogram(values: ArrayLike<number>, lo: number, hi: number, bins: number): { counts: Float64Array; below: number; total: number } {
+  const counts = new Float64Array(bins);
+  const scale = bins / (hi - lo);
+  let below = 0;
+  let total = 0;
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i];
+    if (!(v === v) || v === Infinity || v === -Infinity) continue;
+    total++;
+    if (v < lo) { below++; continue; }
+    if (v <= hi) counts[Math.min(bins - 1, Math.floor((v - lo) * scale))]++;
+  }
+  return { counts, below, total };
+}
+
+/** Value at cumulative fraction p of a histogram over [lo, hi] (count `below` lies under lo), linear within a bin. */
+function histogramQuantile(h: { counts: Float64Array; below: number; total: number }, lo: number, hi: number, p: number): number {
+  const target = p * h.total;
+  let acc = h.below;
+  const width = (hi - lo) / h.counts.length;
+  for (let b = 0; b < h.counts.length; b++) {
+    if (acc + h.counts[b] >= target && h.counts[b] > 0) return lo + (b + (target - acc) / h.counts[b]) * width;
+    acc += h.counts[b];
+  }
+  return hi;
+}
+
 /**
  * The background is assumed to be the darkest large population: its level is the mode of the histogram of the
  * darker half of the pixels; its noise SD comes from the darker flank only (where no embryo pixels mix in):
  * for a normal peak holding a fraction p of the values below its mode, μ − σ sits at the quantile 0.3173·p.
+ * Histograms (no sorting) keep this O(N): a coarse one over the full range locates the darker half, a fine one
+ * over that half resolves the peak.
  */
 export function estimateBackgroundLevel(values: ArrayLike<number>): BackgroundLevel {
-  const s = sortedSample(values);
-  if (s.length === 0) return { level: 0, noiseSd: 1 };
-  const lo = sortedQuantile(s, 0.001);
-  const hi = sortedQuantile(s, 0.5);
-  const range = s[s.length - 1] - s[0];
-  const floor = Math.max(1e-6 * range, 1e-12);
-  if (!(hi > lo)) return { level: hi, noiseSd: floor };
-  const bins = 256;
-  const hist = new Float64Array(bins);
-  const scale = bins / (hi - lo);
-  const end = Math.ceil(s.length * 0.5);
-  for (let i = 0; i < end; i++) if (s[i] >= lo) hist[Math.min(bins - 1, Math.floor((s[i] - lo) * scale))]++;
+  let min = Infinity;
+  let max = -Infinity;
+  for (let i = 0; i < values.length; i++) { const v = values[i]; if (v < min) min = v; if (v > max) max = v; }
+  if (!(max >= min) || !Number.isFinite(max - min)) return { level: Number.isFinite(min) ? min : 0, noiseSd: 1 };
+  const floor = Math.max(1e-6 * (max - min), 1e-12);
+  if (max === min) return { level: min, noiseSd: floor };
+  const coarse = histogram(values, min, max, 4096);
+  const lo = histogramQuantile(coarse, min, max, 0.001);
+  const hi = Math.max(histogramQuantile(coarse, min, max, 0.5), lo + floor);
+  const fine = histogram(values, lo, hi + (hi - lo) / 4096, 1024);
   let best = 0;
-  for (let b = 1; b < bins; b++) if (hist[b] > hist[best]) best = b;
-  const level = lo + (best + 0.5) / scale;
-  let below = 0;
-  while (below < s.length && s[below] < level) below++;
-  const sdQuantile = sortedQuantile(s, (0.3173 * below) / s.length);
+  for (let b = 1; b < fine.counts.length; b++) if (fine.counts[b] > fine.counts[best]) best = b;
+  const width = (hi + (hi - lo) / 4096 - lo) / 1024;
+  const level = lo + (best + 0.5) * width;
+  let belowLevel = fine.below;
+  for (let b = 0; b < best; b++) belowLevel += fine.counts[b];
+  belowLevel += fine.counts[best] / 2;
+  const sdQuantile = histogramQuantile(fine, lo, hi + (hi - lo) / 4096, (0.3173 * belowLevel) / fine.total);
   return { level, noiseSd: Math.max(level - sdQuantile, floor) };
 }

@@ -71,3 +71,12 @@ describe('morphology', () => {
     expect(rowsOf(erode(mask(5, ['.....', '.###.', '.###.', '.###.', '.....']), 1))).toEqual(['.....', '.....', '..#..', '.....', '.....']);
   });
 });
+
+describe('opening', () => {
+  it('with radius 1.5 removes one-pixel spurs and keeps 3×3 blocks (same as the Euclidean disk)', async () => {
+    const { open } = await import('./morphology');
+    const m = mask(7, ['.......', '.###...', '.####..', '.###.#.', '.......']);
+    expect(rowsOf(open(m, 1.5))).toEqual(['.......', '.###...', '.###...', '.###...', '.......']);
+    expect(rowsOf(open(m, 1.5))).toEqual(rowsOf(dilate(erode(m, 1.5), 1.5)));
+  });
+});

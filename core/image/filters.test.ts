@@ -76,3 +76,29 @@ describe('sampleBilinear', () => {
     expect(sampleBilinear(p, -0.1, 0, -1)).toBe(-1);
   });
 });
+
+describe('fastGaussianSmooth', () => {
+  it('chooses box widths whose combined variance matches sigma²', async () => {
+    const { boxWidthsForSigma } = await import('./box-blur');
+    // Source: a box of odd width w has variance (w² − 1)/12 (from memory); for σ = 2 the nearest odd widths give
+    // 3, 3, 5 → 40/12 (5, 5, 3 would give 56/12: both miss 4 by 2/3).
+    const w = boxWidthsForSigma(2);
+    expect(w).toEqual([3, 3, 5]);
+    expect(w.reduce((s, x) => s + (x * x - 1) / 12, 0)).toBeCloseTo(40 / 12, 12);
+    expect(boxWidthsForSigma(3)).toEqual([5, 5, 7]); // variance (24 + 24 + 48)/12 = 8 for σ² = 9
+  });
+
+  it('keeps flat images flat and the total of an impulse, with the variance of sigma²', async () => {
+    const { fastGaussianSmooth } = await import('./box-blur');
+    const img = plane(41, 1, Array(41).fill(0));
+    img.data[20] = 1;
+    // A 41×1 line: only the x passes spread it (y passes see a single row).
+    const out = fastGaussianSmooth(img, 2).data;
+    let total = 0;
+    let variance = 0;
+    out.forEach((v, i) => { total += v; variance += v * (i - 20) ** 2; });
+    expect(total).toBeCloseTo(1, 6);
+    expect(variance).toBeCloseTo(40 / 12, 5);
+    fastGaussianSmooth(plane(6, 5, Array(30).fill(3)), 1.3).data.forEach((v) => expect(v).toBeCloseTo(3, 5));
+  });
+});

@@ -5,6 +5,7 @@ export type { Projector } from './projector';
 export { projectStack, chooseSliceScore } from './project-stack';
 export { toFloatPlane } from './plane-convert';
 export { gaussianKernel, gaussianSmooth } from './gaussian';
+export { fastGaussianSmooth, boxWidthsForSigma } from './box-blur';
 export { otsuThreshold, otsuBin } from './threshold';
 export { labelComponents, largestComponent } from './components';
 export { fillHoles } from './fill-holes';

@@ -3,7 +3,7 @@ import type { Mask, Plane } from '../model';
 import { estimateBackgroundLevel } from './background-level';
 import { largestComponent } from './components';
 import { fillHoles } from './fill-holes';
-import { gaussianSmooth } from './gaussian';
+import { fastGaussianSmooth } from './box-blur';
 import { maxFilter } from './max-filter';
 import { dilate, open } from './morphology';
 import { distanceInside } from './distance';
@@ -36,7 +36,7 @@ export function checkSegmentOptions(o: SegmentOptions = {}): Required<SegmentOpt
 
 /** One channel smoothed by sigmaPx, minus its background level, divided by its noise SD (units: noise SDs). */
 export function channelSnr(channel: Plane, sigmaPx: number): Plane {
-  const s = gaussianSmooth(channel, sigmaPx).data;
+  const s = fastGaussianSmooth(channel, sigmaPx).data;
   const bg = estimateBackgroundLevel(s);
   const out = new Float32Array(s.length);
   for (let i = 0; i < s.length; i++) out[i] = (s[i] - bg.level) / bg.noiseSd;

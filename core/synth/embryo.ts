@@ -1,7 +1,7 @@
 // Seeded synthetic embryo stack (demo data): an ellipsoidal embryo with a nuclear layer, an exponential gradient
 // channel and a boundary channel, imaged as a small Z stack with defocus blur, camera offset, shot and read noise.
 import type { ImagePoint, Plane } from '../model';
-import { gaussianSmooth } from '../image';
+import { fastGaussianSmooth } from '../image';
 import { createRng } from '../stats';
 import type { Rng } from '../stats';
 import { ellipseDepth } from './ellipse-distance';
@@ -136,7 +136,7 @@ function sectionSignal(p: SyntheticEmbryoParams, f: Frame, zUm: number): [Plane,
 
 /** Blur for defocus, then camera: offset + Poisson(photons + background) + Gaussian read noise, rounded to uint16. */
 function camera(p: SyntheticEmbryoParams, plane: Plane, blurPx: number, rng: Rng): Uint16Array {
-  const blurred = gaussianSmooth(plane, blurPx).data;
+  const blurred = fastGaussianSmooth(plane, blurPx).data;
   const out = new Uint16Array(blurred.length);
   for (let i = 0; i < out.length; i++) {
     const v = p.cameraOffset + rng.poisson(Math.max(0, blurred[i]) + p.backgroundPhotons) + p.readNoiseSd * rng.normal();
