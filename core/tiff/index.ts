@@ -21,3 +21,4 @@ export { writeOmeTiff, writePlainTiff, type WritePlane, type OmeTiffMeta, type P
 export { toRational } from './rational';
 export { createGeotiffPlaneSource, checkPlaneIndex } from './geotiff-source';
 export { checkChunkExtents } from './chunk-extent';
+export { cachedByteSource } from './block-cache';

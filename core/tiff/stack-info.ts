@@ -14,6 +14,7 @@ import { sampleTypeOf } from './sample-type';
 import { readNumber, readTag } from './tag-value';
 import { Tag } from './tags';
 import { checkPlaneBudget } from './budget';
+import { cachedByteSource } from './block-cache';
 import { colourModelOf } from './photometric';
 
 /** Options for readStackInfo. */
@@ -23,9 +24,10 @@ export interface StackInfoOptions {
 }
 
 /** Reads tags (OME-XML, ImageJ description or plain TIFF) into a StackInfo; throws TiffError with a one-line message. */
-export async function readStackInfo(source: ByteSource, fileLabel: string, options: StackInfoOptions = {}): Promise<StackInfo> {
+export async function readStackInfo(file: ByteSource, fileLabel: string, options: StackInfoOptions = {}): Promise<StackInfo> {
   const maxPlaneBytes = options.maxPlaneBytes ?? 2 ** 30;
   if (!(maxPlaneBytes > 0)) throw new Error('maxPlaneBytes must be a positive number');
+  const source = cachedByteSource(file);
   const header = await readTiffHeader(source, fileLabel);
   const ifds = await readIfdChain(source, header, fileLabel);
   const layout = await readImageLayout(source, header, ifds[0], fileLabel);
