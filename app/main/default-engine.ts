@@ -1,18 +1,26 @@
 // The real analysis services: sharp decoding (app/decode), the core pipeline, the batch engine and the demo writer.
 import { detectEmbryo, projectStack } from '../../core/pipeline';
+import type { Detection } from '../../core/model';
 import type { AnalysisSettings } from '../../core/settings';
 import { runBatch } from '../batch/run-batch';
 import { writeDemoDataSet } from '../batch/write-demo';
 import { openStackForAnalysis } from '../decode';
 import type { AnalysisEngine, BatchRunOptions, SliceData, ViewData } from './engine';
+import { placeholderDetection } from './placeholder-detection';
 import { ApiFailure } from './result';
 
-/** Read, project over Z and detect; decoder fallbacks are reported with the projection's warnings. */
+/** Read, project over Z and detect (a placeholder axis when none is found); decoder fallbacks join the warnings. */
 async function loadForView(path: string, label: string, settings: AnalysisSettings): Promise<ViewData> {
   const opened = await openStackForAnalysis(path, label);
   try {
     const projected = await projectStack(opened.info, opened.source, settings);
-    const detection = detectEmbryo(projected, settings);
+    let detection: Detection;
+    try {
+      detection = detectEmbryo(projected, settings);
+    } catch (e) {
+      // The image is still worth showing: the user can place the axis by hand.
+      detection = placeholderDetection(projected, label, e instanceof Error ? e.message : String(e));
+    }
     return { info: opened.info, projected: { ...projected, warnings: [...projected.warnings, ...opened.warnings] }, detection };
   } finally {
     await opened.source.close();

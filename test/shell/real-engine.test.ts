@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { ApiResult, BatchProgress, OpenedFolder } from '../../core/contract';
 import { createHandlers, type ApiHandlers } from '../../app/main/handlers';
+import { writeOmeTiff } from '../../core/tiff';
 
 // End to end through the real decoder, pipeline, batch engine and demo writer, in this thread (demo data: the
 // synthetic demo embryos, a subset of 2 to keep the test quick).
@@ -62,6 +63,17 @@ describe('handlers with the real analysis engine', () => {
       expect(r.error.message.startsWith('not-a-stack.tif: ')).toBe(true);
       expect(r.error.message).not.toContain('\n');
     }
+  });
+
+  it('still shows a stack with no embryo, with a placeholder axis and a warning naming the file', async () => {
+    // Demo data: a blank 64 × 48 frame, 2 slices, 1 channel, 1.5 µm per pixel.
+    const blank = join(root, 'blank.ome.tif');
+    const planes = [0, 1].map(() => ({ width: 64, height: 48, data: new Uint16Array(64 * 48).fill(100) }));
+    await writeFile(blank, writeOmeTiff(planes, { sizeZ: 2, sizeC: 1, sizeT: 1, dimensionOrder: 'XYZCT', channelNames: ['c1'], physicalSizeXUm: 1.5 }));
+    value(await api.openDropped([blank]));
+    const loaded = value(await api.loadStack(blank, demo.project.settings));
+    expect(loaded.detection.axis.anterior.y).toBe(23.5);
+    expect(loaded.detection.warnings[0]).toMatch(/^blank\.ome\.tif: no embryo found automatically \(.+\); the axis shown is a placeholder, set it by hand$/);
   });
 
   it('runs a batch on the demo folder into a chosen output folder', async () => {
