@@ -1,16 +1,18 @@
 // All figures of a cohort analysis, built from its results; the report and the desktop app call this same function.
 import type { CohortAnalysis, Normalisation } from '../cohort';
 import { cohortProfilesFigure } from './cohort-profiles-figure';
-import { lambdaByConditionFigure } from './lambda-figure';
+import { lambdaByConditionFigure, type StripGroup } from './lambda-figure';
 import { positionalErrorFigure } from './positional-error-figure';
-import { shiftVsLnFFigure, type FigureLine } from './shift-figure';
+import { shiftVsLnFFigure, type FigureLine, type ShiftGroup } from './shift-figure';
 
-/** One named figure: `name` is a file-name-safe slug, `svg` the standalone SVG text. */
+/** One named figure: `name` is a file-name-safe slug, `title` a caption, `svg` the standalone SVG text. */
 export interface NamedFigure {
   readonly name: string;
   readonly title: string;
   readonly svg: string;
 }
+
+type Size = { widthPx?: number; heightPx?: number };
 
 const Y_LABELS: Record<Normalisation, string> = {
   none: 'intensity (a.u., background subtracted)',
@@ -23,41 +25,62 @@ export function figureSlug(text: string): string {
   return text.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'figure';
 }
 
-/** Cohort figures: mean profiles, λ by condition, one position-vs-ln f figure per boundary/landmark, σx. */
-export function cohortFigures(a: CohortAnalysis, size: { widthPx?: number; heightPx?: number } = {}): NamedFigure[] {
-  const out: NamedFigure[] = [];
-  const named = (name: string, title: string, svg: string): void => { out.push({ name, title, svg }); };
-  const profTitle = 'Mean gradient profile by condition';
-  const profSub = `line: mean across embryos; band: ± SD across embryos; normalisation: ${a.options.normalisation}`;
-  named('cohort-profiles', profTitle, cohortProfilesFigure(a.profiles.map((p) => ({ label: `${p.condition} (n=${p.embryoCount})`, xEl: p.xEl, mean: p.mean, sd: p.sd })),
-    { ...size, title: profTitle, subtitle: profSub, yLabel: Y_LABELS[a.options.normalisation] }));
-  const lamTitle = 'Decay length λ by condition';
-  named('lambda-by-condition', lamTitle, lambdaByConditionFigure(a.conditions.map((c) => {
+function profilesFigure(a: CohortAnalysis, size: Size): NamedFigure {
+  const title = 'Mean gradient profile by condition';
+  const subtitle = `line: mean across embryos; band: ± SD across embryos; normalisation: ${a.options.normalisation}`;
+  const series = a.profiles.map((p) => ({ label: `${p.condition} (n=${p.embryoCount})`, xEl: p.xEl, mean: p.mean, sd: p.sd }));
+  return { name: 'cohort-profiles', title, svg: cohortProfilesFigure(series, { ...size, title, subtitle, yLabel: Y_LABELS[a.options.normalisation] }) };
+}
+
+function lambdaFigure(a: CohortAnalysis, size: Size): NamedFigure {
+  const title = 'Decay length λ by condition';
+  const groups: StripGroup[] = a.conditions.map((c) => {
     const s = a.stats.find((t) => t.condition === c.name && t.quantity === 'lambda' && t.unit === 'EL');
     const values = a.observations.filter((o) => o.condition === c.name && o.kind === 'lambda' && o.unit === 'EL').map((o) => o.value);
     return { label: c.name, values, mean: s?.mean ?? NaN, ciLow: s?.ciLow ?? NaN, ciHigh: s?.ciHigh ?? NaN };
-  }), { ...size, title: lamTitle, unit: 'EL', level: a.options.level }));
-  for (const fit of a.dosageFits) named(`shift-${figureSlug(fit.quantity)}`, `${fit.quantity}: position vs ln f`, shiftFigureFor(a, fit.quantity, size));
-  const sigTitle = 'Positional error implied by the gradient';
-  named('positional-error', sigTitle, positionalErrorFigure(a.profiles.map((p) => ({ label: p.condition, xEl: p.xEl, sigma: p.sigmaXEl })), { ...size, title: sigTitle }));
-  return out;
+  });
+  return { name: 'lambda-by-condition', title, svg: lambdaByConditionFigure(groups, { ...size, title, unit: 'EL', level: a.options.level }) };
 }
 
-function shiftFigureFor(a: CohortAnalysis, quantity: string, size: { widthPx?: number; heightPx?: number }): string {
+/** Predicted lines pass through the reference mean at ln f = 0 with slope λ_ref (and the two-gradient slope). */
+function predictedLines(a: CohortAnalysis, quantity: string): FigureLine[] {
   const fit = a.dosageFits.find((f) => f.quantity === quantity);
   const ref = a.stats.find((s) => s.condition === a.reference && s.quantity === quantity && s.unit === 'EL');
-  const predicted: FigureLine[] = [];
-  if (fit?.predictedSlopeEl != null && ref) predicted.push({ label: `predicted: slope λ_ref = ${fit.predictedSlopeEl.toFixed(3)}`, slope: fit.predictedSlopeEl, intercept: ref.mean });
-  if (fit?.predictedTwoGradientSlopeEl != null && ref) predicted.push({ label: `two gradients: slope ${fit.predictedTwoGradientSlopeEl.toFixed(3)}`, slope: fit.predictedTwoGradientSlopeEl, intercept: ref.mean });
-  const groups = a.conditions.filter((c) => c.factor !== null).flatMap((c) => {
+  if (!fit || !ref) return [];
+  const lines: FigureLine[] = [];
+  if (fit.predictedSlopeEl !== null) {
+    lines.push({ label: `predicted λ·ln f, λ_ref = ${fit.predictedSlopeEl.toFixed(3)}`, slope: fit.predictedSlopeEl, intercept: ref.mean });
+  }
+  if (fit.predictedTwoGradientSlopeEl !== null) {
+    lines.push({ label: `two gradients: slope ${fit.predictedTwoGradientSlopeEl.toFixed(3)}`, slope: fit.predictedTwoGradientSlopeEl, intercept: ref.mean });
+  }
+  return lines;
+}
+
+function conditionMeans(a: CohortAnalysis, quantity: string): ShiftGroup[] {
+  return a.conditions.flatMap((c) => {
     const s = a.stats.find((t) => t.condition === c.name && t.quantity === quantity && t.unit === 'EL');
-    return s ? [{ label: `f=${Number((c.factor as number).toPrecision(3))}`, lnF: Math.log(c.factor as number), mean: s.mean, ciLow: s.ciLow, ciHigh: s.ciHigh }] : [];
+    if (c.factor === null || !s) return [];
+    return [{ label: `f=${Number(c.factor.toPrecision(3))}`, lnF: Math.log(c.factor), mean: s.mean, ciLow: s.ciLow, ciHigh: s.ciHigh }];
   });
-  return shiftVsLnFFigure({
-    quantity,
-    points: a.observations.filter((o) => o.quantity === quantity && o.unit === 'EL' && o.lnF !== null).map((o) => ({ lnF: o.lnF as number, value: o.value })),
-    groups,
-    fitted: fit ? { label: `fitted: slope ${fit.slopeEl.toFixed(3)} [${fit.ciLow.toFixed(3)}, ${fit.ciHigh.toFixed(3)}]`, slope: fit.slopeEl, intercept: fit.interceptEl } : null,
-    predicted,
-  }, { ...size, title: `${quantity}: position vs ln f` });
+}
+
+function shiftFigure(a: CohortAnalysis, quantity: string, size: Size): NamedFigure {
+  const title = `${quantity}: position vs ln f`;
+  const fit = a.dosageFits.find((f) => f.quantity === quantity);
+  const points = a.observations.filter((o) => o.quantity === quantity && o.unit === 'EL' && o.lnF !== null).map((o) => ({ lnF: o.lnF as number, value: o.value }));
+  const fitted = fit ? { label: `fitted: slope ${fit.slopeEl.toFixed(3)} [${fit.ciLow.toFixed(3)}, ${fit.ciHigh.toFixed(3)}]`, slope: fit.slopeEl, intercept: fit.interceptEl } : null;
+  const svg = shiftVsLnFFigure({ quantity, points, groups: conditionMeans(a, quantity), fitted, predicted: predictedLines(a, quantity) }, { ...size, title });
+  return { name: `shift-${figureSlug(quantity)}`, title, svg };
+}
+
+function sigmaFigure(a: CohortAnalysis, size: Size): NamedFigure {
+  const title = 'Positional error implied by the gradient';
+  const series = a.profiles.map((p) => ({ label: p.condition, xEl: p.xEl, sigma: p.sigmaXEl }));
+  return { name: 'positional-error', title, svg: positionalErrorFigure(series, { ...size, title }) };
+}
+
+/** Cohort figures: mean profiles, λ by condition, one position-vs-ln f figure per boundary/landmark, σx. */
+export function cohortFigures(a: CohortAnalysis, size: Size = {}): NamedFigure[] {
+  return [profilesFigure(a, size), lambdaFigure(a, size), ...a.dosageFits.map((f) => shiftFigure(a, f.quantity, size)), sigmaFigure(a, size)];
 }
