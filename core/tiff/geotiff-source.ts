@@ -1,6 +1,7 @@
 // PlaneSource backed by geotiff (pure JS): the fallback decoder and the reference in tests.
 import { GeoTIFF, getDecoder } from 'geotiff';
 import type { PixelArray, PlaneSource, RawPlane, SampleType, StackInfo } from '../model';
+import { cachedByteSource } from './block-cache';
 import { memoryByteSource, type ByteSource } from './byte-source';
 import { checkChunkExtents } from './chunk-extent';
 import { planeSlot } from './dimension-order';
@@ -86,14 +87,15 @@ export function createGeotiffPlaneSource(bytesOrSource: Uint8Array | ByteSource,
   let tiff: Promise<GeoTIFF> | null = null;
   let chain: Promise<{ header: Awaited<ReturnType<typeof readTiffHeader>>; ifds: Ifd[] }> | null = null;
   const openTiff = () => (tiff ??= GeoTIFF.fromSource(toGeotiffSource(source)));
-  const openChain = () => (chain ??= readTiffHeader(source, fileLabel).then(async (header) => ({ header, ifds: await readIfdChain(source, header, fileLabel) })));
+  const tags = cachedByteSource(source);
+  const openChain = () => (chain ??= readTiffHeader(tags, fileLabel).then(async (header) => ({ header, ifds: await readIfdChain(tags, header, fileLabel) })));
   return {
     async readPlane(z: number, c: number, t: number): Promise<RawPlane> {
       checkPlaneIndex(info, z, c, t);
       const ifd = info.planeIfd[planeSlot(info, z, c, t)];
       const what = `plane z=${z} c=${c} t=${t}`;
       const { header, ifds } = await openChain();
-      await checkChunkExtents(source, header, ifds[ifd], fileLabel, what);
+      await checkChunkExtents(tags, header, ifds[ifd], fileLabel, what);
       try {
         const image = await (await openTiff()).getImage(ifd);
         const sample = info.samplesPerPixel > 1 ? c : 0;
