@@ -81,12 +81,15 @@ async function childPipeline(path: string): Promise<Record<string, number>> {
 /** Child: a whole batch over the folder with `jobs` worker threads. */
 async function childPool(dir: string, jobs: number): Promise<Record<string, number>> {
   const base = process.memoryUsage().rss;
+  const cpu0 = process.cpuUsage();
   const t0 = performance.now();
   const s = await runBatch({
     folder: join(dir, 'in'), outDir: join(dir, `out-${jobs}`), settings: { ...DEFAULT_SETTINGS, boundaryChannels: [2] },
     doc: null, jobs, workerPath,
   });
-  return { ms: performance.now() - t0, peakExtra: peakRss() - base, ok: s.ok, files: s.ok + s.failed };
+  const ms = performance.now() - t0;
+  const cpu = process.cpuUsage(cpu0);
+  return { ms, cpuMs: (cpu.user + cpu.system) / 1000, peakExtra: peakRss() - base, ok: s.ok, files: s.ok + s.failed };
 }
 
 function runChild(args: string[]): Record<string, number> {
@@ -121,12 +124,12 @@ async function main(): Promise<void> {
     peaks.push(p.peakExtra);
     console.log(`${f.name.padEnd(26)}${pad((d.ms / 1000).toFixed(2), 10)}${pad((p.ms / 1000).toFixed(2), 12)}${pad((p.ms / d.ms).toFixed(2), 8)}${pad(mib(p.peakExtra), 10)}${pad((p.peakExtra / RAW_BYTES).toFixed(2), 8)}${pad(mib(p.heapPeak), 14)}`);
   }
-  console.log(`\n${'jobs'.padEnd(6)}${pad('files', 6)}${pad('seconds', 10)}${pad('files/s', 10)}${pad('speed-up', 10)}${pad('peak MiB', 10)}${pad('MiB/worker', 12)}`);
+  console.log(`\n${'jobs'.padEnd(6)}${pad('files', 6)}${pad('seconds', 10)}${pad('files/s', 10)}${pad('speed-up', 10)}${pad('peak MiB', 10)}${pad('MiB/worker', 12)}${pad('CPU s/file', 12)}`);
   const one = runChild(['pool', dir, '1']);
   const all = runChild(['pool', dir, String(cores)]);
   for (const [jobs, r] of [[1, one], [cores, all]] as const) {
     const speed = one.ms / r.ms;
-    console.log(`${String(jobs).padEnd(6)}${pad(r.files, 6)}${pad((r.ms / 1000).toFixed(2), 10)}${pad((r.files / (r.ms / 1000)).toFixed(3), 10)}${pad(speed.toFixed(2), 10)}${pad(mib(r.peakExtra), 10)}${pad(mib(r.peakExtra / jobs), 12)}`);
+    console.log(`${String(jobs).padEnd(6)}${pad(r.files, 6)}${pad((r.ms / 1000).toFixed(2), 10)}${pad((r.files / (r.ms / 1000)).toFixed(3), 10)}${pad(speed.toFixed(2), 10)}${pad(mib(r.peakExtra), 10)}${pad(mib(r.peakExtra / jobs), 12)}${pad((r.cpuMs / 1000 / r.files).toFixed(2), 12)}`);
   }
   const worstRatio = Math.max(...ratios);
   const worstPeak = Math.max(...peaks, one.peakExtra);
@@ -134,7 +137,7 @@ async function main(): Promise<void> {
   console.log(`\naims: pipeline ≤ 1.5× decode: worst ${worstRatio.toFixed(2)}× — ${mark(worstRatio <= 1.5)}`);
   console.log(`      all cores ≥ 1.7× one worker: ${(one.ms / all.ms).toFixed(2)}× — ${mark(one.ms / all.ms >= 1.7)}`);
   console.log(`      peak memory per worker ≤ 2× raw stack: worst ${(worstPeak / RAW_BYTES).toFixed(2)}× — ${mark(worstPeak <= 2 * RAW_BYTES)}`);
-  console.log(`(peak = rise of the process's peak RSS over its RSS at start; heap+buf = sampled JS heap + ArrayBuffers, a lower bound;\n times include decoding from the page cache; other load on the machine slows the all-cores run most)`);
+  console.log(`(peak = rise of the process's peak RSS over its RSS at start; heap+buf = sampled JS heap + ArrayBuffers, a lower bound;\n times include decoding from the page cache; CPU s/file is the process's CPU time (all threads) per file: when it stays flat\n while the speed-up is low, other load on the machine, not the batch, held the cores)`);
   if (!keepAt) rmSync(dir, { recursive: true, force: true });
 }
 
