@@ -21,7 +21,7 @@ export function oneLine(message: string, label: string | null): string {
   const line = message.replace(/\s*\n\s*/g, ' ').trim() || 'unknown error';
   // A message that already starts with a file name ("x.json: …") names its file; do not stack a second one.
   const namesFile = /^\S+\.[A-Za-z0-9]{1,5}: /.test(line);
-  return label === null || namesFile || line.includes(label) ? line : `${label}: ${line}`;
+  return clip(label === null || namesFile || line.includes(label) ? line : `${label}: ${line}`, MAX_MESSAGE_CHARS);
 }
 
 const ERRNO_CODES: Readonly<Record<string, [ApiErrorCode, string]>> = {
@@ -59,9 +59,18 @@ export async function guard<T>(label: string | null, body: () => Promise<T>, fal
   }
 }
 
-/** The label used in messages for a path: its file name. */
+/** Longest file label and message, characters: a message is one readable line, not a dump. */
+const MAX_LABEL_CHARS = 120;
+const MAX_MESSAGE_CHARS = 600;
+
+/** Shorten text to `max` characters with an ellipsis. */
+function clip(text: string, max: number): string {
+  return text.length <= max ? text : `${text.slice(0, max - 1)}…`;
+}
+
+/** The label used in messages for a path: its file name (shortened when absurdly long). */
 export function labelOf(path: string): string {
-  return basename(path) || path;
+  return clip(basename(path) || path, MAX_LABEL_CHARS);
 }
 
 /** Run `body`; anything it throws becomes an ApiFailure whose message names `label` (for paths known only later). */
