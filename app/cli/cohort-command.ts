@@ -62,7 +62,11 @@ export function parseCohortArgs(argv: readonly string[]): CohortPlan | 'help' | 
   try {
     parsed = parseArgs({
       args: [...argv], allowPositionals: true, strict: true,
-      options: { samples: { type: 'string' }, pattern: { type: 'string' }, dosage: { type: 'string', multiple: true }, reference: { type: 'string' }, normalise: { type: 'string' }, 'lambda-posterior-el': { type: 'string' }, out: { type: 'string' }, help: { type: 'boolean', short: 'h' } },
+      options: {
+        samples: { type: 'string' }, pattern: { type: 'string' }, dosage: { type: 'string', multiple: true },
+        reference: { type: 'string' }, normalise: { type: 'string' }, 'lambda-posterior-el': { type: 'string' },
+        out: { type: 'string' }, help: { type: 'boolean', short: 'h' },
+      },
     });
   } catch (e) {
     return { usage: (e as Error).message.split('\n')[0].replace(/\. To specify a positional argument.*$/, '') };

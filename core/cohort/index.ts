@@ -19,4 +19,3 @@ export { gridEl, interpolateOnGrid, normaliseProfile, centralSlope, conditionPro
 export { analyseCohort } from './analyse';
 export { conditionsCsv, shiftsCsv, dosageFitCsv, positionalErrorCsv } from './tables';
 export { makeDemoCohort, type DemoCohortSpec } from './demo-cohort';
-export { fitLine, type LineFit } from './stats-local';
