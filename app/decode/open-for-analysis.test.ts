@@ -32,6 +32,17 @@ describe('withDecoderFallback', () => {
     expect(primary.closed && fallback.closed).toBe(true);
   });
 
+  it('switches to the fallback for the rest of the file after three failures', async () => {
+    const warnings: string[] = [];
+    let primaryCalls = 0;
+    const primary: PlaneSource = { readPlane: async () => { primaryCalls++; throw new Error('no'); }, close: async () => undefined };
+    const source = withDecoderFallback(primary, fake(1), warnings, 'b.tif');
+    for (let z = 0; z < 6; z++) await source.readPlane(z, 0, 0);
+    expect(primaryCalls).toBe(3);
+    expect(warnings).toHaveLength(4);
+    expect(warnings[3]).toBe('b.tif: remaining planes decoded with the pure-JS decoder');
+  });
+
   it('does not retry out-of-range planes and reports the fallback error when both fail', async () => {
     const warnings: string[] = [];
     await expect(withDecoderFallback(fake(new RangeError('outside')), fake(1), warnings, 'a.tif').readPlane(9, 0, 0)).rejects.toThrow('outside');

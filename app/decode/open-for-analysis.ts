@@ -11,10 +11,15 @@ export interface OpenedStack {
   readonly warnings: string[];
 }
 
+/** After this many planes fail in `primary`, the rest go straight to `fallback` (one more warning says so). */
+const FAILURES_BEFORE_SWITCH = 3;
+
 /** A PlaneSource that tries `primary` first and, when it rejects a plane, decodes it with `fallback` and warns. */
 export function withDecoderFallback(primary: PlaneSource, fallback: PlaneSource, warnings: string[], fileLabel: string): PlaneSource {
+  let failures = 0;
   return {
     async readPlane(z: number, c: number, t: number): Promise<RawPlane> {
+      if (failures >= FAILURES_BEFORE_SWITCH) return fallback.readPlane(z, c, t);
       try {
         return await primary.readPlane(z, c, t);
       } catch (err) {
@@ -22,6 +27,8 @@ export function withDecoderFallback(primary: PlaneSource, fallback: PlaneSource,
         const plane = await fallback.readPlane(z, c, t);
         const reason = err instanceof Error ? err.message.replace(`${fileLabel}: `, '') : String(err);
         warnings.push(`${fileLabel}: plane z=${z} c=${c} t=${t} decoded with the pure-JS decoder (${reason})`);
+        failures++;
+        if (failures === FAILURES_BEFORE_SWITCH) warnings.push(`${fileLabel}: remaining planes decoded with the pure-JS decoder`);
         return plane;
       }
     },
