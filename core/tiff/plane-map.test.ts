@@ -29,9 +29,12 @@ describe('mapOmePlanes', () => {
     expect(() => mapOmePlanes('XYZCT', counts, [td({ ifd: 3, planeCount: 6 })], 6, 'g.ome.tif'))
       .toThrow('g.ome.tif: OME TiffData refers to IFD 6 but the file has 6 IFDs');
     expect(() => mapOmePlanes('XYZCT', counts, [], 4, 'g.ome.tif')).toThrow('g.ome.tif: OME TiffData gives no IFD for plane z=1, c=1, t=0');
-    expect(() => mapOmePlanes('XYZCT', counts, [td({ fileName: 'part2.ome.tif' })], 6, 'dir/g.ome.tif'))
+    // Source: OME-TIFF specification (multi-file sets: TiffData/UUID@FileName names the file holding the planes).
+    const twoFiles = [td({ ifd: 0, planeCount: 3, fileName: 'g.ome.tif' }), td({ ifd: 0, planeCount: 3, firstC: 1, fileName: 'part2.ome.tif' })];
+    expect(() => mapOmePlanes('XYZCT', counts, twoFiles, 6, 'dir/g.ome.tif'))
       .toThrow('dir/g.ome.tif: multi-file OME-TIFF sets are not supported (planes stored in part2.ome.tif)');
-    expect(Array.from(mapOmePlanes('XYZCT', counts, [td({ fileName: 'g.ome.tif' })], 6, 'dir/g.ome.tif'))).toEqual([0, 1, 2, 3, 4, 5]);
+    // A single FileName (even after the file was renamed) is this file.
+    expect(Array.from(mapOmePlanes('XYZCT', counts, [td({ fileName: 'old-name.ome.tif' })], 6, 'dir/g.ome.tif'))).toEqual([0, 1, 2, 3, 4, 5]);
     expect(() => mapOmePlanes('XYZCT', counts, [td({ firstZ: 3 })], 6, 'g.ome.tif')).toThrow(/FirstZ=3 .* is out of range$/);
   });
 });

@@ -26,12 +26,13 @@ export function mapOmePlanes(order: DimensionOrder, counts: PlaneCounts, tiffDat
   const map = new Int32Array(total).fill(-1);
   const elements: readonly OmeTiffData[] = tiffData.length > 0 ? tiffData
     : [{ ifd: undefined, firstZ: 0, firstC: 0, firstT: 0, planeCount: undefined, fileName: null }];
-  for (const td of elements) {
-    if (td.fileName !== null && td.fileName !== baseName(fileLabel)) {
-      throw new TiffError('unsupported', fileLabel, `multi-file OME-TIFF sets are not supported (planes stored in ${td.fileName})`);
-    }
-    applyTiffData(map, order, counts, td, ifdCount, fileLabel);
+  // Files get renamed after writing, so one FileName for every TiffData means "this file"; several mean a set.
+  const names = [...new Set(elements.map((td) => td.fileName).filter((n): n is string => n !== null))];
+  if (names.length > 1) {
+    const others = names.filter((n) => n !== baseName(fileLabel));
+    throw new TiffError('unsupported', fileLabel, `multi-file OME-TIFF sets are not supported (planes stored in ${others.join(', ')})`);
   }
+  for (const td of elements) applyTiffData(map, order, counts, td, ifdCount, fileLabel);
   const missing = map.indexOf(-1);
   if (missing >= 0) {
     const z = missing % counts.sizeZ;
