@@ -1,6 +1,7 @@
 // The cohort report: ONE self-contained HTML file (inline CSS and SVG; no scripts, no network).
 import type { CohortAnalysis, ConditionStat } from '../../core/cohort';
 import { escapeXml, type NamedFigure } from '../../core/figures';
+import { flattenRecord } from './flatten-record';
 import { dosageReading, prose } from './reading';
 
 /** Everything the report shows. */
@@ -36,8 +37,9 @@ function settingsSection(a: CohortAnalysis, sheetSource: string, runRecord: unkn
     ['confidence level', String(o.level)], ['profile grid step (x/EL)', String(o.gridStepEl)], ['slope half-window h (x/EL)', String(o.slopeHalfWidthEl)],
   ];
   const record = runRecord === null || runRecord === undefined ? '<p class="note">No run record was given.</p>'
-    : `<details><summary>Run record of the batch</summary><pre>${esc(JSON.stringify(runRecord, null, 2) ?? '')}</pre></details>`;
-  return `<h2>Run settings</h2>${table(['setting', 'value'], rows, 2)}${record}`;
+    : `<h3>Batch analysis (run record)</h3>${table(['setting', 'value'], flattenRecord(runRecord), 2)}`
+      + `<details><summary>Full run record (JSON)</summary><pre>${esc(JSON.stringify(runRecord, null, 2) ?? '')}</pre></details>`;
+  return `<h2>Run settings</h2><h3>Cohort step</h3>${table(['setting', 'value'], rows, 2)}${record}`;
 }
 
 function conditionTables(a: CohortAnalysis): string {

@@ -42,6 +42,7 @@ describe('runCohortStep', () => {
     expect(html).toContain('profile normalisation</td><td class="t">amplitude');
     expect(html).toContain('Caveats');
     expect(html).toContain('&quot;fitRangeEl&quot;');
+    expect(html).toContain('settings.fitRangeEl</td><td class="t">0.1, 0.6');
   });
   it('without a sample sheet all embryos form one condition and the dosage test is skipped', async () => {
     const out = join(dir, 'nosheet');
