@@ -10,7 +10,7 @@ const empty = join(dir, 'empty');
 beforeAll(() => { ensureBuilt(); mkdirSync(empty); });
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-describe.concurrent('eggline usage errors (exit 2, one line, hint to --help)', () => {
+describe('eggline usage errors (exit 2, one line, hint to --help)', () => {
   it.each([
     [['batch', empty, '--out', join(dir, 'o'), '--bogus'], 'eggline batch: unknown option --bogus (see "eggline batch --help")'],
     [['batch', '--out', join(dir, 'o')], 'eggline batch: missing the input folder (see "eggline batch --help")'],
