@@ -18,6 +18,11 @@ describe('welchDifference', () => {
     expect(d.se).toBeCloseTo(Math.sqrt(0.75), 12);
     expect(d.dof).toBeCloseTo(3888 / 784, 10);
   });
+  it('identical values in both samples: a zero-width interval, not NaN', () => {
+    // Source: hand-computed
+    const d = welchDifference([2, 2], [3, 3, 3]);
+    expect([d.difference, d.se, d.dof, d.ciLow, d.ciHigh]).toEqual([1, 0, 3, 1, 1]);
+  });
   it('a sample of one gives NaN spread, not a crash', () => {
     // Source: demo data
     const d = welchDifference([1], [2, 3]);

@@ -16,7 +16,8 @@ export function welchDifference(a: readonly number[], b: readonly number[], leve
   const vb = sdOf(b) ** 2 / b.length;
   const difference = meanOf(b) - meanOf(a);
   const se = Math.sqrt(va + vb);
-  const dof = (va + vb) ** 2 / (va * va / (a.length - 1) + vb * vb / (b.length - 1));
+  // With no spread at all the Welch–Satterthwaite ratio is 0/0; the interval is then the point itself.
+  const dof = se === 0 ? a.length + b.length - 2 : (va + vb) ** 2 / (va * va / (a.length - 1) + vb * vb / (b.length - 1));
   const t = tQuantileOf(1 - (1 - level) / 2, dof);
   return { difference, se, dof, ciLow: difference - t * se, ciHigh: difference + t * se };
 }
