@@ -22,7 +22,8 @@ import { keyCommand } from './hooks/useKeys';
 import { useSession } from './hooks/useSession';
 import { useStackLoader } from './hooks/useStackLoader';
 import { useExports } from './hooks/useExports';
-import { measureLive, prepareLive } from './live';
+import { bandOutlinesLive, measureLive, prepareLive } from './live';
+import type { ImagePoint } from '../core/model';
 import { currentEdits, editorReducer, effectiveAxis, effectiveFitRange, initialState } from './state';
 import { autoDisplayRange, CHANNEL_COLOURS } from './view';
 
@@ -79,10 +80,17 @@ export function App() {
   const fitRangeEl = effectiveFitRange(state);
   const measurement = useMemo(() => (prepared === null || axis === null ? null : measureLive(prepared, axis, settings, edits.landmarks, fitRangeEl)),
     [prepared, axis, settings, edits.landmarks, fitRangeEl]);
+  // The sampled-region outline is slow to trace on large images, so it follows the axis once a drag pauses.
+  const [bandOutlines, setBandOutlines] = useState<ImagePoint[][]>([]);
+  useEffect(() => {
+    if (prepared === null || axis === null) { setBandOutlines([]); return; }
+    const t = setTimeout(() => setBandOutlines(bandOutlinesLive(prepared, axis, settings)), 100);
+    return () => clearTimeout(t);
+  }, [prepared, axis, settings]);
   const planes = slicePlanes ?? stack?.projected.channels ?? [];
   const names = stack?.projected.channelNames ?? [];
   const pixelSizeUm = prepared === null ? null : (stack?.projected.pixelSizeUm ?? settings.pixelSizeUm);
-  const exports = useExports(api, { state, stack, measurement, axis, entryName: state.current, setMessage, planes });
+  const exports = useExports(api, { state, stack, measurement, bandOutlines, axis, entryName: state.current, setMessage, planes });
 
   const step = (d: number) => {
     const i = session.entries.findIndex((e) => e.name === state.current);
@@ -150,7 +158,7 @@ export function App() {
           <div className={tab === 'embryo' ? 'embryo-view' : 'hidden'}>
             {loadError && <div className="error" data-testid="load-error">{loadError}</div>}
             <ImageView state={state} dispatch={dispatch} planes={planes} channelNames={names} outline={stack?.detection.outline ?? []} axis={axis}
-              measurement={measurement} fitRangeEl={fitRangeEl} pixelSizeUm={pixelSizeUm} halfWidthPx={halfWidthPx} fitRequest={fitRequest} spaceHeld={spaceHeld} />
+              measurement={measurement} bandOutlines={bandOutlines} fitRangeEl={fitRangeEl} pixelSizeUm={pixelSizeUm} halfWidthPx={halfWidthPx} fitRequest={fitRequest} spaceHeld={spaceHeld} />
             <StraightView measurement={measurement} display={state.display} width={stripWidth} fitRangeEl={fitRangeEl} />
             <ProfilePlot measurement={measurement} width={stripWidth} fitRangeEl={fitRangeEl} dispatch={dispatch} />
           </div>

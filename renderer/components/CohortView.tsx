@@ -20,6 +20,7 @@ export function CohortView({ summary }: { summary: BatchSummary | null }) {
       mean, sd, n: lam.length,
     };
   }, [summary]);
+  if (figs !== null && figs.n === 0) return <section className="panel cohort" data-testid="cohort-view"><p className="muted">The last batch has no embryo with a gradient fit, so there is nothing to summarise.</p></section>;
   if (figs === null) return <section className="panel cohort"><p className="muted">Run a batch to see the cohort summary here.</p></section>;
   return (
     <section className="panel cohort" data-testid="cohort-view">

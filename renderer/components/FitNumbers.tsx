@@ -23,7 +23,12 @@ export function FitNumbers({ m, pixelSizeUm, loading }: { m: LiveMeasurement | n
         {rows.map(([k, v, id]) => <tr key={k}><th>{k}</th><td data-testid={id}>{v}</td></tr>)}
         {m?.boundaries.map((b, i) => <tr key={`b${i}`}><th>{b.channel} {b.method}</th><td>{b.positionEl === null ? (b.note ?? '—') : `${fixed(b.positionEl, 3)} EL · ${fmt(b.positionUm)} µm · ${b.direction}`}</td></tr>)}
       </tbody></table>
-      {m !== null && m.warnings.length > 0 && <ul className="warnings" data-testid="warnings">{m.warnings.map((w, i) => <li key={i}>{w}</li>)}</ul>}
+      {m !== null && (m.warnings.length > 0 || (f !== null && f.lambdaEl < 0)) && (
+        <ul className="warnings" data-testid="warnings">
+          {f !== null && f.lambdaEl < 0 && <li>λ is negative: the profile rises toward P. Are anterior and posterior swapped? (S)</li>}
+          {m.warnings.map((w, i) => <li key={i}>{w}</li>)}
+        </ul>
+      )}
     </section>
   );
 }

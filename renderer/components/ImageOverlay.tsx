@@ -14,6 +14,8 @@ export interface ImageOverlayProps {
   readonly outline: readonly ImagePoint[];
   readonly axis: ApAxis | null;
   readonly measurement: LiveMeasurement | null;
+  /** Outlines (image px) of the sampled region. */
+  readonly bandOutlines: readonly (readonly ImagePoint[])[];
   readonly fitRangeEl: readonly [number, number];
   readonly halfWidthPx: number;
   readonly selectedLandmark: number | null;
@@ -53,14 +55,14 @@ function AxisLayer({ view, axis, fitRangeEl }: { view: ViewTransform; axis: ApAx
 
 /** All overlays. */
 export function ImageOverlay(props: ImageOverlayProps) {
-  const { view, width, height, outline, axis, measurement: m, fitRangeEl, halfWidthPx, selectedLandmark } = props;
+  const { view, width, height, outline, axis, measurement: m, bandOutlines, fitRangeEl, halfWidthPx, selectedLandmark } = props;
   return (
     <svg className="image-overlay" width={width} height={height} xmlns="http://www.w3.org/2000/svg">
       <style>{OVERLAY_CSS}</style>
       {outline.length > 2 && <polygon points={pts(view, outline)} className="outline" />}
-      {m !== null && m.bandOutlines.length > 0 && (
+      {bandOutlines.length > 0 && (
         // One even-odd path: the band's outer and inner contours together leave the interior unfilled.
-        <path d={m.bandOutlines.map((poly) => `M${pts(view, poly)}Z`).join(' ')} fillRule="evenodd" className="band" data-testid="band" />
+        <path d={bandOutlines.map((poly) => `M${pts(view, poly)}Z`).join(' ')} fillRule="evenodd" className="band" data-testid="band" />
       )}
       {axis !== null && m?.boundaries.map((b, i) => {
         if (b.positionEl === null) return null;

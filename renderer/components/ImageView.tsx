@@ -22,6 +22,7 @@ export interface ImageViewProps {
   readonly outline: readonly ImagePoint[];
   readonly axis: ApAxis | null;
   readonly measurement: LiveMeasurement | null;
+  readonly bandOutlines: readonly (readonly ImagePoint[])[];
   readonly fitRangeEl: readonly [number, number];
   readonly pixelSizeUm: number | null;
   readonly halfWidthPx: number;
@@ -82,7 +83,7 @@ export function ImageView(props: ImageViewProps) {
       onPointerLeave={() => setCursor(null)}>
       <ImageCanvas planes={planes} display={state.display} view={state.view} width={size.width} height={size.height} />
       <ImageOverlay view={state.view} width={size.width} height={size.height} outline={props.outline} axis={axis}
-        measurement={measurement} fitRangeEl={props.fitRangeEl} halfWidthPx={props.halfWidthPx} selectedLandmark={state.selectedLandmark} />
+        measurement={measurement} bandOutlines={props.bandOutlines} fitRangeEl={props.fitRangeEl} halfWidthPx={props.halfWidthPx} selectedLandmark={state.selectedLandmark} />
       <ScaleBar pixelSizeUm={props.pixelSizeUm} zoom={state.view.zoom} />
       <Readout cursor={cursor} state={state} planes={planes} names={props.channelNames} axis={axis} pixelSizeUm={props.pixelSizeUm} />
       {first === undefined && <div className="image-empty">No image</div>}

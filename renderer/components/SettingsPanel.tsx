@@ -31,16 +31,16 @@ export function SettingsPanel({ settings: s, channelNames, dispatch }: SettingsP
           </select></label>
         <div className="field"><span>boundaries</span><div className="checks">
           {names.map((n, i) => (
-            <label key={i}><input type="checkbox" checked={boundarySet.has(i + 1)} onChange={(e) => {
+            <label key={i}><input type="checkbox" data-testid={`boundary-channel-${i + 1}`} checked={boundarySet.has(i + 1)} onChange={(e) => {
               const next = new Set(boundarySet); if (e.target.checked) next.add(i + 1); else next.delete(i + 1);
               set({ boundaryChannels: [...next].sort((a, b) => a - b) });
             }} />{n}</label>
           ))}</div></div>
         <label className="field"><span>anterior</span>
           <select value={s.anterior} onChange={(e) => set({ anterior: e.target.value as AnalysisSettings['anterior'] })}>
-            <option value="auto">auto (high end of gradient)</option><option value="high">high end</option><option value="low">low end</option>
+            <option value="auto">auto (gradient high)</option><option value="high">high end</option><option value="low">low end</option>
           </select></label>
-        <NumberField label="pixel size µm (if file has none)" value={s.pixelSizeUm} min={1e-4} nullable onCommit={(v) => set({ pixelSizeUm: v })} />
+        <NumberField label="pixel size µm (fallback)" value={s.pixelSizeUm} min={1e-4} nullable onCommit={(v) => set({ pixelSizeUm: v })} />
       </fieldset>
       <fieldset><legend>Z</legend>
         <label className="field"><span>projection</span>
@@ -53,7 +53,7 @@ export function SettingsPanel({ settings: s, channelNames, dispatch }: SettingsP
       <fieldset><legend>Profile</legend>
         <label className="field"><span>sample</span>
           <select value={s.profile.mode} data-testid="profile-mode" onChange={(e) => setProfile({ mode: e.target.value as 'edge' | 'axis' })}>
-            <option value="edge">edge band (nuclear layer)</option><option value="axis">strip along the axis</option>
+            <option value="edge">edge band</option><option value="axis">axis strip</option>
           </select></label>
         {s.profile.mode === 'edge' ? <>
           <label className="field"><span>edge</span>

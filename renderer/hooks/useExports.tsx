@@ -3,7 +3,7 @@ import { renderToStaticMarkup } from 'react-dom/server';
 import type { EgglineApi, ExportKind, LoadedStack } from '../../core/contract';
 import { boundariesCsv, embryosCsv, landmarksCsv, profilesCsv } from '../../core/batch';
 import { profileFigure } from '../../core/figures';
-import type { ApAxis, Plane } from '../../core/model';
+import type { ApAxis, ImagePoint, Plane } from '../../core/model';
 import { ImageOverlay } from '../components/ImageOverlay';
 import { annotatedSvg } from '../export/annotatedSvg';
 import { fileStem, liveToResult } from '../export/liveResult';
@@ -25,6 +25,7 @@ interface Ctx {
   readonly state: EditorState;
   readonly stack: LoadedStack | null;
   readonly measurement: LiveMeasurement | null;
+  readonly bandOutlines: readonly (readonly ImagePoint[])[];
   readonly axis: ApAxis | null;
   readonly entryName: string | null;
   readonly planes: readonly Plane[];
@@ -67,7 +68,7 @@ export function useExports(api: EgglineApi | null, ctx: Ctx): (cmd: ExportComman
       case 'image-png': {
         const p = ctx.planes[0];
         const overlay = renderToStaticMarkup(<ImageOverlay view={{ zoom: 1, offsetX: 0, offsetY: 0 }} width={p.width} height={p.height}
-          outline={stack.detection.outline} axis={axis} measurement={m} fitRangeEl={effectiveFitRange(state)}
+          outline={stack.detection.outline} axis={axis} measurement={m} bandOutlines={ctx.bandOutlines} fitRangeEl={effectiveFitRange(state)}
           halfWidthPx={(stack.detection.eggWidthUm / (stack.projected.pixelSizeUm ?? 1)) * 0.6} selectedLandmark={null} />);
         await toPng(annotatedSvg(p.width, p.height, compositeDataUrl(ctx.planes, state), overlay), 1, `${stem}-annotated.png`);
         return;

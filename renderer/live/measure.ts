@@ -24,8 +24,6 @@ export interface LiveMeasurement {
   readonly strips: readonly Plane[];
   /** Straightened 0/1 plane of the pixels the profile samples (same size as the strips). */
   readonly bandStrip: Plane;
-  /** Sampled region outlines in image coordinates. */
-  readonly bandOutlines: readonly (readonly ImagePoint[])[];
   readonly profile: Profile | null;
   readonly fit: ExponentialFit | null;
   readonly boundaryProfiles: readonly Profile[];
@@ -42,7 +40,9 @@ export function prepareLive(stack: LoadedStack, settings: AnalysisSettings): Liv
 }
 
 /** Longest strip side in samples, so a drag on a large image still updates within a frame. */
-export const MAX_STRIP_SAMPLES = 640;
+export const MAX_STRIP_SAMPLES = 512;
+/** Most rows across the strip. */
+export const MAX_STRIP_ROWS = 128;
 
 /** Keep only the strip rows on the sampled side(s) and, for the axis strip, within its half width. */
 function sampledRows(band: Plane, settings: AnalysisSettings, rowStepUm: number): Plane {
@@ -67,13 +67,23 @@ export function measureLive(prep: LivePrepared, axis: ApAxis, settings: Analysis
   const lengthPx = Math.max(1, distancePx(axis.anterior, axis.posterior));
   const pxUm = prep.sampling.pixelSizeUm ?? 1;
   const samplesAlong = Math.max(2, Math.min(MAX_STRIP_SAMPLES, Math.round(lengthPx)));
-  const rowStepPx = lengthPx / (samplesAlong - 1);
-  const halfRows = Math.max(1, Math.round((prep.stack.detection.eggWidthUm / pxUm) * 0.6 / rowStepPx));
+  const halfWidthPx = (prep.stack.detection.eggWidthUm / pxUm) * 0.6;
+  // The strip is shown about 130 px tall, so more than MAX_STRIP_ROWS rows would only cost time.
+  const rowStepPx = Math.max(lengthPx / (samplesAlong - 1), (2 * halfWidthPx) / MAX_STRIP_ROWS);
+  const halfRows = Math.max(1, Math.round(halfWidthPx / rowStepPx));
   const strips = prep.stack.projected.channels.map((p) => straightenPlane(p, axis, halfRows, samplesAlong, rowStepPx));
   const bandStrip = sampledRows(straightenPlane(prep.bandPlane, axis, halfRows, samplesAlong, rowStepPx), s, rowStepPx * pxUm);
   return {
-    eggLengthUm: m.eggLengthUm ?? lengthPx, strips, bandStrip, bandOutlines: sampleBandOutline(prep.sampling, axis, s),
+    eggLengthUm: m.eggLengthUm ?? lengthPx, strips, bandStrip,
     profile: m.gradientProfile, fit: m.gradientFit, boundaryProfiles: m.boundaryProfiles, boundaries: m.boundaries,
     landmarks: m.landmarks, warnings: m.warnings,
   };
+}
+
+/**
+ * Outlines (image px) of the region the profile samples along `axis`. Kept apart from measureLive because tracing
+ * contours over the whole image is slow on large images; the window redraws it when a drag pauses.
+ */
+export function bandOutlinesLive(prep: LivePrepared, axis: ApAxis, settings: AnalysisSettings): ImagePoint[][] {
+  return sampleBandOutline(prep.sampling, axis, settings);
 }

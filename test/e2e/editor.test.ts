@@ -62,6 +62,13 @@ describe('editor window', { timeout: 150_000 }, () => {
     await shot(page, '01-demo-opened');
   });
 
+  it('ticking a boundary channel in the settings draws its boundary across the embryo and on the profile', async () => {
+    const { page } = h;
+    await page.getByTestId('boundary-channel-2').check();
+    await page.locator('.image-overlay .boundary-line').first().waitFor({ timeout: 10_000 });
+    expect(await page.locator('[data-testid=profile-plot] .boundary-line').count()).toBeGreaterThan(0);
+  });
+
   it('dragging the posterior handle changes λ', async () => {
     const { page } = h;
     const before = await text(page, 'lambda-um');
@@ -129,6 +136,7 @@ describe('editor window', { timeout: 150_000 }, () => {
     expect(Math.abs(a.x - handleA.x) + Math.abs(a.y - handleA.y)).toBeLessThan(1.5);
     expect(Math.abs(p.x - handleP.x) + Math.abs(p.y - handleP.y)).toBeLessThan(1.5);
     expect(await landmarkXel(page, 'L1')).toBe(placedXel);
+    expect(await page.getByTestId('boundary-channel-2').isChecked()).toBe(true);
     expect(await page.locator('[data-testid=folder-entry] .status-edited').count()).toBeGreaterThanOrEqual(1);
     await shot(page, '05-restored-after-reload');
   });
@@ -154,7 +162,10 @@ describe('editor window', { timeout: 150_000 }, () => {
     await page.getByTestId('batch-results').waitFor({ timeout: 120_000 });
     expect(h.progress.length).toBeGreaterThan(2);
     expect(await text(page, 'batch-progress')).toMatch(/^(\d+) \/ \1/);
-    expect(await page.locator('[data-testid=batch-results] tbody tr').count()).toBeGreaterThan(1);
+    expect(await page.locator('[data-testid=batch-results] tbody tr').count()).toBe(4);
+    const summary = await text(page, 'batch-summary');
+    expect(summary).toMatch(/^Finished: [1-4] ok/);
+    expect(await fs.readdir(out)).not.toHaveLength(0);
     await shot(page, '07-batch-finished');
     await page.getByTestId('tab-cohort').click();
     await page.getByTestId('cohort-view').waitFor();

@@ -72,7 +72,8 @@ export async function startHarness(dataDir: string, engine: AnalysisEngine | und
   const progress: BatchProgress[] = [];
   let page: Page | null = null;
   const deps: HandlerDeps = {
-    dataDir, engine, batchJobs: 1, demoSubset,
+    // Batch jobs 0 analyses in this process: the worker script is a build output the test need not depend on.
+    dataDir, engine, batchJobs: 0, demoSubset,
     dialogs: {
       chooseFolder: async () => dialogs.folder,
       chooseFiles: async () => null,
