@@ -1,27 +1,37 @@
-// Runs loadStack's analysis in a worker thread so the main process (and with it every window) never blocks.
+// Runs loadStack's analysis and slice decoding in a worker thread so the main process (and with it the window)
+// never blocks on decoding or segmentation.
 import { Worker } from 'node:worker_threads';
 import type { AnalysisSettings } from '../../core/settings';
-import type { ViewData } from './engine';
+import type { ApiErrorCode } from '../../core/contract';
+import type { SliceData, ViewData } from './engine';
+import { ApiFailure } from './result';
 
-/** A request to the analysis worker. */
-export interface AnalysisRequest { readonly id: number; readonly path: string; readonly label: string; readonly settings: AnalysisSettings }
+/** A request to the analysis worker: a whole view (project + detect) or one raw slice. */
+export type AnalysisRequest =
+  | { readonly id: number; readonly kind: 'view'; readonly path: string; readonly label: string; readonly settings: AnalysisSettings }
+  | { readonly id: number; readonly kind: 'slice'; readonly path: string; readonly label: string; readonly z: number; readonly c: number; readonly t: number };
 
-/** The worker's answer: the view data or the error's name, code and message. */
+/** Requests without their id (the runner numbers them). */
+type RequestBody = AnalysisRequest extends infer R ? R extends AnalysisRequest ? Omit<R, 'id'> : never : never;
+
+/** The worker's answer: the value or the error's name, code and message. */
 export type AnalysisReply =
-  | { readonly id: number; readonly ok: true; readonly value: ViewData }
+  | { readonly id: number; readonly ok: true; readonly value: ViewData | SliceData }
   | { readonly id: number; readonly ok: false; readonly error: { readonly name: string; readonly code: string | null; readonly message: string } };
 
-/** A worker-backed runner: `run` has the signature of HandlerDeps.runAnalysisOffThread. */
+/** A worker-backed runner: `run` fits HandlerDeps.runAnalysisOffThread, `readSlice` HandlerDeps.readSliceOffThread. */
 export interface AnalysisRunner {
   run(path: string, label: string, settings: AnalysisSettings): Promise<ViewData>;
+  readSlice(path: string, label: string, z: number, c: number, t: number): Promise<SliceData>;
   /** Stop the worker (pending calls are rejected). */
   close(): Promise<void>;
 }
 
-interface Pending { resolve(v: ViewData): void; reject(e: Error): void; label: string; timer: NodeJS.Timeout; worker: Worker }
+interface Pending { resolve(v: unknown): void; reject(e: Error): void; label: string; timer: NodeJS.Timeout; worker: Worker }
 
 /** Rebuild an error from the worker so failureFrom can map it (TiffError → bad-file, ENOENT → not-found). */
 function errorFrom(reply: Extract<AnalysisReply, { ok: false }>): Error {
+  if (reply.error.name === 'ApiFailure' && reply.error.code !== null) return new ApiFailure(reply.error.code as ApiErrorCode, reply.error.message);
   return Object.assign(new Error(reply.error.message), { name: reply.error.name, code: reply.error.code ?? undefined });
 }
 
@@ -53,20 +63,22 @@ export function createAnalysisRunner(workerPath: string, timeoutMs = 180_000): A
     w.on('exit', (code) => { if (worker === w) worker = null; failAll((label) => `${label}: analysis stopped unexpectedly (exit code ${code})`, w); });
     return w;
   };
+  const call = <T>(body: RequestBody): Promise<T> => new Promise<T>((resolve, reject) => {
+    const w = worker ??= start();
+    const id = nextId++;
+    const timer = setTimeout(() => {
+      pending.delete(id);
+      reject(new Error(`${body.label}: analysis took longer than ${+(timeoutMs / 1000).toFixed(1)} s and was stopped`));
+      // The worker is stuck: its other calls fail with it, and the next call starts a fresh one.
+      if (worker === w) void stop();
+      failAll((other) => `${other}: analysis stopped (another file hung the analysis thread)`, w);
+    }, timeoutMs);
+    pending.set(id, { resolve: resolve as (v: unknown) => void, reject, label: body.label, timer, worker: w });
+    w.postMessage({ ...body, id } as AnalysisRequest);
+  });
   return {
-    run: (path, label, settings) => new Promise<ViewData>((resolve, reject) => {
-      const w = worker ??= start();
-      const id = nextId++;
-      const timer = setTimeout(() => {
-        pending.delete(id);
-        reject(new Error(`${label}: analysis took longer than ${+(timeoutMs / 1000).toFixed(1)} s and was stopped`));
-        // The worker is stuck: its other calls fail with it, and the next call starts a fresh one.
-        if (worker === w) void stop();
-        failAll((other) => `${other}: analysis stopped (another file hung the analysis thread)`, w);
-      }, timeoutMs);
-      pending.set(id, { resolve, reject, label, timer, worker: w });
-      w.postMessage({ id, path, label, settings } satisfies AnalysisRequest);
-    }),
+    run: (path, label, settings) => call<ViewData>({ kind: 'view', path, label, settings }),
+    readSlice: (path, label, z, c, t) => call<SliceData>({ kind: 'slice', path, label, z, c, t }),
     close: async () => { failAll((label) => `${label}: cancelled`, null); await stop(); },
   };
 }

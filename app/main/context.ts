@@ -19,6 +19,8 @@ export interface HandlerDeps {
   emitBatchProgress(p: BatchProgress): void;
   /** Run loadStack's analysis off the main thread (the app passes a worker runner); in-process when absent. */
   readonly runAnalysisOffThread?: (path: string, label: string, settings: AnalysisSettings) => Promise<ViewData>;
+  /** Decode loadSlice's plane off the main thread (the app passes the worker runner); in-process when absent. */
+  readonly readSliceOffThread?: AnalysisEngine['readSlice'];
   /** The analysis services; the real modules when absent. */
   readonly engine?: AnalysisEngine;
   /** Told when the recent list changes (the app rebuilds its menu). */

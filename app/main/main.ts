@@ -57,6 +57,7 @@ async function onReady(e: ElectronModule, state: { window: electron.BrowserWindo
     dialogs: createDialogs(dialogsFor(e, () => state.window)),
     emitBatchProgress: (p) => send(API_EVENT_CHANNELS.batchProgress, p),
     runAnalysisOffThread: runner.run,
+    readSliceOffThread: runner.readSlice,
     onRecentChanged: setMenu,
   });
   registerIpc(e.ipcMain as unknown as IpcMainLike, handlers);

@@ -34,5 +34,6 @@ export async function loadSlice(ctx: ShellContext, reqArg: unknown): Promise<Sli
   const c = requireInt(req.c, 'c', 0, MAX_INDEX);
   const t = requireInt(req.t, 't', 0, MAX_INDEX);
   await requireFile(path);
-  return ctx.engine.readSlice(path, labelOf(path), z, c, t);
+  const read = ctx.deps.readSliceOffThread ?? ctx.engine.readSlice.bind(ctx.engine);
+  return read(path, labelOf(path), z, c, t);
 }

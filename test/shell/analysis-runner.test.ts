@@ -11,6 +11,11 @@ import { parentPort } from 'node:worker_threads';
 parentPort.on('message', (m) => {
   if (m.label === 'crash.tif') process.exit(3);
   if (m.label === 'slow.tif') return;
+  if (m.kind === 'slice') {
+    if (m.z > 0) parentPort.postMessage({ id: m.id, ok: false, error: { name: 'ApiFailure', code: 'bad-argument', message: m.label + ': z=' + m.z + ' is out of range' } });
+    else parentPort.postMessage({ id: m.id, ok: true, value: { width: 1, height: 1, data: new Float32Array([m.c]) } });
+    return;
+  }
   if (m.label === 'bad.tif') {
     parentPort.postMessage({ id: m.id, ok: false, error: { name: 'TiffError', code: 'not-tiff', message: 'bad.tif: not a TIFF file' } });
     return;
@@ -41,6 +46,13 @@ describe('analysis worker runner', () => {
     await runner.close();
   });
 
+  it('reads slices through the same worker, keeping ApiFailure codes', async () => {
+    const runner = createAnalysisRunner(workerPath);
+    expect(await runner.readSlice('/x/a.tif', 'a.tif', 0, 2, 0)).toEqual({ width: 1, height: 1, data: new Float32Array([2]) });
+    await expect(runner.readSlice('/x/a.tif', 'a.tif', 4, 0, 0)).rejects.toMatchObject({ name: 'ApiFailure', code: 'bad-argument', message: 'a.tif: z=4 is out of range' });
+    await runner.close();
+  });
+
   it('rebuilds worker errors with name and code', async () => {
     const runner = createAnalysisRunner(workerPath);
     await expect(runner.run('/x/bad.tif', 'bad.tif', DEFAULT_SETTINGS)).rejects.toMatchObject({ name: 'TiffError', code: 'not-tiff', message: 'bad.tif: not a TIFF file' });
@@ -55,8 +67,8 @@ describe('analysis worker runner', () => {
   });
 
   it('stops a call that hangs and restarts the worker', async () => {
-    const runner = createAnalysisRunner(workerPath, 300);
-    await expect(runner.run('/x/slow.tif', 'slow.tif', DEFAULT_SETTINGS)).rejects.toThrow('slow.tif: analysis took longer than 0.3 s and was stopped');
+    const runner = createAnalysisRunner(workerPath, 1500);
+    await expect(runner.run('/x/slow.tif', 'slow.tif', DEFAULT_SETTINGS)).rejects.toThrow('slow.tif: analysis took longer than 1.5 s and was stopped');
     await expect(runner.run('/x/ok.tif', 'ok.tif', DEFAULT_SETTINGS)).resolves.toBeDefined();
     await runner.close();
   });

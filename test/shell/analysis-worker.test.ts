@@ -39,6 +39,13 @@ describe('analysis worker (built bundle)', () => {
     expect(view.detection.eggLengthUm).toBeGreaterThan(0);
   });
 
+  it('decodes one slice and refuses an out-of-range one with an API failure', async () => {
+    const slice = await runner.readSlice(stack, 'demo.ome.tif', 0, 1, 0);
+    expect(slice.data).toBeInstanceOf(Float32Array);
+    expect(slice.data.length).toBe(slice.width * slice.height);
+    await expect(runner.readSlice(stack, 'demo.ome.tif', 999, 0, 0)).rejects.toMatchObject({ name: 'ApiFailure', code: 'bad-argument' });
+  });
+
   it('reports a bad file as a TiffError naming it', async () => {
     const bad = join(dataDir, 'bad.tif');
     await writeFile(bad, new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0, 0, 0, 0]));

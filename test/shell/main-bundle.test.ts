@@ -72,5 +72,8 @@ describe('main-process bundle (stand-in electron)', () => {
     const r = await ipc.get('eggline:loadStack')!(fromPage, stack, DEFAULT_SETTINGS) as { ok: boolean; value: { detection: { eggLengthUm: number } } };
     expect(r.ok).toBe(true);
     expect(r.value.detection.eggLengthUm).toBeGreaterThan(0);
+    const slice = await ipc.get('eggline:loadSlice')!(fromPage, { path: stack, z: 0, c: 0, t: 0 }) as { ok: boolean; value: { data: Float32Array } };
+    expect(slice.ok).toBe(true);
+    expect(slice.value.data).toBeInstanceOf(Float32Array);
   });
 });
