@@ -16,12 +16,17 @@ export function isInside(parent: string, child: string): boolean {
   return rel === '' || (!rel.startsWith('..') && !rel.startsWith(sep) && !/^[a-zA-Z]:/.test(rel));
 }
 
-/** Every stack file under `folder` (hidden entries and the `skipDirs` skipped; symlinked folders not followed), sorted. */
-export async function listStackFiles(folder: string, skipDirs: readonly string[] = []): Promise<StackFile[]> {
+/** Every stack file under `folder` (hidden entries and the `skipDirs` skipped; symlinked folders not followed), sorted.
+ *  A subfolder that cannot be read is skipped with a line in `warnings`; an unreadable top folder rejects. */
+export async function listStackFiles(folder: string, skipDirs: readonly string[] = [], warnings: string[] = []): Promise<StackFile[]> {
   const root = resolve(folder);
   const found: string[] = [];
   const walk = async (dir: string): Promise<void> => {
-    const entries = await fs.readdir(dir, { withFileTypes: true });
+    const entries = await fs.readdir(dir, { withFileTypes: true }).catch((e: NodeJS.ErrnoException) => {
+      if (dir === root) throw e;
+      warnings.push(`${relative(root, dir).split(sep).join('/')}: subfolder skipped, cannot be read (${e.code ?? e.message})`);
+      return [];
+    });
     for (const e of entries) {
       if (e.name.startsWith('.')) continue;
       const full = join(dir, e.name);

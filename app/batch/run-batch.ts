@@ -1,7 +1,7 @@
 // The batch engine: analyse every stack of a folder on a pool of worker threads, then write the tables and the run
 // record. Used by the command line and by the desktop app's main process (cancel with an AbortSignal).
 import { randomUUID } from 'node:crypto';
-import { promises as fs } from 'node:fs';
+import { existsSync, promises as fs } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { join, resolve } from 'node:path';
 import {
@@ -46,7 +46,7 @@ export interface RunBatchOptions {
   readonly cohort?: { readonly sampleSheetPath: string; readonly reference: string | null } | null;
 }
 
-/** A batch summary plus the files written and warnings (from the cohort step). */
+/** A batch summary plus the files written and warnings (folder listing, cohort step). */
 export interface BatchRunResult extends BatchSummary {
   readonly written: readonly string[];
   readonly warnings: readonly string[];
@@ -104,7 +104,10 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   await checkFolders(folder, outDir);
   const runId = randomUUID();
   const startedAt = new Date().toISOString();
-  const files = await listStackFiles(folder, [outDir]);
+  const warnings: string[] = [];
+  const files = await listStackFiles(folder, [outDir], warnings);
+  const workerPath = opts.workerPath ?? defaultWorkerPath();
+  if (opts.jobs > 0 && !existsSync(workerPath)) throw new Error(`the batch worker ${workerPath} is missing; build it with "npm run build"`);
   const tasks: BatchTask[] = files.map((f, index) => {
     const edits = editsForFile(opts.doc, f.file, f.path);
     return { index, path: f.path, file: f.file, settings: settingsForFile(opts.settings, edits), handEdits: toHandEdits(edits) };
@@ -124,7 +127,7 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   const slots = opts.jobs <= 0
     ? await runInProcess(tasks, opts.analyzeInProcess ?? analyzeFile, timeoutMs, opts.signal, onStart, onResult)
     : await runPool(tasks, {
-      jobs: opts.jobs, workerPath: opts.workerPath ?? defaultWorkerPath(), timeoutMs, signal: opts.signal, onStart, onResult,
+      jobs: opts.jobs, workerPath, timeoutMs, signal: opts.signal, onStart, onResult,
       workerData: { decoderThreads: Math.max(1, Math.floor(defaultJobs() / opts.jobs)) },
     });
   const cancelled = opts.signal?.aborted === true || slots.some((r) => r === undefined);
@@ -139,10 +142,9 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   const record: RunRecord = {
     schema: 'eggline-run', version: 1, runId, software: await softwareVersions(), startedAt, endedAt: new Date().toISOString(),
     commandLine: opts.commandLine ?? null, folder, outDir, projectFile: opts.projectFile ?? null, configFile: opts.configFile ?? null,
-    settings: opts.settings, jobs: opts.jobs, timeoutPerFileS: timeoutMs / 1000, cancelled, ok, failed: results.length - ok, inputs,
+    settings: opts.settings, jobs: opts.jobs, timeoutPerFileS: timeoutMs / 1000, cancelled, ok, failed: results.length - ok, inputs, warnings: [...warnings],
   };
   const written = await writeBatchOutputs(outDir, results, record);
-  const warnings: string[] = [];
   let cohortError: string | null = null;
   if (opts.cohort && !cancelled) {
     const failures = results.filter((r) => r.status === 'error').map((r) => ({ file: r.file, error: r.error ?? 'error' }));

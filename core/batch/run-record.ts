@@ -39,6 +39,8 @@ export interface RunRecord {
   readonly ok: number;
   readonly failed: number;
   readonly inputs: readonly RunInput[];
+  /** Problems that did not stop the run (e.g. an unreadable subfolder), one line each. */
+  readonly warnings: readonly string[];
 }
 
 /** run.json text (pretty-printed, ends with a newline). */
