@@ -32,6 +32,19 @@ function dialogsFor(e: ElectronModule, getWindow: () => electron.BrowserWindow |
   };
 }
 
+/** Most automatic reloads after renderer crashes; beyond that a crash that repeats is left for the user to see. */
+const MAX_CRASH_RELOADS = 3;
+
+/** Reload the page when its renderer process dies (edits are autosaved, so the user continues where they were). */
+function reloadAfterCrash(window: electron.BrowserWindow): void {
+  let reloads = 0;
+  window.webContents.on('render-process-gone', (_event, details) => {
+    if (details.reason === 'clean-exit' || reloads >= MAX_CRASH_RELOADS || window.isDestroyed()) return;
+    reloads += 1;
+    void window.loadURL(APP_URL);
+  });
+}
+
 /** Create the one window, its menu and handlers once the app is ready. */
 async function onReady(e: ElectronModule, state: { window: electron.BrowserWindow | null }): Promise<void> {
   const distDir = join(e.app.getAppPath(), 'dist');
@@ -69,6 +82,7 @@ async function onReady(e: ElectronModule, state: { window: electron.BrowserWindo
   state.window = window;
   window.once('ready-to-show', () => window.show());
   window.on('closed', () => { state.window = null; });
+  reloadAfterCrash(window);
   await window.loadURL(APP_URL);
 }
 

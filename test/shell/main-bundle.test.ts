@@ -26,7 +26,7 @@ const fakeElectron = {
   Menu: { buildFromTemplate: (t: unknown) => t, setApplicationMenu: () => undefined },
   dialog: { showErrorBox: (a: string, b: string) => { throw new Error(`${a}: ${b}`); } },
   BrowserWindow: class {
-    webContents = { send: () => undefined };
+    webContents = { send: () => undefined, on: () => undefined };
     once(): void { /* never shown here */ }
     on(): void { /* never closed here */ }
     isDestroyed(): boolean { return false; }

@@ -18,14 +18,15 @@ const mock = vi.hoisted(() => {
     permissionCheck: null as null | Listener,
     menuTemplate: null as null | { label?: string; submenu?: { label?: string; accelerator?: string; click?: () => void }[] }[],
     quit: 0,
+    contentsListeners: new Map<string, Listener>(),
   };
   class BrowserWindow {
     readonly record: (typeof state.windows)[number];
-    readonly webContents: { send: (c: string, p: unknown) => void };
+    readonly webContents: { send: (c: string, p: unknown) => void; on: (event: string, l: Listener) => void };
     constructor(options: Record<string, unknown>) {
       this.record = { options, url: null, sent: [] };
       state.windows.push(this.record);
-      this.webContents = { send: (c, p) => { this.record.sent.push([c, p]); } };
+      this.webContents = { send: (c, p) => { this.record.sent.push([c, p]); }, on: (event, l) => { state.contentsListeners.set(event, l); } };
     }
     once(): void { /* ready-to-show never fires here */ }
     on(): void { /* closed never fires here */ }
@@ -134,6 +135,22 @@ describe('main process (electron mocked)', () => {
     expect(open.accelerator).toBe('CmdOrCtrl+O');
     open.click!();
     expect(mock.state.windows[0].sent).toContainEqual(['eggline:menu-command', 'open-folder']);
+  });
+
+  it('reloads the page after a renderer crash, at most three times', async () => {
+    const gone = mock.state.contentsListeners.get('render-process-gone')!;
+    const loads: string[] = [];
+    const record = mock.state.windows[0];
+    const before = record.url;
+    gone({}, { reason: 'clean-exit' });
+    for (let i = 0; i < 5; i++) {
+      record.url = null;
+      gone({}, { reason: 'crashed' });
+      await Promise.resolve();
+      if (record.url !== null) loads.push(record.url);
+    }
+    expect(loads).toEqual(['eggline://app/index.html', 'eggline://app/index.html', 'eggline://app/index.html']);
+    record.url = before;
   });
 
   it('keeps a single instance and quits when the windows close', () => {
