@@ -32,6 +32,8 @@ describe('detectEmbryo', () => {
     const { p, truth } = projected(3, 60);
     const low = detectEmbryo(p, { ...DEFAULT_SETTINGS, anterior: 'low' });
     expect(Math.hypot(low.axis.posterior.x - truth.anterior.x, low.axis.posterior.y - truth.anterior.y)).toBeLessThan(5);
+    const uncalibrated = detectEmbryo({ ...p, pixelSizeUm: null }, DEFAULT_SETTINGS);
+    expect([uncalibrated.eggLengthUm, uncalibrated.eggWidthUm]).toEqual([uncalibrated.eggLengthPx, uncalibrated.eggWidthPx]);
     const missing = detectEmbryo(p, { ...DEFAULT_SETTINGS, gradientChannel: 'marker' });
     expect(missing.warnings).toContain('the file has no channel "marker" (gradient); the anterior end was chosen arbitrarily');
   });

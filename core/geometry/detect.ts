@@ -8,7 +8,8 @@ import { principalAxis } from './principal-axis';
 import { polesFromOutline } from './poles';
 import { chooseAnterior, endMeans } from './orientation';
 
-/** Detection plus the sizes in pixels (µm values are NaN when the pixel size is unknown). */
+/** Detection plus the sizes in pixels. When the pixel size is unknown, eggLengthUm/eggWidthUm hold the pixel values
+ * (the convention the app uses: lengths in px when uncalibrated); analyzeStack reports them as null then. */
 export interface EmbryoDetection extends Detection {
   readonly eggLengthPx: number;
   readonly eggWidthPx: number;
@@ -56,7 +57,7 @@ export function detectEmbryo(projected: ProjectedStack, settings: AnalysisSettin
   const axis: ApAxis = firstIsAnterior
     ? { anterior: ext.first, posterior: ext.second, source: 'auto' }
     : { anterior: ext.second, posterior: ext.first, source: 'auto' };
-  const um = projected.pixelSizeUm ?? NaN;
+  const um = projected.pixelSizeUm ?? 1;
   return {
     mask, outline, axis, eggLengthUm: ext.lengthPx * um, eggWidthUm: ext.widthPx * um,
     eggLengthPx: ext.lengthPx, eggWidthPx: ext.widthPx, warnings,

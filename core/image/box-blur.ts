@@ -27,6 +27,26 @@ function boxLine(src: Float32Array, dst: Float32Array, start: number, stride: nu
   }
 }
 
+/**
+ * Box mean of half-width r down every column at once, walking rows in memory order (a column-by-column walk
+ * misses the cache on wide images). Rows beyond the top and bottom replicate the edge rows.
+ */
+function boxColumns(src: Float32Array, dst: Float32Array, width: number, height: number, r: number, sums: Float64Array): void {
+  const w = 2 * r + 1;
+  const row = (y: number): number => (y < 0 ? 0 : y >= height ? height - 1 : y) * width;
+  sums.fill(0);
+  for (let y = -r; y <= r; y++) { const o = row(y); for (let x = 0; x < width; x++) sums[x] += src[o + x]; }
+  for (let y = 0; y < height; y++) {
+    const out = y * width;
+    const add = row(y + r + 1);
+    const sub = row(y - r);
+    for (let x = 0; x < width; x++) {
+      dst[out + x] = sums[x] / w;
+      sums[x] += src[add + x] - src[sub + x];
+    }
+  }
+}
+
 /** Approximately Gaussian-smoothed copy (three box passes in x and in y; same size; edges replicated). */
 export function fastGaussianSmooth(plane: Plane, sigmaPx: number): Plane {
   const { width, height } = plane;
@@ -34,12 +54,13 @@ export function fastGaussianSmooth(plane: Plane, sigmaPx: number): Plane {
   let cur = Float32Array.from(plane.data);
   let next = new Float32Array(cur.length);
   const pad = new Float64Array(Math.max(width, height) + Math.max(...widths) + 2);
+  const sums = new Float64Array(width);
   for (const w of widths) {
     const r = (w - 1) >> 1;
     if (r === 0) continue;
     for (let y = 0; y < height; y++) boxLine(cur, next, y * width, 1, width, r, pad);
     [cur, next] = [next, cur];
-    for (let x = 0; x < width; x++) boxLine(cur, next, x, width, height, r, pad);
+    boxColumns(cur, next, width, height, r, sums);
     [cur, next] = [next, cur];
   }
   return { width, height, data: cur };

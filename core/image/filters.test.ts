@@ -102,3 +102,25 @@ describe('fastGaussianSmooth', () => {
     fastGaussianSmooth(plane(6, 5, Array(30).fill(3)), 1.3).data.forEach((v) => expect(v).toBeCloseTo(3, 5));
   });
 });
+
+describe('selectKth / medianInPlace', () => {
+  it('finds order statistics like a full sort does', async () => {
+    const { selectKth, medianInPlace } = await import('./select');
+    // Source: hand-sorted [1, 2, 3, 5, 8, 9]; median of an even count is the mean of the two middle values.
+    expect(selectKth(Float64Array.from([9, 1, 8, 2, 5, 3]), 4)).toBe(8);
+    expect(medianInPlace(Float64Array.from([9, 1, 8, 2, 5, 3]))).toBe(4);
+    expect(medianInPlace(Float32Array.from([7, 7, 1, 7, 2]))).toBe(7);
+    const v = Float64Array.from({ length: 1001 }, (_, i) => (i * 7919) % 1009);
+    const sorted = Float64Array.from(v).sort();
+    for (const k of [0, 1, 500, 999, 1000]) expect(selectKth(Float64Array.from(v), k)).toBe(sorted[k]);
+  });
+});
+
+describe('squareDilate / squareErode', () => {
+  it('grow and shrink by a square window', async () => {
+    const { squareDilate, squareErode } = await import('./morphology');
+    const m = { width: 5, height: 5, data: Uint8Array.from([0, 0, 0, 0, 0, 0, 1, 1, 1, 0, 0, 1, 1, 1, 0, 0, 1, 1, 1, 0, 0, 0, 0, 0, 0]) };
+    expect(Array.from(squareErode(m, 1).data)).toEqual([0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 1, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0]);
+    expect(Array.from(squareDilate(squareErode(m, 1), 1).data)).toEqual(Array.from(m.data));
+  });
+});

@@ -30,6 +30,33 @@ function blockMax(src: Float32Array, start: number, stride: number, a: number, b
   return m;
 }
 
+/** The van Herk running maximum down every column at once, walking rows in memory order (cache-friendly). */
+function maxColumns(src: Float32Array, dst: Float32Array, width: number, height: number, r: number): void {
+  const w = 2 * r + 1;
+  const g = new Float32Array(src.length);
+  const h = new Float32Array(src.length);
+  for (let y = 0; y < height; y++) {
+    const o = y * width;
+    if (y % w === 0) g.set(src.subarray(o, o + width), o);
+    else for (let x = 0; x < width; x++) g[o + x] = Math.max(g[o - width + x], src[o + x]);
+  }
+  for (let y = height - 1; y >= 0; y--) {
+    const o = y * width;
+    if (y === height - 1 || (y + 1) % w === 0) h.set(src.subarray(o, o + width), o);
+    else for (let x = 0; x < width; x++) h[o + x] = Math.max(h[o + width + x], src[o + x]);
+  }
+  for (let y = 0; y < height; y++) {
+    const a = Math.max(0, y - r);
+    const b = Math.min(height - 1, y + r);
+    const o = y * width;
+    if (Math.floor(a / w) === Math.floor(b / w)) {
+      for (let x = 0; x < width; x++) dst[o + x] = blockMax(src, x, width, a, b);
+    } else {
+      for (let x = 0; x < width; x++) dst[o + x] = Math.max(h[a * width + x], g[b * width + x]);
+    }
+  }
+}
+
 /** Maximum over the (2·radiusPx+1)² square centred on each pixel (window clipped at the image border). */
 export function maxFilter(plane: Plane, radiusPx: number): Plane {
   const r = Math.max(0, Math.round(radiusPx));
@@ -39,6 +66,6 @@ export function maxFilter(plane: Plane, radiusPx: number): Plane {
   const g = new Float32Array(Math.max(width, height));
   const h = new Float32Array(Math.max(width, height));
   for (let y = 0; y < height; y++) maxLine(plane.data, tmp, y * width, 1, width, r, g, h);
-  for (let x = 0; x < width; x++) maxLine(tmp, out, x, width, height, r, g, h);
+  maxColumns(tmp, out, width, height, r);
   return { width, height, data: out };
 }

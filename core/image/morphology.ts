@@ -1,6 +1,7 @@
 // Binary morphology with a Euclidean disk, via the exact distance transform (cost independent of the radius).
 import type { Mask } from '../model';
 import { distanceInside, squaredDistanceToFeatures } from './distance';
+import { maxFilter } from './max-filter';
 
 /** Dilation by a disk of radius radiusPx: pixels whose centre lies within radiusPx of a foreground centre. */
 export function dilate(mask: Mask, radiusPx: number): Mask {
@@ -52,4 +53,27 @@ export function open(mask: Mask, radiusPx: number): Mask {
 /** Closing (dilate then erode): bridges gaps narrower than 2·radiusPx. */
 export function close(mask: Mask, radiusPx: number): Mask {
   return erode(dilate(mask, radiusPx), radiusPx);
+}
+
+/** Dilation by a (2r+1)² square (r = round(radiusPx)); cheap for large radii where the shape does not matter. */
+export function squareDilate(mask: Mask, radiusPx: number): Mask {
+  const m = maxFilter({ width: mask.width, height: mask.height, data: Float32Array.from(mask.data) }, radiusPx).data;
+  return { width: mask.width, height: mask.height, data: Uint8Array.from(m) };
+}
+
+/** Erosion by a (2r+1)² square; pixels beyond the image border count as background. */
+export function squareErode(mask: Mask, radiusPx: number): Mask {
+  const { width, height } = mask;
+  const r = Math.max(0, Math.round(radiusPx));
+  const inv = new Float32Array(width * height);
+  for (let i = 0; i < inv.length; i++) inv[i] = mask.data[i] ? 0 : 1;
+  const grown = maxFilter({ width, height, data: inv }, r).data;
+  const out = new Uint8Array(inv.length);
+  for (let y = 0; y < height; y++) {
+    for (let x = 0; x < width; x++) {
+      const nearBorder = x < r || y < r || x >= width - r || y >= height - r;
+      out[y * width + x] = grown[y * width + x] === 0 && !nearBorder ? 1 : 0;
+    }
+  }
+  return { width, height, data: out };
 }

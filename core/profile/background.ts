@@ -1,13 +1,13 @@
 // Background estimates per channel: outside the embryo (robust), a drawn rectangle, or none.
 import type { BackgroundEstimate, Mask, Plane } from '../model';
 import type { BackgroundSettings } from '../settings';
-import { distanceOutside, sortedQuantile } from '../image';
+import { medianInPlace, sortedQuantile, squareDilate } from '../image';
 
 /** Fewest outside pixels accepted for the 'outside' estimate before falling back to a low percentile. */
 const MIN_OUTSIDE_PX = 100;
 
 /**
- * 'outside' background: the median of the pixels farther than marginPx from the mask (the margin keeps blurred
+ * 'outside' background: the median of the pixels beyond a square margin of marginPx around the mask (the margin keeps blurred
  * embryo light out of the estimate; the median ignores debris and neighbours). With too few such pixels, the 2nd
  * percentile of the whole image is used instead and a warning says so.
  */
@@ -15,12 +15,10 @@ export function outsideBackground(plane: Plane, mask: Mask, marginPx: number): {
   return outsideBackgroundFar(plane, farFromMask(mask, marginPx));
 }
 
-/** 1 where a pixel centre lies farther than marginPx from every mask pixel centre. */
+/** 1 where a pixel lies outside the mask grown by a (2·marginPx+1)² square (a square margin is enough here). */
 export function farFromMask(mask: Mask, marginPx: number): Uint8Array {
-  const dist = distanceOutside(mask);
-  const far = new Uint8Array(dist.length);
-  for (let i = 0; i < dist.length; i++) far[i] = dist[i] > marginPx ? 1 : 0;
-  return far;
+  const grown = squareDilate(mask, marginPx).data;
+  return Uint8Array.from(grown, (v) => (v ? 0 : 1));
 }
 
 /** outsideBackground with the far-from-mask pixels already known (so several channels share one distance map). */
@@ -28,7 +26,7 @@ export function outsideBackgroundFar(plane: Plane, far: Uint8Array): { value: nu
   const values = new Float32Array(far.length);
   let n = 0;
   for (let i = 0; i < far.length; i++) if (far[i] && Number.isFinite(plane.data[i])) values[n++] = plane.data[i];
-  if (n >= MIN_OUTSIDE_PX) return { value: sortedQuantile(values.subarray(0, n).sort(), 0.5), warning: null };
+  if (n >= MIN_OUTSIDE_PX) return { value: medianInPlace(values.subarray(0, n)), warning: null };
   const all = Float64Array.from(plane.data).sort();
   return { value: sortedQuantile(all, 0.02), warning: 'too little background outside the embryo; the 2nd percentile of the image was used as background' };
 }

@@ -32,18 +32,24 @@ export interface PreparedSampling {
   readonly warnings: readonly string[];
 }
 
-/** Collect positions and background-subtracted values of the pixels where keep[i] is set. */
-function pixelSet(projected: ProjectedStack, keep: (i: number) => boolean, backgrounds: readonly BackgroundEstimate[]): PixelSet {
-  const { width, data } = projected.channels[0];
-  const idx: number[] = [];
-  for (let i = 0; i < data.length; i++) if (keep(i)) idx.push(i);
-  const xs = new Float32Array(idx.length);
-  const ys = new Float32Array(idx.length);
-  idx.forEach((i, k) => { xs[k] = i % width; ys[k] = Math.floor(i / width); });
+/** Collect positions and background-subtracted values of the pixels where keep[i] is 1. */
+function pixelSet(projected: ProjectedStack, keep: Uint8Array, backgrounds: readonly BackgroundEstimate[]): PixelSet {
+  const { width } = projected.channels[0];
+  let n = 0;
+  for (let i = 0; i < keep.length; i++) n += keep[i];
+  const idx = new Int32Array(n);
+  const xs = new Float32Array(n);
+  const ys = new Float32Array(n);
+  for (let i = 0, k = 0; i < keep.length; i++) {
+    if (!keep[i]) continue;
+    idx[k] = i;
+    xs[k] = i % width;
+    ys[k++] = (i - (i % width)) / width;
+  }
   const values = projected.channels.map((ch, c) => {
-    const v = new Float32Array(idx.length);
+    const v = new Float32Array(n);
     const b = backgrounds[c].value;
-    idx.forEach((i, k) => { v[k] = ch.data[i] - b; });
+    for (let k = 0; k < n; k++) v[k] = ch.data[idx[k]] - b;
     return v;
   });
   return { xs, ys, values };
@@ -64,14 +70,13 @@ export function prepareSampling(projected: ProjectedStack, detection: Detection,
   const edgeDepthPx = toPx(settings.profile.edgeDepthUm);
   const bg = estimateBackgrounds(projected.channels, projected.channelNames, mask, settings.background, Math.max(5, toPx(10)));
   warnings.push(...bg.warnings);
-  const inBand = (i: number): boolean => mask.data[i] === 1 && depthPx[i] - 0.5 <= edgeDepthPx;
   const bandData = new Uint8Array(mask.data.length);
-  for (let i = 0; i < bandData.length; i++) bandData[i] = inBand(i) ? 1 : 0;
+  for (let i = 0; i < bandData.length; i++) bandData[i] = mask.data[i] === 1 && depthPx[i] - 0.5 <= edgeDepthPx ? 1 : 0;
   return {
     width: mask.width, height: mask.height, pixelSizeUm: px, channelNames: projected.channelNames, mask, depthPx,
     edgeDepthPx, bandMask: { width: mask.width, height: mask.height, data: bandData },
-    band: pixelSet(projected, (i) => bandData[i] === 1, bg.backgrounds),
-    inside: pixelSet(projected, (i) => mask.data[i] === 1, bg.backgrounds),
+    band: pixelSet(projected, bandData, bg.backgrounds),
+    inside: pixelSet(projected, mask.data, bg.backgrounds),
     backgrounds: bg.backgrounds, warnings,
   };
 }
