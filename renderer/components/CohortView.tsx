@@ -16,7 +16,7 @@ export function CohortView({ summary }: { summary: BatchSummary | null }) {
     const sd = Math.sqrt(lam.reduce((a, v) => a + (v - mean) ** 2, 0) / Math.max(1, lam.length - 1));
     return {
       profiles: prof === null ? null : cohortProfilesFigure([{ label: `this batch (n=${prof.count})`, ...prof }], { widthPx: 560, heightPx: 340, yLabel: 'intensity, min–max scaled to [0, 1]' }),
-      lambda: lam.length === 0 ? null : lambdaByConditionFigure([{ label: 'this batch', values: lam, mean, ciLow: NaN, ciHigh: NaN }], { widthPx: 360, heightPx: 340, unit: 'EL' }),
+      lambda: lam.length === 0 ? null : lambdaByConditionFigure([{ label: 'this batch', values: lam, mean, ciLow: NaN, ciHigh: NaN }], { widthPx: 460, heightPx: 340, unit: 'EL', title: 'Decay length λ per embryo (bar: mean)' }),
       mean, sd, n: lam.length,
     };
   }, [summary]);

@@ -150,6 +150,30 @@ describe('editor window', { timeout: 150_000 }, () => {
     await shot(page, '06-fit-range-dragged');
   });
 
+  it('exports the profile figure (SVG), the annotated image (PNG) and the profile table (CSV)', async () => {
+    const { page } = h;
+    const saveDir = join(scratch, 'exports');
+    await fs.mkdir(saveDir);
+    h.dialogs.saveDir = saveDir;
+    for (const label of ['Profile figure (SVG)', 'Annotated image (PNG)', 'Profile table (CSV)']) {
+      await page.getByTestId('export').click();
+      await page.getByRole('button', { name: label }).click();
+      await expect.poll(() => text(page, 'message'), { timeout: 30_000 }).toMatch(/^Saved /);
+      await page.getByTestId('message').click();
+    }
+    const files = (await fs.readdir(saveDir)).sort();
+    expect(files).toHaveLength(3);
+    const svg = await fs.readFile(join(saveDir, files.find((f) => f.endsWith('.svg')) ?? ''), 'utf8');
+    expect(svg).toContain('<svg');
+    const png = await fs.readFile(join(saveDir, files.find((f) => f.endsWith('.png')) ?? ''));
+    // Source: PNG specification §5.2 (signature bytes).
+    expect(Array.from(png.subarray(0, 8))).toEqual([137, 80, 78, 71, 13, 10, 26, 10]);
+    const csv = await fs.readFile(join(saveDir, files.find((f) => f.endsWith('.csv')) ?? ''), 'utf8');
+    expect(csv.split('\n')[0]).toContain('x_el');
+    // Keep the exports beside the screenshots, to look at.
+    for (const f of files) await fs.copyFile(join(saveDir, f), join(ARTIFACTS, `export-${f}`));
+  });
+
   it('runs a batch on the demo folder: progress, then results', async () => {
     const { page } = h;
     const out = join(scratch, 'out');
