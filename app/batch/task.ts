@@ -1,5 +1,6 @@
 // One unit of batch work, as sent to a worker thread (plain data only: it is structured-cloned).
-import type { EmbryoResult, HandEdits } from '../../core/model';
+import type { EmbryoResult, HandEdits, ImagePoint } from '../../core/model';
+import type { DemoItem } from '../../core/synth';
 import type { AnalysisSettings } from '../../core/settings';
 
 /** One file to analyse. */
@@ -14,7 +15,15 @@ export interface BatchTask {
   readonly handEdits: HandEdits | null;
 }
 
+/** A request to generate one demo file (sent with `kind: 'demo'`; analysis tasks carry no `kind`). */
+export interface DemoRequest {
+  readonly kind: 'demo';
+  readonly index: number;
+  readonly item: DemoItem;
+}
+
 /** Messages a batch worker sends back. */
 export type WorkerReply =
   | { readonly type: 'result'; readonly index: number; readonly result: EmbryoResult }
+  | { readonly type: 'demo'; readonly index: number; readonly bytes: Uint8Array; readonly furrow: ImagePoint }
   | { readonly type: 'memory'; readonly rssBytes: number; readonly heapUsedBytes: number; readonly externalBytes: number };

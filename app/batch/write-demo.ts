@@ -1,11 +1,14 @@
 // Write the synthetic demo data set (invented embryos) as OME-TIFF files with a sample sheet, a project holding a
 // hand-marked landmark per file, and a README. Used by `eggline demo` and the desktop app's "open demo data".
-import { promises as fs } from 'node:fs';
+import { existsSync, promises as fs } from 'node:fs';
+import { availableParallelism } from 'node:os';
 import { join, resolve } from 'node:path';
 import { toCsv } from '../../core/batch';
 import type { FileEdits } from '../../core/contract';
+import type { ImagePoint } from '../../core/model';
 import { demoDataSet, makeSyntheticEmbryo, type DemoItem } from '../../core/synth';
 import { writeOmeTiff } from '../../core/tiff';
+import { demoFilesInWorkers } from './demo-in-workers';
 import { newProject, PROJECT_FILE_NAME, saveProject, writeFileAtomic } from '../project';
 
 /** Name of the sample sheet written beside the demo stacks. */
@@ -54,19 +57,37 @@ export function demoFile(item: DemoItem): { bytes: Uint8Array; furrow: { x: numb
   return { bytes, furrow: { x: embryo.truth.furrowPoint.x, y: embryo.truth.furrowPoint.y } };
 }
 
+/** Options of writeDemoDataSet. */
+export interface DemoWriteOptions {
+  /** Write only this many files, spread over the conditions. */
+  readonly subset?: number;
+  /** Built batch worker (dist/batch-worker.mjs): when given, files are generated on `jobs` worker threads. */
+  readonly workerPath?: string;
+  /** Worker threads when workerPath is given; default: available cores. */
+  readonly jobs?: number;
+}
+
 /** Write the demo set (or an evenly spread subset of `subset` files) into `dir`, creating it. */
-export async function writeDemoDataSet(dir: string, options: { subset?: number } = {}): Promise<DemoWriteResult> {
+export async function writeDemoDataSet(dir: string, options: DemoWriteOptions = {}): Promise<DemoWriteResult> {
   const folder = resolve(dir);
   await fs.mkdir(folder, { recursive: true });
   const items = demoSubset(demoDataSet(), options.subset);
   const files: string[] = [];
   const edits: Record<string, FileEdits> = {};
-  for (const item of items) {
-    const { bytes, furrow } = demoFile(item);
+  const save = async (index: number, bytes: Uint8Array, furrow: ImagePoint): Promise<void> => {
+    const item = items[index];
     const path = join(folder, item.fileName);
     await writeFileAtomic(path, bytes);
     files.push(path);
     edits[item.fileName] = { axis: null, landmarks: [{ name: 'furrow', point: furrow }], fitRangeEl: null };
+  };
+  if (options.workerPath !== undefined && existsSync(options.workerPath)) {
+    await demoFilesInWorkers(items, options.workerPath, options.jobs ?? availableParallelism(), save);
+  } else {
+    for (const [index, item] of items.entries()) {
+      const { bytes, furrow } = demoFile(item);
+      await save(index, bytes, furrow);
+    }
   }
   const samplesPath = join(folder, DEMO_SAMPLES_NAME);
   await writeFileAtomic(samplesPath, toCsv(['file', 'condition', 'dosage'], items.map((i) => [i.fileName, i.condition, i.dosage])));

@@ -6,7 +6,7 @@ import { parseCommandArgs } from './parse-command-args';
 import { UsageError, type CliIo } from './usage-error';
 
 /** Run `eggline demo`; exit code 0, or 2 for usage errors. */
-export async function demoCommand(argv: readonly string[], io: CliIo): Promise<number> {
+export async function demoCommand(argv: readonly string[], io: CliIo, workerPath?: string): Promise<number> {
   const { values, positionals } = parseCommandArgs(argv, { count: { type: 'string' }, help: { type: 'boolean', short: 'h' } } as const, 'demo');
   if (values.help) { io.stdout.write(DEMO_HELP); return 0; }
   if (positionals.length !== 1) throw new UsageError(positionals.length === 0 ? 'missing the folder to write the demo data to' : 'demo takes one folder', 'demo');
@@ -17,7 +17,7 @@ export async function demoCommand(argv: readonly string[], io: CliIo): Promise<n
   }
   const dir = positionals[0];
   io.stderr.write(`eggline: writing synthetic demo data to ${dir} …\n`);
-  const result = await writeDemoDataSet(dir, count === undefined ? {} : { subset: count });
+  const result = await writeDemoDataSet(dir, { ...(count === undefined ? {} : { subset: count }), ...(workerPath ? { workerPath } : {}) });
   const show = (p: string): string => relative(process.cwd(), p) || '.';
   const out = join(dir, '..', `${dir.replace(/[\\/]+$/, '').split(/[\\/]/).pop() ?? 'demo'}-results`);
   io.stdout.write(`Wrote ${result.files.length} synthetic stacks, ${show(result.samplesPath)} and ${show(result.projectPath)}.\n`);

@@ -17,7 +17,7 @@ export interface CliEnv {
 export async function runCli(argv: readonly string[], io: CliIo, env: CliEnv = {}): Promise<number> {
   const COMMANDS: Record<string, (argv: readonly string[], io: CliIo) => Promise<number>> = {
     batch: (a, o) => batchCommand(a, o, env.workerPath ? { workerPath: env.workerPath } : {}),
-    cohort: (a, o) => cohortCommand([...a], o), inspect: inspectCommand, demo: demoCommand,
+    cohort: (a, o) => cohortCommand([...a], o), inspect: inspectCommand, demo: (a, o) => demoCommand(a, o, env.workerPath),
   };
   const [first, ...rest] = argv;
   if (first === undefined || first === '--help' || first === '-h' || first === 'help') {
