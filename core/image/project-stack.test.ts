@@ -76,3 +76,16 @@ describe('projectStack', () => {
     expect(chooseSliceScore([{ width: 2, height: 1, data: new Float32Array([0, 2]) }, { width: 2, height: 1, data: new Float32Array([1, 1]) }])).toBe(1);
   });
 });
+
+describe('projectStack with non-finite values', () => {
+  it('sets NaN and infinite projected values to 0 with a warning', async () => {
+    const { info } = tinyStack(known);
+    const source: PlaneSource = {
+      async readPlane(z) { return { width: 3, height: 1, data: new Float32Array([z === 0 ? NaN : 1, Infinity, 2]) }; },
+      async close() { /* nothing */ },
+    };
+    const p = await projectStack({ ...info, sampleType: 'float32' }, source, { ...DEFAULT_SETTINGS, projection: 'max' });
+    expect(Array.from(p.channels[0].data)).toEqual([1, 0, 2]);
+    expect(p.warnings).toContain('2 projected pixel value(s) were NaN or infinite and were set to 0');
+  });
+});

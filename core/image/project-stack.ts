@@ -71,6 +71,16 @@ async function bestSlice(info: StackInfo, source: PlaneSource, t: number): Promi
   return { planes: best, z: bestZ };
 }
 
+/** Replace NaN and ±Infinity by 0 in place (the planes are our own copies); returns how many were replaced. */
+function clearNonFinite(planes: readonly Plane[]): number {
+  let count = 0;
+  for (const p of planes) {
+    const d = p.data;
+    for (let i = 0; i < d.length; i++) if (!Number.isFinite(d[i])) { d[i] = 0; count++; }
+  }
+  return count;
+}
+
 /**
  * Project every channel of a stack over Z at settings.timeIndex with settings.projection, reading one plane at a time.
  * 'slice' uses settings.sliceIndex, or, when null, the slice with the highest contrast (see chooseSliceScore).
@@ -97,5 +107,8 @@ export async function projectStack(info: StackInfo, source: PlaneSource, setting
     channels = projectors.map((p) => p.result());
     if (settings.projection === 'slice') sliceIndex = settings.sliceIndex;
   }
+  // One NaN would spread through every later filter, so non-finite values (float files) become 0 here.
+  const bad = clearNonFinite(channels);
+  if (bad > 0) warnings.push(`${bad} projected pixel value(s) were NaN or infinite and were set to 0`);
   return { channels, channelNames: names, pixelSizeUm: px.um, pixelSizeSource: px.source, projection: settings.projection, sliceIndex, warnings };
 }

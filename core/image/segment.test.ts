@@ -42,6 +42,22 @@ describe('segmentEmbryo', () => {
     expect(mask.data[50 * W + 16]).toBe(0); // the bright anterior does not spill outwards
   });
 
+  it('gives nearly the same mask with the coarse stage on 2×2-averaged images', () => {
+    const gradient = channel((x) => 12 + 3000 * Math.exp(-(x - 20) / 12), 1);
+    const full = segmentEmbryo([gradient], { coarseDownsample: 1 }).data;
+    const half = segmentEmbryo([gradient], { coarseDownsample: 2 }).data;
+    expect(overlap(half).iou).toBeGreaterThan(0.95);
+    let differ = 0;
+    for (let i = 0; i < full.length; i++) differ += full[i] !== half[i] ? 1 : 0;
+    expect(differ).toBeLessThan(0.01 * full.length);
+  });
+
+  it('averages 2×2 blocks when downsampling', async () => {
+    const { downsample2 } = await import('./segment');
+    // Source: hand computation on a 3×2 plane [[1,2,3],[5,6,7]]: blocks (1,2,5,6) → 3.5 and (3,3,7,7) → 5.
+    expect(Array.from(downsample2({ width: 3, height: 2, data: Float32Array.from([1, 2, 3, 5, 6, 7]) }).data)).toEqual([3.5, 5]);
+  });
+
   it('is not cut by an expression boundary inside a second channel', () => {
     const gradient = channel((x) => 15 + 800 * Math.exp(-(x - 20) / 30), 2);
     const boundary = channel((x) => 15 + (x < 70 ? 2000 : 0), 3);
@@ -52,6 +68,7 @@ describe('segmentEmbryo', () => {
     expect(() => checkSegmentOptions({ fineSigmaPx: 0 })).toThrow('fineSigmaPx must be a positive number, got 0');
     expect(() => checkSegmentOptions({ edgeFraction: 1 })).toThrow('edgeFraction must be between 0 and 1, got 1');
     expect(() => segmentEmbryo([])).toThrow('segmentEmbryo needs at least one channel');
+    expect(() => checkSegmentOptions({ coarseDownsample: 3 as never })).toThrow('coarseDownsample must be 1, 2 or null, got 3');
   });
 });
 

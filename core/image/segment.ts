@@ -19,13 +19,18 @@ export interface SegmentOptions {
   readonly localRadiusPx?: number;
   /** Edge = where the signal falls to this fraction of the local level (0..1). @default 0.5 */
   readonly edgeFraction?: number;
+  /** Run the coarse stage on 2×2-averaged images (1 or 2); null = 2 for images over 500 000 pixels. @default null */
+  readonly coarseDownsample?: 1 | 2 | null;
 }
 
 /** Check and fill segmentation options; exact messages are pinned by tests. */
 export function checkSegmentOptions(o: SegmentOptions = {}): Required<SegmentOptions> {
-  const out = { coarseSigmaPx: 4, fineSigmaPx: 1.5, localRadiusPx: 5, edgeFraction: 0.5, ...o };
+  const out = { coarseSigmaPx: 4, fineSigmaPx: 1.5, localRadiusPx: 5, edgeFraction: 0.5, coarseDownsample: null, ...o };
   for (const key of ['coarseSigmaPx', 'fineSigmaPx', 'localRadiusPx'] as const) {
     if (!(out[key] > 0) || !Number.isFinite(out[key])) throw new Error(`${key} must be a positive number, got ${out[key]}`);
+  }
+  if (out.coarseDownsample !== null && out.coarseDownsample !== 1 && out.coarseDownsample !== 2) {
+    throw new Error(`coarseDownsample must be 1, 2 or null, got ${out.coarseDownsample}`);
   }
   if (!(out.edgeFraction > 0 && out.edgeFraction < 1)) {
     throw new Error(`edgeFraction must be between 0 and 1, got ${out.edgeFraction}`);
@@ -66,6 +71,36 @@ function coarseMask(snr: Plane): Mask {
   return fillHoles(largestComponent({ width: snr.width, height: snr.height, data }));
 }
 
+/** Mean of 2×2 blocks (a last odd row or column is averaged with itself), half the size rounded up. */
+export function downsample2(plane: Plane): Plane {
+  const { width, height, data } = plane;
+  const w = Math.ceil(width / 2);
+  const h = Math.ceil(height / 2);
+  const out = new Float32Array(w * h);
+  for (let y = 0; y < h; y++) {
+    const y0 = 2 * y * width;
+    const y1 = Math.min(2 * y + 1, height - 1) * width;
+    for (let x = 0; x < w; x++) {
+      const x0 = 2 * x;
+      const x1 = Math.min(2 * x + 1, width - 1);
+      out[y * w + x] = (data[y0 + x0] + data[y0 + x1] + data[y1 + x0] + data[y1 + x1]) / 4;
+    }
+  }
+  return { width: w, height: h, data: out };
+}
+
+/** Coarse mask at full size, computed on 2×2-averaged images when `factor` is 2 (nearest-neighbour upsampling). */
+function coarseAtScale(channels: readonly Plane[], sigmaPx: number, factor: 1 | 2): Mask {
+  if (factor === 1) return coarseMask(combinedSnr(channels, sigmaPx));
+  const small = coarseMask(combinedSnr(channels.map(downsample2), sigmaPx / 2));
+  const { width, height } = channels[0];
+  const data = new Uint8Array(width * height);
+  for (let y = 0; y < height; y++) {
+    for (let x = 0; x < width; x++) data[y * width + x] = small.data[(y >> 1) * small.width + (x >> 1)];
+  }
+  return { width, height, data };
+}
+
 /** Pixels where some channel is at least edgeFraction of its own local maximum (and above 3 noise SDs). */
 function nearLocalLevel(channels: readonly Plane[], o: Required<SegmentOptions>): Uint8Array {
   const keep = new Uint8Array(channels[0].data.length);
@@ -90,7 +125,8 @@ export function segmentEmbryo(channels: readonly Plane[], options: SegmentOption
   const o = checkSegmentOptions(options);
   if (channels.length === 0) throw new Error('segmentEmbryo needs at least one channel');
   const { width, height } = channels[0];
-  const coarse = coarseMask(combinedSnr(channels, o.coarseSigmaPx));
+  const factor = o.coarseDownsample ?? (width * height > 500_000 ? 2 : 1);
+  const coarse = coarseAtScale(channels, o.coarseSigmaPx, factor);
   // The coarse edge may sit up to ~2 coarse sigmas inside a dim end and ~3 outside a bright end; square windows
   // suffice for these margins and cost far less than distance maps.
   const near = squareDilate(coarse, 2 * o.coarseSigmaPx).data;
