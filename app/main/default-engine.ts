@@ -2,7 +2,7 @@
 import { detectEmbryo, projectStack } from '../../core/pipeline';
 import type { Detection } from '../../core/model';
 import type { AnalysisSettings } from '../../core/settings';
-import { runBatch } from '../batch/run-batch';
+import { defaultWorkerPath, runBatch } from '../batch/run-batch';
 import { writeDemoDataSet } from '../batch/write-demo';
 import { openStackForAnalysis } from '../decode';
 import type { AnalysisEngine, BatchRunOptions, SliceData, ViewData } from './engine';
@@ -58,6 +58,7 @@ export function createDefaultEngine(): AnalysisEngine {
     loadForView,
     readSlice,
     runBatch: runBatchSummary,
-    writeDemoDataSet: (dir, options) => writeDemoDataSet(dir, options),
+    // The built batch worker generates demo embryos in parallel (the writer falls back to this thread without it).
+    writeDemoDataSet: (dir, options) => writeDemoDataSet(dir, { ...options, workerPath: defaultWorkerPath() }),
   };
 }
