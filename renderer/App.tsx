@@ -19,6 +19,8 @@ import { toProjectDoc, useAutosave } from './hooks/useAutosave';
 import { useBatch } from './hooks/useBatch';
 import { useElementSize } from './hooks/useElementSize';
 import { keyCommand } from './hooks/useKeys';
+import type { KeyCommand } from './hooks/useKeys';
+import { Help } from './components/Help';
 import { useSession } from './hooks/useSession';
 import { useStackLoader } from './hooks/useStackLoader';
 import { useExports } from './hooks/useExports';
@@ -40,9 +42,14 @@ export function App() {
   const [zSlice, setZSlice] = useState<number | null>(null);
   const [slicePlanes, setSlicePlanes] = useState<Plane[] | null>(null);
   const select = useCallback((name: string | null) => { if (name !== null) { dispatch({ type: 'selectFile', key: name, autoAxis: null }); setZSlice(null); } }, []);
-  const { session, openDemo, openFolder, openProject, setMessage } = useSession(api, dispatch, select);
+  const { session, openDemo, openFolder, openProject, openFiles, setMessage } = useSession(api, dispatch, select);
+  const [help, setHelp] = useState(false);
+  const [exportMenu, setExportMenu] = useState(false);
   const entry = session.entries.find((e) => e.name === state.current) ?? null;
-  const { stack, loading, error: loadError } = useStackLoader(api, entry?.path ?? null, state.doc.settings);
+  const load = useStackLoader(api, entry?.path ?? null, state.doc.settings);
+  // Until the shown file's stack arrives, show nothing rather than its edits over the previous image.
+  const stack = load.stack !== null && load.stack.path === entry?.path ? load.stack : null;
+  const { loading, error: loadError } = load;
   const [saveStatus, saveNow] = useAutosave(api, session.projectPath, session.folder, state.doc, state.revision);
   const { batch, chooseOutput, run, cancel } = useBatch(api);
   const centre = useRef<HTMLDivElement>(null);
@@ -52,7 +59,7 @@ export function App() {
 
   // A newly loaded stack brings its automatic axis and fresh display ranges.
   useEffect(() => {
-    if (stack === null || state.current === null || entry?.path !== stack.path) return;
+    if (stack === null || state.current === null) return;
     dispatch({ type: 'selectFile', key: state.current, autoAxis: stack.detection.axis });
     dispatch({ type: 'initChannelDisplay', channels: stack.projected.channels.map((p, i) => {
       const [low, high] = autoDisplayRange(p);
@@ -100,6 +107,33 @@ export function App() {
 
   const stateRef = useRef(state);
   stateRef.current = state;
+  /** Run a keyboard or menu command against the latest state. */
+  const runCommand = (cmd: KeyCommand | string) => {
+    const s = stateRef.current;
+    const mid = screenPt(centreSize.width / 2, 200);
+    switch (cmd) {
+      case 'undo': case 'redo': dispatch({ type: cmd }); break;
+      case 'save': void saveNow(); break;
+      case 'swap': case 'swap-poles': dispatch({ type: 'swapPoles' }); break;
+      case 'fit': case 'fit-to-window': setFitRequest((n) => n + 1); break;
+      case 'zoom-in': dispatch({ type: 'setView', view: zoomAt(s.view, mid, 1.25) }); break;
+      case 'zoom-out': dispatch({ type: 'setView', view: zoomAt(s.view, mid, 0.8) }); break;
+      case 'delete': if (s.selectedLandmark !== null) dispatch({ type: 'deleteLandmark', index: s.selectedLandmark }); break;
+      case 'next-file': step(1); break;
+      case 'prev-file': step(-1); break;
+      case 'tool-pan': dispatch({ type: 'setTool', tool: 'pan' }); break;
+      case 'tool-axis': dispatch({ type: 'setTool', tool: 'axis' }); break;
+      case 'tool-landmark': dispatch({ type: 'setTool', tool: 'landmark' }); break;
+      case 'help': case 'show-help': setHelp((v) => !v); break;
+      case 'open-folder': void openFolder(); break;
+      case 'open-files': void openFiles(); break;
+      case 'open-project': void openProject(); break;
+      case 'open-demo': void openDemo(); break;
+      case 'export': setTab('embryo'); setExportMenu(true); break;
+    }
+  };
+  const commandRef = useRef(runCommand);
+  commandRef.current = runCommand;
   useEffect(() => {
     const down = (e: KeyboardEvent) => {
       const t = e.target as HTMLElement | null;
@@ -108,36 +142,14 @@ export function App() {
       const cmd = keyCommand(e);
       if (cmd === null) return;
       e.preventDefault();
-      const s = stateRef.current;
-      const mid = screenPt(centreSize.width / 2, 200);
-      switch (cmd) {
-        case 'undo': case 'redo': dispatch({ type: cmd }); break;
-        case 'save': void saveNow(); break;
-        case 'swap': dispatch({ type: 'swapPoles' }); break;
-        case 'fit': setFitRequest((n) => n + 1); break;
-        case 'zoom-in': dispatch({ type: 'setView', view: zoomAt(s.view, mid, 1.25) }); break;
-        case 'zoom-out': dispatch({ type: 'setView', view: zoomAt(s.view, mid, 0.8) }); break;
-        case 'delete': if (s.selectedLandmark !== null) dispatch({ type: 'deleteLandmark', index: s.selectedLandmark }); break;
-        case 'next-file': step(1); break;
-        case 'prev-file': step(-1); break;
-        case 'tool-pan': dispatch({ type: 'setTool', tool: 'pan' }); break;
-        case 'tool-axis': dispatch({ type: 'setTool', tool: 'axis' }); break;
-        case 'tool-landmark': dispatch({ type: 'setTool', tool: 'landmark' }); break;
-      }
+      commandRef.current(cmd);
     };
     const up = (e: KeyboardEvent) => { if (e.key === ' ') setSpaceHeld(false); };
     window.addEventListener('keydown', down);
     window.addEventListener('keyup', up);
     return () => { window.removeEventListener('keydown', down); window.removeEventListener('keyup', up); };
-  });
-
-  useEffect(() => api?.onMenuCommand((c) => {
-    if (c === 'open-folder') void openFolder();
-    else if (c === 'open-project') void openProject();
-    else if (c === 'open-demo') void openDemo();
-    else if (c === 'save') void saveNow();
-    else if (c === 'undo' || c === 'redo') dispatch({ type: c });
-  }), [api]);
+  }, []);
+  useEffect(() => api?.onMenuCommand((c) => commandRef.current(c)), [api]);
 
   if (api === null) return <div className="fatal">This page must run inside Eggline: the app connection (window.eggline) is missing.</div>;
   const halfWidthPx = stack === null || pixelSizeUm === null ? 50 : (stack.detection.eggWidthUm / pixelSizeUm) * 0.6;
@@ -146,7 +158,9 @@ export function App() {
   return (
     <div className="app">
       <Toolbar state={state} dispatch={dispatch} tab={tab} onTab={setTab} onOpenFolder={openFolder} onOpenProject={openProject} onOpenDemo={openDemo}
-        onFit={() => setFitRequest((n) => n + 1)} saveStatus={saveStatus} exports={exports} hasMeasurement={measurement !== null} />
+        onFit={() => setFitRequest((n) => n + 1)} saveStatus={saveStatus} exports={exports} hasMeasurement={measurement !== null}
+        exportMenu={exportMenu} onExportMenu={setExportMenu} onHelp={() => setHelp(true)} />
+      {help && <Help onClose={() => setHelp(false)} />}
       {session.message && <div className="message" data-testid="message" onClick={() => setMessage(null)}>{session.message}</div>}
       <div className="body">
         <aside className="left">

@@ -1,5 +1,4 @@
 // The toolbar: open, tools, axis commands, undo/redo, zoom, export, view tabs and save status.
-import { useState } from 'react';
 import type { Dispatch } from 'react';
 import type { SaveStatus } from '../hooks/useAutosave';
 import { EXPORT_LABELS } from '../hooks/useExports';
@@ -19,6 +18,9 @@ export interface ToolbarProps {
   readonly saveStatus: SaveStatus;
   readonly exports: (cmd: ExportCommand) => Promise<void>;
   readonly hasMeasurement: boolean;
+  readonly exportMenu: boolean;
+  readonly onExportMenu: (open: boolean) => void;
+  readonly onHelp: () => void;
 }
 
 const TOOLS: [ToolName, string, string][] = [['pan', 'Pan', 'H'], ['axis', 'Axis', 'A'], ['landmark', 'Landmark', 'L']];
@@ -35,7 +37,8 @@ function saveText(s: SaveStatus): string {
 
 /** The toolbar. */
 export function Toolbar(p: ToolbarProps) {
-  const [menu, setMenu] = useState(false);
+  const menu = p.exportMenu;
+  const setMenu = p.onExportMenu;
   const { state, dispatch } = p;
   return (
     <header className="toolbar">
@@ -69,6 +72,7 @@ export function Toolbar(p: ToolbarProps) {
       <nav className="tabs">
         {(['embryo', 'batch', 'cohort'] as const).map((t) => <button key={t} className={p.tab === t ? 'on' : ''} data-testid={`tab-${t}`} onClick={() => p.onTab(t)}>{t}</button>)}
       </nav>
+      <button title="Keys and gestures (F1)" onClick={p.onHelp}>?</button>
       <span className={`save-status ${p.saveStatus.kind}`} data-testid="save-status">{saveText(p.saveStatus)}</span>
     </header>
   );

@@ -19,6 +19,7 @@ describe('keyCommand', () => {
     expect(k('f')).toBe('fit');
     expect(k('PageDown')).toBe('next-file');
     expect(k('l')).toBe('tool-landmark');
+    expect(k('F1')).toBe('help');
   });
   it('ignores other keys and Ctrl with plain letters', () => {
     expect(k('q')).toBeNull();

@@ -46,5 +46,14 @@ export function useSession(api: EgglineApi | null, dispatch: Dispatch<EditorActi
     else if (r.value !== null) adopt({ ...r.value, folder: r.value.project.folder });
     else setSession((s) => ({ ...s, opening: false }));
   });
-  return { session, openDemo, openFolder, openProject, setMessage: (m: string | null) => setSession((s) => ({ ...s, message: m })) };
+  const openFiles = () => wrap(async () => {
+    if (api === null) return;
+    const r = await api.chooseFiles();
+    if (!r.ok) { fail(r.error.message); return; }
+    if (r.value === null) { setSession((s) => ({ ...s, opening: false })); return; }
+    // Loose files have no project folder: edits stay in this window until a folder is opened.
+    setSession({ folder: null, entries: r.value, projectPath: null, message: 'Loose files: hand edits are not saved (open their folder to keep them in a project).', opening: false });
+    onOpened(r.value[0]?.name ?? null);
+  });
+  return { session, openDemo, openFolder, openProject, openFiles, setMessage: (m: string | null) => setSession((s) => ({ ...s, message: m })) };
 }

@@ -150,6 +150,17 @@ describe('editor window', { timeout: 150_000 }, () => {
     await shot(page, '06-fit-range-dragged');
   });
 
+  it('the Z slider shows one raw slice and goes back to the projection', async () => {
+    const { page } = h;
+    const slider = page.getByTestId('z-slider');
+    await slider.fill('1');
+    await expect.poll(() => page.locator('.channel-panel').textContent()).toMatch(/Z 2 \/ \d+/);
+    expect(await page.getByTestId('message').count()).toBe(0);
+    await shot(page, '06b-z-slice');
+    await slider.fill('-1');
+    await expect.poll(() => page.locator('.channel-panel').textContent()).toMatch(/Z projection/);
+  });
+
   it('exports the profile figure (SVG), the annotated image (PNG) and the profile table (CSV)', async () => {
     const { page } = h;
     const saveDir = join(scratch, 'exports');

@@ -1,0 +1,28 @@
+// Keyboard and mouse reference, shown with F1 or ? (and the Help menu).
+
+const ROWS: [string, string][] = [
+  ['drag A / P handle', 'move the anterior or posterior pole (axis tool)'],
+  ['S', 'swap anterior and posterior'],
+  ['L, then click', 'place a landmark; drag it to move; Del removes the selected one'],
+  ['H / A / L', 'pan, axis and landmark tools'],
+  ['Space + drag', 'pan with any tool'],
+  ['wheel, + / −', 'zoom at the pointer / at the centre'],
+  ['F or 0', 'fit the image to the window'],
+  ['drag the yellow lines', 'change the fit range on the profile'],
+  ['PgDn / PgUp or ] / [', 'next / previous file'],
+  ['Ctrl+Z, Ctrl+Shift+Z', 'undo, redo (settings and hand edits)'],
+  ['Ctrl+S', 'save now (edits also save themselves)'],
+];
+
+/** The help overlay; click anywhere to close. */
+export function Help({ onClose }: { onClose: () => void }) {
+  return (
+    <div className="help" data-testid="help" onClick={onClose}>
+      <div className="help-card">
+        <h3>Eggline: keys and gestures</h3>
+        <table><tbody>{ROWS.map(([k, v]) => <tr key={k}><th>{k}</th><td>{v}</td></tr>)}</tbody></table>
+        <p className="muted">Positions along the axis are x/EL: 0 at the anterior pole, 1 at the posterior pole. λ is the decay length of A·e^(−x/λ)+B fitted over the fit range.</p>
+      </div>
+    </div>
+  );
+}
