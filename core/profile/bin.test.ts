@@ -70,3 +70,24 @@ describe('background', () => {
     expect(bg).toEqual({ value: 11, warning: null });
   });
 });
+
+describe('estimateBackgrounds and setting checks', () => {
+  it('subtracts a region mean, nothing, or warns for a missing region', async () => {
+    const { estimateBackgrounds } = await import('./background');
+    const plane = { width: 3, height: 2, data: Float32Array.from([1, 2, 3, 4, 5, 6]) };
+    const mask = { width: 3, height: 2, data: new Uint8Array(6) };
+    const region = estimateBackgrounds([plane], ['a'], mask, { mode: 'region', regionPx: { x: 0, y: 0, width: 2, height: 1 } }, 1);
+    expect(region).toEqual({ backgrounds: [{ channel: 'a', method: 'region', value: 1.5 }], warnings: [] });
+    expect(estimateBackgrounds([plane], ['a'], mask, { mode: 'none', regionPx: null }, 1).backgrounds[0]).toEqual({ channel: 'a', method: 'none', value: 0 });
+    expect(estimateBackgrounds([plane], ['a'], mask, { mode: 'region', regionPx: null }, 1).warnings).toEqual(['background region is missing or lies outside the image; no background was subtracted']);
+  });
+
+  it('rejects bad sampling settings with exact messages', async () => {
+    const { checkSamplingSettings } = await import('./check-settings');
+    const withProfile = (p: object) => ({ ...DEFAULT_SETTINGS, profile: { ...DEFAULT_SETTINGS.profile, ...p } });
+    expect(() => checkSamplingSettings(withProfile({ binCount: 0 }))).toThrow('profile.binCount must be an integer ≥ 1, got 0');
+    expect(() => checkSamplingSettings(withProfile({ edgeDepthUm: -1 }))).toThrow('profile.edgeDepthUm must be a positive number, got -1');
+    expect(() => checkSamplingSettings(withProfile({ axisWidthUm: NaN }))).toThrow('profile.axisWidthUm must be a positive number, got NaN');
+    expect(() => checkSamplingSettings(DEFAULT_SETTINGS)).not.toThrow();
+  });
+});

@@ -7,3 +7,4 @@ export { binIndices, binProfile } from './bin';
 export type { SideFilter } from './bin';
 export { estimateBackgrounds, outsideBackground, regionMean } from './background';
 export { sampleBandOutline } from './band-outline';
+export { checkSamplingSettings } from './check-settings';

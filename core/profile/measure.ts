@@ -8,6 +8,7 @@ import { findBoundaries, fitExponentialDecay } from '../fit';
 import type { PreparedSampling } from './prepare';
 import { binIndices, binProfile } from './bin';
 import type { SideFilter } from './bin';
+import { checkSamplingSettings } from './check-settings';
 
 /** Everything measured along one axis. µm values are null/NaN when the pixel size is unknown. */
 export interface Measurement {
@@ -74,6 +75,7 @@ function resolveRefs(refs: readonly ChannelRef[], names: readonly string[], role
  * landmarks' positions on the axis.
  */
 export function measureEmbryo(prepared: PreparedSampling, axis: ApAxis, settings: AnalysisSettings, landmarks: readonly Landmark[]): Measurement {
+  checkSamplingSettings(settings);
   const warnings: string[] = [...prepared.warnings];
   const px = prepared.pixelSizeUm;
   const axisPx = axisLengthPx(axis);

@@ -3,6 +3,7 @@ import type { BackgroundEstimate, Detection, Mask, ProjectedStack } from '../mod
 import type { AnalysisSettings } from '../settings';
 import { distanceInside } from '../image';
 import { estimateBackgrounds } from './background';
+import { checkSamplingSettings } from './check-settings';
 
 /** Pixel positions (px, pixel centres) and background-subtracted values of every channel at those pixels. */
 export interface PixelSet {
@@ -61,6 +62,7 @@ function pixelSet(projected: ProjectedStack, keep: Uint8Array, backgrounds: read
  * centre), all mask pixels, and background estimates per channel (outside margin: 10 µm, at least 5 px).
  */
 export function prepareSampling(projected: ProjectedStack, detection: Detection, settings: AnalysisSettings): PreparedSampling {
+  checkSamplingSettings(settings);
   const warnings: string[] = [];
   const px = projected.pixelSizeUm;
   if (px === null) warnings.push('pixel size unknown: edge depth, strip width and background margin are taken as pixels');
