@@ -21,8 +21,25 @@ export interface ImageOverlayProps {
   readonly selectedLandmark: number | null;
 }
 
-/** Colours for boundary channels, in order. */
-export const BOUNDARY_COLOURS = ['#ffcf4a', '#7fd8ff', '#ff9a6a'];
+/** Colours for boundary channels, in order (kept apart from the yellow of the fit). */
+export const BOUNDARY_COLOURS = ['#ff7ad9', '#7fd8ff', '#ff9a6a'];
+
+/** Colour of a boundary: by its channel's place among the boundary channels, so methods of one channel match. */
+export function boundaryColour(channel: string, channels: readonly string[]): string {
+  return BOUNDARY_COLOURS[Math.max(0, channels.indexOf(channel)) % BOUNDARY_COLOURS.length];
+}
+
+/** Label offsets (px, downwards) so labels that would overlap are stacked; boxes are estimated from text length. */
+export function staggerLabels(items: readonly { x: number; y: number; text: string }[], charPx = 6.2, lineWidthPx = 14): number[] {
+  const placed: { x0: number; x1: number; y: number }[] = [];
+  return items.map((it) => {
+    let dy = 0;
+    const x0 = it.x, x1 = it.x + it.text.length * charPx;
+    while (placed.some((p) => p.x0 < x1 && x0 < p.x1 && Math.abs(p.y - (it.y + dy)) < lineWidthPx)) dy += lineWidthPx;
+    placed.push({ x0, x1, y: it.y + dy });
+    return dy;
+  });
+}
 
 const toS = (v: ViewTransform, p: ImagePoint) => imageToScreen(v, imagePt(p.x, p.y));
 const pts = (v: ViewTransform, ps: readonly ImagePoint[]) => ps.map((p) => { const s = toS(v, p); return `${s.x.toFixed(1)},${s.y.toFixed(1)}`; }).join(' ');
@@ -67,18 +84,22 @@ export function ImageOverlay(props: ImageOverlayProps) {
       {axis !== null && m?.boundaries.map((b, i) => {
         if (b.positionEl === null) return null;
         const [u, w] = crossLine(axis, b.positionEl, halfWidthPx).map((q) => toS(view, q));
-        return <line key={i} x1={u.x} y1={u.y} x2={w.x} y2={w.y} className="boundary-line" stroke={BOUNDARY_COLOURS[i % 3]} />;
+        return <line key={i} x1={u.x} y1={u.y} x2={w.x} y2={w.y} className="boundary-line" stroke={boundaryColour(b.channel, m.boundaryProfiles.map((p) => p.channel))} />;
       })}
       {axis !== null && <AxisLayer view={view} axis={axis} fitRangeEl={fitRangeEl} />}
-      {m?.landmarks.map((l, i) => {
-        const s = toS(view, l.point);
-        return (
-          <g key={i} className={`landmark${selectedLandmark === i ? ' selected' : ''}`} data-testid="landmark" data-name={l.name} data-x={s.x.toFixed(1)} data-y={s.y.toFixed(1)}>
-            <path d={`M${s.x} ${s.y - 7} L${s.x + 7} ${s.y} L${s.x} ${s.y + 7} L${s.x - 7} ${s.y} Z`} />
-            <text x={s.x + 10} y={s.y - 8}>{`${l.name} · ${fixed(l.xEl, 3)} EL`}</text>
-          </g>
-        );
-      })}
+      {m !== null && (() => {
+        const spots = m.landmarks.map((l) => { const s = toS(view, l.point); return { s, text: `${l.name} · ${fixed(l.xEl, 3)} EL` }; });
+        const dys = staggerLabels(spots.map(({ s, text }) => ({ x: s.x + 10, y: s.y - 8, text })));
+        return m.landmarks.map((l, i) => {
+          const { s, text } = spots[i];
+          return (
+            <g key={i} className={`landmark${selectedLandmark === i ? ' selected' : ''}`} data-testid="landmark" data-name={l.name} data-x={s.x.toFixed(1)} data-y={s.y.toFixed(1)}>
+              <path d={`M${s.x} ${s.y - 7} L${s.x + 7} ${s.y} L${s.x} ${s.y + 7} L${s.x - 7} ${s.y} Z`} />
+              <text x={s.x + 10} y={s.y - 8 + dys[i]}>{text}</text>
+            </g>
+          );
+        });
+      })()}
     </svg>
   );
 }

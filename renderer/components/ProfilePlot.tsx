@@ -6,7 +6,7 @@ import { area, line } from 'd3-shape';
 import type { LiveMeasurement } from '../live';
 import type { EditorAction } from '../state';
 import { elToPx, pxToEl } from '../ui/plotLayout';
-import { BOUNDARY_COLOURS } from './ImageOverlay';
+import { boundaryColour } from './ImageOverlay';
 
 /** Props of the profile plot. */
 export interface ProfilePlotProps {
@@ -55,6 +55,7 @@ export function ProfilePlot({ measurement: m, width, fitRangeEl, dispatch }: Pro
     dispatch({ type: 'setFitRange', rangeEl: range, coalesce: d.moved });
     drag.current = { ...d, moved: true };
   };
+  const channels = m.boundaryProfiles.map((bp) => bp.channel);
   const ticks = Array.from({ length: 11 }, (_, k) => k / 10);
   const others = m.boundaryProfiles.map((bp) => {
     const vals = Array.from(bp.mean).filter(Number.isFinite);
@@ -73,12 +74,12 @@ export function ProfilePlot({ measurement: m, width, fitRangeEl, dispatch }: Pro
       <text x={14} y={MAIN.top + MAIN.height / 2} className="axis-title" transform={`rotate(-90 14 ${MAIN.top + MAIN.height / 2})`} textAnchor="middle">intensity − background</text>
       <text x={(x(0) + x(1)) / 2} y={PROFILE_HEIGHT_PX - 2} className="axis-title" textAnchor="middle">x/EL (anterior → posterior)</text>
       <path d={sdPath} className="sd-band" />
-      {others.map((d, i) => <path key={i} d={d} className="other-profile" stroke={BOUNDARY_COLOURS[i % 3]} />)}
+      {others.map((d, i) => <path key={i} d={d} className="other-profile" stroke={boundaryColour(m.boundaryProfiles[i].channel, channels)} />)}
       <path d={meanPath} className="mean-line" />
       {fit !== null && <path d={curve(0, 1)} className="fit-curve-ext" />}
       {fit !== null && <path d={curve(fitRangeEl[0], fitRangeEl[1])} className="fit-curve" data-testid="fit-curve" />}
-      {m.boundaries.map((b, i) => b.positionEl !== null && <g key={i}><line x1={x(b.positionEl)} x2={x(b.positionEl)} y1={MAIN.top} y2={MAIN.top + MAIN.height} className="boundary-line" stroke={BOUNDARY_COLOURS[i % 3]} /><text x={x(b.positionEl) + 3} y={MAIN.top + 10} className="boundary-label" fill={BOUNDARY_COLOURS[i % 3]}>{`${b.channel} ${b.positionEl.toFixed(3)}`}</text></g>)}
-      {m.landmarks.map((l, i) => <g key={i} className="plot-landmark"><line x1={x(l.xEl)} x2={x(l.xEl)} y1={MAIN.top} y2={RES.top + RES.height} /><text x={x(l.xEl) + 3} y={MAIN.top + 22}>{l.name}</text></g>)}
+      {m.boundaries.map((b, i) => b.positionEl !== null && <g key={i}><line x1={x(b.positionEl)} x2={x(b.positionEl)} y1={MAIN.top} y2={MAIN.top + MAIN.height} className="boundary-line" stroke={boundaryColour(b.channel, channels)} /><text x={x(b.positionEl) + 3} y={MAIN.top + 10 + 11 * i} className="boundary-label" fill={boundaryColour(b.channel, channels)}>{`${b.channel} ${b.method} ${b.positionEl.toFixed(3)}`}</text></g>)}
+      {m.landmarks.map((l, i) => <g key={i} className="plot-landmark"><line x1={x(l.xEl)} x2={x(l.xEl)} y1={MAIN.top} y2={RES.top + RES.height} /><text x={x(l.xEl) + 3} y={MAIN.top + MAIN.height - 4}>{l.name}</text></g>)}
       <line x1={x(0)} x2={x(1)} y1={yr(0)} y2={yr(0)} className="axis" />
       <text x={x(0) - 6} y={RES.top + 8} className="tick" textAnchor="end">resid.</text>
       {fit !== null && Array.from(fit.xEl, (xe, i) => <circle key={i} cx={x(xe)} cy={yr(fit.residuals[i])} r={1.8} className="residual" />)}

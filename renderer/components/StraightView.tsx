@@ -4,7 +4,7 @@ import type { LiveMeasurement } from '../live';
 import type { DisplayState } from '../state';
 import { compositeRgba } from '../view';
 import { elToPx } from '../ui/plotLayout';
-import { BOUNDARY_COLOURS } from './ImageOverlay';
+import { boundaryColour } from './ImageOverlay';
 
 /** Props of the straightened view. */
 export interface StraightViewProps {
@@ -54,7 +54,7 @@ export function StraightView({ measurement: m, display, width, fitRangeEl }: Str
       <svg width={width} height={STRIP_HEIGHT_PX} className="straight-overlay">
         <rect x={elToPx(fitRangeEl[0], width)} width={elToPx(fitRangeEl[1], width) - elToPx(fitRangeEl[0], width)} y={0} height={STRIP_HEIGHT_PX} className="fit-shade" />
         {m?.boundaries.map((b, i) => b.positionEl !== null &&
-          <line key={i} x1={elToPx(b.positionEl, width)} x2={elToPx(b.positionEl, width)} y1={0} y2={STRIP_HEIGHT_PX} className="boundary-line" stroke={BOUNDARY_COLOURS[i % 3]} />)}
+          <line key={i} x1={elToPx(b.positionEl, width)} x2={elToPx(b.positionEl, width)} y1={0} y2={STRIP_HEIGHT_PX} className="boundary-line" stroke={boundaryColour(b.channel, m.boundaryProfiles.map((p) => p.channel))} />)}
         {m?.landmarks.map((l, i) => (
           <g key={i} className="strip-landmark">
             <line x1={elToPx(l.xEl, width)} x2={elToPx(l.xEl, width)} y1={0} y2={STRIP_HEIGHT_PX} />

@@ -10,4 +10,9 @@ describe('annotatedSvg', () => {
     expect(s).toContain('href="data:image/png;base64,AAA"');
     expect(s.endsWith('<circle r="1"/></svg>')).toBe(true);
   });
+  it('adds a scale bar of the given length at the bottom left', () => {
+    const s = annotatedSvg(200, 100, 'data:,', '', { lengthUm: 50, lengthPx: 33.3 });
+    expect(s).toContain('<rect x="12" y="84" width="33.3" height="4" fill="#ffffff"/>');
+    expect(s).toContain('>50 µm</text>');
+  });
 });

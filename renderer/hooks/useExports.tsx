@@ -6,6 +6,7 @@ import { profileFigure } from '../../core/figures';
 import type { ApAxis, ImagePoint, Plane } from '../../core/model';
 import { ImageOverlay } from '../components/ImageOverlay';
 import { annotatedSvg } from '../export/annotatedSvg';
+import { chooseScaleBar } from '../geometry';
 import { fileStem, liveToResult } from '../export/liveResult';
 import type { LiveMeasurement } from '../live';
 import type { EditorState } from '../state';
@@ -70,7 +71,9 @@ export function useExports(api: EgglineApi | null, ctx: Ctx): (cmd: ExportComman
         const overlay = renderToStaticMarkup(<ImageOverlay view={{ zoom: 1, offsetX: 0, offsetY: 0 }} width={p.width} height={p.height}
           outline={stack.detection.outline} axis={axis} measurement={m} bandOutlines={ctx.bandOutlines} fitRangeEl={effectiveFitRange(state)}
           halfWidthPx={(stack.detection.eggWidthUm / (stack.projected.pixelSizeUm ?? 1)) * 0.6} selectedLandmark={null} />);
-        await toPng(annotatedSvg(p.width, p.height, compositeDataUrl(ctx.planes, state), overlay), 1, `${stem}-annotated.png`);
+        const px = stack.projected.pixelSizeUm;
+        const bar = px === null ? null : chooseScaleBar(px, 1, p.width * 0.25);
+        await toPng(annotatedSvg(p.width, p.height, compositeDataUrl(ctx.planes, state), overlay, bar && { lengthUm: bar.lengthUm, lengthPx: bar.screenPx }), 1, `${stem}-annotated.png`);
         return;
       }
       case 'embryo-csv': await save('csv', `${stem}-embryo.csv`, embryosCsv([result])); return;
