@@ -11,7 +11,7 @@ export const OVERLAY_CSS = `
 .handle-posterior{fill:#8ab4ff}
 .handle-label{font:bold 10px system-ui,sans-serif;fill:#101317;pointer-events:none}
 .boundary-line{stroke-width:2;stroke-dasharray:7 4}
-.landmark path{fill:#ff8fa3;stroke:#101317;stroke-width:1}
-.landmark.selected path{fill:#ffffff;stroke:#ff8fa3;stroke-width:2}
-.landmark text{font:11px system-ui,sans-serif;fill:#ffe3ea;paint-order:stroke;stroke:#101317;stroke-width:3px}
+.landmark path{fill:#f4f6fa;stroke:#101317;stroke-width:1.2}
+.landmark.selected path{fill:#ffb35c;stroke:#101317;stroke-width:1.5}
+.landmark text{font:11px system-ui,sans-serif;fill:#f4f6fa;paint-order:stroke;stroke:#101317;stroke-width:3px}
 `;

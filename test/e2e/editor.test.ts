@@ -110,6 +110,12 @@ describe('editor window', { timeout: 150_000 }, () => {
     await page.keyboard.press('Control+z');
     await expect.poll(() => landmarkXel(page, 'L1')).toBe(placed);
     placedXel = placed;
+    // Select it in the table, Delete removes it, undo brings it back.
+    await page.locator('[data-testid=landmark-row][data-name=L1] [data-testid=landmark-xel]').click();
+    await page.keyboard.press('Delete');
+    await expect.poll(() => page.locator('[data-testid=landmark][data-name=L1]').count()).toBe(0);
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => landmarkXel(page, 'L1')).toBe(placed);
     await page.getByTestId('tool-axis').click();
     await shot(page, '04b-landmark-move-undone');
   });
