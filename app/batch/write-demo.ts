@@ -92,7 +92,9 @@ export async function writeDemoDataSet(dir: string, options: DemoWriteOptions = 
   const samplesPath = join(folder, DEMO_SAMPLES_NAME);
   await writeFileAtomic(samplesPath, toCsv(['file', 'condition', 'dosage'], items.map((i) => [i.fileName, i.condition, i.dosage])));
   const projectPath = join(folder, PROJECT_FILE_NAME);
-  await saveProject(projectPath, { ...newProject(folder), files: edits });
+  // The demo's channel 2 holds the boundary; the project says so, so the app and the batch find it without flags.
+  const base = newProject(folder);
+  await saveProject(projectPath, { ...base, settings: { ...base.settings, boundaryChannels: [2] }, files: edits });
   await writeFileAtomic(join(folder, 'README.txt'), README);
   return { files, samplesPath, projectPath };
 }

@@ -14,6 +14,9 @@ const project = (files: Record<string, unknown>): string => JSON.stringify({
 });
 writeFileSync(join(input, 'eggline-project.json'), project({ 'a.tif': { axis: null, landmarks: [{ name: 'furrow', point: { x: 1, y: 2 } }], fitRangeEl: null } }));
 writeFileSync(join(root, 'other-project.json'), project({}));
+writeFileSync(join(root, 'channels-project.json'), JSON.stringify({
+  schema: 'eggline-project', version: 1, folder: '.', settings: { ...DEFAULT_SETTINGS, boundaryChannels: [2], fitRangeEl: [0.2, 0.5] }, files: {},
+}));
 writeFileSync(join(root, 'broken.json'), '{ nope');
 afterAll(() => rmSync(root, { recursive: true, force: true }));
 
@@ -30,6 +33,11 @@ describe('planBatch', () => {
     expect(other !== 'help' && other.projectFile).toBe(join(root, 'other-project.json'));
     const none = await planBatch([input, '--out', join(root, 'out'), '--no-project']);
     expect(none !== 'help' && [none.doc, none.projectFile, none.notes]).toEqual([null, null, []]);
+  });
+  it('takes settings from the project, then the flags over them', async () => {
+    const plan = await planBatch([input, '--out', join(root, 'o'), '--project', join(root, 'channels-project.json'), '--fit-range', '0.1,0.7']);
+    if (plan === 'help') throw new Error('unexpected help');
+    expect([plan.settings.boundaryChannels, plan.settings.fitRangeEl]).toEqual([[2], [0.1, 0.7]]);
   });
   it('rejects a missing or broken project file naming it', async () => {
     await expect(planBatch([input, '--out', join(root, 'o'), '--project', join(root, 'missing.json')]))

@@ -1,4 +1,4 @@
-// `eggline batch <folder> --out <dir> …`: resolve settings (defaults < config < flags), load hand edits, run the batch.
+// `eggline batch <folder> --out <dir> …`: resolve settings (defaults < project < config < flags), load hand edits, run the batch.
 import { promises as fs } from 'node:fs';
 import { join, resolve } from 'node:path';
 import {
@@ -87,7 +87,7 @@ export async function planBatch(argv: readonly string[]): Promise<BatchPlan | 'h
   const config = v.config !== undefined ? await readConfig(v.config) : {};
   const project = await readProject(v.project, folder, v['no-project'] === true);
   return {
-    folder, outDir: resolve(v.out), settings: mergeSettings(DEFAULT_SETTINGS, config, flags), doc: project.doc,
+    folder, outDir: resolve(v.out), settings: mergeSettings(DEFAULT_SETTINGS, project.doc?.settings ?? {}, config, flags), doc: project.doc,
     jobs: v.jobs !== undefined ? wholeNumber(v.jobs, '--jobs', 1, 256) : defaultJobs(),
     projectFile: project.path, configFile: v.config !== undefined ? resolve(v.config) : null,
     samples: v.samples !== undefined ? resolve(v.samples) : null, reference: v.reference ?? null,

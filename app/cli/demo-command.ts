@@ -1,5 +1,5 @@
 // `eggline demo <dir>`: write the synthetic demo data set and say what to try next.
-import { join, relative } from 'node:path';
+import { join } from 'node:path';
 import { writeDemoDataSet } from '../batch/write-demo';
 import { DEMO_HELP } from './help';
 import { parseCommandArgs } from './parse-command-args';
@@ -18,9 +18,10 @@ export async function demoCommand(argv: readonly string[], io: CliIo, workerPath
   const dir = positionals[0];
   io.stderr.write(`eggline: writing synthetic demo data to ${dir} …\n`);
   const result = await writeDemoDataSet(dir, { ...(count === undefined ? {} : { subset: count }), ...(workerPath ? { workerPath } : {}) });
-  const show = (p: string): string => relative(process.cwd(), p) || '.';
   const out = join(dir, '..', `${dir.replace(/[\\/]+$/, '').split(/[\\/]/).pop() ?? 'demo'}-results`);
-  io.stdout.write(`Wrote ${result.files.length} synthetic stacks, ${show(result.samplesPath)} and ${show(result.projectPath)}.\n`);
-  io.stdout.write(`Next, try:\n  eggline batch ${dir} --out ${out} --boundary-channel 2 --samples ${show(result.samplesPath)}\n`);
+  const samples = join(dir, 'samples.csv');
+  io.stdout.write(`Wrote ${result.files.length} synthetic stacks, ${samples} and ${join(dir, 'eggline-project.json')}.\n`);
+  // The project file in the folder sets the boundary channel and holds the furrow landmarks, so no flags are needed.
+  io.stdout.write(`Next, try:\n  eggline batch ${dir} --out ${out} --samples ${samples}\n`);
   return 0;
 }

@@ -13,7 +13,7 @@ describe('describeStack', () => {
     expect(lines).toEqual([
       'format: OME-TIFF, byte order II, 4 IFDs',
       'dimensions: X 3 × Y 2 × Z 2 × C 2 × T 1 (order XYCZT)',
-      'channels: 0=dye-a, 1=dye-b',
+      'channels: 1=dye-a, 2=dye-b (1-based, as in --gradient-channel)',
       'pixel size: 0.325 µm × 0.325 µm, z step 1 µm (source: ome)',
       'sample type: uint16',
       'compression: none',

@@ -13,7 +13,7 @@ export function describeStack(info: StackInfo): string[] {
   const lines = [
     `format: ${kind}, ${info.ifdCount} IFD${info.ifdCount === 1 ? '' : 's'}`,
     `dimensions: X ${info.sizeX} × Y ${info.sizeY} × Z ${info.sizeZ} × C ${info.sizeC} × T ${info.sizeT} (order ${info.dimensionOrder})`,
-    `channels: ${info.channelNames.map((n, c) => `${c}=${n}`).join(', ')}`,
+    `channels: ${info.channelNames.map((n, c) => `${c + 1}=${n}`).join(', ')} (1-based, as in --gradient-channel)`,
     `pixel size: ${info.pixelSize.xUm === null ? 'unknown' : `${um(info.pixelSize.xUm)} × ${um(info.pixelSize.yUm)}`}` +
       `${info.pixelSize.zUm !== null ? `, z step ${um(info.pixelSize.zUm)}` : ''} (source: ${info.pixelSize.source})`,
     `sample type: ${info.sampleType}${info.samplesPerPixel > 1 ? `, ${info.samplesPerPixel} samples per pixel` : ''}`,
