@@ -18,15 +18,15 @@ describe('analyseCohort', () => {
     expect(lam.mean).toBeCloseTo(0.2, 1);
     expect(lam.ciLow).toBeLessThan(lam.mean);
     expect(a.stats.map((s) => `${s.quantity} [${s.unit}]`).slice(0, 9)).toEqual([
-      'lambda [EL]', 'lambda [um]', 'amplitude [a.u.]', 'egg length [um]', 'boundary target logistic [EL]',
-      'boundary target logistic [um]', 'boundary target half-max [EL]', 'boundary target half-max [um]', 'landmark furrow [EL]',
+      'lambda [EL]', 'lambda [um]', 'amplitude [a.u.]', 'egg_length [um]', 'boundary:target:logistic [EL]',
+      'boundary:target:logistic [um]', 'boundary:target:half-max [EL]', 'boundary:target:half-max [um]', 'landmark:furrow [EL]',
     ]);
     const amp = a.stats.filter((s) => s.quantity === 'amplitude').map((s) => s.mean);
     expect(amp[1] / amp[0]).toBeCloseTo(2, 6);
   });
   it('positional error of a boundary is its SD across embryos (about the 0.01 EL noise plus λ spread)', () => {
     const a = analyseCohort(demo.results, sheet);
-    const b = a.stats.find((s) => s.condition === 'ref' && s.quantity === 'boundary target logistic' && s.unit === 'EL')!;
+    const b = a.stats.find((s) => s.condition === 'ref' && s.quantity === 'boundary:target:logistic' && s.unit === 'EL')!;
     expect(b.sd).toBeGreaterThan(0.003);
     expect(b.sd).toBeLessThan(0.05);
   });

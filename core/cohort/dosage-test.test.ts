@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { analyseCohort } from './analyse';
 import { makeDemoCohort } from './demo-cohort';
-import { ratioWithCi, twoGradientShiftEl } from './dosage-test';
+import { ratioWithCi, slopeRatio, twoGradientShiftEl } from './dosage-test';
 import { parseSampleSheet } from './sample-sheet';
 
 function series(dosages: number[], count: number, seed: number) {
@@ -36,7 +36,7 @@ describe('dosage test (threshold model Δx = λ·ln f)', () => {
     // Source: demo data built with λ = 0.2 EL and x_b = λ·ln(A·f/T) plus seeded noise
     for (const seed of [1, 2, 3]) {
       const a = series([0.5, 1, 2, 4], 10, seed);
-      const fit = a.dosageFits.find((f) => f.quantity === 'boundary target logistic');
+      const fit = a.dosageFits.find((f) => f.quantity === 'boundary:target:logistic');
       expect(fit).toBeDefined();
       expect(fit!.ciLow).toBeLessThan(0.2);
       expect(fit!.ciHigh).toBeGreaterThan(0.2);
@@ -71,5 +71,16 @@ describe('dosage test (threshold model Δx = λ·ln f)', () => {
     expect(r.ratioCiLow!).toBeCloseTo(0.5 - 2.776445 * se, 5);
     expect(r.ratioCiHigh!).toBeCloseTo(0.5 + 2.776445 * se, 5);
     expect(ratioWithCi(0.1, 0.02, 4, 0, 0.01, 10)).toEqual({ ratio: null, ratioCiLow: null, ratioCiHigh: null });
+  });
+  it('slopeRatio: λ_eff / λ_ref with both uncertainties (known answer)', () => {
+    // Source: hand-computed: 0.19 / 0.2 = 0.95; SE = √((0.01/0.2)² + (0.19·0.005/0.2²)²) = 0.0553535;
+    // dof = min(12 − 2, 6 − 1) = 5, t(0.975, 5) = 2.570582 (t table, from memory) → half-width 0.1422918.
+    const fit = { quantity: 'q', slopeEl: 0.19, slopeSeEl: 0.01, ciLow: 0, ciHigh: 0, interceptEl: 0, r2: 1, n: 12, predictedSlopeEl: 0.2, predictedTwoGradientSlopeEl: null };
+    const lam = { condition: 'ref', n: 6, lambdaEl: 0.2, seEl: 0.005, ciLowEl: 0, ciHighEl: 0, dof: 5 };
+    const r = slopeRatio(fit, lam);
+    expect(r.ratio).toBeCloseTo(0.95, 12);
+    expect(r.ratioCiHigh! - 0.95).toBeCloseTo(0.1422918, 5);
+    expect(0.95 - r.ratioCiLow!).toBeCloseTo(0.1422918, 5);
+    expect(slopeRatio(fit, null)).toEqual({ ratio: null, ratioCiLow: null, ratioCiHigh: null });
   });
 });

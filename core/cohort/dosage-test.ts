@@ -113,3 +113,12 @@ export function dosageFits(
   }
   return out;
 }
+
+/** λ_eff / λ_ref: fitted slope over the reference λ (both x/EL), with a delta-method interval that carries the
+ *  uncertainty of both (t at min(n − 2, n_ref − 1)); nulls when either is missing. */
+export function slopeRatio(
+  fit: DosageFit, lambda: ReferenceLambda | null, level = 0.95,
+): { ratio: number | null; ratioCiLow: number | null; ratioCiHigh: number | null } {
+  if (lambda === null || fit.n < 3) return { ratio: null, ratioCiLow: null, ratioCiHigh: null };
+  return ratioWithCi(fit.slopeEl, fit.slopeSeEl, fit.n - 2, lambda.lambdaEl, lambda.seEl, lambda.dof, level);
+}

@@ -2,14 +2,33 @@
 import type { EmbryoResult } from '../model';
 import type { ConditionInfo, Observation, QuantityKind, QuantityUnit } from './types';
 
-/** Quantity name of a boundary: `boundary <channel> <method>`. */
+// Quantity keys (the `quantity` column of the CSV files) are machine-friendly: `lambda`, `amplitude`, `egg_length`,
+// `boundary:<channel>:<method>` and `landmark:<name>`. The method never contains ':', so a channel name may.
+
+/** Quantity key of a boundary: `boundary:<channel>:<method>`, e.g. `boundary:ch2:logistic`. */
 export function boundaryQuantity(channel: string, method: string): string {
-  return `boundary ${channel} ${method}`;
+  return `boundary:${channel}:${method}`;
 }
 
-/** Quantity name of a landmark: `landmark <name>`. */
+/** Quantity key of a landmark: `landmark:<name>`, e.g. `landmark:furrow`. */
 export function landmarkQuantity(name: string): string {
-  return `landmark ${name}`;
+  return `landmark:${name}`;
+}
+
+/** Quantity key of the egg length (µm). */
+export const EGG_LENGTH_QUANTITY = 'egg_length';
+
+/** Readable label of a quantity key for reports and figures: `boundary in ‘ch2’ (logistic)`, `landmark ‘furrow’`. */
+export function quantityLabel(quantity: string): string {
+  if (quantity === 'lambda') return 'decay length λ';
+  if (quantity === EGG_LENGTH_QUANTITY) return 'egg length';
+  if (quantity === 'amplitude') return 'amplitude A';
+  if (quantity.startsWith('landmark:')) return `landmark ‘${quantity.slice('landmark:'.length)}’`;
+  const last = quantity.lastIndexOf(':');
+  if (quantity.startsWith('boundary:') && last > 'boundary:'.length - 1) {
+    return `boundary in ‘${quantity.slice('boundary:'.length, last)}’ (${quantity.slice(last + 1)})`;
+  }
+  return quantity;
 }
 
 /** All finite quantities measured on one embryo, tagged with its condition and ln f. */
@@ -27,7 +46,7 @@ export function observationsOf(result: EmbryoResult, condition: ConditionInfo): 
     add('lambda', 'lambda', 'um', fit.lambdaUm);
     add('amplitude', 'amplitude', 'a.u.', fit.amplitude);
   }
-  add('egg length', 'egg-length', 'um', result.eggLengthUm);
+  add(EGG_LENGTH_QUANTITY, 'egg-length', 'um', result.eggLengthUm);
   const seen = new Set<string>();
   for (const b of result.boundaries) {
     const q = boundaryQuantity(b.channel, b.method);

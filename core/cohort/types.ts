@@ -59,6 +59,8 @@ export interface Observation {
   readonly condition: string;
   /** ln f of the embryo's condition (null when the dosage is unknown). */
   readonly lnF: number | null;
+  /** Machine-friendly key: `lambda`, `amplitude`, `egg_length`, `boundary:<channel>:<method>` or `landmark:<name>`
+   *  (quantityLabel turns it into text for people). */
   readonly quantity: string;
   readonly kind: QuantityKind;
   readonly unit: QuantityUnit;
