@@ -9,11 +9,15 @@ export function endMeans(plane: Plane, mask: Mask, first: ImagePoint, second: Im
   const len2 = dx * dx + dy * dy;
   const bg = estimateBackgroundLevel(plane.data).level;
   let s1 = 0; let n1 = 0; let s2 = 0; let n2 = 0;
-  const { width, data } = mask;
-  for (let i = 0; i < data.length; i++) {
-    if (!data[i]) continue;
-    const t = (((i % width) - first.x) * dx + (Math.floor(i / width) - first.y) * dy) / len2;
-    if (t <= fraction) { s1 += plane.data[i] - bg; n1++; } else if (t >= 1 - fraction) { s2 += plane.data[i] - bg; n2++; }
+  const { width, height, data } = mask;
+  for (let y = 0; y < height; y++) {
+    const o = y * width;
+    for (let x = 0; x < width; x++) {
+      const i = o + x;
+      if (!data[i]) continue;
+      const t = ((x - first.x) * dx + (y - first.y) * dy) / len2;
+      if (t <= fraction) { s1 += plane.data[i] - bg; n1++; } else if (t >= 1 - fraction) { s2 += plane.data[i] - bg; n2++; }
+    }
   }
   return { first: n1 ? s1 / n1 : NaN, second: n2 ? s2 / n2 : NaN };
 }

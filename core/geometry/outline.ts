@@ -37,15 +37,21 @@ function cellSegments(inside: readonly boolean[], x: number, y: number, out: Seg
 /** All closed contours of the mask (each a list of vertices, last vertex not repeated), in discovery order. */
 export function maskContours(mask: Mask): ImagePoint[][] {
   const { width, height, data } = mask;
-  const at = (x: number, y: number): boolean => x >= 0 && y >= 0 && x < width && y < height && data[y * width + x] !== 0;
   const segs: Segment[] = [];
   const inside = [false, false, false, false];
+  // Rows of the mask padded by one outside pixel on each side; cell (x, y) has corners in rows y and y + 1.
+  let top = new Uint8Array(width + 2);
+  let bottom = new Uint8Array(width + 2);
   for (let y = -1; y < height; y++) {
+    bottom.fill(0);
+    if (y + 1 < height) for (let x = 0; x < width; x++) bottom[x + 1] = data[(y + 1) * width + x] !== 0 ? 1 : 0;
     for (let x = -1; x < width; x++) {
-      let count = 0;
-      for (let k = 0; k < 4; k++) { inside[k] = at(x + CORNERS[k][0], y + CORNERS[k][1]); if (inside[k]) count++; }
-      if (count !== 0 && count !== 4) cellSegments(inside, x, y, segs);
+      const count = top[x + 1] + top[x + 2] + bottom[x + 2] + bottom[x + 1];
+      if (count === 0 || count === 4) continue;
+      inside[0] = top[x + 1] === 1; inside[1] = top[x + 2] === 1; inside[2] = bottom[x + 2] === 1; inside[3] = bottom[x + 1] === 1;
+      cellSegments(inside, x, y, segs);
     }
+    [top, bottom] = [bottom, top];
   }
   const stride = 2 * height + 8;
   const key = (px: number, py: number): number => (2 * px + 4) * stride + (2 * py + 4);

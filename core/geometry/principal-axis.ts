@@ -12,22 +12,29 @@ export interface PrincipalAxis {
 
 /** Principal axis of the foreground pixels (centres at integer coordinates); throws on an empty mask. */
 export function principalAxis(mask: Mask): PrincipalAxis {
-  const { width, data } = mask;
+  const { width, height, data } = mask;
   let n = 0;
   let sx = 0;
   let sy = 0;
-  for (let i = 0; i < data.length; i++) if (data[i]) { n++; sx += i % width; sy += Math.floor(i / width); }
+  // Row and column loops (no division per pixel); the sums run in the same pixel order as a flat scan.
+  for (let y = 0; y < height; y++) {
+    const o = y * width;
+    for (let x = 0; x < width; x++) if (data[o + x]) { n++; sx += x; sy += y; }
+  }
   if (n === 0) throw new Error('the mask is empty');
   const cx = sx / n;
   const cy = sy / n;
   let mxx = 0;
   let myy = 0;
   let mxy = 0;
-  for (let i = 0; i < data.length; i++) {
-    if (!data[i]) continue;
-    const dx = (i % width) - cx;
-    const dy = Math.floor(i / width) - cy;
-    mxx += dx * dx; myy += dy * dy; mxy += dx * dy;
+  for (let y = 0; y < height; y++) {
+    const o = y * width;
+    const dy = y - cy;
+    for (let x = 0; x < width; x++) {
+      if (!data[o + x]) continue;
+      const dx = x - cx;
+      mxx += dx * dx; myy += dy * dy; mxy += dx * dy;
+    }
   }
   mxx /= n; myy /= n; mxy /= n;
   const angle = 0.5 * Math.atan2(2 * mxy, mxx - myy);

@@ -15,7 +15,7 @@ export { maxFilter } from './max-filter';
 export { sampleBilinear } from './bilinear';
 export { estimateBackgroundLevel, sortedSample, sortedQuantile } from './background-level';
 export type { BackgroundLevel } from './background-level';
-export { segmentEmbryo, combinedSnr, channelSnr, checkSegmentOptions, downsample2 } from './segment';
+export { segmentEmbryo, combinedSnr, channelSnr, checkSegmentOptions, downsample2, binMean, upsampleMask } from './segment';
 export type { SegmentOptions } from './segment';
 export { resolveChannel, describeChannelRef } from './channel-ref';
 export { selectKth, medianInPlace } from './select';

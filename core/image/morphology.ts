@@ -1,7 +1,6 @@
 // Binary morphology with a Euclidean disk, via the exact distance transform (cost independent of the radius).
 import type { Mask } from '../model';
 import { distanceInside, squaredDistanceToFeatures } from './distance';
-import { maxFilter } from './max-filter';
 
 /** Dilation by a disk of radius radiusPx: pixels whose centre lies within radiusPx of a foreground centre. */
 export function dilate(mask: Mask, radiusPx: number): Mask {
@@ -55,25 +54,57 @@ export function close(mask: Mask, radiusPx: number): Mask {
   return erode(dilate(mask, radiusPx), radiusPx);
 }
 
+/**
+ * 1 where a foreground pixel lies within r along x (pass 'x') or along y (pass 'y'), by a forward and a backward
+ * scan remembering the last foreground position; rows are walked in memory order for both passes.
+ */
+function nearAlong(data: Uint8Array, width: number, height: number, r: number, pass: 'x' | 'y'): Uint8Array {
+  const out = new Uint8Array(width * height);
+  if (pass === 'x') {
+    for (let y = 0; y < height; y++) {
+      const o = y * width;
+      let last = -Infinity;
+      for (let x = 0; x < width; x++) { if (data[o + x]) last = x; if (x - last <= r) out[o + x] = 1; }
+      last = Infinity;
+      for (let x = width - 1; x >= 0; x--) { if (data[o + x]) last = x; if (last - x <= r) out[o + x] = 1; }
+    }
+    return out;
+  }
+  const last = new Float64Array(width).fill(-Infinity);
+  for (let y = 0; y < height; y++) {
+    const o = y * width;
+    for (let x = 0; x < width; x++) { if (data[o + x]) last[x] = y; if (y - last[x] <= r) out[o + x] = 1; }
+  }
+  last.fill(Infinity);
+  for (let y = height - 1; y >= 0; y--) {
+    const o = y * width;
+    for (let x = 0; x < width; x++) { if (data[o + x]) last[x] = y; if (last[x] - y <= r) out[o + x] = 1; }
+  }
+  return out;
+}
+
+/** Binary dilation by the (2r+1)² square (separable: along x, then along y); O(N) whatever r. */
+function squareDilateData(data: Uint8Array, width: number, height: number, r: number): Uint8Array {
+  return nearAlong(nearAlong(data, width, height, r, 'x'), width, height, r, 'y');
+}
+
 /** Dilation by a (2r+1)² square (r = round(radiusPx)); cheap for large radii where the shape does not matter. */
 export function squareDilate(mask: Mask, radiusPx: number): Mask {
-  const m = maxFilter({ width: mask.width, height: mask.height, data: Float32Array.from(mask.data) }, radiusPx).data;
-  return { width: mask.width, height: mask.height, data: Uint8Array.from(m) };
+  const r = Math.max(0, Math.round(radiusPx));
+  return { width: mask.width, height: mask.height, data: squareDilateData(mask.data, mask.width, mask.height, r) };
 }
 
 /** Erosion by a (2r+1)² square; pixels beyond the image border count as background. */
 export function squareErode(mask: Mask, radiusPx: number): Mask {
   const { width, height } = mask;
   const r = Math.max(0, Math.round(radiusPx));
-  const inv = new Float32Array(width * height);
+  const inv = new Uint8Array(width * height);
   for (let i = 0; i < inv.length; i++) inv[i] = mask.data[i] ? 0 : 1;
-  const grown = maxFilter({ width, height, data: inv }, r).data;
+  const grown = squareDilateData(inv, width, height, r);
   const out = new Uint8Array(inv.length);
-  for (let y = 0; y < height; y++) {
-    for (let x = 0; x < width; x++) {
-      const nearBorder = x < r || y < r || x >= width - r || y >= height - r;
-      out[y * width + x] = grown[y * width + x] === 0 && !nearBorder ? 1 : 0;
-    }
+  for (let y = r; y < height - r; y++) {
+    const o = y * width;
+    for (let x = r; x < width - r; x++) out[o + x] = grown[o + x] ? 0 : 1;
   }
   return { width, height, data: out };
 }

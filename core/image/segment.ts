@@ -21,16 +21,22 @@ export interface SegmentOptions {
   readonly edgeFraction?: number;
   /** Run the coarse stage on 2×2-averaged images (1 or 2); null = 2 for images over 500 000 pixels. @default null */
   readonly coarseDownsample?: 1 | 2 | null;
+  /** Segment on images binned by this integer factor and upsample the mask; null = 1 up to 500 000 pixels, else
+   * the smallest factor that brings the long side to at most 384 px. @default null */
+  readonly binFactor?: number | null;
 }
 
 /** Check and fill segmentation options; exact messages are pinned by tests. */
 export function checkSegmentOptions(o: SegmentOptions = {}): Required<SegmentOptions> {
-  const out = { coarseSigmaPx: 4, fineSigmaPx: 1.5, localRadiusPx: 5, edgeFraction: 0.5, coarseDownsample: null, ...o };
+  const out = { coarseSigmaPx: 4, fineSigmaPx: 1.5, localRadiusPx: 5, edgeFraction: 0.5, coarseDownsample: null, binFactor: null, ...o };
   for (const key of ['coarseSigmaPx', 'fineSigmaPx', 'localRadiusPx'] as const) {
     if (!(out[key] > 0) || !Number.isFinite(out[key])) throw new Error(`${key} must be a positive number, got ${out[key]}`);
   }
   if (out.coarseDownsample !== null && out.coarseDownsample !== 1 && out.coarseDownsample !== 2) {
     throw new Error(`coarseDownsample must be 1, 2 or null, got ${out.coarseDownsample}`);
+  }
+  if (out.binFactor !== null && !(Number.isInteger(out.binFactor) && out.binFactor >= 1)) {
+    throw new Error(`binFactor must be a positive integer or null, got ${out.binFactor}`);
   }
   if (!(out.edgeFraction > 0 && out.edgeFraction < 1)) {
     throw new Error(`edgeFraction must be between 0 and 1, got ${out.edgeFraction}`);
@@ -114,16 +120,88 @@ function nearLocalLevel(channels: readonly Plane[], o: Required<SegmentOptions>)
   return keep;
 }
 
+/** Long side (px) that automatic binning aims at: large enough for the outline, small enough to be quick. */
+const BINNED_LONG_SIDE_PX = 384;
+
+/** Mean of f×f blocks (x = column, y = row); blocks cut by the right or bottom edge average the pixels they hold. */
+export function binMean(plane: Plane, f: number): Plane {
+  const { width, height, data } = plane;
+  const w = Math.ceil(width / f);
+  const h = Math.ceil(height / f);
+  const sum = new Float64Array(w * h);
+  for (let y = 0; y < height; y++) {
+    const o = y * width;
+    const ob = Math.floor(y / f) * w;
+    for (let x = 0, bx = 0, k = 0; x < width; x++) {
+      sum[ob + bx] += data[o + x];
+      if (++k === f) { k = 0; bx++; }
+    }
+  }
+  const out = new Float32Array(w * h);
+  for (let by = 0; by < h; by++) {
+    const rows = Math.min(f, height - by * f);
+    for (let bx = 0; bx < w; bx++) out[by * w + bx] = sum[by * w + bx] / (rows * Math.min(f, width - bx * f));
+  }
+  return { width: w, height: h, data: out };
+}
+
+/**
+ * Full-size mask from a mask binned by f: bilinear interpolation of the 0/1 values at each full-size pixel centre
+ * (block centre of bin j at f·j + (f − 1)/2), kept where it reaches 0.5, so the edge stays smooth, not blocky.
+ */
+export function upsampleMask(small: Mask, f: number, width: number, height: number): Mask {
+  const { width: sw, height: sh, data: sd } = small;
+  const out = new Uint8Array(width * height);
+  const x0 = new Int32Array(width);
+  const x1 = new Int32Array(width);
+  const fx = new Float64Array(width);
+  for (let x = 0; x < width; x++) {
+    const u = Math.min(sw - 1, Math.max(0, (x - (f - 1) / 2) / f));
+    x0[x] = Math.floor(u);
+    x1[x] = Math.min(sw - 1, x0[x] + 1);
+    fx[x] = u - x0[x];
+  }
+  for (let y = 0; y < height; y++) {
+    const v = Math.min(sh - 1, Math.max(0, (y - (f - 1) / 2) / f));
+    const r0 = Math.floor(v) * sw;
+    const r1 = Math.min(sh - 1, Math.floor(v) + 1) * sw;
+    const fy = v - Math.floor(v);
+    const o = y * width;
+    for (let x = 0; x < width; x++) {
+      const a = x0[x];
+      const b = x1[x];
+      const top = sd[r0 + a] + (sd[r0 + b] - sd[r0 + a]) * fx[x];
+      const bottom = sd[r1 + a] + (sd[r1 + b] - sd[r1 + a]) * fx[x];
+      out[o + x] = top + (bottom - top) * fy >= 0.5 ? 1 : 0;
+    }
+  }
+  return { width, height, data: out };
+}
+
 /**
  * Segment the embryo from all channels of a projected stack (same size): returns the filled largest region.
  * Two stages: a coarse SNR mask (strong smoothing, low threshold) finds where the embryo is; near its edge the
  * outline is then placed where a lightly smoothed channel falls to edgeFraction of its own local maximum, so a very
  * bright end is not pushed outwards. Each channel is judged on its own so a step inside one channel (an expression
- * boundary) does not cut the embryo; the coarse mask's deep interior is kept as is.
+ * boundary) does not cut the embryo; the coarse mask's deep interior is kept as is. Large images are segmented
+ * binned (see SegmentOptions.binFactor) and the mask is upsampled.
  */
 export function segmentEmbryo(channels: readonly Plane[], options: SegmentOptions = {}): Mask {
   const o = checkSegmentOptions(options);
   if (channels.length === 0) throw new Error('segmentEmbryo needs at least one channel');
+  const { width, height } = channels[0];
+  const bin = o.binFactor ?? (width * height > 500_000 ? Math.ceil(Math.max(width, height) / BINNED_LONG_SIDE_PX) : 1);
+  if (bin === 1) return segmentAtScale(channels, o);
+  // Pixel-sized options shrink with the image; the binned image is small, so its coarse stage runs at full scale.
+  const small = segmentAtScale(channels.map((c) => binMean(c, bin)), {
+    ...o, coarseSigmaPx: o.coarseSigmaPx / bin, fineSigmaPx: o.fineSigmaPx / bin, localRadiusPx: o.localRadiusPx / bin,
+    coarseDownsample: 1, binFactor: 1,
+  });
+  return upsampleMask(small, bin, width, height);
+}
+
+/** segmentEmbryo at the channels' own scale (checked options). */
+function segmentAtScale(channels: readonly Plane[], o: Required<SegmentOptions>): Mask {
   const { width, height } = channels[0];
   const factor = o.coarseDownsample ?? (width * height > 500_000 ? 2 : 1);
   const coarse = coarseAtScale(channels, o.coarseSigmaPx, factor);

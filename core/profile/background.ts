@@ -18,7 +18,9 @@ export function outsideBackground(plane: Plane, mask: Mask, marginPx: number): {
 /** 1 where a pixel lies outside the mask grown by a (2·marginPx+1)² square (a square margin is enough here). */
 export function farFromMask(mask: Mask, marginPx: number): Uint8Array {
   const grown = squareDilate(mask, marginPx).data;
-  return Uint8Array.from(grown, (v) => (v ? 0 : 1));
+  const far = new Uint8Array(grown.length);
+  for (let i = 0; i < far.length; i++) far[i] = grown[i] ? 0 : 1;
+  return far;
 }
 
 /** outsideBackground with the far-from-mask pixels already known (so several channels share one distance map). */

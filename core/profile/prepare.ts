@@ -41,11 +41,15 @@ function pixelSet(projected: ProjectedStack, keep: Uint8Array, backgrounds: read
   const idx = new Int32Array(n);
   const xs = new Float32Array(n);
   const ys = new Float32Array(n);
-  for (let i = 0, k = 0; i < keep.length; i++) {
-    if (!keep[i]) continue;
-    idx[k] = i;
-    xs[k] = i % width;
-    ys[k++] = (i - (i % width)) / width;
+  const height = keep.length / width;
+  for (let y = 0, k = 0; y < height; y++) {
+    const o = y * width;
+    for (let x = 0; x < width; x++) {
+      if (!keep[o + x]) continue;
+      idx[k] = o + x;
+      xs[k] = x;
+      ys[k++] = y;
+    }
   }
   const values = projected.channels.map((ch, c) => {
     const v = new Float32Array(n);

@@ -1,0 +1,61 @@
+import { describe, expect, it } from 'vitest';
+import { createRng } from '../stats';
+import type { Plane } from '../model';
+import { binMean, checkSegmentOptions, segmentEmbryo, upsampleMask } from './segment';
+import { fastGaussianSmooth } from './box-blur';
+
+describe('binMean', () => {
+  it('averages f×f blocks, partial blocks at the edge over the pixels they hold', () => {
+    // Source: hand computation on [[1,2,3,4,5],[6,7,8,9,10]] with f = 2: (1+2+6+7)/4, (3+4+8+9)/4, (5+10)/2.
+    const p = { width: 5, height: 2, data: Float32Array.from([1, 2, 3, 4, 5, 6, 7, 8, 9, 10]) };
+    const b = binMean(p, 2);
+    expect([b.width, b.height]).toEqual([3, 1]);
+    expect(Array.from(b.data)).toEqual([4, 6, 7.5]);
+  });
+});
+
+describe('upsampleMask', () => {
+  it('puts a step half-way between the block centres', () => {
+    // Source: hand computation; block centres at f·j + (f − 1)/2, bilinear value kept where ≥ 0.5.
+    const small = { width: 2, height: 1, data: Uint8Array.from([1, 0]) };
+    expect(Array.from(upsampleMask(small, 2, 4, 2).data)).toEqual([1, 1, 0, 0, 1, 1, 0, 0]);
+    expect(Array.from(upsampleMask(small, 3, 6, 1).data)).toEqual([1, 1, 1, 0, 0, 0]);
+  });
+});
+
+describe('segmentEmbryo on large images (binned)', () => {
+  // Demo data: an ellipse (centre 600,250; semi-axes 450 × 170 px) on a 1200×500 frame (600 000 px, so binned by 4),
+  // background 100 ± 5, a gradient from 3000 above background anteriorly to 12 posteriorly.
+  const W = 1200;
+  const H = 500;
+  const inside = (x: number, y: number): boolean => ((x - 600) / 450) ** 2 + ((y - 250) / 170) ** 2 <= 1;
+  function channel(): Plane {
+    const clean = new Float32Array(W * H);
+    for (let y = 0; y < H; y++) for (let x = 0; x < W; x++) clean[y * W + x] = inside(x, y) ? 12 + 3000 * Math.exp(-(x - 150) / 90) : 0;
+    const blurred = fastGaussianSmooth({ width: W, height: H, data: clean }, 1.5).data;
+    const rng = createRng(11);
+    return { width: W, height: H, data: Float32Array.from(blurred, (v) => 100 + v + 5 * rng.normal()) };
+  }
+
+  it('matches the ellipse and places both poles within 3 px', () => {
+    const mask = segmentEmbryo([channel()]).data;
+    let inter = 0;
+    let union = 0;
+    for (let i = 0; i < mask.length; i++) {
+      const t = inside(i % W, Math.floor(i / W));
+      if (t && mask[i]) inter++;
+      if (t || mask[i]) union++;
+    }
+    expect(inter / union).toBeGreaterThan(0.98);
+    // Poles at x = 150 and 1050 on row 250.
+    let left = W;
+    let right = -1;
+    for (let x = 0; x < W; x++) if (mask[250 * W + x]) { left = Math.min(left, x); right = Math.max(right, x); }
+    expect(Math.abs(left - 150)).toBeLessThanOrEqual(3);
+    expect(Math.abs(right - 1050)).toBeLessThanOrEqual(3);
+  });
+
+  it('checks binFactor with an exact message', () => {
+    expect(() => checkSegmentOptions({ binFactor: 1.5 })).toThrow('binFactor must be a positive integer or null, got 1.5');
+  });
+});
