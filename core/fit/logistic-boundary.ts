@@ -7,6 +7,7 @@ import { fitNonlinear } from './levenberg-marquardt';
 import type { NonlinearFit } from './levenberg-marquardt';
 import { halfMaxCrossing } from './crossing';
 import { finitePoints } from './profile-input';
+import { logistic, logisticStart } from './logistic-start';
 
 /** A fitted logistic boundary (positions and width in x/EL; levels in profile units). */
 export interface LogisticBoundary {
@@ -28,41 +29,57 @@ export interface LogisticOptions {
   readonly weights?: Float64Array;
 }
 
-/** 1/(1 + e^z) without overflow for large |z|. */
-function logistic(z: number): number {
-  if (z >= 0) {
-    const e = Math.exp(-z);
-    return e / (1 + e);
-  }
-  return 1 / (1 + Math.exp(z));
-}
-
 const model = ([lower, upper, x0, w]: number[]) => (x: number) => lower + (upper - lower) * logistic((x - x0) / w);
 const jacobian = ([lower, upper, x0, w]: number[]) => (x: number) => {
   const s = logistic((x - x0) / w), slope = (upper - lower) * s * (1 - s);
   return [1 - s, s, slope / w, (slope * (x - x0)) / (w * w)];
 };
 
+/** Runs fitNonlinear from `start` (already signed); FitErrors are re-labelled with this module's name. */
+function fitFrom(x: Float64Array, y: Float64Array, start: number[], weights?: Float64Array): NonlinearFit {
+  try {
+    return fitNonlinear(x, y, model, start, { jacobian, restarts: false, ...(weights ? { weights } : {}) });
+  } catch (e) {
+    if (e instanceof FitError) throw new FitError(e.code, e.message.replace(/^fitNonlinear: /, 'fitLogisticBoundary: '));
+    throw e;
+  }
+}
+
 /** Best of a few width starts (1, 3, 10 % of the x span), each signed by the profile's overall direction. */
-function bestFit(x: Float64Array, y: Float64Array, x0: number, falling: boolean, weights?: Float64Array): NonlinearFit {
+function widthStartsFit(x: Float64Array, y: Float64Array, x0: number, falling: boolean, weights?: Float64Array): NonlinearFit {
   const low = quantile(y, 0.05), high = quantile(y, 0.95);
   const span = x[x.length - 1] - x[0];
   let best: NonlinearFit | null = null;
   let lastError: unknown = null;
   for (const fraction of [0.01, 0.03, 0.1]) {
-    const w = fraction * span;
     // Falling (high anterior) with w > 0 means the x → −∞ level, "upper", is the high one.
-    const start = falling ? [low, high, x0, w] : [high, low, x0, w];
+    const w = fraction * span;
     try {
-      const fit = fitNonlinear(x, y, model, start, { jacobian, restarts: false, ...(weights ? { weights } : {}) });
+      const fit = fitFrom(x, y, falling ? [low, high, x0, w] : [high, low, x0, w], weights);
       if (!best || fit.rss < best.rss) best = fit;
     } catch (e) {
       lastError = e;
     }
   }
   if (best) return best;
-  if (lastError instanceof FitError) throw new FitError(lastError.code, lastError.message.replace(/^fitNonlinear: /, 'fitLogisticBoundary: '));
   throw lastError;
+}
+
+/**
+ * One LM run from the variable-projection start (the common case: it lies in the right basin, so one run is
+ * enough); only when that fails, the slower search over fixed width starts.
+ */
+function bestFit(x: Float64Array, y: Float64Array, x0: number, falling: boolean, weights?: Float64Array): NonlinearFit {
+  const span = x[x.length - 1] - x[0];
+  const start = logisticStart(x, y, weights ?? new Float64Array(x.length).fill(1), x0, span / (x.length - 1), span);
+  if (start) {
+    try {
+      return fitFrom(x, y, start.params.slice(), weights);
+    } catch (e) {
+      if (!(e instanceof FitError)) throw e;
+    }
+  }
+  return widthStartsFit(x, y, x0, falling, weights);
 }
 
 /**
