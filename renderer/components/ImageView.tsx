@@ -48,10 +48,16 @@ export function ImageView(props: ImageViewProps) {
   const [cursor, setCursor] = useState<ScreenPt | null>(null);
   const first = planes[0];
 
-  useEffect(() => {
-    if (first === undefined || size.width === 0) return;
-    dispatch({ type: 'setView', view: fitToWindow(first.width, first.height, size.width, size.height) });
-  }, [props.fitRequest, first?.width, first?.height, size.width > 0]);
+  // Fit on request (new file, F key) and keep fitting while the panel resizes, until the user zooms or pans.
+  const lastFit = useRef<EditorState['view'] | null>(null);
+  const fitNow = () => {
+    if (first === undefined || size.width === 0 || size.height === 0) return;
+    const view = fitToWindow(first.width, first.height, size.width, size.height);
+    lastFit.current = view;
+    dispatch({ type: 'setView', view });
+  };
+  useEffect(fitNow, [props.fitRequest, first?.width, first?.height]);
+  useEffect(() => { if (lastFit.current === null || lastFit.current === stateRef.current.view) fitNow(); }, [size.width, size.height]);
 
   useEffect(() => {
     const el = box.current;

@@ -135,7 +135,8 @@ describe('editor window', { timeout: 150_000 }, () => {
     const { page } = h;
     h.freshHandlers();
     await page.reload();
-    await page.locator('[data-testid=landmark][data-name=L1]').waitFor({ timeout: 60_000 });
+    await page.locator('[data-testid=landmark][data-name=L1]').waitFor({ timeout: 60_000 })
+      .catch(async (e: unknown) => { await shot(page, '05-FAILED-reload'); throw e; });
     await expect.poll(() => text(page, 'lambda-um'), { timeout: 20_000 }).toBe(lambdaAfterEdits);
     const a = await centre(page, '[data-testid=handle-anterior] circle');
     const p = await centre(page, '[data-testid=handle-posterior] circle');
