@@ -58,7 +58,7 @@ describe('editor window', { timeout: 150_000 }, () => {
     await page.getByTestId('handle-anterior').waitFor({ timeout: 90_000 });
     await expect.poll(() => text(page, 'lambda-um'), { timeout: 20_000 }).toMatch(/µm/);
     expect(await page.getByTestId('folder-entry').count()).toBeGreaterThan(1);
-    expect(await page.getByTestId('band').count()).toBeGreaterThan(0);
+    await expect.poll(() => page.getByTestId('band').count()).toBeGreaterThan(0);
     await shot(page, '01-demo-opened');
   });
 
