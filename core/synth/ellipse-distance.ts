@@ -1,28 +1,44 @@
-// Exact distance from a point to an ellipse (foot of the perpendicular by Newton's method on the angle).
+// Exact distance from a point to an ellipse. The nearest point (x0, y0) of the ellipse to (x, y) in the first quadrant
+// is (a²x/(t + a²), b²y/(t + b²)) for the one root t > −b² of F(t) = (ax/(t + a²))² + (by/(t + b²))² − 1; F is
+// convex and decreasing there, so Newton's method started left of the root climbs to it without overshooting.
 
 /**
  * Signed distance (same units as the inputs) from (x, y) to the ellipse with semi-axes a ≥ b centred at the origin,
- * positive inside. Newton on f(θ) = (a² − b²) sinθ cosθ − x·a·sinθ + y·b·cosθ in the first quadrant.
+ * positive inside.
  */
 export function ellipseDepth(x: number, y: number, a: number, b: number): number {
   const px = Math.abs(x);
   const py = Math.abs(y);
   const inside = (px / a) ** 2 + (py / b) ** 2 <= 1;
-  // Inside, f has several roots (the farther feet are stationary too), so start from three angles and keep the nearest.
-  const d = Math.min(...[Math.atan2(a * py, b * px), 0, Math.PI / 2].map((t0) => footDistance(px, py, a, b, t0)));
+  const d = distanceFirstQuadrant(px, py, a, b);
   return inside ? d : -d;
 }
 
-/** Distance from (px, py) to the ellipse point reached by Newton's method from angle t0. */
-function footDistance(px: number, py: number, a: number, b: number, t0: number): number {
-  let t = t0;
-  for (let k = 0; k < 8; k++) {
-    const c = Math.cos(t);
-    const s = Math.sin(t);
-    const f = (a * a - b * b) * s * c - px * a * s + py * b * c;
-    const df = (a * a - b * b) * (c * c - s * s) - px * a * c - py * b * s;
-    if (df === 0) break;
-    t = Math.min(Math.PI / 2, Math.max(0, t - f / df));
+/** Unsigned distance for px, py ≥ 0. */
+function distanceFirstQuadrant(px: number, py: number, a: number, b: number): number {
+  const a2 = a * a;
+  const b2 = b * b;
+  if (py === 0) {
+    // On the major axis: inside the focal-curvature range the nearest points lie off the axis.
+    if (a * px < a2 - b2) {
+      const x0 = (a2 * px) / (a2 - b2);
+      return Math.hypot(px - x0, b * Math.sqrt(Math.max(0, 1 - (x0 / a) ** 2)));
+    }
+    return Math.abs(px - a);
   }
-  return Math.hypot(px - a * Math.cos(t), py - b * Math.sin(t));
+  if (px === 0) return Math.abs(py - b); // on the minor axis the nearest point is its end (a ≥ b)
+  const ax = a * px;
+  const by = b * py;
+  let t = -b2 + by; // F(t) ≥ 0 here: the second term alone is 1
+  for (let k = 0; k < 100; k++) {
+    const u = ax / (t + a2);
+    const v = by / (t + b2);
+    const f = u * u + v * v - 1;
+    if (f <= 0) break;
+    const df = -2 * ((u * u) / (t + a2) + (v * v) / (t + b2));
+    const next = t - f / df;
+    if (!(next > t)) break;
+    t = next;
+  }
+  return Math.hypot(px - (a2 * px) / (t + a2), py - (b2 * py) / (t + b2));
 }

@@ -1,10 +1,12 @@
 // Seeded synthetic embryo stack (demo data): an ellipsoidal embryo with a nuclear layer, an exponential gradient
 // channel and a boundary channel, imaged as a small Z stack with defocus blur, camera offset, shot and read noise.
 import type { ImagePoint, Plane } from '../model';
-import { fastGaussianSmooth } from '../image';
+import { boxWidthsForSigma, fastGaussianSmooth } from '../image';
 import { createRng } from '../stats';
 import type { Rng } from '../stats';
 import { ellipseDepth } from './ellipse-distance';
+import { pixelTable } from './camera-table';
+import type { PixelTable } from './camera-table';
 import { checkSynthParams, DEFAULT_SYNTH_PARAMS } from './params';
 import type { SyntheticEmbryoParams } from './params';
 
@@ -73,6 +75,26 @@ function makeTruth(p: SyntheticEmbryoParams, centre: ImagePoint, angleDeg: numbe
   };
 }
 
+/** Pixel rectangle [x0, x1) × [y0, y1) of an image. */
+interface Box { readonly x0: number; readonly y0: number; readonly x1: number; readonly y1: number }
+
+/**
+ * Pixels that can receive signal in a section whose ellipse has semi-axes aUm × bUm: the rotated ellipse grown by
+ * the 2 px partial-cover rim, plus marginPx, clipped to the image.
+ */
+function sectionBox(p: SyntheticEmbryoParams, t: SyntheticTruth, aUm: number, bUm: number, marginPx: number): Box {
+  const th = (t.angleDeg * Math.PI) / 180;
+  const a = aUm / p.pixelSizeUm + 2;
+  const b = bUm / p.pixelSizeUm + 2;
+  const hx = Math.hypot(a * Math.cos(th), b * Math.sin(th)) + marginPx;
+  const hy = Math.hypot(a * Math.sin(th), b * Math.cos(th)) + marginPx;
+  const clip = (v: number, n: number): number => Math.min(n, Math.max(0, v));
+  return {
+    x0: clip(Math.floor(t.centre.x - hx), p.widthPx), x1: clip(Math.ceil(t.centre.x + hx) + 1, p.widthPx),
+    y0: clip(Math.floor(t.centre.y - hy), p.heightPx), y1: clip(Math.ceil(t.centre.y + hy) + 1, p.heightPx),
+  };
+}
+
 /** Per-pixel terms that do not change with z: position in the embryo frame (µm) and the channels' AP patterns. */
 interface Frame {
   readonly X: Float32Array;
@@ -83,8 +105,8 @@ interface Frame {
   readonly boundary: Float32Array;
 }
 
-/** Compute the z-independent terms once per embryo. */
-function embryoFrame(p: SyntheticEmbryoParams, t: SyntheticTruth): Frame {
+/** Compute the z-independent terms once per embryo, inside `box` only (no section reaches beyond it). */
+function embryoFrame(p: SyntheticEmbryoParams, t: SyntheticTruth, box: Box): Frame {
   const { widthPx: w, heightPx: h, pixelSizeUm: px } = p;
   const th = (t.angleDeg * Math.PI) / 180;
   const ux = Math.cos(th);
@@ -95,52 +117,83 @@ function embryoFrame(p: SyntheticEmbryoParams, t: SyntheticTruth): Frame {
   const period = 7; // µm between nuclei of the texture
   const widthUm = p.boundaryWidthUm > 0 ? p.boundaryWidthUm : 1e-6;
   const xb = p.lambdaUm * Math.log(ampl / p.boundaryThreshold);
-  for (let i = 0; i < n; i++) {
-    const dx = ((i % w) - t.centre.x) * px;
-    const dy = (Math.floor(i / w) - t.centre.y) * px;
-    const X = dx * ux + dy * uy; // µm along A→P from the centre
-    const Y = dx * uy - dy * ux; // µm to the left of A→P
-    const xAp = X + p.eggLengthUm / 2;
-    const tex = 1 - p.nucleiContrast * 0.5 * (1 - Math.cos((2 * Math.PI * X) / period) * Math.cos((2 * Math.PI * Y) / period));
-    f.X[i] = X;
-    f.Y[i] = Y;
-    f.gradient[i] = (p.gradientBaseline + ampl * Math.exp(-xAp / p.lambdaUm)) * tex;
-    f.boundary[i] = (p.boundaryAmplitude * tex) / (1 + Math.exp((xAp - xb) / widthUm));
+  for (let y = box.y0; y < box.y1; y++) {
+    const dy = (y - t.centre.y) * px;
+    for (let x = box.x0; x < box.x1; x++) {
+      const i = y * w + x;
+      const dx = (x - t.centre.x) * px;
+      const X = dx * ux + dy * uy; // µm along A→P from the centre
+      const Y = dx * uy - dy * ux; // µm to the left of A→P
+      const xAp = X + p.eggLengthUm / 2;
+      const tex = 1 - p.nucleiContrast * 0.5 * (1 - Math.cos((2 * Math.PI * X) / period) * Math.cos((2 * Math.PI * Y) / period));
+      f.X[i] = X;
+      f.Y[i] = Y;
+      f.gradient[i] = (p.gradientBaseline + ampl * Math.exp(-xAp / p.lambdaUm)) * tex;
+      f.boundary[i] = (p.boundaryAmplitude * tex) / (1 + Math.exp((xAp - xb) / widthUm));
+    }
   }
   return f;
 }
 
-/** Noise-free signal (photons) of both channels in the Z section at height zUm from the mid-section. */
-function sectionSignal(p: SyntheticEmbryoParams, f: Frame, zUm: number): [Plane, Plane] {
+/** Noise-free signal (photons) of both channels in the Z section at height zUm from the mid-section, and the box
+ * outside which both are zero. */
+function sectionSignal(p: SyntheticEmbryoParams, t: SyntheticTruth, f: Frame, zUm: number): { planes: [Plane, Plane]; box: Box } {
   const { widthPx: w, heightPx: h, pixelSizeUm: px } = p;
   const s = Math.sqrt(Math.max(0, 1 - (zUm / (p.eggWidthUm / 2)) ** 2));
   const ia = 1 / ((p.eggLengthUm / 2) * s);
   const ib = 1 / ((p.eggWidthUm / 2) * s);
   const g = new Float32Array(w * h);
   const e = new Float32Array(w * h);
-  for (let i = 0; i < g.length; i++) {
-    const qx = f.X[i] * ia;
-    const qy = f.Y[i] * ib;
-    const r = Math.sqrt(qx * qx + qy * qy);
-    if (r > 1 + 2 * px * ia) continue;
-    // Deep inside, only "deeper than the layer" matters, so the exact distance is computed near the surface only.
-    const depthUm = r < 1 - 40 * ib ? 40 : ellipseDepth(f.X[i], f.Y[i], 1 / ia, 1 / ib);
-    const cover = Math.min(1, Math.max(0, 0.5 + depthUm / px));
-    if (cover === 0) continue;
-    const layer = p.interiorLevel + (1 - p.interiorLevel) / (1 + Math.exp((depthUm - p.nuclearLayerUm) / 2));
-    g[i] = cover * (p.autofluorescence + f.gradient[i] * layer);
-    e[i] = cover * (p.autofluorescence + f.boundary[i] * layer);
+  const box = sectionBox(p, t, (p.eggLengthUm / 2) * s, (p.eggWidthUm / 2) * s, 1);
+  for (let y = box.y0; y < box.y1; y++) {
+    for (let i = y * w + box.x0; i < y * w + box.x1; i++) {
+      const qx = f.X[i] * ia;
+      const qy = f.Y[i] * ib;
+      const r = Math.sqrt(qx * qx + qy * qy);
+      if (r > 1 + 2 * px * ia) continue;
+      // Deep inside, only "deeper than the layer" matters, so the exact distance is computed near the surface only.
+      const depthUm = r < 1 - 40 * ib ? 40 : ellipseDepth(f.X[i], f.Y[i], 1 / ia, 1 / ib);
+      const cover = Math.min(1, Math.max(0, 0.5 + depthUm / px));
+      if (cover === 0) continue;
+      const layer = p.interiorLevel + (1 - p.interiorLevel) / (1 + Math.exp((depthUm - p.nuclearLayerUm) / 2));
+      g[i] = cover * (p.autofluorescence + f.gradient[i] * layer);
+      e[i] = cover * (p.autofluorescence + f.boundary[i] * layer);
+    }
   }
-  return [{ width: w, height: h, data: g }, { width: w, height: h, data: e }];
+  return { planes: [{ width: w, height: h, data: g }, { width: w, height: h, data: e }], box };
 }
 
-/** Blur for defocus, then camera: offset + Poisson(photons + background) + Gaussian read noise, rounded to uint16. */
-function camera(p: SyntheticEmbryoParams, plane: Plane, blurPx: number, rng: Rng): Uint16Array {
-  const blurred = fastGaussianSmooth(plane, blurPx).data;
+/**
+ * Defocus blur of a plane that is zero outside `box`: only the box grown by the blur's reach is smoothed (the rest
+ * stays zero), which equals blurring the whole frame.
+ */
+function blurInBox(plane: Plane, blurPx: number, box: Box): Float32Array {
+  const reach = boxWidthsForSigma(blurPx).reduce((s, wd) => s + (wd - 1) / 2, 0) + 1;
+  const x0 = Math.max(0, box.x0 - reach);
+  const y0 = Math.max(0, box.y0 - reach);
+  const cw = Math.min(plane.width, box.x1 + reach) - x0;
+  const ch = Math.min(plane.height, box.y1 + reach) - y0;
+  const out = new Float32Array(plane.width * plane.height);
+  if (cw <= 0 || ch <= 0) return out;
+  const crop = new Float32Array(cw * ch);
+  for (let y = 0; y < ch; y++) crop.set(plane.data.subarray((y0 + y) * plane.width + x0, (y0 + y) * plane.width + x0 + cw), y * cw);
+  const blurred = fastGaussianSmooth({ width: cw, height: ch, data: crop }, blurPx).data;
+  for (let y = 0; y < ch; y++) out.set(blurred.subarray(y * cw, (y + 1) * cw), (y0 + y) * plane.width + x0);
+  return out;
+}
+
+/**
+ * Blur for defocus, then camera: offset + Poisson(photons + background) + Gaussian read noise, rounded to uint16.
+ * Poisson(photons + background) = Poisson(background) + Poisson(photons) for independent draws, so the
+ * scene-independent part comes from the exact table `base` (one uniform) and only lit pixels draw a Poisson.
+ */
+function camera(plane: Plane, box: Box, blurPx: number, rng: Rng, base: PixelTable): Uint16Array {
+  const blurred = blurInBox(plane, blurPx, box);
   const out = new Uint16Array(blurred.length);
   for (let i = 0; i < out.length; i++) {
-    const v = p.cameraOffset + rng.poisson(Math.max(0, blurred[i]) + p.backgroundPhotons) + p.readNoiseSd * rng.normal();
-    out[i] = Math.min(65535, Math.max(0, Math.round(v)));
+    const b = blurred[i];
+    const v = base.sample(rng.uniform()) + (b > 0 ? rng.poisson(b) : 0);
+    out[i] = v < 0 ? 0 : v > 65535 ? 65535 : v;
   }
   return out;
 }
@@ -156,13 +209,14 @@ export function makeSyntheticEmbryo(params: Partial<SyntheticEmbryoParams>, seed
   const { centre, angleDeg } = placement(p, rng);
   const truth = makeTruth(p, centre, angleDeg);
   const planes: Uint16Array[] = new Array(2 * p.sizeZ);
-  const frame = embryoFrame(p, truth);
+  const frame = embryoFrame(p, truth, sectionBox(p, truth, p.eggLengthUm / 2, p.eggWidthUm / 2, 1));
+  const base = pixelTable(p.cameraOffset, p.backgroundPhotons, p.readNoiseSd);
   for (let z = 0; z < p.sizeZ; z++) {
     const zUm = (z - (p.sizeZ - 1) / 2) * p.zStepUm;
     const blurPx = p.blurPx + p.defocusBlurPxPerUm * Math.abs(zUm);
-    const [g, e] = sectionSignal(p, frame, zUm);
-    planes[z] = camera(p, g, blurPx, rng);
-    planes[p.sizeZ + z] = camera(p, e, blurPx, rng);
+    const { planes: [g, e], box } = sectionSignal(p, truth, frame, zUm);
+    planes[z] = camera(g, box, blurPx, rng, base);
+    planes[p.sizeZ + z] = camera(e, box, blurPx, rng, base);
   }
   return {
     stack: { sizeX: p.widthPx, sizeY: p.heightPx, sizeZ: p.sizeZ, sizeC: 2, planes },
