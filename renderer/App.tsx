@@ -165,6 +165,7 @@ export function App() {
       <div className="body">
         <aside className="left">
           <FolderList folder={session.folder} entries={session.entries} current={state.current} onSelect={select}
+            batchOutcome={(n) => { const r = batch.summary?.results.find((x) => x.file === n); return r && { status: r.status, message: r.error }; }}
             edited={(n) => { const f = state.doc.files[n]; return f !== undefined && (f.axis !== null || f.landmarks.length > 0 || f.fitRangeEl !== null); }} />
           <SettingsPanel settings={settings} channelNames={names} dispatch={dispatch} />
         </aside>

@@ -1,10 +1,11 @@
 // The open folder's files with their status; click or PageUp/PageDown to move between them.
 import type { FolderEntry } from '../../core/contract';
 
-/** Status shown for an entry: 'edited' when the project holds hand edits for it (unless it failed). */
-export function entryStatus(e: FolderEntry, hasEdits: boolean): FolderEntry['status'] {
-  if (e.status === 'error') return 'error';
-  return hasEdits ? 'edited' : e.status;
+/** Status shown for an entry: error (listing or last batch) first, then 'edited' when the project holds hand edits, then 'analysed' after a batch. */
+export function entryStatus(e: FolderEntry, hasEdits: boolean, batch?: 'ok' | 'error'): FolderEntry['status'] {
+  if (e.status === 'error' || batch === 'error') return 'error';
+  if (hasEdits) return 'edited';
+  return batch === 'ok' ? 'analysed' : e.status;
 }
 
 /** Props of the folder list. */
@@ -13,19 +14,22 @@ export interface FolderListProps {
   readonly entries: readonly FolderEntry[];
   readonly current: string | null;
   readonly edited: (name: string) => boolean;
+  /** Outcome of each file in the last batch, with its message. */
+  readonly batchOutcome: (name: string) => { status: 'ok' | 'error'; message: string | null } | undefined;
   readonly onSelect: (name: string) => void;
 }
 
 /** The file list. */
-export function FolderList({ folder, entries, current, edited, onSelect }: FolderListProps) {
+export function FolderList({ folder, entries, current, edited, batchOutcome, onSelect }: FolderListProps) {
   return (
     <section className="panel folder-list" data-testid="folder-list">
       <h3 title={folder ?? ''}>Files <span className="muted">{entries.length} · PgUp/PgDn</span></h3>
       <ul>
         {entries.map((e) => {
-          const status = entryStatus(e, edited(e.name));
+          const outcome = batchOutcome(e.name);
+          const status = entryStatus(e, edited(e.name), outcome?.status);
           return (
-            <li key={e.path} className={e.name === current ? 'current' : ''} onClick={() => onSelect(e.name)} title={e.message ?? e.path} data-testid="folder-entry">
+            <li key={e.path} className={e.name === current ? 'current' : ''} onClick={() => onSelect(e.name)} title={e.message ?? outcome?.message ?? e.path} data-testid="folder-entry">
               <span className={`status status-${status}`}>{status}</span><span className="fname">{e.name}</span>
             </li>
           );
