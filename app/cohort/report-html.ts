@@ -1,8 +1,10 @@
-// The cohort report: ONE self-contained HTML file (inline CSS and SVG; no scripts, no network).
-import type { CohortAnalysis, ConditionStat } from '../../core/cohort';
-import { escapeXml, type NamedFigure } from '../../core/figures';
+// The cohort report: ONE self-contained HTML file (inline CSS and SVG; no scripts, no network). Order: summary,
+// figures, dosage test (tables, reading, caveats), per-condition tables, failed files, run settings (mostly folded).
+import { quantityLabel, slopeRatio, type CohortAnalysis, type ConditionStat } from '../../core/cohort';
+import { escapeXml, plainNumber, sigFig, valueWithCi, type NamedFigure } from '../../core/figures';
 import { flattenRecord } from './flatten-record';
-import { dosageReading, prose } from './reading';
+import { keySettings } from './key-settings';
+import { dosageReading, prose, r2Text, slopeVerdict, withCi } from './reading';
 
 /** Everything the report shows. */
 export interface ReportInput {
@@ -13,70 +15,138 @@ export interface ReportInput {
   readonly warnings: readonly string[];
   readonly sheetSource: string;
   readonly generatedAt: string;
+  /** Embryos analysed without error (before matching to the sample sheet). */
+  readonly okCount?: number;
 }
 
 const esc = escapeXml;
 const CSS = `body{font-family:system-ui,sans-serif;margin:2rem auto;max-width:1100px;padding:0 1rem;color:#222;line-height:1.45}
 h1{font-size:1.6rem}h2{font-size:1.25rem;margin-top:2.2rem;border-bottom:1px solid #ddd;padding-bottom:.2rem}h3{font-size:1.05rem}
 table{border-collapse:collapse;margin:.6rem 0 1rem;font-size:.88rem}th,td{border:1px solid #ddd;padding:.25rem .5rem;text-align:right}
-th{background:#f4f4f4}td{white-space:nowrap}td.t,th.t{text-align:left;white-space:normal}figure{margin:1rem 0}figcaption{font-size:.85rem;color:#555}
-figure svg{width:100%;max-width:860px;height:auto}pre{background:#f7f7f7;padding:.6rem;overflow:auto;font-size:.8rem}.warn{color:#8a4b00}.note{color:#555;font-size:.9rem}`;
+th{background:#f4f4f4}td{white-space:nowrap;font-variant-numeric:tabular-nums}td.t,th.t{text-align:left;white-space:normal}figure{margin:1rem 0}figcaption{font-size:.85rem;color:#555}
+figure svg{width:100%;max-width:860px;height:auto}pre{background:#f7f7f7;padding:.6rem;overflow:auto;font-size:.8rem}.warn{color:#8a4b00}.note{color:#555;font-size:.9rem}
+.summary{background:#f7f9fb;border:1px solid #dde3ea;border-radius:6px;padding:.2rem 1rem .6rem}.summary h2{margin-top:.8rem}
+details{margin:.6rem 0}summary{cursor:pointer;font-weight:600}td.ok{color:#1b6e3a;text-align:left}td.off{color:#8a4b00;text-align:left}
+td.t:first-child{white-space:nowrap}`;
 
-function table(header: readonly string[], rows: readonly (readonly string[])[], textCols = 1): string {
+/** A table cell: text, or text with a CSS class (e.g. colour for a verdict). */
+type Cell = string | { readonly text: string; readonly cls: string };
+
+function table(header: readonly string[], rows: readonly (readonly Cell[])[], textCols = 1): string {
   const th = header.map((h, i) => `<th${i < textCols ? ' class="t"' : ''}>${esc(h)}</th>`).join('');
-  const tr = rows.map((r) => `<tr>${r.map((c, i) => `<td${i < textCols ? ' class="t"' : ''}>${esc(c)}</td>`).join('')}</tr>`).join('');
+  const tr = rows.map((r) => `<tr>${r.map((c, i) => {
+    const text = typeof c === 'string' ? c : c.text;
+    const classes = [i < textCols ? 't' : '', typeof c === 'string' ? '' : c.cls].filter((x) => x !== '').join(' ');
+    return `<td${classes ? ` class="${classes}"` : ''}>${esc(text)}</td>`;
+  }).join('')}</tr>`).join('');
   return `<table><thead><tr>${th}</tr></thead><tbody>${tr}</tbody></table>`;
+}
+
+const unitText = (u: string): string => (u === 'um' ? 'µm' : u);
+const embryoCount = (a: CohortAnalysis, condition: string): number => new Set(a.observations.filter((o) => o.condition === condition).map((o) => o.file)).size;
+
+function summarySection(r: ReportInput): string {
+  const a = r.analysis;
+  const pct = Math.round(a.options.level * 100);
+  const assigned = new Set(a.observations.map((o) => o.file)).size;
+  const ok = r.okCount ?? assigned;
+  const files = `<p><strong>${ok}</strong> file${ok === 1 ? '' : 's'} analysed without error, <strong>${r.failures.length}</strong> failed${r.failures.length ? ' (see <a href="#failed">Failed files</a>)' : ''}; `
+    + `${assigned} embryo${assigned === 1 ? '' : 's'} in ${a.conditions.length} condition${a.conditions.length === 1 ? '' : 's'} (from ${esc(r.sheetSource)}); `
+    + `reference: ${a.reference === null ? 'none' : `<strong>${esc(a.reference)}</strong>`}.</p>`;
+  const conds = table(['condition', 'dosage', 'f', 'ln f', 'n', `λ, x/EL (mean [${pct}% CI])`], a.conditions.map((c) => {
+    const lam = a.stats.find((s) => s.condition === c.name && s.quantity === 'lambda' && s.unit === 'EL');
+    return [c.name + (c.name === a.reference ? ' (reference)' : ''), plainNumber(c.dosage), plainNumber(c.factor), c.factor !== null ? sigFig(Math.log(c.factor), 3) : 'n/a',
+      String(embryoCount(a, c.name)), lam ? withCi(lam.mean, lam.ciLow, lam.ciHigh) : 'n/a'];
+  }));
+  let dosage: string;
+  if (a.reference === null) dosage = '<p class="note">Dosage test skipped: no reference condition.</p>';
+  else if (a.dosageFits.length === 0) dosage = '<p class="note">Dosage test: no boundary or landmark positions with at least two dosages.</p>';
+  else {
+    const lam = a.referenceLambda;
+    const predicted = lam ? withCi(lam.lambdaEl, lam.ciLowEl, lam.ciHighEl) : 'n/a';
+    const rows = a.dosageFits.map((f): Cell[] => {
+      const v = slopeVerdict(f, lam, a.options.level);
+      // Green when the ratio interval includes 1, amber otherwise.
+      return [quantityLabel(f.quantity), withCi(f.slopeEl, f.ciLow, f.ciHigh), predicted, v.ratio, { text: v.verdict, cls: v.verdict === 'consistent with the threshold model' ? 'ok' : 'off' }];
+    });
+    dosage = `<h3>Dosage test: position vs ln f</h3>${table(['quantity', `slope λ_eff, x/EL per ln f [${pct}% CI]`, 'predicted λ_ref [CI]', 'ratio λ_eff/λ_ref [CI]', 'reading'], rows, 1)}`;
+    dosage += `<p class="note">λ_ref: mean λ of the reference condition. The threshold model predicts slope = λ_ref; the ratio interval counts both uncertainties (details and caveats under <a href="#dosage">Dosage test</a>).</p>`;
+  }
+  const warnings = r.warnings.length ? `<h3 class="warn">Warnings (${r.warnings.length})</h3><ul>${r.warnings.map((w) => `<li class="warn">${esc(w)}</li>`).join('')}</ul>` : '';
+  return `<section class="summary" id="summary"><h2>Summary</h2>${files}${conds}${dosage}${warnings}</section>`;
 }
 
 function settingsSection(a: CohortAnalysis, sheetSource: string, runRecord: unknown): string {
   const o = a.options;
-  const rows = [
+  const cohortRows = [
     ['conditions from', sheetSource], ['reference condition', a.reference ?? 'none (no dosage test)'],
     ['λ used for predictions', 'mean λ (x/EL) of the reference condition; its CI is scaled by ln f'],
     ['profile normalisation', o.normalisation], ['posterior gradient λ_P (x/EL)', o.lambdaPosteriorEl === null ? 'not given' : String(o.lambdaPosteriorEl)],
     ['confidence level', String(o.level)], ['profile grid step (x/EL)', String(o.gridStepEl)], ['slope half-window h (x/EL)', String(o.slopeHalfWidthEl)],
   ];
+  const key = keySettings(runRecord);
+  const keyTable = key.length > 0 ? table(['setting', 'value'], [...key, ['profile normalisation (cohort)', o.normalisation]], 2)
+    : '<p class="note">No batch settings were recorded.</p>';
   const record = runRecord === null || runRecord === undefined ? '<p class="note">No run record was given.</p>'
     : `<h3>Batch analysis (run record)</h3>${table(['setting', 'value'], flattenRecord(runRecord), 2)}`
       + `<details><summary>Full run record (JSON)</summary><pre>${esc(JSON.stringify(runRecord, null, 2) ?? '')}</pre></details>`;
-  return `<h2>Run settings</h2><h3>Cohort step</h3>${table(['setting', 'value'], rows, 2)}${record}`;
+  const files = '<h3>Output files</h3><p class="note">conditions.csv, shifts.csv, dosage_fit.csv and positional_error.csv hold every number at full precision. '
+    + 'Their <code>quantity</code> column uses keys: <code>lambda</code>, <code>amplitude</code>, <code>egg_length</code>, '
+    + '<code>boundary:&lt;channel&gt;:&lt;method&gt;</code> and <code>landmark:&lt;name&gt;</code>; units are in a <code>unit</code> column (EL, um, a.u.) or in column names (<code>_el</code>).</p>';
+  return `<h2 id="settings">Run settings</h2>${keyTable}<details><summary>All settings (cohort step, batch run record, output files)</summary>`
+    + `<h3>Cohort step</h3>${table(['setting', 'value'], cohortRows, 2)}${record}${files}</details>`;
+}
+
+function statRow(s: ConditionStat): string[] {
+  const v = valueWithCi(s.mean, s.ciLow, s.ciHigh, { style: 'words' });
+  return [quantityLabel(s.quantity), unitText(s.unit), String(s.n), v.value, sigFig(s.sd, 2), sigFig(s.sem, 2), v.ci];
 }
 
 function conditionTables(a: CohortAnalysis): string {
   const pct = Math.round(a.options.level * 100);
-  const overview = table(['condition', 'dosage', 'f', 'ln f', 'embryos'], a.conditions.map((c) => [
-    c.name + (c.name === a.reference ? ' (reference)' : ''), prose(c.dosage), prose(c.factor), prose(c.factor !== null ? Math.log(c.factor) : null),
-    String(new Set(a.observations.filter((o) => o.condition === c.name).map((o) => o.file)).size),
-  ]));
   const per = a.conditions.map((c) => {
-    const rows = a.stats.filter((s) => s.condition === c.name).map((s: ConditionStat) => [s.quantity, s.unit, String(s.n), prose(s.mean), prose(s.sd), prose(s.sem), `${prose(s.ciLow)} to ${prose(s.ciHigh)}`]);
-    return `<h3>${esc(c.name)}</h3>${rows.length ? table(['quantity', 'unit', 'n', 'mean', 'SD', 'SEM', `${pct}% CI`], rows, 2) : '<p class="note">No embryos.</p>'}`;
+    const rows = a.stats.filter((s) => s.condition === c.name).map(statRow);
+    const head = `${esc(c.name)}${c.name === a.reference ? ' (reference)' : ''} <span class="note">dosage ${esc(plainNumber(c.dosage))}, n = ${embryoCount(a, c.name)}</span>`;
+    return `<h3>${head}</h3>${rows.length ? table(['quantity', 'unit', 'n', 'mean', 'SD', 'SEM', `${pct}% CI`], rows, 2) : '<p class="note">No embryos.</p>'}`;
   });
-  return `<h2>Conditions</h2>${overview}<p class="note">For boundaries and landmarks the SD across embryos is the positional error.</p>${per.join('')}`;
+  return `<h2 id="conditions">Conditions</h2><p class="note">For boundaries and landmarks the SD across embryos is the positional error. Means and CIs are shown to the precision of the CI; SD and SEM to 2 significant digits.</p>${per.join('')}`;
 }
 
 function dosageSection(a: CohortAnalysis): string {
-  if (a.reference === null) return '<h2>Dosage test</h2><p class="note">Skipped: no reference condition.</p>';
-  const fits = table(['quantity', 'slope (x/EL per ln f)', 'CI', 'intercept', 'R²', 'n', 'predicted slope λ_ref'],
-    a.dosageFits.map((f) => [f.quantity, prose(f.slopeEl), `${prose(f.ciLow)} to ${prose(f.ciHigh)}`, prose(f.interceptEl), prose(f.r2), String(f.n), prose(f.predictedSlopeEl)]));
-  const shifts = table(['quantity', 'condition', 'ln f', 'observed Δx', 'CI', 'predicted Δx', 'CI', 'two gradients', 'ratio', 'CI'],
-    a.shifts.map((s) => [s.quantity, s.condition, prose(s.lnF), prose(s.observedShiftEl, true), `${prose(s.ciLow, true)} to ${prose(s.ciHigh, true)}`,
-      prose(s.predictedShiftEl, true), `${prose(s.predictedCiLow, true)} to ${prose(s.predictedCiHigh, true)}`, prose(s.predictedTwoGradientEl, true), prose(s.ratio), `${prose(s.ratioCiLow)} to ${prose(s.ratioCiHigh)}`]), 2);
+  if (a.reference === null) return '<h2 id="dosage">Dosage test</h2><p class="note">Skipped: no reference condition.</p>';
+  const pct = Math.round(a.options.level * 100);
+  const fits = table(['quantity', 'slope λ_eff (x/EL per ln f)', `${pct}% CI`, 'intercept (x/EL)', 'R²', 'n', 'predicted slope λ_ref', 'λ_eff/λ_ref [CI]'],
+    a.dosageFits.map((f) => {
+      const s = valueWithCi(f.slopeEl, f.ciLow, f.ciHigh, { style: 'words' });
+      const r = slopeRatio(f, a.referenceLambda, a.options.level);
+      const lam = a.referenceLambda;
+      return [quantityLabel(f.quantity), s.value, s.ci, sigFig(f.interceptEl, 4), r2Text(f.r2), String(f.n),
+        lam ? withCi(lam.lambdaEl, lam.ciLowEl, lam.ciHighEl) : prose(f.predictedSlopeEl), withCi(r.ratio, r.ratioCiLow, r.ratioCiHigh)];
+    }));
+  // The two-gradient column only when a posterior gradient was given.
+  const two = a.options.lambdaPosteriorEl !== null;
+  const shifts = table(['quantity', 'condition', 'ln f', 'observed Δx', `${pct}% CI`, 'predicted Δx', 'CI', ...(two ? ['two gradients'] : []), 'ratio', 'CI'],
+    a.shifts.map((s) => {
+      const o = valueWithCi(s.observedShiftEl, s.ciLow, s.ciHigh, { signed: true, style: 'words' });
+      const p = s.predictedShiftEl === null ? { value: 'n/a', ci: 'n/a' } : valueWithCi(s.predictedShiftEl, s.predictedCiLow, s.predictedCiHigh, { signed: true, style: 'words' });
+      const q = s.ratio === null ? { value: 'n/a', ci: 'n/a' } : valueWithCi(s.ratio, s.ratioCiLow, s.ratioCiHigh, { style: 'words' });
+      return [quantityLabel(s.quantity), s.condition, s.lnF === null ? 'n/a' : sigFig(s.lnF, 3), o.value, o.ci, p.value, p.ci,
+        ...(two ? [s.predictedTwoGradientEl === null ? 'n/a' : sigFig(s.predictedTwoGradientEl, 3, true)] : []), q.value, q.ci];
+    }), 2);
   const reading = dosageReading(a);
-  const findings = reading.findings.map((f) => `<h3>${esc(f.quantity)}</h3>${f.sentences.map((s) => `<p>${esc(s)}</p>`).join('')}`).join('');
-  return `<h2>Dosage test</h2><p>A boundary set by a fixed threshold on an exponential gradient moves by Δx = λ·ln f when the dosage changes by a factor f (f &gt; 1: posterior). Shifts are in x/EL relative to the reference.</p>`
-    + `<h3>Position vs ln f (all embryos)</h3>${fits}<h3>Shift per condition</h3>${shifts}<h2>Reading</h2>${findings}<h3>Caveats</h3><ul>${reading.caveats.map((c) => `<li>${esc(c)}</li>`).join('')}</ul>`;
+  const findings = reading.findings.map((f) => `<h4>${esc(f.label)}</h4>${f.sentences.map((s) => `<p>${esc(s)}</p>`).join('')}`).join('');
+  return `<h2 id="dosage">Dosage test</h2><p>A boundary set by a fixed threshold on an exponential gradient moves by Δx = λ·ln f when the dosage changes by a factor f (f &gt; 1: posterior). Shifts are in x/EL relative to the reference.</p>`
+    + `<h3>Position vs ln f (all embryos)</h3>${fits}<h3>Shift per condition</h3>${shifts}<h3>Reading</h3>${findings}<h3>Caveats</h3><ul>${reading.caveats.map((c) => `<li>${esc(c)}</li>`).join('')}</ul>`;
 }
 
 /** Build the report HTML. */
 export function cohortReportHtml(r: ReportInput): string {
   const figs = r.figures.map((f) => `<figure id="fig-${esc(f.name)}">${f.svg}<figcaption>${esc(f.title)} (also saved as ${esc(f.name)}.svg and .png)</figcaption></figure>`).join('');
-  const warnings = r.warnings.length ? `<h2>Warnings</h2><ul>${r.warnings.map((w) => `<li class="warn">${esc(w)}</li>`).join('')}</ul>` : '';
-  const failed = `<h2>Failed files</h2>${r.failures.length ? table(['file', 'reason'], r.failures.map((f) => [f.file, f.error]), 2) : '<p class="note">None.</p>'}`;
+  const failed = `<h2 id="failed">Failed files</h2>${r.failures.length ? table(['file', 'reason'], r.failures.map((f) => [f.file, f.error]), 2) : '<p class="note">None.</p>'}`;
   return `<!DOCTYPE html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">`
     + `<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:">`
     + `<title>Eggline cohort report</title><style>${CSS}</style></head><body><h1>Eggline cohort report</h1>`
     + `<p class="note">Generated ${esc(r.generatedAt)}. Positions are x/EL (0 = anterior pole, 1 = posterior pole).</p>`
-    + settingsSection(r.analysis, r.sheetSource, r.runRecord) + conditionTables(r.analysis) + `<h2>Figures</h2>${figs}`
-    + dosageSection(r.analysis) + warnings + failed + '</body></html>\n';
+    + summarySection(r) + `<h2 id="figures">Figures</h2>${figs}` + dosageSection(r.analysis) + conditionTables(r.analysis)
+    + failed + settingsSection(r.analysis, r.sheetSource, r.runRecord) + '</body></html>\n';
 }

@@ -73,7 +73,7 @@ export async function runCohortStep(opts: CohortStepOptions): Promise<{ written:
   warnings.push(...analysis.warnings);
   const figures = cohortFigures(analysis);
   const failures = allFailures(opts);
-  const html = cohortReportHtml({ analysis, figures, failures, runRecord: opts.runRecord, warnings, sheetSource: sheet.source, generatedAt: new Date().toISOString() });
+  const html = cohortReportHtml({ analysis, figures, failures, runRecord: opts.runRecord, warnings, sheetSource: sheet.source, generatedAt: new Date().toISOString(), okCount: opts.results.filter((r) => r.status === 'ok').length });
   const files: [string, string][] = [
     ['conditions.csv', conditionsCsv(analysis)], ['shifts.csv', shiftsCsv(analysis)], ['dosage_fit.csv', dosageFitCsv(analysis)],
     ['positional_error.csv', positionalErrorCsv(analysis)], ...figures.map((f): [string, string] => [`${f.name}.svg`, f.svg]), ['report.html', html],

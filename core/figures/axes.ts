@@ -46,11 +46,19 @@ export function yAxisSvg(y: ScaleLinear<number, number>, area: PlotArea, title: 
   return el('g', { class: 'axis y-axis' }, ticks.join('') + axis + label);
 }
 
-/** Figure title (and an optional smaller subtitle line) above the plot area; needs a top margin of about 48 px. */
+/** Figure title and optional smaller subtitle lines ('\n' separates them) above the plot area; needs a top margin of
+ *  about 48 px plus subtitleExtraPx(subtitle). */
 export function titleSvg(area: PlotArea, title: string, subtitle = ''): string {
-  const t = title === '' ? '' : textSvg(area.left, area.top - (subtitle ? 26 : 14), title, { size: 14, weight: '600', cls: 'figure-title' });
-  const s = subtitle === '' ? '' : textSvg(area.left, area.top - 10, subtitle, { size: 11, fill: '#555555', cls: 'figure-subtitle' });
+  const lines = subtitle === '' ? [] : subtitle.split('\n');
+  const last = area.top - 10;
+  const s = lines.map((line, i) => textSvg(area.left, last - (lines.length - 1 - i) * 14, line, { size: 11, fill: '#555555', cls: 'figure-subtitle' })).join('');
+  const t = title === '' ? '' : textSvg(area.left, lines.length > 0 ? last - (lines.length - 1) * 14 - 16 : area.top - 14, title, { size: 14, weight: '600', cls: 'figure-title' });
   return t + s;
+}
+
+/** Extra top margin (px) that a subtitle of several lines needs beyond the first line. */
+export function subtitleExtraPx(subtitle: string): number {
+  return subtitle === '' ? 0 : (subtitle.split('\n').length - 1) * 14;
 }
 
 /** A clip path limiting marks to the plot area: the <defs> element and a wrapper for clipped content. */

@@ -1,7 +1,8 @@
 // All figures of a cohort analysis, built from its results; the report and the desktop app call this same function.
-import type { CohortAnalysis, Normalisation } from '../cohort';
+import { quantityLabel, type CohortAnalysis, type Normalisation } from '../cohort';
 import { cohortProfilesFigure } from './cohort-profiles-figure';
 import { lambdaByConditionFigure, type StripGroup } from './lambda-figure';
+import { sigFig, valueWithCi } from './number-format';
 import { positionalErrorFigure } from './positional-error-figure';
 import { shiftVsLnFFigure, type FigureLine, type ShiftGroup } from './shift-figure';
 
@@ -49,10 +50,12 @@ function predictedLines(a: CohortAnalysis, quantity: string): FigureLine[] {
   if (!fit || !ref) return [];
   const lines: FigureLine[] = [];
   if (fit.predictedSlopeEl !== null) {
-    lines.push({ label: `predicted λ·ln f, λ_ref = ${fit.predictedSlopeEl.toFixed(3)}`, slope: fit.predictedSlopeEl, intercept: ref.mean });
+    const lam = a.referenceLambda;
+    const text = lam ? (({ value, ci }) => `${value} ${ci}`)(valueWithCi(lam.lambdaEl, lam.ciLowEl, lam.ciHighEl)) : sigFig(fit.predictedSlopeEl, 4);
+    lines.push({ label: `predicted: slope λ_ref = ${text}`, slope: fit.predictedSlopeEl, intercept: ref.mean });
   }
   if (fit.predictedTwoGradientSlopeEl !== null) {
-    lines.push({ label: `two gradients: slope ${fit.predictedTwoGradientSlopeEl.toFixed(3)}`, slope: fit.predictedTwoGradientSlopeEl, intercept: ref.mean });
+    lines.push({ label: `two gradients: slope ${sigFig(fit.predictedTwoGradientSlopeEl, 4)}`, slope: fit.predictedTwoGradientSlopeEl, intercept: ref.mean });
   }
   return lines;
 }
@@ -66,11 +69,12 @@ function conditionMeans(a: CohortAnalysis, quantity: string): ShiftGroup[] {
 }
 
 function shiftFigure(a: CohortAnalysis, quantity: string, size: Size): NamedFigure {
-  const title = `${quantity}: position vs ln f`;
+  const title = `${quantityLabel(quantity)}: position vs ln f`;
   const fit = a.dosageFits.find((f) => f.quantity === quantity);
   const points = a.observations.filter((o) => o.quantity === quantity && o.unit === 'EL' && o.lnF !== null).map((o) => ({ lnF: o.lnF as number, value: o.value }));
-  const fitted = fit ? { label: `fitted: slope ${fit.slopeEl.toFixed(3)} [${fit.ciLow.toFixed(3)}, ${fit.ciHigh.toFixed(3)}]`, slope: fit.slopeEl, intercept: fit.interceptEl } : null;
-  const svg = shiftVsLnFFigure({ quantity, points, groups: conditionMeans(a, quantity), fitted, predicted: predictedLines(a, quantity) }, { ...size, title });
+  const slope = fit ? valueWithCi(fit.slopeEl, fit.ciLow, fit.ciHigh) : null;
+  const fitted = fit && slope ? { label: `fitted: slope λ_eff = ${slope.value} ${slope.ci}`, slope: fit.slopeEl, intercept: fit.interceptEl } : null;
+  const svg = shiftVsLnFFigure({ quantity: quantityLabel(quantity), points, groups: conditionMeans(a, quantity), fitted, predicted: predictedLines(a, quantity) }, { ...size, title });
   return { name: `shift-${figureSlug(quantity)}`, title, svg };
 }
 

@@ -82,6 +82,30 @@ describe('cohort figures', () => {
     expect(count(figs[5].svg, /class="sigma-line"/g)).toBe(3);
     expect(figs[5].svg).toContain('positional error σx (fraction of EL)');
   });
+  it('shift figures: readable titles, legends with enough digits that the interval ends differ', () => {
+    const figs = cohortFigures(analysis);
+    expect(figs[2].title).toBe('boundary in ‘target’ (logistic): position vs ln f');
+    const m = /fitted: slope λ_eff = (\d\.\d+) \[(\d\.\d+), (\d\.\d+)\]/.exec(figs[2].svg);
+    expect(m).not.toBeNull();
+    expect(m![2]).not.toBe(m![3]);
+    expect(m![1].length).toBeGreaterThanOrEqual(5); // at least 3 significant digits, e.g. 0.197
+    expect(figs[2].svg).toMatch(/predicted: slope λ_ref = \d\.\d+ \[\d\.\d+, \d\.\d+\]/);
+  });
+  it('σx figure: wild values are clipped at the top, marked ▲ and counted in the subtitle', () => {
+    // Source: demo data (hand-made σx series).
+    const xEl = Array.from({ length: 11 }, (_, i) => i / 10);
+    const calm = xEl.map(() => 0.01);
+    const wild = xEl.map((x) => (x > 0.85 ? 5 : 0.012));
+    const svg = positionalErrorFigure([{ label: 'calm', xEl, sigma: calm }, { label: 'wild', xEl, sigma: wild }]);
+    checkSvg(svg);
+    expect(count(svg, /class="clipped-mark"/g)).toBe(2); // x = 0.9 and 1.0; the 80th percentile (0.012) sets the top
+    // 1.5 × 0.012 = 0.018, rounded up to the nice axis top 0.020 (d3 nice).
+    expect(svg).toContain('▲ at the top: 2 values above 0.020 (clipped; see positional_error.csv)');
+    expect(svg).not.toMatch(/y="-\d{3,}/); // no far-off coordinates
+    const plain = positionalErrorFigure([{ label: 'calm', xEl, sigma: calm }]);
+    expect(count(plain, /class="clipped-mark"/g)).toBe(0);
+    expect(plain).not.toContain('clipped');
+  });
   it('empty inputs still give valid SVG', () => {
     for (const svg of [cohortProfilesFigure([]), lambdaByConditionFigure([]), positionalErrorFigure([]), shiftVsLnFFigure({ quantity: 'q', points: [] })]) checkSvg(svg);
     checkSvg(lambdaByConditionFigure([{ label: 'one', values: [0.2], mean: 0.2, ciLow: NaN, ciHigh: NaN }]));

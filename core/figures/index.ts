@@ -7,5 +7,6 @@ export { profileFigure, type ProfileFigureInput, type ProfileFigureOptions } fro
 export { cohortProfilesFigure, type ProfileSeries } from './cohort-profiles-figure';
 export { lambdaByConditionFigure, type StripGroup } from './lambda-figure';
 export { shiftVsLnFFigure, type ShiftFigureInput, type FigureLine } from './shift-figure';
-export { positionalErrorFigure, type SigmaSeries } from './positional-error-figure';
+export { positionalErrorFigure, autoSigmaYMax, type SigmaSeries } from './positional-error-figure';
+export { ciDecimals, fixed, sigFig, valueWithCi, plainNumber } from './number-format';
 export { cohortFigures, figureSlug, type NamedFigure } from './cohort-figures';

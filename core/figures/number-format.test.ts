@@ -25,7 +25,7 @@ describe('number formatting for people', () => {
   });
   it('fixed, sigFig and plainNumber', () => {
     expect([fixed(-0.00001, 3), fixed(0.5, 2, true), fixed(NaN, 2), fixed(null, 1)]).toEqual(['0.000', '+0.50', 'n/a', 'n/a']);
-    expect([sigFig(0.2), sigFig(1870), sigFig(0.000274, 2), sigFig(0), sigFig(-0.5, 3, true)]).toEqual(['0.200', '1870', '0.00027', '0.00', '-0.500']);
+    expect([sigFig(0.2), sigFig(1870), sigFig(0.000274, 2), sigFig(0), sigFig(-0.5, 3, true)]).toEqual(['0.200', '1870', '0.00027', '0', '-0.500']);
     expect([plainNumber(0.5), plainNumber(4), plainNumber(-0.693147), plainNumber(undefined)]).toEqual(['0.5', '4', '-0.6931', 'n/a']);
   });
 });

@@ -17,10 +17,11 @@ export function fixed(v: number | null | undefined, decimals: number, signed = f
   return signed && Number(s) > 0 ? `+${s}` : s;
 }
 
-/** `sig` significant digits in fixed-point notation (no exponent), trailing zeros kept: 0.2 → "0.200". */
+/** `sig` significant digits in fixed-point notation (no exponent), trailing zeros kept: 0.2 → "0.200"; 0 → "0". */
 export function sigFig(v: number | null | undefined, sig = 3, signed = false): string {
   if (v === null || v === undefined || !Number.isFinite(v)) return 'n/a';
-  const d = v === 0 ? sig - 1 : sig - 1 - Math.floor(Math.log10(Math.abs(v)));
+  if (v === 0) return '0';
+  const d = sig - 1 - Math.floor(Math.log10(Math.abs(v)));
   return fixed(v, Math.min(12, Math.max(0, d)), signed);
 }
 

@@ -6,6 +6,7 @@ import type { Boundary, ExponentialFit, LandmarkPosition, Profile } from '../mod
 import { clipSvg, plotArea, titleSvg, xAxisSvg, yAxisSvg, type PlotArea } from './axes';
 import { figureSize, finiteExtent, stableId, type FigureOptions } from './common';
 import { legendSvg, type LegendItem } from './legend';
+import { ciDecimals, fixed } from './number-format';
 import { INK, seriesColour } from './palette';
 import { el, lineSvg, px, svgDocument, textSvg } from './svg';
 
@@ -118,7 +119,7 @@ export function profileFigure(input: ProfileFigureInput, options: ProfileFigureO
   const clip = clipSvg(a, stableId('clip-profile', `${title}${widthPx}x${heightPx}${p.channel}`));
   const xTitle = options.xAxis === 'um' ? 'distance from the anterior pole (µm)' : 'position along the AP axis, x/EL (0 = anterior pole)';
   const legend: LegendItem[] = [{ label: 'bin mean', colour: DATA_COLOUR, shape: 'dot' }, { label: '± SD of pixels', colour: DATA_COLOUR, shape: 'band' }];
-  if (fit) legend.push({ label: `fit: λ = ${fit.lambdaEl.toFixed(3)} EL (${fit.lambdaUm.toFixed(1)} µm)`, colour: FIT_COLOUR, shape: 'line' });
+  if (fit) legend.push({ label: `fit: λ = ${withSe(fit.lambdaEl, fit.lambdaSeEl)} EL (${withSe(fit.lambdaUm, fit.lambdaSeUm)} µm)`, colour: FIT_COLOUR, shape: 'line' });
   let body = clip.def + titleSvg(a, title, subtitle) + fm.shade + xAxisSvg(x, a, withResiduals ? '' : xTitle)
     + yAxisSvg(c.y, a, options.yLabel ?? 'intensity (a.u., background subtracted)') + clip.wrap(dataMarks(p, c) + fm.curves)
     + boundaryMarks(input.boundaries ?? [], c) + landmarkMarks(input.landmarks ?? [], c) + legendSvg(legend, a.left + a.width - 6, a.top + 6);
@@ -127,4 +128,10 @@ export function profileFigure(input: ProfileFigureInput, options: ProfileFigureO
     body += residualPanel(fit, x, toX, { left: a.left, top, width: a.width, height: heightPx - top - 52 }, xTitle);
   }
   return svgDocument(widthPx, heightPx, title, body);
+}
+
+/** "v ± se" at the precision of the SE (2 significant digits of it, ≥ 3 of the value); "v" alone without an SE. */
+function withSe(v: number, se: number): string {
+  const d = ciDecimals(v, se);
+  return Number.isFinite(se) && se > 0 ? `${fixed(v, d)} ± ${fixed(se, d)}` : fixed(v, d);
 }

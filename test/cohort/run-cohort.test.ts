@@ -32,7 +32,7 @@ describe('runCohortStep', () => {
     const shifts = readFileSync(join(out, 'shifts.csv'), 'utf8').trim().split('\r\n');
     expect(shifts.length).toBe(1 + 3 * 3);
     const fits = readFileSync(join(out, 'dosage_fit.csv'), 'utf8');
-    expect(fits).toContain('boundary target logistic,0.');
+    expect(fits).toContain('boundary:target:logistic,0.');
     for (const n of names.filter((x) => x.endsWith('.svg'))) expect(XMLValidator.validate(readFileSync(join(out, n), 'utf8'))).toBe(true);
     const html = readFileSync(join(out, 'report.html'), 'utf8');
     expect(html).not.toMatch(/<script|<link|<img|src="|url\(http|@import/i);
@@ -43,6 +43,28 @@ describe('runCohortStep', () => {
     expect(html).toContain('Caveats');
     expect(html).toContain('&quot;fitRangeEl&quot;');
     expect(html).toContain('settings.fitRangeEl</td><td class="t">0.1, 0.6');
+    // Order a reader needs: summary, figures, dosage test, conditions, failed files, run settings last.
+    const at = (id: string): number => html.indexOf(`id="${id}"`);
+    const order = ['summary', 'figures', 'dosage', 'conditions', 'failed', 'settings'].map(at);
+    expect(order.every((p) => p > 0)).toBe(true);
+    expect([...order].sort((p, q) => p - q)).toEqual(order);
+    // Key settings stay visible; everything else is folded.
+    const settings = html.slice(at('settings'));
+    expect(settings.indexOf('fit range</td><td class="t">0.1 to 0.6 x/EL')).toBeLessThan(settings.indexOf('<details>'));
+    expect(settings.indexOf('<details>')).toBeLessThan(settings.indexOf('profile normalisation</td>'));
+    // The summary names the dosage-test headline with readable labels (no "boundary target logistic" run-together).
+    const summary = html.slice(at('summary'), at('figures'));
+    expect(summary).toContain('<strong>24</strong> files analysed without error, <strong>2</strong> failed');
+    expect(summary).toContain('boundary in ‘target’ (logistic)');
+    expect(summary).toMatch(/ratio λ_eff\/λ_ref \[CI\]/);
+    // No interval printed with equal ends ("0.2 to 0.2", "[0.200, 0.200]"); the demo's amplitude is exactly A·f in every
+    // embryo of a condition, so its interval has zero width and is left out of this check.
+    const text = html.replace(/<tr><td class="t">amplitude A<\/td>.*?<\/tr>/g, '');
+    expect(text.length).toBeLessThan(html.length);
+    expect([...text.matchAll(/(-?\+?\d+(?:\.\d+)?) to (-?\+?\d+(?:\.\d+)?)</g)].filter((m) => m[1] === m[2]).map((m) => text.slice(m.index - 80, m.index + 30))).toEqual([]);
+    for (const m of text.matchAll(/\[(-?\+?\d+(?:\.\d+)?), (-?\+?\d+(?:\.\d+)?)\]/g)) expect(m[1]).not.toBe(m[2]);
+    // CSV keys stay machine-friendly and full precision.
+    expect(readFileSync(join(out, 'conditions.csv'), 'utf8')).toMatch(/\r\nreference,1,boundary:target:logistic,EL,6,0\.\d{8,}/);
   });
   it('without a sample sheet all embryos form one condition and the dosage test is skipped', async () => {
     const out = join(dir, 'nosheet');
