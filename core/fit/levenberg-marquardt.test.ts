@@ -141,3 +141,20 @@ describe('fitNonlinear', () => {
     expect(analytic.se[1] / numeric.se[1]).toBeCloseTo(1, 7);
   });
 });
+
+describe('fitNonlinear fallback option', () => {
+  // Source: demo data — the same slowly converging problem as above.
+  const x = Float64Array.from({ length: 10 }, (_, i) => i);
+  const y = x.map((v) => 5 * Math.exp(-0.3 * v) + 0.01 * Math.sin(v));
+  it('throws not-converged at once when the single run fails and fallback is false', () => {
+    const e = errorOf(() => fitNonlinear(x, y, decay, [1, 3], { maxIterations: 2, restarts: false, fallback: false }));
+    expect(e.code).toBe('not-converged');
+    expect(e.message).toBe('fitNonlinear: no convergence within 2 iterations');
+  });
+  it('does not change a single run that converges', () => {
+    const a = fitNonlinear(x, y, decay, [4, 0.25], { restarts: false, fallback: false });
+    const b = fitNonlinear(x, y, decay, [4, 0.25], { restarts: false });
+    expect(a.params).toEqual(b.params);
+    expect(a.rss).toBe(b.rss);
+  });
+});

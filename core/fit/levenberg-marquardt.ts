@@ -114,8 +114,8 @@ export function fitNonlinear(
   if (!Number.isFinite(initialRss)) {
     throw new FitError('nan', 'fitNonlinear: the model gives NaN or Infinity at the starting parameters');
   }
-  const run = (checked.restarts ? null : singleRun(problem, initial.slice(), checked.maxIterations))
-    ?? bestRun(problem, initial.slice(), initialRss, checked.maxIterations);
+  const single = checked.restarts ? null : singleRun(problem, initial.slice(), checked.maxIterations);
+  const run = single ?? (checked.restarts || checked.fallback ? bestRun(problem, initial.slice(), initialRss, checked.maxIterations) : null);
   if (!run) {
     throw new FitError('not-converged', `fitNonlinear: no convergence within ${checked.maxIterations} iterations`);
   }

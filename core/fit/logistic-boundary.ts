@@ -35,10 +35,13 @@ const jacobian = ([lower, upper, x0, w]: number[]) => (x: number) => {
   return [1 - s, s, slope / w, (slope * (x - x0)) / (w * w)];
 };
 
-/** Runs fitNonlinear from `start` (already signed); FitErrors are re-labelled with this module's name. */
-function fitFrom(x: Float64Array, y: Float64Array, start: number[], weights?: Float64Array): NonlinearFit {
+/**
+ * Runs fitNonlinear from `start` (already signed) with one LM run; `fallback` as in NonlinearOptions. FitErrors
+ * are re-labelled with this module's name.
+ */
+function fitFrom(x: Float64Array, y: Float64Array, start: number[], weights: Float64Array | undefined, fallback: boolean): NonlinearFit {
   try {
-    return fitNonlinear(x, y, model, start, { jacobian, restarts: false, ...(weights ? { weights } : {}) });
+    return fitNonlinear(x, y, model, start, { jacobian, restarts: false, fallback, ...(weights ? { weights } : {}) });
   } catch (e) {
     if (e instanceof FitError) throw new FitError(e.code, e.message.replace(/^fitNonlinear: /, 'fitLogisticBoundary: '));
     throw e;
@@ -55,7 +58,7 @@ function widthStartsFit(x: Float64Array, y: Float64Array, x0: number, falling: b
     // Falling (high anterior) with w > 0 means the x → −∞ level, "upper", is the high one.
     const w = fraction * span;
     try {
-      const fit = fitFrom(x, y, falling ? [low, high, x0, w] : [high, low, x0, w], weights);
+      const fit = fitFrom(x, y, falling ? [low, high, x0, w] : [high, low, x0, w], weights, true);
       if (!best || fit.rss < best.rss) best = fit;
     } catch (e) {
       lastError = e;
@@ -67,16 +70,18 @@ function widthStartsFit(x: Float64Array, y: Float64Array, x0: number, falling: b
 
 /**
  * One LM run from the variable-projection start (the common case: it lies in the right basin, so one run is
- * enough); only when that fails, the slower search over fixed width starts.
+ * enough); only when that fails, the slower search over fixed width starts. `sharpLike` (a two-level step
+ * explains ≥ 90 % of the variance) with a failed run from the narrowest start width means the width shrinks
+ * towards 0 without a minimum: the error is rethrown at once, as the slow search would end the same way.
  */
-function bestFit(x: Float64Array, y: Float64Array, x0: number, falling: boolean, weights?: Float64Array): NonlinearFit {
+function bestFit(x: Float64Array, y: Float64Array, x0: number, falling: boolean, weights: Float64Array | undefined, sharpLike: boolean): NonlinearFit {
   const span = x[x.length - 1] - x[0];
   const start = logisticStart(x, y, weights ?? new Float64Array(x.length).fill(1), x0, span / (x.length - 1), span);
   if (start) {
     try {
-      return fitFrom(x, y, start.params.slice(), weights);
+      return fitFrom(x, y, start.params.slice(), weights, false);
     } catch (e) {
-      if (!(e instanceof FitError)) throw e;
+      if (!(e instanceof FitError) || (sharpLike && start.narrowest)) throw e;
     }
   }
   return widthStartsFit(x, y, x0, falling, weights);
@@ -102,7 +107,7 @@ export function fitLogisticBoundary(xEl: ArrayLike<number>, y: ArrayLike<number>
   const step = twoLevelStep(points.xEl, points.y, crossing.positionEl);
   let fit: NonlinearFit;
   try {
-    fit = bestFit(points.xEl, points.y, crossing.positionEl, crossing.direction === 'falling', weights);
+    fit = bestFit(points.xEl, points.y, crossing.positionEl, crossing.direction === 'falling', weights, step.r2 >= 0.9);
   } catch (e) {
     if (step.r2 >= 0.9) return { ...step, note: SHARP_NOTE };
     throw e;

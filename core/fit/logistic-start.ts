@@ -1,12 +1,16 @@
 // Starting values for the logistic step y = L + (U − L)·σ((x − x0)/w), σ(z) = 1/(1 + e^z), by variable
 // projection: x0 is held at the half-maximum crossing, and for each trial width on a log grid the levels L and U
 // follow from a linear least-squares solve; the width with the smallest residual wins. One cheap pass (a few
-// thousand exponentials) gives a start inside the right basin, so a single LM run suffices.
+// thousand exponentials) gives a start inside the basin of the step at the crossing, so a single LM run
+// suffices. (x0 is deliberately not searched: over the whole profile the least residual can belong to a broad
+// decay from an edge artefact whose LM run never converges.)
 
 /** A starting point [lower, upper, x0, w] (x in x/EL, w > 0) and its weighted sum of squares. */
 export interface LogisticStart {
   readonly params: [number, number, number, number];
   readonly rss: number;
+  /** True when the narrowest trial width (a quarter bin) fits best: the step is at least that sharp. */
+  readonly narrowest: boolean;
 }
 
 /** σ(z) = 1/(1 + e^z) without overflow for large |z|. */
@@ -34,7 +38,7 @@ function levelsAt(x: Float64Array, y: Float64Array, weight: Float64Array, x0: nu
   const lower = (svv * suy - suv * svy) / det, upper = (suu * svy - suv * suy) / det;
   // Residual sum of squares of a least-squares solution: Σw·y² − (L·Σw·u·y + U·Σw·v·y).
   const rss = syy - lower * suy - upper * svy;
-  return Number.isFinite(rss) ? { params: [lower, upper, x0, w], rss } : null;
+  return Number.isFinite(rss) ? { params: [lower, upper, x0, w], rss, narrowest: false } : null;
 }
 
 /**
@@ -49,7 +53,7 @@ export function logisticStart(
   let best: LogisticStart | null = null;
   for (let s = 0; s < steps; s++) {
     const trial = levelsAt(x, y, weight, crossingEl, smallest * ratio ** (s / (steps - 1)));
-    if (trial && (!best || trial.rss < best.rss)) best = trial;
+    if (trial && (!best || trial.rss < best.rss)) best = { ...trial, narrowest: s === 0 };
   }
   return best;
 }

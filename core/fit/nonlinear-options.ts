@@ -16,6 +16,11 @@ export interface NonlinearOptions {
    * for callers that already have a good start. @default true
    */
   readonly restarts?: boolean;
+  /**
+   * With restarts false: whether a failed single run falls back to the thorough search (true) or throws
+   * FitError('not-converged') at once (false; for callers with their own fallback). @default true
+   */
+  readonly fallback?: boolean;
 }
 
 /** Options with defaults filled in. */
@@ -24,6 +29,7 @@ export interface CheckedNonlinearOptions {
   readonly weights: Float64Array;
   readonly maxIterations: number;
   readonly restarts: boolean;
+  readonly fallback: boolean;
 }
 
 function bad(message: string): FitError {
@@ -57,5 +63,7 @@ export function checkNonlinearInput(
   for (let i = 0; i < weights.length; i++) {
     if (!(weights[i] > 0 && Number.isFinite(weights[i]))) throw bad(`weights[${i}] must be a positive finite number`);
   }
-  return { jacobian: options.jacobian ?? null, weights, maxIterations, restarts: options.restarts ?? true };
+  return { jacobian: options.jacobian ?? null, weights, maxIterations, restarts: options.restarts ?? true,
+    fallback: options.fallback ?? true,
+  };
 }
