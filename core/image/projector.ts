@@ -21,6 +21,41 @@ function checkProjectorOptions(widthPx: number, heightPx: number, method: string
   }
 }
 
+type Accumulator = Float64Array | Float32Array | Uint32Array;
+
+/** Pixel arrays whose values fit a Float32 exactly (so a maximum can be kept in Float32). */
+function fitsFloat32(d: ArrayLike<number>): boolean {
+  return d instanceof Uint8Array || d instanceof Uint16Array || d instanceof Int8Array || d instanceof Int16Array || d instanceof Float32Array;
+}
+
+/** Per-pixel maximum into acc (separate small loops keep each call site to one array type). */
+function addMax(acc: Accumulator, d: ArrayLike<number>, n: number): void {
+  for (let i = 0; i < n; i++) if (d[i] > acc[i]) acc[i] = d[i];
+}
+
+function addSum(acc: Accumulator, d: ArrayLike<number>, n: number): void {
+  for (let i = 0; i < n; i++) acc[i] += d[i];
+}
+
+function copyInto(acc: Accumulator, d: ArrayLike<number>, n: number): void {
+  for (let i = 0; i < n; i++) acc[i] = d[i];
+}
+
+/** Accumulator for the first plane: narrow types keep the memory traffic low while staying exact — Uint32 sums of
+ * 8/16-bit planes (exact up to 65 536 planes), Float32 maxima of values Float32 holds exactly — else Float64. */
+function newAccumulator(method: ProjectionMethod, d: ArrayLike<number>, n: number): Accumulator {
+  if ((method === 'mean' || method === 'sum') && (d instanceof Uint8Array || d instanceof Uint16Array)) return new Uint32Array(n);
+  if (method === 'max' && fitsFloat32(d)) return new Float32Array(n).fill(-Infinity);
+  return method === 'max' ? new Float64Array(n).fill(-Infinity) : new Float64Array(n);
+}
+
+/** Whether plane data d can be added exactly to acc (else acc is widened to Float64 first). */
+function accepts(acc: Accumulator, d: ArrayLike<number>, count: number): boolean {
+  if (acc instanceof Float64Array) return true;
+  if (acc instanceof Uint32Array) return (d instanceof Uint8Array || d instanceof Uint16Array) && count < 65_536;
+  return fitsFloat32(d);
+}
+
 /**
  * Create a projector over Z for planes of widthPx × heightPx: 'max' = per-pixel maximum, 'mean' = average,
  * 'sum' = total, 'slice' = the last plane added (the caller adds only the chosen slice).
@@ -28,9 +63,8 @@ function checkProjectorOptions(widthPx: number, heightPx: number, method: string
 export function createProjector(widthPx: number, heightPx: number, method: ProjectionMethod): Projector {
   checkProjectorOptions(widthPx, heightPx, method);
   const n = widthPx * heightPx;
-  // Float64 accumulation keeps sums of many 16/32-bit planes exact.
-  const acc = new Float64Array(n);
-  if (method === 'max') acc.fill(-Infinity);
+  // Accumulation is exact: Float64 in general, narrower arrays where they are exact too (see newAccumulator).
+  let acc: Accumulator | null = null;
   let count = 0;
   return {
     get count() { return count; },
@@ -38,21 +72,20 @@ export function createProjector(widthPx: number, heightPx: number, method: Proje
       if (plane.width !== widthPx || plane.height !== heightPx || plane.data.length !== n) {
         throw new Error(`plane is ${plane.width}×${plane.height} but the projection is ${widthPx}×${heightPx}`);
       }
-      const d = plane.data;
-      if (method === 'max') {
-        for (let i = 0; i < n; i++) if (d[i] > acc[i]) acc[i] = d[i];
-      } else if (method === 'slice') {
-        for (let i = 0; i < n; i++) acc[i] = d[i];
-      } else {
-        for (let i = 0; i < n; i++) acc[i] += d[i];
-      }
+      const d = plane.data as ArrayLike<number>;
+      if (acc === null) acc = newAccumulator(method, d, n);
+      else if (!accepts(acc, d, count)) acc = Float64Array.from(acc);
+      if (method === 'max') addMax(acc, d, n);
+      else if (method === 'slice') copyInto(acc, d, n);
+      else addSum(acc, d, n);
       count++;
     },
     result() {
-      if (count === 0) throw new Error('no planes were added to the projection');
+      if (count === 0 || acc === null) throw new Error('no planes were added to the projection');
       const out = new Float32Array(n);
       const scale = method === 'mean' ? 1 / count : 1;
-      for (let i = 0; i < n; i++) out[i] = acc[i] * scale;
+      const a = acc;
+      for (let i = 0; i < n; i++) out[i] = a[i] * scale;
       return { width: widthPx, height: heightPx, data: out };
     },
   };
