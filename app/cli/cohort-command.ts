@@ -17,7 +17,8 @@ export const COHORT_HELP = `Usage: eggline cohort <results-dir> --samples <csv> 
 
 Reads <results-dir>/results.json (written by "eggline batch"), groups the embryos by the sample sheet and
 writes conditions.csv, shifts.csv, dosage_fit.csv, positional_error.csv, each figure as .svg and .png, and a
-self-contained report.html.
+self-contained report.html. The CSV files keep full precision; their quantity column uses the keys lambda,
+amplitude, egg_length, boundary:<channel>:<method> and landmark:<name> (positions in x/EL and µm).
 
 Sample sheet: CSV with a header; columns file, condition, and optionally dosage (relative to the reference)
 and any free columns. Files match by relative path, or by file name when that is unique.

@@ -26,7 +26,7 @@ table{border-collapse:collapse;margin:.6rem 0 1rem;font-size:.88rem}th,td{border
 th{background:#f4f4f4}td{white-space:nowrap;font-variant-numeric:tabular-nums}td.t,th.t{text-align:left;white-space:normal}figure{margin:1rem 0}figcaption{font-size:.85rem;color:#555}
 figure svg{width:100%;max-width:860px;height:auto}pre{background:#f7f7f7;padding:.6rem;overflow:auto;font-size:.8rem}.warn{color:#8a4b00}.note{color:#555;font-size:.9rem}
 .summary{background:#f7f9fb;border:1px solid #dde3ea;border-radius:6px;padding:.2rem 1rem .6rem}.summary h2{margin-top:.8rem}
-details{margin:.6rem 0}summary{cursor:pointer;font-weight:600}td.ok{color:#1b6e3a;text-align:left}td.off{color:#8a4b00;text-align:left}
+details{margin:.6rem 0}summary{cursor:pointer;font-weight:600}td.ok{color:#1b6e3a;text-align:left;white-space:normal}td.off{color:#8a4b00;text-align:left;white-space:normal}
 td.t:first-child{white-space:nowrap}`;
 
 /** A table cell: text, or text with a CSS class (e.g. colour for a verdict). */

@@ -100,7 +100,7 @@ describe('cohort figures', () => {
     checkSvg(svg);
     expect(count(svg, /class="clipped-mark"/g)).toBe(2); // x = 0.9 and 1.0; the 80th percentile (0.012) sets the top
     // 1.5 × 0.012 = 0.018, rounded up to the nice axis top 0.020 (d3 nice).
-    expect(svg).toContain('▲ at the top: 2 values above 0.020 (clipped; see positional_error.csv)');
+    expect(svg).toContain('▲ at the top: 2 values above 0.020 EL (clipped; see positional_error.csv)');
     expect(svg).not.toMatch(/y="-\d{3,}/); // no far-off coordinates
     const plain = positionalErrorFigure([{ label: 'calm', xEl, sigma: calm }]);
     expect(count(plain, /class="clipped-mark"/g)).toBe(0);

@@ -55,7 +55,7 @@ export function positionalErrorFigure(series: readonly SigmaSeries[], options: F
   const y0 = scaleLinear().domain([0, yMax]).nice();
   const top = y0.domain()[1];
   const clippedCount = series.reduce((n, s) => n + Array.from(s.sigma).filter((v, i) => Number.isFinite(v) && Number.isFinite(s.xEl[i]) && v > top).length, 0);
-  const clipNote = clippedCount > 0 ? `▲ at the top: ${clippedCount} value${clippedCount === 1 ? '' : 's'} above ${sigFig(top, 2)}${unit === 'EL' ? '' : ' µm'} (clipped; see positional_error.csv)` : '';
+  const clipNote = clippedCount > 0 ? `▲ at the top: ${clippedCount} value${clippedCount === 1 ? '' : 's'} above ${sigFig(top, 2)} ${unit === 'EL' ? 'EL' : 'µm'} (clipped; see positional_error.csv)` : '';
   const base = options.subtitle ?? DEFAULT_SUBTITLE;
   const subtitle = [base, clipNote].filter((t) => t !== '').join('\n');
   const { widthPx, heightPx, title } = figureSize({ ...options, subtitle }, 'Positional error implied by the gradient');
