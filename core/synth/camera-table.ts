@@ -22,6 +22,9 @@ export interface PixelTable {
   /** Probability of each output value from `first` on (for tests). */
   readonly first: number;
   readonly pmf: Float64Array;
+  /** Cumulative probabilities (last = 1) and the guide: guide[m] = first index whose CDF exceeds m/guide.length. */
+  readonly cdf: Float64Array;
+  readonly guide: Int32Array;
 }
 
 /** Poisson probabilities of 0..n−1 for the given mean, by the recurrence p(j) = p(j−1)·mean/j in log space. */
@@ -67,7 +70,7 @@ export function pixelTable(offset: number, meanPhotons: number, readSd: number):
     guide[m] = k;
   }
   return {
-    first, pmf,
+    first, pmf, cdf, guide,
     sample(u: number): number {
       let k = guide[Math.floor(u * M)];
       while (cdf[k] <= u) k++;

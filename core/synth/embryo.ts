@@ -145,6 +145,8 @@ function sectionSignal(p: SyntheticEmbryoParams, t: SyntheticTruth, f: Frame, zU
   const g = new Float32Array(w * h);
   const e = new Float32Array(w * h);
   const box = sectionBox(p, t, (p.eggLengthUm / 2) * s, (p.eggWidthUm / 2) * s, 1);
+  const layerAt = (depthUm: number): number => p.interiorLevel + (1 - p.interiorLevel) / (1 + Math.exp((depthUm - p.nuclearLayerUm) / 2));
+  const deepLayer = layerAt(40);
   for (let y = box.y0; y < box.y1; y++) {
     for (let i = y * w + box.x0; i < y * w + box.x1; i++) {
       const qx = f.X[i] * ia;
@@ -152,10 +154,11 @@ function sectionSignal(p: SyntheticEmbryoParams, t: SyntheticTruth, f: Frame, zU
       const r = Math.sqrt(qx * qx + qy * qy);
       if (r > 1 + 2 * px * ia) continue;
       // Deep inside, only "deeper than the layer" matters, so the exact distance is computed near the surface only.
-      const depthUm = r < 1 - 40 * ib ? 40 : ellipseDepth(f.X[i], f.Y[i], 1 / ia, 1 / ib);
+      const deep = r < 1 - 40 * ib;
+      const depthUm = deep ? 40 : ellipseDepth(f.X[i], f.Y[i], 1 / ia, 1 / ib);
       const cover = Math.min(1, Math.max(0, 0.5 + depthUm / px));
       if (cover === 0) continue;
-      const layer = p.interiorLevel + (1 - p.interiorLevel) / (1 + Math.exp((depthUm - p.nuclearLayerUm) / 2));
+      const layer = deep ? deepLayer : layerAt(depthUm);
       g[i] = cover * (p.autofluorescence + f.gradient[i] * layer);
       e[i] = cover * (p.autofluorescence + f.boundary[i] * layer);
     }
@@ -190,9 +193,19 @@ function blurInBox(plane: Plane, blurPx: number, box: Box): Float32Array {
 function camera(plane: Plane, box: Box, blurPx: number, rng: Rng, base: PixelTable): Uint16Array {
   const blurred = blurInBox(plane, blurPx, box);
   const out = new Uint16Array(blurred.length);
+  const { cdf, guide, first } = base;
+  const slots = guide.length;
+  // The table draws use their own mulberry32 stream seeded from rng, written inline because it runs per pixel.
+  let state = Math.floor(rng.uniform() * 4294967296) >>> 0;
   for (let i = 0; i < out.length; i++) {
+    state = (state + 0x6d2b79f5) >>> 0;
+    let q = Math.imul(state ^ (state >>> 15), state | 1);
+    q ^= q + Math.imul(q ^ (q >>> 7), q | 61);
+    const u = ((q ^ (q >>> 14)) >>> 0) / 4294967296;
+    let k = guide[Math.floor(u * slots)];
+    while (cdf[k] <= u) k++;
     const b = blurred[i];
-    const v = base.sample(rng.uniform()) + (b > 0 ? rng.poisson(b) : 0);
+    const v = first + k + (b > 0 ? rng.poisson(b) : 0);
     out[i] = v < 0 ? 0 : v > 65535 ? 65535 : v;
   }
   return out;
