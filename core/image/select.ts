@@ -36,10 +36,7 @@ function swap(a: Float32Array | Float64Array, i: number, j: number): void {
 export function medianInPlace(a: Float32Array | Float64Array): number {
   const n = a.length;
   if (n === 0) return NaN;
-  if (a instanceof Float32Array && n >= 65_536) {
-    const upper = kthByBuckets(a, n >> 1);
-    return n % 2 === 1 ? upper : (kthByBuckets(a, (n >> 1) - 1) + upper) / 2;
-  }
+  if (a instanceof Float32Array && n >= 65_536) return middleByBuckets(a);
   const upper = selectKth(a, n >> 1);
   if (n % 2 === 1) return upper;
   let lower = -Infinity;
@@ -53,17 +50,31 @@ function orderKey(bits: number): number {
 }
 
 /**
- * k-th smallest of many Float32 values without moving them: a histogram of the top 16 bits of the order keys finds
- * the bucket holding rank k, then selection runs on that bucket's few values only. Exact; two linear passes.
+ * Median of many Float32 values without moving them: a histogram of the top 16 bits of the order keys finds the
+ * bucket(s) holding the middle rank(s), then selection runs on those buckets' few values only. Exact; two passes.
  */
-function kthByBuckets(a: Float32Array, k: number): number {
-  const bits = new Uint32Array(a.buffer, a.byteOffset, a.length);
+function middleByBuckets(a: Float32Array): number {
+  const n = a.length;
+  const hiRank = n >> 1;
+  const loRank = n % 2 === 1 ? hiRank : hiRank - 1;
+  const bits = new Uint32Array(a.buffer, a.byteOffset, n);
   const counts = new Uint32Array(65_536);
-  for (let i = 0; i < bits.length; i++) counts[orderKey(bits[i]) >>> 16]++;
-  let bucket = 0;
+  for (let i = 0; i < n; i++) counts[orderKey(bits[i]) >>> 16]++;
+  let b1 = 0;
   let below = 0;
-  while (below + counts[bucket] <= k) below += counts[bucket++];
-  const members = new Float32Array(counts[bucket]);
-  for (let i = 0, m = 0; i < bits.length; i++) if (orderKey(bits[i]) >>> 16 === bucket) members[m++] = a[i];
-  return selectKth(members, k - below);
+  while (below + counts[b1] <= loRank) below += counts[b1++];
+  // Ranks loRank and hiRank are consecutive, so any buckets between theirs are empty.
+  let b2 = b1;
+  let upTo = below + counts[b1];
+  while (upTo <= hiRank) upTo += counts[++b2];
+  const members = new Float32Array(upTo - below);
+  for (let i = 0, m = 0; i < n; i++) {
+    const b = orderKey(bits[i]) >>> 16;
+    if (b >= b1 && b <= b2) members[m++] = a[i];
+  }
+  const upper = selectKth(members, hiRank - below);
+  if (loRank === hiRank) return upper;
+  let lower = -Infinity;
+  for (let i = 0; i < hiRank - below; i++) if (members[i] > lower) lower = members[i];
+  return (lower + upper) / 2;
 }
