@@ -9,34 +9,50 @@ export interface QrResult {
   readonly cols: number;
 }
 
+// Working copies of A and b, kept between calls: allocating a typed array larger than a few values is slow
+// (an off-heap buffer each time) and the fits factorise hundreds of times per call. Safe because the
+// factorisation is synchronous and calls nothing that could re-enter it.
+let scratchA = new Float64Array(0);
+let scratchB = new Float64Array(0);
+
 /** Factorises A (rows × cols, row-major, rows ≥ cols) and applies Qᵀ to b; A and b are not modified. */
 export function householderQr(a: Float64Array, b: Float64Array, rows: number, cols: number): QrResult {
-  const m = Float64Array.from(a);
-  const v = Float64Array.from(b);
-  for (let k = 0; k < cols; k++) {
-    const norm = columnNorm(m, rows, cols, k);
-    if (norm === 0) continue;
-    const alpha = m[k * cols + k] > 0 ? -norm : norm;
-    // Householder vector u = x − alpha·e1, stored in place in column k (rows k..end).
-    m[k * cols + k] -= alpha;
-    let uu = 0;
-    for (let i = k; i < rows; i++) uu += m[i * cols + k] * m[i * cols + k];
-    for (let j = k + 1; j < cols; j++) {
-      let dot = 0;
-      for (let i = k; i < rows; i++) dot += m[i * cols + k] * m[i * cols + j];
-      const factor = (2 * dot) / uu;
-      for (let i = k; i < rows; i++) m[i * cols + j] -= factor * m[i * cols + k];
-    }
-    let dot = 0;
-    for (let i = k; i < rows; i++) dot += m[i * cols + k] * v[i];
-    const factor = (2 * dot) / uu;
-    for (let i = k; i < rows; i++) v[i] -= factor * m[i * cols + k];
-    m[k * cols + k] = alpha;
-    for (let i = k + 1; i < rows; i++) m[i * cols + k] = 0;
-  }
+  if (scratchA.length < rows * cols) scratchA = new Float64Array(rows * cols);
+  if (scratchB.length < rows) scratchB = new Float64Array(rows);
+  const m = scratchA, v = scratchB;
+  m.set(a.subarray(0, rows * cols));
+  v.set(b.subarray(0, rows));
+  for (let k = 0; k < cols; k++) reflectColumn(m, v, rows, cols, k);
   const r = new Float64Array(cols * cols);
   for (let i = 0; i < cols; i++) for (let j = i; j < cols; j++) r[i * cols + j] = m[i * cols + j];
   return { r, qtb: v.slice(0, cols), cols };
+}
+
+/**
+ * One Householder step in place: zeroes column k of m (rows × cols) below the diagonal and applies the same
+ * reflection to the later columns and to v. Loops step through a column by `cols` (index i·cols + k).
+ */
+function reflectColumn(m: Float64Array, v: Float64Array, rows: number, cols: number, k: number): void {
+  const norm = columnNorm(m, rows, cols, k);
+  if (norm === 0) return;
+  const diag = k * cols + k, end = rows * cols;
+  const alpha = m[diag] > 0 ? -norm : norm;
+  // Householder vector u = x − alpha·e1, stored in place in column k (rows k..end).
+  m[diag] -= alpha;
+  let uu = 0;
+  for (let p = diag; p < end; p += cols) uu += m[p] * m[p];
+  for (let j = k + 1; j < cols; j++) {
+    let dot = 0;
+    for (let p = diag, q = diag - k + j; p < end; p += cols, q += cols) dot += m[p] * m[q];
+    const factor = (2 * dot) / uu;
+    for (let p = diag, q = diag - k + j; p < end; p += cols, q += cols) m[q] -= factor * m[p];
+  }
+  let dot = 0;
+  for (let p = diag, i = k; i < rows; p += cols, i++) dot += m[p] * v[i];
+  const factor = (2 * dot) / uu;
+  for (let p = diag, i = k; i < rows; p += cols, i++) v[i] -= factor * m[p];
+  m[diag] = alpha;
+  for (let p = diag + cols; p < end; p += cols) m[p] = 0;
 }
 
 /** Euclidean norm of column k from row k down, scaled by the largest entry so squares cannot overflow. */

@@ -18,15 +18,30 @@ export interface LmRun {
   readonly converged: boolean;
 }
 
-/** Solves the damped step min ‖[J; √μ·D] δ − [r; 0]‖ by QR; null when it cannot be solved. */
-function dampedStep(j: Float64Array, r: Float64Array, d: Float64Array, mu: number, n: number, m: number): Float64Array | null {
-  const a = new Float64Array((n + m) * m);
-  a.set(j);
-  const b = new Float64Array(n + m);
-  b.set(r);
+/** R (m × m) and the first m entries of Qᵀr from a QR factorisation of J (n × m): all a damped step needs. */
+interface ReducedJacobian {
+  readonly r: Float64Array;
+  readonly qtr: Float64Array;
+}
+
+/** Factorises J once per Jacobian, so each trial damping costs only a small (2m × m) factorisation. */
+function reduceJacobian(j: Float64Array, r: Float64Array, n: number, m: number): ReducedJacobian {
+  const { r: upper, qtb } = householderQr(j, r, n, m);
+  return { r: upper, qtr: qtb };
+}
+
+/**
+ * Solves the damped step min ‖[J; √μ·D] δ − [r; 0]‖ by QR; null when it cannot be solved. With J = Q·R this
+ * equals min ‖[R; √μ·D] δ − [(Qᵀr)₁..ₘ; 0]‖ (the rest of Qᵀr does not depend on δ), a 2m × m problem.
+ */
+function dampedStep(reduced: ReducedJacobian, d: Float64Array, mu: number, m: number): Float64Array | null {
+  const a = new Float64Array(2 * m * m);
+  a.set(reduced.r);
+  const b = new Float64Array(2 * m);
+  b.set(reduced.qtr);
   const root = Math.sqrt(mu);
-  for (let k = 0; k < m; k++) a[(n + k) * m + k] = root * d[k];
-  const { r: upper, qtb } = householderQr(a, b, n + m, m);
+  for (let k = 0; k < m; k++) a[(m + k) * m + k] = root * d[k];
+  const { r: upper, qtb } = householderQr(a, b, 2 * m, m);
   return solveUpperTriangular(upper, qtb, m);
 }
 
@@ -75,6 +90,10 @@ interface LmState {
   r: Float64Array;
   rss: number;
   j: Float64Array;
+  /** QR of j, made on the first trial after j changes. */
+  reduced: ReducedJacobian | null;
+  /** Jᵀr at the current point. */
+  g: Float64Array | null;
   readonly d: Float64Array;
   mu: number;
   nu: number;
@@ -82,13 +101,14 @@ interface LmState {
 
 /** Solves the damped step and evaluates it; null when the step cannot be solved. */
 function tryStep(problem: LeastSquaresProblem, s: LmState, n: number, m: number): Trial | null {
-  const delta = dampedStep(s.j, s.r, s.d, s.mu, n, m);
+  s.reduced ??= reduceJacobian(s.j, s.r, n, m);
+  const delta = dampedStep(s.reduced, s.d, s.mu, m);
   if (!delta) return null;
   const params = s.p.map((v, k) => v + delta[k]);
   const r = weightedResiduals(problem, params);
   const rss = sumOfSquares(r);
   // Predicted decrease of the linear model: δᵀ(μD²δ + Jᵀr) (exact identity for the damped normal equations).
-  const g = jtr(s.j, s.r, n, m);
+  const g = (s.g ??= jtr(s.j, s.r, n, m));
   const predicted = delta.reduce((acc, v, k) => acc + v * (g[k] + s.mu * s.d[k] * s.d[k] * v), 0);
   const rho = Number.isFinite(rss) && predicted > 0 ? (s.rss - rss) / predicted : -1;
   return { delta, params, r, rss, predicted, rho };
@@ -100,6 +120,8 @@ function acceptStep(problem: LeastSquaresProblem, s: LmState, t: Trial, scaling:
   const relativeDecrease = (s.rss - t.rss) / s.rss;
   s.p = t.params; s.r = t.r; s.rss = t.rss;
   s.j = modelJacobian(problem, s.p);
+  s.reduced = null;
+  s.g = null;
   if (scaling === 'column') columnNorms(s.j, n, m).forEach((v, k) => { s.d[k] = Math.max(s.d[k], v); });
   s.mu *= Math.max(1 / 3, 1 - (2 * t.rho - 1) ** 3);
   s.nu = 2;
@@ -115,7 +137,7 @@ function initialState(problem: LeastSquaresProblem, p: number[], r: Float64Array
   const d = scaling === 'unit' ? new Float64Array(m).fill(1) : norms.map((v) => v || 1);
   let mu = 1e-3 * Math.max(...norms.map((v, k) => (v / d[k]) ** 2));
   if (!(mu > 0) || !Number.isFinite(mu)) mu = 1e-3;
-  return { p, r, rss, j, d, mu, nu: 2 };
+  return { p, r, rss, j, reduced: null, g: null, d, mu, nu: 2 };
 }
 
 /** Runs LM from `start`; never throws for numeric trouble (NaN trial points are treated as rejected steps). */
