@@ -63,7 +63,8 @@ export function checkNonlinearInput(
   for (let i = 0; i < weights.length; i++) {
     if (!(weights[i] > 0 && Number.isFinite(weights[i]))) throw bad(`weights[${i}] must be a positive finite number`);
   }
-  return { jacobian: options.jacobian ?? null, weights, maxIterations, restarts: options.restarts ?? true,
-    fallback: options.fallback ?? true,
+  return {
+    jacobian: options.jacobian ?? null, weights, maxIterations,
+    restarts: options.restarts ?? true, fallback: options.fallback ?? true,
   };
 }
