@@ -12,7 +12,8 @@ import { findBoundaries, fitExponentialDecay, fitLogisticBoundary } from './inde
 
 /**
  * Milliseconds per call of `f` after a warm-up: the median wall time of single calls, and the mean CPU time of
- * this process per call (closer to the idle-core cost when other jobs share the cores).
+ * this process per call (all its threads, so background GC and buffer freeing count too; it is not slowed by
+ * other jobs waiting for the cores the way wall time is).
  */
 function msPerCall(f: () => unknown, rounds = 100): { wallMs: number; cpuMs: number } {
   for (let i = 0; i < 20; i++) f();
