@@ -4,13 +4,12 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { ARTIFACTS, chooseEngine, ensureRendererBuilt, startHarness } from './harness';
+import { ARTIFACTS, ensureRendererBuilt, startHarness } from './harness';
 import type { Harness } from './harness';
 
 let h: Harness;
 let scratch: string;
 let dataDir: string;
-let engineName = '';
 
 const shot = (page: Page, name: string) => page.screenshot({ path: join(ARTIFACTS, `${name}.png`) });
 const text = async (page: Page, testId: string) => (await page.getByTestId(testId).first().textContent()) ?? '';
@@ -35,11 +34,8 @@ beforeAll(async () => {
   dataDir = join(scratch, 'data');
   await fs.mkdir(ARTIFACTS, { recursive: true });
   await ensureRendererBuilt();
-  const engine = chooseEngine();
-  engineName = engine.name;
-  console.log(`e2e engine: ${engineName}`);
   // Four demo embryos keep the run short; they span the demo's conditions.
-  h = await startHarness(dataDir, engine.engine, 4);
+  h = await startHarness(dataDir, 4);
 }, 180_000);
 
 afterAll(async () => {

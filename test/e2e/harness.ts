@@ -7,10 +7,8 @@ import { chromium } from 'playwright-core';
 import type { Browser, Page } from 'playwright-core';
 import { createHandlers } from '../../app/main/handlers';
 import type { ApiHandlers, HandlerDeps } from '../../app/main/handlers';
-import type { AnalysisEngine } from '../../app/main/engine';
 import { API_INVOKE_METHODS } from '../../core/contract';
 import type { BatchProgress, ExportKind } from '../../core/contract';
-import { createStandInEngine } from './standInEngine';
 
 /** Repository root and the built renderer. */
 export const ROOT = fileURLToPath(new URL('../..', import.meta.url)).replace(/\/$/, '');
@@ -41,11 +39,6 @@ export async function ensureRendererBuilt(): Promise<void> {
   await build({ configFile: join(ROOT, 'renderer/vite.config.ts'), logLevel: 'warn' });
 }
 
-/** The app's real engine, unless EGGLINE_E2E_ENGINE=stand-in asks for the synthetic stand-in (see standInEngine.ts). */
-export function chooseEngine(): { engine: AnalysisEngine | undefined; name: 'real' | 'stand-in' } {
-  return process.env.EGGLINE_E2E_ENGINE === 'stand-in' ? { engine: createStandInEngine(), name: 'stand-in' } : { engine: undefined, name: 'real' };
-}
-
 /** Dialog answers the test sets before clicking. */
 export interface FakeDialogs {
   folder: string | null;
@@ -67,13 +60,13 @@ export interface Harness {
 }
 
 /** Launch Chromium, wire window.eggline to real handlers and open the app page. */
-export async function startHarness(dataDir: string, engine: AnalysisEngine | undefined, demoSubset?: number): Promise<Harness> {
+export async function startHarness(dataDir: string, demoSubset?: number): Promise<Harness> {
   const dialogs: FakeDialogs = { folder: null, output: null, project: null, saveDir: null };
   const progress: BatchProgress[] = [];
   let page: Page | null = null;
   const deps: HandlerDeps = {
     // Batch jobs 0 analyses in this process: the worker script is a build output the test need not depend on.
-    dataDir, engine, batchJobs: 0, demoSubset,
+    dataDir, batchJobs: 0, demoSubset,
     dialogs: {
       chooseFolder: async () => dialogs.folder,
       chooseFiles: async () => null,
