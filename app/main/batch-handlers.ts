@@ -3,6 +3,7 @@ import { availableParallelism } from 'node:os';
 import { randomUUID } from 'node:crypto';
 import type { BatchSummary } from '../../core/contract';
 import { requireAllowed, requireProjectDoc, requireText } from './args';
+import { findSampleSheet } from './cohort-summary';
 import type { ShellContext } from './context';
 import { ApiFailure } from './result';
 
@@ -16,7 +17,9 @@ export async function runBatch(ctx: ShellContext, folderArg: unknown, outArg: un
   const folder = requireAllowed(ctx.allow, 'read', folderArg, 'folder');
   const outDir = requireAllowed(ctx.allow, 'output', outArg, 'outDir');
   const doc = requireProjectDoc(docArg);
-  // Two batches would compete for the same cores and could write into the same folder.
+  // Conditions come from samples.csv in the folder (the demo writes one); without it there is no cohort step.
+  const sampleSheetPath = await findSampleSheet(folder);
+  // Checked and claimed with no await in between. Two batches would compete for the same cores and could write into the same folder.
   if (ctx.batches.size > 0) throw new ApiFailure('busy', 'a batch is already running; cancel it or wait for it to finish');
   const runId = randomUUID();
   const controller = new AbortController();
@@ -25,7 +28,7 @@ export async function runBatch(ctx: ShellContext, folderArg: unknown, outArg: un
     const summary = await ctx.engine.runBatch({
       folder, outDir, settings: doc.settings, doc: { ...doc, folder }, jobs: ctx.deps.batchJobs ?? defaultBatchJobs(),
       onProgress: (p) => ctx.deps.emitBatchProgress({ ...p, runId }),
-      signal: controller.signal,
+      signal: controller.signal, sampleSheetPath,
     });
     return { ...summary, runId };
   } finally {

@@ -1,10 +1,12 @@
 // The real analysis services: sharp decoding (app/decode), the core pipeline, the batch engine and the demo writer.
 import { detectEmbryo, projectStack } from '../../core/pipeline';
+import type { BatchSummary, CohortSummary } from '../../core/contract';
 import type { Detection } from '../../core/model';
 import type { AnalysisSettings } from '../../core/settings';
-import { defaultWorkerPath, runBatch } from '../batch/run-batch';
+import { defaultWorkerPath, runBatch, type BatchRunResult } from '../batch/run-batch';
 import { writeDemoDataSet } from '../batch/write-demo';
 import { openStackForAnalysis } from '../decode';
+import { cohortSummaryFor } from './cohort-summary';
 import type { AnalysisEngine, BatchRunOptions, SliceData, ViewData } from './engine';
 import { placeholderDetection } from './placeholder-detection';
 import { ApiFailure } from './result';
@@ -46,10 +48,23 @@ async function readSlice(path: string, label: string, z: number, c: number, t: n
   }
 }
 
-/** Run the batch engine and keep only the summary the renderer needs. */
-async function runBatchSummary(options: BatchRunOptions) {
-  const r = await runBatch({ ...options, doc: options.doc });
-  return { runId: r.runId, outDir: r.outDir, ok: r.ok, failed: r.failed, cancelled: r.cancelled, results: r.results };
+/** The cohort step's tables and figures for the window, or why they are missing. */
+async function cohortOutcome(r: BatchRunResult, sheet: string | null): Promise<{ cohort: CohortSummary | null; cohortError: string | null }> {
+  if (sheet === null || r.cancelled) return { cohort: null, cohortError: null };
+  if (r.cohortError !== null) return { cohort: null, cohortError: r.cohortError };
+  try {
+    return { cohort: await cohortSummaryFor(r.results, sheet, null, r.outDir), cohortError: null };
+  } catch (e) {
+    return { cohort: null, cohortError: (e instanceof Error ? e.message : String(e)).split(/\r?\n/)[0] };
+  }
+}
+
+/** Run the batch engine (with the cohort step when there is a sample sheet) and keep what the renderer needs. */
+async function runBatchSummary(options: BatchRunOptions): Promise<BatchSummary> {
+  const sheet = options.sampleSheetPath ?? null;
+  const r = await runBatch({ ...options, doc: options.doc, cohort: sheet === null ? null : { sampleSheetPath: sheet, reference: null } });
+  const outcome = await cohortOutcome(r, sheet);
+  return { runId: r.runId, outDir: r.outDir, ok: r.ok, failed: r.failed, cancelled: r.cancelled, results: r.results, ...outcome };
 }
 
 /** The engine backed by app/decode, core/pipeline and app/batch. */

@@ -27,6 +27,8 @@ export interface BatchRunOptions {
   readonly jobs: number;
   readonly onProgress: (p: BatchProgress) => void;
   readonly signal: AbortSignal;
+  /** Sample sheet for the cohort step after the batch (conditions, dosages); null or absent = no cohort step. */
+  readonly sampleSheetPath?: string | null;
 }
 
 /** The analysis services the handlers call. `label` is the file's display name used in messages. */

@@ -4,6 +4,7 @@ import type {
   ApAxis, Detection, EmbryoResult, Landmark, ProjectedStack, StackInfo,
 } from '../model';
 import type { AnalysisSettings } from '../settings';
+import type { ConditionStat, DosageFit, ReferenceLambda, ShiftRow } from '../cohort';
 
 /** Error codes the app returns; messages are one line and name the file when there is one. */
 export type ApiErrorCode =
@@ -72,6 +73,56 @@ export interface BatchSummary {
   readonly failed: number;
   readonly cancelled: boolean;
   readonly results: readonly EmbryoResult[];
+  /** Per-condition tables and figures of the cohort step (as in report.html); null when the folder has no sample
+   *  sheet, the batch was cancelled or the step failed; absent from engines that do not run it. */
+  readonly cohort?: CohortSummary | null;
+  /** Why the cohort step failed (one line naming the file); null or absent when it ran or was not run. */
+  readonly cohortError?: string | null;
+}
+
+/** One condition of the cohort: dosage, embryo count and decay length λ (x/EL and µm) with its CI. */
+export interface CohortConditionRow {
+  readonly name: string;
+  /** Dosage as given in the sample sheet; null when not given. */
+  readonly dosage: number | null;
+  /** f = dosage / dosage(reference); null when unknown. */
+  readonly factor: number | null;
+  readonly isReference: boolean;
+  /** Embryos assigned to the condition (with at least one measured value). */
+  readonly n: number;
+  /** λ as a fraction of egg length; null when no embryo of the condition has a fit. CI ends are NaN when n < 2. */
+  readonly lambdaEl: ConditionStat | null;
+  readonly lambdaUm: ConditionStat | null;
+}
+
+/** A cohort figure as a standalone SVG string (the same figure report.html and the .svg files hold). */
+export interface CohortFigure {
+  readonly name: string;
+  readonly title: string;
+  readonly svg: string;
+}
+
+/** What the cohort step found after a batch (plain data: the numbers of conditions.csv, shifts.csv, dosage_fit.csv). */
+export interface CohortSummary {
+  /** report.html in the batch's output folder. */
+  readonly reportPath: string;
+  /** The sample sheet the conditions came from. */
+  readonly sampleSheetPath: string;
+  /** Reference condition (dosage 1), null when none: then there is no dosage test. */
+  readonly reference: string | null;
+  /** Confidence level of every interval (e.g. 0.95). */
+  readonly level: number;
+  /** λ (x/EL) of the reference used for the predictions; null without a reference fit. */
+  readonly referenceLambda: ReferenceLambda | null;
+  readonly conditions: readonly CohortConditionRow[];
+  /** Every quantity per condition (conditions.csv). */
+  readonly stats: readonly ConditionStat[];
+  /** Observed vs predicted shift per position quantity and non-reference condition (shifts.csv). */
+  readonly shifts: readonly ShiftRow[];
+  /** Position vs ln f regression per quantity: slope λ_eff against λ_ref (dosage_fit.csv). */
+  readonly dosageFit: readonly DosageFit[];
+  readonly figures: readonly CohortFigure[];
+  readonly warnings: readonly string[];
 }
 
 /** What may be exported through a save dialog. */

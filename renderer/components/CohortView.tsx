@@ -1,14 +1,112 @@
-// A simple cohort view of the last batch: mean scaled profile across embryos and λ per embryo, drawn by core/figures.
+// Cohort view of the last batch. With a sample sheet (samples.csv in the folder) it shows what report.html shows:
+// per-condition λ, the dosage test (observed vs predicted shift, λ_eff vs λ_ref) and the report's figures, with the
+// numbers formatted by core/figures so they read the same. Without one: a single-group summary of the batch.
 import { useMemo } from 'react';
-import type { BatchSummary } from '../../core/contract';
-import { cohortProfilesFigure, lambdaByConditionFigure } from '../../core/figures';
+import type { BatchSummary, CohortConditionRow, CohortSummary } from '../../core/contract';
+import { quantityLabel, slopeRatio, type DosageFit, type ShiftRow } from '../../core/cohort';
+import { cohortProfilesFigure, lambdaByConditionFigure, plainNumber, sigFig, valueWithCi } from '../../core/figures';
 import { lambdaValuesEl, meanScaledProfile } from '../export/cohortSeries';
 import { fmt } from '../ui/format';
 
-/** Cohort view; empty until a batch has finished. */
-export function CohortView({ summary }: { summary: BatchSummary | null }) {
+/** "value [lo, hi]" at the interval's precision; the value alone when there is no interval (n = 1); "n/a" without a value. */
+function withCi(v: number | null | undefined, lo: number | null, hi: number | null, signed = false): string {
+  if (v === null || v === undefined || !Number.isFinite(v)) return 'n/a';
+  const r = valueWithCi(v, lo, hi, { signed });
+  return r.ci === 'n/a' ? r.value : `${r.value} ${r.ci}`;
+}
+
+function ConditionTable({ c }: { c: CohortSummary }) {
+  const pct = Math.round(c.level * 100);
+  return (
+    <table className="results cohort-table" data-testid="cohort-conditions">
+      <thead><tr><th>condition</th><th>dosage</th><th>f</th><th>ln f</th><th>n</th><th>λ, x/EL (mean [{pct}% CI])</th><th>λ, µm (mean [{pct}% CI])</th></tr></thead>
+      <tbody>{c.conditions.map((r: CohortConditionRow) => (
+        <tr key={r.name} data-testid="cohort-condition" data-name={r.name}>
+          <td>{r.name}{r.isReference && <span className="muted"> (reference)</span>}</td>
+          <td>{plainNumber(r.dosage)}</td><td>{plainNumber(r.factor)}</td><td>{r.factor === null ? 'n/a' : sigFig(Math.log(r.factor), 3)}</td>
+          <td data-testid="cohort-n">{r.n}</td>
+          <td>{r.lambdaEl ? withCi(r.lambdaEl.mean, r.lambdaEl.ciLow, r.lambdaEl.ciHigh) : 'n/a'}</td>
+          <td>{r.lambdaUm ? withCi(r.lambdaUm.mean, r.lambdaUm.ciLow, r.lambdaUm.ciHigh) : 'n/a'}</td>
+        </tr>))}</tbody>
+    </table>
+  );
+}
+
+/** Green when the ratio's interval includes 1, amber when it excludes it, plain without an interval. */
+function ratioClass(lo: number | null, hi: number | null): string {
+  if (lo === null || hi === null || !Number.isFinite(lo) || !Number.isFinite(hi)) return '';
+  return lo <= 1 && hi >= 1 ? 'verdict-ok' : 'verdict-off';
+}
+
+function SlopeTable({ c }: { c: CohortSummary }) {
+  const pct = Math.round(c.level * 100);
+  const lam = c.referenceLambda;
+  return (
+    <table className="results cohort-table" data-testid="cohort-slopes">
+      <thead><tr><th>quantity</th><th>slope λ_eff, x/EL per ln f [{pct}% CI]</th><th>predicted λ_ref [CI]</th><th>λ_eff/λ_ref [CI]</th><th>R²</th><th>n</th></tr></thead>
+      <tbody>{c.dosageFit.map((f: DosageFit) => {
+        const r = slopeRatio(f, lam, c.level);
+        return (
+          <tr key={f.quantity} data-testid="cohort-slope">
+            <td>{quantityLabel(f.quantity)}</td><td>{withCi(f.slopeEl, f.ciLow, f.ciHigh)}</td>
+            <td>{lam ? withCi(lam.lambdaEl, lam.ciLowEl, lam.ciHighEl) : sigFig(f.predictedSlopeEl, 3)}</td>
+            <td className={ratioClass(r.ratioCiLow, r.ratioCiHigh)}>{withCi(r.ratio, r.ratioCiLow, r.ratioCiHigh)}</td>
+            <td>{Number.isFinite(f.r2) && f.r2 > 0.9995 && f.r2 < 1 ? '> 0.999' : sigFig(f.r2, 3)}</td><td>{f.n}</td>
+          </tr>);
+      })}</tbody>
+    </table>
+  );
+}
+
+function ShiftTable({ c }: { c: CohortSummary }) {
+  const pct = Math.round(c.level * 100);
+  return (
+    <table className="results cohort-table" data-testid="cohort-shifts">
+      <thead><tr><th>quantity</th><th>condition</th><th>ln f</th><th>observed Δx, x/EL [{pct}% CI]</th><th>predicted λ·ln f [CI]</th><th>ratio observed/predicted [CI]</th><th>n (ref, cond.)</th></tr></thead>
+      <tbody>{c.shifts.map((s: ShiftRow) => (
+        <tr key={`${s.quantity} ${s.condition}`} data-testid="cohort-shift" data-condition={s.condition}>
+          <td>{quantityLabel(s.quantity)}</td><td>{s.condition}</td><td>{s.lnF === null ? 'n/a' : sigFig(s.lnF, 3)}</td>
+          <td>{withCi(s.observedShiftEl, s.ciLow, s.ciHigh, true)}</td>
+          <td>{withCi(s.predictedShiftEl, s.predictedCiLow, s.predictedCiHigh, true)}</td>
+          <td className={ratioClass(s.ratioCiLow, s.ratioCiHigh)}>{withCi(s.ratio, s.ratioCiLow, s.ratioCiHigh)}</td>
+          <td>{s.nReference}, {s.nCondition}</td>
+        </tr>))}</tbody>
+    </table>
+  );
+}
+
+function DosageTest({ c }: { c: CohortSummary }) {
+  if (c.reference === null) return <p className="muted">Dosage test skipped: no reference condition (give the reference dosage 1 in samples.csv).</p>;
+  if (c.dosageFit.length === 0 && c.shifts.length === 0) return <p className="muted">Dosage test: no boundary or landmark positions to compare.</p>;
+  const smallN = c.conditions.some((r) => r.n < 2);
+  return (
+    <div data-testid="cohort-dosage">
+      <h4>Dosage test <span className="muted">threshold model: a boundary moves by Δx = λ·ln f (f &gt; 1: posterior); λ = mean λ of the reference</span></h4>
+      {c.dosageFit.length > 0 && <SlopeTable c={c} />}
+      {c.shifts.length > 0 && <ShiftTable c={c} />}
+      {smallN && <p className="muted small">Conditions with one embryo have no confidence interval; the value alone is shown.</p>}
+    </div>
+  );
+}
+
+function ConditionsView({ c, outDir }: { c: CohortSummary; outDir: string }) {
+  return (
+    <section className="panel cohort" data-testid="cohort-view">
+      <h3>Cohort <span className="muted">last batch · {c.conditions.length} conditions from <code>{c.sampleSheetPath}</code> · reference: {c.reference ?? 'none'}</span></h3>
+      <p className="muted small">Report: <code data-testid="cohort-report">{c.reportPath}</code> · tables (conditions.csv, shifts.csv, dosage_fit.csv) in <code>{outDir}</code></p>
+      <ConditionTable c={c} />
+      <DosageTest c={c} />
+      {c.warnings.length > 0 && <ul className="warnings" data-testid="cohort-warnings">{c.warnings.map((w) => <li key={w}>{w}</li>)}</ul>}
+      <div className="figures cohort-figures">
+        {c.figures.map((f) => <figure key={f.name} className="figure" data-testid="cohort-figure" data-name={f.name} title={f.title} dangerouslySetInnerHTML={{ __html: f.svg }} />)}
+      </div>
+    </section>
+  );
+}
+
+/** The whole batch as one group (no sample sheet): mean scaled profile and λ per embryo. */
+function SingleGroupView({ summary }: { summary: BatchSummary }) {
   const figs = useMemo(() => {
-    if (summary === null) return null;
     const ok = summary.results.filter((r) => r.status === 'ok');
     const prof = meanScaledProfile(ok);
     const lam = lambdaValuesEl(ok);
@@ -20,15 +118,25 @@ export function CohortView({ summary }: { summary: BatchSummary | null }) {
       mean, sd, n: lam.length,
     };
   }, [summary]);
-  if (figs !== null && figs.n === 0) return <section className="panel cohort" data-testid="cohort-view"><p className="muted">The last batch has no embryo with a gradient fit, so there is nothing to summarise.</p></section>;
-  if (figs === null) return <section className="panel cohort"><p className="muted">Run a batch to see the cohort summary here.</p></section>;
+  const hint = summary.cohortError
+    ? <p className="error" data-testid="cohort-error">The cohort step failed: {summary.cohortError}</p>
+    : <p className="muted" data-testid="cohort-hint">All embryos are shown as one group. To compare conditions (and run the dosage test), put a <code>samples.csv</code> with columns file, condition, dosage (reference = 1) in the folder and run the batch again.</p>;
+  if (figs.n === 0) return <section className="panel cohort" data-testid="cohort-view">{hint}<p className="muted">The last batch has no embryo with a gradient fit, so there is nothing to summarise.</p></section>;
   return (
     <section className="panel cohort" data-testid="cohort-view">
       <h3>Cohort <span className="muted">last batch · λ/EL mean {fmt(figs.mean)} ± {fmt(figs.sd, 2)} SD (n = {figs.n})</span></h3>
+      {hint}
       <div className="figures">
         {figs.profiles && <div className="figure" dangerouslySetInnerHTML={{ __html: figs.profiles }} />}
         {figs.lambda && <div className="figure" dangerouslySetInnerHTML={{ __html: figs.lambda }} />}
       </div>
     </section>
   );
+}
+
+/** Cohort view; empty until a batch has finished. */
+export function CohortView({ summary }: { summary: BatchSummary | null }) {
+  if (summary === null) return <section className="panel cohort"><p className="muted">Run a batch to see the cohort summary here.</p></section>;
+  if (summary.cohort) return <ConditionsView c={summary.cohort} outDir={summary.outDir} />;
+  return <SingleGroupView summary={summary} />;
 }

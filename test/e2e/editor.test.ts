@@ -205,8 +205,37 @@ describe('editor window', { timeout: 150_000 }, () => {
     expect(summary).toMatch(/^Finished: [1-4] ok/);
     expect(await fs.readdir(out)).not.toHaveLength(0);
     await shot(page, '07-batch-finished');
+  });
+
+  it('the cohort view shows the four dosage conditions (from the demo samples.csv), the dosage test and the report figures', async () => {
+    const { page } = h;
     await page.getByTestId('tab-cohort').click();
     await page.getByTestId('cohort-view').waitFor();
+    // Demo data: the demo sample sheet lists dosages 0.5, 1, 2 and 4 (one embryo each with the 4-file subset).
+    const names = await page.getByTestId('cohort-condition').evaluateAll((rows) => rows.map((r) => r.getAttribute('data-name')));
+    expect(names).toEqual(['dosage-0.5x', 'dosage-1x', 'dosage-2x', 'dosage-4x']);
+    expect(await page.getByTestId('cohort-n').allTextContents()).toEqual(['1', '1', '1', '1']);
+    expect(await text(page, 'cohort-conditions')).toContain('(reference)');
+    // n = 1 per condition: values without intervals, never NaN.
+    expect(await text(page, 'cohort-view')).not.toMatch(/NaN/);
+    await page.getByTestId('cohort-dosage').waitFor();
+    expect(await page.getByTestId('cohort-slope').count()).toBeGreaterThan(0);
+    const shiftConditions = await page.getByTestId('cohort-shift').evaluateAll((rows) => rows.map((r) => r.getAttribute('data-condition')));
+    expect(new Set(shiftConditions)).toEqual(new Set(['dosage-0.5x', 'dosage-2x', 'dosage-4x']));
+    expect(await page.locator('[data-testid=cohort-figure] svg').count()).toBeGreaterThanOrEqual(4);
+    const report = await text(page, 'cohort-report');
+    expect(report).toMatch(/report\.html$/);
+    expect((await fs.readFile(report, 'utf8')).startsWith('<!DOCTYPE html>')).toBe(true);
+    // The figures keep their own colours: the window's plot styles must not repaint the injected SVG.
+    const strokes = await page.locator('[data-testid=cohort-figure][data-name=cohort-profiles] .mean-line')
+      .evaluateAll((lines) => lines.map((l) => [getComputedStyle(l).stroke, l.getAttribute('stroke')]));
+    expect(strokes).toHaveLength(4);
+    expect(new Set(strokes.map(([computed]) => computed)).size).toBe(4);
     await shot(page, '08-cohort');
+    await page.getByTestId('cohort-figure').first().scrollIntoViewIfNeeded();
+    await shot(page, '08b-cohort-figures');
+    for (const fig of await page.getByTestId('cohort-figure').all()) {
+      await fig.screenshot({ path: join(ARTIFACTS, `08c-figure-${await fig.getAttribute('data-name')}.png`) });
+    }
   });
 });

@@ -272,6 +272,33 @@ describe('batches', () => {
   });
 });
 
+describe('batches with a sample sheet', () => {
+  it('passes samples.csv from the batch folder to the engine for the cohort step, and null without one', async () => {
+    const opened = value(await api.chooseFolder())!;
+    answers.out = join(root, 'out');
+    await mkdir(answers.out);
+    value(await api.chooseOutputFolder());
+    value(await api.runBatch(images, answers.out, opened.project));
+    expect(engine.batchOptions[0].sampleSheetPath).toBeNull();
+    await writeFile(join(images, 'samples.csv'), 'file,condition,dosage\na.ome.tif,ref,1\n');
+    value(await api.runBatch(images, answers.out, opened.project));
+    expect(engine.batchOptions[1].sampleSheetPath).toBe(join(images, 'samples.csv'));
+  });
+
+  it('still refuses a second batch while one runs (the sheet lookup happens before the check)', async () => {
+    const opened = value(await api.chooseFolder())!;
+    await writeFile(join(images, 'samples.csv'), 'file,condition\n');
+    answers.out = join(root, 'out');
+    await mkdir(answers.out);
+    value(await api.chooseOutputFolder());
+    const first = api.runBatch(images, answers.out, opened.project);
+    const second = api.runBatch(images, answers.out, opened.project);
+    const results = await Promise.all([first, second]);
+    expect(results.filter((r) => r.ok)).toHaveLength(1);
+    expect(results.map((r) => (r.ok ? 'ok' : r.error.code)).sort()).toEqual(['busy', 'ok']);
+  });
+});
+
 describe('exports', () => {
   it('writes text through the save dialog, adding the extension', async () => {
     answers.save = join(root, 'profile');

@@ -86,4 +86,36 @@ describe('handlers with the real analysis engine', () => {
     expect(new Set(progress.map((p) => p.runId))).toEqual(new Set([summary.runId]));
     expect(await readdir(outDir)).toEqual(expect.arrayContaining(['embryos.csv', 'results.json']));
   });
+
+  it('runs the cohort step with the demo samples.csv: conditions, shifts and figures for the window, report.html on disk', async () => {
+    outDir = join(root, 'results-cohort');
+    await mkdir(outDir);
+    value(await api.chooseOutputFolder());
+    const summary = value(await api.runBatch(demo.folder, outDir, demo.project));
+    expect(summary.cohortError ?? null).toBeNull();
+    const c = summary.cohort;
+    if (!c) throw new Error('expected a cohort summary');
+    // Demo data: the 2-file subset holds one embryo of dosage 0.5 and one of the reference dosage 1.
+    expect(c.conditions.map((r) => [r.name, r.dosage, r.n, r.isReference])).toEqual([['dosage-0.5x', 0.5, 1, false], ['dosage-1x', 1, 1, true]]);
+    expect(c.sampleSheetPath).toBe(join(demo.folder, 'samples.csv'));
+    expect(c.reportPath).toBe(join(outDir, 'report.html'));
+    expect(new Set(c.shifts.map((s) => s.condition))).toEqual(new Set(['dosage-0.5x']));
+    // Threshold model sign rule: f < 1 moves the boundary anterior.
+    expect(c.shifts.every((s) => s.observedShiftEl < 0)).toBe(true);
+    expect(c.figures.map((f) => f.name)).toEqual(expect.arrayContaining(['cohort-profiles', 'lambda-by-condition', 'positional-error']));
+    const files = await readdir(outDir);
+    expect(files).toEqual(expect.arrayContaining(['report.html', 'conditions.csv', 'shifts.csv', 'dosage_fit.csv', ...c.figures.map((f) => `${f.name}.svg`)]));
+  });
+
+  it('reports a malformed sample sheet as a one-line cohort error; the batch tables are still written', async () => {
+    outDir = join(root, 'results-bad-sheet');
+    await mkdir(outDir);
+    value(await api.chooseOutputFolder());
+    await writeFile(join(demo.folder, 'samples.csv'), 'file,group\nx.tif,a\n');
+    const summary = value(await api.runBatch(demo.folder, outDir, demo.project));
+    expect(summary.ok).toBe(2);
+    expect(summary.cohort).toBeNull();
+    expect(summary.cohortError).toBe('samples.csv: missing column "condition" (the header needs file, condition; dosage is optional)');
+    expect(await readdir(outDir)).toEqual(expect.arrayContaining(['embryos.csv', 'results.json']));
+  });
 });

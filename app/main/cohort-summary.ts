@@ -1,0 +1,60 @@
+// The cohort step's numbers and figures for the window: the same analysis and figures report.html is built from
+// (core/cohort analyseCohort + core/figures cohortFigures over the batch results and the sample sheet).
+import { promises as fs } from 'node:fs';
+import { basename, join } from 'node:path';
+import { analyseCohort, CohortError, parseSampleSheet, type CohortAnalysis, type ConditionStat } from '../../core/cohort';
+import type { CohortConditionRow, CohortSummary } from '../../core/contract';
+import { cohortFigures } from '../../core/figures';
+import type { EmbryoResult } from '../../core/model';
+
+/** File name of the sample sheet the app looks for in a batch's input folder. */
+export const SAMPLE_SHEET_NAME = 'samples.csv';
+
+/** `<folder>/samples.csv` when it is a file, else null. */
+export async function findSampleSheet(folder: string): Promise<string | null> {
+  const path = join(folder, SAMPLE_SHEET_NAME);
+  const isFile = await fs.stat(path).then((s) => s.isFile(), () => false);
+  return isFile ? path : null;
+}
+
+/** Embryos of a condition that gave at least one value. */
+function embryoCount(a: CohortAnalysis, condition: string): number {
+  return new Set(a.observations.filter((o) => o.condition === condition).map((o) => o.file)).size;
+}
+
+function lambdaStat(a: CohortAnalysis, condition: string, unit: 'EL' | 'um'): ConditionStat | null {
+  return a.stats.find((s) => s.condition === condition && s.quantity === 'lambda' && s.unit === unit) ?? null;
+}
+
+/** One row per condition, in sample-sheet order. */
+export function conditionRows(a: CohortAnalysis): CohortConditionRow[] {
+  return a.conditions.map((c) => ({
+    name: c.name, dosage: c.dosage, factor: c.factor, isReference: c.name === a.reference, n: embryoCount(a, c.name),
+    lambdaEl: lambdaStat(a, c.name, 'EL'), lambdaUm: lambdaStat(a, c.name, 'um'),
+  }));
+}
+
+/** Plain-data summary of an analysis (figures included) for the renderer. */
+export function summariseCohort(a: CohortAnalysis, sampleSheetPath: string, outDir: string): CohortSummary {
+  return {
+    reportPath: join(outDir, 'report.html'), sampleSheetPath, reference: a.reference, level: a.options.level,
+    referenceLambda: a.referenceLambda, conditions: conditionRows(a), stats: a.stats, shifts: a.shifts, dosageFit: a.dosageFits,
+    figures: cohortFigures(a).map((f) => ({ name: f.name, title: f.title, svg: f.svg })), warnings: [...a.warnings],
+  };
+}
+
+/** Read the sample sheet and analyse the batch results with the cohort step's defaults (as `eggline batch --samples`).
+ *  Rejects with CohortError (one line naming the sheet) when the sheet cannot be read or parsed. */
+export async function cohortSummaryFor(
+  results: readonly EmbryoResult[], sampleSheetPath: string, reference: string | null, outDir: string,
+): Promise<CohortSummary> {
+  let text: string;
+  try {
+    text = await fs.readFile(sampleSheetPath, 'utf8');
+  } catch (e) {
+    throw new CohortError(`${sampleSheetPath}: cannot read the sample sheet (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+  }
+  const sheet = parseSampleSheet(text, basename(sampleSheetPath));
+  const analysis = analyseCohort(results, sheet, { reference, normalisation: 'none', lambdaPosteriorEl: null });
+  return summariseCohort(analysis, sampleSheetPath, outDir);
+}
