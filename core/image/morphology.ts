@@ -19,33 +19,12 @@ export function erode(mask: Mask, radiusPx: number): Mask {
   return { width: mask.width, height: mask.height, data: out };
 }
 
-/** 3×3 minimum (erode) or maximum (dilate) of a mask; pixels beyond the border count as background. */
-function square3(mask: Mask, keepIfAll: boolean): Mask {
-  const { width, height, data } = mask;
-  const out = new Uint8Array(data.length);
-  for (let y = 0; y < height; y++) {
-    for (let x = 0; x < width; x++) {
-      let any = 0;
-      let all = 1;
-      for (let dy = -1; dy <= 1; dy++) for (let dx = -1; dx <= 1; dx++) {
-        const xx = x + dx;
-        const yy = y + dy;
-        const v = xx >= 0 && yy >= 0 && xx < width && yy < height ? data[yy * width + xx] : 0;
-        any |= v;
-        all &= v;
-      }
-      out[y * width + x] = keepIfAll ? all : any;
-    }
-  }
-  return { width, height, data: out };
-}
-
 /**
  * Opening (erode then dilate): removes protrusions thinner than 2·radiusPx. A radius in [√2, 2) is exactly the 3×3
- * square (the 8 neighbours lie at 1 and √2), done directly because it is the common case and cheaper.
+ * square (the 8 neighbours lie at 1 and √2), done with the O(N) square filters because it is the common case.
  */
 export function open(mask: Mask, radiusPx: number): Mask {
-  if (radiusPx >= Math.SQRT2 && radiusPx < 2) return square3(square3(mask, true), false);
+  if (radiusPx >= Math.SQRT2 && radiusPx < 2) return squareDilate(squareErode(mask, 1), 1);
   return dilate(erode(mask, radiusPx), radiusPx);
 }
 

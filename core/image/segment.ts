@@ -120,6 +120,39 @@ function nearLocalLevel(channels: readonly Plane[], o: Required<SegmentOptions>)
   return keep;
 }
 
+/** The part of a plane inside box, as a plane of its own. */
+function cropPlane(plane: Plane, box: PixelBox): Plane {
+  const cw = box.x1 - box.x0;
+  const data = new Float32Array(cw * (box.y1 - box.y0));
+  for (let y = box.y0; y < box.y1; y++) data.set(plane.data.subarray(y * plane.width + box.x0, y * plane.width + box.x1), (y - box.y0) * cw);
+  return { width: cw, height: box.y1 - box.y0, data };
+}
+
+/** Pixel rectangle [x0, x1) × [y0, y1). */
+interface PixelBox { readonly x0: number; readonly y0: number; readonly x1: number; readonly y1: number }
+
+/** Bounding box of the pixels where 0 < up < 1, grown by marginPx and clipped to the image; null when none. */
+function bandBox(up: Float32Array, width: number, height: number, marginPx: number): PixelBox | null {
+  let x0 = width; let y0 = height; let x1 = -1; let y1 = -1;
+  for (let y = 0; y < height; y++) {
+    const o = y * width;
+    for (let x = 0; x < width; x++) {
+      const u = up[o + x];
+      if (!(u > 0 && u < 1)) continue;
+      if (x < x0) x0 = x;
+      if (x > x1) x1 = x;
+      if (y < y0) y0 = y;
+      y1 = y;
+    }
+  }
+  if (x1 < 0) return null;
+  const m = Math.ceil(marginPx);
+  return { x0: Math.max(0, x0 - m), y0: Math.max(0, y0 - m), x1: Math.min(width, x1 + 1 + m), y1: Math.min(height, y1 + 1 + m) };
+}
+
+/** Background ring (px) kept around the band when refining the edge at full resolution. */
+const REFINE_RING_PX = 32;
+
 /** Long side (px) that automatic binning aims at: large enough for the outline, small enough to be quick. */
 const BINNED_LONG_SIDE_PX = 384;
 
@@ -146,12 +179,44 @@ export function binMean(plane: Plane, f: number): Plane {
 }
 
 /**
+ * The 0/1 mask smoothed by the separable [1 2 1]/4 kernel (edges replicated). Straight edges keep their 0.5 level;
+ * the corners of a blocky staircase are rounded, so the upsampled outline has no bumps at block corners (an outline's
+ * extremes, the poles, would pick them up).
+ */
+function smooth121(mask: Mask): Float32Array {
+  const { width: w, height: h, data } = mask;
+  const tmp = new Float32Array(w * h);
+  for (let y = 0; y < h; y++) {
+    const o = y * w;
+    for (let x = 0; x < w; x++) tmp[o + x] = (data[o + Math.max(0, x - 1)] + 2 * data[o + x] + data[o + Math.min(w - 1, x + 1)]) / 4;
+  }
+  const out = new Float32Array(w * h);
+  for (let y = 0; y < h; y++) {
+    const up = Math.max(0, y - 1) * w;
+    const o = y * w;
+    const down = Math.min(h - 1, y + 1) * w;
+    for (let x = 0; x < w; x++) out[o + x] = (tmp[up + x] + 2 * tmp[o + x] + tmp[down + x]) / 4;
+  }
+  return out;
+}
+
+/**
  * Full-size mask from a mask binned by f: bilinear interpolation of the 0/1 values at each full-size pixel centre
- * (block centre of bin j at f·j + (f − 1)/2), kept where it reaches 0.5, so the edge stays smooth, not blocky.
+ * (block centre of bin j at f·j + (f − 1)/2) after [1 2 1] smoothing, kept where it reaches 0.5, so the edge is
+ * smooth, not blocky.
  */
 export function upsampleMask(small: Mask, f: number, width: number, height: number): Mask {
-  const { width: sw, height: sh, data: sd } = small;
+  const up = smoothUpsampled(small, f, width, height);
   const out = new Uint8Array(width * height);
+  for (let i = 0; i < out.length; i++) out[i] = up[i] >= 0.5 ? 1 : 0;
+  return { width, height, data: out };
+}
+
+/** The binned mask after [1 2 1] smoothing, bilinearly interpolated at every full-size pixel centre (0..1). */
+function smoothUpsampled(small: Mask, f: number, width: number, height: number): Float32Array {
+  const { width: sw, height: sh } = small;
+  const sd = smooth121(small);
+  const out = new Float32Array(width * height);
   const x0 = new Int32Array(width);
   const x1 = new Int32Array(width);
   const fx = new Float64Array(width);
@@ -172,10 +237,10 @@ export function upsampleMask(small: Mask, f: number, width: number, height: numb
       const b = x1[x];
       const top = sd[r0 + a] + (sd[r0 + b] - sd[r0 + a]) * fx[x];
       const bottom = sd[r1 + a] + (sd[r1 + b] - sd[r1 + a]) * fx[x];
-      out[o + x] = top + (bottom - top) * fy >= 0.5 ? 1 : 0;
+      out[o + x] = top + (bottom - top) * fy;
     }
   }
-  return { width, height, data: out };
+  return out;
 }
 
 /**
@@ -197,7 +262,39 @@ export function segmentEmbryo(channels: readonly Plane[], options: SegmentOption
     ...o, coarseSigmaPx: o.coarseSigmaPx / bin, fineSigmaPx: o.fineSigmaPx / bin, localRadiusPx: o.localRadiusPx / bin,
     coarseDownsample: 1, binFactor: 1,
   });
-  return upsampleMask(small, bin, width, height);
+  return refineEdge(smoothUpsampled(small, bin, width, height), channels, o);
+}
+
+/**
+ * Full-size mask from the smoothed, upsampled binned mask `up` (0..1): pixels where it is 0 or 1 keep that value;
+ * in the band between (within about a block of the binned edge) the full-resolution edge rule of nearLocalLevel
+ * decides, so the outline sits where it would without binning. The largest region is kept and its holes filled.
+ */
+function refineEdge(up: Float32Array, channels: readonly Plane[], o: Required<SegmentOptions>): Mask {
+  const { width, height } = channels[0];
+  // The edge rule runs on a crop around the band: wide enough that the smoothing and the local-maximum window
+  // reach no crop border from a band pixel, and that a ring of background sets the noise level as in the whole image.
+  const box = bandBox(up, width, height, Math.round(o.localRadiusPx) + 4 * o.fineSigmaPx + REFINE_RING_PX);
+  const out = new Uint8Array(width * height);
+  if (box === null) {
+    for (let i = 0; i < out.length; i++) out[i] = up[i] >= 1 ? 1 : 0;
+    return fillHoles(largestComponent({ width, height, data: out }));
+  }
+  // The whole region lies inside the box (its edge band does) and the box's rim is background (or the image
+  // border), so cleaning up the crop alone gives the same mask as cleaning up the whole frame.
+  const keep = nearLocalLevel(channels.map((c) => cropPlane(c, box)), o);
+  const cw = box.x1 - box.x0;
+  const ch = box.y1 - box.y0;
+  const crop = new Uint8Array(cw * ch);
+  for (let y = 0; y < ch; y++) {
+    for (let x = 0; x < cw; x++) {
+      const u = up[(y + box.y0) * width + x + box.x0];
+      crop[y * cw + x] = u >= 1 || (u > 0 && keep[y * cw + x]) ? 1 : 0;
+    }
+  }
+  const clean = fillHoles(largestComponent(open({ width: cw, height: ch, data: crop }, 1.5))).data;
+  for (let y = 0; y < ch; y++) out.set(clean.subarray(y * cw, (y + 1) * cw), (y + box.y0) * width + box.x0);
+  return { width, height, data: out };
 }
 
 /** segmentEmbryo at the channels' own scale (checked options). */
