@@ -33,6 +33,8 @@ export function BatchPanel({ batch, folder, fileCount, onChooseOutput, onRun, on
       {batch.summary && (
         <>
           <p data-testid="batch-summary">{batch.summary.cancelled ? 'Cancelled' : 'Finished'}: {batch.summary.ok} ok, {batch.summary.failed} failed · written to <code>{batch.summary.outDir}</code></p>
+          {batch.summary.cohort && <p className="muted" data-testid="batch-cohort">Conditions compared ({batch.summary.cohort.conditions.length}, from samples.csv): see the Cohort tab · report <code>{batch.summary.cohort.reportPath}</code></p>}
+          {batch.summary.cohortError && <p className="error" data-testid="batch-cohort-error">The cohort step failed: {batch.summary.cohortError}</p>}
           <table className="results" data-testid="batch-results"><thead><tr><th>file</th><th>status</th><th>λ µm</th><th>± SE</th><th>λ/EL</th><th>R²</th><th>EL µm</th><th>boundaries (x/EL)</th><th>message</th></tr></thead>
             <tbody>{batch.summary.results.map((r) => (
               <tr key={r.file} className={r.status === 'error' ? 'row-error' : ''}>

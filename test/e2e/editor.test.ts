@@ -204,6 +204,8 @@ describe('editor window', { timeout: 150_000 }, () => {
     const summary = await text(page, 'batch-summary');
     expect(summary).toMatch(/^Finished: [1-4] ok/);
     expect(await fs.readdir(out)).not.toHaveLength(0);
+    // The demo folder has samples.csv, so the cohort step ran after the batch.
+    expect(await text(page, 'batch-cohort')).toMatch(/^Conditions compared \(4, from samples\.csv\)/);
     await shot(page, '07-batch-finished');
   });
 
