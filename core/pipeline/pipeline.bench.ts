@@ -26,7 +26,7 @@ cpu = process.cpuUsage();
 const embryo = makeSyntheticEmbryo({ widthPx: 1024, heightPx: 1024, pixelSizeUm: 0.6, sizeZ: 24, zStepUm: 1, angleDeg: 33 }, 1);
 console.log(`synth 1024×1024×24z×2ch         ${ms(t)}`);
 
-for (let run = 0; run < 4; run++) {
+for (let run = 0; run < 6; run++) {
   const t0 = performance.now();
   t = t0;
   cpu = process.cpuUsage();
