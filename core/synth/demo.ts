@@ -1,4 +1,5 @@
 // The demo data set (demo data, our own invented scenario): a gene-dosage series of synthetic embryos.
+import { createRng } from '../stats';
 import { DEFAULT_SYNTH_PARAMS } from './params';
 import type { SyntheticEmbryoParams } from './params';
 
@@ -18,8 +19,36 @@ export const DEMO_DOSAGES: readonly number[] = [0.5, 1, 2, 4];
 export const DEMO_EMBRYOS_PER_CONDITION = 6;
 
 /**
- * The demo dosage series: 4 conditions × 6 embryos (512×384 px, 8 slices, 2 channels). The boundary and furrow
- * thresholds are fixed, so they move by λ·ln f with dosage factor f (λ = 100 µm, boundary at 0.35 EL for f = 1).
+ * Embryo-to-embryo variation of the demo scenario, as coefficients of variation (demo data: invented values of a
+ * plausible size, so the cohort statistics have something to show).
+ */
+export const DEMO_VARIATION = Object.freeze({ lambdaCv: 0.05, amplitudeCv: 0.1, eggLengthCv: 0.03, eggWidthCv: 0.03 });
+
+/**
+ * How much the furrow's gradient threshold follows the dosage: its threshold is multiplied by f^FURROW_BUFFERING, so
+ * the furrow moves by (1 − FURROW_BUFFERING)·λ·ln f instead of λ·ln f (demo scenario: a partly buffered landmark).
+ */
+export const FURROW_BUFFERING = 0.5;
+
+/** The parameters of one demo embryo: the defaults at dosage f, varied per embryo from its seed. */
+function demoParams(dosage: number, seed: number): SyntheticEmbryoParams {
+  const rng = createRng(seed ^ 0x5eed);
+  const vary = (value: number, cv: number): number => value * Math.max(0.5, 1 + cv * rng.normal());
+  const d = DEFAULT_SYNTH_PARAMS;
+  return {
+    ...d, dosage,
+    lambdaUm: vary(d.lambdaUm, DEMO_VARIATION.lambdaCv),
+    gradientAmplitude: vary(d.gradientAmplitude, DEMO_VARIATION.amplitudeCv),
+    eggLengthUm: vary(d.eggLengthUm, DEMO_VARIATION.eggLengthCv),
+    eggWidthUm: vary(d.eggWidthUm, DEMO_VARIATION.eggWidthCv),
+    furrowThreshold: d.furrowThreshold * dosage ** FURROW_BUFFERING,
+  };
+}
+
+/**
+ * The demo dosage series: 4 conditions × 6 embryos (512×384 px, 8 slices, 2 channels). The boundary threshold is
+ * fixed, so the boundary moves by λ·ln f with dosage factor f (λ ≈ 100 µm ≈ 0.2 EL, boundary near 0.35 EL at f = 1);
+ * the furrow is partly buffered (see FURROW_BUFFERING), so it moves about half as far as the threshold model predicts.
  */
 export function demoDataSet(): DemoItem[] {
   const items: DemoItem[] = [];
@@ -29,8 +58,7 @@ export function demoDataSet(): DemoItem[] {
       const seed = 7001 + ci * 100 + k;
       items.push({
         fileName: `${condition}_embryo-${String(k).padStart(2, '0')}.ome.tif`,
-        condition, dosage, seed,
-        params: { ...DEFAULT_SYNTH_PARAMS, dosage },
+        condition, dosage, seed, params: demoParams(dosage, seed),
       });
     }
   });

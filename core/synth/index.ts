@@ -3,6 +3,6 @@ export { makeSyntheticEmbryo } from './embryo';
 export type { SyntheticEmbryo, SyntheticTruth } from './embryo';
 export { DEFAULT_SYNTH_PARAMS, checkSynthParams } from './params';
 export type { SyntheticEmbryoParams } from './params';
-export { demoDataSet, DEMO_DOSAGES, DEMO_EMBRYOS_PER_CONDITION } from './demo';
+export { demoDataSet, DEMO_DOSAGES, DEMO_EMBRYOS_PER_CONDITION, DEMO_VARIATION, FURROW_BUFFERING } from './demo';
 export type { DemoItem } from './demo';
 export { syntheticStackInfo, syntheticPlaneSource } from './source';

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { makeSyntheticEmbryo } from './embryo';
-import { demoDataSet, DEMO_DOSAGES } from './demo';
+import { demoDataSet, DEMO_DOSAGES, FURROW_BUFFERING } from './demo';
+import { DEFAULT_SYNTH_PARAMS } from './params';
 import { ellipseDepth } from './ellipse-distance';
 import { checkSynthParams, DEFAULT_SYNTH_PARAMS } from './params';
 import { syntheticPlaneSource, syntheticStackInfo } from './source';
@@ -74,5 +75,26 @@ describe('demoDataSet', () => {
     expect(new Set(items.map((i) => i.seed)).size).toBe(24);
     expect(items[0].fileName).toBe('dosage-0.5x_embryo-01.ome.tif');
     expect(items.every((i) => i.params.dosage === i.dosage && i.params.widthPx === 512 && i.params.sizeZ === 8)).toBe(true);
+  });
+  it('varies λ, amplitude and egg length from embryo to embryo, deterministically', () => {
+    const items = demoDataSet();
+    const lambdas = items.map((i) => i.params.lambdaUm);
+    const meanLambda = lambdas.reduce((a, b) => a + b, 0) / lambdas.length;
+    const cv = Math.sqrt(lambdas.reduce((a, b) => a + (b - meanLambda) ** 2, 0) / (lambdas.length - 1)) / meanLambda;
+    expect(cv).toBeGreaterThan(0.02);
+    expect(cv).toBeLessThan(0.1);
+    expect(new Set(items.map((i) => i.params.gradientAmplitude)).size).toBe(24);
+    expect(demoDataSet()).toEqual(items);
+  });
+  it('buffers the furrow: its threshold follows f^0.5, so it moves by half of λ·ln f; the boundary threshold is fixed', () => {
+    // Threshold rule (demo scenario): x = λ·ln(A·f / T) / L in x/EL, so the shift from f = 1 is λ·ln f·(1 − 0.5) / L.
+    for (const item of demoDataSet()) {
+      const p = item.params;
+      expect(p.boundaryThreshold).toBe(DEFAULT_SYNTH_PARAMS.boundaryThreshold);
+      expect(p.furrowThreshold).toBeCloseTo(DEFAULT_SYNTH_PARAMS.furrowThreshold * Math.sqrt(item.dosage), 9);
+      const furrowEl = (t: number, f: number): number => (p.lambdaUm * Math.log((p.gradientAmplitude * f) / t)) / p.eggLengthUm;
+      const shift = furrowEl(p.furrowThreshold, item.dosage) - furrowEl(DEFAULT_SYNTH_PARAMS.furrowThreshold, 1);
+      expect(shift).toBeCloseTo(((1 - FURROW_BUFFERING) * p.lambdaUm * Math.log(item.dosage)) / p.eggLengthUm, 9);
+    }
   });
 });
