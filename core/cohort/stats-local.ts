@@ -1,6 +1,6 @@
 // Thin NaN-tolerant wrappers over core/stats: the cohort tables must show an empty cell (not stop) when a
 // condition has one embryo, or a regression has no spread in ln f.
-import { linearRegression, mean, sd, tQuantile } from '../stats';
+import { linearRegression, mean, sd, tQuantile, type LinearRegression } from '../stats';
 
 /** Arithmetic mean (NaN for an empty list). */
 export function meanOf(values: readonly number[]): number {
@@ -18,17 +18,7 @@ export function tQuantileOf(p: number, dof: number): number {
 }
 
 /** Ordinary least squares y = intercept + slope·x with t-based CIs at `level` (two-sided). */
-export interface LineFit {
-  readonly slope: number;
-  readonly intercept: number;
-  readonly slopeSe: number;
-  readonly interceptSe: number;
-  readonly slopeCi: readonly [number, number];
-  readonly interceptCi: readonly [number, number];
-  readonly r2: number;
-  readonly n: number;
-  readonly dof: number;
-}
+export type LineFit = Omit<LinearRegression, 'residualSd' | 'level'>;
 
 /** Fit a straight line; every field NaN (n kept) when n < 2 or x has no spread. */
 export function fitLine(x: readonly number[], y: readonly number[], level = 0.95): LineFit {

@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { makeSyntheticEmbryo } from './embryo';
 import { demoDataSet, DEMO_DOSAGES, FURROW_BUFFERING } from './demo';
-import { DEFAULT_SYNTH_PARAMS } from './params';
 import { ellipseDepth } from './ellipse-distance';
 import { checkSynthParams, DEFAULT_SYNTH_PARAMS } from './params';
 import { syntheticPlaneSource, syntheticStackInfo } from './source';
