@@ -1,6 +1,7 @@
 // The editor window: file list and settings on the left, image over straightened strip over profile in the middle,
 // numbers, display and landmarks on the right; batch and cohort views as tabs.
 import { useCallback, useEffect, useMemo, useReducer, useRef, useState } from 'react';
+import { MENU_OPEN_RECENT_PREFIX } from '../core/contract';
 import type { Plane } from '../core/model';
 import { getApi } from './api';
 import { BatchPanel } from './components/BatchPanel';
@@ -42,7 +43,7 @@ export function App() {
   const [zSlice, setZSlice] = useState<number | null>(null);
   const [slicePlanes, setSlicePlanes] = useState<Plane[] | null>(null);
   const select = useCallback((name: string | null) => { if (name !== null) { dispatch({ type: 'selectFile', key: name, autoAxis: null }); setZSlice(null); } }, []);
-  const { session, openDemo, openFolder, openProject, openFiles, setMessage } = useSession(api, dispatch, select);
+  const { session, openDemo, openFolder, openProject, openFiles, openRecent, openAtStart, setMessage } = useSession(api, dispatch, select);
   const [help, setHelp] = useState(false);
   const [exportMenu, setExportMenu] = useState(false);
   const entry = session.entries.find((e) => e.name === state.current) ?? null;
@@ -55,7 +56,7 @@ export function App() {
   const centre = useRef<HTMLDivElement>(null);
   const centreSize = useElementSize(centre);
 
-  useEffect(() => { void openDemo(); }, []);
+  useEffect(() => { void openAtStart(); }, []);
 
   // A newly loaded stack brings its automatic axis and fresh display ranges.
   useEffect(() => {
@@ -130,6 +131,8 @@ export function App() {
       case 'open-project': void openProject(); break;
       case 'open-demo': void openDemo(); break;
       case 'export': setTab('embryo'); setExportMenu(true); break;
+      default:
+        if (cmd.startsWith(MENU_OPEN_RECENT_PREFIX)) void openRecent(cmd.slice(MENU_OPEN_RECENT_PREFIX.length));
     }
   };
   const commandRef = useRef(runCommand);

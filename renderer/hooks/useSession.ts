@@ -55,5 +55,25 @@ export function useSession(api: EgglineApi | null, dispatch: Dispatch<EditorActi
     setSession({ folder: null, entries: r.value, projectPath: null, message: 'Loose files: hand edits are not saved (open their folder to keep them in a project).', opening: false });
     onOpened(r.value[0]?.name ?? null);
   });
-  return { session, openDemo, openFolder, openProject, openFiles, setMessage: (m: string | null) => setSession((s) => ({ ...s, message: m })) };
+  /** Reopen a recent folder or files (File ▸ Recent); false when it could not be opened. */
+  const openRecent = async (path: string): Promise<boolean> => {
+    if (api === null || api.openRecent === undefined) return false;
+    const r = await api.openRecent(path);
+    if (!r.ok) { fail(r.error.message); return false; }
+    if (r.value.kind === 'folder') adopt(r.value);
+    else {
+      setSession({ folder: null, entries: r.value.entries, projectPath: null, message: null, opening: false });
+      onOpened(r.value.entries[0]?.name ?? null);
+    }
+    return true;
+  };
+  /** At start: the most recent folder (so yesterday's work is where it was left), else the demo data. */
+  const openAtStart = () => wrap(async () => {
+    if (api === null) return;
+    const recent = await api.recent();
+    const last = recent.ok ? recent.value[0] : undefined;
+    if (last !== undefined && (await openRecent(last))) return;
+    await openDemo();
+  });
+  return { session, openDemo, openFolder, openProject, openFiles, openRecent, openAtStart, setMessage: (m: string | null) => setSession((s) => ({ ...s, message: m })) };
 }
