@@ -1,5 +1,6 @@
 // Data types of the cohort step. Positions along the AP axis are x/EL (0 = anterior pole, 1 = posterior pole).
 import type { EmbryoResult } from '../model';
+import type { SampleSummary } from './describe';
 
 /** How gradient profiles are scaled before averaging: none, divided by the fitted amplitude A, or to [0, 1]. */
 export type Normalisation = 'none' | 'amplitude' | 'minmax';
@@ -68,18 +69,12 @@ export interface Observation {
 }
 
 /** Summary of one quantity in one condition; `sd` of a boundary or landmark is its positional error. */
-export interface ConditionStat {
+export interface ConditionStat extends SampleSummary {
   readonly condition: string;
   readonly dosage: number | null;
   readonly quantity: string;
   readonly kind: QuantityKind;
   readonly unit: QuantityUnit;
-  readonly n: number;
-  readonly mean: number;
-  readonly sd: number;
-  readonly sem: number;
-  readonly ciLow: number;
-  readonly ciHigh: number;
 }
 
 /** The λ (x/EL) the threshold-model prediction uses, measured on the reference condition. */
