@@ -10,7 +10,7 @@ const ROWS: [string, string][] = [
   ['F or 0', 'fit the image to the window'],
   ['drag the yellow lines', 'change the fit range on the profile'],
   ['PgDn / PgUp or ] / [', 'next / previous file'],
-  ['Ctrl+Z, Ctrl+Shift+Z', 'undo, redo (settings and hand edits)'],
+  ['Ctrl+Z, Ctrl+Shift+Z', "undo, redo (the settings and the shown file's hand edits; other files are never changed)"],
   ['Ctrl+S', 'save now (edits also save themselves)'],
 ];
 

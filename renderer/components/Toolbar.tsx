@@ -3,6 +3,7 @@ import type { Dispatch } from 'react';
 import type { SaveStatus } from '../hooks/useAutosave';
 import { EXPORT_LABELS } from '../hooks/useExports';
 import type { ExportCommand } from '../hooks/useExports';
+import { canRedo, canUndo } from '../state';
 import type { EditorAction, EditorState, ToolName } from '../state';
 
 /** Props of the toolbar. */
@@ -53,8 +54,8 @@ export function Toolbar(p: ToolbarProps) {
       <button data-testid="swap" title="Swap anterior and posterior (S)" onClick={() => dispatch({ type: 'swapPoles' })}>Swap A↔P</button>
       <button title="Back to the automatic axis" onClick={() => dispatch({ type: 'resetAxis' })}>Auto axis</button>
       <span className="sep" />
-      <button data-testid="undo" disabled={state.past.length === 0} title="Undo (Ctrl+Z)" onClick={() => dispatch({ type: 'undo' })}>Undo</button>
-      <button data-testid="redo" disabled={state.future.length === 0} title="Redo (Ctrl+Shift+Z)" onClick={() => dispatch({ type: 'redo' })}>Redo</button>
+      <button data-testid="undo" disabled={!canUndo(state)} title="Undo the last edit of this file or the settings (Ctrl+Z)" onClick={() => dispatch({ type: 'undo' })}>Undo</button>
+      <button data-testid="redo" disabled={!canRedo(state)} title="Redo (Ctrl+Shift+Z)" onClick={() => dispatch({ type: 'redo' })}>Redo</button>
       <span className="sep" />
       <button title="Fit to window (F)" onClick={p.onFit}>Fit</button>
       <span className="zoom">{Math.round(state.view.zoom * 100)}%</span>

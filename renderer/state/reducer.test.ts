@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import type { ApAxis } from '../../core/model';
 import { currentEdits, effectiveAxis, effectiveFitRange } from './fileEdits';
 import { initialState } from './initial';
-import { editorReducer as reduce, perform } from './reducer';
+import { canRedo, canUndo, editorReducer as reduce, perform } from './reducer';
 import type { EditorAction, EditorState } from './types';
 
 const AUTO: ApAxis = { anterior: { x: 10, y: 50 }, posterior: { x: 90, y: 50 }, source: 'auto' };
@@ -196,5 +196,59 @@ describe('undo / redo', () => {
   it('bumps the revision on every document change', () => {
     const s = run(opened(), { type: 'swapPoles' }, { type: 'undo' });
     expect(s.revision).toBe(2);
+  });
+});
+
+describe('undo / redo act on the shown file only', () => {
+  const AUTO2: ApAxis = { anterior: { x: 5, y: 20 }, posterior: { x: 70, y: 20 }, source: 'auto' };
+  const toE2 = { type: 'selectFile', key: 'e2.tif', autoAxis: AUTO2 } as const;
+  const toE1 = { type: 'selectFile', key: 'e1.tif', autoAxis: AUTO } as const;
+
+  it('undo on another file never changes the file edited before', () => {
+    const s = run(opened(), { type: 'swapPoles' }, toE2, { type: 'undo' });
+    expect(s.doc.files['e1.tif'].axis?.source).toBe('hand');
+    expect(canUndo(s)).toBe(false);
+    expect(s.revision).toBe(1);
+  });
+  it('undo skips other files\' edits and steps back the shown file\'s last edit', () => {
+    const s = run(opened(), { type: 'addLandmark', point: { x: 1, y: 1 } }, toE2, { type: 'swapPoles' }, toE1, { type: 'undo' });
+    expect(s.doc.files['e1.tif']).toBeUndefined();
+    expect(s.doc.files['e2.tif'].axis).toEqual({ anterior: AUTO2.posterior, posterior: AUTO2.anterior, source: 'hand' });
+    // Back on e2 its own edit is still undoable, and undoing it leaves e1 alone.
+    const back = run(s, toE2, { type: 'undo' });
+    expect(back.doc.files['e2.tif']).toBeUndefined();
+    expect(back.doc.files['e1.tif']).toBeUndefined();
+    expect(canUndo(back)).toBe(false);
+  });
+  it('redo re-applies only the shown file\'s undone edit', () => {
+    const s = run(opened(), { type: 'swapPoles' }, { type: 'undo' }, toE2);
+    expect(canRedo(s)).toBe(false);
+    expect(reduce(s, { type: 'redo' })).toBe(s);
+    const r = run(s, toE1, { type: 'redo' });
+    expect(effectiveAxis(r)?.source).toBe('hand');
+  });
+  it('redo restores the end of a coalesced drag, not its first step', () => {
+    const s = run(opened(),
+      { type: 'setAxisHandle', end: 'posterior', point: { x: 80, y: 50 } },
+      { type: 'setAxisHandle', end: 'posterior', point: { x: 70, y: 45 }, coalesce: true },
+      { type: 'undo' }, { type: 'redo' });
+    expect(effectiveAxis(s)?.posterior).toEqual({ x: 70, y: 45 });
+  });
+  it('settings edits apply to every file, so undo reaches them from any file', () => {
+    const s = run(opened(), { type: 'setSetting', patch: { projection: 'max' } }, toE2);
+    expect(canUndo(s)).toBe(true);
+    const u = reduce(s, { type: 'undo' });
+    expect(u.doc.settings.projection).toBe(opened().doc.settings.projection);
+  });
+  it('a new edit clears redo of the same file only', () => {
+    const s = run(opened(), { type: 'swapPoles' }, { type: 'undo' }, toE2, { type: 'swapPoles' }, toE1);
+    expect(canRedo(s)).toBe(true);
+    const t = run(s, { type: 'addLandmark', point: { x: 2, y: 2 } });
+    expect(canRedo(t)).toBe(false);
+    expect(t.future).toHaveLength(0);
+  });
+  it('undoing a file\'s first edit removes its entry again (as before any edit)', () => {
+    const s = run(opened(), { type: 'swapPoles' }, { type: 'undo' });
+    expect('e1.tif' in s.doc.files).toBe(false);
   });
 });

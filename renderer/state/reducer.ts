@@ -2,6 +2,7 @@
 import { resetAxis, setAxisHandle, swapPoles } from './axisActions';
 import { addLandmark, deleteLandmark, moveLandmark, renameLandmark } from './landmarkActions';
 import { setFitRange, setSetting } from './settingsActions';
+import { entriesForChange, entryApplies, restoreEntry, sameScope, snapshotLike } from './history';
 import type { ActionOutcome, EditorAction, EditorState } from './types';
 import {
   initChannelDisplay, openDoc, selectFile, selectLandmark, setChannelDisplay, setDisplayMode, setTool, setView,
@@ -35,18 +36,39 @@ export function perform(state: EditorState, action: EditorAction): ActionOutcome
   }
 }
 
-/** Step back one document edit (no-op with empty history). */
-export function undo(state: EditorState): EditorState {
-  if (state.past.length === 0) return state;
-  const doc = state.past[state.past.length - 1];
-  return { ...state, doc, past: state.past.slice(0, -1), future: [state.doc, ...state.future], selectedLandmark: null, revision: state.revision + 1 };
+/** Index of the last undo step that acts on the shown file or the settings (-1: none). */
+function undoIndex(state: EditorState): number {
+  for (let i = state.past.length - 1; i >= 0; i -= 1) if (entryApplies(state.past[i], state.current)) return i;
+  return -1;
 }
 
-/** Re-apply the last undone edit (no-op when there is none). */
+/** Index of the next redo step that acts on the shown file or the settings (-1: none). */
+const redoIndex = (state: EditorState): number => state.future.findIndex((e) => entryApplies(e, state.current));
+
+/** Whether undo would change anything for the shown file (its edits or the settings). */
+export const canUndo = (state: EditorState): boolean => undoIndex(state) >= 0;
+
+/** Whether redo would change anything for the shown file (its edits or the settings). */
+export const canRedo = (state: EditorState): boolean => redoIndex(state) >= 0;
+
+/** Step back the last edit of the shown file or the settings; other files' edits are never touched. */
+export function undo(state: EditorState): EditorState {
+  const i = undoIndex(state);
+  if (i < 0) return state;
+  const entry = state.past[i];
+  const past = [...state.past.slice(0, i), ...state.past.slice(i + 1)];
+  const future = [snapshotLike(state.doc, entry), ...state.future];
+  return { ...state, doc: restoreEntry(state.doc, entry), past, future, selectedLandmark: null, revision: state.revision + 1 };
+}
+
+/** Re-apply the last undone edit of the shown file or the settings (no-op when there is none). */
 export function redo(state: EditorState): EditorState {
-  if (state.future.length === 0) return state;
-  const [doc, ...future] = state.future;
-  return { ...state, doc, past: [...state.past, state.doc], future, selectedLandmark: null, revision: state.revision + 1 };
+  const i = redoIndex(state);
+  if (i < 0) return state;
+  const entry = state.future[i];
+  const future = [...state.future.slice(0, i), ...state.future.slice(i + 1)];
+  const past = [...state.past, snapshotLike(state.doc, entry)];
+  return { ...state, doc: restoreEntry(state.doc, entry), past, future, selectedLandmark: null, revision: state.revision + 1 };
 }
 
 /** The React reducer: perform, then record the previous document when the action enters history. */
@@ -57,6 +79,9 @@ export function editorReducer(state: EditorState, action: EditorAction): EditorS
   if (!docChanged) return next;
   const revision = state.revision + 1;
   if (history === 'none') return { ...next, revision };
-  const past = [...state.past, state.doc].slice(-HISTORY_LIMIT);
-  return { ...next, past, future: [], revision };
+  // A new edit drops the redo steps of what it changed; redo steps of other files and the settings stay valid.
+  const entries = entriesForChange(state.doc, next.doc);
+  const past = [...state.past, ...entries].slice(-HISTORY_LIMIT);
+  const future = state.future.filter((f) => !entries.some((e) => sameScope(e, f)));
+  return { ...next, past, future, revision };
 }

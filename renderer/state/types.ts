@@ -3,6 +3,7 @@ import type { ApAxis, ImagePoint } from '../../core/model';
 import type { AnalysisSettings } from '../../core/settings';
 import type { FileEdits } from '../../core/contract';
 import type { ViewTransform } from '../geometry';
+import type { HistoryEntry } from './history';
 
 /** Pointer tools in the image view. */
 export type ToolName = 'pan' | 'axis' | 'landmark';
@@ -38,8 +39,10 @@ export interface EditorState {
   readonly view: ViewTransform;
   readonly tool: ToolName;
   readonly selectedLandmark: number | null;
-  readonly past: readonly DocState[];
-  readonly future: readonly DocState[];
+  /** Undo steps, oldest first; each acts on the settings or on one file (see history.ts). */
+  readonly past: readonly HistoryEntry[];
+  /** Redo steps, next first. */
+  readonly future: readonly HistoryEntry[];
   /** Bumped whenever doc changes, so the autosave effect can debounce on it. */
   readonly revision: number;
 }

@@ -37,7 +37,7 @@ export const setTool = (state: EditorState, tool: ToolName): ActionOutcome => sh
 /** Select a landmark (or none). */
 export const selectLandmark = (state: EditorState, index: number | null): ActionOutcome => shown({ ...state, selectedLandmark: index });
 
-/** Show another file: its automatic axis comes from the loaded stack; history is per session, so kept. */
+/** Show another file: its automatic axis comes from the loaded stack; history is kept (undo then reaches only this file's edits and the settings). */
 export function selectFile(state: EditorState, key: string, autoAxis: ApAxis | null): ActionOutcome {
   return shown({ ...state, current: key, autoAxis, selectedLandmark: null });
 }
