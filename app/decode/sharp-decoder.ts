@@ -35,8 +35,14 @@ async function decodePage(path: string, page: number, type: SampleType): Promise
   return { data, width: info.width, height: info.height, channels: info.channels };
 }
 
-/** Copies a Buffer into a fresh, aligned typed array of the sample type. */
+/**
+ * A typed array of the sample type over the decoded bytes: a view when the Buffer owns its whole, suitably aligned
+ * ArrayBuffer (sharp's output normally does), else an aligned copy. Why: a copy costs a pass over every plane.
+ */
 function toTypedArray(data: Buffer, type: SampleType): PixelArray {
+  const ctor = EXACT[type]!.array;
+  const owned = data.byteOffset === 0 && data.buffer.byteLength === data.length && !(data.buffer instanceof SharedArrayBuffer);
+  if (owned && data.length % (ctor as unknown as { BYTES_PER_ELEMENT: number }).BYTES_PER_ELEMENT === 0) return new ctor(data.buffer as ArrayBuffer);
   const copy = new ArrayBuffer(data.length);
   new Uint8Array(copy).set(data);
   return new EXACT[type]!.array(copy);

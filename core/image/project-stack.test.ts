@@ -89,3 +89,28 @@ describe('projectStack with non-finite values', () => {
     expect(p.warnings).toContain('2 projected pixel value(s) were NaN or infinite and were set to 0');
   });
 });
+
+describe('projectStack read-ahead', () => {
+  it('reads planes in stack order with at most one read ahead, and reports the first failing plane', async () => {
+    const { info } = tinyStack(known);
+    let inFlight = 0;
+    let most = 0;
+    const reads: string[] = [];
+    const source: PlaneSource = {
+      async readPlane(z, c) {
+        reads.push(`${z},${c}`);
+        inFlight++;
+        most = Math.max(most, inFlight);
+        await new Promise((r) => setTimeout(r, 1));
+        inFlight--;
+        // Demo data: every read from slice 1 on fails, so the prefetched read of a later plane fails too.
+        if (z >= 1) throw new Error(`plane z=${z} c=${c} is unreadable`);
+        return { width: 3, height: 1, data: new Uint16Array([1, 2, 3]) };
+      },
+      async close() { /* nothing */ },
+    };
+    await expect(projectStack(info, source, { ...DEFAULT_SETTINGS, projection: 'max' })).rejects.toThrow('plane z=1 c=0 is unreadable');
+    expect(reads.slice(0, 3)).toEqual(['0,0', '0,1', '1,0']);
+    expect(most).toBeLessThanOrEqual(2);
+  });
+});

@@ -34,6 +34,12 @@ function addMax(acc: Accumulator, d: ArrayLike<number>, n: number): void {
 }
 
 function addSum(acc: Accumulator, d: ArrayLike<number>, n: number): void {
+  if (acc instanceof Uint32Array && d instanceof Uint16Array) { addSumU16(acc, d, n); return; }
+  for (let i = 0; i < n; i++) acc[i] += d[i];
+}
+
+/** The common 16-bit case with both array types fixed, so the JIT emits one tight loop (same exact integer sums). */
+function addSumU16(acc: Uint32Array, d: Uint16Array, n: number): void {
   for (let i = 0; i < n; i++) acc[i] += d[i];
 }
 
