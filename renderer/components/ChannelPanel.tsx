@@ -48,7 +48,7 @@ export function ChannelPanel({ state, dispatch, planes, names, sizeZ, zSlice, on
             <button onClick={() => { const [low, high] = autoDisplayRange(plane); dispatch({ type: 'setChannelDisplay', index: active, patch: { low, high } }); }}>auto</button>
           </div>
           <Histogram plane={plane} low={d.low} high={d.high} colour={d.colour} onChange={(low, high) => dispatch({ type: 'setChannelDisplay', index: active, patch: { low, high } })} />
-          <div className="row muted small"><span>low {fmt(d.low, 4)}</span><span>high {fmt(d.high, 4)}</span></div>
+          <div className="row muted small"><span data-testid="display-low">low {fmt(d.low, 4)}</span><span data-testid="display-high">high {fmt(d.high, 4)}</span></div>
         </div>
       )}
       <div className="row">

@@ -36,7 +36,7 @@ export function Histogram({ plane, low, high, colour, onChange }: HistogramProps
       })}
       <line x1={toX(low)} x2={toX(high)} y1={H} y2={0} className="hist-ramp" />
       {(['low', 'high'] as const).map((k) => (
-        <g key={k} className="hist-handle" onPointerDown={(e) => { e.currentTarget.setPointerCapture(e.pointerId); drag.current = k; }}>
+        <g key={k} className="hist-handle" data-testid={`hist-${k}`} onPointerDown={(e) => { e.currentTarget.setPointerCapture(e.pointerId); drag.current = k; }}>
           <line x1={toX(k === 'low' ? low : high)} x2={toX(k === 'low' ? low : high)} y1={0} y2={H} />
           <rect x={toX(k === 'low' ? low : high) - 4} y={0} width={8} height={H} />
         </g>

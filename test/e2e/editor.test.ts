@@ -28,6 +28,16 @@ const drag = async (page: Page, from: { x: number; y: number }, to: { x: number;
 /** x/EL shown for the landmark named `name` in the landmark table. */
 const landmarkXel = (page: Page, name: string) => page.locator(`[data-testid=landmark-row][data-name="${name}"] [data-testid=landmark-xel]`).textContent().then((t) => t ?? '');
 const lambdaChanges = (page: Page, before: string) => expect.poll(() => text(page, 'lambda-um'), { timeout: 10_000 }).not.toBe(before);
+/** Mean of R+G+B over the image canvas (0–765): how bright the shown image is. */
+const canvasBrightness = (page: Page) => page.locator('.image-canvas').first().evaluate((c: HTMLCanvasElement) => {
+  const ctx = c.getContext('2d');
+  if (ctx === null) return -1;
+  const d = ctx.getImageData(0, 0, c.width, c.height).data;
+  let sum = 0;
+  for (let i = 0; i < d.length; i += 4) sum += d[i] + d[i + 1] + d[i + 2];
+  return sum / (d.length / 4);
+});
+const numberIn = (s: string) => Number(/-?\d+(\.\d+)?(e[-+]?\d+)?/i.exec(s)?.[0] ?? NaN);
 
 beforeAll(async () => {
   scratch = mkdtempSync(join(tmpdir(), 'eggline-e2e-'));
@@ -164,6 +174,30 @@ describe('editor window', { timeout: 150_000 }, () => {
     await expect.poll(() => page.locator('.channel-panel').textContent()).toMatch(/Z projection/);
   });
 
+  it('dragging the histogram\'s high handle lowers the display high and brightens the image', async () => {
+    const { page } = h;
+    const highBefore = numberIn(await text(page, 'display-high'));
+    const lowBefore = numberIn(await text(page, 'display-low'));
+    const brightBefore = await canvasBrightness(page);
+    const lambdaBefore = await text(page, 'lambda-um');
+    const hi = await centre(page, '[data-testid=hist-high] rect');
+    const lo = await centre(page, '[data-testid=hist-low] rect');
+    await page.locator('.channel-panel').screenshot({ path: join(ARTIFACTS, '06c-display-before.png') });
+    // Halfway towards the low handle: the display range roughly halves, so channel 1 is drawn brighter.
+    await drag(page, hi, { x: (hi.x + lo.x) / 2, y: hi.y });
+    await expect.poll(async () => numberIn(await text(page, 'display-high'))).toBeLessThan(highBefore);
+    const highAfter = numberIn(await text(page, 'display-high'));
+    expect(highAfter).toBeGreaterThan(lowBefore);
+    expect(numberIn(await text(page, 'display-low'))).toBe(lowBefore);
+    const handleAfter = await centre(page, '[data-testid=hist-high] rect');
+    expect(Math.abs(handleAfter.x - (hi.x + lo.x) / 2)).toBeLessThan(3);
+    await expect.poll(() => canvasBrightness(page)).toBeGreaterThan(brightBefore);
+    // Display only: the measurement is untouched.
+    expect(await text(page, 'lambda-um')).toBe(lambdaBefore);
+    await page.locator('.channel-panel').screenshot({ path: join(ARTIFACTS, '06d-display-high-dragged.png') });
+    await shot(page, '06e-display-high-dragged');
+  });
+
   it('exports the profile figure (SVG), the annotated image (PNG) and the profile table (CSV)', async () => {
     const { page } = h;
     const saveDir = join(scratch, 'exports');
@@ -239,5 +273,42 @@ describe('editor window', { timeout: 150_000 }, () => {
     for (const fig of await page.getByTestId('cohort-figure').all()) {
       await fig.screenshot({ path: join(ARTIFACTS, `08c-figure-${await fig.getAttribute('data-name')}.png`) });
     }
+  });
+
+  it('cancelling a batch: the panel says it was cancelled and the files finished before keep their rows', async () => {
+    const { page } = h;
+    const out = join(scratch, 'out-cancelled');
+    await fs.mkdir(out);
+    h.dialogs.output = out;
+    await page.getByTestId('tab-batch').click();
+    await page.getByTestId('batch-choose').click();
+    await expect.poll(() => text(page, 'batch-out')).toBe(out);
+    const from = h.progress.length;
+    // The demo files analyse in well under a second each, so the run is held before its second file until
+    // Cancel reaches the app: then the first file is surely done and the rest surely not (real analysis throughout).
+    h.holdBatchUntilCancel(1);
+    await page.getByTestId('batch-run').click();
+    await page.locator('.batch-files .status-ok, .batch-files .status-error').first().waitFor({ timeout: 120_000 });
+    await shot(page, '09a-batch-running');
+    await page.getByTestId('batch-cancel').click();
+    await page.getByTestId('batch-results').waitFor({ timeout: 120_000 });
+    const events = h.progress.slice(from);
+    expect(events.at(-1)?.status).toBe('cancelled');
+    const finished = events.filter((e) => e.file !== null && (e.status === 'ok' || e.status === 'error'));
+    const ok = finished.filter((e) => e.status === 'ok').length;
+    // The first file, plus the second, which had started when Cancel came and is allowed to finish; files 3 and 4 never start.
+    expect(finished).toHaveLength(2);
+    expect(events.filter((e) => e.status === 'running')).toHaveLength(2);
+    expect(await text(page, 'batch-summary')).toMatch(new RegExp(`^Cancelled: ${ok} ok, ${finished.length - ok} failed`));
+    const rows = await page.locator('[data-testid=batch-results] tbody tr td:first-child').allTextContents();
+    expect([...rows].sort()).toEqual(finished.map((e) => e.file).sort());
+    // Each finished file's row carries its λ (a number, not a dash).
+    const lambdas = await page.locator('[data-testid=batch-results] tbody tr:not(.row-error) td:nth-child(3)').allTextContents();
+    expect(lambdas).toHaveLength(ok);
+    for (const l of lambdas) expect(Number.isFinite(numberIn(l))).toBe(true);
+    expect(await page.getByTestId('batch-cohort').count()).toBe(0);
+    await shot(page, '09b-batch-cancelled');
+    await page.getByTestId('tab-cohort').click();
+    expect(await text(page, 'cohort-hint')).toMatch(/cancelled/);
   });
 });

@@ -5,6 +5,9 @@ import { extname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium } from 'playwright-core';
 import type { Browser, Page } from 'playwright-core';
+import { analyzeFile } from '../../app/batch/analyze-file';
+import type { BatchTask } from '../../app/batch/task';
+import { createDefaultEngine } from '../../app/main/default-engine';
 import { createHandlers } from '../../app/main/handlers';
 import type { ApiHandlers, HandlerDeps } from '../../app/main/handlers';
 import { API_INVOKE_METHODS } from '../../core/contract';
@@ -54,6 +57,11 @@ export interface Harness {
   readonly page: Page;
   readonly dialogs: FakeDialogs;
   readonly progress: BatchProgress[];
+  /**
+   * Make the next batch wait before its file number `afterFiles` (0-based) until the batch is cancelled (or 60 s
+   * pass), so a test can press Cancel while the run is surely in the middle. Analysis stays the real one.
+   */
+  holdBatchUntilCancel(afterFiles: number): void;
   /** Replace the handlers by a fresh instance over the same data folder (as after an app restart). */
   freshHandlers(): void;
   close(): Promise<void>;
@@ -64,9 +72,28 @@ export async function startHarness(dataDir: string, demoSubset?: number): Promis
   const dialogs: FakeDialogs = { folder: null, output: null, project: null, saveDir: null };
   const progress: BatchProgress[] = [];
   let page: Page | null = null;
+  // Batch hold (see Harness.holdBatchUntilCancel): the real engine, with the in-process analysis of later files
+  // waiting on a promise that the batch's abort signal resolves.
+  let hold: { afterFiles: number } | null = null;
+  const realEngine = createDefaultEngine();
+  const engine: typeof realEngine = {
+    ...realEngine,
+    runBatch: (options) => {
+      const h = hold;
+      hold = null;
+      if (h === null) return realEngine.runBatch(options);
+      const release = new Promise<void>((done) => {
+        options.signal?.addEventListener('abort', () => done());
+        setTimeout(done, 60_000).unref();
+      });
+      const held = async (t: BatchTask) => { if (t.index >= h.afterFiles) await release; return analyzeFile(t); };
+      // analyzeInProcess is the batch's own option for in-process analysis (BatchRunOptions is spread into it).
+      return realEngine.runBatch(Object.assign({}, options, { analyzeInProcess: held }));
+    },
+  };
   const deps: HandlerDeps = {
     // Batch jobs 0 analyses in this process: the worker script is a build output the test need not depend on.
-    dataDir, batchJobs: 0, demoSubset,
+    dataDir, batchJobs: 0, demoSubset, engine,
     dialogs: {
       chooseFolder: async () => dialogs.folder,
       chooseFiles: async () => null,
@@ -115,6 +142,7 @@ export async function startHarness(dataDir: string, demoSubset?: number): Promis
   await page.goto('http://app.test/index.html');
   return {
     browser, page, dialogs, progress,
+    holdBatchUntilCancel: (afterFiles) => { hold = { afterFiles }; },
     freshHandlers: () => { current.handlers = createHandlers(deps); },
     close: async () => { await browser.close(); if (errors.length > 0) console.warn(`page errors:\n${errors.join('\n')}`); },
   };
