@@ -15,6 +15,8 @@ export interface BatchPanelProps {
 /** The batch panel. */
 export function BatchPanel({ batch, folder, fileCount, onChooseOutput, onRun, onCancel }: BatchPanelProps) {
   const pct = batch.total > 0 ? (100 * batch.done) / batch.total : 0;
+  // After a cancel, the files that never ran (they have no row in the results).
+  const notRun = batch.summary === null ? 0 : Math.max(0, batch.total - batch.summary.ok - batch.summary.failed);
   return (
     <section className="panel batch" data-testid="batch-panel">
       <h3>Batch <span className="muted">all {fileCount} files of the folder, current settings and hand edits</span></h3>
@@ -32,7 +34,7 @@ export function BatchPanel({ batch, folder, fileCount, onChooseOutput, onRun, on
       )}
       {batch.summary && (
         <>
-          <p data-testid="batch-summary">{batch.summary.cancelled ? 'Cancelled' : 'Finished'}: {batch.summary.ok} ok, {batch.summary.failed} failed · written to <code>{batch.summary.outDir}</code></p>
+          <p data-testid="batch-summary">{batch.summary.cancelled ? 'Cancelled' : 'Finished'}: {batch.summary.ok} ok, {batch.summary.failed} failed{notRun > 0 ? `, ${notRun} not run` : ''} · written to <code>{batch.summary.outDir}</code></p>
           {batch.summary.cohort && <p className="muted" data-testid="batch-cohort">Conditions compared ({batch.summary.cohort.conditions.length}, from samples.csv): see the Cohort tab · report <code>{batch.summary.cohort.reportPath}</code></p>}
           {batch.summary.cohortError && <p className="error" data-testid="batch-cohort-error">The cohort step failed: {batch.summary.cohortError}</p>}
           <table className="results" data-testid="batch-results"><thead><tr><th>file</th><th>status</th><th>λ µm</th><th>± SE</th><th>λ/EL</th><th>R²</th><th>EL µm</th><th>boundaries (x/EL)</th><th>message</th></tr></thead>

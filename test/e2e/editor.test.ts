@@ -299,7 +299,7 @@ describe('editor window', { timeout: 150_000 }, () => {
     // The first file, plus the second, which had started when Cancel came and is allowed to finish; files 3 and 4 never start.
     expect(finished).toHaveLength(2);
     expect(events.filter((e) => e.status === 'running')).toHaveLength(2);
-    expect(await text(page, 'batch-summary')).toMatch(new RegExp(`^Cancelled: ${ok} ok, ${finished.length - ok} failed`));
+    expect(await text(page, 'batch-summary')).toMatch(new RegExp(`^Cancelled: ${ok} ok, ${finished.length - ok} failed, 2 not run ·`));
     const rows = await page.locator('[data-testid=batch-results] tbody tr td:first-child').allTextContents();
     expect([...rows].sort()).toEqual(finished.map((e) => e.file).sort());
     // Each finished file's row carries its λ (a number, not a dash).
