@@ -312,3 +312,34 @@ describe('editor window', { timeout: 150_000 }, () => {
     expect(await text(page, 'cohort-hint')).toMatch(/cancelled/);
   });
 });
+
+describe('undo stays on the shown file', { timeout: 120_000 }, () => {
+  it('Ctrl+Z on another file never changes the file edited before; back on it, undo works', async () => {
+    const { page } = h;
+    await page.getByTestId('tab-embryo').click();
+    await page.getByTestId('handle-anterior').waitFor({ timeout: 30_000 });
+    const first = await page.locator('[data-testid=folder-entry].current').textContent();
+    const a0 = await centre(page, '[data-testid=handle-anterior] circle');
+    const p0 = await centre(page, '[data-testid=handle-posterior] circle');
+    await page.getByTestId('swap').click();
+    await page.keyboard.press('PageDown');
+    await expect.poll(() => page.locator('[data-testid=folder-entry].current').textContent(), { timeout: 30_000 }).not.toBe(first);
+    await page.getByTestId('handle-anterior').waitFor({ timeout: 30_000 });
+    expect(await page.getByTestId('undo').isDisabled()).toBe(true);
+    await page.keyboard.press('Control+z');
+    await page.keyboard.press('PageUp');
+    await expect.poll(() => page.locator('[data-testid=folder-entry].current').textContent(), { timeout: 30_000 }).toBe(first);
+    await page.getByTestId('handle-anterior').waitFor({ timeout: 30_000 });
+    // Still swapped: the Ctrl+Z on the other file did not reach this one.
+    await expect.poll(async () => {
+      const a = await centre(page, '[data-testid=handle-anterior] circle');
+      return Math.abs(a.x - p0.x) + Math.abs(a.y - p0.y);
+    }, { timeout: 20_000 }).toBeLessThan(1.5);
+    await shot(page, '10-undo-on-other-file-kept-swap');
+    await page.keyboard.press('Control+z');
+    await expect.poll(async () => {
+      const a = await centre(page, '[data-testid=handle-anterior] circle');
+      return Math.abs(a.x - a0.x) + Math.abs(a.y - a0.y);
+    }).toBeLessThan(1.5);
+  });
+});
