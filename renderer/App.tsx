@@ -43,7 +43,7 @@ export function App() {
   const [zSlice, setZSlice] = useState<number | null>(null);
   const [slicePlanes, setSlicePlanes] = useState<Plane[] | null>(null);
   const select = useCallback((name: string | null) => { if (name !== null) { dispatch({ type: 'selectFile', key: name, autoAxis: null }); setZSlice(null); } }, []);
-  const { session, openDemo, openFolder, openProject, openFiles, openRecent, openAtStart, setMessage } = useSession(api, dispatch, select);
+  const { session, openDemo, openFolder, openProject, openFiles, openRecent, openAtStart, openDroppedFiles, setMessage } = useSession(api, dispatch, select);
   const [help, setHelp] = useState(false);
   const [exportMenu, setExportMenu] = useState(false);
   const entry = session.entries.find((e) => e.name === state.current) ?? null;
@@ -159,7 +159,9 @@ export function App() {
   const stripWidth = Math.max(200, centreSize.width);
 
   return (
-    <div className="app">
+    <div className="app"
+      onDragOver={(e) => { if (e.dataTransfer.types.includes('Files')) e.preventDefault(); }}
+      onDrop={(e) => { e.preventDefault(); void openDroppedFiles([...e.dataTransfer.files]); }}>
       <Toolbar state={state} dispatch={dispatch} tab={tab} onTab={setTab} onOpenFolder={openFolder} onOpenProject={openProject} onOpenDemo={openDemo}
         onFit={() => setFitRequest((n) => n + 1)} saveStatus={saveStatus} exports={exports} hasMeasurement={measurement !== null}
         exportMenu={exportMenu} onExportMenu={setExportMenu} onHelp={() => setHelp(true)} />

@@ -24,6 +24,11 @@ export function useSession(api: EgglineApi | null, dispatch: Dispatch<EditorActi
     dispatch({ type: 'openDoc', doc: { settings: o.project.settings, files: o.project.files } });
     onOpened(o.entries[0]?.name ?? null);
   };
+  /** Files without a project folder (chosen, dropped or recent): hand edits stay in this window. */
+  const adoptLoose = (entries: FolderEntry[], message: string | null) => {
+    setSession({ folder: null, entries, projectPath: null, message, opening: false });
+    onOpened(entries[0]?.name ?? null);
+  };
   const fail = (message: string) => setSession((s) => ({ ...s, message, opening: false }));
   const wrap = async (call: () => Promise<void>) => {
     setSession((s) => ({ ...s, opening: true, message: null }));
@@ -51,9 +56,16 @@ export function useSession(api: EgglineApi | null, dispatch: Dispatch<EditorActi
     const r = await api.chooseFiles();
     if (!r.ok) { fail(r.error.message); return; }
     if (r.value === null) { setSession((s) => ({ ...s, opening: false })); return; }
-    // Loose files have no project folder: edits stay in this window until a folder is opened.
-    setSession({ folder: null, entries: r.value, projectPath: null, message: 'Loose files: hand edits are not saved (open their folder to keep them in a project).', opening: false });
-    onOpened(r.value[0]?.name ?? null);
+    adoptLoose(r.value, 'Loose files: hand edits are not saved (open their folder to keep them in a project).');
+  });
+  /** Files or folders dropped on the window: their paths come from the preload; a dropped folder lists its stacks. */
+  const openDroppedFiles = (files: readonly File[]) => wrap(async () => {
+    if (api === null) return;
+    const paths = files.map((f) => api.pathForDroppedFile?.(f) ?? '').filter((p) => p !== '');
+    if (paths.length === 0) { fail('Dropped items have no file path (drop files from the file manager).'); return; }
+    const r = await api.openDropped(paths);
+    if (!r.ok) { fail(r.error.message); return; }
+    adoptLoose(r.value, 'Dropped files: hand edits are not saved (open their folder to keep them in a project).');
   });
   /** Reopen a recent folder or files (File ▸ Recent); false when it could not be opened. */
   const openRecent = async (path: string): Promise<boolean> => {
@@ -61,10 +73,7 @@ export function useSession(api: EgglineApi | null, dispatch: Dispatch<EditorActi
     const r = await api.openRecent(path);
     if (!r.ok) { fail(r.error.message); return false; }
     if (r.value.kind === 'folder') adopt(r.value);
-    else {
-      setSession({ folder: null, entries: r.value.entries, projectPath: null, message: null, opening: false });
-      onOpened(r.value.entries[0]?.name ?? null);
-    }
+    else adoptLoose(r.value.entries, null);
     return true;
   };
   /** At start: the most recent folder (so yesterday's work is where it was left), else the demo data. */
@@ -75,5 +84,5 @@ export function useSession(api: EgglineApi | null, dispatch: Dispatch<EditorActi
     if (last !== undefined && (await openRecent(last))) return;
     await openDemo();
   });
-  return { session, openDemo, openFolder, openProject, openFiles, openRecent, openAtStart, setMessage: (m: string | null) => setSession((s) => ({ ...s, message: m })) };
+  return { session, openDemo, openFolder, openProject, openFiles, openRecent, openAtStart, openDroppedFiles, setMessage: (m: string | null) => setSession((s) => ({ ...s, message: m })) };
 }

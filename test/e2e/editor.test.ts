@@ -342,4 +342,19 @@ describe('undo stays on the shown file', { timeout: 120_000 }, () => {
       return Math.abs(a.x - a0.x) + Math.abs(a.y - a0.y);
     }).toBeLessThan(1.5);
   });
+  it('files dropped on the window open as loose files (the real openDropped handler)', async () => {
+    const { page } = h;
+    const demo = join(dataDir, 'demo');
+    const name = (await fs.readdir(demo)).filter((f) => f.endsWith('.ome.tif')).sort()[1];
+    await page.evaluate(([root, file]) => {
+      (window as unknown as { __egglineDropRoot: string }).__egglineDropRoot = root;
+      const dt = new DataTransfer();
+      dt.items.add(new File([new Uint8Array(8)], file));
+      document.querySelector('.app')?.dispatchEvent(new DragEvent('drop', { dataTransfer: dt, bubbles: true, cancelable: true }));
+    }, [demo, name]);
+    await expect.poll(() => page.locator('[data-testid=folder-entry]').count(), { timeout: 30_000 }).toBe(1);
+    expect(await page.locator('[data-testid=folder-entry]').first().textContent()).toContain(name);
+    await page.getByTestId('handle-anterior').waitFor({ timeout: 30_000 });
+    await shot(page, '11-dropped-file');
+  });
 });

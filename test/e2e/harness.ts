@@ -130,6 +130,9 @@ export async function startHarness(dataDir: string, demoSubset?: number): Promis
     const api = {
       onBatchProgress: (l) => { progressListeners.add(l); return () => progressListeners.delete(l); },
       onMenuCommand: (l) => { menuListeners.add(l); return () => menuListeners.delete(l); },
+      // Stands in for the preload's webUtils.getPathForFile: a dropped file's path is its name in the folder the
+      // test names (a plain browser has no file-system paths).
+      pathForDroppedFile: (f) => (window.__egglineDropRoot ? window.__egglineDropRoot + '/' + f.name : ''),
     };
     for (const m of methods) api[m] = (...a) => window['__eggline_' + m](...a);
     window.eggline = Object.freeze(api);
