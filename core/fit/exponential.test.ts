@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { createRng } from '../stats';
 import { fitExponentialDecay } from './exponential';
-import { FitError } from './fit-error';
+import { fitErrorOf as errorOf } from './fit-error-of.test-helper';
 
 // Demo data: a 500 µm egg, 100 bins with centres at (i + 0.5)/100 EL.
 const EGG_UM = 500;
@@ -10,15 +10,6 @@ const xEl = Float64Array.from({ length: BINS }, (_, i) => (i + 0.5) / BINS);
 const xUm = xEl.map((v) => v * EGG_UM);
 const profile = (a: number, lambdaUm: number, b: number): Float64Array => xUm.map((x) => a * Math.exp(-x / lambdaUm) + b);
 
-function errorOf(run: () => unknown): FitError {
-  try {
-    run();
-  } catch (e) {
-    if (e instanceof FitError) return e;
-    throw e;
-  }
-  throw new Error('expected a FitError');
-}
 
 describe('fitExponentialDecay', () => {
   it('recovers exact parameters to 1e-8 relative', () => {

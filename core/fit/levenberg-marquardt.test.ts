@@ -1,21 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { createRng, linearRegression, weightedLinearRegression } from '../stats';
-import { FitError } from './fit-error';
 import { fitNonlinear } from './levenberg-marquardt';
 import type { ModelFunction } from './problem';
+import { fitErrorOf as errorOf } from './fit-error-of.test-helper';
 
 const line: ModelFunction = ([a, b]) => (x) => a + b * x;
 const decay: ModelFunction = ([a, k]) => (x) => a * Math.exp(-k * x);
 
-function errorOf(run: () => unknown): FitError {
-  try {
-    run();
-  } catch (e) {
-    if (e instanceof FitError) return e;
-    throw e;
-  }
-  throw new Error('expected a FitError');
-}
 
 describe('fitNonlinear', () => {
   it('reproduces ordinary least squares for a straight line (same SEs)', () => {

@@ -1,6 +1,6 @@
 // Measure one embryo along a given AP axis: profiles, exponential fit, boundaries and landmark positions.
 // Fast enough for live use: everything independent of the axis was done by prepareSampling.
-import type { ApAxis, BackgroundEstimate, Boundary, ExponentialFit, Landmark, LandmarkPosition, Profile } from '../model';
+import type { ApAxis, EmbryoResult, ExponentialFit, Landmark, Profile } from '../model';
 import type { AnalysisSettings, ChannelRef } from '../settings';
 import { describeChannelRef, resolveChannel } from '../image';
 import { axisLengthPx, projectPointOntoAxis } from '../geometry';
@@ -10,19 +10,13 @@ import { binIndices, binProfile } from './bin';
 import type { SideFilter } from './bin';
 import { checkSamplingSettings } from './check-settings';
 
-/** Everything measured along one axis. µm values are null/NaN when the pixel size is unknown. */
-export interface Measurement {
-  readonly gradientChannel: string | null;
-  readonly gradientProfile: Profile | null;
-  /** null (with a warning) when the fit fails or the gradient channel is missing. */
-  readonly gradientFit: ExponentialFit | null;
-  readonly boundaryProfiles: readonly Profile[];
-  readonly boundaries: readonly Boundary[];
-  readonly landmarks: readonly LandmarkPosition[];
-  readonly backgrounds: readonly BackgroundEstimate[];
-  readonly eggLengthUm: number | null;
-  readonly warnings: readonly string[];
-}
+/**
+ * Everything measured along one axis: the measurement fields of an EmbryoResult. µm values are null/NaN when the pixel
+ * size is unknown; gradientFit is null (with a warning) when the fit fails or the gradient channel is missing.
+ */
+export type Measurement = Pick<EmbryoResult,
+  'gradientChannel' | 'gradientProfile' | 'gradientFit' | 'boundaryProfiles' | 'boundaries' | 'landmarks' | 'backgrounds'
+  | 'eggLengthUm' | 'warnings'>;
 
 /** Side of the A→P line sampled: edge mode follows edgeSide and dorsalSide; the axis strip takes both sides. */
 export function sideFilter(settings: AnalysisSettings): SideFilter {
