@@ -43,7 +43,8 @@ export function App() {
   const [zSlice, setZSlice] = useState<number | null>(null);
   const [slicePlanes, setSlicePlanes] = useState<Plane[] | null>(null);
   const select = useCallback((name: string | null) => { if (name !== null) { dispatch({ type: 'selectFile', key: name, autoAxis: null }); setZSlice(null); } }, []);
-  const { session, openDemo, openFolder, openProject, openFiles, openRecent, openAtStart, openDroppedFiles, setMessage } = useSession(api, dispatch, select);
+  const flushSave = useRef<() => Promise<void>>(async () => undefined);
+  const { session, openDemo, openFolder, openProject, openFiles, openRecent, openAtStart, openDroppedFiles, setMessage } = useSession(api, dispatch, select, () => flushSave.current());
   const [help, setHelp] = useState(false);
   const [exportMenu, setExportMenu] = useState(false);
   const entry = session.entries.find((e) => e.name === state.current) ?? null;
@@ -52,6 +53,7 @@ export function App() {
   const stack = load.stack !== null && load.stack.path === entry?.path ? load.stack : null;
   const { loading, error: loadError } = load;
   const [saveStatus, saveNow] = useAutosave(api, session.projectPath, session.folder, state.doc, state.revision);
+  flushSave.current = () => (saveStatus.kind === 'pending' ? saveNow() : Promise.resolve());
   const { batch, chooseOutput, run, cancel } = useBatch(api);
   const centre = useRef<HTMLDivElement>(null);
   const centreSize = useElementSize(centre);

@@ -26,7 +26,9 @@ export function useAutosave(api: EgglineApi | null, projectPath: string | null, 
     setStatus(r.ok ? { kind: 'saved', at: r.value.savedAt } : { kind: 'error', message: r.error.message });
   };
   useEffect(() => {
-    if (revision === 0 || projectPath === null) return;
+    // Loose files have no project to save into: nothing pending, nothing to show.
+    if (projectPath === null) { setStatus({ kind: 'idle' }); return; }
+    if (revision === 0) return;
     setStatus({ kind: 'pending' });
     const t = setTimeout(() => { void saveNow(); }, AUTOSAVE_DELAY_MS);
     return () => clearTimeout(t);

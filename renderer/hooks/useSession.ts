@@ -17,7 +17,8 @@ export interface Session {
 type Opened = { folder: string | null; entries: FolderEntry[]; project: ProjectDoc; projectPath: string };
 
 /** Session state and the commands that open things. */
-export function useSession(api: EgglineApi | null, dispatch: Dispatch<EditorAction>, onOpened: (firstFile: string | null) => void) {
+export function useSession(api: EgglineApi | null, dispatch: Dispatch<EditorAction>, onOpened: (firstFile: string | null) => void,
+  beforeOpen: () => Promise<void> = async () => undefined) {
   const [session, setSession] = useState<Session>({ folder: null, entries: [], projectPath: null, message: null, opening: false });
   const adopt = (o: Opened) => {
     setSession({ folder: o.folder, entries: o.entries, projectPath: o.projectPath, message: null, opening: false });
@@ -32,7 +33,8 @@ export function useSession(api: EgglineApi | null, dispatch: Dispatch<EditorActi
   const fail = (message: string) => setSession((s) => ({ ...s, message, opening: false }));
   const wrap = async (call: () => Promise<void>) => {
     setSession((s) => ({ ...s, opening: true, message: null }));
-    try { await call(); } catch (e) { fail(String(e)); }
+    // Save a pending autosave of the open project first, so opening something else never drops the last edit.
+    try { await beforeOpen(); await call(); } catch (e) { fail(String(e)); }
   };
   const openDemo = () => wrap(async () => {
     if (api === null) return;

@@ -355,6 +355,8 @@ describe('undo stays on the shown file', { timeout: 120_000 }, () => {
     await expect.poll(() => page.locator('[data-testid=folder-entry]').count(), { timeout: 30_000 }).toBe(1);
     expect(await page.locator('[data-testid=folder-entry]').first().textContent()).toContain(name);
     await page.getByTestId('handle-anterior').waitFor({ timeout: 30_000 });
+    // Loose files have no project: the status bar must not claim a save is under way.
+    await expect.poll(() => page.getByText('saving…').count(), { timeout: 10_000 }).toBe(0);
     await shot(page, '11-dropped-file');
   });
 });
