@@ -37,6 +37,16 @@ const canvasBrightness = (page: Page) => page.locator('.image-canvas').first().e
   for (let i = 0; i < d.length; i += 4) sum += d[i] + d[i + 1] + d[i + 2];
   return sum / (d.length / 4);
 });
+/** Open the batch tab and pick a new output folder `name` (in the scratch folder) through the fake dialog. */
+const chooseBatchOutput = async (page: Page, name: string): Promise<string> => {
+  const out = join(scratch, name);
+  await fs.mkdir(out);
+  h.dialogs.output = out;
+  await page.getByTestId('tab-batch').click();
+  await page.getByTestId('batch-choose').click();
+  await expect.poll(() => text(page, 'batch-out')).toBe(out);
+  return out;
+};
 const numberIn = (s: string) => Number(/-?\d+(\.\d+)?(e[-+]?\d+)?/i.exec(s)?.[0] ?? NaN);
 
 beforeAll(async () => {
@@ -224,12 +234,7 @@ describe('editor window', { timeout: 150_000 }, () => {
 
   it('runs a batch on the demo folder: progress, then results', async () => {
     const { page } = h;
-    const out = join(scratch, 'out');
-    await fs.mkdir(out);
-    h.dialogs.output = out;
-    await page.getByTestId('tab-batch').click();
-    await page.getByTestId('batch-choose').click();
-    await expect.poll(() => text(page, 'batch-out')).toBe(out);
+    const out = await chooseBatchOutput(page, 'out');
     await page.getByTestId('batch-run').click();
     await page.getByTestId('batch-results').waitFor({ timeout: 120_000 });
     expect(h.progress.length).toBeGreaterThan(2);
@@ -277,12 +282,7 @@ describe('editor window', { timeout: 150_000 }, () => {
 
   it('cancelling a batch: the panel says it was cancelled and the files finished before keep their rows', async () => {
     const { page } = h;
-    const out = join(scratch, 'out-cancelled');
-    await fs.mkdir(out);
-    h.dialogs.output = out;
-    await page.getByTestId('tab-batch').click();
-    await page.getByTestId('batch-choose').click();
-    await expect.poll(() => text(page, 'batch-out')).toBe(out);
+    await chooseBatchOutput(page, 'out-cancelled');
     const from = h.progress.length;
     // The demo files analyse in well under a second each, so the run is held before its second file until
     // Cancel reaches the app: then the first file is surely done and the rest surely not (real analysis throughout).
