@@ -10,7 +10,12 @@ module.exports = {
   // sharp loads native libvips binaries, which cannot be loaded from inside an asar archive.
   asarUnpack: ['**/node_modules/sharp/**/*', '**/node_modules/@img/**/*'],
   extraMetadata: { main: 'dist/main.cjs' },
-  linux: { target: ['AppImage', 'deb'], category: 'Science', synopsis: 'Morphogen gradients along the AP axis of embryo images' },
+  // A .deb needs a maintainer (electron-builder otherwise asks for an author e-mail in package.json). The address is
+  // a placeholder in a reserved domain: set the real one in the release job.
+  linux: {
+    target: ['AppImage', 'deb'], category: 'Science', synopsis: 'Morphogen gradients along the AP axis of embryo images',
+    maintainer: 'Eggline developers <eggline@example.org>', vendor: 'Eggline developers',
+  },
   deb: { packageCategory: 'science' },
   win: { target: ['nsis'] },
   nsis: { oneClick: false, allowToChangeInstallationDirectory: true },

@@ -37,6 +37,12 @@ describe('electron-builder config', () => {
     expect(config.mac.target).toEqual(['dmg']);
   });
 
+  it('names a maintainer for the .deb package', () => {
+    // Source: app-builder-lib errorMessages (authorEmailIsMissed): a .deb needs a maintainer, from the author e-mail
+    // in package.json or from the linux options.
+    expect((config.linux as { maintainer?: string }).maintainer).toMatch(/^[^<>]+ <[^@\s]+@[^>\s]+>$/);
+  });
+
   it('uses only options electron-builder knows', () => {
     // Source: electron-builder's own JSON schema (node_modules/app-builder-lib/scheme.json) and FuseOptionsV1.
     const schema = JSON.parse(readFileSync(require.resolve('app-builder-lib/scheme.json'), 'utf8')) as {
