@@ -14,17 +14,25 @@ export function boxWidthsForSigma(sigmaPx: number, passes = 3): number[] {
   return Array.from({ length: passes }, (_, i) => (i < m ? wl : wu));
 }
 
-/** Box mean of half-width r along one stride-addressed line, replicating the end pixels; pad has length n + 2r. */
-function boxLine(src: Float32Array, dst: Float32Array, start: number, stride: number, n: number, r: number, pad: Float64Array): void {
-  for (let i = 0; i < r; i++) { pad[i] = src[start]; pad[n + r + i] = src[start + (n - 1) * stride]; }
-  for (let i = 0; i < n; i++) pad[r + i] = src[start + i * stride];
+/**
+ * Box mean of half-width r along the row of n pixels starting at o, replicating the end pixels. The window sum runs
+ * in float64 in the same order as over an explicitly padded line (so results are bit-identical to it); the loop is
+ * split into the parts where the leaving or entering pixel is a replicated end, so no per-pixel clamping is needed.
+ */
+function boxRow(src: Float32Array, dst: Float32Array, o: number, n: number, r: number): void {
   const w = 2 * r + 1;
+  const first = src[o];
+  const last = src[o + n - 1];
   let s = 0;
-  for (let j = 0; j < w; j++) s += pad[j];
-  for (let i = 0; i < n; i++) {
-    dst[start + i * stride] = s / w;
-    s += pad[i + w] - pad[i];
-  }
+  for (let j = -r; j <= r; j++) s += j < 0 ? first : j < n ? src[o + j] : last;
+  // Pixel i leaves the window (index i − r) from lo on, the entering index i + r + 1 passes the end from hi on.
+  const lo = Math.min(r, n);
+  const hi = Math.max(0, n - r - 1);
+  let i = 0;
+  for (const e = Math.min(lo, hi); i < e; i++) { dst[o + i] = s / w; s += src[o + i + r + 1] - first; }
+  if (lo <= hi) for (; i < hi; i++) { dst[o + i] = s / w; s += src[o + i + r + 1] - src[o + i - r]; }
+  else for (; i < lo; i++) { dst[o + i] = s / w; s += last - first; }
+  for (; i < n; i++) { dst[o + i] = s / w; s += last - src[o + i - r]; }
 }
 
 /**
@@ -33,13 +41,16 @@ function boxLine(src: Float32Array, dst: Float32Array, start: number, stride: nu
  */
 function boxColumns(src: Float32Array, dst: Float32Array, width: number, height: number, r: number, sums: Float64Array): void {
   const w = 2 * r + 1;
-  const row = (y: number): number => (y < 0 ? 0 : y >= height ? height - 1 : y) * width;
+  const lastRow = (height - 1) * width;
   sums.fill(0);
-  for (let y = -r; y <= r; y++) { const o = row(y); for (let x = 0; x < width; x++) sums[x] += src[o + x]; }
+  for (let y = -r; y <= r; y++) {
+    const o = y < 0 ? 0 : y >= height ? lastRow : y * width;
+    for (let x = 0; x < width; x++) sums[x] += src[o + x];
+  }
   for (let y = 0; y < height; y++) {
     const out = y * width;
-    const add = row(y + r + 1);
-    const sub = row(y - r);
+    const add = y + r + 1 >= height ? lastRow : (y + r + 1) * width;
+    const sub = y - r < 0 ? 0 : (y - r) * width;
     for (let x = 0; x < width; x++) {
       dst[out + x] = sums[x] / w;
       sums[x] += src[add + x] - src[sub + x];
@@ -47,21 +58,23 @@ function boxColumns(src: Float32Array, dst: Float32Array, width: number, height:
   }
 }
 
-/** Approximately Gaussian-smoothed copy (three box passes in x and in y; same size; edges replicated). */
+/**
+ * Approximately Gaussian-smoothed copy (three box passes in x and in y; same size; edges replicated). Two scratch
+ * planes are reused for all passes; the first pass reads the input directly instead of a copy of it.
+ */
 export function fastGaussianSmooth(plane: Plane, sigmaPx: number): Plane {
   const { width, height } = plane;
   const widths = boxWidthsForSigma(sigmaPx);
-  let cur = Float32Array.from(plane.data);
-  let next = new Float32Array(cur.length);
-  const pad = new Float64Array(Math.max(width, height) + Math.max(...widths) + 2);
+  let cur = plane.data;
+  const rows = new Float32Array(width * height);
+  const out = new Float32Array(width * height);
   const sums = new Float64Array(width);
   for (const w of widths) {
     const r = (w - 1) >> 1;
     if (r === 0) continue;
-    for (let y = 0; y < height; y++) boxLine(cur, next, y * width, 1, width, r, pad);
-    [cur, next] = [next, cur];
-    boxColumns(cur, next, width, height, r, sums);
-    [cur, next] = [next, cur];
+    for (let o = 0; o < rows.length; o += width) boxRow(cur, rows, o, width, r);
+    boxColumns(rows, out, width, height, r, sums);
+    cur = out;
   }
-  return { width, height, data: cur };
+  return { width, height, data: cur === out ? out : Float32Array.from(cur) };
 }

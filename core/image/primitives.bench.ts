@@ -1,0 +1,81 @@
+// Micro-benchmark of the core image primitives on a demo-data plane (1024×1024 and binned to 342×342).
+// Run: npx tsx core/image/primitives.bench.ts   (prints warm median ms per call and ns/px, wall and CPU; no assertions)
+import type { Mask, Plane } from '../model';
+import { makeSyntheticEmbryo } from '../synth';
+import { toFloatPlane } from './plane-convert';
+import { fastGaussianSmooth } from './box-blur';
+import { maxFilter } from './max-filter';
+import { dilate, erode, open, squareDilate, squareErode } from './morphology';
+import { fillHoles } from './fill-holes';
+import { largestComponent } from './components';
+import { estimateBackgroundLevel } from './background-level';
+import { distanceInside, distanceOutside } from './distance';
+import { otsuThreshold } from './threshold';
+import { binMean } from './segment';
+
+/** Median of a list of numbers (sorted copy). */
+function median(values: number[]): number {
+  const s = [...values].sort((a, b) => a - b);
+  return s[s.length >> 1];
+}
+
+/**
+ * Warm median wall and CPU time (ms) of one call: a few warm-up calls first, then repeats until ~400 ms or 40 calls.
+ * CPU time (process.cpuUsage) is printed beside wall time because the machine is shared.
+ */
+function time(run: () => unknown): { wallMs: number; cpuMs: number } {
+  for (let i = 0; i < 3; i++) run();
+  const wall: number[] = [];
+  const cpu: number[] = [];
+  const start = performance.now();
+  while (wall.length < 5 || (wall.length < 40 && performance.now() - start < 400)) {
+    const c0 = process.cpuUsage();
+    const t0 = performance.now();
+    run();
+    wall.push(performance.now() - t0);
+    const c = process.cpuUsage(c0);
+    cpu.push((c.user + c.system) / 1000);
+  }
+  return { wallMs: median(wall), cpuMs: median(cpu) };
+}
+
+/** Embryo mask of a plane: smoothed values above their Otsu threshold (demo data; holes and border contact vary). */
+function maskOf(plane: Plane): Mask {
+  const s = fastGaussianSmooth(plane, 2).data;
+  const t = otsuThreshold(s);
+  return { width: plane.width, height: plane.height, data: Uint8Array.from(s, (v) => (v > t ? 1 : 0)) };
+}
+
+/** Print one table of primitives for a plane. */
+function benchPlane(label: string, plane: Plane): void {
+  const mask = maskOf(plane);
+  const n = plane.width * plane.height;
+  const cases: [string, () => unknown][] = [
+    ['fastGaussianSmooth σ=1.5', () => fastGaussianSmooth(plane, 1.5)],
+    ['fastGaussianSmooth σ=4', () => fastGaussianSmooth(plane, 4)],
+    ['maxFilter r=5', () => maxFilter(plane, 5)],
+    ['maxFilter r=1', () => maxFilter(plane, 1)],
+    ['squareDilate r=8', () => squareDilate(mask, 8)],
+    ['squareErode r=12', () => squareErode(mask, 12)],
+    ['open 1.5', () => open(mask, 1.5)],
+    ['dilate 3', () => dilate(mask, 3)],
+    ['erode 3', () => erode(mask, 3)],
+    ['fillHoles', () => fillHoles(mask)],
+    ['largestComponent', () => largestComponent(mask)],
+    ['estimateBackgroundLevel', () => estimateBackgroundLevel(plane.data)],
+    ['otsuThreshold', () => otsuThreshold(plane.data)],
+    ['distanceInside', () => distanceInside(mask)],
+    ['distanceOutside', () => distanceOutside(mask)],
+  ];
+  console.log(`\n${label} (${plane.width}×${plane.height}, ${mask.data.reduce((s, v) => s + v, 0)} foreground px)`);
+  console.log(`${'primitive'.padEnd(26)}${'wall ms'.padStart(9)}${'cpu ms'.padStart(9)}${'ns/px'.padStart(9)}`);
+  for (const [name, run] of cases) {
+    const { wallMs, cpuMs } = time(run);
+    console.log(`${name.padEnd(26)}${wallMs.toFixed(2).padStart(9)}${cpuMs.toFixed(2).padStart(9)}${((wallMs * 1e6) / n).toFixed(1).padStart(9)}`);
+  }
+}
+
+const embryo = makeSyntheticEmbryo({ widthPx: 1024, heightPx: 1024, pixelSizeUm: 0.6, sizeZ: 2, angleDeg: 33 }, 1);
+const full = toFloatPlane({ width: 1024, height: 1024, data: embryo.stack.planes[embryo.stack.sizeZ] });
+benchPlane('demo data, channel 2, z = 0', full);
+benchPlane('same plane binned 3×3', binMean(full, 3));
