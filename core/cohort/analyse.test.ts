@@ -42,7 +42,7 @@ describe('analyseCohort', () => {
     const a = analyseCohort(demo.results, sheet);
     expect(conditionsCsv(a).split('\r\n')[0]).toBe('condition,dosage,quantity,unit,n,mean,sd,sem,ci_low,ci_high');
     expect(shiftsCsv(a).split('\r\n')[0]).toBe('quantity,condition,dosage,ln_f,observed_shift_el,ci_low,ci_high,predicted_shift_el,predicted_ci_low,predicted_ci_high,predicted_two_gradient_el,ratio,ratio_ci_low,ratio_ci_high');
-    expect(dosageFitCsv(a).split('\r\n')[0]).toBe('quantity,slope_el,ci_low,ci_high,intercept_el,r2,n,predicted_slope_el');
+    expect(dosageFitCsv(a).split('\r\n')[0]).toBe('quantity,slope_el,ci_low,ci_high,intercept_el,r2,n,predicted_slope_el,predicted_two_gradient_slope_el');
     expect(shiftsCsv(a).trim().split('\r\n').length).toBe(1 + 3);
     expect(positionalErrorCsv(a).trim().split('\r\n').length).toBe(1 + 2 * 101);
   });

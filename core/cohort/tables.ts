@@ -20,11 +20,12 @@ export function shiftsCsv(a: CohortAnalysis): string {
   );
 }
 
-/** dosage_fit.csv: regression of position (x/EL) on ln f per quantity, with the predicted slope λ. */
+/** dosage_fit.csv: regression of position (x/EL) on ln f per quantity, with the predicted slope λ and, when an
+ * opposing gradient's decay length is given, the two-gradient slope (else empty). */
 export function dosageFitCsv(a: CohortAnalysis): string {
   return toCsv(
-    ['quantity', 'slope_el', 'ci_low', 'ci_high', 'intercept_el', 'r2', 'n', 'predicted_slope_el'],
-    a.dosageFits.map((f) => [f.quantity, f.slopeEl, f.ciLow, f.ciHigh, f.interceptEl, f.r2, f.n, f.predictedSlopeEl]),
+    ['quantity', 'slope_el', 'ci_low', 'ci_high', 'intercept_el', 'r2', 'n', 'predicted_slope_el', 'predicted_two_gradient_slope_el'],
+    a.dosageFits.map((f) => [f.quantity, f.slopeEl, f.ciLow, f.ciHigh, f.interceptEl, f.r2, f.n, f.predictedSlopeEl, f.predictedTwoGradientSlopeEl]),
   );
 }
 
