@@ -33,57 +33,68 @@ export function close(mask: Mask, radiusPx: number): Mask {
   return erode(dilate(mask, radiusPx), radiusPx);
 }
 
-/**
- * 1 where a foreground pixel lies within r along x (pass 'x') or along y (pass 'y'), by a forward and a backward
- * scan remembering the last foreground position; rows are walked in memory order for both passes.
+/*
+ * Square windows are separable. Dilation asks "is any pixel of the window foreground", erosion "are all of them
+ * foreground and is the window inside the image". Both are a running count of foreground pixels along x and then
+ * along y, kept at least `need` (1, or 2r + 1): integer arithmetic, exact, with no branch on pixel values. A window
+ * clipped at the border holds fewer than 2r + 1 pixels, so need = 2r + 1 rejects it as the erosion must.
  */
-function nearAlong(data: Uint8Array, width: number, height: number, r: number, pass: 'x' | 'y'): Uint8Array {
-  const out = new Uint8Array(width * height);
-  if (pass === 'x') {
-    for (let y = 0; y < height; y++) {
-      const o = y * width;
-      let last = -Infinity;
-      for (let x = 0; x < width; x++) { if (data[o + x]) last = x; if (x - last <= r) out[o + x] = 1; }
-      last = Infinity;
-      for (let x = width - 1; x >= 0; x--) { if (data[o + x]) last = x; if (last - x <= r) out[o + x] = 1; }
-    }
-    return out;
+
+/** 1 where the window [x − r, x + r] of the row (clipped to it) holds at least `need` nonzero pixels. */
+function countAlongRows(src: Uint8Array, dst: Uint8Array, width: number, height: number, r: number, need: number): void {
+  const addEnd = Math.max(0, width - r);
+  const subStart = Math.min(width, r);
+  for (let o = 0; o < width * height; o += width) {
+    let count = 0;
+    for (let x = 0; x < subStart; x++) count += +(src[o + x] !== 0);
+    let x = 0;
+    for (const e = Math.min(addEnd, subStart); x < e; x++) { count += +(src[o + x + r] !== 0); dst[o + x] = +(count >= need); }
+    if (addEnd <= subStart) for (; x < subStart; x++) dst[o + x] = +(count >= need);
+    else for (; x < addEnd; x++) { count += +(src[o + x + r] !== 0); dst[o + x] = +(count >= need); count -= +(src[o + x - r] !== 0); }
+    for (; x < width; x++) { dst[o + x] = +(count >= need); count -= +(src[o + x - r] !== 0); }
   }
-  const last = new Float64Array(width).fill(-Infinity);
-  for (let y = 0; y < height; y++) {
-    const o = y * width;
-    for (let x = 0; x < width; x++) { if (data[o + x]) last[x] = y; if (y - last[x] <= r) out[o + x] = 1; }
-  }
-  last.fill(Infinity);
-  for (let y = height - 1; y >= 0; y--) {
-    const o = y * width;
-    for (let x = 0; x < width; x++) { if (data[o + x]) last[x] = y; if (last[x] - y <= r) out[o + x] = 1; }
-  }
-  return out;
 }
 
-/** Binary dilation by the (2r+1)² square (separable: along x, then along y); O(N) whatever r. */
-function squareDilateData(data: Uint8Array, width: number, height: number, r: number): Uint8Array {
-  return nearAlong(nearAlong(data, width, height, r, 'x'), width, height, r, 'y');
+/**
+ * 1 where the window [y − r, y + r] of the column (clipped to it) holds at least `need` ones (src holds 0/1); the
+ * per-column counts are updated a whole row at a time, in memory order. Rows beyond the image are read from a row
+ * of zeros, so one loop serves the edges and the interior.
+ */
+function countAlongColumns(src: Uint8Array, dst: Uint8Array, width: number, height: number, r: number, need: number): void {
+  const counts = new Int32Array(width);
+  const zeros = new Uint8Array(width);
+  for (let y = 0; y < Math.min(height, r); y++) for (let x = 0; x < width; x++) counts[x] += src[y * width + x];
+  for (let y = 0; y < height; y++) {
+    const add = y + r < height ? src : zeros;
+    const ao = y + r < height ? (y + r) * width : 0;
+    const sub = y >= r ? src : zeros;
+    const so = y >= r ? (y - r) * width : 0;
+    const o = y * width;
+    for (let x = 0; x < width; x++) {
+      const c = counts[x] + add[ao + x];
+      dst[o + x] = +(c >= need);
+      counts[x] = c - sub[so + x];
+    }
+  }
+}
+
+/** Square-window dilation (need = 1) or erosion (need = (2r + 1), window inside the image) of mask data. */
+function squareWindow(mask: Mask, r: number, erosion: boolean): Mask {
+  const { width, height } = mask;
+  const tmp = new Uint8Array(width * height);
+  const out = new Uint8Array(width * height);
+  const need = erosion ? 2 * r + 1 : 1;
+  countAlongRows(mask.data, tmp, width, height, r, need);
+  countAlongColumns(tmp, out, width, height, r, need);
+  return { width, height, data: out };
 }
 
 /** Dilation by a (2r+1)² square (r = round(radiusPx)); cheap for large radii where the shape does not matter. */
 export function squareDilate(mask: Mask, radiusPx: number): Mask {
-  const r = Math.max(0, Math.round(radiusPx));
-  return { width: mask.width, height: mask.height, data: squareDilateData(mask.data, mask.width, mask.height, r) };
+  return squareWindow(mask, Math.max(0, Math.round(radiusPx)), false);
 }
 
 /** Erosion by a (2r+1)² square; pixels beyond the image border count as background. */
 export function squareErode(mask: Mask, radiusPx: number): Mask {
-  const { width, height } = mask;
-  const r = Math.max(0, Math.round(radiusPx));
-  const inv = new Uint8Array(width * height);
-  for (let i = 0; i < inv.length; i++) inv[i] = mask.data[i] ? 0 : 1;
-  const grown = squareDilateData(inv, width, height, r);
-  const out = new Uint8Array(inv.length);
-  for (let y = r; y < height - r; y++) {
-    const o = y * width;
-    for (let x = r; x < width - r; x++) out[o + x] = grown[o + x] ? 0 : 1;
-  }
-  return { width, height, data: out };
+  return squareWindow(mask, Math.max(0, Math.round(radiusPx)), true);
 }

@@ -1,0 +1,139 @@
+// Known-answer checks of the fast image primitives against naive direct references written here, on small seeded
+// random inputs (demo data) of odd and edge-case sizes.
+import { describe, expect, it } from 'vitest';
+import { createRng } from '../stats';
+import type { Mask, Plane } from '../model';
+import { boxWidthsForSigma, fastGaussianSmooth } from './box-blur';
+import { maxFilter } from './max-filter';
+import { open, squareDilate, squareErode } from './morphology';
+
+const SIZES: readonly [number, number][] = [[1, 1], [1, 6], [6, 1], [2, 2], [5, 3], [3, 8], [9, 7], [16, 11]];
+
+/** Seeded random plane (demo data): values in [−50, 50), a few repeated so ties occur. */
+function randomPlane(width: number, height: number, seed: number): Plane {
+  const rng = createRng(seed);
+  const data = Float32Array.from({ length: width * height }, () => (rng.uniform() < 0.2 ? 7 : Math.round(rng.uniform() * 1000) / 10 - 50));
+  return { width, height, data };
+}
+
+/** Seeded random mask (demo data) with foreground fraction p. */
+function randomMask(width: number, height: number, seed: number, p = 0.5): Mask {
+  const rng = createRng(seed);
+  return { width, height, data: Uint8Array.from({ length: width * height }, () => (rng.uniform() < p ? 1 : 0)) };
+}
+
+/** Value at (x, y) with coordinates clamped into the image (edge replication). */
+function clamped(p: Plane, x: number, y: number): number {
+  return p.data[Math.min(p.height - 1, Math.max(0, y)) * p.width + Math.min(p.width - 1, Math.max(0, x))];
+}
+
+describe('fastGaussianSmooth against direct box means', () => {
+  it('equals the same box passes done by direct window sums (edges replicated)', () => {
+    // Source: definition of a box mean with replicated edges (from memory); the direct sums differ from running sums
+    // only by rounding, hence the tolerance.
+    for (const [w, h] of SIZES) {
+      for (const sigma of [0.6, 1.5, 4]) {
+        const p = randomPlane(w, h, 11 * w + h);
+        let ref: Plane = p;
+        for (const bw of boxWidthsForSigma(sigma)) {
+          const r = (bw - 1) >> 1;
+          if (r === 0) continue;
+          const rows = Float32Array.from({ length: w * h }, (_, i) => {
+            let s = 0;
+            for (let d = -r; d <= r; d++) s += clamped(ref, (i % w) + d, Math.floor(i / w));
+            return s / bw;
+          });
+          const rp = { width: w, height: h, data: rows };
+          ref = { width: w, height: h, data: Float32Array.from({ length: w * h }, (_, i) => {
+            let s = 0;
+            for (let d = -r; d <= r; d++) s += clamped(rp, i % w, Math.floor(i / w) + d);
+            return s / bw;
+          }) };
+        }
+        const out = fastGaussianSmooth(p, sigma).data;
+        for (let i = 0; i < out.length; i++) expect(out[i]).toBeCloseTo(ref.data[i], 3);
+      }
+    }
+  });
+
+  it('returns a new array and leaves the input unchanged (also when every box has width 1)', () => {
+    const p = randomPlane(4, 3, 5);
+    const before = Float32Array.from(p.data);
+    const out = fastGaussianSmooth(p, 0.2);
+    expect(boxWidthsForSigma(0.2)).toEqual([1, 1, 1]);
+    expect(out.data).not.toBe(p.data);
+    expect(Array.from(out.data)).toEqual(Array.from(before));
+    fastGaussianSmooth(p, 3);
+    expect(Array.from(p.data)).toEqual(Array.from(before));
+  });
+});
+
+describe('maxFilter against a direct window search', () => {
+  it('gives the maximum over the clipped square window for every radius, size and sign', () => {
+    // Source: definition of grey-level dilation by a square, searched directly; the fast path is the van Herk /
+    // Gil–Werman running maximum (from memory: van Herk 1992, Gil–Werman 1993).
+    for (const [w, h] of SIZES) {
+      const p = randomPlane(w, h, 31 * w + h);
+      for (const r of [0, 0.4, 1, 2, 3, 5, 40]) {
+        const ri = Math.round(r);
+        const out = maxFilter(p, r).data;
+        for (let y = 0; y < h; y++) for (let x = 0; x < w; x++) {
+          let m = -Infinity;
+          for (let yy = Math.max(0, y - ri); yy <= Math.min(h - 1, y + ri); yy++) {
+            for (let xx = Math.max(0, x - ri); xx <= Math.min(w - 1, x + ri); xx++) m = Math.max(m, p.data[yy * w + xx]);
+          }
+          expect(out[y * w + x]).toBe(m);
+        }
+      }
+    }
+  });
+
+  it('orders negative values, zero and infinities like numbers do', () => {
+    // Source: hand computation on a 6×1 line, window of 3.
+    const p = { width: 6, height: 1, data: Float32Array.from([-3, -Infinity, -0.5, 0, -7, Infinity]) };
+    expect(Array.from(maxFilter(p, 1).data)).toEqual([-3, -0.5, 0, 0, Infinity, Infinity]);
+    expect(Array.from(maxFilter({ width: 3, height: 1, data: Float32Array.from([-2, -1e30, -5]) }, 1).data)).toEqual([-2, -2, -5]);
+  });
+});
+
+/** Direct square-window test: does every (all) or some (any) pixel of the window satisfy the mask (outside = 0)? */
+function squareDirect(m: Mask, r: number, all: boolean): number[] {
+  const out: number[] = [];
+  for (let y = 0; y < m.height; y++) for (let x = 0; x < m.width; x++) {
+    let any = false;
+    let every = true;
+    for (let yy = y - r; yy <= y + r; yy++) for (let xx = x - r; xx <= x + r; xx++) {
+      const v = xx >= 0 && yy >= 0 && xx < m.width && yy < m.height && m.data[yy * m.width + xx] !== 0;
+      any ||= v;
+      every &&= v;
+    }
+    out.push((all ? every : any) ? 1 : 0);
+  }
+  return out;
+}
+
+describe('square dilation, erosion and opening against a direct window search', () => {
+  it('match the definition for every radius, size and foreground fraction', () => {
+    // Source: definition of binary dilation / erosion by a square structuring element, beyond the border counting
+    // as background for the erosion (from memory).
+    for (const [w, h] of SIZES) {
+      for (const p of [0.1, 0.6, 0.95]) {
+        const m = randomMask(w, h, 7 * w + h + Math.round(100 * p), p);
+        for (const r of [0, 1, 2, 4, 30]) {
+          expect(Array.from(squareDilate(m, r).data)).toEqual(squareDirect(m, r, false));
+          expect(Array.from(squareErode(m, r).data)).toEqual(squareDirect(m, r, true));
+        }
+        const eroded = { width: w, height: h, data: Uint8Array.from(squareDirect(m, 1, true)) };
+        expect(Array.from(open(m, 1.5).data)).toEqual(squareDirect(eroded, 1, false));
+      }
+    }
+  });
+
+  it('treat any nonzero value as foreground and leave the input unchanged', () => {
+    const m = { width: 4, height: 3, data: Uint8Array.from([0, 255, 2, 0, 7, 7, 7, 7, 0, 0, 9, 0]) };
+    const ones = { width: 4, height: 3, data: m.data.map((v) => (v ? 1 : 0)) };
+    expect(Array.from(squareDilate(m, 1).data)).toEqual(squareDirect(ones, 1, false));
+    expect(Array.from(squareErode({ width: 3, height: 3, data: new Uint8Array(9).fill(5) }, 1).data)).toEqual([0, 0, 0, 0, 1, 0, 0, 0, 0]);
+    expect(m.data[1]).toBe(255);
+  });
+});
