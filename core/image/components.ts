@@ -1,47 +1,93 @@
-// Connected components of a binary mask (8-connected), by breadth-first labelling.
+// Connected components of a binary mask (8-connected), by union–find over foreground runs.
 import type { Mask } from '../model';
+
+/*
+ * The foreground is cut into runs (maximal horizontal stretches of nonzero pixels per row). Two runs in neighbouring
+ * rows are 8-connected exactly when their column ranges overlap or touch diagonally, so a union–find over runs gives
+ * the regions with one scan of the pixels. Labels are numbered by the raster position of each region's first pixel
+ * (the order a raster-order flood fill finds them), so labels and sizes do not depend on the method.
+ */
+
+/** Foreground runs: absolute start and end (exclusive) indices in raster order, each run's region label (1-based). */
+interface LabelledRuns { readonly start: Int32Array; readonly end: Int32Array; readonly label: Int32Array; readonly runs: number; readonly count: number; readonly sizes: number[] }
+
+/** Root of run a, halving the path on the way. */
+function root(parent: Int32Array, a: number): number {
+  while (parent[a] !== a) { parent[a] = parent[parent[a]]; a = parent[a]; }
+  return a;
+}
+
+/** The foreground runs of each row (memory order) and each row's first run index (rowFirst[height] = run count). */
+function foregroundRuns(mask: Mask): { start: Int32Array; end: Int32Array; rowFirst: Int32Array } {
+  const { width, height, data } = mask;
+  const cap = ((width + 1) >> 1) * height;
+  const start = new Int32Array(cap);
+  const end = new Int32Array(cap);
+  const rowFirst = new Int32Array(height + 1);
+  let n = 0;
+  for (let y = 0; y < height; y++) {
+    rowFirst[y] = n;
+    const e = (y + 1) * width;
+    let i = y * width;
+    while (i < e) {
+      while (i < e && data[i] === 0) i++;
+      if (i === e) break;
+      start[n] = i;
+      while (i < e && data[i] !== 0) i++;
+      end[n++] = i;
+    }
+  }
+  rowFirst[height] = n;
+  return { start, end, rowFirst };
+}
+
+/** Runs joined into 8-connected regions, labelled 1..count in raster order of their first pixel. */
+function labelRuns(mask: Mask): LabelledRuns {
+  const { width, height } = mask;
+  const { start, end, rowFirst } = foregroundRuns(mask);
+  const runs = rowFirst[height];
+  const parent = new Int32Array(runs);
+  for (let y = 0; y < height; y++) {
+    let p = y > 0 ? rowFirst[y - 1] : 0;
+    const pEnd = y > 0 ? rowFirst[y] : 0;
+    for (let k = rowFirst[y]; k < rowFirst[y + 1]; k++) {
+      parent[k] = k;
+      // Runs above overlapping [start − 1, end + 1) in columns (absolute indices are one row, `width`, apart).
+      while (p < pEnd && end[p] + width < start[k]) p++;
+      for (let q = p; q < pEnd && start[q] + width <= end[k]; q++) {
+        const a = root(parent, q);
+        const b = root(parent, k);
+        // Keep the earlier run as root, so a region's root is its first run in raster order.
+        if (a < b) parent[b] = a;
+        else if (b < a) parent[a] = b;
+      }
+    }
+  }
+  const label = new Int32Array(runs);
+  const sizes: number[] = [0];
+  for (let k = 0; k < runs; k++) {
+    const r = root(parent, k);
+    if (r === k) { label[k] = sizes.length; sizes.push(0); } else label[k] = label[r];
+    sizes[label[k]] += end[k] - start[k];
+  }
+  return { start, end, label, runs, count: sizes.length - 1, sizes };
+}
 
 /** Label 8-connected foreground regions: labels[i] = 1..count for foreground pixels, 0 for background. */
 export function labelComponents(mask: Mask): { labels: Int32Array; count: number; sizes: number[] } {
-  const { width, height, data } = mask;
-  const labels = new Int32Array(width * height);
-  const queue = new Int32Array(width * height);
-  const sizes: number[] = [0];
-  let count = 0;
-  for (let start = 0; start < data.length; start++) {
-    if (!data[start] || labels[start]) continue;
-    count++;
-    let head = 0;
-    let tail = 0;
-    queue[tail++] = start;
-    labels[start] = count;
-    while (head < tail) {
-      const p = queue[head++];
-      const px = p % width;
-      const py = (p - px) / width;
-      for (let dy = -1; dy <= 1; dy++) {
-        const y = py + dy;
-        if (y < 0 || y >= height) continue;
-        for (let dx = -1; dx <= 1; dx++) {
-          const x = px + dx;
-          if (x < 0 || x >= width) continue;
-          const q = y * width + x;
-          if (data[q] && !labels[q]) { labels[q] = count; queue[tail++] = q; }
-        }
-      }
-    }
-    sizes.push(tail);
-  }
+  const { start, end, label, runs, count, sizes } = labelRuns(mask);
+  const labels = new Int32Array(mask.width * mask.height);
+  for (let k = 0; k < runs; k++) labels.fill(label[k], start[k], end[k]);
   return { labels, count, sizes };
 }
 
 /** The largest 8-connected foreground region as a new mask (all zero when the mask is empty; ties: first found). */
 export function largestComponent(mask: Mask): Mask {
-  const { labels, count, sizes } = labelComponents(mask);
+  const { start, end, label, runs, count, sizes } = labelRuns(mask);
   const out = new Uint8Array(mask.data.length);
   if (count === 0) return { width: mask.width, height: mask.height, data: out };
   let best = 1;
   for (let l = 2; l <= count; l++) if (sizes[l] > sizes[best]) best = l;
-  for (let i = 0; i < out.length; i++) out[i] = labels[i] === best ? 1 : 0;
+  for (let k = 0; k < runs; k++) if (label[k] === best) out.fill(1, start[k], end[k]);
   return { width: mask.width, height: mask.height, data: out };
 }

@@ -6,6 +6,8 @@ import type { Mask, Plane } from '../model';
 import { boxWidthsForSigma, fastGaussianSmooth } from './box-blur';
 import { maxFilter } from './max-filter';
 import { open, squareDilate, squareErode } from './morphology';
+import { fillHoles } from './fill-holes';
+import { labelComponents, largestComponent } from './components';
 
 const SIZES: readonly [number, number][] = [[1, 1], [1, 6], [6, 1], [2, 2], [5, 3], [3, 8], [9, 7], [16, 11]];
 
@@ -135,5 +137,97 @@ describe('square dilation, erosion and opening against a direct window search', 
     expect(Array.from(squareDilate(m, 1).data)).toEqual(squareDirect(ones, 1, false));
     expect(Array.from(squareErode({ width: 3, height: 3, data: new Uint8Array(9).fill(5) }, 1).data)).toEqual([0, 0, 0, 0, 1, 0, 0, 0, 0]);
     expect(m.data[1]).toBe(255);
+  });
+});
+
+/** Blob-like seeded mask (demo data): random discs with random holes, some touching the border. */
+function blobMask(width: number, height: number, seed: number): Mask {
+  const rng = createRng(seed);
+  const data = new Uint8Array(width * height);
+  for (let b = 0; b < 4; b++) {
+    const cx = rng.uniform() * width;
+    const cy = rng.uniform() * height;
+    const r = 1 + rng.uniform() * Math.max(width, height) / 2;
+    const hole = r * rng.uniform() * 0.6;
+    for (let y = 0; y < height; y++) for (let x = 0; x < width; x++) {
+      const d = Math.hypot(x - cx, y - cy);
+      if (d <= r) data[y * width + x] = d < hole ? 0 : 1;
+    }
+  }
+  for (let i = 0; i < data.length; i++) if (rng.uniform() < 0.05) data[i] ^= 1;
+  return { width, height, data };
+}
+
+/** Masks for the region tests: uniform random ones of several densities and blob-like ones, of every size. */
+function regionMasks(): Mask[] {
+  const out: Mask[] = [];
+  for (const [w, h] of [...SIZES, [23, 19] as const, [30, 4] as const]) {
+    for (const p of [0.3, 0.5, 0.7]) out.push(randomMask(w, h, 13 * w + h + Math.round(100 * p), p));
+    out.push(blobMask(w, h, 17 * w + h));
+  }
+  return out;
+}
+
+describe('fillHoles against a direct flood', () => {
+  it('sets exactly the background not 4-connected to the border', () => {
+    // Source: definition of hole filling (background not reachable from the border through 4-neighbours), computed by
+    // repeated relaxation until nothing changes (from memory).
+    for (const m of regionMasks()) {
+      const { width: w, height: h } = m;
+      const outside = new Uint8Array(w * h);
+      for (let i = 0; i < w * h; i++) {
+        const x = i % w;
+        const y = Math.floor(i / w);
+        if (!m.data[i] && (x === 0 || y === 0 || x === w - 1 || y === h - 1)) outside[i] = 1;
+      }
+      for (let changed = true; changed;) {
+        changed = false;
+        for (let i = 0; i < w * h; i++) {
+          if (m.data[i] || outside[i]) continue;
+          const x = i % w;
+          if ((x > 0 && outside[i - 1]) || (x < w - 1 && outside[i + 1]) || (i >= w && outside[i - w]) || (i + w < w * h && outside[i + w])) {
+            outside[i] = 1;
+            changed = true;
+          }
+        }
+      }
+      expect(Array.from(fillHoles(m).data)).toEqual(Array.from(outside, (v) => 1 - v));
+    }
+  });
+});
+
+describe('labelComponents / largestComponent against direct label propagation', () => {
+  it('label 8-connected regions in raster order of their first pixel, with their sizes', () => {
+    // Source: definition of 8-connected components, found by propagating the smallest pixel index to all
+    // 8-neighbours until nothing changes, then numbering regions by first pixel in raster order (from memory).
+    for (const m of regionMasks()) {
+      const { width: w, height: h } = m;
+      const min = Int32Array.from({ length: w * h }, (_, i) => (m.data[i] ? i : -1));
+      for (let changed = true; changed;) {
+        changed = false;
+        for (let i = 0; i < w * h; i++) {
+          if (min[i] < 0) continue;
+          const x = i % w;
+          const y = Math.floor(i / w);
+          for (let dy = -1; dy <= 1; dy++) for (let dx = -1; dx <= 1; dx++) {
+            const xx = x + dx;
+            const yy = y + dy;
+            if (xx < 0 || yy < 0 || xx >= w || yy >= h) continue;
+            const j = yy * w + xx;
+            if (min[j] >= 0 && min[j] < min[i]) { min[i] = min[j]; changed = true; }
+          }
+        }
+      }
+      const numberOf = new Map<number, number>();
+      const expected = Array.from(min, (v) => (v < 0 ? 0 : numberOf.get(v) ?? (numberOf.set(v, numberOf.size + 1), numberOf.size)));
+      const sizes = [0, ...Array.from(numberOf.values(), (l) => expected.filter((v) => v === l).length)];
+      const got = labelComponents(m);
+      expect(Array.from(got.labels)).toEqual(expected);
+      expect(got.count).toBe(numberOf.size);
+      expect(got.sizes).toEqual(sizes);
+      let best = 1;
+      for (let l = 2; l < sizes.length; l++) if (sizes[l] > sizes[best]) best = l;
+      expect(Array.from(largestComponent(m).data)).toEqual(expected.map((v) => (sizes.length > 1 && v === best ? 1 : 0)));
+    }
   });
 });
