@@ -24,20 +24,42 @@ export function sortedQuantile(sorted: ArrayLike<number>, p: number): number {
   return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
 }
 
-/** Histogram of the finite values within [lo, hi] (values outside are ignored) and the count below lo. */
-function histogram(values: ArrayLike<number>, lo: number, hi: number, bins: number): { counts: Float64Array; below: number; total: number } {
-  const counts = new Float64Array(bins);
+/** Values as a typed array, so the passes below see one or two array types only (copies other array-likes). */
+function typed(values: ArrayLike<number>): Float32Array | Float64Array {
+  return values instanceof Float32Array || values instanceof Float64Array ? values : Float64Array.from(values);
+}
+
+/**
+ * Histogram of the values within [lo, hi] (values outside are ignored) and the count below lo. Only called once the
+ * values are known to hold no infinity (min and max are finite), so NaN is the only value to skip; for lo ≤ v ≤ hi
+ * the bin position (v − lo)·scale lies in [0, bins], where truncation (| 0) equals Math.floor.
+ */
+function histogram(values: Float32Array | Float64Array, lo: number, hi: number, bins: number): { counts: Float64Array; below: number; total: number } {
+  // Two interleaved sub-histograms: neighbouring pixels often fall in the same bin, and alternating between two
+  // count arrays halves the chain of dependent increments. Integer counts, so the sum is exact.
+  const even = new Int32Array(bins);
+  const odd = new Int32Array(bins);
   const scale = bins / (hi - lo);
+  const last = bins - 1;
   let below = 0;
-  let total = 0;
-  for (let i = 0; i < values.length; i++) {
+  let nan = 0;
+  const n = values.length;
+  for (let i = 0; i < n; i += 2) {
     const v = values[i];
-    if (!(v === v) || v === Infinity || v === -Infinity) continue;
-    total++;
-    if (v < lo) { below++; continue; }
-    if (v <= hi) counts[Math.min(bins - 1, Math.floor((v - lo) * scale))]++;
+    if (v >= lo) {
+      if (v <= hi) { const b = ((v - lo) * scale) | 0; even[b < last ? b : last]++; }
+    } else if (v < lo) below++;
+    else nan++;
+    if (i + 1 === n) break;
+    const u = values[i + 1];
+    if (u >= lo) {
+      if (u <= hi) { const b = ((u - lo) * scale) | 0; odd[b < last ? b : last]++; }
+    } else if (u < lo) below++;
+    else nan++;
   }
-  return { counts, below, total };
+  const counts = new Float64Array(bins);
+  for (let b = 0; b < bins; b++) counts[b] = even[b] + odd[b];
+  return { counts, below, total: n - nan };
 }
 
 /** Value at cumulative fraction p of a histogram over [lo, hi] (count `below` lies under lo), linear within a bin. */
@@ -60,16 +82,17 @@ function histogramQuantile(h: { counts: Float64Array; below: number; total: numb
  * over that half resolves the peak.
  */
 export function estimateBackgroundLevel(values: ArrayLike<number>): BackgroundLevel {
+  const data = typed(values);
   let min = Infinity;
   let max = -Infinity;
-  for (let i = 0; i < values.length; i++) { const v = values[i]; if (v < min) min = v; if (v > max) max = v; }
+  for (let i = 0; i < data.length; i++) { const v = data[i]; if (v < min) min = v; if (v > max) max = v; }
   if (!(max >= min) || !Number.isFinite(max - min)) return { level: Number.isFinite(min) ? min : 0, noiseSd: 1 };
   const floor = Math.max(1e-6 * (max - min), 1e-12);
   if (max === min) return { level: min, noiseSd: floor };
-  const coarse = histogram(values, min, max, 4096);
+  const coarse = histogram(data, min, max, 4096);
   const lo = histogramQuantile(coarse, min, max, 0.001);
   const hi = Math.max(histogramQuantile(coarse, min, max, 0.5), lo + floor);
-  const fine = histogram(values, lo, hi + (hi - lo) / 4096, 1024);
+  const fine = histogram(data, lo, hi + (hi - lo) / 4096, 1024);
   let best = 0;
   for (let b = 1; b < fine.counts.length; b++) if (fine.counts[b] > fine.counts[best]) best = b;
   const width = (hi + (hi - lo) / 4096 - lo) / 1024;
