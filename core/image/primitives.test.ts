@@ -8,6 +8,8 @@ import { maxFilter } from './max-filter';
 import { open, squareDilate, squareErode } from './morphology';
 import { fillHoles } from './fill-holes';
 import { labelComponents, largestComponent } from './components';
+import { estimateBackgroundLevel } from './background-level';
+import { otsuBin, otsuThreshold } from './threshold';
 
 const SIZES: readonly [number, number][] = [[1, 1], [1, 6], [6, 1], [2, 2], [5, 3], [3, 8], [9, 7], [16, 11]];
 
@@ -229,5 +231,50 @@ describe('labelComponents / largestComponent against direct label propagation', 
       for (let l = 2; l < sizes.length; l++) if (sizes[l] > sizes[best]) best = l;
       expect(Array.from(largestComponent(m).data)).toEqual(expected.map((v) => (sizes.length > 1 && v === best ? 1 : 0)));
     }
+  });
+});
+
+describe('otsuThreshold against a directly built histogram', () => {
+  it('equals otsuBin of the histogram of the finite values (Math.floor bins, maximum in the last bin)', () => {
+    // Source: Otsu's method on an equal-width histogram from min to max (from memory), the histogram built directly.
+    for (const [w, h] of [...SIZES, [40, 25] as const]) {
+      const v = Array.from(randomPlane(w, h, 3 * w + h).data);
+      if (v.length > 3) { v[1] = NaN; v[2] = Infinity; v[3] = -Infinity; }
+      for (const bins of [2, 7, 256]) {
+        const finite = v.filter((x) => Number.isFinite(x));
+        const lo = Math.min(...finite);
+        const hi = Math.max(...finite);
+        const scale = bins / (hi - lo);
+        const hist = new Array<number>(bins).fill(0);
+        for (const x of finite) hist[Math.min(bins - 1, Math.floor((x - lo) * scale))]++;
+        const expected = hi === lo ? lo : lo + (otsuBin(hist) + 1) / scale;
+        expect(otsuThreshold(v, bins)).toBe(expected);
+        expect(otsuThreshold(Float32Array.from(v), bins)).toBe(expected);
+      }
+    }
+  });
+});
+
+describe('estimateBackgroundLevel input handling', () => {
+  it('gives the same result for any array type and ignores NaN', () => {
+    // Demo data: 70% normal(20, 2), 30% normal(80, 4), seeded.
+    const rng = createRng(21);
+    const v = Float32Array.from({ length: 9_999 }, (_, i) => (i % 10 < 3 ? 80 + 4 * rng.normal() : 20 + 2 * rng.normal()));
+    const ref = estimateBackgroundLevel(v);
+    expect(estimateBackgroundLevel(Array.from(v))).toEqual(ref);
+    expect(estimateBackgroundLevel(Float64Array.from(v))).toEqual(ref);
+    const withNan = Array.from(v);
+    withNan.splice(500, 0, NaN, NaN);
+    withNan.push(NaN);
+    expect(estimateBackgroundLevel(withNan)).toEqual(ref);
+    expect(Math.abs(ref.level - 20)).toBeLessThan(0.5);
+    expect(Math.abs(ref.noiseSd - 2)).toBeLessThan(0.3);
+  });
+
+  it('falls back on flat or non-finite input', () => {
+    // Source: the documented fallbacks (flat: the value with a tiny noise floor; an infinity: noise 1).
+    expect(estimateBackgroundLevel([4, 4, 4])).toEqual({ level: 4, noiseSd: 1e-12 });
+    expect(estimateBackgroundLevel([1, Infinity, 3])).toEqual({ level: 1, noiseSd: 1 });
+    expect(estimateBackgroundLevel([NaN, NaN])).toEqual({ level: 0, noiseSd: 1 });
   });
 });
