@@ -1,98 +1,114 @@
 // Exact Euclidean distance transform: a two-scan column pass, then the Felzenszwalb–Huttenlocher lower envelope per row.
 import type { Mask } from '../model';
 
-/** 1-D squared distance transform of f (f = 0 at features, +Infinity elsewhere) into d. */
-function edt1d(f: Float64Array, n: number, d: Float64Array, v: Int32Array, z: Float64Array): void {
-  let k = 0;
-  let first = -1;
-  for (let q = 0; q < n; q++) if (f[q] !== Infinity) { first = q; break; }
-  if (first < 0) { d.fill(Infinity, 0, n); return; }
-  v[0] = first;
-  z[0] = -Infinity;
-  z[1] = Infinity;
-  for (let q = first + 1; q < n; q++) {
-    if (f[q] === Infinity) continue;
-    let s = (f[q] + q * q - (f[v[k]] + v[k] * v[k])) / (2 * q - 2 * v[k]);
+/** Column distance meaning "no feature in this column" (any value ≥ the image height would do). */
+const NONE = 0x3fffffff;
+
+/**
+ * Distance (px, not squared) to the nearest feature in the same column, NONE when the column has none. Integer
+ * scans down and up the columns, whole rows at a time in memory order (cache-friendly on wide images).
+ */
+function columnDistances(features: Mask): Int32Array {
+  const { width, height, data } = features;
+  const out = new Int32Array(width * height);
+  const last = new Int32Array(width).fill(-NONE);
+  for (let y = 0; y < height; y++) {
+    const o = y * width;
+    for (let x = 0; x < width; x++) {
+      if (data[o + x] !== 0) last[x] = y;
+      out[o + x] = y - last[x];
+    }
+  }
+  last.fill(2 * NONE);
+  for (let y = height - 1; y >= 0; y--) {
+    const o = y * width;
+    for (let x = 0; x < width; x++) {
+      if (data[o + x] !== 0) last[x] = y;
+      const dy = last[x] - y;
+      if (dy < out[o + x]) out[o + x] = dy;
+    }
+  }
+  return out;
+}
+
+/** Scratch lines of the row pass, allocated once per call. */
+interface RowScratch { readonly v: Int32Array; readonly fv: Float64Array; readonly z: Float64Array; readonly d: Float64Array }
+
+/** Scratch lines for rows of n pixels. */
+function rowScratch(n: number): RowScratch {
+  return { v: new Int32Array(n), fv: new Float64Array(n), z: new Float64Array(n + 1), d: new Float64Array(n) };
+}
+
+/**
+ * Squared distances along one row into line.d, from the column distances g[o..o+n) (f = g², +Infinity for NONE),
+ * by the lower envelope of parabolas (from memory: Felzenszwalb–Huttenlocher 2012), with the same arithmetic as
+ * over an explicit f line. The envelope keeps each parabola's f beside its position, so the second scan never goes
+ * back to g and no row is copied. Returns false when the row has no finite f (line.d is then not written).
+ */
+function envelopeRow(g: Int32Array, o: number, n: number, line: RowScratch): boolean {
+  const { v, fv, z, d } = line;
+  let k = -1;
+  for (let q = 0; q < n; q++) {
+    const gq = g[o + q];
+    if (gq >= NONE) continue;
+    const fq = gq * gq;
+    if (k < 0) { k = 0; v[0] = q; fv[0] = fq; z[0] = -Infinity; z[1] = Infinity; continue; }
+    let s = (fq + q * q - (fv[k] + v[k] * v[k])) / (2 * q - 2 * v[k]);
     while (s <= z[k]) {
       k--;
-      s = (f[q] + q * q - (f[v[k]] + v[k] * v[k])) / (2 * q - 2 * v[k]);
+      s = (fq + q * q - (fv[k] + v[k] * v[k])) / (2 * q - 2 * v[k]);
     }
     k++;
     v[k] = q;
+    fv[k] = fq;
     z[k] = s;
     z[k + 1] = Infinity;
   }
+  if (k < 0) return false;
   k = 0;
   for (let q = 0; q < n; q++) {
     while (z[k + 1] < q) k++;
     const dq = q - v[k];
-    d[q] = dq * dq + f[v[k]];
+    d[q] = dq * dq + fv[k];
   }
+  return true;
 }
 
 /**
  * Squared Euclidean distance (px²) from each pixel centre to the nearest pixel where `isFeature` is 1.
  * Infinity everywhere when there is no feature pixel. Pixels outside the image are not features.
+ * The values are sums of two squared integers, so they are exact.
  */
 export function squaredDistanceToFeatures(features: Mask): Float64Array {
   const { width, height } = features;
-  const out = columnDistances(features);
-  const n = width;
-  const f = new Float64Array(n);
-  const d = new Float64Array(n);
-  const v = new Int32Array(n);
-  const z = new Float64Array(n + 1);
-  for (let y = 0; y < height; y++) {
-    const o = y * width;
-    for (let x = 0; x < width; x++) f[x] = out[o + x];
-    edt1d(f, width, d, v, z);
-    for (let x = 0; x < width; x++) out[o + x] = d[x];
+  const g = columnDistances(features);
+  const out = new Float64Array(width * height);
+  const line = rowScratch(width);
+  for (let o = 0; o < out.length; o += width) {
+    if (envelopeRow(g, o, width, line)) out.set(line.d, o);
+    else out.fill(Infinity, o, o + width);
   }
   return out;
 }
 
 /**
- * Squared distance (px²) to the nearest feature in the same column (Infinity when the column has none). For a
- * binary input this 1-D pass is two scans; walking rows in memory order keeps it cache-friendly on wide images.
+ * Bounding box of the foreground [x0, x1) × [y0, y1); null for an empty mask. Each row is searched from the left
+ * for its first and from the right for its last foreground pixel, so rows through the object are not read in full.
  */
-function columnDistances(features: Mask): Float64Array {
-  const { width, height, data } = features;
-  const out = new Float64Array(width * height);
-  const last = new Float64Array(width).fill(-Infinity);
-  for (let y = 0; y < height; y++) {
-    const o = y * width;
-    for (let x = 0; x < width; x++) {
-      if (data[o + x]) last[x] = y;
-      const dy = y - last[x];
-      out[o + x] = dy * dy;
-    }
-  }
-  last.fill(Infinity);
-  for (let y = height - 1; y >= 0; y--) {
-    const o = y * width;
-    for (let x = 0; x < width; x++) {
-      if (data[o + x]) last[x] = y;
-      const dy = last[x] - y;
-      const sq = dy * dy;
-      if (sq < out[o + x]) out[o + x] = sq;
-    }
-  }
-  return out;
-}
-
-/** Bounding box of the foreground [x0, x1) × [y0, y1); null for an empty mask. */
 function foregroundBox(mask: Mask): { x0: number; y0: number; x1: number; y1: number } | null {
   const { width, height, data } = mask;
   let x0 = width; let y0 = height; let x1 = -1; let y1 = -1;
   for (let y = 0; y < height; y++) {
     const o = y * width;
-    for (let x = 0; x < width; x++) {
-      if (!data[o + x]) continue;
-      if (x < x0) x0 = x;
-      if (x > x1) x1 = x;
-      if (y < y0) y0 = y;
-      y1 = y;
-    }
+    let a = 0;
+    while (a < width && data[o + a] === 0) a++;
+    if (a === width) continue;
+    let b = width - 1;
+    while (data[o + b] === 0) b--;
+    if (a < x0) x0 = a;
+    if (b > x1) x1 = b;
+    if (y < y0) y0 = y;
+    y1 = y;
   }
   return x1 < 0 ? null : { x0, y0, x1: x1 + 1, y1: y1 + 1 };
 }
@@ -101,7 +117,8 @@ function foregroundBox(mask: Mask): { x0: number; y0: number; x1: number; y1: nu
  * Distance (px) from each foreground pixel centre to the nearest background pixel centre; 0 on background.
  * The region beyond the image border counts as background, so a mask touching the border still has finite depth.
  * Only the foreground's bounding box plus a one-pixel background ring is transformed: every background pixel
- * beyond that ring is farther from any foreground pixel than its clamped image on the ring.
+ * beyond that ring is farther from any foreground pixel than its clamped image on the ring. The square root is
+ * taken straight from each row of the row pass, for foreground pixels only.
  */
 export function distanceInside(mask: Mask): Float32Array {
   const { width, height } = mask;
@@ -116,19 +133,49 @@ export function distanceInside(mask: Mask): Float32Array {
     const po = (y - box.y0 + 1) * pw + 1 - box.x0;
     for (let x = box.x0; x < box.x1; x++) padded[po + x] = mask.data[o + x] ? 0 : 1;
   }
-  const sq = squaredDistanceToFeatures({ width: pw, height: ph, data: padded });
+  const g = columnDistances({ width: pw, height: ph, data: padded });
+  const line = rowScratch(pw);
   for (let y = box.y0; y < box.y1; y++) {
+    // The ring holds background on every row, so each row of the box has finite distances.
+    envelopeRow(g, (y - box.y0 + 1) * pw, pw, line);
+    const d = line.d;
     const o = y * width;
-    const po = (y - box.y0 + 1) * pw + 1 - box.x0;
-    for (let x = box.x0; x < box.x1; x++) if (mask.data[o + x]) out[o + x] = Math.sqrt(sq[po + x]);
+    const po = 1 - box.x0;
+    for (let x = box.x0; x < box.x1; x++) if (mask.data[o + x]) out[o + x] = Math.sqrt(d[po + x]);
   }
   return out;
 }
 
-/** Distance (px) from each pixel centre to the nearest foreground pixel centre (0 on the foreground). */
+/**
+ * Distance (px) from each pixel centre to the nearest foreground pixel centre (0 on the foreground). The square
+ * root is taken row by row straight from the row pass, without a full-size array of squared distances.
+ */
 export function distanceOutside(mask: Mask): Float32Array {
-  const sq = squaredDistanceToFeatures(mask);
-  const out = new Float32Array(sq.length);
-  for (let i = 0; i < sq.length; i++) out[i] = Math.sqrt(sq[i]);
+  const { width } = mask;
+  const g = columnDistances(mask);
+  const out = new Float32Array(g.length);
+  const line = rowScratch(width);
+  for (let o = 0; o < out.length; o += width) {
+    if (!envelopeRow(g, o, width, line)) { out.fill(Infinity, o, o + width); continue; }
+    const d = line.d;
+    for (let x = 0; x < width; x++) out[o + x] = Math.sqrt(d[x]);
+  }
+  return out;
+}
+
+/**
+ * 1 where the squared distance to the nearest feature is at most maxSquaredPx (a disk dilation of the features),
+ * thresholded row by row without a full-size array of squared distances.
+ */
+export function withinSquaredDistance(features: Mask, maxSquaredPx: number): Uint8Array {
+  const { width } = features;
+  const g = columnDistances(features);
+  const out = new Uint8Array(g.length);
+  const line = rowScratch(width);
+  for (let o = 0; o < out.length; o += width) {
+    if (!envelopeRow(g, o, width, line)) continue;
+    const d = line.d;
+    for (let x = 0; x < width; x++) out[o + x] = +(d[x] <= maxSquaredPx);
+  }
   return out;
 }

@@ -1,14 +1,10 @@
 // Binary morphology with a Euclidean disk, via the exact distance transform (cost independent of the radius).
 import type { Mask } from '../model';
-import { distanceInside, squaredDistanceToFeatures } from './distance';
+import { distanceInside, withinSquaredDistance } from './distance';
 
 /** Dilation by a disk of radius radiusPx: pixels whose centre lies within radiusPx of a foreground centre. */
 export function dilate(mask: Mask, radiusPx: number): Mask {
-  const sq = squaredDistanceToFeatures(mask);
-  const r2 = radiusPx * radiusPx;
-  const out = new Uint8Array(sq.length);
-  for (let i = 0; i < sq.length; i++) out[i] = sq[i] <= r2 ? 1 : 0;
-  return { width: mask.width, height: mask.height, data: out };
+  return { width: mask.width, height: mask.height, data: withinSquaredDistance(mask, radiusPx * radiusPx) };
 }
 
 /** Erosion by a disk of radius radiusPx: foreground pixels farther than radiusPx from every background centre. */

@@ -5,7 +5,8 @@ import { createRng } from '../stats';
 import type { Mask, Plane } from '../model';
 import { boxWidthsForSigma, fastGaussianSmooth } from './box-blur';
 import { maxFilter } from './max-filter';
-import { open, squareDilate, squareErode } from './morphology';
+import { dilate, erode, open, squareDilate, squareErode } from './morphology';
+import { distanceInside, distanceOutside, squaredDistanceToFeatures } from './distance';
 import { fillHoles } from './fill-holes';
 import { labelComponents, largestComponent } from './components';
 import { estimateBackgroundLevel } from './background-level';
@@ -276,5 +277,36 @@ describe('estimateBackgroundLevel input handling', () => {
     expect(estimateBackgroundLevel([4, 4, 4])).toEqual({ level: 4, noiseSd: 1e-12 });
     expect(estimateBackgroundLevel([1, Infinity, 3])).toEqual({ level: 1, noiseSd: 1 });
     expect(estimateBackgroundLevel([NaN, NaN])).toEqual({ level: 0, noiseSd: 1 });
+  });
+});
+
+/** Brute-force squared distance from every pixel to the nearest pixel with isFeature true (Infinity when none). */
+function bruteSquared(m: Mask, isFeature: (v: number) => boolean, borderIsFeature: boolean): number[] {
+  const { width: w, height: h } = m;
+  return Array.from({ length: w * h }, (_, i) => {
+    const x = i % w;
+    const y = Math.floor(i / w);
+    let best = borderIsFeature ? Math.min(x + 1, w - x, y + 1, h - y) ** 2 : Infinity;
+    for (let j = 0; j < w * h; j++) if (isFeature(m.data[j])) best = Math.min(best, (j % w - x) ** 2 + (Math.floor(j / w) - y) ** 2);
+    return best;
+  });
+}
+
+describe('distance transforms against brute force', () => {
+  it('give exact squared and rounded distances inside and outside, and the disk dilation and erosion', () => {
+    // Source: definition of the Euclidean distance, minimised over every pixel (brute force); the fast path is the
+    // lower envelope of parabolas (from memory: Felzenszwalb–Huttenlocher 2012 distance transform).
+    for (const m of regionMasks()) {
+      const toFeature = bruteSquared(m, (v) => v !== 0, false);
+      const toBackground = bruteSquared(m, (v) => v === 0, true);
+      expect(Array.from(squaredDistanceToFeatures(m))).toEqual(toFeature);
+      expect(Array.from(distanceOutside(m))).toEqual(toFeature.map((v) => Math.fround(Math.sqrt(v))));
+      const inside = toBackground.map((v, i) => (m.data[i] ? Math.fround(Math.sqrt(v)) : 0));
+      expect(Array.from(distanceInside(m))).toEqual(inside);
+      for (const r of [0, 1, 1.5, 2.3, 5]) {
+        expect(Array.from(dilate(m, r).data)).toEqual(toFeature.map((v) => (v <= r * r ? 1 : 0)));
+        expect(Array.from(erode(m, r).data)).toEqual(inside.map((v) => (v > r ? 1 : 0)));
+      }
+    }
   });
 });
