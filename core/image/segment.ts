@@ -162,12 +162,20 @@ export function binMean(plane: Plane, f: number): Plane {
   const w = Math.ceil(width / f);
   const h = Math.ceil(height / f);
   const sum = new Float64Array(w * h);
+  const fullBlocks = Math.floor(width / f);
   for (let y = 0; y < height; y++) {
     const o = y * width;
     const ob = Math.floor(y / f) * w;
-    for (let x = 0, bx = 0, k = 0; x < width; x++) {
-      sum[ob + bx] += data[o + x];
-      if (++k === f) { k = 0; bx++; }
+    // Same order of additions as pixel by pixel; the loop over whole blocks needs no per-pixel test.
+    for (let bx = 0; bx < fullBlocks; bx++) {
+      let acc = sum[ob + bx];
+      for (let x = o + bx * f, end = x + f; x < end; x++) acc += data[x];
+      sum[ob + bx] = acc;
+    }
+    if (fullBlocks < w) {
+      let acc = sum[ob + fullBlocks];
+      for (let x = o + fullBlocks * f; x < o + width; x++) acc += data[x];
+      sum[ob + fullBlocks] = acc;
     }
   }
   const out = new Float32Array(w * h);
