@@ -6,32 +6,21 @@
  */
 export function otsuThreshold(values: ArrayLike<number>, bins = 256): number {
   if (!Number.isInteger(bins) || bins < 2) throw new Error(`bins must be an integer ≥ 2, got ${bins}`);
-  const data = values instanceof Float32Array || values instanceof Float64Array ? values : Float64Array.from(values);
   let lo = Infinity;
   let hi = -Infinity;
-  for (let i = 0; i < data.length; i++) {
-    const v = data[i];
-    // v − v is 0 exactly for finite v (NaN for NaN and ±Infinity): Number.isFinite without the call.
-    if (v - v === 0) { if (v < lo) lo = v; if (v > hi) hi = v; }
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i];
+    if (Number.isFinite(v)) { if (v < lo) lo = v; if (v > hi) hi = v; }
   }
   if (!(hi >= lo)) throw new Error('otsuThreshold needs at least one finite value');
   if (hi === lo) return lo;
-  return lo + (otsuBin(finiteHistogram(data, lo, hi, bins)) + 1) / (bins / (hi - lo));
-}
-
-/**
- * Histogram of the finite values over [lo, hi] (their minimum and maximum) in `bins` equal bins, the maximum in the
- * last. (v − lo)·scale lies in [0, bins] for every finite value, where truncation (| 0) equals Math.floor.
- */
-function finiteHistogram(data: Float32Array | Float64Array, lo: number, hi: number, bins: number): Float64Array {
   const hist = new Float64Array(bins);
   const scale = bins / (hi - lo);
-  const last = bins - 1;
-  for (let i = 0; i < data.length; i++) {
-    const v = data[i];
-    if (v - v === 0) { const b = ((v - lo) * scale) | 0; hist[b < last ? b : last]++; }
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i];
+    if (Number.isFinite(v)) hist[Math.min(bins - 1, Math.floor((v - lo) * scale))]++;
   }
-  return hist;
+  return lo + (otsuBin(hist) + 1) / scale;
 }
 
 /** Index of the last histogram bin of the dark class that maximises the between-class variance. */
