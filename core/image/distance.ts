@@ -95,7 +95,7 @@ export function squaredDistanceToFeatures(features: Mask): Float64Array {
  * Bounding box of the foreground [x0, x1) × [y0, y1); null for an empty mask. Each row is searched from the left
  * for its first and from the right for its last foreground pixel, so rows through the object are not read in full.
  */
-function foregroundBox(mask: Mask): { x0: number; y0: number; x1: number; y1: number } | null {
+export function foregroundBox(mask: Mask): { x0: number; y0: number; x1: number; y1: number } | null {
   const { width, height, data } = mask;
   let x0 = width; let y0 = height; let x1 = -1; let y1 = -1;
   for (let y = 0; y < height; y++) {

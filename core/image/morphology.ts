@@ -1,6 +1,6 @@
 // Binary morphology with a Euclidean disk, via the exact distance transform (cost independent of the radius).
 import type { Mask } from '../model';
-import { distanceInside, withinSquaredDistance } from './distance';
+import { distanceInside, foregroundBox, withinSquaredDistance } from './distance';
 
 /** Dilation by a disk of radius radiusPx: pixels whose centre lies within radiusPx of a foreground centre. */
 export function dilate(mask: Mask, radiusPx: number): Mask {
@@ -74,14 +74,36 @@ function countAlongColumns(src: Uint8Array, dst: Uint8Array, width: number, heig
   }
 }
 
-/** Square-window dilation (need = 1) or erosion (need = (2r + 1), window inside the image) of mask data. */
-function squareWindow(mask: Mask, r: number, erosion: boolean): Mask {
-  const { width, height } = mask;
+/** Square-window dilation (need = 1) or erosion (need = 2r + 1, window inside the image) of the whole mask data. */
+function squareWindowFull(data: Uint8Array, width: number, height: number, r: number, need: number): Uint8Array {
   const tmp = new Uint8Array(width * height);
   const out = new Uint8Array(width * height);
-  const need = erosion ? 2 * r + 1 : 1;
-  countAlongRows(mask.data, tmp, width, height, r, need);
+  countAlongRows(data, tmp, width, height, r, need);
   countAlongColumns(tmp, out, width, height, r, need);
+  return out;
+}
+
+/**
+ * Square-window dilation or erosion, computed only on the foreground's bounding box grown by r (clipped to the
+ * image): every pixel outside it is 0 either way. Inside that crop the result is the same as on the whole image —
+ * pixels cut off by the crop are background, so they add nothing to a count, and a foreground pixel's window
+ * reaches past the crop only where the crop meets the image border.
+ */
+function squareWindow(mask: Mask, r: number, erosion: boolean): Mask {
+  const { width, height } = mask;
+  const box = foregroundBox(mask);
+  if (box === null) return { width, height, data: new Uint8Array(width * height) };
+  const x0 = Math.max(0, box.x0 - r);
+  const y0 = Math.max(0, box.y0 - r);
+  const cw = Math.min(width, box.x1 + r) - x0;
+  const ch = Math.min(height, box.y1 + r) - y0;
+  const need = erosion ? 2 * r + 1 : 1;
+  if (cw === width && ch === height) return { width, height, data: squareWindowFull(mask.data, width, height, r, need) };
+  const crop = new Uint8Array(cw * ch);
+  for (let y = 0; y < ch; y++) crop.set(mask.data.subarray((y + y0) * width + x0, (y + y0) * width + x0 + cw), y * cw);
+  const done = squareWindowFull(crop, cw, ch, r, need);
+  const out = new Uint8Array(width * height);
+  for (let y = 0; y < ch; y++) out.set(done.subarray(y * cw, (y + 1) * cw), (y + y0) * width + x0);
   return { width, height, data: out };
 }
 

@@ -11,7 +11,7 @@ import { largestComponent } from './components';
 import { estimateBackgroundLevel } from './background-level';
 import { distanceInside, distanceOutside } from './distance';
 import { otsuThreshold } from './threshold';
-import { binMean } from './segment';
+import { binMean, segmentEmbryo } from './segment';
 
 /** Median of a list of numbers (sorted copy). */
 function median(values: number[]): number {
@@ -39,16 +39,8 @@ function time(run: () => unknown): { wallMs: number; cpuMs: number } {
   return { wallMs: median(wall), cpuMs: median(cpu) };
 }
 
-/** Embryo mask of a plane: smoothed values above their Otsu threshold (demo data; holes and border contact vary). */
-function maskOf(plane: Plane): Mask {
-  const s = fastGaussianSmooth(plane, 2).data;
-  const t = otsuThreshold(s);
-  return { width: plane.width, height: plane.height, data: Uint8Array.from(s, (v) => (v > t ? 1 : 0)) };
-}
-
-/** Print one table of primitives for a plane. */
-function benchPlane(label: string, plane: Plane): void {
-  const mask = maskOf(plane);
+/** Print one table of primitives for a plane and the embryo mask segmented from its stack. */
+function benchPlane(label: string, plane: Plane, mask: Mask): void {
   const n = plane.width * plane.height;
   const cases: [string, () => unknown][] = [
     ['fastGaussianSmooth σ=1.5', () => fastGaussianSmooth(plane, 1.5)],
@@ -76,6 +68,8 @@ function benchPlane(label: string, plane: Plane): void {
 }
 
 const embryo = makeSyntheticEmbryo({ widthPx: 1024, heightPx: 1024, pixelSizeUm: 0.6, sizeZ: 2, angleDeg: 33 }, 1);
-const full = toFloatPlane({ width: 1024, height: 1024, data: embryo.stack.planes[embryo.stack.sizeZ] });
-benchPlane('demo data, channel 2, z = 0', full);
-benchPlane('same plane binned 3×3', binMean(full, 3));
+const { sizeZ, planes } = embryo.stack;
+const channels = [0, 1].map((c) => toFloatPlane({ width: 1024, height: 1024, data: planes[c * sizeZ] }));
+const binned = channels.map((c) => binMean(c, 3));
+benchPlane('demo data, channel 2, z = 0', channels[1], segmentEmbryo(channels));
+benchPlane('same plane binned 3×3', binned[1], segmentEmbryo(binned));

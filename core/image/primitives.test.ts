@@ -134,6 +134,20 @@ describe('square dilation, erosion and opening against a direct window search', 
     }
   });
 
+  it('match the definition on masks whose foreground fills only part of the frame', () => {
+    // Source: as above (direct window search); small blobs exercise the bounding-box crop.
+    for (const m of regionMasks()) {
+      for (const r of [0, 1, 3, 12]) {
+        expect(Array.from(squareDilate(m, r).data)).toEqual(squareDirect(m, r, false));
+        expect(Array.from(squareErode(m, r).data)).toEqual(squareDirect(m, r, true));
+      }
+    }
+    const corner = { width: 9, height: 7, data: new Uint8Array(63) };
+    corner.data[9 + 7] = 1;
+    corner.data.fill(1, 45, 48);
+    expect(Array.from(squareDilate(corner, 2).data)).toEqual(squareDirect(corner, 2, false));
+  });
+
   it('treat any nonzero value as foreground and leave the input unchanged', () => {
     const m = { width: 4, height: 3, data: Uint8Array.from([0, 255, 2, 0, 7, 7, 7, 7, 0, 0, 9, 0]) };
     const ones = { width: 4, height: 3, data: m.data.map((v) => (v ? 1 : 0)) };
