@@ -15,11 +15,11 @@ export function boxWidthsForSigma(sigmaPx: number, passes = 3): number[] {
 }
 
 /**
- * Box mean of half-width r along the row of n pixels starting at o, replicating the end pixels. The window sum runs
+ * Box mean of half-width r along the row of n pixels at src[o], into dst[d..d+n), replicating the end pixels. The window sum runs
  * in float64 in the same order as over an explicitly padded line (so results are bit-identical to it); the loop is
  * split into the parts where the leaving or entering pixel is a replicated end, so no per-pixel clamping is needed.
  */
-function boxRow(src: Float32Array, dst: Float32Array, o: number, n: number, r: number): void {
+function boxRow(src: Float32Array, o: number, dst: Float32Array, d: number, n: number, r: number): void {
   const w = 2 * r + 1;
   const first = src[o];
   const last = src[o + n - 1];
@@ -29,51 +29,60 @@ function boxRow(src: Float32Array, dst: Float32Array, o: number, n: number, r: n
   const lo = Math.min(r, n);
   const hi = Math.max(0, n - r - 1);
   let i = 0;
-  for (const e = Math.min(lo, hi); i < e; i++) { dst[o + i] = s / w; s += src[o + i + r + 1] - first; }
-  if (lo <= hi) for (; i < hi; i++) { dst[o + i] = s / w; s += src[o + i + r + 1] - src[o + i - r]; }
-  else for (; i < lo; i++) { dst[o + i] = s / w; s += last - first; }
-  for (; i < n; i++) { dst[o + i] = s / w; s += last - src[o + i - r]; }
+  for (const e = Math.min(lo, hi); i < e; i++) { dst[d + i] = s / w; s += src[o + i + r + 1] - first; }
+  if (lo <= hi) for (; i < hi; i++) { dst[d + i] = s / w; s += src[o + i + r + 1] - src[o + i - r]; }
+  else for (; i < lo; i++) { dst[d + i] = s / w; s += last - first; }
+  for (; i < n; i++) { dst[d + i] = s / w; s += last - src[o + i - r]; }
 }
 
 /**
- * Box mean of half-width r down every column at once, walking rows in memory order (a column-by-column walk
- * misses the cache on wide images). Rows beyond the top and bottom replicate the edge rows.
+ * One box pass in x and then in y (half-width r, edges replicated), from src into dst. The y pass sums down every
+ * column at once, walking rows in memory order; each x-smoothed row is made just before the y pass first needs it,
+ * in a ring of 2r + 2 rows (all the y window needs), so it is still in the cache when it enters the running column
+ * sums and, 2r + 1 rows later, when it leaves them. Sums run in float64 in the same order as two separate full
+ * passes, so results are identical. src and dst may be the same array: row k of src is smoothed into the ring before
+ * row k of dst is written.
  */
-function boxColumns(src: Float32Array, dst: Float32Array, width: number, height: number, r: number, sums: Float64Array): void {
+function boxPass(src: Float32Array, ring: Float32Array, dst: Float32Array, width: number, height: number, r: number, sums: Float64Array): void {
   const w = 2 * r + 1;
-  const lastRow = (height - 1) * width;
+  const last = height - 1;
+  const slots = Math.min(2 * r + 2, height);
+  let ready = 0;
   sums.fill(0);
   for (let y = -r; y <= r; y++) {
-    const o = y < 0 ? 0 : y >= height ? lastRow : y * width;
-    for (let x = 0; x < width; x++) sums[x] += src[o + x];
+    const k = y < 0 ? 0 : y > last ? last : y;
+    for (; ready <= k; ready++) boxRow(src, ready * width, ring, (ready % slots) * width, width, r);
+    const o = (k % slots) * width;
+    for (let x = 0; x < width; x++) sums[x] += ring[o + x];
   }
   for (let y = 0; y < height; y++) {
+    const k = y + r + 1 > last ? last : y + r + 1;
+    for (; ready <= k; ready++) boxRow(src, ready * width, ring, (ready % slots) * width, width, r);
     const out = y * width;
-    const add = y + r + 1 >= height ? lastRow : (y + r + 1) * width;
-    const sub = y - r < 0 ? 0 : (y - r) * width;
+    const add = (k % slots) * width;
+    const sub = ((y - r < 0 ? 0 : y - r) % slots) * width;
     for (let x = 0; x < width; x++) {
       dst[out + x] = sums[x] / w;
-      sums[x] += src[add + x] - src[sub + x];
+      sums[x] += ring[add + x] - ring[sub + x];
     }
   }
 }
 
 /**
- * Approximately Gaussian-smoothed copy (three box passes in x and in y; same size; edges replicated). Two scratch
- * planes are reused for all passes; the first pass reads the input directly instead of a copy of it.
+ * Approximately Gaussian-smoothed copy (three box passes in x and in y; same size; edges replicated). The first
+ * pass reads the input directly (no copy of it); later passes work in place in the output.
  */
 export function fastGaussianSmooth(plane: Plane, sigmaPx: number): Plane {
   const { width, height } = plane;
   const widths = boxWidthsForSigma(sigmaPx);
   let cur = plane.data;
-  const rows = new Float32Array(width * height);
   const out = new Float32Array(width * height);
+  const ring = new Float32Array(Math.min(2 * ((Math.max(...widths) - 1) >> 1) + 2, height) * width);
   const sums = new Float64Array(width);
   for (const w of widths) {
     const r = (w - 1) >> 1;
     if (r === 0) continue;
-    for (let o = 0; o < rows.length; o += width) boxRow(cur, rows, o, width, r);
-    boxColumns(rows, out, width, height, r, sums);
+    boxPass(cur, ring, out, width, height, r, sums);
     cur = out;
   }
   return { width, height, data: cur === out ? out : Float32Array.from(cur) };
