@@ -30,8 +30,22 @@ function boxRow(src: Float32Array, o: number, dst: Float32Array, d: number, n: n
   const hi = Math.max(0, n - r - 1);
   let i = 0;
   for (const e = Math.min(lo, hi); i < e; i++) { dst[d + i] = s / w; s += src[o + i + r + 1] - first; }
-  if (lo <= hi) for (; i < hi; i++) { dst[d + i] = s / w; s += src[o + i + r + 1] - src[o + i - r]; }
-  else for (; i < lo; i++) { dst[d + i] = s / w; s += last - first; }
+  if (lo <= hi) {
+    // Interior, unrolled by four (less loop overhead; the same operations in the same order).
+    const a = o + r + 1;
+    const b = o - r;
+    for (; i + 4 <= hi; i += 4) {
+      dst[d + i] = s / w;
+      s += src[a + i] - src[b + i];
+      dst[d + i + 1] = s / w;
+      s += src[a + i + 1] - src[b + i + 1];
+      dst[d + i + 2] = s / w;
+      s += src[a + i + 2] - src[b + i + 2];
+      dst[d + i + 3] = s / w;
+      s += src[a + i + 3] - src[b + i + 3];
+    }
+    for (; i < hi; i++) { dst[d + i] = s / w; s += src[a + i] - src[b + i]; }
+  } else for (; i < lo; i++) { dst[d + i] = s / w; s += last - first; }
   for (; i < n; i++) { dst[d + i] = s / w; s += last - src[o + i - r]; }
 }
 
@@ -61,10 +75,34 @@ function boxPass(src: Float32Array, ring: Float32Array, dst: Float32Array, width
     const out = y * width;
     const add = (k % slots) * width;
     const sub = ((y - r < 0 ? 0 : y - r) % slots) * width;
-    for (let x = 0; x < width; x++) {
-      dst[out + x] = sums[x] / w;
-      sums[x] += ring[add + x] - ring[sub + x];
-    }
+    slideColumns(ring, add, sub, dst, out, sums, width, w);
+  }
+}
+
+/**
+ * For every column x: dst[out + x] = sums[x] / w, then sums[x] += ring[add + x] − ring[sub + x]. Unrolled by four
+ * (the columns are independent), which roughly halves the per-element loop overhead in V8; each column still gets
+ * exactly the same operations in the same order.
+ */
+function slideColumns(ring: Float32Array, add: number, sub: number, dst: Float32Array, out: number, sums: Float64Array, width: number, w: number): void {
+  let x = 0;
+  for (; x + 4 <= width; x += 4) {
+    const s0 = sums[x];
+    const s1 = sums[x + 1];
+    const s2 = sums[x + 2];
+    const s3 = sums[x + 3];
+    dst[out + x] = s0 / w;
+    dst[out + x + 1] = s1 / w;
+    dst[out + x + 2] = s2 / w;
+    dst[out + x + 3] = s3 / w;
+    sums[x] = s0 + (ring[add + x] - ring[sub + x]);
+    sums[x + 1] = s1 + (ring[add + x + 1] - ring[sub + x + 1]);
+    sums[x + 2] = s2 + (ring[add + x + 2] - ring[sub + x + 2]);
+    sums[x + 3] = s3 + (ring[add + x + 3] - ring[sub + x + 3]);
+  }
+  for (; x < width; x++) {
+    dst[out + x] = sums[x] / w;
+    sums[x] += ring[add + x] - ring[sub + x];
   }
 }
 
