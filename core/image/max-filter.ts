@@ -36,7 +36,7 @@ function maxRow(bits: Int32Array, o: number, n: number, r: number, dst: Int32Arr
   const { pad, g, h } = line;
   const w = 2 * r + 1;
   const len = n + 2 * r;
-  for (let i = 0; i < n; i++) pad[r + i] = flipKey(bits[o + i]);
+  flipRow(bits, o, pad, r, n);
   for (let k = 0; k < len; k += w) {
     const e = k + w < len ? k + w : len;
     let m = pad[k];
@@ -47,7 +47,7 @@ function maxRow(bits: Int32Array, o: number, n: number, r: number, dst: Int32Arr
     for (let j = e - 2; j >= k; j--) { m = larger(m, pad[j]); h[j] = m; }
   }
   const span = 2 * r;
-  for (let i = 0; i < n; i++) dst[d + i] = larger(h[i], g[i + span]);
+  maxOfRows(h, 0, g, span, dst, d, n);
 }
 
 /** Scratch lines of maxRow, allocated once per call. */
@@ -79,8 +79,35 @@ function blockScan(rows: Int32Array, acc: Int32Array, width: number, count: numb
   for (let j = 1; j < count; j++) {
     const o = (forward ? j : count - 1 - j) * width;
     const p = forward ? o - width : o + width;
-    for (let x = 0; x < width; x++) acc[o + x] = larger(acc[p + x], rows[o + x]);
+    maxOfRows(acc, p, rows, o, acc, o, width);
   }
+}
+
+/**
+ * dst[d + x] = larger(a[ao + x], b[bo + x]) for x < n, unrolled by four (independent elements; roughly halves the
+ * per-element loop overhead in V8).
+ */
+function maxOfRows(a: Int32Array, ao: number, b: Int32Array, bo: number, dst: Int32Array, d: number, n: number): void {
+  let x = 0;
+  for (; x + 4 <= n; x += 4) {
+    dst[d + x] = larger(a[ao + x], b[bo + x]);
+    dst[d + x + 1] = larger(a[ao + x + 1], b[bo + x + 1]);
+    dst[d + x + 2] = larger(a[ao + x + 2], b[bo + x + 2]);
+    dst[d + x + 3] = larger(a[ao + x + 3], b[bo + x + 3]);
+  }
+  for (; x < n; x++) dst[d + x] = larger(a[ao + x], b[bo + x]);
+}
+
+/** dst[d + x] = flipKey(src[s + x]) for x < n (keys to float bits or back), unrolled by four. */
+function flipRow(src: Int32Array, s: number, dst: Int32Array, d: number, n: number): void {
+  let x = 0;
+  for (; x + 4 <= n; x += 4) {
+    dst[d + x] = flipKey(src[s + x]);
+    dst[d + x + 1] = flipKey(src[s + x + 1]);
+    dst[d + x + 2] = flipKey(src[s + x + 2]);
+    dst[d + x + 3] = flipKey(src[s + x + 3]);
+  }
+  for (; x < n; x++) dst[d + x] = flipKey(src[s + x]);
 }
 
 /**
@@ -116,12 +143,11 @@ export function maxFilter(plane: Plane, radiusPx: number): Plane {
       blockScan(next, g, width, nextCount, true);
     }
     // Window starting at padded row y = y0 covers block b exactly; later ones end at row y + 2r in block b + 1.
-    for (let x = 0; x < width; x++) outBits[y0 * width + x] = flipKey(h[x]);
+    flipRow(h, 0, outBits, y0 * width, width);
     for (let y = y0 + 1; y < y0 + w && y < height; y++) {
       const o = y * width;
-      const ho = (y - y0) * width;
-      const go = (y - y0 - 1) * width;
-      for (let x = 0; x < width; x++) outBits[o + x] = flipKey(larger(h[ho + x], g[go + x]));
+      maxOfRows(h, (y - y0) * width, g, (y - y0 - 1) * width, outBits, o, width);
+      flipRow(outBits, o, outBits, o, width);
     }
     [cur, next] = [next, cur];
   }
