@@ -65,12 +65,35 @@ function countAlongColumns(src: Uint8Array, dst: Uint8Array, width: number, heig
     const ao = y + r < height ? (y + r) * width : 0;
     const sub = y >= r ? src : zeros;
     const so = y >= r ? (y - r) * width : 0;
-    const o = y * width;
-    for (let x = 0; x < width; x++) {
-      const c = counts[x] + add[ao + x];
-      dst[o + x] = +(c >= need);
-      counts[x] = c - sub[so + x];
-    }
+    slideCounts(counts, add, ao, sub, so, dst, y * width, need);
+  }
+}
+
+/**
+ * For every column x: c = counts[x] + add[ao + x]; dst[o + x] = c ≥ need; counts[x] = c − sub[so + x]. Unrolled by
+ * four (independent columns; roughly halves the per-element loop overhead in V8).
+ */
+function slideCounts(counts: Int32Array, add: Uint8Array, ao: number, sub: Uint8Array, so: number, dst: Uint8Array, o: number, need: number): void {
+  const width = counts.length;
+  let x = 0;
+  for (; x + 4 <= width; x += 4) {
+    const c0 = counts[x] + add[ao + x];
+    const c1 = counts[x + 1] + add[ao + x + 1];
+    const c2 = counts[x + 2] + add[ao + x + 2];
+    const c3 = counts[x + 3] + add[ao + x + 3];
+    dst[o + x] = +(c0 >= need);
+    dst[o + x + 1] = +(c1 >= need);
+    dst[o + x + 2] = +(c2 >= need);
+    dst[o + x + 3] = +(c3 >= need);
+    counts[x] = c0 - sub[so + x];
+    counts[x + 1] = c1 - sub[so + x + 1];
+    counts[x + 2] = c2 - sub[so + x + 2];
+    counts[x + 3] = c3 - sub[so + x + 3];
+  }
+  for (; x < width; x++) {
+    const c = counts[x] + add[ao + x];
+    dst[o + x] = +(c >= need);
+    counts[x] = c - sub[so + x];
   }
 }
 
