@@ -131,7 +131,7 @@ export function distanceInside(mask: Mask): Float32Array {
   for (let y = box.y0; y < box.y1; y++) {
     const o = y * width;
     const po = (y - box.y0 + 1) * pw + 1 - box.x0;
-    for (let x = box.x0; x < box.x1; x++) padded[po + x] = mask.data[o + x] ? 0 : 1;
+    for (let x = box.x0; x < box.x1; x++) padded[po + x] = +(mask.data[o + x] === 0);
   }
   const g = columnDistances({ width: pw, height: ph, data: padded });
   const line = rowScratch(pw);
@@ -141,7 +141,8 @@ export function distanceInside(mask: Mask): Float32Array {
     const d = line.d;
     const o = y * width;
     const po = 1 - box.x0;
-    for (let x = box.x0; x < box.x1; x++) if (mask.data[o + x]) out[o + x] = Math.sqrt(d[po + x]);
+    // Background pixels are features of the padded mask (d = 0), so they get sqrt(0) = 0 without a branch.
+    for (let x = box.x0; x < box.x1; x++) out[o + x] = Math.sqrt(d[po + x]);
   }
   return out;
 }
