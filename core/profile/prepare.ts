@@ -78,11 +78,16 @@ export function prepareSampling(projected: ProjectedStack, detection: Detection,
   warnings.push(...bg.warnings);
   const bandData = new Uint8Array(mask.data.length);
   for (let i = 0; i < bandData.length; i++) bandData[i] = mask.data[i] === 1 && depthPx[i] - 0.5 <= edgeDepthPx ? 1 : 0;
+  // The whole-mask pixel set serves only the axis-strip profile: gathered on first use, then kept.
+  let inside: PixelSet | null = null;
   return {
     width: mask.width, height: mask.height, pixelSizeUm: px, channelNames: projected.channelNames, mask, depthPx,
     edgeDepthPx, bandMask: { width: mask.width, height: mask.height, data: bandData },
     band: pixelSet(projected, bandData, bg.backgrounds),
-    inside: pixelSet(projected, mask.data, bg.backgrounds),
+    get inside(): PixelSet {
+      inside ??= pixelSet(projected, mask.data, bg.backgrounds);
+      return inside;
+    },
     backgrounds: bg.backgrounds, warnings,
   };
 }
