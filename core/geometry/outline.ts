@@ -1,6 +1,7 @@
 // Outlines of a binary mask by marching squares at the 0.5 level: vertices sit half-way between an inside and an
 // outside pixel centre. Pixels beyond the image border count as outside, so every contour is closed.
 import type { ImagePoint, Mask } from '../model';
+import { foregroundBox } from '../image';
 
 /** Corner offsets of a cell (top-left, top-right, bottom-right, bottom-left) and its edges as corner pairs. */
 const CORNERS = [[0, 0], [1, 0], [1, 1], [0, 1]] as const;
@@ -34,25 +35,6 @@ function cellSegments(inside: readonly boolean[], x: number, y: number, out: Seg
   }
 }
 
-/** Smallest rectangle holding every foreground pixel (inclusive bounds), or null for an empty mask. */
-function foregroundBox(mask: Mask): { x0: number; y0: number; x1: number; y1: number } | null {
-  const { width, height, data } = mask;
-  let x0 = width; let y0 = -1; let x1 = -1; let y1 = -1;
-  for (let y = 0; y < height; y++) {
-    const o = y * width;
-    let first = -1;
-    for (let x = 0; x < width; x++) if (data[o + x] !== 0) { first = x; break; }
-    if (first < 0) continue;
-    let last = width - 1;
-    while (data[o + last] === 0) last--;
-    if (y0 < 0) y0 = y;
-    y1 = y;
-    if (first < x0) x0 = first;
-    if (last > x1) x1 = last;
-  }
-  return y0 < 0 ? null : { x0, y0, x1, y1 };
-}
-
 /** All closed contours of the mask (each a list of vertices, last vertex not repeated), in discovery order. */
 export function maskContours(mask: Mask): ImagePoint[][] {
   const { width, height, data } = mask;
@@ -64,10 +46,10 @@ export function maskContours(mask: Mask): ImagePoint[][] {
   // cells touching the foreground's bounding box can hold segments, so the scan stays inside it (same order).
   let top = new Uint8Array(width + 2);
   let bottom = new Uint8Array(width + 2);
-  for (let y = box.y0 - 1; y <= box.y1; y++) {
+  for (let y = box.y0 - 1; y < box.y1; y++) {
     bottom.fill(0);
-    if (y + 1 <= box.y1) for (let x = box.x0; x <= box.x1; x++) bottom[x + 1] = data[(y + 1) * width + x] !== 0 ? 1 : 0;
-    for (let x = box.x0 - 1; x <= box.x1; x++) {
+    if (y + 1 < box.y1) for (let x = box.x0; x < box.x1; x++) bottom[x + 1] = data[(y + 1) * width + x] !== 0 ? 1 : 0;
+    for (let x = box.x0 - 1; x < box.x1; x++) {
       const count = top[x + 1] + top[x + 2] + bottom[x + 2] + bottom[x + 1];
       if (count === 0 || count === 4) continue;
       inside[0] = top[x + 1] === 1; inside[1] = top[x + 2] === 1; inside[2] = bottom[x + 2] === 1; inside[3] = bottom[x + 1] === 1;

@@ -9,7 +9,7 @@ export { fastGaussianSmooth, boxWidthsForSigma } from './box-blur';
 export { otsuThreshold, otsuBin } from './threshold';
 export { labelComponents, largestComponent } from './components';
 export { fillHoles } from './fill-holes';
-export { squaredDistanceToFeatures, distanceInside, distanceOutside } from './distance';
+export { squaredDistanceToFeatures, distanceInside, distanceOutside, foregroundBox } from './distance';
 export { dilate, erode, open, close, squareDilate, squareErode } from './morphology';
 export { maxFilter } from './max-filter';
 export { sampleBilinear } from './bilinear';
