@@ -2,7 +2,7 @@
 // decode-only vs whole-pipeline time, files/s with one worker vs all cores, and peak memory vs the raw stack size.
 // Each measurement runs in a fresh child process so peak RSS belongs to that measurement alone. Prints, never asserts.
 import { execFile, execFileSync } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, linkSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { availableParallelism, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -55,6 +55,24 @@ function generate(dir: string): void {
   }
 }
 
+/** Files in the throughput folder: the stacks repeated (hard links, no extra disk) so a pool's last file, which may
+ *  run while the other workers idle, weighs little. Ordered so any run of consecutive files mixes both kinds. */
+const POOL_REPEATS = 3;
+
+/** Fill `dir`/pool with POOL_REPEATS hard links to each stack; returns their paths in order. */
+function poolFolder(dir: string): string[] {
+  const out: string[] = [];
+  mkdirSync(join(dir, 'pool'), { recursive: true });
+  for (let r = 0; r < POOL_REPEATS; r += 1) {
+    for (const f of FILES) {
+      const link = join(dir, 'pool', `r${r + 1}-${f.name}`);
+      if (!existsSync(link)) linkSync(join(dir, 'in', f.name), link);
+      out.push(link);
+    }
+  }
+  return out;
+}
+
 /** Read every plane of a file once, plane by plane, in the pipeline's order (z outer, channel inner), keeping nothing. */
 async function decodeOnce(path: string): Promise<number> {
   const t0 = performance.now();
@@ -77,7 +95,7 @@ async function pipelineOnce(path: string): Promise<number> {
  * code (cold); later files show the steady per-file cost of a batch (warm). Peak memory is that of the whole run.
  */
 async function childRun(kind: string, paths: string[]): Promise<Record<string, number>> {
-  limitDecoderThreads(availableParallelism());
+  limitDecoderThreads(Number(process.env.EGGLINE_BENCH_THREADS) || availableParallelism());
   const base = process.memoryUsage().rss;
   const stop = watchHeap();
   const cpu0 = process.cpuUsage();
@@ -93,7 +111,7 @@ async function childPool(dir: string, jobs: number): Promise<Record<string, numb
   const cpu0 = process.cpuUsage();
   const t0 = performance.now();
   const s = await runBatch({
-    folder: join(dir, 'in'), outDir: join(dir, `out-${jobs}`), settings: { ...DEFAULT_SETTINGS, boundaryChannels: [2] },
+    folder: join(dir, 'pool'), outDir: join(dir, `out-${jobs}`), settings: { ...DEFAULT_SETTINGS, boundaryChannels: [2] },
     doc: null, jobs, workerPath,
   });
   const ms = performance.now() - t0;
@@ -106,10 +124,12 @@ function runChild(args: string[]): Record<string, number> {
   return JSON.parse(out.trim().split('\n').pop() ?? '{}') as Record<string, number>;
 }
 
-/** Several children at once (each its own process); resolves with their results in order. */
+/** Several children at once (each its own process, the cores' decoder threads shared out among them as the batch
+ *  does for its workers); resolves with their results in order. */
 function runChildrenAtOnce(argLists: string[][]): Promise<Record<string, number>[]> {
+  const env = { ...process.env, EGGLINE_BENCH_THREADS: String(Math.max(1, Math.floor(availableParallelism() / argLists.length))) };
   return Promise.all(argLists.map((args) => new Promise<Record<string, number>>((resolve, reject) => {
-    execFile(process.execPath, [self, '--child', ...args], { encoding: 'utf8', maxBuffer: 1 << 20 }, (err, out) => {
+    execFile(process.execPath, [self, '--child', ...args], { encoding: 'utf8', maxBuffer: 1 << 20, env }, (err, out) => {
       if (err) reject(err);
       else resolve(JSON.parse(out.trim().split('\n').pop() ?? '{}') as Record<string, number>);
     });
@@ -132,18 +152,21 @@ async function main(): Promise<void> {
   generate(dir);
   const cores = availableParallelism();
   const paths = FILES.map((f) => join(dir, 'in', f.name));
+  const poolPaths = poolFolder(dir);
   console.log(`\nEggline batch benchmark — ${cores} cores, Node ${process.versions.node}; stack ${SIZE.sizeC} ch × ${SIZE.sizeZ} z × ${SIZE.widthPx}×${SIZE.heightPx} uint16 = ${mib(RAW_BYTES)} MiB raw\n`);
-  console.log(`${''.padEnd(26)}${'first file of a process (cold)'.padStart(30)}${'after one other file (warm)'.padStart(30)}${'memory, cold'.padStart(24)}`);
+  console.log(`${''.padEnd(26)}${'first file of a process (cold)'.padStart(30)}${'after three other files (warm)'.padStart(30)}${'memory, cold'.padStart(24)}`);
   console.log(`${'file'.padEnd(26)}${pad('decode s', 10)}${pad('pipeline s', 12)}${pad('ratio', 8)}${pad('decode s', 10)}${pad('pipeline s', 12)}${pad('ratio', 8)}${pad('peak MiB', 10)}${pad('× raw', 8)}${pad('heap+buf', 10)}`);
   const cold: number[] = [];
   const warm: number[] = [];
   const peaks: number[] = [];
   paths.forEach((path, i) => {
-    const other = paths[(i + 1) % paths.length];
+    // Warm: the file comes after the three other stacks, as in a batch once the compiler has settled (it keeps
+    // recompiling the analysis over about the first four files of a process).
+    const others = paths.filter((p) => p !== path);
     const dc = runChild(['decode', path]);
     const pc = runChild(['pipeline', path]);
-    const dw = runChild(['decode', other, path]);
-    const pw = runChild(['pipeline', other, path]);
+    const dw = runChild(['decode', ...others, path]);
+    const pw = runChild(['pipeline', ...others, path]);
     cold.push(pc.cold / dc.cold);
     warm.push(pw.warm / dw.warm);
     peaks.push(pc.peakExtra);
@@ -161,8 +184,9 @@ async function main(): Promise<void> {
   // hardware and the kernel) against one process doing it all.
   const ceiling: Record<string, number> = {};
   for (const kind of ['decode', 'pipeline']) {
-    const alone = runChild([kind, ...paths]);
-    const split = await runChildrenAtOnce(Array.from({ length: cores }, (_, k) => [kind, ...paths.filter((_, i) => i % cores === k)]));
+    const alone = runChild([kind, ...poolPaths]);
+    const share = Math.ceil(poolPaths.length / cores);
+    const split = await runChildrenAtOnce(Array.from({ length: cores }, (_, k) => [kind, ...poolPaths.slice(k * share, (k + 1) * share)]));
     ceiling[kind] = alone.total / Math.max(...split.map((r) => r.total));
   }
   console.log(`\n${cores} separate processes against one, same files: decode only ${ceiling.decode.toFixed(2)}×, whole pipeline ${ceiling.pipeline.toFixed(2)}× (the ceiling this machine allows)`);

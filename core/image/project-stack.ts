@@ -109,8 +109,10 @@ export async function projectStack(info: StackInfo, source: PlaneSource, setting
     channels = projectors.map((p) => p.result());
     if (settings.projection === 'slice') sliceIndex = settings.sliceIndex;
   }
-  // One NaN would spread through every later filter, so non-finite values (float files) become 0 here.
-  const bad = clearNonFinite(channels);
+  // One NaN would spread through every later filter, so non-finite values (float files) become 0 here; projections
+  // of integer samples are always finite, so they skip the pass.
+  const floatSamples = info.sampleType === 'float32' || info.sampleType === 'float64';
+  const bad = floatSamples ? clearNonFinite(channels) : 0;
   if (bad > 0) warnings.push(`${bad} projected pixel value(s) were NaN or infinite and were set to 0`);
   return { channels, channelNames: names, pixelSizeUm: px.um, pixelSizeSource: px.source, projection: settings.projection, sliceIndex, warnings };
 }
