@@ -120,6 +120,43 @@ function nearLocalLevel(channels: readonly Plane[], o: Required<SegmentOptions>)
   return keep;
 }
 
+/**
+ * nearLocalLevel evaluated only at the pixels listed in `at` (indices into the channels' pixels): the same noise
+ * units and the same local maximum, so the same decisions, without filtering the whole image. The local maximum of
+ * the noise-scaled image is the noise-scaled maximum of the smoothed one (the scaling is monotone), so it is taken
+ * on the smoothed values by a direct window search around each listed pixel.
+ */
+function nearLocalLevelAt(channels: readonly Plane[], at: Int32Array, o: Required<SegmentOptions>): Uint8Array {
+  const { width, height } = channels[0];
+  const keep = new Uint8Array(width * height);
+  const r = Math.max(0, Math.round(o.localRadiusPx));
+  const scaled = new Float32Array(2);
+  for (const ch of channels) {
+    const s = fastGaussianSmooth(ch, o.fineSigmaPx).data;
+    const bg = estimateBackgroundLevel(s);
+    for (let k = 0; k < at.length; k++) {
+      const i = at[k];
+      const y = (i / width) | 0;
+      const x = i - y * width;
+      const local = windowMax(s, width, Math.max(0, x - r), Math.min(width - 1, x + r), Math.max(0, y - r), Math.min(height - 1, y + r));
+      // Float32 rounding as in channelSnr's output plane.
+      scaled[0] = (s[i] - bg.level) / bg.noiseSd;
+      scaled[1] = (local - bg.level) / bg.noiseSd;
+      if (scaled[0] >= Math.max(3, o.edgeFraction * scaled[1])) keep[i] = 1;
+    }
+  }
+  return keep;
+}
+
+/** Maximum of values over columns x0..x1 and rows y0..y1 (inclusive) of a row-major image `width` wide. */
+function windowMax(values: Float32Array, width: number, x0: number, x1: number, y0: number, y1: number): number {
+  let m = -Infinity;
+  for (let y = y0; y <= y1; y++) {
+    for (let i = y * width + x0, end = y * width + x1; i <= end; i++) if (values[i] > m) m = values[i];
+  }
+  return m;
+}
+
 /** The part of a plane inside box, as a plane of its own. */
 function cropPlane(plane: Plane, box: PixelBox): Plane {
   const cw = box.x1 - box.x0;
@@ -290,16 +327,27 @@ function refineEdge(up: Float32Array, channels: readonly Plane[], o: Required<Se
   }
   // The whole region lies inside the box (its edge band does) and the box's rim is background (or the image
   // border), so cleaning up the crop alone gives the same mask as cleaning up the whole frame.
-  const keep = nearLocalLevel(channels.map((c) => cropPlane(c, box)), o);
   const cw = box.x1 - box.x0;
   const ch = box.y1 - box.y0;
   const crop = new Uint8Array(cw * ch);
+  let bandCount = 0;
   for (let y = 0; y < ch; y++) {
     for (let x = 0; x < cw; x++) {
       const u = up[(y + box.y0) * width + x + box.x0];
-      crop[y * cw + x] = u >= 1 || (u > 0 && keep[y * cw + x]) ? 1 : 0;
+      if (u >= 1) crop[y * cw + x] = 1;
+      else if (u > 0) bandCount++;
     }
   }
+  // Only band pixels consult the edge rule, so it runs there alone.
+  const at = new Int32Array(bandCount);
+  for (let y = 0, k = 0; y < ch; y++) {
+    for (let x = 0; x < cw; x++) {
+      const u = up[(y + box.y0) * width + x + box.x0];
+      if (u > 0 && u < 1) at[k++] = y * cw + x;
+    }
+  }
+  const keep = nearLocalLevelAt(channels.map((c) => cropPlane(c, box)), at, o);
+  for (let k = 0; k < at.length; k++) crop[at[k]] = keep[at[k]];
   const clean = fillHoles(largestComponent(open({ width: cw, height: ch, data: crop }, 1.5))).data;
   for (let y = 0; y < ch; y++) out.set(clean.subarray(y * cw, (y + 1) * cw), (y + box.y0) * width + box.x0);
   return { width, height, data: out };
