@@ -1,5 +1,6 @@
 // Connected components of a binary mask (8-connected), by union–find over foreground runs.
 import type { Mask } from '../model';
+import { maskRuns, runRoot as root } from './runs';
 
 /*
  * The foreground is cut into runs (maximal horizontal stretches of nonzero pixels per row). Two runs in neighbouring
@@ -11,40 +12,10 @@ import type { Mask } from '../model';
 /** Foreground runs: absolute start and end (exclusive) indices in raster order, each run's region label (1-based). */
 interface LabelledRuns { readonly start: Int32Array; readonly end: Int32Array; readonly label: Int32Array; readonly runs: number; readonly count: number; readonly sizes: number[] }
 
-/** Root of run a, halving the path on the way. */
-function root(parent: Int32Array, a: number): number {
-  while (parent[a] !== a) { parent[a] = parent[parent[a]]; a = parent[a]; }
-  return a;
-}
-
-/** The foreground runs of each row (memory order) and each row's first run index (rowFirst[height] = run count). */
-function foregroundRuns(mask: Mask): { start: Int32Array; end: Int32Array; rowFirst: Int32Array } {
-  const { width, height, data } = mask;
-  const cap = ((width + 1) >> 1) * height;
-  const start = new Int32Array(cap);
-  const end = new Int32Array(cap);
-  const rowFirst = new Int32Array(height + 1);
-  let n = 0;
-  for (let y = 0; y < height; y++) {
-    rowFirst[y] = n;
-    const e = (y + 1) * width;
-    let i = y * width;
-    while (i < e) {
-      while (i < e && data[i] === 0) i++;
-      if (i === e) break;
-      start[n] = i;
-      while (i < e && data[i] !== 0) i++;
-      end[n++] = i;
-    }
-  }
-  rowFirst[height] = n;
-  return { start, end, rowFirst };
-}
-
 /** Runs joined into 8-connected regions, labelled 1..count in raster order of their first pixel. */
 function labelRuns(mask: Mask): LabelledRuns {
   const { width, height } = mask;
-  const { start, end, rowFirst } = foregroundRuns(mask);
+  const { start, end, rowFirst } = maskRuns(mask, true);
   const runs = rowFirst[height];
   const parent = new Int32Array(runs);
   for (let y = 0; y < height; y++) {

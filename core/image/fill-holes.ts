@@ -1,5 +1,7 @@
 // Hole filling: background not 4-connected to the image border becomes foreground.
 import type { Mask } from '../model';
+import { maskRuns, runRoot as root } from './runs';
+import type { MaskRuns as Runs } from './runs';
 
 /*
  * Instead of flooding pixel by pixel, the background is cut into runs (maximal horizontal stretches of zeros per
@@ -8,40 +10,6 @@ import type { Mask } from '../model';
  * Everything else — foreground and enclosed runs — becomes 1. The work is one scan of the pixels plus a little per
  * run, and the output is written with whole-run fills.
  */
-
-/** Background runs of a mask: absolute start and end (exclusive) indices, in raster order, and each row's first run. */
-interface Runs { readonly start: Int32Array; readonly end: Int32Array; readonly rowFirst: Int32Array; readonly count: number }
-
-/** The background runs of each row, scanned in memory order. */
-function backgroundRuns(mask: Mask): Runs {
-  const { width, height, data } = mask;
-  const cap = ((width + 1) >> 1) * height;
-  const start = new Int32Array(cap);
-  const end = new Int32Array(cap);
-  const rowFirst = new Int32Array(height + 1);
-  let count = 0;
-  for (let y = 0; y < height; y++) {
-    rowFirst[y] = count;
-    const o = y * width;
-    const e = o + width;
-    let i = o;
-    while (i < e) {
-      while (i < e && data[i] !== 0) i++;
-      if (i === e) break;
-      start[count] = i;
-      while (i < e && data[i] === 0) i++;
-      end[count++] = i;
-    }
-  }
-  rowFirst[height] = count;
-  return { start, end, rowFirst, count };
-}
-
-/** Root of run a, halving the path on the way (union–find). */
-function root(parent: Int32Array, a: number): number {
-  while (parent[a] !== a) { parent[a] = parent[parent[a]]; a = parent[a]; }
-  return a;
-}
 
 /** 1 for each run whose 4-connected background region touches the image border. */
 function runsReachingBorder(runs: Runs, width: number, height: number): Uint8Array {
@@ -73,7 +41,7 @@ function runsReachingBorder(runs: Runs, width: number, height: number): Uint8Arr
 export function fillHoles(mask: Mask): Mask {
   const { width, height } = mask;
   const out = new Uint8Array(width * height).fill(1);
-  const runs = backgroundRuns(mask);
+  const runs = maskRuns(mask, false);
   const outside = runsReachingBorder(runs, width, height);
   for (let k = 0; k < runs.count; k++) if (outside[k]) out.fill(0, runs.start[k], runs.end[k]);
   return { width, height, data: out };
