@@ -29,41 +29,103 @@ function typed(values: ArrayLike<number>): Float32Array | Float64Array {
   return values instanceof Float32Array || values instanceof Float64Array ? values : Float64Array.from(values);
 }
 
+/** Histogram counts with the count below lo and the number of non-NaN values (the total for quantiles). */
+interface Histogram {
+  readonly counts: Float64Array;
+  readonly below: number;
+  readonly total: number;
+}
+
 /**
  * Histogram of the values within [lo, hi] (values outside are ignored) and the count below lo. Only called once the
- * values are known to hold no infinity (min and max are finite), so NaN is the only value to skip; for lo ≤ v ≤ hi
- * the bin position (v − lo)·scale lies in [0, bins], where truncation (| 0) equals Math.floor.
+ * values are known to hold no infinity (min and max are finite). Counts go to slots [bins..., below lo, above hi,
+ * NaN] of one of four sub-histograms in turn: neighbouring pixels often fall in the same bin, and separate counters
+ * break the chain of dependent increments (integer counts, so the sums are exact). The slot is found without
+ * branches (0/1 flags and masks), as half the values of a typical image lie beyond hi in no predictable order. For
+ * lo ≤ v ≤ hi the bin position (v − lo)·scale lies in [0, bins], where truncation (| 0) equals Math.floor; it is
+ * clamped to the last bin.
  */
-function histogram(values: Float32Array | Float64Array, lo: number, hi: number, bins: number): { counts: Float64Array; below: number; total: number } {
-  // Two interleaved sub-histograms: neighbouring pixels often fall in the same bin, and alternating between two
-  // count arrays halves the chain of dependent increments. Integer counts, so the sum is exact.
-  const even = new Int32Array(bins);
-  const odd = new Int32Array(bins);
+function histogram(values: Float32Array | Float64Array, lo: number, hi: number, bins: number): Histogram {
+  const stride = bins + 3;
+  const c = new Int32Array(4 * stride);
   const scale = bins / (hi - lo);
   const last = bins - 1;
-  let below = 0;
-  let nan = 0;
   const n = values.length;
-  for (let i = 0; i < n; i += 2) {
+  for (let i = 0; i < n; i++) {
     const v = values[i];
-    if (v >= lo) {
-      if (v <= hi) { const b = ((v - lo) * scale) | 0; even[b < last ? b : last]++; }
-    } else if (v < lo) below++;
-    else nan++;
-    if (i + 1 === n) break;
-    const u = values[i + 1];
-    if (u >= lo) {
-      if (u <= hi) { const b = ((u - lo) * scale) | 0; odd[b < last ? b : last]++; }
-    } else if (u < lo) below++;
-    else nan++;
+    const keep = -(+(v >= lo) & +(v <= hi));
+    const over = (((v - lo) * scale) | 0) - last;
+    const bin = last + (over & (over >> 31));
+    c[(i & 3) * stride + ((bin & keep) | ((last + 2 - +(v < lo) + +(v !== v)) & ~keep))]++;
   }
+  const sum = (k: number): number => c[k] + c[stride + k] + c[2 * stride + k] + c[3 * stride + k];
   const counts = new Float64Array(bins);
-  for (let b = 0; b < bins; b++) counts[b] = even[b] + odd[b];
-  return { counts, below, total: n - nan };
+  for (let b = 0; b < bins; b++) counts[b] = sum(b);
+  return { counts, below: sum(bins), total: n - sum(bins + 2) };
+}
+
+/**
+ * histogram(values, min, max, bins) for values without NaN whose minimum and maximum are min and max: every value
+ * lies in range, so no tests are needed at all.
+ */
+function fullRangeHistogram(values: Float32Array | Float64Array, min: number, max: number, bins: number): Histogram {
+  const c0 = new Int32Array(bins);
+  const c1 = new Int32Array(bins);
+  const c2 = new Int32Array(bins);
+  const c3 = new Int32Array(bins);
+  const scale = bins / (max - min);
+  const last = bins - 1;
+  const n = values.length;
+  let i = 0;
+  for (; i + 3 < n; i += 4) {
+    const b0 = (((values[i] - min) * scale) | 0) - last;
+    const b1 = (((values[i + 1] - min) * scale) | 0) - last;
+    const b2 = (((values[i + 2] - min) * scale) | 0) - last;
+    const b3 = (((values[i + 3] - min) * scale) | 0) - last;
+    c0[last + (b0 & (b0 >> 31))]++;
+    c1[last + (b1 & (b1 >> 31))]++;
+    c2[last + (b2 & (b2 >> 31))]++;
+    c3[last + (b3 & (b3 >> 31))]++;
+  }
+  for (; i < n; i++) { const b = (((values[i] - min) * scale) | 0) - last; c0[last + (b & (b >> 31))]++; }
+  const counts = new Float64Array(bins);
+  for (let b = 0; b < bins; b++) counts[b] = c0[b] + c1[b] + c2[b] + c3[b];
+  return { counts, below: 0, total: n };
+}
+
+/**
+ * Minimum, maximum (±Infinity when there is no non-NaN value) and NaN count, with the same result as one scan that
+ * keeps the first value strictly below (above) the current one: four lanes, and for a zero extreme the first zero
+ * of the scan (so its sign is the one a single scan keeps).
+ */
+function extremes(data: Float32Array | Float64Array): { min: number; max: number; nan: number } {
+  let a0 = Infinity; let a1 = Infinity; let a2 = Infinity; let a3 = Infinity;
+  let b0 = -Infinity; let b1 = -Infinity; let b2 = -Infinity; let b3 = -Infinity;
+  let nan = 0;
+  const n = data.length;
+  let i = 0;
+  for (; i + 3 < n; i += 4) {
+    const v0 = data[i]; const v1 = data[i + 1]; const v2 = data[i + 2]; const v3 = data[i + 3];
+    if (v0 < a0) a0 = v0; if (v0 > b0) b0 = v0;
+    if (v1 < a1) a1 = v1; if (v1 > b1) b1 = v1;
+    if (v2 < a2) a2 = v2; if (v2 > b2) b2 = v2;
+    if (v3 < a3) a3 = v3; if (v3 > b3) b3 = v3;
+    nan += +(v0 !== v0) + +(v1 !== v1) + +(v2 !== v2) + +(v3 !== v3);
+  }
+  for (; i < n; i++) { const v = data[i]; if (v < a0) a0 = v; if (v > b0) b0 = v; nan += +(v !== v); }
+  let min = Math.min(a0, a1, a2, a3);
+  let max = Math.max(b0, b1, b2, b3);
+  if (min === 0 || max === 0) {
+    let k = 0;
+    while (data[k] !== 0) k++;
+    if (min === 0) min = data[k];
+    if (max === 0) max = data[k];
+  }
+  return { min, max, nan };
 }
 
 /** Value at cumulative fraction p of a histogram over [lo, hi] (count `below` lies under lo), linear within a bin. */
-function histogramQuantile(h: { counts: Float64Array; below: number; total: number }, lo: number, hi: number, p: number): number {
+function histogramQuantile(h: Histogram, lo: number, hi: number, p: number): number {
   const target = p * h.total;
   let acc = h.below;
   const width = (hi - lo) / h.counts.length;
@@ -83,13 +145,11 @@ function histogramQuantile(h: { counts: Float64Array; below: number; total: numb
  */
 export function estimateBackgroundLevel(values: ArrayLike<number>): BackgroundLevel {
   const data = typed(values);
-  let min = Infinity;
-  let max = -Infinity;
-  for (let i = 0; i < data.length; i++) { const v = data[i]; if (v < min) min = v; if (v > max) max = v; }
+  const { min, max, nan } = extremes(data);
   if (!(max >= min) || !Number.isFinite(max - min)) return { level: Number.isFinite(min) ? min : 0, noiseSd: 1 };
   const floor = Math.max(1e-6 * (max - min), 1e-12);
   if (max === min) return { level: min, noiseSd: floor };
-  const coarse = histogram(data, min, max, 4096);
+  const coarse = nan === 0 ? fullRangeHistogram(data, min, max, 4096) : histogram(data, min, max, 4096);
   const lo = histogramQuantile(coarse, min, max, 0.001);
   const hi = Math.max(histogramQuantile(coarse, min, max, 0.5), lo + floor);
   const fine = histogram(data, lo, hi + (hi - lo) / 4096, 1024);
