@@ -19,3 +19,4 @@ export { segmentEmbryo, combinedSnr, channelSnr, checkSegmentOptions, downsample
 export type { SegmentOptions } from './segment';
 export { resolveChannel, describeChannelRef } from './channel-ref';
 export { selectKth, medianInPlace } from './select';
+export { maskedMedian } from './select';

@@ -1,7 +1,7 @@
 // Background estimates per channel: outside the embryo (robust), a drawn rectangle, or none.
 import type { BackgroundEstimate, Mask, Plane } from '../model';
 import type { BackgroundSettings } from '../settings';
-import { medianInPlace, sortedQuantile, squareDilate } from '../image';
+import { maskedMedian, sortedQuantile, squareDilate } from '../image';
 
 /** Fewest outside pixels accepted for the 'outside' estimate before falling back to a low percentile. */
 const MIN_OUTSIDE_PX = 100;
@@ -19,16 +19,14 @@ export function outsideBackground(plane: Plane, mask: Mask, marginPx: number): {
 export function farFromMask(mask: Mask, marginPx: number): Uint8Array {
   const grown = squareDilate(mask, marginPx).data;
   const far = new Uint8Array(grown.length);
-  for (let i = 0; i < far.length; i++) far[i] = grown[i] ? 0 : 1;
+  for (let i = 0; i < far.length; i++) far[i] = +(grown[i] === 0);
   return far;
 }
 
 /** outsideBackground with the far-from-mask pixels already known (so several channels share one distance map). */
 export function outsideBackgroundFar(plane: Plane, far: Uint8Array): { value: number; warning: string | null } {
-  const values = new Float32Array(far.length);
-  let n = 0;
-  for (let i = 0; i < far.length; i++) if (far[i] && Number.isFinite(plane.data[i])) values[n++] = plane.data[i];
-  if (n >= MIN_OUTSIDE_PX) return { value: medianInPlace(values.subarray(0, n)), warning: null };
+  const { median, count } = maskedMedian(plane.data, far);
+  if (count >= MIN_OUTSIDE_PX) return { value: median, warning: null };
   const all = Float64Array.from(plane.data).sort();
   return { value: sortedQuantile(all, 0.02), warning: 'too little background outside the embryo; the 2nd percentile of the image was used as background' };
 }

@@ -1,0 +1,64 @@
+import { describe, expect, it } from 'vitest';
+import { maskedMedian, medianInPlace } from './select';
+
+/** Reference: median of a sorted copy (mean of the two middle values for an even count). */
+function sortMedian(values: number[]): number {
+  // Source: from memory, the textbook definition of the sample median.
+  const s = [...values].sort((a, b) => a - b);
+  const n = s.length;
+  if (n === 0) return NaN;
+  return n % 2 === 1 ? s[n >> 1] : (s[(n >> 1) - 1] + s[n >> 1]) / 2;
+}
+
+/** Seeded linear congruential generator (demo data). */
+function lcg(seed: number): () => number {
+  let s = seed >>> 0;
+  return () => { s = (Math.imul(s, 1664525) + 1013904223) >>> 0; return s / 4294967296; };
+}
+
+describe('maskedMedian', () => {
+  it('takes the median of the kept finite values only (tiny known answers)', () => {
+    // Source: from memory, median definition; kept values 1, 5, 3 → 3; with 8 added → (3 + 5) / 2 = 4.
+    const values = new Float32Array([1, 100, 5, NaN, 3, Infinity, -Infinity, 8]);
+    expect(maskedMedian(values, new Uint8Array([1, 0, 1, 1, 1, 1, 1, 0]))).toEqual({ median: 3, count: 3 });
+    expect(maskedMedian(values, new Uint8Array([1, 0, 1, 0, 2, 0, 0, 1]))).toEqual({ median: 4, count: 4 });
+  });
+
+  it('is NaN with a count of 0 when nothing is kept', () => {
+    // Source: common practice (the median of an empty set is undefined).
+    const r = maskedMedian(new Float32Array([1, 2, 3]), new Uint8Array(3));
+    expect(r.count).toBe(0);
+    expect(r.median).toBeNaN();
+  });
+
+  it('equals a sort-based median on large seeded sets (bucket path), odd and even counts', () => {
+    // Source: from memory, median definition; demo data: quantised seeded noise plus bright outliers.
+    for (const n of [70_001, 70_002]) {
+      const rnd = lcg(n);
+      const values = new Float32Array(n);
+      const keep = new Uint8Array(n);
+      for (let i = 0; i < n; i++) {
+        values[i] = Math.round((100 + 10 * (rnd() - 0.5) + (rnd() < 0.1 ? 500 * rnd() : 0)) * 3) / 3;
+        keep[i] = rnd() < 0.97 ? 1 : 0;
+      }
+      values[5] = NaN;
+      const kept: number[] = [];
+      for (let i = 0; i < n; i++) if (keep[i] && Number.isFinite(values[i])) kept.push(values[i]);
+      const r = maskedMedian(values, keep);
+      expect(r.count).toBe(kept.length);
+      expect(r.median).toBe(sortMedian(kept));
+      expect(r.median).toBe(medianInPlace(Float32Array.from(kept)));
+    }
+  });
+
+  it('agrees with medianInPlace of the gathered values on small sets', () => {
+    // Source: from memory, median definition (demo data: seeded uniform values).
+    const rnd = lcg(3);
+    for (const n of [1, 2, 5, 64, 999]) {
+      const values = Float32Array.from({ length: n }, () => rnd() * 50 - 25);
+      const keep = Uint8Array.from({ length: n }, () => (rnd() < 0.6 ? 1 : 0));
+      const kept = Array.from(values).filter((_, i) => keep[i]);
+      expect(maskedMedian(values, keep).median).toBe(kept.length ? sortMedian(kept) : NaN);
+    }
+  });
+});
