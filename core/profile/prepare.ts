@@ -1,7 +1,7 @@
 // Everything about sampling that does not depend on where the axis handles are: computed once per detection.
 import type { BackgroundEstimate, Detection, Mask, ProjectedStack } from '../model';
 import type { AnalysisSettings } from '../settings';
-import { distanceInside } from '../image';
+import { distanceInside, foregroundBox } from '../image';
 import { estimateBackgrounds } from './background';
 import { checkSamplingSettings } from './check-settings';
 
@@ -33,18 +33,24 @@ export interface PreparedSampling {
   readonly warnings: readonly string[];
 }
 
-/** Collect positions and background-subtracted values of the pixels where keep[i] is 1. */
-function pixelSet(projected: ProjectedStack, keep: Uint8Array, backgrounds: readonly BackgroundEstimate[]): PixelSet {
+/** Half-open bounding box of the mask's pixels, or null when it is empty. */
+type Box = { x0: number; y0: number; x1: number; y1: number } | null;
+
+/**
+ * Collect positions and background-subtracted values of the pixels where keep[i] is 1, in row-major order. Only
+ * the box is scanned: keep is 0 everywhere outside it.
+ */
+function pixelSet(projected: ProjectedStack, keep: Uint8Array, backgrounds: readonly BackgroundEstimate[], box: Box): PixelSet {
   const { width } = projected.channels[0];
+  const { x0, y0, x1, y1 } = box ?? { x0: 0, y0: 0, x1: 0, y1: 0 };
   let n = 0;
-  for (let i = 0; i < keep.length; i++) n += keep[i];
+  for (let y = y0; y < y1; y++) for (let i = y * width + x0, end = y * width + x1; i < end; i++) n += keep[i];
   const idx = new Int32Array(n);
   const xs = new Float32Array(n);
   const ys = new Float32Array(n);
-  const height = keep.length / width;
-  for (let y = 0, k = 0; y < height; y++) {
+  for (let y = y0, k = 0; y < y1; y++) {
     const o = y * width;
-    for (let x = 0; x < width; x++) {
+    for (let x = x0; x < x1; x++) {
       if (!keep[o + x]) continue;
       idx[k] = o + x;
       xs[k] = x;
@@ -76,16 +82,24 @@ export function prepareSampling(projected: ProjectedStack, detection: Detection,
   const edgeDepthPx = toPx(settings.profile.edgeDepthUm);
   const bg = estimateBackgrounds(projected.channels, projected.channelNames, mask, settings.background, Math.max(5, toPx(10)));
   warnings.push(...bg.warnings);
+  // Band and pixel sets lie within the mask's bounding box (outside it the mask, and so the band, is 0).
+  const box = foregroundBox(mask);
   const bandData = new Uint8Array(mask.data.length);
-  for (let i = 0; i < bandData.length; i++) bandData[i] = mask.data[i] === 1 && depthPx[i] - 0.5 <= edgeDepthPx ? 1 : 0;
+  if (box) {
+    for (let y = box.y0; y < box.y1; y++) {
+      for (let i = y * mask.width + box.x0, end = y * mask.width + box.x1; i < end; i++) {
+        bandData[i] = +(mask.data[i] === 1 && depthPx[i] - 0.5 <= edgeDepthPx);
+      }
+    }
+  }
   // The whole-mask pixel set serves only the axis-strip profile: gathered on first use, then kept.
   let inside: PixelSet | null = null;
   return {
     width: mask.width, height: mask.height, pixelSizeUm: px, channelNames: projected.channelNames, mask, depthPx,
     edgeDepthPx, bandMask: { width: mask.width, height: mask.height, data: bandData },
-    band: pixelSet(projected, bandData, bg.backgrounds),
+    band: pixelSet(projected, bandData, bg.backgrounds, box),
     get inside(): PixelSet {
-      inside ??= pixelSet(projected, mask.data, bg.backgrounds);
+      inside ??= pixelSet(projected, mask.data, bg.backgrounds, box);
       return inside;
     },
     backgrounds: bg.backgrounds, warnings,
