@@ -1,6 +1,6 @@
 // Choose which pole is anterior from the gradient channel (the gradient is high at the anterior end).
 import type { ImagePoint, Mask, Plane } from '../model';
-import { estimateBackgroundLevel } from '../image';
+import { estimateBackgroundLevel, foregroundBox } from '../image';
 
 /** Mean background-subtracted intensity of `plane` over mask pixels in the first and last `fraction` of first→second. */
 export function endMeans(plane: Plane, mask: Mask, first: ImagePoint, second: ImagePoint, fraction = 0.2): { first: number; second: number } {
@@ -9,13 +9,16 @@ export function endMeans(plane: Plane, mask: Mask, first: ImagePoint, second: Im
   const len2 = dx * dx + dy * dy;
   const bg = estimateBackgroundLevel(plane.data).level;
   let s1 = 0; let n1 = 0; let s2 = 0; let n2 = 0;
-  const { width, height, data } = mask;
-  for (let y = 0; y < height; y++) {
+  const { width, data } = mask;
+  // Only the mask's bounding box holds mask pixels; rows in the same order as a full scan, so the sums agree.
+  const box = foregroundBox(mask) ?? { x0: 0, y0: 0, x1: 0, y1: 0 };
+  for (let y = box.y0; y < box.y1; y++) {
     const o = y * width;
-    for (let x = 0; x < width; x++) {
+    const along = (y - first.y) * dy;
+    for (let x = box.x0; x < box.x1; x++) {
       const i = o + x;
       if (!data[i]) continue;
-      const t = ((x - first.x) * dx + (y - first.y) * dy) / len2;
+      const t = ((x - first.x) * dx + along) / len2;
       if (t <= fraction) { s1 += plane.data[i] - bg; n1++; } else if (t >= 1 - fraction) { s2 += plane.data[i] - bg; n2++; }
     }
   }

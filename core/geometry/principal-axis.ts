@@ -1,5 +1,6 @@
 // Principal axis of a binary mask from its second-order central moments.
 import type { ImagePoint, Mask } from '../model';
+import { foregroundBox } from '../image';
 
 /** Centroid (px), unit direction of the major axis, and SDs of the pixel positions along/across it (px). */
 export interface PrincipalAxis {
@@ -12,14 +13,16 @@ export interface PrincipalAxis {
 
 /** Principal axis of the foreground pixels (centres at integer coordinates); throws on an empty mask. */
 export function principalAxis(mask: Mask): PrincipalAxis {
-  const { width, height, data } = mask;
+  const { width, data } = mask;
+  // Only the mask's bounding box holds foreground pixels.
+  const { x0, y0, x1, y1 } = foregroundBox(mask) ?? { x0: 0, y0: 0, x1: 0, y1: 0 };
   let n = 0;
   let sx = 0;
   let sy = 0;
   // Row and column loops (no division per pixel); the sums run in the same pixel order as a flat scan.
-  for (let y = 0; y < height; y++) {
+  for (let y = y0; y < y1; y++) {
     const o = y * width;
-    for (let x = 0; x < width; x++) if (data[o + x]) { n++; sx += x; sy += y; }
+    for (let x = x0; x < x1; x++) if (data[o + x]) { n++; sx += x; sy += y; }
   }
   if (n === 0) throw new Error('the mask is empty');
   const cx = sx / n;
@@ -27,10 +30,10 @@ export function principalAxis(mask: Mask): PrincipalAxis {
   let mxx = 0;
   let myy = 0;
   let mxy = 0;
-  for (let y = 0; y < height; y++) {
+  for (let y = y0; y < y1; y++) {
     const o = y * width;
     const dy = y - cy;
-    for (let x = 0; x < width; x++) {
+    for (let x = x0; x < x1; x++) {
       if (!data[o + x]) continue;
       const dx = x - cx;
       mxx += dx * dx; myy += dy * dy; mxy += dx * dy;
