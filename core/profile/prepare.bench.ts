@@ -53,7 +53,7 @@ const cases: [string, () => unknown][] = [
   ['    medianInPlace (outside px)', () => medianInPlace(outside.slice())],
   ['    copy of the outside px', () => outside.slice()],
   ['  band + pixel set (prepare − dist − bg)', () => null],
-  ['  inside pixel set (first use)', () => prepareSampling(projected, detection, settings).inside],
+  ['prepareSampling + inside pixel set', () => prepareSampling(projected, detection, settings).inside],
   ['estimateBackgroundLevel (1 ch)', () => estimateBackgroundLevel(projected.channels[0].data)],
   ['endMeans', () => endMeans(projected.channels[0], mask, detection.axis.anterior, detection.axis.posterior)],
   ['principalAxis', () => principalAxis(mask)],
