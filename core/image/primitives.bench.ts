@@ -1,7 +1,7 @@
 // Micro-benchmark of the core image primitives on a demo-data plane (1024×1024 and binned to 342×342).
 // Run: npx tsx core/image/primitives.bench.ts   (prints warm median ms per call and ns/px, wall and CPU; no assertions)
 import type { Mask, Plane } from '../model';
-import { makeSyntheticEmbryo } from '../synth';
+import { makeSyntheticEmbryo, warmTiming } from '../synth';
 import { toFloatPlane } from './plane-convert';
 import { fastGaussianSmooth } from './box-blur';
 import { maxFilter } from './max-filter';
@@ -13,31 +13,7 @@ import { distanceInside, distanceOutside } from './distance';
 import { otsuThreshold } from './threshold';
 import { binMean, segmentEmbryo } from './segment';
 
-/** Median of a list of numbers (sorted copy). */
-function median(values: number[]): number {
-  const s = [...values].sort((a, b) => a - b);
-  return s[s.length >> 1];
-}
-
-/**
- * Warm median wall and CPU time (ms) of one call: a few warm-up calls first, then repeats until ~400 ms or 40 calls.
- * CPU time (process.cpuUsage) is printed beside wall time because the machine is shared.
- */
-function time(run: () => unknown): { wallMs: number; cpuMs: number } {
-  for (let i = 0; i < 3; i++) run();
-  const wall: number[] = [];
-  const cpu: number[] = [];
-  const start = performance.now();
-  while (wall.length < 5 || (wall.length < 40 && performance.now() - start < 400)) {
-    const c0 = process.cpuUsage();
-    const t0 = performance.now();
-    run();
-    wall.push(performance.now() - t0);
-    const c = process.cpuUsage(c0);
-    cpu.push((c.user + c.system) / 1000);
-  }
-  return { wallMs: median(wall), cpuMs: median(cpu) };
-}
+const time = warmTiming;
 
 /** Print one table of primitives for a plane and the embryo mask segmented from its stack. */
 function benchPlane(label: string, plane: Plane, mask: Mask): void {

@@ -2,35 +2,15 @@
 // projected and detected once), plus the detection steps that share its primitives.
 // Run: npx tsx core/profile/prepare.bench.ts   (prints warm median ms per call, wall and CPU; no assertions)
 import { DEFAULT_SETTINGS } from '../settings';
-import { makeSyntheticEmbryo, syntheticPlaneSource, syntheticStackInfo } from '../synth';
+import { makeSyntheticEmbryo, syntheticPlaneSource, syntheticStackInfo, warmTiming } from '../synth';
 import { distanceInside, estimateBackgroundLevel, medianInPlace, projectStack, squareDilate } from '../image';
 import { detectEmbryo, endMeans, principalAxis } from '../geometry';
 import { estimateBackgrounds } from './background';
 import { farFromMask, outsideBackgroundFar } from './background';
 import { prepareSampling } from './prepare';
 
-/** Median of a list of numbers (sorted copy). */
-function median(values: number[]): number {
-  const s = [...values].sort((a, b) => a - b);
-  return s[s.length >> 1];
-}
-
-/** Warm median wall and CPU ms of one call: three warm-up calls, then repeats until ~600 ms or 40 calls. */
-function time(run: () => unknown): { wallMs: number; cpuMs: number } {
-  for (let i = 0; i < 3; i++) run();
-  const wall: number[] = [];
-  const cpu: number[] = [];
-  const start = performance.now();
-  while (wall.length < 5 || (wall.length < 40 && performance.now() - start < 600)) {
-    const c0 = process.cpuUsage();
-    const t0 = performance.now();
-    run();
-    wall.push(performance.now() - t0);
-    const c = process.cpuUsage(c0);
-    cpu.push((c.user + c.system) / 1000);
-  }
-  return { wallMs: median(wall), cpuMs: median(cpu) };
-}
+/** Warm median wall and CPU ms of one call (a longer budget than the default: these calls are slower). */
+const time = (run: () => unknown): { wallMs: number; cpuMs: number } => warmTiming(run, 600);
 
 const settings = { ...DEFAULT_SETTINGS, boundaryChannels: [2] };
 const embryo = makeSyntheticEmbryo({ widthPx: 1024, heightPx: 1024, pixelSizeUm: 0.6, sizeZ: 24, zStepUm: 1, angleDeg: 33 }, 1);

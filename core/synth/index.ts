@@ -6,3 +6,4 @@ export type { SyntheticEmbryoParams } from './params';
 export { demoDataSet, DEMO_DOSAGES, DEMO_EMBRYOS_PER_CONDITION, DEMO_VARIATION, FURROW_BUFFERING } from './demo';
 export type { DemoItem } from './demo';
 export { syntheticStackInfo, syntheticPlaneSource } from './source';
+export { warmTiming } from './warm-timing';
