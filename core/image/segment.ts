@@ -130,7 +130,6 @@ function nearLocalLevelAt(channels: readonly Plane[], at: Int32Array, o: Require
   const { width, height } = channels[0];
   const keep = new Uint8Array(width * height);
   const r = Math.max(0, Math.round(o.localRadiusPx));
-  const scaled = new Float32Array(2);
   for (const ch of channels) {
     const s = fastGaussianSmooth(ch, o.fineSigmaPx).data;
     const bg = estimateBackgroundLevel(s);
@@ -139,10 +138,10 @@ function nearLocalLevelAt(channels: readonly Plane[], at: Int32Array, o: Require
       const y = (i / width) | 0;
       const x = i - y * width;
       const local = windowMax(s, width, Math.max(0, x - r), Math.min(width - 1, x + r), Math.max(0, y - r), Math.min(height - 1, y + r));
-      // Float32 rounding as in channelSnr's output plane.
-      scaled[0] = (s[i] - bg.level) / bg.noiseSd;
-      scaled[1] = (local - bg.level) / bg.noiseSd;
-      if (scaled[0] >= Math.max(3, o.edgeFraction * scaled[1])) keep[i] = 1;
+      // Rounded to Float32 as channelSnr's output plane stores them.
+      const fine = Math.fround((s[i] - bg.level) / bg.noiseSd);
+      const localFine = Math.fround((local - bg.level) / bg.noiseSd);
+      if (fine >= Math.max(3, o.edgeFraction * localFine)) keep[i] = 1;
     }
   }
   return keep;
