@@ -173,7 +173,7 @@ async function main(): Promise<void> {
   const paths = FILES.map((f) => join(dir, 'in', f.name));
   const poolPaths = poolFolder(dir);
   console.log(`\nEggline batch benchmark — ${cores} cores, Node ${process.versions.node}; stack ${SIZE.sizeC} ch × ${SIZE.sizeZ} z × ${SIZE.widthPx}×${SIZE.heightPx} uint16 = ${mib(RAW_BYTES)} MiB raw\n`);
-  console.log(`${''.padEnd(26)}${'first file of a process (cold)'.padStart(32)}${'after three others, median of 3 (warm)'.padStart(38)}${'memory, cold'.padStart(24)}`);
+  console.log(`${''.padEnd(26)}${'first file (cold)'.padStart(30)}${'later file (warm, median of 3)'.padStart(30)}${'memory, cold'.padStart(26)}`);
   console.log(`${'file'.padEnd(26)}${pad('decode s', 10)}${pad('pipeline s', 12)}${pad('ratio', 8)}${pad('decode s', 10)}${pad('pipeline s', 12)}${pad('ratio', 8)}${pad('peak MiB', 10)}${pad('× raw', 8)}${pad('heap+buf', 10)}`);
   const cold: number[] = [];
   const warm: number[] = [];
