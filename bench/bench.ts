@@ -8,6 +8,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { makeSyntheticEmbryo } from '../core/synth';
 import { writeOmeTiff } from '../core/tiff';
+import { readAhead } from '../core/image';
 import { DEFAULT_SETTINGS } from '../core/settings';
 import { analyzeFile } from '../app/batch/analyze-file';
 import { openStack } from '../app/batch/deps';
@@ -22,6 +23,8 @@ const FILES: { name: string; compression: 'deflate' | 'none' }[] = [
   { name: 'bench-3-deflate.ome.tif', compression: 'deflate' }, { name: 'bench-4-none.ome.tif', compression: 'none' },
 ];
 const MiB = 1024 * 1024;
+/** Settings of every measured analysis: defaults, channel 2 as the boundary channel. */
+const SETTINGS = { ...DEFAULT_SETTINGS, boundaryChannels: [2] };
 const self = fileURLToPath(import.meta.url);
 const workerPath = fileURLToPath(new URL('./batch-worker.mjs', import.meta.url));
 
@@ -78,20 +81,16 @@ function poolFolder(dir: string): string[] {
 }
 
 /**
- * Read every plane of a file once in the pipeline's order (z outer, channel inner) and with its one plane of
- * read-ahead (core/image/project-stack.ts), keeping nothing: the same reading as the pipeline, without the analysis.
+ * Read every plane of a file once in the pipeline's order (z outer, channel inner) and with its read-ahead
+ * (core/image readAhead, as projectStack reads), keeping nothing: the same reading as the pipeline, without the
+ * analysis.
  */
 async function decodeOnce(path: string): Promise<number> {
   const t0 = performance.now();
   const { info, source } = await openStack(path, path);
-  const order: [number, number][] = [];
-  for (let z = 0; z < info.sizeZ; z += 1) for (let c = 0; c < info.sizeC; c += 1) order.push([z, c]);
-  let next = source.readPlane(order[0][0], order[0][1], 0);
-  for (let i = 0; i < order.length; i += 1) {
-    const current = next;
-    if (i + 1 < order.length) next = source.readPlane(order[i + 1][0], order[i + 1][1], 0);
-    await current;
-  }
+  const order: { z: number; c: number }[] = [];
+  for (let z = 0; z < info.sizeZ; z += 1) for (let c = 0; c < info.sizeC; c += 1) order.push({ z, c });
+  await readAhead(order.length, (i) => source.readPlane(order[i].z, order[i].c, 0), () => undefined);
   await source.close();
   return performance.now() - t0;
 }
@@ -99,7 +98,7 @@ async function decodeOnce(path: string): Promise<number> {
 /** The whole per-file analysis, as a batch worker runs it; milliseconds. */
 async function pipelineOnce(path: string): Promise<number> {
   const t0 = performance.now();
-  const r = await analyzeFile({ index: 0, path, file: path, settings: { ...DEFAULT_SETTINGS, boundaryChannels: [2] }, handEdits: null });
+  const r = await analyzeFile({ index: 0, path, file: path, settings: SETTINGS, handEdits: null });
   if (r.status !== 'ok') process.stderr.write(`bench: ${r.error}\n`);
   return performance.now() - t0;
 }
@@ -127,7 +126,7 @@ async function childPool(dir: string, jobs: number): Promise<Record<string, numb
   const cpu0 = process.cpuUsage();
   const t0 = performance.now();
   const s = await runBatch({
-    folder: join(dir, 'pool'), outDir: join(dir, `out-${jobs}`), settings: { ...DEFAULT_SETTINGS, boundaryChannels: [2] },
+    folder: join(dir, 'pool'), outDir: join(dir, `out-${jobs}`), settings: SETTINGS,
     doc: null, jobs, workerPath,
   });
   const ms = performance.now() - t0;

@@ -2,7 +2,7 @@
 // Coordinate convention: x = column, y = row, 0-based, pixel centres at integers; images are row-major.
 export { createProjector } from './projector';
 export type { Projector } from './projector';
-export { projectStack, chooseSliceScore } from './project-stack';
+export { projectStack, chooseSliceScore, readAhead } from './project-stack';
 export { toFloatPlane } from './plane-convert';
 export { gaussianKernel, gaussianSmooth } from './gaussian';
 export { fastGaussianSmooth, boxWidthsForSigma } from './box-blur';

@@ -76,7 +76,7 @@ async function bestSlice(info: StackInfo, source: PlaneSource, t: number): Promi
  * Why: decoders (sharp/libvips, file reads) work off the JS thread, so the next plane decodes while this one is
  * accumulated; at most two planes are held. A failed prefetch is reported in order, never as an unhandled rejection.
  */
-async function readAhead(count: number, read: (i: number) => Promise<RawPlane>, use: (i: number, plane: RawPlane) => void): Promise<void> {
+export async function readAhead(count: number, read: (i: number) => Promise<RawPlane>, use: (i: number, plane: RawPlane) => void): Promise<void> {
   let next: Promise<RawPlane> | null = count > 0 ? read(0) : null;
   for (let i = 0; i < count; i++) {
     const current = next as Promise<RawPlane>;

@@ -34,7 +34,7 @@ export interface PreparedSampling {
 }
 
 /** Half-open bounding box of the mask's pixels, or null when it is empty. */
-type Box = { x0: number; y0: number; x1: number; y1: number } | null;
+type Box = ReturnType<typeof foregroundBox>;
 
 /**
  * Collect positions and background-subtracted values of the pixels where keep[i] is 1, in row-major order. Only
