@@ -61,4 +61,26 @@ describe('maskedMedian', () => {
       expect(maskedMedian(values, keep).median).toBe(kept.length ? sortMedian(kept) : NaN);
     }
   });
+
+  it('pins the middle values exactly on large sets with negatives, infinities and middles in two buckets', () => {
+    // Source: from memory, median definition. Demo data: values −3.75 and +0.5 (even count, middle ranks split
+    // between the two, far apart in the order) with ±Infinity and NaN that must be left out; then seeded values of
+    // both signs spread over many decades.
+    const half = 40_000;
+    const values = new Float32Array(2 * half + 6);
+    values.fill(-3.75, 0, half);
+    values.fill(0.5, half, 2 * half);
+    values.set([Infinity, -Infinity, NaN, -NaN, Infinity, -Infinity], 2 * half);
+    const keep = new Uint8Array(values.length).fill(1);
+    expect(maskedMedian(values, keep)).toEqual({ median: (-3.75 + 0.5) / 2, count: 2 * half });
+    const rnd = lcg(11);
+    for (const n of [70_001, 90_000]) {
+      const v = Float32Array.from({ length: n }, () => (rnd() - 0.5) * Math.exp(40 * rnd() - 20));
+      const k = Uint8Array.from({ length: n }, () => (rnd() < 0.9 ? 1 : 0));
+      const kept = Array.from(v).filter((_, i) => k[i]);
+      const r = maskedMedian(v, k);
+      expect(r.count).toBe(kept.length);
+      expect(r.median).toBe(sortMedian(kept));
+    }
+  });
 });

@@ -93,26 +93,73 @@ function middleFromBuckets(a: Float32Array, counts: Uint32Array): number {
 
 /**
  * Median (as medianInPlace) of the finite values[i] where keep[i] ≠ 0, and how many there are; NaN when none.
- * The gathering pass also counts the buckets middleByBuckets needs, so large sets take one pass fewer.
+ * Large sets (≥ 65 536 values) are not gathered at all: a radix selection on the values' 32-bit order keys (see
+ * bucketOf) counts the top 16 bits in one pass, then the low 16 bits of the one or two buckets holding the middle
+ * ranks in a second pass, which pins the middle values exactly.
  */
 export function maskedMedian(values: Float32Array, keep: Uint8Array): { median: number; count: number } {
   const len = Math.min(values.length, keep.length);
-  const kept = new Float32Array(len);
   const bits = new Uint32Array(values.buffer, values.byteOffset, values.length);
-  // Two count arrays in turn (even and odd kept values), as in middleByBuckets.
-  const counts = new Uint32Array(2 * 65_536);
+  // Non-finite values are counted too: their buckets (see FINITE_BUCKETS) hold no finite value, so they are left
+  // out below without a test per pixel.
+  const total = new Uint32Array(65_536);
+  for (let i = 0; i < len; i++) if (keep[i] !== 0) total[bucketOf(bits[i])]++;
   let n = 0;
+  for (let b = FINITE_BUCKETS.first; b <= FINITE_BUCKETS.last; b++) n += total[b];
+  if (n === 0) return { median: NaN, count: 0 };
+  if (n < 65_536) return { median: medianInPlace(gatherKept(values, keep, len, n)), count: n };
+  const hiRank = n >> 1;
+  const loRank = n % 2 === 1 ? hiRank : hiRank - 1;
+  let b1 = FINITE_BUCKETS.first;
+  let below = 0;
+  while (below + total[b1] <= loRank) below += total[b1++];
+  // Ranks loRank and hiRank are consecutive: hiRank lies in b1 or in the next non-empty bucket.
+  let b2 = b1;
+  if (below + total[b1] <= hiRank) { b2 += 1; while (total[b2] === 0) b2++; }
+  const low = lowKeyCounts(bits, keep, len, b1, b2);
+  const lower = rankedValue(low, b1, b2, loRank - below);
+  if (loRank === hiRank) return { median: lower, count: n };
+  return { median: (lower + rankedValue(low, b1, b2, hiRank - below)) / 2, count: n };
+}
+
+/**
+ * The buckets (bucketOf) of finite Float32 values: −Infinity and negative NaNs fall below, +Infinity and positive
+ * NaNs above (their exponent bits are all ones).
+ */
+const FINITE_BUCKETS = { first: 0x0080, last: 0xff7f } as const;
+
+/** The n finite values[i] with keep[i] ≠ 0, in order. */
+function gatherKept(values: Float32Array, keep: Uint8Array, len: number, n: number): Float32Array {
+  const out = new Float32Array(n);
+  for (let i = 0, k = 0; i < len; i++) if (keep[i] !== 0 && values[i] - values[i] === 0) out[k++] = values[i];
+  return out;
+}
+
+/**
+ * Counts of the low 16 bits of the order keys of the kept values in the finite bucket b1 (slots 0..65 535) and, when
+ * b2 ≠ b1, in bucket b2 (slots 65 536..131 071). The low 16 bits of the order key are the value's low 16 bits,
+ * all flipped for a negative value.
+ */
+function lowKeyCounts(bits: Uint32Array, keep: Uint8Array, len: number, b1: number, b2: number): Uint32Array {
+  const low = new Uint32Array(2 * 65_536);
   for (let i = 0; i < len; i++) {
     if (keep[i] === 0) continue;
-    const v = values[i];
-    // v − v is 0 exactly for finite v and NaN for NaN and ±Infinity.
-    if (v - v !== 0) continue;
-    counts[((n & 1) << 16) | bucketOf(bits[i])]++;
-    kept[n++] = v;
+    const v = bits[i];
+    const b = bucketOf(v);
+    if (b !== b1 && b !== b2) continue;
+    low[(+(b !== b1) << 16) | ((v & 0xffff) ^ ((v >> 31) & 0xffff))]++;
   }
-  const sel = kept.subarray(0, n);
-  if (n < 65_536) return { median: medianInPlace(sel), count: n };
-  const total = counts.subarray(0, 65_536);
-  for (let b = 0; b < 65_536; b++) total[b] += counts[65_536 + b];
-  return { median: middleFromBuckets(sel, total), count: n };
+  return low;
+}
+
+/** The value of rank `rank` (0-based) among the values counted by lowKeyCounts (bucket b1 first, then b2). */
+function rankedValue(low: Uint32Array, b1: number, b2: number, rank: number): number {
+  let slot = 0;
+  let seen = low[0];
+  while (seen <= rank) seen += low[++slot];
+  const key = ((slot < 65_536 ? b1 : b2) << 16 | (slot & 0xffff)) >>> 0;
+  // Back from the order key to the float's bits: only the sign bit was flipped for a positive value, all bits for
+  // a negative one.
+  const out = new Uint32Array([key >= 0x8000_0000 ? key ^ 0x8000_0000 : ~key]);
+  return new Float32Array(out.buffer)[0];
 }
