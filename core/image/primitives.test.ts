@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { createRng } from '../stats';
 import type { Mask, Plane } from '../model';
 import { boxWidthsForSigma, fastGaussianSmooth } from './box-blur';
-import { maxFilter } from './max-filter';
+import { maxFilter, rowMaxima } from './max-filter';
 import { dilate, erode, open, squareDilate, squareErode } from './morphology';
 import { distanceInside, distanceOutside, squaredDistanceToFeatures } from './distance';
 import { fillHoles } from './fill-holes';
@@ -98,6 +98,23 @@ describe('maxFilter against a direct window search', () => {
     const p = { width: 6, height: 1, data: Float32Array.from([-3, -Infinity, -0.5, 0, -7, Infinity]) };
     expect(Array.from(maxFilter(p, 1).data)).toEqual([-3, -0.5, 0, 0, Infinity, Infinity]);
     expect(Array.from(maxFilter({ width: 3, height: 1, data: Float32Array.from([-2, -1e30, -5]) }, 1).data)).toEqual([-2, -2, -5]);
+  });
+});
+
+describe('rowMaxima against a direct row-window search', () => {
+  it('gives the maximum over the clipped row window for every radius and size', () => {
+    // Source: definition of a running maximum along a line, searched directly.
+    for (const [w, h] of SIZES) {
+      const p = randomPlane(w, h, 17 * w + h);
+      for (const r of [0, 1, 2, 5, 40]) {
+        const out = rowMaxima(p, r);
+        for (let y = 0; y < h; y++) for (let x = 0; x < w; x++) {
+          let m = -Infinity;
+          for (let xx = Math.max(0, x - r); xx <= Math.min(w - 1, x + r); xx++) m = Math.max(m, p.data[y * w + xx]);
+          expect(out[y * w + x]).toBe(m);
+        }
+      }
+    }
   });
 });
 

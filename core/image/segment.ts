@@ -4,7 +4,7 @@ import { estimateBackgroundLevel } from './background-level';
 import { largestComponent } from './components';
 import { fillHoles } from './fill-holes';
 import { fastGaussianSmooth } from './box-blur';
-import { maxFilter } from './max-filter';
+import { maxFilter, rowMaxima } from './max-filter';
 import { open, squareDilate, squareErode } from './morphology';
 import { otsuThreshold } from './threshold';
 
@@ -124,20 +124,22 @@ function nearLocalLevel(channels: readonly Plane[], o: Required<SegmentOptions>)
  * nearLocalLevel evaluated only at the pixels listed in `at` (indices into the channels' pixels): the same noise
  * units and the same local maximum, so the same decisions, without filtering the whole image. The local maximum of
  * the noise-scaled image is the noise-scaled maximum of the smoothed one (the scaling is monotone), so it is taken
- * on the smoothed values by a direct window search around each listed pixel.
+ * on the smoothed values: the maximum of the row maxima (rowMaxima) of the window's rows.
  */
 function nearLocalLevelAt(channels: readonly Plane[], at: Int32Array, o: Required<SegmentOptions>): Uint8Array {
   const { width, height } = channels[0];
   const keep = new Uint8Array(width * height);
   const r = Math.max(0, Math.round(o.localRadiusPx));
   for (const ch of channels) {
-    const s = fastGaussianSmooth(ch, o.fineSigmaPx).data;
+    const smooth = fastGaussianSmooth(ch, o.fineSigmaPx);
+    const s = smooth.data;
+    const rows = rowMaxima(smooth, r);
     const bg = estimateBackgroundLevel(s);
     for (let k = 0; k < at.length; k++) {
       const i = at[k];
       const y = (i / width) | 0;
       const x = i - y * width;
-      const local = windowMax(s, width, Math.max(0, x - r), Math.min(width - 1, x + r), Math.max(0, y - r), Math.min(height - 1, y + r));
+      const local = columnMax(rows, width, x, Math.max(0, y - r), Math.min(height - 1, y + r));
       // Rounded to Float32 as channelSnr's output plane stores them.
       const fine = Math.fround((s[i] - bg.level) / bg.noiseSd);
       const localFine = Math.fround((local - bg.level) / bg.noiseSd);
@@ -147,12 +149,10 @@ function nearLocalLevelAt(channels: readonly Plane[], at: Int32Array, o: Require
   return keep;
 }
 
-/** Maximum of values over columns x0..x1 and rows y0..y1 (inclusive) of a row-major image `width` wide. */
-function windowMax(values: Float32Array, width: number, x0: number, x1: number, y0: number, y1: number): number {
+/** Maximum of values in column x over rows y0..y1 (inclusive) of a row-major image `width` wide. */
+function columnMax(values: Float32Array, width: number, x: number, y0: number, y1: number): number {
   let m = -Infinity;
-  for (let y = y0; y <= y1; y++) {
-    for (let i = y * width + x0, end = y * width + x1; i <= end; i++) if (values[i] > m) m = values[i];
-  }
+  for (let i = y0 * width + x, end = y1 * width + x; i <= end; i += width) if (values[i] > m) m = values[i];
   return m;
 }
 
@@ -256,7 +256,11 @@ export function upsampleMask(small: Mask, f: number, width: number, height: numb
   return { width, height, data: out };
 }
 
-/** The binned mask after [1 2 1] smoothing, bilinearly interpolated at every full-size pixel centre (0..1). */
+/**
+ * The binned mask after [1 2 1] smoothing, bilinearly interpolated at every full-size pixel centre (0..1). Where
+ * the four binned values around a run of pixels are equal (most of the image: all 0 outside, all 1 inside), the
+ * interpolation gives that value exactly, so the run is filled with it.
+ */
 function smoothUpsampled(small: Mask, f: number, width: number, height: number): Float32Array {
   const { width: sw, height: sh } = small;
   const sd = smooth121(small);
@@ -270,18 +274,31 @@ function smoothUpsampled(small: Mask, f: number, width: number, height: number):
     x1[x] = Math.min(sw - 1, x0[x] + 1);
     fx[x] = u - x0[x];
   }
+  // Runs of pixels that share x0 (and so x1): x0 never decreases along a row.
+  const runStart: number[] = [];
+  for (let x = 0; x < width; x++) if (x === 0 || x0[x] !== x0[x - 1]) runStart.push(x);
+  runStart.push(width);
   for (let y = 0; y < height; y++) {
     const v = Math.min(sh - 1, Math.max(0, (y - (f - 1) / 2) / f));
     const r0 = Math.floor(v) * sw;
     const r1 = Math.min(sh - 1, Math.floor(v) + 1) * sw;
     const fy = v - Math.floor(v);
     const o = y * width;
-    for (let x = 0; x < width; x++) {
-      const a = x0[x];
-      const b = x1[x];
-      const top = sd[r0 + a] + (sd[r0 + b] - sd[r0 + a]) * fx[x];
-      const bottom = sd[r1 + a] + (sd[r1 + b] - sd[r1 + a]) * fx[x];
-      out[o + x] = top + (bottom - top) * fy;
+    for (let k = 0; k + 1 < runStart.length; k++) {
+      const xs = runStart[k];
+      const xe = runStart[k + 1];
+      const a = x0[xs];
+      const b = x1[xs];
+      const c = sd[r0 + a];
+      if (c === sd[r0 + b] && c === sd[r1 + a] && c === sd[r1 + b]) {
+        if (c !== 0) out.fill(c, o + xs, o + xe);
+        continue;
+      }
+      for (let x = xs; x < xe; x++) {
+        const top = sd[r0 + a] + (sd[r0 + b] - sd[r0 + a]) * fx[x];
+        const bottom = sd[r1 + a] + (sd[r1 + b] - sd[r1 + a]) * fx[x];
+        out[o + x] = top + (bottom - top) * fy;
+      }
     }
   }
   return out;
