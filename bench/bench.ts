@@ -14,7 +14,7 @@ import { analyzeFile } from '../app/batch/analyze-file';
 import { openStack } from '../app/batch/deps';
 import { runBatch } from '../app/batch/run-batch';
 import { limitDecoderThreads } from '../app/batch/decoder-threads';
-import { ARENA_LIMIT } from '../app/cli/arena-limit';
+import { ARENA_LIMIT, BATCH_V8_FLAGS } from '../app/cli/batch-tuning';
 
 const SIZE = { widthPx: 1024, heightPx: 1024, sizeZ: 24, sizeC: 2 };
 const RAW_BYTES = SIZE.widthPx * SIZE.heightPx * SIZE.sizeZ * SIZE.sizeC * 2;
@@ -134,11 +134,12 @@ async function childPool(dir: string, jobs: number): Promise<Record<string, numb
   return { ms, cpuMs: (cpu.user + cpu.system) / 1000, peakExtra: peakRss() - base, ok: s.ok, files: s.ok + s.failed };
 }
 
-/** Environment of every measurement: glibc's malloc arenas capped as `eggline batch` runs (app/cli/arena-limit.ts). */
+/** Environment and V8 flags of every measurement: as `eggline batch` runs (app/cli/batch-tuning.ts). */
 const childEnv = { ...process.env, MALLOC_ARENA_MAX: process.env.MALLOC_ARENA_MAX ?? ARENA_LIMIT };
+const childArgs = (args: readonly string[]): string[] => [...BATCH_V8_FLAGS, self, '--child', ...args];
 
 function runChild(args: string[]): Record<string, number> {
-  const out = execFileSync(process.execPath, [self, '--child', ...args], { encoding: 'utf8', stdio: ['ignore', 'pipe', 'inherit'], maxBuffer: 1 << 20, env: childEnv });
+  const out = execFileSync(process.execPath, childArgs(args), { encoding: 'utf8', stdio: ['ignore', 'pipe', 'inherit'], maxBuffer: 1 << 20, env: childEnv });
   return JSON.parse(out.trim().split('\n').pop() ?? '{}') as Record<string, number>;
 }
 
@@ -147,7 +148,7 @@ function runChild(args: string[]): Record<string, number> {
 function runChildrenAtOnce(argLists: string[][]): Promise<Record<string, number>[]> {
   const env = { ...childEnv, EGGLINE_BENCH_THREADS: String(Math.max(1, Math.floor(availableParallelism() / argLists.length))) };
   return Promise.all(argLists.map((args) => new Promise<Record<string, number>>((resolve, reject) => {
-    execFile(process.execPath, [self, '--child', ...args], { encoding: 'utf8', maxBuffer: 1 << 20, env }, (err, out) => {
+    execFile(process.execPath, childArgs(args), { encoding: 'utf8', maxBuffer: 1 << 20, env }, (err, out) => {
       if (err) reject(err);
       else resolve(JSON.parse(out.trim().split('\n').pop() ?? '{}') as Record<string, number>);
     });
