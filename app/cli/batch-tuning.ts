@@ -3,10 +3,11 @@
 // - glibc's malloc arenas capped: libvips decodes on several threads and glibc gives each thread its own arena; the
 //   pixel buffers freed there stayed in those arenas, so a worker's resident memory kept growing over a batch (one
 //   worker over 12 stacks: ~2.0× the raw stack with the default, ~1.6× with 2 arenas, same speed; `npm run bench`).
-// - V8 collects garbage and compiles on the thread that runs the code (BATCH_V8_FLAGS): a batch already keeps every
-//   core busy with its workers and the decoder's threads, and V8's helper threads for parallel collection and
-//   background compilation only took CPU time from them (12 stacks, 2 workers on 2 cores: about a fifth less CPU time
-//   and 15–25% less wall time; `npm run bench`).
+// - V8 compiles optimised code on the thread that runs it (BATCH_V8_FLAGS): a batch already keeps every core busy
+//   with its workers and the decoder's threads, and V8's background compiler threads only took CPU time from them
+//   (12 stacks, 2 workers on 2 cores, four alternating runs: 13% less wall time, the same peak memory;
+//   `npm run bench`). Collecting garbage on one thread as well saved a further ~6% but raised one worker's peak by
+//   20–40 MiB, to about 2× the raw stack, so it is not used.
 import { spawn as nodeSpawn } from 'node:child_process';
 import type { ChildProcess, SpawnOptions } from 'node:child_process';
 
@@ -14,7 +15,7 @@ import type { ChildProcess, SpawnOptions } from 'node:child_process';
 export const ARENA_LIMIT = '2';
 
 /** V8 flags of the batch process (they apply to its worker threads too). */
-export const BATCH_V8_FLAGS: readonly string[] = ['--single-threaded-gc', '--no-concurrent-recompilation'];
+export const BATCH_V8_FLAGS: readonly string[] = ['--no-concurrent-recompilation'];
 
 /** Set in the restarted process's environment, so it does not restart again. */
 export const TUNED_MARK = 'EGGLINE_BATCH_TUNED';
