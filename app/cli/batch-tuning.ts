@@ -29,9 +29,9 @@ type Spawn = (file: string, args: readonly string[], options: SpawnOptions) => C
 
 /**
  * Run this command again as a child with BATCH_V8_FLAGS and MALLOC_ARENA_MAX (unless the user set it), writing to the
- * same terminal; resolves with its exit code. The child leads its own process group, so a Ctrl+C reaches it once, passed on by this process (in one group,
- * the terminal's SIGINT and a passed-on one would both arrive, and a second SIGINT stops a batch at once). SIGINT,
- * SIGTERM and SIGHUP are passed on.
+ * same terminal; resolves with its exit code. The child leads its own process group, so a Ctrl+C reaches it once,
+ * passed on by this process (in one group, the terminal's SIGINT and a passed-on one would both arrive, and a second
+ * SIGINT stops a batch at once). SIGINT, SIGTERM and SIGHUP are passed on.
  */
 export function runTunedBatch(args: readonly string[], env: NodeJS.ProcessEnv, spawn: Spawn = nodeSpawn): Promise<number> {
   return new Promise((resolve) => {
