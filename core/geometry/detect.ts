@@ -18,6 +18,13 @@ export interface EmbryoDetection extends Detection {
 /** Smallest region accepted as an embryo, in pixels. */
 const MIN_EMBRYO_PX = 100;
 
+/** Number of set pixels of a 0/1 mask (a loop of its own: see "Pixel loops in small functions" in DEVELOPERS.md). */
+function maskArea(data: Uint8Array): number {
+  let area = 0;
+  for (let i = 0; i < data.length; i++) area += data[i];
+  return area;
+}
+
 /** Warnings about where the mask lies in the frame. */
 function maskWarnings(mask: Mask, lengthPx: number, widthPx: number): string[] {
   const w: string[] = [];
@@ -38,9 +45,7 @@ function maskWarnings(mask: Mask, lengthPx: number, widthPx: number): string[] {
 export function detectEmbryo(projected: ProjectedStack, settings: AnalysisSettings): EmbryoDetection {
   if (projected.channels.length === 0) throw new Error('the stack has no channels');
   const mask = segmentEmbryo(projected.channels);
-  let area = 0;
-  for (let i = 0; i < mask.data.length; i++) area += mask.data[i];
-  if (area < MIN_EMBRYO_PX) throw new Error('no embryo found: no region stands out from the background');
+  if (maskArea(mask.data) < MIN_EMBRYO_PX) throw new Error('no embryo found: no region stands out from the background');
   const outline = maskOutline(mask);
   const pa = principalAxis(mask);
   const ext = polesFromOutline(outline, pa);

@@ -4,25 +4,39 @@ import { estimateBackgroundLevel, foregroundBox } from '../image';
 
 /** Mean background-subtracted intensity of `plane` over mask pixels in the first and last `fraction` of first→second. */
 export function endMeans(plane: Plane, mask: Mask, first: ImagePoint, second: ImagePoint, fraction = 0.2): { first: number; second: number } {
-  const dx = second.x - first.x;
-  const dy = second.y - first.y;
-  const len2 = dx * dx + dy * dy;
   const bg = estimateBackgroundLevel(plane.data).level;
-  let s1 = 0; let n1 = 0; let s2 = 0; let n2 = 0;
-  const { width, data } = mask;
   // Only the mask's bounding box holds mask pixels; rows in the same order as a full scan, so the sums agree.
   const box = foregroundBox(mask) ?? { x0: 0, y0: 0, x1: 0, y1: 0 };
-  for (let y = box.y0; y < box.y1; y++) {
+  const sums = new Float64Array(4);
+  endSums(plane.data, mask.data, mask.width, box.x0, box.y0, box.x1, box.y1, first.x, first.y, second.x, second.y, fraction, bg, sums);
+  const [s1, n1, s2, n2] = sums;
+  return { first: n1 ? s1 / n1 : NaN, second: n2 ? s2 / n2 : NaN };
+}
+
+/**
+ * Sums and counts of values − bg over the mask pixels in [x0, x1) × [y0, y1) whose position t along (ax, ay)→(bx, by)
+ * is ≤ fraction (first end) or ≥ 1 − fraction (second end), into out = [Σ first, n first, Σ second, n second]. A loop
+ * of its own: see "Pixel loops in small functions" in DEVELOPERS.md.
+ */
+function endSums(
+  values: Float32Array, mask: Uint8Array, width: number, x0: number, y0: number, x1: number, y1: number,
+  ax: number, ay: number, bx: number, by: number, fraction: number, bg: number, out: Float64Array,
+): void {
+  const dx = bx - ax;
+  const dy = by - ay;
+  const len2 = dx * dx + dy * dy;
+  let s1 = 0; let n1 = 0; let s2 = 0; let n2 = 0;
+  for (let y = y0; y < y1; y++) {
     const o = y * width;
-    const along = (y - first.y) * dy;
-    for (let x = box.x0; x < box.x1; x++) {
+    const along = (y - ay) * dy;
+    for (let x = x0; x < x1; x++) {
       const i = o + x;
-      if (!data[i]) continue;
-      const t = ((x - first.x) * dx + along) / len2;
-      if (t <= fraction) { s1 += plane.data[i] - bg; n1++; } else if (t >= 1 - fraction) { s2 += plane.data[i] - bg; n2++; }
+      if (!mask[i]) continue;
+      const t = ((x - ax) * dx + along) / len2;
+      if (t <= fraction) { s1 += values[i] - bg; n1++; } else if (t >= 1 - fraction) { s2 += values[i] - bg; n2++; }
     }
   }
-  return { first: n1 ? s1 / n1 : NaN, second: n2 ? s2 / n2 : NaN };
+  out[0] = s1; out[1] = n1; out[2] = s2; out[3] = n2;
 }
 
 /**

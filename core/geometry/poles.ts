@@ -19,13 +19,29 @@ export interface PoleExtent {
 export function polesFromOutline(outline: readonly ImagePoint[], axis: PrincipalAxis): PoleExtent {
   if (outline.length === 0) throw new Error('the outline is empty');
   const { centroid: c, ux, uy } = axis;
+  const e = new Float64Array(4);
+  extents(outline, c.x, c.y, ux, uy, e);
+  const [tMin, tMax, sMin, sMax] = e;
+  return {
+    first: { x: c.x + tMin * ux, y: c.y + tMin * uy },
+    second: { x: c.x + tMax * ux, y: c.y + tMax * uy },
+    lengthPx: tMax - tMin,
+    widthPx: sMax - sMin,
+  };
+}
+
+/**
+ * Smallest and largest projection of the points along (ux, uy) and across it, about (cx, cy), into
+ * out = [tMin, tMax, sMin, sMax]. A loop of its own: see "Pixel loops in small functions" in DEVELOPERS.md.
+ */
+function extents(points: readonly ImagePoint[], cx: number, cy: number, ux: number, uy: number, out: Float64Array): void {
   let tMin = Infinity;
   let tMax = -Infinity;
   let sMin = Infinity;
   let sMax = -Infinity;
-  for (const p of outline) {
-    const dx = p.x - c.x;
-    const dy = p.y - c.y;
+  for (const p of points) {
+    const dx = p.x - cx;
+    const dy = p.y - cy;
     const t = dx * ux + dy * uy;
     const s = dy * ux - dx * uy;
     if (t < tMin) tMin = t;
@@ -33,10 +49,5 @@ export function polesFromOutline(outline: readonly ImagePoint[], axis: Principal
     if (s < sMin) sMin = s;
     if (s > sMax) sMax = s;
   }
-  return {
-    first: { x: c.x + tMin * ux, y: c.y + tMin * uy },
-    second: { x: c.x + tMax * ux, y: c.y + tMax * uy },
-    lengthPx: tMax - tMin,
-    widthPx: sMax - sMin,
-  };
+  out[0] = tMin; out[1] = tMax; out[2] = sMin; out[3] = sMax;
 }

@@ -51,6 +51,11 @@ function addSumU16(acc: Uint32Array, d: Uint16Array, n: number): void {
   for (; i < n; i++) acc[i] += d[i];
 }
 
+/** out[i] = acc[i] · scale (a loop of its own: see "Pixel loops in small functions" in DEVELOPERS.md). */
+function scaleInto(out: Float32Array, acc: Accumulator, scale: number, n: number): void {
+  for (let i = 0; i < n; i++) out[i] = acc[i] * scale;
+}
+
 function copyInto(acc: Accumulator, d: ArrayLike<number>, n: number): void {
   for (let i = 0; i < n; i++) acc[i] = d[i];
 }
@@ -97,9 +102,7 @@ export function createProjector(widthPx: number, heightPx: number, method: Proje
     result() {
       if (count === 0 || acc === null) throw new Error('no planes were added to the projection');
       const out = new Float32Array(n);
-      const scale = method === 'mean' ? 1 / count : 1;
-      const a = acc;
-      for (let i = 0; i < n; i++) out[i] = a[i] * scale;
+      scaleInto(out, acc, method === 'mean' ? 1 / count : 1, n);
       return { width: widthPx, height: heightPx, data: out };
     },
   };

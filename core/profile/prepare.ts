@@ -38,16 +38,35 @@ type Box = ReturnType<typeof foregroundBox>;
 
 /**
  * Collect positions and background-subtracted values of the pixels where keep[i] is 1, in row-major order. Only
- * the box is scanned: keep is 0 everywhere outside it.
+ * the box is scanned: keep is 0 everywhere outside it. The pixel loops are functions of their own (see "Pixel loops
+ * in small functions" in DEVELOPERS.md).
  */
 function pixelSet(projected: ProjectedStack, keep: Uint8Array, backgrounds: readonly BackgroundEstimate[], box: Box): PixelSet {
   const { width } = projected.channels[0];
   const { x0, y0, x1, y1 } = box ?? { x0: 0, y0: 0, x1: 0, y1: 0 };
-  let n = 0;
-  for (let y = y0; y < y1; y++) for (let i = y * width + x0, end = y * width + x1; i < end; i++) n += keep[i];
+  const n = countKept(keep, width, x0, y0, x1, y1);
   const idx = new Int32Array(n);
   const xs = new Float32Array(n);
   const ys = new Float32Array(n);
+  gatherKept(keep, width, x0, y0, x1, y1, idx, xs, ys);
+  const values: Float32Array[] = [];
+  for (let c = 0; c < projected.channels.length; c++) {
+    const v = new Float32Array(n);
+    subtractAt(projected.channels[c].data, idx, backgrounds[c].value, v);
+    values.push(v);
+  }
+  return { xs, ys, values };
+}
+
+/** Number of pixels with keep[i] = 1 in [x0, x1) × [y0, y1). */
+function countKept(keep: Uint8Array, width: number, x0: number, y0: number, x1: number, y1: number): number {
+  let n = 0;
+  for (let y = y0; y < y1; y++) for (let i = y * width + x0, end = y * width + x1; i < end; i++) n += keep[i];
+  return n;
+}
+
+/** Index, column and row of each pixel with keep[i] set in [x0, x1) × [y0, y1), row-major. */
+function gatherKept(keep: Uint8Array, width: number, x0: number, y0: number, x1: number, y1: number, idx: Int32Array, xs: Float32Array, ys: Float32Array): void {
   for (let y = y0, k = 0; y < y1; y++) {
     const o = y * width;
     for (let x = x0; x < x1; x++) {
@@ -57,13 +76,18 @@ function pixelSet(projected: ProjectedStack, keep: Uint8Array, backgrounds: read
       ys[k++] = y;
     }
   }
-  const values = projected.channels.map((ch, c) => {
-    const v = new Float32Array(n);
-    const b = backgrounds[c].value;
-    for (let k = 0; k < n; k++) v[k] = ch.data[idx[k]] - b;
-    return v;
-  });
-  return { xs, ys, values };
+}
+
+/** out[k] = data[idx[k]] − b. */
+function subtractAt(data: Float32Array, idx: Int32Array, b: number, out: Float32Array): void {
+  for (let k = 0; k < idx.length; k++) out[k] = data[idx[k]] - b;
+}
+
+/** 1 where a mask pixel's centre lies within edgeDepthPx of the outline (depth − 0.5 ≤ edgeDepthPx), in the box. */
+function bandPixels(mask: Uint8Array, depthPx: Float32Array, width: number, x0: number, y0: number, x1: number, y1: number, edgeDepthPx: number, out: Uint8Array): void {
+  for (let y = y0; y < y1; y++) {
+    for (let i = y * width + x0, end = y * width + x1; i < end; i++) out[i] = +(mask[i] === 1 && depthPx[i] - 0.5 <= edgeDepthPx);
+  }
 }
 
 /**
@@ -85,13 +109,7 @@ export function prepareSampling(projected: ProjectedStack, detection: Detection,
   // Band and pixel sets lie within the mask's bounding box (outside it the mask, and so the band, is 0).
   const box = foregroundBox(mask);
   const bandData = new Uint8Array(mask.data.length);
-  if (box) {
-    for (let y = box.y0; y < box.y1; y++) {
-      for (let i = y * mask.width + box.x0, end = y * mask.width + box.x1; i < end; i++) {
-        bandData[i] = +(mask.data[i] === 1 && depthPx[i] - 0.5 <= edgeDepthPx);
-      }
-    }
-  }
+  if (box) bandPixels(mask.data, depthPx, mask.width, box.x0, box.y0, box.x1, box.y1, edgeDepthPx, bandData);
   // The whole-mask pixel set serves only the axis-strip profile: gathered on first use, then kept.
   let inside: PixelSet | null = null;
   return {
