@@ -18,5 +18,4 @@ export type { BackgroundLevel } from './background-level';
 export { segmentEmbryo, combinedSnr, channelSnr, checkSegmentOptions, downsample2, binMean, upsampleMask } from './segment';
 export type { SegmentOptions } from './segment';
 export { resolveChannel, describeChannelRef } from './channel-ref';
-export { selectKth, medianInPlace } from './select';
-export { maskedMedian } from './select';
+export { selectKth, medianInPlace, maskedMedian } from './select';

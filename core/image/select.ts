@@ -58,22 +58,16 @@ function bucketOf(bits: number): number {
  */
 function middleByBuckets(a: Float32Array): number {
   const bits = new Uint32Array(a.buffer, a.byteOffset, a.length);
-  const even = new Uint32Array(65_536);
+  // Two count arrays in turn (even and odd positions) break the chain of dependent increments.
+  const counts = new Uint32Array(65_536);
   const odd = new Uint32Array(65_536);
   const n = a.length;
-  let i = 0;
-  for (; i + 1 < n; i += 2) { even[bucketOf(bits[i])]++; odd[bucketOf(bits[i + 1])]++; }
-  if (i < n) even[bucketOf(bits[i])]++;
-  for (let b = 0; b < 65_536; b++) even[b] += odd[b];
-  return middleFromBuckets(a, even);
-}
-
-/** The median of middleByBuckets once the bucket counts of all n values of `a` are known. */
-function middleFromBuckets(a: Float32Array, counts: Uint32Array): number {
-  const n = a.length;
+  let j = 0;
+  for (; j + 1 < n; j += 2) { counts[bucketOf(bits[j])]++; odd[bucketOf(bits[j + 1])]++; }
+  if (j < n) counts[bucketOf(bits[j])]++;
+  for (let b = 0; b < 65_536; b++) counts[b] += odd[b];
   const hiRank = n >> 1;
   const loRank = n % 2 === 1 ? hiRank : hiRank - 1;
-  const bits = new Uint32Array(a.buffer, a.byteOffset, n);
   let b1 = 0;
   let below = 0;
   while (below + counts[b1] <= loRank) below += counts[b1++];

@@ -48,7 +48,7 @@ function pixelSet(projected: ProjectedStack, keep: Uint8Array, backgrounds: read
   const idx = new Int32Array(n);
   const xs = new Float32Array(n);
   const ys = new Float32Array(n);
-  gatherKept(keep, width, x0, y0, x1, y1, idx, xs, ys);
+  keptPixelPositions(keep, width, x0, y0, x1, y1, idx, xs, ys);
   const values: Float32Array[] = [];
   for (let c = 0; c < projected.channels.length; c++) {
     const v = new Float32Array(n);
@@ -66,7 +66,7 @@ function countKept(keep: Uint8Array, width: number, x0: number, y0: number, x1: 
 }
 
 /** Index, column and row of each pixel with keep[i] set in [x0, x1) × [y0, y1), row-major. */
-function gatherKept(keep: Uint8Array, width: number, x0: number, y0: number, x1: number, y1: number, idx: Int32Array, xs: Float32Array, ys: Float32Array): void {
+function keptPixelPositions(keep: Uint8Array, width: number, x0: number, y0: number, x1: number, y1: number, idx: Int32Array, xs: Float32Array, ys: Float32Array): void {
   for (let y = y0, k = 0; y < y1; y++) {
     const o = y * width;
     for (let x = x0; x < x1; x++) {
