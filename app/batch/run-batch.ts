@@ -5,10 +5,12 @@ import { existsSync, promises as fs } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { join, resolve } from 'node:path';
 import {
-  BatchOptionError, editsForFile, errorResult, settingsForFile, toHandEdits, type RunInput, type RunRecord,
+  BatchOptionError, editsForFile, settingsForFile, toHandEdits, type RunInput, type RunRecord,
 } from '../../core/batch';
 import type { BatchProgress, BatchSummary, ProjectDoc } from '../../core/contract';
-import type { EmbryoResult } from '../../core/model';
+import { errorResult, type EmbryoResult } from '../../core/model';
+import type { CohortAnalysis } from '../../core/cohort';
+import type { NamedFigure } from '../../core/figures';
 import type { AnalysisSettings } from '../../core/settings';
 import { analyzeFile } from './analyze-file';
 import { runCohort } from './cohort-adapter';
@@ -52,6 +54,8 @@ export interface BatchRunResult extends BatchSummary {
   readonly warnings: readonly string[];
   /** Why the cohort step failed (the batch tables are written regardless); null when it ran or was not asked for. */
   readonly cohortError: string | null;
+  /** The cohort step's analysis and figures when it ran (the window shows these; it never runs the step again). */
+  readonly cohortStep: { readonly analysis: CohortAnalysis; readonly figures: readonly NamedFigure[] } | null;
   readonly record: RunRecord;
 }
 
@@ -146,6 +150,7 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   };
   const written = await writeBatchOutputs(outDir, results, record);
   let cohortError: string | null = null;
+  let cohortStep: BatchRunResult['cohortStep'] = null;
   if (opts.cohort && !cancelled) {
     const failures = results.filter((r) => r.status === 'error').map((r) => ({ file: r.file, error: r.error ?? 'error' }));
     const step = await runCohort({
@@ -154,7 +159,8 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
     written.push(...step.written);
     warnings.push(...step.warnings);
     cohortError = step.error;
+    if (step.error === null) cohortStep = { analysis: step.analysis, figures: step.figures };
   }
   progress({ done, file: null, status: cancelled ? 'cancelled' : 'finished', message: null });
-  return { runId, outDir, ok, failed: results.length - ok, cancelled, results, written, warnings, cohortError, record };
+  return { runId, outDir, ok, failed: results.length - ok, cancelled, results, written, warnings, cohortError, cohortStep, record };
 }

@@ -18,4 +18,3 @@ export {
 } from './project-edits';
 export { isStackFileName, sortStackPaths } from './stack-files';
 export { runRecordToJson, type RunRecord, type RunInput, type SoftwareVersions } from './run-record';
-export { errorResult } from './error-result';
