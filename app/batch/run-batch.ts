@@ -5,11 +5,13 @@ import { existsSync, promises as fs } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { basename, dirname, join, resolve } from 'node:path';
 import {
-  BatchOptionError, editsForFile, errorResult, JOURNAL_FILE_NAME, normalizeResult, runRecordToJson, settingsForFile, toHandEdits,
+  BatchOptionError, editsForFile, JOURNAL_FILE_NAME, normalizeResult, runRecordToJson, settingsForFile, toHandEdits,
   type ParsedJournal, type RunEndReason, type RunInput, type RunRecord,
 } from '../../core/batch';
 import type { BatchProgress, BatchSummary, ProjectDoc } from '../../core/contract';
-import type { EmbryoResult } from '../../core/model';
+import { errorResult, type EmbryoResult } from '../../core/model';
+import type { CohortAnalysis } from '../../core/cohort';
+import type { NamedFigure } from '../../core/figures';
 import type { AnalysisSettings } from '../../core/settings';
 import { analyzeFile } from './analyze-file';
 import { runCohort } from './cohort-adapter';
@@ -57,6 +59,8 @@ export interface BatchRunResult extends BatchSummary {
   readonly warnings: readonly string[];
   /** Why the cohort step failed (the batch tables are written regardless); null when it ran or was not asked for. */
   readonly cohortError: string | null;
+  /** The cohort step's analysis and figures when it ran (the window shows these; it never runs the step again). */
+  readonly cohortStep: { readonly analysis: CohortAnalysis; readonly figures: readonly NamedFigure[] } | null;
   readonly record: RunRecord;
   /** Every file has its row; else why not. */
   readonly complete: boolean;
@@ -252,6 +256,7 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   const written = await writeBatchOutputs(outDir, finished, final).catch(failed);
   written.push(journal.path);
   let cohortError: string | null = null;
+  let cohortStep: BatchRunResult['cohortStep'] = null;
   if (opts.cohort && complete) {
     const failures = finished.filter((r) => r.status === 'error').map((r) => ({ file: r.file, error: r.error ?? 'error' }));
     const step = await runCohort({
@@ -260,10 +265,11 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
     written.push(...step.written);
     warnings.push(...step.warnings);
     cohortError = step.error;
+    if (step.error === null) cohortStep = { analysis: step.analysis, figures: step.figures };
   }
   progress({ done, file: null, status: complete ? 'finished' : 'cancelled', message: null });
   return {
     runId, outDir, ok, failed: finished.length - ok, cancelled: !complete, complete, reason, reused: kept.size,
-    results: finished, written, warnings, cohortError, record: final,
+    results: finished, written, warnings, cohortError, cohortStep, record: final,
   };
 }

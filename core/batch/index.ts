@@ -23,4 +23,3 @@ export {
 } from './project-edits';
 export { isStackFileName, sortStackPaths } from './stack-files';
 export { runRecordToJson, type RunRecord, type RunInput, type RunEndReason, type SoftwareVersions } from './run-record';
-export { errorResult } from './error-result';
