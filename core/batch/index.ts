@@ -23,3 +23,4 @@ export {
 } from './project-edits';
 export { isStackFileName, sortStackPaths } from './stack-files';
 export { runRecordToJson, type RunRecord, type RunInput, type RunEndReason, type SoftwareVersions } from './run-record';
+export { parseByteSize, formatByteSize, defaultMaxMemoryBytes } from './byte-size';

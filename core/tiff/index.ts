@@ -22,3 +22,4 @@ export { toRational } from './rational';
 export { createGeotiffPlaneSource, checkPlaneIndex } from './geotiff-source';
 export { checkChunkExtents } from './chunk-extent';
 export { cachedByteSource } from './block-cache';
+export { analysisBytesEstimate, WORKER_BASE_BYTES } from './budget';
