@@ -3,11 +3,12 @@
 // Definition (Berezhkovskii, Sample & Shvartsman 2010, Biophys. J. 99:L59; the definition and reference are from
 // memory, the reference's title, authors and year checked against the publisher's listing):
 //   τ(x) = ∫₀^∞ (1 − C(x,t)/C(x,∞)) dt, with t = 0 the onset of production and C(x,0) = 0.
-// Estimator: the mean of the first `baselineFrames` frames (before production; autofluorescence) is subtracted,
+// Estimator (positions are usually coarsened first, coarsenProfiles): the mean of the first `baselineFrames` frames (before production; autofluorescence) is subtracted,
 // C(x,∞) is the mean of the last `plateauFrames` frames, and the integral runs by the trapezoid rule from the onset
 // (C = 0 there) to the last frame. Uncertainty: first-order propagation of frame-to-frame noise, whose SD is
-// estimated per position from the residuals of each frame against the straight line through its two neighbours
-// (robust: 1.4826 × median |residual|, so the curvature of the rise at a few frames does not inflate it).
+// estimated per position from the residuals of each frame of the movie's second half against the straight line
+// through its two neighbours (robust: 1.4826 × median |residual|, so the curvature of the rise at a few frames does
+// not inflate it; the second half because shot noise grows with the signal).
 // Bias: when the movie ends before steady state, C(x,∞) is underestimated and τ too; for an exponential approach
 // C = C∞(1 − e^{−t/τ}) ended at T the estimate is τ − T·q/(1 − q) with q = e^{−T/τ} (accumulationTruncationBias).
 import { tQuantile } from '../stats';
@@ -183,7 +184,10 @@ export function localAccumulationTime(
     let finite = true;
     for (let t = 0; t < frames.length; t++) { all[t] = frames[t][x]; finite &&= Number.isFinite(all[t]); }
     if (!finite) continue;
-    const noise = frameNoiseSd(allTimes, all);
+    // Noise from the second half of the movie, where the signal and so its shot noise are largest: a conservative
+    // SD for the earlier, dimmer frames.
+    const half = Math.min(Math.floor(frames.length / 2), frames.length - 3);
+    const noise = frameNoiseSd(allTimes.subarray(half), all.subarray(half));
     let base = 0;
     for (let t = 0; t < baseline; t++) base += all[t] / baseline;
     const series = all.subarray(first);
