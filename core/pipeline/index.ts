@@ -1,5 +1,5 @@
 // Public surface of core/pipeline: the app, the workers and the command line import analysis only from here.
-export { analyzeStack, errorResult } from './analyze';
+export { analyzeStack } from './analyze';
 export type { AnalyzeOptions } from './analyze';
 export { projectStack, createProjector } from '../image';
 export type { Projector } from '../image';
