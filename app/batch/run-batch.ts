@@ -10,10 +10,12 @@ import {
 import type { BatchProgress, BatchSummary, ProjectDoc } from '../../core/contract';
 import type { EmbryoResult } from '../../core/model';
 import type { AnalysisSettings } from '../../core/settings';
+import type { ShardSpec } from '../../core/shard';
 import { analyzeFile } from './analyze-file';
 import { runCohort } from './cohort-adapter';
 import { sha256File } from './hash-file';
 import { isInside, listStackFiles } from './list-stacks';
+import { partDir, selectPart } from './shard';
 import type { BatchTask } from './task';
 import { softwareVersions } from './versions';
 import { runPool } from './worker-pool';
@@ -44,6 +46,8 @@ export interface RunBatchOptions {
   readonly configFile?: string | null;
   /** Run the cohort step afterwards with this sample sheet. */
   readonly cohort?: { readonly sampleSheetPath: string; readonly reference: string | null } | null;
+  /** Analyse only this part of the sorted, size-balanced file list, writing to `<outDir>/parts/K-of-N`. */
+  readonly shard?: ShardSpec | null;
 }
 
 /** A batch summary plus the files written and warnings (folder listing, cohort step). */
@@ -105,7 +109,10 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   const runId = randomUUID();
   const startedAt = new Date().toISOString();
   const warnings: string[] = [];
-  const files = await listStackFiles(folder, [outDir], warnings);
+  const listed = await listStackFiles(folder, [outDir], warnings);
+  const part = opts.shard ? await selectPart(listed, opts.shard, opts.projectFile ?? null) : null;
+  const files = part ? part.files : listed;
+  const writeDir = opts.shard ? partDir(outDir, opts.shard) : outDir;
   const workerPath = opts.workerPath ?? defaultWorkerPath();
   if (opts.jobs > 0 && !existsSync(workerPath)) throw new Error(`the batch worker ${workerPath} is missing; build it with "npm run build"`);
   const tasks: BatchTask[] = files.map((f, index) => {
@@ -141,10 +148,11 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   const ok = results.filter((r) => r.status === 'ok').length;
   const record: RunRecord = {
     schema: 'eggline-run', version: 1, runId, software: await softwareVersions(), startedAt, endedAt: new Date().toISOString(),
-    commandLine: opts.commandLine ?? null, folder, outDir, projectFile: opts.projectFile ?? null, configFile: opts.configFile ?? null,
+    commandLine: opts.commandLine ?? null, folder, outDir: writeDir, projectFile: opts.projectFile ?? null, configFile: opts.configFile ?? null,
     settings: opts.settings, jobs: opts.jobs, timeoutPerFileS: timeoutMs / 1000, cancelled, ok, failed: results.length - ok, inputs, warnings: [...warnings],
+    ...(part ? { shard: part.info } : {}),
   };
-  const written = await writeBatchOutputs(outDir, results, record);
+  const written = await writeBatchOutputs(writeDir, results, record);
   let cohortError: string | null = null;
   if (opts.cohort && !cancelled) {
     const failures = results.filter((r) => r.status === 'error').map((r) => ({ file: r.file, error: r.error ?? 'error' }));
@@ -156,5 +164,5 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
     cohortError = step.error;
   }
   progress({ done, file: null, status: cancelled ? 'cancelled' : 'finished', message: null });
-  return { runId, outDir, ok, failed: results.length - ok, cancelled, results, written, warnings, cohortError, record };
+  return { runId, outDir: writeDir, ok, failed: results.length - ok, cancelled, results, written, warnings, cohortError, record };
 }

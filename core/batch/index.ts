@@ -17,5 +17,7 @@ export {
   PROJECT_FILE_NAME, parseProjectDoc, projectKey, editsForFile, toHandEdits, settingsForFile,
 } from './project-edits';
 export { isStackFileName, sortStackPaths } from './stack-files';
-export { runRecordToJson, type RunRecord, type RunInput, type SoftwareVersions } from './run-record';
+export {
+  runRecordToJson, type RunRecord, type RunInput, type SoftwareVersions, type ShardInfo, type MergeInfo,
+} from './run-record';
 export { errorResult } from './error-result';
