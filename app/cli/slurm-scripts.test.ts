@@ -87,7 +87,7 @@ describe('the scripts', () => {
     }
     expect(array).toContain('#SBATCH --array=0-7\n');
     expect(array).toContain('#SBATCH --cpus-per-task=2\n');
-    expect(array).toContain("\"$NODE\" \"$EGGLINE\" batch '/data/screen 1' --out /scratch/out --shard \"$PART/$PARTS\" --jobs \"${SLURM_CPUS_PER_TASK:-2}\" --fit-range=0.1,0.5\n");
+    expect(array).toContain("\"$NODE\" \"$EGGLINE\" batch '/data/screen 1' --out /scratch/out --shard \"$PART/$PARTS\" --resume --jobs \"${SLURM_CPUS_PER_TASK:-2}\" --fit-range=0.1,0.5\n");
     expect(array).toContain('NODE=/opt/node/bin/node ');
     expect(array).toContain('EGGLINE=/opt/eggline/dist/cli.mjs ');
     expect(merge).toContain('exec "$NODE" "$EGGLINE" merge /scratch/out --samples /data/samples.csv\n');
@@ -106,7 +106,7 @@ describe('the scripts', () => {
     const text = arrayScript({ ...plan, nodePath: '/bin/bash', cliPath: fake, userDirectives: [] });
     writeFileSync(join(dir, 'run.sbatch'), text);
     const out = execFileSync('bash', [join(dir, 'run.sbatch')], { env: { ...process.env, SLURM_ARRAY_TASK_ID: '2', SLURM_CPUS_PER_TASK: '3' }, encoding: 'utf8' });
-    expect(out).toBe('batch /data/screen 1 --out /scratch/out --shard 3/8 --jobs 3 --fit-range=0.1,0.5\n');
+    expect(out).toBe('batch /data/screen 1 --out /scratch/out --shard 3/8 --resume --jobs 3 --fit-range=0.1,0.5\n');
     const env = { ...process.env };
     delete env.SLURM_ARRAY_TASK_ID;
     expect(() => execFileSync('bash', [join(dir, 'run.sbatch')], { env, stdio: 'pipe' })).toThrow('SLURM_ARRAY_TASK_ID: is not set: submit this script with sbatch');

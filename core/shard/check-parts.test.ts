@@ -9,9 +9,9 @@ function part(k: number, n: number, over: { shard?: Partial<ShardInfo>; record?:
     part: k, parts: n, inputCount: 10, inputBytes: 1000, inputListSha256: 'a'.repeat(64), projectSha256: null, ...over.shard,
   };
   const record: RunRecord = {
-    schema: 'eggline-run', version: 1, runId: `r${k}`, software: { eggline: '0.1.0', node: '20.19.0', sharp: '0.35.5', libvips: '8.17' },
+    schema: 'eggline-run', version: 2, runId: `r${k}`, software: { eggline: '0.1.0', node: '20.19.0', sharp: '0.35.5', libvips: '8.17' },
     startedAt: '2026-01-01T00:00:00.000Z', endedAt: '2026-01-01T00:01:00.000Z', commandLine: null, folder: '/in', outDir: `/out/parts/${k}-of-${n}`,
-    projectFile: null, configFile: null, settings: DEFAULT_SETTINGS, jobs: 2, timeoutPerFileS: 900, cancelled: false, ok: 1, failed: 0,
+    projectFile: null, configFile: null, settings: DEFAULT_SETTINGS, jobs: 2, timeoutPerFileS: 900, cancelled: false, complete: true, reason: null, note: null, reused: 0, ok: 1, failed: 0,
     inputs: [], warnings: [], shard, ...over.record,
   };
   return { folder: `${k}-of-${n}`, record };

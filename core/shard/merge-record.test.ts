@@ -5,9 +5,9 @@ import { mergeRunRecords, orderLikeOneRun } from './merge-record';
 
 const input = (file: string, status: RunInput['status'] = 'ok'): RunInput => ({ file, bytes: 1, sha256: null, status, error: null });
 const rec = (k: number, inputs: RunInput[], startedAt: string): RunRecord => ({
-  schema: 'eggline-run', version: 1, runId: `r${k}`, software: { eggline: '0.1.0', node: '20', sharp: null, libvips: null },
+  schema: 'eggline-run', version: 2, runId: `r${k}`, software: { eggline: '0.1.0', node: '20', sharp: null, libvips: null },
   startedAt, endedAt: startedAt, commandLine: null, folder: '/in', outDir: `/o/parts/${k}-of-2`, projectFile: null, configFile: null,
-  settings: DEFAULT_SETTINGS, jobs: k, timeoutPerFileS: 900, cancelled: false, ok: inputs.length, failed: 0, inputs, warnings: ['w'],
+  settings: DEFAULT_SETTINGS, jobs: k, timeoutPerFileS: 900, cancelled: false, complete: true, reason: null, note: null, reused: 0, ok: inputs.length, failed: 0, inputs, warnings: ['w'],
   shard: { part: k, parts: 2, inputCount: 4, inputBytes: 4, inputListSha256: 'x', projectSha256: null },
 });
 const merge = { parts: 2, partsMerged: [1, 2], missingParts: [], missingFiles: [], inputListSha256: 'x' };
