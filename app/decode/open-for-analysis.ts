@@ -2,6 +2,7 @@
 import type { PlaneSource, RawPlane, StackInfo } from '../../core/model';
 import { openFileByteSource } from '../../core/io';
 import { createGeotiffPlaneSource, readStackInfo, type StackInfoOptions } from '../../core/tiff';
+import { isZarrPath, openZarrStack } from './open-zarr-stack';
 import { createSharpPlaneSource, sharpDecodesExactly } from './sharp-decoder';
 
 /** What openStackForAnalysis returns; `warnings` grows when a plane falls back to the geotiff decoder. */
@@ -41,8 +42,10 @@ export function withDecoderFallback(primary: PlaneSource, fallback: PlaneSource,
 /**
  * Reads tags with core and returns a PlaneSource: sharp for the sample types it decodes exactly, geotiff for
  * the rest (int16, float64, several samples per pixel) and for any plane sharp fails on. Throws TiffError.
+ * A folder is read as an OME-Zarr store (core/zarr; throws ZarrError).
  */
 export async function openStackForAnalysis(path: string, fileLabel: string, options: StackInfoOptions = {}): Promise<OpenedStack> {
+  if (await isZarrPath(path)) return openZarrStack(path, fileLabel, options);
   const bytes = await openFileByteSource(path, fileLabel);
   let info: StackInfo;
   try {
