@@ -103,7 +103,7 @@ def main():
     parser.add_argument('--z-step-um', type=float, required=True)
     parser.add_argument('--channels', required=True)
     parser.add_argument('cases', nargs='*')
-    args = parser.parse_args()
+    args = parser.parse_intermixed_args()
     stack = read_tczyx(args.tiff)
     channels = args.channels.split(',')
     os.makedirs(args.out, exist_ok=True)

@@ -1,7 +1,7 @@
-// Find the stacks of a batch: every TIFF-family file in a folder and its subfolders, in a stable order.
+// Find the stacks of a batch: every TIFF-family file and OME-Zarr folder in a folder and its subfolders, in a stable order.
 import { promises as fs } from 'node:fs';
 import { join, relative, resolve, sep } from 'node:path';
-import { isStackFileName, sortStackPaths } from '../../core/batch';
+import { isStackFileName, isStackFolderName, sortStackPaths } from '../../core/batch';
 
 /** A stack found in the input folder. */
 export interface StackFile {
@@ -16,7 +16,7 @@ export function isInside(parent: string, child: string): boolean {
   return rel === '' || (!rel.startsWith('..') && !rel.startsWith(sep) && !/^[a-zA-Z]:/.test(rel));
 }
 
-/** Every stack file under `folder` (hidden entries and the `skipDirs` skipped; symlinked folders not followed), sorted.
+/** Every stack file and *.zarr folder under `folder` (hidden entries and the `skipDirs` skipped; symlinked folders not followed), sorted.
  *  A subfolder that cannot be read is skipped with a line in `warnings`; an unreadable top folder rejects. */
 export async function listStackFiles(folder: string, skipDirs: readonly string[] = [], warnings: string[] = []): Promise<StackFile[]> {
   const root = resolve(folder);
@@ -31,7 +31,9 @@ export async function listStackFiles(folder: string, skipDirs: readonly string[]
       if (e.name.startsWith('.')) continue;
       const full = join(dir, e.name);
       if (e.isDirectory()) {
-        if (!skipDirs.some((s) => isInside(s, full))) await walk(full);
+        // An OME-Zarr store is one stack: listed, never walked into.
+        if (isStackFolderName(e.name)) found.push(relative(root, full).split(sep).join('/'));
+        else if (!skipDirs.some((s) => isInside(s, full))) await walk(full);
       } else if (isStackFileName(e.name) && (e.isFile() || (e.isSymbolicLink() && (await fs.stat(full).catch(() => null))?.isFile()))) {
         found.push(relative(root, full).split(sep).join('/'));
       }

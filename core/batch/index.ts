@@ -16,6 +16,6 @@ export { resultsToJson, resultsFromJson, RESULTS_SCHEMA, RESULTS_VERSION } from 
 export {
   PROJECT_FILE_NAME, parseProjectDoc, projectKey, editsForFile, toHandEdits, settingsForFile,
 } from './project-edits';
-export { isStackFileName, sortStackPaths } from './stack-files';
+export { isStackFileName, isStackFolderName, sortStackPaths } from './stack-files';
 export { runRecordToJson, type RunRecord, type RunInput, type SoftwareVersions } from './run-record';
 export { errorResult } from './error-result';
