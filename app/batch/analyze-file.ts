@@ -1,13 +1,12 @@
 // Analyse one batch file end to end (open, decode, analyse), turning every failure into an error row.
 import { basename } from 'node:path';
-import { errorResult } from '../../core/batch';
-import type { EmbryoResult } from '../../core/model';
+import { errorResult, oneLine, type EmbryoResult } from '../../core/model';
 import { analyze, openStack } from './deps';
 import type { BatchTask } from './task';
 
 /** One line naming the file: the message as is when it already names it, else "file: message". */
 export function fileMessage(file: string, e: unknown): string {
-  const text = (e instanceof Error ? e.message : String(e)).split(/\r?\n/)[0].trim() || 'unknown error';
+  const text = oneLine(e instanceof Error ? e.message : String(e));
   return text.startsWith(file) || text.startsWith(basename(file)) ? text : `${file}: ${text}`;
 }
 

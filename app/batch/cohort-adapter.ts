@@ -1,6 +1,6 @@
 // Adapter to the cohort step (per-condition statistics after a batch), owned by the cohort area.
 import type { EmbryoResult } from '../../core/model';
-import { runCohortStep } from '../cohort/run-cohort';
+import { runCohortStep, type CohortStepResult } from '../cohort/run-cohort';
 
 /** What the cohort step receives. */
 export interface CohortStepOptions {
@@ -12,11 +12,16 @@ export interface CohortStepOptions {
   readonly runRecord: unknown;
 }
 
-/** Run the cohort step; resolves with the files written and warnings, or with `error` (one line) when it failed. */
-export async function runCohort(opts: CohortStepOptions): Promise<{ written: string[]; warnings: string[]; error: string | null }> {
+/** The step's outputs and analysis, or `error` (one line) with no analysis when it failed. */
+export type CohortOutcome =
+  | (CohortStepResult & { readonly error: null })
+  | { readonly written: string[]; readonly warnings: string[]; readonly analysis: null; readonly figures: null; readonly error: string };
+
+/** Run the cohort step once; never rejects. */
+export async function runCohort(opts: CohortStepOptions): Promise<CohortOutcome> {
   try {
     return { ...(await runCohortStep(opts)), error: null };
   } catch (e) {
-    return { written: [], warnings: [], error: (e instanceof Error ? e.message : String(e)).split(/\r?\n/)[0] };
+    return { written: [], warnings: [], analysis: null, figures: null, error: (e instanceof Error ? e.message : String(e)).split(/\r?\n/)[0] };
   }
 }

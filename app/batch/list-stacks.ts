@@ -1,4 +1,5 @@
-// Find the stacks of a batch: every TIFF-family file and OME-Zarr folder in a folder and its subfolders, in a stable order.
+// Find the stacks of a folder: every TIFF-family file and OME-Zarr folder in it and its subfolders, in a stable order.
+// The one walker: the batch and the window's file list both use it, so they always list the same files.
 import { promises as fs } from 'node:fs';
 import { join, relative, resolve, sep } from 'node:path';
 import { isStackFileName, isStackFolderName, sortStackPaths } from '../../core/batch';
@@ -16,9 +17,13 @@ export function isInside(parent: string, child: string): boolean {
   return rel === '' || (!rel.startsWith('..') && !rel.startsWith(sep) && !/^[a-zA-Z]:/.test(rel));
 }
 
-/** Every stack file and *.zarr folder under `folder` (hidden entries and the `skipDirs` skipped; symlinked folders not followed), sorted.
+/** Every stack file and *.zarr folder (an OME-Zarr store, never walked into) under `folder` (hidden entries and the
+ *  `skipDirs` skipped; symlinked folders not followed, as they can loop), sorted; at most `maxFiles` (a folder beyond
+ *  a cap is surely a mistake, such as a whole disk).
  *  A subfolder that cannot be read is skipped with a line in `warnings`; an unreadable top folder rejects. */
-export async function listStackFiles(folder: string, skipDirs: readonly string[] = [], warnings: string[] = []): Promise<StackFile[]> {
+export async function listStackFiles(
+  folder: string, skipDirs: readonly string[] = [], warnings: string[] = [], maxFiles = Number.POSITIVE_INFINITY,
+): Promise<StackFile[]> {
   const root = resolve(folder);
   const found: string[] = [];
   const walk = async (dir: string): Promise<void> => {
@@ -28,7 +33,7 @@ export async function listStackFiles(folder: string, skipDirs: readonly string[]
       return [];
     });
     for (const e of entries) {
-      if (e.name.startsWith('.')) continue;
+      if (e.name.startsWith('.') || found.length >= maxFiles) continue;
       const full = join(dir, e.name);
       if (e.isDirectory()) {
         // An OME-Zarr store is one stack: listed, never walked into.

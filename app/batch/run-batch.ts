@@ -3,21 +3,26 @@
 import { randomUUID } from 'node:crypto';
 import { existsSync, promises as fs } from 'node:fs';
 import { availableParallelism } from 'node:os';
-import { join, resolve } from 'node:path';
+import { basename, dirname, join, resolve } from 'node:path';
 import {
-  BatchOptionError, editsForFile, errorResult, settingsForFile, toHandEdits, type RunInput, type RunRecord,
+  BatchOptionError, editsForFile, JOURNAL_FILE_NAME, normalizeResult, runRecordToJson, settingsForFile, toHandEdits,
+  type ParsedJournal, type RunEndReason, type RunInput, type RunRecord,
 } from '../../core/batch';
 import type { BatchProgress, BatchSummary, ProjectDoc } from '../../core/contract';
-import type { EmbryoResult } from '../../core/model';
+import { errorResult, type EmbryoResult } from '../../core/model';
+import type { CohortAnalysis } from '../../core/cohort';
+import type { NamedFigure } from '../../core/figures';
 import type { AnalysisSettings } from '../../core/settings';
 import { analyzeFile } from './analyze-file';
 import { runCohort } from './cohort-adapter';
 import { sha256File } from './hash-file';
+import { openJournal, readJournal, settingsKey } from './journal-file';
 import { isInside, listStackFiles } from './list-stacks';
 import type { BatchTask } from './task';
 import { softwareVersions } from './versions';
 import { runPool } from './worker-pool';
-import { writeBatchOutputs } from './write-outputs';
+import { OUTPUT_FILES, writeBatchOutputs } from './write-outputs';
+import { writeFileAtomic } from '../project';
 
 /** Default per-file time limit, seconds: generous, a 2 GB stack on a slow disk must not be cut off. */
 export const DEFAULT_TIMEOUT_PER_FILE_S = 900;
@@ -42,6 +47,8 @@ export interface RunBatchOptions {
   readonly commandLine?: readonly string[];
   readonly projectFile?: string | null;
   readonly configFile?: string | null;
+  /** Reuse the results the journal in outDir holds for files whose bytes and settings are unchanged. */
+  readonly resume?: boolean;
   /** Run the cohort step afterwards with this sample sheet. */
   readonly cohort?: { readonly sampleSheetPath: string; readonly reference: string | null } | null;
 }
@@ -52,7 +59,14 @@ export interface BatchRunResult extends BatchSummary {
   readonly warnings: readonly string[];
   /** Why the cohort step failed (the batch tables are written regardless); null when it ran or was not asked for. */
   readonly cohortError: string | null;
+  /** The cohort step's analysis and figures when it ran (the window shows these; it never runs the step again). */
+  readonly cohortStep: { readonly analysis: CohortAnalysis; readonly figures: readonly NamedFigure[] } | null;
   readonly record: RunRecord;
+  /** Every file has its row; else why not. */
+  readonly complete: boolean;
+  readonly reason: RunEndReason | null;
+  /** Results taken over from the journal (--resume). */
+  readonly reused: number;
 }
 
 /** batch-worker.mjs beside the running CommonJS bundle (dist/main.cjs), else dist/ under the working folder.
@@ -66,12 +80,25 @@ export function defaultJobs(): number {
   return Math.max(1, availableParallelism());
 }
 
+/** `path` with symlinks resolved; for a path that does not exist yet, its nearest existing parent resolved. */
+export async function realPathOf(path: string): Promise<string> {
+  const abs = resolve(path);
+  const real = await fs.realpath(abs).catch(() => null);
+  if (real !== null) return real;
+  const parent = dirname(abs);
+  return parent === abs ? abs : join(await realPathOf(parent), basename(abs));
+}
+
 async function checkFolders(folder: string, outDir: string): Promise<void> {
   const stat = await fs.stat(folder).catch(() => null);
   if (!stat) throw new BatchOptionError(`input folder not found: ${folder}`);
   if (!stat.isDirectory()) throw new BatchOptionError(`input is not a folder: ${folder}`);
-  if (resolve(folder) === resolve(outDir)) throw new BatchOptionError(`the output folder must not be the input folder (${outDir})`);
-  if (isInside(outDir, folder)) throw new BatchOptionError(`the output folder must not contain the input folder (${outDir})`);
+  const [realIn, realOut] = [await realPathOf(folder), await realPathOf(outDir)];
+  if (realIn === realOut) throw new BatchOptionError(`the output folder must not be the input folder (${outDir})`);
+  if (isInside(realIn, realOut)) {
+    throw new BatchOptionError(`the output folder must not be inside the input folder (${outDir} is in ${folder}${realOut !== resolve(outDir) ? ` through a symlink: ${realOut}` : ''})`);
+  }
+  if (isInside(realOut, realIn)) throw new BatchOptionError(`the output folder must not contain the input folder (${outDir})`);
   const out = await fs.stat(outDir).catch(() => null);
   if (out && !out.isDirectory()) throw new BatchOptionError(`the output path exists and is not a folder: ${outDir}`);
 }
@@ -97,6 +124,46 @@ async function runInProcess(
   return results;
 }
 
+/** Hashes of the batch's files, each computed once when first asked for (null when the file cannot be read). */
+function fileHashes(): (t: BatchTask) => Promise<{ sha256: string; bytes: number } | null> {
+  const memo = new Map<number, Promise<{ sha256: string; bytes: number } | null>>();
+  return (t) => {
+    let h = memo.get(t.index);
+    if (!h) { h = sha256File(t.path).catch(() => null); memo.set(t.index, h); }
+    return h;
+  };
+}
+
+/** Results of an earlier run's journal that still hold: same file bytes (SHA-256) and the same settings key. */
+async function reusable(
+  journal: ParsedJournal, tasks: readonly BatchTask[], keys: readonly string[], hashOf: ReturnType<typeof fileHashes>,
+): Promise<Map<number, EmbryoResult>> {
+  const out = new Map<number, EmbryoResult>();
+  for (const t of tasks) {
+    const entry = journal.entries.get(t.file);
+    if (!entry || entry.settingsKey !== keys[t.index]) continue;
+    const size = await fs.stat(t.path).then((st) => st.size, () => -1);
+    if (size !== entry.bytes) continue;
+    if ((await hashOf(t))?.sha256 === entry.sha256) out.set(t.index, entry.result);
+  }
+  return out;
+}
+
+/** Delete the tables of an earlier run in `outDir` (a new run without --resume replaces them; until it ends,
+ *  run.json says the folder holds no finished run). */
+async function removeOldTables(outDir: string): Promise<void> {
+  for (const name of OUTPUT_FILES) if (name !== 'run.json') await fs.rm(join(outDir, name), { force: true });
+}
+
+/** The one-line meaning of a run record's end state. */
+function endNote(reason: RunEndReason | null, done: number, total: number): string | null {
+  if (reason === null) return null;
+  const tables = `the tables hold the ${done} of ${total} files that finished; rerun with --resume to analyse the rest`;
+  if (reason === 'cancelled') return `stopped before every file was analysed: ${tables}`;
+  if (reason === 'killed') return `the batch was killed before every file was analysed: ${tables}`;
+  return `an error stopped the batch: ${tables}`;
+}
+
 /** Run a batch over `folder`, writing outputs to `outDir`. Rejects only for unusable options (BatchOptionError) or I/O on the output. */
 export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   const folder = resolve(opts.folder);
@@ -112,49 +179,97 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
     const edits = editsForFile(opts.doc, f.file, f.path);
     return { index, path: f.path, file: f.file, settings: settingsForFile(opts.settings, edits), handEdits: toHandEdits(edits) };
   });
+  const software = await softwareVersions();
+  const timeoutMs = (opts.timeoutPerFileS ?? DEFAULT_TIMEOUT_PER_FILE_S) * 1000;
+  const record = (over: Partial<RunRecord>): RunRecord => ({
+    schema: 'eggline-run', version: 2, runId, software, startedAt, endedAt: new Date().toISOString(),
+    commandLine: opts.commandLine ?? null, folder, outDir, projectFile: opts.projectFile ?? null, configFile: opts.configFile ?? null,
+    settings: opts.settings, jobs: opts.jobs, timeoutPerFileS: timeoutMs / 1000, cancelled: false, complete: false, reason: 'killed',
+    note: 'written when the run started; no later record replaced it, so the run was killed (or is still running) and the tables here are not a finished run',
+    reused: 0, ok: 0, failed: 0, inputs: [], warnings: [...warnings], ...over,
+  });
+  await fs.mkdir(outDir, { recursive: true });
+  const earlier = opts.resume === true ? await readJournal(outDir) : null;
+  if (opts.resume === true && earlier === null) warnings.push(`--resume: no ${JOURNAL_FILE_NAME} in ${outDir}, so every file is analysed`);
+  if (opts.resume !== true) await removeOldTables(outDir);
+  await writeFileAtomic(join(outDir, 'run.json'), runRecordToJson(record({})));
+  const journal = await openJournal(outDir, { runId, startedAt, eggline: software.eggline, resume: opts.resume === true });
+  const hashOf = fileHashes();
+  const keys = tasks.map((t) => settingsKey(t.settings, t.handEdits, software.eggline));
+  const results: (EmbryoResult | undefined)[] = new Array(tasks.length);
+  const kept = earlier ? await reusable(earlier, tasks, keys, hashOf) : new Map<number, EmbryoResult>();
+  for (const [i, r] of kept) results[i] = r;
+  const pending = tasks.filter((t) => results[t.index] === undefined);
   const progress = (p: Omit<BatchProgress, 'runId' | 'total'>): void => opts.onProgress?.({ runId, total: tasks.length, ...p });
-  let done = 0;
-  const hashes = new Map<number, Promise<{ sha256: string; bytes: number } | null>>();
+  let done = kept.size;
+  const appends = new Set<Promise<void>>();
+  let journalError: string | null = null;
   const onStart = (t: BatchTask): void => {
-    hashes.set(t.index, sha256File(t.path).catch(() => null));
+    void hashOf(t);
     progress({ done, file: t.file, status: 'running', message: null });
   };
-  const onResult = (t: BatchTask, r: EmbryoResult): void => {
+  const onResult = (t: BatchTask, raw: EmbryoResult): void => {
+    const r = normalizeResult({ ...raw, file: t.file });
+    results[t.index] = r;
     done += 1;
     progress({ done, file: t.file, status: r.status, message: r.error });
+    const append = hashOf(t).then(async (h) => {
+      if (h) await journal.append({ file: t.file, sha256: h.sha256, bytes: h.bytes, settingsKey: keys[t.index], result: r });
+    }).catch((e: unknown) => { journalError ??= `the journal could not be written (${String(e)}); --resume will analyse those files again`; });
+    appends.add(append);
+    void append.then(() => appends.delete(append));
   };
-  const timeoutMs = (opts.timeoutPerFileS ?? DEFAULT_TIMEOUT_PER_FILE_S) * 1000;
-  const slots = opts.jobs <= 0
-    ? await runInProcess(tasks, opts.analyzeInProcess ?? analyzeFile, timeoutMs, opts.signal, onStart, onResult)
-    : await runPool(tasks, {
-      jobs: opts.jobs, workerPath, timeoutMs, signal: opts.signal, onStart, onResult,
-      workerData: { decoderThreads: Math.max(1, Math.floor(defaultJobs() / opts.jobs)) },
-    });
-  const cancelled = opts.signal?.aborted === true || slots.some((r) => r === undefined);
-  const results = slots.filter((r): r is EmbryoResult => r !== undefined);
+  const failed = async (e: unknown): Promise<never> => {
+    const line = `an error stopped the batch: ${String(e).split('\n')[0]}`;
+    await writeFileAtomic(join(outDir, 'run.json'), runRecordToJson(record({ reason: 'failed', note: line }))).catch(() => undefined);
+    throw e;
+  };
+  try {
+    if (opts.jobs <= 0) await runInProcess(pending, opts.analyzeInProcess ?? analyzeFile, timeoutMs, opts.signal, onStart, onResult);
+    else {
+      await runPool(pending, {
+        jobs: opts.jobs, workerPath, timeoutMs, signal: opts.signal, onStart, onResult,
+        workerData: { decoderThreads: Math.max(1, Math.floor(defaultJobs() / opts.jobs)) },
+      });
+    }
+  } catch (e) {
+    await failed(e);
+  } finally {
+    await Promise.all([...appends]);
+    await journal.close();
+  }
+  if (journalError !== null) warnings.push(journalError);
+  const complete = results.filter((r) => r !== undefined).length === tasks.length;
+  const reason: RunEndReason | null = complete ? null : opts.signal?.reason === 'killed' ? 'killed' : opts.signal?.aborted ? 'cancelled' : 'failed';
+  const finished = results.filter((r): r is EmbryoResult => r !== undefined);
   const inputs: RunInput[] = [];
   for (const t of tasks) {
-    const h = await (hashes.get(t.index) ?? Promise.resolve(null));
-    const r = slots[t.index];
+    const r = results[t.index];
+    const h = r ? await hashOf(t) : null;
     inputs.push({ file: t.file, bytes: h?.bytes ?? null, sha256: h?.sha256 ?? null, status: r?.status ?? 'not-run', error: r?.error ?? null });
   }
-  const ok = results.filter((r) => r.status === 'ok').length;
-  const record: RunRecord = {
-    schema: 'eggline-run', version: 1, runId, software: await softwareVersions(), startedAt, endedAt: new Date().toISOString(),
-    commandLine: opts.commandLine ?? null, folder, outDir, projectFile: opts.projectFile ?? null, configFile: opts.configFile ?? null,
-    settings: opts.settings, jobs: opts.jobs, timeoutPerFileS: timeoutMs / 1000, cancelled, ok, failed: results.length - ok, inputs, warnings: [...warnings],
-  };
-  const written = await writeBatchOutputs(outDir, results, record);
+  const ok = finished.filter((r) => r.status === 'ok').length;
+  const final = record({
+    cancelled: !complete, complete, reason, note: endNote(reason, finished.length, tasks.length), reused: kept.size,
+    ok, failed: finished.length - ok, inputs, warnings: [...warnings],
+  });
+  const written = await writeBatchOutputs(outDir, finished, final).catch(failed);
+  written.push(journal.path);
   let cohortError: string | null = null;
-  if (opts.cohort && !cancelled) {
-    const failures = results.filter((r) => r.status === 'error').map((r) => ({ file: r.file, error: r.error ?? 'error' }));
+  let cohortStep: BatchRunResult['cohortStep'] = null;
+  if (opts.cohort && complete) {
+    const failures = finished.filter((r) => r.status === 'error').map((r) => ({ file: r.file, error: r.error ?? 'error' }));
     const step = await runCohort({
-      results, failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, outDir, runRecord: record,
+      results: finished, failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, outDir, runRecord: final,
     });
     written.push(...step.written);
     warnings.push(...step.warnings);
     cohortError = step.error;
+    if (step.error === null) cohortStep = { analysis: step.analysis, figures: step.figures };
   }
-  progress({ done, file: null, status: cancelled ? 'cancelled' : 'finished', message: null });
-  return { runId, outDir, ok, failed: results.length - ok, cancelled, results, written, warnings, cohortError, record };
+  progress({ done, file: null, status: complete ? 'finished' : 'cancelled', message: null });
+  return {
+    runId, outDir, ok, failed: finished.length - ok, cancelled: !complete, complete, reason, reused: kept.size,
+    results: finished, written, warnings, cohortError, cohortStep, record: final,
+  };
 }

@@ -1,7 +1,7 @@
 // A pool of worker threads that analyses batch tasks. A worker that crashes or overruns its time is replaced,
 // and its file gets an error row; the batch always goes on to the next file.
 import { Worker } from 'node:worker_threads';
-import { errorResult } from '../../core/batch';
+import { errorResult } from '../../core/model';
 import type { EmbryoResult } from '../../core/model';
 import type { BatchTask, WorkerReply } from './task';
 

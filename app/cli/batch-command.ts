@@ -6,7 +6,9 @@ import {
 } from '../../core/batch';
 import type { ProjectDoc } from '../../core/contract';
 import { DEFAULT_SETTINGS, type AnalysisSettings } from '../../core/settings';
-import { defaultJobs, runBatch, type RunBatchOptions } from '../batch/run-batch';
+import { defaultJobs, realPathOf, runBatch, type BatchRunResult, type RunBatchOptions } from '../batch/run-batch';
+import { isInside } from '../batch/list-stacks';
+import { STOP_MESSAGE } from './batch-tuning';
 import { loadProject } from '../project';
 import { BATCH_HELP } from './help';
 import { parseCommandArgs } from './parse-command-args';
@@ -18,7 +20,7 @@ const OPTIONS = {
   'boundary-channel': { type: 'string', multiple: true }, 'pixel-size': { type: 'string' }, projection: { type: 'string' },
   profile: { type: 'string' }, 'fit-range': { type: 'string' }, anterior: { type: 'string' }, config: { type: 'string' },
   project: { type: 'string' }, 'no-project': { type: 'boolean' }, samples: { type: 'string' }, reference: { type: 'string' },
-  'file-timeout': { type: 'string' }, help: { type: 'boolean', short: 'h' },
+  'file-timeout': { type: 'string' }, resume: { type: 'boolean' }, help: { type: 'boolean', short: 'h' },
 } as const;
 
 /** Everything the batch command resolved from its arguments, before running. */
@@ -33,6 +35,7 @@ export interface BatchPlan {
   readonly samples: string | null;
   readonly reference: string | null;
   readonly timeoutS: number | undefined;
+  readonly resume: boolean;
   readonly notes: readonly string[];
 }
 
@@ -76,6 +79,10 @@ export async function planBatch(argv: readonly string[]): Promise<BatchPlan | 'h
   const stat = await fs.stat(folder).catch(() => null);
   if (!stat?.isDirectory()) throw new UsageError(`${stat ? 'not a folder' : 'input folder not found'}: ${positionals[0]}`, 'batch');
   if (resolve(v.out) === folder) throw new UsageError('--out must not be the input folder (nothing is written next to the inputs)', 'batch');
+  const [realIn, realOut] = [await realPathOf(folder), await realPathOf(v.out)];
+  if (realIn === realOut || isInside(realIn, realOut)) {
+    throw new UsageError(`--out must not be inside the input folder (${v.out}${realOut !== resolve(v.out) ? `, through a symlink, is ${realOut}` : ''}; nothing is written next to the inputs)`, 'batch');
+  }
   if (v.reference !== undefined && v.samples === undefined) throw new UsageError('--reference needs --samples', 'batch');
   if (v.samples !== undefined && !(await fs.stat(v.samples).then((s) => s.isFile(), () => false))) {
     throw new UsageError(`sample sheet not found: ${v.samples}`, 'batch');
@@ -92,11 +99,60 @@ export async function planBatch(argv: readonly string[]): Promise<BatchPlan | 'h
     projectFile: project.path, configFile: v.config !== undefined ? resolve(v.config) : null,
     samples: v.samples !== undefined ? resolve(v.samples) : null, reference: v.reference ?? null,
     timeoutS: v['file-timeout'] !== undefined ? wholeNumber(v['file-timeout'], '--file-timeout', 1, 86_400) : undefined,
-    notes: project.note ? [project.note] : [],
+    resume: v.resume === true, notes: project.note ? [project.note] : [],
   };
 }
 
-/** Run `eggline batch`; returns the exit code (0 all ok, 1 some failed or cancelled, 2 usage error). */
+/** Stop requests within this many milliseconds count as one (a terminal's Ctrl+C reaches both the launcher, which
+ *  passes it on, and the tuned child in its group). */
+const SAME_REQUEST_MS = 1000;
+
+/** Listen for stop requests: Ctrl+C, SIGTERM, SIGHUP, or the launcher's stop message stop the batch cleanly; a
+ *  second request ends the process at once; the launcher going away (its IPC channel closing) stops it as killed.
+ *  Returns the function that removes the listeners. */
+function watchStops(io: CliIo, abort: AbortController): () => void {
+  let first = 0;
+  const stop = (): void => {
+    const now = Date.now();
+    if (first === 0) {
+      first = now;
+      io.stderr.write('\neggline: stopping; finished files are kept (Ctrl+C again to quit at once)\n');
+      abort.abort('cancelled');
+    } else if (now - first > SAME_REQUEST_MS) {
+      io.stderr.write('eggline: quit at once; the journal in the output folder keeps every finished file: rerun with --resume\n');
+      process.exit(1);
+    }
+  };
+  const onMessage = (m: unknown): void => { if (m === STOP_MESSAGE) stop(); };
+  const onDisconnect = (): void => { if (!abort.signal.aborted) abort.abort('killed'); };
+  const signals: NodeJS.Signals[] = ['SIGINT', 'SIGTERM', 'SIGHUP'];
+  for (const sig of signals) process.on(sig, stop);
+  const ipc = typeof process.send === 'function';
+  if (ipc) { process.on('message', onMessage); process.on('disconnect', onDisconnect); }
+  return () => {
+    for (const sig of signals) process.removeListener(sig, stop);
+    if (ipc) { process.removeListener('message', onMessage); process.removeListener('disconnect', onDisconnect); process.channel?.unref(); }
+  };
+}
+
+/** What the command prints when a batch ends. */
+function reportEnd(io: CliIo, summary: BatchRunResult, plan: BatchPlan): void {
+  const done = summary.ok + summary.failed;
+  const total = summary.record.inputs.length;
+  const reused = summary.reused > 0 ? ` (${summary.reused} taken from the journal)` : '';
+  if (!summary.complete) {
+    io.stdout.write(`Stopped (${summary.reason ?? 'cancelled'}): ${done} of ${total} file${total === 1 ? '' : 's'} analysed${reused}: ${summary.ok} ok, ${summary.failed} failed.\n`);
+    io.stdout.write(`Tables for those files written to ${summary.outDir}; run.json there says "complete": false.\n`);
+    io.stdout.write('To analyse the rest, run the same command again with --resume.\n');
+    return;
+  }
+  io.stdout.write(`Analysed ${total} file${total === 1 ? '' : 's'}${reused}: ${summary.ok} ok, ${summary.failed} failed.\n`);
+  io.stdout.write(`Tables written to ${summary.outDir}\n`);
+  if (summary.cohortError) io.stderr.write(`eggline: the cohort step failed: ${summary.cohortError}\n`);
+  else if (plan.samples) io.stdout.write(`Cohort report: ${join(summary.outDir, 'report.html')}\n`);
+}
+
+/** Run `eggline batch`; returns the exit code (0 all ok, 1 some failed or stopped, 2 usage error). */
 export async function batchCommand(argv: readonly string[], io: CliIo, extra: Partial<RunBatchOptions> = {}): Promise<number> {
   let plan: BatchPlan | 'help';
   try {
@@ -108,30 +164,28 @@ export async function batchCommand(argv: readonly string[], io: CliIo, extra: Pa
   if (plan === 'help') { io.stdout.write(BATCH_HELP); return 0; }
   for (const note of plan.notes) io.stderr.write(`eggline: ${note}\n`);
   const abort = new AbortController();
-  const onSigint = (): void => { io.stderr.write('\neggline: cancelling; finished files are kept\n'); abort.abort(); };
-  process.once('SIGINT', onSigint);
+  const unwatch = watchStops(io, abort);
   const printer = progressPrinter(io);
   try {
     const summary = await runBatch({
       folder: plan.folder, outDir: plan.outDir, settings: plan.settings, doc: plan.doc, jobs: plan.jobs,
-      onProgress: printer.onProgress, signal: abort.signal, timeoutPerFileS: plan.timeoutS,
+      onProgress: printer.onProgress, signal: abort.signal, timeoutPerFileS: plan.timeoutS, resume: plan.resume,
       commandLine: ['eggline', 'batch', ...argv], projectFile: plan.projectFile, configFile: plan.configFile,
       cohort: plan.samples ? { sampleSheetPath: plan.samples, reference: plan.reference } : null, ...extra,
     });
     printer.end();
     for (const w of summary.warnings) io.stderr.write(`eggline: warning: ${w}\n`);
-    const total = summary.ok + summary.failed;
-    if (total === 0) {
+    if (summary.record.inputs.length === 0) {
       io.stderr.write(`eggline: no stacks (.tif, .tiff, .ome.tif, .btf, .tf8) found in ${plan.folder}\n`);
       return 1;
     }
-    io.stdout.write(`${summary.cancelled ? 'Cancelled after' : 'Analysed'} ${total} file${total === 1 ? '' : 's'}: ${summary.ok} ok, ${summary.failed} failed.\n`);
-    io.stdout.write(`Tables written to ${summary.outDir}\n`);
-    if (summary.cohortError) io.stderr.write(`eggline: the cohort step failed: ${summary.cohortError}\n`);
-    else if (plan.samples) io.stdout.write(`Cohort report: ${join(summary.outDir, 'report.html')}\n`);
-    return summary.failed > 0 || summary.cancelled || summary.cohortError ? 1 : 0;
+    reportEnd(io, summary, plan);
+    return summary.failed > 0 || !summary.complete || summary.cohortError ? 1 : 0;
+  } catch (e) {
+    if (e instanceof BatchOptionError) throw new UsageError(e.message, 'batch');
+    throw e;
   } finally {
     printer.end();
-    process.removeListener('SIGINT', onSigint);
+    unwatch();
   }
 }

@@ -1,13 +1,14 @@
 import { EventEmitter } from 'node:events';
 import type { ChildProcess } from 'node:child_process';
 import { describe, expect, it, vi } from 'vitest';
-import { ARENA_LIMIT, BATCH_V8_FLAGS, needsBatchTuning, runTunedBatch, TUNED_MARK } from './batch-tuning';
+import { ARENA_LIMIT, BATCH_V8_FLAGS, needsBatchTuning, runTunedBatch, STOP_MESSAGE, TUNED_MARK } from './batch-tuning';
 
-/** A stand-in child process: records kill() calls; the test emits 'exit' itself. */
-function fakeChild(): ChildProcess & { sent: string[] } {
-  const child = new EventEmitter() as ChildProcess & { sent: string[] };
+/** A stand-in child process: records messages sent to it; the test emits 'exit' itself. */
+function fakeChild(): ChildProcess & { sent: unknown[] } {
+  const child = new EventEmitter() as ChildProcess & { sent: unknown[] };
   child.sent = [];
-  child.kill = ((signal: NodeJS.Signals) => { child.sent.push(signal); return true; }) as ChildProcess['kill'];
+  Object.defineProperty(child, 'connected', { value: true });
+  child.send = ((message: unknown) => { child.sent.push(message); return true; }) as ChildProcess['send'];
   return child;
 }
 
@@ -30,13 +31,15 @@ describe('runTunedBatch', () => {
     const spawn = vi.fn(() => child);
     const done = runTunedBatch(['/x/cli.mjs', 'batch', 'in', '--out', 'o'], { HOME: '/h' }, spawn);
     expect(spawn).toHaveBeenCalledTimes(1);
-    const [file, args, options] = spawn.mock.calls[0] as unknown as [string, string[], { stdio: string; detached: boolean; env: Record<string, string> }];
+    const [file, args, options] = spawn.mock.calls[0] as unknown as [string, string[], { stdio: string[]; detached?: boolean; env: Record<string, string> }];
     expect(file).toBe(process.execPath);
     expect(args.slice(-5)).toEqual(['/x/cli.mjs', 'batch', 'in', '--out', 'o']);
     // V8 flags go before the script (from memory: node's command-line syntax, `node [options] script [arguments]`).
     expect(args.slice(0, BATCH_V8_FLAGS.length)).toEqual(BATCH_V8_FLAGS);
-    expect(options.stdio).toBe('inherit');
-    expect(options).toMatchObject({ detached: true });
+    // Same process group as the launcher (no `detached`), and an IPC channel whose closing tells the child its
+    // launcher is gone (from memory: Node.js child_process docs, 'disconnect' event and `detached`).
+    expect(options.stdio).toEqual(['inherit', 'inherit', 'inherit', 'ipc']);
+    expect(options.detached).toBeUndefined();
     expect(options.env).toEqual({ HOME: '/h', MALLOC_ARENA_MAX: ARENA_LIMIT, [TUNED_MARK]: '1' });
     child.emit('exit', 1, null);
     await expect(done).resolves.toBe(1);
@@ -52,16 +55,18 @@ describe('runTunedBatch', () => {
     await expect(done).resolves.toBe(0);
   });
 
-  it('passes SIGINT and SIGTERM on once each and removes its handlers afterwards', async () => {
+  it('passes SIGINT and SIGTERM on as stop messages, exits 0/1/2 only, and removes its handlers afterwards', async () => {
     const child = fakeChild();
     const before = { int: process.listenerCount('SIGINT'), term: process.listenerCount('SIGTERM') };
+    const write = vi.spyOn(process.stderr, 'write').mockImplementation(() => true);
     const done = runTunedBatch(['/x/cli.mjs', 'batch'], {}, () => child);
     process.emit('SIGTERM', 'SIGTERM');
     process.emit('SIGINT', 'SIGINT');
-    expect(child.sent).toEqual(['SIGTERM', 'SIGINT']);
-    // Shell convention (common practice): a process ended by signal n exits with status 128 + n; SIGTERM is 15.
-    child.emit('exit', null, 'SIGTERM');
-    await expect(done).resolves.toBe(143);
+    expect(child.sent).toEqual([STOP_MESSAGE, STOP_MESSAGE]);
+    child.emit('exit', null, 'SIGKILL');
+    await expect(done).resolves.toBe(1);
+    expect(write).toHaveBeenCalledWith('eggline: the batch process was ended by SIGKILL; run.json in the output folder says what was written\n');
+    write.mockRestore();
     expect(process.listenerCount('SIGINT')).toBe(before.int);
     expect(process.listenerCount('SIGTERM')).toBe(before.term);
   });

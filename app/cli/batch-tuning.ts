@@ -27,17 +27,26 @@ export function needsBatchTuning(command: string | undefined, platform: string, 
 
 type Spawn = (file: string, args: readonly string[], options: SpawnOptions) => ChildProcess;
 
+/** The message the launching process sends its tuned child to stop the batch cleanly. */
+export const STOP_MESSAGE = 'eggline:stop';
+
 /**
  * Run this command again as a child with BATCH_V8_FLAGS and MALLOC_ARENA_MAX (unless the user set it), writing to the
- * same terminal; resolves with its exit code. The child leads its own process group, so a Ctrl+C reaches it once,
- * passed on by this process (in one group, the terminal's SIGINT and a passed-on one would both arrive, and a second
- * SIGINT stops a batch at once). SIGINT, SIGTERM and SIGHUP are passed on.
+ * same terminal; resolves with its exit code (0, 1 or 2). The child stays in this process's group, so whatever ends
+ * the group ends the batch, and it holds an IPC channel to this process: when this process dies, even by SIGKILL, the
+ * channel closes and the child stops its batch ("killed" in run.json). SIGINT, SIGTERM and SIGHUP sent to this process
+ * are passed on as a stop message; the child counts a stop message and a terminal's SIGINT that arrive together as
+ * one request.
  */
 export function runTunedBatch(args: readonly string[], env: NodeJS.ProcessEnv, spawn: Spawn = nodeSpawn): Promise<number> {
   return new Promise((resolve) => {
     const childEnv = { ...env, MALLOC_ARENA_MAX: env.MALLOC_ARENA_MAX ?? ARENA_LIMIT, [TUNED_MARK]: '1' };
-    const child = spawn(process.execPath, [...BATCH_V8_FLAGS, ...process.execArgv, ...args], { stdio: 'inherit', detached: true, env: childEnv });
-    const forward = (signal: NodeJS.Signals): void => { child.kill(signal); };
+    const child = spawn(process.execPath, [...BATCH_V8_FLAGS, ...process.execArgv, ...args], {
+      stdio: ['inherit', 'inherit', 'inherit', 'ipc'], env: childEnv,
+    });
+    const forward = (): void => {
+      if (child.connected) child.send?.(STOP_MESSAGE, () => undefined);
+    };
     const signals: NodeJS.Signals[] = ['SIGINT', 'SIGTERM', 'SIGHUP'];
     for (const s of signals) process.on(s, forward);
     const done = (code: number): void => {
@@ -45,11 +54,9 @@ export function runTunedBatch(args: readonly string[], env: NodeJS.ProcessEnv, s
       resolve(code);
     };
     child.once('error', (e) => { process.stderr.write(`eggline: cannot restart the command: ${e.message}\n`); done(1); });
-    child.once('exit', (code, signal) => done(code ?? (signal ? 128 + signalNumber(signal) : 1)));
+    child.once('exit', (code, signal) => {
+      if (signal) process.stderr.write(`eggline: the batch process was ended by ${signal}; run.json in the output folder says what was written\n`);
+      done(code === 0 || code === 2 ? code : 1);
+    });
   });
-}
-
-/** Number of a signal a batch may end by (Linux numbering), for the shell convention of exit status 128 + n. */
-function signalNumber(signal: NodeJS.Signals): number {
-  return ({ SIGHUP: 1, SIGINT: 2, SIGKILL: 9, SIGTERM: 15 } as Partial<Record<NodeJS.Signals, number>>)[signal] ?? 1;
 }

@@ -17,8 +17,9 @@ Run "eggline <command> --help" for the options of a command.
 export const BATCH_HELP = `Usage: eggline batch <folder> --out <dir> [options]
 
 Analyses every .tif/.tiff/.ome.tif(f)/.btf/.tf8/.tf2 file and every .zarr/.ome.zarr folder (OME-Zarr, read
-as one stack) in <folder> and its subfolders (sorted by path; hidden files skipped) and writes embryos.csv, boundaries.csv, profiles.csv, landmarks.csv, results.json and
-run.json to <dir>. Nothing is ever written into <folder>; <dir> must not be <folder> itself.
+as one stack) in <folder> and its subfolders (sorted by path; hidden files skipped) and writes embryos.csv,
+boundaries.csv, profiles.csv, landmarks.csv, results.json and run.json to <dir>. Nothing is ever written
+into <folder>; <dir> must not be <folder> or inside it.
 
 Options:
   --out DIR                   output folder (created if missing)                       [required]
@@ -37,9 +38,15 @@ Options:
   --samples CSV               sample sheet (file,condition[,dosage]); runs the cohort step after
   --reference COND            reference condition for the cohort step (needs --samples)
   --file-timeout S            give up on one file after S seconds                       [900]
+  --resume                    reuse the results journal.jsonl in <dir> holds for files whose bytes
+                              (SHA-256) and settings are unchanged; analyse the rest
   -h, --help                  show this help
 
-Exit status: 0 all files analysed, 1 some files failed, 2 usage error.
+While it runs, every finished file is appended to <dir>/journal.jsonl; the tables are written at the end.
+Ctrl+C or SIGTERM stops cleanly (tables of the finished files, run.json with "complete": false); a second
+Ctrl+C quits at once. Either way, --resume finishes the run.
+
+Exit status: 0 all files analysed, 1 some files failed or the run stopped early, 2 usage error.
 `;
 
 /** Help for the inspect command. */

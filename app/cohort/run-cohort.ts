@@ -1,14 +1,15 @@
 // The cohort step as files: reads the sample sheet, analyses, writes conditions.csv, shifts.csv, dosage_fit.csv,
 // positional_error.csv, one .svg and one .png per figure and report.html into outDir. Every file is written atomically.
-import { mkdir, readFile, rename, writeFile } from 'node:fs/promises';
+import { mkdir, readFile } from 'node:fs/promises';
 import sharp from 'sharp';
 import { basename, join } from 'node:path';
 import type { EmbryoResult } from '../../core/model';
 import {
   analyseCohort, CohortError, conditionsCsv, dosageFitCsv, positionalErrorCsv, sheetFromFilenameRule, parseSampleSheet, shiftsCsv,
-  type FilenameRule, type Normalisation, type SampleSheet,
+  type CohortAnalysis, type FilenameRule, type Normalisation, type SampleSheet,
 } from '../../core/cohort';
-import { cohortFigures } from '../../core/figures';
+import { cohortFigures, type NamedFigure } from '../../core/figures';
+import { writeFileAtomic } from '../project';
 import { cohortReportHtml } from './report-html';
 
 /** Options of runCohortStep (see the file comment). */
@@ -26,23 +27,27 @@ export interface CohortStepOptions {
   readonly filenameRule?: FilenameRule;
 }
 
-/** Write text or bytes via a temporary file and rename, so a crash never leaves a half-written output. */
-async function writeAtomic(path: string, text: string | Uint8Array): Promise<void> {
-  const tmp = `${path}.tmp-${process.pid}`;
-  await writeFile(tmp, text);
-  await rename(tmp, path);
+/** What the cohort step wrote and computed (the window shows the same analysis and figures). */
+export interface CohortStepResult {
+  readonly written: string[];
+  readonly warnings: string[];
+  readonly analysis: CohortAnalysis;
+  readonly figures: readonly NamedFigure[];
+}
+
+/** Read and parse a sample sheet; rejects with CohortError (one line naming the sheet) when it cannot. */
+export async function readSampleSheet(path: string): Promise<SampleSheet> {
+  let text: string;
+  try {
+    text = await readFile(path, 'utf8');
+  } catch (e) {
+    throw new CohortError(`${path}: cannot read the sample sheet (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+  }
+  return parseSampleSheet(text, basename(path));
 }
 
 async function loadSheet(opts: CohortStepOptions, warnings: string[]): Promise<SampleSheet> {
-  if (opts.sampleSheetPath !== null) {
-    let text: string;
-    try {
-      text = await readFile(opts.sampleSheetPath, 'utf8');
-    } catch (e) {
-      throw new CohortError(`${opts.sampleSheetPath}: cannot read the sample sheet (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
-    }
-    return parseSampleSheet(text, basename(opts.sampleSheetPath));
-  }
+  if (opts.sampleSheetPath !== null) return readSampleSheet(opts.sampleSheetPath);
   const files = opts.results.filter((r) => r.status === 'ok').map((r) => r.file);
   if (opts.filenameRule) {
     const r = sheetFromFilenameRule(files, opts.filenameRule);
@@ -63,7 +68,7 @@ function allFailures(opts: CohortStepOptions): { file: string; error: string }[]
 }
 
 /** Run the cohort step and write its outputs; rejects with CohortError (one line, names the file) for bad input. */
-export async function runCohortStep(opts: CohortStepOptions): Promise<{ written: string[]; warnings: string[] }> {
+export async function runCohortStep(opts: CohortStepOptions): Promise<CohortStepResult> {
   if (typeof opts.outDir !== 'string' || opts.outDir.trim() === '') throw new CohortError('outDir must be a non-empty path');
   const warnings: string[] = [];
   const sheet = await loadSheet(opts, warnings);
@@ -80,12 +85,12 @@ export async function runCohortStep(opts: CohortStepOptions): Promise<{ written:
   ];
   try {
     await mkdir(opts.outDir, { recursive: true });
-    for (const [name, text] of files) await writeAtomic(join(opts.outDir, name), text);
+    for (const [name, text] of files) await writeFileAtomic(join(opts.outDir, name), text);
   } catch (e) {
     throw new CohortError(`${opts.outDir}: cannot write the cohort outputs (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
   }
   const pngs = await writePngs(figures, opts.outDir, warnings);
-  return { written: [...files.map(([name]) => join(opts.outDir, name)), ...pngs], warnings };
+  return { written: [...files.map(([name]) => join(opts.outDir, name)), ...pngs], warnings, analysis, figures };
 }
 
 /** Each figure also as PNG (2× scale, white background); a failure here is a warning, the SVGs stay. */
@@ -94,7 +99,7 @@ async function writePngs(figures: readonly { name: string; svg: string }[], outD
   for (const f of figures) {
     const path = join(outDir, `${f.name}.png`);
     try {
-      await writeAtomic(path, await sharp(Buffer.from(f.svg), { density: 144 }).png().toBuffer());
+      await writeFileAtomic(path, await sharp(Buffer.from(f.svg), { density: 144 }).png().toBuffer());
       written.push(path);
     } catch (e) {
       warnings.push(`${f.name}.png: not written (${(e as Error).message.split('\n')[0]})`);

@@ -1,10 +1,11 @@
 // The cohort step's numbers and figures for the window: the same analysis and figures report.html is built from
 // (core/cohort analyseCohort + core/figures cohortFigures over the batch results and the sample sheet).
 import { promises as fs } from 'node:fs';
-import { basename, join } from 'node:path';
-import { analyseCohort, CohortError, parseSampleSheet, type CohortAnalysis, type ConditionStat } from '../../core/cohort';
+import { join } from 'node:path';
+import { analyseCohort, type CohortAnalysis, type ConditionStat } from '../../core/cohort';
 import type { CohortConditionRow, CohortSummary } from '../../core/contract';
-import { cohortFigures } from '../../core/figures';
+import { cohortFigures, type NamedFigure } from '../../core/figures';
+import { readSampleSheet } from '../cohort/run-cohort';
 import type { EmbryoResult } from '../../core/model';
 
 /** File name of the sample sheet the app looks for in a batch's input folder. */
@@ -34,12 +35,14 @@ export function conditionRows(a: CohortAnalysis): CohortConditionRow[] {
   }));
 }
 
-/** Plain-data summary of an analysis (figures included) for the renderer. */
-export function summariseCohort(a: CohortAnalysis, sampleSheetPath: string, outDir: string): CohortSummary {
+/** Plain-data summary of an analysis (figures included: those given, else drawn here) for the renderer. */
+export function summariseCohort(
+  a: CohortAnalysis, sampleSheetPath: string, outDir: string, figures: readonly NamedFigure[] = cohortFigures(a),
+): CohortSummary {
   return {
     reportPath: join(outDir, 'report.html'), sampleSheetPath, reference: a.reference, level: a.options.level,
     referenceLambda: a.referenceLambda, conditions: conditionRows(a), stats: a.stats, shifts: a.shifts, dosageFit: a.dosageFits,
-    figures: cohortFigures(a).map((f) => ({ name: f.name, title: f.title, svg: f.svg })), warnings: [...a.warnings],
+    figures: figures.map((f) => ({ name: f.name, title: f.title, svg: f.svg })), warnings: [...a.warnings],
   };
 }
 
@@ -48,13 +51,7 @@ export function summariseCohort(a: CohortAnalysis, sampleSheetPath: string, outD
 export async function cohortSummaryFor(
   results: readonly EmbryoResult[], sampleSheetPath: string, reference: string | null, outDir: string,
 ): Promise<CohortSummary> {
-  let text: string;
-  try {
-    text = await fs.readFile(sampleSheetPath, 'utf8');
-  } catch (e) {
-    throw new CohortError(`${sampleSheetPath}: cannot read the sample sheet (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
-  }
-  const sheet = parseSampleSheet(text, basename(sampleSheetPath));
+  const sheet = await readSampleSheet(sampleSheetPath);
   const analysis = analyseCohort(results, sheet, { reference, normalisation: 'none', lambdaPosteriorEl: null });
   return summariseCohort(analysis, sampleSheetPath, outDir);
 }

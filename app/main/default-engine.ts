@@ -6,7 +6,7 @@ import type { AnalysisSettings } from '../../core/settings';
 import { defaultWorkerPath, runBatch, type BatchRunResult } from '../batch/run-batch';
 import { writeDemoDataSet } from '../batch/write-demo';
 import { openStackForAnalysis } from '../decode';
-import { cohortSummaryFor } from './cohort-summary';
+import { summariseCohort } from './cohort-summary';
 import type { AnalysisEngine, BatchRunOptions, SliceData, ViewData } from './engine';
 import { placeholderDetection } from './placeholder-detection';
 import { ApiFailure } from './result';
@@ -48,22 +48,18 @@ async function readSlice(path: string, label: string, z: number, c: number, t: n
   }
 }
 
-/** The cohort step's tables and figures for the window, or why they are missing. */
-async function cohortOutcome(r: BatchRunResult, sheet: string | null): Promise<{ cohort: CohortSummary | null; cohortError: string | null }> {
+/** The cohort step's tables and figures for the window (from the batch's one run of the step), or why they are missing. */
+function cohortOutcome(r: BatchRunResult, sheet: string | null): { cohort: CohortSummary | null; cohortError: string | null } {
   if (sheet === null || r.cancelled) return { cohort: null, cohortError: null };
-  if (r.cohortError !== null) return { cohort: null, cohortError: r.cohortError };
-  try {
-    return { cohort: await cohortSummaryFor(r.results, sheet, null, r.outDir), cohortError: null };
-  } catch (e) {
-    return { cohort: null, cohortError: (e instanceof Error ? e.message : String(e)).split(/\r?\n/)[0] };
-  }
+  if (r.cohortError !== null || r.cohortStep === null) return { cohort: null, cohortError: r.cohortError };
+  return { cohort: summariseCohort(r.cohortStep.analysis, sheet, r.outDir, r.cohortStep.figures), cohortError: null };
 }
 
 /** Run the batch engine (with the cohort step when there is a sample sheet) and keep what the renderer needs. */
 async function runBatchSummary(options: BatchRunOptions): Promise<BatchSummary> {
   const sheet = options.sampleSheetPath ?? null;
   const r = await runBatch({ ...options, doc: options.doc, cohort: sheet === null ? null : { sampleSheetPath: sheet, reference: null } });
-  const outcome = await cohortOutcome(r, sheet);
+  const outcome = cohortOutcome(r, sheet);
   return { runId: r.runId, outDir: r.outDir, ok: r.ok, failed: r.failed, cancelled: r.cancelled, results: r.results, ...outcome };
 }
 

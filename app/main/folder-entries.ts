@@ -2,7 +2,10 @@
 import { basename } from 'node:path';
 import type { FileEdits, FolderEntry, ProjectDoc } from '../../core/contract';
 import { pathForProjectKey } from '../project';
-import { listFolderStacks } from './list-stacks';
+import { listStackFiles } from '../batch/list-stacks';
+
+/** Most files listed; a folder beyond this is surely a mistake (a whole disk) and would stall the window. */
+export const MAX_LISTED_FILES = 50_000;
 
 /** True when the user has changed anything for this file. */
 export function hasEdits(edits: FileEdits | undefined): boolean {
@@ -11,7 +14,7 @@ export function hasEdits(edits: FileEdits | undefined): boolean {
 
 /** Entries for every stack in `folder`, plus project files that are missing from it (status 'error'). */
 export async function folderEntries(folder: string, project: ProjectDoc): Promise<FolderEntry[]> {
-  const keys = await listFolderStacks(folder);
+  const keys = (await listStackFiles(folder, [], [], MAX_LISTED_FILES)).map((f) => f.file);
   const present = new Set(keys);
   const entries: FolderEntry[] = keys.map((key) => ({
     path: pathForProjectKey(folder, key), name: key,

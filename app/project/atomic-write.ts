@@ -41,15 +41,28 @@ export async function writeFileAtomic(path: string, data: string | Uint8Array, o
   await syncDirectory(dirname(path));
 }
 
-/** Copy the current file (if any) to `<path>.bak`, itself atomically so a crash never leaves a torn backup. */
+/** Flush a file's contents to disk. */
+async function syncFile(path: string): Promise<void> {
+  const handle = await fs.open(path, 'r+');
+  try { await handle.sync(); } finally { await handle.close(); }
+}
+
+/** Copy the current file (if any) to `<path>.bak`, itself atomically (copy, fsync, rename) so a crash never leaves a
+ *  torn or empty backup. */
 async function backupExisting(path: string): Promise<void> {
   const bak = `${path}.bak`;
-  const tmpBak = `${bak}.${process.pid}.tmp`;
+  const tmpBak = join(dirname(path), `.${basename(bak)}.${process.pid}.${randomBytes(4).toString('hex')}.tmp`);
   try {
     await fs.copyFile(path, tmpBak);
   } catch (e) {
     if ((e as NodeJS.ErrnoException).code === 'ENOENT') return;
     throw e;
   }
-  await fs.rename(tmpBak, bak);
+  try {
+    await syncFile(tmpBak);
+    await fs.rename(tmpBak, bak);
+  } catch (e) {
+    await fs.rm(tmpBak, { force: true });
+    throw e;
+  }
 }

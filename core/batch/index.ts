@@ -12,10 +12,14 @@ export {
   EMBRYO_COLUMNS, BOUNDARY_COLUMNS, PROFILE_COLUMNS, LANDMARK_COLUMNS,
   embryoRow, embryosCsv, boundariesCsv, profilesCsv, landmarksCsv, summaryBoundary, embryoProfiles,
 } from './tables';
-export { resultsToJson, resultsFromJson, RESULTS_SCHEMA, RESULTS_VERSION } from './results-json';
+export { resultsToJson, resultsFromJson, reviveResult, jsonWithArrays, RESULTS_SCHEMA, RESULTS_VERSION } from './results-json';
+export {
+  JOURNAL_FILE_NAME, JOURNAL_SCHEMA, JOURNAL_VERSION, journalRunLine, journalFileLine, parseJournal, normalizeResult, settingsKeyText,
+  type JournalEntry, type JournalRunLine, type ParsedJournal,
+} from './journal';
+export { MAX_CELL_CHARS, clipMessage, collapseMessages, warningsCell, tidyMessages } from './messages';
 export {
   PROJECT_FILE_NAME, parseProjectDoc, projectKey, editsForFile, toHandEdits, settingsForFile,
 } from './project-edits';
 export { isStackFileName, isStackFolderName, sortStackPaths } from './stack-files';
-export { runRecordToJson, type RunRecord, type RunInput, type SoftwareVersions } from './run-record';
-export { errorResult } from './error-result';
+export { runRecordToJson, type RunRecord, type RunInput, type RunEndReason, type SoftwareVersions } from './run-record';

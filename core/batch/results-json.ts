@@ -8,7 +8,7 @@ export const RESULTS_VERSION = 1;
 /** Serialise results as `{ schema, version, results }` JSON text (pretty-printed, typed arrays as plain arrays). */
 export function resultsToJson(results: readonly EmbryoResult[]): string {
   const doc = { schema: RESULTS_SCHEMA, version: RESULTS_VERSION, results };
-  return `${JSON.stringify(doc, (_key, value: unknown) => (ArrayBuffer.isView(value) ? Array.from(value as Float64Array) : value), 1)}\n`;
+  return `${jsonWithArrays(doc, 1)}\n`;
 }
 
 function toFloat64(value: unknown, what: string): Float64Array {
@@ -28,10 +28,16 @@ function reviveFit(f: ExponentialFit, file: string): ExponentialFit {
   return { ...f, xEl: toFloat64(f.xEl, `fit xEl of ${file}`), residuals: toFloat64(f.residuals, `fit residuals of ${file}`) };
 }
 
-function reviveResult(raw: unknown, index: number): EmbryoResult {
+/** JSON text of values that may hold typed arrays (as plain arrays; NaN becomes null), `space` as in JSON.stringify. */
+export function jsonWithArrays(value: unknown, space?: number): string {
+  return JSON.stringify(value, (_key, v: unknown) => (ArrayBuffer.isView(v) ? Array.from(v as Float64Array) : v), space);
+}
+
+/** One parsed JSON result back into an EmbryoResult (arrays become Float64Array, null becomes NaN); `where` names it in errors. */
+export function reviveResult(raw: unknown, where: string): EmbryoResult {
   const r = raw as EmbryoResult;
   if (typeof raw !== 'object' || raw === null || typeof r.file !== 'string' || (r.status !== 'ok' && r.status !== 'error')) {
-    throw new Error(`results.json: entry ${index} is not an embryo result (needs "file" and "status")`);
+    throw new Error(`${where} is not an embryo result (needs "file" and "status")`);
   }
   return {
     ...r,
@@ -55,5 +61,5 @@ export function resultsFromJson(text: string): EmbryoResult[] {
   }
   if (doc.version !== RESULTS_VERSION) throw new Error(`results.json: unsupported version ${String(doc.version)} (expected ${RESULTS_VERSION})`);
   if (!Array.isArray(doc.results)) throw new Error('results.json: "results" is not an array');
-  return doc.results.map(reviveResult);
+  return doc.results.map((r, i) => reviveResult(r, `results.json: entry ${i}`));
 }

@@ -18,10 +18,14 @@ export interface RunInput {
   readonly error: string | null;
 }
 
+/** Why a run did not finish: stopped by Ctrl+C / SIGTERM / the app, killed (its launching process went away, or it
+ *  never got to write its final record), or failed (an error stopped it). */
+export type RunEndReason = 'cancelled' | 'killed' | 'failed';
+
 /** The run record written as run.json next to every batch output. */
 export interface RunRecord {
   readonly schema: 'eggline-run';
-  readonly version: 1;
+  readonly version: 2;
   readonly runId: string;
   readonly software: SoftwareVersions;
   /** ISO 8601 UTC times. */
@@ -36,6 +40,14 @@ export interface RunRecord {
   readonly jobs: number;
   readonly timeoutPerFileS: number;
   readonly cancelled: boolean;
+  /** True only when every input file has its row in the tables. */
+  readonly complete: boolean;
+  /** Why the run is not complete; null when it is. */
+  readonly reason: RunEndReason | null;
+  /** What `reason` means for the files in this folder, one line; null when complete. */
+  readonly note: string | null;
+  /** Files whose results were taken from the journal of an earlier run (--resume) instead of analysed again. */
+  readonly reused: number;
   readonly ok: number;
   readonly failed: number;
   readonly inputs: readonly RunInput[];

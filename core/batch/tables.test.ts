@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { EmbryoResult, Profile } from '../model';
 import { parseCsv } from './csv-parse';
-import { errorResult } from './error-result';
+import { errorResult } from '../model';
 import { resultsFromJson, resultsToJson } from './results-json';
 import { boundariesCsv, embryosCsv, EMBRYO_COLUMNS, landmarksCsv, profilesCsv, summaryBoundary } from './tables';
 
@@ -42,7 +42,7 @@ describe('output tables', () => {
       pixel_size_um: '0.5', anterior_y_px: '20', posterior_y_px: '22.5', axis_source: 'hand', lambda_um: '100',
       lambda_el: '0.2', fit_start_el: '0.1', fit_end_el: '0.6', boundary_el: '0.5', boundary_width_el: '0.02',
     });
-    expect(rows[2].slice(0, 4)).toEqual(['junk.tif', 'error', 'junk.tif: not a TIFF file (first bytes 00 00)', '']);
+    expect(rows[2].slice(0, 4)).toEqual(['junk.tif', 'error', 'junk.tif: not a TIFF file', '']);
     expect(rows[2].slice(4).every((c, i) => c === '' || EMBRYO_COLUMNS[i + 4] === 'pixel_size_source')).toBe(true);
   });
   it('summary boundary is the first channel, logistic preferred', () => {

@@ -1,6 +1,7 @@
 // The tidy CSV tables a batch writes: one row per observation, units in the column names.
 import type { Boundary, EmbryoResult, Profile } from '../model';
 import { toCsv, type CsvValue } from './csv-write';
+import { clipMessage, warningsCell } from './messages';
 
 /** Columns of embryos.csv, one row per input file. */
 export const EMBRYO_COLUMNS = [
@@ -34,7 +35,7 @@ export function embryoRow(r: EmbryoResult): CsvValue[] {
   const fit = r.gradientFit;
   const boundary = summaryBoundary(r);
   return [
-    r.file, r.status, r.error, r.warnings.join('; '), r.pixelSizeUm, r.pixelSizeSource, r.eggLengthUm, r.eggWidthUm,
+    r.file, r.status, r.error === null ? null : clipMessage(r.error), warningsCell(r.warnings), r.pixelSizeUm, r.pixelSizeSource, r.eggLengthUm, r.eggWidthUm,
     r.axis?.anterior.x, r.axis?.anterior.y, r.axis?.posterior.x, r.axis?.posterior.y, r.axis?.source,
     r.gradientChannel, fit?.lambdaUm, fit?.lambdaEl, fit?.lambdaSeUm, fit?.lambdaCiLowUm, fit?.lambdaCiHighUm,
     fit?.amplitude, fit?.background, fit?.r2, fit?.fitRangeEl[0], fit?.fitRangeEl[1],

@@ -1,4 +1,5 @@
-// Position of points relative to an AP axis. Image coordinates: x = column, y = row (y down), pixel centres at integers.
+// Position of points relative to an AP axis: the one implementation of axis math for the core and the window.
+// Image coordinates: x = column, y = row (y down), pixel centres at integers.
 import type { ApAxis, ImagePoint } from '../model';
 
 /** Where a point lies relative to the axis: along it (x/EL, px, µm) and across it (signed, left of A→P positive). */
@@ -14,9 +15,22 @@ export interface AxisPosition {
   readonly offAxisUm: number;
 }
 
+/** Distance between two image points in pixels. */
+export function distancePx(a: ImagePoint, b: ImagePoint): number {
+  return Math.hypot(b.x - a.x, b.y - a.y);
+}
+
 /** Axis length in pixels (anterior to posterior). */
 export function axisLengthPx(axis: ApAxis): number {
-  return Math.hypot(axis.posterior.x - axis.anterior.x, axis.posterior.y - axis.anterior.y);
+  return distancePx(axis.anterior, axis.posterior);
+}
+
+/** Unit normal to the left of anterior→posterior (image coordinates, y down); (0, 0) for a zero-length axis. */
+export function axisLeftNormal(axis: ApAxis): ImagePoint {
+  const lengthPx = axisLengthPx(axis);
+  if (lengthPx === 0) return { x: 0, y: 0 };
+  // With y pointing down, the left of a walker heading (ux, uy) is (uy, −ux): heading +x, left is up (−y).
+  return { x: (axis.posterior.y - axis.anterior.y) / lengthPx, y: -((axis.posterior.x - axis.anterior.x) / lengthPx) };
 }
 
 /** Unit vector from anterior to posterior, and the unit normal pointing to the left of it (image coordinates). */
@@ -25,7 +39,6 @@ export function axisFrame(axis: ApAxis): { ux: number; uy: number; nx: number; n
   if (!(lengthPx > 0)) throw new Error('the AP axis has zero length (anterior and posterior are the same point)');
   const ux = (axis.posterior.x - axis.anterior.x) / lengthPx;
   const uy = (axis.posterior.y - axis.anterior.y) / lengthPx;
-  // With y pointing down, the left of a walker heading (ux, uy) is (uy, −ux): heading +x, left is up (−y).
   return { ux, uy, nx: uy, ny: -ux, lengthPx };
 }
 
@@ -40,11 +53,17 @@ export function projectPointOntoAxis(point: ImagePoint, axis: ApAxis, pixelSizeU
   return { xEl: xPx / f.lengthPx, xPx, xUm: xPx * um, offAxisPx, offAxisUm: offAxisPx * um };
 }
 
-/** The image point at fraction xEl along the axis and offAxisPx to the left of it. */
+/** x/EL of the foot of the perpendicular from `point` (not clamped); 0 for a zero-length axis, for a pointer readout
+ *  while a handle is dragged onto the other. */
+export function axisFraction(axis: ApAxis, point: ImagePoint): number {
+  return axisLengthPx(axis) > 0 ? projectPointOntoAxis(point, axis, null).xEl : 0;
+}
+
+/** The image point at fraction xEl along the axis and offAxisPx to its left (the anterior pole for a zero-length axis). */
 export function pointOnAxis(axis: ApAxis, xEl: number, offAxisPx = 0): ImagePoint {
-  const f = axisFrame(axis);
+  const n = axisLeftNormal(axis);
   return {
-    x: axis.anterior.x + xEl * f.lengthPx * f.ux + offAxisPx * f.nx,
-    y: axis.anterior.y + xEl * f.lengthPx * f.uy + offAxisPx * f.ny,
+    x: axis.anterior.x + xEl * (axis.posterior.x - axis.anterior.x) + offAxisPx * n.x,
+    y: axis.anterior.y + xEl * (axis.posterior.y - axis.anterior.y) + offAxisPx * n.y,
   };
 }

@@ -4,7 +4,7 @@ import { axisFrame, pointOnAxis, projectPointOntoAxis } from './axis-math';
 import { principalAxis } from './principal-axis';
 import { maskContours, maskOutline } from './outline';
 import { polesFromOutline } from './poles';
-import { straightenEmbryo } from './straighten';
+import { straightenPlane } from './straighten';
 import { chooseAnterior } from './orientation';
 
 const mask = (width: number, rows: string[]) => ({
@@ -78,16 +78,16 @@ describe('outline and poles', () => {
   });
 });
 
-describe('straightenEmbryo', () => {
+describe('straightenPlane', () => {
   it('resamples along the axis, anterior left, left side of A→P on top', () => {
     // Demo data: a plane whose value is 10·x + y, so samples reveal their position exactly.
     const w = 8;
     const h = 6;
     const plane = { width: w, height: h, data: Float32Array.from({ length: w * h }, (_, i) => 10 * (i % w) + Math.floor(i / w)) };
-    const s = straightenEmbryo(plane, axis(1, 2, 5, 2), 1, 5);
+    const s = straightenPlane(plane, axis(1, 2, 5, 2), 1, 5);
     expect([s.width, s.height]).toEqual([5, 3]);
     expect(Array.from(s.data)).toEqual([11, 21, 31, 41, 51, 12, 22, 32, 42, 52, 13, 23, 33, 43, 53]);
-    expect(() => straightenEmbryo(plane, axis(1, 2, 5, 2), 1, 1)).toThrow('samplesAlong must be an integer ≥ 2, got 1');
+    expect(() => straightenPlane(plane, axis(1, 2, 5, 2), 1, 1)).toThrow('samplesAlong must be an integer ≥ 2, got 1');
   });
 });
 

@@ -232,3 +232,5 @@ export interface Detection {
   readonly eggWidthUm: number;
   readonly warnings: readonly string[];
 }
+
+export { errorResult, oneLine } from './error-result';

@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import type { PlaneSource, StackInfo } from '../model';
 import { DEFAULT_SETTINGS } from '../settings';
 import { makeSyntheticEmbryo, syntheticPlaneSource, syntheticStackInfo } from '../synth';
-import { analyzeStack, errorResult } from './analyze';
+import { errorResult } from '../model';
+import { analyzeStack } from './analyze';
 
 // Demo data: a small synthetic embryo (240×160 px at 3 µm/px, 2 slices).
 const embryo = makeSyntheticEmbryo({ widthPx: 240, heightPx: 160, sizeZ: 2, pixelSizeUm: 3, angleDeg: 200 }, 11);
@@ -56,5 +57,7 @@ describe('analyzeStack', () => {
 
   it('errorResult keeps only the first line', () => {
     expect(errorResult('f.tif', 'one\ntwo').error).toBe('f.tif: one');
+    expect(errorResult('f.tif', 'f.tif: bad').error).toBe('f.tif: bad');
+    expect(errorResult('f.tif', ' \n').error).toBe('f.tif: unknown error');
   });
 });

@@ -1,5 +1,5 @@
 // One embryo end to end: project → detect → (hand axis) → prepare → measure, as an EmbryoResult that never throws.
-import type { EmbryoResult, HandEdits, PlaneSource, StackInfo } from '../model';
+import { errorResult, type EmbryoResult, type HandEdits, type PlaneSource, type StackInfo } from '../model';
 import type { AnalysisSettings } from '../settings';
 import { projectStack } from '../image';
 import { detectEmbryo } from '../geometry';
@@ -11,16 +11,6 @@ export interface AnalyzeOptions {
   readonly fileLabel: string;
   /** Hand axis and landmarks from the project; the hand axis replaces the automatic one. */
   readonly handEdits?: HandEdits | null;
-}
-
-/** An error result naming the file, with a one-line message. */
-export function errorResult(file: string, message: string, warnings: readonly string[] = []): EmbryoResult {
-  const line = message.split('\n')[0].trim() || 'unknown error';
-  return {
-    file, status: 'error', error: line.startsWith(file) ? line : `${file}: ${line}`, warnings, pixelSizeUm: null,
-    pixelSizeSource: 'unknown', eggLengthUm: null, eggWidthUm: null, axis: null, gradientChannel: null,
-    gradientProfile: null, gradientFit: null, boundaryProfiles: [], boundaries: [], landmarks: [], backgrounds: [],
-  };
 }
 
 /** Check that the stack has something to analyse (exact messages). */

@@ -1,9 +1,9 @@
 // Public surface of core/pipeline: the app, the workers and the command line import analysis only from here.
-export { analyzeStack, errorResult } from './analyze';
+export { analyzeStack } from './analyze';
 export type { AnalyzeOptions } from './analyze';
 export { projectStack, createProjector } from '../image';
 export type { Projector } from '../image';
-export { detectEmbryo, straightenEmbryo, projectPointOntoAxis, pointOnAxis, axisLengthPx } from '../geometry';
+export { detectEmbryo, straightenPlane, projectPointOntoAxis, pointOnAxis, axisLengthPx } from '../geometry';
 export type { AxisPosition, EmbryoDetection } from '../geometry';
 export { prepareSampling, measureEmbryo, sampleBandOutline } from '../profile';
 export type { Measurement, PreparedSampling } from '../profile';

@@ -5,7 +5,7 @@ import { useMemo } from 'react';
 import type { BatchSummary, CohortConditionRow, CohortSummary } from '../../core/contract';
 import { quantityLabel, slopeRatio, type DosageFit, type ShiftRow } from '../../core/cohort';
 import { cohortProfilesFigure, lambdaByConditionFigure, plainNumber, sigFig, valueWithCi } from '../../core/figures';
-import { lambdaValuesEl, meanScaledProfile } from '../export/cohortSeries';
+import { lambdaSummaryEl, lambdaValuesEl, meanScaledProfile } from '../export/cohortSeries';
 import { fmt } from '../ui/format';
 
 /** "value [lo, hi]" at the interval's precision; the value alone when there is no interval (n = 1); "n/a" without a value. */
@@ -104,16 +104,15 @@ function ConditionsView({ c, outDir }: { c: CohortSummary; outDir: string }) {
   );
 }
 
-/** The whole batch as one group (no sample sheet): mean scaled profile and λ per embryo. */
+/** The whole batch as one group (no sample sheet): mean scaled profile and λ per embryo, computed as the report does. */
 function SingleGroupView({ summary }: { summary: BatchSummary }) {
   const figs = useMemo(() => {
     const ok = summary.results.filter((r) => r.status === 'ok');
     const prof = meanScaledProfile(ok);
     const lam = lambdaValuesEl(ok);
-    const mean = lam.reduce((a, v) => a + v, 0) / (lam.length || 1);
-    const sd = Math.sqrt(lam.reduce((a, v) => a + (v - mean) ** 2, 0) / Math.max(1, lam.length - 1));
+    const { mean, sd } = lambdaSummaryEl(ok);
     return {
-      profiles: prof === null ? null : cohortProfilesFigure([{ label: `this batch (n=${prof.count})`, ...prof }], { widthPx: 560, heightPx: 340, yLabel: 'intensity, min–max scaled to [0, 1]' }),
+      profiles: prof === null ? null : cohortProfilesFigure([{ label: `this batch (n=${prof.embryoCount})`, ...prof }], { widthPx: 560, heightPx: 340, yLabel: 'intensity, min–max scaled to [0, 1]' }),
       lambda: lam.length === 0 ? null : lambdaByConditionFigure([{ label: 'this batch', values: lam, mean, ciLow: NaN, ciHigh: NaN }], { widthPx: 460, heightPx: 340, unit: 'EL', title: 'Decay length λ per embryo (bar: mean)' }),
       mean, sd, n: lam.length,
     };

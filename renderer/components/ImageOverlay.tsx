@@ -1,6 +1,7 @@
 // Vector overlays on the image, in screen coordinates: outline, sampled band, AP axis with handles, boundaries, landmarks.
 import type { ApAxis, ImagePoint } from '../../core/model';
-import { axisLeftNormal, imagePt, imageToScreen, pointAtFraction } from '../geometry';
+import { pointOnAxis } from '../../core/geometry';
+import { imagePt, imageToScreen } from '../geometry';
 import type { ViewTransform } from '../geometry';
 import type { LiveMeasurement } from '../live';
 import { fixed } from '../ui/format';
@@ -46,16 +47,14 @@ const pts = (v: ViewTransform, ps: readonly ImagePoint[]) => ps.map((p) => { con
 
 /** A line across the embryo, perpendicular to the axis at x/EL. */
 function crossLine(axis: ApAxis, xEl: number, halfPx: number): [ImagePoint, ImagePoint] {
-  const c = pointAtFraction(axis.anterior, axis.posterior, xEl);
-  const n = axisLeftNormal(axis.anterior, axis.posterior);
-  return [{ x: c.x + halfPx * n.x, y: c.y + halfPx * n.y }, { x: c.x - halfPx * n.x, y: c.y - halfPx * n.y }];
+  return [pointOnAxis(axis, xEl, halfPx), pointOnAxis(axis, xEl, -halfPx)];
 }
 
 /** The axis, its fit-range segment and the labelled A/P handles. */
 function AxisLayer({ view, axis, fitRangeEl }: { view: ViewTransform; axis: ApAxis; fitRangeEl: readonly [number, number] }) {
   const a = toS(view, axis.anterior), p = toS(view, axis.posterior);
-  const f0 = toS(view, pointAtFraction(axis.anterior, axis.posterior, fitRangeEl[0]));
-  const f1 = toS(view, pointAtFraction(axis.anterior, axis.posterior, fitRangeEl[1]));
+  const f0 = toS(view, pointOnAxis(axis, fitRangeEl[0]));
+  const f1 = toS(view, pointOnAxis(axis, fitRangeEl[1]));
   return (
     <g className="axis-layer">
       <line x1={a.x} y1={a.y} x2={p.x} y2={p.y} className="axis-line" />

@@ -2,7 +2,8 @@
 import { useEffect, useRef, useState } from 'react';
 import type { Dispatch } from 'react';
 import type { ApAxis, ImagePoint, Plane } from '../../core/model';
-import { axisFraction, chooseScaleBar, fitToWindow, pixelUnder, screenPt, screenToImage, zoomAt } from '../geometry';
+import { axisFraction } from '../../core/geometry';
+import { chooseScaleBar, fitToWindow, pixelUnder, screenPt, screenToImage, zoomAt } from '../geometry';
 import type { ScreenPt } from '../geometry';
 import type { LiveMeasurement } from '../live';
 import type { EditorAction, EditorState } from '../state';
@@ -117,7 +118,7 @@ function Readout({ cursor, state, planes, names, axis, pixelSizeUm }: { cursor: 
   const px = pixelUnder(img, first.width, first.height);
   if (px === null) return null;
   const k = px.row * first.width + px.col;
-  const xEl = axis === null ? null : axisFraction(axis.anterior, axis.posterior, img);
+  const xEl = axis === null ? null : axisFraction(axis, img);
   const um = pixelSizeUm === null ? '' : ` (${fixed(px.col * pixelSizeUm, 1)}, ${fixed(px.row * pixelSizeUm, 1)} µm)`;
   return (
     <div className="readout" data-testid="readout">

@@ -1,29 +1,19 @@
-// A simple cohort summary of one batch: mean min–max-scaled profile across embryos and the λ values.
+// The whole batch as one group (no sample sheet): the same mean profile and statistics as the report's, from
+// core/cohort (min–max scaled profiles on the report's x/EL grid, SD across embryos with n − 1).
+import { checkCohortOptions, conditionProfile, describeSample, type ConditionProfile, type SampleSummary } from '../../core/cohort';
 import type { EmbryoResult } from '../../core/model';
 
-/** Mean ± SD (population) across embryos per bin of min–max-scaled gradient profiles; embryos with a different bin count are left out. */
-export function meanScaledProfile(results: readonly EmbryoResult[]): { xEl: Float64Array; mean: Float64Array; sd: Float64Array; count: number } | null {
-  const profiles = results.map((r) => r.gradientProfile).filter((p): p is NonNullable<typeof p> => p !== null);
-  const first = profiles[0];
-  if (first === undefined) return null;
-  const same = profiles.filter((p) => p.xEl.length === first.xEl.length);
-  const scaled = same.map((p) => {
-    const v = Array.from(p.mean).filter(Number.isFinite);
-    const lo = Math.min(...v), hi = Math.max(...v);
-    return Array.from(p.mean, (m) => (hi > lo ? (m - lo) / (hi - lo) : Number.NaN));
-  });
-  const n = first.xEl.length;
-  const mean = new Float64Array(n), sd = new Float64Array(n);
-  for (let b = 0; b < n; b += 1) {
-    const vals = scaled.map((s) => s[b]).filter(Number.isFinite);
-    const m = vals.reduce((a, x) => a + x, 0) / vals.length;
-    mean[b] = vals.length > 0 ? m : Number.NaN;
-    sd[b] = vals.length > 0 ? Math.sqrt(vals.reduce((a, x) => a + (x - m) ** 2, 0) / vals.length) : Number.NaN;
-  }
-  return { xEl: Float64Array.from(first.xEl), mean, sd, count: same.length };
+/** Mean ± SD (sample, n − 1) across embryos of min–max-scaled gradient profiles, or null without profiles. */
+export function meanScaledProfile(results: readonly EmbryoResult[]): ConditionProfile | null {
+  return conditionProfile(results, { name: 'this batch', dosage: null, factor: null }, checkCohortOptions({ normalisation: 'minmax' })).profile;
 }
 
 /** λ (x/EL) of every embryo with a fit. */
 export function lambdaValuesEl(results: readonly EmbryoResult[]): number[] {
   return results.map((r) => r.gradientFit?.lambdaEl ?? Number.NaN).filter(Number.isFinite);
+}
+
+/** n, mean and sample SD (n − 1) of λ (x/EL), as the report's per-condition table. */
+export function lambdaSummaryEl(results: readonly EmbryoResult[]): SampleSummary {
+  return describeSample(lambdaValuesEl(results));
 }

@@ -2,11 +2,9 @@
 // file and settings, measureEmbryo per edit), plus the straightened strip for the view.
 import type { LoadedStack } from '../../core/contract';
 import type { ApAxis, Boundary, ExponentialFit, ImagePoint, Landmark, LandmarkPosition, Plane, Profile } from '../../core/model';
-import { measureEmbryo, prepareSampling, sampleBandOutline } from '../../core/pipeline';
+import { axisLengthPx, measureEmbryo, prepareSampling, sampleBandOutline, straightenPlane } from '../../core/pipeline';
 import type { PreparedSampling } from '../../core/pipeline';
 import type { AnalysisSettings } from '../../core/settings';
-import { distancePx } from '../geometry';
-import { straightenPlane } from './straighten';
 
 /** Per-file values that do not change while the axis, landmarks or fit range are edited. */
 export interface LivePrepared {
@@ -64,7 +62,7 @@ function sampledRows(band: Plane, settings: AnalysisSettings, rowStepUm: number)
 export function measureLive(prep: LivePrepared, axis: ApAxis, settings: AnalysisSettings, landmarks: readonly Landmark[], fitRangeEl: readonly [number, number]): LiveMeasurement {
   const s = { ...settings, fitRangeEl };
   const m = measureEmbryo(prep.sampling, axis, s, landmarks);
-  const lengthPx = Math.max(1, distancePx(axis.anterior, axis.posterior));
+  const lengthPx = Math.max(1, axisLengthPx(axis));
   const pxUm = prep.sampling.pixelSizeUm ?? 1;
   const samplesAlong = Math.max(2, Math.min(MAX_STRIP_SAMPLES, Math.round(lengthPx)));
   const halfWidthPx = (prep.stack.detection.eggWidthUm / pxUm) * 0.6;

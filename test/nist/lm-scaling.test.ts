@@ -1,4 +1,4 @@
-// Source: NIST StRD BoxBOD (certified values in ../../../shared/reference/nist-strd/BoxBOD.dat) and the note in
+// Source: NIST StRD BoxBOD (certified values in data/BoxBOD.dat) and the note in
 // the README beside it: from Start 1 (b1 = 1, b2 = 1) LM with Jacobian column scaling stalls near (172.5, large
 // b2) with RSS ≈ 9.77E+03, while unit scaling reaches the certified solution. This is why fitNonlinear runs both.
 import { describe, expect, it } from 'vitest';

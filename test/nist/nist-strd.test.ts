@@ -1,5 +1,5 @@
-// Source: NIST StRD nonlinear regression certified values (files in ../../../shared/reference/nist-strd,
-// read at test time). Pass rule from the task: parameters to ≥ 6 significant digits (relative 1e-6),
+// Source: NIST StRD nonlinear regression certified values (files in data/, a copy of the NIST files,
+// read at test time). Pass rule: parameters to ≥ 6 significant digits (relative 1e-6),
 // certified standard deviations to ≥ 4 (relative 1e-4), from both NIST starting points.
 import { describe, expect, it } from 'vitest';
 import { fitNonlinear } from '../../core/fit';

@@ -1,4 +1,4 @@
-// Reader for the NIST StRD nonlinear regression .dat layout (see ../../../shared/reference/nist-strd/README.md).
+// Reader for the NIST StRD nonlinear regression .dat layout (see data/README.md).
 import { readFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -16,8 +16,8 @@ export interface StrdProblem {
   readonly y: Float64Array;
 }
 
-/** Folder holding the reference files: the `shared/` folder beside the repository. */
-export const STRD_DIR = resolve(dirname(fileURLToPath(import.meta.url)), '../../../shared/reference/nist-strd');
+/** Folder holding the reference files: copies of the NIST StRD files kept in the repository (see data/README.md). */
+export const STRD_DIR = resolve(dirname(fileURLToPath(import.meta.url)), 'data');
 
 function labelledNumber(lines: string[], label: string): number {
   const line = lines.find((l) => l.startsWith(label));
