@@ -74,6 +74,8 @@ export interface StackInfo {
   readonly pixelSize: PixelSize;
   /** Human-readable compression of the first plane, e.g. "LZW + horizontal predictor". */
   readonly compression: string;
+  /** TIFF Compression code of the first plane (TIFF 6.0 §3; 34925 LZMA, 50000 Zstandard); absent for other formats. */
+  readonly compressionCode?: number;
   /** IFD index of plane (z, c, t): planeIfd[(t * sizeC + c) * sizeZ + z]. */
   readonly planeIfd: Int32Array;
   /** Number of IFDs in the main chain. */
