@@ -54,6 +54,15 @@ export interface PixelSize {
   readonly source: PixelSizeSource;
 }
 
+/** Where the time of each time point came from; always reported next to the values. */
+export type TimeSource = 'ome-plane' | 'ome-increment' | 'imagej' | 'user' | 'unknown';
+
+/** Time of each time point in seconds from the first, with its provenance; timesS is null when unknown. */
+export interface TimeAxis {
+  readonly timesS: Float64Array | null;
+  readonly source: TimeSource;
+}
+
 /** The six OME DimensionOrder values. */
 export type DimensionOrder = 'XYZCT' | 'XYZTC' | 'XYCTZ' | 'XYCZT' | 'XYTCZ' | 'XYTZC';
 
@@ -81,6 +90,8 @@ export interface StackInfo {
   /** Raw ImageDescription of IFD 0 (OME-XML or other text), or null. */
   readonly description: string | null;
   readonly warnings: readonly string[];
+  /** Time of each time point (length sizeT) when the file says; absent or timesS null = unknown. */
+  readonly time?: TimeAxis;
 }
 
 /** Z projection methods. 'slice' takes one chosen plane. */
