@@ -83,6 +83,8 @@ export interface StackInfo {
   readonly pixelSize: PixelSize;
   /** Human-readable compression of the first plane, e.g. "LZW + horizontal predictor". */
   readonly compression: string;
+  /** TIFF Compression code of the first plane (TIFF 6.0 §3; 34925 LZMA, 50000 Zstandard); absent for other formats. */
+  readonly compressionCode?: number;
   /** IFD index of plane (z, c, t): planeIfd[(t * sizeC + c) * sizeZ + z]. */
   readonly planeIfd: Int32Array;
   /** Number of IFDs in the main chain. */
@@ -130,6 +132,16 @@ export interface ExponentialFit {
   readonly lambdaCiHighUm: number;
   readonly lambdaEl: number;
   readonly lambdaSeEl: number;
+  /** Model-based SE of λ (µm): s²·(JᵀWJ)⁻¹ with s² from the residuals, errors independent between bins. */
+  readonly lambdaSeModelUm: number;
+  /** SE of λ (µm) allowing first-order autoregressive correlation of the residuals along x; NaN if not computable. */
+  readonly lambdaSeSerialUm: number;
+  /** Which of the two gave lambdaSeUm and the interval (the wider). */
+  readonly lambdaSeSource: 'model' | 'serial';
+  /** Lag-1 correlation of the (weighted) residuals along x. */
+  readonly residualLag1: number;
+  /** Whether bins were weighted by their inverse variance (n/SD²). */
+  readonly weighted: boolean;
   readonly background: number;
   readonly backgroundSe: number;
   readonly r2: number;
