@@ -54,6 +54,15 @@ export interface PixelSize {
   readonly source: PixelSizeSource;
 }
 
+/** Where the time of each time point came from; always reported next to the values. */
+export type TimeSource = 'ome-plane' | 'ome-increment' | 'imagej' | 'user' | 'unknown';
+
+/** Time of each time point in seconds from the first, with its provenance; timesS is null when unknown. */
+export interface TimeAxis {
+  readonly timesS: Float64Array | null;
+  readonly source: TimeSource;
+}
+
 /** The six OME DimensionOrder values. */
 export type DimensionOrder = 'XYZCT' | 'XYZTC' | 'XYCTZ' | 'XYCZT' | 'XYTCZ' | 'XYTZC';
 
@@ -83,6 +92,8 @@ export interface StackInfo {
   /** Raw ImageDescription of IFD 0 (OME-XML or other text), or null. */
   readonly description: string | null;
   readonly warnings: readonly string[];
+  /** Time of each time point (length sizeT) when the file says; absent or timesS null = unknown. */
+  readonly time?: TimeAxis;
 }
 
 /** Z projection methods. 'slice' takes one chosen plane. */
@@ -121,6 +132,16 @@ export interface ExponentialFit {
   readonly lambdaCiHighUm: number;
   readonly lambdaEl: number;
   readonly lambdaSeEl: number;
+  /** Model-based SE of λ (µm): s²·(JᵀWJ)⁻¹ with s² from the residuals, errors independent between bins. */
+  readonly lambdaSeModelUm: number;
+  /** SE of λ (µm) allowing first-order autoregressive correlation of the residuals along x; NaN if not computable. */
+  readonly lambdaSeSerialUm: number;
+  /** Which of the two gave lambdaSeUm and the interval (the wider). */
+  readonly lambdaSeSource: 'model' | 'serial';
+  /** Lag-1 correlation of the (weighted) residuals along x. */
+  readonly residualLag1: number;
+  /** Whether bins were weighted by their inverse variance (n/SD²). */
+  readonly weighted: boolean;
   readonly background: number;
   readonly backgroundSe: number;
   readonly r2: number;
