@@ -5,8 +5,9 @@ export const MAIN_HELP = `eggline — measure morphogen gradients along the AP a
 
 Usage:
   eggline batch <folder> --out <dir> [options]   analyse every stack in a folder, write tables
+  eggline merge <dir> [--samples <csv>]          combine the parts of a split batch (--shard, --slurm)
   eggline cohort <results-dir> --samples <csv>   compare conditions of a finished batch
-  eggline inspect <file>                         show what a TIFF / OME-TIFF file holds
+  eggline inspect <file>                         show what a TIFF / OME-TIFF file or OME-Zarr folder holds
   eggline demo <dir>                             write a synthetic demo data set to try things on
   eggline --version                              print the version
 
@@ -16,9 +17,10 @@ Run "eggline <command> --help" for the options of a command.
 /** Help for the batch command. */
 export const BATCH_HELP = `Usage: eggline batch <folder> --out <dir> [options]
 
-Analyses every .tif/.tiff/.ome.tif(f)/.btf/.tf8/.tf2 file in <folder> and its subfolders (sorted by path;
-hidden files skipped) and writes embryos.csv, boundaries.csv, profiles.csv, landmarks.csv, results.json and
-run.json to <dir>. Nothing is ever written into <folder>; <dir> must not be <folder> or inside it.
+Analyses every .tif/.tiff/.ome.tif(f)/.btf/.tf8/.tf2 file and every .zarr/.ome.zarr folder (OME-Zarr, read
+as one stack) in <folder> and its subfolders (sorted by path; hidden files skipped) and writes embryos.csv,
+boundaries.csv, profiles.csv, landmarks.csv, results.json and run.json to <dir>. Nothing is ever written
+into <folder>; <dir> must not be <folder> or inside it.
 
 Options:
   --out DIR                   output folder (created if missing)                       [required]
@@ -37,6 +39,9 @@ Options:
   --samples CSV               sample sheet (file,condition[,dosage]); runs the cohort step after
   --reference COND            reference condition for the cohort step (needs --samples)
   --file-timeout S            give up on one file after S seconds                       [900]
+  --max-memory SIZE           memory one file's analysis may use (512M, 4G, …); a file estimated to
+                              need more is refused, a worker that uses more is stopped; either way
+                              that file gets an error row     [3/4 of memory / jobs, 1G to 8G]
   --resume                    reuse the results journal.jsonl in <dir> holds for files whose bytes
                               (SHA-256) and settings are unchanged; analyse the rest
   -h, --help                  show this help
@@ -45,7 +50,35 @@ While it runs, every finished file is appended to <dir>/journal.jsonl; the table
 Ctrl+C or SIGTERM stops cleanly (tables of the finished files, run.json with "complete": false); a second
 Ctrl+C quits at once. Either way, --resume finishes the run.
 
+Splitting a batch (a cluster, or several machines sharing a file system):
+  --shard K/N                 analyse only part K of N (files split by size, the same on every machine);
+                              writes to <dir>/parts/K-of-N; combine the parts with "eggline merge <dir>"
+  --slurm N                   analyse nothing: write <dir>/eggline-array.sbatch (N tasks, one part each)
+                              and <dir>/eggline-merge.sbatch, and print the two commands that submit them
+  --slurm-options "…"         sbatch options for both scripts (partition, account, time limit, …),
+                              e.g. "--partition=long --time=04:00:00"; --cpus-per-task or --mem here
+                              replace the ones Eggline sets
+  With --slurm, --jobs sets the cores per task [2]; --samples and --reference go to the merge job.
+
 Exit status: 0 all files analysed, 1 some files failed or the run stopped early, 2 usage error.
+`;
+
+/** Help for the merge command. */
+export const MERGE_HELP = `Usage: eggline merge <dir> [options]
+
+Combines the parts of a split batch (<dir>/parts/K-of-N, written by "eggline batch … --out <dir> --shard K/N")
+into <dir>: embryos.csv, boundaries.csv, profiles.csv, landmarks.csv and results.json with the rows in the
+order of a one-machine run, and a run.json listing every input. Refuses (exit 2) a missing or unfinished part,
+a part present twice, and parts made with different settings, hand edits, Eggline versions or input lists.
+
+Options:
+  --samples CSV               sample sheet (file,condition[,dosage]); runs the cohort step after the merge
+  --reference COND            reference condition for the cohort step (needs --samples)
+  --allow-missing             merge the parts that are there; run.json lists the files without a row
+  -h, --help                  show this help
+
+Exit status: 0 merged, every file analysed; 1 merged, but some files failed or are missing, or the cohort
+step failed; 2 usage error or merge refused.
 `;
 
 /** Help for the inspect command. */
@@ -53,6 +86,8 @@ export const INSPECT_HELP = `Usage: eggline inspect <file>
 
 Prints what the file's tags say: format, dimensions, channels, pixel size and where it came from,
 sample type, compression and which IFD holds each plane. Pixels are not decoded.
+For an OME-Zarr folder: the NGFF and Zarr versions, axes with their units, channels, pixel size, z and
+time steps, sample type, chunk shape and codecs of the full-resolution array.
 `;
 
 /** Help for the demo command. */
