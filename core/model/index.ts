@@ -44,7 +44,7 @@ export interface Mask {
 }
 
 /** Where a pixel size came from; always reported next to the value. */
-export type PixelSizeSource = 'ome' | 'tiff-resolution' | 'user' | 'unknown';
+export type PixelSizeSource = 'ome' | 'ome-zarr' | 'tiff-resolution' | 'user' | 'unknown';
 
 /** Pixel size in micrometres per pixel, with its provenance. */
 export interface PixelSize {
