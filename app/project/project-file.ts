@@ -48,13 +48,20 @@ export async function loadProject(projectPath: string): Promise<ProjectDoc> {
     if (e instanceof ProjectFormatError) throw new ProjectFormatError(`${name}: ${e.message}`);
     throw e;
   }
-  const home = dirname(resolve(projectPath));
-  const folder = doc.folder === null ? null : resolve(home, doc.folder);
+  const base = dirname(resolve(projectPath));
+  const folder = doc.folder === null ? null : resolve(base, doc.folder);
   // The folder grants reading every file under it in the window: only the project's own folder may be named.
-  if (folder !== null && folder !== home) {
+  if (folder !== null && folder !== base) {
     throw new ProjectFormatError(`${name}: its folder must be the folder the project file is in (".") but is ${JSON.stringify(doc.folder)}`);
   }
-  return { ...doc, folder };
+  return doc.batchOutDir === null || doc.batchOutDir === undefined ? { ...doc, folder } : { ...doc, folder, batchOutDir: resolve(base, doc.batchOutDir) };
+}
+
+/** A folder as stored in the project file: relative to the project file's folder (absolute on another drive). */
+function relativeToProject(projectPath: string, dir: string | null): string | null {
+  if (dir === null) return null;
+  const rel = toPortablePath(relative(dirname(resolve(projectPath)), resolve(dir)) || '.');
+  return isAbsolute(rel) ? resolve(dir) : rel;
 }
 
 /** Temporary files an interrupted save of `name` leaves beside it (the atomic writer's `.<name>.<pid>.<hex>.tmp`,
@@ -120,7 +127,7 @@ export function serializeProject(projectPath: string, doc: ProjectDoc): string {
   }
   const folderRel = folderAbs === null ? null : toPortablePath(relative(dirname(resolve(projectPath)), folderAbs) || '.');
   const folder = folderRel !== null && isAbsolute(folderRel) ? folderAbs : folderRel;
-  return `${JSON.stringify({ ...checked, folder, files }, null, 2)}\n`;
+  return `${JSON.stringify({ ...checked, folder, files, batchOutDir: relativeToProject(projectPath, checked.batchOutDir ?? null) ?? undefined }, null, 2)}\n`;
 }
 
 /** Validate and save a project atomically, keeping the previous version as `<path>.bak`. */

@@ -4,3 +4,4 @@ export { openStackFile, readStackInfoFromFile, type OpenStackOptions } from './o
 export { inflateChunk, NODE_CHUNK_CODECS } from './node-codecs';
 export { openZarrFolderStore, isFolder } from './zarr-folder-store';
 export { openRegularFile, specialFileKind } from './open-regular';
+export { inflateZarrChunk } from './zarr-inflate';
