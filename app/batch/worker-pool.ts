@@ -3,7 +3,7 @@
 import { Worker } from 'node:worker_threads';
 import { errorResult } from '../../core/model';
 import type { EmbryoResult } from '../../core/model';
-import type { BatchTask, WorkerReply } from './task';
+import type { BatchTask, InputDigest, WorkerReply } from './task';
 
 /** How the pool runs. */
 export interface PoolOptions {
@@ -17,7 +17,8 @@ export interface PoolOptions {
   /** Data handed to each worker at start (e.g. libvips threads per worker). */
   readonly workerData?: unknown;
   readonly onStart?: (task: BatchTask) => void;
-  readonly onResult?: (task: BatchTask, result: EmbryoResult) => void;
+  /** `input` is the file's digest when the worker computed it from the bytes it decoded. */
+  readonly onResult?: (task: BatchTask, result: EmbryoResult, input?: InputDigest | null) => void;
   /** Memory reports from workers (bytes), sent after each file. */
   readonly onMemory?: (report: Extract<WorkerReply, { type: 'memory' }>) => void;
 }
@@ -48,7 +49,7 @@ export function runPool(tasks: readonly BatchTask[], opts: PoolOptions): Promise
       resolveAll(results);
     };
     const onAbort = (): void => finish();
-    const settle = (slot: { task: BatchTask | null; timer: NodeJS.Timeout | null }, result: EmbryoResult): void => {
+    const settle = (slot: { task: BatchTask | null; timer: NodeJS.Timeout | null }, result: EmbryoResult, input: InputDigest | null = null): void => {
       const task = slot.task;
       if (!task || finished) return;
       slot.task = null;
@@ -56,7 +57,7 @@ export function runPool(tasks: readonly BatchTask[], opts: PoolOptions): Promise
       slot.timer = null;
       results[task.index] = result;
       active -= 1;
-      opts.onResult?.(task, result);
+      opts.onResult?.(task, result, input);
     };
     const spawn = (): void => {
       const slot = { worker: new Worker(opts.workerPath, { workerData: opts.workerData }), timer: null as NodeJS.Timeout | null, task: null as BatchTask | null };
@@ -72,7 +73,7 @@ export function runPool(tasks: readonly BatchTask[], opts: PoolOptions): Promise
       slot.worker.on('message', (msg: WorkerReply) => {
         if (msg.type === 'memory') { opts.onMemory?.(msg); return; }
         if (msg.type !== 'result' || slot.task?.index !== msg.index) return;
-        settle(slot, msg.result);
+        settle(slot, msg.result, msg.input ?? null);
         feed();
       });
       slot.worker.on('error', (e) => replace(`the analysis crashed (${reason(e)})`));
