@@ -4,6 +4,7 @@ import type { PlaneSource, RawPlane, StackInfo } from '../../core/model';
 import { openFileByteSource } from '../../core/io';
 import { createDirectPlaneSource, createGeotiffPlaneSource, directPathRefusal, readStackInfo, type ByteSource, type StackInfoOptions } from '../../core/tiff';
 import { APP_CHUNK_CODECS } from './lzma-codec';
+import { isZarrPath, openZarrStack } from './open-zarr-stack';
 import { createSharpPlaneSource, sharpDecodesExactly } from './sharp-decoder';
 
 /** What openStackForAnalysis returns; `warnings` grows when a plane falls back to the geotiff decoder. */
@@ -49,9 +50,11 @@ export interface OpenForAnalysisOptions extends StackInfoOptions {
 /**
  * Reads tags with core and returns a PlaneSource: the direct path for every layout it reaches (none, LZW, PackBits,
  * Deflate, LZMA, Zstandard; strips and tiles; chunky and planar), sharp for other compressions it decodes exactly,
- * geotiff for the rest and for any plane the first choice fails on. Throws TiffError.
+ * geotiff for the rest and for any plane the first choice fails on. Throws TiffError. A folder is read as an
+ * OME-Zarr store (core/zarr; throws ZarrError).
  */
 export async function openStackForAnalysis(path: string, fileLabel: string, options: OpenForAnalysisOptions = {}): Promise<OpenedStack> {
+  if (await isZarrPath(path)) return openZarrStack(path, fileLabel, options);
   const file = await openFileByteSource(path, fileLabel);
   const bytes = options.wrapSource ? Object.assign(options.wrapSource(file), { close: () => file.close() }) : file;
   let info: StackInfo;

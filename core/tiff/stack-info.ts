@@ -17,6 +17,7 @@ import { Tag } from './tags';
 import { checkPlaneBudget } from './budget';
 import { cachedByteSource } from './block-cache';
 import { colourModelOf } from './photometric';
+import { omeTimeAxis, imagejTimeAxis } from './time-axis';
 
 /** Options for readStackInfo. */
 export interface StackInfoOptions {
@@ -108,7 +109,8 @@ async function omeStack(_source: ByteSource, base: BaseInfo, ome: OmeImage, file
     : resolutionPixelSize(base.layout, ome.physicalSizeZUm);
   if (pixelSize.source === 'unknown') warnings.push('pixel size unknown (no OME PhysicalSizeX and no usable resolution tags)');
   const channelNames = Array.from({ length: ome.sizeC }, (_, c) => ome.channelNames[c] || `C${c}`);
-  return { ...common(base), isOme: true, ...counts, dimensionOrder: ome.dimensionOrder, channelNames, pixelSize, planeIfd, warnings };
+  const time = omeTimeAxis(ome, warnings);
+  return { ...common(base), isOme: true, ...counts, dimensionOrder: ome.dimensionOrder, channelNames, pixelSize, planeIfd, warnings, time };
 }
 
 /** Plain TIFF: full-resolution IFDs as Z (or ImageJ channels/slices/frames); samples per pixel become channels. */
@@ -147,7 +149,8 @@ async function plainStack(source: ByteSource, base: BaseInfo, fileLabel: string)
   }
   if (pixelSize.source === 'unknown') warnings.push('pixel size unknown (no usable resolution tags)');
   const channelNames = Array.from({ length: counts.sizeC }, (_, c) => `C${c}`);
-  return { ...common(base), isOme: false, ...counts, dimensionOrder: order, channelNames, pixelSize, planeIfd, warnings };
+  const time = imagejTimeAxis(imagej, counts.sizeT);
+  return { ...common(base), isOme: false, ...counts, dimensionOrder: order, channelNames, pixelSize, planeIfd, warnings, time };
 }
 
 /** planeIfd when samples are channels: slot (z, c) → IFD of z (every channel shares it). */
