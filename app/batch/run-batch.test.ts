@@ -2,7 +2,8 @@ import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, realpath
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { parseCsv, resultsFromJson } from '../../core/batch';
+import { resultsFromJson } from '../../core/batch';
+import { parseCsv } from '../../core/csv';
 import { errorResult } from '../../core/model';
 import type { ProjectDoc } from '../../core/contract';
 import type { EmbryoResult } from '../../core/model';

@@ -9,7 +9,7 @@
 // meaningful when the predicted shift is clearly away from zero.
 import { describeSample } from './describe';
 import { fitLine, tQuantileOf } from './stats-local';
-import type { ConditionInfo, DosageFit, Observation, ReferenceLambda, ShiftRow } from './types';
+import type { ConditionInfo, DosageFit, Observation, ReferenceLambda, ShiftRow } from '../model';
 import { welchDifference } from './welch';
 
 /** λ in x/EL measured on the reference condition (mean, SEM, t-CI); null when it has no fitted λ. */
