@@ -1,7 +1,7 @@
 // Worker thread of the batch pool: analyses one file per message and replies with its EmbryoResult and memory use.
 // It also generates demo files on request, so writing the demo set uses every core.
 import { parentPort, workerData } from 'node:worker_threads';
-import { analyzeFile } from '../batch/analyze-file';
+import { analyseFile } from '../batch/analyse-file';
 import { limitDecoderThreads } from '../batch/decoder-threads';
 import type { BatchTask, DemoRequest, WorkerReply } from '../batch/task';
 import { demoFile } from '../batch/write-demo';
@@ -17,7 +17,7 @@ port.on('message', (msg: BatchTask | DemoRequest) => {
     return;
   }
   const task = msg as BatchTask;
-  void analyzeFile(task).then((result) => {
+  void analyseFile(task).then((result) => {
     port.postMessage({ type: 'result', index: task.index, result } satisfies WorkerReply);
     const m = process.memoryUsage();
     port.postMessage({ type: 'memory', rssBytes: m.rss, heapUsedBytes: m.heapUsed, externalBytes: m.external + m.arrayBuffers } satisfies WorkerReply);
