@@ -9,12 +9,11 @@ import { ChannelPanel } from './components/ChannelPanel';
 import { CohortView } from './components/CohortView';
 import { FitNumbers } from './components/FitNumbers';
 import { FolderList } from './components/FolderList';
-import { ImageView } from './components/ImageView';
+import { EmbryoView } from './components/EmbryoView';
+import { ALL_OVERLAYS } from './components/ImageOverlay';
 import { LandmarkList } from './components/LandmarkList';
-import { ProfilePlot } from './components/ProfilePlot';
 import { SettingsPanel } from './components/SettingsPanel';
-import { StraightView } from './components/StraightView';
-import { Toolbar } from './components/Toolbar';
+import { Toolbar, type Tab } from './components/Toolbar';
 import { screenPt, zoomAt } from './geometry';
 import { toProjectDoc, useAutosave } from './hooks/useAutosave';
 import { useBatch } from './hooks/useBatch';
@@ -30,8 +29,7 @@ import type { ImagePoint } from '../core/model';
 import { currentEdits, editorReducer, effectiveAxis, effectiveFitRange, initialState } from './state';
 import { autoDisplayRange, CHANNEL_COLOURS } from './view';
 
-/** Which main view is shown. */
-export type Tab = 'embryo' | 'batch' | 'cohort';
+export type { Tab } from './components/Toolbar';
 
 /** The whole window. */
 export function App() {
@@ -47,6 +45,8 @@ export function App() {
   const { session, openDemo, openFolder, openProject, openFiles, openRecent, openAtStart, openDroppedFiles, setMessage } = useSession(api, dispatch, select, () => flushSave.current());
   const [help, setHelp] = useState(false);
   const [exportMenu, setExportMenu] = useState(false);
+  const [overlays, setOverlays] = useState(ALL_OVERLAYS);
+  const [readoutTarget, setReadoutTarget] = useState<HTMLElement | null>(null);
   const entry = session.entries.find((e) => e.name === state.current) ?? null;
   const load = useStackLoader(api, entry?.path ?? null, state.doc.settings);
   // Until the shown file's stack arrives, show nothing rather than its edits over the previous image.
@@ -57,6 +57,7 @@ export function App() {
   const { batch, chooseOutput, run, cancel } = useBatch(api);
   const centre = useRef<HTMLDivElement>(null);
   const centreSize = useElementSize(centre);
+  const zoomBy = (factor: number) => dispatch({ type: 'setView', view: zoomAt(stateRef.current.view, screenPt(centreSize.width / 2, 200), factor) });
 
   useEffect(() => { void openAtStart(); }, []);
 
@@ -113,14 +114,13 @@ export function App() {
   /** Run a keyboard or menu command against the latest state. */
   const runCommand = (cmd: KeyCommand | string) => {
     const s = stateRef.current;
-    const mid = screenPt(centreSize.width / 2, 200);
     switch (cmd) {
       case 'undo': case 'redo': dispatch({ type: cmd }); break;
       case 'save': void saveNow(); break;
       case 'swap': case 'swap-poles': dispatch({ type: 'swapPoles' }); break;
       case 'fit': case 'fit-to-window': setFitRequest((n) => n + 1); break;
-      case 'zoom-in': dispatch({ type: 'setView', view: zoomAt(s.view, mid, 1.25) }); break;
-      case 'zoom-out': dispatch({ type: 'setView', view: zoomAt(s.view, mid, 0.8) }); break;
+      case 'zoom-in': zoomBy(1.25); break;
+      case 'zoom-out': zoomBy(0.8); break;
       case 'delete': if (s.selectedLandmark !== null) dispatch({ type: 'deleteLandmark', index: s.selectedLandmark }); break;
       case 'next-file': step(1); break;
       case 'prev-file': step(-1); break;
@@ -158,17 +158,22 @@ export function App() {
 
   if (api === null) return <div className="fatal">This page must run inside Eggline: the app connection (window.eggline) is missing.</div>;
   const halfWidthPx = stack === null || pixelSizeUm === null ? 50 : (stack.detection.eggWidthUm / pixelSizeUm) * 0.6;
-  const stripWidth = Math.max(200, centreSize.width);
+  const message = session.message ?? (saveStatus.kind === 'error' ? `Not saved: ${saveStatus.message}` : null);
 
   return (
     <div className="app"
       onDragOver={(e) => { if (e.dataTransfer.types.includes('Files')) e.preventDefault(); }}
       onDrop={(e) => { e.preventDefault(); void openDroppedFiles([...e.dataTransfer.files]); }}>
       <Toolbar state={state} dispatch={dispatch} tab={tab} onTab={setTab} onOpenFolder={openFolder} onOpenProject={openProject} onOpenDemo={openDemo}
-        onFit={() => setFitRequest((n) => n + 1)} saveStatus={saveStatus} exports={exports} hasMeasurement={measurement !== null}
+        onFit={() => setFitRequest((n) => n + 1)} onZoom={zoomBy} saveStatus={saveStatus} exports={exports} hasMeasurement={measurement !== null}
         exportMenu={exportMenu} onExportMenu={setExportMenu} onHelp={() => setHelp(true)} />
       {help && <Help onClose={() => setHelp(false)} />}
-      {session.message && <div className="message" data-testid="message" onClick={() => setMessage(null)}>{session.message}</div>}
+      {message && (
+        <div className="message" role="status">
+          <span data-testid="message" title={message} onClick={() => setMessage(null)}>{message}</span>
+          {session.message && <button className="close" aria-label="dismiss the message" onClick={() => setMessage(null)}>✕</button>}
+        </div>
+      )}
       <div className="body">
         <aside className="left">
           <FolderList folder={session.folder} entries={session.entries} current={state.current} onSelect={select}
@@ -177,13 +182,9 @@ export function App() {
           <SettingsPanel settings={settings} channelNames={names} dispatch={dispatch} />
         </aside>
         <main className="centre" ref={centre}>
-          <div className={tab === 'embryo' ? 'embryo-view' : 'hidden'}>
-            {loadError && <div className="error" data-testid="load-error">{loadError}</div>}
-            <ImageView state={state} dispatch={dispatch} planes={planes} channelNames={names} outline={stack?.detection.outline ?? []} axis={axis}
-              measurement={measurement} bandOutlines={bandOutlines} fitRangeEl={fitRangeEl} pixelSizeUm={pixelSizeUm} halfWidthPx={halfWidthPx} fitRequest={fitRequest} spaceHeld={spaceHeld} />
-            <StraightView measurement={measurement} display={state.display} width={stripWidth} fitRangeEl={fitRangeEl} />
-            <ProfilePlot measurement={measurement} width={stripWidth} fitRangeEl={fitRangeEl} dispatch={dispatch} />
-          </div>
+          <EmbryoView hidden={tab !== 'embryo'} state={state} dispatch={dispatch} planes={planes} channelNames={names} outline={stack?.detection.outline ?? []} axis={axis}
+            measurement={measurement} bandOutlines={bandOutlines} fitRangeEl={fitRangeEl} pixelSizeUm={pixelSizeUm} halfWidthPx={halfWidthPx} fitRequest={fitRequest}
+            spaceHeld={spaceHeld} overlays={overlays} onOverlays={setOverlays} readoutTarget={readoutTarget} loadError={loadError} />
           {tab === 'batch' && <BatchPanel batch={batch} folder={session.folder} fileCount={session.entries.length} onChooseOutput={chooseOutput}
             onRun={() => { if (session.folder !== null) void run(session.folder, toProjectDoc(state.doc, session.folder)); }} onCancel={cancel} />}
           {tab === 'cohort' && <CohortView summary={batch.summary} />}
@@ -196,7 +197,8 @@ export function App() {
       </div>
       <footer className="statusbar">
         <span>{entry?.name ?? 'no file'}{axis ? ` · axis ${axis.source}` : ''}{edits.fitRangeEl ? ' · own fit range' : ''}</span>
-        <span className="muted">drag A/P handles · S swap · L landmark tool · Del delete · Space+drag pan · wheel/± zoom · F fit · Ctrl+Z / Ctrl+Shift+Z</span>
+        <span className="readout-slot" ref={setReadoutTarget} />
+        <span className="muted keys-hint">drag A/P · S swap · L landmark · Del delete · Space+drag pan · wheel/± zoom · F fit · Ctrl+Z undo · F1 help</span>
       </footer>
     </div>
   );

@@ -11,6 +11,17 @@ const nodeEntries = [
   { in: 'bench/bench.ts', out: 'bench' },
 ].filter((e) => existsSync(e.in));
 
+/** Packages that ship only ES modules (no "require" export): the CommonJS Electron bundles must include them. */
+const ESM_ONLY = /^(zarrita|numcodecs|@zarrita\/[^/]+)(\/|$)/;
+
+/** Every bare import stays external (loaded from node_modules at run time) except the ESM-only packages above. */
+const externalExceptEsmOnly = {
+  name: 'external-except-esm-only',
+  setup(b) {
+    b.onResolve({ filter: /^[^./]/ }, (args) => (ESM_ONLY.test(args.path) ? undefined : { path: args.path, external: true }));
+  },
+};
+
 const common = { bundle: true, platform: 'node', target: 'node20', sourcemap: true, logLevel: 'warning' };
 
 if (nodeEntries.length > 0) {
@@ -37,8 +48,8 @@ if (electronEntries.length > 0) {
     outdir: 'dist',
     format: 'cjs',
     outExtension: { '.js': '.cjs' },
-    external: ['electron', 'sharp'],
-    packages: 'external',
+    // electron and sharp are external like every other package; the ESM-only ones are bundled.
+    plugins: [externalExceptEsmOnly],
   });
 }
 

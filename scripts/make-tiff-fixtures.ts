@@ -26,6 +26,8 @@ export interface TiffFixture {
   readonly dimensionOrder: DimensionOrder | null;
   /** tiffcp arguments used to make it from its base, or [] for a base file. */
   readonly tiffcpArgs: readonly string[];
+  /** Which program wrote it: our writer, libtiff's tiffcp, GDAL's gdal_translate or Python's tifffile. */
+  readonly writer: 'eggline' | 'tiffcp' | 'gdal_translate' | 'tifffile';
   /** The exact pixel values of plane (z, c, t). */
   expected(z: number, c: number, t: number): PixelArray;
 }
@@ -72,10 +74,28 @@ export function omePlane(z: number, c: number, t: number): Uint16Array {
   return data;
 }
 
+/** True when a program can be run (it exists on PATH or at the path given). */
+function canRun(program: string, args: readonly string[] = []): boolean {
+  const r = spawnSync(program, args, { encoding: 'utf8' });
+  return !(r.error && (r.error as NodeJS.ErrnoException).code === 'ENOENT');
+}
+
 /** True when libtiff's tiffcp can be run. */
 export function hasTiffcp(): boolean {
-  const r = spawnSync('tiffcp', [], { encoding: 'utf8' });
-  return !(r.error && (r.error as NodeJS.ErrnoException).code === 'ENOENT');
+  return canRun('tiffcp');
+}
+
+/** True when GDAL's gdal_translate can be run (Debian package gdal-bin). */
+export function hasGdal(): boolean {
+  return canRun('gdal_translate', ['--version']);
+}
+
+/** Debian's Python with numpy and tifffile (the pyenv python3 on PATH may lack them). */
+export const PYTHON = '/usr/bin/python3';
+
+/** True when Debian's Python can import tifffile. */
+export function hasTifffile(): boolean {
+  return spawnSync(PYTHON, ['-c', 'import tifffile, numpy'], { encoding: 'utf8' }).status === 0;
 }
 
 /** Writes bytes via a temporary name and a rename, so parallel test workers never see half a file. */
@@ -115,6 +135,7 @@ function writeBases(dir: string): TiffFixture[] {
 function plainFixture(name: string, path: string, type: SampleType, args: readonly string[]): TiffFixture {
   return {
     name, path, sampleType: type, sizeZ: PLAIN_PLANES, sizeC: 1, sizeT: 1, samplesPerPixel: 1, dimensionOrder: null, tiffcpArgs: args,
+    writer: args.length > 0 ? 'tiffcp' : 'eggline',
     expected: (z) => patternPlane(type, z),
   };
 }
@@ -123,6 +144,7 @@ function plainFixture(name: string, path: string, type: SampleType, args: readon
 function samplesFixture(name: string, path: string, args: readonly string[]): TiffFixture {
   return {
     name, path, sampleType: 'uint8', sizeZ: 1, sizeC: 3, sizeT: 1, samplesPerPixel: 3, dimensionOrder: null, tiffcpArgs: args,
+    writer: args.length > 0 ? 'tiffcp' : 'eggline',
     expected: (_z, c) => patternPlane('uint8', c),
   };
 }
@@ -153,7 +175,56 @@ const VARIANTS: readonly [string, SampleType, readonly string[]][] = [
   ['float32-zip3-be.tif', 'float32', ['-c', 'zip:3', '-B']],
   ['float32-be.tif', 'float32', ['-B']],
   ['float32-tiles-lzw3.tif', 'float32', ['-t', '-w', '16', '-l', '16', '-c', 'lzw:3']],
+  ['uint16-zstd2.tif', 'uint16', ['-c', 'zstd:2']],
+  ['uint16-lzma2.tif', 'uint16', ['-c', 'lzma:2']],
+  ['float32-be-zstd3.tif', 'float32', ['-B', '-c', 'zstd:3']],
+  ['uint16-tiles-be-lzma.tif', 'uint16', ['-B', '-t', '-w', '16', '-l', '16', '-c', 'lzma']],
 ];
+
+/** GDAL variants of IFD 0 of a base (GDAL reads the first page only): [name, base type, gdal_translate args]. */
+const GDAL_VARIANTS: readonly [string, SampleType, readonly string[]][] = [
+  ['gdal-uint16-zstd2.tif', 'uint16', ['-co', 'COMPRESS=ZSTD', '-co', 'PREDICTOR=2']],
+  ['gdal-uint16-lzma-tiled.tif', 'uint16', ['-co', 'COMPRESS=LZMA', '-co', 'TILED=YES', '-co', 'BLOCKXSIZE=16', '-co', 'BLOCKYSIZE=16']],
+  ['gdal-float32-deflate3-bigtiff.tif', 'float32', ['-co', 'COMPRESS=DEFLATE', '-co', 'PREDICTOR=3', '-co', 'BIGTIFF=YES']],
+  ['gdal-int16-lzw2-tiled.tif', 'int16', ['-co', 'COMPRESS=LZW', '-co', 'PREDICTOR=2', '-co', 'TILED=YES', '-co', 'BLOCKXSIZE=16', '-co', 'BLOCKYSIZE=16']],
+  ['gdal-uint8-packbits-rows5.tif', 'uint8', ['-co', 'COMPRESS=PACKBITS', '-co', 'BLOCKYSIZE=5']],
+  ['gdal-float64-zstd3.tif', 'float64', ['-co', 'COMPRESS=ZSTD', '-co', 'PREDICTOR=3']],
+];
+
+/** Runs gdal_translate on `from`, writing `to` atomically (no .aux.xml side files). */
+function gdalTranslate(args: readonly string[], from: string, to: string): void {
+  const tmp = `${to}.${process.pid}.tmp.tif`;
+  const r = spawnSync('gdal_translate', ['-q', '-of', 'GTiff', ...args, from, tmp], { encoding: 'utf8', env: { ...process.env, GDAL_PAM_ENABLED: 'NO' } });
+  if (r.status !== 0) throw new Error(`gdal_translate ${args.join(' ')} failed: ${r.stderr || r.error?.message}`);
+  renameSync(tmp, to);
+}
+
+/** Files written by GDAL: one plane (pattern plane 0). */
+function writeGdalFixtures(dir: string): TiffFixture[] {
+  return GDAL_VARIANTS.map(([name, type, args]) => {
+    const path = join(dir, name);
+    gdalTranslate(args, join(dir, `${type}.tif`), path);
+    return {
+      name, path, sampleType: type, sizeZ: 1, sizeC: 1, sizeT: 1, samplesPerPixel: 1, dimensionOrder: null, tiffcpArgs: [],
+      writer: 'gdal_translate' as const, expected: () => patternPlane(type, 0),
+    };
+  });
+}
+
+/** Files written by Python's tifffile (scripts/tifffile-fixtures.py): Z=3 × C=2 of uint16, plane (z, c) = pattern z·2+c. */
+function writeTifffileFixtures(dir: string): TiffFixture[] {
+  const script = join(dirname(fileURLToPath(import.meta.url)), 'tifffile-fixtures.py');
+  const r = spawnSync(PYTHON, [script, dir], { encoding: 'utf8' });
+  if (r.status !== 0) throw new Error(`tifffile-fixtures.py failed: ${r.stderr || r.error?.message}`);
+  const names: [string, number][] = [
+    ['tifffile-zcyx.tif', 1], ['tifffile-zcyx-zlib.tif', 1], ['tifffile-2samples.tif', 2],
+    ['tifffile-2samples-planar-lzma.tif', 2], ['tifffile-zcyx-tiled-bigtiff.tif', 1],
+  ];
+  return names.map(([name, spp]) => ({
+    name, path: join(dir, name), sampleType: 'uint16' as const, sizeZ: 3, sizeC: 2, sizeT: 1, samplesPerPixel: spp,
+    dimensionOrder: null, tiffcpArgs: [], writer: 'tifffile' as const, expected: (z: number, c: number) => patternPlane('uint16', z * 2 + c),
+  }));
+}
 
 /** OME-TIFFs for each DimensionOrder: 2 channels × 3 z × 2 t, uint16, planes stored in that order. */
 function writeOmeFixtures(dir: string): TiffFixture[] {
@@ -172,7 +243,10 @@ function writeOmeFixtures(dir: string): TiffFixture[] {
 
 /** An OME fixture with its expected planes. */
 function omeFixture(name: string, path: string, order: DimensionOrder, args: readonly string[]): TiffFixture {
-  return { name, path, sampleType: 'uint16', sizeZ: 3, sizeC: 2, sizeT: 2, samplesPerPixel: 1, dimensionOrder: order, tiffcpArgs: args, expected: omePlane };
+  return {
+    name, path, sampleType: 'uint16', sizeZ: 3, sizeC: 2, sizeT: 2, samplesPerPixel: 1, dimensionOrder: order, tiffcpArgs: args,
+    writer: args.length > 0 ? 'tiffcp' : 'eggline', expected: omePlane,
+  };
 }
 
 /** Writes every fixture (bases always; tiffcp variants when tiffcp exists) and returns the list. */
@@ -191,6 +265,8 @@ export function makeTiffFixtures(dir: string = FIXTURE_DIR): TiffFixture[] {
   const separateLzw = join(dir, 'uint8-3samples-separate-lzw2.tif');
   tiffcp(['-p', 'separate', '-c', 'lzw:2'], join(dir, 'uint8-3samples.tif'), separateLzw);
   fixtures.push(samplesFixture('uint8-3samples-separate-lzw2.tif', separateLzw, ['-p', 'separate', '-c', 'lzw:2']));
+  if (hasGdal()) fixtures.push(...writeGdalFixtures(dir));
+  if (hasTifffile()) fixtures.push(...writeTifffileFixtures(dir));
   for (const [order, args] of [['XYTZC', ['-8', '-c', 'lzw:2']], ['XYCZT', ['-B', '-t', '-w', '16', '-l', '16']]] as const) {
     const name = `ome-${order}-${args.join('').replace(/[^a-z0-9]/gi, '')}.ome.tif`;
     tiffcp(args, join(dir, `ome-${order}.ome.tif`), join(dir, name));

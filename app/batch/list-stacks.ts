@@ -1,8 +1,8 @@
-// Find the stacks of a folder: every TIFF-family file in it and its subfolders, in a stable order. The one walker:
-// the batch and the window's file list both use it, so they always list the same files.
+// Find the stacks of a folder: every TIFF-family file and OME-Zarr folder in it and its subfolders, in a stable order.
+// The one walker: the batch and the window's file list both use it, so they always list the same files.
 import { promises as fs } from 'node:fs';
 import { join, relative, resolve, sep } from 'node:path';
-import { isStackFileName, sortStackPaths } from '../../core/batch';
+import { isStackFileName, isStackFolderName, sortStackPaths } from '../../core/batch';
 
 /** A stack found in the input folder. */
 export interface StackFile {
@@ -17,8 +17,9 @@ export function isInside(parent: string, child: string): boolean {
   return rel === '' || (!rel.startsWith('..') && !rel.startsWith(sep) && !/^[a-zA-Z]:/.test(rel));
 }
 
-/** Every stack file under `folder` (hidden entries and the `skipDirs` skipped; symlinked folders not followed, as they
- *  can loop), sorted; at most `maxFiles` (a folder beyond a cap is surely a mistake, such as a whole disk).
+/** Every stack file and *.zarr folder (an OME-Zarr store, never walked into) under `folder` (hidden entries and the
+ *  `skipDirs` skipped; symlinked folders not followed, as they can loop), sorted; at most `maxFiles` (a folder beyond
+ *  a cap is surely a mistake, such as a whole disk).
  *  A subfolder that cannot be read is skipped with a line in `warnings`; an unreadable top folder rejects. */
 export async function listStackFiles(
   folder: string, skipDirs: readonly string[] = [], warnings: string[] = [], maxFiles = Number.POSITIVE_INFINITY,
@@ -35,7 +36,9 @@ export async function listStackFiles(
       if (e.name.startsWith('.') || found.length >= maxFiles) continue;
       const full = join(dir, e.name);
       if (e.isDirectory()) {
-        if (!skipDirs.some((s) => isInside(s, full))) await walk(full);
+        // An OME-Zarr store is one stack: listed, never walked into.
+        if (isStackFolderName(e.name)) found.push(relative(root, full).split(sep).join('/'));
+        else if (!skipDirs.some((s) => isInside(s, full))) await walk(full);
       } else if (isStackFileName(e.name) && (e.isFile() || (e.isSymbolicLink() && (await fs.stat(full).catch(() => null))?.isFile()))) {
         found.push(relative(root, full).split(sep).join('/'));
       }

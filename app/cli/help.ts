@@ -6,7 +6,7 @@ export const MAIN_HELP = `eggline — measure morphogen gradients along the AP a
 Usage:
   eggline batch <folder> --out <dir> [options]   analyse every stack in a folder, write tables
   eggline cohort <results-dir> --samples <csv>   compare conditions of a finished batch
-  eggline inspect <file>                         show what a TIFF / OME-TIFF file holds
+  eggline inspect <file>                         show what a TIFF / OME-TIFF file or OME-Zarr folder holds
   eggline demo <dir>                             write a synthetic demo data set to try things on
   eggline --version                              print the version
 
@@ -16,9 +16,10 @@ Run "eggline <command> --help" for the options of a command.
 /** Help for the batch command. */
 export const BATCH_HELP = `Usage: eggline batch <folder> --out <dir> [options]
 
-Analyses every .tif/.tiff/.ome.tif(f)/.btf/.tf8/.tf2 file in <folder> and its subfolders (sorted by path;
-hidden files skipped) and writes embryos.csv, boundaries.csv, profiles.csv, landmarks.csv, results.json and
-run.json to <dir>. Nothing is ever written into <folder>; <dir> must not be <folder> or inside it.
+Analyses every .tif/.tiff/.ome.tif(f)/.btf/.tf8/.tf2 file and every .zarr/.ome.zarr folder (OME-Zarr, read
+as one stack) in <folder> and its subfolders (sorted by path; hidden files skipped) and writes embryos.csv,
+boundaries.csv, profiles.csv, landmarks.csv, results.json and run.json to <dir>. Nothing is ever written
+into <folder>; <dir> must not be <folder> or inside it.
 
 Options:
   --out DIR                   output folder (created if missing)                       [required]
@@ -53,6 +54,8 @@ export const INSPECT_HELP = `Usage: eggline inspect <file>
 
 Prints what the file's tags say: format, dimensions, channels, pixel size and where it came from,
 sample type, compression and which IFD holds each plane. Pixels are not decoded.
+For an OME-Zarr folder: the NGFF and Zarr versions, axes with their units, channels, pixel size, z and
+time steps, sample type, chunk shape and codecs of the full-resolution array.
 `;
 
 /** Help for the demo command. */

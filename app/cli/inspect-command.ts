@@ -1,7 +1,10 @@
-// `eggline inspect <file>`: what a TIFF / OME-TIFF holds, from its tags only (no pixels decoded).
+// `eggline inspect <file>`: what a TIFF / OME-TIFF holds, from its tags only, or an OME-Zarr folder, from its metadata
+// (no pixels decoded).
 import { basename } from 'node:path';
 import { describeStack, readStackInfo } from '../../core/tiff';
+import { describeZarr } from '../../core/zarr';
 import { openByteSource } from '../batch/deps';
+import { isZarrPath, openZarrStack } from '../decode';
 import { INSPECT_HELP } from './help';
 import { parseCommandArgs } from './parse-command-args';
 import { UsageError, type CliIo } from './usage-error';
@@ -15,6 +18,12 @@ export async function inspectCommand(argv: readonly string[], io: CliIo): Promis
   const label = basename(path);
   let source: Awaited<ReturnType<typeof openByteSource>> | null = null;
   try {
+    if (await isZarrPath(path)) {
+      const opened = await openZarrStack(path, label);
+      await opened.source.close();
+      io.stdout.write(`file: ${path}\n${describeZarr(opened.info, opened.details).join('\n')}\n`);
+      return 0;
+    }
     source = await openByteSource(path, label);
     const info = await readStackInfo(source, label);
     io.stdout.write(`file: ${path}\n${describeStack(info).join('\n')}\n`);

@@ -1,7 +1,10 @@
-// Open a stack for analysis: tags from core/tiff, pixels from sharp, geotiff when sharp cannot or fails.
+// Open a stack for analysis: tags from core/tiff; pixels on the direct path where it reaches, else sharp; geotiff
+// when neither can or when a plane fails.
 import type { PlaneSource, RawPlane, StackInfo } from '../../core/model';
 import { openFileByteSource } from '../../core/io';
-import { createGeotiffPlaneSource, readStackInfo, type StackInfoOptions } from '../../core/tiff';
+import { createDirectPlaneSource, createGeotiffPlaneSource, directPathRefusal, readStackInfo, type ByteSource, type StackInfoOptions } from '../../core/tiff';
+import { APP_CHUNK_CODECS } from './lzma-codec';
+import { isZarrPath, openZarrStack } from './open-zarr-stack';
 import { createSharpPlaneSource, sharpDecodesExactly } from './sharp-decoder';
 
 /** What openStackForAnalysis returns; `warnings` grows when a plane falls back to the geotiff decoder. */
@@ -38,21 +41,34 @@ export function withDecoderFallback(primary: PlaneSource, fallback: PlaneSource,
   };
 }
 
+/** Options for openStackForAnalysis. */
+export interface OpenForAnalysisOptions extends StackInfoOptions {
+  /** Wraps the opened file before anything reads it (the batch hashes the bytes the decoder reads this way). */
+  readonly wrapSource?: (source: ByteSource) => ByteSource;
+}
+
 /**
- * Reads tags with core and returns a PlaneSource: sharp for the sample types it decodes exactly, geotiff for
- * the rest (int16, float64, several samples per pixel) and for any plane sharp fails on. Throws TiffError.
+ * Reads tags with core and returns a PlaneSource: the direct path for every layout it reaches (none, LZW, PackBits,
+ * Deflate, LZMA, Zstandard; strips and tiles; chunky and planar), sharp for other compressions it decodes exactly,
+ * geotiff for the rest and for any plane the first choice fails on. Throws TiffError. A folder is read as an
+ * OME-Zarr store (core/zarr; throws ZarrError).
  */
-export async function openStackForAnalysis(path: string, fileLabel: string, options: StackInfoOptions = {}): Promise<OpenedStack> {
-  const bytes = await openFileByteSource(path, fileLabel);
+export async function openStackForAnalysis(path: string, fileLabel: string, options: OpenForAnalysisOptions = {}): Promise<OpenedStack> {
+  if (await isZarrPath(path)) return openZarrStack(path, fileLabel, options);
+  const file = await openFileByteSource(path, fileLabel);
+  const bytes = options.wrapSource ? Object.assign(options.wrapSource(file), { close: () => file.close() }) : file;
   let info: StackInfo;
   try {
     info = await readStackInfo(bytes, fileLabel, options);
   } catch (err) {
-    await bytes.close();
+    await file.close();
     throw err;
   }
   const geotiff = createGeotiffPlaneSource(bytes, info, fileLabel);
   const warnings: string[] = [];
+  if (directPathRefusal(info, APP_CHUNK_CODECS) === null) {
+    return { info, source: withDecoderFallback(createDirectPlaneSource(bytes, info, APP_CHUNK_CODECS, fileLabel), geotiff, warnings, fileLabel), warnings };
+  }
   if (!sharpDecodesExactly(info)) return { info, source: geotiff, warnings };
   return { info, source: withDecoderFallback(createSharpPlaneSource(path, info, fileLabel), geotiff, warnings, fileLabel), warnings };
 }

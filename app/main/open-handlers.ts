@@ -2,7 +2,7 @@
 import { promises as fs } from 'node:fs';
 import { join } from 'node:path';
 import type { FolderEntry, OpenedFolder, OpenedRecent, ProjectDoc } from '../../core/contract';
-import { isStackFileName } from '../../core/batch';
+import { isStackFileName, isStackFolderName } from '../../core/batch';
 import { loadProject, newProject, PROJECT_FILE_NAME } from '../project';
 import { requirePath } from './args';
 import type { ShellContext } from './context';
@@ -29,20 +29,21 @@ export async function openFolder(ctx: ShellContext, folder: string): Promise<Ope
   return { folder, entries, project, projectPath };
 }
 
-/** Allow loose stack files and list them; files that are not stacks or not readable come back with status 'error'. */
+/** Allow loose stack files (and OME-Zarr folders) and list them; files that are not stacks or not readable come back with status 'error'. */
 export async function openFiles(ctx: ShellContext, paths: readonly string[]): Promise<FolderEntry[]> {
   const problems = new Map<string, string>();
   for (const path of paths) {
     const stat = await fs.stat(path).catch(() => null);
     if (stat === null) problems.set(path, `${labelOf(path)}: not found`);
+    else if (stat.isDirectory() && isStackFolderName(labelOf(path))) ctx.allow.allowTree('read', path);
     else if (!stat.isFile()) problems.set(path, `${labelOf(path)}: is not a file`);
-    else if (!isStackFileName(labelOf(path))) problems.set(path, `${labelOf(path)}: not a TIFF stack (.tif, .tiff, .ome.tif, .btf)`);
+    else if (!isStackFileName(labelOf(path))) problems.set(path, `${labelOf(path)}: not a stack (.tif, .tiff, .ome.tif, .btf, or an .ome.zarr folder)`);
     else ctx.allow.allowFile('read', path);
   }
   return fileEntries(paths, problems);
 }
 
-/** Dropped paths: folders are listed (their stacks allowed), files opened as loose files. */
+/** Dropped paths: folders are listed (their stacks allowed), files and OME-Zarr folders opened as loose stacks. */
 export async function openDropped(ctx: ShellContext, value: unknown): Promise<FolderEntry[]> {
   if (!Array.isArray(value) || value.length === 0 || value.length > MAX_DROPPED_PATHS) {
     throw new ApiFailure('bad-argument', `paths must be a list of 1 to ${MAX_DROPPED_PATHS} absolute paths`);
@@ -51,7 +52,7 @@ export async function openDropped(ctx: ShellContext, value: unknown): Promise<Fo
   const entries: FolderEntry[] = [];
   for (const path of paths) {
     const isDir = await fs.stat(path).then((s) => s.isDirectory(), () => false);
-    if (!isDir) { entries.push(...await openFiles(ctx, [path])); continue; }
+    if (!isDir || isStackFolderName(labelOf(path))) { entries.push(...await openFiles(ctx, [path])); continue; }
     ctx.allow.allowTree('read', path);
     entries.push(...await folderEntries(path, newProject(path)));
   }

@@ -19,5 +19,5 @@ export { MAX_CELL_CHARS, clipMessage, collapseMessages, warningsCell, tidyMessag
 export {
   PROJECT_FILE_NAME, parseProjectDoc, projectKey, editsForFile, toHandEdits, settingsForFile,
 } from './project-edits';
-export { isStackFileName, sortStackPaths } from './stack-files';
+export { isStackFileName, isStackFolderName, sortStackPaths } from './stack-files';
 export { runRecordToJson, type RunRecord, type RunInput, type RunEndReason, type SoftwareVersions } from './run-record';

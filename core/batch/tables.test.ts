@@ -17,7 +17,8 @@ const ok: EmbryoResult = {
   gradientChannel: 'grad', gradientProfile: profile('grad', [100, 5]),
   gradientFit: {
     amplitude: 120, amplitudeSe: 2, lambdaUm: 100, lambdaSeUm: 3, lambdaCiLowUm: 94, lambdaCiHighUm: 106, lambdaEl: 0.2,
-    lambdaSeEl: 0.006, background: 4, backgroundSe: 0.5, r2: 0.99, rss: 1, dof: 10, iterations: 7, fitRangeEl: [0.1, 0.6],
+    lambdaSeEl: 0.006, lambdaSeModelUm: 2.5, lambdaSeSerialUm: 3, lambdaSeSource: 'serial', residualLag1: 0.31, weighted: true,
+    background: 4, backgroundSe: 0.5, r2: 0.99, rss: 1, dof: 10, iterations: 7, fitRangeEl: [0.1, 0.6],
     xEl: Float64Array.from([0.1, 0.2]), residuals: Float64Array.from([Number.NaN, -0.5]),
   },
   boundaryProfiles: [profile('grad', [100, 5]), profile('stripe', [50, 1])],
@@ -40,7 +41,8 @@ describe('output tables', () => {
     expect(row).toMatchObject({
       file: 'dose,half/E01.ome.tif', status: 'ok', error: '', warnings: 'pixel size from "file"; edge clipped',
       pixel_size_um: '0.5', anterior_y_px: '20', posterior_y_px: '22.5', axis_source: 'hand', lambda_um: '100',
-      lambda_el: '0.2', fit_start_el: '0.1', fit_end_el: '0.6', boundary_el: '0.5', boundary_width_el: '0.02',
+      lambda_el: '0.2', lambda_se_model_um: '2.5', lambda_se_serial_um: '3', lambda_se_source: 'serial',
+      residual_lag1: '0.31', fit_weighting: 'inverse-variance', fit_start_el: '0.1', fit_end_el: '0.6', boundary_el: '0.5', boundary_width_el: '0.02',
     });
     expect(rows[2].slice(0, 4)).toEqual(['junk.tif', 'error', 'junk.tif: not a TIFF file', '']);
     expect(rows[2].slice(4).every((c, i) => c === '' || EMBRYO_COLUMNS[i + 4] === 'pixel_size_source')).toBe(true);

@@ -7,7 +7,9 @@ import { clipMessage, warningsCell } from './messages';
 export const EMBRYO_COLUMNS = [
   'file', 'status', 'error', 'warnings', 'pixel_size_um', 'pixel_size_source', 'egg_length_um', 'egg_width_um',
   'anterior_x_px', 'anterior_y_px', 'posterior_x_px', 'posterior_y_px', 'axis_source', 'gradient_channel',
-  'lambda_um', 'lambda_el', 'lambda_se_um', 'lambda_ci_low_um', 'lambda_ci_high_um', 'amplitude', 'background', 'r2',
+  'lambda_um', 'lambda_el', 'lambda_se_um', 'lambda_ci_low_um', 'lambda_ci_high_um',
+  'lambda_se_model_um', 'lambda_se_serial_um', 'lambda_se_source', 'residual_lag1', 'fit_weighting',
+  'amplitude', 'background', 'r2',
   'fit_start_el', 'fit_end_el', 'boundary_el', 'boundary_width_el',
 ] as const;
 
@@ -38,6 +40,8 @@ export function embryoRow(r: EmbryoResult): CsvValue[] {
     r.file, r.status, r.error === null ? null : clipMessage(r.error), warningsCell(r.warnings), r.pixelSizeUm, r.pixelSizeSource, r.eggLengthUm, r.eggWidthUm,
     r.axis?.anterior.x, r.axis?.anterior.y, r.axis?.posterior.x, r.axis?.posterior.y, r.axis?.source,
     r.gradientChannel, fit?.lambdaUm, fit?.lambdaEl, fit?.lambdaSeUm, fit?.lambdaCiLowUm, fit?.lambdaCiHighUm,
+    fit?.lambdaSeModelUm, fit?.lambdaSeSerialUm, fit?.lambdaSeSource, fit?.residualLag1,
+    fit ? (fit.weighted ? 'inverse-variance' : 'none') : null,
     fit?.amplitude, fit?.background, fit?.r2, fit?.fitRangeEl[0], fit?.fitRangeEl[1],
     boundary?.positionEl, boundary?.widthEl,
   ];

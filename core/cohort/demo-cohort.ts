@@ -64,7 +64,8 @@ function demoFit(A: number, lambdaEl: number, B: number, L: number, rng: Rng): E
   const se = 0.01 * fitted;
   return {
     amplitude: A, amplitudeSe: 0.01 * A, lambdaUm: fitted * L, lambdaSeUm: se * L, lambdaCiLowUm: (fitted - 2 * se) * L,
-    lambdaCiHighUm: (fitted + 2 * se) * L, lambdaEl: fitted, lambdaSeEl: se, background: B, backgroundSe: 1, r2: 0.99,
+    lambdaCiHighUm: (fitted + 2 * se) * L, lambdaEl: fitted, lambdaSeEl: se,
+    lambdaSeModelUm: se * L, lambdaSeSerialUm: se * L, lambdaSeSource: 'model', residualLag1: 0, weighted: true, background: B, backgroundSe: 1, r2: 0.99,
     rss: 1, dof: 48, iterations: 7, fitRangeEl: [0.1, 0.6], xEl: new Float64Array(0), residuals: new Float64Array(0),
   };
 }

@@ -10,3 +10,16 @@ export function seriesColour(i: number): string {
 
 /** Neutral colours for axes, grid lines and annotations. */
 export const INK = { axis: '#333333', grid: '#e3e3e3', muted: '#777777', shade: '#f0f0f0' } as const;
+
+/** Colours of the profile's roles, the same in the window, exported figures and the report (Okabe–Ito hues that
+ *  read on the window's dark background and on white paper alike). */
+export const PROFILE_COLOURS = { data: '#56B4E9', fit: '#E69F00' } as const;
+
+/** Boundary colours by the channel's place among the boundary channels (kept apart from the fit's orange). */
+export const BOUNDARY_COLOURS: readonly string[] = ['#CC79A7', '#009E73', '#D55E00'];
+
+/** Colour of a boundary: by its channel's place in `channels` (the boundary channels in order); the first colour
+ *  for a channel not in the list. */
+export function boundaryColour(channel: string, channels: readonly string[]): string {
+  return BOUNDARY_COLOURS[Math.max(0, channels.indexOf(channel)) % BOUNDARY_COLOURS.length];
+}

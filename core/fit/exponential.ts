@@ -6,6 +6,8 @@ import { tQuantile } from '../stats';
 import { exponentialStart } from './exponential-start';
 import { FitError } from './fit-error';
 import { fitNonlinear } from './levenberg-marquardt';
+import type { SerialCovariance } from './serial-covariance';
+import { ar1Covariance } from './serial-covariance';
 
 /** Options of fitExponentialDecay; xEl (x/EL per point) selects the points, weights (e.g. 1/σ²) are optional. */
 export interface ExponentialOptions {
@@ -81,20 +83,52 @@ export function fitExponentialDecay(xUm: Float64Array, y: Float64Array, options:
   }
   const growth = Math.exp(k * xRef);
   const g = [[growth, a0 * xRef * growth, 0], [0, -1 / (k * k), 0], [0, 0, 1]];
-  const cov = transformCovariance(g, fit.covariance);
+  const modelCov = transformCovariance(g, fit.covariance);
+  const serial = serialCovariance(x, yy, w, xRef, fit.params);
+  const serialCov = serial ? transformCovariance(g, serial.covariance) : null;
+  const lambdaSeModelUm = Math.sqrt(modelCov[1][1]);
+  const lambdaSeSerialUm = serialCov ? Math.sqrt(serialCov[1][1]) : NaN;
+  // The wider of the two is used: the serial estimate is itself noisy, and where the residuals alternate in sign
+  // (negative lag-1 correlation) it is narrower than the model-based one, which is then the cautious choice.
+  const useSerial = serialCov !== null && lambdaSeSerialUm > lambdaSeModelUm;
+  const cov = useSerial ? serialCov : modelCov;
   const lambdaSeUm = Math.sqrt(cov[1][1]);
-  const t = tQuantile(0.975, fit.dof);
+  // Positively correlated residuals carry fewer independent pieces of information about σ² than there are
+  // points: the t quantile then uses the effective number n·(1 − ρ)/(1 + ρ) (common practice for AR(1) series).
+  const t = tQuantile(0.975, serial ? effectiveDof(x.length, serial.rho, 3) : fit.dof);
   const model = (v: number): number => a0 * Math.exp(-k * (v - xRef)) + b;
   return {
     amplitude: a0 * growth, amplitudeSe: Math.sqrt(cov[0][0]),
     lambdaUm, lambdaSeUm, lambdaCiLowUm: lambdaUm - t * lambdaSeUm, lambdaCiHighUm: lambdaUm + t * lambdaSeUm,
     lambdaEl: lambdaUm / options.eggLengthUm, lambdaSeEl: lambdaSeUm / options.eggLengthUm,
+    lambdaSeModelUm, lambdaSeSerialUm, lambdaSeSource: useSerial ? 'serial' : 'model',
+    residualLag1: serial ? serial.residualLag1 : NaN, weighted: w !== undefined,
     background: b, backgroundSe: Math.sqrt(cov[2][2]),
     r2: fit.r2, rss: fit.rss, dof: fit.dof, iterations: fit.iterations,
     fitRangeEl: [options.fitRangeEl[0], options.fitRangeEl[1]],
     xEl: Float64Array.from(used, (i) => options.xEl[i]),
     residuals: yy.map((v, i) => v - model(x[i])),
   };
+}
+
+/** Degrees of freedom n·(1 − ρ)/(1 + ρ) − p for ρ > 0 (n − p otherwise), at least 1. */
+function effectiveDof(n: number, rho: number, p: number): number {
+  const nEff = rho > 0 ? (n * (1 - rho)) / (1 + rho) : n;
+  return Math.max(1, nEff - p);
+}
+
+/** AR(1) sandwich covariance of (A0, k, B) on the whitened problem, points in x order; null if not computable. */
+function serialCovariance(x: Float64Array, y: Float64Array, w: Float64Array | undefined, xRef: number, params: number[]): SerialCovariance | null {
+  const [a0, k, b] = params;
+  const n = x.length;
+  const j = new Float64Array(n * 3), u = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const sw = w ? Math.sqrt(w[i]) : 1;
+    const e = Math.exp(-k * (x[i] - xRef));
+    j[3 * i] = sw * e; j[3 * i + 1] = -sw * a0 * (x[i] - xRef) * e; j[3 * i + 2] = sw;
+    u[i] = sw * (y[i] - a0 * e - b);
+  }
+  return ar1Covariance(j, u, n, 3);
 }
 
 /** The LM refinement with an analytic Jacobian; FitErrors are re-labelled with this function's name. */

@@ -45,6 +45,17 @@ function fileSource(handle: FileHandle, size: number): FileByteSource {
       }
       return filled === want ? out : out.subarray(0, filled);
     },
+    async readInto(offset: number, target: Uint8Array): Promise<number> {
+      const start = Math.min(Math.max(0, offset), size);
+      const want = Math.max(0, Math.min(target.length, size - start));
+      let filled = 0;
+      while (filled < want) {
+        const { bytesRead } = await handle.read(target, filled, want - filled, start + filled);
+        if (bytesRead === 0) break;
+        filled += bytesRead;
+      }
+      return filled;
+    },
     async close(): Promise<void> {
       if (closed) return;
       closed = true;

@@ -1,14 +1,25 @@
-// Open a stack file: tags with the core reader, pixels with the pure-JS geotiff decoder.
+// Open a stack file: tags with the core reader, pixels on the direct path (geotiff where it does not reach).
 import type { PlaneSource, StackInfo } from '../model';
-import { createGeotiffPlaneSource, readStackInfo, type StackInfoOptions } from '../tiff';
+import { createDirectPlaneSource, createGeotiffPlaneSource, directPathRefusal, readStackInfo, type ChunkCodecs, type StackInfoOptions } from '../tiff';
 import { openFileByteSource } from './file-byte-source';
+import { NODE_CHUNK_CODECS } from './node-codecs';
 
-/** Reads the StackInfo of `path` and returns a geotiff PlaneSource over it; close the source when done. */
-export async function openStackFile(path: string, fileLabel: string, options: StackInfoOptions = {}): Promise<{ info: StackInfo; source: PlaneSource }> {
+/** Options for openStackFile. */
+export interface OpenStackOptions extends StackInfoOptions {
+  /** 'direct' (default): the direct path where it reaches, else geotiff; 'geotiff': always geotiff (the reference). */
+  readonly decoder?: 'direct' | 'geotiff';
+  /** Decoders for the direct path; default the pure ones plus node:zlib's Deflate. */
+  readonly codecs?: ChunkCodecs;
+}
+
+/** Reads the StackInfo of `path` and returns a PlaneSource over it; close the source when done. */
+export async function openStackFile(path: string, fileLabel: string, options: OpenStackOptions = {}): Promise<{ info: StackInfo; source: PlaneSource }> {
   const bytes = await openFileByteSource(path, fileLabel);
   try {
     const info = await readStackInfo(bytes, fileLabel, options);
-    return { info, source: createGeotiffPlaneSource(bytes, info, fileLabel) };
+    const codecs = options.codecs ?? NODE_CHUNK_CODECS;
+    const direct = options.decoder !== 'geotiff' && directPathRefusal(info, codecs) === null;
+    return { info, source: direct ? createDirectPlaneSource(bytes, info, codecs, fileLabel) : createGeotiffPlaneSource(bytes, info, fileLabel) };
   } catch (err) {
     await bytes.close();
     throw err;

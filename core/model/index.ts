@@ -44,7 +44,7 @@ export interface Mask {
 }
 
 /** Where a pixel size came from; always reported next to the value. */
-export type PixelSizeSource = 'ome' | 'tiff-resolution' | 'user' | 'unknown';
+export type PixelSizeSource = 'ome' | 'ome-zarr' | 'tiff-resolution' | 'user' | 'unknown';
 
 /** Pixel size in micrometres per pixel, with its provenance. */
 export interface PixelSize {
@@ -52,6 +52,15 @@ export interface PixelSize {
   readonly yUm: number | null;
   readonly zUm: number | null;
   readonly source: PixelSizeSource;
+}
+
+/** Where the time of each time point came from; always reported next to the values. */
+export type TimeSource = 'ome-plane' | 'ome-increment' | 'imagej' | 'user' | 'unknown';
+
+/** Time of each time point in seconds from the first, with its provenance; timesS is null when unknown. */
+export interface TimeAxis {
+  readonly timesS: Float64Array | null;
+  readonly source: TimeSource;
 }
 
 /** The six OME DimensionOrder values. */
@@ -74,6 +83,8 @@ export interface StackInfo {
   readonly pixelSize: PixelSize;
   /** Human-readable compression of the first plane, e.g. "LZW + horizontal predictor". */
   readonly compression: string;
+  /** TIFF Compression code of the first plane (TIFF 6.0 §3; 34925 LZMA, 50000 Zstandard); absent for other formats. */
+  readonly compressionCode?: number;
   /** IFD index of plane (z, c, t): planeIfd[(t * sizeC + c) * sizeZ + z]. */
   readonly planeIfd: Int32Array;
   /** Number of IFDs in the main chain. */
@@ -81,6 +92,8 @@ export interface StackInfo {
   /** Raw ImageDescription of IFD 0 (OME-XML or other text), or null. */
   readonly description: string | null;
   readonly warnings: readonly string[];
+  /** Time of each time point (length sizeT) when the file says; absent or timesS null = unknown. */
+  readonly time?: TimeAxis;
 }
 
 /** Z projection methods. 'slice' takes one chosen plane. */
@@ -119,6 +132,16 @@ export interface ExponentialFit {
   readonly lambdaCiHighUm: number;
   readonly lambdaEl: number;
   readonly lambdaSeEl: number;
+  /** Model-based SE of λ (µm): s²·(JᵀWJ)⁻¹ with s² from the residuals, errors independent between bins. */
+  readonly lambdaSeModelUm: number;
+  /** SE of λ (µm) allowing first-order autoregressive correlation of the residuals along x; NaN if not computable. */
+  readonly lambdaSeSerialUm: number;
+  /** Which of the two gave lambdaSeUm and the interval (the wider). */
+  readonly lambdaSeSource: 'model' | 'serial';
+  /** Lag-1 correlation of the (weighted) residuals along x. */
+  readonly residualLag1: number;
+  /** Whether bins were weighted by their inverse variance (n/SD²). */
+  readonly weighted: boolean;
   readonly background: number;
   readonly backgroundSe: number;
   readonly r2: number;

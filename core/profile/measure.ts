@@ -35,6 +35,19 @@ export function filledBins(p: Profile): Profile {
 }
 
 /**
+ * Inverse-variance weights n/SD² of bin means (relative; the fit estimates the common scale from its residuals).
+ * A bin's variance is floored at 1% of the median so that one bin with a tiny SD cannot take all the weight; bins
+ * with fewer than 2 pixels get the median variance. Null (unweighted) when no bin has a usable SD.
+ */
+export function binWeights(sd: Float64Array, n: Float64Array): Float64Array | null {
+  const variance = Float64Array.from(sd, (s, i) => (n[i] >= 2 && s > 0 && Number.isFinite(s) ? (s * s) / n[i] : NaN));
+  const usable = Array.from(variance).filter(Number.isFinite).sort((a, b) => a - b);
+  if (usable.length === 0) return null;
+  const median = usable[Math.floor(usable.length / 2)];
+  return variance.map((v) => 1 / (Number.isFinite(v) ? Math.max(v, 0.01 * median) : median));
+}
+
+/**
  * Exponential fit of a profile over settings.fitRangeEl; null + warning on failure. Without a pixel size the fit
  * runs in pixels and its µm values are NaN (λ in EL stays valid).
  */
@@ -43,7 +56,8 @@ export function fitProfile(profile: Profile, axisPx: number, pixelSizeUm: number
   const scale = pixelSizeUm ?? 1;
   const xUm = Float64Array.from(p.xEl, (x) => x * axisPx * scale);
   try {
-    const fit = fitExponentialDecay(xUm, p.mean, { eggLengthUm: axisPx * scale, fitRangeEl, xEl: p.xEl });
+    const weights = binWeights(p.sd, p.n);
+    const fit = fitExponentialDecay(xUm, p.mean, { eggLengthUm: axisPx * scale, fitRangeEl, xEl: p.xEl, ...(weights ? { weights } : {}) });
     if (pixelSizeUm !== null) return fit;
     return { ...fit, lambdaUm: NaN, lambdaSeUm: NaN, lambdaCiLowUm: NaN, lambdaCiHighUm: NaN };
   } catch (e) {

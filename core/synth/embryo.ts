@@ -35,10 +35,33 @@ export interface SyntheticEmbryo {
   readonly truth: SyntheticTruth;
 }
 
-/** x/EL where a gradient of amplitude ampl decays to level (x = λ·ln(ampl/level)). */
-function thresholdEl(p: SyntheticEmbryoParams, level: number): number {
+/** Relative gradient level at xAp µm from the anterior pole: exp(−x/λ), or the sampled shape when given. */
+export function gradientShapeAt(p: SyntheticEmbryoParams, xAp: number): number {
+  const shape = p.gradientShape;
+  if (!shape) return Math.exp(-xAp / p.lambdaUm);
+  const u = Math.max(0, xAp / shape.stepUm);
+  const i = Math.floor(u);
+  if (i >= shape.values.length - 1) return shape.values[shape.values.length - 1];
+  return shape.values[i] + (u - i) * (shape.values[i + 1] - shape.values[i]);
+}
+
+/** µm from the anterior pole where the gradient first falls to `level` (x = λ·ln(ampl/level) for the exponential). */
+function thresholdUm(p: SyntheticEmbryoParams, level: number): number {
   const ampl = p.gradientAmplitude * p.dosage;
-  return ampl > level && level > 0 ? (p.lambdaUm * Math.log(ampl / level)) / p.eggLengthUm : NaN;
+  if (!(level > 0)) return NaN;
+  if (!p.gradientShape) return ampl > level ? p.lambdaUm * Math.log(ampl / level) : NaN;
+  const { stepUm, values } = p.gradientShape;
+  if (!(ampl * values[0] > level)) return NaN;
+  for (let i = 1; i < values.length; i++) {
+    const a = ampl * values[i - 1], b = ampl * values[i];
+    if (b <= level) return (i - 1 + (a - level) / (a - b)) * stepUm;
+  }
+  return NaN;
+}
+
+/** x/EL where the gradient of amplitude ampl decays to level. */
+function thresholdEl(p: SyntheticEmbryoParams, level: number): number {
+  return thresholdUm(p, level) / p.eggLengthUm;
 }
 
 /** Random or given placement that keeps the rotated ellipse (plus a margin) inside the frame. */
@@ -52,6 +75,13 @@ function placement(p: SyntheticEmbryoParams, rng: Rng): { centre: ImagePoint; an
   const hy = Math.hypot(a * Math.sin(th), b * Math.cos(th)) + 12;
   const pick = (size: number, h: number): number => (size - 1 - 2 * h > 0 ? h + rng.uniform() * (size - 1 - 2 * h) : (size - 1) / 2);
   return { centre: { x: pick(p.widthPx, hx), y: pick(p.heightPx, hy) }, angleDeg };
+}
+
+/** The centre (px) and A→P angle (degrees) an embryo made from these params and seed gets. */
+export function syntheticPlacement(params: Partial<SyntheticEmbryoParams>, seed: number): { centre: ImagePoint; angleDeg: number } {
+  const p: SyntheticEmbryoParams = { ...DEFAULT_SYNTH_PARAMS, ...params };
+  checkSynthParams(p);
+  return placement(p, createRng(seed));
 }
 
 /** Build the truth record from the placement. */
@@ -116,7 +146,9 @@ function embryoFrame(p: SyntheticEmbryoParams, t: SyntheticTruth, box: Box): Fra
   const ampl = p.gradientAmplitude * p.dosage;
   const period = 7; // µm between nuclei of the texture
   const widthUm = p.boundaryWidthUm > 0 ? p.boundaryWidthUm : 1e-6;
-  const xb = p.lambdaUm * Math.log(ampl / p.boundaryThreshold);
+  // A sampled shape that never reaches the threshold leaves the boundary channel off.
+  const xbShape = p.gradientShape ? thresholdUm(p, p.boundaryThreshold) : NaN;
+  const xb = !p.gradientShape ? p.lambdaUm * Math.log(ampl / p.boundaryThreshold) : Number.isFinite(xbShape) ? xbShape : -Infinity;
   for (let y = box.y0; y < box.y1; y++) {
     const dy = (y - t.centre.y) * px;
     for (let x = box.x0; x < box.x1; x++) {
@@ -128,7 +160,7 @@ function embryoFrame(p: SyntheticEmbryoParams, t: SyntheticTruth, box: Box): Fra
       const tex = 1 - p.nucleiContrast * 0.5 * (1 - Math.cos((2 * Math.PI * X) / period) * Math.cos((2 * Math.PI * Y) / period));
       f.X[i] = X;
       f.Y[i] = Y;
-      f.gradient[i] = (p.gradientBaseline + ampl * Math.exp(-xAp / p.lambdaUm)) * tex;
+      f.gradient[i] = (p.gradientBaseline + ampl * gradientShapeAt(p, xAp)) * tex;
       f.boundary[i] = (p.boundaryAmplitude * tex) / (1 + Math.exp((xAp - xb) / widthUm));
     }
   }

@@ -1,6 +1,12 @@
 // Parameters of the synthetic embryo generator (demo data: an invented scenario, not any real specimen).
 import type { ImagePoint } from '../model';
 
+/** A sampled gradient shape: values[i] is the relative level at i·stepUm from the anterior pole. */
+export interface GradientShape {
+  readonly stepUm: number;
+  readonly values: Float64Array;
+}
+
 /** Everything that shapes one synthetic embryo stack. Intensities are in photons unless named otherwise. */
 export interface SyntheticEmbryoParams {
   readonly widthPx: number;
@@ -17,6 +23,11 @@ export interface SyntheticEmbryoParams {
   readonly angleDeg: number | null;
   /** Decay length of the gradient, µm. */
   readonly lambdaUm: number;
+  /**
+   * Shape of the gradient instead of exp(−x/λ): relative level sampled every stepUm from the anterior pole (linear
+   * between samples, the last value beyond), e.g. one time point of a forming gradient; null = the exponential.
+   */
+  readonly gradientShape: GradientShape | null;
   /** Gradient amplitude at the anterior pole for dosage 1 (photons). */
   readonly gradientAmplitude: number;
   /** Dosage factor f multiplying the gradient amplitude. */
@@ -59,6 +70,7 @@ export const DEFAULT_SYNTH_PARAMS: SyntheticEmbryoParams = Object.freeze({
   centre: null,
   angleDeg: null,
   lambdaUm: 100,
+  gradientShape: null,
   gradientAmplitude: 1500,
   dosage: 1,
   gradientBaseline: 40,
@@ -83,6 +95,10 @@ export function checkSynthParams(p: SyntheticEmbryoParams): void {
   for (const k of positive) if (!(p[k] > 0) || !Number.isFinite(p[k])) throw new Error(`${k} must be a positive number, got ${p[k]}`);
   for (const k of ['widthPx', 'heightPx', 'sizeZ'] as const) {
     if (!Number.isInteger(p[k])) throw new Error(`${k} must be an integer, got ${p[k]}`);
+  }
+  const shape = p.gradientShape;
+  if (shape && !(shape.stepUm > 0 && shape.values.length >= 2 && shape.values.every(Number.isFinite))) {
+    throw new Error('gradientShape must have stepUm > 0 and at least 2 finite values');
   }
   if (p.eggWidthUm > p.eggLengthUm) throw new Error(`eggWidthUm (${p.eggWidthUm}) must not exceed eggLengthUm (${p.eggLengthUm})`);
 }

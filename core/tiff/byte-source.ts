@@ -6,6 +6,8 @@ export interface ByteSource {
   readonly size: number;
   /** Bytes [offset, offset + length), clipped to the file size. */
   read(offset: number, length: number): Promise<Uint8Array>;
+  /** Optional: reads bytes from `offset` into `target` (clipped at the end of the file) and returns how many. */
+  readInto?(offset: number, target: Uint8Array): Promise<number>;
 }
 
 /** A ByteSource over bytes already in memory (tests, generated files). */

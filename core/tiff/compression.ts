@@ -6,6 +6,16 @@ const COMPRESSION_NAMES: Record<number, string> = {
   50000: 'Zstandard', 50001: 'WebP',
 };
 
+/** Compression codes some decoder of Eggline reads (the direct path, or sharp/geotiff for JPEG). */
+const READABLE = new Set([1, 5, 7, 8, 32946, 32773, 34925, 50000]);
+
+/** Null when Eggline can decode `compression`, else the reason: "compression 34712 (JPEG 2000) is not supported". */
+export function unsupportedCompression(compression: number): string | null {
+  if (READABLE.has(compression)) return null;
+  const name = COMPRESSION_NAMES[compression];
+  return `compression ${compression}${name ? ` (${name})` : ''} is not supported (Eggline reads none, LZW, PackBits, Deflate, LZMA, Zstandard and JPEG)`;
+}
+
 /** "LZW + horizontal predictor", "none", "Deflate + floating-point predictor", "compression 12345". */
 export function describeCompression(compression: number, predictor: number): string {
   const name = COMPRESSION_NAMES[compression] ?? `compression ${compression}`;

@@ -16,11 +16,24 @@ export function describeStack(info: StackInfo): string[] {
     `channels: ${info.channelNames.map((n, c) => `${c + 1}=${n}`).join(', ')} (1-based, as in --gradient-channel)`,
     `pixel size: ${info.pixelSize.xUm === null ? 'unknown' : `${um(info.pixelSize.xUm)} × ${um(info.pixelSize.yUm)}`}` +
       `${info.pixelSize.zUm !== null ? `, z step ${um(info.pixelSize.zUm)}` : ''} (source: ${info.pixelSize.source})`,
+    ...timeLines(info),
     `sample type: ${info.sampleType}${info.samplesPerPixel > 1 ? `, ${info.samplesPerPixel} samples per pixel` : ''}`,
     `compression: ${info.compression}`,
     ...planeMapLines(info),
   ];
   return [...lines, ...info.warnings.map((w) => `warning: ${w}`)];
+}
+
+/** "time points: …" for movies: count, spacing or range, and where the times came from. */
+function timeLines(info: StackInfo): string[] {
+  if (info.sizeT <= 1) return [];
+  const times = info.time?.timesS ?? null;
+  if (!times) return [`time points: ${info.sizeT}, times unknown (give --time-step S)`];
+  const last = times[times.length - 1];
+  const step = last / (times.length - 1);
+  const even = times.every((v, t) => Math.abs(v - t * step) <= 1e-6 * Math.max(1, last));
+  const span = `${Number(last.toPrecision(6))} s`;
+  return [`time points: ${info.sizeT}, ${even ? `every ${Number(step.toPrecision(6))} s` : 'unevenly spaced'}, 0 to ${span} (source: ${info.time!.source})`];
 }
 
 /** "plane map: t0 c0: IFD 0..2" lines, one per (t, c), compressed into ranges when consecutive. */

@@ -1,4 +1,5 @@
 // Hyperstack sizes and calibration from an ImageJ-style ImageDescription ("ImageJ=…\nchannels=2\nslices=5…").
+import { secondsPerUnit } from './time-units';
 
 /** What an ImageJ-style description declares; fields are null when absent. */
 export interface ImageJDescription {
@@ -10,6 +11,8 @@ export interface ImageJDescription {
   readonly unitUm: number | null;
   /** Z spacing in the description's unit, converted to µm when the unit is known. */
   readonly spacingUm: number | null;
+  /** Time between frames: finterval in tunit (default seconds), in seconds; null when absent or not positive. */
+  readonly frameIntervalS: number | null;
 }
 
 /** Parses "key=value" lines of a description starting with "ImageJ="; null for other text. */
@@ -27,9 +30,12 @@ export function parseImageJDescription(description: string): ImageJDescription |
   const unit = (fields.get('unit') ?? '').replace(/\\u00B5/g, '\u00B5');
   const unitUm = ['micron', 'microns', 'um', '\u00B5m', '\u03BCm'].includes(unit) ? 1 : unit === 'nm' ? 1e-3 : unit === 'mm' ? 1e3 : null;
   const spacing = Number(fields.get('spacing'));
+  const finterval = Number(fields.get('finterval'));
+  const tunit = secondsPerUnit((fields.get('tunit') ?? 's').replace(/\\u00B5/g, '\u00B5'));
   return {
     images: int('images'), channels: int('channels'), slices: int('slices'), frames: int('frames'),
     unitUm,
     spacingUm: unitUm !== null && Number.isFinite(spacing) && spacing > 0 ? spacing * unitUm : null,
+    frameIntervalS: tunit !== null && Number.isFinite(finterval) && finterval > 0 ? finterval * tunit : null,
   };
 }

@@ -15,6 +15,8 @@ export interface OmeXmlFields {
   readonly physicalSizeXUm: number;
   readonly physicalSizeYUm: number;
   readonly physicalSizeZUm: number | null;
+  /** Pixels/@TimeIncrement in seconds; null = not written. */
+  readonly timeIncrementS?: number | null;
 }
 
 /** Escapes text for an XML attribute value. */
@@ -27,6 +29,7 @@ export function buildOmeXml(f: OmeXmlFields): string {
   const ns = 'http://www.openmicroscopy.org/Schemas/OME/2016-06';
   const mu = '\u00B5m';
   const z = f.physicalSizeZUm !== null ? ` PhysicalSizeZ="${f.physicalSizeZUm}" PhysicalSizeZUnit="${mu}"` : '';
+  const time = f.timeIncrementS != null ? ` TimeIncrement="${f.timeIncrementS}" TimeIncrementUnit="s"` : '';
   const channels = f.channelNames.map((name, c) => `<Channel ID="Channel:0:${c}" Name="${attr(name)}" SamplesPerPixel="1"/>`);
   const planeCount = f.sizeZ * f.sizeC * f.sizeT;
   return [
@@ -35,7 +38,7 @@ export function buildOmeXml(f: OmeXmlFields): string {
     '<Image ID="Image:0" Name="image">',
     `<Pixels ID="Pixels:0" DimensionOrder="${f.dimensionOrder}" Type="${f.type}" SizeX="${f.sizeX}" SizeY="${f.sizeY}" ` +
       `SizeZ="${f.sizeZ}" SizeC="${f.sizeC}" SizeT="${f.sizeT}" PhysicalSizeX="${f.physicalSizeXUm}" PhysicalSizeXUnit="${mu}" ` +
-      `PhysicalSizeY="${f.physicalSizeYUm}" PhysicalSizeYUnit="${mu}"${z} BigEndian="false">`,
+      `PhysicalSizeY="${f.physicalSizeYUm}" PhysicalSizeYUnit="${mu}"${z}${time} BigEndian="false">`,
     ...channels,
     `<TiffData IFD="0" PlaneCount="${planeCount}"/>`,
     '</Pixels>',

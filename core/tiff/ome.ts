@@ -3,6 +3,7 @@ import { XMLParser, XMLValidator } from 'fast-xml-parser';
 import type { DimensionOrder } from '../model';
 import { isDimensionOrder } from './dimension-order';
 import { TiffError } from './errors';
+import { secondsPerUnit } from './time-units';
 import { micrometresPerUnit } from './units';
 
 /** One TiffData element; undefined attributes take the schema defaults later. */
@@ -32,6 +33,10 @@ export interface OmeImage {
   readonly channelNames: readonly string[];
   readonly channelSamples: readonly number[];
   readonly tiffData: readonly OmeTiffData[];
+  /** Pixels/@TimeIncrement in seconds, or null when absent or not a time. */
+  readonly timeIncrementS: number | null;
+  /** Per time point, the earliest Plane/@DeltaT in seconds among its planes (NaN where none); null without any. */
+  readonly planeDeltaTS: Float64Array | null;
   readonly imageCount: number;
   readonly warnings: readonly string[];
 }
@@ -48,7 +53,7 @@ const parser = new XMLParser({
   attributeNamePrefix: '@_',
   removeNSPrefix: true,
   parseAttributeValue: false,
-  isArray: (name) => ['Image', 'Channel', 'TiffData'].includes(name),
+  isArray: (name) => ['Image', 'Channel', 'TiffData', 'Plane'].includes(name),
 });
 
 /** Parses OME-XML; throws TiffError('bad-ome') when it is malformed or lacks required Pixels attributes. */
@@ -82,6 +87,7 @@ function readPixels(pixels: Node, imageCount: number, fileLabel: string): OmeIma
   const order = String(pixels['@_DimensionOrder'] ?? '');
   if (!isDimensionOrder(order)) throw new TiffError('bad-ome', fileLabel, `OME-XML DimensionOrder "${order}" is not one of the six orders`);
   const channels = (pixels.Channel as Node[] | undefined) ?? [];
+  const sizeT = sizeAttr(pixels, 'SizeT', fileLabel);
   return {
     dimensionOrder: order,
     type: String(pixels['@_Type'] ?? ''),
@@ -89,13 +95,15 @@ function readPixels(pixels: Node, imageCount: number, fileLabel: string): OmeIma
     sizeY: sizeAttr(pixels, 'SizeY', fileLabel),
     sizeZ: sizeAttr(pixels, 'SizeZ', fileLabel),
     sizeC: sizeAttr(pixels, 'SizeC', fileLabel),
-    sizeT: sizeAttr(pixels, 'SizeT', fileLabel),
+    sizeT,
     physicalSizeXUm: physicalSize(pixels, 'X', warnings),
     physicalSizeYUm: physicalSize(pixels, 'Y', warnings),
     physicalSizeZUm: physicalSize(pixels, 'Z', warnings),
     channelNames: channels.map((ch) => String(ch['@_Name'] ?? '')),
     channelSamples: channels.map((ch) => Number(ch['@_SamplesPerPixel'] ?? 1)),
     tiffData: ((pixels.TiffData as Node[] | undefined) ?? []).map(readTiffData),
+    timeIncrementS: timeIncrement(pixels, warnings),
+    planeDeltaTS: planeDeltaT((pixels.Plane as Node[] | undefined) ?? [], sizeT, warnings),
     imageCount,
     warnings,
   };
@@ -133,4 +141,45 @@ function readTiffData(node: Node | string): OmeTiffData {
     planeCount: opt('PlaneCount'),
     fileName,
   };
+}
+
+/** A time attribute in seconds with its unit attribute (default s); null, with a warning, when not a time. */
+function seconds(node: Node, name: string, warnings: string[]): number | null {
+  const raw = node[`@_${name}`];
+  if (raw === undefined) return null;
+  const unit = String(node[`@_${name}Unit`] ?? 's');
+  const scale = secondsPerUnit(unit);
+  const value = Number(raw);
+  if (scale === null || !Number.isFinite(value)) {
+    warnings.push(`OME ${name} "${String(raw)}" ${unit} is not a time; ignored`);
+    return null;
+  }
+  return value * scale;
+}
+
+/** Pixels/@TimeIncrement (with TimeIncrementUnit) in seconds when positive. */
+function timeIncrement(pixels: Node, warnings: string[]): number | null {
+  const s = seconds(pixels, 'TimeIncrement', warnings);
+  return s !== null && s > 0 ? s : null;
+}
+
+/**
+ * The earliest Plane/@DeltaT of each time point, in seconds (one pass over the Plane elements, so movies with
+ * thousands of planes cost time linear in their number); null when no Plane has a DeltaT.
+ */
+function planeDeltaT(planes: readonly Node[], sizeT: number, warnings: string[]): Float64Array | null {
+  const out = new Float64Array(sizeT).fill(NaN);
+  let any = false;
+  const before = warnings.length;
+  for (const plane of planes) {
+    const t = Number(plane['@_TheT'] ?? 0);
+    if (!(Number.isInteger(t) && t >= 0 && t < sizeT)) continue;
+    const s = seconds(plane, 'DeltaT', warnings);
+    if (s === null) continue;
+    any = true;
+    if (!(out[t] <= s)) out[t] = s;
+  }
+  // One bad unit would otherwise repeat on every plane.
+  if (warnings.length > before + 1) warnings.splice(before + 1, warnings.length - before - 1, `… and ${warnings.length - before - 1} more Plane DeltaT values ignored`);
+  return any ? out : null;
 }

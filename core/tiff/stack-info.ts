@@ -1,12 +1,13 @@
 // readStackInfo: everything about a stack that the tags say, without decoding pixels.
 import type { DimensionOrder, PixelSize, SampleType, StackInfo } from '../model';
 import type { ByteSource } from './byte-source';
-import { describeCompression, isBilevelCompression } from './compression';
+import { describeCompression, isBilevelCompression, unsupportedCompression } from './compression';
 import { sequentialPlaneMap, mapOmePlanes } from './plane-map';
 import { TiffError } from './errors';
 import { readTiffHeader, type TiffHeader } from './header';
 import { readIfdChain, type Ifd } from './ifd';
 import { parseImageJDescription } from './imagej';
+import { parseShapeDescription } from './shape-description';
 import { readImageLayout, type ImageLayout } from './layout';
 import { looksLikeOmeXml, parseOmeXml, type OmeImage } from './ome';
 import { micrometresPerPixel } from './resolution';
@@ -16,6 +17,7 @@ import { Tag } from './tags';
 import { checkPlaneBudget } from './budget';
 import { cachedByteSource } from './block-cache';
 import { colourModelOf } from './photometric';
+import { omeTimeAxis, imagejTimeAxis } from './time-axis';
 
 /** Options for readStackInfo. */
 export interface StackInfoOptions {
@@ -33,6 +35,8 @@ export async function readStackInfo(file: ByteSource, fileLabel: string, options
   const layout = await readImageLayout(source, header, ifds[0], fileLabel);
   if (isBilevelCompression(layout.compression)) throw new TiffError('unsupported', fileLabel, '1-bit (bilevel) images are not supported');
   const sampleType = sampleTypeOf(layout, fileLabel);
+  const compressionProblem = unsupportedCompression(layout.compression);
+  if (compressionProblem !== null) throw new TiffError('unsupported', fileLabel, compressionProblem);
   const colour = colourModelOf(layout.photometric);
   if (colour !== null) {
     throw new TiffError('unsupported', fileLabel, `${colour} images are not supported for analysis (export the raw grey-level channels)`);
@@ -75,6 +79,7 @@ function common(base: BaseInfo) {
     sampleType: base.sampleType,
     samplesPerPixel: base.layout.samplesPerPixel,
     compression: describeCompression(base.layout.compression, base.layout.predictor),
+    compressionCode: base.layout.compression,
     ifdCount: base.ifds.length,
     description: base.description,
   };
@@ -83,8 +88,9 @@ function common(base: BaseInfo) {
 /** OME-TIFF: sizes, order, channel names and physical sizes from the XML; TIFF values win on disagreement. */
 async function omeStack(_source: ByteSource, base: BaseInfo, ome: OmeImage, fileLabel: string): Promise<StackInfo> {
   const warnings = [...ome.warnings];
-  if (base.layout.samplesPerPixel > 1) {
-    throw new TiffError('unsupported', fileLabel, `OME-TIFF with ${base.layout.samplesPerPixel} samples per pixel (RGB) is not supported for analysis`);
+  const spp = base.layout.samplesPerPixel;
+  if (spp > 1 && ome.sizeC !== spp) {
+    throw new TiffError('unsupported', fileLabel, `OME-TIFF with ${spp} samples per pixel and ${ome.sizeC} channels is not supported (only one channel per sample)`);
   }
   if (ome.sizeX !== base.layout.widthPx || ome.sizeY !== base.layout.heightPx) {
     warnings.push(`OME size ${ome.sizeX}×${ome.sizeY} differs from the TIFF size ${base.layout.widthPx}×${base.layout.heightPx}; using the TIFF size`);
@@ -92,13 +98,19 @@ async function omeStack(_source: ByteSource, base: BaseInfo, ome: OmeImage, file
   const omeType = ome.type === 'float' ? 'float32' : ome.type === 'double' ? 'float64' : ome.type;
   if (omeType !== base.sampleType) warnings.push(`OME Type "${ome.type}" differs from the TIFF sample type ${base.sampleType}; using the TIFF type`);
   const counts = { sizeZ: ome.sizeZ, sizeC: ome.sizeC, sizeT: ome.sizeT };
-  const planeIfd = mapOmePlanes(ome.dimensionOrder, counts, ome.tiffData, base.ifds.length, fileLabel);
+  // Several samples per pixel that are not colour (colour was refused above): each sample is one channel, and the
+  // OME planes count the IFDs with one channel.
+  const planeIfd = spp > 1
+    ? expandSamplesZt(mapOmePlanes(ome.dimensionOrder, { ...counts, sizeC: 1 }, ome.tiffData, base.ifds.length, fileLabel), spp, ome.sizeZ, ome.sizeT)
+    : mapOmePlanes(ome.dimensionOrder, counts, ome.tiffData, base.ifds.length, fileLabel);
+  if (spp > 1) warnings.push(`${spp} samples per pixel read as ${spp} channels`);
   const pixelSize: PixelSize = ome.physicalSizeXUm !== null
     ? { xUm: ome.physicalSizeXUm, yUm: ome.physicalSizeYUm ?? ome.physicalSizeXUm, zUm: ome.physicalSizeZUm, source: 'ome' }
     : resolutionPixelSize(base.layout, ome.physicalSizeZUm);
   if (pixelSize.source === 'unknown') warnings.push('pixel size unknown (no OME PhysicalSizeX and no usable resolution tags)');
   const channelNames = Array.from({ length: ome.sizeC }, (_, c) => ome.channelNames[c] || `C${c}`);
-  return { ...common(base), isOme: true, ...counts, dimensionOrder: ome.dimensionOrder, channelNames, pixelSize, planeIfd, warnings };
+  const time = omeTimeAxis(ome, warnings);
+  return { ...common(base), isOme: true, ...counts, dimensionOrder: ome.dimensionOrder, channelNames, pixelSize, planeIfd, warnings, time };
 }
 
 /** Plain TIFF: full-resolution IFDs as Z (or ImageJ channels/slices/frames); samples per pixel become channels. */
@@ -112,9 +124,17 @@ async function plainStack(source: ByteSource, base: BaseInfo, fileLabel: string)
   const spp = base.layout.samplesPerPixel;
   let counts = { sizeZ: planes.length, sizeC: 1, sizeT: 1 };
   let order: DimensionOrder = 'XYZCT';
+  const shape = base.description !== null && imagej === null
+    ? parseShapeDescription(base.description, base.layout.widthPx, base.layout.heightPx, spp, planes.length)
+    : null;
   if (spp > 1) {
     warnings.push(`${spp} samples per pixel read as ${spp} channels`);
     counts = { sizeZ: planes.length, sizeC: spp, sizeT: 1 };
+    if (shape && shape.sizeC === 1 && shape.sizeT === 1) counts = { sizeZ: shape.sizeZ, sizeC: spp, sizeT: 1 };
+  } else if (shape && (shape.sizeC > 1 || shape.sizeT > 1)) {
+    counts = { sizeZ: shape.sizeZ, sizeC: shape.sizeC, sizeT: shape.sizeT };
+    order = 'XYCZT'; // row-major [T, Z, C] pages: channel fastest
+    warnings.push(`tifffile shape [${shape.shape.join(', ')}] read as ${shape.sizeT > 1 ? 'T × ' : ''}Z × C × Y × X (the file names no axes)`);
   } else if (imagej && (imagej.channels ?? 1) * (imagej.slices ?? 1) * (imagej.frames ?? 1) === planes.length) {
     counts = { sizeZ: imagej.slices ?? 1, sizeC: imagej.channels ?? 1, sizeT: imagej.frames ?? 1 };
     order = 'XYCZT'; // ImageJ hyperstacks store channel fastest, then slice, then frame
@@ -129,13 +149,21 @@ async function plainStack(source: ByteSource, base: BaseInfo, fileLabel: string)
   }
   if (pixelSize.source === 'unknown') warnings.push('pixel size unknown (no usable resolution tags)');
   const channelNames = Array.from({ length: counts.sizeC }, (_, c) => `C${c}`);
-  return { ...common(base), isOme: false, ...counts, dimensionOrder: order, channelNames, pixelSize, planeIfd, warnings };
+  const time = imagejTimeAxis(imagej, counts.sizeT);
+  return { ...common(base), isOme: false, ...counts, dimensionOrder: order, channelNames, pixelSize, planeIfd, warnings, time };
 }
 
 /** planeIfd when samples are channels: slot (z, c) → IFD of z (every channel shares it). */
 function expandSamples(planes: readonly number[], spp: number): Int32Array {
   const map = new Int32Array(planes.length * spp);
   for (let c = 0; c < spp; c++) for (let z = 0; z < planes.length; z++) map[c * planes.length + z] = planes[z];
+  return map;
+}
+
+/** planeIfd for several samples per pixel from a map with one channel: slot (z, c, t) → IFD of (z, t). */
+function expandSamplesZt(single: Int32Array, spp: number, sizeZ: number, sizeT: number): Int32Array {
+  const map = new Int32Array(sizeZ * spp * sizeT);
+  for (let t = 0; t < sizeT; t++) for (let c = 0; c < spp; c++) for (let z = 0; z < sizeZ; z++) map[(t * spp + c) * sizeZ + z] = single[t * sizeZ + z];
   return map;
 }
 

@@ -24,6 +24,8 @@ export interface OmeTiffMeta {
   readonly physicalSizeYUm?: number;
   readonly physicalSizeZUm?: number;
   readonly compression?: 'none' | 'deflate';
+  /** Seconds between time points, written as Pixels/@TimeIncrement (unit s). */
+  readonly timeIncrementS?: number;
 }
 
 /** Options of a plain TIFF: resolution tags from a pixel size in µm, free-text description. */
@@ -82,6 +84,7 @@ function checkOmeMeta(planes: readonly WritePlane[], meta: OmeTiffMeta): void {
   checkPositive(meta.physicalSizeXUm, 'physicalSizeXUm');
   checkPositive(meta.physicalSizeYUm, 'physicalSizeYUm');
   checkPositive(meta.physicalSizeZUm, 'physicalSizeZUm');
+  checkPositive(meta.timeIncrementS, 'timeIncrementS');
   if (planes.some((p) => (p.samplesPerPixel ?? 1) !== 1)) throw new Error('OME-TIFF planes must have one sample per pixel');
 }
 
@@ -94,6 +97,7 @@ export function writeOmeTiff(planes: readonly WritePlane[], meta: OmeTiffMeta): 
     sizeX: planes[0].width, sizeY: planes[0].height, sizeZ: meta.sizeZ, sizeC: meta.sizeC, sizeT: meta.sizeT,
     dimensionOrder: meta.dimensionOrder, type: omeType(planes[0].data), channelNames: meta.channelNames,
     physicalSizeXUm: meta.physicalSizeXUm, physicalSizeYUm: yUm, physicalSizeZUm: meta.physicalSizeZUm ?? null,
+    timeIncrementS: meta.timeIncrementS ?? null,
   });
   const resolution = resolutionTags(meta.physicalSizeXUm, yUm, 'cm');
   const compression = meta.compression === 'deflate' ? 8 : 1;

@@ -46,11 +46,20 @@ describe('localAccumulationTime on known relaxations', () => {
   it('counts the time from an onset before the first frame, where C = 0', () => {
     const times = range(700, 5, 100);
     const frames = exponentialApproach(range(700, 5, 100), 300, [1000]);
-    const r = localAccumulationTime(times, frames, { onsetS: 0, plateauFrames: 1 });
+    const r = localAccumulationTime(times, frames, { baselineFrames: 0, onsetS: 0, plateauFrames: 1 });
     expect(r.tauS[0] / 300 - 1).toBeCloseTo(0, 2);
     // The same movie taken as starting at its first frame loses the first 100 s of the rise.
-    const late = localAccumulationTime(times, frames, { plateauFrames: 1 });
+    const late = localAccumulationTime(times, frames, { baselineFrames: 0, plateauFrames: 1 });
     expect(late.tauS[0]).toBeLessThan(r.tauS[0] - 80);
+  });
+
+  it('subtracts the baseline frames (a constant autofluorescence) before the onset', () => {
+    // Demo data: 40 units of constant signal under the relaxation; two frames before production starts at 10 s.
+    const times = range(802, 5, -5);
+    const frames = Array.from(times, (t) => Float64Array.of(40 + (t > 0 ? 1000 * (1 - Math.exp(-t / 300)) : 0)));
+    const r = localAccumulationTime(times, frames, { baselineFrames: 2, plateauFrames: 1 });
+    expect(r.tauS[0] / 300 - 1).toBeCloseTo(0, 3);
+    expect(r.steadyState[0]).toBeCloseTo(1000, 2);
   });
 
   it('leaves NaN where a frame is missing a value or nothing accumulates', () => {
@@ -69,7 +78,9 @@ describe('localAccumulationTime on known relaxations', () => {
     expect(() => localAccumulationTime(times, frames.slice(1))).toThrow('localAccumulationTime: 5 times but 4 frames');
     expect(() => localAccumulationTime([0, 2, 1, 3, 4], frames)).toThrow('localAccumulationTime: times must be finite and increasing (time 2 is 1)');
     expect(() => localAccumulationTime(times, frames, { plateauFrames: 4 })).toThrow(
-      'localAccumulationTime: need at least 6 frames from the onset on (plateauFrames + 2), got 5');
+      'localAccumulationTime: need at least 6 frames after the onset (plateauFrames + 2), got 4');
+    expect(() => localAccumulationTime(times, frames, { baselineFrames: 2, onsetS: 0 })).toThrow(
+      'localAccumulationTime: the onset (0 s) is before the last baseline frame (1 s)');
   });
 });
 

@@ -3,17 +3,28 @@
 // Definition (Berezhkovskii, Sample & Shvartsman 2010, Biophys. J. 99:L59; the definition and reference are from
 // memory, the reference's title, authors and year checked against the publisher's listing):
 //   τ(x) = ∫₀^∞ (1 − C(x,t)/C(x,∞)) dt, with t = 0 the onset of production and C(x,0) = 0.
-// Estimator: C(x,∞) is the mean of the last `plateauFrames` frames, and the integral runs by the trapezoid rule from
-// the onset (C = 0 there) to the last frame. Uncertainty: first-order propagation of frame-to-frame noise, whose SD is
-// estimated per position from the residuals of each frame against the straight line through its two neighbours
-// (robust: 1.4826 × median |residual|, so the curvature of the rise at a few frames does not inflate it).
+// Estimator (positions are usually coarsened first, coarsenProfiles): the mean of the first `baselineFrames` frames (before production; autofluorescence) is subtracted,
+// C(x,∞) is the mean of the last `plateauFrames` frames, and the integral runs by the trapezoid rule from the onset
+// (C = 0 there) to the last frame. Uncertainty: first-order propagation of frame-to-frame noise, whose SD is
+// estimated per position from the residuals of each frame of the movie's second half against the straight line
+// through its two neighbours (robust: 1.4826 × median |residual|, so the curvature of the rise at a few frames does
+// not inflate it; the second half because shot noise grows with the signal).
 // Bias: when the movie ends before steady state, C(x,∞) is underestimated and τ too; for an exponential approach
 // C = C∞(1 − e^{−t/τ}) ended at T the estimate is τ − T·q/(1 − q) with q = e^{−T/τ} (accumulationTruncationBias).
 import { tQuantile } from '../stats';
 
 /** Options of localAccumulationTime. */
 export interface AccumulationOptions {
-  /** Onset of production on the movie's clock, s; default: the first frame's time. Earlier frames are ignored. */
+  /**
+   * Frames at the start, before production begins, whose mean is the baseline subtracted from every frame
+   * (autofluorescence, camera offset left after background subtraction); default 1. 0 = the profiles are already
+   * zero at the onset.
+   */
+  readonly baselineFrames?: number;
+  /**
+   * Onset of production on the movie's clock, s; default: the last baseline frame's time (the first frame's with no
+   * baseline frames). Frames after the baseline ones but not after the onset are left out of the integral.
+   */
   readonly onsetS?: number;
   /** Frames at the end averaged for C(x,∞); default 3. */
   readonly plateauFrames?: number;
@@ -33,7 +44,7 @@ export interface AccumulationResult {
   readonly tauSeS: Float64Array;
   readonly tauCiLowS: Float64Array;
   readonly tauCiHighS: Float64Array;
-  /** C(x,∞) estimated from the last frames, and the frame-to-frame noise SD, in the profile's units. */
+  /** C(x,∞) − baseline estimated from the last frames, and the frame-to-frame noise SD, in the profile's units. */
   readonly steadyState: Float64Array;
   readonly noiseSd: Float64Array;
   /** Rise over the last fifth of the movie (straight-line fit through its frames) / C(x,∞). */
@@ -47,7 +58,9 @@ export interface AccumulationResult {
 
 const NAME = 'localAccumulationTime';
 
-interface Checked { readonly first: number; readonly onsetS: number; readonly plateau: number; readonly riseLimit: number; readonly level: number }
+interface Checked {
+  readonly baseline: number; readonly first: number; readonly onsetS: number; readonly plateau: number; readonly riseLimit: number; readonly level: number;
+}
 
 function checkInputs(timesS: ArrayLike<number>, frames: readonly ArrayLike<number>[], options: AccumulationOptions): Checked {
   if (frames.length !== timesS.length) throw new RangeError(`${NAME}: ${timesS.length} times but ${frames.length} frames`);
@@ -57,21 +70,28 @@ function checkInputs(timesS: ArrayLike<number>, frames: readonly ArrayLike<numbe
     }
     if (frames[i].length !== frames[0].length) throw new RangeError(`${NAME}: frame ${i} has ${frames[i].length} positions, frame 0 has ${frames[0].length}`);
   }
-  const onsetS = options.onsetS ?? timesS[0];
+  const baseline = options.baselineFrames ?? 1;
+  if (!(Number.isInteger(baseline) && baseline >= 0 && baseline < timesS.length)) {
+    throw new RangeError(`${NAME}: baselineFrames must be an integer from 0 to the number of frames − 1, got ${baseline}`);
+  }
+  const onsetS = options.onsetS ?? timesS[Math.max(0, baseline - 1)];
   if (!Number.isFinite(onsetS)) throw new RangeError(`${NAME}: onsetS must be a finite number, got ${onsetS}`);
-  let first = 0;
-  while (first < timesS.length && timesS[first] < onsetS) first++;
+  if (baseline > 0 && onsetS < timesS[baseline - 1]) {
+    throw new RangeError(`${NAME}: the onset (${onsetS} s) is before the last baseline frame (${timesS[baseline - 1]} s)`);
+  }
+  let first = baseline;
+  while (first < timesS.length && timesS[first] <= onsetS) first++;
   const plateau = options.plateauFrames ?? 3;
   if (!(Number.isInteger(plateau) && plateau >= 1)) throw new RangeError(`${NAME}: plateauFrames must be an integer ≥ 1, got ${plateau}`);
   const usable = timesS.length - first;
   if (usable < plateau + 2) {
-    throw new RangeError(`${NAME}: need at least ${plateau + 2} frames from the onset on (plateauFrames + 2), got ${usable}`);
+    throw new RangeError(`${NAME}: need at least ${plateau + 2} frames after the onset (plateauFrames + 2), got ${usable}`);
   }
   const riseLimit = options.riseLimit ?? 0.03;
   if (!(riseLimit > 0 && Number.isFinite(riseLimit))) throw new RangeError(`${NAME}: riseLimit must be a positive number, got ${riseLimit}`);
   const level = options.level ?? 0.95;
   if (!(level > 0 && level < 1)) throw new RangeError(`${NAME}: level must be between 0 and 1 (exclusive), got ${level}`);
-  return { first, onsetS, plateau, riseLimit, level };
+  return { baseline, first, onsetS, plateau, riseLimit, level };
 }
 
 /** Trapezoid weights of the points (onset, t_first … t_last); index 0 is the onset (value 0, not noisy). */
@@ -105,56 +125,73 @@ export function frameNoiseSd(timesS: ArrayLike<number>, values: ArrayLike<number
   return 1.4826 * med;
 }
 
-/** τ, its SE (for unit noise SD; scale by the noise SD) and C(∞) of one position's series. */
+/**
+ * τ (s), its SE for unit noise SD (scale by the noise SD) and C(∞) − baseline of one position's series.
+ * `values` are the frames after the onset at `timesS`; `baseline` is subtracted from them and is the mean of
+ * `baselineFrames` frames (0 = a known zero), whose noise the SE includes.
+ */
 export function accumulationOfSeries(
   onsetS: number, timesS: ArrayLike<number>, values: ArrayLike<number>, plateauFrames: number,
+  baseline = 0, baselineFrames = 0,
 ): { tauS: number; seUnitNoise: number; steadyState: number } {
   const n = values.length;
   const w = trapezoidWeights(onsetS, timesS);
   let cInf = 0;
-  for (let i = n - plateauFrames; i < n; i++) cInf += values[i];
+  for (let i = n - plateauFrames; i < n; i++) cInf += values[i] - baseline;
   cInf /= plateauFrames;
   let integral = w[0]; // the onset point: C = 0, so 1 − C/C∞ = 1
   let weighted = 0;
   for (let i = 0; i < n; i++) {
-    integral += w[i + 1] * (1 - values[i] / cInf);
-    weighted += w[i + 1] * values[i];
+    integral += w[i + 1] * (1 - (values[i] - baseline) / cInf);
+    weighted += w[i + 1] * (values[i] - baseline);
   }
-  // ∂τ/∂C_i = −w_i/C∞, plus Σw·C/C∞² shared out over the plateau frames that make C∞.
+  // ∂τ/∂C_i = −w_i/C∞, plus Σw·C/C∞² shared out over the plateau frames that make C∞; each baseline frame moves
+  // every C and C∞ alike: ∂τ/∂b = Σw·(C∞ − C)/C∞², shared out over the baseline frames.
   const plateauShare = weighted / (cInf * cInf) / plateauFrames;
   let sumSq = 0;
   for (let i = 0; i < n; i++) {
     const d = -w[i + 1] / cInf + (i >= n - plateauFrames ? plateauShare : 0);
     sumSq += d * d;
   }
+  if (baselineFrames > 0) {
+    const share = (integral - w[0]) / cInf / baselineFrames;
+    sumSq += baselineFrames * share * share;
+  }
   return { tauS: integral, seUnitNoise: Math.sqrt(sumSq), steadyState: cInf };
 }
 
 /**
  * Local accumulation time τ(x) in seconds at every position of a movie's profiles. `frames[t][x]` is the
- * background-subtracted signal at time timesS[t] (s) and position x (any fixed grid, e.g. x/EL bins). Positions
- * with a non-finite value in any used frame, or whose C(∞) is not above twice its noise, get NaN.
+ * background-subtracted signal at time timesS[t] (s) and position x (any fixed grid, e.g. x/EL bins). The mean of
+ * the first baselineFrames frames is subtracted first. Positions with a non-finite value in any frame, or whose
+ * C(∞) is not above twice its noise, get NaN.
  * Throws RangeError on bad options.
  */
 export function localAccumulationTime(
   timesS: ArrayLike<number>, frames: readonly ArrayLike<number>[], options: AccumulationOptions = {},
 ): AccumulationResult {
-  const { first, onsetS, plateau, riseLimit, level } = checkInputs(timesS, frames, options);
-  const times = Float64Array.from(Array.from(timesS).slice(first));
-  const used = frames.slice(first);
+  const { baseline, first, onsetS, plateau, riseLimit, level } = checkInputs(timesS, frames, options);
+  const allTimes = Float64Array.from(timesS);
+  const times = allTimes.subarray(first);
   const positions = frames[0].length;
   const nan = (): Float64Array => new Float64Array(positions).fill(NaN);
   const out = { tauS: nan(), tauSeS: nan(), tauCiLowS: nan(), tauCiHighS: nan(), steadyState: nan(), noiseSd: nan(), lateRise: nan() };
   const stillRising = new Uint8Array(positions);
-  const dof = Math.max(1, times.length - 2);
+  const dof = Math.max(1, frames.length - 2);
   const tq = tQuantile(0.5 + level / 2, dof);
-  const series = new Float64Array(times.length);
+  const all = new Float64Array(frames.length);
   for (let x = 0; x < positions; x++) {
     let finite = true;
-    for (let t = 0; t < times.length; t++) { series[t] = used[t][x]; finite &&= Number.isFinite(series[t]); }
+    for (let t = 0; t < frames.length; t++) { all[t] = frames[t][x]; finite &&= Number.isFinite(all[t]); }
     if (!finite) continue;
-    const noise = frameNoiseSd(times, series);
-    const { tauS, seUnitNoise, steadyState } = accumulationOfSeries(onsetS, times, series, plateau);
+    // Noise from the second half of the movie, where the signal and so its shot noise are largest: a conservative
+    // SD for the earlier, dimmer frames.
+    const half = Math.min(Math.floor(frames.length / 2), frames.length - 3);
+    const noise = frameNoiseSd(allTimes.subarray(half), all.subarray(half));
+    let base = 0;
+    for (let t = 0; t < baseline; t++) base += all[t] / baseline;
+    const series = all.subarray(first);
+    const { tauS, seUnitNoise, steadyState } = accumulationOfSeries(onsetS, times, series, plateau, base, baseline);
     out.steadyState[x] = steadyState;
     out.noiseSd[x] = noise;
     if (!(steadyState > 2 * noise / Math.sqrt(plateau) && steadyState > 0)) continue;

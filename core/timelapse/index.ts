@@ -10,3 +10,5 @@ export { sddAccumulationTimeS, fitAccumulationModel } from './accumulation-model
 export type { AccumulationModelFit, AccumulationModelOptions, Estimate, SteadyLambda } from './accumulation-model';
 export { fitLambdaSeries, shapeFormedAtS } from './lambda-series';
 export type { LambdaAtTime, TimePointProfile } from './lambda-series';
+export { coarsenProfiles } from './coarsen';
+export type { CoarseProfiles } from './coarsen';

@@ -29,8 +29,10 @@ export function FolderList({ folder, entries, current, edited, batchOutcome, onS
           const outcome = batchOutcome(e.name);
           const status = entryStatus(e, edited(e.name), outcome?.status);
           return (
-            <li key={e.path} className={e.name === current ? 'current' : ''} onClick={() => onSelect(e.name)} title={e.message ?? outcome?.message ?? e.path} data-testid="folder-entry">
-              <span className={`status status-${status}`}>{status}</span><span className="fname">{e.name}</span>
+            <li key={e.path} className={e.name === current ? 'current' : ''} data-testid="folder-entry" data-name={e.name} data-status={status}>
+              <button onClick={() => onSelect(e.name)} title={e.message ?? outcome?.message ?? e.path} aria-current={e.name === current ? 'true' : undefined}>
+                <span className={`status status-${status}`}>{status}</span><span className="fname">{e.name}</span>
+              </button>
             </li>
           );
         })}

@@ -20,15 +20,29 @@ export interface ImageOverlayProps {
   readonly fitRangeEl: readonly [number, number];
   readonly halfWidthPx: number;
   readonly selectedLandmark: number | null;
+  /** Which overlays are drawn (all when absent). */
+  readonly visible?: OverlayVisibility;
 }
 
-/** Colours for boundary channels, in order (kept apart from the yellow of the fit). */
-export const BOUNDARY_COLOURS = ['#ff7ad9', '#7fd8ff', '#ff9a6a'];
+/** The overlays that can be shown or hidden. */
+export type OverlayName = 'outline' | 'band' | 'axis' | 'boundaries' | 'landmarks';
 
-/** Colour of a boundary: by its channel's place among the boundary channels, so methods of one channel match. */
-export function boundaryColour(channel: string, channels: readonly string[]): string {
-  return BOUNDARY_COLOURS[Math.max(0, channels.indexOf(channel)) % BOUNDARY_COLOURS.length];
+/** Shown (true) or hidden per overlay. */
+export type OverlayVisibility = Readonly<Record<OverlayName, boolean>>;
+
+/** Every overlay shown. */
+export const ALL_OVERLAYS: OverlayVisibility = { outline: true, band: true, axis: true, boundaries: true, landmarks: true };
+
+/** Where a label next to a point goes: right of it, or left when it would leave the image; never above its top. */
+export function labelPlacement(xPx: number, yPx: number, text: string, widthPx: number, charPx = 6.2): { x: number; y: number } {
+  const w = text.length * charPx;
+  const x = xPx + 10 + w > widthPx - 2 ? Math.max(2, xPx - 10 - w) : xPx + 10;
+  return { x, y: Math.max(12, yPx - 8) };
 }
+
+/** Boundary colours: the same as in exported figures and the report. */
+export { BOUNDARY_COLOURS, boundaryColour } from '../../core/figures';
+import { boundaryColour } from '../../core/figures';
 
 /** Label offsets (px, downwards) so labels that would overlap are stacked; boxes are estimated from text length. */
 export function staggerLabels(items: readonly { x: number; y: number; text: string }[], charPx = 6.2, lineWidthPx = 14): number[] {
@@ -72,29 +86,30 @@ function AxisLayer({ view, axis, fitRangeEl }: { view: ViewTransform; axis: ApAx
 /** All overlays. */
 export function ImageOverlay(props: ImageOverlayProps) {
   const { view, width, height, outline, axis, measurement: m, bandOutlines, fitRangeEl, halfWidthPx, selectedLandmark } = props;
+  const show = props.visible ?? ALL_OVERLAYS;
   return (
     <svg className="image-overlay" width={width} height={height} xmlns="http://www.w3.org/2000/svg">
       <style>{OVERLAY_CSS}</style>
-      {outline.length > 2 && <polygon points={pts(view, outline)} className="outline" />}
-      {bandOutlines.length > 0 && (
+      {show.outline && outline.length > 2 && <polygon points={pts(view, outline)} className="outline" />}
+      {show.band && bandOutlines.length > 0 && (
         // One even-odd path: the band's outer and inner contours together leave the interior unfilled.
         <path d={bandOutlines.map((poly) => `M${pts(view, poly)}Z`).join(' ')} fillRule="evenodd" className="band" data-testid="band" />
       )}
-      {axis !== null && m?.boundaries.map((b, i) => {
+      {show.boundaries && axis !== null && m?.boundaries.map((b, i) => {
         if (b.positionEl === null) return null;
         const [u, w] = crossLine(axis, b.positionEl, halfWidthPx).map((q) => toS(view, q));
         return <line key={i} x1={u.x} y1={u.y} x2={w.x} y2={w.y} className="boundary-line" stroke={boundaryColour(b.channel, m.boundaryProfiles.map((p) => p.channel))} />;
       })}
-      {axis !== null && <AxisLayer view={view} axis={axis} fitRangeEl={fitRangeEl} />}
-      {m !== null && (() => {
-        const spots = m.landmarks.map((l) => { const s = toS(view, l.point); return { s, text: `${l.name} · ${fixed(l.xEl, 3)} EL` }; });
-        const dys = staggerLabels(spots.map(({ s, text }) => ({ x: s.x + 10, y: s.y - 8, text })));
+      {show.axis && axis !== null && <AxisLayer view={view} axis={axis} fitRangeEl={fitRangeEl} />}
+      {show.landmarks && m !== null && (() => {
+        const spots = m.landmarks.map((l) => { const s = toS(view, l.point); const text = `${l.name} · ${fixed(l.xEl, 3)} EL`; return { s, text, at: labelPlacement(s.x, s.y, text, width) }; });
+        const dys = staggerLabels(spots.map(({ at, text }) => ({ x: at.x, y: at.y, text })));
         return m.landmarks.map((l, i) => {
-          const { s, text } = spots[i];
+          const { s, text, at } = spots[i];
           return (
             <g key={i} className={`landmark${selectedLandmark === i ? ' selected' : ''}`} data-testid="landmark" data-name={l.name} data-x={s.x.toFixed(1)} data-y={s.y.toFixed(1)}>
               <path d={`M${s.x} ${s.y - 7} L${s.x + 7} ${s.y} L${s.x} ${s.y + 7} L${s.x - 7} ${s.y} Z`} />
-              <text x={s.x + 10} y={s.y - 8 + dys[i]}>{text}</text>
+              <text x={at.x} y={at.y + dys[i]}>{text}</text>
             </g>
           );
         });

@@ -1,5 +1,6 @@
 // The image panel: canvas + overlays, pointer tools, wheel zoom, scale bar and the value under the cursor.
 import { useEffect, useRef, useState } from 'react';
+import { createPortal } from 'react-dom';
 import type { Dispatch } from 'react';
 import type { ApAxis, ImagePoint, Plane } from '../../core/model';
 import { axisFraction } from '../../core/geometry';
@@ -12,7 +13,8 @@ import type { Gesture } from '../tools';
 import { useElementSize } from '../hooks/useElementSize';
 import { fixed, fmt } from '../ui/format';
 import { ImageCanvas } from './ImageCanvas';
-import { ImageOverlay } from './ImageOverlay';
+import { ImageOverlay, type OverlayVisibility } from './ImageOverlay';
+import { OverlayKey } from './OverlayKey';
 
 /** Props of the image panel. */
 export interface ImageViewProps {
@@ -30,6 +32,10 @@ export interface ImageViewProps {
   /** Bumped to ask for fit-to-window (new file, or the F key). */
   readonly fitRequest: number;
   readonly spaceHeld: boolean;
+  readonly overlays: OverlayVisibility;
+  readonly onOverlays: (v: OverlayVisibility) => void;
+  /** Where the value under the cursor is shown (the status bar), so it never covers the image. */
+  readonly readoutTarget: HTMLElement | null;
 }
 
 /** Screen position of a pointer event relative to the element. */
@@ -82,7 +88,7 @@ export function ImageView(props: ImageViewProps) {
   const toolClass = props.spaceHeld || state.tool === 'pan' ? 'tool-pan' : `tool-${state.tool}`;
 
   return (
-    <div ref={box} className={`image-view ${toolClass}`} data-testid="image-view"
+    <div ref={box} className={`image-view ${toolClass}`} data-testid="image-view" aria-label="image with overlays; keys: S swap poles, F fit, + and − zoom, L landmark tool"
       onPointerDown={(e) => { if (e.button !== 0) return; e.currentTarget.setPointerCapture(e.pointerId); run(pointerDown(gesture.current, input(e))); }}
       onPointerMove={(e) => { setCursor(localPt(e, e.currentTarget)); if (gesture.current.kind !== 'idle') run(pointerMove(gesture.current, input(e))); }}
       onPointerUp={() => run(pointerUp(gesture.current))}
@@ -90,9 +96,10 @@ export function ImageView(props: ImageViewProps) {
       onPointerLeave={() => setCursor(null)}>
       <ImageCanvas planes={planes} display={state.display} view={state.view} width={size.width} height={size.height} />
       <ImageOverlay view={state.view} width={size.width} height={size.height} outline={props.outline} axis={axis}
-        measurement={measurement} bandOutlines={props.bandOutlines} fitRangeEl={props.fitRangeEl} halfWidthPx={props.halfWidthPx} selectedLandmark={state.selectedLandmark} />
+        measurement={measurement} bandOutlines={props.bandOutlines} fitRangeEl={props.fitRangeEl} halfWidthPx={props.halfWidthPx} selectedLandmark={state.selectedLandmark} visible={props.overlays} />
+      <OverlayKey visible={props.overlays} onChange={props.onOverlays} />
       <ScaleBar pixelSizeUm={props.pixelSizeUm} zoom={state.view.zoom} />
-      <Readout cursor={cursor} state={state} planes={planes} names={props.channelNames} axis={axis} pixelSizeUm={props.pixelSizeUm} />
+      {props.readoutTarget !== null && createPortal(<Readout cursor={cursor} state={state} planes={planes} names={props.channelNames} axis={axis} pixelSizeUm={props.pixelSizeUm} />, props.readoutTarget)}
       {first === undefined && <div className="image-empty">No image</div>}
     </div>
   );

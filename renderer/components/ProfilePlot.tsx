@@ -1,25 +1,24 @@
-// Profile along x/EL: binned mean with SD band, fitted exponential, draggable fit range, residuals, boundaries, landmarks.
-import { useRef } from 'react';
+// Profile along x/EL: binned mean with SD band, fitted exponential, draggable fit range, residuals, boundaries,
+// landmarks and a legend. Every mark is clipped to its panel; the layout follows the height the split gives it.
+import { useId, useRef } from 'react';
 import type { Dispatch } from 'react';
 import { scaleLinear } from 'd3-scale';
 import { area, line } from 'd3-shape';
+import { boundaryColour, PROFILE_COLOURS } from '../../core/figures';
 import type { LiveMeasurement } from '../live';
 import type { EditorAction } from '../state';
 import { elToPx, pxToEl } from '../ui/plotLayout';
-import { boundaryColour } from './ImageOverlay';
+import { legendRows, profilePanels, type LegendEntry } from '../ui/profileLayout';
+import { staggerLabels } from './ImageOverlay';
 
 /** Props of the profile plot. */
 export interface ProfilePlotProps {
   readonly measurement: LiveMeasurement | null;
   readonly width: number;
+  readonly height: number;
   readonly fitRangeEl: readonly [number, number];
   readonly dispatch: Dispatch<EditorAction>;
 }
-
-const MAIN = { top: 14, height: 200 };
-const RES = { top: 236, height: 56 };
-/** Total height of the plot, CSS px. */
-export const PROFILE_HEIGHT_PX = 322;
 
 /** Y extent of the profile (mean ± SD), padded. */
 function yDomain(m: LiveMeasurement): [number, number] {
@@ -31,11 +30,35 @@ function yDomain(m: LiveMeasurement): [number, number] {
   return [lo, hi * 1.05];
 }
 
+/** Legend entries for what is drawn. */
+function legendFor(m: LiveMeasurement, channels: readonly string[]): LegendEntry[] {
+  const items: LegendEntry[] = [
+    { label: `${m.profile?.channel ?? 'gradient'}: bin mean`, colour: PROFILE_COLOURS.data, shape: 'line' },
+    { label: '± SD of pixels', colour: PROFILE_COLOURS.data, shape: 'band' },
+  ];
+  if (m.fit !== null) {
+    items.push({ label: 'fit (fit range)', colour: PROFILE_COLOURS.fit, shape: 'line' });
+    items.push({ label: 'fit extended', colour: PROFILE_COLOURS.fit, shape: 'dash' });
+  }
+  channels.forEach((c) => items.push({ label: `${c} (scaled 0–max) and boundary`, colour: boundaryColour(c, channels), shape: 'dash' }));
+  if (m.landmarks.length > 0) items.push({ label: 'landmark', colour: '#d0d4dc', shape: 'dash' });
+  return items;
+}
+
+function Swatch({ e, x, y }: { e: LegendEntry; x: number; y: number }) {
+  if (e.shape === 'band') return <rect x={x} y={y - 4} width={16} height={8} fill={e.colour} fillOpacity={0.3} />;
+  return <line x1={x} x2={x + 16} y1={y} y2={y} stroke={e.colour} strokeWidth={2} strokeDasharray={e.shape === 'dash' ? '4 3' : undefined} />;
+}
+
 /** The profile plot. */
-export function ProfilePlot({ measurement: m, width, fitRangeEl, dispatch }: ProfilePlotProps) {
+export function ProfilePlot({ measurement: m, width, height, fitRangeEl, dispatch }: ProfilePlotProps) {
   const drag = useRef<{ edge: 0 | 1; moved: boolean } | null>(null);
   const svg = useRef<SVGSVGElement>(null);
-  if (m === null || m.profile === null || width < 100) return <div className="profile-empty" style={{ height: PROFILE_HEIGHT_PX }}>No profile</div>;
+  const uid = useId().replace(/[^a-zA-Z0-9-]/g, '');
+  if (m === null || m.profile === null || width < 100 || height < 80) return <div className="profile-empty" style={{ height }}>No profile</div>;
+  const channels = m.boundaryProfiles.map((bp) => bp.channel);
+  const legend = legendRows(legendFor(m, channels), elToPx(0, width), elToPx(1, width));
+  const { main: MAIN, res: RES } = profilePanels(height, legend.heightPx);
   const p = m.profile, fit = m.fit;
   const x = (v: number) => elToPx(v, width);
   const y = scaleLinear().domain(yDomain(m)).range([MAIN.top + MAIN.height, MAIN.top]).nice();
@@ -45,17 +68,16 @@ export function ProfilePlot({ measurement: m, width, fitRangeEl, dispatch }: Pro
   const model = (xe: number) => (fit === null ? NaN : fit.amplitude * Math.exp(-(xe * m.eggLengthUm) / fit.lambdaUm) + fit.background);
   const curve = (a: number, b: number) => line<number>().x((t) => x(t)).y((t) => y(model(t)))(Array.from({ length: 121 }, (_, k) => a + ((b - a) * k) / 120)) ?? '';
   const maxRes = fit === null ? 1 : Math.max(1e-12, ...Array.from(fit.residuals, Math.abs));
-  const yr = scaleLinear().domain([-maxRes, maxRes]).range([RES.top + RES.height, RES.top]);
+  const yr = scaleLinear().domain([-maxRes * 1.1, maxRes * 1.1]).range([RES.top + RES.height, RES.top]);
   const onDown = (edge: 0 | 1) => (e: React.PointerEvent) => { e.stopPropagation(); (e.target as Element).setPointerCapture(e.pointerId); drag.current = { edge, moved: false }; };
   const onMove = (e: React.PointerEvent) => {
     const d = drag.current;
     if (d === null || svg.current === null) return;
-    const xe = pxToEl(e.clientX - svg.current.getBoundingClientRect().left, width);
+    const xe = Math.min(1, Math.max(0, pxToEl(e.clientX - svg.current.getBoundingClientRect().left, width)));
     const range: [number, number] = d.edge === 0 ? [xe, fitRangeEl[1]] : [fitRangeEl[0], xe];
     dispatch({ type: 'setFitRange', rangeEl: range, coalesce: d.moved });
     drag.current = { ...d, moved: true };
   };
-  const channels = m.boundaryProfiles.map((bp) => bp.channel);
   const ticks = Array.from({ length: 11 }, (_, k) => k / 10);
   const others = m.boundaryProfiles.map((bp) => {
     const vals = Array.from(bp.mean).filter(Number.isFinite);
@@ -63,29 +85,55 @@ export function ProfilePlot({ measurement: m, width, fitRangeEl, dispatch }: Pro
     const yMax = y.domain()[1] / 1.05;
     return line<number>().x((i) => x(bp.xEl[i])).y((i) => y(((bp.mean[i] - lo) / (hi - lo || 1)) * yMax))(Array.from(bp.xEl.keys()).filter((i) => Number.isFinite(bp.mean[i]))) ?? '';
   });
+  // Boundary and landmark labels along the top of the main panel, stacked where they would overlap.
+  const found = m.boundaries.filter((b) => b.positionEl !== null);
+  const labels = [
+    ...found.map((b) => ({ x: x(b.positionEl as number) + 3, y: MAIN.top + 11, text: `${b.channel} ${b.method} ${(b.positionEl as number).toFixed(3)}`, colour: boundaryColour(b.channel, channels), kind: 'boundary' })),
+    ...m.landmarks.map((l) => ({ x: x(l.xEl) + 3, y: MAIN.top + 11, text: l.name, colour: '#d0d4dc', kind: 'landmark' })),
+  ];
+  const right = x(1);
+  // A label that would run past the right edge is written to the left of its line.
+  const placed = labels.map((l) => (l.x + l.text.length * 5.6 > right ? { ...l, x: l.x - 6 - l.text.length * 5.6 } : l));
+  const dys = staggerLabels(placed, 5.6, 14);
+  const clipMain = `pp-main-${uid}`, clipRes = `pp-res-${uid}`;
+  const fx0 = x(Math.max(0, fitRangeEl[0])), fx1 = x(Math.min(1, fitRangeEl[1]));
   return (
-    <svg ref={svg} width={width} height={PROFILE_HEIGHT_PX} className="profile-plot" data-testid="profile-plot"
+    <svg ref={svg} width={width} height={height} className="profile-plot" data-testid="profile-plot"
       onPointerMove={onMove} onPointerUp={() => { drag.current = null; }} xmlns="http://www.w3.org/2000/svg">
-      <rect x={x(fitRangeEl[0])} y={MAIN.top} width={x(fitRangeEl[1]) - x(fitRangeEl[0])} height={RES.top + RES.height - MAIN.top} className="fit-shade" />
-      {y.ticks(5).map((t) => <g key={t}><line x1={x(0)} x2={x(1)} y1={y(t)} y2={y(t)} className="grid" /><text x={x(0) - 6} y={y(t) + 3} className="tick" textAnchor="end">{t}</text></g>)}
+      <defs>
+        <clipPath id={clipMain}><rect x={x(0)} y={MAIN.top} width={x(1) - x(0)} height={MAIN.height} /></clipPath>
+        <clipPath id={clipRes}><rect x={x(0)} y={RES.top} width={x(1) - x(0)} height={RES.height} /></clipPath>
+      </defs>
+      <g className="plot-legend" data-testid="profile-legend">
+        {legend.items.map(({ entry, x: lx, y: ly }) => (
+          <g key={entry.label}><Swatch e={entry} x={lx} y={ly} /><text x={lx + 20} y={ly + 3.5} className="legend-label">{entry.label}</text></g>
+        ))}
+      </g>
+      <rect x={fx0} y={MAIN.top} width={Math.max(0, fx1 - fx0)} height={RES.top + RES.height - MAIN.top} className="fit-shade" />
+      {y.ticks(Math.max(2, Math.round(MAIN.height / 40))).map((t) => <g key={t}><line x1={x(0)} x2={x(1)} y1={y(t)} y2={y(t)} className="grid" /><text x={x(0) - 6} y={y(t) + 3} className="tick" textAnchor="end">{t}</text></g>)}
       {ticks.map((t) => <g key={t}><line x1={x(t)} x2={x(t)} y1={RES.top + RES.height} y2={RES.top + RES.height + 4} className="axis" /><text x={x(t)} y={RES.top + RES.height + 15} className="tick" textAnchor="middle">{t.toFixed(1)}</text></g>)}
       <line x1={x(0)} x2={x(1)} y1={MAIN.top + MAIN.height} y2={MAIN.top + MAIN.height} className="axis" />
       <line x1={x(0)} x2={x(0)} y1={MAIN.top} y2={MAIN.top + MAIN.height} className="axis" />
-      <text x={14} y={MAIN.top + MAIN.height / 2} className="axis-title" transform={`rotate(-90 14 ${MAIN.top + MAIN.height / 2})`} textAnchor="middle">intensity − background</text>
-      <text x={(x(0) + x(1)) / 2} y={PROFILE_HEIGHT_PX - 2} className="axis-title" textAnchor="middle">x/EL (anterior → posterior)</text>
-      <path d={sdPath} className="sd-band" />
-      {others.map((d, i) => <path key={i} d={d} className="other-profile" stroke={boundaryColour(m.boundaryProfiles[i].channel, channels)} />)}
-      <path d={meanPath} className="mean-line" />
-      {fit !== null && <path d={curve(0, 1)} className="fit-curve-ext" />}
-      {fit !== null && <path d={curve(fitRangeEl[0], fitRangeEl[1])} className="fit-curve" data-testid="fit-curve" />}
-      {m.boundaries.map((b, i) => b.positionEl !== null && <g key={i}><line x1={x(b.positionEl)} x2={x(b.positionEl)} y1={MAIN.top} y2={MAIN.top + MAIN.height} className="boundary-line" stroke={boundaryColour(b.channel, channels)} /><text x={x(b.positionEl) + 3} y={MAIN.top + 10 + 11 * i} className="boundary-label" fill={boundaryColour(b.channel, channels)}>{`${b.channel} ${b.method} ${b.positionEl.toFixed(3)}`}</text></g>)}
-      {m.landmarks.map((l, i) => <g key={i} className="plot-landmark"><line x1={x(l.xEl)} x2={x(l.xEl)} y1={MAIN.top} y2={RES.top + RES.height} /><text x={x(l.xEl) + 3} y={MAIN.top + MAIN.height - 4}>{l.name}</text></g>)}
+      <text x={14} y={MAIN.top + MAIN.height / 2} className="axis-title" transform={`rotate(-90 14 ${MAIN.top + MAIN.height / 2})`} textAnchor="middle">intensity − bg</text>
+      <text x={(x(0) + x(1)) / 2} y={height - 3} className="axis-title" textAnchor="middle" data-testid="profile-x-title">x/EL (anterior → posterior)</text>
+      <g clipPath={`url(#${clipMain})`} data-testid="profile-main-marks">
+        <path d={sdPath} className="sd-band" fill={PROFILE_COLOURS.data} />
+        {others.map((d, i) => <path key={i} d={d} className="other-profile" stroke={boundaryColour(channels[i], channels)} />)}
+        <path d={meanPath} className="mean-line" stroke={PROFILE_COLOURS.data} />
+        {fit !== null && <path d={curve(0, 1)} className="fit-curve-ext" stroke={PROFILE_COLOURS.fit} data-testid="fit-curve-ext" />}
+        {fit !== null && <path d={curve(fitRangeEl[0], fitRangeEl[1])} className="fit-curve" stroke={PROFILE_COLOURS.fit} data-testid="fit-curve" />}
+        {found.map((b, i) => <line key={i} x1={x(b.positionEl as number)} x2={x(b.positionEl as number)} y1={MAIN.top} y2={MAIN.top + MAIN.height} className="boundary-line" stroke={boundaryColour(b.channel, channels)} />)}
+        {m.landmarks.map((l, i) => <line key={i} className="plot-landmark-line" x1={x(l.xEl)} x2={x(l.xEl)} y1={MAIN.top} y2={MAIN.top + MAIN.height} />)}
+        {placed.map((l, i) => <text key={i} x={l.x} y={l.y + dys[i]} className={`plot-label ${l.kind}-label`} fill={l.colour} data-testid="plot-label">{l.text}</text>)}
+      </g>
       <line x1={x(0)} x2={x(1)} y1={yr(0)} y2={yr(0)} className="axis" />
       <text x={x(0) - 6} y={RES.top + 8} className="tick" textAnchor="end">resid.</text>
-      {fit !== null && Array.from(fit.xEl, (xe, i) => <circle key={i} cx={x(xe)} cy={yr(fit.residuals[i])} r={1.8} className="residual" />)}
+      <g clipPath={`url(#${clipRes})`} data-testid="profile-residual-marks">
+        {fit !== null && Array.from(fit.xEl, (xe, i) => <circle key={i} cx={x(xe)} cy={yr(fit.residuals[i])} r={1.8} className="residual" fill={PROFILE_COLOURS.fit} />)}
+      </g>
       {([0, 1] as const).map((edge) => (
         <g key={edge} className="fit-handle" data-testid={edge === 0 ? 'fit-lo' : 'fit-hi'} onPointerDown={onDown(edge)}>
-          <line x1={x(fitRangeEl[edge])} x2={x(fitRangeEl[edge])} y1={MAIN.top} y2={RES.top + RES.height} />
+          <line x1={x(fitRangeEl[edge])} x2={x(fitRangeEl[edge])} y1={MAIN.top} y2={RES.top + RES.height} stroke={PROFILE_COLOURS.fit} />
           <rect x={x(fitRangeEl[edge]) - 5} y={MAIN.top} width={10} height={RES.top + RES.height - MAIN.top} />
         </g>
       ))}

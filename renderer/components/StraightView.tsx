@@ -4,7 +4,7 @@ import type { LiveMeasurement } from '../live';
 import type { DisplayState } from '../state';
 import { compositeRgba } from '../view';
 import { elToPx } from '../ui/plotLayout';
-import { boundaryColour } from './ImageOverlay';
+import { boundaryColour, staggerLabels } from './ImageOverlay';
 
 /** Props of the straightened view. */
 export interface StraightViewProps {
@@ -12,13 +12,12 @@ export interface StraightViewProps {
   readonly display: DisplayState;
   readonly width: number;
   readonly fitRangeEl: readonly [number, number];
+  /** Panel height, CSS px. */
+  readonly height: number;
 }
 
-/** Height of the strip panel, CSS px (the strip is scaled to fit; the vertical factor is shown). */
-export const STRIP_HEIGHT_PX = 130;
-
 /** The straightened embryo with band, fit range, boundaries and landmarks. */
-export function StraightView({ measurement: m, display, width, fitRangeEl }: StraightViewProps) {
+export function StraightView({ measurement: m, display, width, fitRangeEl, height: STRIP_HEIGHT_PX }: StraightViewProps) {
   const ref = useRef<HTMLCanvasElement>(null);
   const strip = m?.strips[0];
   const bitmap = useMemo(() => {
@@ -46,7 +45,8 @@ export function StraightView({ measurement: m, display, width, fitRangeEl }: Str
     ctx.fillStyle = '#0d0f12';
     ctx.fillRect(0, 0, canvas.width, canvas.height);
     if (bitmap !== null) ctx.drawImage(bitmap, x0 * dpr, 0, (x1 - x0) * dpr, canvas.height);
-  }, [bitmap, width, x0, x1]);
+  }, [bitmap, width, x0, x1, STRIP_HEIGHT_PX]);
+  const landmarkDys = staggerLabels((m?.landmarks ?? []).map((l) => ({ x: elToPx(l.xEl, width) + 3, y: 12, text: l.name })), 5.6, 11);
   const squeeze = strip === undefined ? 1 : ((x1 - x0) / strip.width) / (STRIP_HEIGHT_PX / strip.height);
   return (
     <div className="straight-view" data-testid="straight-view" style={{ height: STRIP_HEIGHT_PX }}>
@@ -58,7 +58,7 @@ export function StraightView({ measurement: m, display, width, fitRangeEl }: Str
         {m?.landmarks.map((l, i) => (
           <g key={i} className="strip-landmark">
             <line x1={elToPx(l.xEl, width)} x2={elToPx(l.xEl, width)} y1={0} y2={STRIP_HEIGHT_PX} />
-            <text x={elToPx(l.xEl, width) + 3} y={12}>{l.name}</text>
+            <text x={elToPx(l.xEl, width) + 3} y={12 + landmarkDys[i]}>{l.name}</text>
           </g>
         ))}
         <text x={8} y={16} className="strip-label">A</text>

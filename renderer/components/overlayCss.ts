@@ -5,7 +5,7 @@ export const OVERLAY_CSS = `
 .outline{fill:none;stroke:#e8e2c8;stroke-opacity:.65;stroke-width:1.2;stroke-dasharray:5 4}
 .band{fill:#5fd3e0;fill-opacity:.16;stroke:#5fd3e0;stroke-opacity:.55;stroke-width:1}
 .axis-line{stroke:#ffffff;stroke-width:1.5;stroke-opacity:.85}
-.axis-fit{stroke:#ffd166;stroke-width:4;stroke-opacity:.8;stroke-linecap:round}
+.axis-fit{stroke:#E69F00;stroke-width:4;stroke-opacity:.8;stroke-linecap:round}
 .handle{stroke:#101317;stroke-width:1.5;cursor:grab}
 .handle-anterior{fill:#ffd166}
 .handle-posterior{fill:#8ab4ff}

@@ -215,7 +215,7 @@ describe('editor window', { timeout: 150_000 }, () => {
     h.dialogs.saveDir = saveDir;
     for (const label of ['Profile figure (SVG)', 'Annotated image (PNG)', 'Profile table (CSV)']) {
       await page.getByTestId('export').click();
-      await page.getByRole('button', { name: label }).click();
+      await page.getByRole('menuitem', { name: label }).click();
       await expect.poll(() => text(page, 'message'), { timeout: 30_000 }).toMatch(/^Saved /);
       await page.getByTestId('message').click();
     }

@@ -112,7 +112,7 @@ describe('path allow-list', () => {
   it('allows dropped files and the stacks of dropped folders', async () => {
     const entries = value(await api.openDropped([join(images, 'b.tif'), join(images, 'notes.txt'), join(images, 'sub')]));
     expect(entries.map((e) => [e.name, e.status])).toEqual([['b.tif', 'new'], ['notes.txt', 'error'], ['c.tiff', 'new']]);
-    expect(entries[1].message).toBe('notes.txt: not a TIFF stack (.tif, .tiff, .ome.tif, .btf)');
+    expect(entries[1].message).toBe('notes.txt: not a stack (.tif, .tiff, .ome.tif, .btf, or an .ome.zarr folder)');
     expect(value(await api.loadStack(join(images, 'b.tif'), settings)).path).toBe(join(images, 'b.tif'));
     expect(error(await api.loadStack(join(images, 'a.ome.tif'), settings)).code).toBe('not-allowed');
   });

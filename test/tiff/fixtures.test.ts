@@ -1,19 +1,31 @@
-// Cross-checks on files made by our writer and by libtiff's tiffcp: both decoders must return the known pattern,
-// and the tags we read must agree with libtiff's tiffinfo/tiffdump.
+// Cross-checks on files made by our writer, libtiff's tiffcp, GDAL's gdal_translate and Python's tifffile: every
+// decoder must return the known pattern, and the tags we read must agree with libtiff's tiffinfo/tiffdump.
 import { spawnSync } from 'node:child_process';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { createSharpPlaneSource, openStackForAnalysis, sharpDecodesExactly } from '../../app/decode';
-import { openStackFile, readStackInfoFromFile } from '../../core/io';
-import { planeNumber } from '../../core/tiff';
-import { hasTiffcp, makeTiffFixtures, type TiffFixture } from '../../scripts/make-tiff-fixtures';
+import { APP_CHUNK_CODECS, createSharpPlaneSource, openStackForAnalysis, sharpDecodesExactly } from '../../app/decode';
+import { openFileByteSource, openStackFile, readStackInfoFromFile } from '../../core/io';
+import { createDirectPlaneSource, planeNumber } from '../../core/tiff';
+import { hasGdal, hasTiffcp, hasTifffile, makeTiffFixtures, type TiffFixture } from '../../scripts/make-tiff-fixtures';
 
 const TIFFCP = hasTiffcp();
+const GDAL = hasGdal();
+const TIFFFILE = hasTifffile();
 if (!TIFFCP) console.warn('test/tiff: tiffcp (libtiff-tools) is missing; tiffcp variants and tiffinfo checks are skipped. CI installs it.');
+if (!GDAL) console.warn('test/tiff: gdal_translate (gdal-bin) is missing; GDAL fixtures are skipped. CI installs it.');
+if (!TIFFFILE) console.warn('test/tiff: /usr/bin/python3 with tifffile is missing; tifffile fixtures are skipped. CI installs it.');
+
+/** geotiff 3.0.5 has no LZMA decoder (compression 34925). */
+const geotiffReads = (f: TiffFixture) => !f.name.includes('lzma');
 
 let fixtures: TiffFixture[] = [];
 beforeAll(() => {
   fixtures = makeTiffFixtures();
 });
+
+/** LZMA and Zstandard, which the sharp check leaves out (the direct path reads them). */
+function isNewCodec(f: TiffFixture): boolean {
+  return /lzma|zstd/.test(f.name);
+}
 
 /** Every (z, c, t) of a fixture. */
 function* planesOf(f: TiffFixture) {
@@ -22,14 +34,15 @@ function* planesOf(f: TiffFixture) {
 
 describe('TIFF fixtures decode pixel-identical to the known pattern', () => {
   it('makes the expected set of files', () => {
-    expect(fixtures.length).toBe(TIFFCP ? 43 : 15);
+    expect(fixtures.length).toBe(15 + (TIFFCP ? 32 : 0) + (GDAL ? 6 : 0) + (TIFFFILE ? 5 : 0));
   });
 
   // Source: TIFF 6.0 §9 PackBits, §13 LZW, §14 Predictor, §15 tiles, §19 SampleFormat; Adobe TN3 float predictor;
-  // BigTIFF design; byte order §2 — each variant made by libtiff's tiffcp (an independent implementation).
-  it('with geotiff (pure JS) and the StackInfo sizes/types match', async () => {
-    for (const f of fixtures) {
-      const { info, source } = await openStackFile(f.path, f.name);
+  // BigTIFF design; byte order §2 — each variant made by libtiff's tiffcp, GDAL's gdal_translate or Python's
+  // tifffile (independent implementations); the writer is in each fixture's `writer` and in its name.
+  it('with geotiff (pure JS, the reference) and the StackInfo sizes/types match', async () => {
+    for (const f of fixtures.filter(geotiffReads)) {
+      const { info, source } = await openStackFile(f.path, f.name, { decoder: 'geotiff' });
       expect({ name: f.name, z: info.sizeZ, c: info.sizeC, t: info.sizeT, type: info.sampleType, spp: info.samplesPerPixel })
         .toEqual({ name: f.name, z: f.sizeZ, c: f.sizeC, t: f.sizeT, type: f.sampleType, spp: f.samplesPerPixel });
       for (const [z, c, t] of planesOf(f)) {
@@ -41,9 +54,45 @@ describe('TIFF fixtures decode pixel-identical to the known pattern', () => {
     }
   });
 
+  // Source: as above; LZMA fixtures are checked against the pattern that tiffcp/gdal_translate/tifffile were given,
+  // and against libtiff's own decoding (tiffcp -c none) below.
+  it('on the direct path with every codec, identical to geotiff where geotiff reads the file', async () => {
+    for (const f of fixtures) {
+      const file = await openFileByteSource(f.path, f.name);
+      const info = await readStackInfoFromFile(f.path, f.name);
+      expect({ name: f.name, z: info.sizeZ, c: info.sizeC, spp: info.samplesPerPixel }).toEqual({ name: f.name, z: f.sizeZ, c: f.sizeC, spp: f.samplesPerPixel });
+      const direct = createDirectPlaneSource(file, info, APP_CHUNK_CODECS, f.name);
+      const reference = geotiffReads(f) ? (await openStackFile(f.path, f.name, { decoder: 'geotiff' })).source : null;
+      for (const [z, c, t] of planesOf(f)) {
+        const plane = await direct.readPlane(z, c, t);
+        expect(plane.data, `${f.name} (${f.writer}) z${z} c${c} t${t}`).toEqual(f.expected(z, c, t));
+        if (reference) expect(plane.data, `${f.name} vs geotiff`).toEqual((await reference.readPlane(z, c, t)).data);
+      }
+      await direct.close();
+      await reference?.close();
+    }
+  });
+
+  // Source: libtiff's LZMA decoder (tif_lzma.c, liblzma), run through tiffcp -c none.
+  it.runIf(TIFFCP)('LZMA files decode as libtiff decodes them', async () => {
+    const lzma = fixtures.filter((f) => f.name.includes('lzma'));
+    expect(lzma.length).toBe(2 + (GDAL ? 1 : 0) + (TIFFFILE ? 1 : 0));
+    for (const f of lzma) {
+      const plainPath = `${f.path}.none.tif`;
+      const r = spawnSync('tiffcp', ['-c', 'none', f.path, plainPath], { encoding: 'utf8' });
+      expect(r.status, r.stderr).toBe(0);
+      const libtiff = await openStackFile(plainPath, f.name, { decoder: 'geotiff' });
+      const { source } = await openStackForAnalysis(f.path, f.name);
+      for (const [z, c, t] of planesOf(f)) expect((await source.readPlane(z, c, t)).data, `${f.name} z${z} c${c}`).toEqual((await libtiff.source.readPlane(z, c, t)).data);
+      await source.close();
+      await libtiff.source.close();
+    }
+  });
+
   it('with sharp (libvips) directly, for the sample types it decodes exactly', async () => {
     let checked = 0;
-    for (const f of fixtures) {
+    for (const f of fixtures.filter((x) => x.writer === 'eggline' || x.writer === 'tiffcp')) {
+      if (isNewCodec(f)) continue;
       const info = await readStackInfoFromFile(f.path, f.name);
       if (!sharpDecodesExactly(info)) continue;
       const source = createSharpPlaneSource(f.path, info, f.name);
@@ -108,8 +157,8 @@ function tiffinfo(path: string): { width: number; height: number; compression: s
 }
 
 describe.runIf(TIFFCP)('tags agree with libtiff (tiffinfo / tiffdump)', () => {
-  // Source: libtiff 4.5 tiffinfo names for TIFF 6.0 Compression codes 1, 5, 8, 32773 and Predictor 2/3.
-  const names: Record<string, string> = { None: 'none', LZW: 'LZW', AdobeDeflate: 'Deflate', PackBits: 'PackBits' };
+  // Source: libtiff 4.5 tiffinfo names for TIFF 6.0 Compression codes 1, 5, 8, 32773, 34925, 50000 and Predictor 2/3.
+  const names: Record<string, string> = { None: 'none', LZW: 'LZW', AdobeDeflate: 'Deflate', PackBits: 'PackBits', LZMA: 'LZMA', ZSTD: 'Zstandard' };
   const predictors: Record<string, string> = { 'horizontal differencing 2 (0x2)': ' + horizontal predictor', 'floating point predictor 3 (0x3)': ' + floating-point predictor' };
 
   it('width, height, compression and predictor', async () => {
@@ -134,7 +183,7 @@ describe.runIf(TIFFCP)('tags agree with libtiff (tiffinfo / tiffdump)', () => {
 
   // Source: TIFF 6.0 §8 (pixels per cm); tiffinfo prints the resolution our writer stored (20000 px/cm = 0.5 µm).
   it('pixel size from resolution tags survives tiffcp', async () => {
-    for (const f of fixtures.filter((x) => x.dimensionOrder === null && !x.name.includes('3samples'))) {
+    for (const f of fixtures.filter((x) => x.dimensionOrder === null && !x.name.includes('3samples') && (x.writer === 'eggline' || x.writer === 'tiffcp'))) {
       const info = await readStackInfoFromFile(f.path, f.name);
       expect(tiffinfo(f.path).resolution, f.name).toBe('20000, 20000 pixels/cm');
       expect(info.pixelSize, f.name).toEqual({ xUm: 0.5, yUm: 0.5, zUm: null, source: 'tiff-resolution' });

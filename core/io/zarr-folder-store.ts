@@ -1,0 +1,79 @@
+// A read-only Zarr store over a folder on disk (one file per key), for the OME-Zarr reader in core/zarr.
+import { open, stat } from 'node:fs/promises';
+import { join, sep } from 'node:path';
+import { ZarrError, type ZarrStore } from '../zarr';
+
+/** Largest single file (chunk or metadata) read from a store; a bigger one is damaged or not a chunk. */
+const MAX_FILE_BYTES = 2 ** 31 - 1;
+
+/** The path of `key` under `root`, or null when the key would leave the folder. */
+function keyPath(root: string, key: string): string | null {
+  const parts = key.split('/').filter((p) => p !== '');
+  if (parts.some((p) => p === '..' || p === '.' || p.includes(sep))) return null;
+  return join(root, ...parts);
+}
+
+/** True for errors that mean "no value at this key" (missing file, or a folder where a file would be). */
+function isMissing(err: unknown): boolean {
+  const code = (err as { code?: string }).code;
+  return code === 'ENOENT' || code === 'ENOTDIR' || code === 'EISDIR';
+}
+
+/** Reads a whole file, refusing one larger than MAX_FILE_BYTES before reading it. */
+async function readWhole(path: string, key: string): Promise<Uint8Array | undefined> {
+  let handle;
+  try {
+    handle = await open(path, 'r');
+    const stats = await handle.stat();
+    if (stats.isDirectory()) return undefined;
+    if (stats.size > MAX_FILE_BYTES) throw new Error(`${key.slice(1)} is ${stats.size} bytes, larger than any chunk Eggline reads`);
+    const bytes = await handle.readFile();
+    return new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  } catch (err) {
+    if (isMissing(err)) return undefined;
+    throw err;
+  } finally {
+    await handle?.close().catch(() => undefined);
+  }
+}
+
+/** Reads `length` bytes at `offset` (or the last `suffixLength` bytes) of a file. */
+async function readRange(path: string, range: { offset: number; length: number } | { suffixLength: number }): Promise<Uint8Array | undefined> {
+  let handle;
+  try {
+    handle = await open(path, 'r');
+    const size = (await handle.stat()).size;
+    const [offset, length] = 'suffixLength' in range ? [Math.max(0, size - range.suffixLength), Math.min(range.suffixLength, size)] : [range.offset, range.length];
+    const out = new Uint8Array(Math.max(0, Math.min(length, size - offset)));
+    const { bytesRead } = await handle.read(out, 0, out.length, offset);
+    return out.subarray(0, bytesRead);
+  } catch (err) {
+    if (isMissing(err)) return undefined;
+    throw err;
+  } finally {
+    await handle?.close().catch(() => undefined);
+  }
+}
+
+/** True when `path` is a folder (an OME-Zarr store is one). */
+export async function isFolder(path: string): Promise<boolean> {
+  return (await stat(path).catch(() => null))?.isDirectory() ?? false;
+}
+
+/** A ZarrStore over the folder `root`; throws ZarrError('io') naming the store when it is not a readable folder. */
+export async function openZarrFolderStore(root: string, label: string = root): Promise<ZarrStore> {
+  const info = await stat(root).catch((err: NodeJS.ErrnoException) => {
+    throw new ZarrError('io', label, `cannot open (${err.code === 'ENOENT' ? 'no such folder' : err.code === 'EACCES' ? 'permission denied' : err.message})`);
+  });
+  if (!info.isDirectory()) throw new ZarrError('not-zarr', label, 'is a file, but an OME-Zarr store is a folder');
+  return {
+    async get(key) {
+      const path = keyPath(root, key);
+      return path === null ? undefined : readWhole(path, key);
+    },
+    async getRange(key, range) {
+      const path = keyPath(root, key);
+      return path === null ? undefined : readRange(path, range);
+    },
+  };
+}

@@ -1,0 +1,272 @@
+// The direct decode path: strips and tiles read by byte range and decompressed straight into the plane's typed
+// array (TIFF 6.0 §8 strips, §14 predictors, §15 tiles, PlanarConfiguration 1 and 2; BigTIFF offsets).
+import type { PixelArray, PlaneSource, RawPlane, SampleType, StackInfo } from '../model';
+import { cachedByteSource } from './block-cache';
+import type { ByteSource } from './byte-source';
+import type { ChunkCodecs } from './chunk-codecs';
+import { swapBytesInPlace, undoFloatingPointPredictor, undoHorizontalDifferencing } from './chunk-predictors';
+import { describeCompression } from './compression';
+import { planeSlot } from './dimension-order';
+import { TiffError } from './errors';
+import { readTiffHeader, type TiffHeader } from './header';
+import { readIfdChain, type Ifd } from './ifd';
+import { readImageLayout } from './layout';
+import { sampleTypeOf, bytesPerSample } from './sample-type';
+import { readNumber, readNumbers } from './tag-value';
+import { Tag } from './tags';
+import { checkPlaneIndex } from './geotiff-source';
+
+const ARRAYS: Record<SampleType, new (buffer: ArrayBuffer, byteOffset?: number, length?: number) => PixelArray> = {
+  uint8: Uint8Array, int8: Int8Array, uint16: Uint16Array, int16: Int16Array,
+  uint32: Uint32Array, int32: Int32Array, float32: Float32Array, float64: Float64Array,
+};
+
+/** True on a little-endian host (the typed-array views below assume it; elsewhere the path is not used). */
+const HOST_LITTLE_ENDIAN = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
+
+/** Where one IFD keeps its pixels and how they are packed. */
+export interface ChunkPlan {
+  readonly ifd: number;
+  readonly compression: number;
+  readonly predictor: number;
+  readonly planar: boolean;
+  readonly samplesPerPixel: number;
+  readonly bytesPerSample: number;
+  readonly sampleType: SampleType;
+  readonly tiled: boolean;
+  /** Width and rows of one chunk (strips: the image width and RowsPerStrip). */
+  readonly chunkWidthPx: number;
+  readonly chunkHeightPx: number;
+  readonly chunksAcross: number;
+  readonly chunksDown: number;
+  readonly offsets: readonly number[];
+  readonly byteCounts: readonly number[];
+}
+
+/** Why the direct path cannot decode a stack, or null when it can (the caller then uses another decoder). */
+export function directPathRefusal(info: StackInfo, codecs: ChunkCodecs): string | null {
+  if (!HOST_LITTLE_ENDIAN) return 'big-endian host';
+  if (info.compressionCode === undefined) return 'not a TIFF file';
+  if (!codecs[info.compressionCode]) return `no decoder for ${describeCompression(info.compressionCode, 1)}`;
+  return null;
+}
+
+/** Reads the chunk plan of one IFD; throws TiffError naming what is missing or inconsistent. */
+export async function readChunkPlan(source: ByteSource, header: TiffHeader, ifd: Ifd, fileLabel: string): Promise<ChunkPlan> {
+  const layout = await readImageLayout(source, header, ifd, fileLabel);
+  const sampleType = sampleTypeOf(layout, fileLabel);
+  const tiled = layout.tiled;
+  const offsets = await readNumbers(source, header, ifd, tiled ? Tag.TileOffsets : Tag.StripOffsets, fileLabel);
+  const byteCounts = await readNumbers(source, header, ifd, tiled ? Tag.TileByteCounts : Tag.StripByteCounts, fileLabel);
+  const kind = tiled ? 'tile' : 'strip';
+  if (!offsets || !byteCounts) throw new TiffError('unsupported', fileLabel, `IFD ${ifd.index} lacks ${kind} offsets or byte counts`);
+  let chunkWidthPx = layout.widthPx;
+  let chunkHeightPx: number;
+  if (tiled) {
+    chunkWidthPx = await readNumber(source, header, ifd, Tag.TileWidth, fileLabel, 0);
+    chunkHeightPx = await readNumber(source, header, ifd, Tag.TileLength, fileLabel, 0);
+    if (chunkWidthPx <= 0 || chunkHeightPx <= 0) throw new TiffError('unsupported', fileLabel, `IFD ${ifd.index} has tiles of ${chunkWidthPx}×${chunkHeightPx}`);
+  } else {
+    const rows = await readNumber(source, header, ifd, Tag.RowsPerStrip, fileLabel, layout.heightPx);
+    chunkHeightPx = Math.min(Math.max(1, rows), layout.heightPx);
+  }
+  const chunksAcross = Math.ceil(layout.widthPx / chunkWidthPx);
+  const chunksDown = Math.ceil(layout.heightPx / chunkHeightPx);
+  const planar = layout.planarConfiguration === 2 && layout.samplesPerPixel > 1;
+  const needed = chunksAcross * chunksDown * (planar ? layout.samplesPerPixel : 1);
+  if (offsets.length < needed || byteCounts.length < needed) {
+    throw new TiffError('unsupported', fileLabel, `IFD ${ifd.index} has ${Math.min(offsets.length, byteCounts.length)} ${kind} offsets and byte counts, needs ${needed}`);
+  }
+  return {
+    ifd: ifd.index, compression: layout.compression, predictor: layout.predictor, planar, samplesPerPixel: layout.samplesPerPixel,
+    bytesPerSample: bytesPerSample(sampleType), sampleType, tiled, chunkWidthPx, chunkHeightPx, chunksAcross, chunksDown,
+    offsets, byteCounts,
+  };
+}
+
+/** Reusable scratch space for one source: chunk output and one row for the floating-point predictor. */
+interface Scratch { chunk: Uint8Array; row: Uint8Array; busy?: boolean }
+
+function scratchBytes(scratch: Scratch, key: 'chunk' | 'row', n: number): Uint8Array {
+  if (scratch[key].length < n) scratch[key] = new Uint8Array(n);
+  return scratch[key].subarray(0, n);
+}
+
+/** Decoded size in bytes of chunk i (strips: a short last strip; tiles: always whole). */
+function chunkRows(plan: ChunkPlan, heightPx: number, row: number): number {
+  return plan.tiled ? plan.chunkHeightPx : Math.min(plan.chunkHeightPx, heightPx - row * plan.chunkHeightPx);
+}
+
+/**
+ * Decodes sample `sample` of IFD `plan.ifd` into a new typed array of widthPx × heightPx. Reads all of the plane's
+ * chunks with one byte-range read when they lie close together. Throws Error with "strip 3: reason" on bad data.
+ */
+export async function decodePlaneDirect(
+  source: ByteSource, plan: ChunkPlan, widthPx: number, heightPx: number, sample: number, littleEndian: boolean,
+  codecs: ChunkCodecs, shared: Scratch = { chunk: new Uint8Array(0), row: new Uint8Array(0) },
+): Promise<PixelArray> {
+  // Planes are read ahead, so two decodes may overlap; the second gets scratch space of its own.
+  const scratch: Scratch = shared.busy ? { chunk: new Uint8Array(0), row: new Uint8Array(0) } : shared;
+  scratch.busy = true;
+  try {
+    return await decodeInto(source, plan, widthPx, heightPx, sample, littleEndian, codecs, scratch);
+  } finally {
+    scratch.busy = false;
+  }
+}
+
+async function decodeInto(
+  source: ByteSource, plan: ChunkPlan, widthPx: number, heightPx: number, sample: number, littleEndian: boolean,
+  codecs: ChunkCodecs, scratch: Scratch,
+): Promise<PixelArray> {
+  const decode = codecs[plan.compression];
+  if (!decode) throw new Error(`no decoder for ${describeCompression(plan.compression, 1)}`);
+  const bps = plan.bytesPerSample;
+  const out = new ARRAYS[plan.sampleType](new ArrayBuffer(widthPx * heightPx * bps));
+  const perPlane = plan.chunksAcross * plan.chunksDown;
+  const first = plan.planar ? sample * perPlane : 0;
+  const kind = plan.tiled ? 'tile' : 'strip';
+  const samplesInChunk = plan.planar ? 1 : plan.samplesPerPixel;
+  const simpleCopy = plan.compression === 1 && plan.predictor === 1 && samplesInChunk === 1 && !plan.tiled;
+  // One read for the whole plane when its chunks are stored back to back (the common case), else one per chunk.
+  let lo = Infinity;
+  let hi = 0;
+  let total = 0;
+  for (let i = first; i < first + perPlane; i++) {
+    lo = Math.min(lo, plan.offsets[i]);
+    hi = Math.max(hi, plan.offsets[i] + plan.byteCounts[i]);
+    total += plan.byteCounts[i];
+  }
+  if (hi > source.size) {
+    for (let i = first; i < first + perPlane; i++) {
+      if (plan.offsets[i] + plan.byteCounts[i] > source.size) {
+        throw new Error(`${kind} ${i} runs past the end of the file (${plan.offsets[i] + plan.byteCounts[i]} > ${source.size} bytes)`);
+      }
+    }
+  }
+  if (simpleCopy && hi - lo === total && isPackedPlane(plan, heightPx, first, perPlane)) {
+    // Uncompressed strips back to back: the file's bytes go straight into the plane.
+    const target = new Uint8Array(out.buffer);
+    const got = source.readInto ? await source.readInto(lo, target) : copyChunk(await source.read(lo, target.length), target);
+    if (got < target.length) throw new Error(`strips hold ${got} bytes, the plane needs ${target.length}`);
+    if (!littleEndian && bps > 1) swapBytesInPlace(target, bps);
+    return out;
+  }
+  const span = hi - lo <= 2 * total + 65536 ? await source.read(lo, hi - lo) : null;
+  const outBytes = new Uint8Array(out.buffer);
+  for (let down = 0; down < plan.chunksDown; down++) {
+    const rows = chunkRows(plan, heightPx, down);
+    for (let across = 0; across < plan.chunksAcross; across++) {
+      const i = first + down * plan.chunksAcross + across;
+      const offset = plan.offsets[i];
+      const count = plan.byteCounts[i];
+      const input = span ? span.subarray(offset - lo, offset - lo + count) : await source.read(offset, count);
+      if (input.length < count) throw new Error(`${kind} ${i} has ${input.length} of its ${count} bytes`);
+      const rowValues = plan.chunkWidthPx * samplesInChunk;
+      const chunkBytes = rowValues * rows * bps;
+      const chunk = scratchBytes(scratch, 'chunk', chunkBytes);
+      let written: number;
+      try {
+        written = await decode(input, chunk);
+      } catch (err) {
+        throw new Error(`${kind} ${i}: ${describeCodecError(plan.compression, err)}`);
+      }
+      if (written < chunkBytes) throw new Error(`${kind} ${i} decodes to ${written} bytes, expected ${chunkBytes}`);
+      if (plan.predictor === 3) {
+        undoFloatingPointPredictor(chunk, bps, rowValues, samplesInChunk, scratchBytes(scratch, 'row', rowValues * bps));
+        // Big-endian files come out of the regrouping byte-swapped (checked on files written by libtiff's tiffcp -B,
+        // which geotiff also reads this way), so they are swapped like any other big-endian data.
+        if (!littleEndian) swapBytesInPlace(chunk, bps);
+      } else {
+        if (!littleEndian && bps > 1) swapBytesInPlace(chunk, bps);
+        if (plan.predictor === 2) undoHorizontalDifferencing(chunk, bps, rowValues, samplesInChunk);
+      }
+      placeChunk(chunk, outBytes, plan, widthPx, heightPx, across, down, rows, sample);
+    }
+  }
+  return out;
+}
+
+/** True when strips first … first+n-1 follow one another in the file, each exactly its rows long (the last may be longer). */
+function isPackedPlane(plan: ChunkPlan, heightPx: number, first: number, n: number): boolean {
+  const rowBytes = plan.chunkWidthPx * plan.bytesPerSample;
+  for (let k = 0; k < n; k++) {
+    const i = first + k;
+    const expected = chunkRows(plan, heightPx, k) * rowBytes;
+    if (k < n - 1 ? plan.byteCounts[i] !== expected : plan.byteCounts[i] < expected) return false;
+    if (k > 0 && plan.offsets[i] !== plan.offsets[i - 1] + plan.byteCounts[i - 1]) return false;
+  }
+  return true;
+}
+
+function copyChunk(input: Uint8Array, out: Uint8Array): number {
+  out.set(input.subarray(0, Math.min(input.length, out.length)));
+  return Math.min(input.length, out.length);
+}
+
+/** "corrupt LZW stream (code 600 …)" and the like, one line. */
+function describeCodecError(compression: number, err: unknown): string {
+  const name = describeCompression(compression, 1);
+  const text = (err instanceof Error ? err.message : String(err)).split(/\r?\n/)[0];
+  return `corrupt ${name} stream (${text})`;
+}
+
+/** Copies the decoded chunk's rows (cropped at the image edge; one sample when chunky) into the plane. */
+function placeChunk(chunk: Uint8Array, out: Uint8Array, plan: ChunkPlan, widthPx: number, heightPx: number, across: number, down: number, rows: number, sample: number): void {
+  const bps = plan.bytesPerSample;
+  const x0 = across * plan.chunkWidthPx;
+  const y0 = down * plan.chunkHeightPx;
+  const copyW = Math.min(plan.chunkWidthPx, widthPx - x0);
+  const copyH = Math.min(rows, heightPx - y0);
+  const spp = plan.planar ? 1 : plan.samplesPerPixel;
+  const chunkRowBytes = plan.chunkWidthPx * spp * bps;
+  if (spp === 1) {
+    for (let r = 0; r < copyH; r++) {
+      const from = r * chunkRowBytes;
+      out.set(chunk.subarray(from, from + copyW * bps), ((y0 + r) * widthPx + x0) * bps);
+    }
+    return;
+  }
+  for (let r = 0; r < copyH; r++) {
+    let from = r * chunkRowBytes + sample * bps;
+    let to = ((y0 + r) * widthPx + x0) * bps;
+    for (let x = 0; x < copyW; x++, from += spp * bps, to += bps) {
+      for (let b = 0; b < bps; b++) out[to + b] = chunk[from + b];
+    }
+  }
+}
+
+/**
+ * A PlaneSource on the direct path. Each plane's IFD plan is read when first needed (tags through a block cache);
+ * a plane that cannot be decoded rejects with a one-line TiffError('decode') naming the file, plane and chunk.
+ */
+export function createDirectPlaneSource(source: ByteSource, info: StackInfo, codecs: ChunkCodecs, fileLabel: string): PlaneSource {
+  const tags = cachedByteSource(source);
+  let chain: Promise<{ header: TiffHeader; ifds: Ifd[] }> | null = null;
+  const openChain = () => (chain ??= readTiffHeader(tags, fileLabel).then(async (header) => ({ header, ifds: await readIfdChain(tags, header, fileLabel) })));
+  const scratch: Scratch = { chunk: new Uint8Array(0), row: new Uint8Array(0) };
+  return {
+    async readPlane(z: number, c: number, t: number): Promise<RawPlane> {
+      checkPlaneIndex(info, z, c, t);
+      const ifd = info.planeIfd[planeSlot(info, z, c, t)];
+      const what = `plane z=${z} c=${c} t=${t}`;
+      const { header, ifds } = await openChain();
+      const plan = await readChunkPlan(tags, header, ifds[ifd], fileLabel);
+      if (plan.sampleType !== info.sampleType || plan.samplesPerPixel !== info.samplesPerPixel) {
+        throw new TiffError('decode', fileLabel, `cannot decode ${what}: IFD ${ifd} holds ${plan.samplesPerPixel} ${plan.sampleType} samples per pixel, IFD 0 ${info.samplesPerPixel} ${info.sampleType}`);
+      }
+      try {
+        const data = await decodePlaneDirect(source, plan, info.sizeX, info.sizeY, info.samplesPerPixel > 1 ? c : 0, header.littleEndian, codecs, scratch);
+        return { width: info.sizeX, height: info.sizeY, data };
+      } catch (err) {
+        if (err instanceof TiffError) throw err;
+        const text = (err instanceof Error ? err.message : String(err)).split(/\r?\n/)[0];
+        throw new TiffError('decode', fileLabel, `cannot decode ${what} (IFD ${ifd}): ${text}`);
+      }
+    },
+    async close(): Promise<void> {
+      const closable = source as ByteSource & { close?: () => Promise<void> };
+      if (typeof closable.close === 'function') await closable.close();
+    },
+  };
+}

@@ -1,0 +1,111 @@
+// The window's layout in Chromium over the real handlers (see harness.ts), at the sizes the window must serve:
+// the image and the profile's x axis on screen together without scrolling, a one-line toolbar, plot marks kept
+// inside their frames and labels that do not cover each other. Demo data only.
+import { mkdtempSync, promises as fs } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { ARTIFACTS, ensureRendererBuilt, startHarness } from './harness';
+import type { Harness } from './harness';
+
+let h: Harness;
+let scratch: string;
+
+type Box = { x: number; y: number; width: number; height: number };
+const box = async (page: Page, selector: string): Promise<Box> => {
+  const b = await page.locator(selector).first().boundingBox();
+  if (b === null) throw new Error(`${selector} is not visible`);
+  return b;
+};
+/** True when `inner` lies inside `outer` (1 px tolerance for anti-aliased edges). */
+const inside = (inner: Box, outer: Box) => inner.x >= outer.x - 1 && inner.y >= outer.y - 1
+  && inner.x + inner.width <= outer.x + outer.width + 1 && inner.y + inner.height <= outer.y + outer.height + 1;
+const overlaps = (a: Box, b: Box) => a.x < b.x + b.width && b.x < a.x + a.width && a.y < b.y + b.height && b.y < a.y + a.height;
+
+beforeAll(async () => {
+  scratch = mkdtempSync(join(tmpdir(), 'eggline-layout-'));
+  await fs.mkdir(ARTIFACTS, { recursive: true });
+  await ensureRendererBuilt();
+  h = await startHarness(join(scratch, 'data'), 4);
+  await h.page.getByTestId('handle-anterior').waitFor({ timeout: 90_000 });
+  // A boundary channel, so boundaries, their labels and the scaled second channel are drawn too.
+  await h.page.getByTestId('boundary-channel-2').check();
+  await h.page.locator('[data-testid=profile-plot] .boundary-line').first().waitFor({ state: 'attached', timeout: 10_000 });
+}, 180_000);
+
+afterAll(async () => {
+  await h?.close();
+  await fs.rm(scratch, { recursive: true, force: true });
+});
+
+for (const [w, hgt] of [[1280, 720], [1440, 900], [2560, 1440]] as const) {
+  describe(`at ${w}×${hgt}`, { timeout: 60_000 }, () => {
+    it('shows the image and the whole profile plot, x axis included, without scrolling; the toolbar is one line', async () => {
+      const { page } = h;
+      await page.setViewportSize({ width: w, height: hgt });
+      const viewport: Box = { x: 0, y: 0, width: w, height: hgt };
+      await expect.poll(async () => (await box(page, '[data-testid=profile-plot]')).width, { timeout: 10_000 }).toBeGreaterThan(400);
+      const image = await box(page, '[data-testid=image-view]');
+      expect(inside(image, viewport)).toBe(true);
+      expect(image.height).toBeGreaterThan(hgt * 0.3);
+      expect(inside(await box(page, '[data-testid=profile-plot]'), viewport)).toBe(true);
+      expect(inside(await box(page, '[data-testid=profile-x-title]'), viewport)).toBe(true);
+      // Both handles are on screen, in the image.
+      expect(inside(await box(page, '[data-testid=handle-anterior] circle'), image)).toBe(true);
+      expect(inside(await box(page, '[data-testid=handle-posterior] circle'), image)).toBe(true);
+      // Nothing scrolled to get there.
+      expect(await page.evaluate(() => [document.scrollingElement?.scrollTop ?? 0, document.querySelector('.centre')?.scrollTop ?? 0])).toEqual([0, 0]);
+      // The toolbar keeps one line: every button sits inside its 38 px bar.
+      const bar = await box(page, '[data-testid=toolbar]');
+      expect(bar.height).toBeLessThanOrEqual(39);
+      for (const b of await page.locator('[data-testid=toolbar] > button, [data-testid=toolbar] .tool-group button, [data-testid=toolbar] .menu > button, [data-testid=toolbar] .tabs button').all()) {
+        expect(inside((await b.boundingBox()) as Box, bar)).toBe(true);
+      }
+      await page.screenshot({ path: join(ARTIFACTS, `layout-${w}x${hgt}.png`) });
+    });
+
+    it('keeps every label of the profile plot inside the plot, the legend off the data and labels apart', async () => {
+      const { page } = h;
+      const plot = await box(page, '[data-testid=profile-plot]');
+      for (const t of await page.locator('[data-testid=profile-plot] text').all()) {
+        const b = (await t.boundingBox()) as Box;
+        expect(inside(b, plot), `${await t.textContent()} outside the plot`).toBe(true);
+      }
+      // The marks are clipped to the panel whose frame is the axes: the clip rectangle spans x/EL 0–1.
+      const clip = await page.locator('[data-testid=profile-main-marks]').evaluate((g) => {
+        const id = /url\(#(.+)\)/.exec(g.getAttribute('clip-path') ?? '')?.[1] ?? '';
+        const r = document.getElementById(id)?.querySelector('rect');
+        return r === null || r === undefined ? null : r.getBoundingClientRect().toJSON() as Box;
+      });
+      expect(clip).not.toBeNull();
+      const legend = await box(page, '[data-testid=profile-legend]');
+      expect(overlaps(legend, clip as Box)).toBe(false);
+      const labels = await Promise.all((await page.getByTestId('plot-label').all()).map(async (l) => (await l.boundingBox()) as Box));
+      for (let i = 0; i < labels.length; i += 1) for (let j = i + 1; j < labels.length; j += 1) expect(overlaps(labels[i], labels[j]), JSON.stringify([labels[i], labels[j]])).toBe(false);
+    });
+  });
+}
+
+describe('splitter and overlays', { timeout: 60_000 }, () => {
+  it('the bar between image and profile resizes them with the keyboard', async () => {
+    const { page } = h;
+    await page.setViewportSize({ width: 1280, height: 720 });
+    const before = await box(page, '[data-testid=image-view]');
+    await page.getByTestId('split-bar').focus();
+    await page.keyboard.press('ArrowDown');
+    await page.keyboard.press('ArrowDown');
+    await expect.poll(async () => (await box(page, '[data-testid=image-view]')).height).toBeGreaterThan(before.height + 30);
+  });
+
+  it('each overlay can be hidden from its key and shown again', async () => {
+    const { page } = h;
+    await page.getByTestId('overlay-axis').uncheck();
+    expect(await page.getByTestId('handle-anterior').count()).toBe(0);
+    await page.getByTestId('overlay-axis').check();
+    await page.getByTestId('handle-anterior').waitFor();
+    await page.getByTestId('overlay-band').uncheck();
+    expect(await page.getByTestId('band').count()).toBe(0);
+    await page.getByTestId('overlay-band').check();
+  });
+});

@@ -1,0 +1,86 @@
+// Accuracy on a synthetic movie (demo data): a gradient forming by synthesis at the anterior pole, diffusion and
+// degradation, painted onto one embryo per frame with camera noise, analysed frame by frame as the batch does.
+import { describe, expect, it } from 'vitest';
+import { fitExponentialDecay } from '../../core/fit';
+import type { ApAxis, EmbryoResult } from '../../core/model';
+import { analyzeStack } from '../../core/pipeline';
+import { DEFAULT_SETTINGS } from '../../core/settings';
+import { planSyntheticMovie, syntheticMovieInfo, syntheticMoviePlaneSource } from '../../core/synth';
+import {
+  coarsenProfiles, fitAccumulationModel, fitLambdaSeries, localAccumulationTime, sddAccumulationTimeS, shapeFormedAtS,
+} from '../../core/timelapse';
+
+// Demo scenario: λ = 100 µm on a 500 µm egg, degradation time 1/k = 20 min, a frame every 3 min for 3 h,
+// production from the second frame on. Small frames (2 µm/px, 2 slices) keep the test fast.
+const K_PER_S = 1 / 1200;
+const movie = planSyntheticMovie({
+  embryo: { widthPx: 320, heightPx: 224, pixelSizeUm: 2, sizeZ: 2, zStepUm: 4, lambdaUm: 100, eggLengthUm: 500, eggWidthUm: 190 },
+  degradationPerS: K_PER_S, frameIntervalS: 180, frames: 61, framesBeforeOnset: 1,
+}, 4242);
+
+async function analyseMovie(): Promise<EmbryoResult[]> {
+  const info = syntheticMovieInfo(movie);
+  const source = syntheticMoviePlaneSource(movie);
+  const last = info.sizeT - 1;
+  // The axis is found once, on a formed gradient (the last frame), and used for every frame (the embryo does not move).
+  const lastResult = await analyzeStack(info, source, { ...DEFAULT_SETTINGS, timeIndex: last }, { fileLabel: 'movie' });
+  const axis: ApAxis = lastResult.axis!;
+  const results: EmbryoResult[] = [];
+  for (let t = 0; t < info.sizeT; t++) {
+    results.push(await analyzeStack(info, source, { ...DEFAULT_SETTINGS, timeIndex: t }, { fileLabel: 'movie', handEdits: { axis, landmarks: [] } }));
+  }
+  return results;
+}
+
+describe('a synthetic movie analysed frame by frame', async () => {
+  const results = await analyseMovie();
+  const eggLengthUm = results[results.length - 1].eggLengthUm!;
+
+  it('recovers λ(t) within 5% once the gradient has formed', () => {
+    const series = fitLambdaSeries(results.map((r, i) => ({ tS: movie.timesS[i], profile: r.gradientProfile!, eggLengthUm: r.eggLengthUm! })), [0.1, 0.6]);
+    // Truth: λ fitted to the painted concentration itself (no noise, no optics) over the same range.
+    const xEl = movie.xUm.map((x) => x / movie.embryo.eggLengthUm);
+    const truth = movie.shapes.map((c, i) => {
+      try {
+        return { tS: movie.timesS[i], fit: fitExponentialDecay(movie.xUm, c, { eggLengthUm: movie.embryo.eggLengthUm, fitRangeEl: [0.1, 0.6], xEl }), error: null };
+      } catch (e) { return { tS: movie.timesS[i], fit: null, error: String(e) }; }
+    });
+    const formedS = shapeFormedAtS(truth, 0.02);
+    expect(formedS).toBeLessThan(movie.timesS[movie.timesS.length - 1] / 2);
+    let checked = 0;
+    series.forEach((s, i) => {
+      if (movie.timesS[i] < formedS) return;
+      expect(s.fit, `frame ${i}`).not.toBeNull();
+      expect(Math.abs(s.fit!.lambdaEl / truth[i].fit!.lambdaEl - 1), `frame ${i}`).toBeLessThan(0.05);
+      checked++;
+    });
+    expect(checked).toBeGreaterThan(30);
+  });
+
+  it('recovers τ(x) within 15% of the model at 0.1–0.4 EL, and the model fit finds k and λ_τ', () => {
+    const profiles = results.map((r) => r.gradientProfile!);
+    const coarse = coarsenProfiles(profiles[0].xEl, profiles.map((p) => p.mean), 0.025);
+    const xEl = coarse.xEl;
+    const acc = localAccumulationTime(movie.timesS, coarse.frames, { baselineFrames: 1 });
+    const lambdaUm = movie.embryo.lambdaUm;
+    let checked = 0;
+    for (let i = 0; i < xEl.length; i++) {
+      if (xEl[i] < 0.1 || xEl[i] > 0.4) continue;
+      // Source: τ(x) = (1 + x/λ)/(2k) (Berezhkovskii, Sample & Shvartsman 2010 — from memory; matched to our own
+      // numerical solution in core/timelapse/accumulation.test.ts).
+      const model = sddAccumulationTimeS(xEl[i] * movie.embryo.eggLengthUm, lambdaUm, K_PER_S);
+      expect(Math.abs(acc.tauS[i] / model - 1), `x/EL ${xEl[i].toFixed(3)}`).toBeLessThan(0.15);
+      expect(acc.stillRising[i], `x/EL ${xEl[i].toFixed(3)}`).toBe(0);
+      checked++;
+    }
+    expect(checked).toBeGreaterThan(10);
+    const xUm = xEl.map((v) => v * eggLengthUm);
+    const last = results[results.length - 1].gradientFit!;
+    const fit = fitAccumulationModel(xUm, xEl, acc.tauS, acc.tauSeS, { eggLengthUm, steady: { lambdaUm: last.lambdaUm, lambdaSeUm: last.lambdaSeUm } });
+    expect(Math.abs(fit.kPerS.value / K_PER_S - 1)).toBeLessThan(0.15);
+    expect(Math.abs(fit.lambdaTauUm.value / lambdaUm - 1)).toBeLessThan(0.2);
+    expect(fit.agreement).toBe('agree');
+    // D = kλ² of the scenario: 100²/1200 µm²/s.
+    expect(Math.abs(fit.dUm2PerS.value / (100 ** 2 * K_PER_S) - 1)).toBeLessThan(0.2);
+  });
+});

@@ -1,0 +1,70 @@
+// OME-Zarr stores written by Python's zarr 2 and numcodecs (an independent writer) from the pixels of an OME-TIFF:
+// every plane must match the TIFF's pixel for pixel, and the analysis must give the same result.
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { openStackForAnalysis, type OpenedStack } from '../../app/decode';
+import type { EmbryoResult } from '../../core/model';
+import { analyzeStack } from '../../core/pipeline';
+import { DEFAULT_SETTINGS } from '../../core/settings';
+import { pythonZarrMissing, REFERENCE, writePythonStores, writeReferenceTiff } from './stack-fixture';
+
+const missing = pythonZarrMissing();
+const dir = mkdtempSync(join(tmpdir(), 'eggline-zarr-py-'));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+// Source: the stores below are written by Debian's python3-zarr 2.13 and python3-numcodecs 0.11 through
+// scripts/make-zarr-fixtures.py, one per codec, chunk layout and key separator; the pixels come from tifffile.
+const CASES = [
+  'blosc-lz4', 'blosc-lz4hc', 'blosc-zstd', 'blosc-zlib', 'blosc-blosclz', 'zlib', 'gzip', 'zstd', 'none',
+  'blosc-lz4-slash-tiles', 'zlib-czyx-whole-stack', 'zstd-slash-f-order',
+];
+const settings = { ...DEFAULT_SETTINGS, boundaryChannels: [2] };
+
+/** Every plane of an opened stack, in (z, c) order. */
+async function allPlanes(opened: OpenedStack): Promise<number[][]> {
+  const out: number[][] = [];
+  for (let z = 0; z < opened.info.sizeZ; z++) {
+    for (let c = 0; c < opened.info.sizeC; c++) out.push(Array.from((await opened.source.readPlane(z, c, 0)).data));
+  }
+  return out;
+}
+
+/** The result without the fields that name the file or the pixel size's source. */
+const comparable = (r: EmbryoResult) => ({ ...r, file: '', pixelSizeSource: '' });
+
+describe.skipIf(missing !== null)(`OME-Zarr written by Python's zarr${missing ? ` (skipped: ${missing})` : ''}`, () => {
+  let tiff: OpenedStack;
+  let tiffPlanes: number[][];
+  let tiffResult: EmbryoResult;
+
+  beforeAll(async () => {
+    const { path } = writeReferenceTiff(dir);
+    expect(writePythonStores(path, dir)).toEqual(CASES);
+    tiff = await openStackForAnalysis(path, 'reference.ome.tif');
+    tiffPlanes = await allPlanes(tiff);
+    tiffResult = await analyzeStack(tiff.info, tiff.source, settings, { fileLabel: 'reference.ome.tif' });
+    expect(tiffResult.status).toBe('ok');
+  }, 60_000);
+
+  it.each(CASES)('%s: same dimensions, channels and pixel size as the OME-TIFF', async (name) => {
+    const zarr = await openStackForAnalysis(join(dir, `${name}.ome.zarr`), `${name}.ome.zarr`);
+    const { info } = zarr;
+    expect([info.sizeX, info.sizeY, info.sizeZ, info.sizeC, info.sizeT]).toEqual([tiff.info.sizeX, tiff.info.sizeY, 3, 2, 1]);
+    expect(info.sampleType).toBe('uint16');
+    expect(info.channelNames).toEqual(REFERENCE.channels);
+    expect(info.pixelSize).toEqual({ xUm: REFERENCE.pixelSizeUm, yUm: REFERENCE.pixelSizeUm, zUm: REFERENCE.zStepUm, source: 'ome-zarr' });
+    expect(zarr.warnings).toEqual([]);
+    await zarr.source.close();
+  });
+
+  it.each(CASES)('%s: pixel-identical planes and the same analysis result', async (name) => {
+    const zarr = await openStackForAnalysis(join(dir, `${name}.ome.zarr`), `${name}.ome.zarr`);
+    expect(await allPlanes(zarr)).toEqual(tiffPlanes);
+    const result = await analyzeStack(zarr.info, zarr.source, settings, { fileLabel: `${name}.ome.zarr` });
+    expect(result.pixelSizeSource).toBe('ome-zarr');
+    expect(comparable(result)).toEqual(comparable(tiffResult));
+    await zarr.source.close();
+  });
+});
