@@ -13,11 +13,13 @@ import { errorResult, type EmbryoResult } from '../../core/model';
 import type { CohortAnalysis } from '../../core/cohort';
 import type { NamedFigure } from '../../core/figures';
 import type { AnalysisSettings } from '../../core/settings';
+import type { ShardSpec } from '../../core/shard';
 import { analyseFile } from './analyse-file';
 import { runCohort } from './cohort-adapter';
 import { sha256File } from './hash-file';
 import { openJournal, readJournal, settingsKey } from './journal-file';
 import { isInside, listStackFiles } from './list-stacks';
+import { partDir, selectPart } from './shard';
 import type { BatchTask } from './task';
 import { softwareVersions } from './versions';
 import { runPool } from './worker-pool';
@@ -51,6 +53,8 @@ export interface RunBatchOptions {
   readonly resume?: boolean;
   /** Run the cohort step afterwards with this sample sheet. */
   readonly cohort?: { readonly sampleSheetPath: string; readonly reference: string | null } | null;
+  /** Analyse only this part of the sorted, size-balanced file list, writing to `<outDir>/parts/K-of-N`. */
+  readonly shard?: ShardSpec | null;
 }
 
 /** A batch summary plus the files written and warnings (folder listing, cohort step). */
@@ -167,12 +171,15 @@ function endNote(reason: RunEndReason | null, done: number, total: number): stri
 /** Run a batch over `folder`, writing outputs to `outDir`. Rejects only for unusable options (BatchOptionError) or I/O on the output. */
 export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   const folder = resolve(opts.folder);
-  const outDir = resolve(opts.outDir);
-  await checkFolders(folder, outDir);
+  const root = resolve(opts.outDir);
+  await checkFolders(folder, root);
   const runId = randomUUID();
   const startedAt = new Date().toISOString();
   const warnings: string[] = [];
-  const files = await listStackFiles(folder, [outDir], warnings);
+  const listed = await listStackFiles(folder, [root], warnings);
+  const part = opts.shard ? await selectPart(listed, opts.shard, opts.projectFile ?? null) : null;
+  const files = part ? part.files : listed;
+  const outDir = opts.shard ? partDir(root, opts.shard) : root;
   const workerPath = opts.workerPath ?? defaultWorkerPath();
   if (opts.jobs > 0 && !existsSync(workerPath)) throw new Error(`the batch worker ${workerPath} is missing; build it with "npm run build"`);
   const tasks: BatchTask[] = files.map((f, index) => {
@@ -186,7 +193,7 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
     commandLine: opts.commandLine ?? null, folder, outDir, projectFile: opts.projectFile ?? null, configFile: opts.configFile ?? null,
     settings: opts.settings, jobs: opts.jobs, timeoutPerFileS: timeoutMs / 1000, cancelled: false, complete: false, reason: 'killed',
     note: 'written when the run started; no later record replaced it, so the run was killed (or is still running) and the tables here are not a finished run',
-    reused: 0, ok: 0, failed: 0, inputs: [], warnings: [...warnings], ...over,
+    reused: 0, ok: 0, failed: 0, inputs: [], warnings: [...warnings], ...(part ? { shard: part.info } : {}), ...over,
   });
   await fs.mkdir(outDir, { recursive: true });
   const earlier = opts.resume === true ? await readJournal(outDir) : null;

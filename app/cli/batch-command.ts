@@ -6,6 +6,7 @@ import {
 } from '../../core/batch';
 import type { ProjectDoc } from '../../core/contract';
 import { DEFAULT_SETTINGS, type AnalysisSettings } from '../../core/settings';
+import { MAX_PARTS, parseShardSpec, type ShardSpec } from '../../core/shard';
 import { defaultJobs, realPathOf, runBatch, type BatchRunResult, type RunBatchOptions } from '../batch/run-batch';
 import { isInside } from '../batch/list-stacks';
 import { STOP_MESSAGE } from './batch-tuning';
@@ -13,6 +14,7 @@ import { loadProject } from '../project';
 import { BATCH_HELP } from './help';
 import { parseCommandArgs } from './parse-command-args';
 import { progressPrinter } from './progress';
+import { DEFAULT_CPUS_PER_TASK, joinSlurmOptions, partArguments, submitCommands, writeSlurmScripts } from './slurm-scripts';
 import { UsageError, type CliIo } from './usage-error';
 
 const OPTIONS = {
@@ -20,7 +22,8 @@ const OPTIONS = {
   'boundary-channel': { type: 'string', multiple: true }, 'pixel-size': { type: 'string' }, projection: { type: 'string' },
   profile: { type: 'string' }, 'fit-range': { type: 'string' }, anterior: { type: 'string' }, config: { type: 'string' },
   project: { type: 'string' }, 'no-project': { type: 'boolean' }, samples: { type: 'string' }, reference: { type: 'string' },
-  'file-timeout': { type: 'string' }, resume: { type: 'boolean' }, help: { type: 'boolean', short: 'h' },
+  'file-timeout': { type: 'string' }, resume: { type: 'boolean' }, shard: { type: 'string' }, slurm: { type: 'string' },
+  'slurm-options': { type: 'string' }, help: { type: 'boolean', short: 'h' },
 } as const;
 
 /** Everything the batch command resolved from its arguments, before running. */
@@ -37,6 +40,10 @@ export interface BatchPlan {
   readonly timeoutS: number | undefined;
   readonly resume: boolean;
   readonly notes: readonly string[];
+  /** Analyse only this part (--shard K/N). */
+  readonly shard: ShardSpec | null;
+  /** Write Slurm scripts for this many parts instead of analysing (--slurm N), with --slurm-options. */
+  readonly slurm: { readonly parts: number; readonly options: string | null; readonly cpusPerTask: number; readonly partArgs: readonly string[] } | null;
 }
 
 function wholeNumber(text: string, flag: string, min: number, max: number): number {
@@ -69,7 +76,8 @@ async function readProject(given: string | undefined, folder: string, skip: bool
 }
 
 /** Resolve the batch command's arguments into a plan; throws UsageError / BatchOptionError for bad input. */
-export async function planBatch(argv: readonly string[]): Promise<BatchPlan | 'help'> {
+export async function planBatch(given: readonly string[]): Promise<BatchPlan | 'help'> {
+  const argv = joinSlurmOptions(given);
   const { values: v, positionals } = parseCommandArgs(argv, OPTIONS, 'batch');
   if (v.help) return 'help';
   if (positionals.length === 0) throw new UsageError('missing the input folder', 'batch');
@@ -84,6 +92,13 @@ export async function planBatch(argv: readonly string[]): Promise<BatchPlan | 'h
     throw new UsageError(`--out must not be inside the input folder (${v.out}${realOut !== resolve(v.out) ? `, through a symlink, is ${realOut}` : ''}; nothing is written next to the inputs)`, 'batch');
   }
   if (v.reference !== undefined && v.samples === undefined) throw new UsageError('--reference needs --samples', 'batch');
+  if (v.shard !== undefined && v.slurm !== undefined) throw new UsageError('use --shard (analyse one part) or --slurm (write the scripts), not both', 'batch');
+  if (v['slurm-options'] !== undefined && v.slurm === undefined) throw new UsageError('--slurm-options needs --slurm N', 'batch');
+  if (v.shard !== undefined && v.samples !== undefined) {
+    throw new UsageError('--samples goes to "eggline merge" when a batch is split (--shard); the parts are compared once merged', 'batch');
+  }
+  const shard = v.shard !== undefined ? parseShardSpec(v.shard) : null;
+  const slurmParts = v.slurm !== undefined ? wholeNumber(v.slurm, '--slurm', 1, MAX_PARTS) : null;
   if (v.samples !== undefined && !(await fs.stat(v.samples).then((s) => s.isFile(), () => false))) {
     throw new UsageError(`sample sheet not found: ${v.samples}`, 'batch');
   }
@@ -99,7 +114,11 @@ export async function planBatch(argv: readonly string[]): Promise<BatchPlan | 'h
     projectFile: project.path, configFile: v.config !== undefined ? resolve(v.config) : null,
     samples: v.samples !== undefined ? resolve(v.samples) : null, reference: v.reference ?? null,
     timeoutS: v['file-timeout'] !== undefined ? wholeNumber(v['file-timeout'], '--file-timeout', 1, 86_400) : undefined,
-    resume: v.resume === true, notes: project.note ? [project.note] : [],
+    resume: v.resume === true, notes: project.note ? [project.note] : [], shard,
+    slurm: slurmParts === null ? null : {
+      parts: slurmParts, options: v['slurm-options'] ?? null, partArgs: partArguments(argv, OPTIONS, process.cwd()),
+      cpusPerTask: v.jobs !== undefined ? wholeNumber(v.jobs, '--jobs', 1, 256) : DEFAULT_CPUS_PER_TASK,
+    },
   };
 }
 
@@ -146,14 +165,32 @@ function reportEnd(io: CliIo, summary: BatchRunResult, plan: BatchPlan): void {
     io.stdout.write('To analyse the rest, run the same command again with --resume.\n');
     return;
   }
-  io.stdout.write(`Analysed ${total} file${total === 1 ? '' : 's'}${reused}: ${summary.ok} ok, ${summary.failed} failed.\n`);
+  const part = plan.shard ? ` of part ${plan.shard.part} of ${plan.shard.parts}` : '';
+  io.stdout.write(`Analysed ${total} file${total === 1 ? '' : 's'}${part}${reused}: ${summary.ok} ok, ${summary.failed} failed.\n`);
   io.stdout.write(`Tables written to ${summary.outDir}\n`);
   if (summary.cohortError) io.stderr.write(`eggline: the cohort step failed: ${summary.cohortError}\n`);
   else if (plan.samples) io.stdout.write(`Cohort report: ${join(summary.outDir, 'report.html')}\n`);
 }
 
+/** `--slurm N`: write the two scripts and print how to submit them; analyses nothing. */
+async function slurmCommand(plan: BatchPlan, io: CliIo, cliPath: string): Promise<number> {
+  const slurm = plan.slurm as NonNullable<BatchPlan['slurm']>;
+  const mergeArgs = plan.samples ? ['--samples', plan.samples, ...(plan.reference !== null ? ['--reference', plan.reference] : [])] : [];
+  const { plan: p, arrayPath, mergePath } = await writeSlurmScripts({
+    folder: plan.folder, outDir: plan.outDir, parts: slurm.parts, cpusPerTask: slurm.cpusPerTask, optionsText: slurm.options,
+    batchArgs: slurm.partArgs, mergeArgs, nodePath: process.execPath, cliPath,
+  });
+  const perPart = Math.ceil(p.fileCount / slurm.parts);
+  io.stdout.write(`Wrote ${arrayPath} (${slurm.parts} tasks of about ${perPart} file${perPart === 1 ? '' : 's'}, ${slurm.cpusPerTask} cores and ${p.memPerCpuMiB} MiB per core each)\n`);
+  io.stdout.write(`  and ${mergePath} (${p.mergeMemMiB} MiB). Submit both, the merge after every task succeeded:\n\n`);
+  io.stdout.write(`${submitCommands(plan.outDir).split('\n').map((l) => `  ${l}`).join('\n')}\n\n`);
+  if (p.fileCount === 0) io.stderr.write(`eggline: warning: no stacks (.tif, .tiff, .ome.tif, .btf, .tf8) found in ${plan.folder}\n`);
+  if (slurm.parts > p.fileCount && p.fileCount > 0) io.stderr.write(`eggline: warning: ${slurm.parts} parts for ${p.fileCount} files: ${slurm.parts - p.fileCount} tasks will have nothing to do\n`);
+  return 0;
+}
+
 /** Run `eggline batch`; returns the exit code (0 all ok, 1 some failed or stopped, 2 usage error). */
-export async function batchCommand(argv: readonly string[], io: CliIo, extra: Partial<RunBatchOptions> = {}): Promise<number> {
+export async function batchCommand(argv: readonly string[], io: CliIo, extra: Partial<RunBatchOptions> = {}, cliPath = resolve(process.argv[1] ?? 'eggline')): Promise<number> {
   let plan: BatchPlan | 'help';
   try {
     plan = await planBatch(argv);
@@ -162,6 +199,14 @@ export async function batchCommand(argv: readonly string[], io: CliIo, extra: Pa
     throw e;
   }
   if (plan === 'help') { io.stdout.write(BATCH_HELP); return 0; }
+  if (plan.slurm) {
+    try {
+      return await slurmCommand(plan, io, cliPath);
+    } catch (e) {
+      if (e instanceof BatchOptionError) throw new UsageError(e.message, 'batch');
+      throw e;
+    }
+  }
   for (const note of plan.notes) io.stderr.write(`eggline: ${note}\n`);
   const abort = new AbortController();
   const unwatch = watchStops(io, abort);
@@ -171,10 +216,15 @@ export async function batchCommand(argv: readonly string[], io: CliIo, extra: Pa
       folder: plan.folder, outDir: plan.outDir, settings: plan.settings, doc: plan.doc, jobs: plan.jobs,
       onProgress: printer.onProgress, signal: abort.signal, timeoutPerFileS: plan.timeoutS, resume: plan.resume,
       commandLine: ['eggline', 'batch', ...argv], projectFile: plan.projectFile, configFile: plan.configFile,
-      cohort: plan.samples ? { sampleSheetPath: plan.samples, reference: plan.reference } : null, ...extra,
+      cohort: plan.samples ? { sampleSheetPath: plan.samples, reference: plan.reference } : null, shard: plan.shard, ...extra,
     });
     printer.end();
     for (const w of summary.warnings) io.stderr.write(`eggline: warning: ${w}\n`);
+    const s = plan.shard;
+    if (s && summary.record.inputs.length === 0 && summary.complete) {
+      io.stdout.write(`Part ${s.part} of ${s.parts} has no files (${summary.record.shard?.inputCount ?? 0} files in ${s.parts} parts); empty tables written to ${summary.outDir}\n`);
+      return 0;
+    }
     if (summary.record.inputs.length === 0) {
       io.stderr.write(`eggline: no stacks (.tif, .tiff, .ome.tif, .btf, .tf8) found in ${plan.folder}\n`);
       return 1;

@@ -5,6 +5,7 @@ export const MAIN_HELP = `eggline — measure morphogen gradients along the AP a
 
 Usage:
   eggline batch <folder> --out <dir> [options]   analyse every stack in a folder, write tables
+  eggline merge <dir> [--samples <csv>]          combine the parts of a split batch (--shard, --slurm)
   eggline cohort <results-dir> --samples <csv>   compare conditions of a finished batch
   eggline inspect <file>                         show what a TIFF / OME-TIFF file or OME-Zarr folder holds
   eggline demo <dir>                             write a synthetic demo data set to try things on
@@ -46,7 +47,35 @@ While it runs, every finished file is appended to <dir>/journal.jsonl; the table
 Ctrl+C or SIGTERM stops cleanly (tables of the finished files, run.json with "complete": false); a second
 Ctrl+C quits at once. Either way, --resume finishes the run.
 
+Splitting a batch (a cluster, or several machines sharing a file system):
+  --shard K/N                 analyse only part K of N (files split by size, the same on every machine);
+                              writes to <dir>/parts/K-of-N; combine the parts with "eggline merge <dir>"
+  --slurm N                   analyse nothing: write <dir>/eggline-array.sbatch (N tasks, one part each)
+                              and <dir>/eggline-merge.sbatch, and print the two commands that submit them
+  --slurm-options "…"         sbatch options for both scripts (partition, account, time limit, …),
+                              e.g. "--partition=long --time=04:00:00"; --cpus-per-task or --mem here
+                              replace the ones Eggline sets
+  With --slurm, --jobs sets the cores per task [2]; --samples and --reference go to the merge job.
+
 Exit status: 0 all files analysed, 1 some files failed or the run stopped early, 2 usage error.
+`;
+
+/** Help for the merge command. */
+export const MERGE_HELP = `Usage: eggline merge <dir> [options]
+
+Combines the parts of a split batch (<dir>/parts/K-of-N, written by "eggline batch … --out <dir> --shard K/N")
+into <dir>: embryos.csv, boundaries.csv, profiles.csv, landmarks.csv and results.json with the rows in the
+order of a one-machine run, and a run.json listing every input. Refuses (exit 2) a missing or unfinished part,
+a part present twice, and parts made with different settings, hand edits, Eggline versions or input lists.
+
+Options:
+  --samples CSV               sample sheet (file,condition[,dosage]); runs the cohort step after the merge
+  --reference COND            reference condition for the cohort step (needs --samples)
+  --allow-missing             merge the parts that are there; run.json lists the files without a row
+  -h, --help                  show this help
+
+Exit status: 0 merged, every file analysed; 1 merged, but some files failed or are missing, or the cohort
+step failed; 2 usage error or merge refused.
 `;
 
 /** Help for the inspect command. */

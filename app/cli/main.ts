@@ -8,4 +8,4 @@ const self = fileURLToPath(import.meta.url);
 const workerPath = fileURLToPath(new URL('./batch-worker.mjs', import.meta.url));
 process.exitCode = needsBatchTuning(args[0], process.platform, process.env)
   ? await runTunedBatch([self, ...args], process.env)
-  : await runCli(args, { stdout: process.stdout, stderr: process.stderr }, { workerPath });
+  : await runCli(args, { stdout: process.stdout, stderr: process.stderr }, { workerPath, cliPath: self });

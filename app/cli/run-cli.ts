@@ -6,18 +6,21 @@ import { cohortCommand } from './cohort-command';
 import { demoCommand } from './demo-command';
 import { MAIN_HELP } from './help';
 import { inspectCommand } from './inspect-command';
+import { mergeCommand } from './merge-command';
 import { UsageError, type CliIo } from './usage-error';
 
 /** Where the entry point found things it alone can locate (the built worker next to the bundle). */
 export interface CliEnv {
   readonly workerPath?: string;
+  /** The running CLI script (dist/cli.mjs), written by absolute path into Slurm scripts. */
+  readonly cliPath?: string;
 }
 
 /** Run the command line; resolves with the exit code (0 ok, 1 some files failed, 2 usage error). */
 export async function runCli(argv: readonly string[], io: CliIo, env: CliEnv = {}): Promise<number> {
   const COMMANDS: Record<string, (argv: readonly string[], io: CliIo) => Promise<number>> = {
-    batch: (a, o) => batchCommand(a, o, env.workerPath ? { workerPath: env.workerPath } : {}),
-    cohort: (a, o) => cohortCommand([...a], o), inspect: inspectCommand, demo: (a, o) => demoCommand(a, o, env.workerPath),
+    batch: (a, o) => batchCommand(a, o, env.workerPath ? { workerPath: env.workerPath } : {}, env.cliPath),
+    cohort: (a, o) => cohortCommand([...a], o), inspect: inspectCommand, merge: mergeCommand, demo: (a, o) => demoCommand(a, o, env.workerPath),
   };
   const [first, ...rest] = argv;
   if (first === undefined || first === '--help' || first === '-h' || first === 'help') {

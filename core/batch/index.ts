@@ -20,4 +20,6 @@ export {
   PROJECT_FILE_NAME, parseProjectDoc, projectKey, editsForFile, toHandEdits, settingsForFile,
 } from './project-edits';
 export { isStackFileName, isStackFolderName, sortStackPaths } from './stack-files';
-export { runRecordToJson, type RunRecord, type RunInput, type RunEndReason, type SoftwareVersions } from './run-record';
+export {
+  runRecordToJson, type RunRecord, type RunInput, type RunEndReason, type SoftwareVersions, type ShardInfo, type MergeInfo,
+} from './run-record';

@@ -18,6 +18,29 @@ export interface RunInput {
   readonly error: string | null;
 }
 
+/** Which part of a split batch a run analysed (`eggline batch --shard K/N`). */
+export interface ShardInfo {
+  /** Part K (1-based) of N parts. */
+  readonly part: number;
+  readonly parts: number;
+  /** The whole input list (every part's files): number of files, total bytes, SHA-256 of its canonical text. */
+  readonly inputCount: number;
+  readonly inputBytes: number;
+  readonly inputListSha256: string;
+  /** SHA-256 of the project file used (hand edits), null when none. */
+  readonly projectSha256: string | null;
+}
+
+/** What `eggline merge` combined: the parts found and what was missing (only with --allow-missing). */
+export interface MergeInfo {
+  readonly parts: number;
+  readonly partsMerged: readonly number[];
+  readonly missingParts: readonly number[];
+  /** Files of missing or unfinished parts that have no row; null when they cannot be known (input folder unreadable). */
+  readonly missingFiles: readonly string[] | null;
+  readonly inputListSha256: string;
+}
+
 /** Why a run did not finish: stopped by Ctrl+C / SIGTERM / the app, killed (its launching process went away, or it
  *  never got to write its final record), or failed (an error stopped it). */
 export type RunEndReason = 'cancelled' | 'killed' | 'failed';
@@ -53,6 +76,10 @@ export interface RunRecord {
   readonly inputs: readonly RunInput[];
   /** Problems that did not stop the run (e.g. an unreadable subfolder), one line each. */
   readonly warnings: readonly string[];
+  /** Present when the run analysed one part of a split batch. */
+  readonly shard?: ShardInfo;
+  /** Present when the record was made by merging parts. */
+  readonly merge?: MergeInfo;
 }
 
 /** run.json text (pretty-printed, ends with a newline). */

@@ -3,7 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import { fitExponentialDecay } from '../../core/fit';
 import type { ApAxis, EmbryoResult } from '../../core/model';
-import { analyzeStack } from '../../core/pipeline';
+import { analyseStack } from '../../core/pipeline';
 import { DEFAULT_SETTINGS } from '../../core/settings';
 import { planSyntheticMovie, syntheticMovieInfo, syntheticMoviePlaneSource } from '../../core/synth';
 import {
@@ -23,11 +23,11 @@ async function analyseMovie(): Promise<EmbryoResult[]> {
   const source = syntheticMoviePlaneSource(movie);
   const last = info.sizeT - 1;
   // The axis is found once, on a formed gradient (the last frame), and used for every frame (the embryo does not move).
-  const lastResult = await analyzeStack(info, source, { ...DEFAULT_SETTINGS, timeIndex: last }, { fileLabel: 'movie' });
+  const lastResult = await analyseStack(info, source, { ...DEFAULT_SETTINGS, timeIndex: last }, { fileLabel: 'movie' });
   const axis: ApAxis = lastResult.axis!;
   const results: EmbryoResult[] = [];
   for (let t = 0; t < info.sizeT; t++) {
-    results.push(await analyzeStack(info, source, { ...DEFAULT_SETTINGS, timeIndex: t }, { fileLabel: 'movie', handEdits: { axis, landmarks: [] } }));
+    results.push(await analyseStack(info, source, { ...DEFAULT_SETTINGS, timeIndex: t }, { fileLabel: 'movie', handEdits: { axis, landmarks: [] } }));
   }
   return results;
 }

@@ -1,0 +1,146 @@
+// `eggline merge`: combine the parts of a split batch (<out>/parts/K-of-N) into the tables of a one-machine run.
+// Parts are read one at a time; what is kept is their rows, so memory grows with the rows, not with the parts.
+import { randomUUID } from 'node:crypto';
+import { promises as fs } from 'node:fs';
+import { join } from 'node:path';
+import { resultsFromJson, type RunRecord } from '../../core/batch';
+import type { EmbryoResult } from '../../core/model';
+import { checkParts, isUnfinished, mergeRunRecords, orderLikeOneRun, type PartEntry } from '../../core/shard';
+import { runCohort } from './cohort-adapter';
+import { filesOfMissingParts } from './shard';
+import { writeBatchOutputs } from './write-outputs';
+
+/** A reason to merge nothing (exit code 2), one line. */
+export class MergeRefusal extends Error {
+  override name = 'MergeRefusal';
+}
+
+/** What a merge needs. */
+export interface MergePartsOptions {
+  /** The --out folder of the split batch; the parts are in its parts/ folder, the merged tables go next to it. */
+  readonly outDir: string;
+  /** Merge the parts that are there; list the files of missing parts in run.json. */
+  readonly allowMissing: boolean;
+  readonly commandLine?: readonly string[];
+  readonly cohort?: { readonly sampleSheetPath: string; readonly reference: string | null } | null;
+}
+
+/** What a merge wrote. */
+export interface MergePartsResult {
+  readonly record: RunRecord;
+  readonly written: readonly string[];
+  readonly warnings: readonly string[];
+  readonly cohortError: string | null;
+  readonly parts: number;
+  readonly ok: number;
+  readonly failed: number;
+  /** Files with no row (missing or unfinished parts); null when they cannot be known. */
+  readonly missingFiles: readonly string[] | null;
+}
+
+async function readPartRecord(dir: string): Promise<{ record: RunRecord | null; problem: string | null }> {
+  let text: string;
+  try {
+    text = await fs.readFile(join(dir, 'run.json'), 'utf8');
+  } catch (e) {
+    return { record: null, problem: `cannot read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})` };
+  }
+  let doc: unknown;
+  try {
+    doc = JSON.parse(text);
+  } catch {
+    return { record: null, problem: 'not valid JSON' };
+  }
+  const r = doc as RunRecord;
+  if (typeof doc !== 'object' || doc === null || r.schema !== 'eggline-run' || !Array.isArray(r.inputs) || typeof r.settings !== 'object') {
+    return { record: null, problem: 'not an Eggline run record' };
+  }
+  return { record: r, problem: null };
+}
+
+/** Every folder under `<outDir>/parts` with its run.json (hidden folders skipped). */
+async function findParts(outDir: string): Promise<PartEntry[]> {
+  const partsDir = join(outDir, 'parts');
+  const entries = await fs.readdir(partsDir, { withFileTypes: true }).catch((e: NodeJS.ErrnoException) => {
+    throw new MergeRefusal(e.code === 'ENOENT'
+      ? `no folder ${partsDir} (run "eggline batch <folder> --out ${outDir} --shard K/N" for each part first)`
+      : `cannot read ${partsDir} (${e.code ?? e.message})`);
+  });
+  const out: PartEntry[] = [];
+  for (const e of entries) {
+    if (!e.isDirectory() || e.name.startsWith('.')) continue;
+    out.push({ folder: e.name, ...(await readPartRecord(join(partsDir, e.name))) });
+  }
+  return out;
+}
+
+/** Read one part's results and check them against its run.json. */
+async function readPartResults(outDir: string, entry: PartEntry): Promise<EmbryoResult[]> {
+  const path = join(outDir, 'parts', entry.folder, 'results.json');
+  const where = `parts/${entry.folder}/results.json`;
+  let text: string;
+  try {
+    text = await fs.readFile(path, 'utf8');
+  } catch (e) {
+    throw new MergeRefusal(`${where}: cannot read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+  }
+  let results: EmbryoResult[];
+  try {
+    results = resultsFromJson(text);
+  } catch (e) {
+    throw new MergeRefusal(`${where}: ${(e as Error).message.replace(/^results\.json: /, '')}`);
+  }
+  const record = entry.record as RunRecord;
+  const done = new Set(record.inputs.filter((i) => i.status !== 'not-run').map((i) => i.file));
+  const stray = results.find((r) => !done.has(r.file));
+  if (stray) throw new MergeRefusal(`${where} holds ${stray.file}, which parts/${entry.folder}/run.json does not list as analysed`);
+  return results;
+}
+
+/** Merge the parts under `<outDir>/parts` into `<outDir>`; rejects with MergeRefusal (one line) when it must not. */
+export async function mergeParts(opts: MergePartsOptions): Promise<MergePartsResult> {
+  const entries = await findParts(opts.outDir);
+  const checked = checkParts(entries, opts.allowMissing);
+  if (!checked.ok) throw new MergeRefusal(checked.message);
+  const { plan } = checked;
+  const records = plan.present.map((e) => e.record as RunRecord);
+  const all: EmbryoResult[] = [];
+  const owner = new Map<string, string>();
+  for (const entry of plan.present) {
+    const results = await readPartResults(opts.outDir, entry);
+    for (const r of results) {
+      const before = owner.get(r.file);
+      if (before !== undefined && before !== entry.folder) throw new MergeRefusal(`${r.file} has rows in both parts/${before} and parts/${entry.folder}`);
+      owner.set(r.file, entry.folder);
+      all.push(r);
+    }
+  }
+  const results = orderLikeOneRun(all);
+  const first = records[0];
+  const shard = first.shard as NonNullable<RunRecord['shard']>;
+  const absent = plan.missingParts.filter((k) => !plan.present.some((e) => e.record?.shard?.part === k));
+  const ofAbsent = await filesOfMissingParts(first.folder, opts.outDir, plan.parts, absent, shard.inputListSha256);
+  const notRun = records.filter(isUnfinished).flatMap((r) => r.inputs.filter((i) => i.status === 'not-run').map((i) => i.file));
+  const missingFiles = ofAbsent === null ? null : orderLikeOneRun([...ofAbsent, ...notRun].map((file) => ({ file }))).map((f) => f.file);
+  const warnings = [...plan.warnings];
+  if (missingFiles === null) warnings.push(`the files of missing parts ${absent.join(', ')} cannot be listed: the input folder ${first.folder} cannot be read or has changed`);
+  const record = mergeRunRecords(records, {
+    runId: randomUUID(), endedAt: new Date().toISOString(), commandLine: opts.commandLine ?? null, outDir: opts.outDir, warnings,
+    merge: {
+      parts: plan.parts, partsMerged: records.map((r) => r.shard?.part as number), missingParts: plan.missingParts,
+      missingFiles, inputListSha256: shard.inputListSha256,
+    },
+  });
+  const written = await writeBatchOutputs(opts.outDir, results, record);
+  let cohortError: string | null = null;
+  if (opts.cohort) {
+    const failures = results.filter((r) => r.status === 'error').map((r) => ({ file: r.file, error: r.error ?? 'error' }));
+    const step = await runCohort({
+      results, failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, outDir: opts.outDir, runRecord: record,
+    });
+    written.push(...step.written);
+    warnings.push(...step.warnings);
+    cohortError = step.error;
+  }
+  return { record, written, warnings, cohortError, parts: plan.parts, ok: record.ok, failed: record.failed, missingFiles };
+}
