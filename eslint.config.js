@@ -49,6 +49,8 @@ export default tseslint.config(
     rules: {
       '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
       '@typescript-eslint/consistent-type-imports': 'error',
+      // One spelling in names: "analyse" (analyseStack, analyseCohort), as in the documentation.
+      'id-match': ['error', '^(?![\\s\\S]*[Aa]nalyz)', { properties: true, classFields: true, onlyDeclarations: false }],
     },
   },
   {

@@ -1,6 +1,8 @@
 // Analyse one batch file end to end (open, decode, analyse), turning every failure into an error row.
 import { basename } from 'node:path';
-import { errorResult, oneLine, type EmbryoResult } from '../../core/model';
+import { errorResult, oneLine, type EmbryoResult, type StackInfo } from '../../core/model';
+import { analysisBytesEstimate, WORKER_BASE_BYTES } from '../../core/tiff';
+import { formatByteSize as formatBytes } from '../../core/batch';
 import { analyse, openStack } from './deps';
 import type { BatchTask } from './task';
 
@@ -10,11 +12,25 @@ export function fileMessage(file: string, e: unknown): string {
   return text.startsWith(file) || text.startsWith(basename(file)) ? text : `${file}: ${text}`;
 }
 
+/** "22000×22000 px planes, 2 channels": what makes a stack big, for the memory message. */
+function stackSize(info: StackInfo): string {
+  return `${info.sizeX}×${info.sizeY} px planes, ${info.sizeC} channel${info.sizeC === 1 ? '' : 's'}`;
+}
+
+/** The one-line refusal when the analysis of `info` would need more than `maxBytes`, else null. */
+export function memoryRefusal(info: StackInfo, maxBytes: number): string | null {
+  const need = analysisBytesEstimate(info.sizeX, info.sizeY, info.sizeC, info.sampleType, info.samplesPerPixel) + WORKER_BASE_BYTES;
+  if (need <= maxBytes) return null;
+  return `needs about ${formatBytes(need)} of memory to analyse (${stackSize(info)}), more than the ${formatBytes(maxBytes)} allowed per file; raise the limit with --max-memory`;
+}
+
 /** Analyse the task's file; never rejects. The result's `file` is the task's relative path. */
 export async function analyseFile(task: BatchTask): Promise<EmbryoResult> {
   let opened: Awaited<ReturnType<typeof openStack>> | null = null;
   try {
     opened = await openStack(task.path, task.file);
+    const refusal = task.maxMemoryBytes === undefined ? null : memoryRefusal(opened.info, task.maxMemoryBytes);
+    if (refusal !== null) return errorResult(task.file, `${task.file}: ${refusal}`, opened.info.warnings);
     const result = await analyse(opened.info, opened.source, task.settings,
       task.handEdits ? { fileLabel: task.file, handEdits: task.handEdits } : { fileLabel: task.file });
     const warnings = [...result.warnings, ...opened.warnings.filter((w) => !result.warnings.includes(w))];

@@ -41,6 +41,9 @@ export interface RunBatchOptions {
   readonly onProgress?: (p: BatchProgress) => void;
   readonly signal?: AbortSignal;
   readonly timeoutPerFileS?: number;
+  /** Memory one file's analysis may use, bytes: files whose estimate exceeds it are refused, workers that use more are
+   *  stopped. Absent = no limit. */
+  readonly maxMemoryBytes?: number;
   /** Built worker script; default: batch-worker.mjs next to the running bundle. */
   readonly workerPath?: string;
   /** In-process analysis function (jobs = 0); default: the real decoder + pipeline. */
@@ -184,14 +187,15 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   if (opts.jobs > 0 && !existsSync(workerPath)) throw new Error(`the batch worker ${workerPath} is missing; build it with "npm run build"`);
   const tasks: BatchTask[] = files.map((f, index) => {
     const edits = editsForFile(opts.doc, f.file, f.path);
-    return { index, path: f.path, file: f.file, settings: settingsForFile(opts.settings, edits), handEdits: toHandEdits(edits) };
+    const task = { index, path: f.path, file: f.file, settings: settingsForFile(opts.settings, edits), handEdits: toHandEdits(edits) };
+    return opts.maxMemoryBytes === undefined ? task : { ...task, maxMemoryBytes: opts.maxMemoryBytes };
   });
   const software = await softwareVersions();
   const timeoutMs = (opts.timeoutPerFileS ?? DEFAULT_TIMEOUT_PER_FILE_S) * 1000;
   const record = (over: Partial<RunRecord>): RunRecord => ({
     schema: 'eggline-run', version: 2, runId, software, startedAt, endedAt: new Date().toISOString(),
     commandLine: opts.commandLine ?? null, folder, outDir, projectFile: opts.projectFile ?? null, configFile: opts.configFile ?? null,
-    settings: opts.settings, jobs: opts.jobs, timeoutPerFileS: timeoutMs / 1000, cancelled: false, complete: false, reason: 'killed',
+    settings: opts.settings, jobs: opts.jobs, timeoutPerFileS: timeoutMs / 1000, maxMemoryBytes: opts.maxMemoryBytes ?? null, cancelled: false, complete: false, reason: 'killed',
     note: 'written when the run started; no later record replaced it, so the run was killed (or is still running) and the tables here are not a finished run',
     reused: 0, ok: 0, failed: 0, inputs: [], warnings: [...warnings], ...(part ? { shard: part.info } : {}), ...over,
   });
@@ -235,7 +239,7 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
     if (opts.jobs <= 0) await runInProcess(pending, opts.analyseInProcess ?? analyseFile, timeoutMs, opts.signal, onStart, onResult);
     else {
       await runPool(pending, {
-        jobs: opts.jobs, workerPath, timeoutMs, signal: opts.signal, onStart, onResult,
+        jobs: opts.jobs, workerPath, timeoutMs, maxMemoryBytes: opts.maxMemoryBytes, signal: opts.signal, onStart, onResult,
         workerData: { decoderThreads: Math.max(1, Math.floor(defaultJobs() / opts.jobs)) },
       });
     }

@@ -13,6 +13,8 @@ export interface BatchTask {
   readonly file: string;
   readonly settings: AnalysisSettings;
   readonly handEdits: HandEdits | null;
+  /** Memory one file's analysis may use, bytes (the worker's resident size); absent = no limit. */
+  readonly maxMemoryBytes?: number;
 }
 
 /** A request to generate one demo file (sent with `kind: 'demo'`; analysis tasks carry no `kind`). */

@@ -10,12 +10,16 @@ import { runPool } from './worker-pool';
 const dir = mkdtempSync(join(tmpdir(), 'eggline-pool-'));
 const workerPath = join(dir, 'fake-worker.mjs');
 writeFileSync(workerPath, `
-import { parentPort } from 'node:worker_threads';
-parentPort.on('message', (task) => {
+process.on('disconnect', () => process.exit(0));
+const keep = [];
+process.on('message', (task) => {
   if (task.file.includes('crash')) throw new Error('boom in ' + task.file);
   if (task.file.includes('exit')) process.exit(3);
   if (task.file.includes('hang')) { for (;;) {} }
-  parentPort.postMessage({ type: 'result', index: task.index, result: { file: task.file, status: 'ok', error: null } });
+  if (task.file.includes('abort')) process.abort();
+  if (task.file.includes('grow')) { const a = []; for (;;) a.push(new Array(1e6).fill(1.5)); }
+  if (task.file.includes('big')) { for (let i = 0; i < 40; i++) keep.push(new Uint8Array(16 << 20).fill(1)); setTimeout(() => {}, 60000); return; }
+  process.send({ type: 'result', index: task.index, result: { file: task.file, status: 'ok', error: null } });
 });
 `);
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -34,10 +38,19 @@ describe('runPool', () => {
     const seen: string[] = [];
     const results = await runPool(tasks(names), { jobs: 2, workerPath, timeoutMs: 1500, onResult: (t) => seen.push(t.file) });
     expect(results.map((r) => r?.status)).toEqual(['ok', 'error', 'ok', 'error', 'error', 'ok']);
-    expect(results[1]?.error).toBe('crash.tif: the analysis crashed (boom in crash.tif)');
-    expect(results[3]?.error).toBe('exit.tif: the analysis stopped unexpectedly (worker exit code 3)');
+    expect(results[1]?.error).toBe('crash.tif: the analysis crashed (exit code 1: Error: boom in crash.tif)');
+    expect(results[3]?.error).toBe('exit.tif: the analysis crashed (exit code 3)');
     expect(results[4]?.error).toBe('hang.tif: timed out after 2 s (the file may be damaged or too large)');
     expect(seen.sort()).toEqual([...names].sort());
+  });
+  it('a worker that aborts, runs out of heap or over its memory limit gives its file an error row; the pool goes on', async () => {
+    const names = ['abort.tif', 'grow.tif', 'big.tif', 'a.tif'];
+    const results = await runPool(tasks(names), { jobs: 1, workerPath, timeoutMs: 60_000, maxMemoryBytes: 400 * 2 ** 20 });
+    // SIGABRT is what abort(3) raises (from memory: POSIX abort()).
+    expect(results[0]?.error).toBe('abort.tif: the analysis crashed (ended by SIGABRT)');
+    expect(results[1]?.error).toBe('grow.tif: the analysis ran out of memory and was stopped (the file may be damaged, or raise the limit with --max-memory)');
+    expect(results[2]?.error).toBe('big.tif: used more than 400 MiB of memory and was stopped (the file may be damaged, or raise the limit with --max-memory)');
+    expect(results[3]?.status).toBe('ok');
   });
   it('stops when cancelled, leaving unrun tasks empty', async () => {
     const ctrl = new AbortController();

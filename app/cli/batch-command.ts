@@ -1,8 +1,9 @@
 // `eggline batch <folder> --out <dir> …`: resolve settings (defaults < project < config < flags), load hand edits, run the batch.
 import { promises as fs } from 'node:fs';
 import { join, resolve } from 'node:path';
+import { totalmem } from 'node:os';
 import {
-  BatchOptionError, mergeSettings, parseConfigText, parseSettingsFlags, PROJECT_FILE_NAME, type SettingsOverrides,
+  BatchOptionError, defaultMaxMemoryBytes, mergeSettings, parseByteSize, parseConfigText, parseSettingsFlags, PROJECT_FILE_NAME, type SettingsOverrides,
 } from '../../core/batch';
 import type { ProjectDoc } from '../../core/contract';
 import { DEFAULT_SETTINGS, type AnalysisSettings } from '../../core/settings';
@@ -22,8 +23,8 @@ const OPTIONS = {
   'boundary-channel': { type: 'string', multiple: true }, 'pixel-size': { type: 'string' }, projection: { type: 'string' },
   profile: { type: 'string' }, 'fit-range': { type: 'string' }, anterior: { type: 'string' }, config: { type: 'string' },
   project: { type: 'string' }, 'no-project': { type: 'boolean' }, samples: { type: 'string' }, reference: { type: 'string' },
-  'file-timeout': { type: 'string' }, resume: { type: 'boolean' }, shard: { type: 'string' }, slurm: { type: 'string' },
-  'slurm-options': { type: 'string' }, help: { type: 'boolean', short: 'h' },
+  'file-timeout': { type: 'string' }, resume: { type: 'boolean' }, 'max-memory': { type: 'string' }, shard: { type: 'string' },
+  slurm: { type: 'string' }, 'slurm-options': { type: 'string' }, help: { type: 'boolean', short: 'h' },
 } as const;
 
 /** Everything the batch command resolved from its arguments, before running. */
@@ -39,6 +40,7 @@ export interface BatchPlan {
   readonly reference: string | null;
   readonly timeoutS: number | undefined;
   readonly resume: boolean;
+  readonly maxMemoryBytes: number;
   readonly notes: readonly string[];
   /** Analyse only this part (--shard K/N). */
   readonly shard: ShardSpec | null;
@@ -108,13 +110,15 @@ export async function planBatch(given: readonly string[]): Promise<BatchPlan | '
   });
   const config = v.config !== undefined ? await readConfig(v.config) : {};
   const project = await readProject(v.project, folder, v['no-project'] === true);
+  const jobs = v.jobs !== undefined ? wholeNumber(v.jobs, '--jobs', 1, 256) : defaultJobs();
+  const maxMemory = v['max-memory'] !== undefined ? parseByteSize(v['max-memory'], '--max-memory') : defaultMaxMemoryBytes(totalmem(), jobs);
   return {
     folder, outDir: resolve(v.out), settings: mergeSettings(DEFAULT_SETTINGS, project.doc?.settings ?? {}, config, flags), doc: project.doc,
-    jobs: v.jobs !== undefined ? wholeNumber(v.jobs, '--jobs', 1, 256) : defaultJobs(),
+    jobs,
     projectFile: project.path, configFile: v.config !== undefined ? resolve(v.config) : null,
     samples: v.samples !== undefined ? resolve(v.samples) : null, reference: v.reference ?? null,
     timeoutS: v['file-timeout'] !== undefined ? wholeNumber(v['file-timeout'], '--file-timeout', 1, 86_400) : undefined,
-    resume: v.resume === true, notes: project.note ? [project.note] : [], shard,
+    resume: v.resume === true, maxMemoryBytes: maxMemory, notes: project.note ? [project.note] : [], shard,
     slurm: slurmParts === null ? null : {
       parts: slurmParts, options: v['slurm-options'] ?? null, partArgs: partArguments(argv, OPTIONS, process.cwd()),
       cpusPerTask: v.jobs !== undefined ? wholeNumber(v.jobs, '--jobs', 1, 256) : DEFAULT_CPUS_PER_TASK,
@@ -214,7 +218,7 @@ export async function batchCommand(argv: readonly string[], io: CliIo, extra: Pa
   try {
     const summary = await runBatch({
       folder: plan.folder, outDir: plan.outDir, settings: plan.settings, doc: plan.doc, jobs: plan.jobs,
-      onProgress: printer.onProgress, signal: abort.signal, timeoutPerFileS: plan.timeoutS, resume: plan.resume,
+      onProgress: printer.onProgress, signal: abort.signal, timeoutPerFileS: plan.timeoutS, resume: plan.resume, maxMemoryBytes: plan.maxMemoryBytes,
       commandLine: ['eggline', 'batch', ...argv], projectFile: plan.projectFile, configFile: plan.configFile,
       cohort: plan.samples ? { sampleSheetPath: plan.samples, reference: plan.reference } : null, shard: plan.shard, ...extra,
     });

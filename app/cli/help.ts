@@ -39,6 +39,9 @@ Options:
   --samples CSV               sample sheet (file,condition[,dosage]); runs the cohort step after
   --reference COND            reference condition for the cohort step (needs --samples)
   --file-timeout S            give up on one file after S seconds                       [900]
+  --max-memory SIZE           memory one file's analysis may use (512M, 4G, …); a file estimated to
+                              need more is refused, a worker that uses more is stopped; either way
+                              that file gets an error row     [3/4 of memory / jobs, 1G to 8G]
   --resume                    reuse the results journal.jsonl in <dir> holds for files whose bytes
                               (SHA-256) and settings are unchanged; analyse the rest
   -h, --help                  show this help

@@ -1,25 +1,43 @@
-// Worker thread of the batch pool: analyses one file per message and replies with its EmbryoResult and memory use.
-// It also generates demo files on request, so writing the demo set uses every core.
+// Batch worker: analyses one file per message and replies with its EmbryoResult and memory use. It runs as a child
+// process of the batch (the pool's usual mode: a fatal error here ends only this process) or as a worker thread
+// (demo generation, which also uses it to write demo files on every core).
 import { parentPort, workerData } from 'node:worker_threads';
 import { analyseFile } from '../batch/analyse-file';
 import { limitDecoderThreads } from '../batch/decoder-threads';
 import type { BatchTask, DemoRequest, WorkerReply } from '../batch/task';
 import { demoFile } from '../batch/write-demo';
 
-const port = parentPort;
-if (!port) throw new Error('batch-worker must run as a worker thread');
-limitDecoderThreads((workerData as { decoderThreads?: number } | undefined)?.decoderThreads ?? 1);
+/** The two ways this worker talks to its parent. */
+interface Channel {
+  on(listener: (msg: BatchTask | DemoRequest) => void): void;
+  post(msg: WorkerReply, transfer?: ArrayBuffer[]): void;
+}
 
-port.on('message', (msg: BatchTask | DemoRequest) => {
+function threadChannel(port: NonNullable<typeof parentPort>): Channel {
+  return { on: (l) => port.on('message', l), post: (m, t) => port.postMessage(m, t ?? []) };
+}
+
+function processChannel(): Channel {
+  if (typeof process.send !== 'function') throw new Error('batch-worker must run as a worker thread or a child process with IPC');
+  // The batch went away (killed, even by SIGKILL): its IPC channel closed, so stop at once rather than run on.
+  process.on('disconnect', () => process.exit(0));
+  return { on: (l) => process.on('message', l), post: (m) => { process.send?.(m); } };
+}
+
+const channel = parentPort ? threadChannel(parentPort) : processChannel();
+const data = (parentPort ? workerData : JSON.parse(process.env.EGGLINE_WORKER_DATA ?? 'null')) as { decoderThreads?: number } | null;
+limitDecoderThreads(data?.decoderThreads ?? 1);
+
+channel.on((msg) => {
   if ('kind' in msg && msg.kind === 'demo') {
     const { bytes, furrow } = demoFile(msg.item);
-    port.postMessage({ type: 'demo', index: msg.index, bytes, furrow } satisfies WorkerReply, [bytes.buffer as ArrayBuffer]);
+    channel.post({ type: 'demo', index: msg.index, bytes, furrow }, [bytes.buffer as ArrayBuffer]);
     return;
   }
   const task = msg as BatchTask;
   void analyseFile(task).then((result) => {
-    port.postMessage({ type: 'result', index: task.index, result } satisfies WorkerReply);
+    channel.post({ type: 'result', index: task.index, result });
     const m = process.memoryUsage();
-    port.postMessage({ type: 'memory', rssBytes: m.rss, heapUsedBytes: m.heapUsed, externalBytes: m.external + m.arrayBuffers } satisfies WorkerReply);
+    channel.post({ type: 'memory', rssBytes: m.rss, heapUsedBytes: m.heapUsed, externalBytes: m.external + m.arrayBuffers });
   });
 });

@@ -23,3 +23,4 @@ export { isStackFileName, isStackFolderName, sortStackPaths } from './stack-file
 export {
   runRecordToJson, type RunRecord, type RunInput, type RunEndReason, type SoftwareVersions, type ShardInfo, type MergeInfo,
 } from './run-record';
+export { parseByteSize, formatByteSize, defaultMaxMemoryBytes } from './byte-size';

@@ -62,6 +62,8 @@ export interface RunRecord {
   readonly settings: AnalysisSettings;
   readonly jobs: number;
   readonly timeoutPerFileS: number;
+  /** Memory allowed per file, bytes (--max-memory); null = no limit. */
+  readonly maxMemoryBytes?: number | null;
   readonly cancelled: boolean;
   /** True only when every input file has its row in the tables. */
   readonly complete: boolean;

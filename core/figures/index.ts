@@ -10,3 +10,7 @@ export { shiftVsLnFFigure, type ShiftFigureInput, type FigureLine } from './shif
 export { positionalErrorFigure, autoSigmaYMax, type SigmaSeries } from './positional-error-figure';
 export { ciDecimals, fixed, sigFig, valueWithCi, plainNumber } from './number-format';
 export { cohortFigures, figureSlug, type NamedFigure } from './cohort-figures';
+export {
+  lambdaOverTimeFigure, kymographFigure, accumulationFigure, movieTimeUnit,
+  type LambdaPoint, type KymographInput, type AccumulationFigureInput,
+} from './timelapse-figures';

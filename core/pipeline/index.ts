@@ -7,3 +7,5 @@ export { detectEmbryo, straightenPlane, projectPointOntoAxis, pointOnAxis, axisL
 export type { AxisPosition, EmbryoDetection } from '../geometry';
 export { prepareSampling, measureEmbryo, sampleBandOutline } from '../profile';
 export type { Measurement, PreparedSampling } from '../profile';
+export { analyseMovie, projectOverTime, axisSampleTimes } from './movie';
+export type { MovieOptions, MovieAnalysis } from './movie';

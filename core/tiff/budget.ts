@@ -32,3 +32,19 @@ export function checkPlaneBudget(layout: ImageLayout, type: SampleType, fileByte
     throw new TiffError('too-large', fileLabel, `one plane of ${dims} pixels needs ${formatBytes(planeBytes)}, over the ${formatBytes(maxPlaneBytes)} limit`);
   }
 }
+
+/** Resident bytes of a worker process before it opens a file (Node, sharp and libvips loaded), measured with
+ *  `npm run bench` on Linux: about 100–150 MiB; the budget reserves the upper figure. */
+export const WORKER_BASE_BYTES = 150 * 2 ** 20;
+
+/**
+ * Bytes the analysis of one stack holds at its peak, estimated from one plane's pixel count: per channel a float
+ * projection, its smoothed copy and the straightened samples (about 24 bytes a pixel), the masks, distance map and
+ * labels shared by all channels (about 48), and two raw planes in flight (one read ahead). `npm run bench` measured
+ * at most 1.56 × 96 MiB for 1024×1024 pixels × 2 channels × 24 slices, about 150 bytes a pixel with the base
+ * included; this estimate gives 101 bytes a pixel plus WORKER_BASE_BYTES for that stack.
+ */
+export function analysisBytesEstimate(sizeX: number, sizeY: number, sizeC: number, type: SampleType, samplesPerPixel: number): number {
+  const pixels = sizeX * sizeY;
+  return pixels * (24 * sizeC + 48 + 2 * bytesPerSample(type) * samplesPerPixel);
+}

@@ -6,6 +6,7 @@ export type TiffErrorCode =
   | 'truncated'
   | 'empty'
   | 'bad-offset'
+  | 'bad-tag'
   | 'ifd-loop'
   | 'too-large'
   | 'unsupported'

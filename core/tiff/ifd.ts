@@ -2,6 +2,7 @@
 import type { ByteSource } from './byte-source';
 import { TiffError } from './errors';
 import type { TiffHeader } from './header';
+import { checkTagCounts } from './tag-counts';
 import { fieldTypeSize } from './tags';
 
 /** One 12-byte (TIFF) or 20-byte (BigTIFF) directory entry. */
@@ -53,7 +54,9 @@ export async function readIfd(source: ByteSource, header: TiffHeader, offset: nu
   if (!fits) throw new TiffError('truncated', fileLabel, `file ends inside IFD ${index} (offset ${offset})`);
   const block = await source.read(offset + countBytes, blockBytes);
   if (block.length < blockBytes) throw new TiffError('truncated', fileLabel, `file ends inside IFD ${index} (offset ${offset})`);
-  return parseIfdBlock(block, header, count, offset, index);
+  const ifd = parseIfdBlock(block, header, count, offset, index);
+  checkTagCounts(ifd, source.size, fileLabel);
+  return ifd;
 }
 
 /** Splits an IFD's bytes into entries; values that fit in the entry are kept inline. */

@@ -24,6 +24,7 @@ export { toRational } from './rational';
 export { createGeotiffPlaneSource, checkPlaneIndex } from './geotiff-source';
 export { checkChunkExtents } from './chunk-extent';
 export { cachedByteSource } from './block-cache';
+export { analysisBytesEstimate, WORKER_BASE_BYTES } from './budget';
 export { createDirectPlaneSource, decodePlaneDirect, directPathRefusal, readChunkPlan, type ChunkPlan } from './direct-source';
 export { PURE_CHUNK_CODECS, copyChunk, decodeZstd, zstdContentSize, type ChunkCodecs, type ChunkDecoder } from './chunk-codecs';
 export { decodeLzw, CorruptStreamError } from './lzw';

@@ -12,3 +12,7 @@ export { fitLambdaSeries, shapeFormedAtS } from './lambda-series';
 export type { LambdaAtTime, TimePointProfile } from './lambda-series';
 export { coarsenProfiles } from './coarsen';
 export type { CoarseProfiles } from './coarsen';
+export { summarizeMovie } from './summary';
+export type { MovieSummary, MovieSummaryOptions, MovieAccumulation } from './summary';
+export { ACCUMULATION_COLUMNS, MODEL_FIT_COLUMNS, accumulationRows, modelFitRow } from './tables';
+export type { Cell } from './tables';

@@ -2,12 +2,13 @@
 // degradation, painted onto one embryo per frame with camera noise, analysed frame by frame as the batch does.
 import { describe, expect, it } from 'vitest';
 import { fitExponentialDecay } from '../../core/fit';
-import type { ApAxis, EmbryoResult } from '../../core/model';
-import { analyseStack } from '../../core/pipeline';
+import type { EmbryoResult } from '../../core/model';
+import { analyseMovie } from '../../core/pipeline';
 import { DEFAULT_SETTINGS } from '../../core/settings';
 import { planSyntheticMovie, syntheticMovieInfo, syntheticMoviePlaneSource } from '../../core/synth';
 import {
-  coarsenProfiles, fitAccumulationModel, fitLambdaSeries, localAccumulationTime, sddAccumulationTimeS, shapeFormedAtS,
+  accumulationRows, coarsenProfiles, fitAccumulationModel, fitLambdaSeries, localAccumulationTime, MODEL_FIT_COLUMNS,
+  modelFitRow, sddAccumulationTimeS, shapeFormedAtS, summarizeMovie,
 } from '../../core/timelapse';
 
 // Demo scenario: λ = 100 µm on a 500 µm egg, degradation time 1/k = 20 min, a frame every 3 min for 3 h,
@@ -18,22 +19,18 @@ const movie = planSyntheticMovie({
   degradationPerS: K_PER_S, frameIntervalS: 180, frames: 61, framesBeforeOnset: 1,
 }, 4242);
 
-async function analyseMovie(): Promise<EmbryoResult[]> {
+async function analyseDemoMovie(): Promise<EmbryoResult[]> {
   const info = syntheticMovieInfo(movie);
-  const source = syntheticMoviePlaneSource(movie);
-  const last = info.sizeT - 1;
-  // The axis is found once, on a formed gradient (the last frame), and used for every frame (the embryo does not move).
-  const lastResult = await analyseStack(info, source, { ...DEFAULT_SETTINGS, timeIndex: last }, { fileLabel: 'movie' });
-  const axis: ApAxis = lastResult.axis!;
-  const results: EmbryoResult[] = [];
-  for (let t = 0; t < info.sizeT; t++) {
-    results.push(await analyseStack(info, source, { ...DEFAULT_SETTINGS, timeIndex: t }, { fileLabel: 'movie', handEdits: { axis, landmarks: [] } }));
-  }
-  return results;
+  // The axis is found once, on the mean over a sample of time points (the embryo does not move).
+  const m = await analyseMovie(info, syntheticMoviePlaneSource(movie), DEFAULT_SETTINGS, {
+    fileLabel: 'movie', timeIndices: Array.from({ length: info.sizeT }, (_, t) => t),
+  });
+  expect(m.movieAxis).not.toBeNull();
+  return [...m.results];
 }
 
 describe('a synthetic movie analysed frame by frame', async () => {
-  const results = await analyseMovie();
+  const results = await analyseDemoMovie();
   const eggLengthUm = results[results.length - 1].eggLengthUm!;
 
   it('recovers λ(t) within 5% once the gradient has formed', () => {
@@ -82,5 +79,22 @@ describe('a synthetic movie analysed frame by frame', async () => {
     expect(fit.agreement).toBe('agree');
     // D = kλ² of the scenario: 100²/1200 µm²/s.
     expect(Math.abs(fit.dUm2PerS.value / (100 ** 2 * K_PER_S) - 1)).toBeLessThan(0.2);
+  });
+
+  it('summarises the movie: the same τ(x), a model fit that agrees, table rows', () => {
+    const times = movie.timesS;
+    const summary = summarizeMovie('movie.ome.tif', results.map((_, t) => t), times, results, { fitRangeEl: [0.1, 0.6] });
+    expect(summary.note).toBeNull();
+    expect(summary.warnings).toEqual([]);
+    expect(summary.model!.agreement).toBe('agree');
+    expect(Math.abs(summary.model!.kPerS.value / K_PER_S - 1)).toBeLessThan(0.15);
+    expect(Math.abs(summary.steadyFit!.lambdaUm / 100 - 1)).toBeLessThan(0.05);
+    const rows = accumulationRows(summary);
+    expect(rows.length).toBe(summary.accumulation!.xEl.length);
+    expect(modelFitRow(summary)).toHaveLength(MODEL_FIT_COLUMNS.length);
+    // A movie cut at one degradation time after the onset is still rising: the summary says so.
+    const cut = 8;
+    const early = summarizeMovie('movie.ome.tif', results.slice(0, cut).map((_, t) => t), times.slice(0, cut), results.slice(0, cut), { fitRangeEl: [0.1, 0.6] });
+    expect(early.warnings.join(' ')).toMatch(/still rises at the end of the movie/);
   });
 });

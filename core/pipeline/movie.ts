@@ -1,0 +1,86 @@
+// One movie end to end: the embryo's axis found once (on the mean over a sample of time points) or per time point,
+// then every chosen time point analysed as a single stack with its own background. Never throws for bad data.
+import { errorResult, type ApAxis, type EmbryoResult, type HandEdits, type PlaneSource, type Plane, type ProjectedStack, type StackInfo } from '../model';
+import type { AnalysisSettings } from '../settings';
+import { projectStack } from '../image';
+import { detectEmbryo } from '../geometry';
+import { analyseStack } from './analyse';
+
+/** Per-movie options of analyseMovie. */
+export interface MovieOptions {
+  readonly fileLabel: string;
+  readonly handEdits?: HandEdits | null;
+  /** Time points to analyse (0-based, in order). */
+  readonly timeIndices: readonly number[];
+  /** Find the axis at every time point (embryos that drift) instead of once for the movie. */
+  readonly axisPerTime?: boolean;
+  /** Time points averaged to find the axis once; default 8, spread evenly over the movie. */
+  readonly axisSampleCount?: number;
+}
+
+/** The results per analysed time point (same order as timeIndices) and the axis used when it was found once. */
+export interface MovieAnalysis {
+  readonly timeIndices: readonly number[];
+  readonly results: readonly EmbryoResult[];
+  readonly movieAxis: ApAxis | null;
+}
+
+/** Up to `count` time points spread evenly over 0 … sizeT − 1, always including the last. */
+export function axisSampleTimes(sizeT: number, count: number): number[] {
+  if (sizeT <= count) return Array.from({ length: sizeT }, (_, t) => t);
+  return Array.from({ length: count }, (_, i) => Math.round(((i + 1) * (sizeT - 1)) / count));
+}
+
+/** Adds each channel of `next` into `sum` (same sizes). */
+function addInto(sum: Float32Array, next: Float32Array): void {
+  for (let i = 0; i < sum.length; i++) sum[i] += next[i];
+}
+
+/**
+ * The mean over sampled time points of the Z projections: the embryo as it sits through the movie, gradient formed
+ * or not (a live embryo barely moves, and a frame before production shows no gradient to orient the axis by).
+ */
+export async function projectOverTime(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, times: readonly number[]): Promise<ProjectedStack> {
+  let first: ProjectedStack | null = null;
+  let sums: Float32Array[] = [];
+  for (const t of times) {
+    const p = await projectStack(info, source, { ...settings, timeIndex: t });
+    if (!first) { first = p; sums = p.channels.map((c) => Float32Array.from(c.data)); } else p.channels.forEach((c, i) => addInto(sums[i], c.data));
+  }
+  if (!first) throw new Error('no time points to project');
+  const channels: Plane[] = first.channels.map((c, i) => ({ width: c.width, height: c.height, data: sums[i].map((v) => v / times.length) }));
+  return { ...first, channels };
+}
+
+/**
+ * Analyse the chosen time points of a movie. A hand axis applies to every time point; otherwise the axis is found
+ * once on projectOverTime (or per time point with axisPerTime) and each time point is measured along it with its
+ * own segmentation and background. Errors become results with status 'error' naming the file and time point.
+ */
+export async function analyseMovie(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, options: MovieOptions): Promise<MovieAnalysis> {
+  const { fileLabel, timeIndices } = options;
+  const bad = timeIndices.find((t) => !(Number.isInteger(t) && t >= 0 && t < info.sizeT));
+  if (bad !== undefined) {
+    const r = errorResult(fileLabel, `time point ${bad} is outside the movie (T = ${info.sizeT})`);
+    return { timeIndices, results: timeIndices.map(() => r), movieAxis: null };
+  }
+  const hand = options.handEdits?.axis ?? null;
+  let movieAxis: ApAxis | null = null;
+  if (!hand && !options.axisPerTime) {
+    try {
+      const projected = await projectOverTime(info, source, settings, axisSampleTimes(info.sizeT, options.axisSampleCount ?? 8));
+      movieAxis = detectEmbryo(projected, settings).axis;
+    } catch (e) {
+      const r = errorResult(fileLabel, `axis over time: ${e instanceof Error ? e.message : String(e)}`);
+      return { timeIndices, results: timeIndices.map(() => r), movieAxis: null };
+    }
+  }
+  const results: EmbryoResult[] = [];
+  for (const t of timeIndices) {
+    const edits: HandEdits | null = movieAxis ? { axis: movieAxis, landmarks: options.handEdits?.landmarks ?? [] } : options.handEdits ?? null;
+    const r = await analyseStack(info, source, { ...settings, timeIndex: t }, { fileLabel, handEdits: edits });
+    // The movie's axis goes in as a fixed axis; it was found automatically, so it keeps that label.
+    results.push(movieAxis && r.axis ? { ...r, axis: { ...r.axis, source: 'auto' } } : r);
+  }
+  return { timeIndices, results, movieAxis };
+}
