@@ -1,6 +1,7 @@
 // Data types of the cohort step. Positions along the AP axis are x/EL (0 = anterior pole, 1 = posterior pole).
 import type { EmbryoResult } from '../model';
 import type { SampleSummary } from './describe';
+import type { ConditionReliability, FitRangeUse } from './reliability';
 
 /** How gradient profiles are scaled before averaging: none, divided by the fitted amplitude A, or to [0, 1]. */
 export type Normalisation = 'none' | 'amplitude' | 'minmax';
@@ -202,6 +203,9 @@ export interface CohortOptions {
   readonly slopeHalfWidthEl?: number;
   /** Confidence level of every interval; default 0.95. */
   readonly level?: number;
+  /** Equivalence margin m for the ratio observed/predicted: equivalence to 1 is shown when the (1 − 2α) interval
+   *  lies inside [1 − m, 1 + m] (two one-sided tests); default none. */
+  readonly equivalenceMargin?: number | null;
 }
 
 /** Options with every default filled in. */
@@ -212,6 +216,7 @@ export interface ResolvedCohortOptions {
   readonly gridStepEl: number;
   readonly slopeHalfWidthEl: number;
   readonly level: number;
+  readonly equivalenceMargin: number | null;
 }
 
 /** Everything the cohort step computes. */
@@ -228,6 +233,12 @@ export interface CohortAnalysis {
   readonly measuredDosages: readonly MeasuredDosage[];
   /** λ (x/EL) of the condition means against ln f: the threshold model assumes dosage leaves λ unchanged. */
   readonly lambdaTrend: SlopeSummary | null;
+  /** Per condition: usable and imprecise λ fits, median λ, detection counts of each position. */
+  readonly reliability: readonly ConditionReliability[];
+  /** The x/EL fit ranges the embryos' λ fits used, most used first. */
+  readonly fitRanges: readonly FitRangeUse[];
+  /** Free columns of the sample sheet (e.g. stage, batch), by header name. */
+  readonly sheetColumns: readonly string[];
   readonly profiles: readonly ConditionProfile[];
   readonly warnings: readonly string[];
 }
