@@ -4,31 +4,10 @@
 import type { EmbryoResult } from '../model';
 import { positionQuantities } from './dosage-test';
 import { observationsOf } from './observations';
-import type { ConditionInfo, Observation } from './types';
+import type { ConditionInfo, ConditionReliability, FitRangeUse, Observation } from '../model';
 
 /** Relative SE of λ above which a fit is flagged as imprecise (common practice: 25%). */
 export const LAMBDA_RELATIVE_SE_LIMIT = 0.25;
-
-/** Reliability summary of one condition. */
-export interface ConditionReliability {
-  readonly condition: string;
-  readonly embryos: number;
-  /** Embryos with a fitted λ. */
-  readonly lambdaFitted: number;
-  /** Of those, how many have SE(λ)/|λ| above LAMBDA_RELATIVE_SE_LIMIT. */
-  readonly lambdaImprecise: number;
-  readonly lambdaMeanEl: number;
-  readonly lambdaMedianEl: number;
-  /** Per position quantity: embryos in which it was found (of `embryos`). */
-  readonly detected: Readonly<Record<string, number>>;
-}
-
-/** An x/EL fit range and how many embryos used it. */
-export interface FitRangeUse {
-  readonly startEl: number;
-  readonly endEl: number;
-  readonly embryos: number;
-}
 
 function median(values: readonly number[]): number {
   if (values.length === 0) return NaN;

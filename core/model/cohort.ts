@@ -1,7 +1,16 @@
-// Data types of the cohort step. Positions along the AP axis are x/EL (0 = anterior pole, 1 = posterior pole).
-import type { EmbryoResult } from '../model';
-import type { SampleSummary } from './describe';
-import type { ConditionReliability, FitRangeUse } from './reliability';
+// Data types of the cohort step (shared by core/cohort, the API contract and the window).
+// Positions along the AP axis are x/EL (0 = anterior pole, 1 = posterior pole).
+import type { EmbryoResult } from './index';
+
+/** n, mean, SD (n − 1), SEM and two-sided t CI at `level`; SD/SEM/CI are NaN when n < 2. */
+export interface SampleSummary {
+  readonly n: number;
+  readonly mean: number;
+  readonly sd: number;
+  readonly sem: number;
+  readonly ciLow: number;
+  readonly ciHigh: number;
+}
 
 /** How gradient profiles are scaled before averaging: none, divided by the fitted amplitude A, or to [0, 1]. */
 export type Normalisation = 'none' | 'amplitude' | 'minmax';
@@ -241,4 +250,25 @@ export interface CohortAnalysis {
   readonly sheetColumns: readonly string[];
   readonly profiles: readonly ConditionProfile[];
   readonly warnings: readonly string[];
+}
+
+/** Reliability summary of one condition (see core/cohort reliability). */
+export interface ConditionReliability {
+  readonly condition: string;
+  readonly embryos: number;
+  /** Embryos with a fitted λ. */
+  readonly lambdaFitted: number;
+  /** Of those, how many have SE(λ)/|λ| above the limit (25%). */
+  readonly lambdaImprecise: number;
+  readonly lambdaMeanEl: number;
+  readonly lambdaMedianEl: number;
+  /** Per position quantity: embryos in which it was found (of `embryos`). */
+  readonly detected: Readonly<Record<string, number>>;
+}
+
+/** An x/EL fit range and how many embryos used it. */
+export interface FitRangeUse {
+  readonly startEl: number;
+  readonly endEl: number;
+  readonly embryos: number;
 }
