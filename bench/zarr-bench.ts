@@ -6,7 +6,7 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { analyzeFile } from '../app/batch/analyze-file';
+import { analyseFile } from '../app/batch/analyse-file';
 import { openStack } from '../app/batch/deps';
 import { ARENA_LIMIT, BATCH_V8_FLAGS } from '../app/cli/batch-tuning';
 import { readAhead } from '../core/image';
@@ -60,7 +60,7 @@ async function decodeOnce(path: string): Promise<number> {
 /** The whole per-file analysis as a batch worker runs it; milliseconds. */
 async function pipelineOnce(path: string): Promise<number> {
   const t0 = performance.now();
-  const r = await analyzeFile({ index: 0, path, file: path, settings: SETTINGS, handEdits: null });
+  const r = await analyseFile({ index: 0, path, file: path, settings: SETTINGS, handEdits: null });
   if (r.status !== 'ok') process.stderr.write(`zarr bench: ${r.error}\n`);
   return performance.now() - t0;
 }

@@ -1,19 +1,19 @@
 // Adapters to the modules of other areas that the batch uses (decoder, pipeline), kept in one place.
 import type { EmbryoResult, HandEdits, PlaneSource, StackInfo } from '../../core/model';
 import type { AnalysisSettings } from '../../core/settings';
-import { analyzeStack } from '../../core/pipeline';
-import { openStackForAnalysis } from '../decode';
+import { analyseStack } from '../../core/pipeline';
+import { openStackForAnalysis, type OpenForAnalysisOptions } from '../decode';
 
 export { openFileByteSource as openByteSource } from '../../core/io';
 
 /** Open a stack for analysis: tag info, a plane source (sharp, geotiff fallback) and decoder warnings that grow as planes are read. */
-export function openStack(path: string, label: string): Promise<{ info: StackInfo; source: PlaneSource; warnings: string[] }> {
-  return openStackForAnalysis(path, label);
+export function openStack(path: string, label: string, options: OpenForAnalysisOptions = {}): Promise<{ info: StackInfo; source: PlaneSource; warnings: string[] }> {
+  return openStackForAnalysis(path, label, options);
 }
 
 /** Analyse one opened stack (never throws for bad data: returns status 'error'). */
-export function analyze(
+export function analyse(
   info: StackInfo, source: PlaneSource, settings: AnalysisSettings, opts: { fileLabel: string; handEdits?: HandEdits },
 ): Promise<EmbryoResult> {
-  return analyzeStack(info, source, settings, opts);
+  return analyseStack(info, source, settings, opts);
 }

@@ -14,13 +14,13 @@ import type { CohortAnalysis } from '../../core/cohort';
 import type { NamedFigure } from '../../core/figures';
 import type { AnalysisSettings } from '../../core/settings';
 import type { ShardSpec } from '../../core/shard';
-import { analyzeFile } from './analyze-file';
+import { analyseFile } from './analyse-file';
 import { runCohort } from './cohort-adapter';
 import { sha256File } from './hash-file';
 import { openJournal, readJournal, settingsKey } from './journal-file';
 import { isInside, listStackFiles } from './list-stacks';
 import { partDir, selectPart } from './shard';
-import type { BatchTask } from './task';
+import type { BatchTask, InputDigest } from './task';
 import { softwareVersions } from './versions';
 import { runPool } from './worker-pool';
 import { OUTPUT_FILES, writeBatchOutputs } from './write-outputs';
@@ -47,7 +47,7 @@ export interface RunBatchOptions {
   /** Built worker script; default: batch-worker.mjs next to the running bundle. */
   readonly workerPath?: string;
   /** In-process analysis function (jobs = 0); default: the real decoder + pipeline. */
-  readonly analyzeInProcess?: (task: BatchTask) => Promise<EmbryoResult>;
+  readonly analyseInProcess?: (task: BatchTask) => Promise<EmbryoResult>;
   /** Recorded in run.json. */
   readonly commandLine?: readonly string[];
   readonly projectFile?: string | null;
@@ -112,7 +112,7 @@ async function checkFolders(folder: string, outDir: string): Promise<void> {
 
 /** Analyse tasks one after another in this thread, with the same per-file time limit (the late work is abandoned). */
 async function runInProcess(
-  tasks: readonly BatchTask[], analyze: (t: BatchTask) => Promise<EmbryoResult>, timeoutMs: number, signal: AbortSignal | undefined,
+  tasks: readonly BatchTask[], analyse: (t: BatchTask) => Promise<EmbryoResult>, timeoutMs: number, signal: AbortSignal | undefined,
   onStart: (t: BatchTask) => void, onResult: (t: BatchTask, r: EmbryoResult) => void,
 ): Promise<(EmbryoResult | undefined)[]> {
   const results: (EmbryoResult | undefined)[] = new Array(tasks.length);
@@ -123,7 +123,7 @@ async function runInProcess(
     const late = new Promise<EmbryoResult>((res) => {
       timer = setTimeout(() => res(errorResult(task.file, `${task.file}: timed out after ${Math.round(timeoutMs / 1000)} s`)), timeoutMs);
     });
-    const result = await Promise.race([analyze(task).catch((e: unknown) => errorResult(task.file, `${task.file}: ${String(e)}`)), late]);
+    const result = await Promise.race([analyse(task).catch((e: unknown) => errorResult(task.file, `${task.file}: ${String(e)}`)), late]);
     clearTimeout(timer);
     results[task.index] = result;
     onResult(task, result);
@@ -131,14 +131,16 @@ async function runInProcess(
   return results;
 }
 
-/** Hashes of the batch's files, each computed once when first asked for (null when the file cannot be read). */
-function fileHashes(): (t: BatchTask) => Promise<{ sha256: string; bytes: number } | null> {
-  const memo = new Map<number, Promise<{ sha256: string; bytes: number } | null>>();
-  return (t) => {
+/** Hashes of the batch's files: the digest a worker made from the bytes it decoded (`know`), else computed here
+ *  once when first asked for (null when the file cannot be read). */
+function fileHashes(): ((t: BatchTask) => Promise<InputDigest | null>) & { know(t: BatchTask, d: InputDigest): void } {
+  const memo = new Map<number, Promise<InputDigest | null>>();
+  const hashOf = (t: BatchTask): Promise<InputDigest | null> => {
     let h = memo.get(t.index);
     if (!h) { h = sha256File(t.path).catch(() => null); memo.set(t.index, h); }
     return h;
   };
+  return Object.assign(hashOf, { know: (t: BatchTask, d: InputDigest) => { if (!memo.has(t.index)) memo.set(t.index, Promise.resolve(d)); } });
 }
 
 /** Results of an earlier run's journal that still hold: same file bytes (SHA-256) and the same settings key. */
@@ -216,10 +218,12 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   const appends = new Set<Promise<void>>();
   let journalError: string | null = null;
   const onStart = (t: BatchTask): void => {
-    void hashOf(t);
+    // In-process runs hash here; workers hash the bytes they decode and send the digest with the result.
+    if (opts.jobs <= 0) void hashOf(t);
     progress({ done, file: t.file, status: 'running', message: null });
   };
-  const onResult = (t: BatchTask, raw: EmbryoResult): void => {
+  const onResult = (t: BatchTask, raw: EmbryoResult, input?: InputDigest | null): void => {
+    if (input) hashOf.know(t, input);
     const r = normalizeResult({ ...raw, file: t.file });
     results[t.index] = r;
     done += 1;
@@ -236,7 +240,7 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
     throw e;
   };
   try {
-    if (opts.jobs <= 0) await runInProcess(pending, opts.analyzeInProcess ?? analyzeFile, timeoutMs, opts.signal, onStart, onResult);
+    if (opts.jobs <= 0) await runInProcess(pending, opts.analyseInProcess ?? analyseFile, timeoutMs, opts.signal, onStart, onResult);
     else {
       await runPool(pending, {
         jobs: opts.jobs, workerPath, timeoutMs, maxMemoryBytes: opts.maxMemoryBytes, signal: opts.signal, onStart, onResult,

@@ -2,20 +2,24 @@
 // positional error, the dosage-shift test of the threshold model, and the cohort CSV tables.
 export type {
   CohortAnalysis, CohortAssignment, CohortOptions, ConditionInfo, ConditionProfile, ConditionStat, DosageFit,
-  FilenameRule, Normalisation, Observation, QuantityKind, QuantityUnit, ReferenceLambda, ResolvedCohortOptions,
+  FilenameRule, MeasuredDosage, Normalisation, SlopeSummary, Observation, QuantityKind, QuantityUnit, ReferenceLambda, ResolvedCohortOptions,
   SampleRow, SampleSheet, ShiftRow,
-} from './types';
+} from '../model';
 export { CohortError } from './cohort-error';
 export { checkCohortOptions } from './options';
 export { parseSampleSheet } from './sample-sheet';
 export { sheetFromFilenameRule } from './filename-rule';
 export { assignConditions } from './assign';
 export { observationsOf, boundaryQuantity, landmarkQuantity, quantityLabel, EGG_LENGTH_QUANTITY } from './observations';
-export { describeSample, type SampleSummary } from './describe';
+export { describeSample } from './describe';
+export type { SampleSummary } from '../model';
 export { conditionStats } from './condition-stats';
 export { welchDifference, type MeanDifference } from './welch';
-export { referenceLambda, shiftRows, dosageFits, ratioWithCi, slopeRatio, twoGradientShiftEl, positionQuantities } from './dosage-test';
+export { referenceLambda, shiftRows, ratioWithCi, slopeRatio, twoGradientShiftEl, positionQuantities, type RatioInterval } from './dosage-test';
+export { dosageFits, lambdaTrend, measuredDosages, conditionMeansLine } from './dosage-fit';
 export { gridEl, interpolateOnGrid, normaliseProfile, centralSlope, conditionProfile } from './profiles';
 export { analyseCohort } from './analyse';
 export { conditionsCsv, shiftsCsv, dosageFitCsv, positionalErrorCsv } from './tables';
 export { makeDemoCohort, type DemoCohortSpec } from './demo-cohort';
+export { conditionReliability, fitRangesUsed, lambdaPositionCorrelation, LAMBDA_RELATIVE_SE_LIMIT } from './reliability';
+export type { ConditionReliability, FitRangeUse } from '../model';

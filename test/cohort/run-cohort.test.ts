@@ -32,7 +32,8 @@ describe('runCohortStep', () => {
     const shifts = readFileSync(join(out, 'shifts.csv'), 'utf8').trim().split('\r\n');
     expect(shifts.length).toBe(1 + 3 * 3);
     const fits = readFileSync(join(out, 'dosage_fit.csv'), 'utf8');
-    expect(fits).toContain('boundary:target:logistic,0.');
+    expect(fits).toContain('boundary:target:logistic,condition-means,0.');
+    expect(fits).toContain('boundary:target:logistic,embryos-hc3,0.');
     for (const n of names.filter((x) => x.endsWith('.svg'))) expect(XMLValidator.validate(readFileSync(join(out, n), 'utf8'))).toBe(true);
     const html = readFileSync(join(out, 'report.html'), 'utf8');
     expect(html).not.toMatch(/<script|<link|<img|src="|url\(http|@import/i);
@@ -56,7 +57,8 @@ describe('runCohortStep', () => {
     const summary = html.slice(at('summary'), at('figures'));
     expect(summary).toContain('<strong>24</strong> files analysed without error, <strong>2</strong> failed');
     expect(summary).toContain('boundary in ‘target’ (logistic)');
-    expect(summary).toMatch(/ratio λ_eff\/λ_ref \[CI\]/);
+    expect(summary).toMatch(/ratio λ_eff\/λ_ref \[95% CI\]/);
+    expect(summary).toContain("test of ratio = 1");
     // No interval printed with equal ends ("0.2 to 0.2", "[0.200, 0.200]"); the demo's amplitude is exactly A·f in every
     // embryo of a condition, so its interval has zero width and is left out of this check.
     const text = html.replace(/<tr><td class="t">amplitude A<\/td>.*?<\/tr>/g, '');

@@ -1,6 +1,16 @@
-// Data types of the cohort step. Positions along the AP axis are x/EL (0 = anterior pole, 1 = posterior pole).
-import type { EmbryoResult } from '../model';
-import type { SampleSummary } from './describe';
+// Data types of the cohort step (shared by core/cohort, the API contract and the window).
+// Positions along the AP axis are x/EL (0 = anterior pole, 1 = posterior pole).
+import type { EmbryoResult } from './index';
+
+/** n, mean, SD (n − 1), SEM and two-sided t CI at `level`; SD/SEM/CI are NaN when n < 2. */
+export interface SampleSummary {
+  readonly n: number;
+  readonly mean: number;
+  readonly sd: number;
+  readonly sem: number;
+  readonly ciLow: number;
+  readonly ciHigh: number;
+}
 
 /** How gradient profiles are scaled before averaging: none, divided by the fitted amplitude A, or to [0, 1]. */
 export type Normalisation = 'none' | 'amplitude' | 'minmax';
@@ -106,22 +116,65 @@ export interface ShiftRow {
   readonly ratio: number | null;
   readonly ratioCiLow: number | null;
   readonly ratioCiHigh: number | null;
+  /** Two-sided p-value of ratio = 1 (the threshold model's prediction) and its Holm adjustment over every row. */
+  readonly pRatio: number | null;
+  readonly pRatioHolm: number | null;
 }
 
-/** Regression of one position (x/EL) on ln f over all embryos with a known dosage. */
+/** A slope with its standard error, interval and t-test against zero (see core/stats SlopeEstimate). */
+export interface SlopeSummary {
+  readonly slope: number;
+  readonly slopeSe: number;
+  readonly intercept: number;
+  readonly ciLow: number;
+  readonly ciHigh: number;
+  /** Degrees of freedom of the interval's t quantile (NaN: normal quantile). */
+  readonly dof: number;
+  readonly pSlope: number;
+}
+
+/**
+ * Regression of one position (x/EL) on ln f. The primary fit ('condition-means') takes each condition's mean as one
+ * observation, since dosage is set per condition and embryos of one condition share staining, session and stage
+ * (t on k − 2 degrees of freedom); with only two dosages it falls back to all embryos ('embryos-hc3').
+ */
 export interface DosageFit {
   readonly quantity: string;
+  readonly method: 'condition-means' | 'embryos-hc3';
   readonly slopeEl: number;
   readonly slopeSeEl: number;
   readonly ciLow: number;
   readonly ciHigh: number;
   readonly interceptEl: number;
   readonly r2: number;
+  /** Embryos with a known dosage. */
   readonly n: number;
+  /** Conditions (dosages) in the fit. */
+  readonly conditions: number;
+  /** Degrees of freedom of the slope's t interval. */
+  readonly dof: number;
+  readonly pSlope: number;
+  /** Lack-of-fit F test of linearity in ln f (within-condition pure error), when ≥ 3 dosages have replicates. */
+  readonly lackOfFit: { readonly f: number; readonly df1: number; readonly df2: number; readonly p: number } | null;
+  /** All embryos by least squares with HC3 (heteroscedasticity-consistent) standard errors. */
+  readonly embryosHc3: SlopeSummary | null;
+  /** Condition means weighted by 1/(SEM² + τ²), τ² the between-condition variance (Knapp–Hartung interval). */
+  readonly randomIntercept: (SlopeSummary & { readonly tau2: number }) | null;
+  /** Position on the measured ln(amplitude ratio to the reference) by York's errors-in-both-variables fit. */
+  readonly measured: SlopeSummary | null;
   /** λ of the reference (x/EL): the slope the threshold model predicts. */
   readonly predictedSlopeEl: number | null;
   /** 1 / (1/λ_A + 1/λ_P) when a posterior gradient is given, else null. */
   readonly predictedTwoGradientSlopeEl: number | null;
+}
+
+/** The measured dosage of a condition: its mean amplitude A over the reference's, with the SE of its logarithm. */
+export interface MeasuredDosage {
+  readonly condition: string;
+  readonly nominalFactor: number | null;
+  readonly amplitudeRatio: number;
+  readonly lnRatio: number;
+  readonly lnRatioSe: number;
 }
 
 /** Mean gradient profile of one condition on the common x/EL grid; NaN marks grid points without data. */
@@ -159,6 +212,9 @@ export interface CohortOptions {
   readonly slopeHalfWidthEl?: number;
   /** Confidence level of every interval; default 0.95. */
   readonly level?: number;
+  /** Equivalence margin m for the ratio observed/predicted: equivalence to 1 is shown when the (1 − 2α) interval
+   *  lies inside [1 − m, 1 + m] (two one-sided tests); default none. */
+  readonly equivalenceMargin?: number | null;
 }
 
 /** Options with every default filled in. */
@@ -169,6 +225,7 @@ export interface ResolvedCohortOptions {
   readonly gridStepEl: number;
   readonly slopeHalfWidthEl: number;
   readonly level: number;
+  readonly equivalenceMargin: number | null;
 }
 
 /** Everything the cohort step computes. */
@@ -181,6 +238,37 @@ export interface CohortAnalysis {
   readonly stats: readonly ConditionStat[];
   readonly shifts: readonly ShiftRow[];
   readonly dosageFits: readonly DosageFit[];
+  /** Amplitude ratio of each condition to the reference (empty without amplitudes or a reference). */
+  readonly measuredDosages: readonly MeasuredDosage[];
+  /** λ (x/EL) of the condition means against ln f: the threshold model assumes dosage leaves λ unchanged. */
+  readonly lambdaTrend: SlopeSummary | null;
+  /** Per condition: usable and imprecise λ fits, median λ, detection counts of each position. */
+  readonly reliability: readonly ConditionReliability[];
+  /** The x/EL fit ranges the embryos' λ fits used, most used first. */
+  readonly fitRanges: readonly FitRangeUse[];
+  /** Free columns of the sample sheet (e.g. stage, batch), by header name. */
+  readonly sheetColumns: readonly string[];
   readonly profiles: readonly ConditionProfile[];
   readonly warnings: readonly string[];
+}
+
+/** Reliability summary of one condition (see core/cohort reliability). */
+export interface ConditionReliability {
+  readonly condition: string;
+  readonly embryos: number;
+  /** Embryos with a fitted λ. */
+  readonly lambdaFitted: number;
+  /** Of those, how many have SE(λ)/|λ| above the limit (25%). */
+  readonly lambdaImprecise: number;
+  readonly lambdaMeanEl: number;
+  readonly lambdaMedianEl: number;
+  /** Per position quantity: embryos in which it was found (of `embryos`). */
+  readonly detected: Readonly<Record<string, number>>;
+}
+
+/** An x/EL fit range and how many embryos used it. */
+export interface FitRangeUse {
+  readonly startEl: number;
+  readonly endEl: number;
+  readonly embryos: number;
 }
