@@ -26,6 +26,8 @@ import { useStackLoader } from './hooks/useStackLoader';
 import { useExports } from './hooks/useExports';
 import { bandOutlinesLive, measureLive, prepareLive } from './live';
 import type { ImagePoint } from '../core/model';
+import type { FolderEntry } from '../core/contract';
+import { fileStatus } from './state/fileStatus';
 import { currentEdits, editorReducer, effectiveAxis, effectiveFitRange, initialState } from './state';
 import { autoDisplayRange, CHANNEL_COLOURS } from './view';
 
@@ -42,7 +44,7 @@ export function App() {
   const [slicePlanes, setSlicePlanes] = useState<Plane[] | null>(null);
   const select = useCallback((name: string | null) => { if (name !== null) { dispatch({ type: 'selectFile', key: name, autoAxis: null }); setZSlice(null); } }, []);
   const flushSave = useRef<() => Promise<void>>(async () => undefined);
-  const { session, openDemo, openFolder, openProject, openFiles, openRecent, openAtStart, openDroppedFiles, setMessage } = useSession(api, dispatch, select, () => flushSave.current());
+  const { session, openDemo, openFolder, openProject, openFiles, openRecent, openAtStart, openDroppedFiles, setMessage, setBatchOutDir } = useSession(api, dispatch, select, () => flushSave.current());
   const [help, setHelp] = useState(false);
   const [exportMenu, setExportMenu] = useState(false);
   const [overlays, setOverlays] = useState(ALL_OVERLAYS);
@@ -52,9 +54,35 @@ export function App() {
   // Until the shown file's stack arrives, show nothing rather than its edits over the previous image.
   const stack = load.stack !== null && load.stack.path === entry?.path ? load.stack : null;
   const { loading, error: loadError } = load;
-  const [saveStatus, saveNow] = useAutosave(api, session.projectPath, session.folder, state.doc, state.revision);
+  const [saveStatus, saveNow] = useAutosave(api, session.projectPath, session.folder, state.doc, state.revision, session.batchOutDir);
   flushSave.current = () => (saveStatus.kind === 'pending' ? saveNow() : Promise.resolve());
-  const { batch, chooseOutput, run, cancel } = useBatch(api);
+  const { batch, chooseOutput, run, cancel, restore } = useBatch(api);
+  // The project's last batch comes back with the project (results.json in the output folder it records).
+  useEffect(() => { void restore(session.batchOutDir, session.folder); }, [session.projectPath, session.folder]);
+  // A finished batch's output folder is written into the project at once, so its results reopen after a restart.
+  const [outDirSaves, setOutDirSaves] = useState(0);
+  useEffect(() => { if (outDirSaves > 0) void saveNow(); }, [outDirSaves]);
+  const runBatchNow = async () => {
+    if (session.folder === null) return;
+    const out = await run(session.folder, toProjectDoc(state.doc, session.folder, session.batchOutDir));
+    if (out !== null && session.projectPath !== null) { setBatchOutDir(out); setOutDirSaves((n) => n + 1); }
+  };
+  // Files that failed to load this session, with the reason (shown as their status until they load).
+  const [loadErrors, setLoadErrors] = useState<Readonly<Record<string, string>>>({});
+  useEffect(() => {
+    const name = state.current;
+    if (name === null || loading) return;
+    if (loadError) setLoadErrors((m) => ({ ...m, [name]: loadError }));
+    else if (stack !== null && loadErrors[name] !== undefined) setLoadErrors((m) => { const { [name]: _gone, ...rest } = m; return rest; });
+  }, [loadError, loading, stack, state.current]);
+  const resultFor = (name: string | null) => (name === null ? undefined : batch.summary?.results.find((r) => r.file === name));
+  const statusOf = (e: FolderEntry) => fileStatus(e, state.doc.files[e.name], resultFor(e.name), loadErrors[e.name] ?? null);
+  const openReport = async (path: string) => {
+    if (api === null) return;
+    const r = await api.openReport(path);
+    if (!r.ok) setMessage(r.error.message);
+  };
+  const openFromBatch = (name: string) => { select(name); setTab('embryo'); };
   const centre = useRef<HTMLDivElement>(null);
   const centreSize = useElementSize(centre);
   const zoomBy = (factor: number) => dispatch({ type: 'setView', view: zoomAt(stateRef.current.view, screenPt(centreSize.width / 2, 200), factor) });
@@ -176,9 +204,8 @@ export function App() {
       )}
       <div className="body">
         <aside className="left">
-          <FolderList folder={session.folder} entries={session.entries} current={state.current} onSelect={select}
-            batchOutcome={(n) => { const r = batch.summary?.results.find((x) => x.file === n); return r && { status: r.status, message: r.error }; }}
-            edited={(n) => { const f = state.doc.files[n]; return f !== undefined && (f.axis !== null || f.landmarks.length > 0 || f.fitRangeEl !== null); }} />
+          <FolderList folder={session.folder} entries={session.entries} current={state.current} onSelect={select} status={statusOf}
+            handEdited={(n) => { const f = state.doc.files[n]; return f !== undefined && (f.axis !== null || f.landmarks.length > 0 || f.fitRangeEl !== null); }} />
           <SettingsPanel settings={settings} channelNames={names} dispatch={dispatch} />
         </aside>
         <main className="centre" ref={centre}>
@@ -186,11 +213,13 @@ export function App() {
             measurement={measurement} bandOutlines={bandOutlines} fitRangeEl={fitRangeEl} pixelSizeUm={pixelSizeUm} halfWidthPx={halfWidthPx} fitRequest={fitRequest}
             spaceHeld={spaceHeld} overlays={overlays} onOverlays={setOverlays} readoutTarget={readoutTarget} loadError={loadError} />
           {tab === 'batch' && <BatchPanel batch={batch} folder={session.folder} fileCount={session.entries.length} onChooseOutput={chooseOutput}
-            onRun={() => { if (session.folder !== null) void run(session.folder, toProjectDoc(state.doc, session.folder)); }} onCancel={cancel} />}
-          {tab === 'cohort' && <CohortView summary={batch.summary} />}
+            onRun={() => { void runBatchNow(); }} onCancel={cancel} onOpenFile={openFromBatch} onOpenReport={openReport} current={state.current} />}
+          {tab === 'cohort' && <CohortView summary={batch.summary} onOpenReport={openReport} />}
         </main>
         <aside className="right">
-          <FitNumbers m={measurement} pixelSizeUm={pixelSizeUm} loading={loading || session.opening} />
+          <FitNumbers m={measurement} pixelSizeUm={pixelSizeUm} loading={loading || session.opening} axisSource={axis?.source ?? null}
+            file={entry === null ? null : { name: entry.name, status: statusOf(entry), result: resultFor(entry.name) ?? null }}
+            settingsFitRangeEl={edits.fitRangeEl === null ? null : settings.fitRangeEl} />
           <ChannelPanel state={state} dispatch={dispatch} planes={planes} names={names} sizeZ={stack?.info.sizeZ ?? 1} zSlice={zSlice} onZSlice={setZSlice} />
           <LandmarkList landmarks={measurement?.landmarks ?? []} selected={state.selectedLandmark} dispatch={dispatch} />
         </aside>

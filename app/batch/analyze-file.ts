@@ -4,7 +4,8 @@ import { errorResult, oneLine, type EmbryoResult, type StackInfo } from '../../c
 import { analysisBytesEstimate, WORKER_BASE_BYTES } from '../../core/tiff';
 import { formatByteSize as formatBytes } from '../../core/batch';
 import { analyze, openStack } from './deps';
-import type { BatchTask } from './task';
+import { hashingByteSource, type HashingByteSource } from './hashing-source';
+import type { BatchTask, InputDigest } from './task';
 
 /** One line naming the file: the message as is when it already names it, else "file: message". */
 export function fileMessage(file: string, e: unknown): string {
@@ -26,9 +27,26 @@ export function memoryRefusal(info: StackInfo, maxBytes: number): string | null 
 
 /** Analyse the task's file; never rejects. The result's `file` is the task's relative path. */
 export async function analyzeFile(task: BatchTask): Promise<EmbryoResult> {
+  return (await analyzeFileWithDigest(task, false)).result;
+}
+
+/**
+ * Analyse the task's file and, when `digest` is set, hash the bytes the decoder reads on the way (SHA-256 for
+ * run.json and the journal), so the file is read once; `input` is null when the file could not be opened.
+ */
+export async function analyzeFileWithDigest(task: BatchTask, digest = true): Promise<{ result: EmbryoResult; input: InputDigest | null }> {
+  let hashing: HashingByteSource | null = null;
+  const wrapSource = digest ? (s: Parameters<typeof hashingByteSource>[0]) => (hashing = hashingByteSource(s)) : undefined;
+  const result = await analyzeOpened(task, wrapSource);
+  const h = hashing as HashingByteSource | null;
+  const input = h ? await h.finish().then(({ sha256, bytes }) => ({ sha256, bytes }), () => null) : null;
+  return { result, input };
+}
+
+async function analyzeOpened(task: BatchTask, wrapSource: ((s: Parameters<typeof hashingByteSource>[0]) => HashingByteSource) | undefined): Promise<EmbryoResult> {
   let opened: Awaited<ReturnType<typeof openStack>> | null = null;
   try {
-    opened = await openStack(task.path, task.file);
+    opened = await openStack(task.path, task.file, wrapSource ? { wrapSource } : {});
     const refusal = task.maxMemoryBytes === undefined ? null : memoryRefusal(opened.info, task.maxMemoryBytes);
     if (refusal !== null) return errorResult(task.file, `${task.file}: ${refusal}`, opened.info.warnings);
     const result = await analyze(opened.info, opened.source, task.settings,

@@ -2,13 +2,13 @@
 import type { EmbryoResult, HandEdits, PlaneSource, StackInfo } from '../../core/model';
 import type { AnalysisSettings } from '../../core/settings';
 import { analyzeStack } from '../../core/pipeline';
-import { openStackForAnalysis } from '../decode';
+import { openStackForAnalysis, type OpenForAnalysisOptions } from '../decode';
 
 export { openFileByteSource as openByteSource } from '../../core/io';
 
 /** Open a stack for analysis: tag info, a plane source (sharp, geotiff fallback) and decoder warnings that grow as planes are read. */
-export function openStack(path: string, label: string): Promise<{ info: StackInfo; source: PlaneSource; warnings: string[] }> {
-  return openStackForAnalysis(path, label);
+export function openStack(path: string, label: string, options: OpenForAnalysisOptions = {}): Promise<{ info: StackInfo; source: PlaneSource; warnings: string[] }> {
+  return openStackForAnalysis(path, label, options);
 }
 
 /** Analyse one opened stack (never throws for bad data: returns status 'error'). */

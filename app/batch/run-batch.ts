@@ -20,7 +20,7 @@ import { sha256File } from './hash-file';
 import { openJournal, readJournal, settingsKey } from './journal-file';
 import { isInside, listStackFiles } from './list-stacks';
 import { partDir, selectPart } from './shard';
-import type { BatchTask } from './task';
+import type { BatchTask, InputDigest } from './task';
 import { softwareVersions } from './versions';
 import { runPool } from './worker-pool';
 import { OUTPUT_FILES, writeBatchOutputs } from './write-outputs';
@@ -131,14 +131,16 @@ async function runInProcess(
   return results;
 }
 
-/** Hashes of the batch's files, each computed once when first asked for (null when the file cannot be read). */
-function fileHashes(): (t: BatchTask) => Promise<{ sha256: string; bytes: number } | null> {
-  const memo = new Map<number, Promise<{ sha256: string; bytes: number } | null>>();
-  return (t) => {
+/** Hashes of the batch's files: the digest a worker made from the bytes it decoded (`know`), else computed here
+ *  once when first asked for (null when the file cannot be read). */
+function fileHashes(): ((t: BatchTask) => Promise<InputDigest | null>) & { know(t: BatchTask, d: InputDigest): void } {
+  const memo = new Map<number, Promise<InputDigest | null>>();
+  const hashOf = (t: BatchTask): Promise<InputDigest | null> => {
     let h = memo.get(t.index);
     if (!h) { h = sha256File(t.path).catch(() => null); memo.set(t.index, h); }
     return h;
   };
+  return Object.assign(hashOf, { know: (t: BatchTask, d: InputDigest) => { if (!memo.has(t.index)) memo.set(t.index, Promise.resolve(d)); } });
 }
 
 /** Results of an earlier run's journal that still hold: same file bytes (SHA-256) and the same settings key. */
@@ -216,10 +218,12 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   const appends = new Set<Promise<void>>();
   let journalError: string | null = null;
   const onStart = (t: BatchTask): void => {
-    void hashOf(t);
+    // In-process runs hash here; workers hash the bytes they decode and send the digest with the result.
+    if (opts.jobs <= 0) void hashOf(t);
     progress({ done, file: t.file, status: 'running', message: null });
   };
-  const onResult = (t: BatchTask, raw: EmbryoResult): void => {
+  const onResult = (t: BatchTask, raw: EmbryoResult, input?: InputDigest | null): void => {
+    if (input) hashOf.know(t, input);
     const r = normalizeResult({ ...raw, file: t.file });
     results[t.index] = r;
     done += 1;

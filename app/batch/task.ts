@@ -24,8 +24,14 @@ export interface DemoRequest {
   readonly item: DemoItem;
 }
 
-/** Messages a batch worker sends back. */
+/** SHA-256 (hex) and size of an input file, as recorded in run.json and the journal. */
+export interface InputDigest {
+  readonly sha256: string;
+  readonly bytes: number;
+}
+
+/** Messages a batch worker sends back; `input` is the digest of the bytes the decoder read (null if none). */
 export type WorkerReply =
-  | { readonly type: 'result'; readonly index: number; readonly result: EmbryoResult }
+  | { readonly type: 'result'; readonly index: number; readonly result: EmbryoResult; readonly input?: InputDigest | null }
   | { readonly type: 'demo'; readonly index: number; readonly bytes: Uint8Array; readonly furrow: ImagePoint }
   | { readonly type: 'memory'; readonly rssBytes: number; readonly heapUsedBytes: number; readonly externalBytes: number };

@@ -8,7 +8,7 @@ import { readFile } from 'node:fs/promises';
 import { formatByteSize } from '../../core/batch';
 import { errorResult } from '../../core/model';
 import type { EmbryoResult } from '../../core/model';
-import type { BatchTask, WorkerReply } from './task';
+import type { BatchTask, InputDigest, WorkerReply } from './task';
 
 /** How the pool runs. */
 export interface PoolOptions {
@@ -24,7 +24,8 @@ export interface PoolOptions {
   /** Data handed to each worker at start (e.g. libvips threads per worker). */
   readonly workerData?: unknown;
   readonly onStart?: (task: BatchTask) => void;
-  readonly onResult?: (task: BatchTask, result: EmbryoResult) => void;
+  /** `input` is the file's digest when the worker computed it from the bytes it decoded. */
+  readonly onResult?: (task: BatchTask, result: EmbryoResult, input?: InputDigest | null) => void;
   /** Memory reports from workers (bytes), sent after each file. */
   readonly onMemory?: (report: Extract<WorkerReply, { type: 'memory' }>) => void;
 }
@@ -88,7 +89,7 @@ export function runPool(tasks: readonly BatchTask[], opts: PoolOptions): Promise
       resolveAll(results);
     };
     const onAbort = (): void => finish();
-    const settle = (slot: Slot, result: EmbryoResult): void => {
+    const settle = (slot: Slot, result: EmbryoResult, input: InputDigest | null = null): void => {
       const task = slot.task;
       if (!task || finished) return;
       slot.task = null;
@@ -96,7 +97,7 @@ export function runPool(tasks: readonly BatchTask[], opts: PoolOptions): Promise
       slot.timer = null;
       results[task.index] = result;
       active -= 1;
-      opts.onResult?.(task, result);
+      opts.onResult?.(task, result, input);
     };
     const kill = (slot: Slot, why: string): void => {
       if (slot.killedFor !== null) return;
@@ -125,7 +126,7 @@ export function runPool(tasks: readonly BatchTask[], opts: PoolOptions): Promise
       child.on('message', (msg: WorkerReply) => {
         if (msg.type === 'memory') { opts.onMemory?.(msg); return; }
         if (msg.type !== 'result' || slot.task?.index !== msg.index) return;
-        settle(slot, msg.result);
+        settle(slot, msg.result, msg.input ?? null);
         feed();
       });
       child.on('error', (e) => replace(`the analysis could not run (${e.message.split(/\r?\n/)[0]})`));

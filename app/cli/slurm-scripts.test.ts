@@ -1,5 +1,5 @@
 import { execFileSync } from 'node:child_process';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -87,7 +87,7 @@ describe('the scripts', () => {
     }
     expect(array).toContain('#SBATCH --array=0-7\n');
     expect(array).toContain('#SBATCH --cpus-per-task=2\n');
-    expect(array).toContain("\"$NODE\" \"$EGGLINE\" batch '/data/screen 1' --out /scratch/out --shard \"$PART/$PARTS\" --resume --jobs \"${SLURM_CPUS_PER_TASK:-2}\" --fit-range=0.1,0.5\n");
+    expect(array).toContain("\"$NODE\" \"$EGGLINE\" batch '/data/screen 1' --out \"$OUT\" --shard \"$PART/$PARTS\" --resume --jobs \"${SLURM_CPUS_PER_TASK:-2}\" --fit-range=0.1,0.5\n");
     expect(array).toContain('NODE=/opt/node/bin/node ');
     expect(array).toContain('EGGLINE=/opt/eggline/dist/cli.mjs ');
     expect(merge).toContain('exec "$NODE" "$EGGLINE" merge /scratch/out --samples /data/samples.csv\n');
@@ -112,11 +112,14 @@ describe('the scripts', () => {
     expect(() => execFileSync('bash', [join(dir, 'run.sbatch')], { env, stdio: 'pipe' })).toThrow('SLURM_ARRAY_TASK_ID: is not set: submit this script with sbatch');
   });
 
-  it('turn exit status 1 (some files failed) into success so the merge still runs, and pass others on', () => {
-    for (const [code, expected] of [[0, 0], [1, 0], [2, 2], [137, 137]]) {
+  it('turn exit status 1 of a complete part (some files failed) into success so the merge still runs, and pass others on', () => {
+    const out = join(dir, 'out');
+    mkdirSync(join(out, 'parts', '1-of-8'), { recursive: true });
+    for (const [code, complete, expected] of [[0, true, 0], [1, true, 0], [1, false, 1], [2, true, 2], [137, false, 137]] as const) {
+      writeFileSync(join(out, 'parts', '1-of-8', 'run.json'), JSON.stringify({ complete }, null, 2));
       const fake = join(dir, `exit-${code}.sh`);
       writeFileSync(fake, `exit ${code}\n`);
-      writeFileSync(join(dir, 'exit.sbatch'), arrayScript({ ...plan, nodePath: '/bin/bash', cliPath: fake }));
+      writeFileSync(join(dir, 'exit.sbatch'), arrayScript({ ...plan, outDir: out, nodePath: '/bin/bash', cliPath: fake }));
       let status = 0;
       try {
         execFileSync('bash', [join(dir, 'exit.sbatch')], { env: { ...process.env, SLURM_ARRAY_TASK_ID: '0' }, stdio: 'pipe' });

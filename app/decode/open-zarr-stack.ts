@@ -1,5 +1,5 @@
 // Open an OME-Zarr folder for analysis: the folder store from core/io, NGFF metadata and chunk reading from core/zarr.
-import { isFolder, openZarrFolderStore } from '../../core/io';
+import { inflateZarrChunk, isFolder, openZarrFolderStore } from '../../core/io';
 import { openOmeZarr, type OpenedZarr, type OpenZarrOptions } from '../../core/zarr';
 
 /** True when `path` is a folder, which the stack openers read as an OME-Zarr store. */
@@ -10,5 +10,5 @@ export function isZarrPath(path: string): Promise<boolean> {
 /** Opens the OME-Zarr store at `path`; throws ZarrError with a one-line message naming `fileLabel`. */
 export async function openZarrStack(path: string, fileLabel: string, options: OpenZarrOptions = {}): Promise<OpenedZarr> {
   const store = await openZarrFolderStore(path, fileLabel);
-  return openOmeZarr(store, fileLabel, options);
+  return openOmeZarr(store, fileLabel, { inflate: inflateZarrChunk, ...options });
 }

@@ -3,7 +3,7 @@
 import { isAbsolute, relative, resolve } from 'node:path';
 
 /** What a path may be used for. */
-export type PathUse = 'read' | 'output' | 'project';
+export type PathUse = 'read' | 'output' | 'project' | 'results';
 
 /** A set of allowed files and folder trees per use. */
 export interface PathAllowList {
@@ -29,8 +29,8 @@ export function isInsideFolder(parent: string, child: string): boolean {
 
 /** A new, empty allow-list. */
 export function createPathAllowList(): PathAllowList {
-  const files = { read: new Set<string>(), output: new Set<string>(), project: new Set<string>() };
-  const trees = { read: [] as string[], output: [] as string[], project: [] as string[] };
+  const files = { read: new Set<string>(), output: new Set<string>(), project: new Set<string>(), results: new Set<string>() };
+  const trees = { read: [] as string[], output: [] as string[], project: [] as string[], results: [] as string[] };
   return {
     allowFile: (use, path) => { files[use].add(normalise(path)); },
     allowTree: (use, folder) => { if (!trees[use].includes(normalise(folder))) trees[use].push(normalise(folder)); },

@@ -21,7 +21,8 @@ export function requirePath(value: unknown, name: string): string {
 export function requireAllowed(allow: PathAllowList, use: PathUse, value: unknown, name: string): string {
   const path = requirePath(value, name);
   if (!allow.isAllowed(use, path)) {
-    const how = use === 'output' ? 'chosen as an output folder' : use === 'project' ? 'opened as a project' : 'opened through a dialog, a drop, a project or the demo';
+    const how = use === 'output' ? 'chosen as an output folder' : use === 'project' ? 'opened as a project'
+      : use === 'results' ? 'a batch output folder of the open project' : 'opened through a dialog, a drop, a project or the demo';
     throw new ApiFailure('not-allowed', `${labelOf(path)}: not ${how}; open it first`);
   }
   return path;

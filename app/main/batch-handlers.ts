@@ -30,6 +30,8 @@ export async function runBatch(ctx: ShellContext, folderArg: unknown, outArg: un
       onProgress: (p) => ctx.deps.emitBatchProgress({ ...p, runId }),
       signal: controller.signal, sampleSheetPath,
     });
+    // Its results may be read back later (and its report opened) from this window.
+    ctx.allow.allowTree('results', outDir);
     return { ...summary, runId };
   } finally {
     ctx.batches.delete(runId);

@@ -27,6 +27,9 @@ export interface HandlerDeps {
   readonly onRecentChanged?: (paths: readonly string[]) => void;
   /** Write only this many demo embryos (spread over the conditions); default: the whole demo set. */
   readonly demoSubset?: number;
+  /** Open a file with the system's default application (Electron's shell.openPath: '' on success, else the reason);
+   *  absent where there is no desktop (then openReport fails with a message). */
+  readonly openPath?: (path: string) => Promise<string>;
   /** Worker count for batches (0 = in this thread); default: cores − 1, at least 1. */
   readonly batchJobs?: number;
 }

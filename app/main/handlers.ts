@@ -3,6 +3,7 @@
 import type { EgglineApi } from '../../core/contract';
 import { createPathAllowList } from './allow-list';
 import { cancelBatch, runBatch } from './batch-handlers';
+import { loadBatchResults, openReport } from './batch-results';
 import type { HandlerDeps, ShellContext } from './context';
 import { createDefaultEngine } from './default-engine';
 import { openDemo } from './demo';
@@ -70,6 +71,8 @@ export function createHandlers(deps: HandlerDeps): ApiHandlers {
       ctx.allow.allowTree('output', dir);
       return dir;
     })),
+    loadBatchResults: (outDir, folder) => guard(labelArg(outDir), () => loadBatchResults(ctx, outDir, folder), 'bad-file'),
+    openReport: (path) => guard(labelArg(path), () => openReport(ctx, path), 'io'),
     exportFile: (kind, name, content) => guard(labelArg(name), () => exportFile(ctx, kind, name, content), 'io'),
     svgToPng: (svg, scale) => guard(null, () => svgToPng(svg, scale)),
   };

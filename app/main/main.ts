@@ -72,6 +72,8 @@ async function onReady(e: ElectronModule, state: { window: electron.BrowserWindo
     runAnalysisOffThread: runner.run,
     readSliceOffThread: runner.readSlice,
     onRecentChanged: setMenu,
+    // Reports open in the system's browser, never in the app window; the handler checks the path first.
+    openPath: (path) => e.shell.openPath(path),
   });
   registerIpc(e.ipcMain as unknown as IpcMainLike, handlers);
   setMenu(await readRecent(dataDir));

@@ -7,6 +7,7 @@ import { loadProject, newProject, PROJECT_FILE_NAME } from '../project';
 import { requirePath } from './args';
 import type { ShellContext } from './context';
 import { fileEntries, folderEntries } from './folder-entries';
+import { allowRecordedOutput } from './batch-results';
 import { readRecent } from './recent';
 import { ApiFailure, labelOf } from './result';
 
@@ -24,6 +25,7 @@ export async function openFolder(ctx: ShellContext, folder: string): Promise<Ope
   const project = { ...loaded, folder };
   ctx.allow.allowTree('read', folder);
   ctx.allow.allowFile('project', projectPath);
+  await allowRecordedOutput(ctx, project.batchOutDir);
   const entries = await folderEntries(folder, project);
   await ctx.noteRecent(folder);
   return { folder, entries, project, projectPath };
@@ -69,6 +71,7 @@ export async function openProjectFile(ctx: ShellContext, projectPath: string): P
   const isDir = await fs.stat(project.folder).then((s) => s.isDirectory(), () => false);
   if (!isDir) throw new ApiFailure('not-found', `${labelOf(projectPath)}: its image folder ${project.folder} is missing`);
   ctx.allow.allowTree('read', project.folder);
+  await allowRecordedOutput(ctx, project.batchOutDir);
   await ctx.noteRecent(project.folder);
   return { project, projectPath, entries: await folderEntries(project.folder, project) };
 }

@@ -72,10 +72,14 @@ export function checkProjectDoc(value: unknown): ProjectDoc {
     if (key === '' || key.includes('\0')) badField('files', 'has an empty or invalid file key');
     cleanFiles[key] = checkFileEdits(edits, `files[${JSON.stringify(key)}]`);
   }
+  if (value.batchOutDir !== null && value.batchOutDir !== undefined && (typeof value.batchOutDir !== 'string' || value.batchOutDir === '' || value.batchOutDir.includes('\0'))) {
+    badField('batchOutDir', 'must be null or a folder path');
+  }
   return {
     schema: PROJECT_SCHEMA, version: PROJECT_VERSION,
     folder: (value.folder as string | null | undefined) ?? null,
     settings: checkSettings(value.settings ?? {}),
     files: cleanFiles,
+    ...(typeof value.batchOutDir === 'string' ? { batchOutDir: value.batchOutDir } : {}),
   };
 }

@@ -48,8 +48,16 @@ export async function loadProject(projectPath: string): Promise<ProjectDoc> {
     if (e instanceof ProjectFormatError) throw new ProjectFormatError(`${name}: ${e.message}`);
     throw e;
   }
-  const folder = doc.folder === null ? null : resolve(dirname(resolve(projectPath)), doc.folder);
-  return { ...doc, folder };
+  const base = dirname(resolve(projectPath));
+  const folder = doc.folder === null ? null : resolve(base, doc.folder);
+  return doc.batchOutDir === null || doc.batchOutDir === undefined ? { ...doc, folder } : { ...doc, folder, batchOutDir: resolve(base, doc.batchOutDir) };
+}
+
+/** A folder as stored in the project file: relative to the project file's folder (absolute on another drive). */
+function relativeToProject(projectPath: string, dir: string | null): string | null {
+  if (dir === null) return null;
+  const rel = toPortablePath(relative(dirname(resolve(projectPath)), resolve(dir)) || '.');
+  return isAbsolute(rel) ? resolve(dir) : rel;
 }
 
 /** The JSON text stored for a document: folder relative to the project file, file keys relative to the folder. */
@@ -62,7 +70,7 @@ export function serializeProject(projectPath: string, doc: ProjectDoc): string {
   }
   const folderRel = folderAbs === null ? null : toPortablePath(relative(dirname(resolve(projectPath)), folderAbs) || '.');
   const folder = folderRel !== null && isAbsolute(folderRel) ? folderAbs : folderRel;
-  return `${JSON.stringify({ ...checked, folder, files }, null, 2)}\n`;
+  return `${JSON.stringify({ ...checked, folder, files, batchOutDir: relativeToProject(projectPath, checked.batchOutDir ?? null) ?? undefined }, null, 2)}\n`;
 }
 
 /** Validate and save a project atomically, keeping the previous version as `<path>.bak`. */

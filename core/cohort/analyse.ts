@@ -2,7 +2,8 @@
 import type { EmbryoResult } from '../model';
 import { assignConditions } from './assign';
 import { conditionStats } from './condition-stats';
-import { dosageFits, referenceLambda, shiftRows } from './dosage-test';
+import { dosageFits, lambdaTrend, measuredDosages } from './dosage-fit';
+import { referenceLambda, shiftRows } from './dosage-test';
 import { observationsOf } from './observations';
 import { checkCohortOptions } from './options';
 import { conditionProfile } from './profiles';
@@ -20,12 +21,14 @@ export function analyseCohort(results: readonly EmbryoResult[], sheet: SampleShe
   const lambda = reference !== null ? referenceLambda(observations, reference, opts.level) : null;
   if (reference !== null && lambda === null) warnings.push(`reference "${reference}" has no fitted λ; no predicted shifts`);
   const shifts = reference !== null ? shiftRows(observations, conditions, reference, lambda, opts.lambdaPosteriorEl, opts.level) : [];
-  const fits = reference !== null ? dosageFits(observations, lambda, opts.lambdaPosteriorEl, opts.level) : [];
+  const measured = reference !== null ? measuredDosages(observations, reference, new Map(conditions.map((c) => [c.name, c.factor]))) : [];
+  const fits = reference !== null ? dosageFits(observations, lambda, opts.lambdaPosteriorEl, measured, opts.level) : [];
   const profiles: ConditionProfile[] = [];
   for (const g of assignment.groups) {
     const r = conditionProfile(g.embryos, g.condition, opts);
     warnings.push(...r.warnings);
     if (r.profile) profiles.push(r.profile);
   }
-  return { options: opts, conditions, reference, referenceLambda: lambda, observations, stats, shifts, dosageFits: fits, profiles, warnings };
+  return { options: opts, conditions, reference, referenceLambda: lambda, observations, stats, shifts, dosageFits: fits,
+    measuredDosages: measured, lambdaTrend: lambdaTrend(observations, opts.level), profiles, warnings };
 }

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { analyseCohort } from './analyse';
 import { makeDemoCohort } from './demo-cohort';
 import { ratioWithCi, slopeRatio, twoGradientShiftEl } from './dosage-test';
+import type { DosageFit } from './types';
 import { parseSampleSheet } from './sample-sheet';
 
 function series(dosages: number[], count: number, seed: number) {
@@ -70,17 +71,23 @@ describe('dosage test (threshold model Δx = λ·ln f)', () => {
     expect(r.ratio).toBeCloseTo(0.5, 14);
     expect(r.ratioCiLow!).toBeCloseTo(0.5 - 2.776445 * se, 5);
     expect(r.ratioCiHigh!).toBeCloseTo(0.5 + 2.776445 * se, 5);
-    expect(ratioWithCi(0.1, 0.02, 4, 0, 0.01, 10)).toEqual({ ratio: null, ratioCiLow: null, ratioCiHigh: null });
+    expect(ratioWithCi(0.1, 0.02, 4, 0, 0.01, 10)).toEqual({ ratio: null, ratioCiLow: null, ratioCiHigh: null, pRatio: null });
   });
   it('slopeRatio: λ_eff / λ_ref with both uncertainties (known answer)', () => {
     // Source: hand-computed: 0.19 / 0.2 = 0.95; SE = √((0.01/0.2)² + (0.19·0.005/0.2²)²) = 0.0553535;
     // dof = min(12 − 2, 6 − 1) = 5, t(0.975, 5) = 2.570582 (t table, from memory) → half-width 0.1422918.
-    const fit = { quantity: 'q', slopeEl: 0.19, slopeSeEl: 0.01, ciLow: 0, ciHigh: 0, interceptEl: 0, r2: 1, n: 12, predictedSlopeEl: 0.2, predictedTwoGradientSlopeEl: null };
+    const fit: DosageFit = {
+      quantity: 'q', method: 'embryos-hc3', slopeEl: 0.19, slopeSeEl: 0.01, ciLow: 0, ciHigh: 0, interceptEl: 0, r2: 1, n: 12,
+      conditions: 2, dof: 10, pSlope: 0, lackOfFit: null, embryosHc3: null, randomIntercept: null, measured: null,
+      predictedSlopeEl: 0.2, predictedTwoGradientSlopeEl: null,
+    };
     const lam = { condition: 'ref', n: 6, lambdaEl: 0.2, seEl: 0.005, ciLowEl: 0, ciHighEl: 0, dof: 5 };
     const r = slopeRatio(fit, lam);
     expect(r.ratio).toBeCloseTo(0.95, 12);
     expect(r.ratioCiHigh! - 0.95).toBeCloseTo(0.1422918, 5);
     expect(0.95 - r.ratioCiLow!).toBeCloseTo(0.1422918, 5);
-    expect(slopeRatio(fit, null)).toEqual({ ratio: null, ratioCiLow: null, ratioCiHigh: null });
+    // Source: t test of ratio = 1: t = −0.05/0.0553535 = −0.9033 on 5 dof, two-sided p = 0.4078 (scipy.stats.t.sf).
+    expect(r.pRatio!).toBeCloseTo(0.4078, 3);
+    expect(slopeRatio(fit, null)).toEqual({ ratio: null, ratioCiLow: null, ratioCiHigh: null, pRatio: null });
   });
 });

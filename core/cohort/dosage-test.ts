@@ -8,7 +8,8 @@
 // observed/predicted gets a first-order (delta-method) interval with t at min(Welch dof, n_ref − 1) — it is only
 // meaningful when the predicted shift is clearly away from zero.
 import { describeSample } from './describe';
-import { fitLine, tQuantileOf } from './stats-local';
+import { holmAdjust, tTwoSidedP } from '../stats';
+import { tQuantileOf } from './stats-local';
 import type { ConditionInfo, DosageFit, Observation, ReferenceLambda, ShiftRow } from './types';
 import { welchDifference } from './welch';
 
@@ -58,7 +59,9 @@ export function shiftRows(
       rows.push(shiftRow(quantity, c, ref, cond, lambda, lambdaPosteriorEl, level));
     }
   }
-  return rows;
+  // Holm over every condition × position quantity (boundary methods of one channel count as separate tests).
+  const holm = holmAdjust(rows.map((r) => r.pRatio ?? NaN));
+  return rows.map((r, i) => ({ ...r, pRatioHolm: Number.isFinite(holm[i]) ? holm[i] : null }));
 }
 
 function shiftRow(
@@ -72,53 +75,43 @@ function shiftRow(
     observedShiftEl: obs.difference, ciLow: obs.ciLow, ciHigh: obs.ciHigh,
   };
   if (lnF === null || lambda === null) {
-    return { ...base, predictedShiftEl: null, predictedCiLow: null, predictedCiHigh: null, predictedTwoGradientEl: null, ratio: null, ratioCiLow: null, ratioCiHigh: null };
+    return { ...base, predictedShiftEl: null, predictedCiLow: null, predictedCiHigh: null, predictedTwoGradientEl: null, ratio: null, ratioCiLow: null, ratioCiHigh: null, pRatio: null, pRatioHolm: null };
   }
   const predicted = lambda.lambdaEl * lnF;
   const ends = [lambda.ciLowEl * lnF, lambda.ciHighEl * lnF].sort((p, q) => p - q);
   const twoGradient = lambdaPosteriorEl !== null ? twoGradientShiftEl(lnF, lambda.lambdaEl, lambdaPosteriorEl) : null;
   const ratio = ratioWithCi(obs.difference, obs.se, obs.dof, predicted, Math.abs(lnF) * lambda.seEl, lambda.dof, level);
-  return { ...base, predictedShiftEl: predicted, predictedCiLow: ends[0], predictedCiHigh: ends[1], predictedTwoGradientEl: twoGradient, ...ratio };
+  return { ...base, predictedShiftEl: predicted, predictedCiLow: ends[0], predictedCiHigh: ends[1], predictedTwoGradientEl: twoGradient, ...ratio, pRatioHolm: null };
 }
 
-/** Ratio O/P with a delta-method interval; null when P is zero (f = 1). */
+/** A ratio observed/predicted with its interval and the two-sided p-value of ratio = 1. */
+export interface RatioInterval {
+  readonly ratio: number | null;
+  readonly ratioCiLow: number | null;
+  readonly ratioCiHigh: number | null;
+  readonly pRatio: number | null;
+}
+
+/** Ratio O/P with a delta-method interval and a t-test of O/P = 1; nulls when P is zero (f = 1). */
 export function ratioWithCi(
   observed: number, observedSe: number, observedDof: number,
   predicted: number, predictedSe: number, predictedDof: number, level = 0.95,
-): { ratio: number | null; ratioCiLow: number | null; ratioCiHigh: number | null } {
-  if (!(Math.abs(predicted) > 1e-12)) return { ratio: null, ratioCiLow: null, ratioCiHigh: null };
+): RatioInterval {
+  if (!(Math.abs(predicted) > 1e-12)) return { ratio: null, ratioCiLow: null, ratioCiHigh: null, pRatio: null };
   const ratio = observed / predicted;
   // Var(O/P) ≈ (σO/P)² + (O·σP/P²)², written without dividing by O so it stays finite near O = 0.
   const se = Math.sqrt((observedSe / predicted) ** 2 + ((observed * predictedSe) / (predicted * predicted)) ** 2);
-  const t = tQuantileOf(1 - (1 - level) / 2, Math.min(observedDof, predictedDof));
-  return { ratio, ratioCiLow: ratio - t * se, ratioCiHigh: ratio + t * se };
-}
-
-/** Regression of each position (x/EL) on ln f over all embryos with a known dosage; needs ≥ 3 embryos and 2 dosages. */
-export function dosageFits(
-  observations: readonly Observation[], lambda: ReferenceLambda | null, lambdaPosteriorEl: number | null, level = 0.95,
-): DosageFit[] {
-  const out: DosageFit[] = [];
-  for (const quantity of positionQuantities(observations)) {
-    const pts = observations.filter((o) => o.quantity === quantity && o.unit === 'EL' && o.lnF !== null);
-    const x = pts.map((o) => o.lnF as number);
-    if (pts.length < 3 || new Set(x).size < 2) continue;
-    const fit = fitLine(x, pts.map((o) => o.value), level);
-    const lam = lambda?.lambdaEl ?? null;
-    out.push({
-      quantity, slopeEl: fit.slope, slopeSeEl: fit.slopeSe, ciLow: fit.slopeCi[0], ciHigh: fit.slopeCi[1],
-      interceptEl: fit.intercept, r2: fit.r2, n: fit.n, predictedSlopeEl: lam,
-      predictedTwoGradientSlopeEl: lam !== null && lambdaPosteriorEl !== null ? 1 / (1 / lam + 1 / lambdaPosteriorEl) : null,
-    });
-  }
-  return out;
+  const dof = Math.min(observedDof, predictedDof);
+  const t = tQuantileOf(1 - (1 - level) / 2, dof);
+  const p = tTwoSidedP((ratio - 1) / se, dof);
+  return { ratio, ratioCiLow: ratio - t * se, ratioCiHigh: ratio + t * se, pRatio: Number.isFinite(p) ? p : null };
 }
 
 /** λ_eff / λ_ref: fitted slope over the reference λ (both x/EL), with a delta-method interval that carries the
- *  uncertainty of both (t at min(n − 2, n_ref − 1)); nulls when either is missing. */
+ *  uncertainty of both (t at min(the fit's dof, n_ref − 1)); nulls when either is missing. */
 export function slopeRatio(
   fit: DosageFit, lambda: ReferenceLambda | null, level = 0.95,
-): { ratio: number | null; ratioCiLow: number | null; ratioCiHigh: number | null } {
-  if (lambda === null || fit.n < 3) return { ratio: null, ratioCiLow: null, ratioCiHigh: null };
-  return ratioWithCi(fit.slopeEl, fit.slopeSeEl, fit.n - 2, lambda.lambdaEl, lambda.seEl, lambda.dof, level);
+): RatioInterval {
+  if (lambda === null || !(fit.dof > 0)) return { ratio: null, ratioCiLow: null, ratioCiHigh: null, pRatio: null };
+  return ratioWithCi(fit.slopeEl, fit.slopeSeEl, fit.dof, lambda.lambdaEl, lambda.seEl, lambda.dof, level);
 }

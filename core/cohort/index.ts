@@ -2,7 +2,7 @@
 // positional error, the dosage-shift test of the threshold model, and the cohort CSV tables.
 export type {
   CohortAnalysis, CohortAssignment, CohortOptions, ConditionInfo, ConditionProfile, ConditionStat, DosageFit,
-  FilenameRule, Normalisation, Observation, QuantityKind, QuantityUnit, ReferenceLambda, ResolvedCohortOptions,
+  FilenameRule, MeasuredDosage, Normalisation, SlopeSummary, Observation, QuantityKind, QuantityUnit, ReferenceLambda, ResolvedCohortOptions,
   SampleRow, SampleSheet, ShiftRow,
 } from './types';
 export { CohortError } from './cohort-error';
@@ -14,7 +14,8 @@ export { observationsOf, boundaryQuantity, landmarkQuantity, quantityLabel, EGG_
 export { describeSample, type SampleSummary } from './describe';
 export { conditionStats } from './condition-stats';
 export { welchDifference, type MeanDifference } from './welch';
-export { referenceLambda, shiftRows, dosageFits, ratioWithCi, slopeRatio, twoGradientShiftEl, positionQuantities } from './dosage-test';
+export { referenceLambda, shiftRows, ratioWithCi, slopeRatio, twoGradientShiftEl, positionQuantities, type RatioInterval } from './dosage-test';
+export { dosageFits, lambdaTrend, measuredDosages, conditionMeansLine } from './dosage-fit';
 export { gridEl, interpolateOnGrid, normaliseProfile, centralSlope, conditionProfile } from './profiles';
 export { analyseCohort } from './analyse';
 export { conditionsCsv, shiftsCsv, dosageFitCsv, positionalErrorCsv } from './tables';

@@ -1,6 +1,6 @@
 // CSV tables of the cohort step (tidy: one row per observation; units in column names or a unit column).
 import { toCsv, type CsvValue } from '../batch';
-import type { CohortAnalysis } from './types';
+import type { CohortAnalysis, SlopeSummary } from './types';
 
 /** conditions.csv: one row per condition × quantity × unit. */
 export function conditionsCsv(a: CohortAnalysis): string {
@@ -14,19 +14,37 @@ export function conditionsCsv(a: CohortAnalysis): string {
 export function shiftsCsv(a: CohortAnalysis): string {
   return toCsv(
     ['quantity', 'condition', 'dosage', 'ln_f', 'observed_shift_el', 'ci_low', 'ci_high', 'predicted_shift_el',
-      'predicted_ci_low', 'predicted_ci_high', 'predicted_two_gradient_el', 'ratio', 'ratio_ci_low', 'ratio_ci_high'],
+      'predicted_ci_low', 'predicted_ci_high', 'predicted_two_gradient_el', 'ratio', 'ratio_ci_low', 'ratio_ci_high',
+      'p_ratio_1', 'p_ratio_1_holm'],
     a.shifts.map((s) => [s.quantity, s.condition, s.dosage, s.lnF, s.observedShiftEl, s.ciLow, s.ciHigh, s.predictedShiftEl,
-      s.predictedCiLow, s.predictedCiHigh, s.predictedTwoGradientEl, s.ratio, s.ratioCiLow, s.ratioCiHigh]),
+      s.predictedCiLow, s.predictedCiHigh, s.predictedTwoGradientEl, s.ratio, s.ratioCiLow, s.ratioCiHigh, s.pRatio, s.pRatioHolm]),
   );
 }
 
-/** dosage_fit.csv: regression of position (x/EL) on ln f per quantity, with the predicted slope λ and, when an
- * opposing gradient's decay length is given, the two-gradient slope (else empty). */
+/** Columns of dosage_fit.csv. */
+export const DOSAGE_FIT_COLUMNS = [
+  'quantity', 'method', 'slope_el', 'slope_se_el', 'ci_low', 'ci_high', 'dof', 'p_slope', 'intercept_el', 'r2', 'n',
+  'conditions', 'lack_of_fit_f', 'lack_of_fit_p', 'tau2_el2', 'predicted_slope_el', 'predicted_two_gradient_slope_el',
+] as const;
+
+/** dosage_fit.csv: per position quantity, the primary regression on ln f (method `condition-means`, or
+ * `embryos-hc3` with two dosages) with the lack-of-fit test, then one row per alternative fit: `embryos-hc3`,
+ * `random-intercept` and `measured-dosage` (ln of the amplitude ratio, York fit). The predicted slope λ and the
+ * two-gradient slope (when an opposing gradient's decay length is given) are on every row of the quantity. */
 export function dosageFitCsv(a: CohortAnalysis): string {
-  return toCsv(
-    ['quantity', 'slope_el', 'ci_low', 'ci_high', 'intercept_el', 'r2', 'n', 'predicted_slope_el', 'predicted_two_gradient_slope_el'],
-    a.dosageFits.map((f) => [f.quantity, f.slopeEl, f.ciLow, f.ciHigh, f.interceptEl, f.r2, f.n, f.predictedSlopeEl, f.predictedTwoGradientSlopeEl]),
-  );
+  const rows: CsvValue[][] = [];
+  for (const f of a.dosageFits) {
+    const tail = [f.predictedSlopeEl, f.predictedTwoGradientSlopeEl];
+    rows.push([f.quantity, f.method, f.slopeEl, f.slopeSeEl, f.ciLow, f.ciHigh, f.dof, f.pSlope, f.interceptEl, f.r2, f.n,
+      f.conditions, f.lackOfFit?.f, f.lackOfFit?.p, null, ...tail]);
+    const alt = (method: string, s: SlopeSummary | null, tau2: number | null = null): void => {
+      if (s) rows.push([f.quantity, method, s.slope, s.slopeSe, s.ciLow, s.ciHigh, s.dof, s.pSlope, s.intercept, null, f.n, f.conditions, null, null, tau2, ...tail]);
+    };
+    if (f.method !== 'embryos-hc3') alt('embryos-hc3', f.embryosHc3);
+    alt('random-intercept', f.randomIntercept, f.randomIntercept?.tau2 ?? null);
+    alt('measured-dosage', f.measured);
+  }
+  return toCsv(DOSAGE_FIT_COLUMNS, rows);
 }
 
 /** positional_error.csv: mean profile ± SD per condition on the grid, and σx in x/EL and µm (long format). */

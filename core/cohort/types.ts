@@ -106,22 +106,65 @@ export interface ShiftRow {
   readonly ratio: number | null;
   readonly ratioCiLow: number | null;
   readonly ratioCiHigh: number | null;
+  /** Two-sided p-value of ratio = 1 (the threshold model's prediction) and its Holm adjustment over every row. */
+  readonly pRatio: number | null;
+  readonly pRatioHolm: number | null;
 }
 
-/** Regression of one position (x/EL) on ln f over all embryos with a known dosage. */
+/** A slope with its standard error, interval and t-test against zero (see core/stats SlopeEstimate). */
+export interface SlopeSummary {
+  readonly slope: number;
+  readonly slopeSe: number;
+  readonly intercept: number;
+  readonly ciLow: number;
+  readonly ciHigh: number;
+  /** Degrees of freedom of the interval's t quantile (NaN: normal quantile). */
+  readonly dof: number;
+  readonly pSlope: number;
+}
+
+/**
+ * Regression of one position (x/EL) on ln f. The primary fit ('condition-means') takes each condition's mean as one
+ * observation, since dosage is set per condition and embryos of one condition share staining, session and stage
+ * (t on k − 2 degrees of freedom); with only two dosages it falls back to all embryos ('embryos-hc3').
+ */
 export interface DosageFit {
   readonly quantity: string;
+  readonly method: 'condition-means' | 'embryos-hc3';
   readonly slopeEl: number;
   readonly slopeSeEl: number;
   readonly ciLow: number;
   readonly ciHigh: number;
   readonly interceptEl: number;
   readonly r2: number;
+  /** Embryos with a known dosage. */
   readonly n: number;
+  /** Conditions (dosages) in the fit. */
+  readonly conditions: number;
+  /** Degrees of freedom of the slope's t interval. */
+  readonly dof: number;
+  readonly pSlope: number;
+  /** Lack-of-fit F test of linearity in ln f (within-condition pure error), when ≥ 3 dosages have replicates. */
+  readonly lackOfFit: { readonly f: number; readonly df1: number; readonly df2: number; readonly p: number } | null;
+  /** All embryos by least squares with HC3 (heteroscedasticity-consistent) standard errors. */
+  readonly embryosHc3: SlopeSummary | null;
+  /** Condition means weighted by 1/(SEM² + τ²), τ² the between-condition variance (Knapp–Hartung interval). */
+  readonly randomIntercept: (SlopeSummary & { readonly tau2: number }) | null;
+  /** Position on the measured ln(amplitude ratio to the reference) by York's errors-in-both-variables fit. */
+  readonly measured: SlopeSummary | null;
   /** λ of the reference (x/EL): the slope the threshold model predicts. */
   readonly predictedSlopeEl: number | null;
   /** 1 / (1/λ_A + 1/λ_P) when a posterior gradient is given, else null. */
   readonly predictedTwoGradientSlopeEl: number | null;
+}
+
+/** The measured dosage of a condition: its mean amplitude A over the reference's, with the SE of its logarithm. */
+export interface MeasuredDosage {
+  readonly condition: string;
+  readonly nominalFactor: number | null;
+  readonly amplitudeRatio: number;
+  readonly lnRatio: number;
+  readonly lnRatioSe: number;
 }
 
 /** Mean gradient profile of one condition on the common x/EL grid; NaN marks grid points without data. */
@@ -181,6 +224,10 @@ export interface CohortAnalysis {
   readonly stats: readonly ConditionStat[];
   readonly shifts: readonly ShiftRow[];
   readonly dosageFits: readonly DosageFit[];
+  /** Amplitude ratio of each condition to the reference (empty without amplitudes or a reference). */
+  readonly measuredDosages: readonly MeasuredDosage[];
+  /** λ (x/EL) of the condition means against ln f: the threshold model assumes dosage leaves λ unchanged. */
+  readonly lambdaTrend: SlopeSummary | null;
   readonly profiles: readonly ConditionProfile[];
   readonly warnings: readonly string[];
 }

@@ -40,6 +40,9 @@ export interface ProjectDoc {
   readonly settings: AnalysisSettings;
   /** Keyed by path relative to `folder` (or absolute when there is no folder). */
   readonly files: Readonly<Record<string, FileEdits>>;
+  /** Output folder of the last batch run from the window (absolute), so its results reopen with the project;
+   *  null or absent when there is none. */
+  readonly batchOutDir?: string | null;
 }
 
 /** A stack loaded for viewing and live measurement. */
@@ -153,6 +156,11 @@ export interface EgglineApi {
   cancelBatch(runId: string): Promise<ApiResult<null>>;
   /** Native dialog: choose an output folder. */
   chooseOutputFolder(): Promise<ApiResult<string | null>>;
+  /** The batch saved in an output folder the open project records (results.json, run.json, the cohort step over the
+   *  folder's samples.csv); null when the folder holds no results. */
+  loadBatchResults(outDir: string, folder: string): Promise<ApiResult<BatchSummary | null>>;
+  /** Open a batch's report.html in the system's default browser (never inside the app window). */
+  openReport(path: string): Promise<ApiResult<null>>;
   /** Subscribe to batch progress; returns an unsubscribe function. */
   onBatchProgress(listener: (p: BatchProgress) => void): () => void;
   /** Save dialog then write: text (svg/csv/json) or bytes (png). */
@@ -185,6 +193,7 @@ export const API_CHANNEL_PREFIX = 'eggline:';
 export const API_INVOKE_METHODS = [
   'openDemo', 'chooseFolder', 'chooseFiles', 'openDropped', 'recent', 'loadStack', 'loadSlice', 'saveProject',
   'openProject', 'runBatch', 'cancelBatch', 'chooseOutputFolder', 'exportFile', 'svgToPng', 'openRecent',
+  'loadBatchResults', 'openReport',
 ] as const satisfies readonly (keyof EgglineApi)[];
 
 /** Commands the application menu sends through onMenuCommand (plus `open-recent:<path>`, see below). */

@@ -117,7 +117,10 @@ export async function projectStack(info: StackInfo, source: PlaneSource, setting
   } else {
     const projectors: Projector[] = names.map(() => createProjector(info.sizeX, info.sizeY, settings.projection));
     const zs = settings.projection === 'slice' ? [settings.sliceIndex as number] : Array.from({ length: info.sizeZ }, (_, z) => z);
-    const order = zs.flatMap((z) => names.map((_, c) => ({ z, c })));
+    // Planes in file order (by IFD; stable, so each channel still gets its slices in z order): the file is read
+    // front to back, which disks like and which lets the batch hash the bytes as they are decoded.
+    const order = zs.flatMap((z) => names.map((_, c) => ({ z, c, ifd: info.planeIfd[(t * info.sizeC + c) * info.sizeZ + z] ?? 0 })))
+      .sort((a, b) => a.ifd - b.ifd);
     await readAhead(order.length, (i) => readChecked(source, info, order[i].z, order[i].c, t), (i, plane) => projectors[order[i].c].add(plane));
     channels = projectors.map((p) => p.result());
     if (settings.projection === 'slice') sliceIndex = settings.sliceIndex;

@@ -7,3 +7,6 @@ export type { LinearRegression } from './regression';
 export { createRng } from './rng';
 export type { Rng } from './rng';
 export { logGamma } from './log-gamma';
+export { tTwoSidedP, fUpperP, holmAdjust } from './p-values';
+export { olsHc3, lackOfFitTest, randomInterceptLine, yorkFit } from './line-fits';
+export type { SlopeEstimate, LackOfFit, RandomInterceptLine, YorkFit } from './line-fits';

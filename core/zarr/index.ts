@@ -8,3 +8,4 @@ export { createChunkPlaneSource, type ChunkedArray, type DecodedChunk, type Chun
 export { readJson, trackMissingChunks, isMetadataKey, MAX_METADATA_BYTES, type ZarrStore } from './store';
 export { openOmeZarr, type OpenedZarr, type OpenZarrOptions, type ZarrDetails } from './open-zarr';
 export { describeZarr } from './describe';
+export { guardZarrCodecs, declaredBloscBytes, declaredZstdBytes, type BoundedInflate } from './decode-guard';

@@ -3,6 +3,7 @@ import * as zarr from 'zarrita';
 import type { DimensionOrder, PixelSize, PlaneSource, SampleType, StackInfo } from '../model';
 import { arrayStorage, type ArrayStorage } from './array-meta';
 import { assignAxisRoles, impliedAxes, type AxisRoles } from './axes';
+import { guardZarrCodecs, type BoundedInflate } from './decode-guard';
 import { ZarrError } from './errors';
 import { parseNgffGroup, type NgffAxis, type NgffImage } from './ngff';
 import { chunksPerPlane, createChunkPlaneSource, roleSize, type ChunkedArray } from './plane-reader';
@@ -17,6 +18,8 @@ export interface OpenZarrOptions {
   readonly maxChunkBytes?: number;
   /** Most decoded chunk bytes kept for reuse between planes; default 2 GiB (at least one plane's chunks are kept). */
   readonly maxCacheBytes?: number;
+  /** zlib/gzip decoder that stops at a chunk's size (node:zlib, from core/io); without it zarrita's own is used. */
+  readonly inflate?: BoundedInflate;
 }
 
 /** Facts about the store beyond StackInfo, for `inspect`. */
@@ -173,6 +176,7 @@ function channelNamesOf(image: NgffImage, sizeC: number, label: string, warnings
  * the chunks each plane needs. Throws ZarrError with a one-line message for everything it refuses.
  */
 export async function openOmeZarr(store: ZarrStore, label: string, options: OpenZarrOptions = {}): Promise<OpenedZarr> {
+  guardZarrCodecs(options.inflate);
   const warnings: string[] = [];
   const { image, prefix, zarrFormat } = await findImage(store, label);
   warnings.push(...image.warnings);

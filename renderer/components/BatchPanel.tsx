@@ -10,10 +10,16 @@ export interface BatchPanelProps {
   readonly onChooseOutput: () => void;
   readonly onRun: () => void;
   readonly onCancel: () => void;
+  /** Show a file of the results in the embryo view. */
+  readonly onOpenFile: (file: string) => void;
+  /** Open report.html in the system's browser. */
+  readonly onOpenReport: (path: string) => void;
+  /** The file shown in the embryo view (its row is marked). */
+  readonly current: string | null;
 }
 
 /** The batch panel. */
-export function BatchPanel({ batch, folder, fileCount, onChooseOutput, onRun, onCancel }: BatchPanelProps) {
+export function BatchPanel({ batch, folder, fileCount, onChooseOutput, onRun, onCancel, onOpenFile, onOpenReport, current }: BatchPanelProps) {
   const pct = batch.total > 0 ? (100 * batch.done) / batch.total : 0;
   // After a cancel, the files that never ran (they have no row in the results).
   const notRun = batch.summary === null ? 0 : Math.max(0, batch.total - batch.summary.ok - batch.summary.failed);
@@ -35,16 +41,24 @@ export function BatchPanel({ batch, folder, fileCount, onChooseOutput, onRun, on
       {batch.summary && (
         <>
           <p data-testid="batch-summary">{batch.summary.cancelled ? 'Cancelled' : 'Finished'}: {batch.summary.ok} ok, {batch.summary.failed} failed{notRun > 0 ? `, ${notRun} not run` : ''} · written to <code>{batch.summary.outDir}</code></p>
-          {batch.summary.cohort && <p className="muted" data-testid="batch-cohort">Conditions compared ({batch.summary.cohort.conditions.length}, from samples.csv): see the Cohort tab · report <code>{batch.summary.cohort.reportPath}</code></p>}
+          {batch.summary.cohort && (
+            <p className="muted" data-testid="batch-cohort">Conditions compared ({batch.summary.cohort.conditions.length}, from samples.csv): see the Cohort tab ·{' '}
+              <button data-testid="batch-open-report" onClick={() => batch.summary?.cohort && onOpenReport(batch.summary.cohort.reportPath)} title={batch.summary.cohort.reportPath}>Open report</button></p>
+          )}
+          <p className="muted small">Click a row (or focus it and press Enter) to show that embryo with its warnings.</p>
           {batch.summary.cohortError && <p className="error" data-testid="batch-cohort-error">The cohort step failed: {batch.summary.cohortError}</p>}
-          <table className="results" data-testid="batch-results"><thead><tr><th>file</th><th>status</th><th>λ µm</th><th>± SE</th><th>λ/EL</th><th>R²</th><th>EL µm</th><th>boundaries (x/EL)</th><th>message</th></tr></thead>
+          <div className="table-scroll">
+          <table className="results" data-testid="batch-results"><thead><tr><th>file</th><th>status</th><th>λ µm</th><th>± SE</th><th>λ/EL</th><th>R²</th><th>EL µm</th><th>boundaries (x/EL)</th><th>warnings or error</th></tr></thead>
             <tbody>{batch.summary.results.map((r) => (
-              <tr key={r.file} className={r.status === 'error' ? 'row-error' : ''}>
+              <tr key={r.file} className={`clickable${r.status === 'error' ? ' row-error' : ''}${r.file === current ? ' current' : ''}`} tabIndex={0}
+                data-testid="batch-row" data-file={r.file} aria-label={`show ${r.file}`}
+                onClick={() => onOpenFile(r.file)} onKeyDown={(e) => { if (e.key === 'Enter' || e.key === ' ') { e.preventDefault(); onOpenFile(r.file); } }}>
                 <td>{r.file}</td><td>{r.status}</td><td>{fmt(r.gradientFit?.lambdaUm)}</td><td>{fmt(r.gradientFit?.lambdaSeUm, 2)}</td>
-                <td>{fixed(r.gradientFit?.lambdaEl, 4)}</td><td>{fixed(r.gradientFit?.r2, 3)}</td><td>{fmt(r.eggLengthUm, 4)}</td>
+                <td>{fixed(r.gradientFit?.lambdaEl, 4)}</td><td>{fixed(r.gradientFit?.r2, 4)}</td><td>{fmt(r.eggLengthUm, 4)}</td>
                 <td>{r.boundaries.filter((b) => b.positionEl !== null).map((b) => `${b.channel} ${b.method} ${fixed(b.positionEl, 3)}`).join('; ')}</td>
-                <td>{r.error ?? r.warnings.join('; ')}</td>
+                <td className={r.status === 'ok' && r.warnings.length > 0 ? 'warn-cell' : ''}>{r.error ?? r.warnings.join('; ')}</td>
               </tr>))}</tbody></table>
+          </div>
         </>
       )}
     </section>

@@ -18,6 +18,7 @@ function withCi(v: number | null | undefined, lo: number | null, hi: number | nu
 function ConditionTable({ c }: { c: CohortSummary }) {
   const pct = Math.round(c.level * 100);
   return (
+    <div className="table-scroll" data-testid="cohort-conditions-scroll">
     <table className="results cohort-table" data-testid="cohort-conditions">
       <thead><tr><th>condition</th><th>dosage</th><th>f</th><th>ln f</th><th>n</th><th>λ, x/EL (mean [{pct}% CI])</th><th>λ, µm (mean [{pct}% CI])</th></tr></thead>
       <tbody>{c.conditions.map((r: CohortConditionRow) => (
@@ -29,6 +30,7 @@ function ConditionTable({ c }: { c: CohortSummary }) {
           <td>{r.lambdaUm ? withCi(r.lambdaUm.mean, r.lambdaUm.ciLow, r.lambdaUm.ciHigh) : 'n/a'}</td>
         </tr>))}</tbody>
     </table>
+    </div>
   );
 }
 
@@ -42,6 +44,7 @@ function SlopeTable({ c }: { c: CohortSummary }) {
   const pct = Math.round(c.level * 100);
   const lam = c.referenceLambda;
   return (
+    <div className="table-scroll" data-testid="cohort-slopes-scroll">
     <table className="results cohort-table" data-testid="cohort-slopes">
       <thead><tr><th>quantity</th><th>slope λ_eff, x/EL per ln f [{pct}% CI]</th><th>predicted λ_ref [CI]</th><th>λ_eff/λ_ref [CI]</th><th>R²</th><th>n</th></tr></thead>
       <tbody>{c.dosageFit.map((f: DosageFit) => {
@@ -55,12 +58,14 @@ function SlopeTable({ c }: { c: CohortSummary }) {
           </tr>);
       })}</tbody>
     </table>
+    </div>
   );
 }
 
 function ShiftTable({ c }: { c: CohortSummary }) {
   const pct = Math.round(c.level * 100);
   return (
+    <div className="table-scroll" data-testid="cohort-shifts-scroll">
     <table className="results cohort-table" data-testid="cohort-shifts">
       <thead><tr><th>quantity</th><th>condition</th><th>ln f</th><th>observed Δx, x/EL [{pct}% CI]</th><th>predicted λ·ln f [CI]</th><th>ratio observed/predicted [CI]</th><th>n (ref, cond.)</th></tr></thead>
       <tbody>{c.shifts.map((s: ShiftRow) => (
@@ -72,6 +77,7 @@ function ShiftTable({ c }: { c: CohortSummary }) {
           <td>{s.nReference}, {s.nCondition}</td>
         </tr>))}</tbody>
     </table>
+    </div>
   );
 }
 
@@ -89,11 +95,12 @@ function DosageTest({ c }: { c: CohortSummary }) {
   );
 }
 
-function ConditionsView({ c, outDir }: { c: CohortSummary; outDir: string }) {
+function ConditionsView({ c, outDir, onOpenReport }: { c: CohortSummary; outDir: string; onOpenReport: (path: string) => void }) {
   return (
     <section className="panel cohort" data-testid="cohort-view">
       <h3>Cohort <span className="muted">last batch · {c.conditions.length} conditions from <code>{c.sampleSheetPath}</code> · reference: {c.reference ?? 'none'}</span></h3>
-      <p className="muted small">Report: <code data-testid="cohort-report">{c.reportPath}</code> · tables (conditions.csv, shifts.csv, dosage_fit.csv) in <code>{outDir}</code></p>
+      <p className="muted small"><button data-testid="cohort-open-report" onClick={() => onOpenReport(c.reportPath)} title="Open report.html in the system's browser">Open report</button>{' '}
+        <code data-testid="cohort-report">{c.reportPath}</code> · tables (conditions.csv, shifts.csv, dosage_fit.csv) in <code>{outDir}</code></p>
       <ConditionTable c={c} />
       <DosageTest c={c} />
       {c.warnings.length > 0 && <ul className="warnings" data-testid="cohort-warnings">{c.warnings.map((w) => <li key={w}>{w}</li>)}</ul>}
@@ -110,10 +117,13 @@ function SingleGroupView({ summary }: { summary: BatchSummary }) {
     const ok = summary.results.filter((r) => r.status === 'ok');
     const prof = meanScaledProfile(ok);
     const lam = lambdaValuesEl(ok);
-    const { mean, sd } = lambdaSummaryEl(ok);
+    const { mean, sd, ciLow, ciHigh } = lambdaSummaryEl(ok);
+    // Whiskers only where there is an interval (two or more embryos); the subtitle says what is drawn.
+    const hasCi = lam.length >= 2 && Number.isFinite(ciLow) && Number.isFinite(ciHigh);
     return {
       profiles: prof === null ? null : cohortProfilesFigure([{ label: `this batch (n=${prof.embryoCount})`, ...prof }], { widthPx: 560, heightPx: 340, yLabel: 'intensity, min–max scaled to [0, 1]' }),
-      lambda: lam.length === 0 ? null : lambdaByConditionFigure([{ label: 'this batch', values: lam, mean, ciLow: NaN, ciHigh: NaN }], { widthPx: 460, heightPx: 340, unit: 'EL', title: 'Decay length λ per embryo (bar: mean)' }),
+      lambda: lam.length === 0 ? null : lambdaByConditionFigure([{ label: 'this batch', values: lam, mean, ciLow: hasCi ? ciLow : NaN, ciHigh: hasCi ? ciHigh : NaN }],
+        { widthPx: 460, heightPx: 340, unit: 'EL', title: 'Decay length λ per embryo', subtitle: hasCi ? 'dots: embryos; bar: mean; whiskers: 95% CI of the mean' : 'dots: embryos; bar: mean (one embryo: no interval)' }),
       mean, sd, n: lam.length,
     };
   }, [summary]);
@@ -124,7 +134,7 @@ function SingleGroupView({ summary }: { summary: BatchSummary }) {
   if (figs.n === 0) return <section className="panel cohort" data-testid="cohort-view">{hint}<p className="muted">The last batch has no embryo with a gradient fit, so there is nothing to summarise.</p></section>;
   return (
     <section className="panel cohort" data-testid="cohort-view">
-      <h3>Cohort <span className="muted">last batch · λ/EL mean {fmt(figs.mean)} ± {fmt(figs.sd, 2)} SD (n = {figs.n})</span></h3>
+      <h3>Cohort <span className="muted" data-testid="cohort-lambda-summary">last batch · {figs.n >= 2 ? `λ/EL mean ${fmt(figs.mean)} ± ${fmt(figs.sd, 2)} SD (n = ${figs.n})` : `λ/EL ${fmt(figs.mean)} (n = 1: no SD)`}</span></h3>
       {hint}
       <div className="figures">
         {figs.profiles && <div className="figure" dangerouslySetInnerHTML={{ __html: figs.profiles }} />}
@@ -135,8 +145,8 @@ function SingleGroupView({ summary }: { summary: BatchSummary }) {
 }
 
 /** Cohort view; empty until a batch has finished. */
-export function CohortView({ summary }: { summary: BatchSummary | null }) {
+export function CohortView({ summary, onOpenReport }: { summary: BatchSummary | null; onOpenReport: (path: string) => void }) {
   if (summary === null) return <section className="panel cohort"><p className="muted">Run a batch to see the cohort summary here.</p></section>;
-  if (summary.cohort) return <ConditionsView c={summary.cohort} outDir={summary.outDir} />;
+  if (summary.cohort) return <ConditionsView c={summary.cohort} outDir={summary.outDir} onOpenReport={onOpenReport} />;
   return <SingleGroupView summary={summary} />;
 }

@@ -1,9 +1,51 @@
 // The numbers of the live measurement: λ ± SE, 95% CI, R², A, B, egg length, boundaries, warnings.
+import type { EmbryoResult } from '../../core/model';
 import type { LiveMeasurement } from '../live';
+import type { FileStatus } from '../state/fileStatus';
 import { fixed, fmt } from '../ui/format';
 
+/** The shown file: its status and its row of the last batch. */
+export interface ShownFile {
+  readonly name: string;
+  readonly status: FileStatus;
+  readonly result: EmbryoResult | null;
+}
+
+/** Props of the numbers panel. */
+export interface FitNumbersProps {
+  readonly m: LiveMeasurement | null;
+  readonly pixelSizeUm: number | null;
+  readonly loading: boolean;
+  /** Where the shown axis comes from (the negative-λ hint depends on it). */
+  readonly axisSource: 'auto' | 'hand' | null;
+  readonly file: ShownFile | null;
+  /** The settings' fit range, x/EL, when the file uses its own instead (null when it follows the settings). */
+  readonly settingsFitRangeEl?: readonly [number, number] | null;
+}
+
+/** Why λ can come out negative, and what to check: with the automatic axis the anterior pole is already the high end
+ *  of the gradient channel, so the channel is the likelier culprit; with a hand axis, the poles may be swapped. */
+export function negativeLambdaHint(axisSource: 'auto' | 'hand' | null): string {
+  return axisSource === 'hand'
+    ? 'λ is negative: the profile rises toward P. Are anterior and posterior swapped (S)? Or is the gradient channel not the graded one?'
+    : 'λ is negative: the profile rises toward P although the automatic axis puts A at the bright end. Check the gradient channel in the settings (the graded channel may be another one), then the axis.';
+}
+
+/** Status line of the shown file and what the last batch said about it. */
+function FileNote({ file }: { file: ShownFile }) {
+  const r = file.result;
+  return (
+    <div className="file-note" data-testid="file-note">
+      <div className="row"><span className={`status status-${file.status.state}`}>{file.status.label}</span><span className="muted small">{file.status.reason}</span></div>
+      {r !== null && r.status === 'ok' && r.warnings.length > 0 && (
+        <ul className="warnings" data-testid="batch-warnings" aria-label="warnings of the last batch">{r.warnings.map((w, i) => <li key={i}>last batch: {w}</li>)}</ul>
+      )}
+    </div>
+  );
+}
+
 /** Table of fit results for the shown embryo. */
-export function FitNumbers({ m, pixelSizeUm, loading }: { m: LiveMeasurement | null; pixelSizeUm: number | null; loading: boolean }) {
+export function FitNumbers({ m, pixelSizeUm, loading, axisSource, file, settingsFitRangeEl = null }: FitNumbersProps) {
   const f = m?.fit ?? null;
   const rows: [string, string, string?][] = [
     ['λ', f === null ? '—' : `${fmt(f.lambdaUm)} ± ${fmt(f.lambdaSeUm, 2)} µm`, 'lambda-um'],
@@ -12,20 +54,21 @@ export function FitNumbers({ m, pixelSizeUm, loading }: { m: LiveMeasurement | n
     ['R²', f === null ? '—' : fixed(f.r2, 4), 'r2'],
     ['A', f === null ? '—' : `${fmt(f.amplitude)} ± ${fmt(f.amplitudeSe, 2)}`],
     ['B', f === null ? '—' : `${fmt(f.background)} ± ${fmt(f.backgroundSe, 2)}`],
-    ['fit range', f === null ? '—' : `${fixed(f.fitRangeEl[0], 3)} – ${fixed(f.fitRangeEl[1], 3)} EL (${f.dof + 3} bins)`],
+    ['fit range', f === null ? '—' : `${fixed(f.fitRangeEl[0], 3)} – ${fixed(f.fitRangeEl[1], 3)} EL (${f.dof + 3} bins)${settingsFitRangeEl === null ? '' : ` · this file's own (settings: ${fixed(settingsFitRangeEl[0], 2)} – ${fixed(settingsFitRangeEl[1], 2)})`}`, 'fit-range'],
     ['egg length', m === null ? '—' : `${fmt(m.eggLengthUm, 4)} µm`],
     ['pixel size', pixelSizeUm === null ? 'unknown' : `${fmt(pixelSizeUm, 4)} µm`],
   ];
   return (
     <section className="panel fit-numbers" data-testid="fit-numbers">
       <h3>Gradient fit <span className="muted">A·e^(−x/λ)+B{loading ? ' · loading…' : ''}</span></h3>
+      {file !== null && <FileNote file={file} />}
       <table><tbody>
         {rows.map(([k, v, id]) => <tr key={k}><th>{k}</th><td data-testid={id}>{v}</td></tr>)}
         {m?.boundaries.map((b, i) => <tr key={`b${i}`}><th>{b.channel} {b.method}</th><td>{b.positionEl === null ? (b.note ?? '—') : `${fixed(b.positionEl, 3)} EL · ${fmt(b.positionUm)} µm · ${b.direction}`}</td></tr>)}
       </tbody></table>
       {m !== null && (m.warnings.length > 0 || (f !== null && f.lambdaEl < 0)) && (
         <ul className="warnings" data-testid="warnings">
-          {f !== null && f.lambdaEl < 0 && <li>λ is negative: the profile rises toward P. Are anterior and posterior swapped? (S)</li>}
+          {f !== null && f.lambdaEl < 0 && <li data-testid="negative-lambda">{negativeLambdaHint(axisSource)}</li>}
           {m.warnings.map((w, i) => <li key={i}>{w}</li>)}
         </ul>
       )}

@@ -10,19 +10,21 @@ export const AUTOSAVE_DELAY_MS = 400;
 export type SaveStatus = { kind: 'idle' } | { kind: 'pending' } | { kind: 'saved'; at: string } | { kind: 'error'; message: string };
 
 /** The project file content for a document. */
-export function toProjectDoc(doc: DocState, folder: string | null): ProjectDoc {
-  return { schema: 'eggline-project', version: 1, folder, settings: doc.settings, files: doc.files };
+export function toProjectDoc(doc: DocState, folder: string | null, batchOutDir: string | null = null): ProjectDoc {
+  const base: ProjectDoc = { schema: 'eggline-project', version: 1, folder, settings: doc.settings, files: doc.files };
+  return batchOutDir === null ? base : { ...base, batchOutDir };
 }
 
 /** Debounced autosave keyed on the state revision; also returns a function to save at once. */
-export function useAutosave(api: EgglineApi | null, projectPath: string | null, folder: string | null, doc: DocState, revision: number): [SaveStatus, () => Promise<void>] {
+export function useAutosave(api: EgglineApi | null, projectPath: string | null, folder: string | null, doc: DocState, revision: number,
+  batchOutDir: string | null = null): [SaveStatus, () => Promise<void>] {
   const [status, setStatus] = useState<SaveStatus>({ kind: 'idle' });
-  const latest = useRef({ doc, folder, projectPath });
-  latest.current = { doc, folder, projectPath };
+  const latest = useRef({ doc, folder, projectPath, batchOutDir });
+  latest.current = { doc, folder, projectPath, batchOutDir };
   const saveNow = async () => {
-    const { doc: d, folder: f, projectPath: p } = latest.current;
+    const { doc: d, folder: f, projectPath: p, batchOutDir: o } = latest.current;
     if (api === null || p === null) return;
-    const r = await api.saveProject(p, toProjectDoc(d, f));
+    const r = await api.saveProject(p, toProjectDoc(d, f, o));
     setStatus(r.ok ? { kind: 'saved', at: r.value.savedAt } : { kind: 'error', message: r.error.message });
   };
   useEffect(() => {

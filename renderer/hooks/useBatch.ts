@@ -35,14 +35,25 @@ export function useBatch(api: EgglineApi | null) {
     if (r.ok && r.value !== null) setState((s) => ({ ...s, outDir: r.value }));
     if (!r.ok) setState((s) => ({ ...s, error: r.error.message }));
   };
-  const run = async (folder: string, doc: ProjectDoc) => {
-    if (api === null || state.outDir === null || state.running) return;
+  /** Run over `folder` into the chosen output folder; resolves with the output folder when the run wrote results. */
+  const run = async (folder: string, doc: ProjectDoc): Promise<string | null> => {
+    if (api === null || state.outDir === null || state.running) return null;
     setState((s) => ({ ...START, outDir: s.outDir, running: true }));
     const r = await api.runBatch(folder, state.outDir, doc);
     setState((s) => (r.ok ? { ...s, running: false, summary: r.value } : { ...s, running: false, error: r.error.message }));
+    return r.ok ? r.value.outDir : null;
+  };
+  /** Show the batch saved in a project's output folder (after a restart); forget it when there is none. */
+  const restore = async (outDir: string | null, folder: string | null) => {
+    if (api === null) return;
+    if (outDir === null || folder === null) { setState(START); return; }
+    const r = await api.loadBatchResults(outDir, folder);
+    if (!r.ok) { setState({ ...START, outDir, error: `The last batch's results could not be read: ${r.error.message}` }); return; }
+    const summary = r.value;
+    setState({ ...START, outDir, summary, done: summary === null ? 0 : summary.results.length, total: summary === null ? 0 : summary.results.length });
   };
   const cancel = async () => {
     if (api !== null && state.runId !== null) await api.cancelBatch(state.runId);
   };
-  return { batch: state, chooseOutput, run, cancel };
+  return { batch: state, chooseOutput, run, cancel, restore };
 }

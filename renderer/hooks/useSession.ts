@@ -12,6 +12,8 @@ export interface Session {
   /** Last error from opening things, one line. */
   readonly message: string | null;
   readonly opening: boolean;
+  /** Output folder of the project's last batch (its results reopen with the project). */
+  readonly batchOutDir: string | null;
 }
 
 type Opened = { folder: string | null; entries: FolderEntry[]; project: ProjectDoc; projectPath: string };
@@ -19,15 +21,15 @@ type Opened = { folder: string | null; entries: FolderEntry[]; project: ProjectD
 /** Session state and the commands that open things. */
 export function useSession(api: EgglineApi | null, dispatch: Dispatch<EditorAction>, onOpened: (firstFile: string | null) => void,
   beforeOpen: () => Promise<void> = async () => undefined) {
-  const [session, setSession] = useState<Session>({ folder: null, entries: [], projectPath: null, message: null, opening: false });
+  const [session, setSession] = useState<Session>({ folder: null, entries: [], projectPath: null, message: null, opening: false, batchOutDir: null });
   const adopt = (o: Opened) => {
-    setSession({ folder: o.folder, entries: o.entries, projectPath: o.projectPath, message: null, opening: false });
+    setSession({ folder: o.folder, entries: o.entries, projectPath: o.projectPath, message: null, opening: false, batchOutDir: o.project.batchOutDir ?? null });
     dispatch({ type: 'openDoc', doc: { settings: o.project.settings, files: o.project.files } });
     onOpened(o.entries[0]?.name ?? null);
   };
   /** Files without a project folder (chosen, dropped or recent): hand edits stay in this window. */
   const adoptLoose = (entries: FolderEntry[], message: string | null) => {
-    setSession({ folder: null, entries, projectPath: null, message, opening: false });
+    setSession({ folder: null, entries, projectPath: null, message, opening: false, batchOutDir: null });
     onOpened(entries[0]?.name ?? null);
   };
   const fail = (message: string) => setSession((s) => ({ ...s, message, opening: false }));
@@ -86,5 +88,6 @@ export function useSession(api: EgglineApi | null, dispatch: Dispatch<EditorActi
     if (last !== undefined && (await openRecent(last))) return;
     await openDemo();
   });
-  return { session, openDemo, openFolder, openProject, openFiles, openRecent, openAtStart, openDroppedFiles, setMessage: (m: string | null) => setSession((s) => ({ ...s, message: m })) };
+  return { session, openDemo, openFolder, openProject, openFiles, openRecent, openAtStart, openDroppedFiles, setMessage: (m: string | null) => setSession((s) => ({ ...s, message: m })),
+    setBatchOutDir: (d: string | null) => setSession((s) => ({ ...s, batchOutDir: d })) };
 }

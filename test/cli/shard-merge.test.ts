@@ -110,7 +110,8 @@ describe('eggline batch --shard and eggline merge', () => {
     expect(r.stdout).toContain(`  jobid=$(sbatch --parsable ${join(out, 'eggline-array.sbatch')})\n  sbatch --dependency=afterok:\${jobid%%;*} ${join(out, 'eggline-merge.sbatch')}\n`);
     expect(existsSync(join(out, 'parts'))).toBe(false);
     const array = readFileSync(join(out, 'eggline-array.sbatch'), 'utf8');
-    expect(array).toContain(`"$NODE" "$EGGLINE" batch ${demo} --out ${out} --shard "$PART/$PARTS"`);
+    expect(array).toContain(`OUT=${out}\n`);
+    expect(array).toContain(`"$NODE" "$EGGLINE" batch ${demo} --out "$OUT" --shard "$PART/$PARTS" --resume`);
     expect(array).toContain(`NODE=${process.execPath} `);
     expect(array).toContain('#SBATCH --partition=long\n#SBATCH --time=01:00:00\n');
     expect(readFileSync(join(out, 'eggline-merge.sbatch'), 'utf8')).toContain(`merge ${out} --samples ${join(demo, 'samples.csv')}\n`);

@@ -32,7 +32,8 @@ describe('runCohortStep', () => {
     const shifts = readFileSync(join(out, 'shifts.csv'), 'utf8').trim().split('\r\n');
     expect(shifts.length).toBe(1 + 3 * 3);
     const fits = readFileSync(join(out, 'dosage_fit.csv'), 'utf8');
-    expect(fits).toContain('boundary:target:logistic,0.');
+    expect(fits).toContain('boundary:target:logistic,condition-means,0.');
+    expect(fits).toContain('boundary:target:logistic,embryos-hc3,0.');
     for (const n of names.filter((x) => x.endsWith('.svg'))) expect(XMLValidator.validate(readFileSync(join(out, n), 'utf8'))).toBe(true);
     const html = readFileSync(join(out, 'report.html'), 'utf8');
     expect(html).not.toMatch(/<script|<link|<img|src="|url\(http|@import/i);

@@ -160,7 +160,9 @@ describe('editor window', { timeout: 150_000 }, () => {
     expect(Math.abs(p.x - handleP.x) + Math.abs(p.y - handleP.y)).toBeLessThan(1.5);
     expect(await landmarkXel(page, 'L1')).toBe(placedXel);
     expect(await page.getByTestId('boundary-channel-2').isChecked()).toBe(true);
-    expect(await page.locator('[data-testid=folder-entry] .status-edited').count()).toBeGreaterThanOrEqual(1);
+    // Hand edits are marked in the list; no batch has run, so the file is still new.
+    expect(await page.locator('[data-testid=folder-entry] .hand-edited').count()).toBeGreaterThanOrEqual(1);
+    expect(await page.locator('[data-testid=folder-entry].current').getAttribute('data-status')).toBe('new');
     await shot(page, '05-restored-after-reload');
   });
 
@@ -318,17 +320,17 @@ describe('undo stays on the shown file', { timeout: 120_000 }, () => {
     const { page } = h;
     await page.getByTestId('tab-embryo').click();
     await page.getByTestId('handle-anterior').waitFor({ timeout: 30_000 });
-    const first = await page.locator('[data-testid=folder-entry].current').textContent();
+    const first = await page.locator('[data-testid=folder-entry].current').getAttribute('data-name');
     const a0 = await centre(page, '[data-testid=handle-anterior] circle');
     const p0 = await centre(page, '[data-testid=handle-posterior] circle');
     await page.getByTestId('swap').click();
     await page.keyboard.press('PageDown');
-    await expect.poll(() => page.locator('[data-testid=folder-entry].current').textContent(), { timeout: 30_000 }).not.toBe(first);
+    await expect.poll(() => page.locator('[data-testid=folder-entry].current').getAttribute('data-name'), { timeout: 30_000 }).not.toBe(first);
     await page.getByTestId('handle-anterior').waitFor({ timeout: 30_000 });
     expect(await page.getByTestId('undo').isDisabled()).toBe(true);
     await page.keyboard.press('Control+z');
     await page.keyboard.press('PageUp');
-    await expect.poll(() => page.locator('[data-testid=folder-entry].current').textContent(), { timeout: 30_000 }).toBe(first);
+    await expect.poll(() => page.locator('[data-testid=folder-entry].current').getAttribute('data-name'), { timeout: 30_000 }).toBe(first);
     await page.getByTestId('handle-anterior').waitFor({ timeout: 30_000 });
     // Still swapped: the Ctrl+Z on the other file did not reach this one.
     await expect.poll(async () => {

@@ -57,6 +57,8 @@ export interface Harness {
   readonly page: Page;
   readonly dialogs: FakeDialogs;
   readonly progress: BatchProgress[];
+  /** Paths handed to the system's default application (the report), in order. */
+  readonly openedPaths: string[];
   /**
    * Make the next batch wait before its file number `afterFiles` (0-based) until the batch is cancelled (or 60 s
    * pass), so a test can press Cancel while the run is surely in the middle. Analysis stays the real one.
@@ -71,6 +73,7 @@ export interface Harness {
 export async function startHarness(dataDir: string, demoSubset?: number): Promise<Harness> {
   const dialogs: FakeDialogs = { folder: null, output: null, project: null, saveDir: null };
   const progress: BatchProgress[] = [];
+  const openedPaths: string[] = [];
   let page: Page | null = null;
   // Batch hold (see Harness.holdBatchUntilCancel): the real engine, with the in-process analysis of later files
   // waiting on a promise that the batch's abort signal resolves.
@@ -101,6 +104,7 @@ export async function startHarness(dataDir: string, demoSubset?: number): Promis
       openProjectFile: async () => dialogs.project,
       saveFile: async (name: string, _kind: ExportKind) => (dialogs.saveDir === null ? null : join(dialogs.saveDir, name)),
     },
+    openPath: async (p) => { openedPaths.push(p); return ''; },
     emitBatchProgress: (p) => {
       progress.push(p);
       void page?.evaluate((q) => (window as unknown as { __egglineProgress(p: unknown): void }).__egglineProgress(q), p).catch(() => undefined);
@@ -144,7 +148,7 @@ export async function startHarness(dataDir: string, demoSubset?: number): Promis
   page.on('console', (msg) => { if (msg.type() === 'error') errors.push(msg.text()); });
   await page.goto('http://app.test/index.html');
   return {
-    browser, page, dialogs, progress,
+    browser, page, dialogs, progress, openedPaths,
     holdBatchUntilCancel: (afterFiles) => { hold = { afterFiles }; },
     freshHandlers: () => { current.handlers = createHandlers(deps); },
     close: async () => { await browser.close(); if (errors.length > 0) console.warn(`page errors:\n${errors.join('\n')}`); },

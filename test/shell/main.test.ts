@@ -19,6 +19,7 @@ const mock = vi.hoisted(() => {
     menuTemplate: null as null | { label?: string; submenu?: { label?: string; accelerator?: string; click?: () => void }[] }[],
     quit: 0,
     contentsListeners: new Map<string, Listener>(),
+    openedPaths: [] as string[],
   };
   class BrowserWindow {
     readonly record: (typeof state.windows)[number];
@@ -54,6 +55,7 @@ const mock = vi.hoisted(() => {
     Menu: { buildFromTemplate: (t: typeof state.menuTemplate) => t, setApplicationMenu: (m: typeof state.menuTemplate) => { state.menuTemplate = m; } },
     dialog: { showOpenDialog: async () => ({ canceled: true, filePaths: [] }), showSaveDialog: async () => ({ canceled: true }), showErrorBox: () => undefined },
     BrowserWindow,
+    shell: { openPath: async (p: string) => { state.openedPaths.push(p); return ''; } },
   };
   return { state, electron };
 });
@@ -127,6 +129,32 @@ describe('main process (electron mocked)', () => {
     expect(refused).toMatchObject({ ok: false, error: { code: 'not-allowed' } });
     const answered = await mock.state.ipc.get('eggline:recent')!({ senderFrame: { url: 'eggline://app/index.html', parent: null } });
     expect(answered).toEqual({ ok: true, value: [] });
+  });
+
+  it('opens a batch report with shell.openPath, only for a report of the open project\'s batch output folder', async () => {
+    const images = join(root, 'images');
+    const out = join(root, 'out');
+    await mkdir(images, { recursive: true });
+    await mkdir(out, { recursive: true });
+    await writeFile(join(out, 'report.html'), '<!DOCTYPE html>');
+    // Demo data: a project that records its last batch's output folder.
+    await writeFile(join(images, 'eggline-project.json'), JSON.stringify({ schema: 'eggline-project', version: 1, folder: '.', settings: {}, files: {}, batchOutDir: '../out' }));
+    const trusted = { senderFrame: { url: 'eggline://app/index.html', parent: null } };
+    const report = join(out, 'report.html');
+    expect(await mock.state.ipc.get('eggline:openReport')!(trusted, report)).toMatchObject({ ok: false, error: { code: 'not-allowed' } });
+    const dialog = mock.electron.dialog as { showOpenDialog: () => Promise<unknown> };
+    const before = dialog.showOpenDialog;
+    dialog.showOpenDialog = async () => ({ canceled: false, filePaths: [images] });
+    try {
+      expect(await mock.state.ipc.get('eggline:chooseFolder')!(trusted)).toMatchObject({ ok: true });
+    } finally {
+      dialog.showOpenDialog = before;
+    }
+    expect(await mock.state.ipc.get('eggline:openReport')!(trusted, report)).toEqual({ ok: true, value: null });
+    expect(mock.state.openedPaths).toEqual([report]);
+    // A page that is not ours gets nothing opened.
+    expect(await mock.state.ipc.get('eggline:openReport')!({ senderFrame: { url: 'https://example.invalid/', parent: null } }, report)).toMatchObject({ ok: false });
+    expect(mock.state.openedPaths).toHaveLength(1);
   });
 
   it('builds the menu, whose items send commands to the page', () => {

@@ -8,7 +8,7 @@ import { openStackForAnalysis, type OpenedStack } from '../../app/decode';
 import type { EmbryoResult } from '../../core/model';
 import { analyzeStack } from '../../core/pipeline';
 import { DEFAULT_SETTINGS } from '../../core/settings';
-import { pythonZarrMissing, REFERENCE, writePythonStores, writeReferenceTiff } from './stack-fixture';
+import { allPlanes, comparableResult as comparable, pythonZarrMissing, REFERENCE, writePythonStores, writeReferenceTiff } from './stack-fixture';
 
 const missing = pythonZarrMissing();
 const dir = mkdtempSync(join(tmpdir(), 'eggline-zarr-py-'));
@@ -21,18 +21,6 @@ const CASES = [
   'blosc-lz4-slash-tiles', 'zlib-czyx-whole-stack', 'zstd-slash-f-order',
 ];
 const settings = { ...DEFAULT_SETTINGS, boundaryChannels: [2] };
-
-/** Every plane of an opened stack, in (z, c) order. */
-async function allPlanes(opened: OpenedStack): Promise<number[][]> {
-  const out: number[][] = [];
-  for (let z = 0; z < opened.info.sizeZ; z++) {
-    for (let c = 0; c < opened.info.sizeC; c++) out.push(Array.from((await opened.source.readPlane(z, c, 0)).data));
-  }
-  return out;
-}
-
-/** The result without the fields that name the file or the pixel size's source. */
-const comparable = (r: EmbryoResult) => ({ ...r, file: '', pixelSizeSource: '' });
 
 describe.skipIf(missing !== null)(`OME-Zarr written by Python's zarr${missing ? ` (skipped: ${missing})` : ''}`, () => {
   let tiff: OpenedStack;

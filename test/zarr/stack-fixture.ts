@@ -2,8 +2,10 @@
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { spawnSync } from 'node:child_process';
+import type { EmbryoResult, PlaneSource } from '../../core/model';
 import { makeSyntheticEmbryo, type SyntheticEmbryo } from '../../core/synth';
 import { writeOmeTiff } from '../../core/tiff';
+import type { V3Source } from '../../scripts/make-zarr-v3-fixtures';
 
 /** Debian's Python, which has numpy, tifffile, zarr and numcodecs (the pyenv python3 on PATH may not). */
 export const PYTHON = '/usr/bin/python3';
@@ -38,3 +40,21 @@ export function writePythonStores(tiff: string, out: string, cases: readonly str
   if (r.status !== 0) throw new Error(`make-zarr-fixtures.py failed: ${r.stderr}`);
   return r.stdout.trim().split('\n');
 }
+
+/** The reference embryo as the source of zarrita's v3 stores (the same pixels as the TIFF). */
+export function v3Source(embryo: SyntheticEmbryo): V3Source {
+  const { sizeX, sizeY, sizeZ, sizeC, planes } = embryo.stack;
+  return { sizeX, sizeY, sizeZ, sizeC, planes: planes as Uint16Array[], pixelSizeUm: REFERENCE.pixelSizeUm, zStepUm: REFERENCE.zStepUm, channels: REFERENCE.channels };
+}
+
+/** Every plane of an opened stack, in (z, c) order. */
+export async function allPlanes(opened: { info: { sizeZ: number; sizeC: number }; source: PlaneSource }): Promise<number[][]> {
+  const out: number[][] = [];
+  for (let z = 0; z < opened.info.sizeZ; z++) {
+    for (let c = 0; c < opened.info.sizeC; c++) out.push(Array.from((await opened.source.readPlane(z, c, 0)).data));
+  }
+  return out;
+}
+
+/** A result without the fields that name the file or the pixel size's source, for comparing two readers. */
+export const comparableResult = (r: EmbryoResult) => ({ ...r, file: '', pixelSizeSource: '' });

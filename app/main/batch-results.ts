@@ -1,0 +1,80 @@
+// The last batch of a project, read back from its output folder (results.json, run.json and the cohort step over
+// the folder's sample sheet), and its report opened in the system's browser: results stay after a restart.
+import { promises as fs } from 'node:fs';
+import { basename, join } from 'node:path';
+import { resultsFromJson } from '../../core/batch';
+import type { BatchSummary, CohortSummary } from '../../core/contract';
+import type { EmbryoResult } from '../../core/model';
+import { requireAllowed } from './args';
+import { cohortSummaryFor, findSampleSheet } from './cohort-summary';
+import type { ShellContext } from './context';
+import { ApiFailure, labelOf } from './result';
+
+/** Allow a batch output folder named by a project (when it exists) for reading its results and for new runs. */
+export async function allowRecordedOutput(ctx: ShellContext, outDir: string | null | undefined): Promise<void> {
+  if (typeof outDir !== 'string' || outDir === '') return;
+  const isDir = await fs.stat(outDir).then((s) => s.isDirectory(), () => false);
+  if (!isDir) return;
+  ctx.allow.allowTree('results', outDir);
+  ctx.allow.allowTree('output', outDir);
+}
+
+/** What run.json says about the end of the run (absent fields: a finished run). */
+async function readRunEnd(outDir: string): Promise<{ runId: string; cancelled: boolean }> {
+  try {
+    const run = JSON.parse(await fs.readFile(join(outDir, 'run.json'), 'utf8')) as { runId?: unknown; cancelled?: unknown };
+    return { runId: typeof run.runId === 'string' ? run.runId : 'saved', cancelled: run.cancelled === true };
+  } catch {
+    return { runId: 'saved', cancelled: false };
+  }
+}
+
+/** The cohort step over the saved results, as after a run (nothing when there is no sheet or the run was cancelled). */
+async function savedCohort(results: readonly EmbryoResult[], folder: string, outDir: string, cancelled: boolean):
+  Promise<{ cohort: CohortSummary | null; cohortError: string | null }> {
+  const sheet = await findSampleSheet(folder);
+  if (sheet === null || cancelled) return { cohort: null, cohortError: null };
+  try {
+    return { cohort: await cohortSummaryFor(results, sheet, null, outDir), cohortError: null };
+  } catch (e) {
+    return { cohort: null, cohortError: (e instanceof Error ? e.message : String(e)).split(/\r?\n/)[0] };
+  }
+}
+
+/** The batch summary saved in `outDir` for the images in `folder`; null when the folder holds no results.json. */
+export async function loadBatchResults(ctx: ShellContext, outArg: unknown, folderArg: unknown): Promise<BatchSummary | null> {
+  const outDir = requireAllowed(ctx.allow, 'results', outArg, 'outDir');
+  const folder = requireAllowed(ctx.allow, 'read', folderArg, 'folder');
+  let text: string;
+  try {
+    text = await fs.readFile(join(outDir, 'results.json'), 'utf8');
+  } catch (e) {
+    if ((e as NodeJS.ErrnoException).code === 'ENOENT') return null;
+    throw new ApiFailure('io', `${labelOf(outDir)}/results.json: cannot be read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+  }
+  let results: EmbryoResult[];
+  try {
+    results = resultsFromJson(text);
+  } catch (e) {
+    throw new ApiFailure('bad-file', `${labelOf(outDir)}/${(e as Error).message.split('\n')[0]}`);
+  }
+  const run = await readRunEnd(outDir);
+  const ok = results.filter((r) => r.status === 'ok').length;
+  return {
+    runId: run.runId, outDir, ok, failed: results.length - ok, cancelled: run.cancelled, results,
+    ...await savedCohort(results, folder, outDir, run.cancelled),
+  };
+}
+
+/** Open a batch report (an .html file in a batch output folder of the project) in the system's default browser. */
+export async function openReport(ctx: ShellContext, pathArg: unknown): Promise<null> {
+  const path = requireAllowed(ctx.allow, 'results', pathArg, 'path');
+  if (!basename(path).toLowerCase().endsWith('.html')) throw new ApiFailure('bad-argument', `${labelOf(path)}: only .html reports can be opened`);
+  const isFile = await fs.stat(path).then((s) => s.isFile(), () => false);
+  if (!isFile) throw new ApiFailure('not-found', `${labelOf(path)}: the report is missing (run the batch again to write it)`);
+  const open = ctx.deps.openPath;
+  if (open === undefined) throw new ApiFailure('internal', `${labelOf(path)}: opening files in the browser is not available here`);
+  const problem = await open(path);
+  if (problem !== '') throw new ApiFailure('io', `${labelOf(path)}: could not be opened (${problem})`);
+  return null;
+}

@@ -1,0 +1,154 @@
+// Known answers: values from test/stats-reference/line_fits_reference.py (numpy matrix algebra and scipy.stats,
+// written independently of this code) unless a check names another source.
+import { describe, expect, it } from 'vitest';
+import { linearRegression } from './regression';
+import { createRng } from './rng';
+import { lackOfFitTest, olsHc3, randomInterceptLine, yorkFit } from './line-fits';
+import { holmAdjust } from './p-values';
+
+// Demo data: four dosage conditions (ln f), three embryos each; boundary positions in x/EL.
+const x = [0.5, 0.5, 0.5, 1, 1, 1, 2, 2, 2, 4, 4, 4].map(Math.log);
+const y = [0.301, 0.322, 0.296, 0.351, 0.360, 0.338, 0.392, 0.421, 0.405, 0.455, 0.470, 0.430];
+const offsets = [0.02, -0.015, 0.01, -0.02];
+const lnF = [0.5, 1, 2, 4].map(Math.log);
+
+function groupMeans(values: readonly number[]): { means: number[]; v: number[] } {
+  const means: number[] = [], v: number[] = [];
+  for (let g = 0; g < 4; g++) {
+    const s = values.slice(3 * g, 3 * g + 3);
+    const m = s.reduce((a, b) => a + b, 0) / 3;
+    means.push(m);
+    v.push(s.reduce((a, b) => a + (b - m) ** 2, 0) / 2 / 3);
+  }
+  return { means, v };
+}
+
+describe('olsHc3', () => {
+  it('matches the HC3 sandwich computed with numpy', () => {
+    // Source: line_fits_reference.py (HC3 of MacKinnon & White 1985).
+    const f = olsHc3(x, y);
+    expect(f.slope).toBeCloseTo(0.07102868584643329, 12);
+    expect(f.intercept).toBeCloseTo(0.3538, 12);
+    expect(f.slopeSe).toBeCloseTo(0.006700259253107667, 12);
+    expect(f.interceptSe).toBeCloseTo(0.004410928673991531, 12);
+    expect(f.pSlope / 9.287706385138979e-07).toBeCloseTo(1, 6);
+    expect(f.dof).toBe(10);
+  });
+});
+
+describe('lackOfFitTest', () => {
+  it('matches the pure-error F test computed with numpy and scipy', () => {
+    // Source: line_fits_reference.py.
+    const t = lackOfFitTest(x, y);
+    expect(t.f).toBeCloseTo(0.1890557939914156, 12);
+    expect(t.p).toBeCloseTo(0.8313337005468316, 9);
+    expect([t.df1, t.df2]).toEqual([2, 8]);
+  });
+  it('holds its size near 5% for straight-line data (2000 seeded data sets)', () => {
+    // Source: under a true straight line the statistic is F(k − 2, n − k) (Draper & Smith; from memory); demo data.
+    const rng = createRng(11);
+    let rejected = 0;
+    const trials = 2000;
+    for (let t = 0; t < trials; t++) {
+      const yy = x.map((v) => 0.35 + 0.07 * v + 0.012 * rng.normal());
+      if (lackOfFitTest(x, yy).p < 0.05) rejected++;
+    }
+    // Binomial SD at 5% over 2000 trials: 0.49 percentage points.
+    expect(rejected / trials).toBeGreaterThan(0.035);
+    expect(rejected / trials).toBeLessThan(0.065);
+  });
+  it('is not computable with two groups or no replicates', () => {
+    expect(lackOfFitTest([0, 0, 1, 1], [1, 2, 3, 4]).p).toBeNaN();
+    expect(lackOfFitTest([0, 1, 2], [1, 2, 4]).p).toBeNaN();
+  });
+});
+
+describe('randomInterceptLine', () => {
+  it('matches the method-of-moments / Knapp–Hartung fit computed with numpy (τ² = 0 case)', () => {
+    // Source: line_fits_reference.py ("re").
+    const { means, v } = groupMeans(y);
+    const f = randomInterceptLine(lnF, means, v);
+    expect(f.tau2).toBe(0);
+    expect(f.q).toBeCloseTo(0.5722388240012793, 10);
+    expect(f.pHeterogeneity).toBeCloseTo(0.7511729115309085, 6);
+    expect(f.slope).toBeCloseTo(0.07136321229093635, 12);
+    expect(f.slopeSe).toBeCloseTo(0.0032445055119216253, 12);
+    expect(f.ciLow).toBeCloseTo(0.057403231792854593, 10);
+    expect(f.ciHigh).toBeCloseTo(0.0853231927890181, 10);
+    expect(f.intercept).toBeCloseTo(0.35317277589345686, 12);
+    expect(f.interceptSe).toBeCloseTo(0.002203327548856204, 12);
+    expect(f.dof).toBe(2);
+  });
+  it('matches it with a shared offset per condition (τ² > 0)', () => {
+    // Source: line_fits_reference.py ("re-offset").
+    const { means, v } = groupMeans(y.map((e, i) => e + offsets[Math.floor(i / 3)]));
+    const f = randomInterceptLine(lnF, means, v);
+    expect(f.tau2).toBeCloseTo(0.0005151856456068528, 14);
+    expect(f.q).toBeCloseTo(18.36597634417407, 9);
+    expect(f.pHeterogeneity / 0.00010277297053170158).toBeCloseTo(1, 5);
+    expect(f.slope).toBeCloseTo(0.05768015769236681, 12);
+    expect(f.slopeSe).toBeCloseTo(0.014719661922299112, 12);
+    expect(f.ciLow).toBeCloseTo(-0.005653435860984504, 10);
+    expect(f.ciHigh).toBeCloseTo(0.12101375124571813, 10);
+    expect(f.interceptSe).toBeCloseTo(0.012135387998045262, 12);
+  });
+  it('condition means cover the true slope ≥ 93% when conditions carry a shared random offset (2000 seeded cohorts)', () => {
+    // Source: project requirement (≥ 93% for nominal 95%); demo data: 5 dosages, 6 embryos each, embryo SD 0.02 EL
+    // differing by condition (×0.5–×2), a shared offset per condition with SD 0.01 EL.
+    const rng = createRng(29);
+    const f5 = [0.25, 0.5, 1, 2, 4].map(Math.log);
+    const sdScale = [0.5, 1, 2, 1, 0.7];
+    let covered = 0, coveredWeighted = 0;
+    const trials = 2000;
+    for (let t = 0; t < trials; t++) {
+      const means: number[] = [], v: number[] = [];
+      f5.forEach((lf, g) => {
+        const offset = 0.01 * rng.normal();
+        const s = Array.from({ length: 6 }, () => 0.35 + 0.06 * lf + offset + 0.02 * sdScale[g] * rng.normal());
+        const m = s.reduce((a, b) => a + b, 0) / 6;
+        means.push(m);
+        v.push(s.reduce((a, b) => a + (b - m) ** 2, 0) / 5 / 6);
+      });
+      // The primary fit: each condition's mean is one observation, t on k − 2 degrees of freedom.
+      const plain = linearRegression(f5, means);
+      if (plain.slopeCi[0] <= 0.06 && 0.06 <= plain.slopeCi[1]) covered++;
+      const f = randomInterceptLine(f5, means, v);
+      if (f.ciLow <= 0.06 && 0.06 <= f.ciHigh) coveredWeighted++;
+    }
+    expect(covered / trials).toBeGreaterThanOrEqual(0.93);
+    // The weighted random-intercept fit leans on SEMs estimated from 6 embryos each and covers less (about 90%
+    // here); the README says so, and the cohort step reports it only beside the plain fit.
+    expect(coveredWeighted / trials).toBeGreaterThan(0.85);
+  });
+});
+
+describe('yorkFit', () => {
+  it("recovers York's test data solution", () => {
+    // Source: York 1966 test data (Pearson's ten points with York's weights). Slope −0.480533407 and intercept
+    // 5.47991022 are the values published for it (from memory: Reed 1989/1992, Cantrell 2008); standard errors
+    // from line_fits_reference.py (York et al. 2004 equations).
+    const xp = [0, 0.9, 1.8, 2.6, 3.3, 4.4, 5.2, 6.1, 6.5, 7.4];
+    const yp = [5.9, 5.4, 4.4, 4.6, 3.5, 3.7, 2.8, 2.8, 2.4, 1.5];
+    const wx = [1000, 1000, 500, 800, 200, 80, 60, 20, 1.8, 1];
+    const wy = [1, 1.8, 4, 8, 20, 20, 70, 70, 100, 500];
+    const f = yorkFit(xp, yp, wx, wy);
+    expect(f.slope).toBeCloseTo(-0.480533407, 8);
+    expect(f.intercept).toBeCloseTo(5.47991022, 7);
+    expect(f.slopeSe).toBeCloseTo(0.05798500900077448, 10);
+    expect(f.interceptSe).toBeCloseTo(0.29497073549310865, 10);
+  });
+  it('reduces to weighted least squares when x is exact', () => {
+    // Source: with σx → 0 York's weights become wy (York 1966); demo data.
+    const f = yorkFit([0, 1, 2, 3], [1, 3.1, 4.9, 7.2], [1e12, 1e12, 1e12, 1e12], [1, 1, 1, 1]);
+    expect(f.slope).toBeCloseTo(2.04, 9);
+    expect(f.intercept).toBeCloseTo(0.99, 9);
+  });
+});
+
+describe('holmAdjust', () => {
+  it('adjusts step-down and keeps the input order', () => {
+    // Source: Holm 1979's rule, by hand — sorted 0.005·4 = 0.02, 0.01·3 = 0.03, 0.03·2 = 0.06, max(0.06, 0.04·1).
+    expect(holmAdjust([0.01, 0.04, 0.03, 0.005]).map((v) => +v.toFixed(12))).toEqual([0.03, 0.06, 0.06, 0.02]);
+    expect(holmAdjust([0.5, Number.NaN, 0.9])).toEqual([1, Number.NaN, 1]);
+  });
+});
