@@ -11,14 +11,46 @@ const layer = (message, names, patterns = []) => ({
   }],
 });
 
+// Directions between core folders (the data flow of DEVELOPERS.md, lower layers first): each folder lists the core folders
+// it may import. A folder missing here is not yet checked; add it when you add the folder.
+const coreMayImport = {
+  model: [],
+  csv: [],
+  settings: ['model'],
+  stats: ['model'],
+  contract: ['model', 'settings'],
+  tiff: ['model'],
+  zarr: ['model'],
+  io: ['model', 'tiff', 'zarr'],
+  image: ['model', 'settings', 'stats'],
+  fit: ['model', 'settings', 'stats'],
+  geometry: ['model', 'settings', 'stats', 'image'],
+  profile: ['model', 'settings', 'stats', 'image', 'geometry', 'fit'],
+  pipeline: ['model', 'settings', 'stats', 'image', 'geometry', 'fit', 'profile'],
+  synth: ['model', 'settings', 'stats', 'image', 'tiff', 'fit', 'timelapse'],
+  batch: ['model', 'settings', 'stats', 'csv', 'contract'],
+  shard: ['model', 'settings', 'stats', 'csv', 'batch'],
+  cohort: ['model', 'settings', 'stats', 'csv'],
+  timelapse: ['model', 'settings', 'stats', 'fit'],
+  figures: ['model', 'settings', 'stats', 'cohort'],
+};
+const coreDirection = (folder) => {
+  const banned = Object.keys(coreMayImport).filter((f) => f !== folder && !coreMayImport[folder].includes(f));
+  return layer(`core/${folder} may import only these core folders: ${coreMayImport[folder].join(', ') || 'none'} (see coreMayImport in eslint.config.js).`,
+    ['electron', 'react', 'react-dom', 'sharp', ...(folder === 'io' ? [] : nodeBuiltins)],
+    ['**/app/**', '**/renderer/**', ...banned.flatMap((f) => [`../${f}`, `../${f}/**`])]);
+};
+
 export default tseslint.config(
   { ignores: ['node_modules/**', 'dist/**', 'release/**', 'coverage/**', 'test/fixtures/generated/**', 'test/artifacts/**'] },
   ...tseslint.configs.recommended,
   {
-    languageOptions: { globals: { ...globals.node, ...globals.browser } },
+    languageOptions: { globals: { ...globals.node } },
     rules: {
       '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
       '@typescript-eslint/consistent-type-imports': 'error',
+      // One spelling in names: "analyse" (analyseStack, analyseCohort), as in the documentation.
+      'id-match': ['error', '^(?![\\s\\S]*[Aa]nalyz)', { properties: true, classFields: true, onlyDeclarations: false }],
     },
   },
   {
@@ -31,6 +63,16 @@ export default tseslint.config(
     files: ['core/io/**/*.ts'],
     rules: layer('core/io may use node built-ins but not electron, react, sharp, app/ or renderer/.',
       ['electron', 'react', 'react-dom', 'sharp'], ['**/app/**', '**/renderer/**']),
+  },
+  ...Object.keys(coreMayImport).map((folder) => ({
+    files: [`core/${folder}/**/*.ts`],
+    // Tests may use lower or higher folders (synthetic embryos, the pipeline) to check a step.
+    ignores: ['core/**/*.test.ts', 'core/**/*.test-helper.ts'],
+    rules: coreDirection(folder),
+  })),
+  {
+    files: ['renderer/**/*.{ts,tsx}', 'test/e2e/**/*.ts'],
+    languageOptions: { globals: { ...globals.browser } },
   },
   {
     files: ['renderer/**/*.{ts,tsx}'],

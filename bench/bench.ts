@@ -10,7 +10,7 @@ import { makeSyntheticEmbryo } from '../core/synth';
 import { writeOmeTiff } from '../core/tiff';
 import { readAhead } from '../core/image';
 import { DEFAULT_SETTINGS } from '../core/settings';
-import { analyzeFile } from '../app/batch/analyze-file';
+import { analyseFile } from '../app/batch/analyse-file';
 import { openStack } from '../app/batch/deps';
 import { runBatch } from '../app/batch/run-batch';
 import { limitDecoderThreads } from '../app/batch/decoder-threads';
@@ -98,7 +98,7 @@ async function decodeOnce(path: string): Promise<number> {
 /** The whole per-file analysis, as a batch worker runs it; milliseconds. */
 async function pipelineOnce(path: string): Promise<number> {
   const t0 = performance.now();
-  const r = await analyzeFile({ index: 0, path, file: path, settings: SETTINGS, handEdits: null });
+  const r = await analyseFile({ index: 0, path, file: path, settings: SETTINGS, handEdits: null });
   if (r.status !== 'ok') process.stderr.write(`bench: ${r.error}\n`);
   return performance.now() - t0;
 }

@@ -1,7 +1,7 @@
 // Adapters to the modules of other areas that the batch uses (decoder, pipeline), kept in one place.
 import type { EmbryoResult, HandEdits, PlaneSource, StackInfo } from '../../core/model';
 import type { AnalysisSettings } from '../../core/settings';
-import { analyzeStack } from '../../core/pipeline';
+import { analyseStack } from '../../core/pipeline';
 import { openStackForAnalysis, type OpenForAnalysisOptions } from '../decode';
 
 export { openFileByteSource as openByteSource } from '../../core/io';
@@ -12,8 +12,8 @@ export function openStack(path: string, label: string, options: OpenForAnalysisO
 }
 
 /** Analyse one opened stack (never throws for bad data: returns status 'error'). */
-export function analyze(
+export function analyse(
   info: StackInfo, source: PlaneSource, settings: AnalysisSettings, opts: { fileLabel: string; handEdits?: HandEdits },
 ): Promise<EmbryoResult> {
-  return analyzeStack(info, source, settings, opts);
+  return analyseStack(info, source, settings, opts);
 }

@@ -2,7 +2,8 @@ import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, realpath
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { parseCsv, resultsFromJson } from '../../core/batch';
+import { resultsFromJson } from '../../core/batch';
+import { parseCsv } from '../../core/csv';
 import { errorResult } from '../../core/model';
 import type { ProjectDoc } from '../../core/contract';
 import type { EmbryoResult } from '../../core/model';
@@ -34,7 +35,7 @@ describe('runBatch (in-process mode)', () => {
     const progress: string[] = [];
     const out = join(root, 'out');
     const summary = await runBatch({
-      folder: input, outDir: out, settings: DEFAULT_SETTINGS, doc, jobs: 0, analyzeInProcess: fake,
+      folder: input, outDir: out, settings: DEFAULT_SETTINGS, doc, jobs: 0, analyseInProcess: fake,
       onProgress: (p) => progress.push(`${p.status}:${p.file ?? ''}:${p.done}/${p.total}`), commandLine: ['batch', input],
     });
     expect(readdirSync(input, { recursive: true }).sort()).toEqual(before);
@@ -58,13 +59,13 @@ describe('runBatch (in-process mode)', () => {
     expect(run.commandLine).toEqual(['batch', input]);
   });
   it('refuses an output folder equal to the input or containing it, and a missing input', async () => {
-    const base = { settings: DEFAULT_SETTINGS, doc: null, jobs: 0, analyzeInProcess: fake };
+    const base = { settings: DEFAULT_SETTINGS, doc: null, jobs: 0, analyseInProcess: fake };
     await expect(runBatch({ ...base, folder: input, outDir: input })).rejects.toThrow(`the output folder must not be the input folder (${input})`);
     await expect(runBatch({ ...base, folder: input, outDir: root })).rejects.toThrow(`the output folder must not contain the input folder (${root})`);
     await expect(runBatch({ ...base, folder: join(root, 'nope'), outDir: join(root, 'o2') })).rejects.toThrow(`input folder not found: ${join(root, 'nope')}`);
   });
   it('refuses an output folder inside the input, also through a symlink', async () => {
-    const base = { settings: DEFAULT_SETTINGS, doc: null, jobs: 0, analyzeInProcess: fake, folder: input };
+    const base = { settings: DEFAULT_SETTINGS, doc: null, jobs: 0, analyseInProcess: fake, folder: input };
     const out = join(input, 'results');
     await expect(runBatch({ ...base, outDir: out })).rejects.toThrow(`the output folder must not be inside the input folder (${out} is in ${input})`);
     const link = join(root, 'link-to-sub');
@@ -82,7 +83,7 @@ describe('runBatch cancel', () => {
     const out = join(root, 'out-cancel');
     const summary = await runBatch({
       folder: input, outDir: out, settings: DEFAULT_SETTINGS, doc: null, jobs: 0, signal: ctrl.signal,
-      analyzeInProcess: async (t) => { if (t.index === 1) ctrl.abort(); return fake(t); },
+      analyseInProcess: async (t) => { if (t.index === 1) ctrl.abort(); return fake(t); },
     });
     expect(summary.cancelled).toBe(true);
     expect(summary.results.map((r) => r.file)).toEqual(['a.ome.tiff', 'b.tif']);
@@ -100,7 +101,7 @@ describe('runBatch journal and --resume', () => {
 
   it('journals every finished file; a resumed run reuses them and gives the same tables as an uninterrupted run', async () => {
     const whole = join(root, 'whole');
-    const full = await runBatch({ ...base, outDir: whole, analyzeInProcess: fake });
+    const full = await runBatch({ ...base, outDir: whole, analyseInProcess: fake });
     expect([full.complete, full.reason, full.reused]).toEqual([true, null, 0]);
     expect(JSON.parse(readFileSync(join(whole, 'run.json'), 'utf8'))).toMatchObject({ complete: true, reason: null, note: null, reused: 0, version: 2 });
     const lines = readFileSync(join(whole, 'journal.jsonl'), 'utf8').trimEnd().split('\n').map((l) => JSON.parse(l));
@@ -109,11 +110,11 @@ describe('runBatch journal and --resume', () => {
 
     const part = join(root, 'part');
     const ctrl = new AbortController();
-    await runBatch({ ...base, outDir: part, signal: ctrl.signal, analyzeInProcess: async (t) => { if (t.index === 1) ctrl.abort(); return fake(t); } });
+    await runBatch({ ...base, outDir: part, signal: ctrl.signal, analyseInProcess: async (t) => { if (t.index === 1) ctrl.abort(); return fake(t); } });
     // A kill while a line was being written leaves half a line: it is skipped.
     writeFileSync(join(part, 'journal.jsonl'), `${readFileSync(join(part, 'journal.jsonl'), 'utf8')}{"type":"file","file":"bad.t`);
     const seen: string[] = [];
-    const resumed = await runBatch({ ...base, outDir: part, resume: true, analyzeInProcess: async (t) => { seen.push(t.file); return fake(t); } });
+    const resumed = await runBatch({ ...base, outDir: part, resume: true, analyseInProcess: async (t) => { seen.push(t.file); return fake(t); } });
     expect(seen).toEqual(['bad.tif', 'sub/c.TIF']);
     expect([resumed.complete, resumed.reused]).toEqual([true, 2]);
     expect(JSON.parse(readFileSync(join(part, 'run.json'), 'utf8'))).toMatchObject({ complete: true, reused: 2 });
@@ -122,24 +123,24 @@ describe('runBatch journal and --resume', () => {
 
   it('analyses again a file whose bytes changed, and every file whose effective settings changed', async () => {
     const out = join(root, 'changed');
-    await runBatch({ ...base, outDir: out, analyzeInProcess: fake });
+    await runBatch({ ...base, outDir: out, analyseInProcess: fake });
     writeFileSync(join(input, 'b.tif'), 'bytes of b.tif, edited');
     const seen: string[] = [];
-    const again = await runBatch({ ...base, outDir: out, resume: true, analyzeInProcess: async (t) => { seen.push(t.file); return fake(t); } });
+    const again = await runBatch({ ...base, outDir: out, resume: true, analyseInProcess: async (t) => { seen.push(t.file); return fake(t); } });
     expect([seen, again.reused]).toEqual([['b.tif'], 3]);
     writeFileSync(join(input, 'b.tif'), 'bytes of b.tif');
     seen.length = 0;
-    await runBatch({ ...base, settings: { ...DEFAULT_SETTINGS, fitRangeEl: [0.1, 0.5] }, outDir: out, resume: true, analyzeInProcess: async (t) => { seen.push(t.file); return fake(t); } });
+    await runBatch({ ...base, settings: { ...DEFAULT_SETTINGS, fitRangeEl: [0.1, 0.5] }, outDir: out, resume: true, analyseInProcess: async (t) => { seen.push(t.file); return fake(t); } });
     // sub/c.TIF keeps its own fit range from the project, so its effective settings did not change.
     expect(seen).toEqual(['a.ome.tiff', 'b.tif', 'bad.tif']);
   });
 
   it('--resume without a journal analyses everything and says so; a new run removes the tables of the last one first', async () => {
     const out = join(root, 'fresh');
-    const r = await runBatch({ ...base, outDir: out, resume: true, analyzeInProcess: fake });
+    const r = await runBatch({ ...base, outDir: out, resume: true, analyseInProcess: fake });
     expect(r.warnings).toContain(`--resume: no journal.jsonl in ${out}, so every file is analysed`);
     let sawRunJson: unknown = null;
-    await runBatch({ ...base, outDir: out, analyzeInProcess: async (t) => {
+    await runBatch({ ...base, outDir: out, analyseInProcess: async (t) => {
       sawRunJson ??= [existsSync(join(out, 'embryos.csv')), JSON.parse(readFileSync(join(out, 'run.json'), 'utf8'))];
       return fake(t);
     } });

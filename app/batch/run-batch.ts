@@ -14,7 +14,7 @@ import type { CohortAnalysis } from '../../core/cohort';
 import type { NamedFigure } from '../../core/figures';
 import type { AnalysisSettings } from '../../core/settings';
 import type { ShardSpec } from '../../core/shard';
-import { analyzeFile } from './analyze-file';
+import { analyseFile } from './analyse-file';
 import { runCohort } from './cohort-adapter';
 import { sha256File } from './hash-file';
 import { openJournal, readJournal, settingsKey } from './journal-file';
@@ -47,7 +47,7 @@ export interface RunBatchOptions {
   /** Built worker script; default: batch-worker.mjs next to the running bundle. */
   readonly workerPath?: string;
   /** In-process analysis function (jobs = 0); default: the real decoder + pipeline. */
-  readonly analyzeInProcess?: (task: BatchTask) => Promise<EmbryoResult>;
+  readonly analyseInProcess?: (task: BatchTask) => Promise<EmbryoResult>;
   /** Recorded in run.json. */
   readonly commandLine?: readonly string[];
   readonly projectFile?: string | null;
@@ -112,7 +112,7 @@ async function checkFolders(folder: string, outDir: string): Promise<void> {
 
 /** Analyse tasks one after another in this thread, with the same per-file time limit (the late work is abandoned). */
 async function runInProcess(
-  tasks: readonly BatchTask[], analyze: (t: BatchTask) => Promise<EmbryoResult>, timeoutMs: number, signal: AbortSignal | undefined,
+  tasks: readonly BatchTask[], analyse: (t: BatchTask) => Promise<EmbryoResult>, timeoutMs: number, signal: AbortSignal | undefined,
   onStart: (t: BatchTask) => void, onResult: (t: BatchTask, r: EmbryoResult) => void,
 ): Promise<(EmbryoResult | undefined)[]> {
   const results: (EmbryoResult | undefined)[] = new Array(tasks.length);
@@ -123,7 +123,7 @@ async function runInProcess(
     const late = new Promise<EmbryoResult>((res) => {
       timer = setTimeout(() => res(errorResult(task.file, `${task.file}: timed out after ${Math.round(timeoutMs / 1000)} s`)), timeoutMs);
     });
-    const result = await Promise.race([analyze(task).catch((e: unknown) => errorResult(task.file, `${task.file}: ${String(e)}`)), late]);
+    const result = await Promise.race([analyse(task).catch((e: unknown) => errorResult(task.file, `${task.file}: ${String(e)}`)), late]);
     clearTimeout(timer);
     results[task.index] = result;
     onResult(task, result);
@@ -240,7 +240,7 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
     throw e;
   };
   try {
-    if (opts.jobs <= 0) await runInProcess(pending, opts.analyzeInProcess ?? analyzeFile, timeoutMs, opts.signal, onStart, onResult);
+    if (opts.jobs <= 0) await runInProcess(pending, opts.analyseInProcess ?? analyseFile, timeoutMs, opts.signal, onStart, onResult);
     else {
       await runPool(pending, {
         jobs: opts.jobs, workerPath, timeoutMs, maxMemoryBytes: opts.maxMemoryBytes, signal: opts.signal, onStart, onResult,

@@ -2,11 +2,12 @@
 // movie, or per time point), summarised (λ(t), τ(x), the model fit) and written as tables, SVG figures and a page.
 import { promises as fs } from 'node:fs';
 import { join } from 'node:path';
-import { embryoRow, EMBRYO_COLUMNS, summaryBoundary, toCsv, type CsvValue } from '../../core/batch';
+import { embryoRow, EMBRYO_COLUMNS, summaryBoundary } from '../../core/batch';
+import { toCsv, type CsvValue } from '../../core/csv';
 import type { ProjectDoc } from '../../core/contract';
 import { accumulationFigure, figureSlug, kymographFigure, lambdaOverTimeFigure } from '../../core/figures';
 import type { EmbryoResult, HandEdits, StackInfo } from '../../core/model';
-import { analyzeMovie } from '../../core/pipeline';
+import { analyseMovie } from '../../core/pipeline';
 import type { AnalysisSettings } from '../../core/settings';
 import { pagesAsTimePoints, resolveTimeAxis } from '../../core/tiff';
 import {
@@ -15,7 +16,7 @@ import {
 } from '../../core/timelapse';
 import { writeFileAtomic } from '../project';
 import { openStack } from './deps';
-import { fileMessage } from './analyze-file';
+import { fileMessage } from './analyse-file';
 import { timelapsePage } from './timelapse-page';
 
 /** Options of the time analysis (flags --time, --axis-per-time, --time-step, --tau-range, --baseline-frames). */
@@ -72,7 +73,7 @@ export async function analyseMovieFile(
     const warnings: string[] = [];
     const axis = resolveTimeAxis(info, options.timeStepS, warnings);
     const fileSettings = doc?.files[file]?.fitRangeEl ? { ...settings, fitRangeEl: doc.files[file].fitRangeEl! } : settings;
-    const m = await analyzeMovie(info, opened.source, fileSettings, {
+    const m = await analyseMovie(info, opened.source, fileSettings, {
       fileLabel: file, handEdits: editsOf(doc, file), timeIndices: picked, axisPerTime: options.axisPerTime,
     });
     const timesS = axis.timesS ? Float64Array.from(picked, (t) => axis.timesS![t]) : null;

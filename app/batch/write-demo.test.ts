@@ -2,7 +2,7 @@ import { mkdtempSync, readFileSync, readdirSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { parseCsv } from '../../core/batch';
+import { parseCsv } from '../../core/csv';
 import { DEMO_MOVIE_FILE, DEMO_MOVIE_PARAMS, demoDataSet } from '../../core/synth';
 import { memoryByteSource, readStackInfo } from '../../core/tiff';
 import { demoMovieFile, demoSubset, writeDemoDataSet } from './write-demo';

@@ -3,7 +3,7 @@
 import { existsSync, promises as fs } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
-import { toCsv } from '../../core/batch';
+import { toCsv } from '../../core/csv';
 import type { FileEdits } from '../../core/contract';
 import type { ImagePoint } from '../../core/model';
 import {

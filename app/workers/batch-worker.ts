@@ -2,7 +2,7 @@
 // process of the batch (the pool's usual mode: a fatal error here ends only this process) or as a worker thread
 // (demo generation, which also uses it to write demo files on every core).
 import { parentPort, workerData } from 'node:worker_threads';
-import { analyzeFileWithDigest } from '../batch/analyze-file';
+import { analyseFileWithDigest } from '../batch/analyse-file';
 import { limitDecoderThreads } from '../batch/decoder-threads';
 import type { BatchTask, DemoRequest, WorkerReply } from '../batch/task';
 import { demoFile } from '../batch/write-demo';
@@ -35,7 +35,7 @@ channel.on((msg) => {
     return;
   }
   const task = msg as BatchTask;
-  void analyzeFileWithDigest(task).then(({ result, input }) => {
+  void analyseFileWithDigest(task).then(({ result, input }) => {
     channel.post({ type: 'result', index: task.index, result, input });
     const m = process.memoryUsage();
     channel.post({ type: 'memory', rssBytes: m.rss, heapUsedBytes: m.heapUsed, externalBytes: m.external + m.arrayBuffers });

@@ -6,8 +6,6 @@ export {
 } from './parse-flags';
 export { settingsFromConfig, parseConfigText } from './parse-config';
 export { mergeSettings } from './merge-settings';
-export { csvCell, csvRow, toCsv, type CsvValue } from './csv-write';
-export { parseCsv, parseCsvRecords, CsvError } from './csv-parse';
 export {
   EMBRYO_COLUMNS, BOUNDARY_COLUMNS, PROFILE_COLUMNS, LANDMARK_COLUMNS,
   embryoRow, embryosCsv, boundariesCsv, profilesCsv, landmarksCsv, summaryBoundary, embryoProfiles,

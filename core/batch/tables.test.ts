@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { EmbryoResult, Profile } from '../model';
-import { parseCsv } from './csv-parse';
+import { parseCsv } from '../csv';
 import { errorResult } from '../model';
 import { resultsFromJson, resultsToJson } from './results-json';
 import { boundariesCsv, embryosCsv, EMBRYO_COLUMNS, landmarksCsv, profilesCsv, summaryBoundary } from './tables';

@@ -1,6 +1,6 @@
 // The tidy CSV tables a batch writes: one row per observation, units in the column names.
 import type { Boundary, EmbryoResult, Profile } from '../model';
-import { toCsv, type CsvValue } from './csv-write';
+import { toCsv, type CsvValue } from '../csv';
 import { clipMessage, warningsCell } from './messages';
 
 /** Columns of embryos.csv, one row per input file. */

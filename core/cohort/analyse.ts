@@ -7,7 +7,7 @@ import { referenceLambda, shiftRows } from './dosage-test';
 import { observationsOf } from './observations';
 import { checkCohortOptions } from './options';
 import { conditionProfile } from './profiles';
-import type { CohortAnalysis, CohortOptions, ConditionProfile, SampleSheet } from './types';
+import type { CohortAnalysis, CohortOptions, ConditionProfile, SampleSheet } from '../model';
 
 /** Analyse a cohort of embryo results with a sample sheet; throws CohortError for bad sheets or options. */
 export function analyseCohort(results: readonly EmbryoResult[], sheet: SampleSheet, options: CohortOptions = {}): CohortAnalysis {

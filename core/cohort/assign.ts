@@ -1,7 +1,7 @@
 // Match embryo results to sample-sheet rows and group them by condition; choose the reference condition.
 import type { EmbryoResult } from '../model';
 import { CohortError } from './cohort-error';
-import type { CohortAssignment, ConditionInfo, SampleRow, SampleSheet } from './types';
+import type { CohortAssignment, ConditionInfo, SampleRow, SampleSheet } from '../model';
 
 /** Normalise a path for matching: forward slashes, no leading "./". */
 function normPath(p: string): string {

@@ -1,6 +1,6 @@
 // Per condition and quantity: n, mean, SD, SEM and 95% t-CI. The SD of a boundary or landmark is its positional error.
 import { describeSample } from './describe';
-import type { ConditionInfo, ConditionStat, Observation } from './types';
+import type { ConditionInfo, ConditionStat, Observation } from '../model';
 
 /** Summaries in condition order, then in order of first appearance of each quantity/unit. */
 export function conditionStats(

@@ -1,15 +1,6 @@
 // Summary of one sample: n, mean, SD, SEM and the t-based confidence interval of the mean.
+import type { SampleSummary } from '../model';
 import { meanOf, sdOf, tQuantileOf } from './stats-local';
-
-/** n, mean, SD (n − 1), SEM and two-sided t CI at `level`; SD/SEM/CI are NaN when n < 2. */
-export interface SampleSummary {
-  readonly n: number;
-  readonly mean: number;
-  readonly sd: number;
-  readonly sem: number;
-  readonly ciLow: number;
-  readonly ciHigh: number;
-}
 
 /** Summarise values (units unchanged). */
 export function describeSample(values: readonly number[], level = 0.95): SampleSummary {

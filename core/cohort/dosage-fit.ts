@@ -6,7 +6,7 @@
 import { lackOfFitTest, linearRegression, olsHc3, randomInterceptLine, tTwoSidedP, yorkFit, type SlopeEstimate } from '../stats';
 import { positionQuantities } from './dosage-test';
 import { meanOf, sdOf } from './stats-local';
-import type { DosageFit, MeasuredDosage, Observation, ReferenceLambda, SlopeSummary } from './types';
+import type { DosageFit, MeasuredDosage, Observation, ReferenceLambda, SlopeSummary } from '../model';
 
 /** Mean, SEM and n of one quantity in one condition. */
 interface ConditionPoint { readonly condition: string; readonly lnF: number; readonly mean: number; readonly sem: number; readonly n: number }

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { analyseCohort } from './analyse';
 import { makeDemoCohort } from './demo-cohort';
 import { ratioWithCi, slopeRatio, twoGradientShiftEl } from './dosage-test';
-import type { DosageFit } from './types';
+import type { DosageFit } from '../model';
 import { parseSampleSheet } from './sample-sheet';
 
 function series(dosages: number[], count: number, seed: number) {

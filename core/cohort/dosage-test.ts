@@ -10,7 +10,7 @@
 import { describeSample } from './describe';
 import { holmAdjust, tTwoSidedP } from '../stats';
 import { tQuantileOf } from './stats-local';
-import type { ConditionInfo, DosageFit, Observation, ReferenceLambda, ShiftRow } from './types';
+import type { ConditionInfo, DosageFit, Observation, ReferenceLambda, ShiftRow } from '../model';
 import { welchDifference } from './welch';
 
 /** λ in x/EL measured on the reference condition (mean, SEM, t-CI); null when it has no fitted λ. */

@@ -1,6 +1,6 @@
 // Conditions from file names: a regex with a named group `condition` (optionally `dosage`) builds sample rows.
 import { CohortError } from './cohort-error';
-import type { FilenameRule, SampleRow, SampleSheet } from './types';
+import type { FilenameRule, SampleRow, SampleSheet } from '../model';
 
 /** Turn file names into sample rows with a rule; files that do not match are returned as warnings. */
 export function sheetFromFilenameRule(

@@ -4,14 +4,15 @@ export type {
   CohortAnalysis, CohortAssignment, CohortOptions, ConditionInfo, ConditionProfile, ConditionStat, DosageFit,
   FilenameRule, MeasuredDosage, Normalisation, SlopeSummary, Observation, QuantityKind, QuantityUnit, ReferenceLambda, ResolvedCohortOptions,
   SampleRow, SampleSheet, ShiftRow,
-} from './types';
+} from '../model';
 export { CohortError } from './cohort-error';
 export { checkCohortOptions } from './options';
 export { parseSampleSheet } from './sample-sheet';
 export { sheetFromFilenameRule } from './filename-rule';
 export { assignConditions } from './assign';
 export { observationsOf, boundaryQuantity, landmarkQuantity, quantityLabel, EGG_LENGTH_QUANTITY } from './observations';
-export { describeSample, type SampleSummary } from './describe';
+export { describeSample } from './describe';
+export type { SampleSummary } from '../model';
 export { conditionStats } from './condition-stats';
 export { welchDifference, type MeanDifference } from './welch';
 export { referenceLambda, shiftRows, ratioWithCi, slopeRatio, twoGradientShiftEl, positionQuantities, type RatioInterval } from './dosage-test';

@@ -1,6 +1,6 @@
 // Per-embryo quantities: λ (µm, EL), amplitude, egg length, each boundary (channel × method) and landmark (EL, µm).
 import type { EmbryoResult } from '../model';
-import type { ConditionInfo, Observation, QuantityKind, QuantityUnit } from './types';
+import type { ConditionInfo, Observation, QuantityKind, QuantityUnit } from '../model';
 
 // Quantity keys (the `quantity` column of the CSV files) are machine-friendly: `lambda`, `amplitude`, `egg_length`,
 // `boundary:<channel>:<method>` and `landmark:<name>`. The method never contains ':', so a channel name may.

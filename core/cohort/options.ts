@@ -1,6 +1,6 @@
 // Option checking for the cohort analysis: exact messages, defaults filled in.
 import { CohortError } from './cohort-error';
-import type { CohortOptions, ResolvedCohortOptions } from './types';
+import type { CohortOptions, ResolvedCohortOptions } from '../model';
 
 const NORMALISATIONS = ['none', 'amplitude', 'minmax'] as const;
 

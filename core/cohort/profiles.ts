@@ -3,7 +3,7 @@
 // Wieschaus & Bialek (2007) "Probing the limits to positional information", Cell 130:153.
 import type { EmbryoResult } from '../model';
 import { meanOf, sdOf } from './stats-local';
-import type { ConditionInfo, ConditionProfile, Normalisation } from './types';
+import type { ConditionInfo, ConditionProfile, Normalisation } from '../model';
 
 /** Grid from 0 to 1 x/EL inclusive with the given step (the last point is exactly 1). */
 export function gridEl(stepEl: number): Float64Array {

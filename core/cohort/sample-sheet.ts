@@ -1,7 +1,7 @@
 // Sample sheet: CSV with columns file, condition, optional dosage (relative to the reference) and free columns.
 import { CohortError } from './cohort-error';
-import { parseCsv } from '../batch';
-import type { SampleRow, SampleSheet } from './types';
+import { parseCsv } from '../csv';
+import type { SampleRow, SampleSheet } from '../model';
 
 /** Parse a sample sheet; `source` (the file name) appears in every error, e.g. `samples.csv line 4: ...`. */
 export function parseSampleSheet(text: string, source: string): SampleSheet {

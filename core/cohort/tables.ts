@@ -1,6 +1,6 @@
 // CSV tables of the cohort step (tidy: one row per observation; units in column names or a unit column).
-import { toCsv, type CsvValue } from '../batch';
-import type { CohortAnalysis, SlopeSummary } from './types';
+import { toCsv, type CsvValue } from '../csv';
+import type { CohortAnalysis, SlopeSummary } from '../model';
 
 /** conditions.csv: one row per condition × quantity × unit. */
 export function conditionsCsv(a: CohortAnalysis): string {

@@ -4,7 +4,7 @@ import type {
   ApAxis, Detection, EmbryoResult, Landmark, ProjectedStack, StackInfo,
 } from '../model';
 import type { AnalysisSettings } from '../settings';
-import type { ConditionStat, DosageFit, ReferenceLambda, ShiftRow } from '../cohort';
+import type { ConditionStat, DosageFit, ReferenceLambda, ShiftRow } from '../model';
 
 /** Error codes the app returns; messages are one line and name the file when there is one. */
 export type ApiErrorCode =

@@ -9,7 +9,7 @@ import { polesFromOutline } from './poles';
 import { chooseAnterior, endMeans } from './orientation';
 
 /** Detection plus the sizes in pixels. When the pixel size is unknown, eggLengthUm/eggWidthUm hold the pixel values
- * (the convention the app uses: lengths in px when uncalibrated); analyzeStack reports them as null then. */
+ * (the convention the app uses: lengths in px when uncalibrated); analyseStack reports them as null then. */
 export interface EmbryoDetection extends Detection {
   readonly eggLengthPx: number;
   readonly eggWidthPx: number;

@@ -1,4 +1,4 @@
-// Shared data types that flow through the pipeline (see ../shared design notes in DEVELOPERS.md).
+// Shared data types that flow through the pipeline (cohort types in ./cohort.ts).
 // Coordinate convention everywhere: x = column, y = row, 0-based, pixel centres at integers.
 // Positions along the AP axis: x/EL in [0, 1], 0 = anterior pole, 1 = posterior pole.
 
@@ -257,3 +257,4 @@ export interface Detection {
 }
 
 export { errorResult, oneLine } from './error-result';
+export type * from './cohort';

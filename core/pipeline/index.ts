@@ -1,11 +1,11 @@
 // Public surface of core/pipeline: the app, the workers and the command line import analysis only from here.
-export { analyzeStack } from './analyze';
-export type { AnalyzeOptions } from './analyze';
+export { analyseStack } from './analyse';
+export type { AnalyseOptions } from './analyse';
 export { projectStack, createProjector } from '../image';
 export type { Projector } from '../image';
 export { detectEmbryo, straightenPlane, projectPointOntoAxis, pointOnAxis, axisLengthPx } from '../geometry';
 export type { AxisPosition, EmbryoDetection } from '../geometry';
 export { prepareSampling, measureEmbryo, sampleBandOutline } from '../profile';
 export type { Measurement, PreparedSampling } from '../profile';
-export { analyzeMovie, projectOverTime, axisSampleTimes } from './movie';
+export { analyseMovie, projectOverTime, axisSampleTimes } from './movie';
 export type { MovieOptions, MovieAnalysis } from './movie';

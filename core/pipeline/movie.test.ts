@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { DEFAULT_SETTINGS } from '../settings';
 import { planSyntheticMovie, syntheticMovieInfo, syntheticMoviePlaneSource } from '../synth';
-import { analyzeMovie, axisSampleTimes } from './movie';
+import { analyseMovie, axisSampleTimes } from './movie';
 
 describe('axisSampleTimes', () => {
   it('spreads the sample over the movie and ends at the last time point', () => {
@@ -10,7 +10,7 @@ describe('axisSampleTimes', () => {
   });
 });
 
-describe('analyzeMovie (demo data: a small synthetic movie)', () => {
+describe('analyseMovie (demo data: a small synthetic movie)', () => {
   const movie = planSyntheticMovie({
     embryo: { widthPx: 200, heightPx: 140, pixelSizeUm: 3, sizeZ: 1 }, degradationPerS: 1 / 600,
     frameIntervalS: 300, frames: 6, framesBeforeOnset: 1,
@@ -18,17 +18,17 @@ describe('analyzeMovie (demo data: a small synthetic movie)', () => {
   const info = syntheticMovieInfo(movie);
 
   it('finds one axis for the movie and labels it automatic at every time point; a hand axis applies to all', async () => {
-    const m = await analyzeMovie(info, syntheticMoviePlaneSource(movie), DEFAULT_SETTINGS, { fileLabel: 'm.ome.tif', timeIndices: [0, 3, 5] });
+    const m = await analyseMovie(info, syntheticMoviePlaneSource(movie), DEFAULT_SETTINGS, { fileLabel: 'm.ome.tif', timeIndices: [0, 3, 5] });
     expect(m.results.map((r) => r.status)).toEqual(['ok', 'ok', 'ok']);
     expect(m.results.every((r) => r.axis!.source === 'auto' && r.axis!.anterior.x === m.movieAxis!.anterior.x)).toBe(true);
     const hand = { anterior: { x: 20, y: 70 }, posterior: { x: 180, y: 70 }, source: 'hand' as const };
-    const h = await analyzeMovie(info, syntheticMoviePlaneSource(movie), DEFAULT_SETTINGS, { fileLabel: 'm.ome.tif', timeIndices: [1, 2], handEdits: { axis: hand, landmarks: [] } });
+    const h = await analyseMovie(info, syntheticMoviePlaneSource(movie), DEFAULT_SETTINGS, { fileLabel: 'm.ome.tif', timeIndices: [1, 2], handEdits: { axis: hand, landmarks: [] } });
     expect(h.movieAxis).toBeNull();
     expect(h.results.map((r) => r.axis!.source)).toEqual(['hand', 'hand']);
   });
 
   it('gives every requested time point an error naming the file when a time point is outside the movie', async () => {
-    const m = await analyzeMovie(info, syntheticMoviePlaneSource(movie), DEFAULT_SETTINGS, { fileLabel: 'm.ome.tif', timeIndices: [2, 9] });
+    const m = await analyseMovie(info, syntheticMoviePlaneSource(movie), DEFAULT_SETTINGS, { fileLabel: 'm.ome.tif', timeIndices: [2, 9] });
     expect(m.results.map((r) => r.status)).toEqual(['error', 'error']);
     expect(m.results[0].error).toMatch(/^m\.ome\.tif: time point 9 is outside the movie \(T = 6\)/);
   });

@@ -4,9 +4,9 @@ import { errorResult, type ApAxis, type EmbryoResult, type HandEdits, type Plane
 import type { AnalysisSettings } from '../settings';
 import { projectStack } from '../image';
 import { detectEmbryo } from '../geometry';
-import { analyzeStack } from './analyze';
+import { analyseStack } from './analyse';
 
-/** Per-movie options of analyzeMovie. */
+/** Per-movie options of analyseMovie. */
 export interface MovieOptions {
   readonly fileLabel: string;
   readonly handEdits?: HandEdits | null;
@@ -57,7 +57,7 @@ export async function projectOverTime(info: StackInfo, source: PlaneSource, sett
  * once on projectOverTime (or per time point with axisPerTime) and each time point is measured along it with its
  * own segmentation and background. Errors become results with status 'error' naming the file and time point.
  */
-export async function analyzeMovie(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, options: MovieOptions): Promise<MovieAnalysis> {
+export async function analyseMovie(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, options: MovieOptions): Promise<MovieAnalysis> {
   const { fileLabel, timeIndices } = options;
   const bad = timeIndices.find((t) => !(Number.isInteger(t) && t >= 0 && t < info.sizeT));
   if (bad !== undefined) {
@@ -78,7 +78,7 @@ export async function analyzeMovie(info: StackInfo, source: PlaneSource, setting
   const results: EmbryoResult[] = [];
   for (const t of timeIndices) {
     const edits: HandEdits | null = movieAxis ? { axis: movieAxis, landmarks: options.handEdits?.landmarks ?? [] } : options.handEdits ?? null;
-    const r = await analyzeStack(info, source, { ...settings, timeIndex: t }, { fileLabel, handEdits: edits });
+    const r = await analyseStack(info, source, { ...settings, timeIndex: t }, { fileLabel, handEdits: edits });
     // The movie's axis goes in as a fixed axis; it was found automatically, so it keeps that label.
     results.push(movieAxis && r.axis ? { ...r, axis: { ...r.axis, source: 'auto' } } : r);
   }

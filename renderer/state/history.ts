@@ -1,14 +1,7 @@
 // Scoped undo history: each entry restores either the project settings or ONE file's hand edits, so undo and
 // redo on the shown file never silently change a file that is not shown. Settings apply to every file (they
 // are visible whichever file is shown), so their entries are reachable from any file.
-import type { FileEdits } from '../../core/contract';
-import type { AnalysisSettings } from '../../core/settings';
-import type { DocState } from './types';
-
-/** One undo/redo step: the value to put back for the settings or for one file's edits (undefined = no edits). */
-export type HistoryEntry =
-  | { readonly kind: 'settings'; readonly settings: AnalysisSettings }
-  | { readonly kind: 'file'; readonly key: string; readonly edits: FileEdits | undefined };
+import type { DocState, HistoryEntry } from './types';
 
 /** Whether an entry may be undone/redone while `current` is shown: settings always, file edits only for that file. */
 export function entryApplies(entry: HistoryEntry, current: string | null): boolean {

@@ -1,7 +1,7 @@
 // Public surface of the editor state: types, the reducer, and selectors.
 export type { EditorState, EditorAction, DocState, ChannelDisplay, DisplayState, ToolName, AxisEnd, ActionOutcome } from './types';
 export { editorReducer, perform, undo, redo, canUndo, canRedo, HISTORY_LIMIT } from './reducer';
-export type { HistoryEntry } from './history';
+export type { HistoryEntry } from './types';
 export { initialState } from './initial';
 export { currentEdits, effectiveAxis, effectiveFitRange, EMPTY_EDITS } from './fileEdits';
 export { nextLandmarkName } from './landmarkActions';

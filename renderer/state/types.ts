@@ -3,7 +3,6 @@ import type { ApAxis, ImagePoint } from '../../core/model';
 import type { AnalysisSettings } from '../../core/settings';
 import type { FileEdits } from '../../core/contract';
 import type { ViewTransform } from '../geometry';
-import type { HistoryEntry } from './history';
 
 /** Pointer tools in the image view. */
 export type ToolName = 'pan' | 'axis' | 'landmark';
@@ -21,6 +20,11 @@ export interface DisplayState {
   readonly active: number;
   readonly channels: readonly ChannelDisplay[];
 }
+
+/** One undo/redo step: the value to put back for the settings or for one file's edits (undefined = no edits). */
+export type HistoryEntry =
+  | { readonly kind: 'settings'; readonly settings: AnalysisSettings }
+  | { readonly kind: 'file'; readonly key: string; readonly edits: FileEdits | undefined };
 
 /** The part of the state that undo/redo restores and the project file stores. */
 export interface DocState {

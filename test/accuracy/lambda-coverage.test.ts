@@ -2,7 +2,7 @@
 // known λ = 100 µm; random position, rotation 0–360°, either AP direction, nuclear texture, z-blur, shot and read
 // noise), analysed with the default settings.
 import { describe, expect, it } from 'vitest';
-import { analyzeStack } from '../../core/pipeline';
+import { analyseStack } from '../../core/pipeline';
 import { DEFAULT_SETTINGS } from '../../core/settings';
 import { makeSyntheticEmbryo, syntheticPlaneSource, syntheticStackInfo } from '../../core/synth';
 
@@ -14,7 +14,7 @@ describe('λ intervals on synthetic embryos (demo data)', () => {
     for (let k = 0; k < EMBRYOS; k++) {
       // Smaller frames than the demo (2 µm/px, 6 slices) keep the suite quick; the embryo is the same 500 × 190 µm.
       const e = makeSyntheticEmbryo({ widthPx: 400, heightPx: 320, pixelSizeUm: 2, sizeZ: 6, dosage: [0.5, 1, 2, 4][k % 4] }, 50_000 + 13 * k);
-      const r = await analyzeStack(syntheticStackInfo(e), syntheticPlaneSource(e), DEFAULT_SETTINGS, { fileLabel: `embryo-${k}` });
+      const r = await analyseStack(syntheticStackInfo(e), syntheticPlaneSource(e), DEFAULT_SETTINGS, { fileLabel: `embryo-${k}` });
       const f = r.gradientFit;
       if (!f) continue;
       fitted++;

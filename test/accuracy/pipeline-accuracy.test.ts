@@ -3,7 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import type { EmbryoResult } from '../../core/model';
 import { DEFAULT_SETTINGS } from '../../core/settings';
-import { analyzeStack } from '../../core/pipeline';
+import { analyseStack } from '../../core/pipeline';
 import { makeSyntheticEmbryo, syntheticPlaneSource, syntheticStackInfo } from '../../core/synth';
 import type { SyntheticTruth } from '../../core/synth';
 import { median } from '../../core/stats';
@@ -18,7 +18,7 @@ async function runCase(k: number): Promise<Case> {
   const seed = 20_000 + 17 * k;
   // Smaller frames than the demo (2 µm/px, 6 slices) keep the suite quick; the embryo is the same 500 × 190 µm.
   const e = makeSyntheticEmbryo({ widthPx: 400, heightPx: 320, pixelSizeUm: 2, sizeZ: 6, dosage: DOSAGES[k % 4] }, seed);
-  const result = await analyzeStack(syntheticStackInfo(e), syntheticPlaneSource(e), settings, { fileLabel: `embryo-${k}` });
+  const result = await analyseStack(syntheticStackInfo(e), syntheticPlaneSource(e), settings, { fileLabel: `embryo-${k}` });
   return { seed, truth: e.truth, pixelSizeUm: e.pixelSizeUm, result };
 }
 

@@ -3,7 +3,8 @@ import { copyFileSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSy
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { BOUNDARY_COLUMNS, EMBRYO_COLUMNS, LANDMARK_COLUMNS, parseCsv, PROFILE_COLUMNS, resultsFromJson } from '../../core/batch';
+import { BOUNDARY_COLUMNS, EMBRYO_COLUMNS, LANDMARK_COLUMNS, PROFILE_COLUMNS, resultsFromJson } from '../../core/batch';
+import { parseCsv } from '../../core/csv';
 import { cli, ensureBuilt, listing, tinyTiff } from './helpers';
 
 // Demo data: 2 synthetic embryos written by `eggline demo --count 2`, plus hand-made bad files.

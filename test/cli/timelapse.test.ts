@@ -3,7 +3,7 @@ import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'nod
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { parseCsv } from '../../core/batch';
+import { parseCsv } from '../../core/csv';
 import { DEMO_MOVIE_PARAMS } from '../../core/synth';
 import { MODEL_FIT_COLUMNS } from '../../core/timelapse';
 import { demoMovieFile } from '../../app/batch/write-demo';

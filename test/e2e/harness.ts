@@ -5,7 +5,7 @@ import { extname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium } from 'playwright-core';
 import type { Browser, Page } from 'playwright-core';
-import { analyzeFile } from '../../app/batch/analyze-file';
+import { analyseFile } from '../../app/batch/analyse-file';
 import type { BatchTask } from '../../app/batch/task';
 import { createDefaultEngine } from '../../app/main/default-engine';
 import { createHandlers } from '../../app/main/handlers';
@@ -89,9 +89,9 @@ export async function startHarness(dataDir: string, demoSubset?: number): Promis
         options.signal?.addEventListener('abort', () => done());
         setTimeout(done, 60_000).unref();
       });
-      const held = async (t: BatchTask) => { if (t.index >= h.afterFiles) await release; return analyzeFile(t); };
-      // analyzeInProcess is the batch's own option for in-process analysis (BatchRunOptions is spread into it).
-      return realEngine.runBatch(Object.assign({}, options, { analyzeInProcess: held }));
+      const held = async (t: BatchTask) => { if (t.index >= h.afterFiles) await release; return analyseFile(t); };
+      // analyseInProcess is the batch's own option for in-process analysis (BatchRunOptions is spread into it).
+      return realEngine.runBatch(Object.assign({}, options, { analyseInProcess: held }));
     },
   };
   const deps: HandlerDeps = {

@@ -3,7 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import { fitExponentialDecay } from '../../core/fit';
 import type { EmbryoResult } from '../../core/model';
-import { analyzeMovie } from '../../core/pipeline';
+import { analyseMovie } from '../../core/pipeline';
 import { DEFAULT_SETTINGS } from '../../core/settings';
 import { planSyntheticMovie, syntheticMovieInfo, syntheticMoviePlaneSource } from '../../core/synth';
 import {
@@ -19,10 +19,10 @@ const movie = planSyntheticMovie({
   degradationPerS: K_PER_S, frameIntervalS: 180, frames: 61, framesBeforeOnset: 1,
 }, 4242);
 
-async function analyseMovie(): Promise<EmbryoResult[]> {
+async function analyseDemoMovie(): Promise<EmbryoResult[]> {
   const info = syntheticMovieInfo(movie);
   // The axis is found once, on the mean over a sample of time points (the embryo does not move).
-  const m = await analyzeMovie(info, syntheticMoviePlaneSource(movie), DEFAULT_SETTINGS, {
+  const m = await analyseMovie(info, syntheticMoviePlaneSource(movie), DEFAULT_SETTINGS, {
     fileLabel: 'movie', timeIndices: Array.from({ length: info.sizeT }, (_, t) => t),
   });
   expect(m.movieAxis).not.toBeNull();
@@ -30,7 +30,7 @@ async function analyseMovie(): Promise<EmbryoResult[]> {
 }
 
 describe('a synthetic movie analysed frame by frame', async () => {
-  const results = await analyseMovie();
+  const results = await analyseDemoMovie();
   const eggLengthUm = results[results.length - 1].eggLengthUm!;
 
   it('recovers λ(t) within 5% once the gradient has formed', () => {

@@ -5,7 +5,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { deflateSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { parseCsv } from '../../core/batch';
+import { parseCsv } from '../../core/csv';
 import { writeV3Store } from '../../scripts/make-zarr-v3-fixtures';
 import { cli, ensureBuilt } from '../cli/helpers';
 import { v3Source, writeReferenceTiff } from './stack-fixture';

@@ -6,7 +6,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openStackForAnalysis, type OpenedStack } from '../../app/decode';
 import type { EmbryoResult } from '../../core/model';
-import { analyzeStack } from '../../core/pipeline';
+import { analyseStack } from '../../core/pipeline';
 import { DEFAULT_SETTINGS } from '../../core/settings';
 import { allPlanes, comparableResult as comparable, pythonZarrMissing, REFERENCE, writePythonStores, writeReferenceTiff } from './stack-fixture';
 
@@ -32,7 +32,7 @@ describe.skipIf(missing !== null)(`OME-Zarr written by Python's zarr${missing ? 
     expect(writePythonStores(path, dir)).toEqual(CASES);
     tiff = await openStackForAnalysis(path, 'reference.ome.tif');
     tiffPlanes = await allPlanes(tiff);
-    tiffResult = await analyzeStack(tiff.info, tiff.source, settings, { fileLabel: 'reference.ome.tif' });
+    tiffResult = await analyseStack(tiff.info, tiff.source, settings, { fileLabel: 'reference.ome.tif' });
     expect(tiffResult.status).toBe('ok');
   }, 60_000);
 
@@ -50,7 +50,7 @@ describe.skipIf(missing !== null)(`OME-Zarr written by Python's zarr${missing ? 
   it.each(CASES)('%s: pixel-identical planes and the same analysis result', async (name) => {
     const zarr = await openStackForAnalysis(join(dir, `${name}.ome.zarr`), `${name}.ome.zarr`);
     expect(await allPlanes(zarr)).toEqual(tiffPlanes);
-    const result = await analyzeStack(zarr.info, zarr.source, settings, { fileLabel: `${name}.ome.zarr` });
+    const result = await analyseStack(zarr.info, zarr.source, settings, { fileLabel: `${name}.ome.zarr` });
     expect(result.pixelSizeSource).toBe('ome-zarr');
     expect(comparable(result)).toEqual(comparable(tiffResult));
     await zarr.source.close();

@@ -6,7 +6,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openStackForAnalysis, openZarrStack, type OpenedStack } from '../../app/decode';
 import type { EmbryoResult } from '../../core/model';
-import { analyzeStack } from '../../core/pipeline';
+import { analyseStack } from '../../core/pipeline';
 import { DEFAULT_SETTINGS } from '../../core/settings';
 import { V3_CASES, writeV3Store } from '../../scripts/make-zarr-v3-fixtures';
 import { allPlanes, comparableResult, REFERENCE, v3Source, writeReferenceTiff } from './stack-fixture';
@@ -25,7 +25,7 @@ describe('OME-Zarr (Zarr v3, NGFF 0.5) written by zarrita', () => {
     for (const name of CASES) await writeV3Store(v3Source(embryo), dir, name);
     const tiff: OpenedStack = await openStackForAnalysis(path, 'reference.ome.tif');
     tiffPlanes = await allPlanes(tiff);
-    tiffResult = await analyzeStack(tiff.info, tiff.source, settings, { fileLabel: 'reference.ome.tif' });
+    tiffResult = await analyseStack(tiff.info, tiff.source, settings, { fileLabel: 'reference.ome.tif' });
     expect(tiffResult.status).toBe('ok');
   }, 60_000);
 
@@ -36,7 +36,7 @@ describe('OME-Zarr (Zarr v3, NGFF 0.5) written by zarrita', () => {
     // Source: NGFF 0.5 — scale [.., z, y, x] with unit "micrometer" gives the voxel size in µm.
     expect(zarr.info.pixelSize).toEqual({ xUm: REFERENCE.pixelSizeUm, yUm: REFERENCE.pixelSizeUm, zUm: REFERENCE.zStepUm, source: 'ome-zarr' });
     expect(await allPlanes(zarr)).toEqual(tiffPlanes);
-    const result = await analyzeStack(zarr.info, zarr.source, settings, { fileLabel: `${name}.ome.zarr` });
+    const result = await analyseStack(zarr.info, zarr.source, settings, { fileLabel: `${name}.ome.zarr` });
     expect(comparableResult(result)).toEqual(comparableResult(tiffResult));
     expect(zarr.warnings).toEqual([]);
     await zarr.source.close();

@@ -1,9 +1,9 @@
 // Micro-benchmark of the live update on a 1024×1024 demo embryo: what one axis-handle move costs
-// (core measureEmbryo on the prepared pixels + the straightened strip). Run: npx tsx renderer/bench/liveUpdate.bench.ts
-import { measureEmbryo } from '../../core/pipeline';
-import { DEFAULT_SETTINGS } from '../../core/settings';
-import { measureLive, prepareLive } from '../live';
-import { SMALL_EMBRYO, syntheticStack } from '../live/syntheticStack';
+// (core measureEmbryo on the prepared pixels + the straightened strip). Run: npx tsx bench/live-update.bench.ts
+import { measureEmbryo } from '../core/pipeline';
+import { DEFAULT_SETTINGS } from '../core/settings';
+import { measureLive, prepareLive } from '../renderer/live';
+import { SMALL_EMBRYO, syntheticStack } from '../renderer/live/syntheticStack';
 
 const stack = syntheticStack({ ...SMALL_EMBRYO, widthPx: 1024, heightPx: 1024, pixelSizeUm: 0.6, semiMajorPx: 440, semiMinorPx: 170, seed: 5 });
 const settings = { ...DEFAULT_SETTINGS, boundaryChannels: [2] };

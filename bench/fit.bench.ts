@@ -1,14 +1,14 @@
 // Micro-benchmark of the fits used in live re-measurement: findBoundaries ('logistic', 'half-max') and
 // fitExponentialDecay on the profiles of a 1024×1024 synthetic embryo (demo data), plus clean and noisy logistic
-// steps of 100 bins. Run: npx tsx core/fit/fit.bench.ts   (prints milliseconds per call; no assertions)
-import { DEFAULT_SETTINGS } from '../settings';
-import type { Profile } from '../model';
-import { makeSyntheticEmbryo, syntheticPlaneSource, syntheticStackInfo } from '../synth';
-import { projectStack } from '../image';
-import { detectEmbryo } from '../geometry';
-import { filledBins, measureEmbryo, prepareSampling } from '../profile';
-import { createRng } from '../stats';
-import { findBoundaries, fitExponentialDecay, fitLogisticBoundary } from './index';
+// steps of 100 bins. Run: npx tsx bench/fit.bench.ts   (prints milliseconds per call; no assertions)
+import { DEFAULT_SETTINGS } from '../core/settings';
+import type { Profile } from '../core/model';
+import { makeSyntheticEmbryo, syntheticPlaneSource, syntheticStackInfo } from '../core/synth';
+import { projectStack } from '../core/image';
+import { detectEmbryo } from '../core/geometry';
+import { filledBins, measureEmbryo, prepareSampling } from '../core/profile';
+import { createRng } from '../core/stats';
+import { findBoundaries, fitExponentialDecay, fitLogisticBoundary } from '../core/fit';
 
 /**
  * Milliseconds per call of `f` after a warm-up: the median wall time of single calls, and the mean CPU time of

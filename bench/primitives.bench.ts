@@ -1,17 +1,17 @@
 // Micro-benchmark of the core image primitives on a demo-data plane (1024×1024 and binned to 342×342).
-// Run: npx tsx core/image/primitives.bench.ts   (prints warm median ms per call and ns/px, wall and CPU; no assertions)
-import type { Mask, Plane } from '../model';
-import { makeSyntheticEmbryo, warmTiming } from '../synth';
-import { toFloatPlane } from './plane-convert';
-import { fastGaussianSmooth } from './box-blur';
-import { maxFilter } from './max-filter';
-import { dilate, erode, open, squareDilate, squareErode } from './morphology';
-import { fillHoles } from './fill-holes';
-import { largestComponent } from './components';
-import { estimateBackgroundLevel } from './background-level';
-import { distanceInside, distanceOutside } from './distance';
-import { otsuThreshold } from './threshold';
-import { binMean, segmentEmbryo } from './segment';
+// Run: npx tsx bench/primitives.bench.ts   (prints warm median ms per call and ns/px, wall and CPU; no assertions)
+import type { Mask, Plane } from '../core/model';
+import { makeSyntheticEmbryo, warmTiming } from '../core/synth';
+import { toFloatPlane } from '../core/image/plane-convert';
+import { fastGaussianSmooth } from '../core/image/box-blur';
+import { maxFilter } from '../core/image/max-filter';
+import { dilate, erode, open, squareDilate, squareErode } from '../core/image/morphology';
+import { fillHoles } from '../core/image/fill-holes';
+import { largestComponent } from '../core/image/components';
+import { estimateBackgroundLevel } from '../core/image/background-level';
+import { distanceInside, distanceOutside } from '../core/image/distance';
+import { otsuThreshold } from '../core/image/threshold';
+import { binMean, segmentEmbryo } from '../core/image/segment';
 
 const time = warmTiming;
 

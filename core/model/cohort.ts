@@ -1,6 +1,16 @@
-// Data types of the cohort step. Positions along the AP axis are x/EL (0 = anterior pole, 1 = posterior pole).
-import type { EmbryoResult } from '../model';
-import type { SampleSummary } from './describe';
+// Data types of the cohort step (shared by core/cohort, the API contract and the window).
+// Positions along the AP axis are x/EL (0 = anterior pole, 1 = posterior pole).
+import type { EmbryoResult } from './index';
+
+/** n, mean, SD (n − 1), SEM and two-sided t CI at `level`; SD/SEM/CI are NaN when n < 2. */
+export interface SampleSummary {
+  readonly n: number;
+  readonly mean: number;
+  readonly sd: number;
+  readonly sem: number;
+  readonly ciLow: number;
+  readonly ciHigh: number;
+}
 
 /** How gradient profiles are scaled before averaging: none, divided by the fitted amplitude A, or to [0, 1]. */
 export type Normalisation = 'none' | 'amplitude' | 'minmax';

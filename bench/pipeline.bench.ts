@@ -1,11 +1,11 @@
 // Benchmark of one embryo through the pipeline: a 1024×1024×24z×2ch synthetic stack (demo data) built in memory,
 // then projection, detection, sampling preparation and measurement timed separately.
-// Run: npx tsx core/pipeline/pipeline.bench.ts   (prints milliseconds; no assertions)
-import { DEFAULT_SETTINGS } from '../settings';
-import { makeSyntheticEmbryo, syntheticPlaneSource, syntheticStackInfo, DEFAULT_SYNTH_PARAMS } from '../synth';
-import { projectStack } from '../image';
-import { detectEmbryo } from '../geometry';
-import { measureEmbryo, prepareSampling } from '../profile';
+// Run: npx tsx bench/pipeline.bench.ts   (prints milliseconds; no assertions)
+import { DEFAULT_SETTINGS } from '../core/settings';
+import { makeSyntheticEmbryo, syntheticPlaneSource, syntheticStackInfo, DEFAULT_SYNTH_PARAMS } from '../core/synth';
+import { projectStack } from '../core/image';
+import { detectEmbryo } from '../core/geometry';
+import { measureEmbryo, prepareSampling } from '../core/profile';
 
 let cpu = process.cpuUsage();
 /** Wall and CPU milliseconds since t (CPU of this process since the previous call): the machine may be shared. */

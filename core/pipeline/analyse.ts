@@ -5,8 +5,8 @@ import { projectStack } from '../image';
 import { detectEmbryo } from '../geometry';
 import { measureEmbryo, prepareSampling } from '../profile';
 
-/** Per-file options of analyzeStack. */
-export interface AnalyzeOptions {
+/** Per-file options of analyseStack. */
+export interface AnalyseOptions {
   /** File name or path relative to the input folder; starts every error message. */
   readonly fileLabel: string;
   /** Hand axis and landmarks from the project; the hand axis replaces the automatic one. */
@@ -25,7 +25,7 @@ function checkInfo(info: StackInfo): string | null {
  * unknown (lengths in px, µm values null, with a warning). Bad data gives status 'error' with a one-line message
  * naming the file; this function does not throw for bad data.
  */
-export async function analyzeStack(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, options: AnalyzeOptions): Promise<EmbryoResult> {
+export async function analyseStack(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, options: AnalyseOptions): Promise<EmbryoResult> {
   const file = options.fileLabel;
   const bad = checkInfo(info);
   if (bad) return errorResult(file, bad);

@@ -3,7 +3,7 @@ import { basename } from 'node:path';
 import { errorResult, oneLine, type EmbryoResult, type StackInfo } from '../../core/model';
 import { analysisBytesEstimate, WORKER_BASE_BYTES } from '../../core/tiff';
 import { formatByteSize as formatBytes } from '../../core/batch';
-import { analyze, openStack } from './deps';
+import { analyse, openStack } from './deps';
 import { hashingByteSource, type HashingByteSource } from './hashing-source';
 import type { BatchTask, InputDigest } from './task';
 
@@ -26,30 +26,30 @@ export function memoryRefusal(info: StackInfo, maxBytes: number): string | null 
 }
 
 /** Analyse the task's file; never rejects. The result's `file` is the task's relative path. */
-export async function analyzeFile(task: BatchTask): Promise<EmbryoResult> {
-  return (await analyzeFileWithDigest(task, false)).result;
+export async function analyseFile(task: BatchTask): Promise<EmbryoResult> {
+  return (await analyseFileWithDigest(task, false)).result;
 }
 
 /**
  * Analyse the task's file and, when `digest` is set, hash the bytes the decoder reads on the way (SHA-256 for
  * run.json and the journal), so the file is read once; `input` is null when the file could not be opened.
  */
-export async function analyzeFileWithDigest(task: BatchTask, digest = true): Promise<{ result: EmbryoResult; input: InputDigest | null }> {
+export async function analyseFileWithDigest(task: BatchTask, digest = true): Promise<{ result: EmbryoResult; input: InputDigest | null }> {
   let hashing: HashingByteSource | null = null;
   const wrapSource = digest ? (s: Parameters<typeof hashingByteSource>[0]) => (hashing = hashingByteSource(s)) : undefined;
-  const result = await analyzeOpened(task, wrapSource);
+  const result = await analyseOpened(task, wrapSource);
   const h = hashing as HashingByteSource | null;
   const input = h ? await h.finish().then(({ sha256, bytes }) => ({ sha256, bytes }), () => null) : null;
   return { result, input };
 }
 
-async function analyzeOpened(task: BatchTask, wrapSource: ((s: Parameters<typeof hashingByteSource>[0]) => HashingByteSource) | undefined): Promise<EmbryoResult> {
+async function analyseOpened(task: BatchTask, wrapSource: ((s: Parameters<typeof hashingByteSource>[0]) => HashingByteSource) | undefined): Promise<EmbryoResult> {
   let opened: Awaited<ReturnType<typeof openStack>> | null = null;
   try {
     opened = await openStack(task.path, task.file, wrapSource ? { wrapSource } : {});
     const refusal = task.maxMemoryBytes === undefined ? null : memoryRefusal(opened.info, task.maxMemoryBytes);
     if (refusal !== null) return errorResult(task.file, `${task.file}: ${refusal}`, opened.info.warnings);
-    const result = await analyze(opened.info, opened.source, task.settings,
+    const result = await analyse(opened.info, opened.source, task.settings,
       task.handEdits ? { fileLabel: task.file, handEdits: task.handEdits } : { fileLabel: task.file });
     const warnings = [...result.warnings, ...opened.warnings.filter((w) => !result.warnings.includes(w))];
     const error = result.status === 'error' && result.error ? fileMessage(task.file, result.error) : result.error;

@@ -1,13 +1,13 @@
 // Micro-benchmark of sampling preparation and its parts on one 1024×1024×24z×2ch demo-data embryo (built in memory,
 // projected and detected once), plus the detection steps that share its primitives.
-// Run: npx tsx core/profile/prepare.bench.ts   (prints warm median ms per call, wall and CPU; no assertions)
-import { DEFAULT_SETTINGS } from '../settings';
-import { makeSyntheticEmbryo, syntheticPlaneSource, syntheticStackInfo, warmTiming } from '../synth';
-import { distanceInside, estimateBackgroundLevel, medianInPlace, projectStack, squareDilate } from '../image';
-import { detectEmbryo, endMeans, principalAxis } from '../geometry';
-import { estimateBackgrounds } from './background';
-import { farFromMask, outsideBackgroundFar } from './background';
-import { prepareSampling } from './prepare';
+// Run: npx tsx bench/prepare.bench.ts   (prints warm median ms per call, wall and CPU; no assertions)
+import { DEFAULT_SETTINGS } from '../core/settings';
+import { makeSyntheticEmbryo, syntheticPlaneSource, syntheticStackInfo, warmTiming } from '../core/synth';
+import { distanceInside, estimateBackgroundLevel, medianInPlace, projectStack, squareDilate } from '../core/image';
+import { detectEmbryo, endMeans, principalAxis } from '../core/geometry';
+import { estimateBackgrounds } from '../core/profile/background';
+import { farFromMask, outsideBackgroundFar } from '../core/profile/background';
+import { prepareSampling } from '../core/profile/prepare';
 
 /** Warm median wall and CPU ms of one call (a longer budget than the default: these calls are slower). */
 const time = (run: () => unknown): { wallMs: number; cpuMs: number } => warmTiming(run, 600);

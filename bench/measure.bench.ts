@@ -1,13 +1,13 @@
 // Micro-benchmark of live re-measurement: measureEmbryo on a 1024×1024 synthetic embryo (demo data).
-// Run: npx tsx core/profile/measure.bench.ts   (prints milliseconds; no assertions)
-import { DEFAULT_SETTINGS } from '../settings';
-import type { AnalysisSettings } from '../settings';
-import { makeSyntheticEmbryo, syntheticPlaneSource, syntheticStackInfo } from '../synth';
-import { projectStack } from '../image';
-import { detectEmbryo } from '../geometry';
-import { prepareSampling } from './prepare';
-import { measureEmbryo, sideFilter } from './measure';
-import { binIndices, binProfile } from './bin';
+// Run: npx tsx bench/measure.bench.ts   (prints milliseconds; no assertions)
+import { DEFAULT_SETTINGS } from '../core/settings';
+import type { AnalysisSettings } from '../core/settings';
+import { makeSyntheticEmbryo, syntheticPlaneSource, syntheticStackInfo } from '../core/synth';
+import { projectStack } from '../core/image';
+import { detectEmbryo } from '../core/geometry';
+import { prepareSampling } from '../core/profile/prepare';
+import { measureEmbryo, sideFilter } from '../core/profile/measure';
+import { binIndices, binProfile } from '../core/profile/bin';
 
 const embryo = makeSyntheticEmbryo({ widthPx: 1024, heightPx: 1024, pixelSizeUm: 0.6, sizeZ: 2, angleDeg: 33 }, 1);
 const base = { ...DEFAULT_SETTINGS, boundaryChannels: [2] };
