@@ -94,12 +94,13 @@ step failed; 2 usage error or merge refused.
 `;
 
 /** Help for the inspect command. */
-export const INSPECT_HELP = `Usage: eggline inspect <file>
+export const INSPECT_HELP = `Usage: eggline inspect <file> [--json]
 
 Prints what the file's tags say: format, dimensions, channels, pixel size and where it came from,
 sample type, compression and which IFD holds each plane. Pixels are not decoded.
 For an OME-Zarr folder: the NGFF and Zarr versions, axes with their units, channels, pixel size, z and
 time steps, sample type, chunk shape and codecs of the full-resolution array.
+  --json    the same facts as one JSON object (keys listed in the README)
 `;
 
 /** Help for the demo command. */

@@ -1,9 +1,9 @@
 // The one contract between the renderer and the app (main process). Everything crossing it is plain data
 // (objects, arrays, typed arrays); errors come back as values, never as thrown exceptions.
 import type {
-  ApAxis, Detection, EmbryoResult, Landmark, ProjectedStack, StackInfo,
+  Detection, EmbryoResult, ProjectedStack, StackInfo,
 } from '../model';
-import type { AnalysisSettings, FileEdits, ProjectDoc } from '../settings';
+import type { AnalysisSettings, ProjectDoc } from '../settings';
 
 export type { FileEdits, ProjectDoc } from '../settings';
 import type { ConditionStat, DosageFit, ReferenceLambda, ShiftRow } from '../model';
@@ -131,7 +131,7 @@ export interface EgglineApi {
   /** Save the project atomically at its path. */
   saveProject(projectPath: string, doc: ProjectDoc): Promise<ApiResult<{ savedAt: string }>>;
   /** Native dialog: open a project file. */
-  openProject(): Promise<ApiResult<{ project: ProjectDoc; projectPath: string; entries: FolderEntry[] } | null>>;
+  openProject(): Promise<ApiResult<{ project: ProjectDoc; projectPath: string; entries: FolderEntry[]; warning?: string | null } | null>>;
   /** Start a batch over a folder with the given settings and hand edits; progress arrives via onBatchProgress. */
   runBatch(folder: string, outDir: string, doc: ProjectDoc): Promise<ApiResult<BatchSummary>>;
   cancelBatch(runId: string): Promise<ApiResult<null>>;
@@ -162,6 +162,8 @@ export interface OpenedFolder {
   readonly entries: FolderEntry[];
   readonly project: ProjectDoc;
   readonly projectPath: string;
+  /** Shown to the user when set: e.g. the project file was unreadable and its backup was opened instead. */
+  readonly warning?: string | null;
 }
 
 /** What reopening a recent path gives: a folder with its project, or loose stack files. */

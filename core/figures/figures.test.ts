@@ -26,6 +26,33 @@ describe('escapeXml', () => {
 
 describe('profileFigure', () => {
   const e = demo.results[6];
+  it('keeps the legend and every label off the data: legend, then label rows, then the plot; no two labels overlap', () => {
+    // Demo data: two boundary channels and three landmarks crowded near one place, so labels must stack.
+    const b0 = e.boundaries[0];
+    const boundaries = [b0, { ...b0, channel: 'second', positionEl: (b0.positionEl as number) + 0.01 }];
+    const landmarks = ['furrow', 'fold', 'notch'].map((name, i) => ({ ...e.landmarks[0], name, xEl: (b0.positionEl as number) + 0.005 * i }));
+    const svg = profileFigure({ profile: e.gradientProfile!, fit: e.gradientFit, boundaries, landmarks }, { showResiduals: true, heightPx: 520 });
+    checkSvg(svg);
+    const plotTop = Number(/<clipPath id="[^"]+"><rect x="[^"]+" y="([^"]+)"/.exec(svg)?.[1]);
+    const legend = /class="legend legend-rows" data-top="([^"]+)" data-height="([^"]+)"/.exec(svg);
+    const legendBottom = Number(legend?.[1]) + Number(legend?.[2]);
+    const labels = [...svg.matchAll(/<text class="(boundary|landmark)-label" x="([^"]+)" y="([^"]+)"[^>]*>([^<]+)</g)]
+      .map((m) => ({ x: Number(m[2]), y: Number(m[3]), w: m[4].length * 5.9 }));
+    expect(labels).toHaveLength(5);
+    for (const l of labels) {
+      // Font size 10: the glyphs reach about 8 px above the baseline and 3 px below it (from memory).
+      expect(l.y - 8).toBeGreaterThanOrEqual(legendBottom);
+      expect(l.y + 3).toBeLessThanOrEqual(plotTop);
+    }
+    for (let i = 0; i < labels.length; i++) for (let j = i + 1; j < labels.length; j++) {
+      const [p, q] = [labels[i], labels[j]];
+      const apart = p.y !== q.y || p.x + p.w <= q.x || q.x + q.w <= p.x;
+      expect(apart).toBe(true);
+    }
+    // The two boundary channels keep the window's colours (by their order).
+    expect(svg).toContain('stroke="#CC79A7"');
+    expect(svg).toContain('stroke="#009E73"');
+  });
   it('draws one point per bin, the fit over its range, boundaries and landmarks, labelled axes', () => {
     const svg = profileFigure({ profile: e.gradientProfile!, fit: e.gradientFit, boundaries: e.boundaries, landmarks: e.landmarks });
     checkSvg(svg);
@@ -33,7 +60,7 @@ describe('profileFigure', () => {
     expect(count(svg, /class="fit-curve"/g)).toBe(1);
     expect(count(svg, /class="fit-range"/g)).toBe(1);
     expect(count(svg, /class="boundary"/g)).toBe(1); // two methods at nearly the same place share a label
-    expect(svg).toMatch(/target (logistic|half-max) \/ target (logistic|half-max)/);
+    expect(svg).toMatch(/target (logistic|half-max) \/ (logistic|half-max)/);
     expect(count(svg, /class="landmark"/g)).toBe(1);
     expect(svg).toContain('x/EL (0 = anterior pole)');
     expect(svg).toContain('furrow');

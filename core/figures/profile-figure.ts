@@ -1,13 +1,15 @@
 // One embryo's profile: bin means with an SD band, the fitted exponential over its fit range (extrapolated
 // dashed), the fit range shaded, boundaries as vertical lines, landmarks as markers, optional residual panel.
+// Nothing is written over the data: the legend and the boundary and landmark labels sit in rows above the plot,
+// labels that would overlap go to the next row, and the marks are clipped to the plot area.
 import { scaleLinear, type ScaleLinear } from 'd3-scale';
 import { area, line } from 'd3-shape';
 import type { Boundary, ExponentialFit, LandmarkPosition, Profile } from '../model';
 import { clipSvg, plotArea, titleSvg, xAxisSvg, yAxisSvg, type PlotArea } from './axes';
 import { figureSize, finiteExtent, stableId, type FigureOptions } from './common';
-import { legendSvg, type LegendItem } from './legend';
+import { labelRows, legendRowsSvg, type LegendItem } from './legend';
 import { ciDecimals, fixed } from './number-format';
-import { INK, seriesColour } from './palette';
+import { boundaryColour, INK, PROFILE_COLOURS } from './palette';
 import { el, lineSvg, px, svgDocument, textSvg } from './svg';
 
 /** What profileFigure draws; positions come from the model types (x/EL and µm). */
@@ -16,6 +18,8 @@ export interface ProfileFigureInput {
   readonly fit?: ExponentialFit | null;
   readonly boundaries?: readonly Boundary[];
   readonly landmarks?: readonly LandmarkPosition[];
+  /** Boundary channels in the order that gives their colours (as in the window); default: order of appearance. */
+  readonly boundaryChannels?: readonly string[];
 }
 
 /** Options: x axis in x/EL (default) or µm from the anterior pole; residual panel below when a fit is given. */
@@ -29,8 +33,16 @@ type Scale = ScaleLinear<number, number>;
 /** Scales of the main panel; `toX` maps x/EL to the x axis unit (x/EL or µm). */
 interface Ctx { readonly x: Scale; readonly y: Scale; readonly a: PlotArea; readonly toX: (xEl: number) => number }
 
-const FIT_COLOUR = seriesColour(1);
-const DATA_COLOUR = seriesColour(0);
+const FIT_COLOUR = PROFILE_COLOURS.fit;
+const DATA_COLOUR = PROFILE_COLOURS.data;
+/** Height of one row of labels above the plot, px; the labels' font size. */
+const LABEL_ROW_PX = 14;
+const LABEL_SIZE = 10;
+/** Estimated width of a label at LABEL_SIZE, px per character. */
+const LABEL_CHAR_PX = 5.9;
+
+/** A label above the plot at a position along x, with its mark. */
+interface TopLabel { readonly xp: number; readonly text: string; readonly colour: string; readonly cls: string }
 
 function fitMarks(fit: ExponentialFit, c: Ctx): { shade: string; curves: string } {
   const [r0, r1] = fit.fitRangeEl;
@@ -45,36 +57,55 @@ function fitMarks(fit: ExponentialFit, c: Ctx): { shade: string; curves: string 
   };
 }
 
-function boundaryMarks(boundaries: readonly Boundary[], c: Ctx): string {
-  const colour = seriesColour(2);
+/** Boundary groups (two methods at nearly the same place share one label): dashed rules in the plot, one label each. */
+function boundaryMarks(boundaries: readonly Boundary[], channels: readonly string[], c: Ctx): { rules: string; labels: TopLabel[] } {
   const found = boundaries.filter((b) => b.positionEl !== null && Number.isFinite(b.positionEl))
     .sort((p, q) => (p.positionEl as number) - (q.positionEl as number));
-  // Boundaries found at nearly the same place (e.g. two methods) share one label, written up along the line.
   const groups: Boundary[][] = [];
   for (const b of found) {
     const last = groups[groups.length - 1];
-    if (last && (b.positionEl as number) - (last[0].positionEl as number) < 0.015) last.push(b);
+    if (last && last[0].channel === b.channel && (b.positionEl as number) - (last[0].positionEl as number) < 0.015) last.push(b);
     else groups.push([b]);
   }
-  return groups.map((g) => {
-    const rules = g.map((b, i) => {
+  const rules: string[] = [];
+  const labels = groups.map((g) => {
+    const colour = boundaryColour(g[0].channel, channels);
+    g.forEach((b, i) => {
       const xp = c.x(c.toX(b.positionEl as number));
-      return lineSvg(xp, c.a.top, xp, c.a.top + c.a.height, { stroke: colour, 'stroke-width': 1.5, 'stroke-dasharray': i % 2 ? '2 3' : '6 3' });
+      rules.push(lineSvg(xp, c.a.top, xp, c.a.top + c.a.height, { stroke: colour, 'stroke-width': 1.5, 'stroke-dasharray': i % 2 ? '2 3' : '6 3' }));
     });
-    const xp = c.x(c.toX(g[0].positionEl as number));
-    const label = g.map((b) => `${b.channel} ${b.method}`).join(' / ');
-    return el('g', { class: 'boundary' }, rules.join('') + textSvg(xp - 5, c.a.top + c.a.height * 0.55, label, { anchor: 'middle', size: 10, fill: colour, rotate: -90 }));
-  }).join('');
+    return { xp: c.x(c.toX(g[0].positionEl as number)), text: `${g[0].channel} ${g.map((b) => b.method).join(' / ')}`, colour, cls: 'boundary-label' };
+  });
+  return { rules: el('g', { class: 'boundary' }, rules.join('') || ' '), labels };
 }
 
-function landmarkMarks(landmarks: readonly LandmarkPosition[], c: Ctx): string {
-  const colour = seriesColour(3);
-  const yb = c.a.top + c.a.height;
-  return landmarks.filter((l) => Number.isFinite(l.xEl)).map((l) => {
+/** Landmarks: a small marker on the top edge of the plot pointing at the position, the name above the plot. */
+function landmarkMarks(landmarks: readonly LandmarkPosition[], c: Ctx): { marks: string; labels: TopLabel[] } {
+  const shown = landmarks.filter((l) => Number.isFinite(l.xEl) && l.xEl >= 0 && l.xEl <= 1);
+  const yt = c.a.top;
+  const marks = shown.map((l) => {
     const xp = c.x(c.toX(l.xEl));
-    const marker = el('path', { d: `M${px(xp)},${px(yb - 12)}L${px(xp - 6)},${px(yb)}L${px(xp + 6)},${px(yb)}Z`, fill: colour });
-    return el('g', { class: 'landmark' }, marker + textSvg(xp, yb - 16, l.name, { anchor: 'middle', size: 10, fill: colour }));
+    return el('g', { class: 'landmark' }, el('path', { d: `M${px(xp - 5)},${px(yt)}L${px(xp + 5)},${px(yt)}L${px(xp)},${px(yt + 8)}Z`, fill: INK.axis })
+      + lineSvg(xp, yt + 8, xp, yt + c.a.height, { stroke: INK.muted, 'stroke-dasharray': '1 3' }));
   }).join('');
+  return { marks, labels: shown.map((l) => ({ xp: c.x(c.toX(l.xEl)), text: l.name, colour: INK.axis, cls: 'landmark-label' })) };
+}
+
+/** Labels in rows ending `bottom` px (the lowest row just above the plot), kept between `left` and `right`. */
+function topLabelsSvg(labels: readonly TopLabel[], left: number, right: number, bottom: number): string {
+  const boxes = labels.map((l) => {
+    const width = l.text.length * LABEL_CHAR_PX;
+    return { x: Math.max(left, Math.min(l.xp - width / 2, right - width)), width };
+  });
+  const rows = labelRows(boxes);
+  return labels.map((l, i) => textSvg(boxes[i].x, bottom - 4 - rows[i] * LABEL_ROW_PX, l.text, { size: LABEL_SIZE, fill: l.colour, cls: l.cls })).join('');
+}
+
+/** How many label rows the labels need (0 without labels). */
+function labelRowCount(labels: readonly TopLabel[], left: number, right: number): number {
+  if (labels.length === 0) return 0;
+  const boxes = labels.map((l) => { const width = l.text.length * LABEL_CHAR_PX; return { x: Math.max(left, Math.min(l.xp - width / 2, right - width)), width }; });
+  return Math.max(...labelRows(boxes)) + 1;
 }
 
 function dataMarks(p: Profile, c: Ctx): string {
@@ -111,21 +142,36 @@ export function profileFigure(input: ProfileFigureInput, options: ProfileFigureO
   const toX = (xEl: number): number => xEl * eggUm;
   const fit = input.fit ?? null;
   const withResiduals = (options.showResiduals ?? false) && fit !== null && fit.residuals.length > 0;
-  const a = plotArea(widthPx, heightPx, { top: 52, right: 20, bottom: withResiduals ? Math.round(heightPx * 0.3) + 46 : 52, left: 68 });
-  const x = scaleLinear().domain([0, toX(1)]).range([a.left, a.left + a.width]);
+  const margin = { right: 20, left: 68, bottom: withResiduals ? Math.round(heightPx * 0.3) + 46 : 52 };
+  const channels = input.boundaryChannels ?? [...new Set((input.boundaries ?? []).map((b) => b.channel))];
+  // Legend rows under the title, then the label rows, then the plot.
+  const legendItems: LegendItem[] = [{ label: 'bin mean', colour: DATA_COLOUR, shape: 'dot' }, { label: '± SD of pixels', colour: DATA_COLOUR, shape: 'band' }];
+  if (fit) {
+    legendItems.push({ label: `fit: λ = ${withSe(fit.lambdaEl, fit.lambdaSeEl)} EL (${withSe(fit.lambdaUm, fit.lambdaSeUm)} µm)`, colour: FIT_COLOUR, shape: 'line' });
+    legendItems.push({ label: 'fit extended', colour: FIT_COLOUR, shape: 'dash' });
+  }
+  channels.forEach((ch) => legendItems.push({ label: `boundary in ${ch}`, colour: boundaryColour(ch, channels), shape: 'dash' }));
+  const titleBottom = 52;
+  const legend = legendRowsSvg(legendItems, margin.left, widthPx - margin.right, titleBottom - 2);
+  const x = scaleLinear().domain([0, toX(1)]).range([margin.left, widthPx - margin.right]);
+  const probe: Ctx = { x, y: scaleLinear(), a: { left: margin.left, top: 0, width: widthPx - margin.left - margin.right, height: 0 }, toX };
+  const labelCount = labelRowCount([...boundaryMarks(input.boundaries ?? [], channels, probe).labels, ...landmarkMarks(input.landmarks ?? [], probe).labels],
+    margin.left, widthPx - margin.right);
+  const top = titleBottom + legend.heightPx + labelCount * LABEL_ROW_PX + 6;
+  const a = plotArea(widthPx, heightPx, { ...margin, top });
   const [lo, hi] = finiteExtent(Array.from(p.mean, (m, i) => [m - p.sd[i], m + p.sd[i]]).flat(), [0, 1]);
   const c: Ctx = { x, y: scaleLinear().domain([Math.min(0, lo), hi]).nice().range([a.top + a.height, a.top]), a, toX };
   const fm = fit ? fitMarks(fit, c) : { shade: '', curves: '' };
+  const bm = boundaryMarks(input.boundaries ?? [], channels, c);
+  const lm = landmarkMarks(input.landmarks ?? [], c);
   const clip = clipSvg(a, stableId('clip-profile', `${title}${widthPx}x${heightPx}${p.channel}`));
   const xTitle = options.xAxis === 'um' ? 'distance from the anterior pole (µm)' : 'position along the AP axis, x/EL (0 = anterior pole)';
-  const legend: LegendItem[] = [{ label: 'bin mean', colour: DATA_COLOUR, shape: 'dot' }, { label: '± SD of pixels', colour: DATA_COLOUR, shape: 'band' }];
-  if (fit) legend.push({ label: `fit: λ = ${withSe(fit.lambdaEl, fit.lambdaSeEl)} EL (${withSe(fit.lambdaUm, fit.lambdaSeUm)} µm)`, colour: FIT_COLOUR, shape: 'line' });
-  let body = clip.def + titleSvg(a, title, subtitle) + fm.shade + xAxisSvg(x, a, withResiduals ? '' : xTitle)
-    + yAxisSvg(c.y, a, options.yLabel ?? 'intensity (a.u., background subtracted)') + clip.wrap(dataMarks(p, c) + fm.curves)
-    + boundaryMarks(input.boundaries ?? [], c) + landmarkMarks(input.landmarks ?? [], c) + legendSvg(legend, a.left + a.width - 6, a.top + 6);
+  let body = clip.def + titleSvg({ ...a, top: titleBottom }, title, subtitle) + legend.svg + fm.shade + xAxisSvg(x, a, withResiduals ? '' : xTitle)
+    + yAxisSvg(c.y, a, options.yLabel ?? 'intensity (a.u., background subtracted)') + clip.wrap(dataMarks(p, c) + fm.curves + bm.rules + lm.marks)
+    + topLabelsSvg([...bm.labels, ...lm.labels], a.left, a.left + a.width, a.top);
   if (withResiduals && fit) {
-    const top = a.top + a.height + 26;
-    body += residualPanel(fit, x, toX, { left: a.left, top, width: a.width, height: heightPx - top - 52 }, xTitle);
+    const rTop = a.top + a.height + 26;
+    body += residualPanel(fit, x, toX, { left: a.left, top: rTop, width: a.width, height: heightPx - rTop - 52 }, xTitle);
   }
   return svgDocument(widthPx, heightPx, title, body);
 }

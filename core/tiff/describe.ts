@@ -50,3 +50,57 @@ function planeMapLines(info: StackInfo): string[] {
   // Long time series: the first lines show the pattern; the rest would only scroll.
   return lines.length <= 12 ? lines : [...lines.slice(0, 10), `plane map: … ${lines.length - 10} more (t, c) pairs`];
 }
+
+/** The facts of `eggline inspect --json` (keys documented in the README; `schema`/`version` name the layout). */
+export interface StackFactsJson {
+  readonly schema: 'eggline-inspect';
+  readonly version: 1;
+  readonly format: 'TIFF' | 'OME-TIFF' | 'OME-Zarr';
+  readonly bigTiff: boolean;
+  readonly byteOrder: 'II' | 'MM' | null;
+  readonly ifdCount: number | null;
+  readonly sizeX: number;
+  readonly sizeY: number;
+  readonly sizeZ: number;
+  readonly sizeC: number;
+  readonly sizeT: number;
+  readonly dimensionOrder: string;
+  readonly channels: readonly { readonly index: number; readonly name: string }[];
+  readonly pixelSizeXUm: number | null;
+  readonly pixelSizeYUm: number | null;
+  readonly pixelSizeSource: string;
+  readonly zStepUm: number | null;
+  readonly timeIncrementS: number | null;
+  readonly timesS: readonly number[] | null;
+  readonly timeSource: string | null;
+  readonly sampleType: string;
+  readonly samplesPerPixel: number;
+  readonly compression: string;
+  readonly compressionCode: number | null;
+  readonly planeMap: readonly { readonly t: number; readonly c: number; readonly ifds: readonly number[] }[] | null;
+  readonly warnings: readonly string[];
+}
+
+/** The same facts as describeStack as one JSON-ready object (plane map in full, channels 1-based). */
+export function stackFacts(info: StackInfo, format: StackFactsJson['format'] = info.isOme ? 'OME-TIFF' : 'TIFF'): StackFactsJson {
+  const times = info.time?.timesS ?? null;
+  const tiff = format !== 'OME-Zarr';
+  const planeMap: { t: number; c: number; ifds: number[] }[] = [];
+  if (tiff) {
+    for (let t = 0; t < info.sizeT; t++) {
+      for (let c = 0; c < info.sizeC; c++) planeMap.push({ t, c, ifds: Array.from({ length: info.sizeZ }, (_, z) => info.planeIfd[planeSlot(info, z, c, t)]) });
+    }
+  }
+  return {
+    schema: 'eggline-inspect', version: 1, format,
+    bigTiff: tiff && info.bigTiff, byteOrder: tiff ? info.byteOrder : null, ifdCount: tiff ? info.ifdCount : null,
+    sizeX: info.sizeX, sizeY: info.sizeY, sizeZ: info.sizeZ, sizeC: info.sizeC, sizeT: info.sizeT, dimensionOrder: info.dimensionOrder,
+    channels: info.channelNames.map((name, c) => ({ index: c + 1, name })),
+    pixelSizeXUm: info.pixelSize.xUm, pixelSizeYUm: info.pixelSize.yUm, pixelSizeSource: info.pixelSize.source, zStepUm: info.pixelSize.zUm,
+    timeIncrementS: times && times.length > 1 ? times[times.length - 1] / (times.length - 1) : null,
+    timesS: times ? Array.from(times) : null, timeSource: info.time?.source ?? null,
+    sampleType: info.sampleType, samplesPerPixel: info.samplesPerPixel,
+    compression: info.compression, compressionCode: info.compressionCode ?? null,
+    planeMap: tiff ? planeMap : null, warnings: [...info.warnings],
+  };
+}

@@ -18,7 +18,7 @@ export { parseOmeXml, looksLikeOmeXml, type OmeImage, type OmeTiffData } from '.
 export { mapOmePlanes, sequentialPlaneMap } from './plane-map';
 export { parseImageJDescription, type ImageJDescription } from './imagej';
 export { readStackInfo, type StackInfoOptions } from './stack-info';
-export { describeStack } from './describe';
+export { describeStack, stackFacts, type StackFactsJson } from './describe';
 export { writeOmeTiff, writePlainTiff, type WritePlane, type OmeTiffMeta, type PlainTiffOptions } from './write';
 export { toRational } from './rational';
 export { createGeotiffPlaneSource, checkPlaneIndex } from './geotiff-source';

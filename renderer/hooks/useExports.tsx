@@ -14,11 +14,11 @@ import { effectiveFitRange } from '../state';
 import { compositeRgba } from '../view';
 
 /** The export commands offered in the toolbar. */
-export type ExportCommand = 'profile-svg' | 'profile-png' | 'image-png' | 'embryo-csv' | 'profile-csv' | 'boundaries-csv' | 'landmarks-csv';
+export type ExportCommand = 'profile-svg' | 'profile-png' | 'image-png' | 'image-png-2x' | 'embryo-csv' | 'profile-csv' | 'boundaries-csv' | 'landmarks-csv';
 
 /** Labels of the export commands, in menu order. */
 export const EXPORT_LABELS: Record<ExportCommand, string> = {
-  'profile-svg': 'Profile figure (SVG)', 'profile-png': 'Profile figure (PNG)', 'image-png': 'Annotated image (PNG)',
+  'profile-svg': 'Profile figure (SVG)', 'profile-png': 'Profile figure (PNG)', 'image-png': 'Annotated image (PNG, full resolution)', 'image-png-2x': 'Annotated image (PNG, 2× for high-DPI)',
   'embryo-csv': 'Embryo table (CSV)', 'profile-csv': 'Profile table (CSV)', 'boundaries-csv': 'Boundaries table (CSV)', 'landmarks-csv': 'Landmarks table (CSV)',
 };
 
@@ -57,7 +57,7 @@ export function useExports(api: EgglineApi | null, ctx: Ctx): (cmd: ExportComman
       const r = await api.svgToPng(svg, scale);
       if (r.ok) await save('png', name, r.value); else ctx.setMessage(r.error.message);
     };
-    const figure = () => m.profile === null ? null : profileFigure({ profile: m.profile, fit: m.fit, boundaries: m.boundaries, landmarks: m.landmarks },
+    const figure = () => m.profile === null ? null : profileFigure({ profile: m.profile, fit: m.fit, boundaries: m.boundaries, landmarks: m.landmarks, boundaryChannels: m.boundaryProfiles.map((b) => b.channel) },
       { showResiduals: m.fit !== null, title: `${entryName}: profile along the AP axis (${m.profile.channel})` });
     switch (cmd) {
       case 'profile-svg': case 'profile-png': {
@@ -66,14 +66,15 @@ export function useExports(api: EgglineApi | null, ctx: Ctx): (cmd: ExportComman
         if (cmd === 'profile-svg') await save('svg', `${stem}-profile.svg`, svg); else await toPng(svg, 2, `${stem}-profile.png`);
         return;
       }
-      case 'image-png': {
+      case 'image-png': case 'image-png-2x': {
         const p = ctx.planes[0];
         const overlay = renderToStaticMarkup(<ImageOverlay view={{ zoom: 1, offsetX: 0, offsetY: 0 }} width={p.width} height={p.height}
           outline={stack.detection.outline} axis={axis} measurement={m} bandOutlines={ctx.bandOutlines} fitRangeEl={effectiveFitRange(state)}
           halfWidthPx={(stack.detection.eggWidthUm / (stack.projected.pixelSizeUm ?? 1)) * 0.6} selectedLandmark={null} />);
         const px = stack.projected.pixelSizeUm;
         const bar = px === null ? null : chooseScaleBar(px, 1, p.width * 0.25);
-        await toPng(annotatedSvg(p.width, p.height, compositeDataUrl(ctx.planes, state), overlay, bar && { lengthUm: bar.lengthUm, lengthPx: bar.screenPx }), 1, `${stem}-annotated.png`);
+        await toPng(annotatedSvg(p.width, p.height, compositeDataUrl(ctx.planes, state), overlay, bar && { lengthUm: bar.lengthUm, lengthPx: bar.screenPx }),
+          cmd === 'image-png' ? 1 : 2, cmd === 'image-png' ? `${stem}-annotated.png` : `${stem}-annotated@2x.png`);
         return;
       }
       case 'embryo-csv': await save('csv', `${stem}-embryo.csv`, embryosCsv([result])); return;

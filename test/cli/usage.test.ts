@@ -52,6 +52,25 @@ describe('eggline inspect', () => {
     expect(r.stdout).toContain('sample type: uint16');
     expect(r.stdout).toMatch(/pixel size: unknown/);
   });
+  it('--json gives the same facts as one JSON object with the documented keys', async () => {
+    // Source: TIFF 6.0 §8 — the hand-built file has one 4×3 uint16 plane, no compression, no resolution tags
+    const file = join(dir, 'tiny-json.tif');
+    writeFileSync(file, tinyTiff({ widthPx: 4, heightPx: 3 }));
+    const r = await cli(['inspect', '--json', file]);
+    expect(r.code).toBe(0);
+    const facts = JSON.parse(r.stdout);
+    expect(Object.keys(facts)).toEqual([
+      'file', 'schema', 'version', 'format', 'bigTiff', 'byteOrder', 'ifdCount', 'sizeX', 'sizeY', 'sizeZ', 'sizeC', 'sizeT',
+      'dimensionOrder', 'channels', 'pixelSizeXUm', 'pixelSizeYUm', 'pixelSizeSource', 'zStepUm', 'timeIncrementS', 'timesS',
+      'timeSource', 'sampleType', 'samplesPerPixel', 'compression', 'compressionCode', 'planeMap', 'warnings',
+    ]);
+    expect(facts).toMatchObject({
+      file, schema: 'eggline-inspect', version: 1, format: 'TIFF', sizeX: 4, sizeY: 3, sizeZ: 1, sizeC: 1, sizeT: 1,
+      channels: [{ index: 1, name: 'C0' }], pixelSizeXUm: null, pixelSizeSource: 'unknown', sampleType: 'uint16',
+      compression: 'none', compressionCode: 1, planeMap: [{ t: 0, c: 0, ifds: [0] }],
+    });
+    expect(facts.warnings).toEqual(expect.arrayContaining([expect.stringMatching(/pixel size unknown/)]));
+  });
   it('names the file and the problem for a file that is not a TIFF (exit 1)', async () => {
     const file = join(dir, 'notes.tif');
     writeFileSync(file, 'just some text');

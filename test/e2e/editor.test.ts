@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
+import { openStackForAnalysis } from '../../app/decode/open-for-analysis';
 import { ARTIFACTS, ensureRendererBuilt, startHarness } from './harness';
 import type { Harness } from './harness';
 
@@ -215,19 +216,28 @@ describe('editor window', { timeout: 150_000 }, () => {
     const saveDir = join(scratch, 'exports');
     await fs.mkdir(saveDir);
     h.dialogs.saveDir = saveDir;
-    for (const label of ['Profile figure (SVG)', 'Annotated image (PNG)', 'Profile table (CSV)']) {
+    for (const label of ['Profile figure (SVG)', 'Annotated image (PNG, full resolution)', 'Annotated image (PNG, 2× for high-DPI)', 'Profile table (CSV)']) {
       await page.getByTestId('export').click();
       await page.getByRole('menuitem', { name: label }).click();
       await expect.poll(() => text(page, 'message'), { timeout: 30_000 }).toMatch(/^Saved /);
       await page.getByTestId('message').click();
     }
     const files = (await fs.readdir(saveDir)).sort();
-    expect(files).toHaveLength(3);
+    expect(files).toHaveLength(4);
     const svg = await fs.readFile(join(saveDir, files.find((f) => f.endsWith('.svg')) ?? ''), 'utf8');
     expect(svg).toContain('<svg');
-    const png = await fs.readFile(join(saveDir, files.find((f) => f.endsWith('.png')) ?? ''));
+    const png = await fs.readFile(join(saveDir, files.find((f) => f.endsWith('-annotated.png')) ?? ''));
+    const png2 = await fs.readFile(join(saveDir, files.find((f) => f.endsWith('-annotated@2x.png')) ?? ''));
     // Source: PNG specification §5.2 (signature bytes).
     expect(Array.from(png.subarray(0, 8))).toEqual([137, 80, 78, 71, 13, 10, 26, 10]);
+    // Source: PNG specification §11.2.2 (IHDR: width and height, 4-byte big-endian, at bytes 16 and 20).
+    const size = (b: Buffer) => [b.readUInt32BE(16), b.readUInt32BE(20)];
+    const shown = await page.locator('[data-testid=folder-entry].current').getAttribute('data-name');
+    const opened = await openStackForAnalysis(join(dataDir, 'demo', shown ?? ''), shown ?? '');
+    await opened.source.close();
+    // The annotated image has the stack's full resolution, and the 2× export twice that.
+    expect(size(png)).toEqual([opened.info.sizeX, opened.info.sizeY]);
+    expect(size(png2)).toEqual([2 * opened.info.sizeX, 2 * opened.info.sizeY]);
     const csv = await fs.readFile(join(saveDir, files.find((f) => f.endsWith('.csv')) ?? ''), 'utf8');
     expect(csv.split('\n')[0]).toContain('x_el');
     // Keep the exports beside the screenshots, to look at.

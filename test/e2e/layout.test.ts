@@ -98,6 +98,24 @@ describe('splitter and overlays', { timeout: 60_000 }, () => {
     await expect.poll(async () => (await box(page, '[data-testid=image-view]')).height).toBeGreaterThan(before.height + 30);
   });
 
+  it('a pole dragged off the embryo is warned about beside the numbers, and the warning goes with undo', async () => {
+    const { page } = h;
+    const a = await box(page, '[data-testid=handle-anterior] circle');
+    const p = await box(page, '[data-testid=handle-posterior] circle');
+    const from = { x: p.x + p.width / 2, y: p.y + p.height / 2 };
+    // Further out along the axis by 40% of its screen length: well past the embryo's end.
+    const to = { x: from.x + (from.x - a.x) * 0.4, y: from.y + (from.y - a.y) * 0.4 };
+    await page.mouse.move(from.x, from.y);
+    await page.mouse.down();
+    for (let k = 1; k <= 6; k += 1) await page.mouse.move(from.x + ((to.x - from.x) * k) / 6, from.y + ((to.y - from.y) * k) / 6);
+    await page.mouse.up();
+    await expect.poll(async () => (await page.getByTestId('warnings').count()) > 0 ? page.getByTestId('warnings').textContent() : '', { timeout: 10_000 })
+      .toMatch(/the posterior pole lies \d+ µm outside the embryo outline/);
+    await page.screenshot({ path: join(ARTIFACTS, 'layout-pole-outside.png') });
+    await page.keyboard.press('Control+z');
+    await expect.poll(async () => (await page.getByTestId('warnings').count()) > 0 ? page.getByTestId('warnings').textContent() : '').not.toMatch(/outside the embryo/);
+  });
+
   it('each overlay can be hidden from its key and shown again', async () => {
     const { page } = h;
     await page.getByTestId('overlay-axis').uncheck();
