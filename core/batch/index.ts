@@ -1,6 +1,6 @@
 // Public surface of core/batch: batch settings from config + flags, output tables, results JSON, project edits.
 export { BatchOptionError } from './option-error';
-export { parseSettingsFlags, type SettingsFlags, type SettingsOverrides } from './parse-flags';
+export { parseSettingsFlags, parseFitRange, type SettingsFlags, type SettingsOverrides } from './parse-flags';
 export { parseConfigText } from './parse-config';
 export { mergeSettings } from '../settings';
 export {
