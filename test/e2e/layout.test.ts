@@ -127,3 +127,35 @@ describe('splitter and overlays', { timeout: 60_000 }, () => {
     await page.getByTestId('overlay-band').check();
   });
 });
+
+describe('keyboard', { timeout: 60_000 }, () => {
+  it('Tab starts in the toolbar and every focused control shows a focus ring', async () => {
+    const { page } = h;
+    await page.locator('body').click({ position: { x: 1, y: 700 } }).catch(() => undefined);
+    await page.evaluate(() => (document.activeElement as HTMLElement | null)?.blur());
+    await page.keyboard.press('Tab');
+    const first = await page.evaluate(() => {
+      const el = document.activeElement as HTMLElement;
+      return { inToolbar: el.closest('[data-testid=toolbar]') !== null, outline: getComputedStyle(el).outlineStyle };
+    });
+    expect(first).toEqual({ inToolbar: true, outline: 'solid' });
+  });
+
+  it('moves a pole, the fit range and a new landmark without a mouse', async () => {
+    const { page } = h;
+    const before = await page.getByTestId('handle-posterior').getAttribute('data-x');
+    await page.getByTestId('handle-posterior').focus();
+    for (let k = 0; k < 3; k += 1) await page.keyboard.press('Shift+ArrowLeft');
+    await expect.poll(() => page.getByTestId('handle-posterior').getAttribute('data-x')).toBe((Number(before) - 30).toFixed(1));
+    const lambda = await page.getByTestId('lambda-um').textContent();
+    await page.getByTestId('fit-hi').focus();
+    await page.keyboard.press('Shift+ArrowRight');
+    await expect.poll(() => page.getByTestId('lambda-um').textContent()).not.toBe(lambda);
+    expect(await page.getByTestId('fit-hi').getAttribute('aria-valuenow')).toBe('0.65');
+    const n = await page.getByTestId('landmark').count();
+    await page.getByTestId('add-landmark').focus();
+    await page.keyboard.press('Enter');
+    await expect.poll(() => page.getByTestId('landmark').count()).toBe(n + 1);
+    for (let k = 0; k < 4; k += 1) await page.keyboard.press('Control+z');
+  });
+});
