@@ -74,9 +74,10 @@ describe('eggline batch over OME-Zarr stores', () => {
     expect(good.stdout).toContain('codecs: bytes (little) → blosc (lz4, level 5, shuffle)');
     const json = await cli(['inspect', '--json', join(input, 'v3-blosc-lz4.ome.zarr')]);
     expect(json.code).toBe(0);
+    // The store's t axis has unit "second" and scale 1 (scripts/make-zarr-v3-fixtures.ts).
     expect(JSON.parse(json.stdout)).toMatchObject({
       format: 'OME-Zarr', sizeX: 200, sizeY: 130, sizeZ: 3, sizeC: 2, pixelSizeXUm: 3, pixelSizeSource: 'ome-zarr', zStepUm: 2,
-      timeSource: null, zarr: { zarrFormat: 3, ngffVersion: '0.5', chunks: [1, 1, 1, 130, 200], codecs: 'bytes (little) → blosc (lz4, level 5, shuffle)' },
+      timeSource: 'ome-zarr', timesS: [0], zarr: { zarrFormat: 3, ngffVersion: '0.5', chunks: [1, 1, 1, 130, 200], codecs: 'bytes (little) → blosc (lz4, level 5, shuffle)' },
     });
     const plate = await cli(['inspect', join(input, 'plate.ome.zarr')]);
     expect(plate.code).toBe(1);
