@@ -317,3 +317,27 @@ describe('exports', () => {
     expect([view.getUint32(16), view.getUint32(20)]).toEqual([40, 20]);
   });
 });
+
+describe('OME-Zarr folders in the window', () => {
+  beforeEach(async () => {
+    // Demo data: a store's files (contents do not matter to the listing; the fake engine reads nothing).
+    for (const f of ['.zattrs', '.zgroup', '0/.zarray', '0/0.0.0']) {
+      await mkdir(join(images, 'sub', 'd.ome.zarr', f, '..'), { recursive: true });
+      await writeFile(join(images, 'sub', 'd.ome.zarr', f), '{}');
+    }
+  });
+
+  it('lists a .zarr folder as one stack and never the files inside it', async () => {
+    const opened = value(await api.chooseFolder());
+    expect(opened?.entries.map((e) => e.name)).toEqual(['a.ome.tif', 'b.tif', 'sub/c.tiff', 'sub/d.ome.zarr']);
+  });
+
+  it('opens a dropped .zarr folder as one loose stack and allows reading it', async () => {
+    const store = join(images, 'sub', 'd.ome.zarr');
+    const entries = value(await api.openDropped([store]));
+    expect(entries.map((e) => [e.name, e.status])).toEqual([['d.ome.zarr', 'new']]);
+    // The handler lets the folder through to the engine (the fake engine reads files only, so it then fails).
+    await api.loadStack(store, DEFAULT_SETTINGS);
+    expect(engine.calls.some((c) => c.startsWith('loadForView d.ome.zarr'))).toBe(true);
+  });
+});
