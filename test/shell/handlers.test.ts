@@ -137,7 +137,7 @@ describe('argument validation', () => {
     expect(error(await api.loadStack(42 as unknown as string, DEFAULT_SETTINGS))).toEqual({ code: 'bad-argument', message: 'path must be an absolute path' });
     expect(error(await api.loadStack('a.ome.tif', DEFAULT_SETTINGS)).message).toBe('a.ome.tif: path must be an absolute path');
     expect(error(await api.loadStack(p, { ...DEFAULT_SETTINGS, fitRangeEl: [0.5, 0.5] }))).toEqual(
-      { code: 'bad-argument', message: 'a.ome.tif: settings.fitRangeEl must be two numbers 0 ≤ a < b ≤ 1' });
+      { code: 'bad-argument', message: 'a.ome.tif: settings.fitRangeEl must be two numbers [a, b] with 0 ≤ a < b ≤ 1' });
     expect(error(await api.loadSlice({ path: p, z: -1, c: 0, t: 0 })).message).toBe('a.ome.tif: z must be an integer from 0 to 1000000');
     expect(error(await api.loadSlice(null as never)).message).toBe('request must be {path, z, c, t}');
     expect(error(await api.openDropped([] as string[])).message).toBe('paths must be a list of 1 to 10000 absolute paths');
@@ -197,7 +197,7 @@ describe('projects', () => {
     const path = join(root, 'old.json');
     await writeFile(path, JSON.stringify({ schema: 'eggline-project', version: 1, folder: 'images', settings: { profile: { binCount: 1 } } }));
     answers.project = path;
-    expect(error(await api.openProject())).toEqual({ code: 'bad-file', message: 'old.json: settings.profile.binCount must be an integer from 2 to 10000' });
+    expect(error(await api.openProject())).toEqual({ code: 'bad-file', message: 'old.json: settings.profile.binCount must be a whole number from 10 to 2000' });
   });
 });
 
