@@ -1,4 +1,22 @@
-// Help texts for `eggline --help` and `eggline <command> --help`.
+// Help texts for `eggline --help` and `eggline <command> --help`. The analysis settings' lines come from the settings
+// table (core/settings SETTINGS), so every setting's flag is listed with its help line and default.
+import { DEFAULT_SETTINGS, SETTINGS, settingValue, type SettingSpec } from '../../core/settings';
+
+/** The default of a setting as a flag would write it; '' when there is none. */
+function defaultText(spec: SettingSpec): string {
+  const v = settingValue(DEFAULT_SETTINGS, spec.key);
+  if (v === null || (Array.isArray(v) && v.length === 0)) return '';
+  return Array.isArray(v) ? v.join(',') : String(v);
+}
+
+/** One help line per settings flag: flag and value, help, [default]. */
+export function settingsHelp(): string {
+  return SETTINGS.filter((s) => s.key !== 'sliceIndex').map((s) => {
+    const d = defaultText(s);
+    const head = `${`  ${s.flag} ${s.flagValue}`.padEnd(29)} `;
+    return d === '' ? `${head}${s.help}` : `${head}${s.help}  [${d}]`;
+  }).join('\n');
+}
 
 /** Top-level help. */
 export const MAIN_HELP = `eggline — measure morphogen gradients along the AP axis of embryo images
@@ -25,13 +43,7 @@ into <folder>; <dir> must not be <folder> or inside it.
 Options:
   --out DIR                   output folder (created if missing)                       [required]
   --jobs N                    worker threads                            [default: number of cores]
-  --gradient-channel N|NAME   channel of the exponential gradient (1-based or name)        [1]
-  --boundary-channel N|NAME   channel to find expression boundaries in; repeat for more
-  --pixel-size UM             µm per pixel, used when a file does not say
-  --projection P              max | mean | sum | slice | slice:Z (Z is 0-based)         [mean]
-  --profile MODE              edge (band under the outline) | axis (strip on the axis)  [edge]
-  --fit-range A,B             x/EL range of the exponential fit, 0 ≤ A < B ≤ 1        [0.1,0.6]
-  --anterior A                auto (high end of the gradient) | high | low             [auto]
+${settingsHelp()}
   --config FILE               settings JSON (keys as in results.json settings); flags win over it
   --project FILE              hand edits (axis, landmarks, fit range per file)
                               [default: <folder>/eggline-project.json when present]
@@ -45,6 +57,17 @@ Options:
   --resume                    reuse the results journal.jsonl in <dir> holds for files whose bytes
                               (SHA-256) and settings are unchanged; analyse the rest
   -h, --help                  show this help
+
+Movies (files with more than one time point) are also analysed over time, after the batch:
+  --time all|K|A:B            time points to analyse (0-based; A:B includes both ends)       [all]
+  --axis-per-time             find the axis at every time point (embryos that drift)
+                              [default: once per movie, on the mean over up to 8 time points]
+  --time-step S               seconds between time points when the file does not say; plain
+                              multi-page files are then read as one plane per time point
+  --tau-range A,B             x/EL range of the accumulation-time model fit             [0.1,0.4]
+  --baseline-frames N         frames before production starts (their mean is the zero)       [1]
+  They write timecourse.csv, timecourse_profiles.csv, timecourse_boundaries.csv, accumulation.csv,
+  model_fit.csv, timelapse/*.svg and timelapse.html.
 
 While it runs, every finished file is appended to <dir>/journal.jsonl; the tables are written at the end.
 Ctrl+C or SIGTERM stops cleanly (tables of the finished files, run.json with "complete": false); a second
