@@ -221,7 +221,7 @@ export function App() {
             file={entry === null ? null : { name: entry.name, status: statusOf(entry), result: resultFor(entry.name) ?? null }}
             settingsFitRangeEl={edits.fitRangeEl === null ? null : settings.fitRangeEl} />
           <ChannelPanel state={state} dispatch={dispatch} planes={planes} names={names} sizeZ={stack?.info.sizeZ ?? 1} zSlice={zSlice} onZSlice={setZSlice} />
-          <LandmarkList landmarks={measurement?.landmarks ?? []} selected={state.selectedLandmark} dispatch={dispatch} />
+          <LandmarkList landmarks={measurement?.landmarks ?? []} selected={state.selectedLandmark} dispatch={dispatch} axis={axis} />
         </aside>
       </div>
       <footer className="statusbar">

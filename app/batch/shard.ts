@@ -3,7 +3,10 @@ import { createHash } from 'node:crypto';
 import { promises as fs } from 'node:fs';
 import { join } from 'node:path';
 import type { ShardInfo } from '../../core/batch';
+import type { StackInfo } from '../../core/model';
+import { bytesPerSample } from '../../core/tiff';
 import { filesOfPart, inputListText, partFolderName, type ShardSpec, type SizedFile } from '../../core/shard';
+import { openStack } from './deps';
 import { listStackFiles, type StackFile } from './list-stacks';
 
 /** Folder under the batch's --out that one part writes to: `<out>/parts/K-of-N`. */
@@ -16,13 +19,34 @@ export function sha256Text(text: string): string {
   return createHash('sha256').update(text).digest('hex');
 }
 
-/** Sizes of the files in list order; a file that cannot be read counts as 0 bytes (it gets an error row later). */
+/** The StackInfo of a TIFF file or OME-Zarr store (metadata only, nothing decoded), or null when it cannot be opened. */
+export async function stackInfoOf(path: string): Promise<StackInfo | null> {
+  try {
+    const opened = await openStack(path, path);
+    await opened.source.close().catch(() => undefined);
+    return opened.info;
+  } catch {
+    return null;
+  }
+}
+
+/** Bytes that stand for a stack's work: a file's size; for an OME-Zarr store (a folder of chunk files) the decoded size
+ *  its metadata declares, as summing thousands of chunk files on every task would be slow. 0 when unreadable. */
+export async function workBytes(path: string): Promise<number> {
+  const stat = await fs.stat(path).catch(() => null);
+  if (stat === null) return 0;
+  if (!stat.isDirectory()) return stat.size;
+  const i = await stackInfoOf(path);
+  return i ? i.sizeX * i.sizeY * i.sizeZ * i.sizeC * i.sizeT * i.samplesPerPixel * bytesPerSample(i.sampleType) : 0;
+}
+
+/** Work bytes of the files in list order (see workBytes); a file that cannot be read counts as 0 (it gets an error row later). */
 export async function sizedFiles(files: readonly StackFile[]): Promise<SizedFile[]> {
   const out: SizedFile[] = new Array(files.length);
   const width = 64;
   for (let start = 0; start < files.length; start += width) {
     const chunk = files.slice(start, start + width);
-    const sizes = await Promise.all(chunk.map((f) => fs.stat(f.path).then((s) => s.size, () => 0)));
+    const sizes = await Promise.all(chunk.map((f) => workBytes(f.path)));
     chunk.forEach((f, i) => { out[start + i] = { file: f.file, bytes: sizes[i] }; });
   }
   return out;

@@ -11,7 +11,7 @@ import { MAX_PARTS, parseShardSpec, type ShardSpec } from '../../core/shard';
 import { defaultJobs, realPathOf, runBatch, type BatchRunResult, type RunBatchOptions } from '../batch/run-batch';
 import { isInside } from '../batch/list-stacks';
 import { STOP_MESSAGE } from './batch-tuning';
-import { loadProject } from '../project';
+import { loadProjectOrBackup } from '../project';
 import { BATCH_HELP } from './help';
 import { parseCommandArgs } from './parse-command-args';
 import { progressPrinter } from './progress';
@@ -70,8 +70,9 @@ async function readProject(given: string | undefined, folder: string, skip: bool
     return { doc: null, path: null, note: null };
   }
   try {
-    const doc = await loadProject(path);
-    return { doc, path, note: `using hand edits from ${path}${given === undefined ? ' (found in the input folder; --no-project to ignore)' : ''}` };
+    const loaded = await loadProjectOrBackup(path);
+    const note = `using hand edits from ${path}${given === undefined ? ' (found in the input folder; --no-project to ignore)' : ''}`;
+    return { doc: loaded.doc, path, note: loaded.warning === null ? note : `warning: ${loaded.warning}` };
   } catch (e) {
     throw new UsageError((e as Error).message.split('\n')[0], 'batch');
   }

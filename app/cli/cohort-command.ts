@@ -32,6 +32,8 @@ Options:
   --normalise MODE            none | amplitude | minmax: profile scaling before averaging [none]
   --lambda-posterior-el V     decay length of an opposing posterior gradient (x/EL), adds the
                               two-gradient prediction Δx = ln f / (1/λ_A + 1/λ_P)
+  --equivalence-margin M      also test whether observed/predicted lies within 1 ± M (two one-sided
+                              tests on the 90% interval); 0 < M < 1                        [none]
   --out DIR                   output folder                          [default: <results-dir>/cohort]
   -h, --help                  show this help
 
@@ -42,7 +44,7 @@ const NORMALISE = ['none', 'amplitude', 'minmax'];
 
 interface CohortPlan {
   resultsDir: string; samples: string | null; rule: FilenameRule | null; reference: string | null;
-  normalisation: Normalisation; lambdaPosteriorEl: number | null; outDir: string;
+  normalisation: Normalisation; lambdaPosteriorEl: number | null; equivalenceMargin: number | null; outDir: string;
 }
 
 /** `--dosage COND=F` values as a map, or a usage message. */
@@ -66,6 +68,7 @@ export function parseCohortArgs(argv: readonly string[]): CohortPlan | 'help' | 
       options: {
         samples: { type: 'string' }, pattern: { type: 'string' }, dosage: { type: 'string', multiple: true },
         reference: { type: 'string' }, normalise: { type: 'string' }, 'lambda-posterior-el': { type: 'string' },
+        'equivalence-margin': { type: 'string' },
         out: { type: 'string' }, help: { type: 'boolean', short: 'h' },
       },
     });
@@ -83,9 +86,12 @@ export function parseCohortArgs(argv: readonly string[]): CohortPlan | 'help' | 
   const lp = v['lambda-posterior-el'];
   const lambdaPosteriorEl = lp === undefined ? null : Number(lp);
   if (lambdaPosteriorEl !== null && !(Number.isFinite(lambdaPosteriorEl) && lambdaPosteriorEl > 0)) return { usage: `--lambda-posterior-el must be a positive number (got "${lp}")` };
+  const em = v['equivalence-margin'];
+  const equivalenceMargin = em === undefined ? null : Number(em);
+  if (equivalenceMargin !== null && !(Number.isFinite(equivalenceMargin) && equivalenceMargin > 0 && equivalenceMargin < 1)) return { usage: `--equivalence-margin must be a number between 0 and 1 (got "${em}")` };
   const resultsDir = parsed.positionals[0];
   const rule = v.pattern ? { pattern: v.pattern, dosages: dosages as Record<string, number> } : null;
-  return { resultsDir, samples: v.samples ?? null, rule, reference: v.reference ?? null, normalisation: (v.normalise ?? 'none') as Normalisation, lambdaPosteriorEl, outDir: v.out ?? join(resultsDir, 'cohort') };
+  return { resultsDir, samples: v.samples ?? null, rule, reference: v.reference ?? null, normalisation: (v.normalise ?? 'none') as Normalisation, lambdaPosteriorEl, equivalenceMargin, outDir: v.out ?? join(resultsDir, 'cohort') };
 }
 
 async function readOptionalJson(path: string): Promise<unknown> {
@@ -118,7 +124,7 @@ export async function cohortCommand(argv: readonly string[], io: CohortCommandIo
     const runRecord = await readOptionalJson(join(plan.resultsDir, 'run.json'));
     const out = await runCohortStep({
       results, failures: [], sampleSheetPath: plan.samples, reference: plan.reference, outDir: plan.outDir, runRecord,
-      normalisation: plan.normalisation, lambdaPosteriorEl: plan.lambdaPosteriorEl, ...(plan.rule ? { filenameRule: plan.rule } : {}),
+      normalisation: plan.normalisation, lambdaPosteriorEl: plan.lambdaPosteriorEl, equivalenceMargin: plan.equivalenceMargin, ...(plan.rule ? { filenameRule: plan.rule } : {}),
     });
     for (const w of out.warnings) io.stderr.write(`warning: ${w}\n`);
     io.stdout.write(`wrote ${out.written.length} files to ${plan.outDir} (open report.html)\n`);

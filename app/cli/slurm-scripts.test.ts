@@ -7,6 +7,7 @@ import {
   arrayScript, joinSlurmOptions, memPerCpuMiB, mergeMemMiB, mergeScript, parseSlurmOptions, partArguments, quote, submitCommands,
   type SlurmPlan,
 } from './slurm-scripts';
+import { analysisBytesEstimate, WORKER_BASE_BYTES } from '../../core/tiff';
 
 const dir = mkdtempSync(join(tmpdir(), 'eggline-slurm-scripts-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -61,10 +62,14 @@ describe('joinSlurmOptions and partArguments', () => {
 });
 
 describe('sizing', () => {
-  it('asks per core for twice the largest decoded stack plus 256 MiB, and for the merge 2 GiB plus 0.25 MiB per file', () => {
-    // Demo data: a 1024×1024×24×2 uint16 stack is 96 MiB decoded → 2×96 + 256 = 448 MiB per core.
-    expect(memPerCpuMiB(1024 * 1024 * 24 * 2 * 2)).toBe(448);
-    expect(memPerCpuMiB(0)).toBe(256);
+  it('asks per core for 1.5 × the largest file\'s need (at least 512 MiB), and for the merge 2 GiB plus 0.25 MiB per file', () => {
+    // Worked by hand (demo data): 4096×4096 px, 2 uint16 channels → 16 Mi px × 100 B + 150 MiB = 1750 MiB;
+    // × 1.5 = 2625 MiB → 2688 MiB (whole 64 MiB). 1024×1024 px needs 250 MiB → 375 MiB → the 512 MiB floor.
+    const need = (px: number): number => analysisBytesEstimate(px, px, 2, 'uint16', 1) + WORKER_BASE_BYTES;
+    expect(need(4096)).toBe(1750 * 2 ** 20);
+    expect(memPerCpuMiB(need(4096))).toBe(2688);
+    expect(memPerCpuMiB(need(1024))).toBe(512);
+    expect(memPerCpuMiB(0)).toBe(512);
     expect(mergeMemMiB(0)).toBe(2048);
     expect(mergeMemMiB(10_000)).toBe(4608);
   });
@@ -75,7 +80,7 @@ describe('the scripts', () => {
     folder: '/data/screen 1', outDir: '/scratch/out', parts: 8, cpusPerTask: 2, memPerCpuMiB: 448, mergeMemMiB: 2304,
     nodePath: '/opt/node/bin/node', cliPath: '/opt/eggline/dist/cli.mjs', batchArgs: ['--fit-range=0.1,0.5'],
     mergeArgs: ['--samples', '/data/samples.csv'], userDirectives: [['--partition=long'], ['-t', '04:00:00'], ['--mem', '8G']],
-    fileCount: 100, inputBytes: 5e9, largestStackBytes: 96 * 1024 * 1024, writtenAt: '2026-01-01T00:00:00.000Z',
+    fileCount: 100, inputBytes: 5e9, largestNeedBytes: 250 * 1024 * 1024, writtenAt: '2026-01-01T00:00:00.000Z',
   };
 
   it('are valid bash that runs the same Node and Eggline by absolute path, part = task id + 1', () => {
@@ -87,7 +92,7 @@ describe('the scripts', () => {
     }
     expect(array).toContain('#SBATCH --array=0-7\n');
     expect(array).toContain('#SBATCH --cpus-per-task=2\n');
-    expect(array).toContain("\"$NODE\" \"$EGGLINE\" batch '/data/screen 1' --out \"$OUT\" --shard \"$PART/$PARTS\" --resume --jobs \"${SLURM_CPUS_PER_TASK:-2}\" --fit-range=0.1,0.5\n");
+    expect(array).toContain("\"$NODE\" \"$EGGLINE\" batch '/data/screen 1' --out \"$OUT\" --shard \"$PART/$PARTS\" --resume --jobs \"${SLURM_CPUS_PER_TASK:-2}\" --max-memory \"${PER_FILE_MB}M\" --fit-range=0.1,0.5\n");
     expect(array).toContain('NODE=/opt/node/bin/node ');
     expect(array).toContain('EGGLINE=/opt/eggline/dist/cli.mjs ');
     expect(merge).toContain('exec "$NODE" "$EGGLINE" merge /scratch/out --samples /data/samples.csv\n');
@@ -106,7 +111,13 @@ describe('the scripts', () => {
     const text = arrayScript({ ...plan, nodePath: '/bin/bash', cliPath: fake, userDirectives: [] });
     writeFileSync(join(dir, 'run.sbatch'), text);
     const out = execFileSync('bash', [join(dir, 'run.sbatch')], { env: { ...process.env, SLURM_ARRAY_TASK_ID: '2', SLURM_CPUS_PER_TASK: '3' }, encoding: 'utf8' });
-    expect(out).toBe('batch /data/screen 1 --out /scratch/out --shard 3/8 --resume --jobs 3 --fit-range=0.1,0.5\n');
+    expect(out).toBe('batch /data/screen 1 --out /scratch/out --shard 3/8 --resume --jobs 3 --max-memory 448M --fit-range=0.1,0.5\n');
+    // Slurm's figure wins: per core as asked (SLURM_MEM_PER_CPU), or the node's memory shared by the cores (SLURM_MEM_PER_NODE).
+    const run = (extra: Record<string, string>): string => execFileSync('bash', [join(dir, 'run.sbatch')], {
+      env: { ...process.env, SLURM_ARRAY_TASK_ID: '0', SLURM_CPUS_PER_TASK: '4', ...extra }, encoding: 'utf8',
+    });
+    expect(run({ SLURM_MEM_PER_CPU: '1000' })).toContain('--max-memory 1000M');
+    expect(run({ SLURM_MEM_PER_NODE: '8000' })).toContain('--max-memory 2000M');
     const env = { ...process.env };
     delete env.SLURM_ARRAY_TASK_ID;
     expect(() => execFileSync('bash', [join(dir, 'run.sbatch')], { env, stdio: 'pipe' })).toThrow('SLURM_ARRAY_TASK_ID: is not set: submit this script with sbatch');

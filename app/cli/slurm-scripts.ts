@@ -5,9 +5,9 @@ import { join, resolve } from 'node:path';
 import { parseArgs, type ParseArgsConfig } from 'node:util';
 import { parse as parseShell } from 'shell-quote';
 import { BatchOptionError } from '../../core/batch';
-import { bytesPerSample } from '../../core/tiff';
-import { readStackInfoFromFile } from '../../core/io';
+import { analysisBytesEstimate, WORKER_BASE_BYTES } from '../../core/tiff';
 import { listStackFiles } from '../batch/list-stacks';
+import { sizedFiles, stackInfoOf } from '../batch/shard';
 import { EGGLINE_VERSION } from '../batch/versions';
 import { writeFileAtomic } from '../project';
 
@@ -21,10 +21,11 @@ export function quote(words: readonly string[]): string {
 /** Cores per task when --jobs is not given: one worker keeps more than one core busy (libvips decodes the next plane
  *  on its own threads), and two workers on two cores gave 1.22–1.34× the files per second of one (README, bench). */
 export const DEFAULT_CPUS_PER_TASK = 2;
-/** Memory per worker as a multiple of the largest decoded stack: the bench's peak was ≤ 1.56×, rounded up for margin. */
-export const MEMORY_PER_STACK = 2;
-/** Memory per core beyond the stacks, MiB: Node, sharp and libvips themselves (a few hundred MiB per process). */
-export const BASE_MIB_PER_CPU = 256;
+/** Memory per core as a multiple of what the largest file's analysis needs (the estimate --max-memory checks, which
+ *  includes a worker's own base): the rest is margin and the task's main process. */
+export const MEMORY_PER_NEED = 1.5;
+/** Least memory per core, MiB: Node, sharp and libvips themselves. */
+export const MIN_MIB_PER_CPU = 512;
 /** The merge holds every row: about this many MiB per file (results.json, tables) on top of a base (MiB). */
 export const MERGE_MIB_PER_FILE = 0.25;
 export const MERGE_BASE_MIB = 2048;
@@ -90,8 +91,8 @@ export interface SlurmPlan {
   readonly userDirectives: readonly string[][];
   readonly fileCount: number;
   readonly inputBytes: number;
-  /** Largest decoded stack (one time point), bytes; 0 when no file's header could be read. */
-  readonly largestStackBytes: number;
+  /** What the analysis of the largest file needs (analysisBytesEstimate + WORKER_BASE_BYTES), bytes; 0 when no file could be opened. */
+  readonly largestNeedBytes: number;
   readonly writtenAt: string;
 }
 
@@ -102,9 +103,10 @@ function size(bytes: number): string {
   return bytes >= 1024 * MIB ? `${(bytes / 1024 / MIB).toFixed(1)} GiB` : `${Math.ceil(bytes / MIB)} MiB`;
 }
 
-/** Memory per core of an array task, MiB: MEMORY_PER_STACK × the largest decoded stack + BASE_MIB_PER_CPU, rounded up to 64 MiB. */
-export function memPerCpuMiB(largestStackBytes: number): number {
-  return Math.ceil((MEMORY_PER_STACK * largestStackBytes / MIB + BASE_MIB_PER_CPU) / 64) * 64;
+/** Memory per core of an array task, MiB: MEMORY_PER_NEED × the largest file's need, at least MIN_MIB_PER_CPU,
+ *  rounded up to 64 MiB. */
+export function memPerCpuMiB(largestNeedBytes: number): number {
+  return Math.max(MIN_MIB_PER_CPU, Math.ceil((MEMORY_PER_NEED * largestNeedBytes) / MIB / 64) * 64);
 }
 
 /** Memory of the merge job, MiB, rounded up to 256 MiB. */
@@ -163,8 +165,8 @@ export function arrayScript(plan: SlurmPlan): string {
     }).flatMap((l) => (l.startsWith('#SBATCH --cpus-per-task') ? [
       '# Cores per task: Eggline runs one worker thread per core (--jobs below follows this line).', l,
     ] : l.startsWith('#SBATCH --mem-per-cpu') ? [
-      `# Memory per core: ${MEMORY_PER_STACK} × the largest decoded stack (${size(plan.largestStackBytes)}; the bench's peak per worker`,
-      `# was at most 1.56×) + ${BASE_MIB_PER_CPU} MiB for Node and libvips.`, l,
+      `# Memory per core: ${MEMORY_PER_NEED} × what the largest file's analysis needs (${size(plan.largestNeedBytes)}, the estimate`,
+      `# --max-memory checks; the bench's peak per worker stayed below it), at least ${MIN_MIB_PER_CPU} MiB.`, l,
     ] : [l])),
     '',
     ...programLines(plan),
@@ -172,10 +174,16 @@ export function arrayScript(plan: SlurmPlan): string {
     `PARTS=${plan.parts}`,
     '# Slurm sets SLURM_ARRAY_TASK_ID; to run one part by hand, set it yourself (part K is task K-1).',
     'PART=$((${SLURM_ARRAY_TASK_ID:?is not set: submit this script with sbatch} + 1))',
+    ...(plan.batchArgs.some((a) => a.startsWith('--max-memory')) ? [] : [
+      '# Memory one file may use (--max-memory): what Slurm gave this task per core, so a file too big for it gets an',
+      '# error row instead of the task being killed.',
+      `CORES=\${SLURM_CPUS_PER_TASK:-${plan.cpusPerTask}}`,
+      `PER_FILE_MB=\${SLURM_MEM_PER_CPU:-$(( \${SLURM_MEM_PER_NODE:-$((${plan.memPerCpuMiB} * CORES))} / CORES ))}`,
+    ]),
     '',
     '# --resume: a rerun of a part (after a time limit, a node failure) reuses the files it finished, from the',
     '# journal in its parts/K-of-N folder; the first run has no journal yet and analyses every file of the part.',
-    `"$NODE" "$EGGLINE" batch ${quote([plan.folder])} --out "$OUT" --shard "$PART/$PARTS" --resume --jobs "\${SLURM_CPUS_PER_TASK:-${plan.cpusPerTask}}"${plan.batchArgs.length ? ` ${quote([...plan.batchArgs])}` : ''}`,
+    `"$NODE" "$EGGLINE" batch ${quote([plan.folder])} --out "$OUT" --shard "$PART/$PARTS" --resume --jobs "\${SLURM_CPUS_PER_TASK:-${plan.cpusPerTask}}"${plan.batchArgs.some((a) => a.startsWith('--max-memory')) ? '' : ' --max-memory "${PER_FILE_MB}M"'}${plan.batchArgs.length ? ` ${quote([...plan.batchArgs])}` : ''}`,
     'status=$?',
     '# Exit status 1: some files failed, or the run stopped early. When the part\'s run.json says it is complete, only',
     '# files failed (each has an error row, and the merge reports them): count that as success so the merge job runs.',
@@ -230,14 +238,14 @@ export function partArguments(argv: readonly string[], options: ParseArgsConfig[
   return out;
 }
 
-/** Largest decoded stack (one time point) over the files whose headers can be read, bytes (0 when none). */
-export async function largestStackBytes(paths: readonly string[]): Promise<number> {
+/** What the analysis of the largest file needs, bytes, by the estimate --max-memory checks (0 when no file opens). */
+export async function largestNeedBytes(paths: readonly string[]): Promise<number> {
   let largest = 0;
-  const width = 16;
+  const width = 8;
   for (let start = 0; start < paths.length; start += width) {
-    const infos = await Promise.all(paths.slice(start, start + width).map((p) => readStackInfoFromFile(p, p).catch(() => null)));
+    const infos = await Promise.all(paths.slice(start, start + width).map((p) => stackInfoOf(p)));
     for (const i of infos) {
-      if (i) largest = Math.max(largest, i.sizeX * i.sizeY * i.sizeZ * i.sizeC * i.samplesPerPixel * bytesPerSample(i.sampleType));
+      if (i) largest = Math.max(largest, analysisBytesEstimate(i.sizeX, i.sizeY, i.sizeC, i.sampleType, i.samplesPerPixel) + WORKER_BASE_BYTES);
     }
   }
   return largest;
@@ -260,12 +268,12 @@ export interface SlurmRequest {
 export async function writeSlurmScripts(req: SlurmRequest): Promise<{ plan: SlurmPlan; arrayPath: string; mergePath: string }> {
   const userDirectives = req.optionsText === null ? [] : parseSlurmOptions(req.optionsText);
   const files = await listStackFiles(req.folder, [req.outDir]);
-  const stats = await Promise.all(files.map((f) => fs.stat(f.path).then((s) => s.size, () => 0)));
-  const largest = await largestStackBytes(files.map((f) => f.path));
+  const stats = (await sizedFiles(files)).map((f) => f.bytes);
+  const largest = await largestNeedBytes(files.map((f) => f.path));
   const plan: SlurmPlan = {
     folder: req.folder, outDir: req.outDir, parts: req.parts, cpusPerTask: req.cpusPerTask, memPerCpuMiB: memPerCpuMiB(largest),
     mergeMemMiB: mergeMemMiB(files.length), nodePath: req.nodePath, cliPath: req.cliPath, batchArgs: req.batchArgs, mergeArgs: req.mergeArgs,
-    userDirectives, fileCount: files.length, inputBytes: stats.reduce((a, b) => a + b, 0), largestStackBytes: largest,
+    userDirectives, fileCount: files.length, inputBytes: stats.reduce((a, b) => a + b, 0), largestNeedBytes: largest,
     writtenAt: new Date().toISOString(),
   };
   await fs.mkdir(join(req.outDir, 'slurm-logs'), { recursive: true });

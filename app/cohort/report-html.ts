@@ -4,7 +4,7 @@ import { quantityLabel, slopeRatio, type CohortAnalysis, type ConditionStat } fr
 import { escapeXml, plainNumber, sigFig, valueWithCi, type NamedFigure } from '../../core/figures';
 import { flattenRecord } from './flatten-record';
 import { keySettings } from './key-settings';
-import { dosageReading, prose, r2Text, slopeVerdict, withCi } from './reading';
+import { dosageReading, prose, pText, r2Text, slopeVerdict, withCi } from './reading';
 
 /** Everything the report shows. */
 export interface ReportInput {
@@ -66,11 +66,11 @@ function summarySection(r: ReportInput): string {
     const predicted = lam ? withCi(lam.lambdaEl, lam.ciLowEl, lam.ciHighEl) : 'n/a';
     const rows = a.dosageFits.map((f): Cell[] => {
       const v = slopeVerdict(f, lam, a.options.level);
-      // Green when the ratio interval includes 1, amber otherwise.
-      return [quantityLabel(f.quantity), withCi(f.slopeEl, f.ciLow, f.ciHigh), predicted, v.ratio, { text: v.verdict, cls: v.verdict === 'consistent with the threshold model' ? 'ok' : 'off' }];
+      // Green when the ratio interval includes 1 (not rejected), amber when it excludes it.
+      return [quantityLabel(f.quantity), v.ratio, { text: v.verdict, cls: v.verdict === 'ratio 1 not rejected' ? 'ok' : 'off' }, withCi(f.slopeEl, f.ciLow, f.ciHigh), predicted];
     });
-    dosage = `<h3>Dosage test: position vs ln f</h3>${table(['quantity', `slope λ_eff, x/EL per ln f [${pct}% CI]`, 'predicted λ_ref [CI]', 'ratio λ_eff/λ_ref [CI]', 'reading'], rows, 1)}`;
-    dosage += `<p class="note">λ_ref: mean λ of the reference condition. The threshold model predicts slope = λ_ref; the ratio interval counts both uncertainties (details and caveats under <a href="#dosage">Dosage test</a>).</p>`;
+    dosage = `<h3>Dosage test: position vs ln f</h3>${table(['quantity', `ratio λ_eff/λ_ref [${pct}% CI]`, 'test of ratio = 1', `slope λ_eff, x/EL per ln f [${pct}% CI]`, 'predicted λ_ref [CI]'], rows, 1)}`;
+    dosage += `<p class="note">λ_ref: mean λ of the reference condition; the threshold model predicts slope = λ_ref, i.e. a ratio of 1. The ratio interval counts both uncertainties; "not rejected" does not mean "confirmed" (details and caveats under <a href="#dosage">Dosage test</a>).</p>`;
   }
   const warnings = r.warnings.length ? `<h3 class="warn">Warnings (${r.warnings.length})</h3><ul>${r.warnings.map((w) => `<li class="warn">${esc(w)}</li>`).join('')}</ul>` : '';
   return `<section class="summary" id="summary"><h2>Summary</h2>${files}${conds}${dosage}${warnings}</section>`;
@@ -115,28 +115,29 @@ function conditionTables(a: CohortAnalysis): string {
 function dosageSection(a: CohortAnalysis): string {
   if (a.reference === null) return '<h2 id="dosage">Dosage test</h2><p class="note">Skipped: no reference condition.</p>';
   const pct = Math.round(a.options.level * 100);
-  const fits = table(['quantity', 'slope λ_eff (x/EL per ln f)', `${pct}% CI`, 'intercept (x/EL)', 'R²', 'n', 'predicted slope λ_ref', 'λ_eff/λ_ref [CI]'],
+  const fits = table(['quantity', 'λ_eff/λ_ref [CI]', 'slope λ_eff (x/EL per ln f)', `${pct}% CI`, 'fitted to', 'dof', 'intercept (x/EL)', 'R²', 'lack of fit p', 'predicted slope λ_ref'],
     a.dosageFits.map((f) => {
       const s = valueWithCi(f.slopeEl, f.ciLow, f.ciHigh, { style: 'words' });
       const r = slopeRatio(f, a.referenceLambda, a.options.level);
       const lam = a.referenceLambda;
-      return [quantityLabel(f.quantity), s.value, s.ci, sigFig(f.interceptEl, 4), r2Text(f.r2), String(f.n),
-        lam ? withCi(lam.lambdaEl, lam.ciLowEl, lam.ciHighEl) : prose(f.predictedSlopeEl), withCi(r.ratio, r.ratioCiLow, r.ratioCiHigh)];
+      const to = f.method === 'condition-means' ? `${f.conditions} condition means` : `${f.n} embryos (HC3)`;
+      return [quantityLabel(f.quantity), withCi(r.ratio, r.ratioCiLow, r.ratioCiHigh), s.value, s.ci, to, String(f.dof), sigFig(f.interceptEl, 4), r2Text(f.r2),
+        pText(f.lackOfFit?.p), lam ? withCi(lam.lambdaEl, lam.ciLowEl, lam.ciHighEl) : prose(f.predictedSlopeEl)];
     }));
   // The two-gradient column only when a posterior gradient was given.
   const two = a.options.lambdaPosteriorEl !== null;
-  const shifts = table(['quantity', 'condition', 'ln f', 'observed Δx', `${pct}% CI`, 'predicted Δx', 'CI', ...(two ? ['two gradients'] : []), 'ratio', 'CI'],
+  const shifts = table(['quantity', 'condition', 'ln f', 'observed Δx', `${pct}% CI`, 'predicted Δx', 'CI', ...(two ? ['two gradients'] : []), 'ratio', 'CI', 'p (ratio = 1)', 'Holm p'],
     a.shifts.map((s) => {
       const o = valueWithCi(s.observedShiftEl, s.ciLow, s.ciHigh, { signed: true, style: 'words' });
       const p = s.predictedShiftEl === null ? { value: 'n/a', ci: 'n/a' } : valueWithCi(s.predictedShiftEl, s.predictedCiLow, s.predictedCiHigh, { signed: true, style: 'words' });
       const q = s.ratio === null ? { value: 'n/a', ci: 'n/a' } : valueWithCi(s.ratio, s.ratioCiLow, s.ratioCiHigh, { style: 'words' });
       return [quantityLabel(s.quantity), s.condition, s.lnF === null ? 'n/a' : sigFig(s.lnF, 3), o.value, o.ci, p.value, p.ci,
-        ...(two ? [s.predictedTwoGradientEl === null ? 'n/a' : sigFig(s.predictedTwoGradientEl, 3, true)] : []), q.value, q.ci];
+        ...(two ? [s.predictedTwoGradientEl === null ? 'n/a' : sigFig(s.predictedTwoGradientEl, 3, true)] : []), q.value, q.ci, pText(s.pRatio), pText(s.pRatioHolm)];
     }), 2);
   const reading = dosageReading(a);
   const findings = reading.findings.map((f) => `<h4>${esc(f.label)}</h4>${f.sentences.map((s) => `<p>${esc(s)}</p>`).join('')}`).join('');
   return `<h2 id="dosage">Dosage test</h2><p>A boundary set by a fixed threshold on an exponential gradient moves by Δx = λ·ln f when the dosage changes by a factor f (f &gt; 1: posterior). Shifts are in x/EL relative to the reference.</p>`
-    + `<h3>Position vs ln f (all embryos)</h3>${fits}<h3>Shift per condition</h3>${shifts}<h3>Reading</h3>${findings}<h3>Caveats</h3><ul>${reading.caveats.map((c) => `<li>${esc(c)}</li>`).join('')}</ul>`;
+    + `<h3>Position vs ln f</h3>${fits}<h3>Shift per condition</h3>${shifts}<h3>Reading</h3>${findings}<h3>Caveats</h3><ul>${reading.caveats.map((c) => `<li>${esc(c)}</li>`).join('')}</ul>`;
 }
 
 /** Build the report HTML. */

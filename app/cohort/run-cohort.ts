@@ -24,6 +24,8 @@ export interface CohortStepOptions {
   readonly normalisation?: Normalisation;
   /** Decay length of an opposing posterior gradient, x/EL, for the two-gradient prediction. */
   readonly lambdaPosteriorEl?: number | null;
+  /** Equivalence margin of the ratio observed/predicted (see CohortOptions). */
+  readonly equivalenceMargin?: number | null;
   readonly filenameRule?: FilenameRule;
 }
 
@@ -73,7 +75,7 @@ export async function runCohortStep(opts: CohortStepOptions): Promise<CohortStep
   const warnings: string[] = [];
   const sheet = await loadSheet(opts, warnings);
   const analysis = analyseCohort(opts.results, sheet, {
-    reference: opts.reference, normalisation: opts.normalisation ?? 'none', lambdaPosteriorEl: opts.lambdaPosteriorEl ?? null,
+    reference: opts.reference, normalisation: opts.normalisation ?? 'none', lambdaPosteriorEl: opts.lambdaPosteriorEl ?? null, equivalenceMargin: opts.equivalenceMargin ?? null,
   });
   warnings.push(...analysis.warnings);
   const figures = cohortFigures(analysis);

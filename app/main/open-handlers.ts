@@ -3,7 +3,7 @@ import { promises as fs } from 'node:fs';
 import { join } from 'node:path';
 import type { FolderEntry, OpenedFolder, OpenedRecent, ProjectDoc } from '../../core/contract';
 import { isStackFileName, isStackFolderName } from '../../core/batch';
-import { loadProject, newProject, PROJECT_FILE_NAME } from '../project';
+import { cleanInterruptedSaves, loadProjectOrBackup, newProject, PROJECT_FILE_NAME } from '../project';
 import { requirePath } from './args';
 import type { ShellContext } from './context';
 import { fileEntries, folderEntries } from './folder-entries';
@@ -20,15 +20,27 @@ export async function openFolder(ctx: ShellContext, folder: string): Promise<Ope
   if (!stat.isDirectory()) throw new ApiFailure('bad-argument', `${labelOf(folder)}: is not a folder`);
   const projectPath = join(folder, PROJECT_FILE_NAME);
   const exists = await fs.stat(projectPath).then((s) => s.isFile(), () => false);
-  // A damaged project is reported, never replaced: the user's hand work is in it.
-  const loaded: ProjectDoc = exists ? await loadProject(projectPath) : newProject(folder);
-  const project = { ...loaded, folder };
+  // A damaged project is reported, never replaced: the user's hand work is in it. When its backup loads, that is
+  // opened with a warning, and the damaged file is kept aside (the next save replaces it and its .bak).
+  const loaded = exists ? await openSafely(projectPath) : { doc: newProject(folder), warning: null };
+  const project = { ...loaded.doc, folder };
   ctx.allow.allowTree('read', folder);
   ctx.allow.allowFile('project', projectPath);
   await allowRecordedOutput(ctx, project.batchOutDir);
   const entries = await folderEntries(folder, project);
   await ctx.noteRecent(folder);
-  return { folder, entries, project, projectPath };
+  return { folder, entries, project, projectPath, warning: loaded.warning };
+}
+
+/** Clean up after interrupted saves, then load the project or, when it is unreadable, its backup (keeping a copy of
+ *  the unreadable file as `<name>.unreadable`, since the next save replaces both the file and its .bak). */
+async function openSafely(projectPath: string): Promise<{ doc: ProjectDoc; warning: string | null }> {
+  await cleanInterruptedSaves(projectPath);
+  const loaded = await loadProjectOrBackup(projectPath);
+  if (loaded.warning === null) return loaded;
+  const aside = `${projectPath}.unreadable`;
+  await fs.copyFile(projectPath, aside).catch(() => undefined);
+  return { doc: loaded.doc, warning: `${loaded.warning}; the unreadable file is kept as ${labelOf(aside)}` };
 }
 
 /** Allow loose stack files (and OME-Zarr folders) and list them; files that are not stacks or not readable come back with status 'error'. */
@@ -62,18 +74,20 @@ export async function openDropped(ctx: ShellContext, value: unknown): Promise<Fo
 }
 
 /** Open a project file: allow it and its folder, list the folder (or the project's own files when it has none). */
-export async function openProjectFile(ctx: ShellContext, projectPath: string): Promise<{ project: ProjectDoc; projectPath: string; entries: FolderEntry[] }> {
-  const project = await loadProject(projectPath);
+export async function openProjectFile(
+  ctx: ShellContext, projectPath: string,
+): Promise<{ project: ProjectDoc; projectPath: string; entries: FolderEntry[]; warning: string | null }> {
+  const { doc: project, warning } = await openSafely(projectPath);
   ctx.allow.allowFile('project', projectPath);
   if (project.folder === null) {
-    return { project, projectPath, entries: await openFiles(ctx, Object.keys(project.files)) };
+    return { project, projectPath, entries: await openFiles(ctx, Object.keys(project.files)), warning };
   }
   const isDir = await fs.stat(project.folder).then((s) => s.isDirectory(), () => false);
   if (!isDir) throw new ApiFailure('not-found', `${labelOf(projectPath)}: its image folder ${project.folder} is missing`);
   ctx.allow.allowTree('read', project.folder);
   await allowRecordedOutput(ctx, project.batchOutDir);
   await ctx.noteRecent(project.folder);
-  return { project, projectPath, entries: await folderEntries(project.folder, project) };
+  return { project, projectPath, entries: await folderEntries(project.folder, project), warning };
 }
 
 /** Reopen a path from the recent list; any other path is refused. */

@@ -4,6 +4,6 @@ export { PROJECT_SCHEMA, PROJECT_VERSION, checkProjectDoc, checkFileEdits } from
 export { checkSettings, checkRangeEl } from './check-settings';
 export { writeFileAtomic, type AtomicWriteOptions } from './atomic-write';
 export {
-  loadProject, saveProject, serializeProject, projectKeyFor, pathForProjectKey, toPortablePath, MAX_PROJECT_BYTES,
+  loadProject, loadProjectOrBackup, cleanInterruptedSaves, type LoadedProject, saveProject, serializeProject, projectKeyFor, pathForProjectKey, toPortablePath, MAX_PROJECT_BYTES,
 } from './project-file';
 export { newProject, PROJECT_FILE_NAME } from './new-project';

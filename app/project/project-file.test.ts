@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { ProjectDoc } from '../../core/contract';
 import { DEFAULT_SETTINGS } from '../../core/settings';
-import { loadProject, saveProject, projectKeyFor, pathForProjectKey } from './project-file';
+import { cleanInterruptedSaves, loadProject, loadProjectOrBackup, saveProject, projectKeyFor, pathForProjectKey } from './project-file';
 import { newProject } from './new-project';
 
 let dir: string;
@@ -55,12 +55,41 @@ describe('project files', () => {
     expect(Object.keys((await loadProject(path)).files)).toEqual(['a.tif']);
   });
 
-  it('resolves a relative folder against the project file, so moved projects still open', async () => {
+  it('opens only a project whose folder is the folder it sits in (a moved folder with its project still opens)', async () => {
     await mkdir(join(dir, 'images'));
     const path = join(dir, 'p.json');
     await saveProject(path, demoDoc(join(dir, 'images')));
     expect(JSON.parse(await readFile(path, 'utf8')).folder).toBe('images');
-    expect((await loadProject(path)).folder).toBe(join(dir, 'images'));
+    await expect(loadProject(path)).rejects.toThrow('p.json: its folder must be the folder the project file is in (".") but is "images"');
+    await writeFile(path, JSON.stringify({ ...JSON.parse(await readFile(path, 'utf8')), folder: '/' }));
+    await expect(loadProject(path)).rejects.toThrow('p.json: its folder must be the folder the project file is in (".") but is "/"');
+    const moved = join(dir, 'images', 'eggline-project.json');
+    await saveProject(moved, demoDoc(join(dir, 'images')));
+    expect((await loadProject(moved)).folder).toBe(join(dir, 'images'));
+  });
+
+  it('falls back to the backup when the project file is unreadable, saying so; fails when both are', async () => {
+    const path = join(dir, 'eggline-project.json');
+    await saveProject(path, demoDoc(dir));
+    await saveProject(path, { ...demoDoc(dir), files: {} });
+    await writeFile(path, '{"schema": "eggline-proj'); // cut by a crash (demo data)
+    const loaded = await loadProjectOrBackup(path);
+    expect(Object.keys(loaded.doc.files)).toEqual(['sub/embryo-01.ome.tif']);
+    expect(loaded.doc.folder).toBe(dir);
+    expect(loaded.warning).toMatch(/^eggline-project\.json is unreadable \(not valid JSON \(.+\)\); opened its backup eggline-project\.json\.bak instead, so the latest edits may be missing$/);
+    await writeFile(`${path}.bak`, 'garbage');
+    await expect(loadProjectOrBackup(path)).rejects.toThrow(/^eggline-project\.json: not valid JSON/);
+  });
+
+  it('removes the temporary files of interrupted saves, but not those of a save still running', async () => {
+    const path = join(dir, 'eggline-project.json');
+    await saveProject(path, demoDoc(dir));
+    // PIDs above the Linux maximum (2**22, from memory: proc(5) pid_max) belong to no process.
+    const dead = ['.eggline-project.json.4999999.0a1b2c3d.tmp', '.eggline-project.json.bak.4999998.00ff00ff.tmp'];
+    const live = `.eggline-project.json.${process.ppid}.12345678.tmp`;
+    for (const f of [...dead, live, '.other.json.4999999.0a1b2c3d.tmp']) await writeFile(join(dir, f), 'partial');
+    expect((await cleanInterruptedSaves(path)).sort()).toEqual([...dead].sort());
+    expect((await readdir(dir)).sort()).toEqual(['.eggline-project.json.' + process.ppid + '.12345678.tmp', '.other.json.4999999.0a1b2c3d.tmp', 'eggline-project.json']);
   });
 
   it('refuses corrupt and foreign files with one-line messages naming the file', async () => {

@@ -1,7 +1,7 @@
 // Reading and writing project files. On disk the folder is stored relative to the project file, and file keys
 // relative to the folder, so a project moved together with its images still opens.
 import { promises as fs } from 'node:fs';
-import { basename, dirname, isAbsolute, relative, resolve, sep } from 'node:path';
+import { basename, dirname, isAbsolute, join, relative, resolve, sep } from 'node:path';
 import type { ProjectDoc } from '../../core/contract';
 import { checkProjectDoc } from './check-project';
 import { ProjectFormatError } from './format-error';
@@ -50,6 +50,10 @@ export async function loadProject(projectPath: string): Promise<ProjectDoc> {
   }
   const base = dirname(resolve(projectPath));
   const folder = doc.folder === null ? null : resolve(base, doc.folder);
+  // The folder grants reading every file under it in the window: only the project's own folder may be named.
+  if (folder !== null && folder !== base) {
+    throw new ProjectFormatError(`${name}: its folder must be the folder the project file is in (".") but is ${JSON.stringify(doc.folder)}`);
+  }
   return doc.batchOutDir === null || doc.batchOutDir === undefined ? { ...doc, folder } : { ...doc, folder, batchOutDir: resolve(base, doc.batchOutDir) };
 }
 
@@ -58,6 +62,59 @@ function relativeToProject(projectPath: string, dir: string | null): string | nu
   if (dir === null) return null;
   const rel = toPortablePath(relative(dirname(resolve(projectPath)), resolve(dir)) || '.');
   return isAbsolute(rel) ? resolve(dir) : rel;
+}
+
+/** Temporary files an interrupted save of `name` leaves beside it (the atomic writer's `.<name>.<pid>.<hex>.tmp`,
+ *  and the same for its `.bak`). */
+function interruptedSaveName(file: string, name: string): number | null {
+  const m = /^\.(.+)\.(\d+)\.[0-9a-f]{8}\.tmp$/.exec(file);
+  return m && (m[1] === name || m[1] === `${name}.bak`) ? Number(m[2]) : null;
+}
+
+/** True when process `pid` is running (on this machine). */
+function isRunning(pid: number): boolean {
+  try { process.kill(pid, 0); return true; } catch (e) { return (e as NodeJS.ErrnoException).code === 'EPERM'; }
+}
+
+/** Remove the temporary files that saves of `projectPath` interrupted by a crash or kill left in its folder (those of
+ *  a process still running are its saves in progress, and are left alone). Returns the names removed. */
+export async function cleanInterruptedSaves(projectPath: string): Promise<string[]> {
+  const dir = dirname(resolve(projectPath));
+  const name = basename(projectPath);
+  const removed: string[] = [];
+  for (const file of await fs.readdir(dir).catch(() => [] as string[])) {
+    const pid = interruptedSaveName(file, name);
+    if (pid === null || pid === process.pid || isRunning(pid)) continue;
+    await fs.rm(join(dir, file), { force: true }).then(() => removed.push(file), () => undefined);
+  }
+  return removed;
+}
+
+/** A loaded project, and a warning when it came from the backup because the project file itself was unreadable. */
+export interface LoadedProject {
+  readonly doc: ProjectDoc;
+  readonly path: string;
+  readonly warning: string | null;
+}
+
+/** Load a project; when the file is unreadable (damaged JSON, invalid content) and `<path>.bak` loads, use the backup
+ *  and say so in `warning`. When both fail, throws the project file's own error. */
+export async function loadProjectOrBackup(projectPath: string): Promise<LoadedProject> {
+  try {
+    return { doc: await loadProject(projectPath), path: projectPath, warning: null };
+  } catch (e) {
+    if (!(e instanceof ProjectFormatError)) throw e;
+    const backup = await loadBackup(`${projectPath}.bak`, projectPath);
+    if (backup === null) throw e;
+    const why = e.message.startsWith(`${basename(projectPath)}: `) ? e.message.slice(basename(projectPath).length + 2) : e.message;
+    return { doc: backup, path: projectPath, warning: `${basename(projectPath)} is unreadable (${why}); opened its backup ${basename(projectPath)}.bak instead, so the latest edits may be missing` };
+  }
+}
+
+/** The backup as a project of the main file's folder, or null when it is missing or unreadable too. */
+async function loadBackup(bakPath: string, projectPath: string): Promise<ProjectDoc | null> {
+  const doc = await loadProject(bakPath).catch(() => null);
+  return doc === null ? null : { ...doc, folder: doc.folder === null ? null : dirname(resolve(projectPath)) };
 }
 
 /** The JSON text stored for a document: folder relative to the project file, file keys relative to the folder. */

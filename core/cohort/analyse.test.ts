@@ -57,7 +57,7 @@ describe('analyseCohort', () => {
 
 describe('checkCohortOptions', () => {
   it('fills defaults', () => {
-    expect(checkCohortOptions()).toEqual({ reference: null, normalisation: 'none', lambdaPosteriorEl: null, gridStepEl: 0.01, slopeHalfWidthEl: 0.04, level: 0.95 });
+    expect(checkCohortOptions()).toEqual({ reference: null, normalisation: 'none', lambdaPosteriorEl: null, gridStepEl: 0.01, slopeHalfWidthEl: 0.04, level: 0.95, equivalenceMargin: null });
   });
   it('rejects bad options with exact messages', () => {
     // Source: demo data

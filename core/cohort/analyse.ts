@@ -4,6 +4,7 @@ import { assignConditions } from './assign';
 import { conditionStats } from './condition-stats';
 import { dosageFits, lambdaTrend, measuredDosages } from './dosage-fit';
 import { referenceLambda, shiftRows } from './dosage-test';
+import { conditionReliability, fitRangesUsed } from './reliability';
 import { observationsOf } from './observations';
 import { checkCohortOptions } from './options';
 import { conditionProfile } from './profiles';
@@ -30,5 +31,8 @@ export function analyseCohort(results: readonly EmbryoResult[], sheet: SampleShe
     if (r.profile) profiles.push(r.profile);
   }
   return { options: opts, conditions, reference, referenceLambda: lambda, observations, stats, shifts, dosageFits: fits,
-    measuredDosages: measured, lambdaTrend: lambdaTrend(observations, opts.level), profiles, warnings };
+    measuredDosages: measured, lambdaTrend: lambdaTrend(observations, opts.level),
+    reliability: conditionReliability(assignment.groups, observations),
+    fitRanges: fitRangesUsed(assignment.groups.flatMap((g) => g.embryos)),
+    sheetColumns: [...new Set(sheet.rows.flatMap((r) => Object.keys(r.extra)))], profiles, warnings };
 }

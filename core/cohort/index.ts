@@ -21,3 +21,5 @@ export { gridEl, interpolateOnGrid, normaliseProfile, centralSlope, conditionPro
 export { analyseCohort } from './analyse';
 export { conditionsCsv, shiftsCsv, dosageFitCsv, positionalErrorCsv } from './tables';
 export { makeDemoCohort, type DemoCohortSpec } from './demo-cohort';
+export { conditionReliability, fitRangesUsed, lambdaPositionCorrelation, LAMBDA_RELATIVE_SE_LIMIT } from './reliability';
+export type { ConditionReliability, FitRangeUse } from '../model';

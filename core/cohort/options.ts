@@ -26,5 +26,9 @@ export function checkCohortOptions(options: CohortOptions = {}): ResolvedCohortO
   if (!(Number.isFinite(level) && level > 0 && level < 1)) throw new CohortError('level must be a number in (0, 1)');
   const reference = options.reference ?? null;
   if (reference !== null && reference.trim() === '') throw new CohortError('reference must be a non-empty condition name');
-  return { reference, normalisation, lambdaPosteriorEl, gridStepEl, slopeHalfWidthEl, level };
+  const equivalenceMargin = options.equivalenceMargin ?? null;
+  if (equivalenceMargin !== null && !(Number.isFinite(equivalenceMargin) && equivalenceMargin > 0 && equivalenceMargin < 1)) {
+    throw new CohortError('equivalenceMargin must be a number in (0, 1)');
+  }
+  return { reference, normalisation, lambdaPosteriorEl, gridStepEl, slopeHalfWidthEl, level, equivalenceMargin };
 }

@@ -150,7 +150,7 @@ export interface EgglineApi {
   /** Save the project atomically at its path. */
   saveProject(projectPath: string, doc: ProjectDoc): Promise<ApiResult<{ savedAt: string }>>;
   /** Native dialog: open a project file. */
-  openProject(): Promise<ApiResult<{ project: ProjectDoc; projectPath: string; entries: FolderEntry[] } | null>>;
+  openProject(): Promise<ApiResult<{ project: ProjectDoc; projectPath: string; entries: FolderEntry[]; warning?: string | null } | null>>;
   /** Start a batch over a folder with the given settings and hand edits; progress arrives via onBatchProgress. */
   runBatch(folder: string, outDir: string, doc: ProjectDoc): Promise<ApiResult<BatchSummary>>;
   cancelBatch(runId: string): Promise<ApiResult<null>>;
@@ -181,6 +181,8 @@ export interface OpenedFolder {
   readonly entries: FolderEntry[];
   readonly project: ProjectDoc;
   readonly projectPath: string;
+  /** Shown to the user when set: e.g. the project file was unreadable and its backup was opened instead. */
+  readonly warning?: string | null;
 }
 
 /** What reopening a recent path gives: a folder with its project, or loose stack files. */

@@ -11,3 +11,4 @@ export { straightenPlane } from './straighten';
 export { endMeans, chooseAnterior } from './orientation';
 export { detectEmbryo } from './detect';
 export type { EmbryoDetection } from './detect';
+export { distanceOutsideMaskPx } from './outside';

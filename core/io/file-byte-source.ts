@@ -1,5 +1,6 @@
 // A ByteSource over a file on disk using positional reads (a large stack is never read whole).
-import { open, type FileHandle } from 'node:fs/promises';
+import type { FileHandle } from 'node:fs/promises';
+import { openRegularFile } from './open-regular';
 import { TiffError, type ByteSource } from '../tiff';
 
 /** A ByteSource that owns an open file handle. */
@@ -11,6 +12,7 @@ function describeFsError(err: unknown): string {
   if (code === 'ENOENT') return 'no such file';
   if (code === 'EACCES' || code === 'EPERM') return 'permission denied';
   if (code === 'EISDIR') return 'is a folder, not a file';
+  if (code === 'ESPECIAL') return (err as Error).message;
   return err instanceof Error ? err.message : String(err);
 }
 
@@ -18,8 +20,9 @@ function describeFsError(err: unknown): string {
 export async function openFileByteSource(path: string, fileLabel: string = path): Promise<FileByteSource> {
   let handle: FileHandle | undefined;
   try {
-    handle = await open(path, 'r');
-    const stats = await handle.stat();
+    const opened = await openRegularFile(path);
+    handle = opened.handle;
+    const stats = opened.stats;
     if (stats.isDirectory()) throw Object.assign(new Error('is a folder'), { code: 'EISDIR' });
     return fileSource(handle, stats.size);
   } catch (err) {

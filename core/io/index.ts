@@ -3,4 +3,5 @@ export { openFileByteSource, type FileByteSource } from './file-byte-source';
 export { openStackFile, readStackInfoFromFile, type OpenStackOptions } from './open-stack';
 export { inflateChunk, inflateChunkAsync, NODE_CHUNK_CODECS } from './node-codecs';
 export { openZarrFolderStore, isFolder } from './zarr-folder-store';
+export { openRegularFile, specialFileKind } from './open-regular';
 export { inflateZarrChunk } from './zarr-inflate';

@@ -1,7 +1,8 @@
 // A read-only Zarr store over a folder on disk (one file per key), for the OME-Zarr reader in core/zarr.
-import { open, stat } from 'node:fs/promises';
+import { stat } from 'node:fs/promises';
 import { join, sep } from 'node:path';
 import { ZarrError, type ZarrStore } from '../zarr';
+import { openRegularFile } from './open-regular';
 
 /** Largest single file (chunk or metadata) read from a store; a bigger one is damaged or not a chunk. */
 const MAX_FILE_BYTES = 2 ** 31 - 1;
@@ -23,8 +24,9 @@ function isMissing(err: unknown): boolean {
 async function readWhole(path: string, key: string): Promise<Uint8Array | undefined> {
   let handle;
   try {
-    handle = await open(path, 'r');
-    const stats = await handle.stat();
+    const opened = await openRegularFile(path);
+    handle = opened.handle;
+    const stats = opened.stats;
     if (stats.isDirectory()) return undefined;
     if (stats.size > MAX_FILE_BYTES) throw new Error(`${key.slice(1)} is ${stats.size} bytes, larger than any chunk Eggline reads`);
     const bytes = await handle.readFile();
@@ -41,8 +43,9 @@ async function readWhole(path: string, key: string): Promise<Uint8Array | undefi
 async function readRange(path: string, range: { offset: number; length: number } | { suffixLength: number }): Promise<Uint8Array | undefined> {
   let handle;
   try {
-    handle = await open(path, 'r');
-    const size = (await handle.stat()).size;
+    const opened = await openRegularFile(path);
+    handle = opened.handle;
+    const size = opened.stats.size;
     const [offset, length] = 'suffixLength' in range ? [Math.max(0, size - range.suffixLength), Math.min(range.suffixLength, size)] : [range.offset, range.length];
     const out = new Uint8Array(Math.max(0, Math.min(length, size - offset)));
     const { bytesRead } = await handle.read(out, 0, out.length, offset);

@@ -212,6 +212,9 @@ export interface CohortOptions {
   readonly slopeHalfWidthEl?: number;
   /** Confidence level of every interval; default 0.95. */
   readonly level?: number;
+  /** Equivalence margin m for the ratio observed/predicted: equivalence to 1 is shown when the (1 − 2α) interval
+   *  lies inside [1 − m, 1 + m] (two one-sided tests); default none. */
+  readonly equivalenceMargin?: number | null;
 }
 
 /** Options with every default filled in. */
@@ -222,6 +225,7 @@ export interface ResolvedCohortOptions {
   readonly gridStepEl: number;
   readonly slopeHalfWidthEl: number;
   readonly level: number;
+  readonly equivalenceMargin: number | null;
 }
 
 /** Everything the cohort step computes. */
@@ -238,6 +242,33 @@ export interface CohortAnalysis {
   readonly measuredDosages: readonly MeasuredDosage[];
   /** λ (x/EL) of the condition means against ln f: the threshold model assumes dosage leaves λ unchanged. */
   readonly lambdaTrend: SlopeSummary | null;
+  /** Per condition: usable and imprecise λ fits, median λ, detection counts of each position. */
+  readonly reliability: readonly ConditionReliability[];
+  /** The x/EL fit ranges the embryos' λ fits used, most used first. */
+  readonly fitRanges: readonly FitRangeUse[];
+  /** Free columns of the sample sheet (e.g. stage, batch), by header name. */
+  readonly sheetColumns: readonly string[];
   readonly profiles: readonly ConditionProfile[];
   readonly warnings: readonly string[];
+}
+
+/** Reliability summary of one condition (see core/cohort reliability). */
+export interface ConditionReliability {
+  readonly condition: string;
+  readonly embryos: number;
+  /** Embryos with a fitted λ. */
+  readonly lambdaFitted: number;
+  /** Of those, how many have SE(λ)/|λ| above the limit (25%). */
+  readonly lambdaImprecise: number;
+  readonly lambdaMeanEl: number;
+  readonly lambdaMedianEl: number;
+  /** Per position quantity: embryos in which it was found (of `embryos`). */
+  readonly detected: Readonly<Record<string, number>>;
+}
+
+/** An x/EL fit range and how many embryos used it. */
+export interface FitRangeUse {
+  readonly startEl: number;
+  readonly endEl: number;
+  readonly embryos: number;
 }

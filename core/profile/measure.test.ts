@@ -52,6 +52,20 @@ describe('measureEmbryo', () => {
     expect(m.warnings).toEqual([]);
   });
 
+  it('warns when a pole lies outside the embryo, with the distance and the egg length it gives (demo data)', () => {
+    const { projected, detection } = scene(2);
+    const s = settings();
+    const prepared = prepareSampling(projected, detection, s);
+    // The posterior pole dragged to x = 249.5, 30.5 px from the last mask pixel centre (x = 219): 61 µm outside; the
+    // axis from x 19.5 to 249.5 is 230 px = 460 µm.
+    const off = { ...detection.axis, posterior: { x: 249.5, y: 59.5 }, source: 'hand' as const };
+    const m = measureEmbryo(prepared, off, s, []);
+    expect(m.warnings).toEqual(['the posterior pole lies 61 µm outside the embryo outline, so the egg length (460 µm, pole to pole) is too long; move the pole onto the embryo\'s end']);
+    // Within the slack (2 px + 2% of the axis) the pole counts as on the embryo.
+    const near = { ...detection.axis, posterior: { x: 222.5, y: 59.5 }, source: 'hand' as const };
+    expect(measureEmbryo(prepared, near, s, []).warnings).toEqual([]);
+  });
+
   it('samples only the chosen side and the axis strip', () => {
     const { projected, detection } = scene(1);
     const n = (s: AnalysisSettings) => measureEmbryo(prepareSampling(projected, detection, s), detection.axis, s, []).gradientProfile!.n.reduce((a, v) => a + v, 0);

@@ -1,9 +1,9 @@
 // Measure one embryo along a given AP axis: profiles, exponential fit, boundaries and landmark positions.
 // Fast enough for live use: everything independent of the axis was done by prepareSampling.
-import type { ApAxis, EmbryoResult, ExponentialFit, Landmark, Profile } from '../model';
+import type { ApAxis, EmbryoResult, ExponentialFit, Landmark, Mask, Profile } from '../model';
 import type { AnalysisSettings, ChannelRef } from '../settings';
 import { describeChannelRef, resolveChannel } from '../image';
-import { axisLengthPx, projectPointOntoAxis } from '../geometry';
+import { axisLengthPx, distanceOutsideMaskPx, projectPointOntoAxis } from '../geometry';
 import { findBoundaries, fitExponentialDecay } from '../fit';
 import type { PreparedSampling } from './prepare';
 import { binIndices, binProfile } from './bin';
@@ -77,6 +77,29 @@ function resolveRefs(refs: readonly ChannelRef[], names: readonly string[], role
   return out;
 }
 
+/** Slack before a pole counts as outside the embryo: 2 px plus 2% of the axis length (the automatic poles lie on the
+ *  outline, within a pixel or two of a mask pixel). */
+export function poleSlackPx(axisPx: number): number {
+  return 2 + 0.02 * axisPx;
+}
+
+/** Warnings for poles that lie outside the embryo's mask by more than the slack (egg length is pole to pole, so it
+ *  is too long then). Lengths in µm when the pixel size is known, else px. */
+export function polesOutsideWarnings(mask: Mask, axis: ApAxis, pixelSizeUm: number | null): string[] {
+  const axisPx = axisLengthPx(axis);
+  const slack = poleSlackPx(axisPx);
+  const len = (v: number): string => (pixelSizeUm !== null ? `${Math.round(v * pixelSizeUm)} µm` : `${Math.round(v)} px`);
+  const out: string[] = [];
+  for (const end of ['anterior', 'posterior'] as const) {
+    const d = distanceOutsideMaskPx(mask, axis[end], axisPx);
+    if (d > slack) {
+      const how = Number.isFinite(d) ? `${len(d)} outside` : 'far outside';
+      out.push(`the ${end} pole lies ${how} the embryo outline, so the egg length (${len(axisPx)}, pole to pole) is too long; move the pole onto the embryo's end`);
+    }
+  }
+  return out;
+}
+
 /**
  * Measure along `axis` with the prepared pixels: binned profiles of the gradient and boundary channels (edge band or
  * axis strip, background subtracted), the exponential fit of the gradient, boundaries per boundary channel and the
@@ -86,6 +109,7 @@ export function measureEmbryo(prepared: PreparedSampling, axis: ApAxis, settings
   checkSamplingSettings(settings);
   const warnings: string[] = [...prepared.warnings];
   const px = prepared.pixelSizeUm;
+  warnings.push(...polesOutsideWarnings(prepared.mask, axis, px));
   const axisPx = axisLengthPx(axis);
   const eggLengthUm = px !== null ? axisPx * px : null;
   const prof = settings.profile;

@@ -2,6 +2,7 @@
 // declare their decoded size in a header, which is checked before decoding; zlib and gzip streams declare none, so
 // they are decoded by an inflater that stops at the chunk's size when the caller supplies one (node:zlib in core/io).
 import * as zarr from 'zarrita';
+import { decodeBloscLz4 } from './blosc-lz4';
 
 /** Decoded size a Blosc stream declares (its header's nbytes), or null when the stream is too short to say. */
 export function declaredBloscBytes(bytes: Uint8Array): number | null {
@@ -64,7 +65,8 @@ const inflateBounded = new WeakSet<object>();
 
 /**
  * Installs the size checks in zarrita's codec registry (its documented extension point; each part once per
- * registry): Blosc and Zstandard headers checked, zlib and gzip through `inflate` when given.
+ * registry): Blosc and Zstandard headers checked (Blosc-LZ4 then decoded in TypeScript), zlib and gzip through
+ * `inflate` when given.
  */
 export function guardZarrCodecs(inflate?: BoundedInflate): void {
   const registry = zarr.registry as unknown as Map<string, Loader>;
@@ -76,7 +78,8 @@ export function guardZarrCodecs(inflate?: BoundedInflate): void {
 function guardHeaders(registry: Map<string, Loader>): void {
   for (const name of ['blosc', 'numcodecs.blosc']) {
     const load = registry.get(name);
-    if (load) registry.set(name, guarded(load, (b, max) => refuseDeclared(declaredBloscBytes(b), max, 'Blosc')));
+    // LZ4 inside Blosc (the common case) is decoded in TypeScript, the rest by numcodecs (see blosc-lz4.ts).
+    if (load) registry.set(name, guarded(load, (b, max) => refuseDeclared(declaredBloscBytes(b), max, 'Blosc') ?? decodeBloscLz4(b)));
   }
   for (const name of ['zstd', 'numcodecs.zstd']) {
     const load = registry.get(name);

@@ -9,3 +9,4 @@ export { readJson, trackMissingChunks, isMetadataKey, MAX_METADATA_BYTES, type Z
 export { openOmeZarr, type OpenedZarr, type OpenZarrOptions, type ZarrDetails } from './open-zarr';
 export { describeZarr } from './describe';
 export { guardZarrCodecs, declaredBloscBytes, declaredZstdBytes, type BoundedInflate } from './decode-guard';
+export { decodeBloscLz4, unshuffleBytes } from './blosc-lz4';

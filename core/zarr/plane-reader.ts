@@ -60,6 +60,23 @@ function copyBlock(out: PixelArray, width: number, chunk: DecodedChunk, base: nu
   }
 }
 
+/** Offset of element `index` inside the chunk at `coords`, along the dimensions other than x and y. */
+function planeBase(chunk: DecodedChunk, shape: readonly number[], chunks: readonly number[], roles: AxisRoles, index: readonly number[], coords: readonly number[]): number {
+  let base = 0;
+  for (let d = 0; d < shape.length; d++) if (d !== roles.x && d !== roles.y) base += (index[d] - coords[d] * chunks[d]) * chunk.stride[d];
+  return base;
+}
+
+/**
+ * The plane as a view of the chunk when one chunk holds it with its rows contiguous (the usual one-plane chunks):
+ * no copy. Planes are read, never written, by the analysis. Null when the plane must be copied out.
+ */
+function contiguousPlane(chunk: DecodedChunk, shape: readonly number[], chunks: readonly number[], roles: AxisRoles, index: readonly number[], coords: readonly number[]): PixelArray | null {
+  if (chunk.stride[roles.x] !== 1 || chunk.stride[roles.y] !== chunks[roles.x]) return null;
+  const base = planeBase(chunk, shape, chunks, roles, index, coords);
+  return chunk.data.subarray(base, base + chunks[roles.x] * chunks[roles.y]) as PixelArray;
+}
+
 /** Options of createChunkPlaneSource. */
 export interface ChunkPlaneOptions {
   /** Decoded chunks kept for reuse by later planes (at least one plane's worth is always kept). */
@@ -102,14 +119,19 @@ export function createChunkPlaneSource(array: ChunkedArray, roles: AxisRoles, ty
         throw new RangeError(`plane (z=${z}, c=${c}, t=${t}) is outside the stack (Z ${sizes.z}, C ${sizes.c}, T ${sizes.t})`);
       }
       const index = shape.map((_, d) => (d === roles.z ? z : d === roles.c ? c : d === roles.t ? t : 0));
+      if (chunks[roles.x] === width && chunks[roles.y] === height) {
+        const coords = index.map((i, d) => (d === roles.y || d === roles.x ? 0 : Math.floor(i / chunks[d])));
+        const chunk = await cached(coords.join(','), () => load(coords));
+        const view = contiguousPlane(chunk, shape, chunks, roles, index, coords);
+        if (view) return { width, height, data: view };
+      }
       const out = new ARRAYS[type](width * height);
       const jobs: Promise<void>[] = [];
       for (let cy = 0; cy * chunks[roles.y] < height; cy++) {
         for (let cx = 0; cx * chunks[roles.x] < width; cx++) {
           const coords = index.map((i, d) => (d === roles.y ? cy : d === roles.x ? cx : Math.floor(i / chunks[d])));
           jobs.push(cached(coords.join(','), () => load(coords)).then((chunk) => {
-            let base = 0;
-            for (let d = 0; d < shape.length; d++) if (d !== roles.x && d !== roles.y) base += (index[d] - coords[d] * chunks[d]) * chunk.stride[d];
+            const base = planeBase(chunk, shape, chunks, roles, index, coords);
             const y0 = cy * chunks[roles.y];
             const x0 = cx * chunks[roles.x];
             copyBlock(out, width, chunk, base, chunk.stride[roles.y], chunk.stride[roles.x], y0, x0,

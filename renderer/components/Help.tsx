@@ -12,6 +12,9 @@ const ROWS: [string, string][] = [
   ['PgDn / PgUp or ] / [', 'next / previous file'],
   ['Ctrl+Z, Ctrl+Shift+Z', "undo, redo (the settings and the shown file's hand edits; other files are never changed)"],
   ['Ctrl+S', 'save now (edits also save themselves)'],
+  ['Tab, then arrows', 'a focused A/P handle or landmark moves 1 px (Shift: 10 px); a focused fit-range line moves 0.01 EL (Shift: 0.05)'],
+  ['Tab to the bar under the image, ↑ / ↓', 'give the image or the profile more room (or drag the bar)'],
+  ['Enter on a batch row', 'show that embryo with its status and warnings'],
 ];
 
 /** The help overlay; click anywhere to close. */

@@ -22,6 +22,38 @@ export interface ImageOverlayProps {
   readonly selectedLandmark: number | null;
   /** Which overlays are drawn (all when absent). */
   readonly visible?: OverlayVisibility;
+  /** Arrow keys on a focused handle or landmark move it by (dx, dy) screen px (Shift: 10 px); absent: not focusable. */
+  readonly onKeyNudge?: (target: NudgeTarget, dxPx: number, dyPx: number, repeat: boolean) => void;
+}
+
+/** What the keyboard moves: a pole handle or a landmark. */
+export type NudgeTarget = { readonly kind: 'handle'; readonly end: 'anterior' | 'posterior' } | { readonly kind: 'landmark'; readonly index: number };
+
+/** Arrow key → screen step (px), Shift for 10×; null for other keys. */
+export function arrowStep(key: string, shift: boolean): [number, number] | null {
+  const s = shift ? 10 : 1;
+  switch (key) {
+    case 'ArrowLeft': return [-s, 0];
+    case 'ArrowRight': return [s, 0];
+    case 'ArrowUp': return [0, -s];
+    case 'ArrowDown': return [0, s];
+    default: return null;
+  }
+}
+
+/** Keyboard props for a focusable overlay element. */
+function nudgeProps(onKeyNudge: ImageOverlayProps['onKeyNudge'], target: NudgeTarget, label: string) {
+  if (onKeyNudge === undefined) return {};
+  return {
+    tabIndex: 0, role: 'button', 'aria-label': `${label}: arrow keys move it (Shift: 10 px)`,
+    onKeyDown: (e: React.KeyboardEvent) => {
+      const step = arrowStep(e.key, e.shiftKey);
+      if (step === null) return;
+      e.preventDefault();
+      e.stopPropagation();
+      onKeyNudge(target, step[0], step[1], e.repeat);
+    },
+  };
 }
 
 /** The overlays that can be shown or hidden. */
@@ -65,7 +97,7 @@ function crossLine(axis: ApAxis, xEl: number, halfPx: number): [ImagePoint, Imag
 }
 
 /** The axis, its fit-range segment and the labelled A/P handles. */
-function AxisLayer({ view, axis, fitRangeEl }: { view: ViewTransform; axis: ApAxis; fitRangeEl: readonly [number, number] }) {
+function AxisLayer({ view, axis, fitRangeEl, onKeyNudge }: { view: ViewTransform; axis: ApAxis; fitRangeEl: readonly [number, number]; onKeyNudge?: ImageOverlayProps['onKeyNudge'] }) {
   const a = toS(view, axis.anterior), p = toS(view, axis.posterior);
   const f0 = toS(view, pointOnAxis(axis, fitRangeEl[0]));
   const f1 = toS(view, pointOnAxis(axis, fitRangeEl[1]));
@@ -74,7 +106,7 @@ function AxisLayer({ view, axis, fitRangeEl }: { view: ViewTransform; axis: ApAx
       <line x1={a.x} y1={a.y} x2={p.x} y2={p.y} className="axis-line" />
       <line x1={f0.x} y1={f0.y} x2={f1.x} y2={f1.y} className="axis-fit" />
       {([['anterior', a, 'A'], ['posterior', p, 'P']] as const).map(([end, s, label]) => (
-        <g key={end} data-testid={`handle-${end}`} data-x={s.x.toFixed(1)} data-y={s.y.toFixed(1)}>
+        <g key={end} data-testid={`handle-${end}`} data-x={s.x.toFixed(1)} data-y={s.y.toFixed(1)} {...nudgeProps(onKeyNudge, { kind: 'handle', end }, `${end} pole`)}>
           <circle cx={s.x} cy={s.y} r={8} className={`handle handle-${end}`} />
           <text x={s.x} y={s.y + 4} className="handle-label" textAnchor="middle">{label}</text>
         </g>
@@ -100,14 +132,15 @@ export function ImageOverlay(props: ImageOverlayProps) {
         const [u, w] = crossLine(axis, b.positionEl, halfWidthPx).map((q) => toS(view, q));
         return <line key={i} x1={u.x} y1={u.y} x2={w.x} y2={w.y} className="boundary-line" stroke={boundaryColour(b.channel, m.boundaryProfiles.map((p) => p.channel))} />;
       })}
-      {show.axis && axis !== null && <AxisLayer view={view} axis={axis} fitRangeEl={fitRangeEl} />}
+      {show.axis && axis !== null && <AxisLayer view={view} axis={axis} fitRangeEl={fitRangeEl} onKeyNudge={props.onKeyNudge} />}
       {show.landmarks && m !== null && (() => {
         const spots = m.landmarks.map((l) => { const s = toS(view, l.point); const text = `${l.name} · ${fixed(l.xEl, 3)} EL`; return { s, text, at: labelPlacement(s.x, s.y, text, width) }; });
         const dys = staggerLabels(spots.map(({ at, text }) => ({ x: at.x, y: at.y, text })));
         return m.landmarks.map((l, i) => {
           const { s, text, at } = spots[i];
           return (
-            <g key={i} className={`landmark${selectedLandmark === i ? ' selected' : ''}`} data-testid="landmark" data-name={l.name} data-x={s.x.toFixed(1)} data-y={s.y.toFixed(1)}>
+            <g key={i} className={`landmark${selectedLandmark === i ? ' selected' : ''}`} data-testid="landmark" data-name={l.name} data-x={s.x.toFixed(1)} data-y={s.y.toFixed(1)}
+              {...nudgeProps(props.onKeyNudge, { kind: 'landmark', index: i }, `landmark ${l.name}`)}>
               <path d={`M${s.x} ${s.y - 7} L${s.x + 7} ${s.y} L${s.x} ${s.y + 7} L${s.x - 7} ${s.y} Z`} />
               <text x={at.x} y={at.y + dys[i]}>{text}</text>
             </g>

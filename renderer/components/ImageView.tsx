@@ -13,7 +13,7 @@ import type { Gesture } from '../tools';
 import { useElementSize } from '../hooks/useElementSize';
 import { fixed, fmt } from '../ui/format';
 import { ImageCanvas } from './ImageCanvas';
-import { ImageOverlay, type OverlayVisibility } from './ImageOverlay';
+import { ImageOverlay, type NudgeTarget, type OverlayVisibility } from './ImageOverlay';
 import { OverlayKey } from './OverlayKey';
 
 /** Props of the image panel. */
@@ -85,6 +85,21 @@ export function ImageView(props: ImageViewProps) {
     const screen = localPt(e, e.currentTarget as HTMLElement);
     return { state: stateRef.current, screen, image: screenToImage(stateRef.current.view, screen), spaceHeld: props.spaceHeld };
   };
+  // Keyboard moves of a focused handle or landmark: screen px → image px at the current zoom; held keys coalesce in undo.
+  const nudge = (target: NudgeTarget, dxPx: number, dyPx: number, repeat: boolean) => {
+    const s = stateRef.current;
+    const dx = dxPx / s.view.zoom, dy = dyPx / s.view.zoom;
+    if (target.kind === 'handle') {
+      if (axis === null) return;
+      const p = axis[target.end];
+      dispatch({ type: 'setAxisHandle', end: target.end, point: { x: p.x + dx, y: p.y + dy }, coalesce: repeat });
+    } else {
+      const l = measurement?.landmarks[target.index];
+      if (l === undefined) return;
+      dispatch({ type: 'selectLandmark', index: target.index });
+      dispatch({ type: 'moveLandmark', index: target.index, point: { x: l.point.x + dx, y: l.point.y + dy }, coalesce: repeat });
+    }
+  };
   const toolClass = props.spaceHeld || state.tool === 'pan' ? 'tool-pan' : `tool-${state.tool}`;
 
   return (
@@ -96,7 +111,7 @@ export function ImageView(props: ImageViewProps) {
       onPointerLeave={() => setCursor(null)}>
       <ImageCanvas planes={planes} display={state.display} view={state.view} width={size.width} height={size.height} />
       <ImageOverlay view={state.view} width={size.width} height={size.height} outline={props.outline} axis={axis}
-        measurement={measurement} bandOutlines={props.bandOutlines} fitRangeEl={props.fitRangeEl} halfWidthPx={props.halfWidthPx} selectedLandmark={state.selectedLandmark} visible={props.overlays} />
+        measurement={measurement} bandOutlines={props.bandOutlines} fitRangeEl={props.fitRangeEl} halfWidthPx={props.halfWidthPx} selectedLandmark={state.selectedLandmark} visible={props.overlays} onKeyNudge={nudge} />
       <OverlayKey visible={props.overlays} onChange={props.onOverlays} />
       <ScaleBar pixelSizeUm={props.pixelSizeUm} zoom={state.view.zoom} />
       {props.readoutTarget !== null && createPortal(<Readout cursor={cursor} state={state} planes={planes} names={props.channelNames} axis={axis} pixelSizeUm={props.pixelSizeUm} />, props.readoutTarget)}

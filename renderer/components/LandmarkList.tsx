@@ -1,14 +1,17 @@
 // Landmarks of the shown embryo: name (editable), x/EL, µm, off-axis distance, delete.
 import type { Dispatch } from 'react';
-import type { LandmarkPosition } from '../../core/model';
+import { pointOnAxis } from '../../core/geometry';
+import type { ApAxis, LandmarkPosition } from '../../core/model';
 import type { EditorAction } from '../state';
 import { fixed } from '../ui/format';
 
 /** The landmark table. */
-export function LandmarkList({ landmarks, selected, dispatch }: { landmarks: readonly LandmarkPosition[]; selected: number | null; dispatch: Dispatch<EditorAction> }) {
+export function LandmarkList({ landmarks, selected, dispatch, axis }: { landmarks: readonly LandmarkPosition[]; selected: number | null; dispatch: Dispatch<EditorAction>; axis: ApAxis | null }) {
   return (
     <section className="panel landmarks" data-testid="landmark-list">
       <h3>Landmarks <span className="muted">tool L · click to place · Del removes</span></h3>
+      <button disabled={axis === null} data-testid="add-landmark" title="Place a landmark at the middle of the axis; focus it on the image and move it with the arrow keys"
+        onClick={() => { if (axis !== null) dispatch({ type: 'addLandmark', point: pointOnAxis(axis, 0.5) }); }}>+ landmark at mid-axis</button>
       {landmarks.length === 0 ? <p className="muted small">none</p> : (
         <table><thead><tr><th>name</th><th>x/EL</th><th>µm</th><th>off-axis µm</th><th /></tr></thead><tbody>
           {landmarks.map((l, i) => (

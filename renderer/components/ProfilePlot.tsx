@@ -132,7 +132,17 @@ export function ProfilePlot({ measurement: m, width, height, fitRangeEl, dispatc
         {fit !== null && Array.from(fit.xEl, (xe, i) => <circle key={i} cx={x(xe)} cy={yr(fit.residuals[i])} r={1.8} className="residual" fill={PROFILE_COLOURS.fit} />)}
       </g>
       {([0, 1] as const).map((edge) => (
-        <g key={edge} className="fit-handle" data-testid={edge === 0 ? 'fit-lo' : 'fit-hi'} onPointerDown={onDown(edge)}>
+        <g key={edge} className="fit-handle" data-testid={edge === 0 ? 'fit-lo' : 'fit-hi'} onPointerDown={onDown(edge)}
+          tabIndex={0} role="slider" aria-label={`fit range ${edge === 0 ? 'start' : 'end'}, x/EL (arrow keys; Shift: 0.05)`}
+          aria-valuemin={0} aria-valuemax={1} aria-valuenow={Number(fitRangeEl[edge].toFixed(3))}
+          onKeyDown={(e) => {
+            const d = { ArrowLeft: -1, ArrowRight: 1, ArrowDown: -1, ArrowUp: 1 }[e.key];
+            if (d === undefined) return;
+            e.preventDefault();
+            e.stopPropagation();
+            const v = Math.min(1, Math.max(0, fitRangeEl[edge] + d * (e.shiftKey ? 0.05 : 0.01)));
+            dispatch({ type: 'setFitRange', rangeEl: edge === 0 ? [v, fitRangeEl[1]] : [fitRangeEl[0], v], coalesce: e.repeat });
+          }}>
           <line x1={x(fitRangeEl[edge])} x2={x(fitRangeEl[edge])} y1={MAIN.top} y2={RES.top + RES.height} stroke={PROFILE_COLOURS.fit} />
           <rect x={x(fitRangeEl[edge]) - 5} y={MAIN.top} width={10} height={RES.top + RES.height - MAIN.top} />
         </g>

@@ -16,14 +16,14 @@ export interface Session {
   readonly batchOutDir: string | null;
 }
 
-type Opened = { folder: string | null; entries: FolderEntry[]; project: ProjectDoc; projectPath: string };
+type Opened = { folder: string | null; entries: FolderEntry[]; project: ProjectDoc; projectPath: string; warning?: string | null };
 
 /** Session state and the commands that open things. */
 export function useSession(api: EgglineApi | null, dispatch: Dispatch<EditorAction>, onOpened: (firstFile: string | null) => void,
   beforeOpen: () => Promise<void> = async () => undefined) {
   const [session, setSession] = useState<Session>({ folder: null, entries: [], projectPath: null, message: null, opening: false, batchOutDir: null });
   const adopt = (o: Opened) => {
-    setSession({ folder: o.folder, entries: o.entries, projectPath: o.projectPath, message: null, opening: false, batchOutDir: o.project.batchOutDir ?? null });
+    setSession({ folder: o.folder, entries: o.entries, projectPath: o.projectPath, message: o.warning ?? null, opening: false, batchOutDir: o.project.batchOutDir ?? null });
     dispatch({ type: 'openDoc', doc: { settings: o.project.settings, files: o.project.files } });
     onOpened(o.entries[0]?.name ?? null);
   };

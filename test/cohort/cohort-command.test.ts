@@ -1,4 +1,4 @@
-import { existsSync, mkdtempSync, mkdirSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, readFileSync, mkdtempSync, mkdirSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -26,10 +26,11 @@ writeFileSync(join(dir, 'samples.csv'), demo.sheetCsv);
 describe('eggline cohort', () => {
   it('reads results.json and writes the outputs (exit 0)', async () => {
     const b = buffers();
-    const code = await cohortCommand([resultsDir, '--samples', join(dir, 'samples.csv'), '--normalise', 'minmax', '--lambda-posterior-el', '0.3'], b.io);
+    const code = await cohortCommand([resultsDir, '--samples', join(dir, 'samples.csv'), '--normalise', 'minmax', '--lambda-posterior-el', '0.3', '--equivalence-margin', '0.2'], b.io);
     expect(b.err.join('')).toBe('');
     expect(code).toBe(0);
     expect(existsSync(join(resultsDir, 'cohort', 'report.html'))).toBe(true);
+    expect(readFileSync(join(resultsDir, 'cohort', 'report.html'), 'utf8')).toContain('Equivalence margin ±0.2');
     expect(b.out.join('')).toMatch(/^wrote 17 files to .*cohort \(open report\.html\)\n$/);
   });
   it('--pattern with --dosage takes conditions from file names', async () => {
@@ -46,6 +47,7 @@ describe('eggline cohort', () => {
       [[resultsDir], 'eggline cohort: --samples <csv> is required (see "eggline cohort --help")\n'],
       [[resultsDir, '--samples', 's.csv', '--normalise', 'log'], 'eggline cohort: --normalise must be none, amplitude or minmax (got "log") (see "eggline cohort --help")\n'],
       [[resultsDir, '--samples', 's.csv', '--lambda-posterior-el', '0'], 'eggline cohort: --lambda-posterior-el must be a positive number (got "0") (see "eggline cohort --help")\n'],
+      [[resultsDir, '--samples', 's.csv', '--equivalence-margin', '1'], 'eggline cohort: --equivalence-margin must be a number between 0 and 1 (got "1") (see "eggline cohort --help")\n'],
     ];
     cases.push([[resultsDir, '--pattern', 'x', '--dosage', 'ref'], 'eggline cohort: --dosage must look like CONDITION=F with F > 0 (got "ref") (see "eggline cohort --help")\n']);
     cases.push([[resultsDir, '--pattern', 'x', '--samples', 's.csv'], 'eggline cohort: use either --samples or --pattern, not both (see "eggline cohort --help")\n']);

@@ -57,7 +57,8 @@ describe('runCohortStep', () => {
     const summary = html.slice(at('summary'), at('figures'));
     expect(summary).toContain('<strong>24</strong> files analysed without error, <strong>2</strong> failed');
     expect(summary).toContain('boundary in ‘target’ (logistic)');
-    expect(summary).toMatch(/ratio λ_eff\/λ_ref \[CI\]/);
+    expect(summary).toMatch(/ratio λ_eff\/λ_ref \[95% CI\]/);
+    expect(summary).toContain("test of ratio = 1");
     // No interval printed with equal ends ("0.2 to 0.2", "[0.200, 0.200]"); the demo's amplitude is exactly A·f in every
     // embryo of a condition, so its interval has zero width and is left out of this check.
     const text = html.replace(/<tr><td class="t">amplitude A<\/td>.*?<\/tr>/g, '');

@@ -98,6 +98,24 @@ describe('splitter and overlays', { timeout: 60_000 }, () => {
     await expect.poll(async () => (await box(page, '[data-testid=image-view]')).height).toBeGreaterThan(before.height + 30);
   });
 
+  it('a pole dragged off the embryo is warned about beside the numbers, and the warning goes with undo', async () => {
+    const { page } = h;
+    const a = await box(page, '[data-testid=handle-anterior] circle');
+    const p = await box(page, '[data-testid=handle-posterior] circle');
+    const from = { x: p.x + p.width / 2, y: p.y + p.height / 2 };
+    // Further out along the axis by 40% of its screen length: well past the embryo's end.
+    const to = { x: from.x + (from.x - a.x) * 0.4, y: from.y + (from.y - a.y) * 0.4 };
+    await page.mouse.move(from.x, from.y);
+    await page.mouse.down();
+    for (let k = 1; k <= 6; k += 1) await page.mouse.move(from.x + ((to.x - from.x) * k) / 6, from.y + ((to.y - from.y) * k) / 6);
+    await page.mouse.up();
+    await expect.poll(async () => (await page.getByTestId('warnings').count()) > 0 ? page.getByTestId('warnings').textContent() : '', { timeout: 10_000 })
+      .toMatch(/the posterior pole lies \d+ µm outside the embryo outline/);
+    await page.screenshot({ path: join(ARTIFACTS, 'layout-pole-outside.png') });
+    await page.keyboard.press('Control+z');
+    await expect.poll(async () => (await page.getByTestId('warnings').count()) > 0 ? page.getByTestId('warnings').textContent() : '').not.toMatch(/outside the embryo/);
+  });
+
   it('each overlay can be hidden from its key and shown again', async () => {
     const { page } = h;
     await page.getByTestId('overlay-axis').uncheck();
@@ -107,5 +125,37 @@ describe('splitter and overlays', { timeout: 60_000 }, () => {
     await page.getByTestId('overlay-band').uncheck();
     expect(await page.getByTestId('band').count()).toBe(0);
     await page.getByTestId('overlay-band').check();
+  });
+});
+
+describe('keyboard', { timeout: 60_000 }, () => {
+  it('Tab starts in the toolbar and every focused control shows a focus ring', async () => {
+    const { page } = h;
+    await page.locator('body').click({ position: { x: 1, y: 700 } }).catch(() => undefined);
+    await page.evaluate(() => (document.activeElement as HTMLElement | null)?.blur());
+    await page.keyboard.press('Tab');
+    const first = await page.evaluate(() => {
+      const el = document.activeElement as HTMLElement;
+      return { inToolbar: el.closest('[data-testid=toolbar]') !== null, outline: getComputedStyle(el).outlineStyle };
+    });
+    expect(first).toEqual({ inToolbar: true, outline: 'solid' });
+  });
+
+  it('moves a pole, the fit range and a new landmark without a mouse', async () => {
+    const { page } = h;
+    const before = await page.getByTestId('handle-posterior').getAttribute('data-x');
+    await page.getByTestId('handle-posterior').focus();
+    for (let k = 0; k < 3; k += 1) await page.keyboard.press('Shift+ArrowLeft');
+    await expect.poll(() => page.getByTestId('handle-posterior').getAttribute('data-x')).toBe((Number(before) - 30).toFixed(1));
+    const lambda = await page.getByTestId('lambda-um').textContent();
+    await page.getByTestId('fit-hi').focus();
+    await page.keyboard.press('Shift+ArrowRight');
+    await expect.poll(() => page.getByTestId('lambda-um').textContent()).not.toBe(lambda);
+    expect(await page.getByTestId('fit-hi').getAttribute('aria-valuenow')).toBe('0.65');
+    const n = await page.getByTestId('landmark').count();
+    await page.getByTestId('add-landmark').focus();
+    await page.keyboard.press('Enter');
+    await expect.poll(() => page.getByTestId('landmark').count()).toBe(n + 1);
+    for (let k = 0; k < 4; k += 1) await page.keyboard.press('Control+z');
   });
 });

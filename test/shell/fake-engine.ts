@@ -47,7 +47,7 @@ export function createFakeEngine(): AnalysisEngine & { calls: string[]; batchOpt
       for (const f of files) await fs.writeFile(f, new Uint8Array([0x49, 0x49, 42, 0]));
       const projectPath = join(dir, 'eggline-project.json');
       await fs.writeFile(projectPath, JSON.stringify({
-        schema: 'eggline-project', version: 1, folder: dir, settings: DEFAULT_SETTINGS,
+        schema: 'eggline-project', version: 1, folder: '.', settings: DEFAULT_SETTINGS,
         files: { 'dose-1/embryo-01.ome.tif': { axis: null, landmarks: [{ name: 'furrow', point: { x: 5, y: 6 } }], fitRangeEl: null } },
       }));
       const samplesPath = join(dir, 'samples.csv');

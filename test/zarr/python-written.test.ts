@@ -1,12 +1,14 @@
 // OME-Zarr stores written by Python's zarr 2 and numcodecs (an independent writer) from the pixels of an OME-TIFF:
 // every plane must match the TIFF's pixel for pixel, and the analysis must give the same result.
-import { mkdtempSync, rmSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openStackForAnalysis, type OpenedStack } from '../../app/decode';
 import type { EmbryoResult } from '../../core/model';
 import { analyseStack } from '../../core/pipeline';
+import { decodeBloscLz4 } from '../../core/zarr';
+import Blosc from 'numcodecs/blosc';
 import { DEFAULT_SETTINGS } from '../../core/settings';
 import { allPlanes, comparableResult as comparable, pythonZarrMissing, REFERENCE, writePythonStores, writeReferenceTiff } from './stack-fixture';
 
@@ -45,6 +47,16 @@ describe.skipIf(missing !== null)(`OME-Zarr written by Python's zarr${missing ? 
     expect(info.pixelSize).toEqual({ xUm: REFERENCE.pixelSizeUm, yUm: REFERENCE.pixelSizeUm, zUm: REFERENCE.zStepUm, source: 'ome-zarr' });
     expect(zarr.warnings).toEqual([]);
     await zarr.source.close();
+  });
+
+  it('decodes the type-size-2 byte-shuffled Blosc-LZ4 chunks Python writes with the TypeScript path, as c-blosc does', async () => {
+    for (const name of ['blosc-lz4', 'blosc-lz4hc']) {
+      const chunk = new Uint8Array(readFileSync(join(dir, `${name}.ome.zarr`, '0', '0.1.2.0.0')));
+      expect([chunk[2] & 0x1, chunk[3], chunk[2] >> 5]).toEqual([1, 2, 1]); // byte shuffle, type size 2, LZ4 inside
+      const ours = decodeBloscLz4(chunk);
+      const reference = await Blosc.fromConfig({ id: 'blosc', cname: 'lz4', clevel: 5, shuffle: 1 }).decode(chunk);
+      expect(Buffer.from(ours!).equals(Buffer.from(reference))).toBe(true);
+    }
   });
 
   it.each(CASES)('%s: pixel-identical planes and the same analysis result', async (name) => {
