@@ -3,9 +3,9 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { parseCsv } from '../../core/csv';
-import { demoDataSet } from '../../core/synth';
+import { DEMO_MOVIE_FILE, DEMO_MOVIE_PARAMS, demoDataSet } from '../../core/synth';
 import { memoryByteSource, readStackInfo } from '../../core/tiff';
-import { demoSubset, writeDemoDataSet } from './write-demo';
+import { demoMovieFile, demoSubset, writeDemoDataSet } from './write-demo';
 
 // Source: demo data (core/synth's invented dosage series); the expected names come from demoDataSet itself.
 const dir = mkdtempSync(join(tmpdir(), 'eggline-demo-'));
@@ -34,5 +34,16 @@ describe('writeDemoDataSet (in this thread)', () => {
     // Source: OME-TIFF specification — PhysicalSizeX in the OME-XML is where the pixel size comes from
     const info = await readStackInfo(memoryByteSource(readFileSync(r.files[0])), item.fileName);
     expect([info.isOme, info.sizeC, info.sizeZ, info.pixelSize.source, info.compression]).toEqual([true, 2, item.params.sizeZ, 'ome', 'Deflate']);
+  });
+});
+
+describe('the demo movie', () => {
+  it('holds its time points and their spacing in the OME-XML (a 3-frame variant, to keep the test short)', async () => {
+    expect([DEMO_MOVIE_PARAMS.frames, DEMO_MOVIE_PARAMS.frameIntervalS]).toEqual([46, 240]);
+    const bytes = demoMovieFile({ ...DEMO_MOVIE_PARAMS, frames: 3 });
+    // Source: OME-TIFF specification — Pixels SizeT and TimeIncrement (unit s) in the OME-XML.
+    const info = await readStackInfo(memoryByteSource(bytes), DEMO_MOVIE_FILE);
+    expect([info.sizeT, info.sizeC, info.sizeZ, info.time?.source]).toEqual([3, 2, 2, 'ome-increment']);
+    expect(Array.from(info.time!.timesS!)).toEqual([0, 240, 480]);
   });
 });

@@ -2,11 +2,14 @@
 // hand-marked landmark per file, and a README. Used by `eggline demo` and the desktop app's "open demo data".
 import { existsSync, promises as fs } from 'node:fs';
 import { availableParallelism } from 'node:os';
-import { join, resolve } from 'node:path';
+import { dirname, join, resolve } from 'node:path';
 import { toCsv } from '../../core/csv';
 import type { FileEdits } from '../../core/contract';
 import type { ImagePoint } from '../../core/model';
-import { demoDataSet, makeSyntheticEmbryo, type DemoItem } from '../../core/synth';
+import {
+  DEMO_MOVIE_FILE, DEMO_MOVIE_PARAMS, DEMO_MOVIE_SEED, demoDataSet, makeSyntheticEmbryo, movieFrame, planSyntheticMovie, type DemoItem,
+  type SyntheticMovieParams,
+} from '../../core/synth';
 import { writeOmeTiff } from '../../core/tiff';
 import { demoFilesInWorkers } from './demo-in-workers';
 import { newProject, PROJECT_FILE_NAME, saveProject, writeFileAtomic } from '../project';
@@ -34,6 +37,11 @@ embryo to embryo, as they would in a real cohort.
 
 samples.csv           file, condition and dosage of every stack
 eggline-project.json  a hand-marked "furrow" landmark for every stack (as a person would place it)
+
+timelapse/ holds one movie (OME-TIFF with 46 time points, 4 minutes apart): a gradient that forms by synthesis at
+the anterior pole, diffusion and degradation (decay length 100 µm, degradation time 20 minutes), painted onto one
+embryo with fresh camera noise in every frame; production starts after the first frame. It is not part of the
+dosage series (it is not in samples.csv). Its accumulation times should follow (1 + x/λ) × 10 minutes.
 `;
 
 /** Pick `count` items spread over the conditions (k-th embryo of each condition in turn), in file-name order. */
@@ -60,10 +68,32 @@ export function demoFile(item: DemoItem): { bytes: Uint8Array; furrow: { x: numb
   return { bytes, furrow: { x: embryo.truth.furrowPoint.x, y: embryo.truth.furrowPoint.y } };
 }
 
+/** The OME-TIFF bytes of the demo movie (demo data, or a variant of it), with its time increment in the OME-XML. */
+export function demoMovieFile(params: SyntheticMovieParams = DEMO_MOVIE_PARAMS): Uint8Array {
+  const movie = planSyntheticMovie(params, DEMO_MOVIE_SEED);
+  const planes = [];
+  let names: readonly string[] = [];
+  let pixelSizeUm = 1;
+  for (let t = 0; t < movie.timesS.length; t++) {
+    const frame = movieFrame(movie, t);
+    const { sizeX, sizeY, planes: framePlanes } = frame.stack;
+    names = frame.channelNames;
+    pixelSizeUm = frame.pixelSizeUm;
+    // XYZCT: z fastest, then channel, then time — the order makeSyntheticEmbryo keeps its planes in, frame after frame.
+    planes.push(...framePlanes.map((data) => ({ width: sizeX, height: sizeY, data })));
+  }
+  return writeOmeTiff(planes, {
+    sizeZ: movie.embryo.sizeZ, sizeC: names.length, sizeT: movie.timesS.length, dimensionOrder: 'XYZCT', channelNames: names,
+    physicalSizeXUm: pixelSizeUm, physicalSizeZUm: movie.embryo.zStepUm, compression: 'deflate', timeIncrementS: params.frameIntervalS,
+  });
+}
+
 /** Options of writeDemoDataSet. */
 export interface DemoWriteOptions {
   /** Write only this many files, spread over the conditions. */
   readonly subset?: number;
+  /** Also write the demo movie (timelapse/…); default: only for the whole data set (no subset). */
+  readonly movie?: boolean;
   /** Built batch worker (dist/batch-worker.mjs): when given, files are generated on `jobs` worker threads. */
   readonly workerPath?: string;
   /** Worker threads when workerPath is given; default: available cores. */
@@ -91,6 +121,12 @@ export async function writeDemoDataSet(dir: string, options: DemoWriteOptions = 
       const { bytes, furrow } = demoFile(item);
       await save(index, bytes, furrow);
     }
+  }
+  if (options.movie ?? options.subset === undefined) {
+    const path = join(folder, DEMO_MOVIE_FILE);
+    await fs.mkdir(dirname(path), { recursive: true });
+    await writeFileAtomic(path, demoMovieFile());
+    files.push(path);
   }
   const samplesPath = join(folder, DEMO_SAMPLES_NAME);
   await writeFileAtomic(samplesPath, toCsv(['file', 'condition', 'dosage'], items.map((i) => [i.fileName, i.condition, i.dosage])));

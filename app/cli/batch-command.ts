@@ -17,6 +17,8 @@ import { parseCommandArgs } from './parse-command-args';
 import { progressPrinter } from './progress';
 import { DEFAULT_CPUS_PER_TASK, joinSlurmOptions, partArguments, submitCommands, writeSlurmScripts } from './slurm-scripts';
 import { UsageError, type CliIo } from './usage-error';
+import { parseTimelapseFlags, runTimelapseStep } from './timelapse-step';
+import type { TimelapseOptions } from '../batch/timelapse-pass';
 
 const OPTIONS = {
   out: { type: 'string' }, jobs: { type: 'string' }, 'gradient-channel': { type: 'string' },
@@ -25,6 +27,8 @@ const OPTIONS = {
   project: { type: 'string' }, 'no-project': { type: 'boolean' }, samples: { type: 'string' }, reference: { type: 'string' },
   'file-timeout': { type: 'string' }, resume: { type: 'boolean' }, 'max-memory': { type: 'string' }, shard: { type: 'string' },
   slurm: { type: 'string' }, 'slurm-options': { type: 'string' }, help: { type: 'boolean', short: 'h' },
+  time: { type: 'string' }, 'axis-per-time': { type: 'boolean' }, 'time-step': { type: 'string' }, 'tau-range': { type: 'string' },
+  'baseline-frames': { type: 'string' },
 } as const;
 
 /** Everything the batch command resolved from its arguments, before running. */
@@ -46,6 +50,8 @@ export interface BatchPlan {
   readonly shard: ShardSpec | null;
   /** Write Slurm scripts for this many parts instead of analysing (--slurm N), with --slurm-options. */
   readonly slurm: { readonly parts: number; readonly options: string | null; readonly cpusPerTask: number; readonly partArgs: readonly string[] } | null;
+  /** The time analysis of files with more than one time point (--time, --axis-per-time, --time-step, …). */
+  readonly timelapse: TimelapseOptions;
 }
 
 function wholeNumber(text: string, flag: string, min: number, max: number): number {
@@ -120,6 +126,7 @@ export async function planBatch(given: readonly string[]): Promise<BatchPlan | '
     samples: v.samples !== undefined ? resolve(v.samples) : null, reference: v.reference ?? null,
     timeoutS: v['file-timeout'] !== undefined ? wholeNumber(v['file-timeout'], '--file-timeout', 1, 86_400) : undefined,
     resume: v.resume === true, maxMemoryBytes: maxMemory, notes: project.note ? [project.note] : [], shard,
+    timelapse: parseTimelapseFlags({ time: v.time, axisPerTime: v['axis-per-time'], timeStep: v['time-step'], tauRange: v['tau-range'], baselineFrames: v['baseline-frames'] }),
     slurm: slurmParts === null ? null : {
       parts: slurmParts, options: v['slurm-options'] ?? null, partArgs: partArguments(argv, OPTIONS, process.cwd()),
       cpusPerTask: v.jobs !== undefined ? wholeNumber(v.jobs, '--jobs', 1, 256) : DEFAULT_CPUS_PER_TASK,
@@ -235,7 +242,8 @@ export async function batchCommand(argv: readonly string[], io: CliIo, extra: Pa
       return 1;
     }
     reportEnd(io, summary, plan);
-    return summary.failed > 0 || !summary.complete || summary.cohortError ? 1 : 0;
+    const movies = summary.complete && !plan.shard ? await runTimelapseStep(plan, summary.record.inputs.map((i) => i.file), io) : 0;
+    return summary.failed > 0 || movies > 0 || !summary.complete || summary.cohortError ? 1 : 0;
   } catch (e) {
     if (e instanceof BatchOptionError) throw new UsageError(e.message, 'batch');
     throw e;

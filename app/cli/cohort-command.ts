@@ -29,7 +29,8 @@ Options:
                               named group (?<condition>...) and optionally (?<dosage>...)
   --dosage COND=F             dosage of a condition for --pattern (repeat for each condition)
   --reference COND            reference condition              [default: the one with dosage 1]
-  --normalise MODE            none | amplitude | minmax: profile scaling before averaging [none]
+  --normalise MODE            scale-offset | none | amplitude | minmax: profile scaling before
+                              averaging (scale-offset: each profile fitted onto the mean)  [scale-offset]
   --lambda-posterior-el V     decay length of an opposing posterior gradient (x/EL), adds the
                               two-gradient prediction Δx = ln f / (1/λ_A + 1/λ_P)
   --equivalence-margin M      also test whether observed/predicted lies within 1 ± M (two one-sided
@@ -40,7 +41,7 @@ Options:
 Exit status: 0 outputs written, 1 bad input (results, sample sheet) or write failure, 2 usage error.
 `;
 
-const NORMALISE = ['none', 'amplitude', 'minmax'];
+const NORMALISE = ['none', 'amplitude', 'minmax', 'scale-offset'];
 
 interface CohortPlan {
   resultsDir: string; samples: string | null; rule: FilenameRule | null; reference: string | null;
@@ -82,7 +83,7 @@ export function parseCohortArgs(argv: readonly string[]): CohortPlan | 'help' | 
   if (v.samples && v.pattern) return { usage: 'use either --samples or --pattern, not both' };
   const dosages = parseDosages(v.dosage ?? []);
   if ('usage' in dosages) return { usage: dosages.usage as string };
-  if (v.normalise !== undefined && !NORMALISE.includes(v.normalise)) return { usage: `--normalise must be none, amplitude or minmax (got "${v.normalise}")` };
+  if (v.normalise !== undefined && !NORMALISE.includes(v.normalise)) return { usage: `--normalise must be scale-offset, none, amplitude or minmax (got "${v.normalise}")` };
   const lp = v['lambda-posterior-el'];
   const lambdaPosteriorEl = lp === undefined ? null : Number(lp);
   if (lambdaPosteriorEl !== null && !(Number.isFinite(lambdaPosteriorEl) && lambdaPosteriorEl > 0)) return { usage: `--lambda-posterior-el must be a positive number (got "${lp}")` };
@@ -91,7 +92,7 @@ export function parseCohortArgs(argv: readonly string[]): CohortPlan | 'help' | 
   if (equivalenceMargin !== null && !(Number.isFinite(equivalenceMargin) && equivalenceMargin > 0 && equivalenceMargin < 1)) return { usage: `--equivalence-margin must be a number between 0 and 1 (got "${em}")` };
   const resultsDir = parsed.positionals[0];
   const rule = v.pattern ? { pattern: v.pattern, dosages: dosages as Record<string, number> } : null;
-  return { resultsDir, samples: v.samples ?? null, rule, reference: v.reference ?? null, normalisation: (v.normalise ?? 'none') as Normalisation, lambdaPosteriorEl, equivalenceMargin, outDir: v.out ?? join(resultsDir, 'cohort') };
+  return { resultsDir, samples: v.samples ?? null, rule, reference: v.reference ?? null, normalisation: (v.normalise ?? 'scale-offset') as Normalisation, lambdaPosteriorEl, equivalenceMargin, outDir: v.out ?? join(resultsDir, 'cohort') };
 }
 
 async function readOptionalJson(path: string): Promise<unknown> {

@@ -46,6 +46,17 @@ Options:
                               (SHA-256) and settings are unchanged; analyse the rest
   -h, --help                  show this help
 
+Movies (files with more than one time point) are also analysed over time, after the batch:
+  --time all|K|A:B            time points to analyse (0-based; A:B includes both ends)       [all]
+  --axis-per-time             find the axis at every time point (embryos that drift)
+                              [default: once per movie, on the mean over up to 8 time points]
+  --time-step S               seconds between time points when the file does not say; plain
+                              multi-page files are then read as one plane per time point
+  --tau-range A,B             x/EL range of the accumulation-time model fit             [0.1,0.4]
+  --baseline-frames N         frames before production starts (their mean is the zero)       [1]
+  They write timecourse.csv, timecourse_profiles.csv, timecourse_boundaries.csv, accumulation.csv,
+  model_fit.csv, timelapse/*.svg and timelapse.html.
+
 While it runs, every finished file is appended to <dir>/journal.jsonl; the tables are written at the end.
 Ctrl+C or SIGTERM stops cleanly (tables of the finished files, run.json with "complete": false); a second
 Ctrl+C quits at once. Either way, --resume finishes the run.

@@ -86,6 +86,11 @@ function slopeSentence(fit: DosageFit, pct: number): string {
     text += ` Against the measured dosage (ln of the amplitude ratio to the reference, York fit with errors in both): ${valueWithCi(m.slope, m.ciLow, m.ciHigh).value} (${pct}% CI ${valueWithCi(m.slope, m.ciLow, m.ciHigh, { style: 'words' }).ci}).`;
   }
   if (fit.predictedTwoGradientSlopeEl !== null) text += ` The two-gradient reading predicts a slope of ${sigFig(fit.predictedTwoGradientSlopeEl, 3)}.`;
+  if (fit.localLambdaEl !== null) {
+    const se = fit.localLambdaSeEl !== null ? ` ± ${sigFig(fit.localLambdaSeEl, 2)} (jackknife SE over the reference embryos)` : ' (no SE: fewer than 3 reference embryos)';
+    text += ` Where it sits in the reference, the mean profile's local decay length (C̄ − B)/|dC̄/dx| is ${sigFig(fit.localLambdaEl, 3)}${se} x/EL`
+      + (fit.predictedSlopeEl !== null ? ` against the fitted ${sigFig(fit.predictedSlopeEl, 3)}; a fixed threshold there would move with that local value.` : '.');
+  }
   return text;
 }
 

@@ -75,7 +75,7 @@ export async function runCohortStep(opts: CohortStepOptions): Promise<CohortStep
   const warnings: string[] = [];
   const sheet = await loadSheet(opts, warnings);
   const analysis = analyseCohort(opts.results, sheet, {
-    reference: opts.reference, normalisation: opts.normalisation ?? 'none', lambdaPosteriorEl: opts.lambdaPosteriorEl ?? null, equivalenceMargin: opts.equivalenceMargin ?? null,
+    reference: opts.reference, normalisation: opts.normalisation ?? 'scale-offset', lambdaPosteriorEl: opts.lambdaPosteriorEl ?? null, equivalenceMargin: opts.equivalenceMargin ?? null,
   });
   warnings.push(...analysis.warnings);
   const figures = cohortFigures(analysis);

@@ -52,6 +52,6 @@ export async function cohortSummaryFor(
   results: readonly EmbryoResult[], sampleSheetPath: string, reference: string | null, outDir: string,
 ): Promise<CohortSummary> {
   const sheet = await readSampleSheet(sampleSheetPath);
-  const analysis = analyseCohort(results, sheet, { reference, normalisation: 'none', lambdaPosteriorEl: null });
+  const analysis = analyseCohort(results, sheet, { reference, lambdaPosteriorEl: null });
   return summariseCohort(analysis, sampleSheetPath, outDir);
 }

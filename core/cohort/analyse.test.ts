@@ -40,9 +40,9 @@ describe('analyseCohort', () => {
   });
   it('CSV tables have the agreed headers and one row per item', () => {
     const a = analyseCohort(demo.results, sheet);
-    expect(conditionsCsv(a).split('\r\n')[0]).toBe('condition,dosage,quantity,unit,n,mean,sd,sem,ci_low,ci_high');
-    expect(shiftsCsv(a).split('\r\n')[0]).toBe('quantity,condition,dosage,ln_f,observed_shift_el,ci_low,ci_high,predicted_shift_el,predicted_ci_low,predicted_ci_high,predicted_two_gradient_el,ratio,ratio_ci_low,ratio_ci_high,p_ratio_1,p_ratio_1_holm');
-    expect(dosageFitCsv(a).split('\r\n')[0]).toBe('quantity,method,slope_el,slope_se_el,ci_low,ci_high,dof,p_slope,intercept_el,r2,n,conditions,lack_of_fit_f,lack_of_fit_p,tau2_el2,predicted_slope_el,predicted_two_gradient_slope_el');
+    expect(conditionsCsv(a).split('\r\n')[0]).toBe('condition,dosage,quantity,unit,n,mean,sd,sem,ci_low,ci_high,median,sd_ci_low,sd_ci_high');
+    expect(shiftsCsv(a).split('\r\n')[0]).toBe('quantity,condition,dosage,ln_f,observed_shift_el,ci_low,ci_high,predicted_shift_el,predicted_ci_low,predicted_ci_high,predicted_two_gradient_el,ratio,ratio_ci_low,ratio_ci_high,p_ratio_1,p_ratio_1_holm,predicted_local_el');
+    expect(dosageFitCsv(a).split('\r\n')[0]).toBe('quantity,method,slope_el,slope_se_el,ci_low,ci_high,dof,p_slope,intercept_el,r2,n,conditions,lack_of_fit_f,lack_of_fit_p,tau2_el2,predicted_slope_el,predicted_two_gradient_slope_el,local_lambda_el,local_lambda_se_el');
     expect(shiftsCsv(a).trim().split('\r\n').length).toBe(1 + 3);
     expect(positionalErrorCsv(a).trim().split('\r\n').length).toBe(1 + 2 * 101);
   });
@@ -57,12 +57,12 @@ describe('analyseCohort', () => {
 
 describe('checkCohortOptions', () => {
   it('fills defaults', () => {
-    expect(checkCohortOptions()).toEqual({ reference: null, normalisation: 'none', lambdaPosteriorEl: null, gridStepEl: 0.01, slopeHalfWidthEl: 0.04, level: 0.95, equivalenceMargin: null });
+    expect(checkCohortOptions()).toEqual({ reference: null, normalisation: 'scale-offset', lambdaPosteriorEl: null, gridStepEl: 0.01, slopeHalfWidthEl: 0.04, level: 0.95, equivalenceMargin: null });
   });
   it('rejects bad options with exact messages', () => {
     // Source: demo data
     const cases: [object, string][] = [
-      [{ normalisation: 'log' }, 'normalisation must be one of none, amplitude, minmax (got "log")'],
+      [{ normalisation: 'log' }, 'normalisation must be one of none, amplitude, minmax, scale-offset (got "log")'],
       [{ lambdaPosteriorEl: -1 }, 'lambdaPosteriorEl must be a positive number (x/EL)'],
       [{ gridStepEl: 0 }, 'gridStepEl must be a number in (0, 0.5]'],
       [{ slopeHalfWidthEl: 0.001 }, 'slopeHalfWidthEl must be a number from gridStepEl to 0.25'],

@@ -3,12 +3,14 @@ import type { EmbryoResult } from '../model';
 import { assignConditions } from './assign';
 import { conditionStats } from './condition-stats';
 import { dosageFits, lambdaTrend, measuredDosages } from './dosage-fit';
-import { referenceLambda, shiftRows } from './dosage-test';
+import { localLambdaWithSe } from './local-lambda';
 import { conditionReliability, fitRangesUsed } from './reliability';
 import { observationsOf } from './observations';
 import { checkCohortOptions } from './options';
 import { conditionProfile } from './profiles';
-import type { CohortAnalysis, CohortOptions, ConditionProfile, SampleSheet } from '../model';
+import type { CohortAnalysis, CohortAssignment, CohortOptions, ConditionProfile, Observation, ResolvedCohortOptions, SampleSheet } from '../model';
+import { positionQuantities, referenceLambda, shiftRows } from './dosage-test';
+import { meanOf } from './stats-local';
 
 /** Analyse a cohort of embryo results with a sample sheet; throws CohortError for bad sheets or options. */
 export function analyseCohort(results: readonly EmbryoResult[], sheet: SampleSheet, options: CohortOptions = {}): CohortAnalysis {
@@ -21,9 +23,15 @@ export function analyseCohort(results: readonly EmbryoResult[], sheet: SampleShe
   const reference = assignment.reference;
   const lambda = reference !== null ? referenceLambda(observations, reference, opts.level) : null;
   if (reference !== null && lambda === null) warnings.push(`reference "${reference}" has no fitted λ; no predicted shifts`);
-  const shifts = reference !== null ? shiftRows(observations, conditions, reference, lambda, opts.lambdaPosteriorEl, opts.level) : [];
+  const rawShifts = reference !== null ? shiftRows(observations, conditions, reference, lambda, opts.lambdaPosteriorEl, opts.level) : [];
   const measured = reference !== null ? measuredDosages(observations, reference, new Map(conditions.map((c) => [c.name, c.factor]))) : [];
-  const fits = reference !== null ? dosageFits(observations, lambda, opts.lambdaPosteriorEl, measured, opts.level) : [];
+  const rawFits = reference !== null ? dosageFits(observations, lambda, opts.lambdaPosteriorEl, measured, opts.level) : [];
+  const local = localLambdas(assignment.groups, reference, observations, opts);
+  const fits = rawFits.map((f) => ({ ...f, localLambdaEl: local.get(f.quantity)?.lambdaEl ?? null, localLambdaSeEl: local.get(f.quantity)?.seEl ?? null }));
+  const shifts = rawShifts.map((s) => {
+    const l = local.get(s.quantity);
+    return { ...s, predictedLocalShiftEl: l !== undefined && s.lnF !== null ? l.lambdaEl * s.lnF : null };
+  });
   const profiles: ConditionProfile[] = [];
   for (const g of assignment.groups) {
     const r = conditionProfile(g.embryos, g.condition, opts);
@@ -35,4 +43,21 @@ export function analyseCohort(results: readonly EmbryoResult[], sheet: SampleShe
     reliability: conditionReliability(assignment.groups, observations),
     fitRanges: fitRangesUsed(assignment.groups.flatMap((g) => g.embryos)),
     sheetColumns: [...new Set(sheet.rows.flatMap((r) => Object.keys(r.extra)))], profiles, warnings };
+}
+
+/** λ_local (x/EL) and its jackknife SE per position quantity at the reference's mean position (finite λ only). */
+function localLambdas(
+  groups: CohortAssignment['groups'], reference: string | null, observations: readonly Observation[], opts: ResolvedCohortOptions,
+): Map<string, { lambdaEl: number; seEl: number | null }> {
+  const out = new Map<string, { lambdaEl: number; seEl: number | null }>();
+  const ref = groups.find((g) => g.condition.name === reference);
+  if (!ref) return out;
+  const quantities = positionQuantities(observations);
+  const means = quantities.map((q) => meanOf(observations.filter((o) => o.condition === reference && o.quantity === q && o.unit === 'EL').map((o) => o.value)));
+  const values = localLambdaWithSe(ref.embryos, ref.condition, means, opts);
+  quantities.forEach((q, i) => {
+    const v = values[i];
+    if (Number.isFinite(v.lambdaEl)) out.set(q, { lambdaEl: v.lambdaEl, seEl: Number.isFinite(v.seEl) ? v.seEl : null });
+  });
+  return out;
 }

@@ -98,6 +98,7 @@ export function dosageFits(
       measured: measuredFit(points, measured, level),
       predictedSlopeEl: lam,
       predictedTwoGradientSlopeEl: lam !== null && lambdaPosteriorEl !== null ? 1 / (1 / lam + 1 / lambdaPosteriorEl) : null,
+      localLambdaEl: null, localLambdaSeEl: null,
     });
   }
   return out;

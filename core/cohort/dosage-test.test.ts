@@ -79,7 +79,7 @@ describe('dosage test (threshold model Δx = λ·ln f)', () => {
     const fit: DosageFit = {
       quantity: 'q', method: 'embryos-hc3', slopeEl: 0.19, slopeSeEl: 0.01, ciLow: 0, ciHigh: 0, interceptEl: 0, r2: 1, n: 12,
       conditions: 2, dof: 10, pSlope: 0, lackOfFit: null, embryosHc3: null, randomIntercept: null, measured: null,
-      predictedSlopeEl: 0.2, predictedTwoGradientSlopeEl: null,
+      predictedSlopeEl: 0.2, predictedTwoGradientSlopeEl: null, localLambdaEl: null, localLambdaSeEl: null,
     };
     const lam = { condition: 'ref', n: 6, lambdaEl: 0.2, seEl: 0.005, ciLowEl: 0, ciHighEl: 0, dof: 5 };
     const r = slopeRatio(fit, lam);

@@ -75,13 +75,13 @@ function shiftRow(
     observedShiftEl: obs.difference, ciLow: obs.ciLow, ciHigh: obs.ciHigh,
   };
   if (lnF === null || lambda === null) {
-    return { ...base, predictedShiftEl: null, predictedCiLow: null, predictedCiHigh: null, predictedTwoGradientEl: null, ratio: null, ratioCiLow: null, ratioCiHigh: null, pRatio: null, pRatioHolm: null };
+    return { ...base, predictedShiftEl: null, predictedCiLow: null, predictedCiHigh: null, predictedTwoGradientEl: null, predictedLocalShiftEl: null, ratio: null, ratioCiLow: null, ratioCiHigh: null, pRatio: null, pRatioHolm: null };
   }
   const predicted = lambda.lambdaEl * lnF;
   const ends = [lambda.ciLowEl * lnF, lambda.ciHighEl * lnF].sort((p, q) => p - q);
   const twoGradient = lambdaPosteriorEl !== null ? twoGradientShiftEl(lnF, lambda.lambdaEl, lambdaPosteriorEl) : null;
   const ratio = ratioWithCi(obs.difference, obs.se, obs.dof, predicted, Math.abs(lnF) * lambda.seEl, lambda.dof, level);
-  return { ...base, predictedShiftEl: predicted, predictedCiLow: ends[0], predictedCiHigh: ends[1], predictedTwoGradientEl: twoGradient, ...ratio, pRatioHolm: null };
+  return { ...base, predictedShiftEl: predicted, predictedCiLow: ends[0], predictedCiHigh: ends[1], predictedTwoGradientEl: twoGradient, predictedLocalShiftEl: null, ...ratio, pRatioHolm: null };
 }
 
 /** A ratio observed/predicted with its interval and the two-sided p-value of ratio = 1. */

@@ -2,13 +2,13 @@
 import { CohortError } from './cohort-error';
 import type { CohortOptions, ResolvedCohortOptions } from '../model';
 
-const NORMALISATIONS = ['none', 'amplitude', 'minmax'] as const;
+const NORMALISATIONS = ['none', 'amplitude', 'minmax', 'scale-offset'] as const;
 
 /** Validate cohort options and fill defaults; throws CohortError with an exact message. */
 export function checkCohortOptions(options: CohortOptions = {}): ResolvedCohortOptions {
-  const normalisation = options.normalisation ?? 'none';
+  const normalisation = options.normalisation ?? 'scale-offset';
   if (!(NORMALISATIONS as readonly string[]).includes(normalisation)) {
-    throw new CohortError(`normalisation must be one of none, amplitude, minmax (got "${String(normalisation)}")`);
+    throw new CohortError(`normalisation must be one of none, amplitude, minmax, scale-offset (got "${String(normalisation)}")`);
   }
   const lambdaPosteriorEl = options.lambdaPosteriorEl ?? null;
   if (lambdaPosteriorEl !== null && !(Number.isFinite(lambdaPosteriorEl) && lambdaPosteriorEl > 0)) {

@@ -35,7 +35,7 @@ function linearEmbryo(file: string, offset: number): EmbryoResult {
   // C(x) = 100 + offset − 50·x on bins 0.005..0.995: slope −50 per EL everywhere
   const xEl = Float64Array.from({ length: 100 }, (_, i) => (i + 0.5) / 100);
   const mean = xEl.map((x) => 100 + offset - 50 * x);
-  const profile: Profile = { channel: 'g', xEl, xUm: xEl.map((x) => 400 * x), mean, sd: mean.map(() => 1), n: mean.map(() => 1) };
+  const profile: Profile = { channel: 'g', xEl, xUm: xEl.map((x) => 400 * x), mean, sd: mean.map(() => 0), n: mean.map(() => 1) };
   const base = makeDemoCohort({ conditions: [{ name: 'c', dosage: 1, count: 1 }] }).results[0];
   return { ...base, file, eggLengthUm: 400, gradientProfile: profile };
 }
@@ -70,5 +70,37 @@ describe('conditionProfile (positional error σx = σC / |dC̄/dx|)', () => {
       { normalisation: 'amplitude', gridStepEl: 0.01, slopeHalfWidthEl: 0.02 });
     expect(r.warnings).toEqual(['nofit.tif: no amplitude-normalised gradient profile; left out of the mean profile']);
     expect(r.profile!.embryoCount).toBe(1);
+  });
+  it('scale-offset alignment removes amplitude and background differences before σC', () => {
+    // Source: hand-computed — C_i(x) = a_i·(100 − 50x) + b_i are exact scale/offset copies of one profile.
+    const scaled = (file: string, a: number, b: number) => {
+      const e = linearEmbryo(file, 0);
+      const p = e.gradientProfile!;
+      return { ...e, gradientProfile: { ...p, mean: p.mean.map((v) => a * v + b) } };
+    };
+    const embryos = [scaled('a', 1, 0), scaled('b', 1.3, 5), scaled('c', 0.8, -4)];
+    const none = conditionProfile(embryos, { name: 'c', dosage: 1, factor: 1 }, { normalisation: 'none', gridStepEl: 0.01, slopeHalfWidthEl: 0.02 }).profile!;
+    const aligned = conditionProfile(embryos, { name: 'c', dosage: 1, factor: 1 }, { normalisation: 'scale-offset', gridStepEl: 0.01, slopeHalfWidthEl: 0.02 }).profile!;
+    expect(none.sd[50]).toBeGreaterThan(5);
+    expect(aligned.normalisation).toBe('scale-offset');
+    expect(aligned.sd[50]).toBeLessThan(1e-9);
+  });
+  it('subtracts the measurement noise of the bin means and gives σx a chi-square interval', () => {
+    // Source: hand-computed — pixel SD 2 over n = 4 pixels: noise variance of a bin mean 4/4 = 1; offsets ±1 give an
+    // SD across embryos of √2, so σC = √(2 − 1) = 1 and σx = 1/50. χ²(1) quantiles 0.000982 and 5.024 (chi-square
+    // table, from memory) give ×0.446 to ×31.9.
+    const noisy = (file: string, offset: number) => {
+      const e = linearEmbryo(file, offset);
+      const p = e.gradientProfile!;
+      return { ...e, gradientProfile: { ...p, sd: p.sd.map(() => 2), n: p.n.map(() => 4) } };
+    };
+    const p = conditionProfile([noisy('a', 1), noisy('b', -1)], { name: 'c', dosage: 1, factor: 1 },
+      { normalisation: 'none', gridStepEl: 0.01, slopeHalfWidthEl: 0.1 }).profile!;
+    expect(p.sd[50]).toBeCloseTo(Math.SQRT2, 9);
+    expect(p.sdNoise[50]).toBeCloseTo(1, 9);
+    expect(p.sdBetween[50]).toBeCloseTo(1, 9);
+    expect(p.sigmaXEl[50]).toBeCloseTo(1 / 50, 9);
+    expect(p.sigmaXCiLowEl[50] / p.sigmaXEl[50]).toBeCloseTo(0.446, 3);
+    expect(p.sigmaXCiHighEl[50] / p.sigmaXEl[50]).toBeCloseTo(31.9, 0);
   });
 });

@@ -2,6 +2,7 @@
 // and the positional error the gradient implies, σx(x) = σC(x) / |dC̄/dx| — the method of Gregor, Tank,
 // Wieschaus & Bialek (2007) "Probing the limits to positional information", Cell 130:153.
 import type { EmbryoResult } from '../model';
+import { sdConfidenceInterval } from '../stats';
 import { meanOf, sdOf } from './stats-local';
 import type { ConditionInfo, ConditionProfile, Normalisation } from '../model';
 
@@ -32,10 +33,11 @@ export function interpolateOnGrid(xEl: ArrayLike<number>, values: ArrayLike<numb
   return out;
 }
 
-/** Scale a profile: 'none' as is, 'amplitude' ÷ fitted A, 'minmax' to [0, 1]; null when it cannot be scaled. */
+/** Scale a profile: 'none' as is, 'amplitude' ÷ fitted A, 'minmax' to [0, 1]; null when it cannot be scaled.
+ *  ('scale-offset' needs the mean profile and is done by conditionProfile; here it leaves the values as they are.) */
 export function normaliseProfile(values: ArrayLike<number>, mode: Normalisation, amplitude: number | null): Float64Array | null {
   const v = Float64Array.from(values);
-  if (mode === 'none') return v;
+  if (mode === 'none' || mode === 'scale-offset') return v;
   if (mode === 'amplitude') return amplitude !== null && amplitude !== 0 && Number.isFinite(amplitude) ? v.map((x) => x / amplitude) : null;
   const finite = [...v].filter(Number.isFinite);
   const lo = Math.min(...finite);
@@ -50,30 +52,97 @@ export function centralSlope(xEl: Float64Array, values: Float64Array, halfWidthE
   return xEl.map((_, i) => (i - k < 0 || i + k >= xEl.length ? NaN : (values[i + k] - values[i - k]) / (xEl[i + k] - xEl[i - k])));
 }
 
-/** Mean profile ± SD across a condition's embryos and the implied positional error; warnings name skipped files. */
-export function conditionProfile(
-  embryos: readonly EmbryoResult[], condition: ConditionInfo,
-  options: { normalisation: Normalisation; gridStepEl: number; slopeHalfWidthEl: number },
-): { profile: ConditionProfile | null; warnings: string[] } {
-  const grid = gridEl(options.gridStepEl);
-  const curves: Float64Array[] = [];
-  const warnings: string[] = [];
+/** One embryo's profile on the grid and the variance of its bin means from pixel noise (SD²/n), both scaled. */
+interface GridCurve { readonly file: string; values: Float64Array; noiseVar: Float64Array }
+
+/** Profiles of the embryos on the grid with the chosen normalisation ('scale-offset' is applied afterwards). */
+function gridCurves(embryos: readonly EmbryoResult[], grid: Float64Array, mode: Normalisation, warnings: string[]): GridCurve[] {
+  const out: GridCurve[] = [];
   for (const e of embryos) {
     const p = e.gradientProfile;
-    const scaled = p ? normaliseProfile(p.mean, options.normalisation, e.gradientFit?.amplitude ?? null) : null;
-    if (!p || !scaled) { warnings.push(`${e.file}: no ${p ? options.normalisation + '-normalised ' : ''}gradient profile; left out of the mean profile`); continue; }
-    curves.push(interpolateOnGrid(p.xEl, scaled, grid));
+    const scaleMode = mode === 'scale-offset' ? 'none' : mode;
+    const scaled = p ? normaliseProfile(p.mean, scaleMode, e.gradientFit?.amplitude ?? null) : null;
+    if (!p || !scaled) { warnings.push(`${e.file}: no ${p ? mode + '-normalised ' : ''}gradient profile; left out of the mean profile`); continue; }
+    // The factor the normalisation divided by, to scale the noise variance the same way.
+    const factor = scaledFactor(p.mean, scaled);
+    const noise = Float64Array.from(p.sd, (sd, i) => (p.n[i] > 0 ? (sd * sd) / p.n[i] / (factor * factor) : NaN));
+    out.push({ file: e.file, values: interpolateOnGrid(p.xEl, scaled, grid), noiseVar: interpolateOnGrid(p.xEl, noise, grid) });
   }
+  return out;
+}
+
+/** The divisor d of a linear normalisation y = (x − c)/d, from two distinct finite points (1 when none). */
+function scaledFactor(raw: ArrayLike<number>, scaled: ArrayLike<number>): number {
+  let i0 = -1;
+  for (let i = 0; i < raw.length; i++) {
+    if (!Number.isFinite(raw[i]) || !Number.isFinite(scaled[i])) continue;
+    if (i0 < 0) { i0 = i; continue; }
+    if (raw[i] !== raw[i0] && scaled[i] !== scaled[i0]) return (raw[i] - raw[i0]) / (scaled[i] - scaled[i0]);
+  }
+  return 1;
+}
+
+/**
+ * Aligns each curve to the mean by a fitted scale and offset (least squares c ≈ a·C̄ + b over the common points, then
+ * (c − b)/a), twice, so that amplitude and background differences between embryos leave σC; curves whose scale is not
+ * positive are dropped with a warning.
+ */
+function alignScaleOffset(curves: GridCurve[], length: number, warnings: string[]): GridCurve[] {
+  let kept = curves;
+  for (let round = 0; round < 2; round++) {
+    const mean = pointwise(kept.map((c) => c.values), length).mean;
+    const next: GridCurve[] = [];
+    for (const c of kept) {
+      let n = 0, sm = 0, sc = 0, smm = 0, smc = 0;
+      for (let g = 0; g < length; g++) {
+        if (!Number.isFinite(c.values[g]) || !Number.isFinite(mean[g])) continue;
+        n++; sm += mean[g]; sc += c.values[g]; smm += mean[g] * mean[g]; smc += mean[g] * c.values[g];
+      }
+      const a = (n * smc - sm * sc) / (n * smm - sm * sm);
+      const b = (sc - a * sm) / n;
+      if (!(a > 0) || !Number.isFinite(b)) { warnings.push(`${c.file}: its profile does not scale onto the mean profile; left out of the mean profile`); continue; }
+      next.push({ file: c.file, values: c.values.map((v) => (v - b) / a), noiseVar: c.noiseVar.map((v) => v / (a * a)) });
+    }
+    kept = next;
+    if (kept.length === 0) break;
+  }
+  return kept;
+}
+
+/**
+ * Mean profile ± SD across a condition's embryos and the implied positional error; warnings name skipped files. The
+ * SD across embryos has the average measurement noise of a bin mean (pixel SD²/n, which understates it where pixels
+ * are correlated) subtracted in variance; σx gets a chi-square interval from the number of embryos (the slope's own
+ * uncertainty is not in it).
+ */
+export function conditionProfile(
+  embryos: readonly EmbryoResult[], condition: ConditionInfo,
+  options: { normalisation: Normalisation; gridStepEl: number; slopeHalfWidthEl: number; level?: number },
+): { profile: ConditionProfile | null; warnings: string[] } {
+  const grid = gridEl(options.gridStepEl);
+  const warnings: string[] = [];
+  let curves = gridCurves(embryos, grid, options.normalisation, warnings);
+  if (options.normalisation === 'scale-offset' && curves.length > 1) curves = alignScaleOffset(curves, grid.length, warnings);
   if (curves.length === 0) return { profile: null, warnings };
-  const stats = pointwise(curves, grid.length);
+  const stats = pointwise(curves.map((c) => c.values), grid.length);
+  const noise = pointwise(curves.map((c) => c.noiseVar), grid.length).mean;
+  const sdNoise = noise.map(Math.sqrt);
+  const sdBetween = stats.sd.map((s, i) => (Number.isFinite(noise[i]) ? Math.sqrt(Math.max(0, s * s - noise[i])) : s));
   const slopePerEl = centralSlope(grid, stats.mean, options.slopeHalfWidthEl);
   const resolved = slopeResolved(stats, options.slopeHalfWidthEl / options.gridStepEl);
-  const sigmaXEl = stats.sd.map((s, i) => (resolved[i] && Math.abs(slopePerEl[i]) > 0 ? s / Math.abs(slopePerEl[i]) : NaN));
+  const perSlope = (v: Float64Array): Float64Array => v.map((s, i) => (resolved[i] && Math.abs(slopePerEl[i]) > 0 ? s / Math.abs(slopePerEl[i]) : NaN));
+  const sigmaXEl = perSlope(sdBetween);
+  const ci = Array.from(sdBetween, (s, i) => sdConfidenceInterval(s, stats.n[i], options.level ?? 0.95));
+  const sigmaXCiLowEl = perSlope(Float64Array.from(ci, (c) => c[0]));
+  const sigmaXCiHighEl = perSlope(Float64Array.from(ci, (c) => c[1]));
   const lengths = embryos.map((e) => e.eggLengthUm).filter((v): v is number => v !== null && Number.isFinite(v));
   const meanEggLengthUm = lengths.length > 0 ? meanOf(lengths) : null;
   const sigmaXUm = sigmaXEl.map((s) => (meanEggLengthUm !== null ? s * meanEggLengthUm : NaN));
   return {
-    profile: { condition: condition.name, dosage: condition.dosage, xEl: grid, ...stats, slopePerEl, sigmaXEl, sigmaXUm, meanEggLengthUm, embryoCount: curves.length },
+    profile: {
+      condition: condition.name, dosage: condition.dosage, normalisation: options.normalisation, xEl: grid, ...stats, sdNoise, sdBetween,
+      slopePerEl, sigmaXEl, sigmaXCiLowEl, sigmaXCiHighEl, sigmaXUm, meanEggLengthUm, embryoCount: curves.length,
+    },
     warnings,
   };
 }

@@ -2,11 +2,12 @@
 import { toCsv, type CsvValue } from '../csv';
 import type { CohortAnalysis, SlopeSummary } from '../model';
 
-/** conditions.csv: one row per condition × quantity × unit. */
+/** conditions.csv: one row per condition × quantity × unit; the SD of a position is its positional error, with a
+ *  chi-square interval. */
 export function conditionsCsv(a: CohortAnalysis): string {
   return toCsv(
-    ['condition', 'dosage', 'quantity', 'unit', 'n', 'mean', 'sd', 'sem', 'ci_low', 'ci_high'],
-    a.stats.map((s) => [s.condition, s.dosage, s.quantity, s.unit, s.n, s.mean, s.sd, s.sem, s.ciLow, s.ciHigh]),
+    ['condition', 'dosage', 'quantity', 'unit', 'n', 'mean', 'sd', 'sem', 'ci_low', 'ci_high', 'median', 'sd_ci_low', 'sd_ci_high'],
+    a.stats.map((s) => [s.condition, s.dosage, s.quantity, s.unit, s.n, s.mean, s.sd, s.sem, s.ciLow, s.ciHigh, s.median, s.sdCiLow, s.sdCiHigh]),
   );
 }
 
@@ -15,9 +16,9 @@ export function shiftsCsv(a: CohortAnalysis): string {
   return toCsv(
     ['quantity', 'condition', 'dosage', 'ln_f', 'observed_shift_el', 'ci_low', 'ci_high', 'predicted_shift_el',
       'predicted_ci_low', 'predicted_ci_high', 'predicted_two_gradient_el', 'ratio', 'ratio_ci_low', 'ratio_ci_high',
-      'p_ratio_1', 'p_ratio_1_holm'],
+      'p_ratio_1', 'p_ratio_1_holm', 'predicted_local_el'],
     a.shifts.map((s) => [s.quantity, s.condition, s.dosage, s.lnF, s.observedShiftEl, s.ciLow, s.ciHigh, s.predictedShiftEl,
-      s.predictedCiLow, s.predictedCiHigh, s.predictedTwoGradientEl, s.ratio, s.ratioCiLow, s.ratioCiHigh, s.pRatio, s.pRatioHolm]),
+      s.predictedCiLow, s.predictedCiHigh, s.predictedTwoGradientEl, s.ratio, s.ratioCiLow, s.ratioCiHigh, s.pRatio, s.pRatioHolm, s.predictedLocalShiftEl]),
   );
 }
 
@@ -25,6 +26,7 @@ export function shiftsCsv(a: CohortAnalysis): string {
 export const DOSAGE_FIT_COLUMNS = [
   'quantity', 'method', 'slope_el', 'slope_se_el', 'ci_low', 'ci_high', 'dof', 'p_slope', 'intercept_el', 'r2', 'n',
   'conditions', 'lack_of_fit_f', 'lack_of_fit_p', 'tau2_el2', 'predicted_slope_el', 'predicted_two_gradient_slope_el',
+  'local_lambda_el', 'local_lambda_se_el',
 ] as const;
 
 /** dosage_fit.csv: per position quantity, the primary regression on ln f (method `condition-means`, or
@@ -34,7 +36,7 @@ export const DOSAGE_FIT_COLUMNS = [
 export function dosageFitCsv(a: CohortAnalysis): string {
   const rows: CsvValue[][] = [];
   for (const f of a.dosageFits) {
-    const tail = [f.predictedSlopeEl, f.predictedTwoGradientSlopeEl];
+    const tail = [f.predictedSlopeEl, f.predictedTwoGradientSlopeEl, f.localLambdaEl, f.localLambdaSeEl];
     rows.push([f.quantity, f.method, f.slopeEl, f.slopeSeEl, f.ciLow, f.ciHigh, f.dof, f.pSlope, f.interceptEl, f.r2, f.n,
       f.conditions, f.lackOfFit?.f, f.lackOfFit?.p, null, ...tail]);
     const alt = (method: string, s: SlopeSummary | null, tau2: number | null = null): void => {
@@ -52,8 +54,10 @@ export function positionalErrorCsv(a: CohortAnalysis): string {
   const rows: CsvValue[][] = [];
   for (const p of a.profiles) {
     for (let i = 0; i < p.xEl.length; i++) {
-      rows.push([p.condition, a.options.normalisation, p.xEl[i], p.n[i], p.mean[i], p.sd[i], p.slopePerEl[i], p.sigmaXEl[i], p.sigmaXUm[i]]);
+      rows.push([p.condition, p.normalisation, p.xEl[i], p.n[i], p.mean[i], p.sd[i], p.sdNoise[i], p.sdBetween[i], p.slopePerEl[i],
+        p.sigmaXEl[i], p.sigmaXCiLowEl[i], p.sigmaXCiHighEl[i], p.sigmaXUm[i]]);
     }
   }
-  return toCsv(['condition', 'normalisation', 'x_el', 'n', 'mean', 'sd', 'slope_per_el', 'sigma_x_el', 'sigma_x_um'], rows);
+  return toCsv(['condition', 'normalisation', 'x_el', 'n', 'mean', 'sd', 'sd_noise', 'sd_between', 'slope_per_el', 'sigma_x_el',
+    'sigma_x_ci_low_el', 'sigma_x_ci_high_el', 'sigma_x_um'], rows);
 }

@@ -19,6 +19,7 @@ const Y_LABELS: Record<Normalisation, string> = {
   none: 'intensity (a.u., background subtracted)',
   amplitude: 'intensity ÷ fitted amplitude A',
   minmax: 'intensity, min–max scaled to [0, 1]',
+  'scale-offset': 'intensity, each embryo scaled and offset onto the mean',
 };
 
 /** File-name-safe slug of a quantity name. */

@@ -10,10 +10,15 @@ export interface SampleSummary {
   readonly sem: number;
   readonly ciLow: number;
   readonly ciHigh: number;
+  /** Chi-square interval of the SD at the same level (normal data); NaN when n < 2. */
+  readonly sdCiLow: number;
+  readonly sdCiHigh: number;
+  readonly median: number;
 }
 
-/** How gradient profiles are scaled before averaging: none, divided by the fitted amplitude A, or to [0, 1]. */
-export type Normalisation = 'none' | 'amplitude' | 'minmax';
+/** How gradient profiles are scaled before averaging: none, divided by the fitted amplitude A, to [0, 1], or aligned
+ *  to the condition's mean profile by a fitted scale and offset. */
+export type Normalisation = 'none' | 'amplitude' | 'minmax' | 'scale-offset';
 
 /** Unit of a cohort quantity: x/EL (or λ as a fraction of EL), micrometres, or arbitrary intensity units. */
 export type QuantityUnit = 'EL' | 'um' | 'a.u.';
@@ -113,6 +118,8 @@ export interface ShiftRow {
   readonly predictedCiLow: number | null;
   readonly predictedCiHigh: number | null;
   readonly predictedTwoGradientEl: number | null;
+  /** λ_local·ln f, with λ_local the decay length of the reference's mean profile where the position sits. */
+  readonly predictedLocalShiftEl: number | null;
   readonly ratio: number | null;
   readonly ratioCiLow: number | null;
   readonly ratioCiHigh: number | null;
@@ -166,6 +173,10 @@ export interface DosageFit {
   readonly predictedSlopeEl: number | null;
   /** 1 / (1/λ_A + 1/λ_P) when a posterior gradient is given, else null. */
   readonly predictedTwoGradientSlopeEl: number | null;
+  /** The local decay length (x/EL) at the reference's mean position: the slope predicted there; null if not readable. */
+  readonly localLambdaEl: number | null;
+  /** Its jackknife standard error over the reference embryos (x/EL); null if not computable. */
+  readonly localLambdaSeEl: number | null;
 }
 
 /** The measured dosage of a condition: its mean amplitude A over the reference's, with the SE of its logarithm. */
@@ -181,10 +192,16 @@ export interface MeasuredDosage {
 export interface ConditionProfile {
   readonly condition: string;
   readonly dosage: number | null;
+  /** How the embryos' profiles were scaled before averaging. */
+  readonly normalisation: Normalisation;
   readonly xEl: Float64Array;
   readonly mean: Float64Array;
   /** SD across embryos at each grid point. */
   readonly sd: Float64Array;
+  /** Measurement noise of one embryo's bin mean (√ mean of pixel SD²/n), same scale. */
+  readonly sdNoise: Float64Array;
+  /** SD across embryos with that noise subtracted in variance (σC used for σx). */
+  readonly sdBetween: Float64Array;
   /** Number of embryos contributing at each grid point. */
   readonly n: Float64Array;
   /** Slope of the mean profile, intensity per unit x/EL (central difference). */
@@ -192,6 +209,9 @@ export interface ConditionProfile {
   /** Positional error implied by the gradient, σx = σC / |dC̄/dx|, in x/EL and in µm (mean egg length);
    *  NaN where the slope is not resolved (change across the window within 2 SE of zero). */
   readonly sigmaXEl: Float64Array;
+  /** Chi-square interval of σx (x/EL) from the number of embryos; the slope's uncertainty is not included. */
+  readonly sigmaXCiLowEl: Float64Array;
+  readonly sigmaXCiHighEl: Float64Array;
   readonly sigmaXUm: Float64Array;
   readonly meanEggLengthUm: number | null;
   readonly embryoCount: number;

@@ -10,3 +10,4 @@ export { logGamma } from './log-gamma';
 export { tTwoSidedP, fUpperP, holmAdjust } from './p-values';
 export { olsHc3, lackOfFitTest, randomInterceptLine, yorkFit } from './line-fits';
 export type { SlopeEstimate, LackOfFit, RandomInterceptLine, YorkFit } from './line-fits';
+export { sdConfidenceInterval } from './sd-interval';

@@ -2,6 +2,7 @@
 import { createRng } from '../stats';
 import { DEFAULT_SYNTH_PARAMS } from './params';
 import type { SyntheticEmbryoParams } from './params';
+import type { SyntheticMovieParams } from './movie';
 
 /** One demo file: name, its condition and dosage factor, and how to make it. */
 export interface DemoItem {
@@ -64,3 +65,21 @@ export function demoDataSet(): DemoItem[] {
   });
   return items;
 }
+
+/** The demo movie's file (relative to the demo folder) and the seed of its embryo. */
+export const DEMO_MOVIE_FILE = 'timelapse/forming-gradient_embryo-01.ome.tif';
+export const DEMO_MOVIE_SEED = 9101;
+
+/**
+ * The demo movie (demo data): a gradient forming by synthesis at the anterior pole, diffusion and degradation
+ * (λ = 100 µm, degradation time 20 min, so τ(x) = (1 + x/λ)·10 min), imaged every 4 min for 3 h from one frame
+ * before production starts; 400×240 px at 2 µm/px, 2 slices, 2 channels. The boundary channel follows the forming
+ * gradient, so the boundary moves posterior over the movie.
+ */
+export const DEMO_MOVIE_PARAMS: SyntheticMovieParams = Object.freeze({
+  embryo: Object.freeze({ widthPx: 400, heightPx: 240, pixelSizeUm: 2, sizeZ: 2, zStepUm: 4, angleDeg: 8 }),
+  degradationPerS: 1 / 1200,
+  frameIntervalS: 240,
+  frames: 46,
+  framesBeforeOnset: 1,
+});

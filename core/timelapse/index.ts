@@ -16,3 +16,5 @@ export { summarizeMovie } from './summary';
 export type { MovieSummary, MovieSummaryOptions, MovieAccumulation } from './summary';
 export { ACCUMULATION_COLUMNS, MODEL_FIT_COLUMNS, accumulationRows, modelFitRow } from './tables';
 export type { Cell } from './tables';
+export { parseTimeSelection, selectTimeIndices } from './time-selection';
+export type { TimeSelection } from './time-selection';

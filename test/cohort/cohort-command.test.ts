@@ -45,7 +45,7 @@ describe('eggline cohort', () => {
     const cases: [string[], string][] = [
       [[], 'eggline cohort: missing <results-dir> (see "eggline cohort --help")\n'],
       [[resultsDir], 'eggline cohort: --samples <csv> is required (see "eggline cohort --help")\n'],
-      [[resultsDir, '--samples', 's.csv', '--normalise', 'log'], 'eggline cohort: --normalise must be none, amplitude or minmax (got "log") (see "eggline cohort --help")\n'],
+      [[resultsDir, '--samples', 's.csv', '--normalise', 'log'], 'eggline cohort: --normalise must be scale-offset, none, amplitude or minmax (got "log") (see "eggline cohort --help")\n'],
       [[resultsDir, '--samples', 's.csv', '--lambda-posterior-el', '0'], 'eggline cohort: --lambda-posterior-el must be a positive number (got "0") (see "eggline cohort --help")\n'],
       [[resultsDir, '--samples', 's.csv', '--equivalence-margin', '1'], 'eggline cohort: --equivalence-margin must be a number between 0 and 1 (got "1") (see "eggline cohort --help")\n'],
     ];

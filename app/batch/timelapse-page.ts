@@ -1,0 +1,57 @@
+// timelapse.html: one self-contained page (inline CSS and SVG) with each movie's time analysis — the model fit and
+// its plain reading, warnings, λ over time, the kymograph and τ(x) — then the movies that failed and the method.
+import { escapeXml, sigFig } from '../../core/figures';
+import type { Estimate } from '../../core/timelapse';
+import type { MovieOutcome } from './timelapse-pass';
+
+const esc = escapeXml;
+const CSS = `body{font-family:system-ui,sans-serif;margin:2rem auto;max-width:1100px;padding:0 1rem;color:#222;line-height:1.45}
+h1{font-size:1.6rem}h2{font-size:1.25rem;margin-top:2.2rem;border-bottom:1px solid #ddd;padding-bottom:.2rem}
+table{border-collapse:collapse;margin:.6rem 0 1rem;font-size:.88rem}th,td{border:1px solid #ddd;padding:.25rem .5rem;text-align:right}
+th{background:#f4f4f4}td.t,th.t{text-align:left}figure{margin:1rem 0}figure svg{width:100%;max-width:860px;height:auto}
+.warn{color:#8a4b00}.note{color:#555;font-size:.9rem}`;
+
+function cell(e: Estimate, scale = 1): string {
+  if (!Number.isFinite(e.value)) return '<td>—</td>';
+  const ci = Number.isFinite(e.ciLow) && Number.isFinite(e.ciHigh) ? ` (${sigFig(e.ciLow * scale, 3)} to ${sigFig(e.ciHigh * scale, 3)})` : '';
+  return `<td>${sigFig(e.value * scale, 3)}${ci}</td>`;
+}
+
+/** One movie's section. */
+function movieSection(m: MovieOutcome, figures: readonly { title: string; svg: string }[]): string {
+  const s = m.summary;
+  const fit = s.model;
+  const table = fit ? `<table><tr><th class="t">quantity</th><th>value (95% interval)</th></tr>
+<tr><td class="t">τ₀ (min)</td>${cell(fit.tau0S, 1 / 60)}</tr>
+<tr><td class="t">k = 1/(2τ₀) (1/min)</td>${cell(fit.kPerS, 60)}</tr>
+<tr><td class="t">λ_τ from τ(x) (EL)</td>${cell(fit.lambdaTauEl)}</tr>
+<tr><td class="t">steady-state λ from the profile (EL)</td>${cell(fit.lambdaEl)}</tr>
+<tr><td class="t">D = k·λ² (µm²/s)</td>${cell(fit.dUm2PerS)}</tr></table>
+<p>${esc(fit.reading)}</p>` : '';
+  const notes = [s.note, ...s.warnings].filter((w): w is string => w !== null).map((w) => `<p class="warn">${esc(w)}</p>`).join('');
+  const span = m.timesS ? `${m.timeIndices.length} time points over ${sigFig(m.timesS[m.timesS.length - 1] - m.timesS[0], 3)} s` : `${m.timeIndices.length} time points (times unknown)`;
+  return `<h2>${esc(m.file)}</h2><p class="note">${esc(span)}; model fit over x/EL ${fit ? `${fit.rangeEl[0]}–${fit.rangeEl[1]}` : '—'}</p>${table}${notes}`
+    + figures.map((f) => `<figure>${f.svg}<figcaption class="note">${esc(f.title)}</figcaption></figure>`).join('');
+}
+
+const METHOD = `<h2>Method and caveats</h2>
+<p>Each time point is analysed as a single stack (projection over Z, segmentation, profile, background of its own), along one
+axis for the movie found on the mean over up to eight time points (or per time point, or the hand-set axis). λ(t) is the
+exponential fit at each time point. The local accumulation time is τ(x) = ∫(1 − C(x,t)/C(x,∞)) dt, estimated on 0.025 EL
+bins with the first frame(s) as the zero before production starts and the mean of the last three frames as C(x,∞); its
+interval propagates frame-to-frame noise (estimated from the second half of the movie). It is biased low when the movie
+ends before steady state or starts after production has begun. For a source at the anterior pole with diffusion and
+uniform degradation, τ(x) = (1 + x/λ)/(2k); the line τ₀(1 + x/λ_τ) fitted over the chosen range gives k = 1/(2τ₀), and λ_τ
+is compared with the steady-state λ. Agreement is consistent with that model but does not prove it.</p>`;
+
+/** The whole page. */
+export function timelapsePage(
+  movies: readonly { movie: MovieOutcome; figures: readonly { title: string; svg: string }[] }[],
+  failures: readonly { file: string; error: string }[], generatedAt: string,
+): string {
+  const failed = failures.length > 0 ? `<h2>Movies not analysed</h2><table><tr><th class="t">file</th><th class="t">reason</th></tr>${
+    failures.map((f) => `<tr><td class="t">${esc(f.file)}</td><td class="t">${esc(f.error)}</td></tr>`).join('')}</table>` : '';
+  return `<!DOCTYPE html><html lang="en"><head><meta charset="utf-8"><title>Eggline time-lapse analysis</title><style>${CSS}</style></head><body>
+<h1>Gradients over time</h1><p class="note">Generated ${esc(generatedAt)} by Eggline. Research software: check the kymograph and the fits before relying on a number.</p>
+${movies.map(({ movie, figures }) => movieSection(movie, figures)).join('\n')}${failed}${METHOD}</body></html>\n`;
+}

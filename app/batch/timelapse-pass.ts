@@ -1,0 +1,182 @@
+// The time analysis of a batch: every file with more than one time point is analysed per time point (axis once per
+// movie, or per time point), summarised (λ(t), τ(x), the model fit) and written as tables, SVG figures and a page.
+import { promises as fs } from 'node:fs';
+import { join } from 'node:path';
+import { embryoRow, EMBRYO_COLUMNS, summaryBoundary } from '../../core/batch';
+import { toCsv, type CsvValue } from '../../core/csv';
+import type { ProjectDoc } from '../../core/contract';
+import { accumulationFigure, figureSlug, kymographFigure, lambdaOverTimeFigure } from '../../core/figures';
+import type { EmbryoResult, HandEdits, StackInfo } from '../../core/model';
+import { analyseMovie } from '../../core/pipeline';
+import type { AnalysisSettings } from '../../core/settings';
+import { pagesAsTimePoints, resolveTimeAxis } from '../../core/tiff';
+import {
+  ACCUMULATION_COLUMNS, accumulationRows, MODEL_FIT_COLUMNS, modelFitRow, selectTimeIndices, summarizeMovie,
+  type MovieSummary, type TimeSelection,
+} from '../../core/timelapse';
+import { writeFileAtomic } from '../project';
+import { openStack } from './deps';
+import { fileMessage } from './analyse-file';
+import { timelapsePage } from './timelapse-page';
+
+/** Options of the time analysis (flags --time, --axis-per-time, --time-step, --tau-range, --baseline-frames). */
+export interface TimelapseOptions {
+  readonly selection: TimeSelection;
+  readonly axisPerTime: boolean;
+  /** Seconds between time points when the file does not say; plain multi-page files are then read as frames. */
+  readonly timeStepS: number | null;
+  readonly tauRangeEl: readonly [number, number];
+  readonly baselineFrames: number;
+}
+
+/** Defaults: every time point, axis once per movie, no time step, τ model over 0.1–0.4 EL, one baseline frame. */
+export const DEFAULT_TIMELAPSE_OPTIONS: TimelapseOptions = Object.freeze({
+  selection: { kind: 'all' as const }, axisPerTime: false, timeStepS: null, tauRangeEl: [0.1, 0.4] as const, baselineFrames: 1,
+});
+
+/** One analysed movie: its per-time-point results with their indices and times, and the summary. */
+export interface MovieOutcome {
+  readonly file: string;
+  readonly timeIndices: readonly number[];
+  readonly timesS: Float64Array | null;
+  readonly results: readonly EmbryoResult[];
+  readonly summary: MovieSummary;
+}
+
+/** Files of the time pass: tables, figures and the page. */
+export const TIMELAPSE_FILES = ['timecourse.csv', 'timecourse_profiles.csv', 'timecourse_boundaries.csv', 'accumulation.csv', 'model_fit.csv', 'timelapse.html'] as const;
+
+/** The hand edits of one file from the project (axis and landmarks apply to every time point). */
+function editsOf(doc: ProjectDoc | null, file: string): HandEdits | null {
+  const e = doc?.files[file];
+  return e ? { axis: e.axis, landmarks: e.landmarks } : null;
+}
+
+/** The movie's StackInfo for the time pass: plain multi-page files become frames when the user gives a time step. */
+function asMovie(info: StackInfo, timeStepS: number | null): StackInfo {
+  return timeStepS !== null && info.sizeT === 1 && !info.isOme ? pagesAsTimePoints(info) : info;
+}
+
+/** Analyse one file as a movie; null when it has a single time point. Never rejects. */
+export async function analyseMovieFile(
+  folder: string, file: string, settings: AnalysisSettings, doc: ProjectDoc | null, options: TimelapseOptions,
+): Promise<MovieOutcome | { file: string; error: string } | null> {
+  let opened: Awaited<ReturnType<typeof openStack>> | null = null;
+  try {
+    // A file that does not open is the main pass's failure, already reported there.
+    opened = await openStack(join(folder, file), file).catch(() => null);
+    if (!opened) return null;
+    const info = asMovie(opened.info, options.timeStepS);
+    if (info.sizeT <= 1) return null;
+    const picked = selectTimeIndices(options.selection, info.sizeT);
+    if (typeof picked === 'string') return { file, error: `${file}: ${picked}` };
+    const warnings: string[] = [];
+    const axis = resolveTimeAxis(info, options.timeStepS, warnings);
+    const fileSettings = doc?.files[file]?.fitRangeEl ? { ...settings, fitRangeEl: doc.files[file].fitRangeEl! } : settings;
+    const m = await analyseMovie(info, opened.source, fileSettings, {
+      fileLabel: file, handEdits: editsOf(doc, file), timeIndices: picked, axisPerTime: options.axisPerTime,
+    });
+    const timesS = axis.timesS ? Float64Array.from(picked, (t) => axis.timesS![t]) : null;
+    const summary = summarizeMovie(file, picked, timesS, m.results, {
+      fitRangeEl: fileSettings.fitRangeEl, modelRangeEl: options.tauRangeEl, baselineFrames: options.baselineFrames,
+    });
+    return { file, timeIndices: picked, timesS, results: m.results, summary: { ...summary, warnings: [...warnings, ...summary.warnings] } };
+  } catch (e) {
+    return { file, error: fileMessage(file, e) };
+  } finally {
+    await opened?.source.close().catch(() => undefined);
+  }
+}
+
+/** t_s of the k-th analysed time point (empty when the times are unknown). */
+function timeCell(m: MovieOutcome, k: number): CsvValue {
+  return m.timesS ? m.timesS[k] : null;
+}
+
+/** timecourse.csv: file, t_index, t_s, then every embryos.csv column after `file`. */
+export function timecourseCsv(movies: readonly MovieOutcome[]): string {
+  const rows = movies.flatMap((m) => m.results.map((r, k) => [m.file, m.timeIndices[k], timeCell(m, k), ...embryoRow(r).slice(1)]));
+  return toCsv(['file', 't_index', 't_s', ...EMBRYO_COLUMNS.slice(1)], rows);
+}
+
+/** timecourse_profiles.csv: every channel's profile at every analysed time point (long format). */
+export function timecourseProfilesCsv(movies: readonly MovieOutcome[]): string {
+  const rows = movies.flatMap((m) => m.results.flatMap((r, k) => [r.gradientProfile, ...r.boundaryProfiles].filter((p) => p !== null)
+    .flatMap((p) => Array.from(p!.xEl, (x, i): CsvValue[] => [m.file, m.timeIndices[k], timeCell(m, k), p!.channel, x, p!.xUm[i], p!.mean[i], p!.sd[i], p!.n[i]]))));
+  return toCsv(['file', 't_index', 't_s', 'channel', 'x_el', 'x_um', 'mean', 'sd', 'n'], rows);
+}
+
+/** timecourse_boundaries.csv: every boundary at every analysed time point. */
+export function timecourseBoundariesCsv(movies: readonly MovieOutcome[]): string {
+  const rows = movies.flatMap((m) => m.results.flatMap((r, k) => r.boundaries.map((b): CsvValue[] => [
+    m.file, m.timeIndices[k], timeCell(m, k), b.channel, b.method, b.positionEl, b.positionUm, b.widthEl, b.positionSeEl, b.direction, b.note,
+  ])));
+  return toCsv(['file', 't_index', 't_s', 'channel', 'method', 'position_el', 'position_um', 'width_el', 'position_se_el', 'direction', 'note'], rows);
+}
+
+/** The three figures of one movie (SVG text by file-name suffix). */
+export function movieFigures(m: MovieOutcome): { name: string; title: string; svg: string }[] {
+  const s = m.summary;
+  const slug = figureSlug(m.file.replace(/\.(ome\.)?tiff?$/i, ''));
+  const times = m.timesS ?? Float64Array.from(m.timeIndices);
+  const lambda = lambdaOverTimeFigure(s.lambda.map((l) => ({
+    tS: l.tS, lambdaEl: l.fit?.lambdaEl ?? NaN,
+    ciLowEl: l.fit ? l.fit.lambdaCiLowUm / (l.fit.lambdaUm / l.fit.lambdaEl) : NaN, ciHighEl: l.fit ? l.fit.lambdaCiHighUm / (l.fit.lambdaUm / l.fit.lambdaEl) : NaN,
+  })), { title: `Decay length over time — ${m.file}`, steadyLambdaEl: s.steadyFit?.lambdaEl });
+  const profiles = m.results.map((r) => r.gradientProfile);
+  const first = profiles.find((p) => p !== null) ?? null;
+  const boundaryTrack = m.results.map((r) => summaryBoundary(r)?.positionEl ?? NaN);
+  const landmarkNames = [...new Set(m.results.flatMap((r) => r.landmarks.map((l) => l.name)))];
+  const tracks = [
+    ...(boundaryTrack.some(Number.isFinite) ? [{ label: `${m.results.find((r) => r.boundaries[0])?.boundaries[0].channel ?? 'boundary'} boundary`, kind: 'boundary' as const, xEl: boundaryTrack }] : []),
+    ...landmarkNames.map((name) => ({ label: name, kind: 'landmark' as const, xEl: m.results.map((r) => r.landmarks.find((l) => l.name === name)?.xEl ?? NaN) })),
+  ];
+  const kymo = first ? kymographFigure({ xEl: first.xEl, timesS: times, values: profiles.map((p) => p?.mean ?? first.xEl.map(() => NaN)), tracks }, { title: `Kymograph — ${m.file}` }) : null;
+  const a = s.accumulation;
+  const tau = a ? accumulationFigure({
+    xEl: a.xEl, tauS: a.tauS, ciLowS: a.tauCiLowS, ciHighS: a.tauCiHighS,
+    fit: s.model ? { tau0S: s.model.tau0S.value, lambdaTauEl: s.model.lambdaTauEl.value, rangeEl: s.model.rangeEl, steadyLambdaEl: s.steadyFit?.lambdaEl ?? NaN } : null,
+  }, { title: `Local accumulation time — ${m.file}` }) : null;
+  return [
+    { name: `${slug}-lambda.svg`, title: 'λ over time', svg: lambda },
+    ...(kymo ? [{ name: `${slug}-kymograph.svg`, title: 'kymograph', svg: kymo }] : []),
+    ...(tau ? [{ name: `${slug}-tau.svg`, title: 'τ(x)', svg: tau }] : []),
+  ];
+}
+
+/** Writes the tables, figures (timelapse/*.svg) and timelapse.html for the analysed movies; returns the paths. */
+export async function writeTimelapseOutputs(outDir: string, movies: readonly MovieOutcome[], failures: readonly { file: string; error: string }[]): Promise<string[]> {
+  const figureDir = join(outDir, 'timelapse');
+  await fs.mkdir(figureDir, { recursive: true });
+  const written: string[] = [];
+  const put = async (path: string, text: string): Promise<void> => { await writeFileAtomic(path, text); written.push(path); };
+  await put(join(outDir, 'timecourse.csv'), timecourseCsv(movies));
+  await put(join(outDir, 'timecourse_profiles.csv'), timecourseProfilesCsv(movies));
+  await put(join(outDir, 'timecourse_boundaries.csv'), timecourseBoundariesCsv(movies));
+  await put(join(outDir, 'accumulation.csv'), toCsv(ACCUMULATION_COLUMNS, movies.flatMap((m) => accumulationRows(m.summary))));
+  await put(join(outDir, 'model_fit.csv'), toCsv(MODEL_FIT_COLUMNS, movies.map((m) => modelFitRow(m.summary))));
+  const figures = movies.map((m) => ({ movie: m, figures: movieFigures(m) }));
+  for (const { figures: list } of figures) for (const f of list) await put(join(figureDir, f.name), f.svg);
+  await put(join(outDir, 'timelapse.html'), timelapsePage(figures, failures, new Date().toISOString()));
+  return written;
+}
+
+/**
+ * The time pass over a batch's files: analyse those with more than one time point as movies, one after another,
+ * and write their outputs. Bad files give a one-line failure and the pass goes on. Returns null when no file is a movie.
+ */
+export async function runTimelapsePass(
+  folder: string, outDir: string, files: readonly string[], settings: AnalysisSettings, doc: ProjectDoc | null,
+  options: TimelapseOptions, onMovie?: (file: string, done: number) => void,
+): Promise<{ movies: MovieOutcome[]; failures: { file: string; error: string }[]; written: string[] } | null> {
+  const movies: MovieOutcome[] = [];
+  const failures: { file: string; error: string }[] = [];
+  for (const file of files) {
+    const r = await analyseMovieFile(folder, file, settings, doc, options);
+    if (r === null) continue;
+    if ('error' in r) failures.push(r); else movies.push(r);
+    onMovie?.(file, movies.length + failures.length);
+  }
+  if (movies.length === 0 && failures.length === 0) return null;
+  return { movies, failures, written: await writeTimelapseOutputs(outDir, movies, failures) };
+}

@@ -1,0 +1,51 @@
+// The batch command's time analysis: parse its flags, run it after the batch, say what it wrote.
+import { join } from 'node:path';
+import { parseFitRange } from '../../core/batch';
+import { parseTimeSelection } from '../../core/timelapse';
+import { DEFAULT_TIMELAPSE_OPTIONS, runTimelapsePass, type TimelapseOptions } from '../batch/timelapse-pass';
+import type { BatchPlan } from './batch-command';
+import { UsageError, type CliIo } from './usage-error';
+
+/** The time flags as given (strings, or undefined when absent). */
+export interface TimelapseFlags {
+  readonly time?: string;
+  readonly axisPerTime?: boolean;
+  readonly timeStep?: string;
+  readonly tauRange?: string;
+  readonly baselineFrames?: string;
+}
+
+function usage(e: unknown): never {
+  throw new UsageError((e as Error).message, 'batch');
+}
+
+/** Options of the time analysis from the flags; UsageError with a one-line message for bad values. */
+export function parseTimelapseFlags(f: TimelapseFlags): TimelapseOptions {
+  const selection = f.time !== undefined ? (() => { try { return parseTimeSelection(f.time!); } catch (e) { return usage(e); } })() : DEFAULT_TIMELAPSE_OPTIONS.selection;
+  let timeStepS: number | null = null;
+  if (f.timeStep !== undefined) {
+    timeStepS = Number(f.timeStep);
+    if (!(Number.isFinite(timeStepS) && timeStepS > 0)) throw new UsageError(`--time-step must be a positive number of seconds (got "${f.timeStep}")`, 'batch');
+  }
+  let tauRangeEl = DEFAULT_TIMELAPSE_OPTIONS.tauRangeEl;
+  if (f.tauRange !== undefined) {
+    try { tauRangeEl = parseFitRange(f.tauRange); } catch (e) { usage(new Error((e as Error).message.replace('--fit-range', '--tau-range'))); }
+  }
+  let baselineFrames = DEFAULT_TIMELAPSE_OPTIONS.baselineFrames;
+  if (f.baselineFrames !== undefined) {
+    baselineFrames = Number(f.baselineFrames);
+    if (!/^\d+$/.test(f.baselineFrames.trim())) throw new UsageError(`--baseline-frames must be a whole number ≥ 0 (got "${f.baselineFrames}")`, 'batch');
+  }
+  return { selection, axisPerTime: f.axisPerTime === true, timeStepS, tauRangeEl, baselineFrames };
+}
+
+/** Run the time analysis over the batch's files; prints what it wrote. Returns the number of movies that failed. */
+export async function runTimelapseStep(plan: BatchPlan, files: readonly string[], io: CliIo): Promise<number> {
+  const pass = await runTimelapsePass(plan.folder, plan.outDir, files, plan.settings, plan.doc, plan.timelapse,
+    (file, done) => io.stderr.write(`eggline: time analysis ${done}: ${file}\n`));
+  if (pass === null) return 0;
+  for (const f of pass.failures) io.stderr.write(`eggline: ${f.error}\n`);
+  for (const m of pass.movies) for (const w of m.summary.warnings) io.stderr.write(`eggline: warning: ${m.file}: ${w}\n`);
+  io.stdout.write(`Time analysis of ${pass.movies.length} movie${pass.movies.length === 1 ? '' : 's'}: timecourse.csv, accumulation.csv, model_fit.csv and ${join(plan.outDir, 'timelapse.html')}\n`);
+  return pass.failures.length;
+}

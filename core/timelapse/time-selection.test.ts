@@ -1,0 +1,18 @@
+import { describe, expect, it } from 'vitest';
+import { parseTimeSelection, selectTimeIndices } from './time-selection';
+
+describe('parseTimeSelection / selectTimeIndices', () => {
+  it('reads all, one time point and an inclusive range', () => {
+    expect(selectTimeIndices(parseTimeSelection('all'), 3)).toEqual([0, 1, 2]);
+    expect(selectTimeIndices(parseTimeSelection('2'), 5)).toEqual([2]);
+    expect(selectTimeIndices(parseTimeSelection('1:3'), 5)).toEqual([1, 2, 3]);
+    // A range past the end stops at the last time point.
+    expect(selectTimeIndices(parseTimeSelection('3:9'), 5)).toEqual([3, 4]);
+  });
+
+  it('says why a selection picks nothing, and rejects bad text with a one-line message', () => {
+    expect(selectTimeIndices(parseTimeSelection('7'), 5)).toBe('time point 7 is outside the movie (T = 5, time points 0 to 4)');
+    expect(() => parseTimeSelection('4:2')).toThrow('--time must be all, a time point K or a range A:B (0-based, A ≤ B), got "4:2"');
+    expect(() => parseTimeSelection('-1')).toThrow(/got "-1"/);
+  });
+});
