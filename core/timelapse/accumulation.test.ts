@@ -36,6 +36,17 @@ describe('localAccumulationTime on known relaxations', () => {
     expect(r.lateRise[0]).toBeCloseTo(Math.exp(-2.4) - Math.exp(-3), 2);
   });
 
+  it('flags an exponential approach cut before about 3.5τ and not one cut after it', () => {
+    // Rise over the last fifth: e^{−0.8u} − e^{−u} for a movie of u·τ (calculus): 3.4% at 3.3τ, 2.8% at 3.7τ.
+    const flagged = (u: number): number => {
+      const times = range(Math.round((u * 300) / 5) + 1, 5);
+      return localAccumulationTime(times, exponentialApproach(times, 300, [1000]), { plateauFrames: 1 }).stillRising[0];
+    };
+    expect(flagged(3.3)).toBe(1);
+    expect(flagged(3.7)).toBe(0);
+    expect(accumulationTruncationBias(3.5)).toBeCloseTo(-0.109, 3);
+  });
+
   it('does not flag a movie of 5τ, whose bias is only −3.4%', () => {
     const times = range(301, 5); // 1500 s = 5τ
     const r = localAccumulationTime(times, exponentialApproach(times, 300, [1000]), { plateauFrames: 1 });

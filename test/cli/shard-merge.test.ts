@@ -93,6 +93,14 @@ describe('eggline batch --shard and eggline merge', () => {
     expect([r.code, r.stderr]).toEqual([2, 'eggline merge: parts/3-of-3 was made from another input list than parts/1-of-3 (6 vs 5 files, or files changed in between)\n']);
   });
 
+  it('gives a part with no files (more parts than files) empty tables and exit 0', async () => {
+    const out = join(dir, 'six');
+    const r = await cli(['batch', demo, '--out', out, '--jobs', '1', '--shard', '6/6']);
+    expect([r.code, r.stdout]).toEqual([0, `Part 6 of 6 has no files (5 files in 6 parts); empty tables written to ${join(out, 'parts', '6-of-6')}\n`]);
+    expect(readFileSync(join(out, 'parts', '6-of-6', 'embryos.csv'), 'utf8').split('\r\n')).toHaveLength(2);
+    expect(json(join(out, 'parts', '6-of-6', 'run.json'))).toMatchObject({ complete: true, shard: { part: 6, parts: 6, inputCount: 5 } });
+  });
+
   it('refuses --samples with --shard, and merge without parts, with exit 2', async () => {
     const s = await cli(['batch', demo, '--out', join(dir, 'x'), '--shard', '1/2', '--samples', join(demo, 'samples.csv')]);
     expect([s.code, s.stderr]).toEqual([2, 'eggline batch: --samples goes to "eggline merge" when a batch is split (--shard); the parts are compared once merged (see "eggline batch --help")\n']);
