@@ -43,6 +43,8 @@ describe('output tables', () => {
       pixel_size_um: '0.5', anterior_y_px: '20', posterior_y_px: '22.5', axis_source: 'hand', lambda_um: '100',
       lambda_el: '0.2', lambda_se_model_um: '2.5', lambda_se_serial_um: '3', lambda_se_source: 'serial',
       residual_lag1: '0.31', fit_weighting: 'inverse-variance', fit_start_el: '0.1', fit_end_el: '0.6', boundary_el: '0.5', boundary_width_el: '0.02',
+      // Source: 10% and 90% of a logistic step lie at x₀ ∓ w·ln 9, so the 10–90% width is 2·ln 9·w (derived).
+      boundary_width_10_90_el: String(2 * Math.log(9) * 0.02),
     });
     expect(rows[2].slice(0, 4)).toEqual(['junk.tif', 'error', 'junk.tif: not a TIFF file', '']);
     expect(rows[2].slice(4).every((c, i) => c === '' || EMBRYO_COLUMNS[i + 4] === 'pixel_size_source')).toBe(true);
@@ -53,7 +55,7 @@ describe('output tables', () => {
   });
   it('boundaries, profiles and landmarks tables', () => {
     expect(boundariesCsv([ok, bad]).split('\r\n')[2])
-      .toBe('dose,half/E01.ome.tif,stripe,logistic,0.5,250,0.02,0.001,falling,"a ""note"", with comma"'.replace('dose,half/E01.ome.tif', '"dose,half/E01.ome.tif"'));
+      .toBe(`dose,half/E01.ome.tif,stripe,logistic,0.5,250,0.02,${2 * Math.log(9) * 0.02},0.001,falling,"a ""note"", with comma"`.replace('dose,half/E01.ome.tif', '"dose,half/E01.ome.tif"'));
     const profiles = parseCsv(profilesCsv([ok, bad]));
     expect(profiles).toEqual([
       ['file', 'channel', 'x_el', 'x_um', 'mean', 'sd', 'n'],

@@ -10,12 +10,12 @@ export const EMBRYO_COLUMNS = [
   'lambda_um', 'lambda_el', 'lambda_se_um', 'lambda_ci_low_um', 'lambda_ci_high_um',
   'lambda_se_model_um', 'lambda_se_serial_um', 'lambda_se_source', 'residual_lag1', 'fit_weighting',
   'amplitude', 'background', 'r2',
-  'fit_start_el', 'fit_end_el', 'boundary_el', 'boundary_width_el',
+  'fit_start_el', 'fit_end_el', 'boundary_el', 'boundary_width_el', 'boundary_width_10_90_el',
 ] as const;
 
 /** Columns of boundaries.csv, one row per file × channel × method. */
 export const BOUNDARY_COLUMNS = [
-  'file', 'channel', 'method', 'position_el', 'position_um', 'width_el', 'position_se_el', 'direction', 'note',
+  'file', 'channel', 'method', 'position_el', 'position_um', 'width_el', 'width_10_90_el', 'position_se_el', 'direction', 'note',
 ] as const;
 
 /** Columns of profiles.csv (long format), one row per file × channel × bin. */
@@ -43,7 +43,7 @@ export function embryoRow(r: EmbryoResult): CsvValue[] {
     fit?.lambdaSeModelUm, fit?.lambdaSeSerialUm, fit?.lambdaSeSource, fit?.residualLag1,
     fit ? (fit.weighted ? 'inverse-variance' : 'none') : null,
     fit?.amplitude, fit?.background, fit?.r2, fit?.fitRangeEl[0], fit?.fitRangeEl[1],
-    boundary?.positionEl, boundary?.widthEl,
+    boundary?.positionEl, boundary?.widthEl, width1090El(boundary?.widthEl ?? null),
   ];
 }
 
@@ -52,10 +52,15 @@ export function embryosCsv(results: readonly EmbryoResult[]): string {
   return toCsv(EMBRYO_COLUMNS, results.map(embryoRow));
 }
 
+/** The logistic's 10–90% width, the distance over which it goes from 10% to 90% of its step: 2·ln 9·w ≈ 4.394·w. */
+export function width1090El(widthEl: number | null): number | null {
+  return widthEl === null ? null : 2 * Math.log(9) * widthEl;
+}
+
 /** boundaries.csv text: every boundary of every embryo. */
 export function boundariesCsv(results: readonly EmbryoResult[]): string {
   const rows = results.flatMap((r) => r.boundaries.map((b): CsvValue[] => [
-    r.file, b.channel, b.method, b.positionEl, b.positionUm, b.widthEl, b.positionSeEl, b.direction, b.note,
+    r.file, b.channel, b.method, b.positionEl, b.positionUm, b.widthEl, width1090El(b.widthEl), b.positionSeEl, b.direction, b.note,
   ]));
   return toCsv(BOUNDARY_COLUMNS, rows);
 }

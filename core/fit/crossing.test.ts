@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { halfMaxCrossing, thresholdCrossing } from './crossing';
+import { halfMaxCrossing, steepestSegment, thresholdCrossing } from './crossing';
 import { FitError } from './fit-error';
 
 const x5 = [0, 0.25, 0.5, 0.75, 1];
@@ -62,5 +62,22 @@ describe('halfMaxCrossing / thresholdCrossing', () => {
       expect(run).toThrow(FitError);
       expect(run).toThrow(message);
     }
+  });
+});
+
+describe('steepest change on a lightly smoothed profile', () => {
+  it('is not taken from a single noisy bin', () => {
+    // Demo data: a step from 10 to 0 between bins 14 and 16 (two segments of −5), and one dip of −8 at bin 4 (a
+    // single-bin change of 8, larger than either half of the real edge).
+    const y = Float64Array.from({ length: 24 }, (_, i) => (i < 15 ? 10 : i === 15 ? 5 : 0) - (i === 4 ? 8 : 0));
+    // Unsmoothed the dip's segments win; after the 3-bin average the edge does (source: hand arithmetic of the moving
+    // average: the edge then changes by 3.33 per bin at most, the dip by 2.67).
+    expect(steepestSegment(y)).toBeGreaterThanOrEqual(13);
+    expect(steepestSegment(y)).toBeLessThanOrEqual(15);
+    const x = Float64Array.from(y, (_, i) => i / 24);
+    // Level 8.2 (fraction 0.82 of the 0–10 range) is crossed at the dip's two sides and at the edge.
+    const c = thresholdCrossing(x, y, 0.82);
+    expect(c.crossings).toBe(3);
+    expect(c.positionEl!).toBeGreaterThan(14 / 24);
   });
 });

@@ -55,16 +55,24 @@ function findCrossings(x: Float64Array, y: Float64Array, level: number): { x: nu
   return out;
 }
 
-/** Index of the segment with the largest absolute change between neighbouring bins. */
-function steepestSegment(y: Float64Array): number {
+/** Bins of the light smoothing (centred moving average) the steepest change is read from. */
+export const STEEPEST_SMOOTH_BINS = 3;
+
+/**
+ * Index of the segment with the largest absolute change between neighbouring bins of the profile after a light
+ * 3-bin moving average, so that one noisy bin (a hot pixel cluster, a nucleus on a bin edge) does not pass for the
+ * boundary's edge when there are several crossings.
+ */
+export function steepestSegment(y: Float64Array): number {
+  const s = movingAverage(y, STEEPEST_SMOOTH_BINS);
   let best = 0;
-  for (let i = 1; i + 1 < y.length; i++) if (Math.abs(y[i + 1] - y[i]) > Math.abs(y[best + 1] - y[best])) best = i;
+  for (let i = 1; i + 1 < s.length; i++) if (Math.abs(s[i + 1] - s[i]) > Math.abs(s[best + 1] - s[best])) best = i;
   return best;
 }
 
 /**
  * Where the profile crosses `threshold` (a fraction of its robust range, or { absolute }). Non-finite bins are
- * skipped. With several crossings the one nearest the steepest change of the (smoothed) profile is reported.
+ * skipped. With several crossings the one nearest the steepest change of the lightly smoothed profile is reported.
  */
 export function thresholdCrossing(
   xEl: ArrayLike<number>, y: ArrayLike<number>, threshold: Threshold, options: CrossingOptions = {},
