@@ -5,14 +5,14 @@ import { existsSync, promises as fs } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { basename, dirname, join, resolve } from 'node:path';
 import {
-  BatchOptionError, editsForFile, JOURNAL_FILE_NAME, normalizeResult, runRecordToJson, settingsForFile, toHandEdits,
+  BatchOptionError, editsForFile, JOURNAL_FILE_NAME, normalizeResult, runRecordToJson, toHandEdits,
   type ParsedJournal, type RunEndReason, type RunInput, type RunRecord,
 } from '../../core/batch';
 import type { BatchProgress, BatchSummary, ProjectDoc } from '../../core/contract';
 import { errorResult, type EmbryoResult } from '../../core/model';
 import type { CohortAnalysis } from '../../core/cohort';
 import type { NamedFigure } from '../../core/figures';
-import type { AnalysisSettings } from '../../core/settings';
+import { settingsInForce, type AnalysisSettings } from '../../core/settings';
 import type { ShardSpec } from '../../core/shard';
 import { analyseFile } from './analyse-file';
 import { runCohort } from './cohort-adapter';
@@ -189,7 +189,7 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   if (opts.jobs > 0 && !existsSync(workerPath)) throw new Error(`the batch worker ${workerPath} is missing; build it with "npm run build"`);
   const tasks: BatchTask[] = files.map((f, index) => {
     const edits = editsForFile(opts.doc, f.file, f.path);
-    const task = { index, path: f.path, file: f.file, settings: settingsForFile(opts.settings, edits), handEdits: toHandEdits(edits) };
+    const task = { index, path: f.path, file: f.file, settings: settingsInForce(opts.settings, edits), handEdits: toHandEdits(edits) };
     return opts.maxMemoryBytes === undefined ? task : { ...task, maxMemoryBytes: opts.maxMemoryBytes };
   });
   const software = await softwareVersions();

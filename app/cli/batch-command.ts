@@ -6,7 +6,7 @@ import {
   BatchOptionError, defaultMaxMemoryBytes, mergeSettings, parseByteSize, parseConfigText, parseSettingsFlags, PROJECT_FILE_NAME, type SettingsOverrides,
 } from '../../core/batch';
 import type { ProjectDoc } from '../../core/contract';
-import { DEFAULT_SETTINGS, type AnalysisSettings } from '../../core/settings';
+import { DEFAULT_SETTINGS, flagKey, SETTINGS, type AnalysisSettings } from '../../core/settings';
 import { MAX_PARTS, parseShardSpec, type ShardSpec } from '../../core/shard';
 import { defaultJobs, realPathOf, runBatch, type BatchRunResult, type RunBatchOptions } from '../batch/run-batch';
 import { isInside } from '../batch/list-stacks';
@@ -20,10 +20,13 @@ import { UsageError, type CliIo } from './usage-error';
 import { parseTimelapseFlags, runTimelapseStep } from './timelapse-step';
 import type { TimelapseOptions } from '../batch/timelapse-pass';
 
+/** One flag per analysis setting, from the settings table (core/settings SETTINGS). */
+const SETTING_OPTIONS = Object.fromEntries(SETTINGS.map((s) => [s.flag.slice(2), s.repeatable ? { type: 'string', multiple: true } : { type: 'string' }])) as
+  Record<string, { type: 'string'; multiple?: boolean }>;
+
 const OPTIONS = {
-  out: { type: 'string' }, jobs: { type: 'string' }, 'gradient-channel': { type: 'string' },
-  'boundary-channel': { type: 'string', multiple: true }, 'pixel-size': { type: 'string' }, projection: { type: 'string' },
-  profile: { type: 'string' }, 'fit-range': { type: 'string' }, anterior: { type: 'string' }, config: { type: 'string' },
+  ...SETTING_OPTIONS,
+  out: { type: 'string' }, jobs: { type: 'string' }, config: { type: 'string' },
   project: { type: 'string' }, 'no-project': { type: 'boolean' }, samples: { type: 'string' }, reference: { type: 'string' },
   'file-timeout': { type: 'string' }, resume: { type: 'boolean' }, 'max-memory': { type: 'string' }, shard: { type: 'string' },
   slurm: { type: 'string' }, 'slurm-options': { type: 'string' }, help: { type: 'boolean', short: 'h' },
@@ -111,10 +114,8 @@ export async function planBatch(given: readonly string[]): Promise<BatchPlan | '
   if (v.samples !== undefined && !(await fs.stat(v.samples).then((s) => s.isFile(), () => false))) {
     throw new UsageError(`sample sheet not found: ${v.samples}`, 'batch');
   }
-  const flags = parseSettingsFlags({
-    gradientChannel: v['gradient-channel'], boundaryChannel: v['boundary-channel'], pixelSize: v['pixel-size'],
-    projection: v.projection, profile: v.profile, fitRange: v['fit-range'], anterior: v.anterior,
-  });
+  const typed = v as Record<string, string | string[] | boolean | undefined>;
+  const flags = parseSettingsFlags(Object.fromEntries(SETTINGS.map((s) => [flagKey(s.flag), typed[s.flag.slice(2)] as string | string[] | undefined])));
   const config = v.config !== undefined ? await readConfig(v.config) : {};
   const project = await readProject(v.project, folder, v['no-project'] === true);
   const jobs = v.jobs !== undefined ? wholeNumber(v.jobs, '--jobs', 1, 256) : defaultJobs();

@@ -1,4 +1,22 @@
-// Help texts for `eggline --help` and `eggline <command> --help`.
+// Help texts for `eggline --help` and `eggline <command> --help`. The analysis settings' lines come from the settings
+// table (core/settings SETTINGS), so every setting's flag is listed with its help line and default.
+import { DEFAULT_SETTINGS, SETTINGS, settingValue, type SettingSpec } from '../../core/settings';
+
+/** The default of a setting as a flag would write it; '' when there is none. */
+function defaultText(spec: SettingSpec): string {
+  const v = settingValue(DEFAULT_SETTINGS, spec.key);
+  if (v === null || (Array.isArray(v) && v.length === 0)) return '';
+  return Array.isArray(v) ? v.join(',') : String(v);
+}
+
+/** One help line per settings flag: flag and value, help, [default]. */
+export function settingsHelp(): string {
+  return SETTINGS.filter((s) => s.key !== 'sliceIndex').map((s) => {
+    const d = defaultText(s);
+    const head = `${`  ${s.flag} ${s.flagValue}`.padEnd(29)} `;
+    return d === '' ? `${head}${s.help}` : `${head}${s.help}  [${d}]`;
+  }).join('\n');
+}
 
 /** Top-level help. */
 export const MAIN_HELP = `eggline — measure morphogen gradients along the AP axis of embryo images
@@ -25,13 +43,7 @@ into <folder>; <dir> must not be <folder> or inside it.
 Options:
   --out DIR                   output folder (created if missing)                       [required]
   --jobs N                    worker threads                            [default: number of cores]
-  --gradient-channel N|NAME   channel of the exponential gradient (1-based or name)        [1]
-  --boundary-channel N|NAME   channel to find expression boundaries in; repeat for more
-  --pixel-size UM             µm per pixel, used when a file does not say
-  --projection P              max | mean | sum | slice | slice:Z (Z is 0-based)         [mean]
-  --profile MODE              edge (band under the outline) | axis (strip on the axis)  [edge]
-  --fit-range A,B             x/EL range of the exponential fit, 0 ≤ A < B ≤ 1        [0.1,0.6]
-  --anterior A                auto (high end of the gradient) | high | low             [auto]
+${settingsHelp()}
   --config FILE               settings JSON (keys as in results.json settings); flags win over it
   --project FILE              hand edits (axis, landmarks, fit range per file)
                               [default: <folder>/eggline-project.json when present]

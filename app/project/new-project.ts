@@ -1,7 +1,5 @@
 // A fresh project for a folder that has none yet.
-import type { ProjectDoc } from '../../core/contract';
-import { DEFAULT_SETTINGS } from '../../core/settings';
-import { PROJECT_SCHEMA, PROJECT_VERSION } from './check-project';
+import { DEFAULT_SETTINGS, PROJECT_SCHEMA, PROJECT_VERSION, type ProjectDoc } from '../../core/settings';
 
 /** The file name a folder's project gets. */
 export const PROJECT_FILE_NAME = 'eggline-project.json';

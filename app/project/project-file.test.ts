@@ -112,7 +112,7 @@ describe('project files', () => {
     const path = join(dir, 'p.json');
     const doc = demoDoc(dir);
     await writeFile(path, JSON.stringify({ ...doc, folder: '.', settings: { ...doc.settings, fitRangeEl: [0.6, 0.2] } }));
-    await expect(loadProject(path)).rejects.toThrow('p.json: settings.fitRangeEl must be two numbers 0 ≤ a < b ≤ 1');
+    await expect(loadProject(path)).rejects.toThrow('p.json: settings.fitRangeEl must be two numbers [a, b] with 0 ≤ a < b ≤ 1');
     const badLandmark = { ...doc.files['sub/embryo-01.ome.tif'], landmarks: [{ name: '', point: { x: 1, y: 2 } }] };
     await writeFile(path, JSON.stringify({ ...doc, folder: '.', files: { 'a.tif': badLandmark } }));
     await expect(loadProject(path)).rejects.toThrow('p.json: files["a.tif"].landmarks[0].name must be a non-empty text');

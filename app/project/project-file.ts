@@ -2,9 +2,7 @@
 // relative to the folder, so a project moved together with its images still opens.
 import { promises as fs } from 'node:fs';
 import { basename, dirname, isAbsolute, join, relative, resolve, sep } from 'node:path';
-import type { ProjectDoc } from '../../core/contract';
-import { checkProjectDoc } from './check-project';
-import { ProjectFormatError } from './format-error';
+import { checkProjectDoc, parseProjectText, ProjectFormatError, type ProjectDoc } from '../../core/settings';
 import { writeFileAtomic } from './atomic-write';
 
 /** Largest project file we read, bytes; a larger file is surely not ours and would stall the app. */
@@ -34,20 +32,7 @@ export async function loadProject(projectPath: string): Promise<ProjectDoc> {
   const stat = await fs.stat(projectPath);
   if (!stat.isFile()) throw new ProjectFormatError(`${name}: is not a file`);
   if (stat.size > MAX_PROJECT_BYTES) throw new ProjectFormatError(`${name}: too large for a project file (${stat.size} bytes)`);
-  const text = await fs.readFile(projectPath, 'utf8');
-  let raw: unknown;
-  try {
-    raw = JSON.parse(text);
-  } catch (e) {
-    throw new ProjectFormatError(`${name}: not valid JSON (${(e as Error).message.split('\n')[0]})`);
-  }
-  let doc: ProjectDoc;
-  try {
-    doc = checkProjectDoc(raw);
-  } catch (e) {
-    if (e instanceof ProjectFormatError) throw new ProjectFormatError(`${name}: ${e.message}`);
-    throw e;
-  }
+  const doc = parseProjectText(await fs.readFile(projectPath, 'utf8'), name);
   const base = dirname(resolve(projectPath));
   const folder = doc.folder === null ? null : resolve(base, doc.folder);
   // The folder grants reading every file under it in the window: only the project's own folder may be named.

@@ -1,11 +1,8 @@
 // Public surface of core/batch: batch settings from config + flags, output tables, results JSON, project edits.
 export { BatchOptionError } from './option-error';
-export {
-  parseSettingsFlags, parseFitRange, parsePixelSize, parseProjection, parseChannelRef,
-  type SettingsFlags, type SettingsOverrides,
-} from './parse-flags';
-export { settingsFromConfig, parseConfigText } from './parse-config';
-export { mergeSettings } from './merge-settings';
+export { parseSettingsFlags, parseFitRange, type SettingsFlags, type SettingsOverrides } from './parse-flags';
+export { parseConfigText } from './parse-config';
+export { mergeSettings } from '../settings';
 export {
   EMBRYO_COLUMNS, BOUNDARY_COLUMNS, PROFILE_COLUMNS, LANDMARK_COLUMNS,
   embryoRow, embryosCsv, boundariesCsv, profilesCsv, landmarksCsv, summaryBoundary, embryoProfiles,
@@ -17,7 +14,7 @@ export {
 } from './journal';
 export { MAX_CELL_CHARS, clipMessage, collapseMessages, warningsCell, tidyMessages } from './messages';
 export {
-  PROJECT_FILE_NAME, parseProjectDoc, projectKey, editsForFile, toHandEdits, settingsForFile,
+  PROJECT_FILE_NAME, projectKey, editsForFile, toHandEdits,
 } from './project-edits';
 export { isStackFileName, isStackFolderName, sortStackPaths } from './stack-files';
 export {

@@ -1,6 +1,3 @@
-// The error type for bad batch options, config files and project files: one line, shown to the user as is.
-
-/** A usage or configuration problem; `message` is one line and names the option or file. */
-export class BatchOptionError extends Error {
-  override name = 'BatchOptionError';
-}
+// The error type for bad batch options, config files and project files: core/settings' SettingsError under the name
+// the batch code has always used (one class, so every catch sees every settings problem).
+export { SettingsError as BatchOptionError } from '../settings';

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { DEFAULT_SETTINGS } from '../settings';
-import { editsForFile, parseProjectDoc, settingsForFile, toHandEdits } from './project-edits';
+import { DEFAULT_SETTINGS, parseProjectText, settingsInForce } from '../settings';
+import { editsForFile, toHandEdits } from './project-edits';
 import { isStackFileName, sortStackPaths } from './stack-files';
 
 // Source: demo data; messages are this project's pinned wording.
@@ -14,27 +14,27 @@ const doc = {
 
 describe('project edits', () => {
   it('parses a project and finds edits by relative path (either slash)', () => {
-    const p = parseProjectDoc(JSON.stringify(doc), 'p.json');
+    const p = parseProjectText(JSON.stringify(doc), 'p.json');
     expect(editsForFile(p, 'sub\\E02.ome.tif')?.fitRangeEl).toEqual([0.2, 0.5]);
     expect(editsForFile(p, 'missing.tif')).toBeNull();
     expect(editsForFile(null, 'E01.ome.tif')).toBeNull();
   });
   it('turns edits into hand edits (axis marked hand) and a per-file fit range', () => {
-    const p = parseProjectDoc(JSON.stringify(doc), 'p.json');
+    const p = parseProjectText(JSON.stringify(doc), 'p.json');
     const e2 = editsForFile(p, 'sub/E02.ome.tif');
     expect(toHandEdits(e2)?.axis?.source).toBe('hand');
-    expect(settingsForFile(DEFAULT_SETTINGS, e2).fitRangeEl).toEqual([0.2, 0.5]);
+    expect(settingsInForce(DEFAULT_SETTINGS, e2).fitRangeEl).toEqual([0.2, 0.5]);
     const e1 = editsForFile(p, 'E01.ome.tif');
     expect(toHandEdits(e1)).toEqual({ axis: null, landmarks: [{ name: 'furrow', point: { x: 30, y: 4 } }] });
-    expect(settingsForFile(DEFAULT_SETTINGS, e1)).toBe(DEFAULT_SETTINGS);
+    expect(settingsInForce(DEFAULT_SETTINGS, e1)).toBe(DEFAULT_SETTINGS);
     expect(toHandEdits({ axis: null, landmarks: [], fitRangeEl: null })).toBeNull();
   });
   it('pins the messages for bad project files', () => {
-    expect(() => parseProjectDoc('{"schema":"other"}', 'p.json')).toThrow('p.json: not an Eggline project file (schema must be "eggline-project")');
-    expect(() => parseProjectDoc('{"schema":"eggline-project","version":9,"files":{}}', 'p.json')).toThrow('p.json: unsupported project version 9 (expected 1)');
+    expect(() => parseProjectText('{"schema":"other"}', 'p.json')).toThrow('p.json: schema must be \'eggline-project\' (found "other"); this is not an Eggline project');
+    expect(() => parseProjectText('{"schema":"eggline-project","version":9,"files":{}}', 'p.json')).toThrow('p.json: version is 9, newer than this Eggline reads (1); update Eggline to open it');
     const badRange = { ...doc, files: { 'a.tif': { axis: null, landmarks: [], fitRangeEl: [0.9, 0.1] } } };
-    expect(() => parseProjectDoc(JSON.stringify(badRange), 'p.json'))
-      .toThrow('p.json: edits for "a.tif": fitRangeEl must be two numbers [a, b] with 0 ≤ a < b ≤ 1');
+    expect(() => parseProjectText(JSON.stringify(badRange), 'p.json'))
+      .toThrow('p.json: files["a.tif"].fitRangeEl must be two numbers [a, b] with 0 ≤ a < b ≤ 1');
   });
 });
 

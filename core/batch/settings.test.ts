@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { DEFAULT_SETTINGS } from '../settings';
-import { mergeSettings } from './merge-settings';
+import { mergeSettings } from '../settings';
 import { parseConfigText } from './parse-config';
 import { parseSettingsFlags } from './parse-flags';
 

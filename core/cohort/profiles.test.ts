@@ -56,6 +56,15 @@ describe('conditionProfile (positional error σx = σC / |dC̄/dx|)', () => {
     expect(p.n[i]).toBe(2);
     expect(p.mean[0]).toBeNaN(); // x = 0 lies before the first bin centre: not extrapolated
   });
+  it('is first-order error propagation: embryos shifted along x by δ give σx = SD of δ', () => {
+    // Source: the delta method (first-order error propagation: Var g(X) ≈ g′(μ)² Var X), Casella & Berger,
+    // Statistical Inference, 2nd ed., §5.5.4 (from memory). A profile shifted by δ reads C(x − δ) ≈ C(x) − C′(x)·δ,
+    // so σC = |C′|·SD(δ) and σx = σC/|C′| = SD(δ); for a linear profile the first-order term is exact.
+    // Demo data: C(x) = 100 − 50·(x − δ) with δ = ±0.01 EL, i.e. offsets ±0.5; SD(δ) = 0.01·√2 (n − 1).
+    const r = conditionProfile([linearEmbryo('a', 50 * 0.01), linearEmbryo('b', -50 * 0.01)], { name: 'c', dosage: 1, factor: 1 },
+      { normalisation: 'none', gridStepEl: 0.01, slopeHalfWidthEl: 0.02 });
+    expect(r.profile!.sigmaXEl[50]).toBeCloseTo(0.01 * Math.SQRT2, 12);
+  });
   it('σx is undefined where the slope is not resolved (change within 2 SE of zero)', () => {
     // Source: hand-computed: offsets ±1 → SD √2, n = 2; change over ±0.02 EL = 2 < 2·√(1 + 1) = 2.83
     const r = conditionProfile([linearEmbryo('a', 1), linearEmbryo('b', -1)], { name: 'c', dosage: 1, factor: 1 },

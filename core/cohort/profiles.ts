@@ -1,6 +1,9 @@
 // Gradient precision along the axis: per condition, the mean profile ± SD across embryos on a common x/EL grid,
 // and the positional error the gradient implies, σx(x) = σC(x) / |dC̄/dx| — the method of Gregor, Tank,
-// Wieschaus & Bialek (2007) "Probing the limits to positional information", Cell 130:153.
+// Wieschaus & Bialek (2007) "Probing the limits to positional information", Cell 130:153. The formula is first-order
+// error propagation (the delta method; Casella & Berger, Statistical Inference, 2nd ed., §5.5.4, from memory): a
+// concentration error σC read through a slope dC̄/dx is a position error σC/|dC̄/dx| while σC is small against the
+// curvature of C̄, so it is an approximation where the profile bends within ±σx.
 import type { EmbryoResult } from '../model';
 import { sdConfidenceInterval } from '../stats';
 import { meanOf, sdOf } from './stats-local';

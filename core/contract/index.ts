@@ -1,9 +1,11 @@
 // The one contract between the renderer and the app (main process). Everything crossing it is plain data
 // (objects, arrays, typed arrays); errors come back as values, never as thrown exceptions.
 import type {
-  ApAxis, Detection, EmbryoResult, Landmark, ProjectedStack, StackInfo,
+  Detection, EmbryoResult, ProjectedStack, StackInfo,
 } from '../model';
-import type { AnalysisSettings } from '../settings';
+import type { AnalysisSettings, ProjectDoc } from '../settings';
+
+export type { FileEdits, ProjectDoc } from '../settings';
 import type { ConditionStat, DosageFit, ReferenceLambda, ShiftRow } from '../model';
 
 /** Error codes the app returns; messages are one line and name the file when there is one. */
@@ -23,27 +25,6 @@ export interface FolderEntry {
   readonly message: string | null;
 }
 
-/** Per-file hand work kept in the project. */
-export interface FileEdits {
-  readonly axis: ApAxis | null;
-  readonly landmarks: readonly Landmark[];
-  /** Per-file fit range override, x/EL. */
-  readonly fitRangeEl: readonly [number, number] | null;
-}
-
-/** The project file's content (JSON, versioned). */
-export interface ProjectDoc {
-  readonly schema: 'eggline-project';
-  readonly version: 1;
-  /** Folder the project's files are in (absolute). */
-  readonly folder: string | null;
-  readonly settings: AnalysisSettings;
-  /** Keyed by path relative to `folder` (or absolute when there is no folder). */
-  readonly files: Readonly<Record<string, FileEdits>>;
-  /** Output folder of the last batch run from the window (absolute), so its results reopen with the project;
-   *  null or absent when there is none. */
-  readonly batchOutDir?: string | null;
-}
 
 /** A stack loaded for viewing and live measurement. */
 export interface LoadedStack {

@@ -206,7 +206,8 @@ export interface ConditionProfile {
   readonly n: Float64Array;
   /** Slope of the mean profile, intensity per unit x/EL (central difference). */
   readonly slopePerEl: Float64Array;
-  /** Positional error implied by the gradient, σx = σC / |dC̄/dx|, in x/EL and in µm (mean egg length);
+  /** Positional error implied by the gradient, σx = σC / |dC̄/dx| (first-order error propagation, the delta method),
+   *  in x/EL and in µm (mean egg length);
    *  NaN where the slope is not resolved (change across the window within 2 SE of zero). */
   readonly sigmaXEl: Float64Array;
   /** Chi-square interval of σx (x/EL) from the number of embryos; the slope's uncertainty is not included. */

@@ -1,3 +1,15 @@
-// Public surface of core/settings.
+// Public surface of core/settings: the analysis settings, their defaults, the one table that describes and checks
+// them (schema.ts), merging of layers (defaults < project < config < flags) and the settings in force for a file.
 export type { AnalysisSettings, ProfileSettings, BackgroundSettings, ChannelRef, EdgeSide } from './types';
 export { DEFAULT_SETTINGS } from './defaults';
+export { SETTINGS, settingSpec, flagKey, numberFromText, type SettingSpec, type SettingKind } from './schema';
+export {
+  settingValue, overrideOf, settingProblem, fieldProblem, mergeSettings, checkCombination, combinationProblem,
+  settingsFromFlags, overridesFromJson, settingsFromStored, settingsInForce, type SettingsOverrides, type SettingsFlags,
+} from './check';
+export { SettingsError } from './settings-error';
+export type { FileEdits, ProjectDoc } from './project-types';
+export { ProjectFormatError } from './project-error';
+export {
+  PROJECT_SCHEMA, PROJECT_VERSION, checkProjectDoc, checkFileEdits, checkSettings, checkRangeEl, parseProjectText,
+} from './project-check';

@@ -1,6 +1,7 @@
 // Read and replace the hand edits of the shown file.
 import type { FileEdits } from '../../core/contract';
 import type { ApAxis } from '../../core/model';
+import { settingsInForce } from '../../core/settings';
 import type { EditorState } from './types';
 
 /** Hand edits of a file that has none yet. */
@@ -17,9 +18,9 @@ export function effectiveAxis(state: EditorState): ApAxis | null {
   return currentEdits(state).axis ?? state.autoAxis;
 }
 
-/** The fit range in force for the shown file, x/EL: its own override, else the settings'. */
+/** The fit range in force for the shown file, x/EL: its own override, else the settings' (core's rule). */
 export function effectiveFitRange(state: EditorState): readonly [number, number] {
-  return currentEdits(state).fitRangeEl ?? state.doc.settings.fitRangeEl;
+  return settingsInForce(state.doc.settings, currentEdits(state)).fitRangeEl;
 }
 
 /** New state with the shown file's edits replaced by `patch` merged over them (no-op without a shown file). */

@@ -1,5 +1,5 @@
 // Small value checks shared by the project and settings validators; each throws ProjectFormatError.
-import { badField } from './format-error';
+import { badField } from './project-error';
 
 /** True for a plain (non-array, non-null) object. */
 export function isRecord(value: unknown): value is Record<string, unknown> {

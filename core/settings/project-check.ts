@@ -1,9 +1,31 @@
-// Validation of a project document (schema 'eggline-project', version 1) from disk or from the renderer.
-import type { FileEdits, ProjectDoc } from '../../core/contract';
-import type { ApAxis, ImagePoint, Landmark } from '../../core/model';
-import { badField } from './format-error';
+// Validation of a project document (schema 'eggline-project', version 1) from disk or from the renderer: the one
+// reader of project files (the command line and the desktop app both load through it).
+import type { ApAxis, ImagePoint, Landmark } from '../model';
+import { badField, ProjectFormatError } from './project-error';
 import { checkFiniteNumber, checkOneOf, isRecord } from './check-values';
-import { checkRangeEl, checkSettings } from './check-settings';
+import { settingsFromStored } from './check';
+import { settingSpec } from './schema';
+import { SettingsError } from './settings-error';
+import type { FileEdits, ProjectDoc } from './project-types';
+import type { AnalysisSettings } from './types';
+
+/** Check an x/EL range with the fit range's rule from the settings table. */
+export function checkRangeEl(value: unknown, where: string): readonly [number, number] {
+  const spec = settingSpec('fitRangeEl');
+  if (!spec.isValid(value)) badField(where, `must be ${spec.rule}`);
+  const [a, b] = value as [number, number];
+  return [a, b] as const;
+}
+
+/** Validate stored settings through the settings table; fields missing from an older file take the defaults. */
+export function checkSettings(value: unknown, where = 'settings'): AnalysisSettings {
+  try {
+    return settingsFromStored(value, where);
+  } catch (e) {
+    if (e instanceof SettingsError) throw new ProjectFormatError(e.message);
+    throw e;
+  }
+}
 
 /** The schema name and the newest version this build reads and writes. */
 export const PROJECT_SCHEMA = 'eggline-project';
@@ -82,4 +104,20 @@ export function checkProjectDoc(value: unknown): ProjectDoc {
     files: cleanFiles,
     ...(typeof value.batchOutDir === 'string' ? { batchOutDir: value.batchOutDir } : {}),
   };
+}
+
+/** Parse and validate project JSON text; every message starts with `label` (the file name). */
+export function parseProjectText(text: string, label: string): ProjectDoc {
+  let raw: unknown;
+  try {
+    raw = JSON.parse(text);
+  } catch (e) {
+    throw new ProjectFormatError(`${label}: not valid JSON (${(e as Error).message.split('\n')[0]})`);
+  }
+  try {
+    return checkProjectDoc(raw);
+  } catch (e) {
+    if (e instanceof ProjectFormatError) throw new ProjectFormatError(`${label}: ${e.message}`);
+    throw e;
+  }
 }

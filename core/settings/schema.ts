@@ -1,0 +1,188 @@
+// The one table of analysis settings: for each, its type, unit, range, default, command-line flag, field label and
+// help line. The command line (flags, help), config files, project files and the window's settings panel all check
+// and describe settings through this table, so a rule is written once. Adding a setting: one row here, its field in
+// AnalysisSettings and DEFAULT_SETTINGS, and tests (see DEVELOPERS.md).
+import type { BoundaryMethod } from '../model';
+import type { ChannelRef } from './types';
+
+/** What kind of value a setting holds (decides how a flag's text is read and which field the window shows). */
+export type SettingKind = 'number' | 'integer' | 'choice' | 'channel' | 'channels' | 'range' | 'methods' | 'region';
+
+/** One row of the table. `key` is the path in AnalysisSettings ('profile.edgeDepthUm'). */
+export interface SettingSpec {
+  readonly key: string;
+  readonly kind: SettingKind;
+  /** Unit of the value ('µm', 'x/EL', 'px', '' for none). */
+  readonly unit: string;
+  /** Name of the field in the window; the subject of the window's messages. */
+  readonly label: string;
+  /** The command-line flag that sets it. */
+  readonly flag: string;
+  /** Placeholder of the flag's value in the help. */
+  readonly flagValue: string;
+  /** One line for the help and the field's tooltip. */
+  readonly help: string;
+  /** What a valid value is, completing "<name> must be …" (config files, project files, the window). */
+  readonly rule: string;
+  /** What valid flag text is, completing "<flag> must be … (got "…")"; defaults to `rule`. */
+  readonly flagRule?: string;
+  /** Smallest and largest allowed number (number and integer kinds; both ends included unless `exclusive`). */
+  readonly min?: number;
+  readonly max?: number;
+  readonly exclusive?: boolean;
+  readonly choices?: readonly string[];
+  /** null is allowed (meaning: automatic, or taken from the file). */
+  readonly nullable?: boolean;
+  /** The flag may be repeated (one value each time). */
+  readonly repeatable?: boolean;
+  /** True when `value` is allowed. */
+  readonly isValid: (value: unknown) => boolean;
+  /** The value a flag's text stands for, or undefined when the text is not valid. */
+  readonly fromText: (text: string) => unknown;
+}
+
+const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+const METHODS: readonly BoundaryMethod[] = ['logistic', 'half-max', 'threshold'];
+
+/** A number from text, or undefined when the text is not a plain decimal number. */
+export function numberFromText(text: string): number | undefined {
+  const t = text.trim();
+  return NUMBER.test(t) ? Number(t) : undefined;
+}
+
+const isChannel = (v: unknown): v is ChannelRef => (Number.isInteger(v) && (v as number) >= 1) || (typeof v === 'string' && v.trim() !== '');
+const channelFromText = (text: string): ChannelRef | undefined => {
+  const t = text.trim();
+  if (/^\d+$/.test(t)) return Number(t) >= 1 ? Number(t) : undefined;
+  return t === '' ? undefined : t;
+};
+const isCount = (v: unknown): boolean => Number.isInteger(v) && (v as number) >= 0;
+const quoted = (c: readonly string[]): string => `${c.slice(0, -1).map((x) => `"${x}"`).join(', ')} or "${c[c.length - 1]}"`;
+const plain = (c: readonly string[]): string => `${c.slice(0, -1).join(', ')} or ${c[c.length - 1]}`;
+
+/** A numeric row: `min`..`max` (or above `min` when `exclusive`), integers when `integer`. */
+function numeric(row: Omit<SettingSpec, 'kind' | 'isValid' | 'fromText'> & { integer?: boolean }): SettingSpec {
+  const { integer, ...rest } = row;
+  const [lo, hi] = [rest.min ?? -Infinity, rest.max ?? Infinity];
+  const inRange = (v: number): boolean => (rest.exclusive ? v > lo && v < hi : v >= lo && v <= hi);
+  const isValid = (v: unknown): boolean => (v === null && rest.nullable === true)
+    || (typeof v === 'number' && Number.isFinite(v) && (!integer || Number.isInteger(v)) && inRange(v));
+  return {
+    ...rest, kind: integer ? 'integer' : 'number', isValid,
+    fromText: (text) => { const v = numberFromText(text); return v !== undefined && isValid(v) ? v : undefined; },
+  };
+}
+
+/** A row with a fixed set of words. */
+function choice(row: Omit<SettingSpec, 'kind' | 'isValid' | 'fromText' | 'rule' | 'flagRule'> & { choices: readonly string[] }): SettingSpec {
+  return {
+    ...row, kind: 'choice', rule: quoted(row.choices), flagRule: plain(row.choices),
+    isValid: (v) => typeof v === 'string' && row.choices.includes(v),
+    fromText: (text) => (row.choices.includes(text.trim()) ? text.trim() : undefined),
+  };
+}
+
+const isRange = (v: unknown): boolean => Array.isArray(v) && v.length === 2 && v.every((x) => typeof x === 'number' && Number.isFinite(x))
+  && v[0] >= 0 && v[0] < v[1] && v[1] <= 1;
+const isRegion = (v: unknown): boolean => v === null || (typeof v === 'object' && !Array.isArray(v)
+  && ['x', 'y', 'width', 'height'].every((k) => isCount((v as Record<string, unknown>)[k]))
+  && (v as { width: number }).width > 0 && (v as { height: number }).height > 0);
+
+/** Every analysis setting, in the order the help and the window show them. */
+export const SETTINGS: readonly SettingSpec[] = [
+  {
+    key: 'gradientChannel', kind: 'channel', unit: '', label: 'gradient channel', flag: '--gradient-channel', flagValue: 'N|NAME',
+    help: 'channel of the exponential gradient (1-based or name)', rule: 'a channel number (1-based) or a channel name',
+    isValid: isChannel, fromText: channelFromText,
+  },
+  {
+    key: 'boundaryChannels', kind: 'channels', unit: '', label: 'boundary channels', flag: '--boundary-channel', flagValue: 'N|NAME',
+    help: 'channel to find expression boundaries in; repeat for more', rule: 'a list of channel numbers (1-based) or names',
+    flagRule: 'a channel number (1-based) or a channel name', repeatable: true,
+    isValid: (v) => Array.isArray(v) && v.every(isChannel), fromText: channelFromText,
+  },
+  numeric({
+    key: 'pixelSizeUm', unit: 'µm', label: 'pixel size (when the file has none)', flag: '--pixel-size', flagValue: 'UM',
+    help: 'µm per pixel, used when a file does not say', rule: 'a positive number (µm per pixel) or null',
+    flagRule: 'a positive number of µm per pixel', min: 0, exclusive: true, nullable: true,
+  }),
+  {
+    key: 'projection', kind: 'choice', unit: '', label: 'projection', flag: '--projection', flagValue: 'P',
+    help: 'max | mean | sum | slice | slice:Z (Z is 0-based)', rule: quoted(['max', 'mean', 'sum', 'slice']),
+    flagRule: 'max, mean, sum, slice or slice:Z with Z a 0-based slice number', choices: ['max', 'mean', 'sum', 'slice'],
+    isValid: (v) => v === 'max' || v === 'mean' || v === 'sum' || v === 'slice',
+    fromText: (text) => (/^(max|mean|sum|slice)$/.test(text.trim()) ? text.trim() : /^slice:\d+$/.test(text.trim()) ? 'slice' : undefined),
+  },
+  numeric({
+    key: 'sliceIndex', unit: '', label: 'slice (0-based, empty = automatic)', flag: '--projection', flagValue: 'slice:Z',
+    help: 'the slice of --projection slice:Z', rule: 'a 0-based slice number or null', min: 0, integer: true, nullable: true,
+  }),
+  numeric({
+    key: 'timeIndex', unit: '', label: 'time point (0-based)', flag: '--time-index', flagValue: 'T',
+    help: 'time point to analyse in a movie (0-based)', rule: 'a 0-based time point number', min: 0, integer: true,
+  }),
+  choice({ key: 'profile.mode', unit: '', label: 'sample', flag: '--profile', flagValue: 'MODE', help: 'edge (band under the outline) | axis (strip on the axis)', choices: ['edge', 'axis'] }),
+  choice({ key: 'profile.edgeSide', unit: '', label: 'edge', flag: '--edge-side', flagValue: 'SIDE', help: 'edge band on the dorsal, ventral or both sides', choices: ['dorsal', 'ventral', 'both'] }),
+  choice({ key: 'profile.dorsalSide', unit: '', label: 'dorsal is', flag: '--dorsal-side', flagValue: 'SIDE', help: 'dorsal is left or right of the direction anterior→posterior', choices: ['left', 'right'] }),
+  numeric({
+    key: 'profile.edgeDepthUm', unit: 'µm', label: 'edge band depth µm', flag: '--edge-depth', flagValue: 'UM',
+    help: 'depth of the edge band inward from the outline, µm', rule: 'a positive number of µm', min: 0, exclusive: true,
+  }),
+  numeric({
+    key: 'profile.axisWidthUm', unit: 'µm', label: 'axis strip width µm', flag: '--strip-width', flagValue: 'UM',
+    help: 'full width of the axis strip, µm', rule: 'a positive number of µm', min: 0, exclusive: true,
+  }),
+  numeric({
+    key: 'profile.binCount', unit: '', label: 'bins', flag: '--bins', flagValue: 'N',
+    help: 'number of bins from x/EL 0 to 1', rule: 'a whole number from 10 to 2000', min: 10, max: 2000, integer: true,
+  }),
+  choice({ key: 'background.mode', unit: '', label: 'background', flag: '--background', flagValue: 'B', help: 'outside (around the embryo) | region (a rectangle) | none', choices: ['outside', 'region', 'none'] }),
+  {
+    key: 'background.regionPx', kind: 'region', unit: 'px', label: 'background rectangle', flag: '--background-region', flagValue: 'X,Y,W,H',
+    help: 'rectangle for --background region, px (x, y = top-left, 0-based)', rule: 'null or { x, y, width, height } in whole pixels',
+    flagRule: 'four whole numbers x,y,width,height with width and height > 0', nullable: true, isValid: isRegion,
+    fromText: (text) => {
+      const p = text.split(',').map((s) => s.trim());
+      if (p.length !== 4 || !p.every((s) => /^\d+$/.test(s))) return undefined;
+      const [x, y, width, height] = p.map(Number);
+      return isRegion({ x, y, width, height }) ? { x, y, width, height } : undefined;
+    },
+  },
+  {
+    key: 'fitRangeEl', kind: 'range', unit: 'x/EL', label: 'fit range x/EL', flag: '--fit-range', flagValue: 'A,B',
+    help: 'x/EL range of the exponential fit, 0 ≤ A < B ≤ 1', rule: 'two numbers [a, b] with 0 ≤ a < b ≤ 1',
+    flagRule: 'two numbers 0 ≤ a < b ≤ 1 written as a,b', isValid: isRange,
+    fromText: (text) => {
+      const parts = text.split(',').map(numberFromText);
+      return parts.length === 2 && isRange(parts) ? parts : undefined;
+    },
+  },
+  choice({ key: 'anterior', unit: '', label: 'anterior', flag: '--anterior', flagValue: 'A', help: 'auto (high end of the gradient) | high | low', choices: ['auto', 'high', 'low'] }),
+  {
+    key: 'boundaryMethods', kind: 'methods', unit: '', label: 'boundary methods', flag: '--boundary-methods', flagValue: 'M,M',
+    help: 'boundary methods: logistic, half-max, threshold (comma-separated)', rule: `a non-empty list of ${METHODS.map((m) => `"${m}"`).join(', ')}`,
+    flagRule: 'logistic, half-max and/or threshold, comma-separated',
+    isValid: (v) => Array.isArray(v) && v.length > 0 && v.every((m) => METHODS.includes(m as BoundaryMethod)),
+    fromText: (text) => {
+      const m = text.split(',').map((s) => s.trim());
+      return m.length > 0 && m.every((x) => METHODS.includes(x as BoundaryMethod)) ? [...new Set(m)] : undefined;
+    },
+  },
+  numeric({
+    key: 'boundaryThresholdFraction', unit: '', label: 'threshold (fraction of the range)', flag: '--threshold', flagValue: 'F',
+    help: 'level of the threshold boundary method, as a fraction of the profile range', rule: 'a number between 0 and 1',
+    min: 0, max: 1, exclusive: true,
+  }),
+];
+
+/** The row of `key`; throws for a key that is not a setting (a programming error, not user input). */
+export function settingSpec(key: string): SettingSpec {
+  const row = SETTINGS.find((s) => s.key === key);
+  if (row === undefined) throw new Error(`no analysis setting "${key}"`);
+  return row;
+}
+
+/** `--edge-depth` → `edgeDepth`: the key of a flag's value in SettingsFlags. */
+export function flagKey(flag: string): string {
+  return flag.replace(/^--/, '').replace(/-([a-z])/g, (_, c: string) => c.toUpperCase());
+}
