@@ -111,9 +111,13 @@ describe('splitter and overlays', { timeout: 60_000 }, () => {
     await page.mouse.up();
     await expect.poll(async () => (await page.getByTestId('warnings').count()) > 0 ? page.getByTestId('warnings').textContent() : '', { timeout: 10_000 })
       .toMatch(/the posterior pole lies \d+ µm outside the embryo outline/);
+    // The handle itself is marked too.
+    expect(await page.getByTestId('outside-posterior').count()).toBe(1);
+    expect(await page.getByTestId('outside-anterior').count()).toBe(0);
     await page.screenshot({ path: join(ARTIFACTS, 'layout-pole-outside.png') });
     await page.keyboard.press('Control+z');
     await expect.poll(async () => (await page.getByTestId('warnings').count()) > 0 ? page.getByTestId('warnings').textContent() : '').not.toMatch(/outside the embryo/);
+    expect(await page.getByTestId('outside-posterior').count()).toBe(0);
   });
 
   it('each overlay can be hidden from its key and shown again', async () => {
