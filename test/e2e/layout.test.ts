@@ -163,3 +163,22 @@ describe('keyboard', { timeout: 60_000 }, () => {
     for (let k = 0; k < 4; k += 1) await page.keyboard.press('Control+z');
   });
 });
+
+describe('long messages', { timeout: 60_000 }, () => {
+  it('a save that fails shows one line under the toolbar; the toolbar keeps its single line', async () => {
+    const { page } = h;
+    await page.setViewportSize({ width: 1280, height: 720 });
+    // Fresh handlers have not opened this project, so the next autosave is refused with a long message.
+    h.freshHandlers();
+    await page.getByTestId('handle-anterior').focus();
+    await page.keyboard.press('ArrowLeft');
+    await expect.poll(() => page.getByTestId('save-status').textContent(), { timeout: 10_000 }).toBe('not saved ⚠');
+    const message = page.getByTestId('message');
+    expect(await message.textContent()).toMatch(/^Not saved: /);
+    expect(((await page.getByTestId('toolbar').boundingBox()) as Box).height).toBeLessThanOrEqual(39);
+    expect(((await message.boundingBox()) as Box).height).toBeLessThanOrEqual(20);
+    // The image and the profile's x axis are still on screen.
+    expect(inside(await box(page, '[data-testid=profile-x-title]'), { x: 0, y: 0, width: 1280, height: 720 })).toBe(true);
+    await page.screenshot({ path: join(ARTIFACTS, 'layout-save-error-1280x720.png') });
+  });
+});
