@@ -10,6 +10,7 @@ const nodeEntries = [
   { in: 'app/workers/batch-worker.ts', out: 'batch-worker' },
   { in: 'app/workers/analysis-worker.ts', out: 'analysis-worker' },
   { in: 'bench/bench.ts', out: 'bench' },
+  { in: 'bench/vs-script.ts', out: 'bench-script' },
   { in: 'bench/zarr-bench.ts', out: 'zarr-bench' },
 ].filter((e) => existsSync(e.in));
 
