@@ -3,6 +3,7 @@
 import { useCallback, useEffect, useMemo, useReducer, useRef, useState } from 'react';
 import { MENU_OPEN_RECENT_PREFIX } from '../core/contract';
 import type { Plane } from '../core/model';
+import { settingsInForce } from '../core/settings';
 import { getApi } from './api';
 import { BatchPanel } from './components/BatchPanel';
 import { ChannelPanel } from './components/ChannelPanel';
@@ -112,10 +113,12 @@ export function App() {
     return () => { live = false; };
   }, [api, stack, zSlice]);
 
-  const settings = state.doc.settings;
+  const edits = currentEdits(state);
+  // The shown file's own dorsal side (project file) applies to its live measurement as it does in the batch.
+  const settings = useMemo(() => settingsInForce(state.doc.settings, { fitRangeEl: null, dorsalSide: edits.dorsalSide ?? null }),
+    [state.doc.settings, edits.dorsalSide]);
   const prepared = useMemo(() => (stack === null ? null : prepareLive(stack, settings)), [stack, settings]);
   const axis = stack === null ? null : effectiveAxis(state);
-  const edits = currentEdits(state);
   const fitRangeEl = effectiveFitRange(state);
   const measurement = useMemo(() => (prepared === null || axis === null ? null : measureLive(prepared, axis, settings, edits.landmarks, fitRangeEl)),
     [prepared, axis, settings, edits.landmarks, fitRangeEl]);

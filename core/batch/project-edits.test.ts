@@ -29,6 +29,17 @@ describe('project edits', () => {
     expect(settingsInForce(DEFAULT_SETTINGS, e1)).toBe(DEFAULT_SETTINGS);
     expect(toHandEdits({ axis: null, landmarks: [], fitRangeEl: null })).toBeNull();
   });
+  it('applies a per-file dorsal side to the profile settings, and checks it', () => {
+    const flipped = { ...doc, files: { 'F.tif': { axis: null, landmarks: [], fitRangeEl: null, dorsalSide: 'right' } } };
+    const e = editsForFile(parseProjectText(JSON.stringify(flipped), 'p.json'), 'F.tif');
+    expect(e?.dorsalSide).toBe('right');
+    const s = settingsInForce(DEFAULT_SETTINGS, e);
+    expect(s.profile.dorsalSide).toBe('right');
+    expect(s.profile.edgeSide).toBe(DEFAULT_SETTINGS.profile.edgeSide);
+    expect(DEFAULT_SETTINGS.profile.dorsalSide).toBe('left');
+    const bad = { ...doc, files: { 'F.tif': { axis: null, landmarks: [], fitRangeEl: null, dorsalSide: 'up' } } };
+    expect(() => parseProjectText(JSON.stringify(bad), 'p.json')).toThrow('p.json: files["F.tif"].dorsalSide must be \'left\' or \'right\'');
+  });
   it('pins the messages for bad project files', () => {
     expect(() => parseProjectText('{"schema":"other"}', 'p.json')).toThrow('p.json: schema must be \'eggline-project\' (found "other"); this is not an Eggline project');
     expect(() => parseProjectText('{"schema":"eggline-project","version":9,"files":{}}', 'p.json')).toThrow('p.json: version is 9, newer than this Eggline reads (1); update Eggline to open it');

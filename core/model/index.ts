@@ -55,7 +55,7 @@ export interface PixelSize {
 }
 
 /** Where the time of each time point came from; always reported next to the values. */
-export type TimeSource = 'ome-plane' | 'ome-increment' | 'imagej' | 'user' | 'unknown';
+export type TimeSource = 'ome-plane' | 'ome-increment' | 'ome-zarr' | 'imagej' | 'user' | 'unknown';
 
 /** Time of each time point in seconds from the first, with its provenance; timesS is null when unknown. */
 export interface TimeAxis {

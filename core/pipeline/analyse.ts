@@ -2,7 +2,7 @@
 import { errorResult, type EmbryoResult, type HandEdits, type PlaneSource, type StackInfo } from '../model';
 import type { AnalysisSettings } from '../settings';
 import { projectStack } from '../image';
-import { detectEmbryo } from '../geometry';
+import { detectEmbryo, type EmbryoDetection } from '../geometry';
 import { measureEmbryo, prepareSampling } from '../profile';
 
 /** Per-file options of analyseStack. */
@@ -11,6 +11,8 @@ export interface AnalyseOptions {
   readonly fileLabel: string;
   /** Hand axis and landmarks from the project; the hand axis replaces the automatic one. */
   readonly handEdits?: HandEdits | null;
+  /** The embryo (mask and axis) found beforehand, used instead of segmenting this stack: a movie's, found once. */
+  readonly detection?: EmbryoDetection | null;
 }
 
 /** Check that the stack has something to analyse (exact messages). */
@@ -31,7 +33,7 @@ export async function analyseStack(info: StackInfo, source: PlaneSource, setting
   if (bad) return errorResult(file, bad);
   try {
     const projected = await projectStack(info, source, settings);
-    const detection = detectEmbryo(projected, settings);
+    const detection = options.detection ?? detectEmbryo(projected, settings);
     const hand = options.handEdits?.axis ?? null;
     const axis = hand ? { ...hand, source: 'hand' as const } : detection.axis;
     const prepared = prepareSampling(projected, detection, settings);

@@ -23,8 +23,11 @@ describe('analyseMovie (demo data: a small synthetic movie)', () => {
     expect(m.results.every((r) => r.axis!.source === 'auto' && r.axis!.anterior.x === m.movieAxis!.anterior.x)).toBe(true);
     const hand = { anterior: { x: 20, y: 70 }, posterior: { x: 180, y: 70 }, source: 'hand' as const };
     const h = await analyseMovie(info, syntheticMoviePlaneSource(movie), DEFAULT_SETTINGS, { fileLabel: 'm.ome.tif', timeIndices: [1, 2], handEdits: { axis: hand, landmarks: [] } });
-    expect(h.movieAxis).toBeNull();
+    expect(h.movieAxis).toEqual(hand);
     expect(h.results.map((r) => r.axis!.source)).toEqual(['hand', 'hand']);
+    const each = await analyseMovie(info, syntheticMoviePlaneSource(movie), DEFAULT_SETTINGS, { fileLabel: 'm.ome.tif', timeIndices: [4, 5], axisPerTime: true });
+    expect(each.movieAxis).toBeNull();
+    expect(each.results.map((r) => r.status)).toEqual(['ok', 'ok']);
   });
 
   it('gives every requested time point an error naming the file when a time point is outside the movie', async () => {

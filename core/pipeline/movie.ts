@@ -3,7 +3,7 @@
 import { errorResult, type ApAxis, type EmbryoResult, type HandEdits, type PlaneSource, type Plane, type ProjectedStack, type StackInfo } from '../model';
 import type { AnalysisSettings } from '../settings';
 import { projectStack } from '../image';
-import { detectEmbryo } from '../geometry';
+import { detectEmbryo, type EmbryoDetection } from '../geometry';
 import { analyseStack } from './analyse';
 
 /** Per-movie options of analyseMovie. */
@@ -18,7 +18,7 @@ export interface MovieOptions {
   readonly axisSampleCount?: number;
 }
 
-/** The results per analysed time point (same order as timeIndices) and the axis used when it was found once. */
+/** The results per analysed time point (same order as timeIndices) and the movie's axis (null with axisPerTime). */
 export interface MovieAnalysis {
   readonly timeIndices: readonly number[];
   readonly results: readonly EmbryoResult[];
@@ -53,9 +53,10 @@ export async function projectOverTime(info: StackInfo, source: PlaneSource, sett
 }
 
 /**
- * Analyse the chosen time points of a movie. A hand axis applies to every time point; otherwise the axis is found
- * once on projectOverTime (or per time point with axisPerTime) and each time point is measured along it with its
- * own segmentation and background. Errors become results with status 'error' naming the file and time point.
+ * Analyse the chosen time points of a movie. Unless axisPerTime, the embryo (mask and axis) is found once on
+ * projectOverTime — a live embryo barely moves — and every time point is projected, given its own background and
+ * measured within that mask, along the hand axis when there is one. With axisPerTime every time point is segmented
+ * on its own. Errors become results with status 'error' naming the file and time point.
  */
 export async function analyseMovie(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, options: MovieOptions): Promise<MovieAnalysis> {
   const { fileLabel, timeIndices } = options;
@@ -64,23 +65,20 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
     const r = errorResult(fileLabel, `time point ${bad} is outside the movie (T = ${info.sizeT})`);
     return { timeIndices, results: timeIndices.map(() => r), movieAxis: null };
   }
-  const hand = options.handEdits?.axis ?? null;
-  let movieAxis: ApAxis | null = null;
-  if (!hand && !options.axisPerTime) {
+  let detection: EmbryoDetection | null = null;
+  if (!options.axisPerTime) {
     try {
       const projected = await projectOverTime(info, source, settings, axisSampleTimes(info.sizeT, options.axisSampleCount ?? 8));
-      movieAxis = detectEmbryo(projected, settings).axis;
+      detection = detectEmbryo(projected, settings);
     } catch (e) {
-      const r = errorResult(fileLabel, `axis over time: ${e instanceof Error ? e.message : String(e)}`);
+      const r = errorResult(fileLabel, `embryo over time: ${e instanceof Error ? e.message : String(e)}`);
       return { timeIndices, results: timeIndices.map(() => r), movieAxis: null };
     }
   }
   const results: EmbryoResult[] = [];
   for (const t of timeIndices) {
-    const edits: HandEdits | null = movieAxis ? { axis: movieAxis, landmarks: options.handEdits?.landmarks ?? [] } : options.handEdits ?? null;
-    const r = await analyseStack(info, source, { ...settings, timeIndex: t }, { fileLabel, handEdits: edits });
-    // The movie's axis goes in as a fixed axis; it was found automatically, so it keeps that label.
-    results.push(movieAxis && r.axis ? { ...r, axis: { ...r.axis, source: 'auto' } } : r);
+    results.push(await analyseStack(info, source, { ...settings, timeIndex: t }, { fileLabel, handEdits: options.handEdits ?? null, detection }));
   }
-  return { timeIndices, results, movieAxis };
+  const hand = options.handEdits?.axis ?? null;
+  return { timeIndices, results, movieAxis: hand ? { ...hand, source: 'hand' } : detection?.axis ?? null };
 }

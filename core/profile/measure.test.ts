@@ -52,6 +52,17 @@ describe('measureEmbryo', () => {
     expect(m.warnings).toEqual([]);
   });
 
+  it('searches boundaries only inside the boundary window (demo data)', () => {
+    const { projected, detection } = scene(2);
+    // The stripe ends at 0.3 x/EL: a window of 0.4–1 holds no edge, 0.2–0.5 finds it as before.
+    const inside = settings({ boundarySearchEl: [0.2, 0.5] });
+    const m = measureEmbryo(prepareSampling(projected, detection, inside), detection.axis, inside, []);
+    expect(Math.abs(m.boundaries.find((b) => b.method === 'logistic')!.positionEl! - 0.3)).toBeLessThan(0.01);
+    const beyond = settings({ boundarySearchEl: [0.4, 1] });
+    const half = measureEmbryo(prepareSampling(projected, detection, beyond), detection.axis, beyond, []).boundaries.find((b) => b.method === 'half-max')!;
+    expect(half.positionEl === null || half.positionEl >= 0.4).toBe(true);
+  });
+
   it('warns when a pole lies outside the embryo, with the distance and the egg length it gives (demo data)', () => {
     const { projected, detection } = scene(2);
     const s = settings();

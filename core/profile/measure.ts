@@ -34,6 +34,15 @@ export function filledBins(p: Profile): Profile {
   return { channel: p.channel, xEl: pick(p.xEl), xUm: pick(p.xUm), mean: pick(p.mean), sd: pick(p.sd), n: pick(p.n) };
 }
 
+/** Copy of a profile with only the bins whose centre lies in [start, end] x/EL (the boundary search window). */
+export function binsWithin(p: Profile, [start, end]: readonly [number, number]): Profile {
+  const keep: number[] = [];
+  for (let b = 0; b < p.xEl.length; b++) if (p.xEl[b] >= start && p.xEl[b] <= end) keep.push(b);
+  if (keep.length === p.xEl.length) return p;
+  const pick = (a: Float64Array): Float64Array => Float64Array.from(keep, (b) => a[b]);
+  return { channel: p.channel, xEl: pick(p.xEl), xUm: pick(p.xUm), mean: pick(p.mean), sd: pick(p.sd), n: pick(p.n) };
+}
+
 /**
  * Inverse-variance weights n/SD² of bin means (relative; the fit estimates the common scale from its residuals).
  * A bin's variance is floored at 1% of the median so that one bin with a tiny SD cannot take all the weight; bins
@@ -124,7 +133,7 @@ export function measureEmbryo(prepared: PreparedSampling, axis: ApAxis, settings
   const boundaryProfiles = bc.map(profileOf);
   const boundaries = boundaryProfiles.flatMap((p) => {
     try {
-      return findBoundaries(filledBins(p), settings.boundaryMethods, settings.boundaryThresholdFraction, eggLengthUm);
+      return findBoundaries(binsWithin(filledBins(p), settings.boundarySearchEl), settings.boundaryMethods, settings.boundaryThresholdFraction, eggLengthUm);
     } catch (e) {
       warnings.push(`boundaries of ${p.channel} failed: ${e instanceof Error ? e.message : String(e)}`);
       return [];

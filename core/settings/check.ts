@@ -150,7 +150,14 @@ export function settingsFromStored(value: unknown, where = 'settings'): Analysis
   return out;
 }
 
-/** The settings in force for one file: the shared settings with the file's own fit range when it has one. */
-export function settingsInForce(settings: AnalysisSettings, edits: { readonly fitRangeEl: readonly [number, number] | null } | null | undefined): AnalysisSettings {
-  return edits?.fitRangeEl ? { ...settings, fitRangeEl: [edits.fitRangeEl[0], edits.fitRangeEl[1]] } : settings;
+/** The settings in force for one file: the shared settings with the file's own fit range and dorsal side when it
+ *  has them (the same object when it has neither). */
+export function settingsInForce(
+  settings: AnalysisSettings,
+  edits: { readonly fitRangeEl: readonly [number, number] | null; readonly dorsalSide?: 'left' | 'right' | null } | null | undefined,
+): AnalysisSettings {
+  let out = settings;
+  if (edits?.fitRangeEl) out = { ...out, fitRangeEl: [edits.fitRangeEl[0], edits.fitRangeEl[1]] };
+  if (edits?.dorsalSide && edits.dorsalSide !== out.profile.dorsalSide) out = { ...out, profile: { ...out.profile, dorsalSide: edits.dorsalSide } };
+  return out;
 }

@@ -14,5 +14,6 @@ export const DEFAULT_SETTINGS: AnalysisSettings = Object.freeze({
   anterior: 'auto',
   boundaryMethods: ['logistic', 'half-max'],
   boundaryThresholdFraction: 0.5,
+  boundarySearchEl: [0, 1] as const,
   timeIndex: 0,
 }) as AnalysisSettings;

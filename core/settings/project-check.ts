@@ -65,7 +65,14 @@ export function checkFileEdits(value: unknown, where: string): FileEdits {
     landmarks: landmarks.map((l, i) => checkLandmark(l, `${where}.landmarks[${i}]`)),
     fitRangeEl: value.fitRangeEl === null || value.fitRangeEl === undefined ? null
       : checkRangeEl(value.fitRangeEl, `${where}.fitRangeEl`),
+    ...(value.dorsalSide === undefined || value.dorsalSide === null ? {} : { dorsalSide: checkDorsalSide(value.dorsalSide, `${where}.dorsalSide`) }),
   };
+}
+
+/** Check a per-file dorsal side: 'left' or 'right'. */
+function checkDorsalSide(value: unknown, where: string): 'left' | 'right' {
+  if (value !== 'left' && value !== 'right') return badField(where, "must be 'left' or 'right'");
+  return value;
 }
 
 /** Check schema and version; a newer version is refused rather than half-read. */

@@ -8,6 +8,9 @@ export interface FileEdits {
   readonly landmarks: readonly Landmark[];
   /** Per-file fit range override, x/EL. */
   readonly fitRangeEl: readonly [number, number] | null;
+  /** Per-file dorsal side of the A→P line (which side the edge band's "dorsal" and "ventral" mean); absent or null:
+   *  the shared setting. A flipped or mirrored embryo needs its own. */
+  readonly dorsalSide?: 'left' | 'right' | null;
 }
 
 /** The project file's content (JSON, versioned). */

@@ -173,6 +173,15 @@ export const SETTINGS: readonly SettingSpec[] = [
     help: 'level of the threshold boundary method, as a fraction of the profile range', rule: 'a number between 0 and 1',
     min: 0, max: 1, exclusive: true,
   }),
+  {
+    key: 'boundarySearchEl', kind: 'range', unit: 'x/EL', label: 'boundary search x/EL', flag: '--boundary-window', flagValue: 'A,B',
+    help: 'x/EL range searched for boundaries, 0 ≤ A < B ≤ 1', rule: 'two numbers [a, b] with 0 ≤ a < b ≤ 1',
+    flagRule: 'two numbers 0 ≤ a < b ≤ 1 written as a,b', isValid: isRange,
+    fromText: (text) => {
+      const parts = text.split(',').map(numberFromText);
+      return parts.length === 2 && isRange(parts) ? parts : undefined;
+    },
+  },
 ];
 
 /** The row of `key`; throws for a key that is not a setting (a programming error, not user input). */

@@ -48,6 +48,8 @@ export interface AnalysisSettings {
   readonly boundaryMethods: readonly BoundaryMethod[];
   /** Threshold for the 'threshold' boundary method, as a fraction of the profile's range (0..1). */
   readonly boundaryThresholdFraction: number;
+  /** x/EL range searched for boundaries, [start, end]: keeps pole artefacts and other domains out. */
+  readonly boundarySearchEl: readonly [number, number];
   /** Time point to analyse (0-based). */
   readonly timeIndex: number;
 }

@@ -148,3 +148,22 @@ describe('decoded-size guards', () => {
     expect(declaredBloscBytes(new Uint8Array(8))).toBeNull();
   });
 });
+
+describe('time axis', () => {
+  it('gives each time point its time from the NGFF time scale and unit', async () => {
+    // Source: NGFF 0.4 multiscales example — time axis "t" in "millisecond" with scale 0.1 (0.1 ms per time point).
+    const attrs = {
+      multiscales: [{
+        version: '0.4',
+        axes: [{ name: 't', type: 'time', unit: 'millisecond' }, { name: 'y', type: 'space', unit: 'micrometer' }, { name: 'x', type: 'space', unit: 'micrometer' }],
+        datasets: [{ path: '0', coordinateTransformations: [{ type: 'scale', scale: [1, 0.5, 0.5] }] }],
+        coordinateTransformations: [{ type: 'scale', scale: [0.1, 1, 1] }],
+      }],
+    };
+    const { info, details } = await openOmeZarr(v2Store({ '/.zattrs': attrs }), 'a.ome.zarr');
+    expect(info.sizeT).toBe(2);
+    expect(details.timeStepS).toBeCloseTo(1e-4, 15);
+    expect(info.time?.source).toBe('ome-zarr');
+    expect(Array.from(info.time!.timesS!)).toEqual([0, details.timeStepS]);
+  });
+});

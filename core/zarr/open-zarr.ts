@@ -196,20 +196,23 @@ export async function openOmeZarr(store: ZarrStore, label: string, options: Open
   const roles = assignAxisRoles(axes, array.shape, label);
   const cacheChunks = checkSizes(array.shape, array.chunks, roles, type, label, options);
   const sizeC = roleSize(array.shape, roles.c);
+  const sizeT = roleSize(array.shape, roles.t);
+  const timeStepS = timeStepOf(image, axes, roles);
   const info: StackInfo = {
     byteOrder: 'II', bigTiff: false, isOme: true,
-    sizeX: array.shape[roles.x], sizeY: array.shape[roles.y], sizeZ: roleSize(array.shape, roles.z), sizeC, sizeT: roleSize(array.shape, roles.t),
+    sizeX: array.shape[roles.x], sizeY: array.shape[roles.y], sizeZ: roleSize(array.shape, roles.z), sizeC, sizeT,
     dimensionOrder: dimensionOrderOf(roles), sampleType: type, samplesPerPixel: 1,
     channelNames: channelNamesOf(image, sizeC, label, warnings),
     pixelSize: pixelSizeOf(image, axes, roles, label, warnings),
     compression: storage.codecs, planeIfd: new Int32Array(0), ifdCount: 0, description: null, warnings: [...warnings],
+    ...(timeStepS !== null ? { time: { timesS: Float64Array.from({ length: sizeT }, (_, i) => i * timeStepS), source: 'ome-zarr' as const } } : {}),
   };
   const source = createChunkPlaneSource(array as unknown as ChunkedArray, roles, type, label, {
     cacheChunks, onClose: async () => { await store.close?.(); },
   });
   const details: ZarrDetails = {
     zarrFormat, ngffVersion: image.version, arrayPath, levels: image.levels, axes, shape: array.shape, chunks: array.chunks,
-    dataType: type, codecs: storage.codecs, separator: storage.separator, timeStepS: timeStepOf(image, axes, roles),
+    dataType: type, codecs: storage.codecs, separator: storage.separator, timeStepS,
   };
   return { info, source, details, warnings };
 }

@@ -34,7 +34,7 @@ function ConditionTable({ c }: { c: CohortSummary }) {
   );
 }
 
-/** Green when the ratio's interval includes 1, amber when it excludes it, plain without an interval. */
+/** Green when the ratio's interval includes 1 (1 not rejected), amber when it excludes it, plain without an interval. */
 function ratioClass(lo: number | null, hi: number | null): string {
   if (lo === null || hi === null || !Number.isFinite(lo) || !Number.isFinite(hi)) return '';
   return lo <= 1 && hi >= 1 ? 'verdict-ok' : 'verdict-off';
@@ -46,15 +46,17 @@ function SlopeTable({ c }: { c: CohortSummary }) {
   return (
     <div className="table-scroll" data-testid="cohort-slopes-scroll">
     <table className="results cohort-table" data-testid="cohort-slopes">
-      <thead><tr><th>quantity</th><th>slope λ_eff, x/EL per ln f [{pct}% CI]</th><th>predicted λ_ref [CI]</th><th>λ_eff/λ_ref [CI]</th><th>R²</th><th>n</th></tr></thead>
+      <thead><tr><th>quantity</th><th>λ_eff/λ_ref [{pct}% CI]</th><th>slope λ_eff, x/EL per ln f [CI]</th><th>predicted λ_ref [CI]</th><th>fitted to</th><th>R²</th></tr></thead>
       <tbody>{c.dosageFit.map((f: DosageFit) => {
         const r = slopeRatio(f, lam, c.level);
         return (
           <tr key={f.quantity} data-testid="cohort-slope">
-            <td>{quantityLabel(f.quantity)}</td><td>{withCi(f.slopeEl, f.ciLow, f.ciHigh)}</td>
-            <td>{lam ? withCi(lam.lambdaEl, lam.ciLowEl, lam.ciHighEl) : sigFig(f.predictedSlopeEl, 3)}</td>
+            <td>{quantityLabel(f.quantity)}</td>
             <td className={ratioClass(r.ratioCiLow, r.ratioCiHigh)}>{withCi(r.ratio, r.ratioCiLow, r.ratioCiHigh)}</td>
-            <td>{Number.isFinite(f.r2) && f.r2 > 0.9995 && f.r2 < 1 ? '> 0.999' : sigFig(f.r2, 3)}</td><td>{f.n}</td>
+            <td>{withCi(f.slopeEl, f.ciLow, f.ciHigh)}</td>
+            <td>{lam ? withCi(lam.lambdaEl, lam.ciLowEl, lam.ciHighEl) : sigFig(f.predictedSlopeEl, 3)}</td>
+            <td>{f.method === 'condition-means' ? `${f.conditions} condition means` : `${f.n} embryos (HC3)`}</td>
+            <td>{Number.isFinite(f.r2) && f.r2 > 0.9995 && f.r2 < 1 ? '> 0.999' : sigFig(f.r2, 3)}</td>
           </tr>);
       })}</tbody>
     </table>
@@ -67,13 +69,14 @@ function ShiftTable({ c }: { c: CohortSummary }) {
   return (
     <div className="table-scroll" data-testid="cohort-shifts-scroll">
     <table className="results cohort-table" data-testid="cohort-shifts">
-      <thead><tr><th>quantity</th><th>condition</th><th>ln f</th><th>observed Δx, x/EL [{pct}% CI]</th><th>predicted λ·ln f [CI]</th><th>ratio observed/predicted [CI]</th><th>n (ref, cond.)</th></tr></thead>
+      <thead><tr><th>quantity</th><th>condition</th><th>ln f</th><th>observed Δx, x/EL [{pct}% CI]</th><th>predicted λ·ln f [CI]</th><th>ratio observed/predicted [CI]</th><th>Holm p (ratio = 1)</th><th>n (ref, cond.)</th></tr></thead>
       <tbody>{c.shifts.map((s: ShiftRow) => (
         <tr key={`${s.quantity} ${s.condition}`} data-testid="cohort-shift" data-condition={s.condition}>
           <td>{quantityLabel(s.quantity)}</td><td>{s.condition}</td><td>{s.lnF === null ? 'n/a' : sigFig(s.lnF, 3)}</td>
           <td>{withCi(s.observedShiftEl, s.ciLow, s.ciHigh, true)}</td>
           <td>{withCi(s.predictedShiftEl, s.predictedCiLow, s.predictedCiHigh, true)}</td>
           <td className={ratioClass(s.ratioCiLow, s.ratioCiHigh)}>{withCi(s.ratio, s.ratioCiLow, s.ratioCiHigh)}</td>
+          <td>{s.pRatioHolm === null ? 'n/a' : s.pRatioHolm < 1e-4 ? '< 0.0001' : sigFig(s.pRatioHolm, 2)}</td>
           <td>{s.nReference}, {s.nCondition}</td>
         </tr>))}</tbody>
     </table>

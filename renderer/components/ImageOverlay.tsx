@@ -97,7 +97,8 @@ function crossLine(axis: ApAxis, xEl: number, halfPx: number): [ImagePoint, Imag
 }
 
 /** The axis, its fit-range segment and the labelled A/P handles. */
-function AxisLayer({ view, axis, fitRangeEl, onKeyNudge }: { view: ViewTransform; axis: ApAxis; fitRangeEl: readonly [number, number]; onKeyNudge?: ImageOverlayProps['onKeyNudge'] }) {
+function AxisLayer({ view, axis, fitRangeEl, onKeyNudge, outside }: { view: ViewTransform; axis: ApAxis; fitRangeEl: readonly [number, number];
+  onKeyNudge?: ImageOverlayProps['onKeyNudge']; outside: readonly ('anterior' | 'posterior')[] }) {
   const a = toS(view, axis.anterior), p = toS(view, axis.posterior);
   const f0 = toS(view, pointOnAxis(axis, fitRangeEl[0]));
   const f1 = toS(view, pointOnAxis(axis, fitRangeEl[1]));
@@ -107,6 +108,7 @@ function AxisLayer({ view, axis, fitRangeEl, onKeyNudge }: { view: ViewTransform
       <line x1={f0.x} y1={f0.y} x2={f1.x} y2={f1.y} className="axis-fit" />
       {([['anterior', a, 'A'], ['posterior', p, 'P']] as const).map(([end, s, label]) => (
         <g key={end} data-testid={`handle-${end}`} data-x={s.x.toFixed(1)} data-y={s.y.toFixed(1)} {...nudgeProps(onKeyNudge, { kind: 'handle', end }, `${end} pole`)}>
+          {outside.includes(end) && <circle cx={s.x} cy={s.y} r={13} className="handle-outside" data-testid={`outside-${end}`}><title>{`the ${end} pole lies outside the embryo outline`}</title></circle>}
           <circle cx={s.x} cy={s.y} r={8} className={`handle handle-${end}`} />
           <text x={s.x} y={s.y + 4} className="handle-label" textAnchor="middle">{label}</text>
         </g>
@@ -132,7 +134,7 @@ export function ImageOverlay(props: ImageOverlayProps) {
         const [u, w] = crossLine(axis, b.positionEl, halfWidthPx).map((q) => toS(view, q));
         return <line key={i} x1={u.x} y1={u.y} x2={w.x} y2={w.y} className="boundary-line" stroke={boundaryColour(b.channel, m.boundaryProfiles.map((p) => p.channel))} />;
       })}
-      {show.axis && axis !== null && <AxisLayer view={view} axis={axis} fitRangeEl={fitRangeEl} onKeyNudge={props.onKeyNudge} />}
+      {show.axis && axis !== null && <AxisLayer view={view} axis={axis} fitRangeEl={fitRangeEl} onKeyNudge={props.onKeyNudge} outside={m?.polesOutside ?? []} />}
       {show.landmarks && m !== null && (() => {
         const spots = m.landmarks.map((l) => { const s = toS(view, l.point); const text = `${l.name} · ${fixed(l.xEl, 3)} EL`; return { s, text, at: labelPlacement(s.x, s.y, text, width) }; });
         const dys = staggerLabels(spots.map(({ at, text }) => ({ x: at.x, y: at.y, text })));

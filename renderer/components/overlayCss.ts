@@ -9,6 +9,7 @@ export const OVERLAY_CSS = `
 .handle{stroke:#101317;stroke-width:1.5;cursor:grab}
 .handle-anterior{fill:#ffd166}
 .handle-posterior{fill:#8ab4ff}
+.handle-outside{fill:none;stroke:#ff7a7a;stroke-width:2.5;stroke-dasharray:4 3}
 .handle-label{font:bold 10px system-ui,sans-serif;fill:#101317;pointer-events:none}
 .boundary-line{stroke-width:2;stroke-dasharray:7 4}
 .landmark path{fill:#f4f6fa;stroke:#101317;stroke-width:1.2}

@@ -5,6 +5,8 @@ import type { ApAxis, Boundary, ExponentialFit, ImagePoint, Landmark, LandmarkPo
 import { axisLengthPx, measureEmbryo, prepareSampling, sampleBandOutline, straightenPlane } from '../../core/pipeline';
 import type { PreparedSampling } from '../../core/pipeline';
 import type { AnalysisSettings } from '../../core/settings';
+import { distanceOutsideMaskPx } from '../../core/geometry';
+import { poleSlackPx } from '../../core/profile';
 
 /** Per-file values that do not change while the axis, landmarks or fit range are edited. */
 export interface LivePrepared {
@@ -28,6 +30,8 @@ export interface LiveMeasurement {
   readonly boundaries: readonly Boundary[];
   readonly landmarks: readonly LandmarkPosition[];
   readonly warnings: readonly string[];
+  /** Poles that lie outside the embryo's mask (by more than the slack the warning allows); drawn marked. */
+  readonly polesOutside: readonly ('anterior' | 'posterior')[];
 }
 
 /** Per-file preparation (re-run when the stack or the settings change). */
@@ -75,6 +79,7 @@ export function measureLive(prep: LivePrepared, axis: ApAxis, settings: Analysis
     eggLengthUm: m.eggLengthUm ?? lengthPx, strips, bandStrip,
     profile: m.gradientProfile, fit: m.gradientFit, boundaryProfiles: m.boundaryProfiles, boundaries: m.boundaries,
     landmarks: m.landmarks, warnings: m.warnings,
+    polesOutside: (['anterior', 'posterior'] as const).filter((end) => distanceOutsideMaskPx(prep.sampling.mask, axis[end], lengthPx) > poleSlackPx(lengthPx)),
   };
 }
 

@@ -111,9 +111,13 @@ describe('splitter and overlays', { timeout: 60_000 }, () => {
     await page.mouse.up();
     await expect.poll(async () => (await page.getByTestId('warnings').count()) > 0 ? page.getByTestId('warnings').textContent() : '', { timeout: 10_000 })
       .toMatch(/the posterior pole lies \d+ µm outside the embryo outline/);
+    // The handle itself is marked too.
+    expect(await page.getByTestId('outside-posterior').count()).toBe(1);
+    expect(await page.getByTestId('outside-anterior').count()).toBe(0);
     await page.screenshot({ path: join(ARTIFACTS, 'layout-pole-outside.png') });
     await page.keyboard.press('Control+z');
     await expect.poll(async () => (await page.getByTestId('warnings').count()) > 0 ? page.getByTestId('warnings').textContent() : '').not.toMatch(/outside the embryo/);
+    expect(await page.getByTestId('outside-posterior').count()).toBe(0);
   });
 
   it('each overlay can be hidden from its key and shown again', async () => {
@@ -157,5 +161,24 @@ describe('keyboard', { timeout: 60_000 }, () => {
     await page.keyboard.press('Enter');
     await expect.poll(() => page.getByTestId('landmark').count()).toBe(n + 1);
     for (let k = 0; k < 4; k += 1) await page.keyboard.press('Control+z');
+  });
+});
+
+describe('long messages', { timeout: 60_000 }, () => {
+  it('a save that fails shows one line under the toolbar; the toolbar keeps its single line', async () => {
+    const { page } = h;
+    await page.setViewportSize({ width: 1280, height: 720 });
+    // Fresh handlers have not opened this project, so the next autosave is refused with a long message.
+    h.freshHandlers();
+    await page.getByTestId('handle-anterior').focus();
+    await page.keyboard.press('ArrowLeft');
+    await expect.poll(() => page.getByTestId('save-status').textContent(), { timeout: 10_000 }).toBe('not saved ⚠');
+    const message = page.getByTestId('message');
+    expect(await message.textContent()).toMatch(/^Not saved: /);
+    expect(((await page.getByTestId('toolbar').boundingBox()) as Box).height).toBeLessThanOrEqual(39);
+    expect(((await message.boundingBox()) as Box).height).toBeLessThanOrEqual(20);
+    // The image and the profile's x axis are still on screen.
+    expect(inside(await box(page, '[data-testid=profile-x-title]'), { x: 0, y: 0, width: 1280, height: 720 })).toBe(true);
+    await page.screenshot({ path: join(ARTIFACTS, 'layout-save-error-1280x720.png') });
   });
 });

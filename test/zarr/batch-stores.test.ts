@@ -72,6 +72,13 @@ describe('eggline batch over OME-Zarr stores', () => {
     expect(good.stdout).toContain('pixel size: 3 µm × 3 µm, z step 2 µm (source: ome-zarr)');
     expect(good.stdout).toContain('chunk shape: 1 × 1 × 1 × 130 × 200 (chunk key separator "/")');
     expect(good.stdout).toContain('codecs: bytes (little) → blosc (lz4, level 5, shuffle)');
+    const json = await cli(['inspect', '--json', join(input, 'v3-blosc-lz4.ome.zarr')]);
+    expect(json.code).toBe(0);
+    // The store's t axis has unit "second" and scale 1 (scripts/make-zarr-v3-fixtures.ts).
+    expect(JSON.parse(json.stdout)).toMatchObject({
+      format: 'OME-Zarr', sizeX: 200, sizeY: 130, sizeZ: 3, sizeC: 2, pixelSizeXUm: 3, pixelSizeSource: 'ome-zarr', zStepUm: 2,
+      timeSource: 'ome-zarr', timesS: [0], zarr: { zarrFormat: 3, ngffVersion: '0.5', chunks: [1, 1, 1, 130, 200], codecs: 'bytes (little) → blosc (lz4, level 5, shuffle)' },
+    });
     const plate = await cli(['inspect', join(input, 'plate.ome.zarr')]);
     expect(plate.code).toBe(1);
     expect(plate.stderr).toBe('eggline inspect: plate.ome.zarr: is an OME-Zarr plate (several wells and fields); plates are not read yet\n');
