@@ -1,7 +1,7 @@
-// The exponential fit's range and the boundary methods.
+// The exponential fit's range, the boundary search window and the boundary methods.
 import type { BoundaryMethod } from '../../../core/model';
 import { settingSpec } from '../../../core/settings';
-import { FitRangeSetting } from './FitRangeSetting';
+import { RangeSetting } from './RangeSetting';
 import { NumberSetting, type SettingFieldProps } from './SettingField';
 
 /** Fit range, boundary methods and the threshold of the threshold method. */
@@ -14,7 +14,8 @@ export function FitSettings({ settings: s, onChange }: SettingFieldProps) {
   };
   return (
     <fieldset><legend>Fit and boundaries</legend>
-      <FitRangeSetting settings={s} onChange={onChange} />
+      <RangeSetting settingKey="fitRangeEl" settings={s} onChange={onChange} />
+      <RangeSetting settingKey="boundarySearchEl" settings={s} onChange={onChange} />
       <div className="field" title={methods.help}><span>{methods.label}</span><div className="checks">
         {all.map((m) => (
           <label key={m}><input type="checkbox" data-testid={`boundary-method-${m}`} checked={s.boundaryMethods.includes(m)}

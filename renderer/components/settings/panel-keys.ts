@@ -6,5 +6,5 @@ export const PANEL_SETTING_KEYS: readonly string[] = [
   'projection', 'sliceIndex', 'timeIndex', // ProjectionSettings
   'profile.mode', 'profile.edgeSide', 'profile.dorsalSide', 'profile.edgeDepthUm', 'profile.axisWidthUm', 'profile.binCount', // ProfileSettings
   'background.mode', 'background.regionPx', // BackgroundSettings
-  'fitRangeEl', 'boundaryMethods', 'boundaryThresholdFraction', // FitSettings
+  'fitRangeEl', 'boundarySearchEl', 'boundaryMethods', 'boundaryThresholdFraction', // FitSettings
 ];
