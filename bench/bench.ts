@@ -8,10 +8,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { makeSyntheticEmbryo } from '../core/synth';
 import { writeOmeTiff } from '../core/tiff';
-import { readAhead } from '../core/image';
-import { DEFAULT_SETTINGS } from '../core/settings';
-import { analyseFile } from '../app/batch/analyse-file';
-import { openStack } from '../app/batch/deps';
+import { BENCH_SETTINGS, decodeOnce, pipelineOnce } from './measure-file';
 import { runBatch } from '../app/batch/run-batch';
 import { limitDecoderThreads } from '../app/batch/decoder-threads';
 import { ARENA_LIMIT, BATCH_V8_FLAGS } from '../app/cli/batch-tuning';
@@ -23,8 +20,7 @@ const FILES: { name: string; compression: 'deflate' | 'none' }[] = [
   { name: 'bench-3-deflate.ome.tif', compression: 'deflate' }, { name: 'bench-4-none.ome.tif', compression: 'none' },
 ];
 const MiB = 1024 * 1024;
-/** Settings of every measured analysis: defaults, channel 2 as the boundary channel. */
-const SETTINGS = { ...DEFAULT_SETTINGS, boundaryChannels: [2] };
+const SETTINGS = BENCH_SETTINGS;
 const self = fileURLToPath(import.meta.url);
 const workerPath = fileURLToPath(new URL('./batch-worker.mjs', import.meta.url));
 
@@ -78,29 +74,6 @@ function poolFolder(dir: string): string[] {
     }
   }
   return out;
-}
-
-/**
- * Read every plane of a file once in the pipeline's order (z outer, channel inner) and with its read-ahead
- * (core/image readAhead, as projectStack reads), keeping nothing: the same reading as the pipeline, without the
- * analysis.
- */
-async function decodeOnce(path: string): Promise<number> {
-  const t0 = performance.now();
-  const { info, source } = await openStack(path, path);
-  const order: { z: number; c: number }[] = [];
-  for (let z = 0; z < info.sizeZ; z += 1) for (let c = 0; c < info.sizeC; c += 1) order.push({ z, c });
-  await readAhead(order.length, (i) => source.readPlane(order[i].z, order[i].c, 0), () => undefined);
-  await source.close();
-  return performance.now() - t0;
-}
-
-/** The whole per-file analysis, as a batch worker runs it; milliseconds. */
-async function pipelineOnce(path: string): Promise<number> {
-  const t0 = performance.now();
-  const r = await analyseFile({ index: 0, path, file: path, settings: SETTINGS, handEdits: null });
-  if (r.status !== 'ok') process.stderr.write(`bench: ${r.error}\n`);
-  return performance.now() - t0;
 }
 
 /**

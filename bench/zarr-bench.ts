@@ -6,18 +6,14 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { analyseFile } from '../app/batch/analyse-file';
-import { openStack } from '../app/batch/deps';
 import { ARENA_LIMIT, BATCH_V8_FLAGS } from '../app/cli/batch-tuning';
-import { readAhead } from '../core/image';
-import { DEFAULT_SETTINGS } from '../core/settings';
 import { makeSyntheticEmbryo } from '../core/synth';
 import { writeOmeTiff } from '../core/tiff';
 import { writeV3Store } from '../scripts/make-zarr-v3-fixtures';
+import { decodeOnce, pipelineOnce } from './measure-file';
 
 const SIZE = { widthPx: 1024, heightPx: 1024, sizeZ: 24, sizeC: 2 };
 const RAW_BYTES = SIZE.widthPx * SIZE.heightPx * SIZE.sizeZ * SIZE.sizeC * 2;
-const SETTINGS = { ...DEFAULT_SETTINGS, boundaryChannels: [2] };
 /** Rounds of (TIFF, Zarr); the first round is left out (the analysis is still being compiled). */
 const ROUNDS = 5;
 const self = fileURLToPath(import.meta.url);
@@ -44,25 +40,6 @@ async function generate(dir: string): Promise<{ tiff: string; zarr: string; writ
     pixelSizeUm: e.pixelSizeUm, zStepUm: 2, channels: e.channelNames,
   }, dir, 'v3-blosc-lz4');
   return { tiff, zarr, writer: 'zarrita (Zarr v3, type size 1)' };
-}
-
-/** Reads every plane in the pipeline's order with its read-ahead, keeping nothing; milliseconds. */
-async function decodeOnce(path: string): Promise<number> {
-  const t0 = performance.now();
-  const { info, source } = await openStack(path, path);
-  const order: { z: number; c: number }[] = [];
-  for (let z = 0; z < info.sizeZ; z += 1) for (let c = 0; c < info.sizeC; c += 1) order.push({ z, c });
-  await readAhead(order.length, (i) => source.readPlane(order[i].z, order[i].c, 0), () => undefined);
-  await source.close();
-  return performance.now() - t0;
-}
-
-/** The whole per-file analysis as a batch worker runs it; milliseconds. */
-async function pipelineOnce(path: string): Promise<number> {
-  const t0 = performance.now();
-  const r = await analyseFile({ index: 0, path, file: path, settings: SETTINGS, handEdits: null });
-  if (r.status !== 'ok') process.stderr.write(`zarr bench: ${r.error}\n`);
-  return performance.now() - t0;
 }
 
 const median = (v: number[]): number => [...v].sort((a, b) => a - b)[v.length >> 1];

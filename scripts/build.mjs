@@ -3,25 +3,16 @@
 import { build } from 'esbuild';
 import { existsSync } from 'node:fs';
 import { build as viteBuild } from 'vite';
+import { externalExceptEsmOnly } from './bundle-externals.mjs';
 
 const nodeEntries = [
   { in: 'app/cli/main.ts', out: 'cli' },
   { in: 'app/workers/batch-worker.ts', out: 'batch-worker' },
   { in: 'app/workers/analysis-worker.ts', out: 'analysis-worker' },
   { in: 'bench/bench.ts', out: 'bench' },
+  { in: 'bench/vs-script.ts', out: 'bench-script' },
   { in: 'bench/zarr-bench.ts', out: 'zarr-bench' },
 ].filter((e) => existsSync(e.in));
-
-/** Packages that ship only ES modules (no "require" export): the CommonJS Electron bundles must include them. */
-const ESM_ONLY = /^(zarrita|numcodecs|@zarrita\/[^/]+)(\/|$)/;
-
-/** Every bare import stays external (loaded from node_modules at run time) except the ESM-only packages above. */
-const externalExceptEsmOnly = {
-  name: 'external-except-esm-only',
-  setup(b) {
-    b.onResolve({ filter: /^[^./]/ }, (args) => (ESM_ONLY.test(args.path) ? undefined : { path: args.path, external: true }));
-  },
-};
 
 const common = { bundle: true, platform: 'node', target: 'node20', sourcemap: true, logLevel: 'warning' };
 

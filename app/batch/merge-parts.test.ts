@@ -96,6 +96,16 @@ describe('mergeParts', () => {
     expect(merged.warnings).toContain(`the files of missing parts 5 cannot be listed: the input folder ${join(dir, 'no-such-input')} cannot be read or has changed`);
   });
 
+  it('refuses parts that together list fewer files than their input list', async () => {
+    const outDir = join(dir, 'short');
+    writeParts(outDir, demoResults(8), 2);
+    const path = join(outDir, 'parts', '2-of-2', 'run.json');
+    const record = JSON.parse(readFileSync(path, 'utf8')) as RunRecord;
+    writeFileSync(path, runRecordToJson({ ...record, inputs: record.inputs.slice(1) }));
+    writeFileSync(join(outDir, 'parts', '2-of-2', 'results.json'), resultsToJson([]));
+    await expect(mergeParts({ outDir, allowMissing: false })).rejects.toThrow('the parts list 7 files, but the input list they were made from has 8');
+  });
+
   it('refuses a results.json that holds a file its run.json does not list', async () => {
     const results = demoResults(8);
     const outDir = join(dir, 'stray');

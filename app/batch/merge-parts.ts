@@ -118,6 +118,10 @@ export async function mergeParts(opts: MergePartsOptions): Promise<MergePartsRes
   const results = orderLikeOneRun(all);
   const first = records[0];
   const shard = first.shard as NonNullable<RunRecord['shard']>;
+  const listed = records.reduce((n, r) => n + r.inputs.length, 0);
+  if (plan.missingParts.length === 0 && listed !== shard.inputCount) {
+    throw new MergeRefusal(`the parts list ${listed} files, but the input list they were made from has ${shard.inputCount}`);
+  }
   const absent = plan.missingParts.filter((k) => !plan.present.some((e) => e.record?.shard?.part === k));
   const ofAbsent = await filesOfMissingParts(first.folder, opts.outDir, plan.parts, absent, shard.inputListSha256);
   const notRun = records.filter(isUnfinished).flatMap((r) => r.inputs.filter((i) => i.status === 'not-run').map((i) => i.file));

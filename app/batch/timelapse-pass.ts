@@ -122,25 +122,25 @@ export function movieFigures(m: MovieOutcome): { name: string; title: string; sv
   const lambda = lambdaOverTimeFigure(s.lambda.map((l) => ({
     tS: l.tS, lambdaEl: l.fit?.lambdaEl ?? NaN,
     ciLowEl: l.fit ? l.fit.lambdaCiLowUm / (l.fit.lambdaUm / l.fit.lambdaEl) : NaN, ciHighEl: l.fit ? l.fit.lambdaCiHighUm / (l.fit.lambdaUm / l.fit.lambdaEl) : NaN,
-  })), { title: `Decay length over time — ${m.file}`, steadyLambdaEl: s.steadyFit?.lambdaEl });
+  })), { steadyLambdaEl: s.steadyFit?.lambdaEl });
   const profiles = m.results.map((r) => r.gradientProfile);
   const first = profiles.find((p) => p !== null) ?? null;
   const boundaryTrack = m.results.map((r) => summaryBoundary(r)?.positionEl ?? NaN);
   const landmarkNames = [...new Set(m.results.flatMap((r) => r.landmarks.map((l) => l.name)))];
   const tracks = [
-    ...(boundaryTrack.some(Number.isFinite) ? [{ label: `${m.results.find((r) => r.boundaries[0])?.boundaries[0].channel ?? 'boundary'} boundary`, kind: 'boundary' as const, xEl: boundaryTrack }] : []),
+    ...(boundaryTrack.some(Number.isFinite) ? [{ label: `boundary (channel ${m.results.find((r) => r.boundaries[0])?.boundaries[0].channel ?? '?'})`, kind: 'boundary' as const, xEl: boundaryTrack }] : []),
     ...landmarkNames.map((name) => ({ label: name, kind: 'landmark' as const, xEl: m.results.map((r) => r.landmarks.find((l) => l.name === name)?.xEl ?? NaN) })),
   ];
-  const kymo = first ? kymographFigure({ xEl: first.xEl, timesS: times, values: profiles.map((p) => p?.mean ?? first.xEl.map(() => NaN)), tracks }, { title: `Kymograph — ${m.file}` }) : null;
+  const kymo = first ? kymographFigure({ xEl: first.xEl, timesS: times, values: profiles.map((p) => p?.mean ?? first.xEl.map(() => NaN)), tracks }) : null;
   const a = s.accumulation;
   const tau = a ? accumulationFigure({
     xEl: a.xEl, tauS: a.tauS, ciLowS: a.tauCiLowS, ciHighS: a.tauCiHighS,
     fit: s.model ? { tau0S: s.model.tau0S.value, lambdaTauEl: s.model.lambdaTauEl.value, rangeEl: s.model.rangeEl, steadyLambdaEl: s.steadyFit?.lambdaEl ?? NaN } : null,
-  }, { title: `Local accumulation time — ${m.file}` }) : null;
+  }) : null;
   return [
-    { name: `${slug}-lambda.svg`, title: 'λ over time', svg: lambda },
-    ...(kymo ? [{ name: `${slug}-kymograph.svg`, title: 'kymograph', svg: kymo }] : []),
-    ...(tau ? [{ name: `${slug}-tau.svg`, title: 'τ(x)', svg: tau }] : []),
+    { name: `${slug}-lambda.svg`, title: `λ over time — ${m.file}`, svg: lambda },
+    ...(kymo ? [{ name: `${slug}-kymograph.svg`, title: `kymograph — ${m.file}`, svg: kymo }] : []),
+    ...(tau ? [{ name: `${slug}-tau.svg`, title: `local accumulation time τ(x) — ${m.file}`, svg: tau }] : []),
   ];
 }
 

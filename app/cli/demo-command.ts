@@ -23,5 +23,6 @@ export async function demoCommand(argv: readonly string[], io: CliIo, workerPath
   io.stdout.write(`Wrote ${result.files.length} synthetic stacks, ${samples} and ${join(dir, 'eggline-project.json')}.\n`);
   // The project file in the folder sets the boundary channel and holds the furrow landmarks, so no flags are needed.
   io.stdout.write(`Next, try:\n  eggline batch ${dir} --out ${out} --samples ${samples}\n`);
+  if (count === undefined) io.stdout.write(`The movie in ${join(dir, 'timelapse')} is analysed over time by the same command (see timelapse.html in the results).\n`);
   return 0;
 }

@@ -1,5 +1,6 @@
 // Loading stacks for viewing: the projected channels with detection, and single raw slices for the Z slider.
 import { promises as fs } from 'node:fs';
+import { isStackFolderName } from '../../core/batch';
 import type { LoadedStack, SliceRequest } from '../../core/contract';
 import { requireAllowed, requireInt, requireSettings } from './args';
 import type { ShellContext } from './context';
@@ -9,9 +10,10 @@ import { ApiFailure, labelOf } from './result';
 /** Largest plane index accepted in a slice request (far above any real stack). */
 const MAX_INDEX = 1_000_000;
 
-/** A readable file, or a failure naming it. */
+/** A readable file or OME-Zarr folder (*.zarr), or a failure naming it. */
 async function requireFile(path: string): Promise<void> {
   const stat = await fs.stat(path);
+  if (stat.isDirectory() && isStackFolderName(labelOf(path))) return;
   if (!stat.isFile()) throw new ApiFailure('bad-argument', `${labelOf(path)}: is not a file`);
 }
 

@@ -24,6 +24,14 @@ describe('analyseCohort', () => {
     const amp = a.stats.filter((s) => s.quantity === 'amplitude').map((s) => s.mean);
     expect(amp[1] / amp[0]).toBeCloseTo(2, 6);
   });
+  it('leaves a fit that is not a decaying gradient out of λ statistics and lists it; the other quantities of that embryo stay', () => {
+    const bad = demo.results.map((r, i) => (i === 0 && r.gradientFit ? { ...r, gradientFit: { ...r.gradientFit, lambdaEl: -0.16, lambdaUm: -79, amplitude: -5 } } : r));
+    const a = analyseCohort(bad, sheet);
+    const ref = (q: string, unit: string) => a.stats.find((s) => s.condition === 'ref' && s.quantity === q && s.unit === unit)!;
+    expect(ref('lambda', 'EL').n).toBe(5);
+    expect(ref('egg_length', 'um').n).toBe(6);
+    expect(a.warnings).toContain(`λ left out of the statistics for 1 embryo whose fit is not a decaying gradient: ${bad[0].file} (λ = -79.0 µm is not positive; amplitude A = -5.00 is not positive)`);
+  });
   it('positional error of a boundary is its SD across embryos (about the 0.01 EL noise plus λ spread)', () => {
     const a = analyseCohort(demo.results, sheet);
     const b = a.stats.find((s) => s.condition === 'ref' && s.quantity === 'boundary:target:logistic' && s.unit === 'EL')!;

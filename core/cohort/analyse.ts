@@ -5,7 +5,7 @@ import { conditionStats } from './condition-stats';
 import { dosageFits, lambdaTrend, measuredDosages } from './dosage-fit';
 import { localLambdaWithSe } from './local-lambda';
 import { conditionReliability, fitRangesUsed } from './reliability';
-import { observationsOf } from './observations';
+import { notDecayingFits, observationsOf } from './observations';
 import { checkCohortOptions } from './options';
 import { conditionProfile } from './profiles';
 import type { CohortAnalysis, CohortAssignment, CohortOptions, ConditionProfile, Observation, ResolvedCohortOptions, SampleSheet } from '../model';
@@ -17,6 +17,10 @@ export function analyseCohort(results: readonly EmbryoResult[], sheet: SampleShe
   const opts = checkCohortOptions(options);
   const assignment = assignConditions(results, sheet, opts.reference);
   const warnings = [...assignment.warnings];
+  const flat = notDecayingFits(assignment.groups.flatMap((g) => g.embryos));
+  if (flat.length > 0) {
+    warnings.push(`λ left out of the statistics for ${flat.length} embryo${flat.length === 1 ? '' : 's'} whose fit is not a decaying gradient: ${flat.join(', ')}`);
+  }
   const conditions = assignment.groups.map((g) => g.condition);
   const observations = assignment.groups.flatMap((g) => g.embryos.flatMap((e) => observationsOf(e, g.condition)));
   const stats = conditionStats(observations, conditions, opts.level);

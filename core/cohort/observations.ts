@@ -1,4 +1,5 @@
 // Per-embryo quantities: λ (µm, EL), amplitude, egg length, each boundary (channel × method) and landmark (EL, µm).
+import { notDecayingReasons } from '../stats';
 import type { EmbryoResult } from '../model';
 import type { ConditionInfo, Observation, QuantityKind, QuantityUnit } from '../model';
 
@@ -42,8 +43,11 @@ export function observationsOf(result: EmbryoResult, condition: ConditionInfo): 
   };
   const fit = result.gradientFit;
   if (fit) {
-    add('lambda', 'lambda', 'EL', fit.lambdaEl);
-    add('lambda', 'lambda', 'um', fit.lambdaUm);
+    // A fit that does not decay has no decay length: its λ stays out of every λ statistic (listed by the cohort).
+    if (notDecayingReasons(fit).length === 0) {
+      add('lambda', 'lambda', 'EL', fit.lambdaEl);
+      add('lambda', 'lambda', 'um', fit.lambdaUm);
+    }
     add('amplitude', 'amplitude', 'a.u.', fit.amplitude);
   }
   add(EGG_LENGTH_QUANTITY, 'egg-length', 'um', result.eggLengthUm);
@@ -63,4 +67,12 @@ export function observationsOf(result: EmbryoResult, condition: ConditionInfo): 
     add(q, 'landmark', 'um', l.xUm);
   }
   return out;
+}
+
+/** The embryos whose gradient fit is not a decaying gradient, "file (reasons)", for the cohort's warnings. */
+export function notDecayingFits(results: readonly EmbryoResult[]): string[] {
+  return results.flatMap((r) => {
+    const reasons = r.status === 'ok' && r.gradientFit ? notDecayingReasons(r.gradientFit) : [];
+    return reasons.length === 0 ? [] : [`${r.file} (${reasons.join('; ')})`];
+  });
 }

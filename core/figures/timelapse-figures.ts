@@ -109,7 +109,7 @@ export interface AccumulationFigureInput {
 /** SVG: local accumulation time τ(x) with intervals, the fitted line over its range and the model line with the steady λ. */
 export function accumulationFigure(input: AccumulationFigureInput, options: FigureOptions = {}): string {
   const { widthPx, heightPx, title, subtitle } = figureSize(options, 'Local accumulation time τ(x)',
-    'dots: τ from the movie, whiskers: 95% CI; lines: fit τ₀(1 + x/λ_τ) and the model with the steady-state λ');
+    'dots: τ with 95% CI; solid: fit τ₀(1 + x/λ_τ); dashed: model with the steady-state λ');
   const a = plotArea(widthPx, heightPx, { top: 52, right: 20, bottom: 52, left: 68 });
   const all = [...Array.from(input.tauS), ...Array.from(input.ciLowS), ...Array.from(input.ciHighS)];
   const [, hiS] = finiteExtent(all, [0, 60]);

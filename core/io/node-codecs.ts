@@ -1,5 +1,5 @@
 // Decoders that need node built-ins, for the direct decode path: Deflate and Adobe Deflate through node:zlib.
-import { constants, inflateSync } from 'node:zlib';
+import { constants, inflate, inflateSync } from 'node:zlib';
 import { PURE_CHUNK_CODECS, type ChunkCodecs } from '../tiff';
 
 /**
@@ -20,5 +20,25 @@ export function inflateChunk(input: Uint8Array, out: Uint8Array): number {
   return result.length;
 }
 
-/** The pure decoders plus Deflate through node:zlib. */
-export const NODE_CHUNK_CODECS: ChunkCodecs = { ...PURE_CHUNK_CODECS, 8: inflateChunk, 32946: inflateChunk };
+/** The reason for a zlib failure, one line. */
+function zlibReason(err: unknown, outBytes: number): Error {
+  if ((err as { code?: string }).code === 'ERR_BUFFER_TOO_LARGE') return new Error(`the stream holds more than the chunk's ${outBytes} bytes`);
+  return new Error((err instanceof Error ? err.message : String(err)).split(/\r?\n/)[0]);
+}
+
+/**
+ * inflateChunk on libuv's thread pool: the strips of a plane inflate in parallel while the JS thread goes on (with
+ * read-ahead, adding the previous plane to the projection). Same limits and results as inflateChunk.
+ */
+export function inflateChunkAsync(input: Uint8Array, out: Uint8Array): Promise<number> {
+  return new Promise((resolve, reject) => {
+    inflate(input, { maxOutputLength: out.length, finishFlush: constants.Z_SYNC_FLUSH }, (err, result) => {
+      if (err) { reject(zlibReason(err, out.length)); return; }
+      out.set(result);
+      resolve(result.length);
+    });
+  });
+}
+
+/** The pure decoders plus Deflate through node:zlib (asynchronous, on the thread pool). */
+export const NODE_CHUNK_CODECS: ChunkCodecs = { ...PURE_CHUNK_CODECS, 8: inflateChunkAsync, 32946: inflateChunkAsync };

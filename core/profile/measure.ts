@@ -5,6 +5,7 @@ import type { AnalysisSettings, ChannelRef } from '../settings';
 import { describeChannelRef, resolveChannel } from '../image';
 import { axisLengthPx, distanceOutsideMaskPx, projectPointOntoAxis } from '../geometry';
 import { findBoundaries, fitExponentialDecay } from '../fit';
+import { notDecayingWarning } from '../stats';
 import type { PreparedSampling } from './prepare';
 import { binIndices, binProfile } from './bin';
 import type { SideFilter } from './bin';
@@ -66,9 +67,11 @@ export function fitProfile(profile: Profile, axisPx: number, pixelSizeUm: number
   const xUm = Float64Array.from(p.xEl, (x) => x * axisPx * scale);
   try {
     const weights = binWeights(p.sd, p.n);
-    const fit = fitExponentialDecay(xUm, p.mean, { eggLengthUm: axisPx * scale, fitRangeEl, xEl: p.xEl, ...(weights ? { weights } : {}) });
-    if (pixelSizeUm !== null) return fit;
-    return { ...fit, lambdaUm: NaN, lambdaSeUm: NaN, lambdaCiLowUm: NaN, lambdaCiHighUm: NaN };
+    const raw = fitExponentialDecay(xUm, p.mean, { eggLengthUm: axisPx * scale, fitRangeEl, xEl: p.xEl, ...(weights ? { weights } : {}) });
+    const fit = pixelSizeUm !== null ? raw : { ...raw, lambdaUm: NaN, lambdaSeUm: NaN, lambdaCiLowUm: NaN, lambdaCiHighUm: NaN };
+    const odd = notDecayingWarning(profile.channel, fit);
+    if (odd !== null) warnings.push(odd);
+    return fit;
   } catch (e) {
     warnings.push(`exponential fit of ${profile.channel} failed: ${e instanceof Error ? e.message : String(e)}`);
     return null;

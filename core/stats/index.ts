@@ -10,4 +10,5 @@ export { logGamma } from './log-gamma';
 export { tTwoSidedP, fUpperP, holmAdjust } from './p-values';
 export { olsHc3, lackOfFitTest, randomInterceptLine, yorkFit } from './line-fits';
 export type { SlopeEstimate, LackOfFit, RandomInterceptLine, YorkFit } from './line-fits';
+export { notDecayingReasons, notDecayingWarning } from './decay-check';
 export { sdConfidenceInterval } from './sd-interval';

@@ -3,7 +3,7 @@
 import type { PixelArray, PlaneSource, RawPlane, SampleType, StackInfo } from '../model';
 import { cachedByteSource } from './block-cache';
 import type { ByteSource } from './byte-source';
-import type { ChunkCodecs } from './chunk-codecs';
+import type { ChunkCodecs, ChunkDecoder } from './chunk-codecs';
 import { swapBytesInPlace, undoFloatingPointPredictor, undoHorizontalDifferencing } from './chunk-predictors';
 import { describeCompression } from './compression';
 import { planeSlot } from './dimension-order';
@@ -154,37 +154,61 @@ async function decodeInto(
   }
   const span = hi - lo <= 2 * total + 65536 ? await source.read(lo, hi - lo) : null;
   const outBytes = new Uint8Array(out.buffer);
+  const chunkInput = async (i: number): Promise<Uint8Array> => {
+    const input = span ? span.subarray(plan.offsets[i] - lo, plan.offsets[i] - lo + plan.byteCounts[i]) : await source.read(plan.offsets[i], plan.byteCounts[i]);
+    if (input.length < plan.byteCounts[i]) throw new Error(`${kind} ${i} has ${input.length} of its ${plan.byteCounts[i]} bytes`);
+    return input;
+  };
+  const rowValues = plan.chunkWidthPx * samplesInChunk;
+  if (!plan.tiled && samplesInChunk === 1) {
+    // Strips of one sample: each decodes straight into its rows of the plane, all at once (asynchronous decoders,
+    // such as node:zlib's, then work in parallel off the JS thread); predictors and byte order are undone in place.
+    const rowBytes = widthPx * bps;
+    await Promise.all(Array.from({ length: plan.chunksDown }, async (_, down) => {
+      const i = first + down;
+      const target = outBytes.subarray(down * plan.chunkHeightPx * rowBytes, (down * plan.chunkHeightPx + chunkRows(plan, heightPx, down)) * rowBytes);
+      const written = await decodeChunk(decode, await chunkInput(i), target, plan.compression, kind, i);
+      if (written < target.length) throw new Error(`${kind} ${i} decodes to ${written} bytes, expected ${target.length}`);
+      undoPredictorInPlace(target, plan, rowValues, samplesInChunk, littleEndian, scratch);
+    }));
+    return out;
+  }
   for (let down = 0; down < plan.chunksDown; down++) {
     const rows = chunkRows(plan, heightPx, down);
     for (let across = 0; across < plan.chunksAcross; across++) {
       const i = first + down * plan.chunksAcross + across;
-      const offset = plan.offsets[i];
-      const count = plan.byteCounts[i];
-      const input = span ? span.subarray(offset - lo, offset - lo + count) : await source.read(offset, count);
-      if (input.length < count) throw new Error(`${kind} ${i} has ${input.length} of its ${count} bytes`);
-      const rowValues = plan.chunkWidthPx * samplesInChunk;
       const chunkBytes = rowValues * rows * bps;
       const chunk = scratchBytes(scratch, 'chunk', chunkBytes);
-      let written: number;
-      try {
-        written = await decode(input, chunk);
-      } catch (err) {
-        throw new Error(`${kind} ${i}: ${describeCodecError(plan.compression, err)}`);
-      }
+      const written = await decodeChunk(decode, await chunkInput(i), chunk, plan.compression, kind, i);
       if (written < chunkBytes) throw new Error(`${kind} ${i} decodes to ${written} bytes, expected ${chunkBytes}`);
-      if (plan.predictor === 3) {
-        undoFloatingPointPredictor(chunk, bps, rowValues, samplesInChunk, scratchBytes(scratch, 'row', rowValues * bps));
-        // Big-endian files come out of the regrouping byte-swapped (checked on files written by libtiff's tiffcp -B,
-        // which geotiff also reads this way), so they are swapped like any other big-endian data.
-        if (!littleEndian) swapBytesInPlace(chunk, bps);
-      } else {
-        if (!littleEndian && bps > 1) swapBytesInPlace(chunk, bps);
-        if (plan.predictor === 2) undoHorizontalDifferencing(chunk, bps, rowValues, samplesInChunk);
-      }
+      undoPredictorInPlace(chunk, plan, rowValues, samplesInChunk, littleEndian, scratch);
       placeChunk(chunk, outBytes, plan, widthPx, heightPx, across, down, rows, sample);
     }
   }
   return out;
+}
+
+/** Runs one chunk's decoder; a failure becomes "strip 3: corrupt LZW stream (…)". */
+async function decodeChunk(decode: ChunkDecoder, input: Uint8Array, target: Uint8Array, compression: number, kind: string, i: number): Promise<number> {
+  try {
+    return await decode(input, target);
+  } catch (err) {
+    throw new Error(`${kind} ${i}: ${describeCodecError(compression, err)}`);
+  }
+}
+
+/** Undoes the predictor and the file's byte order on decoded bytes, in place (synchronous, so scratch is safe). */
+function undoPredictorInPlace(bytes: Uint8Array, plan: ChunkPlan, rowValues: number, stride: number, littleEndian: boolean, scratch: Scratch): void {
+  const bps = plan.bytesPerSample;
+  if (plan.predictor === 3) {
+    undoFloatingPointPredictor(bytes, bps, rowValues, stride, scratchBytes(scratch, 'row', rowValues * bps));
+    // Big-endian files come out of the regrouping byte-swapped (checked on files written by libtiff's tiffcp -B,
+    // which geotiff also reads this way), so they are swapped like any other big-endian data.
+    if (!littleEndian) swapBytesInPlace(bytes, bps);
+    return;
+  }
+  if (!littleEndian && bps > 1) swapBytesInPlace(bytes, bps);
+  if (plan.predictor === 2) undoHorizontalDifferencing(bytes, bps, rowValues, stride);
 }
 
 /** True when strips first … first+n-1 follow one another in the file, each exactly its rows long (the last may be longer). */

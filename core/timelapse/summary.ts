@@ -74,15 +74,19 @@ export function summarizeMovie(
     const failed = results.findIndex((r) => r.status !== 'ok' || !r.gradientProfile);
     return { ...base, lambda: [], steadyFit: null, accumulation: null, model: null, note: `time point ${timeIndices[failed]} was not analysed, so the movie is not summarised` };
   }
-  const profiles = results.map((r) => r.gradientProfile!);
   const elUm = eggLengthUm ?? 1;
+  // Without a pixel size the profiles have no µm positions; x/EL × 1 then stands in, so λ comes out in EL.
+  const profiles = results.map((r) => {
+    const p = r.gradientProfile!;
+    return p.xUm.every(Number.isFinite) ? p : { ...p, xUm: p.xEl.map((v) => v * elUm) };
+  });
   const clock = timesS ?? Float64Array.from(timeIndices);
-  const lambda = fitLambdaSeries(profiles.map((profile, i) => ({ tS: clock[i], profile, eggLengthUm: results[i].eggLengthUm ?? elUm })), options.fitRangeEl);
+  const lambda = fitLambdaSeries(profiles.map((profile, i) => ({ tS: clock[i], profile, eggLengthUm: eggLengthUm === null ? elUm : results[i].eggLengthUm ?? elUm })), options.fitRangeEl);
   const plateau = options.plateauFrames ?? 3;
   let steadyFit: ExponentialFit | null = null;
   try {
     const p = meanProfile(profiles, Math.min(plateau, profiles.length));
-    steadyFit = fitExponentialDecay(p.xUm.map((v, i) => (Number.isFinite(v) ? v : p.xEl[i] * elUm)), p.mean, { eggLengthUm: elUm, fitRangeEl: options.fitRangeEl, xEl: p.xEl });
+    steadyFit = fitExponentialDecay(p.xUm, p.mean, { eggLengthUm: elUm, fitRangeEl: options.fitRangeEl, xEl: p.xEl });
   } catch (e) {
     if (!(e instanceof FitError)) throw e;
     warnings.push(`no steady-state λ: ${e.message}`);

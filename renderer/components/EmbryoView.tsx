@@ -1,36 +1,15 @@
 // The embryo tab: the image above, the straightened strip and the profile plot below, with a bar between them that
 // resizes the two (so the image and the profile's x axis are on screen together at any window size).
 import { useRef, useState } from 'react';
-import type { Dispatch } from 'react';
-import type { ApAxis, ImagePoint, Plane } from '../../core/model';
 import { useElementSize } from '../hooks/useElementSize';
-import type { LiveMeasurement } from '../live';
-import type { EditorAction, EditorState } from '../state';
 import { lowerPaneLayout, profilePaneHeightPx } from '../ui/splitLayout';
-import type { OverlayVisibility } from './ImageOverlay';
-import { ImageView } from './ImageView';
+import { ImageView, type ImageViewProps } from './ImageView';
 import { ProfilePlot } from './ProfilePlot';
 import { SplitBar } from './SplitBar';
 import { StraightView } from './StraightView';
 
-/** Props of the embryo view. */
-export interface EmbryoViewProps {
-  readonly state: EditorState;
-  readonly dispatch: Dispatch<EditorAction>;
-  readonly planes: readonly Plane[];
-  readonly channelNames: readonly string[];
-  readonly outline: readonly ImagePoint[];
-  readonly axis: ApAxis | null;
-  readonly measurement: LiveMeasurement | null;
-  readonly bandOutlines: readonly (readonly ImagePoint[])[];
-  readonly fitRangeEl: readonly [number, number];
-  readonly pixelSizeUm: number | null;
-  readonly halfWidthPx: number;
-  readonly fitRequest: number;
-  readonly spaceHeld: boolean;
-  readonly overlays: OverlayVisibility;
-  readonly onOverlays: (v: OverlayVisibility) => void;
-  readonly readoutTarget: HTMLElement | null;
+/** Props of the embryo view: the image panel's, plus the load error and whether the tab is hidden. */
+export interface EmbryoViewProps extends ImageViewProps {
   readonly loadError: string | null;
   readonly hidden: boolean;
 }
@@ -46,9 +25,7 @@ export function EmbryoView(p: EmbryoViewProps) {
   return (
     <div className={p.hidden ? 'hidden' : 'embryo-view'} ref={box} data-testid="embryo-view">
       {p.loadError && <div className="error load-error" data-testid="load-error" title={p.loadError}>{p.loadError}</div>}
-      <ImageView state={p.state} dispatch={p.dispatch} planes={p.planes} channelNames={p.channelNames} outline={p.outline} axis={p.axis}
-        measurement={p.measurement} bandOutlines={p.bandOutlines} fitRangeEl={p.fitRangeEl} pixelSizeUm={p.pixelSizeUm} halfWidthPx={p.halfWidthPx}
-        fitRequest={p.fitRequest} spaceHeld={p.spaceHeld} overlays={p.overlays} onOverlays={p.onOverlays} readoutTarget={p.readoutTarget} />
+      <ImageView {...p} />
       <SplitBar fraction={fraction} onFraction={setFraction} totalPx={size.height} />
       <div className="profile-pane" style={{ height: paneH }}>
         <StraightView measurement={p.measurement} display={p.state.display} width={width} fitRangeEl={p.fitRangeEl} height={stripPx} />

@@ -6,6 +6,7 @@ import { join, resolve } from 'node:path';
 import { build } from 'esbuild';
 import { writeDemoDataSet } from '../../app/batch/write-demo';
 import { DEFAULT_SETTINGS } from '../../core/settings';
+import { externalExceptEsmOnly } from '../../scripts/bundle-externals.mjs';
 
 // The built main-process bundle (CommonJS, as scripts/build.mjs makes it) loaded in plain Node with a stand-in
 // electron module: checks that the bundle and its external packages load, and that the worker path is right.
@@ -38,9 +39,11 @@ beforeAll(async () => {
   scratch = await mkdtemp(join(tmpdir(), 'eggline-bundle-'));
   await mkdir(join(dist, 'renderer'), { recursive: true });
   await writeFile(join(dist, 'renderer', 'index.html'), '<!doctype html>');
-  const common = { bundle: true, platform: 'node' as const, target: 'node20', packages: 'external' as const, logLevel: 'warning' as const };
-  await build({ ...common, entryPoints: [{ in: 'app/main/main.ts', out: 'main' }], outdir: dist, format: 'cjs', outExtension: { '.js': '.cjs' }, external: ['electron', 'sharp'] });
-  await build({ ...common, entryPoints: [{ in: 'app/workers/analysis-worker.ts', out: 'analysis-worker' }], outdir: dist, format: 'esm',
+  const common = { bundle: true, platform: 'node' as const, target: 'node20', logLevel: 'warning' as const };
+  // The main bundle is made as scripts/build.mjs makes it: packages external except the ESM-only ones.
+  await build({ ...common, entryPoints: [{ in: 'app/main/main.ts', out: 'main' }], outdir: dist, format: 'cjs', outExtension: { '.js': '.cjs' },
+    plugins: [externalExceptEsmOnly] });
+  await build({ ...common, packages: 'external', entryPoints: [{ in: 'app/workers/analysis-worker.ts', out: 'analysis-worker' }], outdir: dist, format: 'esm',
     outExtension: { '.js': '.mjs' }, banner: { js: "import { createRequire as __cr } from 'node:module'; const require = __cr(import.meta.url);" } });
   const require = createRequire(import.meta.url);
   const Module = require('node:module') as { _load: (req: string, ...rest: unknown[]) => unknown };

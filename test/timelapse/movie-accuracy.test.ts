@@ -92,6 +92,13 @@ describe('a synthetic movie analysed frame by frame', async () => {
     const rows = accumulationRows(summary);
     expect(rows.length).toBe(summary.accumulation!.xEl.length);
     expect(modelFitRow(summary)).toHaveLength(MODEL_FIT_COLUMNS.length);
+    // Without a pixel size: λ in EL and k still come out; µm positions and D stay empty.
+    const noPx = results.map((r) => ({ ...r, eggLengthUm: null, gradientProfile: { ...r.gradientProfile!, xUm: r.gradientProfile!.xUm.map(() => NaN) } }));
+    const bare = summarizeMovie('movie.ome.tif', noPx.map((_, t) => t), times, noPx, { fitRangeEl: [0.1, 0.6] });
+    expect(Math.abs(bare.steadyFit!.lambdaEl / 0.2 - 1)).toBeLessThan(0.05);
+    expect(Math.abs(bare.model!.kPerS.value / K_PER_S - 1)).toBeLessThan(0.15);
+    expect(Number.isNaN(bare.accumulation!.xUm[0])).toBe(true);
+    expect(modelFitRow(bare)[MODEL_FIT_COLUMNS.indexOf('d_um2_per_s')]).toBeNull();
     // A movie cut at one degradation time after the onset is still rising: the summary says so.
     const cut = 8;
     const early = summarizeMovie('movie.ome.tif', results.slice(0, cut).map((_, t) => t), times.slice(0, cut), results.slice(0, cut), { fitRangeEl: [0.1, 0.6] });
