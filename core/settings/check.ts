@@ -39,12 +39,24 @@ export function fieldProblem(key: string, value: unknown): string | null {
   return `${problem} (got ${shown})`;
 }
 
+/** The first problem of a complete settings object ("<label> must be <rule>", or a rule across settings), or null. */
+export function settingsProblem(settings: AnalysisSettings): string | null {
+  for (const spec of SETTINGS) {
+    const problem = settingProblem(spec.key, settingValue(settings, spec.key));
+    if (problem !== null) return problem;
+  }
+  return combinationProblem(settings);
+}
+
+/** Overrides applied onto settings without checking (nested groups merge key by key); check with settingsProblem. */
+export function applyOverrides(base: AnalysisSettings, layer: SettingsOverrides): AnalysisSettings {
+  return { ...base, ...layer, profile: { ...base.profile, ...layer.profile }, background: { ...base.background, ...layer.background } } as AnalysisSettings;
+}
+
 /** Apply overrides in order onto a base; nested profile/background groups merge key by key. Inputs are not changed. */
 export function mergeSettings(base: AnalysisSettings, ...layers: readonly SettingsOverrides[]): AnalysisSettings {
   let out: AnalysisSettings = base;
-  for (const layer of layers) {
-    out = { ...out, ...layer, profile: { ...out.profile, ...layer.profile }, background: { ...out.background, ...layer.background } } as AnalysisSettings;
-  }
+  for (const layer of layers) out = applyOverrides(out, layer);
   checkCombination(out);
   return out;
 }
@@ -131,15 +143,11 @@ export function settingsFromStored(value: unknown, where = 'settings'): Analysis
     const stored = spec.key.split('.').reduce<unknown>((o, k) => (isRecord(o) ? o[k] : undefined), value);
     if (stored === undefined) continue;
     if (!spec.isValid(stored)) throw new SettingsError(`${where}.${spec.key} must be ${spec.rule}`);
-    out = mergeSettingsUnchecked(out, overrideOf(spec.key, stored));
+    out = applyOverrides(out, overrideOf(spec.key, stored));
   }
   const problem = combinationProblem(out);
   if (problem !== null) throw new SettingsError(`${where}: ${problem}`);
   return out;
-}
-
-function mergeSettingsUnchecked(base: AnalysisSettings, layer: SettingsOverrides): AnalysisSettings {
-  return { ...base, ...layer, profile: { ...base.profile, ...layer.profile }, background: { ...base.background, ...layer.background } } as AnalysisSettings;
 }
 
 /** The settings in force for one file: the shared settings with the file's own fit range and dorsal side when it

@@ -4,7 +4,7 @@ export type { AnalysisSettings, ProfileSettings, BackgroundSettings, ChannelRef,
 export { DEFAULT_SETTINGS } from './defaults';
 export { SETTINGS, settingSpec, flagKey, numberFromText, type SettingSpec, type SettingKind } from './schema';
 export {
-  settingValue, overrideOf, settingProblem, fieldProblem, mergeSettings, checkCombination, combinationProblem,
+  settingValue, overrideOf, settingProblem, fieldProblem, settingsProblem, applyOverrides, mergeSettings, checkCombination, combinationProblem,
   settingsFromFlags, overridesFromJson, settingsFromStored, settingsInForce, type SettingsOverrides, type SettingsFlags,
 } from './check';
 export { SettingsError } from './settings-error';

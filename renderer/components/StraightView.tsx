@@ -52,7 +52,8 @@ export function StraightView({ measurement: m, display, width, fitRangeEl, heigh
     <div className="straight-view" data-testid="straight-view" style={{ height: STRIP_HEIGHT_PX }}>
       <canvas ref={ref} style={{ width, height: STRIP_HEIGHT_PX }} />
       <svg width={width} height={STRIP_HEIGHT_PX} className="straight-overlay">
-        <rect x={elToPx(fitRangeEl[0], width)} width={Math.max(0, elToPx(fitRangeEl[1], width) - elToPx(fitRangeEl[0], width))} y={0} height={STRIP_HEIGHT_PX} className="fit-shade" />
+        {/* min/abs: a range given the wrong way round never draws a rectangle of negative width. */}
+        <rect x={Math.min(elToPx(fitRangeEl[0], width), elToPx(fitRangeEl[1], width))} width={Math.abs(elToPx(fitRangeEl[1], width) - elToPx(fitRangeEl[0], width))} y={0} height={STRIP_HEIGHT_PX} className="fit-shade" />
         {m?.boundaries.map((b, i) => b.positionEl !== null &&
           <line key={i} x1={elToPx(b.positionEl, width)} x2={elToPx(b.positionEl, width)} y1={0} y2={STRIP_HEIGHT_PX} className="boundary-line" stroke={boundaryColour(b.channel, m.boundaryProfiles.map((p) => p.channel))} />)}
         {m?.landmarks.map((l, i) => (

@@ -144,6 +144,17 @@ describe('setSetting', () => {
     expect(s.doc.settings.fitRangeEl).toEqual([0.1, 0.6]);
     expect(s.past).toHaveLength(1);
   });
+  it('merges a nested group key by key', () => {
+    const s = reduce(opened(), { type: 'setSetting', patch: { profile: { edgeDepthUm: 8 } } });
+    expect([s.doc.settings.profile.edgeDepthUm, s.doc.settings.profile.mode]).toEqual([8, 'edge']);
+  });
+  it('does not take settings that break a rule (a reversed fit range), so the project stays savable', () => {
+    // Source: core/settings' rule for fitRangeEl (0 ≤ a < b ≤ 1); demo values.
+    const before = opened();
+    const s = reduce(before, { type: 'setSetting', patch: { fitRangeEl: [0.7, 0.6] } });
+    expect(s.doc).toBe(before.doc);
+    expect(s.past).toHaveLength(0);
+  });
 });
 
 describe('initChannelDisplay / setChannelDisplay / setDisplayMode', () => {

@@ -1,5 +1,5 @@
 // Analysis edits: the fit range of the shown file and the shared settings.
-import type { AnalysisSettings } from '../../core/settings';
+import { applyOverrides, settingsProblem, type SettingsOverrides } from '../../core/settings';
 import { withEdits } from './fileEdits';
 import type { ActionOutcome, EditorState } from './types';
 
@@ -22,8 +22,10 @@ export function setFitRange(state: EditorState, rangeEl: readonly [number, numbe
   return { state: withEdits(state, { fitRangeEl: range }), history: coalesce ? 'none' : 'push' };
 }
 
-/** Merge `patch` into the analysis settings (shared by every file of the project). */
-export function setSetting(state: EditorState, patch: Partial<AnalysisSettings>): ActionOutcome {
-  const settings = { ...state.doc.settings, ...patch };
+/** Merge `patch` into the analysis settings (shared by every file of the project); nested groups merge key by key.
+ *  Settings that break a rule of the settings table are not taken (the fields refuse them first, with the message). */
+export function setSetting(state: EditorState, patch: SettingsOverrides): ActionOutcome {
+  const settings = applyOverrides(state.doc.settings, patch);
+  if (settingsProblem(settings) !== null) return { state, history: 'none' };
   return { state: { ...state, doc: { ...state.doc, settings } }, history: 'push' };
 }

@@ -1,6 +1,6 @@
 // Editor state: the undoable document (settings + per-file hand edits) and the non-undoable view state.
 import type { ApAxis, ImagePoint } from '../../core/model';
-import type { AnalysisSettings } from '../../core/settings';
+import type { AnalysisSettings, SettingsOverrides } from '../../core/settings';
 import type { FileEdits } from '../../core/contract';
 import type { ViewTransform } from '../geometry';
 
@@ -67,7 +67,7 @@ export type EditorAction =
   | { type: 'deleteLandmark'; index: number }
   | { type: 'selectLandmark'; index: number | null }
   | { type: 'setFitRange'; rangeEl: readonly [number, number]; coalesce?: boolean }
-  | { type: 'setSetting'; patch: Partial<AnalysisSettings> }
+  | { type: 'setSetting'; patch: SettingsOverrides }
   | { type: 'setChannelDisplay'; index: number; patch: Partial<ChannelDisplay> }
   | { type: 'initChannelDisplay'; channels: readonly ChannelDisplay[] }
   | { type: 'setDisplayMode'; mode: 'single' | 'merged'; active?: number }

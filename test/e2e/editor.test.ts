@@ -148,6 +148,33 @@ describe('editor window', { timeout: 150_000 }, () => {
     lambdaAfterEdits = await text(page, 'lambda-um');
   });
 
+  it('refuses a reversed fit range at the field with the rule\'s message, and the project keeps saving other edits', async () => {
+    const { page } = h;
+    const projectFile = join(dataDir, 'demo', 'eggline-project.json');
+    type Saved = { settings: { fitRangeEl: number[]; profile: { edgeDepthUm: number } } };
+    const saved = async () => JSON.parse(await fs.readFile(projectFile, 'utf8')) as Saved;
+    // Source: core/settings' rule for the fit range (0 ≤ a < b ≤ 1), the same rule the command line states.
+    await page.getByTestId('fit-range-from').fill('0.7');
+    await page.getByTestId('fit-range-from').press('Enter');
+    await expect.poll(() => text(page, 'field-error-fit-range'))
+      .toBe('fit range x/EL must be two numbers [a, b] with 0 ≤ a < b ≤ 1 (got 0.7, 0.6)');
+    await shot(page, '04c-fit-range-refused');
+    // Another setting still goes into the saved project, and the refused range never did.
+    await page.getByTestId('edge-depth').fill('10');
+    await page.getByTestId('edge-depth').press('Enter');
+    await expect.poll(async () => (await saved()).settings.profile.edgeDepthUm, { timeout: 10_000 }).toBe(10);
+    expect((await saved()).settings.fitRangeEl).toEqual([0.1, 0.6]);
+    expect(await text(page, 'save-status')).toMatch(/^saved/);
+    // Back to the demo's values for the tests that follow.
+    await page.getByTestId('fit-range-from').fill('0.1');
+    await page.getByTestId('fit-range-from').press('Enter');
+    await page.getByTestId('edge-depth').fill('12');
+    await page.getByTestId('edge-depth').press('Enter');
+    await expect.poll(async () => (await saved()).settings.profile.edgeDepthUm, { timeout: 10_000 }).toBe(12);
+    await expect.poll(() => page.getByTestId('field-error-fit-range').count()).toBe(0);
+    await expect.poll(() => text(page, 'lambda-um'), { timeout: 10_000 }).toBe(lambdaAfterEdits);
+  });
+
   it('after a reload with fresh handlers on the same data folder, everything is restored', async () => {
     const { page } = h;
     h.freshHandlers();
