@@ -13,6 +13,7 @@ const ROWS: [string, string][] = [
   ['Ctrl+Z, Ctrl+Shift+Z', "undo, redo (the settings and the shown file's hand edits; other files are never changed)"],
   ['Ctrl+S', 'save now (edits also save themselves)'],
   ['Tab, then arrows', 'a focused A/P handle or landmark moves 1 px (Shift: 10 px); a focused fit-range line moves 0.01 EL (Shift: 0.05)'],
+  ['Tab, then arrows, Home, End', 'a focused histogram handle moves the display range 1% of the data range (Shift: 10%); Home and End go to its ends'],
   ['Tab to the bar under the image, ↑ / ↓', 'give the image or the profile more room (or drag the bar)'],
   ['Enter on a batch row', 'show that embryo with its status and warnings'],
 ];

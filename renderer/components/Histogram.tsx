@@ -1,7 +1,7 @@
-// Histogram of one channel with draggable low/high display handles.
+// Histogram of one channel with low/high display handles: dragged with the mouse, or focused and moved with the keys.
 import { useMemo, useRef } from 'react';
 import type { Plane } from '../../core/model';
-import { dataRange, histogramCounts } from '../view';
+import { dataRange, displayRangeAfterKey, histogramCounts } from '../view';
 
 const W = 220, H = 56, BINS = 110;
 
@@ -36,7 +36,16 @@ export function Histogram({ plane, low, high, colour, onChange }: HistogramProps
       })}
       <line x1={toX(low)} x2={toX(high)} y1={H} y2={0} className="hist-ramp" />
       {(['low', 'high'] as const).map((k) => (
-        <g key={k} className="hist-handle" data-testid={`hist-${k}`} onPointerDown={(e) => { e.currentTarget.setPointerCapture(e.pointerId); drag.current = k; }}>
+        <g key={k} className="hist-handle" data-testid={`hist-${k}`} tabIndex={0} role="slider"
+          aria-label={k === 'low' ? 'display range low (arrow keys; Shift for larger steps)' : 'display range high (arrow keys; Shift for larger steps)'}
+          aria-valuemin={lo} aria-valuemax={hi} aria-valuenow={k === 'low' ? low : high}
+          onPointerDown={(e) => { e.currentTarget.setPointerCapture(e.pointerId); drag.current = k; }}
+          onKeyDown={(e) => {
+            const next = displayRangeAfterKey(k, e.key, e.shiftKey, { low, high }, { lo, hi });
+            if (next === null) return;
+            e.preventDefault();
+            onChange(next.low, next.high);
+          }}>
           <line x1={toX(k === 'low' ? low : high)} x2={toX(k === 'low' ? low : high)} y1={0} y2={H} />
           <rect x={toX(k === 'low' ? low : high) - 4} y={0} width={8} height={H} />
         </g>

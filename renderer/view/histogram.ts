@@ -36,3 +36,21 @@ export function autoDisplayRange(plane: Plane, clipFraction = 0.002): [number, n
   const w = (hi - lo) / bins;
   return bHi > bLo ? [lo + bLo * w, lo + (bHi + 1) * w] : [lo, hi];
 }
+
+/** Display range after a key on the low or high handle: arrows step 1% of the data span (Shift: 10%), Home/End jump to
+ *  the data's ends; the handles never cross. Null for keys that do not move a handle. */
+export function displayRangeAfterKey(
+  handle: 'low' | 'high', key: string, shift: boolean,
+  range: { low: number; high: number }, data: { lo: number; hi: number },
+): { low: number; high: number } | null {
+  const span = data.hi - data.lo || 1;
+  const step = { ArrowLeft: -1, ArrowDown: -1, ArrowRight: 1, ArrowUp: 1 }[key];
+  const current = handle === 'low' ? range.low : range.high;
+  let next: number;
+  if (step !== undefined) next = current + step * span * (shift ? 0.1 : 0.01);
+  else if (key === 'Home') next = data.lo;
+  else if (key === 'End') next = data.hi;
+  else return null;
+  next = Math.min(data.hi, Math.max(data.lo, next));
+  return handle === 'low' ? { low: Math.min(next, range.high), high: range.high } : { low: range.low, high: Math.max(next, range.low) };
+}

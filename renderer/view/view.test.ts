@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { parseHexColour } from './colour';
 import { compositeRgba } from './composite';
-import { autoDisplayRange, dataRange, histogramCounts } from './histogram';
+import { autoDisplayRange, dataRange, displayRangeAfterKey, histogramCounts } from './histogram';
 
 // Demo data, worked by hand.
 const plane = (data: number[], width = data.length) => ({ width, height: data.length / width, data: Float32Array.from(data) });
@@ -45,5 +45,23 @@ describe('histogram helpers', () => {
     expect(lo).toBeLessThanOrEqual(1);
     expect(hi).toBeGreaterThanOrEqual(99);
     expect(hi).toBeLessThan(200);
+  });
+});
+
+describe('displayRangeAfterKey', () => {
+  const data = { lo: 0, hi: 1000 };
+  it('steps 1% of the data span per arrow, 10% with Shift', () => {
+    expect(displayRangeAfterKey('low', 'ArrowRight', false, { low: 100, high: 900 }, data)).toEqual({ low: 110, high: 900 });
+    expect(displayRangeAfterKey('high', 'ArrowDown', true, { low: 100, high: 900 }, data)).toEqual({ low: 100, high: 800 });
+  });
+  it('jumps to the data ends with Home and End, stays inside them, and never lets the handles cross', () => {
+    expect(displayRangeAfterKey('low', 'Home', false, { low: 100, high: 900 }, data)).toEqual({ low: 0, high: 900 });
+    expect(displayRangeAfterKey('high', 'End', false, { low: 100, high: 900 }, data)).toEqual({ low: 100, high: 1000 });
+    expect(displayRangeAfterKey('low', 'ArrowLeft', true, { low: 50, high: 900 }, data)).toEqual({ low: 0, high: 900 });
+    expect(displayRangeAfterKey('low', 'End', false, { low: 100, high: 300 }, data)).toEqual({ low: 300, high: 300 });
+    expect(displayRangeAfterKey('high', 'Home', false, { low: 100, high: 300 }, data)).toEqual({ low: 100, high: 100 });
+  });
+  it('ignores other keys', () => {
+    expect(displayRangeAfterKey('low', 'a', false, { low: 1, high: 2 }, data)).toBeNull();
   });
 });

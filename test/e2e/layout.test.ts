@@ -162,6 +162,17 @@ describe('keyboard', { timeout: 60_000 }, () => {
     await expect.poll(() => page.getByTestId('landmark').count()).toBe(n + 1);
     for (let k = 0; k < 4; k += 1) await page.keyboard.press('Control+z');
   });
+
+  it('moves the display range handles of the histogram without a mouse', async () => {
+    const { page } = h;
+    const low = page.getByTestId('hist-low').first();
+    const before = Number(await low.getAttribute('aria-valuenow'));
+    await low.focus();
+    await page.keyboard.press('Shift+ArrowRight');
+    await expect.poll(async () => Number(await low.getAttribute('aria-valuenow'))).toBeGreaterThan(before);
+    await page.keyboard.press('Home');
+    await expect.poll(() => low.getAttribute('aria-valuenow')).toBe(await low.getAttribute('aria-valuemin'));
+  });
 });
 
 describe('long messages', { timeout: 60_000 }, () => {
