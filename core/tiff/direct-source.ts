@@ -8,8 +8,8 @@ import { swapBytesInPlace, undoFloatingPointPredictor, undoHorizontalDifferencin
 import { describeCompression } from './compression';
 import { planeSlot } from './dimension-order';
 import { TiffError } from './errors';
-import { readTiffHeader, type TiffHeader } from './header';
-import { readIfdChain, type Ifd } from './ifd';
+import type { TiffHeader } from './header';
+import { lazyIfdChain, type Ifd } from './ifd';
 import { readImageLayout } from './layout';
 import { sampleTypeOf, bytesPerSample } from './sample-type';
 import { readNumber, readNumbers } from './tag-value';
@@ -266,8 +266,7 @@ function placeChunk(chunk: Uint8Array, out: Uint8Array, plan: ChunkPlan, widthPx
  */
 export function createDirectPlaneSource(source: ByteSource, info: StackInfo, codecs: ChunkCodecs, fileLabel: string): PlaneSource {
   const tags = cachedByteSource(source);
-  let chain: Promise<{ header: TiffHeader; ifds: Ifd[] }> | null = null;
-  const openChain = () => (chain ??= readTiffHeader(tags, fileLabel).then(async (header) => ({ header, ifds: await readIfdChain(tags, header, fileLabel) })));
+  const openChain = lazyIfdChain(tags, fileLabel);
   const scratch: Scratch = { chunk: new Uint8Array(0), row: new Uint8Array(0) };
   return {
     async readPlane(z: number, c: number, t: number): Promise<RawPlane> {

@@ -6,8 +6,7 @@ import { memoryByteSource, type ByteSource } from './byte-source';
 import { checkChunkExtents } from './chunk-extent';
 import { planeSlot } from './dimension-order';
 import { TiffError } from './errors';
-import { readTiffHeader } from './header';
-import { readIfdChain, type Ifd } from './ifd';
+import { lazyIfdChain } from './ifd';
 import { undoHorizontalPredictor } from './predictor';
 
 type GeotiffSource = Parameters<typeof GeoTIFF.fromSource>[0];
@@ -85,10 +84,9 @@ export function checkPlaneIndex(info: StackInfo, z: number, c: number, t: number
 export function createGeotiffPlaneSource(bytesOrSource: Uint8Array | ByteSource, info: StackInfo, fileLabel = 'file'): PlaneSource {
   const source = bytesOrSource instanceof Uint8Array ? memoryByteSource(bytesOrSource) : bytesOrSource;
   let tiff: Promise<GeoTIFF> | null = null;
-  let chain: Promise<{ header: Awaited<ReturnType<typeof readTiffHeader>>; ifds: Ifd[] }> | null = null;
   const openTiff = () => (tiff ??= GeoTIFF.fromSource(toGeotiffSource(source)));
   const tags = cachedByteSource(source);
-  const openChain = () => (chain ??= readTiffHeader(tags, fileLabel).then(async (header) => ({ header, ifds: await readIfdChain(tags, header, fileLabel) })));
+  const openChain = lazyIfdChain(tags, fileLabel);
   return {
     async readPlane(z: number, c: number, t: number): Promise<RawPlane> {
       checkPlaneIndex(info, z, c, t);

@@ -1,7 +1,7 @@
 // Image File Directories: entry lists and the chain that links them (TIFF 6.0 §2; BigTIFF design).
 import type { ByteSource } from './byte-source';
 import { TiffError } from './errors';
-import type { TiffHeader } from './header';
+import { readTiffHeader, type TiffHeader } from './header';
 import { checkTagCounts } from './tag-counts';
 import { fieldTypeSize } from './tags';
 
@@ -97,4 +97,10 @@ export async function readIfdChain(source: ByteSource, header: TiffHeader, fileL
     offset = ifd.nextOffset;
   }
   return ifds;
+}
+
+/** The header and main IFD chain of a file, read on the first call and shared by later ones (a plane source's view). */
+export function lazyIfdChain(source: ByteSource, fileLabel: string): () => Promise<{ header: TiffHeader; ifds: Ifd[] }> {
+  let chain: Promise<{ header: TiffHeader; ifds: Ifd[] }> | null = null;
+  return () => (chain ??= readTiffHeader(source, fileLabel).then(async (header) => ({ header, ifds: await readIfdChain(source, header, fileLabel) })));
 }
