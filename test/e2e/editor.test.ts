@@ -369,17 +369,18 @@ describe('undo stays on the shown file', { timeout: 120_000 }, () => {
     await page.keyboard.press('PageUp');
     await expect.poll(() => page.locator('[data-testid=folder-entry].current').getAttribute('data-name'), { timeout: 30_000 }).toBe(first);
     await page.getByTestId('handle-anterior').waitFor({ timeout: 30_000 });
-    // Still swapped: the Ctrl+Z on the other file did not reach this one.
-    await expect.poll(async () => {
+    // Still swapped: the Ctrl+Z on the other file did not reach this one. Compared as the direction A→P on screen, which
+    // a change of zoom or pane size (the view is fitted again on return) leaves alone: −1 swapped, +1 as detected.
+    const directionNow = async () => {
       const a = await centre(page, '[data-testid=handle-anterior] circle');
-      return Math.abs(a.x - p0.x) + Math.abs(a.y - p0.y);
-    }, { timeout: 20_000 }).toBeLessThan(1.5);
+      const p = await centre(page, '[data-testid=handle-posterior] circle');
+      const [ux, uy, vx, vy] = [p0.x - a0.x, p0.y - a0.y, p.x - a.x, p.y - a.y];
+      return (ux * vx + uy * vy) / (Math.hypot(ux, uy) * Math.hypot(vx, vy));
+    };
+    await expect.poll(directionNow, { timeout: 20_000 }).toBeLessThan(-0.999);
     await shot(page, '10-undo-on-other-file-kept-swap');
     await page.keyboard.press('Control+z');
-    await expect.poll(async () => {
-      const a = await centre(page, '[data-testid=handle-anterior] circle');
-      return Math.abs(a.x - a0.x) + Math.abs(a.y - a0.y);
-    }).toBeLessThan(1.5);
+    await expect.poll(directionNow).toBeGreaterThan(0.999);
   });
   it('files dropped on the window open as loose files (the real openDropped handler)', async () => {
     const { page } = h;
