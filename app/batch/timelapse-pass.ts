@@ -2,7 +2,7 @@
 // movie, or per time point), summarised (λ(t), τ(x), the model fit) and written as tables, SVG figures and a page.
 import { promises as fs } from 'node:fs';
 import { join } from 'node:path';
-import { embryoRow, EMBRYO_COLUMNS, summaryBoundary } from '../../core/batch';
+import { embryoMeasureRow, EMBRYO_MEASURE_COLUMNS, summaryBoundary } from '../../core/batch';
 import { toCsv, type CsvValue } from '../../core/csv';
 import type { ProjectDoc } from '../../core/contract';
 import { accumulationFigure, figureSlug, kymographFigure, lambdaOverTimeFigure } from '../../core/figures';
@@ -95,8 +95,8 @@ function timeCell(m: MovieOutcome, k: number): CsvValue {
 
 /** timecourse.csv: file, t_index, t_s, then every embryos.csv column after `file`. */
 export function timecourseCsv(movies: readonly MovieOutcome[]): string {
-  const rows = movies.flatMap((m) => m.results.map((r, k) => [m.file, m.timeIndices[k], timeCell(m, k), ...embryoRow(r).slice(1)]));
-  return toCsv(['file', 't_index', 't_s', ...EMBRYO_COLUMNS.slice(1)], rows);
+  const rows = movies.flatMap((m) => m.results.map((r, k) => [m.file, m.timeIndices[k], timeCell(m, k), ...embryoMeasureRow(r).slice(1)]));
+  return toCsv(['file', 't_index', 't_s', ...EMBRYO_MEASURE_COLUMNS.slice(1)], rows);
 }
 
 /** timecourse_profiles.csv: every channel's profile at every analysed time point (long format). */
