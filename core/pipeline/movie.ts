@@ -1,6 +1,6 @@
 // One movie end to end: the embryo's axis found once (on the mean over a sample of time points) or per time point,
 // then every chosen time point analysed as a single stack with its own background. Never throws for bad data.
-import { errorResult, type ApAxis, type EmbryoResult, type HandEdits, type PlaneSource, type Plane, type ProjectedStack, type StackInfo } from '../model';
+import { errorResult, withTimePoint, type ApAxis, type EmbryoResult, type HandEdits, type PlaneSource, type Plane, type ProjectedStack, type StackInfo } from '../model';
 import type { AnalysisSettings } from '../settings';
 import { projectStack } from '../image';
 import { detectEmbryo, type EmbryoDetection } from '../geometry';
@@ -10,6 +10,9 @@ import { analyseStack } from './analyse';
 export interface MovieOptions {
   readonly fileLabel: string;
   readonly handEdits?: HandEdits | null;
+  /** The hand edits and settings in force at one time point (a time point's own edits over the file's); when given,
+   *  they replace handEdits and settings at that time point. */
+  readonly editsAt?: (t: number) => { readonly handEdits: HandEdits | null; readonly settings: AnalysisSettings };
   /** Time points to analyse (0-based, in order). */
   readonly timeIndices: readonly number[];
   /** Find the axis at every time point (embryos that drift) instead of once for the movie. */
@@ -63,7 +66,7 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
   const bad = timeIndices.find((t) => !(Number.isInteger(t) && t >= 0 && t < info.sizeT));
   if (bad !== undefined) {
     const r = errorResult(fileLabel, `time point ${bad} is outside the movie (T = ${info.sizeT})`);
-    return { timeIndices, results: timeIndices.map(() => r), movieAxis: null };
+    return { timeIndices, results: timeIndices.map((t) => withTimePoint(r, t, info.time?.timesS?.[t] ?? null)), movieAxis: null };
   }
   let detection: EmbryoDetection | null = null;
   if (!options.axisPerTime) {
@@ -72,12 +75,14 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
       detection = detectEmbryo(projected, settings);
     } catch (e) {
       const r = errorResult(fileLabel, `embryo over time: ${e instanceof Error ? e.message : String(e)}`);
-      return { timeIndices, results: timeIndices.map(() => r), movieAxis: null };
+      return { timeIndices, results: timeIndices.map((t) => withTimePoint(r, t, info.time?.timesS?.[t] ?? null)), movieAxis: null };
     }
   }
   const results: EmbryoResult[] = [];
   for (const t of timeIndices) {
-    results.push(await analyseStack(info, source, { ...settings, timeIndex: t }, { fileLabel, handEdits: options.handEdits ?? null, detection }));
+    const at = options.editsAt?.(t);
+    const settingsAtT = { ...(at ? at.settings : settings), timeIndex: t };
+    results.push(await analyseStack(info, source, settingsAtT, { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection }));
   }
   const hand = options.handEdits?.axis ?? null;
   return { timeIndices, results, movieAxis: hand ? { ...hand, source: 'hand' } : detection?.axis ?? null };
