@@ -10,6 +10,9 @@ import { analyseStack } from './analyse';
 export interface MovieOptions {
   readonly fileLabel: string;
   readonly handEdits?: HandEdits | null;
+  /** The hand edits and settings in force at one time point (a time point's own edits over the file's); when given,
+   *  they replace handEdits and settings at that time point. */
+  readonly editsAt?: (t: number) => { readonly handEdits: HandEdits | null; readonly settings: AnalysisSettings };
   /** Time points to analyse (0-based, in order). */
   readonly timeIndices: readonly number[];
   /** Find the axis at every time point (embryos that drift) instead of once for the movie. */
@@ -77,7 +80,9 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
   }
   const results: EmbryoResult[] = [];
   for (const t of timeIndices) {
-    results.push(await analyseStack(info, source, { ...settings, timeIndex: t }, { fileLabel, handEdits: options.handEdits ?? null, detection }));
+    const at = options.editsAt?.(t);
+    const settingsAtT = { ...(at ? at.settings : settings), timeIndex: t };
+    results.push(await analyseStack(info, source, settingsAtT, { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection }));
   }
   const hand = options.handEdits?.axis ?? null;
   return { timeIndices, results, movieAxis: hand ? { ...hand, source: 'hand' } : detection?.axis ?? null };
