@@ -3,6 +3,7 @@
 import { useCallback, useEffect, useMemo, useReducer, useRef, useState } from 'react';
 import { MENU_OPEN_RECENT_PREFIX } from '../core/contract';
 import type { Plane } from '../core/model';
+import { straightViewHalfWidthPx } from '../core/profile';
 import { settingsInForce } from '../core/settings';
 import { getApi } from './api';
 import { BatchPanel } from './components/BatchPanel';
@@ -189,7 +190,7 @@ export function App() {
   useEffect(() => api?.onMenuCommand((c) => commandRef.current(c)), [api]);
 
   if (api === null) return <div className="fatal">This page must run inside Eggline: the app connection (window.eggline) is missing.</div>;
-  const halfWidthPx = stack === null || pixelSizeUm === null ? 50 : (stack.detection.eggWidthUm / pixelSizeUm) * 0.6;
+  const halfWidthPx = stack === null ? 50 : straightViewHalfWidthPx(stack.detection.eggWidthUm, stack.projected.pixelSizeUm);
   const message = session.message ?? (saveStatus.kind === 'error' ? `Not saved: ${saveStatus.message}` : null);
 
   return (
