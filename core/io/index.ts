@@ -2,6 +2,7 @@
 export { openFileByteSource, type FileByteSource } from './file-byte-source';
 export { openStackFile, readStackInfoFromFile, type OpenStackOptions } from './open-stack';
 export { inflateChunk, inflateChunkAsync, inflateChunkAuto, NODE_CHUNK_CODECS } from './node-codecs';
-export { openZarrFolderStore, isFolder } from './zarr-folder-store';
+export { openZarrFolderStore, isFolder, type ZarrFolderStoreOptions } from './zarr-folder-store';
+export { readBloscChunkFile } from './blosc-chunk-file';
 export { openRegularFile, specialFileKind } from './open-regular';
 export { inflateZarrChunk } from './zarr-inflate';
