@@ -1,7 +1,7 @@
 // One embryo end to end: project → detect → (hand axis) → sampler (prepare, sample) → fit, as an EmbryoResult that never throws.
 import { errorResult, withTimePoint, type EmbryoResult, type HandEdits, type PlaneSource, type StackInfo } from '../model';
 import type { AnalysisSettings } from '../settings';
-import { projectStack } from '../image';
+import { applyImageCorrections, projectStack, type ImageCorrections } from '../image';
 import { detectEmbryo, type EmbryoDetection } from '../geometry';
 import { fitSampledProfiles, prepareSampling, sampleProfiles } from '../profile';
 
@@ -15,6 +15,8 @@ export interface AnalyseOptions {
   readonly detection?: EmbryoDetection | null;
   /** Time of the analysed time point in s, when the caller knows it better than the file (--time-step); else the file's. */
   readonly timeS?: number | null;
+  /** Flat field and background image applied to the projection (see core/image/corrections.ts); absent = none. */
+  readonly corrections?: ImageCorrections | null;
 }
 
 /** Check that the stack has something to analyse (exact messages). */
@@ -40,7 +42,8 @@ async function analyseOneTimePoint(info: StackInfo, source: PlaneSource, setting
   const bad = checkInfo(info);
   if (bad) return errorResult(file, bad);
   try {
-    const projected = await projectStack(info, source, settings);
+    const raw = await projectStack(info, source, settings);
+    const projected = options.corrections ? applyImageCorrections(raw, options.corrections, settings.projection === 'sum' ? info.sizeZ : 1) : raw;
     const detection = options.detection ?? detectEmbryo(projected, settings);
     const hand = options.handEdits?.axis ?? null;
     const axis = hand ? { ...hand, source: 'hand' as const } : detection.axis;

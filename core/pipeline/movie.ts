@@ -2,7 +2,7 @@
 // then every chosen time point analysed as a single stack with its own background. Never throws for bad data.
 import { errorResult, withTimePoint, type ApAxis, type EmbryoResult, type HandEdits, type PlaneSource, type Plane, type ProjectedStack, type StackInfo } from '../model';
 import type { AnalysisSettings } from '../settings';
-import { projectStack } from '../image';
+import { applyImageCorrections, projectStack, type ImageCorrections } from '../image';
 import { detectEmbryo, type EmbryoDetection } from '../geometry';
 import { analyseStack } from './analyse';
 
@@ -19,6 +19,8 @@ export interface MovieOptions {
   readonly axisPerTime?: boolean;
   /** Time points averaged to find the axis once; default 8, spread evenly over the movie. */
   readonly axisSampleCount?: number;
+  /** Flat field and background image applied to every time point's projection. */
+  readonly corrections?: ImageCorrections | null;
 }
 
 /** The results per analysed time point (same order as timeIndices) and the movie's axis (null with axisPerTime). */
@@ -43,11 +45,12 @@ function addInto(sum: Float32Array, next: Float32Array): void {
  * The mean over sampled time points of the Z projections: the embryo as it sits through the movie, gradient formed
  * or not (a live embryo barely moves, and a frame before production shows no gradient to orient the axis by).
  */
-export async function projectOverTime(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, times: readonly number[]): Promise<ProjectedStack> {
+export async function projectOverTime(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, times: readonly number[], corrections: ImageCorrections | null = null): Promise<ProjectedStack> {
   let first: ProjectedStack | null = null;
   let sums: Float32Array[] = [];
   for (const t of times) {
-    const p = await projectStack(info, source, { ...settings, timeIndex: t });
+    const raw = await projectStack(info, source, { ...settings, timeIndex: t });
+    const p = corrections ? applyImageCorrections(raw, corrections, settings.projection === 'sum' ? info.sizeZ : 1) : raw;
     if (!first) { first = p; sums = p.channels.map((c) => Float32Array.from(c.data)); } else p.channels.forEach((c, i) => addInto(sums[i], c.data));
   }
   if (!first) throw new Error('no time points to project');
@@ -71,7 +74,7 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
   let detection: EmbryoDetection | null = null;
   if (!options.axisPerTime) {
     try {
-      const projected = await projectOverTime(info, source, settings, axisSampleTimes(info.sizeT, options.axisSampleCount ?? 8));
+      const projected = await projectOverTime(info, source, settings, axisSampleTimes(info.sizeT, options.axisSampleCount ?? 8), options.corrections ?? null);
       detection = detectEmbryo(projected, settings);
     } catch (e) {
       const r = errorResult(fileLabel, `embryo over time: ${e instanceof Error ? e.message : String(e)}`);
@@ -82,7 +85,7 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
   for (const t of timeIndices) {
     const at = options.editsAt?.(t);
     const settingsAtT = { ...(at ? at.settings : settings), timeIndex: t };
-    results.push(await analyseStack(info, source, settingsAtT, { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection }));
+    results.push(await analyseStack(info, source, settingsAtT, { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection, corrections: options.corrections ?? null }));
   }
   const hand = options.handEdits?.axis ?? null;
   return { timeIndices, results, movieAxis: hand ? { ...hand, source: 'hand' } : detection?.axis ?? null };

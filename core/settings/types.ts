@@ -41,6 +41,11 @@ export interface AnalysisSettings {
   readonly sliceIndex: number | null;
   readonly profile: ProfileSettings;
   readonly background: BackgroundSettings;
+  /** Flat-field image (path; relative paths from the current folder on the command line, from the project's folder in
+   *  the window): one plane per channel, normalised to mean 1, dividing every plane. null = none. */
+  readonly flatFieldFile: string | null;
+  /** Background image (path, as flatFieldFile): one plane per channel subtracted from every plane. null = none. */
+  readonly backgroundImageFile: string | null;
   /** x/EL range of the exponential fit, [start, end]. */
   readonly fitRangeEl: readonly [number, number];
   /** 'auto' = anterior is the high end of the gradient channel; 'high'/'low' force it. */
