@@ -17,5 +17,6 @@ export const DEFAULT_SETTINGS: AnalysisSettings = Object.freeze({
   boundaryMethods: ['logistic', 'half-max'],
   boundaryThresholdFraction: 0.5,
   boundarySearchEl: [0, 1] as const,
+  boundaryWindows: [],
   timeIndex: 0,
 }) as AnalysisSettings;

@@ -1,8 +1,8 @@
 // Public surface of core/settings: the analysis settings, their defaults, the one table that describes and checks
 // them (schema.ts), merging of layers (defaults < project < config < flags) and the settings in force for a file.
-export type { AnalysisSettings, ProfileSettings, BackgroundSettings, ChannelRef, EdgeSide } from './types';
+export type { AnalysisSettings, ProfileSettings, BackgroundSettings, ChannelRef, ChannelWindow, EdgeSide } from './types';
 export { DEFAULT_SETTINGS } from './defaults';
-export { SETTINGS, settingSpec, flagKey, numberFromText, type SettingSpec, type SettingKind } from './schema';
+export { SETTINGS, settingSpec, flagKey, numberFromText, channelWindowFromText, type SettingSpec, type SettingKind } from './schema';
 export {
   settingValue, overrideOf, settingProblem, fieldProblem, settingsProblem, applyOverrides, mergeSettings, checkCombination, combinationProblem,
   settingsFromFlags, overridesFromJson, settingsFromStored, settingsInForce, type SettingsOverrides, type SettingsFlags,

@@ -6,7 +6,7 @@ import type { BoundaryMethod } from '../model';
 import type { ChannelRef } from './types';
 
 /** What kind of value a setting holds (decides how a flag's text is read and which field the window shows). */
-export type SettingKind = 'number' | 'integer' | 'choice' | 'channel' | 'channels' | 'range' | 'methods' | 'region' | 'file';
+export type SettingKind = 'number' | 'integer' | 'choice' | 'channel' | 'channels' | 'range' | 'methods' | 'region' | 'file' | 'channel-windows';
 
 /** One row of the table. `key` is the path in AnalysisSettings ('profile.edgeDepthUm'). */
 export interface SettingSpec {
@@ -97,6 +97,19 @@ const isRange = (v: unknown): boolean => Array.isArray(v) && v.length === 2 && v
 const isRegion = (v: unknown): boolean => v === null || (typeof v === 'object' && !Array.isArray(v)
   && ['x', 'y', 'width', 'height'].every((k) => isCount((v as Record<string, unknown>)[k]))
   && (v as { width: number }).width > 0 && (v as { height: number }).height > 0);
+
+const isChannelWindow = (v: unknown): boolean => typeof v === 'object' && v !== null && !Array.isArray(v)
+  && isChannel((v as Record<string, unknown>).channel) && isRange((v as Record<string, unknown>).rangeEl);
+
+/** "CH=A,B" → { channel, rangeEl: [A, B] } (CH a 1-based number or a channel name; the last "=" splits), or undefined. */
+export function channelWindowFromText(text: string): { channel: ChannelRef; rangeEl: [number, number] } | undefined {
+  const at = text.lastIndexOf('=');
+  if (at <= 0) return undefined;
+  const channel = channelFromText(text.slice(0, at));
+  const range = text.slice(at + 1).split(',').map(numberFromText);
+  if (channel === undefined || range.length !== 2 || !isRange(range)) return undefined;
+  return { channel, rangeEl: [range[0] as number, range[1] as number] };
+}
 
 /** Every analysis setting, in the order the help and the window show them. */
 export const SETTINGS: readonly SettingSpec[] = [
@@ -199,6 +212,12 @@ export const SETTINGS: readonly SettingSpec[] = [
       const parts = text.split(',').map(numberFromText);
       return parts.length === 2 && isRange(parts) ? parts : undefined;
     },
+  },
+  {
+    key: 'boundaryWindows', kind: 'channel-windows', unit: 'x/EL', label: 'search window per channel', flag: '--channel-window', flagValue: 'CH=A,B',
+    help: 'x/EL range searched for boundaries in one channel (1-based or name), overriding --boundary-window for it; repeat for more',
+    rule: 'a list of { channel, rangeEl: [a, b] } with 0 ≤ a < b ≤ 1', flagRule: 'CH=a,b with CH a channel number or name and 0 ≤ a < b ≤ 1',
+    repeatable: true, isValid: (v) => Array.isArray(v) && v.every(isChannelWindow), fromText: channelWindowFromText,
   },
 ];
 

@@ -7,5 +7,5 @@ export const PANEL_SETTING_KEYS: readonly string[] = [
   'projection', 'sliceIndex', 'timeIndex', // ProjectionSettings
   'profile.mode', ...new Set(PROFILE_SAMPLERS.flatMap((s) => s.settingKeys)), 'profile.binCount', // ProfileSettings (each sampler's own)
   'background.mode', 'background.regionPx', 'backgroundImageFile', 'flatFieldFile', // BackgroundSettings
-  'fitRangeEl', 'boundarySearchEl', 'boundaryMethods', 'boundaryThresholdFraction', // FitSettings
+  'fitRangeEl', 'boundarySearchEl', 'boundaryWindows', 'boundaryMethods', 'boundaryThresholdFraction', // FitSettings
 ];
