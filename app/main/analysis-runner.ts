@@ -2,27 +2,30 @@
 // never blocks on decoding or segmentation.
 import { Worker } from 'node:worker_threads';
 import type { AnalysisSettings } from '../../core/settings';
-import type { ApiErrorCode } from '../../core/contract';
+import type { ApiErrorCode, StackPreview } from '../../core/contract';
 import type { SliceData, ViewData } from './engine';
 import { ApiFailure } from './result';
 
 /** A request to the analysis worker: a whole view (project + detect) or one raw slice. */
 export type AnalysisRequest =
   | { readonly id: number; readonly kind: 'view'; readonly path: string; readonly label: string; readonly settings: AnalysisSettings }
-  | { readonly id: number; readonly kind: 'slice'; readonly path: string; readonly label: string; readonly z: number; readonly c: number; readonly t: number };
+  | { readonly id: number; readonly kind: 'slice'; readonly path: string; readonly label: string; readonly z: number; readonly c: number; readonly t: number }
+  | { readonly id: number; readonly kind: 'preview'; readonly path: string; readonly label: string };
 
 /** Requests without their id (the runner numbers them). */
 type RequestBody = AnalysisRequest extends infer R ? R extends AnalysisRequest ? Omit<R, 'id'> : never : never;
 
 /** The worker's answer: the value or the error's name, code and message. */
 export type AnalysisReply =
-  | { readonly id: number; readonly ok: true; readonly value: ViewData | SliceData }
+  | { readonly id: number; readonly ok: true; readonly value: ViewData | SliceData | StackPreview }
   | { readonly id: number; readonly ok: false; readonly error: { readonly name: string; readonly code: string | null; readonly message: string } };
 
 /** A worker-backed runner: `run` fits HandlerDeps.runAnalysisOffThread, `readSlice` HandlerDeps.readSliceOffThread. */
 export interface AnalysisRunner {
   run(path: string, label: string, settings: AnalysisSettings): Promise<ViewData>;
   readSlice(path: string, label: string, z: number, c: number, t: number): Promise<SliceData>;
+  /** The preview slice (HandlerDeps.readPreviewOffThread). */
+  readPreview(path: string, label: string): Promise<StackPreview>;
   /** Stop the worker (pending calls are rejected). */
   close(): Promise<void>;
 }
@@ -79,6 +82,7 @@ export function createAnalysisRunner(workerPath: string, timeoutMs = 180_000): A
   return {
     run: (path, label, settings) => call<ViewData>({ kind: 'view', path, label, settings }),
     readSlice: (path, label, z, c, t) => call<SliceData>({ kind: 'slice', path, label, z, c, t }),
+    readPreview: (path, label) => call<StackPreview>({ kind: 'preview', path, label }),
     close: async () => { failAll((label) => `${label}: cancelled`, null); await stop(); },
   };
 }

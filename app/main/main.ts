@@ -71,6 +71,7 @@ async function onReady(e: ElectronModule, state: { window: electron.BrowserWindo
     emitBatchProgress: (p) => send(API_EVENT_CHANNELS.batchProgress, p),
     runAnalysisOffThread: runner.run,
     readSliceOffThread: runner.readSlice,
+    readPreviewOffThread: runner.readPreview,
     onRecentChanged: setMenu,
     // Reports open in the system's browser, never in the app window; the handler checks the path first.
     openPath: (path) => e.shell.openPath(path),

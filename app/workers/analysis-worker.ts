@@ -1,6 +1,7 @@
 // Worker thread for the desktop app: projects and detects one stack, or decodes one slice, per request.
 import { parentPort } from 'node:worker_threads';
 import type { AnalysisReply, AnalysisRequest } from '../main/analysis-runner';
+import { readPreviewPlane } from '../decode';
 import { createDefaultEngine } from '../main/default-engine';
 import type { SliceData, ViewData } from '../main/engine';
 
@@ -22,7 +23,9 @@ async function answer(request: AnalysisRequest): Promise<AnalysisReply> {
   try {
     const value = request.kind === 'slice'
       ? await engine.readSlice(request.path, request.label, request.z, request.c, request.t)
-      : await engine.loadForView(request.path, request.label, request.settings);
+      : request.kind === 'preview'
+        ? await readPreviewPlane(request.path, request.label)
+        : await engine.loadForView(request.path, request.label, request.settings);
     return { id: request.id, ok: true, value };
   } catch (e) {
     const err: Error & { code?: unknown } = e instanceof Error ? e : new Error(String(e));
