@@ -12,7 +12,7 @@ import { CohortView } from './components/CohortView';
 import { FitNumbers } from './components/FitNumbers';
 import { FolderList } from './components/FolderList';
 import { EmbryoView } from './components/EmbryoView';
-import { ALL_OVERLAYS } from './components/ImageOverlay';
+import { ALL_OVERLAYS } from './overlay/ImageOverlay';
 import { LandmarkList } from './components/LandmarkList';
 import { SettingsPanel } from './components/SettingsPanel';
 import { Toolbar, type Tab } from './components/Toolbar';

@@ -5,7 +5,7 @@ import { boundariesCsv, embryosCsv, landmarksCsv, profilesCsv } from '../../core
 import { profileFigure } from '../../core/figures';
 import type { ApAxis, ImagePoint, Plane } from '../../core/model';
 import { straightViewHalfWidthPx } from '../../core/profile';
-import { ImageOverlay } from '../components/ImageOverlay';
+import { ImageOverlay } from '../overlay/ImageOverlay';
 import { annotatedSvg } from '../export/annotatedSvg';
 import { chooseScaleBar } from '../geometry';
 import { fileStem, liveToResult } from '../export/liveResult';
