@@ -1,5 +1,5 @@
 // One embryo end to end: project → detect → (hand axis) → prepare → measure, as an EmbryoResult that never throws.
-import { errorResult, type EmbryoResult, type HandEdits, type PlaneSource, type StackInfo } from '../model';
+import { errorResult, type EmbryoResult, type HandEdits, type PlaneSource, type ProjectedStack, type StackInfo } from '../model';
 import type { AnalysisSettings } from '../settings';
 import { projectStack } from '../image';
 import { detectEmbryo, type EmbryoDetection } from '../geometry';
@@ -13,6 +13,8 @@ export interface AnalyseOptions {
   readonly handEdits?: HandEdits | null;
   /** The embryo (mask and axis) found beforehand, used instead of segmenting this stack: a movie's, found once. */
   readonly detection?: EmbryoDetection | null;
+  /** Told the Z projection once it is made (the window keeps a small copy of each time point of a movie). */
+  readonly onProjected?: (projected: ProjectedStack) => void;
 }
 
 /** Check that the stack has something to analyse (exact messages). */
@@ -33,6 +35,7 @@ export async function analyseStack(info: StackInfo, source: PlaneSource, setting
   if (bad) return errorResult(file, bad);
   try {
     const projected = await projectStack(info, source, settings);
+    options.onProjected?.(projected);
     const detection = options.detection ?? detectEmbryo(projected, settings);
     const hand = options.handEdits?.axis ?? null;
     const axis = hand ? { ...hand, source: 'hand' as const } : detection.axis;
