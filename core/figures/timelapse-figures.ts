@@ -5,7 +5,7 @@ import { clipSvg, plotArea, titleSvg, xAxisSvg, yAxisSvg } from './axes';
 import { figureSize, finiteExtent, stableId, type FigureOptions } from './common';
 import { legendSvg, type LegendItem } from './legend';
 import { whiskerPath } from './lambda-figure';
-import { BOUNDARY_COLOURS, INK, PROFILE_COLOURS } from './palette';
+import { BOUNDARY_COLOURS, INK, PROFILE_COLOURS, TIME_MARKER_COLOUR } from './palette';
 import { el, lineSvg, px, svgDocument, textSvg } from './svg';
 
 /** Minutes when a movie spans 10 min or more, else seconds: the unit and the divisor from seconds. */
@@ -22,7 +22,7 @@ export interface LambdaPoint {
 }
 
 /** SVG: λ (EL) per time point with its confidence interval, and the steady-state λ as a dashed line when given. */
-export function lambdaOverTimeFigure(points: readonly LambdaPoint[], options: FigureOptions & { steadyLambdaEl?: number } = {}): string {
+export function lambdaOverTimeFigure(points: readonly LambdaPoint[], options: FigureOptions & { steadyLambdaEl?: number; markTimeS?: number } = {}): string {
   const { widthPx, heightPx, title, subtitle } = figureSize(options, 'Decay length over time', 'dots: λ per time point; whiskers: 95% CI of the fit');
   const a = plotArea(widthPx, heightPx, { top: 52, right: 20, bottom: 52, left: 68 });
   const span = Math.max(0, ...points.map((p) => p.tS).filter(Number.isFinite));
@@ -42,9 +42,18 @@ export function lambdaOverTimeFigure(points: readonly LambdaPoint[], options: Fi
   const steadyLine = steady !== undefined && Number.isFinite(steady)
     ? lineSvg(a.left, y(steady), a.left + a.width, y(steady), { class: 'steady-lambda', stroke: PROFILE_COLOURS.fit, 'stroke-width': 2, 'stroke-dasharray': '6 4' }) : '';
   const legend = steadyLine ? legendSvg([{ label: 'λ per time point', colour: PROFILE_COLOURS.data, shape: 'dot' }, { label: 'steady-state λ', colour: PROFILE_COLOURS.fit, shape: 'dash' }], a.left + a.width - 6, a.top + 6) : '';
+  const mark = timeMarkerSvg(options.markTimeS, (tS) => x(tS * perS), a, 'vertical');
   const body = titleSvg(a, title, subtitle) + yAxisSvg(y, a, 'decay length λ (EL)') + xAxisSvg(x, a, `time (${unit})`)
-    + clip.def + clip.wrap(steadyLine + marks) + legend;
+    + clip.def + clip.wrap(steadyLine + mark + marks) + legend;
   return svgDocument(widthPx, heightPx, title, body);
+}
+
+/** The shown time point as a line across the plot (a window's slider position); '' when not given. */
+function timeMarkerSvg(tS: number | undefined, at: (tS: number) => number, a: { left: number; top: number; width: number; height: number }, dir: 'vertical' | 'horizontal'): string {
+  if (tS === undefined || !Number.isFinite(tS)) return '';
+  const p = at(tS);
+  const style = { class: 'time-marker', stroke: TIME_MARKER_COLOUR, 'stroke-width': 2 };
+  return dir === 'vertical' ? lineSvg(p, a.top, p, a.top + a.height, style) : lineSvg(a.left, p, a.left + a.width, p, style);
 }
 
 /** A kymograph's data: values[t][i] at xEl[i] and timesS[t]; optional boundary and landmark tracks (x/EL per t). */
@@ -62,7 +71,7 @@ function ramp(lo: number, hi: number): (v: number) => string {
 }
 
 /** SVG: the profile at every time point as a heat map, x/EL across and time down, with boundary and landmark tracks. */
-export function kymographFigure(input: KymographInput, options: FigureOptions = {}): string {
+export function kymographFigure(input: KymographInput, options: FigureOptions & { markTimeS?: number } = {}): string {
   const { widthPx, heightPx, title, subtitle } = figureSize(options, 'Kymograph', 'gradient signal after background subtraction; darker = higher');
   const a = plotArea(widthPx, heightPx, { top: 52, right: 20, bottom: 52, left: 68 });
   const n = input.timesS.length;
@@ -91,7 +100,8 @@ export function kymographFigure(input: KymographInput, options: FigureOptions = 
   }));
   const yAxis = yAxisSvg(y, a, `time (${unit}), down`);
   const clip = clipSvg(a, stableId('ky', `${title}${n}`));
-  const body = titleSvg(a, title, subtitle) + clip.def + clip.wrap(el('g', { class: 'kymograph-cells' }, cells || ' ') + tracks)
+  const mark = timeMarkerSvg(options.markTimeS, (tS) => y(tS * perS), a, 'horizontal');
+  const body = titleSvg(a, title, subtitle) + clip.def + clip.wrap(el('g', { class: 'kymograph-cells' }, cells || ' ') + tracks + mark)
     + yAxis + xAxisSvg(x, a, 'x/EL (0 = anterior pole)') + legendSvg(items, a.left + a.width - 6, a.top + 6);
   return svgDocument(widthPx, heightPx, title, body);
 }
