@@ -29,7 +29,7 @@ import { bandOutlinesLive, measureLive, prepareLive } from './live';
 import type { ImagePoint } from '../core/model';
 import type { FolderEntry } from '../core/contract';
 import { fileStatus } from './state/fileStatus';
-import { currentEdits, editorReducer, effectiveAxis, effectiveFitRange, initialState } from './state';
+import { currentEdits, editorReducer, effectiveAxis, effectiveFitRange, fileResult, initialState } from './state';
 import { autoDisplayRange, CHANNEL_COLOURS } from './view';
 
 export type { Tab } from './components/Toolbar';
@@ -57,7 +57,7 @@ export function App() {
   const { loading, error: loadError } = load;
   const [saveStatus, saveNow] = useAutosave(api, session.projectPath, session.folder, state.doc, state.revision, session.batchOutDir);
   flushSave.current = () => (saveStatus.kind === 'pending' ? saveNow() : Promise.resolve());
-  const { batch, chooseOutput, run, cancel, restore } = useBatch(api);
+  const { batch, results, chooseOutput, run, cancel, restore } = useBatch(api);
   // The project's last batch comes back with the project (results.json in the output folder it records).
   useEffect(() => { void restore(session.batchOutDir, session.folder); }, [session.projectPath, session.folder]);
   // A finished batch's output folder is written into the project at once, so its results reopen after a restart.
@@ -76,7 +76,8 @@ export function App() {
     if (loadError) setLoadErrors((m) => ({ ...m, [name]: loadError }));
     else if (stack !== null && loadErrors[name] !== undefined) setLoadErrors((m) => { const { [name]: _gone, ...rest } = m; return rest; });
   }, [loadError, loading, stack, state.current]);
-  const resultFor = (name: string | null) => (name === null ? undefined : batch.summary?.results.find((r) => r.file === name));
+  // A file's result at the shown time point (t = 0 unless a movie's time point is chosen); a file with one time point has only t = 0.
+  const resultFor = (name: string | null) => (name === null ? undefined : fileResult(results, name, name === state.current ? state.shownTimeIndex : 0));
   const statusOf = (e: FolderEntry) => fileStatus(e, state.doc.files[e.name], resultFor(e.name), loadErrors[e.name] ?? null);
   const openReport = async (path: string) => {
     if (api === null) return;

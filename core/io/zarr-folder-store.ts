@@ -20,7 +20,7 @@ function isMissing(err: unknown): boolean {
   return code === 'ENOENT' || code === 'ENOTDIR' || code === 'EISDIR';
 }
 
-/** Reads a whole file, refusing one larger than MAX_FILE_BYTES before reading it. */
+/** Reads a whole file in one read, refusing one larger than MAX_FILE_BYTES before reading it. */
 async function readWhole(path: string, key: string): Promise<Uint8Array | undefined> {
   let handle;
   try {
@@ -29,8 +29,15 @@ async function readWhole(path: string, key: string): Promise<Uint8Array | undefi
     const stats = opened.stats;
     if (stats.isDirectory()) return undefined;
     if (stats.size > MAX_FILE_BYTES) throw new Error(`${key.slice(1)} is ${stats.size} bytes, larger than any chunk Eggline reads`);
-    const bytes = await handle.readFile();
-    return new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+    // One read of the size fstat gave (readFile would stat again and read in pieces); loop only if it comes short.
+    const out = new Uint8Array(stats.size);
+    let filled = 0;
+    while (filled < out.length) {
+      const { bytesRead } = await handle.read(out, filled, out.length - filled, filled);
+      if (bytesRead === 0) break;
+      filled += bytesRead;
+    }
+    return filled === out.length ? out : out.subarray(0, filled);
   } catch (err) {
     if (isMissing(err)) return undefined;
     throw err;

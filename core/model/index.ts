@@ -203,10 +203,14 @@ export interface HandEdits {
   readonly landmarks: readonly Landmark[];
 }
 
-/** Everything measured for one embryo (one file). */
+/** Everything measured for one embryo at one time point; (file, tIndex) is its key (see resultKey). */
 export interface EmbryoResult {
   /** Path relative to the input folder (or the file name). */
   readonly file: string;
+  /** Time point analysed (0-based); absent means 0, as for a file with one time point. */
+  readonly tIndex?: number;
+  /** Time of that time point in seconds from the movie's first, when the file (or --time-step) says; absent or null: unknown. */
+  readonly tS?: number | null;
   readonly status: 'ok' | 'error';
   readonly error: string | null;
   readonly warnings: readonly string[];
@@ -257,4 +261,5 @@ export interface Detection {
 }
 
 export { errorResult, oneLine } from './error-result';
+export { resultKey, resultKeyOf, resultTimeIndex, parseResultKey, withTimePoint, type ResultKey } from './result-key';
 export type * from './cohort';

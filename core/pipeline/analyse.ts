@@ -1,5 +1,5 @@
 // One embryo end to end: project → detect → (hand axis) → prepare → measure, as an EmbryoResult that never throws.
-import { errorResult, type EmbryoResult, type HandEdits, type PlaneSource, type ProjectedStack, type StackInfo } from '../model';
+import { errorResult, withTimePoint, type EmbryoResult, type HandEdits, type PlaneSource, type ProjectedStack, type StackInfo } from '../model';
 import type { AnalysisSettings } from '../settings';
 import { projectStack } from '../image';
 import { detectEmbryo, type EmbryoDetection } from '../geometry';
@@ -15,6 +15,8 @@ export interface AnalyseOptions {
   readonly detection?: EmbryoDetection | null;
   /** Told the Z projection once it is made (the window keeps a small copy of each time point of a movie). */
   readonly onProjected?: (projected: ProjectedStack) => void;
+  /** Time of the analysed time point in s, when the caller knows it better than the file (--time-step); else the file's. */
+  readonly timeS?: number | null;
 }
 
 /** Check that the stack has something to analyse (exact messages). */
@@ -25,11 +27,17 @@ function checkInfo(info: StackInfo): string | null {
 }
 
 /**
- * Analyse one stack with the given settings. Pixel size: the file's, else settings.pixelSizeUm ('user'), else
+ * Analyse one stack at time point settings.timeIndex; the result carries that time point (tIndex) and its time (tS).
+ * Pixel size: the file's, else settings.pixelSizeUm ('user'), else
  * unknown (lengths in px, µm values null, with a warning). Bad data gives status 'error' with a one-line message
  * naming the file; this function does not throw for bad data.
  */
 export async function analyseStack(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, options: AnalyseOptions): Promise<EmbryoResult> {
+  const t = settings.timeIndex;
+  return withTimePoint(await analyseOneTimePoint(info, source, settings, options), t, options.timeS ?? info.time?.timesS?.[t] ?? null);
+}
+
+async function analyseOneTimePoint(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, options: AnalyseOptions): Promise<EmbryoResult> {
   const file = options.fileLabel;
   const bad = checkInfo(info);
   if (bad) return errorResult(file, bad);

@@ -20,6 +20,10 @@ describe('analyseMovie (demo data: a small synthetic movie)', () => {
   it('finds one axis for the movie and labels it automatic at every time point; a hand axis applies to all', async () => {
     const m = await analyseMovie(info, syntheticMoviePlaneSource(movie), DEFAULT_SETTINGS, { fileLabel: 'm.ome.tif', timeIndices: [0, 3, 5] });
     expect(m.results.map((r) => r.status)).toEqual(['ok', 'ok', 'ok']);
+    // Each result is keyed by its time point; this synthetic StackInfo states no times, so tS is unknown (null).
+    expect(m.results.map((r) => [r.tIndex, r.tS])).toEqual([[0, null], [3, null], [5, null]]);
+    const timed = await analyseMovie({ ...info, time: { timesS: movie.timesS, source: 'user' } }, syntheticMoviePlaneSource(movie), DEFAULT_SETTINGS, { fileLabel: 'm.ome.tif', timeIndices: [3, 5] });
+    expect(timed.results.map((r) => [r.tIndex, r.tS])).toEqual([[3, 900], [5, 1500]]);
     expect(m.results.every((r) => r.axis!.source === 'auto' && r.axis!.anterior.x === m.movieAxis!.anterior.x)).toBe(true);
     const hand = { anterior: { x: 20, y: 70 }, posterior: { x: 180, y: 70 }, source: 'hand' as const };
     const h = await analyseMovie(info, syntheticMoviePlaneSource(movie), DEFAULT_SETTINGS, { fileLabel: 'm.ome.tif', timeIndices: [1, 2], handEdits: { axis: hand, landmarks: [] } });
@@ -33,6 +37,7 @@ describe('analyseMovie (demo data: a small synthetic movie)', () => {
   it('gives every requested time point an error naming the file when a time point is outside the movie', async () => {
     const m = await analyseMovie(info, syntheticMoviePlaneSource(movie), DEFAULT_SETTINGS, { fileLabel: 'm.ome.tif', timeIndices: [2, 9] });
     expect(m.results.map((r) => r.status)).toEqual(['error', 'error']);
+    expect(m.results.map((r) => r.tIndex)).toEqual([2, 9]);
     expect(m.results[0].error).toMatch(/^m\.ome\.tif: time point 9 is outside the movie \(T = 6\)/);
   });
 

@@ -1,6 +1,6 @@
 // One movie end to end: the embryo's axis found once (on the mean over a sample of time points) or per time point,
 // then every chosen time point analysed as a single stack with its own background. Never throws for bad data.
-import { errorResult, type ApAxis, type EmbryoResult, type HandEdits, type PlaneSource, type Plane, type ProjectedStack, type StackInfo } from '../model';
+import { errorResult, withTimePoint, type ApAxis, type EmbryoResult, type HandEdits, type PlaneSource, type Plane, type ProjectedStack, type StackInfo } from '../model';
 import type { AnalysisSettings } from '../settings';
 import { projectStack } from '../image';
 import { detectEmbryo, type EmbryoDetection } from '../geometry';
@@ -75,7 +75,7 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
   const bad = timeIndices.find((t) => !(Number.isInteger(t) && t >= 0 && t < info.sizeT));
   if (bad !== undefined) {
     const r = errorResult(fileLabel, `time point ${bad} is outside the movie (T = ${info.sizeT})`);
-    return { timeIndices, results: timeIndices.map(() => r), movieAxis: null };
+    return { timeIndices, results: timeIndices.map((t) => withTimePoint(r, t, info.time?.timesS?.[t] ?? null)), movieAxis: null };
   }
   let detection: EmbryoDetection | null = null;
   if (options.signal?.aborted) throw cancelled(fileLabel);
@@ -85,7 +85,7 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
       detection = detectEmbryo(projected, settings);
     } catch (e) {
       const r = errorResult(fileLabel, `embryo over time: ${e instanceof Error ? e.message : String(e)}`);
-      return { timeIndices, results: timeIndices.map(() => r), movieAxis: null };
+      return { timeIndices, results: timeIndices.map((t) => withTimePoint(r, t, info.time?.timesS?.[t] ?? null)), movieAxis: null };
     }
   }
   const results: EmbryoResult[] = [];

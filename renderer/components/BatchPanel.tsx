@@ -1,5 +1,6 @@
 // Batch: choose an output folder, run over the open folder with the current settings and hand edits, follow progress.
 import type { BatchState } from '../hooks/useBatch';
+import { resultKeyOf } from '../../core/model';
 import { fixed, fmt } from '../ui/format';
 
 /** Props of the batch panel. */
@@ -50,7 +51,7 @@ export function BatchPanel({ batch, folder, fileCount, onChooseOutput, onRun, on
           <div className="table-scroll">
           <table className="results" data-testid="batch-results"><thead><tr><th>file</th><th>status</th><th>λ µm</th><th>± SE</th><th>λ/EL</th><th>R²</th><th>EL µm</th><th>boundaries (x/EL)</th><th>warnings or error</th></tr></thead>
             <tbody>{batch.summary.results.map((r) => (
-              <tr key={r.file} className={`clickable${r.status === 'error' ? ' row-error' : ''}${r.file === current ? ' current' : ''}`} tabIndex={0}
+              <tr key={resultKeyOf(r)} className={`clickable${r.status === 'error' ? ' row-error' : ''}${r.file === current ? ' current' : ''}`} tabIndex={0}
                 data-testid="batch-row" data-file={r.file} aria-label={`show ${r.file}`}
                 onClick={() => onOpenFile(r.file)} onKeyDown={(e) => { if (e.key === 'Enter' || e.key === ' ') { e.preventDefault(); onOpenFile(r.file); } }}>
                 <td>{r.file}</td><td>{r.status}</td><td>{fmt(r.gradientFit?.lambdaUm)}</td><td>{fmt(r.gradientFit?.lambdaSeUm, 2)}</td>

@@ -1,6 +1,7 @@
 // Runs a batch through the API and follows its progress events.
-import { useEffect, useState } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 import type { BatchProgress, BatchSummary, EgglineApi, ProjectDoc } from '../../core/contract';
+import { indexResults, NO_RESULTS, type ResultIndex } from '../state';
 
 /** One file's line in the batch panel. */
 export interface BatchFileLine { readonly file: string; readonly status: BatchProgress['status']; readonly message: string | null }
@@ -25,7 +26,7 @@ export function applyProgress(s: BatchState, p: BatchProgress): BatchState {
   return { ...s, runId: p.runId, done: p.done, total: p.total, files };
 }
 
-/** Batch state plus commands: choose output, run, cancel. */
+/** Batch state, its results keyed by (file, time point), plus commands: choose output, run, cancel. */
 export function useBatch(api: EgglineApi | null) {
   const [state, setState] = useState<BatchState>(START);
   useEffect(() => (api === null ? undefined : api.onBatchProgress((p) => setState((s) => applyProgress(s, p)))), [api]);
@@ -55,5 +56,6 @@ export function useBatch(api: EgglineApi | null) {
   const cancel = async () => {
     if (api !== null && state.runId !== null) await api.cancelBatch(state.runId);
   };
-  return { batch: state, chooseOutput, run, cancel, restore };
+  const results: ResultIndex = useMemo(() => (state.summary === null ? NO_RESULTS : indexResults(state.summary.results)), [state.summary]);
+  return { batch: state, results, chooseOutput, run, cancel, restore };
 }

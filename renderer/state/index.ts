@@ -6,3 +6,4 @@ export { initialState } from './initial';
 export { currentEdits, effectiveAxis, effectiveFitRange, EMPTY_EDITS } from './fileEdits';
 export { nextLandmarkName } from './landmarkActions';
 export { normaliseFitRange, MIN_FIT_WIDTH_EL } from './settingsActions';
+export { indexResults, resultAt, timePointsOf, fileResult, NO_RESULTS, type ResultIndex } from './results';

@@ -7,6 +7,7 @@ export function initialState(): EditorState {
   return {
     doc: { settings: DEFAULT_SETTINGS, files: {} },
     current: null,
+    shownTimeIndex: 0,
     autoAxis: null,
     display: { mode: 'merged', active: 0, channels: [] },
     view: { zoom: 1, offsetX: 0, offsetY: 0 },

@@ -5,7 +5,7 @@ import { setFitRange, setSetting } from './settingsActions';
 import { entriesForChange, entryApplies, restoreEntry, sameScope, snapshotLike } from './history';
 import type { ActionOutcome, EditorAction, EditorState } from './types';
 import {
-  initChannelDisplay, openDoc, selectFile, selectLandmark, setChannelDisplay, setDisplayMode, setTool, setView,
+  initChannelDisplay, openDoc, selectFile, selectLandmark, setChannelDisplay, setDisplayMode, setTool, setView, showTimePoint,
 } from './viewActions';
 
 /** Most undo steps kept (older ones are dropped). */
@@ -16,6 +16,7 @@ export function perform(state: EditorState, action: EditorAction): ActionOutcome
   switch (action.type) {
     case 'openDoc': return openDoc(state, action.doc);
     case 'selectFile': return selectFile(state, action.key, action.autoAxis);
+    case 'showTimePoint': return showTimePoint(state, action.tIndex);
     case 'setAxisHandle': return setAxisHandle(state, action.end, action.point, action.coalesce);
     case 'swapPoles': return swapPoles(state);
     case 'resetAxis': return resetAxis(state);

@@ -37,6 +37,9 @@ export interface EditorState {
   readonly doc: DocState;
   /** Key of the shown file in doc.files (its path relative to the folder). */
   readonly current: string | null;
+  /** Time point of the shown file whose result is shown (0-based; 0 for a file with one time point). Back to 0 when
+   *  another file is shown. */
+  readonly shownTimeIndex: number;
   /** The automatically found axis of the shown file (used when there is no hand axis). */
   readonly autoAxis: ApAxis | null;
   readonly display: DisplayState;
@@ -58,6 +61,7 @@ export type AxisEnd = 'anterior' | 'posterior';
 export type EditorAction =
   | { type: 'openDoc'; doc: DocState }
   | { type: 'selectFile'; key: string; autoAxis: ApAxis | null }
+  | { type: 'showTimePoint'; tIndex: number }
   | { type: 'setAxisHandle'; end: AxisEnd; point: ImagePoint; coalesce?: boolean }
   | { type: 'swapPoles' }
   | { type: 'resetAxis' }

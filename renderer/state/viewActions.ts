@@ -39,7 +39,14 @@ export const selectLandmark = (state: EditorState, index: number | null): Action
 
 /** Show another file: its automatic axis comes from the loaded stack; history is kept (undo then reaches only this file's edits and the settings). */
 export function selectFile(state: EditorState, key: string, autoAxis: ApAxis | null): ActionOutcome {
-  return shown({ ...state, current: key, autoAxis, selectedLandmark: null });
+  const shownTimeIndex = key === state.current ? state.shownTimeIndex : 0;
+  return shown({ ...state, current: key, shownTimeIndex, autoAxis, selectedLandmark: null });
+}
+
+/** Show another time point of the shown file (a whole number ≥ 0; anything else leaves the state as it is). */
+export function showTimePoint(state: EditorState, tIndex: number): ActionOutcome {
+  if (!(Number.isInteger(tIndex) && tIndex >= 0) || tIndex === state.shownTimeIndex) return shown(state);
+  return shown({ ...state, shownTimeIndex: tIndex });
 }
 
 /** Start from a document read from disk: empties undo history. */
