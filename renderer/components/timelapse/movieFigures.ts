@@ -73,5 +73,5 @@ export function lambdaAt(view: MovieView, k: number, box: FigureBox): string {
 
 /** τ(x) with intervals, the fitted line and the model line; null when τ could not be computed (view.note says why). */
 export function tauFigure(view: MovieView, box: FigureBox): string | null {
-  return view.accumulation ? accumulationFigure(view.accumulation, sized(box)) : null;
+  return view.accumulation ? accumulationFigure(view.accumulation, { ...sized(box), subtitle: 'dots: τ with 95% CI; lines as in the key' }) : null;
 }
