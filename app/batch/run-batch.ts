@@ -188,7 +188,7 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   const workerPath = opts.workerPath ?? defaultWorkerPath();
   if (opts.jobs > 0 && !existsSync(workerPath)) throw new Error(`the batch worker ${workerPath} is missing; build it with "npm run build"`);
   const tasks: BatchTask[] = files.map((f, index) => {
-    const edits = editsForFile(opts.doc, f.file, f.path);
+    const edits = editsForFile(opts.doc, f.file, f.path, opts.settings.timeIndex);
     const task = { index, path: f.path, file: f.file, settings: settingsInForce(opts.settings, edits), handEdits: toHandEdits(edits) };
     return opts.maxMemoryBytes === undefined ? task : { ...task, maxMemoryBytes: opts.maxMemoryBytes };
   });

@@ -2,13 +2,13 @@
 // movie, or per time point), summarised (λ(t), τ(x), the model fit) and written as tables, SVG figures and a page.
 import { promises as fs } from 'node:fs';
 import { join } from 'node:path';
-import { embryoRow, EMBRYO_COLUMNS, summaryBoundary } from '../../core/batch';
+import { editsForFile, embryoMeasureRow, EMBRYO_MEASURE_COLUMNS, summaryBoundary } from '../../core/batch';
 import { toCsv, type CsvValue } from '../../core/csv';
 import type { ProjectDoc } from '../../core/contract';
 import { accumulationFigure, figureSlug, kymographFigure, lambdaOverTimeFigure, type AccumulationFigureInput, type KymographInput, type LambdaPoint } from '../../core/figures';
 import type { EmbryoResult, HandEdits, PlaneSource, ProjectedStack, StackInfo } from '../../core/model';
 import { analyseMovie } from '../../core/pipeline';
-import type { AnalysisSettings } from '../../core/settings';
+import { settingsInForce, type AnalysisSettings } from '../../core/settings';
 import { pagesAsTimePoints, resolveTimeAxis } from '../../core/tiff';
 import {
   ACCUMULATION_COLUMNS, accumulationRows, MODEL_FIT_COLUMNS, modelFitRow, selectTimeIndices, summarizeMovie,
@@ -48,10 +48,11 @@ export interface MovieOutcome {
 /** Files of the time pass: tables, figures and the page. */
 export const TIMELAPSE_FILES = ['timecourse.csv', 'timecourse_profiles.csv', 'timecourse_boundaries.csv', 'accumulation.csv', 'model_fit.csv', 'timelapse.html'] as const;
 
-/** The hand edits of one file from the project (axis and landmarks apply to every time point). */
-function editsOf(doc: ProjectDoc | null, file: string): HandEdits | null {
-  const e = doc?.files[file];
-  return e ? { axis: e.axis, landmarks: e.landmarks } : null;
+/** The hand edits and fit range in force for one file at time point t: the file's (they apply to every time point),
+ *  with that time point's own edits over them. */
+function editsAt(doc: ProjectDoc | null, file: string, settings: AnalysisSettings, t: number | null): { handEdits: HandEdits | null; settings: AnalysisSettings } {
+  const e = editsForFile(doc, file, undefined, t);
+  return { handEdits: e ? { axis: e.axis, landmarks: e.landmarks } : null, settings: settingsInForce(settings, e) };
 }
 
 /** The movie's StackInfo for the time pass: plain multi-page files become frames when the user gives a time step. */
@@ -77,9 +78,11 @@ async function analyseOpenedMovie(
   if (typeof picked === 'string') return { file, error: `${file}: ${picked}` };
   const warnings: string[] = [];
   const axis = resolveTimeAxis(info, options.timeStepS, warnings);
-  const fileSettings = doc?.files[file]?.fitRangeEl ? { ...settings, fitRangeEl: doc.files[file].fitRangeEl! } : settings;
+  const own = editsAt(doc, file, settings, null);
+  const fileSettings = own.settings;
   const m = await analyseMovie(info, opened.source, fileSettings, {
-    fileLabel: file, handEdits: editsOf(doc, file), timeIndices: picked, axisPerTime: options.axisPerTime, ...hooks,
+    fileLabel: file, handEdits: own.handEdits, editsAt: (t) => editsAt(doc, file, settings, t),
+    timeIndices: picked, axisPerTime: options.axisPerTime, ...hooks,
   });
   const timesS = axis.timesS ? Float64Array.from(picked, (t) => axis.timesS![t]) : null;
   const summary = summarizeMovie(file, picked, timesS, m.results, {
@@ -130,8 +133,8 @@ function timeCell(m: MovieOutcome, k: number): CsvValue {
 
 /** timecourse.csv: file, t_index, t_s, then every embryos.csv column after `file`. */
 export function timecourseCsv(movies: readonly MovieOutcome[]): string {
-  const rows = movies.flatMap((m) => m.results.map((r, k) => [m.file, m.timeIndices[k], timeCell(m, k), ...embryoRow(r).slice(1)]));
-  return toCsv(['file', 't_index', 't_s', ...EMBRYO_COLUMNS.slice(1)], rows);
+  const rows = movies.flatMap((m) => m.results.map((r, k) => [m.file, m.timeIndices[k], timeCell(m, k), ...embryoMeasureRow(r).slice(1)]));
+  return toCsv(['file', 't_index', 't_s', ...EMBRYO_MEASURE_COLUMNS.slice(1)], rows);
 }
 
 /** timecourse_profiles.csv: every channel's profile at every analysed time point (long format). */

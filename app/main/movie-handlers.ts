@@ -4,7 +4,7 @@ import type { MovieProgress, MovieRequestOptions, MovieView, ProjectDoc } from '
 import { checkRangeEl } from '../../core/settings';
 import { requireAllowed, requireProjectDoc, requireText } from './args';
 import type { ShellContext } from './context';
-import { buildMovieView } from './movie-view';
+import { buildMovieView } from '../engine/movie-view';
 import { ApiFailure, labelOf } from './result';
 
 /** Checked options of a movie request, or a 'bad-argument' failure naming the field. */

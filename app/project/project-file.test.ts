@@ -103,9 +103,9 @@ describe('project files', () => {
 
   it('refuses a newer version instead of half-reading it', async () => {
     const path = join(dir, 'future.json');
-    await writeFile(path, JSON.stringify({ ...demoDoc(dir), folder: '.', version: 2 }));
+    await writeFile(path, JSON.stringify({ ...demoDoc(dir), folder: '.', version: 3 }));
     await expect(loadProject(path)).rejects.toThrow(
-      'future.json: version is 2, newer than this Eggline reads (1); update Eggline to open it');
+      'future.json: version is 3, newer than this Eggline reads (2); update Eggline to open it');
   });
 
   it('names the bad field', async () => {

@@ -1,10 +1,11 @@
-// Worker thread for the desktop app: projects and detects one stack, or decodes one slice, per request.
+// Worker thread for the desktop app: projects and detects one stack, decodes one slice, or analyses a movie over
+// time (with progress messages), per request.
 import { parentPort } from 'node:worker_threads';
-import type { AnalysisReply, AnalysisRequest } from '../main/analysis-runner';
-import { createDefaultEngine } from '../main/default-engine';
-import type { SliceData, ViewData } from '../main/engine';
-import { buildMovieView } from '../main/movie-view';
 import type { MovieView } from '../../core/contract';
+import type { AnalysisReply, AnalysisRequest } from '../engine/analysis-protocol';
+import { createDefaultEngine } from '../engine/default-engine';
+import type { SliceData, ViewData } from '../engine/engine';
+import { buildMovieView } from '../engine/movie-view';
 
 const engine = createDefaultEngine();
 

@@ -4,10 +4,13 @@ export { parseSettingsFlags, parseFitRange, type SettingsFlags, type SettingsOve
 export { parseConfigText } from './parse-config';
 export { mergeSettings } from '../settings';
 export {
-  EMBRYO_COLUMNS, BOUNDARY_COLUMNS, PROFILE_COLUMNS, LANDMARK_COLUMNS,
-  embryoRow, embryosCsv, boundariesCsv, profilesCsv, landmarksCsv, summaryBoundary, embryoProfiles,
+  EMBRYO_COLUMNS, EMBRYO_MEASURE_COLUMNS, TIME_COLUMNS, BOUNDARY_COLUMNS, PROFILE_COLUMNS, LANDMARK_COLUMNS,
+  embryoRow, embryoMeasureRow, embryoResults, embryosCsv, boundariesCsv, profilesCsv, landmarksCsv, summaryBoundary, embryoProfiles,
 } from './tables';
-export { resultsToJson, resultsFromJson, reviveResult, jsonWithArrays, RESULTS_SCHEMA, RESULTS_VERSION } from './results-json';
+export {
+  resultsToJson, resultsFromJson, resultsDocFromJson, reviveResult, jsonWithArrays, RESULTS_SCHEMA, RESULTS_SCHEMA_VERSION, RESULTS_OLD_VERSION,
+  type ResultsDoc,
+} from './results-json';
 export {
   JOURNAL_FILE_NAME, JOURNAL_SCHEMA, JOURNAL_VERSION, journalRunLine, journalFileLine, parseJournal, normalizeResult, settingsKeyText,
   type JournalEntry, type JournalRunLine, type ParsedJournal,

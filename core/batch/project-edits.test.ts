@@ -29,6 +29,14 @@ describe('project edits', () => {
     expect(settingsInForce(DEFAULT_SETTINGS, e1)).toBe(DEFAULT_SETTINGS);
     expect(toHandEdits({ axis: null, landmarks: [], fitRangeEl: null })).toBeNull();
   });
+  it('gives the edits in force at a time point: the time point\'s own over the file\'s (project version 2)', () => {
+    const v2 = { ...doc, version: 2, files: { 'm.tif': { ...doc.files['E01.ome.tif'], timePoints: { 4: { fitRangeEl: [0.15, 0.45] } } } } };
+    const p = parseProjectText(JSON.stringify(v2), 'p.json');
+    expect(editsForFile(p, 'm.tif')?.fitRangeEl).toBeNull();
+    expect(editsForFile(p, 'm.tif', undefined, 4)).toEqual({ ...doc.files['E01.ome.tif'], fitRangeEl: [0.15, 0.45] });
+    expect(settingsInForce(DEFAULT_SETTINGS, editsForFile(p, 'm.tif', undefined, 4)).fitRangeEl).toEqual([0.15, 0.45]);
+    expect(toHandEdits(editsForFile(p, 'm.tif', undefined, 4))?.landmarks).toHaveLength(1);
+  });
   it('applies a per-file dorsal side to the profile settings, and checks it', () => {
     const flipped = { ...doc, files: { 'F.tif': { axis: null, landmarks: [], fitRangeEl: null, dorsalSide: 'right' } } };
     const e = editsForFile(parseProjectText(JSON.stringify(flipped), 'p.json'), 'F.tif');
@@ -42,7 +50,7 @@ describe('project edits', () => {
   });
   it('pins the messages for bad project files', () => {
     expect(() => parseProjectText('{"schema":"other"}', 'p.json')).toThrow('p.json: schema must be \'eggline-project\' (found "other"); this is not an Eggline project');
-    expect(() => parseProjectText('{"schema":"eggline-project","version":9,"files":{}}', 'p.json')).toThrow('p.json: version is 9, newer than this Eggline reads (1); update Eggline to open it');
+    expect(() => parseProjectText('{"schema":"eggline-project","version":9,"files":{}}', 'p.json')).toThrow('p.json: version is 9, newer than this Eggline reads (2); update Eggline to open it');
     const badRange = { ...doc, files: { 'a.tif': { axis: null, landmarks: [], fitRangeEl: [0.9, 0.1] } } };
     expect(() => parseProjectText(JSON.stringify(badRange), 'p.json'))
       .toThrow('p.json: files["a.tif"].fitRangeEl must be two numbers [a, b] with 0 ≤ a < b ≤ 1');

@@ -1,6 +1,7 @@
 // Hand edits from a project file (axis, landmarks per file), as the batch applies them; the fit range in force for a
 // file is core/settings' settingsInForce, and project files are read by core/settings' parseProjectText.
 import type { FileEdits, ProjectDoc } from '../contract';
+import { fileEditsAt } from '../settings';
 import type { HandEdits } from '../model';
 
 /** Default project file name looked for inside an input folder. */
@@ -11,14 +12,15 @@ export function projectKey(relPath: string): string {
   return relPath.replace(/\\/g, '/').replace(/^\.\//, '');
 }
 
-/** The edits stored for one file: looked up by relative path, then by absolute path; null when none. */
-export function editsForFile(doc: ProjectDoc | null, relPath: string, absPath?: string): FileEdits | null {
+/** The edits in force for one file at time point `tIndex` (default 0; the time point's own edits over the file's;
+ *  null: the file's own alone): looked up by relative path, then by absolute path; null when none. */
+export function editsForFile(doc: ProjectDoc | null, relPath: string, absPath?: string, tIndex: number | null = 0): FileEdits | null {
   if (!doc) return null;
   const files = doc.files;
   const key = projectKey(relPath);
   const hit = Object.prototype.hasOwnProperty.call(files, key) ? files[key]
     : absPath !== undefined && Object.prototype.hasOwnProperty.call(files, absPath) ? files[absPath] : undefined;
-  return hit ?? null;
+  return fileEditsAt(hit, tIndex);
 }
 
 /** The pipeline's hand edits from stored file edits (axis marked 'hand'); null when there is nothing to apply. */

@@ -1,13 +1,26 @@
-// results.json: every EmbryoResult of a batch as plain JSON (typed arrays become arrays; NaN becomes null).
-import type { EmbryoResult, ExponentialFit, Profile } from '../model';
+// results.json: every result of a batch keyed by (file, time point) as plain JSON (typed arrays become arrays; NaN
+// becomes null), with the movies analysed per time point. Schema version 2; version 1 files (one result per file, no
+// time points) are still read, their results taken as time point 0.
+import { resultKeyOf, resultTimeIndex, withTimePoint, type EmbryoResult, type ExponentialFit, type MovieRecord, type Profile } from '../model';
 
-/** Schema tag and version written into results.json. */
+/** Schema tag written into results.json. */
 export const RESULTS_SCHEMA = 'eggline-results';
-export const RESULTS_VERSION = 1;
+/** Schema version written into results.json (`schemaVersion`): 2 = results keyed by (file, tIndex), with movies. */
+export const RESULTS_SCHEMA_VERSION = 2;
+/** The version of the first format (`"version": 1`, results keyed by file alone), still read. */
+export const RESULTS_OLD_VERSION = 1;
 
-/** Serialise results as `{ schema, version, results }` JSON text (pretty-printed, typed arrays as plain arrays). */
-export function resultsToJson(results: readonly EmbryoResult[]): string {
-  const doc = { schema: RESULTS_SCHEMA, version: RESULTS_VERSION, results };
+/** What results.json holds: every result keyed by (file, tIndex), and the movies analysed per time point. */
+export interface ResultsDoc {
+  readonly results: readonly EmbryoResult[];
+  readonly movies: readonly MovieRecord[];
+}
+
+/** Serialise results as `{ schema, schemaVersion, results, movies }` JSON text (pretty-printed, typed arrays as
+ *  plain arrays); every result is written with its tIndex (0 when it has none) and tS. */
+export function resultsToJson(results: readonly EmbryoResult[], movies: readonly MovieRecord[] = []): string {
+  const keyed = results.map((r) => withTimePoint(r, resultTimeIndex(r), r.tS ?? null));
+  const doc = { schema: RESULTS_SCHEMA, schemaVersion: RESULTS_SCHEMA_VERSION, results: keyed, movies };
   return `${jsonWithArrays(doc, 1)}\n`;
 }
 
@@ -39,6 +52,8 @@ export function reviveResult(raw: unknown, where: string): EmbryoResult {
   if (typeof raw !== 'object' || raw === null || typeof r.file !== 'string' || (r.status !== 'ok' && r.status !== 'error')) {
     throw new Error(`${where} is not an embryo result (needs "file" and "status")`);
   }
+  if (r.tIndex !== undefined && !(Number.isInteger(r.tIndex) && r.tIndex >= 0)) throw new Error(`${where}: tIndex must be a whole number ≥ 0`);
+  if (r.tS !== undefined && r.tS !== null && typeof r.tS !== 'number') throw new Error(`${where}: tS must be a number of seconds or null`);
   return {
     ...r,
     gradientProfile: r.gradientProfile ? reviveProfile(r.gradientProfile, r.file) : null,
@@ -48,9 +63,29 @@ export function reviveResult(raw: unknown, where: string): EmbryoResult {
   };
 }
 
-/** Read results.json text back into EmbryoResults (arrays become Float64Array, null becomes NaN); throws a one-line message. */
-export function resultsFromJson(text: string): EmbryoResult[] {
-  let doc: { schema?: unknown; version?: unknown; results?: unknown };
+/** Check one movie record of results.json (file, time points, their times, the summary's options). */
+function reviveMovie(raw: unknown, where: string): MovieRecord {
+  const m = raw as MovieRecord;
+  const range = (v: unknown): boolean => Array.isArray(v) && v.length === 2 && v.every((x) => typeof x === 'number');
+  if (typeof raw !== 'object' || raw === null || typeof m.file !== 'string' || !Array.isArray(m.timeIndices)
+    || !m.timeIndices.every((t) => Number.isInteger(t) && t >= 0) || !range(m.fitRangeEl) || !range(m.modelRangeEl) || typeof m.baselineFrames !== 'number') {
+    throw new Error(`results.json: ${where} is not a movie record (needs "file", "timeIndices", "fitRangeEl", "modelRangeEl", "baselineFrames")`);
+  }
+  const timesS = m.timesS === null || m.timesS === undefined ? null : toFloat64(m.timesS, `${where} timesS`);
+  if (timesS !== null && timesS.length !== m.timeIndices.length) throw new Error(`results.json: ${where}: timesS has ${timesS.length} values for ${m.timeIndices.length} time points`);
+  return {
+    file: m.file, timeIndices: [...m.timeIndices], timesS, fitRangeEl: [m.fitRangeEl[0], m.fitRangeEl[1]], modelRangeEl: [m.modelRangeEl[0], m.modelRangeEl[1]],
+    baselineFrames: m.baselineFrames, warnings: Array.isArray(m.warnings) ? m.warnings.map(String) : [], error: typeof m.error === 'string' ? m.error : null,
+  };
+}
+
+/**
+ * Read results.json text (schema version 2, or the first format, version 1) into its results, each with its tIndex
+ * and tS (a version 1 result is time point 0, time unknown), and its movies (none in version 1). Arrays become
+ * Float64Array, null becomes NaN. Throws with a one-line message starting "results.json:".
+ */
+export function resultsDocFromJson(text: string): ResultsDoc {
+  let doc: { schema?: unknown; schemaVersion?: unknown; version?: unknown; results?: unknown; movies?: unknown };
   try {
     doc = JSON.parse(text) as typeof doc;
   } catch (e) {
@@ -59,7 +94,27 @@ export function resultsFromJson(text: string): EmbryoResult[] {
   if (typeof doc !== 'object' || doc === null || doc.schema !== RESULTS_SCHEMA) {
     throw new Error(`results.json: not an Eggline results file (schema must be "${RESULTS_SCHEMA}")`);
   }
-  if (doc.version !== RESULTS_VERSION) throw new Error(`results.json: unsupported version ${String(doc.version)} (expected ${RESULTS_VERSION})`);
+  const old = doc.schemaVersion === undefined && doc.version === RESULTS_OLD_VERSION;
+  if (!old && doc.schemaVersion !== RESULTS_SCHEMA_VERSION) {
+    const found = doc.schemaVersion ?? doc.version;
+    throw new Error(`results.json: unsupported schema version ${String(found)} (this Eggline reads ${RESULTS_OLD_VERSION} and ${RESULTS_SCHEMA_VERSION})`);
+  }
   if (!Array.isArray(doc.results)) throw new Error('results.json: "results" is not an array');
-  return doc.results.map((r, i) => reviveResult(r, `results.json: entry ${i}`));
+  const seen = new Set<string>();
+  const results = doc.results.map((raw, i) => {
+    const r = reviveResult(raw, `results.json: entry ${i}`);
+    const keyed = withTimePoint(r, old ? 0 : resultTimeIndex(r), old ? null : r.tS ?? null);
+    const key = resultKeyOf(keyed);
+    if (seen.has(key)) throw new Error(`results.json: entry ${i} repeats ${keyed.file} at time point ${resultTimeIndex(keyed)}`);
+    seen.add(key);
+    return keyed;
+  });
+  if (doc.movies !== undefined && !Array.isArray(doc.movies)) throw new Error('results.json: "movies" is not an array');
+  const movies = old ? [] : ((doc.movies ?? []) as unknown[]).map((m, i) => reviveMovie(m, `movie ${i}`));
+  return { results, movies };
+}
+
+/** The results of results.json text (see resultsDocFromJson); throws a one-line message. */
+export function resultsFromJson(text: string): EmbryoResult[] {
+  return [...resultsDocFromJson(text).results];
 }

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import type { EmbryoResult, Profile } from '../model';
 import { parseCsv } from '../csv';
-import { errorResult } from '../model';
-import { resultsFromJson, resultsToJson } from './results-json';
-import { boundariesCsv, embryosCsv, EMBRYO_COLUMNS, landmarksCsv, profilesCsv, summaryBoundary } from './tables';
+import { errorResult, withTimePoint } from '../model';
+import { jsonWithArrays, resultsDocFromJson, resultsFromJson, resultsToJson } from './results-json';
+import { boundariesCsv, embryoResults, embryosCsv, EMBRYO_COLUMNS, landmarksCsv, profilesCsv, summaryBoundary } from './tables';
 
 // Source: demo data (a hand-built result; every expected cell is copied from it).
 const profile = (channel: string, mean: number[]): Profile => ({
@@ -47,7 +47,10 @@ describe('output tables', () => {
       boundary_width_10_90_el: String(2 * Math.log(9) * 0.02),
     });
     expect(rows[2].slice(0, 4)).toEqual(['junk.tif', 'error', 'junk.tif: not a TIFF file', '']);
-    expect(rows[2].slice(4).every((c, i) => c === '' || EMBRYO_COLUMNS[i + 4] === 'pixel_size_source')).toBe(true);
+    expect(rows[2].slice(4).every((c, i) => c === '' || ['pixel_size_source', 't_index'].includes(EMBRYO_COLUMNS[i + 4]))).toBe(true);
+    // A file with one time point: t_index 0, t_s empty (its time unknown), as the last two columns.
+    expect(EMBRYO_COLUMNS.slice(-2)).toEqual(['t_index', 't_s']);
+    expect([row.t_index, row.t_s]).toEqual(['0', '']);
   });
   it('summary boundary is the first channel, logistic preferred', () => {
     expect(summaryBoundary(ok)?.positionEl).toBe(0.5);
@@ -55,33 +58,79 @@ describe('output tables', () => {
   });
   it('boundaries, profiles and landmarks tables', () => {
     expect(boundariesCsv([ok, bad]).split('\r\n')[2])
-      .toBe(`dose,half/E01.ome.tif,stripe,logistic,0.5,250,0.02,${2 * Math.log(9) * 0.02},0.001,falling,"a ""note"", with comma"`.replace('dose,half/E01.ome.tif', '"dose,half/E01.ome.tif"'));
+      .toBe(`dose,half/E01.ome.tif,stripe,logistic,0.5,250,0.02,${2 * Math.log(9) * 0.02},0.001,falling,"a ""note"", with comma",0,`.replace('dose,half/E01.ome.tif', '"dose,half/E01.ome.tif"'));
     const profiles = parseCsv(profilesCsv([ok, bad]));
     expect(profiles).toEqual([
-      ['file', 'channel', 'x_el', 'x_um', 'mean', 'sd', 'n'],
-      [ok.file, 'grad', '0.25', '125', '100', '1', '10'], [ok.file, 'grad', '0.75', '375', '5', '2', '12'],
-      [ok.file, 'stripe', '0.25', '125', '50', '1', '10'], [ok.file, 'stripe', '0.75', '375', '1', '2', '12'],
+      ['file', 'channel', 'x_el', 'x_um', 'mean', 'sd', 'n', 't_index', 't_s'],
+      [ok.file, 'grad', '0.25', '125', '100', '1', '10', '0', ''], [ok.file, 'grad', '0.75', '375', '5', '2', '12', '0', ''],
+      [ok.file, 'stripe', '0.25', '125', '50', '1', '10', '0', ''], [ok.file, 'stripe', '0.75', '375', '1', '2', '12', '0', ''],
     ]);
     expect(landmarksCsv([ok])).toBe('file,name,x_px,y_px,x_el,x_um,off_axis_um\r\n"dose,half/E01.ome.tif",furrow,330,40,0.32,160,-1.5\r\n');
   });
 });
 
+// A movie's results at three time points, 60 s apart (demo data).
+const movie = [0, 1, 2].map((t) => withTimePoint({ ...ok, file: 'movie.ome.tif', gradientProfile: profile('grad', [100 * (t + 1), 5]) }, t, 60 * t));
+
+describe('tables keyed by (file, time point)', () => {
+  it('profiles.csv and boundaries.csv carry every time point of a movie with t_index and t_s', () => {
+    const profiles = parseCsv(profilesCsv(movie)).slice(1).filter((r) => r[1] === 'grad' && r[2] === '0.25');
+    expect(profiles.map((r) => [r[4], r[7], r[8]])).toEqual([['100', '0', '0'], ['200', '1', '60'], ['300', '2', '120']]);
+    const boundaries = parseCsv(boundariesCsv(movie)).slice(1);
+    expect(boundaries).toHaveLength(9);
+    expect(boundaries.map((r) => r.slice(-2))).toEqual([0, 0, 0, 1, 1, 1, 2, 2, 2].map((t) => [String(t), String(60 * t)]));
+  });
+  it('embryos.csv and landmarks.csv have one row per file: a movie\'s last analysed time point', () => {
+    expect(embryoResults([movie[1], ok, movie[2], movie[0], bad])).toEqual([movie[2], ok, bad]);
+    const rows = parseCsv(embryosCsv([...movie, ok]));
+    expect(rows.map((r) => [r[0], ...r.slice(-2)])).toEqual([['file', 't_index', 't_s'], ['movie.ome.tif', '2', '120'], [ok.file, '0', '']]);
+    expect(parseCsv(landmarksCsv([...movie, ok])).slice(1).map((r) => r[0])).toEqual(['movie.ome.tif', ok.file]);
+  });
+});
+
 describe('results.json', () => {
-  it('round-trips results, typed arrays included (NaN comes back as NaN)', () => {
-    const text = resultsToJson([ok, bad]);
-    expect(JSON.parse(text)).toMatchObject({ schema: 'eggline-results', version: 1 });
+  it('round-trips results keyed by (file, time point), typed arrays included (NaN comes back as NaN)', () => {
+    const text = resultsToJson([ok, bad, ...movie]);
+    expect(JSON.parse(text)).toMatchObject({ schema: 'eggline-results', schemaVersion: 2, movies: [] });
+    expect(JSON.parse(text).results[0]).toMatchObject({ file: ok.file, tIndex: 0, tS: null });
     expect(JSON.parse(text).results[0].gradientProfile.mean).toEqual([100, 5]);
     const back = resultsFromJson(text);
     expect(back[0].gradientProfile?.mean).toBeInstanceOf(Float64Array);
     expect(Array.from(back[0].gradientFit?.residuals ?? [])).toEqual([Number.NaN, -0.5]);
-    expect(back[0]).toEqual(ok);
-    expect(back[1]).toEqual(bad);
+    expect(back[0]).toEqual(withTimePoint(ok, 0, null));
+    expect(back[1]).toEqual(withTimePoint(bad, 0, null));
+    expect(back.slice(2)).toEqual(movie);
+    expect(resultsToJson(back)).toBe(text);
+  });
+  it('round-trips the movie records', () => {
+    const record = {
+      file: 'movie.ome.tif', timeIndices: [0, 1, 2], timesS: Float64Array.from([0, 60, 120]), fitRangeEl: [0.1, 0.6] as const,
+      modelRangeEl: [0.1, 0.4] as const, baselineFrames: 1, warnings: ['times from the file'], error: null,
+    };
+    const doc = resultsDocFromJson(resultsToJson(movie, [record]));
+    expect(doc.movies).toEqual([record]);
+    expect(doc.results).toEqual(movie);
+  });
+  it('reads the first format (version 1: one result per file, no time points) as time point 0', () => {
+    // The layout the version 1 writer produced: { schema, version: 1, results } with results keyed by file alone.
+    const v1 = `${jsonWithArrays({ schema: 'eggline-results', version: 1, results: [ok, bad] }, 1)}\n`;
+    const doc = resultsDocFromJson(v1);
+    expect(doc.results).toEqual([withTimePoint(ok, 0, null), withTimePoint(bad, 0, null)]);
+    expect(doc.movies).toEqual([]);
+    expect(embryosCsv(doc.results)).toBe(embryosCsv([ok, bad]));
   });
   it('rejects other files with one-line messages', () => {
     expect(() => resultsFromJson('nope')).toThrow(/^results\.json: not valid JSON/);
     expect(() => resultsFromJson('{"schema":"x"}')).toThrow('results.json: not an Eggline results file (schema must be "eggline-results")');
-    expect(() => resultsFromJson('{"schema":"eggline-results","version":2,"results":[]}')).toThrow('results.json: unsupported version 2 (expected 1)');
+    expect(() => resultsFromJson('{"schema":"eggline-results","schemaVersion":3,"results":[]}')).toThrow('results.json: unsupported schema version 3 (this Eggline reads 1 and 2)');
+    expect(() => resultsFromJson('{"schema":"eggline-results","version":2,"results":[]}')).toThrow('results.json: unsupported schema version 2 (this Eggline reads 1 and 2)');
     expect(() => resultsFromJson('{"schema":"eggline-results","version":1,"results":[{}]}'))
       .toThrow('results.json: entry 0 is not an embryo result (needs "file" and "status")');
+    const two = JSON.stringify({ schema: 'eggline-results', schemaVersion: 2, results: [{ ...bad, tIndex: 1 }, { ...bad, tIndex: 1 }] });
+    expect(() => resultsFromJson(two)).toThrow('results.json: entry 1 repeats junk.tif at time point 1');
+    const negative = JSON.stringify({ schema: 'eggline-results', schemaVersion: 2, results: [{ ...bad, tIndex: -1 }] });
+    expect(() => resultsFromJson(negative)).toThrow('results.json: entry 0: tIndex must be a whole number ≥ 0');
+    expect(() => resultsDocFromJson(JSON.stringify({ schema: 'eggline-results', schemaVersion: 2, results: [], movies: [{ file: 'm' }] })))
+      .toThrow(/^results\.json: movie 0 is not a movie record/);
   });
 });

@@ -1,10 +1,13 @@
-// The tidy CSV tables a batch writes: one row per observation, units in the column names.
-import type { Boundary, EmbryoResult, Profile } from '../model';
+// The tidy CSV tables a batch writes: one row per observation, units in the column names. Rows are keyed by (file,
+// time point): t_index and t_s are the last two columns of embryos.csv, boundaries.csv and profiles.csv (appended, so
+// that readers of the older tables by position keep working); t_index is 0 and t_s the file's time (often empty) for a
+// file with one time point.
+import { resultTimeIndex, type Boundary, type EmbryoResult, type Profile } from '../model';
 import { toCsv, type CsvValue } from '../csv';
 import { clipMessage, warningsCell } from './messages';
 
-/** Columns of embryos.csv, one row per input file. */
-export const EMBRYO_COLUMNS = [
+/** The measurement columns of one result (embryos.csv without its time columns; timecourse.csv after file, t_index, t_s). */
+export const EMBRYO_MEASURE_COLUMNS = [
   'file', 'status', 'error', 'warnings', 'pixel_size_um', 'pixel_size_source', 'egg_length_um', 'egg_width_um',
   'anterior_x_px', 'anterior_y_px', 'posterior_x_px', 'posterior_y_px', 'axis_source', 'gradient_channel',
   'lambda_um', 'lambda_el', 'lambda_se_um', 'lambda_ci_low_um', 'lambda_ci_high_um',
@@ -13,13 +16,39 @@ export const EMBRYO_COLUMNS = [
   'fit_start_el', 'fit_end_el', 'boundary_el', 'boundary_width_el', 'boundary_width_10_90_el',
 ] as const;
 
-/** Columns of boundaries.csv, one row per file × channel × method. */
+/** The key columns added to the per-result tables: time point (0-based) and its time in s (empty when unknown). */
+export const TIME_COLUMNS = ['t_index', 't_s'] as const;
+
+/** Columns of embryos.csv, one row per input file (a movie's: its last analysed time point). */
+export const EMBRYO_COLUMNS = [...EMBRYO_MEASURE_COLUMNS, ...TIME_COLUMNS] as const;
+
+/** Columns of boundaries.csv, one row per file × time point × channel × method. */
 export const BOUNDARY_COLUMNS = [
-  'file', 'channel', 'method', 'position_el', 'position_um', 'width_el', 'width_10_90_el', 'position_se_el', 'direction', 'note',
+  'file', 'channel', 'method', 'position_el', 'position_um', 'width_el', 'width_10_90_el', 'position_se_el', 'direction', 'note', ...TIME_COLUMNS,
 ] as const;
 
-/** Columns of profiles.csv (long format), one row per file × channel × bin. */
-export const PROFILE_COLUMNS = ['file', 'channel', 'x_el', 'x_um', 'mean', 'sd', 'n'] as const;
+/** Columns of profiles.csv (long format), one row per file × time point × channel × bin. */
+export const PROFILE_COLUMNS = ['file', 'channel', 'x_el', 'x_um', 'mean', 'sd', 'n', ...TIME_COLUMNS] as const;
+
+/** The t_index and t_s cells of a result. */
+function timeCells(r: EmbryoResult): CsvValue[] {
+  return [resultTimeIndex(r), r.tS ?? null];
+}
+
+/**
+ * One result per file, for the tables and statistics that count embryos (embryos.csv, landmarks.csv, the cohort):
+ * a file's result with the highest time point — for a movie analysed over time its last analysed time point (the
+ * gradient nearest steady state; with --time K, time point K), for any other file its only result. Files keep the
+ * order of their first result.
+ */
+export function embryoResults(results: readonly EmbryoResult[]): EmbryoResult[] {
+  const chosen = new Map<string, EmbryoResult>();
+  for (const r of results) {
+    const before = chosen.get(r.file);
+    if (before === undefined || resultTimeIndex(r) > resultTimeIndex(before)) chosen.set(r.file, r);
+  }
+  return [...chosen.values()];
+}
 
 /** Columns of landmarks.csv, one row per hand-marked landmark. */
 export const LANDMARK_COLUMNS = ['file', 'name', 'x_px', 'y_px', 'x_el', 'x_um', 'off_axis_um'] as const;
@@ -34,6 +63,11 @@ export function summaryBoundary(result: EmbryoResult): Boundary | null {
 
 /** One embryos.csv row (cells in EMBRYO_COLUMNS order). */
 export function embryoRow(r: EmbryoResult): CsvValue[] {
+  return [...embryoMeasureRow(r), ...timeCells(r)];
+}
+
+/** The measurement cells of one result (EMBRYO_MEASURE_COLUMNS order). */
+export function embryoMeasureRow(r: EmbryoResult): CsvValue[] {
   const fit = r.gradientFit;
   const boundary = summaryBoundary(r);
   return [
@@ -47,9 +81,9 @@ export function embryoRow(r: EmbryoResult): CsvValue[] {
   ];
 }
 
-/** embryos.csv text for all results, in the given order. */
+/** embryos.csv text: one row per file (embryoResults), in the given order. */
 export function embryosCsv(results: readonly EmbryoResult[]): string {
-  return toCsv(EMBRYO_COLUMNS, results.map(embryoRow));
+  return toCsv(EMBRYO_COLUMNS, embryoResults(results).map(embryoRow));
 }
 
 /** The logistic's 10–90% width, the distance over which it goes from 10% to 90% of its step: 2·ln 9·w ≈ 4.394·w. */
@@ -57,10 +91,10 @@ export function width1090El(widthEl: number | null): number | null {
   return widthEl === null ? null : 2 * Math.log(9) * widthEl;
 }
 
-/** boundaries.csv text: every boundary of every embryo. */
+/** boundaries.csv text: every boundary of every result (every analysed time point of a movie). */
 export function boundariesCsv(results: readonly EmbryoResult[]): string {
   const rows = results.flatMap((r) => r.boundaries.map((b): CsvValue[] => [
-    r.file, b.channel, b.method, b.positionEl, b.positionUm, b.widthEl, width1090El(b.widthEl), b.positionSeEl, b.direction, b.note,
+    r.file, b.channel, b.method, b.positionEl, b.positionUm, b.widthEl, width1090El(b.widthEl), b.positionSeEl, b.direction, b.note, ...timeCells(r),
   ]));
   return toCsv(BOUNDARY_COLUMNS, rows);
 }
@@ -71,20 +105,21 @@ export function embryoProfiles(result: EmbryoResult): Profile[] {
   return all.filter((p, i) => all.findIndex((q) => q.channel === p.channel) === i);
 }
 
-/** profiles.csv text (long format): one row per bin of every profile. */
+/** profiles.csv text (long format): one row per bin of every profile of every result (every analysed time point of a movie). */
 export function profilesCsv(results: readonly EmbryoResult[]): string {
   const rows: CsvValue[][] = [];
   for (const r of results) {
+    const [t, tS] = timeCells(r);
     for (const p of embryoProfiles(r)) {
-      for (let i = 0; i < p.xEl.length; i += 1) rows.push([r.file, p.channel, p.xEl[i], p.xUm[i], p.mean[i], p.sd[i], p.n[i]]);
+      for (let i = 0; i < p.xEl.length; i += 1) rows.push([r.file, p.channel, p.xEl[i], p.xUm[i], p.mean[i], p.sd[i], p.n[i], t, tS]);
     }
   }
   return toCsv(PROFILE_COLUMNS, rows);
 }
 
-/** landmarks.csv text: every landmark with its image position and its projection on the AP axis. */
+/** landmarks.csv text: every landmark of each file's embryo row (embryoResults) with its image position and its projection on the AP axis. */
 export function landmarksCsv(results: readonly EmbryoResult[]): string {
-  const rows = results.flatMap((r) => r.landmarks.map((l): CsvValue[] => [
+  const rows = embryoResults(results).flatMap((r) => r.landmarks.map((l): CsvValue[] => [
     r.file, l.name, l.point.x, l.point.y, l.xEl, l.xUm, l.offAxisUm,
   ]));
   return toCsv(LANDMARK_COLUMNS, rows);

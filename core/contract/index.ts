@@ -5,7 +5,7 @@ import type {
 } from '../model';
 import type { AnalysisSettings, ProjectDoc } from '../settings';
 
-export type { FileEdits, ProjectDoc } from '../settings';
+export type { FileEdits, ProjectDoc, TimePointEdits } from '../settings';
 import type { ConditionStat, DosageFit, ReferenceLambda, ShiftRow } from '../model';
 
 /** Error codes the app returns; messages are one line and name the file when there is one. */

@@ -228,6 +228,28 @@ export interface EmbryoResult {
   readonly backgrounds: readonly BackgroundEstimate[];
 }
 
+/**
+ * A file analysed per time point (a movie): which time points, their times, and the options of its time summary, so
+ * that the summary (λ(t), τ(x), the model fit) can be made again from the results alone (merge, the window). `error`
+ * says why the movie could not be analysed over time (then timeIndices is empty).
+ */
+export interface MovieRecord {
+  readonly file: string;
+  /** Analysed time points, 0-based, ascending; each has a result keyed (file, t). */
+  readonly timeIndices: readonly number[];
+  /** Time of each analysed time point in s on the movie's clock (same length), or null when unknown. */
+  readonly timesS: Float64Array | null;
+  /** x/EL range of the per-time-point exponential fits (the file's own, when the project sets one). */
+  readonly fitRangeEl: readonly [number, number];
+  /** x/EL range of the τ(x) model fit (--tau-range). */
+  readonly modelRangeEl: readonly [number, number];
+  /** Frames before production whose mean is the zero (--baseline-frames). */
+  readonly baselineFrames: number;
+  /** Warnings about the movie's time axis (e.g. where its times came from). */
+  readonly warnings: readonly string[];
+  readonly error: string | null;
+}
+
 /** Reads decoded planes of one stack; implemented by the sharp decoder (app/) and the geotiff decoder (core/tiff). */
 export interface PlaneSource {
   /** Decode plane (z, c, t), all 0-based. Rejects with a clear message on bad data. */

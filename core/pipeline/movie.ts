@@ -10,6 +10,9 @@ import { analyseStack } from './analyse';
 export interface MovieOptions {
   readonly fileLabel: string;
   readonly handEdits?: HandEdits | null;
+  /** The hand edits and settings in force at one time point (a time point's own edits over the file's); when given,
+   *  they replace handEdits and settings at that time point. */
+  readonly editsAt?: (t: number) => { readonly handEdits: HandEdits | null; readonly settings: AnalysisSettings };
   /** Time points to analyse (0-based, in order). */
   readonly timeIndices: readonly number[];
   /** Find the axis at every time point (embryos that drift) instead of once for the movie. */
@@ -91,8 +94,10 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
   const results: EmbryoResult[] = [];
   for (const [k, t] of timeIndices.entries()) {
     if (options.signal?.aborted) throw cancelled(fileLabel);
+    const at = options.editsAt?.(t);
+    const settingsAtT = { ...(at ? at.settings : settings), timeIndex: t };
     const onProjected = options.onProjected ? (p: ProjectedStack) => options.onProjected!(k, p, timeIndices.length) : undefined;
-    results.push(await analyseStack(info, source, { ...settings, timeIndex: t }, { fileLabel, handEdits: options.handEdits ?? null, detection, onProjected }));
+    results.push(await analyseStack(info, source, settingsAtT, { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection, onProjected }));
     options.onTimePoint?.(k + 1, timeIndices.length);
   }
   const hand = options.handEdits?.axis ?? null;

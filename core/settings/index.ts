@@ -8,8 +8,9 @@ export {
   settingsFromFlags, overridesFromJson, settingsFromStored, settingsInForce, type SettingsOverrides, type SettingsFlags,
 } from './check';
 export { SettingsError } from './settings-error';
-export type { FileEdits, ProjectDoc } from './project-types';
+export type { FileEdits, ProjectDoc, TimePointEdits } from './project-types';
+export { fileEditsAt } from './time-point-edits';
 export { ProjectFormatError } from './project-error';
 export {
-  PROJECT_SCHEMA, PROJECT_VERSION, checkProjectDoc, checkFileEdits, checkSettings, checkRangeEl, parseProjectText,
+  PROJECT_SCHEMA, PROJECT_VERSION, PROJECT_OLDEST_VERSION, checkProjectDoc, checkFileEdits, checkSettings, checkRangeEl, parseProjectText,
 } from './project-check';

@@ -1,12 +1,12 @@
-// Validation of a project document (schema 'eggline-project', version 1) from disk or from the renderer: the one
-// reader of project files (the command line and the desktop app both load through it).
+// Validation of a project document (schema 'eggline-project', version 2, or version 1 migrated to 2) from disk or from
+// the renderer: the one reader of project files (the command line and the desktop app both load through it).
 import type { ApAxis, ImagePoint, Landmark } from '../model';
 import { badField, ProjectFormatError } from './project-error';
 import { checkFiniteNumber, checkOneOf, isRecord } from './check-values';
 import { settingsFromStored } from './check';
 import { settingSpec } from './schema';
 import { SettingsError } from './settings-error';
-import type { FileEdits, ProjectDoc } from './project-types';
+import type { FileEdits, ProjectDoc, TimePointEdits } from './project-types';
 import type { AnalysisSettings } from './types';
 
 /** Check an x/EL range with the fit range's rule from the settings table. */
@@ -29,7 +29,9 @@ export function checkSettings(value: unknown, where = 'settings'): AnalysisSetti
 
 /** The schema name and the newest version this build reads and writes. */
 export const PROJECT_SCHEMA = 'eggline-project';
-export const PROJECT_VERSION = 1;
+export const PROJECT_VERSION = 2;
+/** Oldest version read (and migrated to PROJECT_VERSION on reading). */
+export const PROJECT_OLDEST_VERSION = 1;
 
 /** Check an image point {x, y} in pixels. */
 function checkPoint(value: unknown, where: string): ImagePoint {
@@ -55,17 +57,46 @@ function checkLandmark(value: unknown, where: string): Landmark {
   return { name: value.name as string, point: checkPoint(value.point, `${where}.point`) };
 }
 
-/** Check the hand edits of one file. */
-export function checkFileEdits(value: unknown, where: string): FileEdits {
+/** Check a list of landmarks. */
+function checkLandmarks(value: unknown, where: string): Landmark[] {
+  if (!Array.isArray(value)) return badField(where, 'must be a list');
+  return value.map((l, i) => checkLandmark(l, `${where}[${i}]`));
+}
+
+/** Check the edits of one time point: only the fields given. */
+function checkTimePointEdits(value: unknown, where: string): TimePointEdits {
+  if (!isRecord(value)) return badField(where, 'must be an object');
+  return {
+    ...(value.axis === undefined ? {} : { axis: checkAxis(value.axis, `${where}.axis`) }),
+    ...(value.landmarks === undefined ? {} : { landmarks: checkLandmarks(value.landmarks, `${where}.landmarks`) }),
+    ...(value.fitRangeEl === undefined ? {} : { fitRangeEl: value.fitRangeEl === null ? null : checkRangeEl(value.fitRangeEl, `${where}.fitRangeEl`) }),
+  };
+}
+
+/** Check the per-time-point edits of a file: keys are time points ("0", "12"), values their edits. */
+function checkTimePoints(value: unknown, where: string): Record<string, TimePointEdits> {
+  if (!isRecord(value)) return badField(where, 'must be an object keyed by time point ("0", "1", …)');
+  const out: Record<string, TimePointEdits> = {};
+  for (const [key, edits] of Object.entries(value)) {
+    if (!/^(0|[1-9]\d{0,8})$/.test(key)) badField(where, `has the key ${JSON.stringify(key)}; keys must be time points (0-based whole numbers: "0", "1", …)`);
+    out[key] = checkTimePointEdits(edits, `${where}[${JSON.stringify(key)}]`);
+  }
+  return out;
+}
+
+/** Check the hand edits of one file; per-time-point edits are read from version 2 on. */
+export function checkFileEdits(value: unknown, where: string, version: number = PROJECT_VERSION): FileEdits {
   if (!isRecord(value)) return badField(where, 'must be an object');
   const landmarks = value.landmarks ?? [];
   if (!Array.isArray(landmarks)) return badField(`${where}.landmarks`, 'must be a list');
+  const timePoints = version >= 2 && value.timePoints !== undefined && value.timePoints !== null ? checkTimePoints(value.timePoints, `${where}.timePoints`) : {};
   return {
     axis: checkAxis(value.axis, `${where}.axis`),
     landmarks: landmarks.map((l, i) => checkLandmark(l, `${where}.landmarks[${i}]`)),
     fitRangeEl: value.fitRangeEl === null || value.fitRangeEl === undefined ? null
       : checkRangeEl(value.fitRangeEl, `${where}.fitRangeEl`),
     ...(value.dorsalSide === undefined || value.dorsalSide === null ? {} : { dorsalSide: checkDorsalSide(value.dorsalSide, `${where}.dorsalSide`) }),
+    ...(Object.keys(timePoints).length > 0 ? { timePoints } : {}),
   };
 }
 
@@ -81,13 +112,15 @@ function checkHeader(value: Record<string, unknown>): void {
     badField('schema', `must be '${PROJECT_SCHEMA}' (found ${JSON.stringify(value.schema) ?? 'nothing'}); this is not an Eggline project`);
   }
   const v = value.version;
-  if (!Number.isInteger(v) || (v as number) < 1) badField('version', 'must be a whole number ≥ 1');
+  if (!Number.isInteger(v) || (v as number) < PROJECT_OLDEST_VERSION) badField('version', `must be a whole number ≥ ${PROJECT_OLDEST_VERSION}`);
   if ((v as number) > PROJECT_VERSION) {
     badField('version', `is ${v as number}, newer than this Eggline reads (${PROJECT_VERSION}); update Eggline to open it`);
   }
 }
 
-/** Validate a whole project document and return a clean copy (unknown fields dropped). Throws ProjectFormatError. */
+/** Validate a whole project document and return a clean copy (unknown fields dropped), migrated to the current
+ *  version: a version 1 document becomes version 2 unchanged otherwise (its edits hold at every time point). Throws
+ *  ProjectFormatError. */
 export function checkProjectDoc(value: unknown): ProjectDoc {
   if (!isRecord(value)) return badField('project', 'must be a JSON object');
   checkHeader(value);
@@ -99,7 +132,7 @@ export function checkProjectDoc(value: unknown): ProjectDoc {
   const cleanFiles: Record<string, FileEdits> = {};
   for (const [key, edits] of Object.entries(files)) {
     if (key === '' || key.includes('\0')) badField('files', 'has an empty or invalid file key');
-    cleanFiles[key] = checkFileEdits(edits, `files[${JSON.stringify(key)}]`);
+    cleanFiles[key] = checkFileEdits(edits, `files[${JSON.stringify(key)}]`, value.version as number);
   }
   if (value.batchOutDir !== null && value.batchOutDir !== undefined && (typeof value.batchOutDir !== 'string' || value.batchOutDir === '' || value.batchOutDir.includes('\0'))) {
     badField('batchOutDir', 'must be null or a folder path');

@@ -2,6 +2,14 @@
 import type { ApAxis, Landmark } from '../model';
 import type { AnalysisSettings } from './types';
 
+/** Hand edits of one time point of a movie (project version 2): each field given replaces the file's at that time
+ *  point; a field left out keeps the file's (a hand axis set for the file applies to every time point). */
+export interface TimePointEdits {
+  readonly axis?: ApAxis | null;
+  readonly landmarks?: readonly Landmark[];
+  readonly fitRangeEl?: readonly [number, number] | null;
+}
+
 /** Per-file hand work kept in the project. */
 export interface FileEdits {
   readonly axis: ApAxis | null;
@@ -11,12 +19,16 @@ export interface FileEdits {
   /** Per-file dorsal side of the A→P line (which side the edge band's "dorsal" and "ventral" mean); absent or null:
    *  the shared setting. A flipped or mirrored embryo needs its own. */
   readonly dorsalSide?: 'left' | 'right' | null;
+  /** Edits of single time points of a movie, keyed by the time point (0-based, as decimal text: "0", "12"); absent
+   *  or empty: the file's edits hold at every time point. */
+  readonly timePoints?: Readonly<Record<string, TimePointEdits>>;
 }
 
-/** The project file's content (JSON, versioned). */
+/** The project file's content (JSON, versioned). Version 2 adds per-time-point edits (FileEdits.timePoints); a
+ *  version 1 file reads as version 2 with none. Files are always written as version 2. */
 export interface ProjectDoc {
   readonly schema: 'eggline-project';
-  readonly version: 1;
+  readonly version: 1 | 2;
   /** Folder the project's files are in (absolute). */
   readonly folder: string | null;
   readonly settings: AnalysisSettings;

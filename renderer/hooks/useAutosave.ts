@@ -1,6 +1,7 @@
 // Saves the project a moment after every document change (debounced), so no edit is lost.
 import { useEffect, useRef, useState } from 'react';
 import type { EgglineApi, ProjectDoc } from '../../core/contract';
+import { PROJECT_VERSION } from '../../core/settings';
 import type { DocState } from '../state';
 
 /** Delay between the last edit and the save, ms. */
@@ -11,7 +12,7 @@ export type SaveStatus = { kind: 'idle' } | { kind: 'pending' } | { kind: 'saved
 
 /** The project file content for a document. */
 export function toProjectDoc(doc: DocState, folder: string | null, batchOutDir: string | null = null): ProjectDoc {
-  const base: ProjectDoc = { schema: 'eggline-project', version: 1, folder, settings: doc.settings, files: doc.files };
+  const base: ProjectDoc = { schema: 'eggline-project', version: PROJECT_VERSION, folder, settings: doc.settings, files: doc.files };
   return batchOutDir === null ? base : { ...base, batchOutDir };
 }
 

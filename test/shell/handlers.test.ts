@@ -189,7 +189,7 @@ describe('projects', () => {
     const before = await readFile(opened.projectPath, 'utf8');
     const bad = { ...opened.project, version: 3 } as unknown as ProjectDoc;
     expect(error(await api.saveProject(opened.projectPath, bad))).toEqual({ code: 'bad-argument',
-      message: 'eggline-project.json: project: version is 3, newer than this Eggline reads (1); update Eggline to open it' });
+      message: 'eggline-project.json: project: version is 3, newer than this Eggline reads (2); update Eggline to open it' });
     expect(await readFile(opened.projectPath, 'utf8')).toBe(before);
   });
 
