@@ -13,7 +13,7 @@ import { isInside } from '../batch/list-stacks';
 import { STOP_MESSAGE } from './batch-tuning';
 import { loadProjectOrBackup } from '../project';
 import { BATCH_HELP } from './help';
-import { parseCommandArgs } from './parse-command-args';
+import { joinNegativeValues, parseCommandArgs } from './parse-command-args';
 import { progressPrinter } from './progress';
 import { DEFAULT_CPUS_PER_TASK, joinSlurmOptions, partArguments, submitCommands, writeSlurmScripts } from './slurm-scripts';
 import { UsageError, type CliIo } from './usage-error';
@@ -89,7 +89,7 @@ async function readProject(given: string | undefined, folder: string, skip: bool
 
 /** Resolve the batch command's arguments into a plan; throws UsageError / BatchOptionError for bad input. */
 export async function planBatch(given: readonly string[]): Promise<BatchPlan | 'help'> {
-  const argv = joinSlurmOptions(given);
+  const argv = joinNegativeValues(joinSlurmOptions(given), OPTIONS);
   const { values: v, positionals } = parseCommandArgs(argv, OPTIONS, 'batch');
   if (v.help) return 'help';
   if (positionals.length === 0) throw new UsageError('missing the input folder', 'batch');

@@ -4,10 +4,27 @@ import { UsageError } from './usage-error';
 
 type Options = NonNullable<ParseArgsConfig['options']>;
 
+/**
+ * `--flag -3` → `--flag=-3` for a flag that takes a value when the next word is a negative number: parseArgs would
+ * read "-3" as an option and give its own message, where the flag's rule ("must be a positive number …") is the
+ * useful one. Words after `--` are left alone.
+ */
+export function joinNegativeValues(argv: readonly string[], options: Options): string[] {
+  const out: string[] = [];
+  for (let i = 0; i < argv.length; i++) {
+    const word = argv[i];
+    if (word === '--') { out.push(...argv.slice(i)); break; }
+    const next = argv[i + 1];
+    const takesValue = word.startsWith('--') && !word.includes('=') && options[word.slice(2)]?.type === 'string';
+    if (takesValue && next !== undefined && /^-(\d|\.\d)/.test(next)) { out.push(`${word}=${next}`); i++; } else out.push(word);
+  }
+  return out;
+}
+
 /** Parse argv strictly for `command`; unknown flags and missing values become UsageError. */
 export function parseCommandArgs<T extends Options>(argv: readonly string[], options: T, command: string) {
   try {
-    return parseArgs({ args: [...argv], options, allowPositionals: true, strict: true });
+    return parseArgs({ args: joinNegativeValues(argv, options), options, allowPositionals: true, strict: true });
   } catch (e) {
     const err = e as Error & { code?: string };
     const text = err.message.split(/\r?\n/)[0];
