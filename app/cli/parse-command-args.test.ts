@@ -15,5 +15,7 @@ describe('joinNegativeValues', () => {
   });
   it('lets parseCommandArgs hand the value to the flag', () => {
     expect(parseCommandArgs(['--depth', '-3'], options, 'x').values.depth).toBe('-3');
+    expect(() => parseCommandArgs(['--depth', '-x'], options, 'x')).toThrow('option --depth needs a value; write --depth=VALUE for a value that starts with "-"');
+    expect(() => parseCommandArgs(['--quiet=1'], options, 'x')).toThrow('option --quiet takes no value');
   });
 });

@@ -31,7 +31,9 @@ export function parseCommandArgs<T extends Options>(argv: readonly string[], opt
     const flag = /'(-[^']*)'/.exec(text)?.[1];
     if (err.code === 'ERR_PARSE_ARGS_UNKNOWN_OPTION' && flag) throw new UsageError(`unknown option ${flag.split(' ')[0]}`, command);
     if (err.code === 'ERR_PARSE_ARGS_INVALID_OPTION_VALUE' && flag) {
-      throw new UsageError(text.includes('argument missing') ? `option ${flag.split(' ')[0]} needs a value` : `option ${flag.split(' ')[0]} takes no value`, command);
+      const name = flag.split(' ')[0];
+      if (text.includes('ambiguous')) throw new UsageError(`option ${name} needs a value; write ${name}=VALUE for a value that starts with "-"`, command);
+      throw new UsageError(text.includes('argument missing') ? `option ${name} needs a value` : `option ${name} takes no value`, command);
     }
     throw new UsageError(text.replace(/\.$/, ''), command);
   }
