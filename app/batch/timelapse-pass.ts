@@ -5,8 +5,8 @@ import { join } from 'node:path';
 import { editsForFile, embryoMeasureRow, EMBRYO_MEASURE_COLUMNS, summaryBoundary } from '../../core/batch';
 import { toCsv, type CsvValue } from '../../core/csv';
 import type { ProjectDoc } from '../../core/contract';
-import { accumulationFigure, figureSlug, kymographFigure, lambdaOverTimeFigure } from '../../core/figures';
-import type { EmbryoResult, HandEdits, StackInfo } from '../../core/model';
+import { accumulationFigure, figureSlug, kymographFigure, lambdaOverTimeFigure, type AccumulationFigureInput, type KymographInput, type LambdaPoint } from '../../core/figures';
+import type { EmbryoResult, HandEdits, PlaneSource, ProjectedStack, StackInfo } from '../../core/model';
 import { analyseMovie } from '../../core/pipeline';
 import { settingsInForce, type AnalysisSettings } from '../../core/settings';
 import { pagesAsTimePoints, resolveTimeAxis } from '../../core/tiff';
@@ -39,6 +39,8 @@ export interface MovieOutcome {
   readonly file: string;
   readonly timeIndices: readonly number[];
   readonly timesS: Float64Array | null;
+  /** Where the times came from (ome-plane, ome-increment, imagej, ome-zarr, user), or null. */
+  readonly timeSource?: string | null;
   readonly results: readonly EmbryoResult[];
   readonly summary: MovieSummary;
 }
@@ -58,6 +60,37 @@ function asMovie(info: StackInfo, timeStepS: number | null): StackInfo {
   return timeStepS !== null && info.sizeT === 1 && !info.isOme ? pagesAsTimePoints(info) : info;
 }
 
+/** What the window follows while a movie is analysed: progress, each time point's projection, cancelling. */
+export interface MovieHooks {
+  readonly onTimePoint?: (done: number, total: number) => void;
+  readonly onProjected?: (k: number, projected: ProjectedStack, total: number) => void;
+  readonly signal?: { readonly aborted: boolean } | null;
+}
+
+/** An opened movie analysed over time (the batch and the window share this); null when it has one time point. */
+async function analyseOpenedMovie(
+  opened: { info: StackInfo; source: PlaneSource }, file: string, settings: AnalysisSettings, doc: ProjectDoc | null,
+  options: TimelapseOptions, hooks: MovieHooks,
+): Promise<MovieOutcome | { file: string; error: string } | null> {
+  const info = asMovie(opened.info, options.timeStepS);
+  if (info.sizeT <= 1) return null;
+  const picked = selectTimeIndices(options.selection, info.sizeT);
+  if (typeof picked === 'string') return { file, error: `${file}: ${picked}` };
+  const warnings: string[] = [];
+  const axis = resolveTimeAxis(info, options.timeStepS, warnings);
+  const own = editsAt(doc, file, settings, null);
+  const fileSettings = own.settings;
+  const m = await analyseMovie(info, opened.source, fileSettings, {
+    fileLabel: file, handEdits: own.handEdits, editsAt: (t) => editsAt(doc, file, settings, t),
+    timeIndices: picked, axisPerTime: options.axisPerTime, ...hooks,
+  });
+  const timesS = axis.timesS ? Float64Array.from(picked, (t) => axis.timesS![t]) : null;
+  const summary = summarizeMovie(file, picked, timesS, m.results, {
+    fitRangeEl: fileSettings.fitRangeEl, modelRangeEl: options.tauRangeEl, baselineFrames: options.baselineFrames,
+  });
+  return { file, timeIndices: picked, timesS, timeSource: axis.source, results: m.results, summary: { ...summary, warnings: [...warnings, ...summary.warnings] } };
+}
+
 /** Analyse one file as a movie; null when it has a single time point. Never rejects. */
 export async function analyseMovieFile(
   folder: string, file: string, settings: AnalysisSettings, doc: ProjectDoc | null, options: TimelapseOptions,
@@ -67,27 +100,29 @@ export async function analyseMovieFile(
     // A file that does not open is the main pass's failure, already reported there.
     opened = await openStack(join(folder, file), file).catch(() => null);
     if (!opened) return null;
-    const info = asMovie(opened.info, options.timeStepS);
-    if (info.sizeT <= 1) return null;
-    const picked = selectTimeIndices(options.selection, info.sizeT);
-    if (typeof picked === 'string') return { file, error: `${file}: ${picked}` };
-    const warnings: string[] = [];
-    const axis = resolveTimeAxis(info, options.timeStepS, warnings);
-    const own = editsAt(doc, file, settings, null);
-    const fileSettings = own.settings;
-    const m = await analyseMovie(info, opened.source, fileSettings, {
-      fileLabel: file, handEdits: own.handEdits, editsAt: (t) => editsAt(doc, file, settings, t),
-      timeIndices: picked, axisPerTime: options.axisPerTime,
-    });
-    const timesS = axis.timesS ? Float64Array.from(picked, (t) => axis.timesS![t]) : null;
-    const summary = summarizeMovie(file, picked, timesS, m.results, {
-      fitRangeEl: fileSettings.fitRangeEl, modelRangeEl: options.tauRangeEl, baselineFrames: options.baselineFrames,
-    });
-    return { file, timeIndices: picked, timesS, results: m.results, summary: { ...summary, warnings: [...warnings, ...summary.warnings] } };
+    return await analyseOpenedMovie(opened, file, settings, doc, options, {});
   } catch (e) {
     return { file, error: fileMessage(file, e) };
   } finally {
     await opened?.source.close().catch(() => undefined);
+  }
+}
+
+/**
+ * The window's analysis of one movie at `path` (project key `file`), as the batch analyses it. Rejects with a
+ * one-line message naming the file when it does not open, has one time point, or is cancelled (AbortError).
+ */
+export async function analyseMovieAtPath(
+  path: string, file: string, settings: AnalysisSettings, doc: ProjectDoc | null, options: TimelapseOptions, hooks: MovieHooks,
+): Promise<MovieOutcome> {
+  const opened = await openStack(path, file);
+  try {
+    const r = await analyseOpenedMovie(opened, file, settings, doc, options, hooks);
+    if (r === null) throw new Error(`${file}: has one time point; the time-lapse view needs a movie`);
+    if ('error' in r) throw new Error(r.error);
+    return r;
+  } finally {
+    await opened.source.close().catch(() => undefined);
   }
 }
 
@@ -117,15 +152,16 @@ export function timecourseBoundariesCsv(movies: readonly MovieOutcome[]): string
   return toCsv(['file', 't_index', 't_s', 'channel', 'method', 'position_el', 'position_um', 'width_el', 'position_se_el', 'direction', 'note'], rows);
 }
 
-/** The three figures of one movie (SVG text by file-name suffix). */
-export function movieFigures(m: MovieOutcome): { name: string; title: string; svg: string }[] {
+/** The data of one movie's three figures (λ over time, the kymograph, τ(x) with the model lines). */
+export function movieFigureData(m: MovieOutcome): {
+  lambda: LambdaPoint[]; steadyLambdaEl: number | undefined; kymograph: KymographInput | null; accumulation: AccumulationFigureInput | null;
+} {
   const s = m.summary;
-  const slug = figureSlug(m.file.replace(/\.(ome\.)?tiff?$/i, ''));
   const times = m.timesS ?? Float64Array.from(m.timeIndices);
-  const lambda = lambdaOverTimeFigure(s.lambda.map((l) => ({
+  const lambda = s.lambda.map((l) => ({
     tS: l.tS, lambdaEl: l.fit?.lambdaEl ?? NaN,
     ciLowEl: l.fit ? l.fit.lambdaCiLowUm / (l.fit.lambdaUm / l.fit.lambdaEl) : NaN, ciHighEl: l.fit ? l.fit.lambdaCiHighUm / (l.fit.lambdaUm / l.fit.lambdaEl) : NaN,
-  })), { steadyLambdaEl: s.steadyFit?.lambdaEl });
+  }));
   const profiles = m.results.map((r) => r.gradientProfile);
   const first = profiles.find((p) => p !== null) ?? null;
   const boundaryTrack = m.results.map((r) => summaryBoundary(r)?.positionEl ?? NaN);
@@ -134,17 +170,38 @@ export function movieFigures(m: MovieOutcome): { name: string; title: string; sv
     ...(boundaryTrack.some(Number.isFinite) ? [{ label: `boundary (channel ${m.results.find((r) => r.boundaries[0])?.boundaries[0].channel ?? '?'})`, kind: 'boundary' as const, xEl: boundaryTrack }] : []),
     ...landmarkNames.map((name) => ({ label: name, kind: 'landmark' as const, xEl: m.results.map((r) => r.landmarks.find((l) => l.name === name)?.xEl ?? NaN) })),
   ];
-  const kymo = first ? kymographFigure({ xEl: first.xEl, timesS: times, values: profiles.map((p) => p?.mean ?? first.xEl.map(() => NaN)), tracks }) : null;
+  const kymograph = first ? { xEl: first.xEl, timesS: times, values: profiles.map((p) => p?.mean ?? first.xEl.map(() => NaN)), tracks } : null;
   const a = s.accumulation;
-  const tau = a ? accumulationFigure({
+  const accumulation = a ? {
     xEl: a.xEl, tauS: a.tauS, ciLowS: a.tauCiLowS, ciHighS: a.tauCiHighS,
     fit: s.model ? { tau0S: s.model.tau0S.value, lambdaTauEl: s.model.lambdaTauEl.value, rangeEl: s.model.rangeEl, steadyLambdaEl: s.steadyFit?.lambdaEl ?? NaN } : null,
-  }) : null;
+  } : null;
+  return { lambda, steadyLambdaEl: s.steadyFit?.lambdaEl, kymograph, accumulation };
+}
+
+/** The three figures of one movie (SVG text by file-name suffix). */
+export function movieFigures(m: MovieOutcome): { name: string; title: string; svg: string }[] {
+  const slug = figureSlug(m.file.replace(/\.(ome\.)?tiff?$/i, ''));
+  const d = movieFigureData(m);
+  const lambda = lambdaOverTimeFigure(d.lambda, { steadyLambdaEl: d.steadyLambdaEl });
+  const kymo = d.kymograph ? kymographFigure(d.kymograph) : null;
+  const tau = d.accumulation ? accumulationFigure(d.accumulation) : null;
   return [
     { name: `${slug}-lambda.svg`, title: `λ over time — ${m.file}`, svg: lambda },
     ...(kymo ? [{ name: `${slug}-kymograph.svg`, title: `kymograph — ${m.file}`, svg: kymo }] : []),
     ...(tau ? [{ name: `${slug}-tau.svg`, title: `local accumulation time τ(x) — ${m.file}`, svg: tau }] : []),
   ];
+}
+
+/** The five tables of the given movies as the batch writes them (CSV text). */
+export function movieTables(movies: readonly MovieOutcome[]): { timecourse: string; profiles: string; boundaries: string; accumulation: string; modelFit: string } {
+  return {
+    timecourse: timecourseCsv(movies),
+    profiles: timecourseProfilesCsv(movies),
+    boundaries: timecourseBoundariesCsv(movies),
+    accumulation: toCsv(ACCUMULATION_COLUMNS, movies.flatMap((m) => accumulationRows(m.summary))),
+    modelFit: toCsv(MODEL_FIT_COLUMNS, movies.map((m) => modelFitRow(m.summary))),
+  };
 }
 
 /** Writes the tables, figures (timelapse/*.svg) and timelapse.html for the analysed movies; returns the paths. */
@@ -153,11 +210,12 @@ export async function writeTimelapseOutputs(outDir: string, movies: readonly Mov
   await fs.mkdir(figureDir, { recursive: true });
   const written: string[] = [];
   const put = async (path: string, text: string): Promise<void> => { await writeFileAtomic(path, text); written.push(path); };
-  await put(join(outDir, 'timecourse.csv'), timecourseCsv(movies));
-  await put(join(outDir, 'timecourse_profiles.csv'), timecourseProfilesCsv(movies));
-  await put(join(outDir, 'timecourse_boundaries.csv'), timecourseBoundariesCsv(movies));
-  await put(join(outDir, 'accumulation.csv'), toCsv(ACCUMULATION_COLUMNS, movies.flatMap((m) => accumulationRows(m.summary))));
-  await put(join(outDir, 'model_fit.csv'), toCsv(MODEL_FIT_COLUMNS, movies.map((m) => modelFitRow(m.summary))));
+  const tables = movieTables(movies);
+  await put(join(outDir, 'timecourse.csv'), tables.timecourse);
+  await put(join(outDir, 'timecourse_profiles.csv'), tables.profiles);
+  await put(join(outDir, 'timecourse_boundaries.csv'), tables.boundaries);
+  await put(join(outDir, 'accumulation.csv'), tables.accumulation);
+  await put(join(outDir, 'model_fit.csv'), tables.modelFit);
   const figures = movies.map((m) => ({ movie: m, figures: movieFigures(m) }));
   for (const { figures: list } of figures) for (const f of list) await put(join(figureDir, f.name), f.svg);
   await put(join(outDir, 'timelapse.html'), timelapsePage(figures, failures, new Date().toISOString()));

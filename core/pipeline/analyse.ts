@@ -13,6 +13,8 @@ export interface AnalyseOptions {
   readonly handEdits?: HandEdits | null;
   /** The embryo (mask and axis) found beforehand, used instead of segmenting this stack: a movie's, found once. */
   readonly detection?: EmbryoDetection | null;
+  /** Told the Z projection once it is made (the window keeps a small copy of each time point of a movie). */
+  readonly onProjected?: (projected: ProjectedStack) => void;
   /** Time of the analysed time point in s, when the caller knows it better than the file (--time-step); else the file's. */
   readonly timeS?: number | null;
   /** This time point's projection when the caller already has it (a movie's sampled time points); else it is read. */
@@ -45,6 +47,7 @@ async function analyseOneTimePoint(info: StackInfo, source: PlaneSource, setting
   if (bad) return errorResult(file, bad);
   try {
     const projected = options.projected ?? await projectStack(info, source, settings);
+    options.onProjected?.(projected);
     const detection = options.detection ?? detectEmbryo(projected, settings);
     const hand = options.handEdits?.axis ?? null;
     const axis = hand ? { ...hand, source: 'hand' as const } : detection.axis;
