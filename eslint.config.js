@@ -81,13 +81,28 @@ export default tseslint.config(
       ['electron', 'sharp', ...nodeBuiltins], ['**/app/**', 'core/io', '**/core/io', '**/core/io/**']),
   },
   {
+    // Hooks, state, live measurement, overlays and the rest sit below the panels: only App.tsx and the panels themselves
+    // import renderer/components (one rule object, as a later no-restricted-imports replaces an earlier one).
+    files: ['renderer/**/*.{ts,tsx}'],
+    ignores: ['renderer/vite.config.ts', 'renderer/components/**', 'renderer/App.tsx', 'renderer/main.tsx'],
+    rules: layer('renderer/ draws state: it may import core/ and the API contract, never node, electron, sharp or app/; only App.tsx and renderer/components import renderer/components.',
+      ['electron', 'sharp', ...nodeBuiltins], ['**/app/**', 'core/io', '**/core/io', '**/core/io/**', '../components', '../components/**', '**/renderer/components/**']),
+  },
+  {
     files: ['app/preload/**/*.ts'],
     rules: layer('The preload may import only electron and the API contract.',
       ['sharp', 'react', 'react-dom', ...nodeBuiltins], ['**/renderer/**', '**/core/!(contract)/**', '**/core/!(contract)']),
   },
   {
     files: ['app/**/*.ts'],
-    ignores: ['app/preload/**'],
+    ignores: ['app/preload/**', 'app/main/**'],
+    // Only the Electron main process (app/main) wires the engine, the workers and the window together; the engine,
+    // the workers, the batch, the command line and the rest never reach back into it.
+    rules: layer('app/ may import core/ but never react or renderer/; only app/main imports app/main (shared code lives in app/engine).',
+      ['react', 'react-dom'], ['**/renderer/**', '../main', '../main/**', '**/app/main/**']),
+  },
+  {
+    files: ['app/main/**/*.ts'],
     rules: layer('app/ may import core/ but never react or renderer/.', ['react', 'react-dom'], ['**/renderer/**']),
   },
 );

@@ -6,8 +6,8 @@ import { makeSyntheticEmbryo, syntheticPlaneSource, syntheticStackInfo } from '.
 import { projectStack } from '../core/image';
 import { detectEmbryo } from '../core/geometry';
 import { prepareSampling } from '../core/profile/prepare';
-import { measureEmbryo, sideFilter } from '../core/profile/measure';
-import { binIndices, binProfile } from '../core/profile/bin';
+import { measureEmbryo } from '../core/profile/measure';
+import { binProfile } from '../core/profile/bin';
 
 const embryo = makeSyntheticEmbryo({ widthPx: 1024, heightPx: 1024, pixelSizeUm: 0.6, sizeZ: 2, angleDeg: 33 }, 1);
 const base = { ...DEFAULT_SETTINGS, boundaryChannels: [2] };
@@ -31,16 +31,16 @@ function timeMeasure(label: string, settings: AnalysisSettings): void {
   }
   times.sort((a, b) => a - b);
   // Sampling alone (binning both channels), without the exponential and boundary fits.
-  const set = settings.profile.mode === 'axis' ? prepared.inside : prepared.band;
+  const set = prepared.region.pixels;
   const sampling: number[] = [];
   for (let i = 0; i < 30; i++) {
     const s = performance.now();
-    const bins = binIndices(set.xs, set.ys, detection.axis, settings.profile.binCount, sideFilter(settings), settings.profile.mode === 'axis' ? settings.profile.axisWidthUm / 0.6 / 2 : Infinity);
+    const bins = prepared.sampler.bins(prepared, detection.axis, settings);
     for (const v of set.values) binProfile(v, bins, settings.profile.binCount, 'c', 500);
     sampling.push(performance.now() - s);
   }
   sampling.sort((a, b) => a - b);
-  const band = settings.profile.mode === 'axis' ? prepared.inside.xs.length : prepared.band.xs.length;
+  const band = set.xs.length;
   console.log(`${label.padEnd(22)} prepare ${prepareMs.toFixed(1).padStart(7)} ms   measure median ${times[15].toFixed(2).padStart(6)} ms   max ${times[29].toFixed(2).padStart(6)} ms   sampling only ${sampling[15].toFixed(2).padStart(5)} ms   (${band} pixels)`);
 }
 

@@ -33,7 +33,7 @@ const cases: [string, () => unknown][] = [
   ['    medianInPlace (outside px)', () => medianInPlace(outside.slice())],
   ['    copy of the outside px', () => outside.slice()],
   ['  band + pixel set (prepare − dist − bg)', () => null],
-  ['prepareSampling + inside pixel set', () => prepareSampling(projected, detection, settings).inside],
+  ['prepareSampling, axis strip (whole mask)', () => prepareSampling(projected, detection, { ...settings, profile: { ...settings.profile, mode: 'axis' } })],
   ['estimateBackgroundLevel (1 ch)', () => estimateBackgroundLevel(projected.channels[0].data)],
   ['endMeans', () => endMeans(projected.channels[0], mask, detection.axis.anterior, detection.axis.posterior)],
   ['principalAxis', () => principalAxis(mask)],

@@ -3,6 +3,7 @@
 import { useCallback, useEffect, useMemo, useReducer, useRef, useState } from 'react';
 import { MENU_OPEN_RECENT_PREFIX } from '../core/contract';
 import type { Plane } from '../core/model';
+import { straightViewHalfWidthPx } from '../core/profile';
 import { settingsInForce } from '../core/settings';
 import { getApi } from './api';
 import { BatchPanel } from './components/BatchPanel';
@@ -11,7 +12,7 @@ import { CohortView } from './components/CohortView';
 import { FitNumbers } from './components/FitNumbers';
 import { FolderList } from './components/FolderList';
 import { EmbryoView } from './components/EmbryoView';
-import { ALL_OVERLAYS } from './components/ImageOverlay';
+import { ALL_OVERLAYS } from './overlay/ImageOverlay';
 import { LandmarkList } from './components/LandmarkList';
 import { SettingsPanel } from './components/SettingsPanel';
 import { Toolbar, type Tab } from './components/Toolbar';
@@ -189,7 +190,7 @@ export function App() {
   useEffect(() => api?.onMenuCommand((c) => commandRef.current(c)), [api]);
 
   if (api === null) return <div className="fatal">This page must run inside Eggline: the app connection (window.eggline) is missing.</div>;
-  const halfWidthPx = stack === null || pixelSizeUm === null ? 50 : (stack.detection.eggWidthUm / pixelSizeUm) * 0.6;
+  const halfWidthPx = stack === null ? 50 : straightViewHalfWidthPx(stack.detection.eggWidthUm, stack.projected.pixelSizeUm);
   const message = session.message ?? (saveStatus.kind === 'error' ? `Not saved: ${saveStatus.message}` : null);
 
   return (

@@ -9,6 +9,7 @@ const nodeEntries = [
   { in: 'app/cli/main.ts', out: 'cli' },
   { in: 'app/workers/batch-worker.ts', out: 'batch-worker' },
   { in: 'app/workers/analysis-worker.ts', out: 'analysis-worker' },
+  { in: 'app/workers/zarr-chunk-worker.ts', out: 'zarr-chunk-worker' },
   { in: 'bench/bench.ts', out: 'bench' },
   { in: 'bench/vs-script.ts', out: 'bench-script' },
   { in: 'bench/zarr-bench.ts', out: 'zarr-bench' },

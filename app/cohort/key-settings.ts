@@ -1,4 +1,5 @@
 // The few batch settings a reader needs to judge the numbers, picked from the run record (any shape; missing → skipped).
+import { PROFILE_SAMPLERS } from '../../core/pipeline';
 
 function at(value: unknown, path: readonly string[]): unknown {
   let v = value;
@@ -14,10 +15,11 @@ function channel(v: unknown): string {
   return typeof v === 'number' ? `channel ${v}` : typeof v === 'string' ? `channel ‘${v}’` : '';
 }
 
+/** How the profile was sampled, in the words of the run's sampler (the mode's name when no sampler has it). */
 function profileText(p: unknown): string {
   const mode = at(p, ['mode']);
-  if (mode === 'edge') return `edge band, ${String(at(p, ['edgeSide']) ?? '?')} side(s), ${String(at(p, ['edgeDepthUm']) ?? '?')} µm deep`;
-  if (mode === 'axis') return `strip along the axis, ${String(at(p, ['axisWidthUm']) ?? '?')} µm wide`;
+  const sampler = PROFILE_SAMPLERS.find((s) => s.mode === mode);
+  if (sampler !== undefined) return sampler.describe((key) => at(p, [key]));
   return typeof mode === 'string' ? mode : '';
 }
 

@@ -2,7 +2,7 @@
 // when neither can or when a plane fails.
 import type { PlaneSource, RawPlane, StackInfo } from '../../core/model';
 import { openFileByteSource } from '../../core/io';
-import { createDirectPlaneSource, createGeotiffPlaneSource, directPathRefusal, readStackInfo, type ByteSource, type StackInfoOptions } from '../../core/tiff';
+import { createDirectPlaneSource, createGeotiffPlaneSource, directPathRefusal, readStackInfoWithChain, type ByteSource, type StackInfoOptions, type TiffChain } from '../../core/tiff';
 import { APP_CHUNK_CODECS } from './lzma-codec';
 import { isZarrPath, openZarrStack } from './open-zarr-stack';
 import { createSharpPlaneSource, sharpDecodesExactly } from './sharp-decoder';
@@ -58,8 +58,9 @@ export async function openStackForAnalysis(path: string, fileLabel: string, opti
   const file = await openFileByteSource(path, fileLabel);
   const bytes = options.wrapSource ? Object.assign(options.wrapSource(file), { close: () => file.close() }) : file;
   let info: StackInfo;
+  let chain: TiffChain;
   try {
-    info = await readStackInfo(bytes, fileLabel, options);
+    ({ info, chain } = await readStackInfoWithChain(bytes, fileLabel, options));
   } catch (err) {
     await file.close();
     throw err;
@@ -67,7 +68,7 @@ export async function openStackForAnalysis(path: string, fileLabel: string, opti
   const geotiff = createGeotiffPlaneSource(bytes, info, fileLabel);
   const warnings: string[] = [];
   if (directPathRefusal(info, APP_CHUNK_CODECS) === null) {
-    return { info, source: withDecoderFallback(createDirectPlaneSource(bytes, info, APP_CHUNK_CODECS, fileLabel), geotiff, warnings, fileLabel), warnings };
+    return { info, source: withDecoderFallback(createDirectPlaneSource(bytes, info, APP_CHUNK_CODECS, fileLabel, chain), geotiff, warnings, fileLabel), warnings };
   }
   if (!sharpDecodesExactly(info)) return { info, source: geotiff, warnings };
   return { info, source: withDecoderFallback(createSharpPlaneSource(path, info, fileLabel), geotiff, warnings, fileLabel), warnings };

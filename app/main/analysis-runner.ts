@@ -3,21 +3,15 @@
 import { Worker } from 'node:worker_threads';
 import type { AnalysisSettings } from '../../core/settings';
 import type { ApiErrorCode } from '../../core/contract';
-import type { SliceData, ViewData } from './engine';
+import type { SliceData, ViewData } from '../engine/engine';
+import type { AnalysisReply, AnalysisRequest } from '../engine/analysis-protocol';
 import { ApiFailure } from './result';
 
-/** A request to the analysis worker: a whole view (project + detect) or one raw slice. */
-export type AnalysisRequest =
-  | { readonly id: number; readonly kind: 'view'; readonly path: string; readonly label: string; readonly settings: AnalysisSettings }
-  | { readonly id: number; readonly kind: 'slice'; readonly path: string; readonly label: string; readonly z: number; readonly c: number; readonly t: number };
+export type { AnalysisReply, AnalysisRequest } from '../engine/analysis-protocol';
 
 /** Requests without their id (the runner numbers them). */
 type RequestBody = AnalysisRequest extends infer R ? R extends AnalysisRequest ? Omit<R, 'id'> : never : never;
 
-/** The worker's answer: the value or the error's name, code and message. */
-export type AnalysisReply =
-  | { readonly id: number; readonly ok: true; readonly value: ViewData | SliceData }
-  | { readonly id: number; readonly ok: false; readonly error: { readonly name: string; readonly code: string | null; readonly message: string } };
 
 /** A worker-backed runner: `run` fits HandlerDeps.runAnalysisOffThread, `readSlice` HandlerDeps.readSliceOffThread. */
 export interface AnalysisRunner {

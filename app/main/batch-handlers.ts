@@ -3,7 +3,7 @@ import { availableParallelism } from 'node:os';
 import { randomUUID } from 'node:crypto';
 import type { BatchSummary } from '../../core/contract';
 import { requireAllowed, requireProjectDoc, requireText } from './args';
-import { findSampleSheet } from './cohort-summary';
+import { findSampleSheet } from '../engine/cohort-summary';
 import type { ShellContext } from './context';
 import { ApiFailure } from './result';
 

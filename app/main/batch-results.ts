@@ -6,7 +6,7 @@ import { embryoResults, resultsDocFromJson } from '../../core/batch';
 import type { BatchSummary, CohortSummary } from '../../core/contract';
 import type { EmbryoResult, MovieRecord } from '../../core/model';
 import { requireAllowed } from './args';
-import { cohortSummaryFor, findSampleSheet } from './cohort-summary';
+import { cohortSummaryFor, findSampleSheet } from '../engine/cohort-summary';
 import type { ShellContext } from './context';
 import { ApiFailure, labelOf } from './result';
 

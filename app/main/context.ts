@@ -2,7 +2,7 @@
 import type { BatchProgress, ExportKind } from '../../core/contract';
 import type { AnalysisSettings } from '../../core/settings';
 import type { PathAllowList } from './allow-list';
-import type { AnalysisEngine, ViewData } from './engine';
+import type { AnalysisEngine, ViewData } from '../engine/engine';
 
 /** Native dialogs and other shell services the handlers need; main.ts supplies electron-backed versions. */
 export interface HandlerDeps {

@@ -5,7 +5,7 @@ import { createPathAllowList } from './allow-list';
 import { cancelBatch, runBatch } from './batch-handlers';
 import { loadBatchResults, openReport } from './batch-results';
 import type { HandlerDeps, ShellContext } from './context';
-import { createDefaultEngine } from './default-engine';
+import { createDefaultEngine } from '../engine/default-engine';
 import { openDemo } from './demo';
 import { exportFile, svgToPng } from './export-handlers';
 import { openDropped, openFiles, openFolder, openProjectFile, openRecent } from './open-handlers';

@@ -1,15 +1,10 @@
 // Errors as values: every handler result is {ok, value} or {ok: false, error: {code, message}} with a one-line message.
 import { basename } from 'node:path';
 import type { ApiErrorCode, ApiResult } from '../../core/contract';
+import { ApiFailure } from '../engine/api-failure';
 import { ProjectFormatError } from '../project';
 
-/** An expected failure with its API code; handlers throw it internally and guard() turns it into a value. */
-export class ApiFailure extends Error {
-  override readonly name = 'ApiFailure';
-  constructor(readonly code: ApiErrorCode, message: string) {
-    super(message);
-  }
-}
+export { ApiFailure };
 
 /** A successful result. */
 export function ok<T>(value: T): ApiResult<T> {

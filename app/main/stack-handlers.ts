@@ -4,7 +4,7 @@ import { isStackFolderName } from '../../core/batch';
 import type { LoadedStack, SliceRequest } from '../../core/contract';
 import { requireAllowed, requireInt, requireSettings } from './args';
 import type { ShellContext } from './context';
-import type { SliceData } from './engine';
+import type { SliceData } from '../engine/engine';
 import { ApiFailure, labelOf } from './result';
 
 /** Largest plane index accepted in a slice request (far above any real stack). */

@@ -1,8 +1,8 @@
 // Worker thread for the desktop app: projects and detects one stack, or decodes one slice, per request.
 import { parentPort } from 'node:worker_threads';
-import type { AnalysisReply, AnalysisRequest } from '../main/analysis-runner';
-import { createDefaultEngine } from '../main/default-engine';
-import type { SliceData, ViewData } from '../main/engine';
+import type { AnalysisReply, AnalysisRequest } from '../engine/analysis-protocol';
+import { createDefaultEngine } from '../engine/default-engine';
+import type { SliceData, ViewData } from '../engine/engine';
 
 const engine = createDefaultEngine();
 

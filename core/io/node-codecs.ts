@@ -12,9 +12,7 @@ export function inflateChunk(input: Uint8Array, out: Uint8Array): number {
   try {
     result = inflateSync(input, { maxOutputLength: out.length, finishFlush: constants.Z_SYNC_FLUSH });
   } catch (err) {
-    const code = (err as { code?: string }).code;
-    if (code === 'ERR_BUFFER_TOO_LARGE') throw new Error(`the stream holds more than the chunk's ${out.length} bytes`);
-    throw new Error((err instanceof Error ? err.message : String(err)).split(/\r?\n/)[0]);
+    throw zlibReason(err, out.length);
   }
   out.set(result);
   return result.length;
@@ -40,5 +38,18 @@ export function inflateChunkAsync(input: Uint8Array, out: Uint8Array): Promise<n
   });
 }
 
-/** The pure decoders plus Deflate through node:zlib (asynchronous, on the thread pool). */
-export const NODE_CHUNK_CODECS: ChunkCodecs = { ...PURE_CHUNK_CODECS, 8: inflateChunkAsync, 32946: inflateChunkAsync };
+/** Chunks up to this many decoded bytes are inflated on the JS thread (see inflateChunkAuto). */
+export const SYNC_INFLATE_MAX_BYTES = 32 * 1024;
+
+/**
+ * inflateChunk for small chunks, inflateChunkAsync for larger ones. Why: a call through the thread pool costs tens
+ * of microseconds of bookkeeping (stream, callback, promise), more than inflating a few kilobytes; a file of many
+ * small planes (or libtiff's default 8 KiB strips) spent most of its decode time there. Larger chunks keep
+ * inflating off the JS thread while the previous plane is used. Same limits, results and messages either way.
+ */
+export function inflateChunkAuto(input: Uint8Array, out: Uint8Array): number | Promise<number> {
+  return out.length <= SYNC_INFLATE_MAX_BYTES ? inflateChunk(input, out) : inflateChunkAsync(input, out);
+}
+
+/** The pure decoders plus Deflate through node:zlib (small chunks inline, larger ones on the thread pool). */
+export const NODE_CHUNK_CODECS: ChunkCodecs = { ...PURE_CHUNK_CODECS, 8: inflateChunkAuto, 32946: inflateChunkAuto };

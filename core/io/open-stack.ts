@@ -1,6 +1,6 @@
 // Open a stack file: tags with the core reader, pixels on the direct path (geotiff where it does not reach).
 import type { PlaneSource, StackInfo } from '../model';
-import { createDirectPlaneSource, createGeotiffPlaneSource, directPathRefusal, readStackInfo, type ChunkCodecs, type StackInfoOptions } from '../tiff';
+import { createDirectPlaneSource, createGeotiffPlaneSource, directPathRefusal, readStackInfo, readStackInfoWithChain, type ChunkCodecs, type StackInfoOptions } from '../tiff';
 import { openFileByteSource } from './file-byte-source';
 import { NODE_CHUNK_CODECS } from './node-codecs';
 
@@ -16,10 +16,10 @@ export interface OpenStackOptions extends StackInfoOptions {
 export async function openStackFile(path: string, fileLabel: string, options: OpenStackOptions = {}): Promise<{ info: StackInfo; source: PlaneSource }> {
   const bytes = await openFileByteSource(path, fileLabel);
   try {
-    const info = await readStackInfo(bytes, fileLabel, options);
+    const { info, chain } = await readStackInfoWithChain(bytes, fileLabel, options);
     const codecs = options.codecs ?? NODE_CHUNK_CODECS;
     const direct = options.decoder !== 'geotiff' && directPathRefusal(info, codecs) === null;
-    return { info, source: direct ? createDirectPlaneSource(bytes, info, codecs, fileLabel) : createGeotiffPlaneSource(bytes, info, fileLabel) };
+    return { info, source: direct ? createDirectPlaneSource(bytes, info, codecs, fileLabel, chain) : createGeotiffPlaneSource(bytes, info, fileLabel) };
   } catch (err) {
     await bytes.close();
     throw err;

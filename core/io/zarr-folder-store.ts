@@ -70,8 +70,14 @@ export async function isFolder(path: string): Promise<boolean> {
   return (await stat(path).catch(() => null))?.isDirectory() ?? false;
 }
 
+/** Options of openZarrFolderStore. */
+export interface ZarrFolderStoreOptions {
+  /** Reads and decodes a Blosc chunk file elsewhere (a thread; see readBloscChunkFile); the store then offers readBloscChunk. */
+  readonly readBloscFile?: (path: string, maxBytes: number) => Promise<Uint8Array | undefined | null>;
+}
+
 /** A ZarrStore over the folder `root`; throws ZarrError('io') naming the store when it is not a readable folder. */
-export async function openZarrFolderStore(root: string, label: string = root): Promise<ZarrStore> {
+export async function openZarrFolderStore(root: string, label: string = root, options: ZarrFolderStoreOptions = {}): Promise<ZarrStore> {
   const info = await stat(root).catch((err: NodeJS.ErrnoException) => {
     throw new ZarrError('io', label, `cannot open (${err.code === 'ENOENT' ? 'no such folder' : err.code === 'EACCES' ? 'permission denied' : err.message})`);
   });
@@ -85,5 +91,11 @@ export async function openZarrFolderStore(root: string, label: string = root): P
       const path = keyPath(root, key);
       return path === null ? undefined : readRange(path, range);
     },
+    ...(options.readBloscFile ? {
+      readBloscChunk: async (key: string, maxBytes: number) => {
+        const path = keyPath(root, key);
+        return path === null ? undefined : options.readBloscFile!(path, maxBytes);
+      },
+    } : {}),
   };
 }

@@ -1,9 +1,9 @@
-// One embryo end to end: project → detect → (hand axis) → prepare → measure, as an EmbryoResult that never throws.
+// One embryo end to end: project → detect → (hand axis) → sampler (prepare, sample) → fit, as an EmbryoResult that never throws.
 import { errorResult, withTimePoint, type EmbryoResult, type HandEdits, type PlaneSource, type StackInfo } from '../model';
 import type { AnalysisSettings } from '../settings';
 import { projectStack } from '../image';
 import { detectEmbryo, type EmbryoDetection } from '../geometry';
-import { measureEmbryo, prepareSampling } from '../profile';
+import { fitSampledProfiles, prepareSampling, sampleProfiles } from '../profile';
 
 /** Per-file options of analyseStack. */
 export interface AnalyseOptions {
@@ -44,8 +44,10 @@ async function analyseOneTimePoint(info: StackInfo, source: PlaneSource, setting
     const detection = options.detection ?? detectEmbryo(projected, settings);
     const hand = options.handEdits?.axis ?? null;
     const axis = hand ? { ...hand, source: 'hand' as const } : detection.axis;
+    // The sampler of settings.profile.mode prepares its pixels and bins them along the axis; then the fitter.
     const prepared = prepareSampling(projected, detection, settings);
-    const m = measureEmbryo(prepared, axis, settings, options.handEdits?.landmarks ?? []);
+    const sampled = sampleProfiles(prepared, axis, settings);
+    const m = fitSampledProfiles(sampled, prepared, settings, options.handEdits?.landmarks ?? []);
     const px = projected.pixelSizeUm;
     const warnings = [...new Set([...info.warnings, ...projected.warnings, ...detection.warnings, ...m.warnings])];
     return {

@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import type { ApAxis } from '../model';
 import { binIndices, binProfile } from './bin';
 import { regionMean, outsideBackground } from './background';
-import { filledBins, sideFilter } from './measure';
+import { filledBins } from './measure';
+import { edgeSideFilter } from './samplers';
 import { DEFAULT_SETTINGS } from '../settings';
 
 const axis: ApAxis = { anterior: { x: 0, y: 0 }, posterior: { x: 4, y: 0 }, source: 'hand' };
@@ -43,12 +44,13 @@ describe('binIndices / binProfile', () => {
   });
 });
 
-describe('sideFilter', () => {
+describe('edgeSideFilter', () => {
   it('maps edge side and dorsal side to the left/right of A→P', () => {
-    const s = (edgeSide: 'dorsal' | 'ventral' | 'both', dorsalSide: 'left' | 'right', mode: 'edge' | 'axis' = 'edge') =>
-      sideFilter({ ...DEFAULT_SETTINGS, profile: { ...DEFAULT_SETTINGS.profile, edgeSide, dorsalSide, mode } });
-    expect([s('dorsal', 'left'), s('ventral', 'left'), s('dorsal', 'right'), s('ventral', 'right'), s('both', 'left'), s('dorsal', 'left', 'axis')])
-      .toEqual(['left', 'right', 'right', 'left', 'all', 'all']);
+    // Source: the definitions (dorsalSide names the side of A→P that is dorsal; edgeSide the one sampled).
+    const s = (edgeSide: 'dorsal' | 'ventral' | 'both', dorsalSide: 'left' | 'right') =>
+      edgeSideFilter({ ...DEFAULT_SETTINGS, profile: { ...DEFAULT_SETTINGS.profile, edgeSide, dorsalSide } });
+    expect([s('dorsal', 'left'), s('ventral', 'left'), s('dorsal', 'right'), s('ventral', 'right'), s('both', 'left')])
+      .toEqual(['left', 'right', 'right', 'left', 'all']);
   });
 });
 
@@ -82,12 +84,16 @@ describe('estimateBackgrounds and setting checks', () => {
     expect(estimateBackgrounds([plane], ['a'], mask, { mode: 'region', regionPx: null }, 1).warnings).toEqual(['background region is missing or lies outside the image; no background was subtracted']);
   });
 
-  it('rejects bad sampling settings with exact messages', async () => {
+  it('rejects bad sampling settings with the settings table\'s rules and words', async () => {
     const { checkSamplingSettings } = await import('./check-settings');
+    const { settingSpec } = await import('../settings');
     const withProfile = (p: object) => ({ ...DEFAULT_SETTINGS, profile: { ...DEFAULT_SETTINGS.profile, ...p } });
-    expect(() => checkSamplingSettings(withProfile({ binCount: 0 }))).toThrow('profile.binCount must be an integer ≥ 1, got 0');
-    expect(() => checkSamplingSettings(withProfile({ edgeDepthUm: -1 }))).toThrow('profile.edgeDepthUm must be a positive number, got -1');
-    expect(() => checkSamplingSettings(withProfile({ axisWidthUm: NaN }))).toThrow('profile.axisWidthUm must be a positive number, got NaN');
+    expect(() => checkSamplingSettings(withProfile({ binCount: 0 }))).toThrow(`profile.binCount must be ${settingSpec('profile.binCount').rule} (got 0)`);
+    expect(() => checkSamplingSettings(withProfile({ binCount: 0 }))).toThrow('profile.binCount must be a whole number from 10 to 2000 (got 0)');
+    expect(() => checkSamplingSettings(withProfile({ edgeDepthUm: -1 }))).toThrow('profile.edgeDepthUm must be a positive number of µm (got -1)');
+    expect(() => checkSamplingSettings(withProfile({ axisWidthUm: NaN }))).toThrow('profile.axisWidthUm must be a positive number of µm (got NaN)');
+    expect(() => checkSamplingSettings({ ...DEFAULT_SETTINGS, background: { mode: 'far', regionPx: null } } as never))
+      .toThrow('background.mode must be "outside", "region" or "none" (got "far")');
     expect(() => checkSamplingSettings(DEFAULT_SETTINGS)).not.toThrow();
   });
 });

@@ -1,8 +1,14 @@
-// Public surface of core/profile: prepare once per detection, then measure along any axis (fast, for live use).
-export { prepareSampling } from './prepare';
-export type { PreparedSampling, PixelSet } from './prepare';
-export { measureEmbryo, sideFilter, filledBins, fitProfile, binWeights, polesOutsideWarnings, poleSlackPx } from './measure';
-export type { Measurement } from './measure';
+// Public surface of core/profile: a sampler per profile mode (samplers/), prepared once per detection; then per axis
+// the sampler's profiles and the fit (fast, for live use).
+export { prepareSampling, samplingBase } from './prepare';
+export {
+  PROFILE_SAMPLERS, samplerFor, EDGE_BAND, AXIS_STRIP, edgeSideFilter, edgeDepthPx, stripHalfWidthPx, rowsWhere, straightViewHalfWidthPx,
+} from './samplers';
+export type { PreparedSampling, PixelSet, ProfileSampler, SampledRegion, SamplingBase, MaskBox } from './samplers';
+export {
+  measureEmbryo, sampleProfiles, fitSampledProfiles, filledBins, fitProfile, binWeights, polesOutsideWarnings, poleSlackPx,
+} from './measure';
+export type { Measurement, SampledProfiles } from './measure';
 export { binIndices, binProfile } from './bin';
 export type { SideFilter } from './bin';
 export { estimateBackgrounds, outsideBackground, regionMean } from './background';

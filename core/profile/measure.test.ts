@@ -114,11 +114,13 @@ describe('measureEmbryo', () => {
 describe('sampleBandOutline', () => {
   it('draws the axis strip as a rectangle and the edge band as contours', () => {
     const { projected, detection } = scene(1);
-    const strip = sampleBandOutline(prepareSampling(projected, detection, settings()), detection.axis, settings({}, { mode: 'axis', axisWidthUm: 10 }));
+    const axisStrip = settings({}, { mode: 'axis', axisWidthUm: 10 });
+    const strip = sampleBandOutline(prepareSampling(projected, detection, axisStrip), detection.axis, axisStrip);
     expect(strip).toEqual([[{ x: 19.5, y: 54.5 }, { x: 219.5, y: 54.5 }, { x: 219.5, y: 64.5 }, { x: 19.5, y: 64.5 }]]);
-    const band = sampleBandOutline(detection, detection.axis, settings(), 1);
+    const band = sampleBandOutline(prepareSampling(projected, detection, settings()), detection.axis, settings());
     expect(band).toHaveLength(2); // outer and inner ring
-    const dorsal = sampleBandOutline(detection, detection.axis, settings({}, { edgeSide: 'dorsal' }), 1);
+    const dorsalBand = settings({}, { edgeSide: 'dorsal' });
+    const dorsal = sampleBandOutline(prepareSampling(projected, detection, dorsalBand), detection.axis, dorsalBand);
     expect(dorsal).toHaveLength(1);
   });
 });

@@ -6,9 +6,8 @@ import { describeChannelRef, resolveChannel } from '../image';
 import { axisLengthPx, distanceOutsideMaskPx, projectPointOntoAxis } from '../geometry';
 import { findBoundaries, fitExponentialDecay } from '../fit';
 import { notDecayingWarning } from '../stats';
-import type { PreparedSampling } from './prepare';
-import { binIndices, binProfile } from './bin';
-import type { SideFilter } from './bin';
+import type { PreparedSampling } from './samplers';
+import { binProfile } from './bin';
 import { checkSamplingSettings } from './check-settings';
 
 /**
@@ -18,14 +17,6 @@ import { checkSamplingSettings } from './check-settings';
 export type Measurement = Pick<EmbryoResult,
   'gradientChannel' | 'gradientProfile' | 'gradientFit' | 'boundaryProfiles' | 'boundaries' | 'landmarks' | 'backgrounds'
   | 'eggLengthUm' | 'warnings'>;
-
-/** Side of the A→P line sampled: edge mode follows edgeSide and dorsalSide; the axis strip takes both sides. */
-export function sideFilter(settings: AnalysisSettings): SideFilter {
-  const p = settings.profile;
-  if (p.mode === 'axis' || p.edgeSide === 'both') return 'all';
-  const dorsalLeft = p.dorsalSide === 'left';
-  return (p.edgeSide === 'dorsal') === dorsalLeft ? 'left' : 'right';
-}
 
 /** Copy of a profile without its empty bins (fit and boundary finders need finite values). */
 export function filledBins(p: Profile): Profile {
@@ -112,28 +103,59 @@ export function polesOutsideWarnings(mask: Mask, axis: ApAxis, pixelSizeUm: numb
   return out;
 }
 
+/** The sampler's step: binned, background-subtracted profiles of the gradient and boundary channels along one axis. */
+export interface SampledProfiles {
+  readonly axis: ApAxis;
+  readonly axisPx: number;
+  readonly pixelSizeUm: number | null;
+  /** Egg length, pole to pole, µm (null when the pixel size is unknown). */
+  readonly eggLengthUm: number | null;
+  /** Index of the gradient channel (null when the file lacks it), and its profile. */
+  readonly gradient: number | null;
+  readonly gradientProfile: Profile | null;
+  /** Indices and profiles of the boundary channels the file has. */
+  readonly boundaryChannels: readonly number[];
+  readonly boundaryProfiles: readonly Profile[];
+  /** Warnings so far: the preparation's, poles outside the embryo, then missing gradient and boundary channels. */
+  readonly warnings: readonly string[];
+  readonly gradientWarnings: readonly string[];
+  readonly boundaryWarnings: readonly string[];
+}
+
 /**
- * Measure along `axis` with the prepared pixels: binned profiles of the gradient and boundary channels (edge band or
- * axis strip, background subtracted), the exponential fit of the gradient, boundaries per boundary channel and the
- * landmarks' positions on the axis.
+ * Sample along `axis` with the prepared sampler: its bins for every region pixel, then one profile per channel used
+ * (gradient, boundary channels), background subtracted.
  */
-export function measureEmbryo(prepared: PreparedSampling, axis: ApAxis, settings: AnalysisSettings, landmarks: readonly Landmark[]): Measurement {
+export function sampleProfiles(prepared: PreparedSampling, axis: ApAxis, settings: AnalysisSettings): SampledProfiles {
   checkSamplingSettings(settings);
-  const warnings: string[] = [...prepared.warnings];
   const px = prepared.pixelSizeUm;
-  warnings.push(...polesOutsideWarnings(prepared.mask, axis, px));
+  const warnings = [...prepared.warnings, ...polesOutsideWarnings(prepared.mask, axis, px)];
   const axisPx = axisLengthPx(axis);
   const eggLengthUm = px !== null ? axisPx * px : null;
-  const prof = settings.profile;
-  const set = prof.mode === 'axis' ? prepared.inside : prepared.band;
-  const halfStripPx = prof.mode === 'axis' ? (px ? prof.axisWidthUm / px : prof.axisWidthUm) / 2 : Infinity;
-  const bins = binIndices(set.xs, set.ys, axis, prof.binCount, sideFilter(settings), halfStripPx);
-  const profileOf = (c: number): Profile => binProfile(set.values[c], bins, prof.binCount, prepared.channelNames[c], eggLengthUm);
-  const g = resolveRefs([settings.gradientChannel], prepared.channelNames, 'gradient', warnings)[0] ?? null;
-  const gradientProfile = g !== null ? profileOf(g) : null;
+  const binCount = settings.profile.binCount;
+  const bins = prepared.sampler.bins(prepared, axis, settings);
+  const values = prepared.region.pixels.values;
+  const profileOf = (c: number): Profile => binProfile(values[c], bins, binCount, prepared.channelNames[c], eggLengthUm);
+  const gradientWarnings: string[] = [];
+  const g = resolveRefs([settings.gradientChannel], prepared.channelNames, 'gradient', gradientWarnings)[0] ?? null;
+  const boundaryWarnings: string[] = [];
+  const bc = resolveRefs(settings.boundaryChannels, prepared.channelNames, 'boundary', boundaryWarnings);
+  return {
+    axis, axisPx, pixelSizeUm: px, eggLengthUm, gradient: g, gradientProfile: g !== null ? profileOf(g) : null,
+    boundaryChannels: bc, boundaryProfiles: bc.map(profileOf), warnings, gradientWarnings, boundaryWarnings,
+  };
+}
+
+/**
+ * The fitter's step on sampled profiles: the exponential fit of the gradient over settings.fitRangeEl, boundaries per
+ * boundary channel within settings.boundarySearchEl, and the landmarks' positions on the axis.
+ */
+export function fitSampledProfiles(sampled: SampledProfiles, prepared: PreparedSampling, settings: AnalysisSettings, landmarks: readonly Landmark[]): Measurement {
+  const { axis, axisPx, eggLengthUm, gradient: g, gradientProfile, boundaryProfiles } = sampled;
+  const px = sampled.pixelSizeUm;
+  const warnings: string[] = [...sampled.warnings, ...sampled.gradientWarnings];
   const gradientFit = gradientProfile ? fitProfile(gradientProfile, axisPx, px, settings.fitRangeEl, warnings) : null;
-  const bc = resolveRefs(settings.boundaryChannels, prepared.channelNames, 'boundary', warnings);
-  const boundaryProfiles = bc.map(profileOf);
+  warnings.push(...sampled.boundaryWarnings);
   const boundaries = boundaryProfiles.flatMap((p) => {
     try {
       return findBoundaries(binsWithin(filledBins(p), settings.boundarySearchEl), settings.boundaryMethods, settings.boundaryThresholdFraction, eggLengthUm);
@@ -142,12 +164,21 @@ export function measureEmbryo(prepared: PreparedSampling, axis: ApAxis, settings
       return [];
     }
   });
+  const bc = sampled.boundaryChannels;
   const used = [...new Set(g !== null ? [g, ...bc] : bc)];
   return {
-    gradientChannel: g !== null ? prepared.channelNames[g] : null, gradientProfile, gradientFit, boundaryProfiles, boundaries,
+    gradientChannel: g !== null ? prepared.channelNames[g] : null, gradientProfile, gradientFit, boundaryProfiles: [...boundaryProfiles], boundaries,
     landmarks: landmarks.map((l) => ({ name: l.name, point: l.point, ...pick(projectPointOntoAxis(l.point, axis, px)) })),
     backgrounds: used.map((c) => prepared.backgrounds[c]), eggLengthUm, warnings,
   };
+}
+
+/**
+ * Measure along `axis` with the prepared sampler: sampleProfiles, then fitSampledProfiles (profiles, the exponential
+ * fit of the gradient, boundaries per boundary channel and the landmarks' positions on the axis).
+ */
+export function measureEmbryo(prepared: PreparedSampling, axis: ApAxis, settings: AnalysisSettings, landmarks: readonly Landmark[]): Measurement {
+  return fitSampledProfiles(sampleProfiles(prepared, axis, settings), prepared, settings, landmarks);
 }
 
 function pick(p: { xEl: number; xUm: number; offAxisUm: number }): { xEl: number; xUm: number; offAxisUm: number } {

@@ -1,40 +1,16 @@
 // Everything about sampling that does not depend on where the axis handles are: computed once per detection.
-import type { BackgroundEstimate, Detection, Mask, ProjectedStack } from '../model';
+import type { BackgroundEstimate, Detection, ProjectedStack } from '../model';
 import type { AnalysisSettings } from '../settings';
-import { distanceInside, foregroundBox } from '../image';
+import { foregroundBox } from '../image';
 import { estimateBackgrounds } from './background';
 import { checkSamplingSettings } from './check-settings';
+import { PROFILE_SAMPLERS, samplerFor } from './samplers';
+import type { MaskBox, PixelSet, PreparedSampling, ProfileSampler, SamplingBase } from './samplers';
 
-/** Pixel positions (px, pixel centres) and background-subtracted values of every channel at those pixels. */
-export interface PixelSet {
-  readonly xs: Float32Array;
-  readonly ys: Float32Array;
-  /** values[c][k] = channel c at pixel k, background subtracted. */
-  readonly values: readonly Float32Array[];
-}
-
-/** Result of prepareSampling; pass it to measureEmbryo and sampleBandOutline. Re-prepare when the projection,
- * the mask, the edge depth or the background settings change. */
-export interface PreparedSampling {
-  readonly width: number;
-  readonly height: number;
-  readonly pixelSizeUm: number | null;
-  readonly channelNames: readonly string[];
-  readonly mask: Mask;
-  /** Distance from each mask pixel centre to the nearest outside pixel centre, px (0 outside). */
-  readonly depthPx: Float32Array;
-  /** Band depth used (px) and the mask of the band pixels. */
-  readonly edgeDepthPx: number;
-  readonly bandMask: Mask;
-  /** Pixels of the edge band, and all pixels of the mask (for the axis strip). */
-  readonly band: PixelSet;
-  readonly inside: PixelSet;
-  readonly backgrounds: readonly BackgroundEstimate[];
-  readonly warnings: readonly string[];
-}
+export type { PixelSet, PreparedSampling } from './samplers';
 
 /** Half-open bounding box of the mask's pixels, or null when it is empty. */
-type Box = ReturnType<typeof foregroundBox>;
+type Box = MaskBox | null;
 
 /**
  * Collect positions and background-subtracted values of the pixels where keep[i] is 1, in row-major order. Only
@@ -83,43 +59,31 @@ function subtractAt(data: Float32Array, idx: Int32Array, b: number, out: Float32
   for (let k = 0; k < idx.length; k++) out[k] = data[idx[k]] - b;
 }
 
-/** 1 where a mask pixel's centre lies within edgeDepthPx of the outline (depth − 0.5 ≤ edgeDepthPx), in the box. */
-function bandPixels(mask: Uint8Array, depthPx: Float32Array, width: number, x0: number, y0: number, x1: number, y1: number, edgeDepthPx: number, out: Uint8Array): void {
-  for (let y = y0; y < y1; y++) {
-    for (let i = y * width + x0, end = y * width + x1; i < end; i++) out[i] = +(mask[i] === 1 && depthPx[i] - 0.5 <= edgeDepthPx);
-  }
+/**
+ * Prepare sampling for one detection: background estimates per channel (outside margin: 10 µm, at least 5 px), then
+ * the sampler of settings.profile.mode (among `samplers`) prepares the pixels it draws from. Re-prepare when the
+ * projection, the mask, the mode, its settings or the background settings change.
+ */
+export function prepareSampling(projected: ProjectedStack, detection: Detection, settings: AnalysisSettings, samplers: readonly ProfileSampler[] = PROFILE_SAMPLERS): PreparedSampling {
+  checkSamplingSettings(settings);
+  const sampler = samplerFor(settings.profile.mode, samplers);
+  const base = samplingBase(projected, detection, settings);
+  return { ...base, sampler, region: sampler.prepare(base, settings) };
 }
 
-/**
- * Prepare sampling for one detection: distance-to-edge map, the edge band (pixels whose centre lies within
- * edgeDepthUm of the outline: depth − 0.5 px ≤ edgeDepth, the outline lying half a pixel outside the last inside
- * centre), all mask pixels, and background estimates per channel (outside margin: 10 µm, at least 5 px).
- */
-export function prepareSampling(projected: ProjectedStack, detection: Detection, settings: AnalysisSettings): PreparedSampling {
-  checkSamplingSettings(settings);
+/** What every sampler prepares from: mask, its box, backgrounds, and the pixel gatherer. */
+export function samplingBase(projected: ProjectedStack, detection: Detection, settings: AnalysisSettings): SamplingBase {
   const warnings: string[] = [];
   const px = projected.pixelSizeUm;
   if (px === null) warnings.push('pixel size unknown: edge depth, strip width and background margin are taken as pixels');
   const toPx = (um: number): number => (px ? um / px : um);
   const mask = detection.mask;
-  const depthPx = distanceInside(mask);
-  const edgeDepthPx = toPx(settings.profile.edgeDepthUm);
   const bg = estimateBackgrounds(projected.channels, projected.channelNames, mask, settings.background, Math.max(5, toPx(10)));
   warnings.push(...bg.warnings);
-  // Band and pixel sets lie within the mask's bounding box (outside it the mask, and so the band, is 0).
+  // Every sampled pixel lies within the mask's bounding box.
   const box = foregroundBox(mask);
-  const bandData = new Uint8Array(mask.data.length);
-  if (box) bandPixels(mask.data, depthPx, mask.width, box.x0, box.y0, box.x1, box.y1, edgeDepthPx, bandData);
-  // The whole-mask pixel set serves only the axis-strip profile: gathered on first use, then kept.
-  let inside: PixelSet | null = null;
   return {
-    width: mask.width, height: mask.height, pixelSizeUm: px, channelNames: projected.channelNames, mask, depthPx,
-    edgeDepthPx, bandMask: { width: mask.width, height: mask.height, data: bandData },
-    band: pixelSet(projected, bandData, bg.backgrounds, box),
-    get inside(): PixelSet {
-      inside ??= pixelSet(projected, mask.data, bg.backgrounds, box);
-      return inside;
-    },
-    backgrounds: bg.backgrounds, warnings,
+    width: mask.width, height: mask.height, pixelSizeUm: px, channelNames: projected.channelNames, mask, box,
+    backgrounds: bg.backgrounds, warnings, gather: (keep) => pixelSet(projected, keep, bg.backgrounds, box),
   };
 }

@@ -10,6 +10,7 @@ import { planeSlot } from './dimension-order';
 import { TiffError } from './errors';
 import type { TiffHeader } from './header';
 import { lazyIfdChain, type Ifd } from './ifd';
+import type { TiffChain } from './stack-info';
 import { readImageLayout } from './layout';
 import { sampleTypeOf, bytesPerSample } from './sample-type';
 import { readNumber, readNumbers } from './tag-value';
@@ -81,6 +82,47 @@ export async function readChunkPlan(source: ByteSource, header: TiffHeader, ifd:
     ifd: ifd.index, compression: layout.compression, predictor: layout.predictor, planar, samplesPerPixel: layout.samplesPerPixel,
     bytesPerSample: bytesPerSample(sampleType), sampleType, tiled, chunkWidthPx, chunkHeightPx, chunksAcross, chunksDown,
     offsets, byteCounts,
+  };
+}
+
+/** The tags that fix a chunk plan's shape (all but where the chunks are); TileOffsets only by its presence. */
+const PLAN_SHAPE_TAGS = [Tag.ImageWidth, Tag.ImageLength, Tag.BitsPerSample, Tag.Compression, Tag.SamplesPerPixel,
+  Tag.RowsPerStrip, Tag.PlanarConfiguration, Tag.Predictor, Tag.TileWidth, Tag.TileLength, Tag.SampleFormat];
+
+/** A key equal for two IFDs whose shape tags hold the same entries (inline bytes, or the same value offset). */
+function planShapeKey(ifd: Ifd): string {
+  let key = ifd.entries.has(Tag.TileOffsets) ? 't' : 's';
+  for (const tag of PLAN_SHAPE_TAGS) {
+    const e = ifd.entries.get(tag);
+    if (!e) { key += '|'; continue; }
+    key += `|${e.type},${e.count},${e.inline ? e.inline.join(',') : `@${e.valueOffset}`}`;
+  }
+  return key;
+}
+
+/**
+ * readChunkPlan with the shape of the last plan kept: an IFD whose shape tags match it only has its chunk offsets
+ * and byte counts read. Why: a file of 65,535 planes read the same dozen tags 65,535 times, asynchronously.
+ */
+export function chunkPlanReader(source: ByteSource, header: TiffHeader, fileLabel: string): (ifd: Ifd) => Promise<ChunkPlan> {
+  let last: { key: string; plan: ChunkPlan } | null = null;
+  return async (ifd) => {
+    const key = planShapeKey(ifd);
+    if (last === null || last.key !== key) {
+      const plan = await readChunkPlan(source, header, ifd, fileLabel);
+      last = { key, plan };
+      return plan;
+    }
+    const shape = last.plan;
+    const kind = shape.tiled ? 'tile' : 'strip';
+    const offsets = await readNumbers(source, header, ifd, shape.tiled ? Tag.TileOffsets : Tag.StripOffsets, fileLabel);
+    const byteCounts = await readNumbers(source, header, ifd, shape.tiled ? Tag.TileByteCounts : Tag.StripByteCounts, fileLabel);
+    if (!offsets || !byteCounts) throw new TiffError('unsupported', fileLabel, `IFD ${ifd.index} lacks ${kind} offsets or byte counts`);
+    const needed = shape.chunksAcross * shape.chunksDown * (shape.planar ? shape.samplesPerPixel : 1);
+    if (offsets.length < needed || byteCounts.length < needed) {
+      throw new TiffError('unsupported', fileLabel, `IFD ${ifd.index} has ${Math.min(offsets.length, byteCounts.length)} ${kind} offsets and byte counts, needs ${needed}`);
+    }
+    return { ...shape, ifd: ifd.index, offsets, byteCounts };
   };
 }
 
@@ -260,13 +302,36 @@ function placeChunk(chunk: Uint8Array, out: Uint8Array, plan: ChunkPlan, widthPx
   }
 }
 
+/** Largest read served from the block cache rather than the file itself (one cache block). */
+const SMALL_READ_BYTES = 65536;
+
+/** A ByteSource that sends reads of up to SMALL_READ_BYTES to `cached` and larger ones (and readInto) to `file`. */
+function smallReadsThrough(file: ByteSource, cached: ByteSource): ByteSource {
+  return {
+    size: file.size,
+    read: (offset, length) => (length <= SMALL_READ_BYTES ? cached.read(offset, length) : file.read(offset, length)),
+    ...(file.readInto ? { readInto: (offset: number, target: Uint8Array) => readIntoVia(file, cached, offset, target) } : {}),
+  };
+}
+
+async function readIntoVia(file: ByteSource, cached: ByteSource, offset: number, target: Uint8Array): Promise<number> {
+  if (target.length > SMALL_READ_BYTES) return file.readInto!(offset, target);
+  const bytes = await cached.read(offset, target.length);
+  target.set(bytes);
+  return bytes.length;
+}
+
 /**
  * A PlaneSource on the direct path. Each plane's IFD plan is read when first needed (tags through a block cache);
  * a plane that cannot be decoded rejects with a one-line TiffError('decode') naming the file, plane and chunk.
  */
-export function createDirectPlaneSource(source: ByteSource, info: StackInfo, codecs: ChunkCodecs, fileLabel: string): PlaneSource {
+export function createDirectPlaneSource(source: ByteSource, info: StackInfo, codecs: ChunkCodecs, fileLabel: string, chain?: TiffChain): PlaneSource {
   const tags = cachedByteSource(source);
-  const openChain = lazyIfdChain(tags, fileLabel);
+  const openChain = chain ? () => Promise.resolve(chain) : lazyIfdChain(tags, fileLabel);
+  // Planes whose chunks span at most one cache block are read through the block cache, so a file of many small
+  // planes costs one file read per block, not one per plane.
+  const small = smallReadsThrough(source, tags);
+  let planOf: ((ifd: Ifd) => Promise<ChunkPlan>) | null = null;
   const scratch: Scratch = { chunk: new Uint8Array(0), row: new Uint8Array(0) };
   return {
     async readPlane(z: number, c: number, t: number): Promise<RawPlane> {
@@ -274,12 +339,13 @@ export function createDirectPlaneSource(source: ByteSource, info: StackInfo, cod
       const ifd = info.planeIfd[planeSlot(info, z, c, t)];
       const what = `plane z=${z} c=${c} t=${t}`;
       const { header, ifds } = await openChain();
-      const plan = await readChunkPlan(tags, header, ifds[ifd], fileLabel);
+      planOf ??= chunkPlanReader(tags, header, fileLabel);
+      const plan = await planOf(ifds[ifd]);
       if (plan.sampleType !== info.sampleType || plan.samplesPerPixel !== info.samplesPerPixel) {
         throw new TiffError('decode', fileLabel, `cannot decode ${what}: IFD ${ifd} holds ${plan.samplesPerPixel} ${plan.sampleType} samples per pixel, IFD 0 ${info.samplesPerPixel} ${info.sampleType}`);
       }
       try {
-        const data = await decodePlaneDirect(source, plan, info.sizeX, info.sizeY, info.samplesPerPixel > 1 ? c : 0, header.littleEndian, codecs, scratch);
+        const data = await decodePlaneDirect(small, plan, info.sizeX, info.sizeY, info.samplesPerPixel > 1 ? c : 0, header.littleEndian, codecs, scratch);
         return { width: info.sizeX, height: info.sizeY, data };
       } catch (err) {
         if (err instanceof TiffError) throw err;

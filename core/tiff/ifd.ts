@@ -59,24 +59,94 @@ export async function readIfd(source: ByteSource, header: TiffHeader, offset: nu
   return ifd;
 }
 
+/**
+ * An IFD's entries kept as the IFD's own bytes (one small copy) and decoded when asked for. Why: a file of 65,535
+ * planes held 65,535 Maps of entry objects for the whole analysis (about 2 KiB of heap each), and the garbage
+ * collector spent seconds walking them; this keeps one byte array and a tag index per IFD. The first entry of a
+ * repeated tag wins, as before.
+ */
+class IfdEntryMap implements ReadonlyMap<number, IfdEntry> {
+  readonly #bytes: Uint8Array;
+  readonly #tags: Uint16Array;
+  readonly #at: Uint16Array | Uint32Array;
+  readonly #le: boolean;
+  readonly #big: boolean;
+
+  constructor(bytes: Uint8Array, count: number, le: boolean, big: boolean) {
+    this.#bytes = bytes;
+    this.#le = le;
+    this.#big = big;
+    const entryBytes = big ? 20 : 12;
+    const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.length);
+    const tags: number[] = [];
+    const at: number[] = [];
+    const seen = new Set<number>();
+    for (let i = 0; i < count; i++) {
+      const tag = view.getUint16(i * entryBytes, le);
+      if (seen.has(tag)) continue;
+      seen.add(tag);
+      tags.push(tag);
+      at.push(i * entryBytes);
+    }
+    this.#tags = Uint16Array.from(tags);
+    this.#at = count * entryBytes < 65536 ? Uint16Array.from(at) : Uint32Array.from(at);
+  }
+
+  get size(): number { return this.#tags.length; }
+
+  #entry(k: number): IfdEntry {
+    const bytes = this.#bytes;
+    const at = this.#at[k];
+    const slotBytes = this.#big ? 8 : 4;
+    const view = new DataView(bytes.buffer, bytes.byteOffset + at, 4 + 2 * slotBytes);
+    const type = view.getUint16(2, this.#le);
+    const n = readUint(view, 4, slotBytes, this.#le);
+    const slot = 4 + slotBytes;
+    const valueBytes = n * fieldTypeSize(type); // unknown types: 0 bytes, never read
+    const inline = valueBytes <= slotBytes ? bytes.subarray(at + slot, at + slot + slotBytes) : null;
+    const valueOffset = inline ? 0 : readUint(view, slot, slotBytes, this.#le);
+    return { tag: this.#tags[k], type, count: n, inline, valueOffset };
+  }
+
+  #find(tag: number): number {
+    const tags = this.#tags;
+    for (let k = 0; k < tags.length; k++) if (tags[k] === tag) return k;
+    return -1;
+  }
+
+  get(tag: number): IfdEntry | undefined {
+    const k = this.#find(tag);
+    return k < 0 ? undefined : this.#entry(k);
+  }
+
+  has(tag: number): boolean { return this.#find(tag) >= 0; }
+
+  forEach(fn: (value: IfdEntry, key: number, map: ReadonlyMap<number, IfdEntry>) => void, thisArg?: unknown): void {
+    for (let k = 0; k < this.#tags.length; k++) fn.call(thisArg, this.#entry(k), this.#tags[k], this);
+  }
+
+  *entries(): MapIterator<[number, IfdEntry]> {
+    for (let k = 0; k < this.#tags.length; k++) yield [this.#tags[k], this.#entry(k)];
+  }
+
+  *keys(): MapIterator<number> {
+    for (let k = 0; k < this.#tags.length; k++) yield this.#tags[k];
+  }
+
+  *values(): MapIterator<IfdEntry> {
+    for (let k = 0; k < this.#tags.length; k++) yield this.#entry(k);
+  }
+
+  [Symbol.iterator](): MapIterator<[number, IfdEntry]> { return this.entries(); }
+}
+
 /** Splits an IFD's bytes into entries; values that fit in the entry are kept inline. */
 function parseIfdBlock(block: Uint8Array, header: TiffHeader, count: number, offset: number, index: number): Ifd {
   const le = header.littleEndian;
-  const view = new DataView(block.buffer, block.byteOffset, block.length);
   const entryBytes = header.bigTiff ? 20 : 12;
   const slotBytes = header.bigTiff ? 8 : 4;
-  const entries = new Map<number, IfdEntry>();
-  for (let i = 0; i < count; i++) {
-    const at = i * entryBytes;
-    const tag = view.getUint16(at, le);
-    const type = view.getUint16(at + 2, le);
-    const n = readUint(view, at + 4, slotBytes, le);
-    const slot = at + 4 + slotBytes;
-    const valueBytes = n * fieldTypeSize(type); // unknown types: 0 bytes, never read
-    const inline = valueBytes <= slotBytes ? block.slice(slot, slot + slotBytes) : null;
-    const valueOffset = inline ? 0 : readUint(view, slot, slotBytes, le);
-    if (!entries.has(tag)) entries.set(tag, { tag, type, count: n, inline, valueOffset });
-  }
+  const view = new DataView(block.buffer, block.byteOffset, block.length);
+  const entries = new IfdEntryMap(block.slice(0, count * entryBytes), count, le, header.bigTiff);
   const nextOffset = readUint(view, count * entryBytes, slotBytes, le);
   return { index, offset, entries, nextOffset };
 }

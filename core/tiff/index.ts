@@ -17,7 +17,7 @@ export { DIMENSION_ORDERS, isDimensionOrder, planeNumber, planeCoordinates, plan
 export { parseOmeXml, looksLikeOmeXml, type OmeImage, type OmeTiffData } from './ome';
 export { mapOmePlanes, sequentialPlaneMap } from './plane-map';
 export { parseImageJDescription, type ImageJDescription } from './imagej';
-export { readStackInfo, type StackInfoOptions } from './stack-info';
+export { readStackInfo, readStackInfoWithChain, type StackInfoOptions, type TiffChain } from './stack-info';
 export { describeStack, stackFacts, type StackFactsJson } from './describe';
 export { writeOmeTiff, writePlainTiff, type WritePlane, type OmeTiffMeta, type PlainTiffOptions } from './write';
 export { toRational } from './rational';
@@ -25,7 +25,7 @@ export { createGeotiffPlaneSource, checkPlaneIndex } from './geotiff-source';
 export { checkChunkExtents } from './chunk-extent';
 export { cachedByteSource } from './block-cache';
 export { analysisBytesEstimate, WORKER_BASE_BYTES } from './budget';
-export { createDirectPlaneSource, decodePlaneDirect, directPathRefusal, readChunkPlan, type ChunkPlan } from './direct-source';
+export { chunkPlanReader, createDirectPlaneSource, decodePlaneDirect, directPathRefusal, readChunkPlan, type ChunkPlan } from './direct-source';
 export { PURE_CHUNK_CODECS, copyChunk, decodeZstd, zstdContentSize, type ChunkCodecs, type ChunkDecoder } from './chunk-codecs';
 export { decodeLzw, CorruptStreamError } from './lzw';
 export { decodePackBits } from './packbits';

@@ -11,6 +11,12 @@ export interface ArrayStorage {
   readonly codecNames: readonly string[];
   /** Separator between chunk indices in chunk keys ("." or "/"). */
   readonly separator: string;
+  /**
+   * How chunk keys start inside the array's folder ("" for Zarr v2 and v3's "v2" encoding, "c" + separator for v3's
+   * default encoding) when every chunk is one Blosc stream of little-endian (or 1-byte) values in C order: such
+   * chunks can be decoded outside zarrita (BloscChunkReader). Null for any other codec chain or layout.
+   */
+  readonly bloscKeyPrefix: string | null;
 }
 
 const SHUFFLE = ['no shuffle', 'byte shuffle', 'bit shuffle'];
@@ -34,11 +40,15 @@ function v2Storage(meta: Json): ArrayStorage {
   const filters = Array.isArray(meta.filters) ? meta.filters.filter(isObject) : [];
   const chain = [...filters, ...(isObject(meta.compressor) ? [meta.compressor] : [])];
   const ids = chain.map((c) => String(c.id));
+  // Source: Zarr storage specification version 2 — dtype "<" little-endian, "|" not applicable (1 byte); order "C".
+  const plainBlosc = filters.length === 0 && isObject(meta.compressor) && meta.compressor.id === 'blosc'
+    && meta.order === 'C' && typeof meta.dtype === 'string' && /^[<|]/.test(meta.dtype);
   return {
     zarrFormat: 2,
     codecs: chain.length === 0 ? 'none' : chain.map((c) => describeCodec(String(c.id), c)).join(' → '),
     codecNames: ids.filter((id) => id !== 'fixedscaleoffset').map((id) => `numcodecs.${id}`),
     separator: typeof meta.dimension_separator === 'string' ? meta.dimension_separator : '.',
+    bloscKeyPrefix: plainBlosc ? '' : null,
   };
 }
 
@@ -68,11 +78,20 @@ function v3Storage(meta: Json): ArrayStorage {
   const encoding = isObject(meta.chunk_key_encoding) ? meta.chunk_key_encoding : {};
   const config = isObject(encoding.configuration) ? encoding.configuration : {};
   const fallback = encoding.name === 'v2' ? '.' : '/';
+  const separator = typeof config.separator === 'string' ? config.separator : fallback;
+  // Source: Zarr v3.0 core specification — codecs "bytes" (endian little, or absent for 1-byte types) then "blosc";
+  // chunk key encoding "default" gives "c" + separator + indices, "v2" the indices alone.
+  const list = Array.isArray(meta.codecs) ? meta.codecs.filter(isObject) : [];
+  const bytes = list[0];
+  const bytesConfig = bytes && isObject(bytes.configuration) ? bytes.configuration : {};
+  const plainBlosc = list.length === 2 && bytes.name === 'bytes' && (bytesConfig.endian === undefined || bytesConfig.endian === 'little')
+    && list[1].name === 'blosc' && (encoding.name === 'default' || encoding.name === 'v2');
   return {
     zarrFormat: 3,
     codecs: text.length === 0 ? 'none' : text.join(' → '),
     codecNames: names,
-    separator: typeof config.separator === 'string' ? config.separator : fallback,
+    separator,
+    bloscKeyPrefix: plainBlosc ? (encoding.name === 'v2' ? '' : `c${separator}`) : null,
   };
 }
 

@@ -7,6 +7,7 @@ import { guardZarrCodecs, type BoundedInflate } from './decode-guard';
 import { ZarrError } from './errors';
 import { parseNgffGroup, type NgffAxis, type NgffImage } from './ngff';
 import { chunksPerPlane, createChunkPlaneSource, roleSize, type ChunkedArray } from './plane-reader';
+import { shardedStore, shardIndexLocation } from './shards';
 import { readJson, trackMissingChunks, type ZarrStore } from './store';
 import { micrometresPerSpaceUnit, secondsPerTimeUnit } from './units';
 
@@ -94,7 +95,8 @@ async function openArray(store: ZarrStore, path: string, zarrFormat: 2 | 3, labe
   const unknown = storage.codecNames.filter((n) => !zarr.registry.has(n));
   if (unknown.length > 0) throw new ZarrError('unsupported', label, `array "${path}" uses codec ${unknown.map((n) => n.replace(/^numcodecs\./, '')).join(', ')}, which Eggline cannot decode`);
   try {
-    const location = new zarr.Location(store, `/${path}`);
+    const indexLocation = zarrFormat === 3 ? shardIndexLocation(raw) : null;
+    const location = new zarr.Location(indexLocation ? shardedStore(store, indexLocation) : store, `/${path}`);
     const array = zarrFormat === 3
       ? await zarr.open.v3(location, { kind: 'array' })
       : await zarr.open.v2(location, { kind: 'array', attrs: false });
@@ -172,6 +174,17 @@ function channelNamesOf(image: NgffImage, sizeC: number, label: string, warnings
 }
 
 /**
+ * Chunk reading past zarrita for arrays whose chunks are each one Blosc stream (the common OME-Zarr layout), when the
+ * store can decode such streams itself (in another thread): undefined otherwise.
+ */
+function directBlosc(store: ZarrStore, arrayPath: string, storage: ArrayStorage, chunkBytes: number): ((coords: readonly number[]) => Promise<Uint8Array | undefined | null>) | undefined {
+  const read = store.readBloscChunk;
+  const prefix = storage.bloscKeyPrefix;
+  if (!read || prefix === null) return undefined;
+  return (coords) => read(`/${arrayPath}/${prefix}${coords.join(storage.separator)}`, chunkBytes);
+}
+
+/**
  * Opens the OME-Zarr image in `store`: NGFF metadata, the full-resolution array, and a PlaneSource that decodes only
  * the chunks each plane needs. Throws ZarrError with a one-line message for everything it refuses.
  */
@@ -208,7 +221,7 @@ export async function openOmeZarr(store: ZarrStore, label: string, options: Open
     ...(timeStepS !== null ? { time: { timesS: Float64Array.from({ length: sizeT }, (_, i) => i * timeStepS), source: 'ome-zarr' as const } } : {}),
   };
   const source = createChunkPlaneSource(array as unknown as ChunkedArray, roles, type, label, {
-    cacheChunks, onClose: async () => { await store.close?.(); },
+    cacheChunks, onClose: async () => { await store.close?.(); }, readDecoded: directBlosc(tracked, arrayPath, storage, array.chunks.reduce((a, b) => a * b, 1) * BYTES[type]),
   });
   const details: ZarrDetails = {
     zarrFormat, ngffVersion: image.version, arrayPath, levels: image.levels, axes, shape: array.shape, chunks: array.chunks,

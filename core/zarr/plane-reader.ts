@@ -83,6 +83,18 @@ export interface ChunkPlaneOptions {
   readonly cacheChunks: number;
   /** Called once when the source is closed. */
   readonly onClose?: () => Promise<void>;
+  /**
+   * The chunk's bytes decoded outside zarrita (C order, native byte order), undefined when it is missing, null when
+   * this path cannot decode it; either of the latter sends the chunk through array.getChunk.
+   */
+  readonly readDecoded?: (coords: readonly number[]) => Promise<Uint8Array | undefined | null>;
+}
+
+/** Element strides of a C-order chunk of shape `chunks`. */
+function cOrderStrides(chunks: readonly number[]): number[] {
+  const stride = new Array<number>(chunks.length).fill(1);
+  for (let d = chunks.length - 2; d >= 0; d--) stride[d] = stride[d + 1] * chunks[d + 1];
+  return stride;
 }
 
 /**
@@ -98,10 +110,23 @@ export function createChunkPlaneSource(array: ChunkedArray, roles: AxisRoles, ty
   const cached = chunkCache(Math.max(options.cacheChunks, chunksPerPlane(shape, chunks, roles)));
   const sizes = { z: roleSize(shape, roles.z), c: roleSize(shape, roles.c), t: roleSize(shape, roles.t) };
 
+  const strides = cOrderStrides(chunks);
+  const bytesPer = new ARRAYS[type](0).BYTES_PER_ELEMENT;
+  /** The chunk through options.readDecoded, or null when it has to go through zarrita. */
+  const readDirect = async (coords: number[]): Promise<DecodedChunk | null> => {
+    const bytes = await options.readDecoded!(coords);
+    if (!bytes) return null;
+    if (bytes.byteLength !== expected * bytesPer || bytes.byteOffset % bytesPer !== 0) {
+      throw new Error(`decodes to ${bytes.byteLength} bytes, expected ${expected * bytesPer}`);
+    }
+    const Ctor = ARRAYS[type] as unknown as new (b: ArrayBufferLike, o: number, n: number) => PixelArray;
+    return { data: new Ctor(bytes.buffer, bytes.byteOffset, expected), shape: chunks, stride: strides };
+  };
+
   const load = async (coords: number[]): Promise<DecodedChunk> => {
     let chunk: DecodedChunk;
     try {
-      chunk = await array.getChunk(coords);
+      chunk = (options.readDecoded ? await readDirect(coords) : null) ?? await array.getChunk(coords);
     } catch (err) {
       const cause = err instanceof Error ? ((err.cause instanceof Error ? err.cause.message : '') || err.message) : String(err);
       throw new ZarrError('decode', label, `chunk (${coords.join(', ')}) cannot be decoded: ${cause.split(/\r?\n/)[0]}`);

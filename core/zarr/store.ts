@@ -2,8 +2,15 @@
 import type { AsyncReadable } from 'zarrita';
 import { ZarrError } from './errors';
 
+/**
+ * Reads the chunk file at `key` and decodes it as a Blosc stream elsewhere (another thread), at most `maxBytes`
+ * decoded: the bytes, undefined when the key is missing, or null when that Blosc stream is one it does not decode (the
+ * reader then goes through zarrita's codecs). Rejects with a one-line Error for a damaged stream.
+ */
+export type BloscChunkReader = (key: string, maxBytes: number) => Promise<Uint8Array | undefined | null>;
+
 /** A read-only key-value store (keys start with "/"); undefined for a missing key. */
-export type ZarrStore = AsyncReadable & { close?(): Promise<void> };
+export type ZarrStore = AsyncReadable & { close?(): Promise<void>; readBloscChunk?: BloscChunkReader };
 
 /** Largest metadata document read (a real .zattrs or zarr.json is a few KB). */
 export const MAX_METADATA_BYTES = 16 * 2 ** 20;
@@ -47,5 +54,7 @@ export function trackMissingChunks(store: ZarrStore, onMissing: (key: string) =>
     },
     ...(store.getRange ? { getRange: store.getRange.bind(store) } : {}),
     ...(store.close ? { close: store.close.bind(store) } : {}),
+    // A missing chunk is counted when the reader falls back to get() for it.
+    ...(store.readBloscChunk ? { readBloscChunk: store.readBloscChunk } : {}),
   };
 }

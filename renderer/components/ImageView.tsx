@@ -13,7 +13,7 @@ import type { Gesture } from '../tools';
 import { useElementSize } from '../hooks/useElementSize';
 import { fixed, fmt } from '../ui/format';
 import { ImageCanvas } from './ImageCanvas';
-import { ImageOverlay, type NudgeTarget, type OverlayVisibility } from './ImageOverlay';
+import { ImageOverlay, type NudgeTarget, type OverlayVisibility } from '../overlay/ImageOverlay';
 import { OverlayKey } from './OverlayKey';
 
 /** Props of the image panel. */

@@ -1,6 +1,6 @@
 // The key of the image overlays, each with a checkbox to show or hide it (reachable with Tab and Space).
 import { BOUNDARY_COLOURS } from '../../core/figures';
-import type { OverlayName, OverlayVisibility } from './ImageOverlay';
+import type { OverlayName, OverlayVisibility } from '../overlay/ImageOverlay';
 
 const KEY: [OverlayName, string, string, string][] = [
   // name, label, swatch colour, swatch style

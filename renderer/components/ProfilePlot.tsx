@@ -9,7 +9,7 @@ import type { LiveMeasurement } from '../live';
 import type { EditorAction } from '../state';
 import { elToPx, pxToEl } from '../ui/plotLayout';
 import { legendRows, profilePanels, type LegendEntry } from '../ui/profileLayout';
-import { staggerLabels } from './ImageOverlay';
+import { staggerLabels } from '../overlay/ImageOverlay';
 
 /** Props of the profile plot. */
 export interface ProfilePlotProps {

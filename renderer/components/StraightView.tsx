@@ -4,7 +4,7 @@ import type { LiveMeasurement } from '../live';
 import type { DisplayState } from '../state';
 import { compositeRgba } from '../view';
 import { elToPx } from '../ui/plotLayout';
-import { boundaryColour, staggerLabels } from './ImageOverlay';
+import { boundaryColour, staggerLabels } from '../overlay/ImageOverlay';
 
 /** Props of the straightened view. */
 export interface StraightViewProps {

@@ -4,7 +4,8 @@ import type { EgglineApi, ExportKind, LoadedStack } from '../../core/contract';
 import { boundariesCsv, embryosCsv, landmarksCsv, profilesCsv } from '../../core/batch';
 import { profileFigure } from '../../core/figures';
 import type { ApAxis, ImagePoint, Plane } from '../../core/model';
-import { ImageOverlay } from '../components/ImageOverlay';
+import { straightViewHalfWidthPx } from '../../core/profile';
+import { ImageOverlay } from '../overlay/ImageOverlay';
 import { annotatedSvg } from '../export/annotatedSvg';
 import { chooseScaleBar } from '../geometry';
 import { fileStem, liveToResult } from '../export/liveResult';
@@ -70,7 +71,7 @@ export function useExports(api: EgglineApi | null, ctx: Ctx): (cmd: ExportComman
         const p = ctx.planes[0];
         const overlay = renderToStaticMarkup(<ImageOverlay view={{ zoom: 1, offsetX: 0, offsetY: 0 }} width={p.width} height={p.height}
           outline={stack.detection.outline} axis={axis} measurement={m} bandOutlines={ctx.bandOutlines} fitRangeEl={effectiveFitRange(state)}
-          halfWidthPx={(stack.detection.eggWidthUm / (stack.projected.pixelSizeUm ?? 1)) * 0.6} selectedLandmark={null} />);
+          halfWidthPx={straightViewHalfWidthPx(stack.detection.eggWidthUm, stack.projected.pixelSizeUm)} selectedLandmark={null} />);
         const px = stack.projected.pixelSizeUm;
         const bar = px === null ? null : chooseScaleBar(px, 1, p.width * 0.25);
         await toPng(annotatedSvg(p.width, p.height, compositeDataUrl(ctx.planes, state), overlay, bar && { lengthUm: bar.lengthUm, lengthPx: bar.screenPx }),

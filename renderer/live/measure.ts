@@ -1,8 +1,8 @@
-// Live measurement of the shown embryo with the same core functions the batch uses (prepareSampling once per
-// file and settings, measureEmbryo per edit), plus the straightened strip for the view.
+// Live measurement of the shown embryo with the same core functions the batch uses (prepareSampling, i.e. the
+// mode's sampler, once per file and settings; measureEmbryo per edit), plus the straightened strip for the view.
 import type { LoadedStack } from '../../core/contract';
 import type { ApAxis, Boundary, ExponentialFit, ImagePoint, Landmark, LandmarkPosition, Plane, Profile } from '../../core/model';
-import { axisLengthPx, measureEmbryo, prepareSampling, sampleBandOutline, straightenPlane } from '../../core/pipeline';
+import { axisLengthPx, measureEmbryo, prepareSampling, sampleBandOutline, straightenPlane, straightViewHalfWidthPx } from '../../core/pipeline';
 import type { PreparedSampling } from '../../core/pipeline';
 import type { AnalysisSettings } from '../../core/settings';
 import { distanceOutsideMaskPx } from '../../core/geometry';
@@ -12,7 +12,7 @@ import { poleSlackPx } from '../../core/profile';
 export interface LivePrepared {
   readonly stack: LoadedStack;
   readonly sampling: PreparedSampling;
-  /** The sampled band (edge mode) or the whole mask (axis mode) as a 0/1 float plane, for the strip overlay. */
+  /** The sampler's region (the edge band, or the whole mask for the axis strip) as a 0/1 float plane, for the strip overlay. */
   readonly bandPlane: Plane;
 }
 
@@ -37,7 +37,7 @@ export interface LiveMeasurement {
 /** Per-file preparation (re-run when the stack or the settings change). */
 export function prepareLive(stack: LoadedStack, settings: AnalysisSettings): LivePrepared {
   const sampling = prepareSampling(stack.projected, stack.detection, settings);
-  const src = settings.profile.mode === 'edge' ? sampling.bandMask : sampling.mask;
+  const src = sampling.region.mask;
   return { stack, sampling, bandPlane: { width: src.width, height: src.height, data: Float32Array.from(src.data) } };
 }
 
@@ -46,19 +46,10 @@ export const MAX_STRIP_SAMPLES = 512;
 /** Most rows across the strip. */
 export const MAX_STRIP_ROWS = 128;
 
-/** Keep only the strip rows on the sampled side(s) and, for the axis strip, within its half width. */
-function sampledRows(band: Plane, settings: AnalysisSettings, rowStepUm: number): Plane {
-  const p = settings.profile;
-  const centre = (band.height - 1) / 2;
-  const dorsalTop = p.dorsalSide === 'left';
-  const keepTop = p.mode === 'axis' || p.edgeSide === 'both' || (p.edgeSide === 'dorsal') === dorsalTop;
-  const keepBottom = p.mode === 'axis' || p.edgeSide === 'both' || (p.edgeSide === 'ventral') === dorsalTop;
-  const half = p.mode === 'axis' ? p.axisWidthUm / 2 / rowStepUm : Infinity;
-  const data = band.data.map((v, k) => {
-    const d = Math.floor(k / band.width) - centre;
-    const ok = (d <= 0 ? keepTop : keepBottom) && Math.abs(d) <= half;
-    return ok && v >= 0.5 ? 1 : 0;
-  });
+/** Keep only the straightened rows the sampler samples (its side rule, its strip width). */
+function sampledRows(band: Plane, sampling: PreparedSampling, settings: AnalysisSettings, rowStepUm: number): Plane {
+  const rows = sampling.sampler.stripRows(band.height, rowStepUm, settings);
+  const data = band.data.map((v, k) => (rows[Math.floor(k / band.width)] === 1 && v >= 0.5 ? 1 : 0));
   return { ...band, data };
 }
 
@@ -69,12 +60,12 @@ export function measureLive(prep: LivePrepared, axis: ApAxis, settings: Analysis
   const lengthPx = Math.max(1, axisLengthPx(axis));
   const pxUm = prep.sampling.pixelSizeUm ?? 1;
   const samplesAlong = Math.max(2, Math.min(MAX_STRIP_SAMPLES, Math.round(lengthPx)));
-  const halfWidthPx = (prep.stack.detection.eggWidthUm / pxUm) * 0.6;
+  const halfWidthPx = straightViewHalfWidthPx(prep.stack.detection.eggWidthUm, prep.sampling.pixelSizeUm);
   // The strip is shown about 130 px tall, so more than MAX_STRIP_ROWS rows would only cost time.
   const rowStepPx = Math.max(lengthPx / (samplesAlong - 1), (2 * halfWidthPx) / MAX_STRIP_ROWS);
   const halfRows = Math.max(1, Math.round(halfWidthPx / rowStepPx));
   const strips = prep.stack.projected.channels.map((p) => straightenPlane(p, axis, halfRows, samplesAlong, rowStepPx));
-  const bandStrip = sampledRows(straightenPlane(prep.bandPlane, axis, halfRows, samplesAlong, rowStepPx), s, rowStepPx * pxUm);
+  const bandStrip = sampledRows(straightenPlane(prep.bandPlane, axis, halfRows, samplesAlong, rowStepPx), prep.sampling, s, rowStepPx * pxUm);
   return {
     eggLengthUm: m.eggLengthUm ?? lengthPx, strips, bandStrip,
     profile: m.gradientProfile, fit: m.gradientFit, boundaryProfiles: m.boundaryProfiles, boundaries: m.boundaries,

@@ -7,7 +7,7 @@ import { chromium } from 'playwright-core';
 import type { Browser, Page } from 'playwright-core';
 import { analyseFile } from '../../app/batch/analyse-file';
 import type { BatchTask } from '../../app/batch/task';
-import { createDefaultEngine } from '../../app/main/default-engine';
+import { createDefaultEngine } from '../../app/engine/default-engine';
 import { createHandlers } from '../../app/main/handlers';
 import type { ApiHandlers, HandlerDeps } from '../../app/main/handlers';
 import { API_INVOKE_METHODS } from '../../core/contract';

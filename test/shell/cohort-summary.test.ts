@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { analyseCohort, makeDemoCohort, parseSampleSheet } from '../../core/cohort';
 import { cohortFigures } from '../../core/figures';
-import { cohortSummaryFor, findSampleSheet } from '../../app/main/cohort-summary';
+import { cohortSummaryFor, findSampleSheet } from '../../app/engine/cohort-summary';
 
 // Demo data: invented embryo results of a dosage series (core/cohort makeDemoCohort, known λ = 0.2 EL, seeded noise).
 let root: string;

@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import type { BatchProgress } from '../../core/contract';
 import type { Detection, ProjectedStack, StackInfo } from '../../core/model';
 import { DEFAULT_SETTINGS } from '../../core/settings';
-import type { AnalysisEngine, BatchRunOptions } from '../../app/main/engine';
+import type { AnalysisEngine, BatchRunOptions } from '../../app/engine/engine';
 
 /** A fake engine plus a log of what it was asked. */
 export function createFakeEngine(): AnalysisEngine & { calls: string[]; batchOptions: BatchRunOptions[] } {

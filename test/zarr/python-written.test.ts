@@ -1,13 +1,15 @@
 // OME-Zarr stores written by Python's zarr 2 and numcodecs (an independent writer) from the pixels of an OME-TIFF:
 // every plane must match the TIFF's pixel for pixel, and the analysis must give the same result.
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { cpSync, existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openStackForAnalysis, type OpenedStack } from '../../app/decode';
+import { bloscChunkThread } from '../../app/decode/zarr-chunk-thread';
+import { inflateZarrChunk, openZarrFolderStore, readBloscChunkFile } from '../../core/io';
 import type { EmbryoResult } from '../../core/model';
 import { analyseStack } from '../../core/pipeline';
-import { decodeBloscLz4 } from '../../core/zarr';
+import { decodeBloscLz4, openOmeZarr } from '../../core/zarr';
 import Blosc from 'numcodecs/blosc';
 import { DEFAULT_SETTINGS } from '../../core/settings';
 import { allPlanes, comparableResult as comparable, pythonZarrMissing, REFERENCE, writePythonStores, writeReferenceTiff } from './stack-fixture';
@@ -65,6 +67,60 @@ describe.skipIf(missing !== null)(`OME-Zarr written by Python's zarr${missing ? 
     const result = await analyseStack(zarr.info, zarr.source, settings, { fileLabel: `${name}.ome.zarr` });
     expect(result.pixelSizeSource).toBe('ome-zarr');
     expect(comparable(result)).toEqual(comparable(tiffResult));
+    await zarr.source.close();
+  });
+});
+
+// The same stores read past zarrita: each Blosc chunk file read and decoded by readBloscChunkFile, in this thread and
+// on the built chunk thread (dist/zarr-chunk-worker.mjs, after `npm run build`), as `eggline batch` reads them.
+const BLOSC_CASES = ['blosc-lz4', 'blosc-lz4hc', 'blosc-lz4-slash-tiles', 'blosc-zstd'];
+const builtWorker = resolve('dist/zarr-chunk-worker.mjs');
+const readers: [string, () => ((path: string, maxBytes: number) => Promise<Uint8Array | undefined | null>) | null][] = [
+  ['this thread', () => async (path, maxBytes) => readBloscChunkFile(path, maxBytes)],
+  [existsSync(builtWorker) ? 'the chunk thread' : 'the chunk thread (skipped: run npm run build first)', () => (existsSync(builtWorker) ? bloscChunkThread(builtWorker) : null)],
+];
+
+describe.skipIf(missing !== null)('OME-Zarr Blosc chunks decoded past zarrita', () => {
+  let tiffPlanes: number[][];
+  let tiffResult: EmbryoResult;
+  beforeAll(async () => {
+    const tiff = await openStackForAnalysis(join(dir, 'reference.ome.tif'), 'reference.ome.tif');
+    tiffPlanes = await allPlanes(tiff);
+    tiffResult = await analyseStack(tiff.info, tiff.source, settings, { fileLabel: 'reference.ome.tif' });
+    await tiff.source.close();
+  }, 60_000);
+
+  it.each(readers)('in %s: pixel-identical planes and the same analysis result; other inner compressors go to zarrita', async (_, make) => {
+    const read = make();
+    if (!read) return;
+    for (const name of BLOSC_CASES) {
+      const answers: string[] = [];
+      const counted = async (path: string, maxBytes: number) => {
+        const r = await read(path, maxBytes);
+        answers.push(r === null ? 'other' : r === undefined ? 'missing' : 'bytes');
+        return r;
+      };
+      const store = await openZarrFolderStore(join(dir, `${name}.ome.zarr`), name, { readBloscFile: counted });
+      const zarr = await openOmeZarr(store, `${name}.ome.zarr`, { inflate: inflateZarrChunk });
+      expect(await allPlanes(zarr)).toEqual(tiffPlanes);
+      const result = await analyseStack(zarr.info, zarr.source, settings, { fileLabel: `${name}.ome.zarr` });
+      expect(comparable(result)).toEqual(comparable(tiffResult));
+      expect(new Set(answers)).toEqual(new Set([name === 'blosc-zstd' ? 'other' : 'bytes']));
+      await zarr.source.close();
+    }
+  });
+
+  it('a damaged or missing chunk file gives one line naming the store and the chunk', async () => {
+    const copy = join(dir, 'damaged-lz4.ome.zarr');
+    cpSync(join(dir, 'blosc-lz4.ome.zarr'), copy, { recursive: true });
+    const chunk = join(copy, '0', '0.0.1.0.0');
+    writeFileSync(chunk, readFileSync(chunk).subarray(0, 200));
+    rmSync(join(copy, '0', '0.1.1.0.0'));
+    const store = await openZarrFolderStore(copy, 'damaged-lz4.ome.zarr', { readBloscFile: async (p, m) => readBloscChunkFile(p, m) });
+    const zarr = await openOmeZarr(store, 'damaged-lz4.ome.zarr', { inflate: inflateZarrChunk });
+    await expect(zarr.source.readPlane(1, 0, 0)).rejects.toThrow(/^damaged-lz4\.ome\.zarr: chunk \(0, 0, 1, 0, 0\) cannot be decoded: (Blosc stream is cut short|an LZ4 block .*)$/);
+    expect(Array.from((await zarr.source.readPlane(1, 1, 0)).data).every((v) => v === 0)).toBe(true);
+    expect(zarr.warnings).toEqual(['damaged-lz4.ome.zarr: 1 chunk(s) missing (first 0/0.1.1.0.0); read as the fill value']);
     await zarr.source.close();
   });
 });

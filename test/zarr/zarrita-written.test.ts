@@ -2,10 +2,12 @@
 // pixels of an OME-TIFF: every plane must match the TIFF's pixel for pixel, and the analysis must give the same result.
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { join, relative } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openStackForAnalysis, openZarrStack, type OpenedStack } from '../../app/decode';
+import { inflateZarrChunk, openZarrFolderStore, readBloscChunkFile } from '../../core/io';
 import type { EmbryoResult } from '../../core/model';
+import { openOmeZarr } from '../../core/zarr';
 import { analyseStack } from '../../core/pipeline';
 import { DEFAULT_SETTINGS } from '../../core/settings';
 import { V3_CASES, writeV3Store } from '../../scripts/make-zarr-v3-fixtures';
@@ -39,6 +41,18 @@ describe('OME-Zarr (Zarr v3, NGFF 0.5) written by zarrita', () => {
     const result = await analyseStack(zarr.info, zarr.source, settings, { fileLabel: `${name}.ome.zarr` });
     expect(comparableResult(result)).toEqual(comparableResult(tiffResult));
     expect(zarr.warnings).toEqual([]);
+    await zarr.source.close();
+  });
+
+  it('v3-blosc-lz4 read past zarrita (chunk keys c/…, each chunk file decoded by readBloscChunkFile): the same planes', async () => {
+    // Source: Zarr v3.0 core specification — chunk key encoding "default": "c" then the indices joined by "/".
+    const keys: string[] = [];
+    const store = await openZarrFolderStore(join(dir, 'v3-blosc-lz4.ome.zarr'), 'v3-blosc-lz4', {
+      readBloscFile: async (path, maxBytes) => { keys.push(relative(dir, path)); return readBloscChunkFile(path, maxBytes); },
+    });
+    const zarr = await openOmeZarr(store, 'v3-blosc-lz4.ome.zarr', { inflate: inflateZarrChunk });
+    expect(await allPlanes(zarr)).toEqual(tiffPlanes);
+    expect(keys).toContain(join('v3-blosc-lz4.ome.zarr', '0', 'c', '0', '1', '2', '0', '0'));
     await zarr.source.close();
   });
 

@@ -1,5 +1,6 @@
 // Z projection and time point, how the profile is sampled (edge band or axis strip) and the background.
 import { useEffect, useState } from 'react';
+import { PROFILE_SAMPLERS } from '../../../core/profile';
 import { fieldProblem, settingSpec } from '../../../core/settings';
 import { ChoiceSetting, FieldFrame, NumberSetting, valueFromText, type SettingFieldProps } from './SettingField';
 
@@ -15,16 +16,21 @@ export function ProjectionSettings({ settings: s, onChange }: SettingFieldProps)
   );
 }
 
-/** The profile: sampler, its own settings, and the bins. */
+/** Friendlier option labels of choice settings, by setting key. */
+const OPTION_NAMES: Readonly<Record<string, Readonly<Record<string, string>>>> = {
+  'profile.mode': Object.fromEntries(PROFILE_SAMPLERS.map((m) => [m.mode, m.label])),
+  'profile.dorsalSide': { left: 'left of A→P', right: 'right of A→P' },
+};
+
+/** The profile: sampler, the settings of the chosen sampler, and the bins. */
 export function ProfileSettings({ settings: s, onChange }: SettingFieldProps) {
+  const own = PROFILE_SAMPLERS.find((m) => m.mode === s.profile.mode)?.settingKeys ?? [];
   return (
     <fieldset><legend>Profile</legend>
-      <ChoiceSetting settingKey="profile.mode" settings={s} onChange={onChange} names={{ edge: 'edge band', axis: 'axis strip' }} />
-      {s.profile.mode === 'edge' ? <>
-        <ChoiceSetting settingKey="profile.edgeSide" settings={s} onChange={onChange} />
-        <ChoiceSetting settingKey="profile.dorsalSide" settings={s} onChange={onChange} names={{ left: 'left of A→P', right: 'right of A→P' }} />
-        <NumberSetting settingKey="profile.edgeDepthUm" settings={s} onChange={onChange} />
-      </> : <NumberSetting settingKey="profile.axisWidthUm" settings={s} onChange={onChange} />}
+      <ChoiceSetting settingKey="profile.mode" settings={s} onChange={onChange} names={OPTION_NAMES['profile.mode']} />
+      {own.map((key) => (settingSpec(key).kind === 'choice'
+        ? <ChoiceSetting key={key} settingKey={key} settings={s} onChange={onChange} names={OPTION_NAMES[key]} />
+        : <NumberSetting key={key} settingKey={key} settings={s} onChange={onChange} />))}
       <NumberSetting settingKey="profile.binCount" settings={s} onChange={onChange} />
     </fieldset>
   );

@@ -7,10 +7,10 @@ import { defaultWorkerPath, runBatch, type BatchRunResult } from '../batch/run-b
 import { DEFAULT_TIMELAPSE_OPTIONS } from '../batch/timelapse-pass';
 import { writeDemoDataSet } from '../batch/write-demo';
 import { openStackForAnalysis } from '../decode';
+import { ApiFailure } from './api-failure';
 import { summariseCohort } from './cohort-summary';
 import type { AnalysisEngine, BatchRunOptions, SliceData, ViewData } from './engine';
 import { placeholderDetection } from './placeholder-detection';
-import { ApiFailure } from './result';
 
 /** Read, project over Z and detect (a placeholder axis when none is found); decoder fallbacks join the warnings. */
 async function loadForView(path: string, label: string, settings: AnalysisSettings): Promise<ViewData> {

@@ -1,0 +1,72 @@
+// The edge band: pixels just inside the outline (the nuclear layer), on the dorsal, ventral or both sides of the axis.
+import type { ApAxis, ImagePoint, Mask } from '../../model';
+import type { AnalysisSettings } from '../../settings';
+import { distanceInside } from '../../image';
+import { maskContours } from '../../geometry';
+import { binIndices, type SideFilter } from '../bin';
+import { rowsWhere } from './rows';
+import type { PreparedSampling, ProfileSampler, SampledRegion, SamplingBase } from './types';
+
+/**
+ * Side of the A→P line the band is sampled on: 'all' for both sides, else the side (left or right of the direction
+ * anterior→posterior in image coordinates) that edgeSide names, given which side is dorsal.
+ */
+export function edgeSideFilter(settings: AnalysisSettings): SideFilter {
+  const p = settings.profile;
+  if (p.edgeSide === 'both') return 'all';
+  const dorsalLeft = p.dorsalSide === 'left';
+  return (p.edgeSide === 'dorsal') === dorsalLeft ? 'left' : 'right';
+}
+
+/** 1 where a mask pixel's centre lies within edgeDepthPx of the outline (depth − 0.5 ≤ edgeDepthPx), in the box. */
+function bandPixels(mask: Uint8Array, depthPx: Float32Array, width: number, x0: number, y0: number, x1: number, y1: number, edgeDepthPx: number, out: Uint8Array): void {
+  for (let y = y0; y < y1; y++) {
+    for (let i = y * width + x0, end = y * width + x1; i < end; i++) out[i] = +(mask[i] === 1 && depthPx[i] - 0.5 <= edgeDepthPx);
+  }
+}
+
+/** Band depth in px: edgeDepthUm over the pixel size (taken as px when the pixel size is unknown). */
+export function edgeDepthPx(settings: AnalysisSettings, pixelSizeUm: number | null): number {
+  return pixelSizeUm ? settings.profile.edgeDepthUm / pixelSizeUm : settings.profile.edgeDepthUm;
+}
+
+/** The band pixels of any side (pixels whose centre lies within edgeDepthUm of the outline: depth − 0.5 px ≤ depth, the
+ *  outline lying half a pixel outside the last inside centre). Band and pixels lie within the mask's box. */
+function prepare(base: SamplingBase, settings: AnalysisSettings): SampledRegion {
+  const { mask, box } = base;
+  const depthPx = distanceInside(mask);
+  const data = new Uint8Array(mask.data.length);
+  if (box) bandPixels(mask.data, depthPx, mask.width, box.x0, box.y0, box.x1, box.y1, edgeDepthPx(settings, base.pixelSizeUm), data);
+  return { mask: { width: mask.width, height: mask.height, data }, pixels: base.gather(data) };
+}
+
+function bins(prepared: PreparedSampling, axis: ApAxis, settings: AnalysisSettings): Int32Array {
+  const { xs, ys } = prepared.region.pixels;
+  return binIndices(xs, ys, axis, settings.profile.binCount, edgeSideFilter(settings));
+}
+
+/** Contours of the band pixels on the chosen side: outer and inner rings. */
+function outline(prepared: PreparedSampling, axis: ApAxis, settings: AnalysisSettings): ImagePoint[][] {
+  const { xs, ys } = prepared.region.pixels;
+  const { width, height } = prepared;
+  const onSide = binIndices(xs, ys, axis, 1, edgeSideFilter(settings));
+  const data = new Uint8Array(width * height);
+  for (let k = 0; k < onSide.length; k++) if (onSide[k] >= 0) data[ys[k] * width + xs[k]] = 1;
+  const sided: Mask = { width, height, data };
+  return maskContours(sided).filter((c) => c.length >= 3);
+}
+
+/** Rows on the sampled side(s); the band's depth is already in the region. */
+function stripRows(rowCount: number, _rowStepUm: number, settings: AnalysisSettings): Uint8Array {
+  const side = edgeSideFilter(settings);
+  return rowsWhere(rowCount, (d) => (d <= 0 ? side !== 'right' : side !== 'left'));
+}
+
+/** Edge band sampler ('edge'). */
+export const EDGE_BAND: ProfileSampler = {
+  mode: 'edge',
+  label: 'edge band',
+  settingKeys: ['profile.edgeSide', 'profile.dorsalSide', 'profile.edgeDepthUm'],
+  describe: (get) => `edge band, ${String(get('edgeSide') ?? '?')} side(s), ${String(get('edgeDepthUm') ?? '?')} µm deep`,
+  prepare, bins, outline, stripRows,
+};
