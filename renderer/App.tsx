@@ -26,6 +26,8 @@ import { Help } from './components/Help';
 import { useSession } from './hooks/useSession';
 import { useStackLoader } from './hooks/useStackLoader';
 import { useExports } from './hooks/useExports';
+import { useMovie } from './hooks/useMovie';
+import { TimelapseView } from './components/timelapse/TimelapseView';
 import { bandOutlinesLive, measureLive, prepareLive } from './live';
 import type { ImagePoint } from '../core/model';
 import type { FolderEntry } from '../core/contract';
@@ -59,6 +61,7 @@ export function App() {
   const [saveStatus, saveNow] = useAutosave(api, session.projectPath, session.folder, state.doc, state.revision, session.batchOutDir);
   flushSave.current = () => (saveStatus.kind === 'pending' ? saveNow() : Promise.resolve());
   const { batch, results, chooseOutput, run, cancel, restore } = useBatch(api);
+  const { movie, analyse: analyseMovie, cancel: cancelMovie } = useMovie(api);
   // The project's last batch comes back with the project (results.json in the output folder it records).
   useEffect(() => { void restore(session.batchOutDir, session.folder); }, [session.projectPath, session.folder]);
   // A finished batch's output folder is written into the project at once, so its results reopen after a restart.
@@ -207,7 +210,7 @@ export function App() {
           {session.message && <button className="close" aria-label="dismiss the message" onClick={() => setMessage(null)}>✕</button>}
         </div>
       )}
-      <div className="body">
+      <div className={tab === 'time' ? 'body wide-centre' : 'body'}>
         <aside className="left">
           <FolderList folder={session.folder} entries={session.entries} current={state.current} onSelect={select} status={statusOf}
             handEdited={(n) => { const f = state.doc.files[n]; return f !== undefined && (f.axis !== null || f.landmarks.length > 0 || f.fitRangeEl !== null); }} />
@@ -219,6 +222,9 @@ export function App() {
             spaceHeld={spaceHeld} overlays={overlays} onOverlays={setOverlays} readoutTarget={readoutTarget} loadError={loadError} />
           {tab === 'batch' && <BatchPanel batch={batch} folder={session.folder} fileCount={session.entries.length} onChooseOutput={chooseOutput}
             onRun={() => { void runBatchNow(); }} onCancel={cancel} onOpenFile={openFromBatch} onOpenReport={openReport} current={state.current} />}
+          {tab === 'time' && <TimelapseView api={api} file={entry === null ? null : { name: entry.name, path: entry.path }} sizeT={stack?.info.sizeT ?? null} movie={movie}
+            onAnalyse={(o) => { if (entry !== null) void analyseMovie(entry.path, entry.name, toProjectDoc(state.doc, session.folder, session.batchOutDir), o); }}
+            onCancel={() => { void cancelMovie(); }} onTimePoint={(t) => dispatch({ type: 'showTimePoint', tIndex: t })} setMessage={setMessage} />}
           {tab === 'cohort' && <CohortView summary={batch.summary} onOpenReport={openReport} />}
         </main>
         <aside className="right">

@@ -7,8 +7,10 @@ import { join } from 'node:path';
 import { editsForFile, embryoMeasureRow, EMBRYO_MEASURE_COLUMNS, normalizeResult, summaryBoundary } from '../../core/batch';
 import { toCsv, type CsvValue } from '../../core/csv';
 import type { ProjectDoc } from '../../core/contract';
-import { accumulationFigure, figureSlug, kymographFigure, lambdaOverTimeFigure } from '../../core/figures';
-import { resultKey, resultKeyOf, withTimePoint, type EmbryoResult, type HandEdits, type MovieRecord, type StackInfo } from '../../core/model';
+import { accumulationFigure, figureSlug, kymographFigure, lambdaOverTimeFigure, type AccumulationFigureInput, type KymographInput, type LambdaPoint } from '../../core/figures';
+import {
+  resultKey, resultKeyOf, withTimePoint, type EmbryoResult, type HandEdits, type MovieRecord, type PlaneSource, type ProjectedStack, type StackInfo,
+} from '../../core/model';
 import { analyseMovie } from '../../core/pipeline';
 import { settingsInForce, type AnalysisSettings } from '../../core/settings';
 import { pagesAsTimePoints, resolveTimeAxis } from '../../core/tiff';
@@ -41,6 +43,8 @@ export interface MovieOutcome {
   readonly file: string;
   readonly timeIndices: readonly number[];
   readonly timesS: Float64Array | null;
+  /** Where the times came from (ome-plane, ome-increment, imagej, ome-zarr, user), or null. */
+  readonly timeSource?: string | null;
   readonly results: readonly EmbryoResult[];
   readonly summary: MovieSummary;
 }
@@ -75,16 +79,49 @@ export interface MovieRun {
 /** A record of a movie that failed (no time points). */
 function failedRecord(file: string, error: string, settings: AnalysisSettings, options: TimelapseOptions): MovieRecord {
   return {
-    file, timeIndices: [], timesS: null, fitRangeEl: settings.fitRangeEl, modelRangeEl: options.tauRangeEl,
+    file, timeIndices: [], timesS: null, timeSource: null, fitRangeEl: settings.fitRangeEl, modelRangeEl: options.tauRangeEl,
     baselineFrames: options.baselineFrames, warnings: [], error,
   };
 }
 
+/** What the window follows while a movie is analysed: progress, each time point's projection, cancelling. */
+export interface MovieHooks {
+  readonly onTimePoint?: (done: number, total: number) => void;
+  readonly onProjected?: (k: number, projected: ProjectedStack, total: number) => void;
+  readonly signal?: { readonly aborted: boolean } | null;
+}
+
 /**
- * Analyse one file as a movie; null when it has a single time point (or does not open: the main pass reports that).
- * Every result is keyed by its time point and time and normalised as the journal stores results, so tables made
- * from it equal those made from results.json read back. Never rejects.
+ * An opened movie analysed over time (the batch and the window share this); null when it has one time point. Every
+ * result is keyed by its time point and time and normalised as the journal stores results, so tables made from it
+ * equal those made from results.json read back.
  */
+async function analyseOpenedMovie(
+  opened: { info: StackInfo; source: PlaneSource }, file: string, settings: AnalysisSettings, doc: ProjectDoc | null,
+  options: TimelapseOptions, hooks: MovieHooks,
+): Promise<MovieRun | null> {
+  const info = asMovie(opened.info, options.timeStepS);
+  if (info.sizeT <= 1) return null;
+  const picked = selectTimeIndices(options.selection, info.sizeT);
+  if (typeof picked === 'string') return { record: failedRecord(file, `${file}: ${picked}`, settings, options), results: [] };
+  const warnings: string[] = [];
+  const axis = resolveTimeAxis(info, options.timeStepS, warnings);
+  const own = editsAt(doc, file, settings, null);
+  const m = await analyseMovie(info, opened.source, own.settings, {
+    fileLabel: file, handEdits: own.handEdits, editsAt: (t) => editsAt(doc, file, settings, t),
+    timeIndices: picked, axisPerTime: options.axisPerTime, ...hooks,
+  });
+  const timesS = axis.timesS ? Float64Array.from(picked, (t) => axis.timesS![t]) : null;
+  const results = m.results.map((r, k) => normalizeResult(withTimePoint(r, picked[k], timesS ? timesS[k] : null)));
+  const record: MovieRecord = {
+    file, timeIndices: picked, timesS, timeSource: axis.timesS ? axis.source : null, fitRangeEl: own.settings.fitRangeEl, modelRangeEl: options.tauRangeEl,
+    baselineFrames: options.baselineFrames, warnings, error: null,
+  };
+  return { record, results };
+}
+
+/** Analyse one file as a movie; null when it has a single time point (or does not open: the main pass reports that).
+ *  Never rejects. */
 export async function analyseMovieFile(
   folder: string, file: string, settings: AnalysisSettings, doc: ProjectDoc | null, options: TimelapseOptions,
 ): Promise<MovieRun | null> {
@@ -92,28 +129,29 @@ export async function analyseMovieFile(
   try {
     opened = await openStack(join(folder, file), file).catch(() => null);
     if (!opened) return null;
-    const info = asMovie(opened.info, options.timeStepS);
-    if (info.sizeT <= 1) return null;
-    const picked = selectTimeIndices(options.selection, info.sizeT);
-    if (typeof picked === 'string') return { record: failedRecord(file, `${file}: ${picked}`, settings, options), results: [] };
-    const warnings: string[] = [];
-    const axis = resolveTimeAxis(info, options.timeStepS, warnings);
-    const own = editsAt(doc, file, settings, null);
-    const m = await analyseMovie(info, opened.source, own.settings, {
-      fileLabel: file, handEdits: own.handEdits, editsAt: (t) => editsAt(doc, file, settings, t),
-      timeIndices: picked, axisPerTime: options.axisPerTime,
-    });
-    const timesS = axis.timesS ? Float64Array.from(picked, (t) => axis.timesS![t]) : null;
-    const results = m.results.map((r, k) => normalizeResult(withTimePoint(r, picked[k], timesS ? timesS[k] : null)));
-    const record: MovieRecord = {
-      file, timeIndices: picked, timesS, fitRangeEl: own.settings.fitRangeEl, modelRangeEl: options.tauRangeEl,
-      baselineFrames: options.baselineFrames, warnings, error: null,
-    };
-    return { record, results };
+    return await analyseOpenedMovie(opened, file, settings, doc, options, {});
   } catch (e) {
     return { record: failedRecord(file, fileMessage(file, e), settings, options), results: [] };
   } finally {
     await opened?.source.close().catch(() => undefined);
+  }
+}
+
+/**
+ * The window's analysis of one movie at `path` (project key `file`), as the batch analyses it. Rejects with a
+ * one-line message naming the file when it does not open, has one time point, or is cancelled (AbortError).
+ */
+export async function analyseMovieAtPath(
+  path: string, file: string, settings: AnalysisSettings, doc: ProjectDoc | null, options: TimelapseOptions, hooks: MovieHooks,
+): Promise<MovieOutcome> {
+  const opened = await openStack(path, file);
+  try {
+    const r = await analyseOpenedMovie(opened, file, settings, doc, options, hooks);
+    if (r === null) throw new Error(`${file}: has one time point; the time-lapse view needs a movie`);
+    if (r.record.error !== null) throw new Error(r.record.error);
+    return movieOutcomes([r.record], r.results).movies[0];
+  } finally {
+    await opened.source.close().catch(() => undefined);
   }
 }
 
@@ -161,7 +199,7 @@ export function movieOutcomes(records: readonly MovieRecord[], results: readonly
     const summary = summarizeMovie(rec.file, rec.timeIndices, rec.timesS, list, {
       fitRangeEl: rec.fitRangeEl, modelRangeEl: rec.modelRangeEl, baselineFrames: rec.baselineFrames,
     });
-    movies.push({ file: rec.file, timeIndices: rec.timeIndices, timesS: rec.timesS, results: list, summary: { ...summary, warnings: [...rec.warnings, ...summary.warnings] } });
+    movies.push({ file: rec.file, timeIndices: rec.timeIndices, timesS: rec.timesS, timeSource: rec.timeSource ?? null, results: list, summary: { ...summary, warnings: [...rec.warnings, ...summary.warnings] } });
   }
   return { movies, failures };
 }
@@ -192,15 +230,16 @@ export function timecourseBoundariesCsv(movies: readonly MovieOutcome[]): string
   return toCsv(['file', 't_index', 't_s', 'channel', 'method', 'position_el', 'position_um', 'width_el', 'position_se_el', 'direction', 'note'], rows);
 }
 
-/** The three figures of one movie (SVG text by file-name suffix). */
-export function movieFigures(m: MovieOutcome): { name: string; title: string; svg: string }[] {
+/** The data of one movie's three figures (λ over time, the kymograph, τ(x) with the model lines). */
+export function movieFigureData(m: MovieOutcome): {
+  lambda: LambdaPoint[]; steadyLambdaEl: number | undefined; kymograph: KymographInput | null; accumulation: AccumulationFigureInput | null;
+} {
   const s = m.summary;
-  const slug = figureSlug(m.file.replace(/\.(ome\.)?tiff?$/i, ''));
   const times = m.timesS ?? Float64Array.from(m.timeIndices);
-  const lambda = lambdaOverTimeFigure(s.lambda.map((l) => ({
+  const lambda = s.lambda.map((l) => ({
     tS: l.tS, lambdaEl: l.fit?.lambdaEl ?? NaN,
     ciLowEl: l.fit ? l.fit.lambdaCiLowUm / (l.fit.lambdaUm / l.fit.lambdaEl) : NaN, ciHighEl: l.fit ? l.fit.lambdaCiHighUm / (l.fit.lambdaUm / l.fit.lambdaEl) : NaN,
-  })), { steadyLambdaEl: s.steadyFit?.lambdaEl });
+  }));
   const profiles = m.results.map((r) => r.gradientProfile);
   const first = profiles.find((p) => p !== null) ?? null;
   const boundaryTrack = m.results.map((r) => summaryBoundary(r)?.positionEl ?? NaN);
@@ -209,17 +248,38 @@ export function movieFigures(m: MovieOutcome): { name: string; title: string; sv
     ...(boundaryTrack.some(Number.isFinite) ? [{ label: `boundary (channel ${m.results.find((r) => r.boundaries[0])?.boundaries[0].channel ?? '?'})`, kind: 'boundary' as const, xEl: boundaryTrack }] : []),
     ...landmarkNames.map((name) => ({ label: name, kind: 'landmark' as const, xEl: m.results.map((r) => r.landmarks.find((l) => l.name === name)?.xEl ?? NaN) })),
   ];
-  const kymo = first ? kymographFigure({ xEl: first.xEl, timesS: times, values: profiles.map((p) => p?.mean ?? first.xEl.map(() => NaN)), tracks }) : null;
+  const kymograph = first ? { xEl: first.xEl, timesS: times, values: profiles.map((p) => p?.mean ?? first.xEl.map(() => NaN)), tracks } : null;
   const a = s.accumulation;
-  const tau = a ? accumulationFigure({
+  const accumulation = a ? {
     xEl: a.xEl, tauS: a.tauS, ciLowS: a.tauCiLowS, ciHighS: a.tauCiHighS,
     fit: s.model ? { tau0S: s.model.tau0S.value, lambdaTauEl: s.model.lambdaTauEl.value, rangeEl: s.model.rangeEl, steadyLambdaEl: s.steadyFit?.lambdaEl ?? NaN } : null,
-  }) : null;
+  } : null;
+  return { lambda, steadyLambdaEl: s.steadyFit?.lambdaEl, kymograph, accumulation };
+}
+
+/** The three figures of one movie (SVG text by file-name suffix). */
+export function movieFigures(m: MovieOutcome): { name: string; title: string; svg: string }[] {
+  const slug = figureSlug(m.file.replace(/\.(ome\.)?tiff?$/i, ''));
+  const d = movieFigureData(m);
+  const lambda = lambdaOverTimeFigure(d.lambda, { steadyLambdaEl: d.steadyLambdaEl });
+  const kymo = d.kymograph ? kymographFigure(d.kymograph) : null;
+  const tau = d.accumulation ? accumulationFigure(d.accumulation) : null;
   return [
     { name: `${slug}-lambda.svg`, title: `λ over time — ${m.file}`, svg: lambda },
     ...(kymo ? [{ name: `${slug}-kymograph.svg`, title: `kymograph — ${m.file}`, svg: kymo }] : []),
     ...(tau ? [{ name: `${slug}-tau.svg`, title: `local accumulation time τ(x) — ${m.file}`, svg: tau }] : []),
   ];
+}
+
+/** The five tables of the given movies as the batch writes them (CSV text). */
+export function movieTables(movies: readonly MovieOutcome[]): { timecourse: string; profiles: string; boundaries: string; accumulation: string; modelFit: string } {
+  return {
+    timecourse: timecourseCsv(movies),
+    profiles: timecourseProfilesCsv(movies),
+    boundaries: timecourseBoundariesCsv(movies),
+    accumulation: toCsv(ACCUMULATION_COLUMNS, movies.flatMap((m) => accumulationRows(m.summary))),
+    modelFit: toCsv(MODEL_FIT_COLUMNS, movies.map((m) => modelFitRow(m.summary))),
+  };
 }
 
 /** Writes the tables, figures (timelapse/*.svg) and timelapse.html for the analysed movies; returns the paths. */
@@ -228,13 +288,28 @@ export async function writeTimelapseOutputs(outDir: string, movies: readonly Mov
   await fs.mkdir(figureDir, { recursive: true });
   const written: string[] = [];
   const put = async (path: string, text: string): Promise<void> => { await writeFileAtomic(path, text); written.push(path); };
-  await put(join(outDir, 'timecourse.csv'), timecourseCsv(movies));
-  await put(join(outDir, 'timecourse_profiles.csv'), timecourseProfilesCsv(movies));
-  await put(join(outDir, 'timecourse_boundaries.csv'), timecourseBoundariesCsv(movies));
-  await put(join(outDir, 'accumulation.csv'), toCsv(ACCUMULATION_COLUMNS, movies.flatMap((m) => accumulationRows(m.summary))));
-  await put(join(outDir, 'model_fit.csv'), toCsv(MODEL_FIT_COLUMNS, movies.map((m) => modelFitRow(m.summary))));
+  const tables = movieTables(movies);
+  await put(join(outDir, 'timecourse.csv'), tables.timecourse);
+  await put(join(outDir, 'timecourse_profiles.csv'), tables.profiles);
+  await put(join(outDir, 'timecourse_boundaries.csv'), tables.boundaries);
+  await put(join(outDir, 'accumulation.csv'), tables.accumulation);
+  await put(join(outDir, 'model_fit.csv'), tables.modelFit);
   const figures = movies.map((m) => ({ movie: m, figures: movieFigures(m) }));
   for (const { figures: list } of figures) for (const f of list) await put(join(figureDir, f.name), f.svg);
   await put(join(outDir, 'timelapse.html'), timelapsePage(figures, failures, new Date().toISOString()));
   return written;
+}
+
+/**
+ * The time pass alone over some files (outside a batch): analyse those with more than one time point as movies and
+ * write their time-lapse tables, figures and page. Returns null when no file is a movie.
+ */
+export async function runTimelapsePass(
+  folder: string, outDir: string, files: readonly string[], settings: AnalysisSettings, doc: ProjectDoc | null,
+  options: TimelapseOptions, onMovie?: (file: string, done: number) => void,
+): Promise<{ movies: MovieOutcome[]; failures: MovieFailure[]; written: string[] } | null> {
+  const runs = await analyseMovies(folder, files, settings, doc, options, onMovie);
+  if (runs.length === 0) return null;
+  const { movies, failures } = movieOutcomes(runs.map((r) => r.record), runs.flatMap((r) => r.results));
+  return { movies, failures, written: await writeTimelapseOutputs(outDir, movies, failures) };
 }

@@ -1,5 +1,5 @@
 // One embryo end to end: project → detect → (hand axis) → sampler (prepare, sample) → fit, as an EmbryoResult that never throws.
-import { errorResult, withTimePoint, type EmbryoResult, type HandEdits, type PlaneSource, type StackInfo } from '../model';
+import { errorResult, withTimePoint, type EmbryoResult, type HandEdits, type PlaneSource, type ProjectedStack, type StackInfo } from '../model';
 import type { AnalysisSettings } from '../settings';
 import { projectStack } from '../image';
 import { detectEmbryo, type EmbryoDetection } from '../geometry';
@@ -13,6 +13,8 @@ export interface AnalyseOptions {
   readonly handEdits?: HandEdits | null;
   /** The embryo (mask and axis) found beforehand, used instead of segmenting this stack: a movie's, found once. */
   readonly detection?: EmbryoDetection | null;
+  /** Told the Z projection once it is made (the window keeps a small copy of each time point of a movie). */
+  readonly onProjected?: (projected: ProjectedStack) => void;
   /** Time of the analysed time point in s, when the caller knows it better than the file (--time-step); else the file's. */
   readonly timeS?: number | null;
 }
@@ -41,6 +43,7 @@ async function analyseOneTimePoint(info: StackInfo, source: PlaneSource, setting
   if (bad) return errorResult(file, bad);
   try {
     const projected = await projectStack(info, source, settings);
+    options.onProjected?.(projected);
     const detection = options.detection ?? detectEmbryo(projected, settings);
     const hand = options.handEdits?.axis ?? null;
     const axis = hand ? { ...hand, source: 'hand' as const } : detection.axis;

@@ -40,4 +40,21 @@ describe('analyseMovie (demo data: a small synthetic movie)', () => {
     expect(m.results.map((r) => r.tIndex)).toEqual([2, 9]);
     expect(m.results[0].error).toMatch(/^m\.ome\.tif: time point 9 is outside the movie \(T = 6\)/);
   });
+
+  it('reports each analysed time point and its projection, and stops with an error naming the file when cancelled', async () => {
+    const done: string[] = [];
+    const sizes: number[] = [];
+    const m = await analyseMovie(info, syntheticMoviePlaneSource(movie), DEFAULT_SETTINGS, {
+      fileLabel: 'm.ome.tif', timeIndices: [0, 2, 4],
+      onTimePoint: (d, n) => done.push(`${d}/${n}`), onProjected: (k, p) => sizes.push(k, p.channels[0].width),
+    });
+    expect(m.results).toHaveLength(3);
+    expect(done).toEqual(['1/3', '2/3', '3/3']);
+    expect(sizes).toEqual([0, 200, 1, 200, 2, 200]);
+    const signal = { aborted: false };
+    const run = analyseMovie(info, syntheticMoviePlaneSource(movie), DEFAULT_SETTINGS, {
+      fileLabel: 'm.ome.tif', timeIndices: [0, 1, 2, 3], signal, onTimePoint: (d) => { if (d === 2) signal.aborted = true; },
+    });
+    await expect(run).rejects.toThrow(/^m\.ome\.tif: analysis over time cancelled$/);
+  });
 });

@@ -19,6 +19,17 @@ export interface MovieOptions {
   readonly axisPerTime?: boolean;
   /** Time points averaged to find the axis once; default 8, spread evenly over the movie. */
   readonly axisSampleCount?: number;
+  /** Told after each analysed time point: how many are done of how many (the window's progress). */
+  readonly onTimePoint?: (done: number, total: number) => void;
+  /** Told each time point's Z projection (k = position in timeIndices, of total). */
+  readonly onProjected?: (k: number, projected: ProjectedStack, total: number) => void;
+  /** Checked before each time point; when aborted, analyseMovie rejects with an AbortError naming the file. */
+  readonly signal?: { readonly aborted: boolean } | null;
+}
+
+/** The error a cancelled movie analysis rejects with. */
+function cancelled(fileLabel: string): Error {
+  return Object.assign(new Error(`${fileLabel}: analysis over time cancelled`), { name: 'AbortError' });
 }
 
 /** The results per analysed time point (same order as timeIndices) and the movie's axis (null with axisPerTime). */
@@ -59,7 +70,8 @@ export async function projectOverTime(info: StackInfo, source: PlaneSource, sett
  * Analyse the chosen time points of a movie. Unless axisPerTime, the embryo (mask and axis) is found once on
  * projectOverTime — a live embryo barely moves — and every time point is projected, given its own background and
  * measured within that mask, along the hand axis when there is one. With axisPerTime every time point is segmented
- * on its own. Errors become results with status 'error' naming the file and time point.
+ * on its own. Errors become results with status 'error' naming the file and time point; only cancelling (options.signal)
+ * makes it reject.
  */
 export async function analyseMovie(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, options: MovieOptions): Promise<MovieAnalysis> {
   const { fileLabel, timeIndices } = options;
@@ -69,6 +81,7 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
     return { timeIndices, results: timeIndices.map((t) => withTimePoint(r, t, info.time?.timesS?.[t] ?? null)), movieAxis: null };
   }
   let detection: EmbryoDetection | null = null;
+  if (options.signal?.aborted) throw cancelled(fileLabel);
   if (!options.axisPerTime) {
     try {
       const projected = await projectOverTime(info, source, settings, axisSampleTimes(info.sizeT, options.axisSampleCount ?? 8));
@@ -79,10 +92,13 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
     }
   }
   const results: EmbryoResult[] = [];
-  for (const t of timeIndices) {
+  for (const [k, t] of timeIndices.entries()) {
+    if (options.signal?.aborted) throw cancelled(fileLabel);
     const at = options.editsAt?.(t);
     const settingsAtT = { ...(at ? at.settings : settings), timeIndex: t };
-    results.push(await analyseStack(info, source, settingsAtT, { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection }));
+    const onProjected = options.onProjected ? (p: ProjectedStack) => options.onProjected!(k, p, timeIndices.length) : undefined;
+    results.push(await analyseStack(info, source, settingsAtT, { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection, onProjected }));
+    options.onTimePoint?.(k + 1, timeIndices.length);
   }
   const hand = options.handEdits?.axis ?? null;
   return { timeIndices, results, movieAxis: hand ? { ...hand, source: 'hand' } : detection?.axis ?? null };
