@@ -3,8 +3,6 @@
 import { useCallback, useEffect, useMemo, useReducer, useRef, useState } from 'react';
 import { MENU_OPEN_RECENT_PREFIX } from '../core/contract';
 import type { Plane } from '../core/model';
-import { straightViewHalfWidthPx } from '../core/profile';
-import { settingsInForce } from '../core/settings';
 import { getApi } from './api';
 import { BatchPanel } from './components/BatchPanel';
 import { ChannelPanel } from './components/ChannelPanel';
@@ -20,17 +18,18 @@ import { screenPt, zoomAt } from './geometry';
 import { toProjectDoc, useAutosave } from './hooks/useAutosave';
 import { useBatch } from './hooks/useBatch';
 import { useElementSize } from './hooks/useElementSize';
-import { keyCommand } from './hooks/useKeys';
 import type { KeyCommand } from './hooks/useKeys';
+import { useCommandInput } from './hooks/useCommandInput';
 import { Help } from './components/Help';
 import { useSession } from './hooks/useSession';
 import { useStackLoader } from './hooks/useStackLoader';
 import { useExports } from './hooks/useExports';
-import { bandOutlinesLive, measureLive, prepareLive } from './live';
-import type { ImagePoint } from '../core/model';
+import { useLiveMeasurement } from './hooks/useLiveMeasurement';
+import { useMovie } from './hooks/useMovie';
+import { TimelapseView } from './components/timelapse/TimelapseView';
 import type { FolderEntry } from '../core/contract';
 import { fileStatus } from './state/fileStatus';
-import { currentEdits, editorReducer, effectiveAxis, effectiveFitRange, fileResult, initialState } from './state';
+import { currentEdits, editorReducer, fileResult, initialState } from './state';
 import { autoDisplayRange, CHANNEL_COLOURS } from './view';
 
 export type { Tab } from './components/Toolbar';
@@ -56,9 +55,12 @@ export function App() {
   // Until the shown file's stack arrives, show nothing rather than its edits over the previous image.
   const stack = load.stack !== null && load.stack.path === entry?.path ? load.stack : null;
   const { loading, error: loadError } = load;
+  // The first picture while the stack loads: one raw slice, replaced by the projection when the stack arrives.
+  const preview = stack === null && load.preview !== null && load.preview.path === entry?.path ? load.preview.plane : null;
   const [saveStatus, saveNow] = useAutosave(api, session.projectPath, session.folder, state.doc, state.revision, session.batchOutDir);
   flushSave.current = () => (saveStatus.kind === 'pending' ? saveNow() : Promise.resolve());
   const { batch, results, chooseOutput, run, cancel, restore } = useBatch(api);
+  const { movie, analyse: analyseMovie, cancel: cancelMovie } = useMovie(api);
   // The project's last batch comes back with the project (results.json in the output folder it records).
   useEffect(() => { void restore(session.batchOutDir, session.folder); }, [session.projectPath, session.folder]);
   // A finished batch's output folder is written into the project at once, so its results reopen after a restart.
@@ -103,6 +105,14 @@ export function App() {
     setFitRequest((n) => n + 1);
   }, [stack]);
 
+  // The preview gets a display range of its own and is fitted to the window like a loaded stack.
+  useEffect(() => {
+    if (preview === null) return;
+    const [low, high] = autoDisplayRange(preview);
+    dispatch({ type: 'initChannelDisplay', channels: [{ colour: CHANNEL_COLOURS[0], low, high }] });
+    setFitRequest((n) => n + 1);
+  }, [preview]);
+
   useEffect(() => {
     if (api === null || stack === null || zSlice === null) { setSlicePlanes(null); return; }
     let live = true;
@@ -116,24 +126,9 @@ export function App() {
   }, [api, stack, zSlice]);
 
   const edits = currentEdits(state);
-  // The shown file's own dorsal side (project file) applies to its live measurement as it does in the batch.
-  const settings = useMemo(() => settingsInForce(state.doc.settings, { fitRangeEl: null, dorsalSide: edits.dorsalSide ?? null }),
-    [state.doc.settings, edits.dorsalSide]);
-  const prepared = useMemo(() => (stack === null ? null : prepareLive(stack, settings)), [stack, settings]);
-  const axis = stack === null ? null : effectiveAxis(state);
-  const fitRangeEl = effectiveFitRange(state);
-  const measurement = useMemo(() => (prepared === null || axis === null ? null : measureLive(prepared, axis, settings, edits.landmarks, fitRangeEl)),
-    [prepared, axis, settings, edits.landmarks, fitRangeEl]);
-  // The sampled-region outline is slow to trace on large images, so it follows the axis once a drag pauses.
-  const [bandOutlines, setBandOutlines] = useState<ImagePoint[][]>([]);
-  useEffect(() => {
-    if (prepared === null || axis === null) { setBandOutlines([]); return; }
-    const t = setTimeout(() => setBandOutlines(bandOutlinesLive(prepared, axis, settings)), 100);
-    return () => clearTimeout(t);
-  }, [prepared, axis, settings]);
-  const planes = slicePlanes ?? stack?.projected.channels ?? [];
-  const names = stack?.projected.channelNames ?? [];
-  const pixelSizeUm = prepared === null ? null : (stack?.projected.pixelSizeUm ?? settings.pixelSizeUm);
+  const { settings, axis, fitRangeEl, measurement, bandOutlines, pixelSizeUm, halfWidthPx } = useLiveMeasurement(stack, state);
+  const planes = slicePlanes ?? stack?.projected.channels ?? (preview === null ? [] : [preview]);
+  const names = stack?.projected.channelNames ?? (preview === null ? [] : ['C1']);
   const exports = useExports(api, { state, stack, measurement, bandOutlines, axis, entryName: state.current, setMessage, planes });
 
   const step = (d: number) => {
@@ -170,27 +165,9 @@ export function App() {
         if (cmd.startsWith(MENU_OPEN_RECENT_PREFIX)) void openRecent(cmd.slice(MENU_OPEN_RECENT_PREFIX.length));
     }
   };
-  const commandRef = useRef(runCommand);
-  commandRef.current = runCommand;
-  useEffect(() => {
-    const down = (e: KeyboardEvent) => {
-      const t = e.target as HTMLElement | null;
-      if (t !== null && ['INPUT', 'SELECT', 'TEXTAREA'].includes(t.tagName)) return;
-      if (e.key === ' ') { setSpaceHeld(true); e.preventDefault(); return; }
-      const cmd = keyCommand(e);
-      if (cmd === null) return;
-      e.preventDefault();
-      commandRef.current(cmd);
-    };
-    const up = (e: KeyboardEvent) => { if (e.key === ' ') setSpaceHeld(false); };
-    window.addEventListener('keydown', down);
-    window.addEventListener('keyup', up);
-    return () => { window.removeEventListener('keydown', down); window.removeEventListener('keyup', up); };
-  }, []);
-  useEffect(() => api?.onMenuCommand((c) => commandRef.current(c)), [api]);
+  useCommandInput(api, runCommand, setSpaceHeld);
 
   if (api === null) return <div className="fatal">This page must run inside Eggline: the app connection (window.eggline) is missing.</div>;
-  const halfWidthPx = stack === null ? 50 : straightViewHalfWidthPx(stack.detection.eggWidthUm, stack.projected.pixelSizeUm);
   const message = session.message ?? (saveStatus.kind === 'error' ? `Not saved: ${saveStatus.message}` : null);
 
   return (
@@ -207,7 +184,7 @@ export function App() {
           {session.message && <button className="close" aria-label="dismiss the message" onClick={() => setMessage(null)}>✕</button>}
         </div>
       )}
-      <div className="body">
+      <div className={tab === 'time' ? 'body wide-centre' : 'body'}>
         <aside className="left">
           <FolderList folder={session.folder} entries={session.entries} current={state.current} onSelect={select} status={statusOf}
             handEdited={(n) => { const f = state.doc.files[n]; return f !== undefined && (f.axis !== null || f.landmarks.length > 0 || f.fitRangeEl !== null); }} />
@@ -219,6 +196,9 @@ export function App() {
             spaceHeld={spaceHeld} overlays={overlays} onOverlays={setOverlays} readoutTarget={readoutTarget} loadError={loadError} />
           {tab === 'batch' && <BatchPanel batch={batch} folder={session.folder} fileCount={session.entries.length} onChooseOutput={chooseOutput}
             onRun={() => { void runBatchNow(); }} onCancel={cancel} onOpenFile={openFromBatch} onOpenReport={openReport} current={state.current} />}
+          {tab === 'time' && <TimelapseView api={api} file={entry === null ? null : { name: entry.name, path: entry.path }} sizeT={stack?.info.sizeT ?? null} movie={movie}
+            onAnalyse={(o) => { if (entry !== null) void analyseMovie(entry.path, entry.name, toProjectDoc(state.doc, session.folder, session.batchOutDir), o); }}
+            onCancel={() => { void cancelMovie(); }} onTimePoint={(t) => dispatch({ type: 'showTimePoint', tIndex: t })} setMessage={setMessage} />}
           {tab === 'cohort' && <CohortView summary={batch.summary} onOpenReport={openReport} />}
         </main>
         <aside className="right">
@@ -230,7 +210,7 @@ export function App() {
         </aside>
       </div>
       <footer className="statusbar">
-        <span>{entry?.name ?? 'no file'}{axis ? ` · axis ${axis.source}` : ''}{edits.fitRangeEl ? ' · own fit range' : ''}</span>
+        <span>{entry?.name ?? 'no file'}{axis ? ` · axis ${axis.source}` : ''}{preview === null ? '' : ` · slice ${preview.z + 1} of ${preview.sizeZ}, first channel: projecting…`}{edits.fitRangeEl ? ' · own fit range' : ''}</span>
         <span className="readout-slot" ref={setReadoutTarget} />
         <span className="muted keys-hint">drag A/P · S swap · L landmark · Del delete · Space+drag pan · wheel/± zoom · F fit · Ctrl+Z undo · F1 help</span>
       </footer>

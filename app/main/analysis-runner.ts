@@ -2,7 +2,7 @@
 // never blocks on decoding or segmentation.
 import { Worker } from 'node:worker_threads';
 import type { AnalysisSettings } from '../../core/settings';
-import type { ApiErrorCode } from '../../core/contract';
+import type { ApiErrorCode, MovieProgress, MovieRequestOptions, MovieView, ProjectDoc, StackPreview } from '../../core/contract';
 import type { SliceData, ViewData } from '../engine/engine';
 import type { AnalysisReply, AnalysisRequest } from '../engine/analysis-protocol';
 import { ApiFailure } from './result';
@@ -17,11 +17,18 @@ type RequestBody = AnalysisRequest extends infer R ? R extends AnalysisRequest ?
 export interface AnalysisRunner {
   run(path: string, label: string, settings: AnalysisSettings): Promise<ViewData>;
   readSlice(path: string, label: string, z: number, c: number, t: number): Promise<SliceData>;
+  /** The preview slice (HandlerDeps.readPreviewOffThread). */
+  readPreview(path: string, label: string): Promise<StackPreview>;
+  /** Analyse a movie over time (label = the file's project key); progress per analysed time point. */
+  movie(path: string, label: string, doc: ProjectDoc, options: MovieRequestOptions, onProgress: (p: MovieProgress) => void): Promise<MovieView>;
   /** Stop the worker (pending calls are rejected). */
   close(): Promise<void>;
 }
 
-interface Pending { resolve(v: unknown): void; reject(e: Error): void; label: string; timer: NodeJS.Timeout; worker: Worker }
+interface Pending {
+  resolve(v: unknown): void; reject(e: Error): void; label: string; timer: NodeJS.Timeout; worker: Worker;
+  onProgress?: (done: number, total: number) => void; restartTimer?: () => void;
+}
 
 /** Rebuild an error from the worker so failureFrom can map it (TiffError → bad-file, ENOENT → not-found). */
 function errorFrom(reply: Extract<AnalysisReply, { ok: false }>): Error {
@@ -49,6 +56,8 @@ export function createAnalysisRunner(workerPath: string, timeoutMs = 180_000): A
     w.on('message', (reply: AnalysisReply) => {
       const p = pending.get(reply.id);
       if (p === undefined) return;
+      // Progress of a long call (a movie): it is alive, so its time limit starts again.
+      if (reply.ok === null) { p.restartTimer?.(); p.onProgress?.(reply.progress.done, reply.progress.total); return; }
       pending.delete(reply.id);
       clearTimeout(p.timer);
       if (reply.ok) p.resolve(reply.value); else p.reject(errorFrom(reply));
@@ -57,22 +66,27 @@ export function createAnalysisRunner(workerPath: string, timeoutMs = 180_000): A
     w.on('exit', (code) => { if (worker === w) worker = null; failAll((label) => `${label}: analysis stopped unexpectedly (exit code ${code})`, w); });
     return w;
   };
-  const call = <T>(body: RequestBody): Promise<T> => new Promise<T>((resolve, reject) => {
+  const call = <T>(body: RequestBody, onProgress?: (done: number, total: number) => void): Promise<T> => new Promise<T>((resolve, reject) => {
     const w = worker ??= start();
     const id = nextId++;
-    const timer = setTimeout(() => {
+    const expire = () => {
       pending.delete(id);
       reject(new Error(`${body.label}: analysis took longer than ${+(timeoutMs / 1000).toFixed(1)} s and was stopped`));
       // The worker is stuck: its other calls fail with it, and the next call starts a fresh one.
       if (worker === w) void stop();
       failAll((other) => `${other}: analysis stopped (another file hung the analysis thread)`, w);
-    }, timeoutMs);
-    pending.set(id, { resolve: resolve as (v: unknown) => void, reject, label: body.label, timer, worker: w });
+    };
+    const entry: Pending = { resolve: resolve as (v: unknown) => void, reject, label: body.label, timer: setTimeout(expire, timeoutMs), worker: w, onProgress };
+    entry.restartTimer = () => { clearTimeout(entry.timer); entry.timer = setTimeout(expire, timeoutMs); };
+    pending.set(id, entry);
     w.postMessage({ ...body, id } as AnalysisRequest);
   });
   return {
     run: (path, label, settings) => call<ViewData>({ kind: 'view', path, label, settings }),
     readSlice: (path, label, z, c, t) => call<SliceData>({ kind: 'slice', path, label, z, c, t }),
+    readPreview: (path, label) => call<StackPreview>({ kind: 'preview', path, label }),
+    movie: (path, label, doc, options, onProgress) => call<MovieView>({ kind: 'movie', path, label, doc, options },
+      (done, total) => onProgress({ file: label, done, total })),
     close: async () => { failAll((label) => `${label}: cancelled`, null); await stop(); },
   };
 }

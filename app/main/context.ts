@@ -1,5 +1,5 @@
 // Shared state of one handler set: dependencies, the path allow-list and running batches.
-import type { BatchProgress, ExportKind } from '../../core/contract';
+import type { BatchProgress, ExportKind, MovieProgress, MovieRequestOptions, MovieView, ProjectDoc } from '../../core/contract';
 import type { AnalysisSettings } from '../../core/settings';
 import type { PathAllowList } from './allow-list';
 import type { AnalysisEngine, ViewData } from '../engine/engine';
@@ -21,6 +21,14 @@ export interface HandlerDeps {
   readonly runAnalysisOffThread?: (path: string, label: string, settings: AnalysisSettings) => Promise<ViewData>;
   /** Decode loadSlice's plane off the main thread (the app passes the worker runner); in-process when absent. */
   readonly readSliceOffThread?: AnalysisEngine['readSlice'];
+  /** Read the preview slice off the main thread (the app passes the worker runner's). */
+  readonly readPreviewOffThread?: NonNullable<AnalysisEngine['readPreview']>;
+  /** Push movie-analysis progress to the renderer. */
+  readonly emitMovieProgress?: (p: MovieProgress) => void;
+  /** Analyse a movie over time off the main thread (the app passes a worker runner that stops when `signal` aborts);
+   *  in-process when absent. */
+  readonly runMovieOffThread?: (path: string, file: string, doc: ProjectDoc, options: MovieRequestOptions,
+    onProgress: (p: MovieProgress) => void, signal: AbortSignal) => Promise<MovieView>;
   /** The analysis services; the real modules when absent. */
   readonly engine?: AnalysisEngine;
   /** Told when the recent list changes (the app rebuilds its menu). */
@@ -41,6 +49,8 @@ export interface ShellContext {
   readonly allow: PathAllowList;
   /** Running batches by run id. */
   readonly batches: Map<string, AbortController>;
+  /** The running movie analysis (at most one). */
+  readonly movies: Set<AbortController>;
   /** Record a path in the recent list (failures to write it are ignored: it is a convenience). */
   noteRecent(path: string): Promise<void>;
 }

@@ -8,17 +8,18 @@ import type { HandlerDeps, ShellContext } from './context';
 import { createDefaultEngine } from '../engine/default-engine';
 import { openDemo } from './demo';
 import { exportFile, svgToPng } from './export-handlers';
+import { analyseMovie, cancelMovie } from './movie-handlers';
 import { openDropped, openFiles, openFolder, openProjectFile, openRecent } from './open-handlers';
 import { saveProject } from './project-handlers';
 import { addRecent, readRecent } from './recent';
 import { guard, labelOf, withLabel } from './result';
-import { loadSlice, loadStack } from './stack-handlers';
+import { loadPreview, loadSlice, loadStack } from './stack-handlers';
 
 export type { HandlerDeps } from './context';
 
 /** Every API method except the two event subscriptions (those live in the preload). */
-export type ApiHandlers = Omit<EgglineApi, 'onBatchProgress' | 'onMenuCommand' | 'pathForDroppedFile' | 'openRecent'>
-  & { openRecent: NonNullable<EgglineApi['openRecent']> };
+export type ApiHandlers = Omit<EgglineApi, 'onBatchProgress' | 'onMenuCommand' | 'onMovieProgress' | 'pathForDroppedFile' | 'openRecent' | 'loadPreview'>
+  & { openRecent: NonNullable<EgglineApi['openRecent']>; loadPreview: NonNullable<EgglineApi['loadPreview']> };
 
 /** The label a path argument gets in messages (null when it is not a string). */
 function labelArg(value: unknown): string | null {
@@ -32,6 +33,7 @@ function createContext(deps: HandlerDeps): ShellContext {
     engine: deps.engine ?? createDefaultEngine(),
     allow: createPathAllowList(),
     batches: new Map(),
+    movies: new Set(),
     noteRecent: async (path) => {
       const list = await addRecent(deps.dataDir, path).catch(() => null);
       if (list !== null) deps.onRecentChanged?.(list);
@@ -61,6 +63,7 @@ export function createHandlers(deps: HandlerDeps): ApiHandlers {
     recent: () => guard(null, () => readRecent(deps.dataDir)),
     openRecent: (path) => guard(labelArg(path), () => openRecent(ctx, path)),
     loadStack: (path, settings) => guard(labelArg(path), () => loadStack(ctx, path, settings), 'bad-file'),
+    loadPreview: (path) => guard(labelArg(path), () => loadPreview(ctx, path), 'bad-file'),
     loadSlice: (req) => guard(labelArg((req as { path?: unknown } | null)?.path), () => loadSlice(ctx, req), 'bad-file'),
     saveProject: (path, doc) => guard(labelArg(path), () => saveProject(ctx, path, doc), 'io'),
     openProject: () => guard(null, () => afterDialog(() => d.openProjectFile(),
@@ -75,6 +78,8 @@ export function createHandlers(deps: HandlerDeps): ApiHandlers {
     openReport: (path) => guard(labelArg(path), () => openReport(ctx, path), 'io'),
     exportFile: (kind, name, content) => guard(labelArg(name), () => exportFile(ctx, kind, name, content), 'io'),
     svgToPng: (svg, scale) => guard(null, () => svgToPng(svg, scale)),
+    analyseMovie: (path, file, doc, options) => guard(labelArg(file), () => analyseMovie(ctx, path, file, doc, options), 'bad-file'),
+    cancelMovie: async () => guard(null, async () => cancelMovie(ctx)),
   };
   return handlers;
 }

@@ -64,13 +64,22 @@ async function onReady(e: ElectronModule, state: { window: electron.BrowserWindo
     e.Menu.setApplicationMenu(e.Menu.buildFromTemplate(template as electron.MenuItemConstructorOptions[]));
   };
   const runner = createAnalysisRunner(join(distDir, 'analysis-worker.mjs'));
-  e.app.on('before-quit', () => { void runner.close(); });
+  // Movies get their own worker: cancelling one stops that worker without touching the shown stack's loading, and a
+  // long movie is allowed 10 minutes between two time points.
+  const movieRunner = createAnalysisRunner(join(distDir, 'analysis-worker.mjs'), 600_000);
+  e.app.on('before-quit', () => { void runner.close(); void movieRunner.close(); });
   const handlers = createHandlers({
     dataDir,
     dialogs: createDialogs(dialogsFor(e, () => state.window)),
     emitBatchProgress: (p) => send(API_EVENT_CHANNELS.batchProgress, p),
     runAnalysisOffThread: runner.run,
     readSliceOffThread: runner.readSlice,
+    readPreviewOffThread: runner.readPreview,
+    emitMovieProgress: (p) => send(API_EVENT_CHANNELS.movieProgress, p),
+    runMovieOffThread: (path, file, doc, options, onProgress, signal) => {
+      signal.addEventListener('abort', () => { void movieRunner.close(); }, { once: true });
+      return movieRunner.movie(path, file, doc, options, onProgress);
+    },
     onRecentChanged: setMenu,
     // Reports open in the system's browser, never in the app window; the handler checks the path first.
     openPath: (path) => e.shell.openPath(path),

@@ -2,7 +2,7 @@
 // ipcRenderer.invoke on fixed channels. Nothing of Electron itself (ipcRenderer, events) reaches the page.
 import { contextBridge, ipcRenderer, webUtils } from 'electron';
 import {
-  API_CHANNEL_PREFIX, API_EVENT_CHANNELS, API_INVOKE_METHODS, type BatchProgress, type EgglineApi,
+  API_CHANNEL_PREFIX, API_EVENT_CHANNELS, API_INVOKE_METHODS, type BatchProgress, type EgglineApi, type MovieProgress,
 } from '../../core/contract';
 
 /** A function that forwards its arguments to the main process on the method's fixed channel. */
@@ -26,6 +26,7 @@ export function buildApi(): EgglineApi {
     ...methods,
     onBatchProgress: (listener: (p: BatchProgress) => void) => subscribe(API_EVENT_CHANNELS.batchProgress, listener),
     onMenuCommand: (listener: (command: string) => void) => subscribe(API_EVENT_CHANNELS.menuCommand, listener),
+    onMovieProgress: (listener: (p: MovieProgress) => void) => subscribe(API_EVENT_CHANNELS.movieProgress, listener),
     pathForDroppedFile: (file: File) => webUtils.getPathForFile(file),
   }) as unknown as EgglineApi;
 }

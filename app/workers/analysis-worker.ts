@@ -1,14 +1,23 @@
-// Worker thread for the desktop app: projects and detects one stack, or decodes one slice, per request.
+// Worker thread for the desktop app: projects and detects one stack, decodes one slice, or analyses a movie over
+// time (with progress messages), per request.
 import { parentPort } from 'node:worker_threads';
+import type { MovieView } from '../../core/contract';
 import type { AnalysisReply, AnalysisRequest } from '../engine/analysis-protocol';
+import { readPreviewPlane } from '../decode';
 import { createDefaultEngine } from '../engine/default-engine';
 import type { SliceData, ViewData } from '../engine/engine';
+import { buildMovieView } from '../engine/movie-view';
 
 const engine = createDefaultEngine();
 
 /** The typed arrays' buffers, moved (not copied) back to the main thread. */
 function transferList(reply: AnalysisReply): ArrayBuffer[] {
-  if (!reply.ok) return [];
+  if (reply.ok !== true) return [];
+  const movie = reply.value as Partial<MovieView>;
+  if (movie.frames !== undefined) {
+    return [...new Set(movie.frames.flatMap((f) => (f === null ? [] : f.channels.map((c) => c.buffer)))
+      .filter((b): b is ArrayBuffer => b instanceof ArrayBuffer))];
+  }
   const value = reply.value as Partial<ViewData & SliceData>;
   const arrays = value.projected === undefined || value.detection === undefined
     ? [value.data].filter((a) => a !== undefined)
@@ -22,7 +31,13 @@ async function answer(request: AnalysisRequest): Promise<AnalysisReply> {
   try {
     const value = request.kind === 'slice'
       ? await engine.readSlice(request.path, request.label, request.z, request.c, request.t)
-      : await engine.loadForView(request.path, request.label, request.settings);
+      : request.kind === 'preview'
+        ? await readPreviewPlane(request.path, request.label)
+        : request.kind === 'movie'
+          ? await buildMovieView(request.path, request.label, request.doc, request.options, {
+            onTimePoint: (done, total) => parentPort?.postMessage({ id: request.id, ok: null, progress: { done, total } } satisfies AnalysisReply),
+          })
+          : await engine.loadForView(request.path, request.label, request.settings);
     return { id: request.id, ok: true, value };
   } catch (e) {
     const err: Error & { code?: unknown } = e instanceof Error ? e : new Error(String(e));

@@ -1,7 +1,7 @@
 // The one contract between the renderer and the app (main process). Everything crossing it is plain data
 // (objects, arrays, typed arrays); errors come back as values, never as thrown exceptions.
 import type {
-  Detection, EmbryoResult, ProjectedStack, StackInfo,
+  Detection, EmbryoResult, MovieRecord, ProjectedStack, StackInfo,
 } from '../model';
 import type { AnalysisSettings, ProjectDoc } from '../settings';
 
@@ -39,6 +39,17 @@ export interface LoadedStack {
 /** One Z slice of one channel, for the Z slider. */
 export interface SliceRequest { readonly path: string; readonly z: number; readonly c: number; readonly t: number }
 
+/** The first picture of a stack while it loads: one raw slice (z of sizeZ, channel c of sizeC), not the projection. */
+export interface StackPreview {
+  readonly width: number;
+  readonly height: number;
+  readonly data: Float32Array;
+  readonly z: number;
+  readonly c: number;
+  readonly sizeZ: number;
+  readonly sizeC: number;
+}
+
 /** Progress of a running batch. */
 export interface BatchProgress {
   readonly runId: string;
@@ -56,7 +67,12 @@ export interface BatchSummary {
   readonly ok: number;
   readonly failed: number;
   readonly cancelled: boolean;
+  /** Every result keyed by (file, tIndex): one per file with one time point, one per analysed time point of a movie
+   *  (core/batch embryoResults gives one per file). */
   readonly results: readonly EmbryoResult[];
+  /** The movies analysed per time point (their time points, times and summary options: core/timelapse summarizeMovie
+   *  makes λ(t) and τ(x) from these and the results); absent or empty when there were none. */
+  readonly movies?: readonly MovieRecord[];
   /** Per-condition tables and figures of the cohort step (as in report.html); null when the folder has no sample
    *  sheet, the batch was cancelled or the step failed; absent from engines that do not run it. */
   readonly cohort?: CohortSummary | null;
@@ -109,6 +125,94 @@ export interface CohortSummary {
   readonly warnings: readonly string[];
 }
 
+/** A value with its confidence interval (NaN where not measured). */
+export interface MovieEstimate { readonly value: number; readonly ciLow: number; readonly ciHigh: number }
+
+/** How a movie is analysed over time in the window (the batch's --axis-per-time, --tau-range, --baseline-frames,
+ *  --time-step); every time point is analysed. */
+export interface MovieRequestOptions {
+  readonly axisPerTime: boolean;
+  readonly tauRangeEl: readonly [number, number];
+  readonly baselineFrames: number;
+  /** Seconds between time points when the file does not say; null = the file's own times. */
+  readonly timeStepS: number | null;
+}
+
+/** Progress of a movie's analysis over time. */
+export interface MovieProgress {
+  readonly file: string;
+  /** Time points analysed so far, of total. */
+  readonly done: number;
+  readonly total: number;
+}
+
+/** One time point's Z projection, shrunk for the window's slider (every channel, same size). */
+export interface MovieFrame {
+  readonly width: number;
+  readonly height: number;
+  /** Image px per frame px (the frame is the image shrunk by this factor). */
+  readonly scale: number;
+  readonly channels: readonly Float32Array[];
+}
+
+/** A movie analysed over time for the window: the batch's numbers, tables and figure data for one file. */
+export interface MovieView {
+  readonly path: string;
+  /** The file's key in the project (path relative to the folder). */
+  readonly file: string;
+  readonly sizeT: number;
+  readonly timeIndices: readonly number[];
+  /** Seconds from the first time point; null when the times are unknown. */
+  readonly timesS: readonly number[] | null;
+  /** Where the times came from (ome-plane, ome-increment, imagej, ome-zarr, user) or null. */
+  readonly timeSource: string | null;
+  readonly channelNames: readonly string[];
+  /** Per analysed time point (same order as timeIndices). */
+  readonly results: readonly EmbryoResult[];
+  /** Each time point's projection shrunk (null where the time point could not be read). */
+  readonly frames: readonly (MovieFrame | null)[];
+  /** λ (x/EL) per time point with its 95% CI; NaN where the fit failed. */
+  readonly lambda: readonly { readonly tS: number; readonly lambdaEl: number; readonly ciLowEl: number; readonly ciHighEl: number }[];
+  /** λ of the mean profile of the last frames (x/EL), or null. */
+  readonly steadyLambdaEl: number | null;
+  /** The kymograph's data: values[t][i] at xEl[i] and timesS[t], with boundary and landmark tracks. */
+  readonly kymograph: {
+    readonly xEl: readonly number[];
+    readonly timesS: readonly number[];
+    readonly values: readonly (readonly number[])[];
+    readonly tracks: readonly { readonly label: string; readonly kind: 'boundary' | 'landmark'; readonly xEl: readonly number[] }[];
+  } | null;
+  /** τ(x) with its 95% CI (s), and the fitted and model lines. */
+  readonly accumulation: {
+    readonly xEl: readonly number[];
+    readonly tauS: readonly number[];
+    readonly ciLowS: readonly number[];
+    readonly ciHighS: readonly number[];
+    readonly fit: { readonly tau0S: number; readonly lambdaTauEl: number; readonly rangeEl: readonly [number, number]; readonly steadyLambdaEl: number } | null;
+  } | null;
+  /** The τ(x) model fit: τ₀, k, D, λ_τ beside λ, with intervals and the plain reading; null with `note` saying why. */
+  readonly model: {
+    readonly rangeEl: readonly [number, number];
+    readonly tau0S: MovieEstimate;
+    readonly kPerS: MovieEstimate;
+    readonly dUm2PerS: MovieEstimate;
+    readonly lambdaTauEl: MovieEstimate;
+    readonly lambdaEl: MovieEstimate;
+    readonly agreement: 'agree' | 'differ' | 'unresolved';
+    readonly reading: string;
+  } | null;
+  readonly note: string | null;
+  readonly warnings: readonly string[];
+  /** The batch's tables for this movie alone (same columns and bytes as the batch writes). */
+  readonly tables: {
+    readonly timecourse: string;
+    readonly profiles: string;
+    readonly boundaries: string;
+    readonly accumulation: string;
+    readonly modelFit: string;
+  };
+}
+
 /** What may be exported through a save dialog. */
 export type ExportKind = 'svg' | 'png' | 'csv' | 'json';
 
@@ -126,6 +230,8 @@ export interface EgglineApi {
   recent(): Promise<ApiResult<string[]>>;
   /** Read, project and detect one stack (runs off the main thread). */
   loadStack(path: string, settings: AnalysisSettings): Promise<ApiResult<LoadedStack>>;
+  /** The middle slice of the first channel, shown at once while loadStack projects and detects (desktop app). */
+  loadPreview?(path: string): Promise<ApiResult<StackPreview>>;
   /** One raw slice for the Z slider. */
   loadSlice(req: SliceRequest): Promise<ApiResult<{ width: number; height: number; data: Float32Array }>>;
   /** Save the project atomically at its path. */
@@ -148,6 +254,13 @@ export interface EgglineApi {
   exportFile(kind: ExportKind, suggestedName: string, content: string | Uint8Array): Promise<ApiResult<string | null>>;
   /** Render an SVG string to PNG bytes (through sharp). */
   svgToPng(svg: string, scale: number): Promise<ApiResult<Uint8Array>>;
+  /** Analyse one allowed movie at every time point as the batch does (project file's hand edits for `file`); progress
+   *  arrives via onMovieProgress; rejects with code 'cancelled' after cancelMovie. One movie at a time. */
+  analyseMovie(path: string, file: string, doc: ProjectDoc, options: MovieRequestOptions): Promise<ApiResult<MovieView>>;
+  /** Stop the running movie analysis (no-op when none runs). */
+  cancelMovie(): Promise<ApiResult<null>>;
+  /** Subscribe to movie-analysis progress; returns an unsubscribe function. */
+  onMovieProgress(listener: (p: MovieProgress) => void): () => void;
   /** Subscribe to application-menu commands (e.g. 'open-folder', 'save', 'undo'); returns an unsubscribe function. */
   onMenuCommand(listener: (command: string) => void): () => void;
   /** Reopen a folder or stack file from the recent list (only paths on that list are accepted). */
@@ -174,9 +287,9 @@ export const API_CHANNEL_PREFIX = 'eggline:';
 
 /** Methods the preload forwards with ipcRenderer.invoke on `eggline:<name>` (everything but the subscriptions). */
 export const API_INVOKE_METHODS = [
-  'openDemo', 'chooseFolder', 'chooseFiles', 'openDropped', 'recent', 'loadStack', 'loadSlice', 'saveProject',
+  'openDemo', 'chooseFolder', 'chooseFiles', 'openDropped', 'recent', 'loadStack', 'loadPreview', 'loadSlice', 'saveProject',
   'openProject', 'runBatch', 'cancelBatch', 'chooseOutputFolder', 'exportFile', 'svgToPng', 'openRecent',
-  'loadBatchResults', 'openReport',
+  'loadBatchResults', 'openReport', 'analyseMovie', 'cancelMovie',
 ] as const satisfies readonly (keyof EgglineApi)[];
 
 /** Commands the application menu sends through onMenuCommand (plus `open-recent:<path>`, see below). */
@@ -195,4 +308,5 @@ export const MENU_OPEN_RECENT_PREFIX = 'open-recent:';
 export const API_EVENT_CHANNELS = Object.freeze({
   batchProgress: 'eggline:batch-progress',
   menuCommand: 'eggline:menu-command',
+  movieProgress: 'eggline:movie-progress',
 } as const);

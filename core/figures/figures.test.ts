@@ -53,6 +53,17 @@ describe('profileFigure', () => {
     expect(svg).toContain('stroke="#CC79A7"');
     expect(svg).toContain('stroke="#009E73"');
   });
+  it('draws earlier profiles of a movie faded behind the current one, oldest faintest, on a fixed intensity range', () => {
+    // Demo data: the same profile at a quarter, half and three quarters of its height stands for earlier time points.
+    const p = e.gradientProfile!;
+    const earlier = [0.25, 0.5, 0.75].map((f) => ({ xEl: p.xEl, mean: p.mean.map((v) => v * f) }));
+    const svg = profileFigure({ profile: p, fit: e.gradientFit, earlier }, { yDomain: [0, 2 * Math.max(...p.mean)] });
+    checkSvg(svg);
+    expect([...svg.matchAll(/class="earlier-profile"[^>]*stroke-opacity="([^"]+)"/g)].map((m) => Number(m[1]))).toEqual([0.12, 0.31, 0.5]);
+    expect(svg).toContain('earlier time points (fainter = older)');
+    expect(svg.indexOf('earlier-profile')).toBeLessThan(svg.indexOf('class="data-point"'));
+    expect(count(profileFigure({ profile: p }), /earlier/g)).toBe(0);
+  });
   it('draws one point per bin, the fit over its range, boundaries and landmarks, labelled axes', () => {
     const svg = profileFigure({ profile: e.gradientProfile!, fit: e.gradientFit, boundaries: e.boundaries, landmarks: e.landmarks });
     checkSvg(svg);

@@ -23,3 +23,7 @@ export const BOUNDARY_COLOURS: readonly string[] = ['#CC79A7', '#009E73', '#D55E
 export function boundaryColour(channel: string, channels: readonly string[]): string {
   return BOUNDARY_COLOURS[Math.max(0, channels.indexOf(channel)) % BOUNDARY_COLOURS.length];
 }
+
+/** The shown time point of a movie (the window's slider) on λ over time and the kymograph: vermillion, apart from
+ *  the data's blue, the fit's orange and the kymograph's blue-to-black ramp. */
+export const TIME_MARKER_COLOUR = '#D55E00';

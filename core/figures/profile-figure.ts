@@ -20,6 +20,8 @@ export interface ProfileFigureInput {
   readonly landmarks?: readonly LandmarkPosition[];
   /** Boundary channels in the order that gives their colours (as in the window); default: order of appearance. */
   readonly boundaryChannels?: readonly string[];
+  /** Earlier profiles of the same embryo (a movie's earlier time points, oldest first), drawn faded behind it. */
+  readonly earlier?: readonly { readonly xEl: ArrayLike<number>; readonly mean: ArrayLike<number> }[];
 }
 
 /** Options: x axis in x/EL (default) or µm from the anterior pole; residual panel below when a fit is given. */
@@ -27,6 +29,8 @@ export interface ProfileFigureOptions extends FigureOptions {
   readonly xAxis?: 'el' | 'um';
   readonly showResiduals?: boolean;
   readonly yLabel?: string;
+  /** Fixed intensity range of the plot (e.g. the whole movie's), instead of this profile's own. */
+  readonly yDomain?: readonly [number, number];
 }
 
 type Scale = ScaleLinear<number, number>;
@@ -117,6 +121,16 @@ function dataMarks(p: Profile, c: Ctx): string {
   return el('path', { class: 'sd-band', d: band, fill: DATA_COLOUR, 'fill-opacity': 0.18 }) + dots.join('');
 }
 
+/** Earlier profiles as thin grey lines, the oldest faintest (opacity 0.12 → 0.5). */
+function earlierMarks(earlier: readonly { readonly xEl: ArrayLike<number>; readonly mean: ArrayLike<number> }[], c: Ctx): string {
+  return earlier.map((e, k) => {
+    const idx = Array.from({ length: e.xEl.length }, (_, i) => i);
+    const d = line<number>().defined((i) => Number.isFinite(e.mean[i]) && Number.isFinite(e.xEl[i])).x((i) => c.x(c.toX(e.xEl[i]))).y((i) => c.y(e.mean[i]))(idx) ?? '';
+    const opacity = earlier.length === 1 ? 0.5 : 0.12 + (0.38 * k) / (earlier.length - 1);
+    return el('path', { class: 'earlier-profile', d, fill: 'none', stroke: INK.muted, 'stroke-width': 1.2, 'stroke-opacity': +opacity.toFixed(3) });
+  }).join('');
+}
+
 function residualPanel(fit: ExponentialFit, x: Scale, toX: (v: number) => number, a: PlotArea, xTitle: string): string {
   const [lo, hi] = finiteExtent(fit.residuals, [-1, 1]);
   const m = Math.max(Math.abs(lo), Math.abs(hi)) * 1.1;
@@ -145,7 +159,9 @@ export function profileFigure(input: ProfileFigureInput, options: ProfileFigureO
   const margin = { right: 20, left: 68, bottom: withResiduals ? Math.round(heightPx * 0.3) + 46 : 52 };
   const channels = input.boundaryChannels ?? [...new Set((input.boundaries ?? []).map((b) => b.channel))];
   // Legend rows under the title, then the label rows, then the plot.
+  const earlier = input.earlier ?? [];
   const legendItems: LegendItem[] = [{ label: 'bin mean', colour: DATA_COLOUR, shape: 'dot' }, { label: '± SD of pixels', colour: DATA_COLOUR, shape: 'band' }];
+  if (earlier.length > 0) legendItems.push({ label: 'earlier time points (fainter = older)', colour: INK.muted, shape: 'line' });
   if (fit) {
     legendItems.push({ label: `fit: λ = ${withSe(fit.lambdaEl, fit.lambdaSeEl)} EL (${withSe(fit.lambdaUm, fit.lambdaSeUm)} µm)`, colour: FIT_COLOUR, shape: 'line' });
     legendItems.push({ label: 'fit extended', colour: FIT_COLOUR, shape: 'dash' });
@@ -159,7 +175,7 @@ export function profileFigure(input: ProfileFigureInput, options: ProfileFigureO
     margin.left, widthPx - margin.right);
   const top = titleBottom + legend.heightPx + labelCount * LABEL_ROW_PX + 6;
   const a = plotArea(widthPx, heightPx, { ...margin, top });
-  const [lo, hi] = finiteExtent(Array.from(p.mean, (m, i) => [m - p.sd[i], m + p.sd[i]]).flat(), [0, 1]);
+  const [lo, hi] = options.yDomain ?? finiteExtent([...Array.from(p.mean, (m, i) => [m - p.sd[i], m + p.sd[i]]).flat(), ...earlier.flatMap((e) => Array.from(e.mean))], [0, 1]);
   const c: Ctx = { x, y: scaleLinear().domain([Math.min(0, lo), hi]).nice().range([a.top + a.height, a.top]), a, toX };
   const fm = fit ? fitMarks(fit, c) : { shade: '', curves: '' };
   const bm = boundaryMarks(input.boundaries ?? [], channels, c);
@@ -167,7 +183,7 @@ export function profileFigure(input: ProfileFigureInput, options: ProfileFigureO
   const clip = clipSvg(a, stableId('clip-profile', `${title}${widthPx}x${heightPx}${p.channel}`));
   const xTitle = options.xAxis === 'um' ? 'distance from the anterior pole (µm)' : 'position along the AP axis, x/EL (0 = anterior pole)';
   let body = clip.def + titleSvg({ ...a, top: titleBottom }, title, subtitle) + legend.svg + fm.shade + xAxisSvg(x, a, withResiduals ? '' : xTitle)
-    + yAxisSvg(c.y, a, options.yLabel ?? 'intensity (a.u., background subtracted)') + clip.wrap(dataMarks(p, c) + fm.curves + bm.rules + lm.marks)
+    + yAxisSvg(c.y, a, options.yLabel ?? 'intensity (a.u., background subtracted)') + clip.wrap(earlierMarks(earlier, c) + dataMarks(p, c) + fm.curves + bm.rules + lm.marks)
     + topLabelsSvg([...bm.labels, ...lm.labels], a.left, a.left + a.width, a.top);
   if (withResiduals && fit) {
     const rTop = a.top + a.height + 26;

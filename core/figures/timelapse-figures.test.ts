@@ -62,3 +62,19 @@ describe('accumulationFigure', () => {
     expect(svg).toContain('no position with a measurable τ');
   });
 });
+
+describe('the shown time point on λ over time and the kymograph', () => {
+  it('draws one marker line at the time point (position by hand from the plot area and the axis domain)', () => {
+    const points = Array.from(timesS, (tS) => ({ tS, lambdaEl: 0.2, ciLowEl: 0.18, ciHighEl: 0.22 }));
+    // 640 px wide, margins 68 and 20: the plot spans 68 … 620; the x domain is 0 … 38 min (nice: 0 … 40 min).
+    const lambda = lambdaOverTimeFigure(points, { markTimeS: 1200 });
+    checkSvg(lambda);
+    expect(lambda).toMatch(/<line x1="344"[^>]*class="time-marker"/); // 68 + 552 × 20/40
+    expect(count(lambdaOverTimeFigure(points), /time-marker/g)).toBe(0);
+    // The kymograph's time axis runs down from 0 (top 52) to 38 min (bottom 400 − 52 = 348): 19 min sits at 200.
+    const values = Array.from(timesS, () => xEl.map(() => 1));
+    const kymo = kymographFigure({ xEl, timesS, values }, { markTimeS: 1140 });
+    checkSvg(kymo);
+    expect(kymo).toMatch(/<line x1="68" y1="200"[^>]*class="time-marker"/);
+  });
+});

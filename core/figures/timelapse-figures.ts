@@ -3,9 +3,12 @@
 import { scaleLinear } from 'd3-scale';
 import { clipSvg, plotArea, titleSvg, xAxisSvg, yAxisSvg } from './axes';
 import { figureSize, finiteExtent, stableId, type FigureOptions } from './common';
-import { legendSvg, type LegendItem } from './legend';
+import { legendRowsSvg, legendSvg, type LegendItem } from './legend';
+
+/** Baseline of the subtitle's bottom line, px from the top: legends go in rows under it, then the plot. */
+const TITLE_BOTTOM_PX = 52;
 import { whiskerPath } from './lambda-figure';
-import { BOUNDARY_COLOURS, INK, PROFILE_COLOURS } from './palette';
+import { BOUNDARY_COLOURS, INK, PROFILE_COLOURS, TIME_MARKER_COLOUR } from './palette';
 import { el, lineSvg, px, svgDocument, textSvg } from './svg';
 
 /** Minutes when a movie spans 10 min or more, else seconds: the unit and the divisor from seconds. */
@@ -22,14 +25,21 @@ export interface LambdaPoint {
 }
 
 /** SVG: λ (EL) per time point with its confidence interval, and the steady-state λ as a dashed line when given. */
-export function lambdaOverTimeFigure(points: readonly LambdaPoint[], options: FigureOptions & { steadyLambdaEl?: number } = {}): string {
+export function lambdaOverTimeFigure(points: readonly LambdaPoint[], options: FigureOptions & { steadyLambdaEl?: number; markTimeS?: number } = {}): string {
   const { widthPx, heightPx, title, subtitle } = figureSize(options, 'Decay length over time', 'dots: λ per time point; whiskers: 95% CI of the fit');
-  const a = plotArea(widthPx, heightPx, { top: 52, right: 20, bottom: 52, left: 68 });
+  const steady = options.steadyLambdaEl;
+  const hasSteady = steady !== undefined && Number.isFinite(steady);
+  // The legend sits in a row under the title, never over the data.
+  const margin = { right: 20, bottom: 52, left: 68 };
+  const legend = hasSteady
+    ? legendRowsSvg([{ label: 'λ per time point', colour: PROFILE_COLOURS.data, shape: 'dot' }, { label: 'steady-state λ', colour: PROFILE_COLOURS.fit, shape: 'dash' }], margin.left, widthPx - margin.right, TITLE_BOTTOM_PX - 2)
+    : { svg: '', heightPx: 0 };
+  const a = plotArea(widthPx, heightPx, { ...margin, top: TITLE_BOTTOM_PX + legend.heightPx + (legend.heightPx > 0 ? 6 : 0) });
   const span = Math.max(0, ...points.map((p) => p.tS).filter(Number.isFinite));
   const { unit, perS } = movieTimeUnit(span);
   const x = scaleLinear().domain([0, Math.max(span * perS, 1e-9)]).nice().range([a.left, a.left + a.width]);
   const ys = points.flatMap((p) => [p.lambdaEl, p.ciLowEl, p.ciHighEl]);
-  const [lo, hi] = finiteExtent([...ys, options.steadyLambdaEl ?? NaN], [0, 0.5]);
+  const [lo, hi] = finiteExtent([...ys, steady ?? NaN], [0, 0.5]);
   const y = scaleLinear().domain([Math.max(0, lo - (hi - lo) * 0.1), hi + (hi - lo) * 0.1]).nice().range([a.top + a.height, a.top]);
   const clip = clipSvg(a, stableId('lt', `${title}${points.length}`));
   const marks = points.filter((p) => Number.isFinite(p.lambdaEl)).map((p) => {
@@ -38,13 +48,20 @@ export function lambdaOverTimeFigure(points: readonly LambdaPoint[], options: Fi
       ? el('path', { class: 'ci-bar', d: whiskerPath(cx, y(p.ciLowEl), y(p.ciHighEl)), stroke: INK.muted, fill: 'none' }) : '';
     return ci + el('circle', { class: 'lambda-point', cx, cy: y(p.lambdaEl), r: 3, fill: PROFILE_COLOURS.data });
   }).join('');
-  const steady = options.steadyLambdaEl;
-  const steadyLine = steady !== undefined && Number.isFinite(steady)
+  const steadyLine = hasSteady
     ? lineSvg(a.left, y(steady), a.left + a.width, y(steady), { class: 'steady-lambda', stroke: PROFILE_COLOURS.fit, 'stroke-width': 2, 'stroke-dasharray': '6 4' }) : '';
-  const legend = steadyLine ? legendSvg([{ label: 'λ per time point', colour: PROFILE_COLOURS.data, shape: 'dot' }, { label: 'steady-state λ', colour: PROFILE_COLOURS.fit, shape: 'dash' }], a.left + a.width - 6, a.top + 6) : '';
-  const body = titleSvg(a, title, subtitle) + yAxisSvg(y, a, 'decay length λ (EL)') + xAxisSvg(x, a, `time (${unit})`)
-    + clip.def + clip.wrap(steadyLine + marks) + legend;
+  const mark = timeMarkerSvg(options.markTimeS, (tS) => x(tS * perS), a, 'vertical');
+  const body = titleSvg({ ...a, top: TITLE_BOTTOM_PX }, title, subtitle) + legend.svg + yAxisSvg(y, a, 'decay length λ (EL)') + xAxisSvg(x, a, `time (${unit})`)
+    + clip.def + clip.wrap(steadyLine + mark + marks);
   return svgDocument(widthPx, heightPx, title, body);
+}
+
+/** The shown time point as a line across the plot (a window's slider position); '' when not given. */
+function timeMarkerSvg(tS: number | undefined, at: (tS: number) => number, a: { left: number; top: number; width: number; height: number }, dir: 'vertical' | 'horizontal'): string {
+  if (tS === undefined || !Number.isFinite(tS)) return '';
+  const p = at(tS);
+  const style = { class: 'time-marker', stroke: TIME_MARKER_COLOUR, 'stroke-width': 2 };
+  return dir === 'vertical' ? lineSvg(p, a.top, p, a.top + a.height, style) : lineSvg(a.left, p, a.left + a.width, p, style);
 }
 
 /** A kymograph's data: values[t][i] at xEl[i] and timesS[t]; optional boundary and landmark tracks (x/EL per t). */
@@ -62,9 +79,14 @@ function ramp(lo: number, hi: number): (v: number) => string {
 }
 
 /** SVG: the profile at every time point as a heat map, x/EL across and time down, with boundary and landmark tracks. */
-export function kymographFigure(input: KymographInput, options: FigureOptions = {}): string {
+export function kymographFigure(input: KymographInput, options: FigureOptions & { markTimeS?: number } = {}): string {
   const { widthPx, heightPx, title, subtitle } = figureSize(options, 'Kymograph', 'gradient signal after background subtraction; darker = higher');
-  const a = plotArea(widthPx, heightPx, { top: 52, right: 20, bottom: 52, left: 68 });
+  const items: LegendItem[] = (input.tracks ?? []).map((track, k) => ({
+    label: track.label, colour: track.kind === 'boundary' ? BOUNDARY_COLOURS[k % BOUNDARY_COLOURS.length] : INK.axis, shape: track.kind === 'boundary' ? 'line' : 'dash',
+  }));
+  // The tracks' legend sits in rows under the title, never over the cells.
+  const legend = legendRowsSvg(items, 68, widthPx - 20, TITLE_BOTTOM_PX - 2);
+  const a = plotArea(widthPx, heightPx, { top: TITLE_BOTTOM_PX + legend.heightPx + (legend.heightPx > 0 ? 6 : 0), right: 20, bottom: 52, left: 68 });
   const n = input.timesS.length;
   const span = n > 0 ? input.timesS[n - 1] : 0;
   const { unit, perS } = movieTimeUnit(span);
@@ -86,13 +108,11 @@ export function kymographFigure(input: KymographInput, options: FigureOptions = 
     const path = pts.map((p, i) => (p === null ? '' : `${i > 0 && pts[i - 1] !== null ? 'L' : 'M'}${p}`)).join('');
     return path ? el('path', { class: `track ${track.kind}`, d: path, fill: 'none', stroke: colour, 'stroke-width': 2, 'stroke-dasharray': track.kind === 'landmark' ? '4 3' : undefined }) : '';
   }).join('');
-  const items: LegendItem[] = (input.tracks ?? []).map((track, k) => ({
-    label: track.label, colour: track.kind === 'boundary' ? BOUNDARY_COLOURS[k % BOUNDARY_COLOURS.length] : INK.axis, shape: track.kind === 'boundary' ? 'line' : 'dash',
-  }));
   const yAxis = yAxisSvg(y, a, `time (${unit}), down`);
   const clip = clipSvg(a, stableId('ky', `${title}${n}`));
-  const body = titleSvg(a, title, subtitle) + clip.def + clip.wrap(el('g', { class: 'kymograph-cells' }, cells || ' ') + tracks)
-    + yAxis + xAxisSvg(x, a, 'x/EL (0 = anterior pole)') + legendSvg(items, a.left + a.width - 6, a.top + 6);
+  const mark = timeMarkerSvg(options.markTimeS, (tS) => y(tS * perS), a, 'horizontal');
+  const body = titleSvg({ ...a, top: TITLE_BOTTOM_PX }, title, subtitle) + legend.svg + clip.def + clip.wrap(el('g', { class: 'kymograph-cells' }, cells || ' ') + tracks + mark)
+    + yAxis + xAxisSvg(x, a, 'x/EL (0 = anterior pole)');
   return svgDocument(widthPx, heightPx, title, body);
 }
 

@@ -1,9 +1,9 @@
 // One embryo end to end: project → detect → (hand axis) → sampler (prepare, sample) → fit, as an EmbryoResult that never throws.
-import { errorResult, withTimePoint, type EmbryoResult, type HandEdits, type PlaneSource, type StackInfo } from '../model';
+import { errorResult, withTimePoint, type EmbryoResult, type HandEdits, type PlaneSource, type ProjectedStack, type StackInfo } from '../model';
 import type { AnalysisSettings } from '../settings';
 import { applyImageCorrections, projectStack, type ImageCorrections } from '../image';
 import { detectEmbryo, type EmbryoDetection } from '../geometry';
-import { fitSampledProfiles, prepareSampling, sampleProfiles } from '../profile';
+import { fitSampledProfiles, prepareSampling, sampleProfiles, type PreparedSampling } from '../profile';
 
 /** Per-file options of analyseStack. */
 export interface AnalyseOptions {
@@ -13,10 +13,23 @@ export interface AnalyseOptions {
   readonly handEdits?: HandEdits | null;
   /** The embryo (mask and axis) found beforehand, used instead of segmenting this stack: a movie's, found once. */
   readonly detection?: EmbryoDetection | null;
+  /** Told the Z projection once it is made (the window keeps a small copy of each time point of a movie). */
+  readonly onProjected?: (projected: ProjectedStack) => void;
   /** Time of the analysed time point in s, when the caller knows it better than the file (--time-step); else the file's. */
   readonly timeS?: number | null;
-  /** Flat field and background image applied to the projection (see core/image/corrections.ts); absent = none. */
+  /** This time point's projection when the caller already has it (a movie's sampled time points); else it is read. */
+  readonly projected?: ProjectedStack;
+  /** Prepares sampling within `detection` (samplingWithin: a movie reuses what depends on the mask alone). */
+  readonly prepare?: (projected: ProjectedStack, settings: AnalysisSettings) => PreparedSampling;
+  /** Flat field and background image applied to the projection it reads (see core/image/corrections.ts); a
+   *  `projected` given by the caller is taken as already corrected. Absent = none. */
   readonly corrections?: ImageCorrections | null;
+}
+
+/** The Z projection with the flat field and background image applied (when given). */
+export async function correctedProjection(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, corrections: ImageCorrections | null | undefined): Promise<ProjectedStack> {
+  const raw = await projectStack(info, source, settings);
+  return corrections ? applyImageCorrections(raw, corrections, settings.projection === 'sum' ? info.sizeZ : 1) : raw;
 }
 
 /** Check that the stack has something to analyse (exact messages). */
@@ -42,13 +55,13 @@ async function analyseOneTimePoint(info: StackInfo, source: PlaneSource, setting
   const bad = checkInfo(info);
   if (bad) return errorResult(file, bad);
   try {
-    const raw = await projectStack(info, source, settings);
-    const projected = options.corrections ? applyImageCorrections(raw, options.corrections, settings.projection === 'sum' ? info.sizeZ : 1) : raw;
+    const projected = options.projected ?? await correctedProjection(info, source, settings, options.corrections);
+    options.onProjected?.(projected);
     const detection = options.detection ?? detectEmbryo(projected, settings);
     const hand = options.handEdits?.axis ?? null;
     const axis = hand ? { ...hand, source: 'hand' as const } : detection.axis;
     // The sampler of settings.profile.mode prepares its pixels and bins them along the axis; then the fitter.
-    const prepared = prepareSampling(projected, detection, settings);
+    const prepared = options.prepare && options.detection ? options.prepare(projected, settings) : prepareSampling(projected, detection, settings);
     const sampled = sampleProfiles(prepared, axis, settings);
     const m = fitSampledProfiles(sampled, prepared, settings, options.handEdits?.landmarks ?? []);
     const px = projected.pixelSizeUm;

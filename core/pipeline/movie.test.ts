@@ -1,7 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { DEFAULT_SETTINGS } from '../settings';
 import { planSyntheticMovie, syntheticMovieInfo, syntheticMoviePlaneSource } from '../synth';
-import { analyseMovie, axisSampleTimes } from './movie';
+import { detectEmbryo } from '../geometry';
+import { analyseStack } from './analyse';
+import { analyseMovie, axisSampleTimes, projectOverTime } from './movie';
 
 describe('axisSampleTimes', () => {
   it('spreads the sample over the movie and ends at the last time point', () => {
@@ -34,10 +36,51 @@ describe('analyseMovie (demo data: a small synthetic movie)', () => {
     expect(each.results.map((r) => r.status)).toEqual(['ok', 'ok']);
   });
 
+  it('gives at every time point exactly what analysing that time point alone within the movie\'s embryo gives', async () => {
+    // The movie path projects the sampled time points once and prepares what depends on the mask once
+    // (samplingWithin); the results must not change by a bit (demo data; both background modes, both samplers).
+    const times = [0, 1, 2, 3, 4, 5];
+    for (const settings of [DEFAULT_SETTINGS, { ...DEFAULT_SETTINGS, profile: { ...DEFAULT_SETTINGS.profile, mode: 'axis' as const } },
+      { ...DEFAULT_SETTINGS, background: { mode: 'none' as const, regionPx: null } }]) {
+      const m = await analyseMovie(info, syntheticMoviePlaneSource(movie), settings, { fileLabel: 'm.ome.tif', timeIndices: times });
+      const source = syntheticMoviePlaneSource(movie);
+      const detection = detectEmbryo(await projectOverTime(info, source, settings, axisSampleTimes(info.sizeT, 8)), settings);
+      for (const [k, t] of times.entries()) {
+        expect(m.results[k]).toEqual(await analyseStack(info, source, { ...settings, timeIndex: t }, { fileLabel: 'm.ome.tif', detection }));
+      }
+    }
+  });
+
+  it('reads each sampled time point once: the axis sample\'s projections serve their own analysis', async () => {
+    const source = syntheticMoviePlaneSource(movie);
+    const reads = new Map<number, number>();
+    const counting = { ...source, readPlane: (z: number, c: number, t: number) => { reads.set(t, (reads.get(t) ?? 0) + 1); return source.readPlane(z, c, t); } };
+    await analyseMovie(info, counting, DEFAULT_SETTINGS, { fileLabel: 'm.ome.tif', timeIndices: [0, 1, 2, 3, 4, 5] });
+    expect([...reads.values()].every((n) => n === info.sizeZ * info.sizeC)).toBe(true);
+    expect(reads.size).toBe(6);
+  });
+
   it('gives every requested time point an error naming the file when a time point is outside the movie', async () => {
     const m = await analyseMovie(info, syntheticMoviePlaneSource(movie), DEFAULT_SETTINGS, { fileLabel: 'm.ome.tif', timeIndices: [2, 9] });
     expect(m.results.map((r) => r.status)).toEqual(['error', 'error']);
     expect(m.results.map((r) => r.tIndex)).toEqual([2, 9]);
     expect(m.results[0].error).toMatch(/^m\.ome\.tif: time point 9 is outside the movie \(T = 6\)/);
+  });
+
+  it('reports each analysed time point and its projection, and stops with an error naming the file when cancelled', async () => {
+    const done: string[] = [];
+    const sizes: number[] = [];
+    const m = await analyseMovie(info, syntheticMoviePlaneSource(movie), DEFAULT_SETTINGS, {
+      fileLabel: 'm.ome.tif', timeIndices: [0, 2, 4],
+      onTimePoint: (d, n) => done.push(`${d}/${n}`), onProjected: (k, p) => sizes.push(k, p.channels[0].width),
+    });
+    expect(m.results).toHaveLength(3);
+    expect(done).toEqual(['1/3', '2/3', '3/3']);
+    expect(sizes).toEqual([0, 200, 1, 200, 2, 200]);
+    const signal = { aborted: false };
+    const run = analyseMovie(info, syntheticMoviePlaneSource(movie), DEFAULT_SETTINGS, {
+      fileLabel: 'm.ome.tif', timeIndices: [0, 1, 2, 3], signal, onTimePoint: (d) => { if (d === 2) signal.aborted = true; },
+    });
+    await expect(run).rejects.toThrow(/^m\.ome\.tif: analysis over time cancelled$/);
   });
 });

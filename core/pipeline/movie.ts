@@ -2,9 +2,10 @@
 // then every chosen time point analysed as a single stack with its own background. Never throws for bad data.
 import { errorResult, withTimePoint, type ApAxis, type EmbryoResult, type HandEdits, type PlaneSource, type Plane, type ProjectedStack, type StackInfo } from '../model';
 import type { AnalysisSettings } from '../settings';
-import { applyImageCorrections, projectStack, type ImageCorrections } from '../image';
+import type { ImageCorrections } from '../image';
 import { detectEmbryo, type EmbryoDetection } from '../geometry';
-import { analyseStack } from './analyse';
+import { analyseStack, correctedProjection } from './analyse';
+import { samplingWithin } from '../profile';
 
 /** Per-movie options of analyseMovie. */
 export interface MovieOptions {
@@ -19,8 +20,19 @@ export interface MovieOptions {
   readonly axisPerTime?: boolean;
   /** Time points averaged to find the axis once; default 8, spread evenly over the movie. */
   readonly axisSampleCount?: number;
+  /** Told after each analysed time point: how many are done of how many (the window's progress). */
+  readonly onTimePoint?: (done: number, total: number) => void;
+  /** Told each time point's Z projection (k = position in timeIndices, of total). */
+  readonly onProjected?: (k: number, projected: ProjectedStack, total: number) => void;
+  /** Checked before each time point; when aborted, analyseMovie rejects with an AbortError naming the file. */
+  readonly signal?: { readonly aborted: boolean } | null;
   /** Flat field and background image applied to every time point's projection. */
   readonly corrections?: ImageCorrections | null;
+}
+
+/** The error a cancelled movie analysis rejects with. */
+function cancelled(fileLabel: string): Error {
+  return Object.assign(new Error(`${fileLabel}: analysis over time cancelled`), { name: 'AbortError' });
 }
 
 /** The results per analysed time point (same order as timeIndices) and the movie's axis (null with axisPerTime). */
@@ -41,28 +53,49 @@ function addInto(sum: Float32Array, next: Float32Array): void {
   for (let i = 0; i < sum.length; i++) sum[i] += next[i];
 }
 
+/** True when two settings differ at most in their time index and fit range. */
+function sameButFitRange(a: AnalysisSettings, b: AnalysisSettings): boolean {
+  const rest = (s: AnalysisSettings) => JSON.stringify({ ...s, timeIndex: 0, fitRangeEl: null });
+  return rest(a) === rest(b);
+}
+
+/** Most bytes of sampled projections kept for their own time points' analysis (the rest are read again). */
+const KEEP_PROJECTIONS_BYTES = 128 * 2 ** 20;
+
+/**
+ * The mean over sampled time points of the Z projections, and the projections of those time points in `keep`
+ * (while they fit in KEEP_PROJECTIONS_BYTES), so their analysis does not read their planes again.
+ */
+async function projectSampled(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, times: readonly number[], keep: ReadonlySet<number>, corrections: ImageCorrections | null = null): Promise<{ mean: ProjectedStack; kept: Map<number, ProjectedStack> }> {
+  let first: ProjectedStack | null = null;
+  let sums: Float32Array[] = [];
+  const kept = new Map<number, ProjectedStack>();
+  let keptBytes = 0;
+  for (const t of times) {
+    const p = await correctedProjection(info, source, { ...settings, timeIndex: t }, corrections);
+    if (!first) { first = p; sums = p.channels.map((c) => Float32Array.from(c.data)); } else p.channels.forEach((c, i) => addInto(sums[i], c.data));
+    const bytes = p.channels.reduce((n, c) => n + c.data.byteLength, 0);
+    if (keep.has(t) && keptBytes + bytes <= KEEP_PROJECTIONS_BYTES) { kept.set(t, p); keptBytes += bytes; }
+  }
+  if (!first) throw new Error('no time points to project');
+  const channels: Plane[] = first.channels.map((c, i) => ({ width: c.width, height: c.height, data: sums[i].map((v) => v / times.length) }));
+  return { mean: { ...first, channels }, kept };
+}
+
 /**
  * The mean over sampled time points of the Z projections: the embryo as it sits through the movie, gradient formed
  * or not (a live embryo barely moves, and a frame before production shows no gradient to orient the axis by).
  */
-export async function projectOverTime(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, times: readonly number[], corrections: ImageCorrections | null = null): Promise<ProjectedStack> {
-  let first: ProjectedStack | null = null;
-  let sums: Float32Array[] = [];
-  for (const t of times) {
-    const raw = await projectStack(info, source, { ...settings, timeIndex: t });
-    const p = corrections ? applyImageCorrections(raw, corrections, settings.projection === 'sum' ? info.sizeZ : 1) : raw;
-    if (!first) { first = p; sums = p.channels.map((c) => Float32Array.from(c.data)); } else p.channels.forEach((c, i) => addInto(sums[i], c.data));
-  }
-  if (!first) throw new Error('no time points to project');
-  const channels: Plane[] = first.channels.map((c, i) => ({ width: c.width, height: c.height, data: sums[i].map((v) => v / times.length) }));
-  return { ...first, channels };
+export async function projectOverTime(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, times: readonly number[]): Promise<ProjectedStack> {
+  return (await projectSampled(info, source, settings, times, new Set())).mean;
 }
 
 /**
  * Analyse the chosen time points of a movie. Unless axisPerTime, the embryo (mask and axis) is found once on
  * projectOverTime — a live embryo barely moves — and every time point is projected, given its own background and
  * measured within that mask, along the hand axis when there is one. With axisPerTime every time point is segmented
- * on its own. Errors become results with status 'error' naming the file and time point.
+ * on its own. Errors become results with status 'error' naming the file and time point; only cancelling (options.signal)
+ * makes it reject.
  */
 export async function analyseMovie(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, options: MovieOptions): Promise<MovieAnalysis> {
   const { fileLabel, timeIndices } = options;
@@ -72,20 +105,31 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
     return { timeIndices, results: timeIndices.map((t) => withTimePoint(r, t, info.time?.timesS?.[t] ?? null)), movieAxis: null };
   }
   let detection: EmbryoDetection | null = null;
+  let kept = new Map<number, ProjectedStack>();
+  if (options.signal?.aborted) throw cancelled(fileLabel);
   if (!options.axisPerTime) {
     try {
-      const projected = await projectOverTime(info, source, settings, axisSampleTimes(info.sizeT, options.axisSampleCount ?? 8), options.corrections ?? null);
-      detection = detectEmbryo(projected, settings);
+      const sampled = await projectSampled(info, source, settings, axisSampleTimes(info.sizeT, options.axisSampleCount ?? 8), new Set(timeIndices), options.corrections ?? null);
+      kept = sampled.kept;
+      detection = detectEmbryo(sampled.mean, settings);
     } catch (e) {
       const r = errorResult(fileLabel, `embryo over time: ${e instanceof Error ? e.message : String(e)}`);
       return { timeIndices, results: timeIndices.map((t) => withTimePoint(r, t, info.time?.timesS?.[t] ?? null)), movieAxis: null };
     }
   }
   const results: EmbryoResult[] = [];
-  for (const t of timeIndices) {
+  // One embryo for the whole movie: what depends on its mask alone is prepared once (samplingWithin).
+  const prepare = detection ? samplingWithin(detection) : undefined;
+  for (const [k, t] of timeIndices.entries()) {
+    if (options.signal?.aborted) throw cancelled(fileLabel);
     const at = options.editsAt?.(t);
     const settingsAtT = { ...(at ? at.settings : settings), timeIndex: t };
-    results.push(await analyseStack(info, source, settingsAtT, { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection, corrections: options.corrections ?? null }));
+    const onProjected = options.onProjected ? (p: ProjectedStack) => options.onProjected!(k, p, timeIndices.length) : undefined;
+    // A kept projection serves only settings that differ from the movie's in the fit range alone.
+    const projected = kept.get(t) && sameButFitRange(settingsAtT, settings) ? kept.get(t) : undefined;
+    kept.delete(t);
+    results.push(await analyseStack(info, source, settingsAtT, { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection, onProjected, projected, prepare, corrections: options.corrections ?? null }));
+    options.onTimePoint?.(k + 1, timeIndices.length);
   }
   const hand = options.handEdits?.axis ?? null;
   return { timeIndices, results, movieAxis: hand ? { ...hand, source: 'hand' } : detection?.axis ?? null };

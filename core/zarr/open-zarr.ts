@@ -7,6 +7,7 @@ import { guardZarrCodecs, type BoundedInflate } from './decode-guard';
 import { ZarrError } from './errors';
 import { parseNgffGroup, type NgffAxis, type NgffImage } from './ngff';
 import { chunksPerPlane, createChunkPlaneSource, roleSize, type ChunkedArray } from './plane-reader';
+import { shardedStore, shardIndexLocation } from './shards';
 import { readJson, trackMissingChunks, type ZarrStore } from './store';
 import { micrometresPerSpaceUnit, secondsPerTimeUnit } from './units';
 
@@ -94,7 +95,8 @@ async function openArray(store: ZarrStore, path: string, zarrFormat: 2 | 3, labe
   const unknown = storage.codecNames.filter((n) => !zarr.registry.has(n));
   if (unknown.length > 0) throw new ZarrError('unsupported', label, `array "${path}" uses codec ${unknown.map((n) => n.replace(/^numcodecs\./, '')).join(', ')}, which Eggline cannot decode`);
   try {
-    const location = new zarr.Location(store, `/${path}`);
+    const indexLocation = zarrFormat === 3 ? shardIndexLocation(raw) : null;
+    const location = new zarr.Location(indexLocation ? shardedStore(store, indexLocation) : store, `/${path}`);
     const array = zarrFormat === 3
       ? await zarr.open.v3(location, { kind: 'array' })
       : await zarr.open.v2(location, { kind: 'array', attrs: false });

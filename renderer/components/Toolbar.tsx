@@ -12,7 +12,7 @@ import { inlineGroups, type ToolbarGroupSize } from '../ui/toolbarFit';
 import { MenuButton, type MenuItem } from './MenuButton';
 
 /** The main views. */
-export type Tab = 'embryo' | 'batch' | 'cohort';
+export type Tab = 'embryo' | 'time' | 'batch' | 'cohort';
 
 /** Props of the toolbar. */
 export interface ToolbarProps {
@@ -47,9 +47,9 @@ interface Action {
 interface Group extends ToolbarGroupSize { readonly actions: readonly Action[] }
 
 const TOOLS: [ToolName, string, string][] = [['pan', 'Pan', 'H'], ['axis', 'Axis', 'A'], ['landmark', 'Landmark', 'L']];
-const TABS: [Tab, string][] = [['embryo', 'Embryo'], ['batch', 'Batch'], ['cohort', 'Cohort']];
+const TABS: [Tab, string][] = [['embryo', 'Embryo'], ['time', 'Over time'], ['batch', 'Batch'], ['cohort', 'Cohort']];
 /** Width of the parts that never collapse (brand, Export, tabs, More, ?, save status, gaps), CSS px. */
-const FIXED_PX = 600;
+const FIXED_PX = 680;
 
 /** Save status text: one short line (the full error is in the message bar and the tooltip). */
 function saveText(s: SaveStatus): string {

@@ -11,7 +11,7 @@ import { createDefaultEngine } from '../../app/engine/default-engine';
 import { createHandlers } from '../../app/main/handlers';
 import type { ApiHandlers, HandlerDeps } from '../../app/main/handlers';
 import { API_INVOKE_METHODS } from '../../core/contract';
-import type { BatchProgress, ExportKind } from '../../core/contract';
+import type { BatchProgress, ExportKind, MovieProgress } from '../../core/contract';
 
 /** Repository root and the built renderer. */
 export const ROOT = fileURLToPath(new URL('../..', import.meta.url)).replace(/\/$/, '');
@@ -57,6 +57,8 @@ export interface Harness {
   readonly page: Page;
   readonly dialogs: FakeDialogs;
   readonly progress: BatchProgress[];
+  /** Movie-analysis progress events, in order. */
+  readonly movieProgress: MovieProgress[];
   /** Paths handed to the system's default application (the report), in order. */
   readonly openedPaths: string[];
   /**
@@ -73,6 +75,7 @@ export interface Harness {
 export async function startHarness(dataDir: string, demoSubset?: number): Promise<Harness> {
   const dialogs: FakeDialogs = { folder: null, output: null, project: null, saveDir: null };
   const progress: BatchProgress[] = [];
+  const movieProgress: MovieProgress[] = [];
   const openedPaths: string[] = [];
   let page: Page | null = null;
   // Batch hold (see Harness.holdBatchUntilCancel): the real engine, with the in-process analysis of later files
@@ -109,6 +112,10 @@ export async function startHarness(dataDir: string, demoSubset?: number): Promis
       progress.push(p);
       void page?.evaluate((q) => (window as unknown as { __egglineProgress(p: unknown): void }).__egglineProgress(q), p).catch(() => undefined);
     },
+    emitMovieProgress: (p) => {
+      movieProgress.push(p);
+      void page?.evaluate((q) => (window as unknown as { __egglineMovieProgress(p: unknown): void }).__egglineMovieProgress(q), p).catch(() => undefined);
+    },
   };
   const current: { handlers: ApiHandlers } = { handlers: createHandlers(deps) };
   const browser = await chromium.launch({
@@ -131,7 +138,9 @@ export async function startHarness(dataDir: string, demoSubset?: number): Promis
     const methods = ${JSON.stringify([...API_INVOKE_METHODS])};
     const progressListeners = new Set();
     const menuListeners = new Set();
+    const movieListeners = new Set();
     const api = {
+      onMovieProgress: (l) => { movieListeners.add(l); return () => movieListeners.delete(l); },
       onBatchProgress: (l) => { progressListeners.add(l); return () => progressListeners.delete(l); },
       onMenuCommand: (l) => { menuListeners.add(l); return () => menuListeners.delete(l); },
       // Stands in for the preload's webUtils.getPathForFile: a dropped file's path is its name in the folder the
@@ -142,13 +151,14 @@ export async function startHarness(dataDir: string, demoSubset?: number): Promis
     window.eggline = Object.freeze(api);
     window.__egglineProgress = (p) => progressListeners.forEach((l) => l(p));
     window.__egglineMenu = (c) => menuListeners.forEach((l) => l(c));
+    window.__egglineMovieProgress = (p) => movieListeners.forEach((l) => l(p));
   })();`);
   const errors: string[] = [];
   page.on('pageerror', (e) => errors.push(e.message));
   page.on('console', (msg) => { if (msg.type() === 'error') errors.push(msg.text()); });
   await page.goto('http://app.test/index.html');
   return {
-    browser, page, dialogs, progress, openedPaths,
+    browser, page, dialogs, progress, movieProgress, openedPaths,
     holdBatchUntilCancel: (afterFiles) => { hold = { afterFiles }; },
     freshHandlers: () => { current.handlers = createHandlers(deps); },
     close: async () => { await browser.close(); if (errors.length > 0) console.warn(`page errors:\n${errors.join('\n')}`); },

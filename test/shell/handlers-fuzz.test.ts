@@ -22,8 +22,8 @@ describe('handlers with garbage arguments', () => {
           openProjectFile: async () => null, saveFile: async () => null },
       });
       const codes = new Set(['cancelled', 'not-found', 'not-allowed', 'bad-file', 'bad-argument', 'io', 'busy', 'internal']);
-      // Methods without arguments only open dialogs (answered null here) or read the recent list.
-      const withArgs = API_INVOKE_METHODS.filter((m) => !['openDemo', 'chooseFolder', 'chooseFiles', 'recent', 'openProject', 'chooseOutputFolder'].includes(m));
+      // Methods without arguments only open dialogs (answered null here), read the recent list or stop a movie analysis (none runs).
+      const withArgs = API_INVOKE_METHODS.filter((m) => !['openDemo', 'chooseFolder', 'chooseFiles', 'recent', 'openProject', 'chooseOutputFolder', 'cancelMovie'].includes(m));
       for (const method of withArgs) {
         for (const a of GARBAGE) {
           for (const args of [[a], [a, a], [a, a, a]]) {

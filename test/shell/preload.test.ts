@@ -29,7 +29,7 @@ describe('preload (electron mocked)', () => {
     // Source: Electron security checklist item 20 (do not expose Electron APIs to untrusted content; expose named functions).
     expect(mock.exposed.map(([k]) => k)).toEqual(['eggline']);
     expect(Object.isFrozen(api)).toBe(true);
-    expect(Object.keys(api).sort()).toEqual([...API_INVOKE_METHODS, 'onBatchProgress', 'onMenuCommand', 'pathForDroppedFile'].sort());
+    expect(Object.keys(api).sort()).toEqual([...API_INVOKE_METHODS, 'onBatchProgress', 'onMenuCommand', 'onMovieProgress', 'pathForDroppedFile'].sort());
     for (const value of Object.values(api)) expect(typeof value).toBe('function');
     expect(Object.values(api)).not.toContain(mock.electron.ipcRenderer);
   });
