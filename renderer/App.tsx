@@ -3,8 +3,6 @@
 import { useCallback, useEffect, useMemo, useReducer, useRef, useState } from 'react';
 import { MENU_OPEN_RECENT_PREFIX } from '../core/contract';
 import type { Plane } from '../core/model';
-import { straightViewHalfWidthPx } from '../core/profile';
-import { settingsInForce } from '../core/settings';
 import { getApi } from './api';
 import { BatchPanel } from './components/BatchPanel';
 import { ChannelPanel } from './components/ChannelPanel';
@@ -26,13 +24,12 @@ import { Help } from './components/Help';
 import { useSession } from './hooks/useSession';
 import { useStackLoader } from './hooks/useStackLoader';
 import { useExports } from './hooks/useExports';
+import { useLiveMeasurement } from './hooks/useLiveMeasurement';
 import { useMovie } from './hooks/useMovie';
 import { TimelapseView } from './components/timelapse/TimelapseView';
-import { bandOutlinesLive, measureLive, prepareLive } from './live';
-import type { ImagePoint } from '../core/model';
 import type { FolderEntry } from '../core/contract';
 import { fileStatus } from './state/fileStatus';
-import { currentEdits, editorReducer, effectiveAxis, effectiveFitRange, fileResult, initialState } from './state';
+import { currentEdits, editorReducer, fileResult, initialState } from './state';
 import { autoDisplayRange, CHANNEL_COLOURS } from './view';
 
 export type { Tab } from './components/Toolbar';
@@ -119,24 +116,9 @@ export function App() {
   }, [api, stack, zSlice]);
 
   const edits = currentEdits(state);
-  // The shown file's own dorsal side (project file) applies to its live measurement as it does in the batch.
-  const settings = useMemo(() => settingsInForce(state.doc.settings, { fitRangeEl: null, dorsalSide: edits.dorsalSide ?? null }),
-    [state.doc.settings, edits.dorsalSide]);
-  const prepared = useMemo(() => (stack === null ? null : prepareLive(stack, settings)), [stack, settings]);
-  const axis = stack === null ? null : effectiveAxis(state);
-  const fitRangeEl = effectiveFitRange(state);
-  const measurement = useMemo(() => (prepared === null || axis === null ? null : measureLive(prepared, axis, settings, edits.landmarks, fitRangeEl)),
-    [prepared, axis, settings, edits.landmarks, fitRangeEl]);
-  // The sampled-region outline is slow to trace on large images, so it follows the axis once a drag pauses.
-  const [bandOutlines, setBandOutlines] = useState<ImagePoint[][]>([]);
-  useEffect(() => {
-    if (prepared === null || axis === null) { setBandOutlines([]); return; }
-    const t = setTimeout(() => setBandOutlines(bandOutlinesLive(prepared, axis, settings)), 100);
-    return () => clearTimeout(t);
-  }, [prepared, axis, settings]);
+  const { settings, axis, fitRangeEl, measurement, bandOutlines, pixelSizeUm, halfWidthPx } = useLiveMeasurement(stack, state);
   const planes = slicePlanes ?? stack?.projected.channels ?? [];
   const names = stack?.projected.channelNames ?? [];
-  const pixelSizeUm = prepared === null ? null : (stack?.projected.pixelSizeUm ?? settings.pixelSizeUm);
   const exports = useExports(api, { state, stack, measurement, bandOutlines, axis, entryName: state.current, setMessage, planes });
 
   const step = (d: number) => {
@@ -193,7 +175,6 @@ export function App() {
   useEffect(() => api?.onMenuCommand((c) => commandRef.current(c)), [api]);
 
   if (api === null) return <div className="fatal">This page must run inside Eggline: the app connection (window.eggline) is missing.</div>;
-  const halfWidthPx = stack === null ? 50 : straightViewHalfWidthPx(stack.detection.eggWidthUm, stack.projected.pixelSizeUm);
   const message = session.message ?? (saveStatus.kind === 'error' ? `Not saved: ${saveStatus.message}` : null);
 
   return (

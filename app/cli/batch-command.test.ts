@@ -52,4 +52,10 @@ describe('planBatch', () => {
       .toEqual([3, 30, [2, 'stripes'], 'slice', 5]);
     expect(await planBatch(['--help'])).toBe('help');
   });
+  it('gives a flag\'s own rule for a negative number written as a separate word', async () => {
+    // parseArgs alone would read "-3" as an option; the settings table's message names the rule instead.
+    await expect(planBatch([input, '--out', join(root, 'o'), '--edge-depth', '-3'])).rejects.toThrow('--edge-depth must be a positive number of µm (got "-3")');
+    await expect(planBatch([input, '--out', join(root, 'o'), '--strip-width', '-.5'])).rejects.toThrow('--strip-width must be a positive number of µm (got "-.5")');
+    await expect(planBatch([input, '--out', join(root, 'o'), '--jobs', '-2'])).rejects.toThrow('--jobs must be a whole number from 1 to 256 (got "-2")');
+  });
 });

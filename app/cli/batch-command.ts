@@ -3,17 +3,17 @@ import { promises as fs } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { totalmem } from 'node:os';
 import {
-  BatchOptionError, defaultMaxMemoryBytes, mergeSettings, parseByteSize, parseConfigText, parseSettingsFlags, PROJECT_FILE_NAME, type SettingsOverrides,
+  BatchOptionError, defaultMaxMemoryBytes, mergeSettings, parseConfigText, parseSettingsFlags, PROJECT_FILE_NAME, type SettingsOverrides,
 } from '../../core/batch';
 import type { ProjectDoc } from '../../core/contract';
-import { DEFAULT_SETTINGS, flagKey, SETTINGS, type AnalysisSettings } from '../../core/settings';
+import { DEFAULT_SETTINGS, flagKey, flagValue, RUN_SETTINGS, runSettingSpec, SETTINGS, type AnalysisSettings } from '../../core/settings';
 import { MAX_PARTS, parseShardSpec, type ShardSpec } from '../../core/shard';
 import { defaultJobs, realPathOf, runBatch, type BatchRunResult, type RunBatchOptions } from '../batch/run-batch';
 import { isInside } from '../batch/list-stacks';
 import { STOP_MESSAGE } from './batch-tuning';
 import { loadProjectOrBackup } from '../project';
 import { BATCH_HELP } from './help';
-import { parseCommandArgs } from './parse-command-args';
+import { joinNegativeValues, parseCommandArgs } from './parse-command-args';
 import { progressPrinter } from './progress';
 import { DEFAULT_CPUS_PER_TASK, joinSlurmOptions, partArguments, submitCommands, writeSlurmScripts } from './slurm-scripts';
 import { UsageError, type CliIo } from './usage-error';
@@ -24,11 +24,14 @@ import type { TimelapseOptions } from '../batch/timelapse-pass';
 const SETTING_OPTIONS = Object.fromEntries(SETTINGS.map((s) => [s.flag.slice(2), s.repeatable ? { type: 'string', multiple: true } : { type: 'string' }])) as
   Record<string, { type: 'string'; multiple?: boolean }>;
 
+/** One flag per run setting (core/settings RUN_SETTINGS: --jobs, --file-timeout, --max-memory). */
+const RUN_OPTIONS = Object.fromEntries(RUN_SETTINGS.map((s) => [s.flag.slice(2), { type: 'string' }])) as Record<string, { type: 'string' }>;
+
 const OPTIONS = {
-  ...SETTING_OPTIONS,
-  out: { type: 'string' }, jobs: { type: 'string' }, config: { type: 'string' },
+  ...SETTING_OPTIONS, ...RUN_OPTIONS,
+  out: { type: 'string' }, config: { type: 'string' },
   project: { type: 'string' }, 'no-project': { type: 'boolean' }, samples: { type: 'string' }, reference: { type: 'string' },
-  'file-timeout': { type: 'string' }, resume: { type: 'boolean' }, 'max-memory': { type: 'string' }, shard: { type: 'string' },
+  resume: { type: 'boolean' }, shard: { type: 'string' },
   slurm: { type: 'string' }, 'slurm-options': { type: 'string' }, help: { type: 'boolean', short: 'h' },
   time: { type: 'string' }, 'axis-per-time': { type: 'boolean' }, 'time-step': { type: 'string' }, 'tau-range': { type: 'string' },
   'baseline-frames': { type: 'string' },
@@ -63,6 +66,16 @@ function wholeNumber(text: string, flag: string, min: number, max: number): numb
   return n;
 }
 
+/** A run setting's flag text as its value, by its row in RUN_SETTINGS (the row's rule is the message). */
+function runFlag(key: string, text: string): number {
+  return flagValue(runSettingSpec(key), text) as number;
+}
+
+/** The text given for a run setting's flag, or undefined. */
+function runText(values: Readonly<Record<string, unknown>>, key: string): string | undefined {
+  return values[runSettingSpec(key).flag.slice(2)] as string | undefined;
+}
+
 async function readConfig(path: string): Promise<SettingsOverrides> {
   const text = await fs.readFile(path, 'utf8').catch((e: NodeJS.ErrnoException) => {
     throw new UsageError(`cannot read config file ${path} (${e.code ?? e.message})`, 'batch');
@@ -89,7 +102,7 @@ async function readProject(given: string | undefined, folder: string, skip: bool
 
 /** Resolve the batch command's arguments into a plan; throws UsageError / BatchOptionError for bad input. */
 export async function planBatch(given: readonly string[]): Promise<BatchPlan | 'help'> {
-  const argv = joinSlurmOptions(given);
+  const argv = joinNegativeValues(joinSlurmOptions(given), OPTIONS);
   const { values: v, positionals } = parseCommandArgs(argv, OPTIONS, 'batch');
   if (v.help) return 'help';
   if (positionals.length === 0) throw new UsageError('missing the input folder', 'batch');
@@ -118,19 +131,20 @@ export async function planBatch(given: readonly string[]): Promise<BatchPlan | '
   const flags = parseSettingsFlags(Object.fromEntries(SETTINGS.map((s) => [flagKey(s.flag), typed[s.flag.slice(2)] as string | string[] | undefined])));
   const config = v.config !== undefined ? await readConfig(v.config) : {};
   const project = await readProject(v.project, folder, v['no-project'] === true);
-  const jobs = v.jobs !== undefined ? wholeNumber(v.jobs, '--jobs', 1, 256) : defaultJobs();
-  const maxMemory = v['max-memory'] !== undefined ? parseByteSize(v['max-memory'], '--max-memory') : defaultMaxMemoryBytes(totalmem(), jobs);
+  const [jobsText, memoryText, timeoutText] = ['jobs', 'maxMemoryBytes', 'fileTimeoutS'].map((k) => runText(v, k));
+  const jobs = jobsText !== undefined ? runFlag('jobs', jobsText) : defaultJobs();
+  const maxMemory = memoryText !== undefined ? runFlag('maxMemoryBytes', memoryText) : defaultMaxMemoryBytes(totalmem(), jobs);
   return {
     folder, outDir: resolve(v.out), settings: mergeSettings(DEFAULT_SETTINGS, project.doc?.settings ?? {}, config, flags), doc: project.doc,
     jobs,
     projectFile: project.path, configFile: v.config !== undefined ? resolve(v.config) : null,
     samples: v.samples !== undefined ? resolve(v.samples) : null, reference: v.reference ?? null,
-    timeoutS: v['file-timeout'] !== undefined ? wholeNumber(v['file-timeout'], '--file-timeout', 1, 86_400) : undefined,
+    timeoutS: timeoutText !== undefined ? runFlag('fileTimeoutS', timeoutText) : undefined,
     resume: v.resume === true, maxMemoryBytes: maxMemory, notes: project.note ? [project.note] : [], shard,
     timelapse: parseTimelapseFlags({ time: v.time, axisPerTime: v['axis-per-time'], timeStep: v['time-step'], tauRange: v['tau-range'], baselineFrames: v['baseline-frames'] }),
     slurm: slurmParts === null ? null : {
       parts: slurmParts, options: v['slurm-options'] ?? null, partArgs: partArguments(argv, OPTIONS, process.cwd()),
-      cpusPerTask: v.jobs !== undefined ? wholeNumber(v.jobs, '--jobs', 1, 256) : DEFAULT_CPUS_PER_TASK,
+      cpusPerTask: jobsText !== undefined ? jobs : DEFAULT_CPUS_PER_TASK,
     },
   };
 }

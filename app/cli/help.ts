@@ -1,6 +1,7 @@
 // Help texts for `eggline --help` and `eggline <command> --help`. The analysis settings' lines come from the settings
 // table (core/settings SETTINGS), so every setting's flag is listed with its help line and default.
-import { DEFAULT_SETTINGS, SETTINGS, settingValue, type SettingSpec } from '../../core/settings';
+import { DEFAULT_TIMEOUT_PER_FILE_S } from '../batch/run-batch';
+import { DEFAULT_SETTINGS, runSettingSpec, SETTINGS, settingValue, type SettingSpec } from '../../core/settings';
 
 /** The default of a setting as a flag would write it; '' when there is none. */
 function defaultText(spec: SettingSpec): string {
@@ -16,6 +17,26 @@ export function settingsHelp(): string {
     const head = `${`  ${s.flag} ${s.flagValue}`.padEnd(29)} `;
     return d === '' ? `${head}${s.help}` : `${head}${s.help}  [${d}]`;
   }).join('\n');
+}
+
+/** Width of a help line, characters. */
+const HELP_WIDTH = 100;
+
+/** A run setting's help (RUN_SETTINGS): flag and value, its help line wrapped under the text column, [default]. */
+export function runSettingHelp(key: string, defaultText: string): string {
+  const spec = runSettingSpec(key);
+  const indent = ' '.repeat(30);
+  const words = `${spec.help}  [${defaultText}]`.split(' ');
+  const lines: string[] = [];
+  let line = `${`  ${spec.flag} ${spec.flagValue}`.padEnd(29)} `;
+  let empty = true;
+  for (const w of words) {
+    if (!empty && line.length + 1 + w.length > HELP_WIDTH) { lines.push(line); line = indent; empty = true; }
+    line += (empty ? '' : ' ') + w;
+    empty = false;
+  }
+  lines.push(line);
+  return lines.join('\n');
 }
 
 /** Top-level help. */
@@ -42,7 +63,7 @@ into <folder>; <dir> must not be <folder> or inside it.
 
 Options:
   --out DIR                   output folder (created if missing)                       [required]
-  --jobs N                    worker threads                            [default: number of cores]
+${runSettingHelp('jobs', 'default: number of cores')}
 ${settingsHelp()}
   --config FILE               settings JSON (keys as in results.json settings); flags win over it
   --project FILE              hand edits (axis, landmarks, fit range per file)
@@ -50,10 +71,8 @@ ${settingsHelp()}
   --no-project                ignore <folder>/eggline-project.json
   --samples CSV               sample sheet (file,condition[,dosage]); runs the cohort step after
   --reference COND            reference condition for the cohort step (needs --samples)
-  --file-timeout S            give up on one file after S seconds                       [900]
-  --max-memory SIZE           memory one file's analysis may use (512M, 4G, …); a file estimated to
-                              need more is refused, a worker that uses more is stopped; either way
-                              that file gets an error row     [3/4 of memory / jobs, 1G to 8G]
+${runSettingHelp('fileTimeoutS', String(DEFAULT_TIMEOUT_PER_FILE_S))}
+${runSettingHelp('maxMemoryBytes', '3/4 of memory / jobs, 1G to 8G')}
   --resume                    reuse the results journal.jsonl in <dir> holds for files whose bytes
                               (SHA-256) and settings are unchanged; analyse the rest
   -h, --help                  show this help

@@ -1,16 +1,10 @@
 // Memory sizes as the command line takes them ("4G", "512M", "1.5GiB", "2000000000") and as messages show them.
-import { BatchOptionError } from './option-error';
+import { flagValue, runSettingSpec } from '../settings';
 
-const UNIT_POWERS: Readonly<Record<string, number>> = { '': 0, K: 1, M: 2, G: 3, T: 4 };
-
-/** Bytes from "N", "N K|M|G|T" with an optional "B" or "iB" (units are powers of 1024); throws BatchOptionError. */
+/** Bytes from "N", "N K|M|G|T" with an optional "B" or "iB" (units are powers of 1024), at least 64M, by the run
+ *  setting --max-memory's rule; throws BatchOptionError naming `flag`. */
 export function parseByteSize(text: string, flag: string): number {
-  const m = /^\s*(\d+(?:\.\d+)?)\s*([kmgt]?)(?:i?b)?\s*$/i.exec(text);
-  const bytes = m ? Number(m[1]) * 1024 ** (UNIT_POWERS[m[2].toUpperCase()] ?? 0) : Number.NaN;
-  if (!(bytes >= 2 ** 26) || !Number.isFinite(bytes)) {
-    throw new BatchOptionError(`${flag} must be a size of at least 64M, like 512M, 4G or 1.5G (got "${text}")`);
-  }
-  return Math.floor(bytes);
+  return flagValue({ ...runSettingSpec('maxMemoryBytes'), flag }, text) as number;
 }
 
 /** "2.0 GiB", "512 MiB" for messages. */

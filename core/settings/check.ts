@@ -96,7 +96,8 @@ export function settingsFromFlags(flags: SettingsFlags): SettingsOverrides {
   return out;
 }
 
-function flagValue(spec: SettingSpec, text: string): unknown {
+/** The value of a flag's text by the row's rule; throws SettingsError "<flag> must be <rule> (got "<text>")". */
+export function flagValue(spec: SettingSpec, text: string): unknown {
   const v = spec.fromText(text);
   if (v === undefined) throw new SettingsError(`${spec.flag} must be ${spec.flagRule ?? spec.rule} (got "${text}")`);
   return v;

@@ -2,9 +2,11 @@
 // them (schema.ts), merging of layers (defaults < project < config < flags) and the settings in force for a file.
 export type { AnalysisSettings, ProfileSettings, BackgroundSettings, ChannelRef, EdgeSide } from './types';
 export { DEFAULT_SETTINGS } from './defaults';
-export { SETTINGS, settingSpec, flagKey, numberFromText, type SettingSpec, type SettingKind } from './schema';
 export {
-  settingValue, overrideOf, settingProblem, fieldProblem, settingsProblem, applyOverrides, mergeSettings, checkCombination, combinationProblem,
+  SETTINGS, settingSpec, flagKey, numberFromText, RUN_SETTINGS, runSettingSpec, bytesFromText, MIN_MAX_MEMORY_BYTES, type SettingSpec, type SettingKind,
+} from './schema';
+export {
+  settingValue, overrideOf, flagValue, settingProblem, fieldProblem, settingsProblem, applyOverrides, mergeSettings, checkCombination, combinationProblem,
   settingsFromFlags, overridesFromJson, settingsFromStored, settingsInForce, type SettingsOverrides, type SettingsFlags,
 } from './check';
 export { SettingsError } from './settings-error';

@@ -6,7 +6,7 @@ import type { BoundaryMethod } from '../model';
 import type { ChannelRef } from './types';
 
 /** What kind of value a setting holds (decides how a flag's text is read and which field the window shows). */
-export type SettingKind = 'number' | 'integer' | 'choice' | 'channel' | 'channels' | 'range' | 'methods' | 'region';
+export type SettingKind = 'number' | 'integer' | 'choice' | 'channel' | 'channels' | 'range' | 'methods' | 'region' | 'size';
 
 /** One row of the table. `key` is the path in AnalysisSettings ('profile.edgeDepthUm'). */
 export interface SettingSpec {
@@ -183,6 +183,48 @@ export const SETTINGS: readonly SettingSpec[] = [
     },
   },
 ];
+
+const SIZE_UNIT_POWERS: Readonly<Record<string, number>> = { '': 0, K: 1, M: 2, G: 3, T: 4 };
+
+/** Bytes from "N", "N K|M|G|T" with an optional "B" or "iB" (units are powers of 1024), or undefined for other text. */
+export function bytesFromText(text: string): number | undefined {
+  const m = /^\s*(\d+(?:\.\d+)?)\s*([kmgt]?)(?:i?b)?\s*$/i.exec(text);
+  return m ? Math.floor(Number(m[1]) * 1024 ** (SIZE_UNIT_POWERS[m[2].toUpperCase()] ?? 0)) : undefined;
+}
+
+/** Smallest --max-memory, bytes (64 MiB). */
+export const MIN_MAX_MEMORY_BYTES = 2 ** 26;
+
+/**
+ * Run settings of the batch command: how a run goes, not what it measures. Same rows as SETTINGS (flag, help, rule,
+ * range, unit, how the flag's text is read), so their flags, messages and help come from one place too; but they are
+ * not fields of AnalysisSettings: project files, config files, results.json and the window's panel do not hold them,
+ * and their defaults depend on the machine (the command line states them).
+ */
+export const RUN_SETTINGS: readonly SettingSpec[] = [
+  numeric({
+    key: 'jobs', unit: '', label: 'workers', flag: '--jobs', flagValue: 'N', help: 'worker processes',
+    rule: 'a whole number from 1 to 256', min: 1, max: 256, integer: true,
+  }),
+  numeric({
+    key: 'fileTimeoutS', unit: 's', label: 'time limit per file', flag: '--file-timeout', flagValue: 'S',
+    help: 'give up on one file after S seconds', rule: 'a whole number from 1 to 86400', min: 1, max: 86_400, integer: true,
+  }),
+  {
+    key: 'maxMemoryBytes', kind: 'size', unit: 'B', label: 'memory per file', flag: '--max-memory', flagValue: 'SIZE',
+    help: 'memory one file\'s analysis may use (512M, 4G, …); a file estimated to need more is refused, a worker that uses more is stopped; either way that file gets an error row',
+    rule: 'a size of at least 64M, like 512M, 4G or 1.5G', min: MIN_MAX_MEMORY_BYTES,
+    isValid: (v) => typeof v === 'number' && Number.isFinite(v) && v >= MIN_MAX_MEMORY_BYTES,
+    fromText: (text) => { const b = bytesFromText(text); return b !== undefined && Number.isFinite(b) && b >= MIN_MAX_MEMORY_BYTES ? b : undefined; },
+  },
+];
+
+/** The run setting of `key` (RUN_SETTINGS); throws for a key that is not one (a programming error). */
+export function runSettingSpec(key: string): SettingSpec {
+  const row = RUN_SETTINGS.find((s) => s.key === key);
+  if (row === undefined) throw new Error(`no run setting "${key}"`);
+  return row;
+}
 
 /** The row of `key`; throws for a key that is not a setting (a programming error, not user input). */
 export function settingSpec(key: string): SettingSpec {
