@@ -18,8 +18,8 @@ import { screenPt, zoomAt } from './geometry';
 import { toProjectDoc, useAutosave } from './hooks/useAutosave';
 import { useBatch } from './hooks/useBatch';
 import { useElementSize } from './hooks/useElementSize';
-import { keyCommand } from './hooks/useKeys';
 import type { KeyCommand } from './hooks/useKeys';
+import { useCommandInput } from './hooks/useCommandInput';
 import { Help } from './components/Help';
 import { useSession } from './hooks/useSession';
 import { useStackLoader } from './hooks/useStackLoader';
@@ -155,24 +155,7 @@ export function App() {
         if (cmd.startsWith(MENU_OPEN_RECENT_PREFIX)) void openRecent(cmd.slice(MENU_OPEN_RECENT_PREFIX.length));
     }
   };
-  const commandRef = useRef(runCommand);
-  commandRef.current = runCommand;
-  useEffect(() => {
-    const down = (e: KeyboardEvent) => {
-      const t = e.target as HTMLElement | null;
-      if (t !== null && ['INPUT', 'SELECT', 'TEXTAREA'].includes(t.tagName)) return;
-      if (e.key === ' ') { setSpaceHeld(true); e.preventDefault(); return; }
-      const cmd = keyCommand(e);
-      if (cmd === null) return;
-      e.preventDefault();
-      commandRef.current(cmd);
-    };
-    const up = (e: KeyboardEvent) => { if (e.key === ' ') setSpaceHeld(false); };
-    window.addEventListener('keydown', down);
-    window.addEventListener('keyup', up);
-    return () => { window.removeEventListener('keydown', down); window.removeEventListener('keyup', up); };
-  }, []);
-  useEffect(() => api?.onMenuCommand((c) => commandRef.current(c)), [api]);
+  useCommandInput(api, runCommand, setSpaceHeld);
 
   if (api === null) return <div className="fatal">This page must run inside Eggline: the app connection (window.eggline) is missing.</div>;
   const message = session.message ?? (saveStatus.kind === 'error' ? `Not saved: ${saveStatus.message}` : null);
