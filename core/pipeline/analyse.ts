@@ -3,7 +3,7 @@ import { errorResult, withTimePoint, type EmbryoResult, type HandEdits, type Pla
 import type { AnalysisSettings } from '../settings';
 import { projectStack } from '../image';
 import { detectEmbryo, type EmbryoDetection } from '../geometry';
-import { fitSampledProfiles, prepareSampling, sampleProfiles } from '../profile';
+import { fitSampledProfiles, prepareSampling, sampleProfiles, type PreparedSampling } from '../profile';
 
 /** Per-file options of analyseStack. */
 export interface AnalyseOptions {
@@ -17,6 +17,10 @@ export interface AnalyseOptions {
   readonly onProjected?: (projected: ProjectedStack) => void;
   /** Time of the analysed time point in s, when the caller knows it better than the file (--time-step); else the file's. */
   readonly timeS?: number | null;
+  /** This time point's projection when the caller already has it (a movie's sampled time points); else it is read. */
+  readonly projected?: ProjectedStack;
+  /** Prepares sampling within `detection` (samplingWithin: a movie reuses what depends on the mask alone). */
+  readonly prepare?: (projected: ProjectedStack, settings: AnalysisSettings) => PreparedSampling;
 }
 
 /** Check that the stack has something to analyse (exact messages). */
@@ -42,13 +46,13 @@ async function analyseOneTimePoint(info: StackInfo, source: PlaneSource, setting
   const bad = checkInfo(info);
   if (bad) return errorResult(file, bad);
   try {
-    const projected = await projectStack(info, source, settings);
+    const projected = options.projected ?? await projectStack(info, source, settings);
     options.onProjected?.(projected);
     const detection = options.detection ?? detectEmbryo(projected, settings);
     const hand = options.handEdits?.axis ?? null;
     const axis = hand ? { ...hand, source: 'hand' as const } : detection.axis;
     // The sampler of settings.profile.mode prepares its pixels and bins them along the axis; then the fitter.
-    const prepared = prepareSampling(projected, detection, settings);
+    const prepared = options.prepare && options.detection ? options.prepare(projected, settings) : prepareSampling(projected, detection, settings);
     const sampled = sampleProfiles(prepared, axis, settings);
     const m = fitSampledProfiles(sampled, prepared, settings, options.handEdits?.landmarks ?? []);
     const px = projected.pixelSizeUm;

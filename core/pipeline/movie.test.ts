@@ -1,7 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { DEFAULT_SETTINGS } from '../settings';
 import { planSyntheticMovie, syntheticMovieInfo, syntheticMoviePlaneSource } from '../synth';
-import { analyseMovie, axisSampleTimes } from './movie';
+import { detectEmbryo } from '../geometry';
+import { analyseStack } from './analyse';
+import { analyseMovie, axisSampleTimes, projectOverTime } from './movie';
 
 describe('axisSampleTimes', () => {
   it('spreads the sample over the movie and ends at the last time point', () => {
@@ -32,6 +34,30 @@ describe('analyseMovie (demo data: a small synthetic movie)', () => {
     const each = await analyseMovie(info, syntheticMoviePlaneSource(movie), DEFAULT_SETTINGS, { fileLabel: 'm.ome.tif', timeIndices: [4, 5], axisPerTime: true });
     expect(each.movieAxis).toBeNull();
     expect(each.results.map((r) => r.status)).toEqual(['ok', 'ok']);
+  });
+
+  it('gives at every time point exactly what analysing that time point alone within the movie\'s embryo gives', async () => {
+    // The movie path projects the sampled time points once and prepares what depends on the mask once
+    // (samplingWithin); the results must not change by a bit (demo data; both background modes, both samplers).
+    const times = [0, 1, 2, 3, 4, 5];
+    for (const settings of [DEFAULT_SETTINGS, { ...DEFAULT_SETTINGS, profile: { ...DEFAULT_SETTINGS.profile, mode: 'axis' as const } },
+      { ...DEFAULT_SETTINGS, background: { mode: 'none' as const, regionPx: null } }]) {
+      const m = await analyseMovie(info, syntheticMoviePlaneSource(movie), settings, { fileLabel: 'm.ome.tif', timeIndices: times });
+      const source = syntheticMoviePlaneSource(movie);
+      const detection = detectEmbryo(await projectOverTime(info, source, settings, axisSampleTimes(info.sizeT, 8)), settings);
+      for (const [k, t] of times.entries()) {
+        expect(m.results[k]).toEqual(await analyseStack(info, source, { ...settings, timeIndex: t }, { fileLabel: 'm.ome.tif', detection }));
+      }
+    }
+  });
+
+  it('reads each sampled time point once: the axis sample\'s projections serve their own analysis', async () => {
+    const source = syntheticMoviePlaneSource(movie);
+    const reads = new Map<number, number>();
+    const counting = { ...source, readPlane: (z: number, c: number, t: number) => { reads.set(t, (reads.get(t) ?? 0) + 1); return source.readPlane(z, c, t); } };
+    await analyseMovie(info, counting, DEFAULT_SETTINGS, { fileLabel: 'm.ome.tif', timeIndices: [0, 1, 2, 3, 4, 5] });
+    expect([...reads.values()].every((n) => n === info.sizeZ * info.sizeC)).toBe(true);
+    expect(reads.size).toBe(6);
   });
 
   it('gives every requested time point an error naming the file when a time point is outside the movie', async () => {

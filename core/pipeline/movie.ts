@@ -5,6 +5,7 @@ import type { AnalysisSettings } from '../settings';
 import { projectStack } from '../image';
 import { detectEmbryo, type EmbryoDetection } from '../geometry';
 import { analyseStack } from './analyse';
+import { samplingWithin } from '../profile';
 
 /** Per-movie options of analyseMovie. */
 export interface MovieOptions {
@@ -50,20 +51,41 @@ function addInto(sum: Float32Array, next: Float32Array): void {
   for (let i = 0; i < sum.length; i++) sum[i] += next[i];
 }
 
+/** True when two settings differ at most in their time index and fit range. */
+function sameButFitRange(a: AnalysisSettings, b: AnalysisSettings): boolean {
+  const rest = (s: AnalysisSettings) => JSON.stringify({ ...s, timeIndex: 0, fitRangeEl: null });
+  return rest(a) === rest(b);
+}
+
+/** Most bytes of sampled projections kept for their own time points' analysis (the rest are read again). */
+const KEEP_PROJECTIONS_BYTES = 128 * 2 ** 20;
+
+/**
+ * The mean over sampled time points of the Z projections, and the projections of those time points in `keep`
+ * (while they fit in KEEP_PROJECTIONS_BYTES), so their analysis does not read their planes again.
+ */
+async function projectSampled(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, times: readonly number[], keep: ReadonlySet<number>): Promise<{ mean: ProjectedStack; kept: Map<number, ProjectedStack> }> {
+  let first: ProjectedStack | null = null;
+  let sums: Float32Array[] = [];
+  const kept = new Map<number, ProjectedStack>();
+  let keptBytes = 0;
+  for (const t of times) {
+    const p = await projectStack(info, source, { ...settings, timeIndex: t });
+    if (!first) { first = p; sums = p.channels.map((c) => Float32Array.from(c.data)); } else p.channels.forEach((c, i) => addInto(sums[i], c.data));
+    const bytes = p.channels.reduce((n, c) => n + c.data.byteLength, 0);
+    if (keep.has(t) && keptBytes + bytes <= KEEP_PROJECTIONS_BYTES) { kept.set(t, p); keptBytes += bytes; }
+  }
+  if (!first) throw new Error('no time points to project');
+  const channels: Plane[] = first.channels.map((c, i) => ({ width: c.width, height: c.height, data: sums[i].map((v) => v / times.length) }));
+  return { mean: { ...first, channels }, kept };
+}
+
 /**
  * The mean over sampled time points of the Z projections: the embryo as it sits through the movie, gradient formed
  * or not (a live embryo barely moves, and a frame before production shows no gradient to orient the axis by).
  */
 export async function projectOverTime(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, times: readonly number[]): Promise<ProjectedStack> {
-  let first: ProjectedStack | null = null;
-  let sums: Float32Array[] = [];
-  for (const t of times) {
-    const p = await projectStack(info, source, { ...settings, timeIndex: t });
-    if (!first) { first = p; sums = p.channels.map((c) => Float32Array.from(c.data)); } else p.channels.forEach((c, i) => addInto(sums[i], c.data));
-  }
-  if (!first) throw new Error('no time points to project');
-  const channels: Plane[] = first.channels.map((c, i) => ({ width: c.width, height: c.height, data: sums[i].map((v) => v / times.length) }));
-  return { ...first, channels };
+  return (await projectSampled(info, source, settings, times, new Set())).mean;
 }
 
 /**
@@ -81,23 +103,30 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
     return { timeIndices, results: timeIndices.map((t) => withTimePoint(r, t, info.time?.timesS?.[t] ?? null)), movieAxis: null };
   }
   let detection: EmbryoDetection | null = null;
+  let kept = new Map<number, ProjectedStack>();
   if (options.signal?.aborted) throw cancelled(fileLabel);
   if (!options.axisPerTime) {
     try {
-      const projected = await projectOverTime(info, source, settings, axisSampleTimes(info.sizeT, options.axisSampleCount ?? 8));
-      detection = detectEmbryo(projected, settings);
+      const sampled = await projectSampled(info, source, settings, axisSampleTimes(info.sizeT, options.axisSampleCount ?? 8), new Set(timeIndices));
+      kept = sampled.kept;
+      detection = detectEmbryo(sampled.mean, settings);
     } catch (e) {
       const r = errorResult(fileLabel, `embryo over time: ${e instanceof Error ? e.message : String(e)}`);
       return { timeIndices, results: timeIndices.map((t) => withTimePoint(r, t, info.time?.timesS?.[t] ?? null)), movieAxis: null };
     }
   }
   const results: EmbryoResult[] = [];
+  // One embryo for the whole movie: what depends on its mask alone is prepared once (samplingWithin).
+  const prepare = detection ? samplingWithin(detection) : undefined;
   for (const [k, t] of timeIndices.entries()) {
     if (options.signal?.aborted) throw cancelled(fileLabel);
     const at = options.editsAt?.(t);
     const settingsAtT = { ...(at ? at.settings : settings), timeIndex: t };
     const onProjected = options.onProjected ? (p: ProjectedStack) => options.onProjected!(k, p, timeIndices.length) : undefined;
-    results.push(await analyseStack(info, source, settingsAtT, { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection, onProjected }));
+    // A kept projection serves only settings that differ from the movie's in the fit range alone.
+    const projected = kept.get(t) && sameButFitRange(settingsAtT, settings) ? kept.get(t) : undefined;
+    kept.delete(t);
+    results.push(await analyseStack(info, source, settingsAtT, { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection, onProjected, projected, prepare }));
     options.onTimePoint?.(k + 1, timeIndices.length);
   }
   const hand = options.handEdits?.axis ?? null;

@@ -44,9 +44,11 @@ export function regionMean(plane: Plane, region: { x: number; y: number; width: 
 }
 
 /** Background of every channel by settings.mode, with warnings (a bad region gives 0 and a warning). */
-export function estimateBackgrounds(channels: readonly Plane[], names: readonly string[], mask: Mask, settings: BackgroundSettings, marginPx: number): { backgrounds: BackgroundEstimate[]; warnings: string[] } {
+export function estimateBackgrounds(channels: readonly Plane[], names: readonly string[], mask: Mask, settings: BackgroundSettings, marginPx: number,
+  knownFar: Uint8Array | null = null): { backgrounds: BackgroundEstimate[]; warnings: string[] } {
   const warnings: string[] = [];
-  const far = settings.mode === 'outside' ? farFromMask(mask, marginPx) : null;
+  // knownFar: farFromMask(mask, marginPx) already computed for this mask (a movie's time points share one mask).
+  const far = settings.mode === 'outside' ? knownFar ?? farFromMask(mask, marginPx) : null;
   const backgrounds = channels.map((plane, c): BackgroundEstimate => {
     if (settings.mode === 'none') return { channel: names[c], method: 'none', value: 0 };
     if (settings.mode === 'region') {

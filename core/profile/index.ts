@@ -1,6 +1,6 @@
 // Public surface of core/profile: a sampler per profile mode (samplers/), prepared once per detection; then per axis
 // the sampler's profiles and the fit (fast, for live use).
-export { prepareSampling, samplingBase } from './prepare';
+export { prepareSampling, samplingBase, samplingWithin } from './prepare';
 export {
   PROFILE_SAMPLERS, samplerFor, EDGE_BAND, AXIS_STRIP, edgeSideFilter, edgeDepthPx, stripHalfWidthPx, rowsWhere, straightViewHalfWidthPx,
 } from './samplers';

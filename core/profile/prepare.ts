@@ -1,8 +1,8 @@
 // Everything about sampling that does not depend on where the axis handles are: computed once per detection.
-import type { BackgroundEstimate, Detection, ProjectedStack } from '../model';
+import type { BackgroundEstimate, Detection, Mask, ProjectedStack } from '../model';
 import type { AnalysisSettings } from '../settings';
 import { foregroundBox } from '../image';
-import { estimateBackgrounds } from './background';
+import { estimateBackgrounds, farFromMask } from './background';
 import { checkSamplingSettings } from './check-settings';
 import { PROFILE_SAMPLERS, samplerFor } from './samplers';
 import type { MaskBox, PixelSet, PreparedSampling, ProfileSampler, SamplingBase } from './samplers';
@@ -71,19 +71,56 @@ export function prepareSampling(projected: ProjectedStack, detection: Detection,
   return { ...base, sampler, region: sampler.prepare(base, settings) };
 }
 
+/** Background margin around the mask: 10 µm, at least 5 px (10 px when the pixel size is unknown). */
+function backgroundMarginPx(pixelSizeUm: number | null): number {
+  return Math.max(5, pixelSizeUm ? 10 / pixelSizeUm : 10);
+}
+
 /** What every sampler prepares from: mask, its box, backgrounds, and the pixel gatherer. */
-export function samplingBase(projected: ProjectedStack, detection: Detection, settings: AnalysisSettings): SamplingBase {
+export function samplingBase(projected: ProjectedStack, detection: Detection, settings: AnalysisSettings, known: MaskParts | null = null): SamplingBase {
   const warnings: string[] = [];
   const px = projected.pixelSizeUm;
   if (px === null) warnings.push('pixel size unknown: edge depth, strip width and background margin are taken as pixels');
-  const toPx = (um: number): number => (px ? um / px : um);
   const mask = detection.mask;
-  const bg = estimateBackgrounds(projected.channels, projected.channelNames, mask, settings.background, Math.max(5, toPx(10)));
+  const bg = estimateBackgrounds(projected.channels, projected.channelNames, mask, settings.background, backgroundMarginPx(px), known?.far ?? null);
   warnings.push(...bg.warnings);
   // Every sampled pixel lies within the mask's bounding box.
-  const box = foregroundBox(mask);
+  const box = known ? known.box : foregroundBox(mask);
   return {
     width: mask.width, height: mask.height, pixelSizeUm: px, channelNames: projected.channelNames, mask, box,
     backgrounds: bg.backgrounds, warnings, gather: (keep) => pixelSet(projected, keep, bg.backgrounds, box),
+  };
+}
+
+/** The parts of a preparation that depend on the mask and the settings only, not on the pixel values. */
+interface MaskParts {
+  readonly box: MaskBox | null;
+  /** farFromMask(mask, margin) for the 'outside' background, else null. */
+  readonly far: Uint8Array | null;
+  /** The sampler's region mask (its pixels are gathered again for every projection). */
+  readonly region: Mask;
+}
+
+/**
+ * prepareSampling for a series of projections measured within one detection (a movie whose embryo is found once):
+ * the first call prepares as prepareSampling does; later calls with the same pixel size, channels and sampling and
+ * background settings reuse what depends on the mask alone (its box, the pixels far from it, the sampler's region:
+ * the edge band's distance map is the costly part) and only estimate the backgrounds and gather the pixel values
+ * again. Each call gives what prepareSampling gives on that projection (the region's pixels are by contract
+ * base.gather(region.mask.data)); other settings are prepared from scratch.
+ */
+export function samplingWithin(detection: Detection, samplers: readonly ProfileSampler[] = PROFILE_SAMPLERS): (projected: ProjectedStack, settings: AnalysisSettings) => PreparedSampling {
+  let kept: { key: string; parts: MaskParts } | null = null;
+  return (projected, settings) => {
+    const key = JSON.stringify([projected.pixelSizeUm, projected.channels.length, settings.profile, settings.background]);
+    if (kept?.key !== key) {
+      const prepared = prepareSampling(projected, detection, settings, samplers);
+      const far = settings.background.mode === 'outside' ? farFromMask(detection.mask, backgroundMarginPx(projected.pixelSizeUm)) : null;
+      kept = { key, parts: { box: prepared.box, far, region: prepared.region.mask } };
+      return prepared;
+    }
+    const base = samplingBase(projected, detection, settings, kept.parts);
+    const sampler = samplerFor(settings.profile.mode, samplers);
+    return { ...base, sampler, region: { mask: kept.parts.region, pixels: base.gather(kept.parts.region.data) } };
   };
 }

@@ -33,7 +33,7 @@ export interface SamplingBase {
 export interface SampledRegion {
   /** 0/1 mask of those pixels (drawn straightened beside the image). */
   readonly mask: Mask;
-  /** Their positions and values. */
+  /** Their positions and values: base.gather(mask.data), which a movie repeats for each time point (samplingWithin). */
   readonly pixels: PixelSet;
 }
 
