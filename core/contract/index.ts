@@ -1,7 +1,7 @@
 // The one contract between the renderer and the app (main process). Everything crossing it is plain data
 // (objects, arrays, typed arrays); errors come back as values, never as thrown exceptions.
 import type {
-  Detection, EmbryoResult, ProjectedStack, StackInfo,
+  Detection, EmbryoResult, MovieRecord, ProjectedStack, StackInfo,
 } from '../model';
 import type { AnalysisSettings, ProjectDoc } from '../settings';
 
@@ -56,7 +56,12 @@ export interface BatchSummary {
   readonly ok: number;
   readonly failed: number;
   readonly cancelled: boolean;
+  /** Every result keyed by (file, tIndex): one per file with one time point, one per analysed time point of a movie
+   *  (core/batch embryoResults gives one per file). */
   readonly results: readonly EmbryoResult[];
+  /** The movies analysed per time point (their time points, times and summary options: core/timelapse summarizeMovie
+   *  makes λ(t) and τ(x) from these and the results); absent or empty when there were none. */
+  readonly movies?: readonly MovieRecord[];
   /** Per-condition tables and figures of the cohort step (as in report.html); null when the folder has no sample
    *  sheet, the batch was cancelled or the step failed; absent from engines that do not run it. */
   readonly cohort?: CohortSummary | null;
