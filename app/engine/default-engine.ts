@@ -6,7 +6,7 @@ import type { AnalysisSettings } from '../../core/settings';
 import { defaultWorkerPath, runBatch, type BatchRunResult } from '../batch/run-batch';
 import { DEFAULT_TIMELAPSE_OPTIONS } from '../batch/timelapse-pass';
 import { writeDemoDataSet } from '../batch/write-demo';
-import { openStackForAnalysis } from '../decode';
+import { openStackForAnalysis, readPreviewPlane } from '../decode';
 import { ApiFailure } from './api-failure';
 import { summariseCohort } from './cohort-summary';
 import type { AnalysisEngine, BatchRunOptions, SliceData, ViewData } from './engine';
@@ -70,6 +70,7 @@ export function createDefaultEngine(): AnalysisEngine {
   return {
     loadForView,
     readSlice,
+    readPreview: (path, label) => readPreviewPlane(path, label),
     runBatch: runBatchSummary,
     // The built batch worker generates demo embryos in parallel (the writer falls back to this thread without it).
     writeDemoDataSet: (dir, options) => writeDemoDataSet(dir, { ...options, workerPath: defaultWorkerPath() }),
