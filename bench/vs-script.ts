@@ -14,7 +14,7 @@ import { readChunkPlan, readIfdChain, readTiffHeader, writeOmeTiff, writePlainTi
 import { DEFAULT_SETTINGS } from '../core/settings';
 import { detectEmbryo, measureEmbryo, prepareSampling, projectStack } from '../core/pipeline';
 import { analyseFile } from '../app/batch/analyse-file';
-import { openStackForAnalysis } from '../app/decode';
+import { openStackForAnalysis, readPreviewPlane } from '../app/decode';
 
 const self = fileURLToPath(import.meta.url);
 const cli = fileURLToPath(new URL('./cli.mjs', import.meta.url));
@@ -83,7 +83,8 @@ function writeManyPlanes(path: string): void {
 function timed(cmd: string, args: string[], env: NodeJS.ProcessEnv = process.env): { wallS: number; cpuS: number; maxRssKiB: number; stdout: string } {
   const r = spawnSync('/usr/bin/time', ['-f', '@@%e %U %S %M', cmd, ...args], { encoding: 'utf8', env, maxBuffer: 64 * MiB });
   const line = r.stderr.split('\n').reverse().find((l) => l.startsWith('@@'));
-  if (!line) throw new Error(`${cmd} ${args.slice(0, 2).join(' ')} failed: ${r.stderr.slice(-400)}`);
+  // A run that failed (a usage error ends in a fraction of a second) must never be timed as if it had worked.
+  if (!line || r.status !== 0) throw new Error(`${cmd} ${args.slice(0, 2).join(' ')} failed (exit ${r.status}): ${r.stderr.slice(-400)}`);
   const [wall, user, sys, rss] = line.slice(2).trim().split(/\s+/).map(Number);
   return { wallS: wall, cpuS: user + sys, maxRssKiB: rss, stdout: r.stdout };
 }
@@ -113,15 +114,15 @@ async function childPipeline(paths: string[]): Promise<void> {
   }
 }
 
-/** Child: the desktop app's steps for one stack, timed: first picture (projection + detection, as loadStack) and
- *  the axis with λ (sampling prepared and the profile measured and fitted, as the window does next). */
+/** Child: the desktop app's steps for one stack, timed from the click: the first picture (the preview slice, as
+ *  loadPreview), the projection with the embryo found (as loadStack, started at the same moment in the app; here
+ *  after the preview, so its time includes the preview's), and the axis with λ (sampling prepared and the profile
+ *  measured and fitted, as the window does next). */
 async function childDesktop(path: string): Promise<void> {
   const runs: { sliceS: number; pictureS: number; lambdaS: number }[] = [];
   for (let k = 0; k < 4; k++) {
     const t0 = performance.now();
-    const first = await openStackForAnalysis(path, path);
-    await first.source.readPlane(Math.floor(first.info.sizeZ / 2), 0, 0);
-    await first.source.close();
+    await readPreviewPlane(path, path);
     const t1 = performance.now();
     const opened = await openStackForAnalysis(path, path);
     const projected = await projectStack(opened.info, opened.source, SETTINGS);
@@ -131,7 +132,7 @@ async function childDesktop(path: string): Promise<void> {
     const m = measureEmbryo(prepareSampling(projected, detection, SETTINGS), detection.axis, SETTINGS, []);
     const t3 = performance.now();
     if (!m) throw new Error('no measurement');
-    runs.push({ sliceS: (t1 - t0) / 1000, pictureS: (t2 - t1) / 1000, lambdaS: (t3 - t1) / 1000 });
+    runs.push({ sliceS: (t1 - t0) / 1000, pictureS: (t2 - t0) / 1000, lambdaS: (t3 - t0) / 1000 });
   }
   process.stdout.write(`${JSON.stringify(runs)}\n`);
 }
@@ -145,7 +146,8 @@ function compareSet(label: string, dir: string, paths: string[], rawBytesLargest
   const pyEnv = { ...process.env, OMP_NUM_THREADS: '1', OPENBLAS_NUM_THREADS: '1' };
   const rows: Record<string, { wallS: number; cpuS: number; maxRssKiB: number }[]> = { eggline: [], script: [], floor: [], pipeline1: [], scriptRead: [] };
   for (let r = 0; r < rounds; r++) {
-    const out = join(dir, `out-${r}`);
+    // Outside the input folder: eggline refuses an output folder inside its input (exit 2).
+    const out = `${dir}-out-${r}`;
     rmSync(out, { recursive: true, force: true });
     const runEggline = () => rows.eggline.push(timed(process.execPath, [cli, 'batch', dir, '--out', out, '--jobs', '2', '--boundary-channel', '2'], nodeEnv));
     const runScript = () => rows.script.push(timed(PYTHON, [script, ...paths], pyEnv));
@@ -154,12 +156,13 @@ function compareSet(label: string, dir: string, paths: string[], rawBytesLargest
     rows.floor.push(timed(process.execPath, [self, '--child', 'floor', ...paths], nodeEnv));
     rows.pipeline1.push(timed(process.execPath, ['--no-concurrent-recompilation', self, '--child', 'pipeline', ...paths], { ...nodeEnv, MALLOC_ARENA_MAX: '2' }));
     rows.scriptRead.push(timed(PYTHON, [script, '--read-only', ...paths], pyEnv));
+    rmSync(out, { recursive: true, force: true });
   }
   const n = paths.length;
   const w = (k: string) => rows[k].map((x) => x.wallS);
   const c = (k: string) => rows[k].map((x) => x.cpuS);
   console.log(`\n${label}: ${n} files, ${rounds} alternated round(s); seconds per round (range over rounds)`);
-  console.log(`  eggline batch --jobs 2     wall ${range(w('eggline'))}   CPU of the main process only ${range(c('eggline'))}   peak RSS of one process ${(Math.max(...rows.eggline.map((x) => x.maxRssKiB)) / 1024).toFixed(0)} MiB`);
+  console.log(`  eggline batch --jobs 2     wall ${range(w('eggline'))}   CPU (with the workers it reaped) ${range(c('eggline'))}   peak RSS of one process ${(Math.max(...rows.eggline.map((x) => x.maxRssKiB)) / 1024).toFixed(0)} MiB`);
   console.log(`  Python script (1 thread)   wall ${range(w('script'))}   CPU ${range(c('script'))}`);
   console.log(`  tifffile read only         wall ${range(w('scriptRead'))}   CPU ${range(c('scriptRead'))}`);
   console.log(`  eggline, one process       wall ${range(w('pipeline1'))}   CPU ${range(c('pipeline1'))}`);
@@ -207,9 +210,12 @@ async function main(): Promise<void> {
     const runs = JSON.parse(execFileSync(process.execPath, [self, '--child', 'desktop', path], { encoding: 'utf8' }).trim().split('\n').pop()!) as { sliceS: number; pictureS: number; lambdaS: number }[];
     const later = runs.slice(1);
     console.log(`\nDesktop, 1024² × 2 ch × 24 z Deflate stack (first of 4 opens, then the median of the other 3):`);
-    console.log(`  one slice decoded          ${runs[0].sliceS.toFixed(2)} s, then ${med(later.map((r) => r.sliceS)).toFixed(2)} s`);
-    console.log(`  first picture (projection + embryo found)   ${runs[0].pictureS.toFixed(2)} s, then ${med(later.map((r) => r.pictureS)).toFixed(2)} s (aim ≤ 0.3 s)`);
-    console.log(`  axis with λ (+ sampling, profile, fit)      ${runs[0].lambdaS.toFixed(2)} s, then ${med(later.map((r) => r.lambdaS)).toFixed(2)} s (aim ≤ 1 s)`);
+    const aim = (label: string, first: number, then: number, limit: number) =>
+      console.log(`  ${label.padEnd(44)} ${first.toFixed(2)} s, then ${then.toFixed(2)} s; ÷ aim ${(then / limit).toFixed(2)} (≤ ${limit} s: ${then <= limit ? 'met' : 'NOT met'})`);
+    aim('first picture (preview slice)', runs[0].sliceS, med(later.map((r) => r.sliceS)), 0.3);
+    console.log(`  ${'projection and embryo outline'.padEnd(44)} ${runs[0].pictureS.toFixed(2)} s, then ${med(later.map((r) => r.pictureS)).toFixed(2)} s`);
+    aim('axis with λ (+ sampling, profile, fit)', runs[0].lambdaS, med(later.map((r) => r.lambdaS)), 1);
+    console.log('  (times from the click, in one process; the window adds IPC and drawing, not measured here)');
   }
   if (only === 'all' || only === 'planes') {
     const folder = join(dir, 'many-planes');
@@ -220,7 +226,7 @@ async function main(): Promise<void> {
     rmSync(out, { recursive: true, force: true });
     const r = timed(process.execPath, [cli, 'batch', folder, '--out', out, '--jobs', '1']);
     const status = readFileSync(join(out, 'embryos.csv'), 'utf8').split('\n')[1]?.split(',')[1] ?? '?';
-    console.log(`\n65,535 planes of 64×64 (Deflate, one file): eggline batch ${r.wallS.toFixed(1)} s wall, ${r.cpuS.toFixed(1)} s CPU, status ${status} (aim < 10 s)`);
+    console.log(`\n65,535 planes of 64×64 (Deflate, one file): eggline batch ${r.wallS.toFixed(1)} s wall, ${r.cpuS.toFixed(1)} s CPU, status ${status}; ÷ aim ${(r.wallS / 10).toFixed(2)} (< 10 s: ${r.wallS < 10 ? 'met' : 'NOT met'})`);
   }
   if (!keep) rmSync(dir, { recursive: true, force: true });
 }

@@ -55,6 +55,8 @@ export function App() {
   // Until the shown file's stack arrives, show nothing rather than its edits over the previous image.
   const stack = load.stack !== null && load.stack.path === entry?.path ? load.stack : null;
   const { loading, error: loadError } = load;
+  // The first picture while the stack loads: one raw slice, replaced by the projection when the stack arrives.
+  const preview = stack === null && load.preview !== null && load.preview.path === entry?.path ? load.preview.plane : null;
   const [saveStatus, saveNow] = useAutosave(api, session.projectPath, session.folder, state.doc, state.revision, session.batchOutDir);
   flushSave.current = () => (saveStatus.kind === 'pending' ? saveNow() : Promise.resolve());
   const { batch, results, chooseOutput, run, cancel, restore } = useBatch(api);
@@ -103,6 +105,14 @@ export function App() {
     setFitRequest((n) => n + 1);
   }, [stack]);
 
+  // The preview gets a display range of its own and is fitted to the window like a loaded stack.
+  useEffect(() => {
+    if (preview === null) return;
+    const [low, high] = autoDisplayRange(preview);
+    dispatch({ type: 'initChannelDisplay', channels: [{ colour: CHANNEL_COLOURS[0], low, high }] });
+    setFitRequest((n) => n + 1);
+  }, [preview]);
+
   useEffect(() => {
     if (api === null || stack === null || zSlice === null) { setSlicePlanes(null); return; }
     let live = true;
@@ -117,8 +127,8 @@ export function App() {
 
   const edits = currentEdits(state);
   const { settings, axis, fitRangeEl, measurement, bandOutlines, pixelSizeUm, halfWidthPx } = useLiveMeasurement(stack, state);
-  const planes = slicePlanes ?? stack?.projected.channels ?? [];
-  const names = stack?.projected.channelNames ?? [];
+  const planes = slicePlanes ?? stack?.projected.channels ?? (preview === null ? [] : [preview]);
+  const names = stack?.projected.channelNames ?? (preview === null ? [] : ['C1']);
   const exports = useExports(api, { state, stack, measurement, bandOutlines, axis, entryName: state.current, setMessage, planes });
 
   const step = (d: number) => {
@@ -200,7 +210,7 @@ export function App() {
         </aside>
       </div>
       <footer className="statusbar">
-        <span>{entry?.name ?? 'no file'}{axis ? ` · axis ${axis.source}` : ''}{edits.fitRangeEl ? ' · own fit range' : ''}</span>
+        <span>{entry?.name ?? 'no file'}{axis ? ` · axis ${axis.source}` : ''}{preview === null ? '' : ` · slice ${preview.z + 1} of ${preview.sizeZ}, first channel: projecting…`}{edits.fitRangeEl ? ' · own fit range' : ''}</span>
         <span className="readout-slot" ref={setReadoutTarget} />
         <span className="muted keys-hint">drag A/P · S swap · L landmark · Del delete · Space+drag pan · wheel/± zoom · F fit · Ctrl+Z undo · F1 help</span>
       </footer>

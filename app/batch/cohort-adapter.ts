@@ -1,6 +1,8 @@
 // Adapter to the cohort step (per-condition statistics after a batch), owned by the cohort area.
 import type { EmbryoResult } from '../../core/model';
 import { runCohortStep, type CohortStepResult } from '../cohort/run-cohort';
+import { timelapseReportSection } from './timelapse-page';
+import { movieFigures, type MovieFailure, type MovieOutcome } from './timelapse-pass';
 
 /** What the cohort step receives. */
 export interface CohortStepOptions {
@@ -10,6 +12,9 @@ export interface CohortStepOptions {
   readonly reference: string | null;
   readonly outDir: string;
   readonly runRecord: unknown;
+  /** The batch's movies and failed movies: the report gets a time-lapse section with their figures. */
+  readonly movies?: readonly MovieOutcome[];
+  readonly movieFailures?: readonly MovieFailure[];
 }
 
 /** The step's outputs and analysis, or `error` (one line) with no analysis when it failed. */
@@ -20,7 +25,9 @@ export type CohortOutcome =
 /** Run the cohort step once; never rejects. */
 export async function runCohort(opts: CohortStepOptions): Promise<CohortOutcome> {
   try {
-    return { ...(await runCohortStep(opts)), error: null };
+    const movies = (opts.movies ?? []).map((movie) => ({ movie, figures: movieFigures(movie) }));
+    const timelapseHtml = timelapseReportSection(movies, opts.movieFailures ?? []);
+    return { ...(await runCohortStep({ ...opts, timelapseHtml })), error: null };
   } catch (e) {
     return { written: [], warnings: [], analysis: null, figures: null, error: (e instanceof Error ? e.message : String(e)).split(/\r?\n/)[0] };
   }

@@ -3,11 +3,12 @@
 import { randomUUID } from 'node:crypto';
 import { promises as fs } from 'node:fs';
 import { join } from 'node:path';
-import { resultsFromJson, type RunRecord } from '../../core/batch';
-import type { EmbryoResult } from '../../core/model';
+import { embryoResults, resultsDocFromJson, type ResultsDoc, type RunRecord } from '../../core/batch';
+import type { EmbryoResult, MovieRecord } from '../../core/model';
 import { checkParts, isUnfinished, mergeRunRecords, orderLikeOneRun, type PartEntry } from '../../core/shard';
 import { runCohort } from './cohort-adapter';
 import { filesOfMissingParts } from './shard';
+import { movieOutcomes, writeTimelapseOutputs, type MovieFailure, type MovieOutcome } from './timelapse-pass';
 import { writeBatchOutputs } from './write-outputs';
 
 /** A reason to merge nothing (exit code 2), one line. */
@@ -36,6 +37,8 @@ export interface MergePartsResult {
   readonly failed: number;
   /** Files with no row (missing or unfinished parts); null when they cannot be known. */
   readonly missingFiles: readonly string[] | null;
+  /** The movies of the parts, summarised, and those that could not be analysed. */
+  readonly timelapse: { readonly movies: readonly MovieOutcome[]; readonly failures: readonly MovieFailure[] };
 }
 
 async function readPartRecord(dir: string): Promise<{ record: RunRecord | null; problem: string | null }> {
@@ -74,8 +77,8 @@ async function findParts(outDir: string): Promise<PartEntry[]> {
   return out;
 }
 
-/** Read one part's results and check them against its run.json. */
-async function readPartResults(outDir: string, entry: PartEntry): Promise<EmbryoResult[]> {
+/** Read one part's results (and movies) and check them against its run.json. */
+async function readPartResults(outDir: string, entry: PartEntry): Promise<ResultsDoc> {
   const path = join(outDir, 'parts', entry.folder, 'results.json');
   const where = `parts/${entry.folder}/results.json`;
   let text: string;
@@ -84,17 +87,17 @@ async function readPartResults(outDir: string, entry: PartEntry): Promise<Embryo
   } catch (e) {
     throw new MergeRefusal(`${where}: cannot read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
   }
-  let results: EmbryoResult[];
+  let doc: ResultsDoc;
   try {
-    results = resultsFromJson(text);
+    doc = resultsDocFromJson(text);
   } catch (e) {
     throw new MergeRefusal(`${where}: ${(e as Error).message.replace(/^results\.json: /, '')}`);
   }
   const record = entry.record as RunRecord;
   const done = new Set(record.inputs.filter((i) => i.status !== 'not-run').map((i) => i.file));
-  const stray = results.find((r) => !done.has(r.file));
+  const stray = [...doc.results, ...doc.movies].find((r) => !done.has(r.file));
   if (stray) throw new MergeRefusal(`${where} holds ${stray.file}, which parts/${entry.folder}/run.json does not list as analysed`);
-  return results;
+  return doc;
 }
 
 /** Merge the parts under `<outDir>/parts` into `<outDir>`; rejects with MergeRefusal (one line) when it must not. */
@@ -105,9 +108,11 @@ export async function mergeParts(opts: MergePartsOptions): Promise<MergePartsRes
   const { plan } = checked;
   const records = plan.present.map((e) => e.record as RunRecord);
   const all: EmbryoResult[] = [];
+  const movieRecords: MovieRecord[] = [];
   const owner = new Map<string, string>();
   for (const entry of plan.present) {
-    const results = await readPartResults(opts.outDir, entry);
+    const { results, movies } = await readPartResults(opts.outDir, entry);
+    movieRecords.push(...movies);
     for (const r of results) {
       const before = owner.get(r.file);
       if (before !== undefined && before !== entry.folder) throw new MergeRefusal(`${r.file} has rows in both parts/${before} and parts/${entry.folder}`);
@@ -135,16 +140,21 @@ export async function mergeParts(opts: MergePartsOptions): Promise<MergePartsRes
       missingFiles, inputListSha256: shard.inputListSha256,
     },
   });
-  const written = await writeBatchOutputs(opts.outDir, results, record);
+  const movies = orderLikeOneRun(movieRecords);
+  const written = await writeBatchOutputs(opts.outDir, results, record, movies);
+  // The movies' summaries are made again from their records and results: the same as on one machine.
+  const timelapse = movieOutcomes(movies, results);
+  if (movies.length > 0) written.push(...await writeTimelapseOutputs(opts.outDir, timelapse.movies, timelapse.failures));
   let cohortError: string | null = null;
   if (opts.cohort) {
     const failures = results.filter((r) => r.status === 'error').map((r) => ({ file: r.file, error: r.error ?? 'error' }));
     const step = await runCohort({
-      results, failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, outDir: opts.outDir, runRecord: record,
+      results: embryoResults(results), failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, outDir: opts.outDir, runRecord: record,
+      movies: timelapse.movies, movieFailures: timelapse.failures,
     });
     written.push(...step.written);
     warnings.push(...step.warnings);
     cohortError = step.error;
   }
-  return { record, written, warnings, cohortError, parts: plan.parts, ok: record.ok, failed: record.failed, missingFiles };
+  return { record, written, warnings, cohortError, parts: plan.parts, ok: record.ok, failed: record.failed, missingFiles, timelapse };
 }

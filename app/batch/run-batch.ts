@@ -1,15 +1,16 @@
-// The batch engine: analyse every stack of a folder on a pool of worker threads, then write the tables and the run
-// record. Used by the command line and by the desktop app's main process (cancel with an AbortSignal).
+// The batch engine: analyse every stack of a folder on a pool of worker threads, then (when asked) every movie per
+// time point, then write the tables and the run record. Used by the command line and by the desktop app's main
+// process (cancel with an AbortSignal).
 import { randomUUID } from 'node:crypto';
 import { existsSync, promises as fs } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { basename, dirname, join, resolve } from 'node:path';
 import {
-  BatchOptionError, editsForFile, JOURNAL_FILE_NAME, normalizeResult, runRecordToJson, toHandEdits,
+  BatchOptionError, editsForFile, embryoResults, JOURNAL_FILE_NAME, normalizeResult, runRecordToJson, toHandEdits,
   type ParsedJournal, type RunEndReason, type RunInput, type RunRecord,
 } from '../../core/batch';
 import type { BatchProgress, BatchSummary, ProjectDoc } from '../../core/contract';
-import { errorResult, type EmbryoResult } from '../../core/model';
+import { errorResult, type EmbryoResult, type MovieRecord } from '../../core/model';
 import type { CohortAnalysis } from '../../core/cohort';
 import type { NamedFigure } from '../../core/figures';
 import { settingsInForce, type AnalysisSettings } from '../../core/settings';
@@ -21,6 +22,10 @@ import { openJournal, readJournal, settingsKey } from './journal-file';
 import { isInside, listStackFiles } from './list-stacks';
 import { partDir, selectPart } from './shard';
 import type { BatchTask, InputDigest } from './task';
+import {
+  analyseMovies, movieOutcomes, TIMELAPSE_FILES, withMovieResults, writeTimelapseOutputs,
+  type MovieFailure, type MovieOutcome, type TimelapseOptions,
+} from './timelapse-pass';
 import { softwareVersions } from './versions';
 import { runPool } from './worker-pool';
 import { OUTPUT_FILES, writeBatchOutputs } from './write-outputs';
@@ -58,6 +63,10 @@ export interface RunBatchOptions {
   readonly cohort?: { readonly sampleSheetPath: string; readonly reference: string | null } | null;
   /** Analyse only this part of the sorted, size-balanced file list, writing to `<outDir>/parts/K-of-N`. */
   readonly shard?: ShardSpec | null;
+  /** Analyse every file with more than one time point per time point after the main pass (absent or null: not). */
+  readonly timelapse?: TimelapseOptions | null;
+  /** Called when the time pass has analysed a movie (its file, and how many so far). */
+  readonly onMovie?: (file: string, done: number) => void;
 }
 
 /** A batch summary plus the files written and warnings (folder listing, cohort step). */
@@ -74,6 +83,8 @@ export interface BatchRunResult extends BatchSummary {
   readonly reason: RunEndReason | null;
   /** Results taken over from the journal (--resume). */
   readonly reused: number;
+  /** The movies of the time pass, summarised, and those it could not analyse (empty when it did not run). */
+  readonly timelapse: { readonly movies: readonly MovieOutcome[]; readonly failures: readonly MovieFailure[] };
 }
 
 /** batch-worker.mjs beside the running CommonJS bundle (dist/main.cjs), else dist/ under the working folder.
@@ -161,7 +172,7 @@ async function reusable(
 /** Delete the tables of an earlier run in `outDir` (a new run without --resume replaces them; until it ends,
  *  run.json says the folder holds no finished run). */
 async function removeOldTables(outDir: string): Promise<void> {
-  for (const name of OUTPUT_FILES) if (name !== 'run.json') await fs.rm(join(outDir, name), { force: true });
+  for (const name of [...OUTPUT_FILES, ...TIMELAPSE_FILES]) if (name !== 'run.json') await fs.rm(join(outDir, name), { force: true });
 }
 
 /** The one-line meaning of a run record's end state. */
@@ -268,14 +279,21 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
     cancelled: !complete, complete, reason, note: endNote(reason, finished.length, tasks.length), reused: kept.size,
     ok, failed: finished.length - ok, inputs, warnings: [...warnings],
   });
-  const written = await writeBatchOutputs(outDir, finished, final).catch(failed);
+  // The time pass: movies per time point; their results replace the main pass's one result of each movie.
+  const runs = complete && opts.timelapse ? await analyseMovies(folder, tasks.map((t) => t.file), opts.settings, opts.doc, opts.timelapse, opts.onMovie) : [];
+  const keyed = withMovieResults(finished, runs);
+  const movies: MovieRecord[] = runs.map((r) => r.record);
+  const written = await writeBatchOutputs(outDir, keyed, final, movies).catch(failed);
   written.push(journal.path);
+  const timelapse = movieOutcomes(movies, keyed);
+  if (movies.length > 0) written.push(...await writeTimelapseOutputs(outDir, timelapse.movies, timelapse.failures).catch(failed));
   let cohortError: string | null = null;
   let cohortStep: BatchRunResult['cohortStep'] = null;
   if (opts.cohort && complete) {
     const failures = finished.filter((r) => r.status === 'error').map((r) => ({ file: r.file, error: r.error ?? 'error' }));
     const step = await runCohort({
-      results: finished, failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, outDir, runRecord: final,
+      results: embryoResults(keyed), failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, outDir, runRecord: final,
+      movies: timelapse.movies, movieFailures: timelapse.failures,
     });
     written.push(...step.written);
     warnings.push(...step.warnings);
@@ -285,6 +303,6 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   progress({ done, file: null, status: complete ? 'finished' : 'cancelled', message: null });
   return {
     runId, outDir, ok, failed: finished.length - ok, cancelled: !complete, complete, reason, reused: kept.size,
-    results: finished, written, warnings, cohortError, cohortStep, record: final,
+    results: keyed, movies, written, warnings, cohortError, cohortStep, record: final, timelapse,
   };
 }

@@ -17,8 +17,8 @@ function cell(e: Estimate, scale = 1): string {
   return `<td>${sigFig(e.value * scale, 3)}${ci}</td>`;
 }
 
-/** One movie's section. */
-function movieSection(m: MovieOutcome, figures: readonly { title: string; svg: string }[]): string {
+/** One movie's section, its heading at level `h` (2 on the page, 3 inside the report's section). */
+function movieSection(m: MovieOutcome, figures: readonly { title: string; svg: string }[], h = 2): string {
   const s = m.summary;
   const fit = s.model;
   const table = fit ? `<table><tr><th class="t">quantity</th><th>value (95% interval)</th></tr>
@@ -30,12 +30,11 @@ function movieSection(m: MovieOutcome, figures: readonly { title: string; svg: s
 <p>${esc(fit.reading)}</p>` : '';
   const notes = [s.note, ...s.warnings].filter((w): w is string => w !== null).map((w) => `<p class="warn">${esc(w)}</p>`).join('');
   const span = m.timesS ? `${m.timeIndices.length} time points over ${sigFig(m.timesS[m.timesS.length - 1] - m.timesS[0], 3)} s` : `${m.timeIndices.length} time points (times unknown)`;
-  return `<h2>${esc(m.file)}</h2><p class="note">${esc(span)}; model fit over x/EL ${fit ? `${fit.rangeEl[0]}–${fit.rangeEl[1]}` : '—'}</p>${table}${notes}`
+  return `<h${h}>${esc(m.file)}</h${h}><p class="note">${esc(span)}; model fit over x/EL ${fit ? `${fit.rangeEl[0]}–${fit.rangeEl[1]}` : '—'}</p>${table}${notes}`
     + figures.map((f) => `<figure>${f.svg}<figcaption class="note">${esc(f.title)}</figcaption></figure>`).join('');
 }
 
-const METHOD = `<h2>Method and caveats</h2>
-<p>Each time point is analysed as a single stack (projection over Z, segmentation, profile, background of its own), along one
+const METHOD_TEXT = `<p>Each time point is analysed as a single stack (projection over Z, segmentation, profile, background of its own), along one
 axis for the movie found on the mean over up to eight time points (or per time point, or the hand-set axis). λ(t) is the
 exponential fit at each time point. The local accumulation time is τ(x) = ∫(1 − C(x,t)/C(x,∞)) dt, estimated on 0.025 EL
 bins with the first frame(s) as the zero before production starts and the mean of the last three frames as C(x,∞); its
@@ -43,14 +42,34 @@ interval propagates frame-to-frame noise (estimated from the second half of the 
 ends before steady state or starts after production has begun. For a source at the anterior pole with diffusion and
 uniform degradation, τ(x) = (1 + x/λ)/(2k); the line τ₀(1 + x/λ_τ) fitted over the chosen range gives k = 1/(2τ₀), and λ_τ
 is compared with the steady-state λ. Agreement is consistent with that model but does not prove it.</p>`;
+const METHOD = `<h2>Method and caveats</h2>\n${METHOD_TEXT}`;
+
+/** The failed movies as a table (empty text when none), its heading at level h. */
+function failedTable(failures: readonly { file: string; error: string }[], h: number): string {
+  return failures.length > 0 ? `<h${h}>Movies not analysed</h${h}><table><tr><th class="t">file</th><th class="t">reason</th></tr>${
+    failures.map((f) => `<tr><td class="t">${esc(f.file)}</td><td class="t">${esc(f.error)}</td></tr>`).join('')}</table>` : '';
+}
+
+/**
+ * The time-lapse section of the cohort report (report.html): each movie's model-fit table and its plain reading,
+ * warnings, λ(t) with intervals, the kymograph and τ(x) with the model line — the figures of timelapse.html — then the
+ * movies not analysed and the method. Empty text when the batch had no movie.
+ */
+export function timelapseReportSection(
+  movies: readonly { movie: MovieOutcome; figures: readonly { title: string; svg: string }[] }[], failures: readonly { file: string; error: string }[],
+): string {
+  if (movies.length === 0 && failures.length === 0) return '';
+  return `<h2 id="timelapse">Gradients over time</h2><p class="note">Movies analysed per time point (tables: timecourse.csv, accumulation.csv, model_fit.csv; `
+    + `the same figures in timelapse.html). In the condition statistics above, a movie counts once, with its last analysed time point.</p>`
+    + movies.map(({ movie, figures }) => movieSection(movie, figures, 3)).join('\n') + failedTable(failures, 3) + `<h3>Method and caveats</h3>${METHOD_TEXT}`;
+}
 
 /** The whole page. */
 export function timelapsePage(
   movies: readonly { movie: MovieOutcome; figures: readonly { title: string; svg: string }[] }[],
   failures: readonly { file: string; error: string }[], generatedAt: string,
 ): string {
-  const failed = failures.length > 0 ? `<h2>Movies not analysed</h2><table><tr><th class="t">file</th><th class="t">reason</th></tr>${
-    failures.map((f) => `<tr><td class="t">${esc(f.file)}</td><td class="t">${esc(f.error)}</td></tr>`).join('')}</table>` : '';
+  const failed = failedTable(failures, 2);
   return `<!DOCTYPE html><html lang="en"><head><meta charset="utf-8"><title>Eggline time-lapse analysis</title><style>${CSS}</style></head><body>
 <h1>Gradients over time</h1><p class="note">Generated ${esc(generatedAt)} by Eggline. Research software: check the kymograph and the fits before relying on a number.</p>
 ${movies.map(({ movie, figures }) => movieSection(movie, figures)).join('\n')}${failed}${METHOD}</body></html>\n`;

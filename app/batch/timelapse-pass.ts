@@ -1,12 +1,16 @@
 // The time analysis of a batch: every file with more than one time point is analysed per time point (axis once per
-// movie, or per time point), summarised (λ(t), τ(x), the model fit) and written as tables, SVG figures and a page.
+// movie, or per time point), its results keyed by (file, time point) join the batch's, and each movie is summarised
+// (λ(t), τ(x), the model fit) and written as tables, SVG figures and a page. The summary is made from the records and
+// results alone, so a merge of parts makes the same one.
 import { promises as fs } from 'node:fs';
 import { join } from 'node:path';
-import { editsForFile, embryoMeasureRow, EMBRYO_MEASURE_COLUMNS, summaryBoundary } from '../../core/batch';
+import { editsForFile, embryoMeasureRow, EMBRYO_MEASURE_COLUMNS, normalizeResult, summaryBoundary } from '../../core/batch';
 import { toCsv, type CsvValue } from '../../core/csv';
 import type { ProjectDoc } from '../../core/contract';
 import { accumulationFigure, figureSlug, kymographFigure, lambdaOverTimeFigure, type AccumulationFigureInput, type KymographInput, type LambdaPoint } from '../../core/figures';
-import type { EmbryoResult, HandEdits, PlaneSource, ProjectedStack, StackInfo } from '../../core/model';
+import {
+  resultKey, resultKeyOf, withTimePoint, type EmbryoResult, type HandEdits, type MovieRecord, type PlaneSource, type ProjectedStack, type StackInfo,
+} from '../../core/model';
 import { analyseMovie } from '../../core/pipeline';
 import { settingsInForce, type AnalysisSettings } from '../../core/settings';
 import { pagesAsTimePoints, resolveTimeAxis } from '../../core/tiff';
@@ -45,11 +49,17 @@ export interface MovieOutcome {
   readonly summary: MovieSummary;
 }
 
+/** A movie the time pass could not analyse, with a one-line reason naming the file. */
+export interface MovieFailure {
+  readonly file: string;
+  readonly error: string;
+}
+
 /** Files of the time pass: tables, figures and the page. */
 export const TIMELAPSE_FILES = ['timecourse.csv', 'timecourse_profiles.csv', 'timecourse_boundaries.csv', 'accumulation.csv', 'model_fit.csv', 'timelapse.html'] as const;
 
-/** The hand edits and fit range in force for one file at time point t: the file's (they apply to every time point),
- *  with that time point's own edits over them. */
+/** The hand edits and settings in force for one file at time point t (null: the file's own): the file's (they apply
+ *  to every time point), with that time point's own edits over them. */
 function editsAt(doc: ProjectDoc | null, file: string, settings: AnalysisSettings, t: number | null): { handEdits: HandEdits | null; settings: AnalysisSettings } {
   const e = editsForFile(doc, file, undefined, t);
   return { handEdits: e ? { axis: e.axis, landmarks: e.landmarks } : null, settings: settingsInForce(settings, e) };
@@ -60,6 +70,20 @@ function asMovie(info: StackInfo, timeStepS: number | null): StackInfo {
   return timeStepS !== null && info.sizeT === 1 && !info.isOme ? pagesAsTimePoints(info) : info;
 }
 
+/** One movie as analysed: its record (what results.json keeps) and its results per time point, in time order. */
+export interface MovieRun {
+  readonly record: MovieRecord;
+  readonly results: readonly EmbryoResult[];
+}
+
+/** A record of a movie that failed (no time points). */
+function failedRecord(file: string, error: string, settings: AnalysisSettings, options: TimelapseOptions): MovieRecord {
+  return {
+    file, timeIndices: [], timesS: null, timeSource: null, fitRangeEl: settings.fitRangeEl, modelRangeEl: options.tauRangeEl,
+    baselineFrames: options.baselineFrames, warnings: [], error,
+  };
+}
+
 /** What the window follows while a movie is analysed: progress, each time point's projection, cancelling. */
 export interface MovieHooks {
   readonly onTimePoint?: (done: number, total: number) => void;
@@ -67,42 +91,47 @@ export interface MovieHooks {
   readonly signal?: { readonly aborted: boolean } | null;
 }
 
-/** An opened movie analysed over time (the batch and the window share this); null when it has one time point. */
+/**
+ * An opened movie analysed over time (the batch and the window share this); null when it has one time point. Every
+ * result is keyed by its time point and time and normalised as the journal stores results, so tables made from it
+ * equal those made from results.json read back.
+ */
 async function analyseOpenedMovie(
   opened: { info: StackInfo; source: PlaneSource }, file: string, settings: AnalysisSettings, doc: ProjectDoc | null,
   options: TimelapseOptions, hooks: MovieHooks,
-): Promise<MovieOutcome | { file: string; error: string } | null> {
+): Promise<MovieRun | null> {
   const info = asMovie(opened.info, options.timeStepS);
   if (info.sizeT <= 1) return null;
   const picked = selectTimeIndices(options.selection, info.sizeT);
-  if (typeof picked === 'string') return { file, error: `${file}: ${picked}` };
+  if (typeof picked === 'string') return { record: failedRecord(file, `${file}: ${picked}`, settings, options), results: [] };
   const warnings: string[] = [];
   const axis = resolveTimeAxis(info, options.timeStepS, warnings);
   const own = editsAt(doc, file, settings, null);
-  const fileSettings = own.settings;
-  const m = await analyseMovie(info, opened.source, fileSettings, {
+  const m = await analyseMovie(info, opened.source, own.settings, {
     fileLabel: file, handEdits: own.handEdits, editsAt: (t) => editsAt(doc, file, settings, t),
     timeIndices: picked, axisPerTime: options.axisPerTime, ...hooks,
   });
   const timesS = axis.timesS ? Float64Array.from(picked, (t) => axis.timesS![t]) : null;
-  const summary = summarizeMovie(file, picked, timesS, m.results, {
-    fitRangeEl: fileSettings.fitRangeEl, modelRangeEl: options.tauRangeEl, baselineFrames: options.baselineFrames,
-  });
-  return { file, timeIndices: picked, timesS, timeSource: axis.source, results: m.results, summary: { ...summary, warnings: [...warnings, ...summary.warnings] } };
+  const results = m.results.map((r, k) => normalizeResult(withTimePoint(r, picked[k], timesS ? timesS[k] : null)));
+  const record: MovieRecord = {
+    file, timeIndices: picked, timesS, timeSource: axis.timesS ? axis.source : null, fitRangeEl: own.settings.fitRangeEl, modelRangeEl: options.tauRangeEl,
+    baselineFrames: options.baselineFrames, warnings, error: null,
+  };
+  return { record, results };
 }
 
-/** Analyse one file as a movie; null when it has a single time point. Never rejects. */
+/** Analyse one file as a movie; null when it has a single time point (or does not open: the main pass reports that).
+ *  Never rejects. */
 export async function analyseMovieFile(
   folder: string, file: string, settings: AnalysisSettings, doc: ProjectDoc | null, options: TimelapseOptions,
-): Promise<MovieOutcome | { file: string; error: string } | null> {
+): Promise<MovieRun | null> {
   let opened: Awaited<ReturnType<typeof openStack>> | null = null;
   try {
-    // A file that does not open is the main pass's failure, already reported there.
     opened = await openStack(join(folder, file), file).catch(() => null);
     if (!opened) return null;
     return await analyseOpenedMovie(opened, file, settings, doc, options, {});
   } catch (e) {
-    return { file, error: fileMessage(file, e) };
+    return { record: failedRecord(file, fileMessage(file, e), settings, options), results: [] };
   } finally {
     await opened?.source.close().catch(() => undefined);
   }
@@ -119,11 +148,60 @@ export async function analyseMovieAtPath(
   try {
     const r = await analyseOpenedMovie(opened, file, settings, doc, options, hooks);
     if (r === null) throw new Error(`${file}: has one time point; the time-lapse view needs a movie`);
-    if ('error' in r) throw new Error(r.error);
-    return r;
+    if (r.record.error !== null) throw new Error(r.record.error);
+    return movieOutcomes([r.record], r.results).movies[0];
   } finally {
     await opened.source.close().catch(() => undefined);
   }
+}
+
+/** The time pass over a batch's files, one after another: every file with more than one time point analysed as a
+ *  movie. Stops before the next movie when `signal` aborts. Never rejects for bad files. */
+export async function analyseMovies(
+  folder: string, files: readonly string[], settings: AnalysisSettings, doc: ProjectDoc | null, options: TimelapseOptions,
+  onMovie?: (file: string, done: number) => void, signal?: AbortSignal,
+): Promise<MovieRun[]> {
+  const runs: MovieRun[] = [];
+  for (const file of files) {
+    if (signal?.aborted) break;
+    const run = await analyseMovieFile(folder, file, settings, doc, options);
+    if (run === null) continue;
+    runs.push(run);
+    onMovie?.(file, runs.length);
+  }
+  return runs;
+}
+
+/**
+ * The batch's results with each movie's time points in place of its main-pass result: results keyed by (file, time
+ * point), files in the main pass's order, a movie's time points in time order. A movie that failed keeps its
+ * main-pass result.
+ */
+export function withMovieResults(main: readonly EmbryoResult[], runs: readonly MovieRun[]): EmbryoResult[] {
+  const byFile = new Map(runs.filter((r) => r.record.error === null && r.results.length > 0).map((r) => [r.record.file, r.results]));
+  return main.flatMap((r) => byFile.get(r.file) ?? [r]);
+}
+
+/**
+ * Each movie's summary (λ(t), τ(x), the model fit) made from its record and its results as keyed in `results` — the
+ * same on one machine and after a merge of parts, since both start from the same records and results. A movie whose
+ * results are missing becomes a failure.
+ */
+export function movieOutcomes(records: readonly MovieRecord[], results: readonly EmbryoResult[]): { movies: MovieOutcome[]; failures: MovieFailure[] } {
+  const byKey = new Map(results.map((r) => [resultKeyOf(r), r]));
+  const movies: MovieOutcome[] = [];
+  const failures: MovieFailure[] = [];
+  for (const rec of records) {
+    if (rec.error !== null) { failures.push({ file: rec.file, error: rec.error }); continue; }
+    const own = rec.timeIndices.map((t) => byKey.get(resultKey(rec.file, t)));
+    if (own.some((r) => r === undefined)) { failures.push({ file: rec.file, error: `${rec.file}: results of some time points are missing` }); continue; }
+    const list = own as EmbryoResult[];
+    const summary = summarizeMovie(rec.file, rec.timeIndices, rec.timesS, list, {
+      fitRangeEl: rec.fitRangeEl, modelRangeEl: rec.modelRangeEl, baselineFrames: rec.baselineFrames,
+    });
+    movies.push({ file: rec.file, timeIndices: rec.timeIndices, timesS: rec.timesS, timeSource: rec.timeSource ?? null, results: list, summary: { ...summary, warnings: [...rec.warnings, ...summary.warnings] } });
+  }
+  return { movies, failures };
 }
 
 /** t_s of the k-th analysed time point (empty when the times are unknown). */
@@ -205,7 +283,7 @@ export function movieTables(movies: readonly MovieOutcome[]): { timecourse: stri
 }
 
 /** Writes the tables, figures (timelapse/*.svg) and timelapse.html for the analysed movies; returns the paths. */
-export async function writeTimelapseOutputs(outDir: string, movies: readonly MovieOutcome[], failures: readonly { file: string; error: string }[]): Promise<string[]> {
+export async function writeTimelapseOutputs(outDir: string, movies: readonly MovieOutcome[], failures: readonly MovieFailure[]): Promise<string[]> {
   const figureDir = join(outDir, 'timelapse');
   await fs.mkdir(figureDir, { recursive: true });
   const written: string[] = [];
@@ -223,21 +301,15 @@ export async function writeTimelapseOutputs(outDir: string, movies: readonly Mov
 }
 
 /**
- * The time pass over a batch's files: analyse those with more than one time point as movies, one after another,
- * and write their outputs. Bad files give a one-line failure and the pass goes on. Returns null when no file is a movie.
+ * The time pass alone over some files (outside a batch): analyse those with more than one time point as movies and
+ * write their time-lapse tables, figures and page. Returns null when no file is a movie.
  */
 export async function runTimelapsePass(
   folder: string, outDir: string, files: readonly string[], settings: AnalysisSettings, doc: ProjectDoc | null,
   options: TimelapseOptions, onMovie?: (file: string, done: number) => void,
-): Promise<{ movies: MovieOutcome[]; failures: { file: string; error: string }[]; written: string[] } | null> {
-  const movies: MovieOutcome[] = [];
-  const failures: { file: string; error: string }[] = [];
-  for (const file of files) {
-    const r = await analyseMovieFile(folder, file, settings, doc, options);
-    if (r === null) continue;
-    if ('error' in r) failures.push(r); else movies.push(r);
-    onMovie?.(file, movies.length + failures.length);
-  }
-  if (movies.length === 0 && failures.length === 0) return null;
+): Promise<{ movies: MovieOutcome[]; failures: MovieFailure[]; written: string[] } | null> {
+  const runs = await analyseMovies(folder, files, settings, doc, options, onMovie);
+  if (runs.length === 0) return null;
+  const { movies, failures } = movieOutcomes(runs.map((r) => r.record), runs.flatMap((r) => r.results));
   return { movies, failures, written: await writeTimelapseOutputs(outDir, movies, failures) };
 }

@@ -4,21 +4,22 @@ import { join } from 'node:path';
 import {
   boundariesCsv, embryosCsv, landmarksCsv, profilesCsv, resultsToJson, runRecordToJson, type RunRecord,
 } from '../../core/batch';
-import type { EmbryoResult } from '../../core/model';
+import type { EmbryoResult, MovieRecord } from '../../core/model';
 import { writeFileAtomic } from '../project';
 
 /** Names of the files every batch writes. */
 export const OUTPUT_FILES = ['embryos.csv', 'boundaries.csv', 'profiles.csv', 'landmarks.csv', 'results.json', 'run.json'] as const;
 
-/** Write all outputs; returns the paths written. */
-export async function writeBatchOutputs(outDir: string, results: readonly EmbryoResult[], record: RunRecord): Promise<string[]> {
+/** Write all outputs (results keyed by (file, time point); the movies analysed per time point into results.json);
+ *  returns the paths written. */
+export async function writeBatchOutputs(outDir: string, results: readonly EmbryoResult[], record: RunRecord, movies: readonly MovieRecord[] = []): Promise<string[]> {
   await fs.mkdir(outDir, { recursive: true });
   const contents: Record<(typeof OUTPUT_FILES)[number], string> = {
     'embryos.csv': embryosCsv(results),
     'boundaries.csv': boundariesCsv(results),
     'profiles.csv': profilesCsv(results),
     'landmarks.csv': landmarksCsv(results),
-    'results.json': resultsToJson(results),
+    'results.json': resultsToJson(results, movies),
     'run.json': runRecordToJson(record),
   };
   const written: string[] = [];

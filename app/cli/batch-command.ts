@@ -17,7 +17,7 @@ import { joinNegativeValues, parseCommandArgs } from './parse-command-args';
 import { progressPrinter } from './progress';
 import { DEFAULT_CPUS_PER_TASK, joinSlurmOptions, partArguments, submitCommands, writeSlurmScripts } from './slurm-scripts';
 import { UsageError, type CliIo } from './usage-error';
-import { parseTimelapseFlags, runTimelapseStep } from './timelapse-step';
+import { parseTimelapseFlags, reportTimelapse } from './timelapse-step';
 import type { TimelapseOptions } from '../batch/timelapse-pass';
 
 /** One flag per analysis setting, from the settings table (core/settings SETTINGS). */
@@ -243,7 +243,8 @@ export async function batchCommand(argv: readonly string[], io: CliIo, extra: Pa
       folder: plan.folder, outDir: plan.outDir, settings: plan.settings, doc: plan.doc, jobs: plan.jobs,
       onProgress: printer.onProgress, signal: abort.signal, timeoutPerFileS: plan.timeoutS, resume: plan.resume, maxMemoryBytes: plan.maxMemoryBytes,
       commandLine: ['eggline', 'batch', ...argv], projectFile: plan.projectFile, configFile: plan.configFile,
-      cohort: plan.samples ? { sampleSheetPath: plan.samples, reference: plan.reference } : null, shard: plan.shard, ...extra,
+      cohort: plan.samples ? { sampleSheetPath: plan.samples, reference: plan.reference } : null, shard: plan.shard,
+      timelapse: plan.timelapse, onMovie: (file, done) => io.stderr.write(`eggline: time analysis ${done}: ${file}\n`), ...extra,
     });
     printer.end();
     for (const w of summary.warnings) io.stderr.write(`eggline: warning: ${w}\n`);
@@ -257,7 +258,7 @@ export async function batchCommand(argv: readonly string[], io: CliIo, extra: Pa
       return 1;
     }
     reportEnd(io, summary, plan);
-    const movies = summary.complete && !plan.shard ? await runTimelapseStep(plan, summary.record.inputs.map((i) => i.file), io) : 0;
+    const movies = reportTimelapse(summary.timelapse, summary.outDir, io);
     return summary.failed > 0 || movies > 0 || !summary.complete || summary.cohortError ? 1 : 0;
   } catch (e) {
     if (e instanceof BatchOptionError) throw new UsageError(e.message, 'batch');

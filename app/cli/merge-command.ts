@@ -3,6 +3,7 @@ import { promises as fs } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { mergeParts, MergeRefusal } from '../batch/merge-parts';
 import { MERGE_HELP } from './help';
+import { reportTimelapse } from './timelapse-step';
 import { parseCommandArgs } from './parse-command-args';
 import { UsageError, type CliIo } from './usage-error';
 
@@ -34,9 +35,10 @@ export async function mergeCommand(argv: readonly string[], io: CliIo): Promise<
     io.stdout.write(`Merged ${merged.parts - merged.record.merge!.missingParts.length} of ${merged.parts} parts: ${total} file${total === 1 ? '' : 's'}, ${merged.ok} ok, ${merged.failed} failed.\n`);
     if (merged.record.cancelled) io.stdout.write(`Missing: ${missing} files of parts ${merged.record.merge!.missingParts.join(', ') || '(unfinished)'} (listed in run.json).\n`);
     io.stdout.write(`Tables written to ${outDir}\n`);
+    const moviesFailed = reportTimelapse(merged.timelapse, outDir, io);
     if (merged.cohortError) io.stderr.write(`eggline: the cohort step failed: ${merged.cohortError}\n`);
     else if (v.samples !== undefined) io.stdout.write(`Cohort report: ${join(outDir, 'report.html')}\n`);
-    return merged.failed > 0 || merged.record.cancelled || merged.cohortError ? 1 : 0;
+    return merged.failed > 0 || moviesFailed > 0 || merged.record.cancelled || merged.cohortError ? 1 : 0;
   } catch (e) {
     if (e instanceof MergeRefusal) {
       io.stderr.write(`eggline merge: ${e.message}\n`);

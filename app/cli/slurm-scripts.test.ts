@@ -142,6 +142,6 @@ describe('the scripts', () => {
   });
 
   it('print the submit commands, the merge depending on the whole array', () => {
-    expect(submitCommands('/scratch/my out')).toBe("jobid=$(sbatch --parsable '/scratch/my out/eggline-array.sbatch')\nsbatch --dependency=afterok:${jobid%%;*} '/scratch/my out/eggline-merge.sbatch'");
+    expect(submitCommands('/scratch/my out')).toBe("jobid=$(sbatch --parsable '/scratch/my out/eggline-array.sbatch')\nsbatch --dependency=afterok:${jobid%%;*} --kill-on-invalid-dep=yes '/scratch/my out/eggline-merge.sbatch'");
   });
 });

@@ -127,7 +127,7 @@ function header(plan: SlurmPlan, what: string): string[] {
     `#   results:      ${plan.outDir}/parts/K-of-${plan.parts}, merged into ${plan.outDir}`,
     '# Submit both, the merge only after every task succeeded:',
     `#   jobid=$(sbatch --parsable ${quote([array])})`,
-    `#   sbatch --dependency=afterok:\${jobid%%;*} ${quote([merge])}`,
+    `#   sbatch --dependency=afterok:\${jobid%%;*} --kill-on-invalid-dep=yes ${quote([merge])}`,
   ];
 }
 
@@ -214,11 +214,13 @@ export function mergeScript(plan: SlurmPlan): string {
   return lines.join('\n');
 }
 
-/** The two commands that submit the scripts, the merge depending on every task of the array. */
+/** The two commands that submit the scripts, the merge depending on every task of the array; when a task fails the
+ *  merge's dependency can never be met, and --kill-on-invalid-dep=yes cancels it rather than leaving it pending for ever
+ *  (sbatch's manual page: "--kill-on-invalid-dep=<yes|no>"). */
 export function submitCommands(outDir: string): string {
   return [
     `jobid=$(sbatch --parsable ${quote([join(outDir, 'eggline-array.sbatch')])})`,
-    `sbatch --dependency=afterok:\${jobid%%;*} ${quote([join(outDir, 'eggline-merge.sbatch')])}`,
+    `sbatch --dependency=afterok:\${jobid%%;*} --kill-on-invalid-dep=yes ${quote([join(outDir, 'eggline-merge.sbatch')])}`,
   ].join('\n');
 }
 

@@ -1,9 +1,8 @@
-// The batch command's time analysis: parse its flags, run it after the batch, say what it wrote.
+// The batch command's time analysis: parse its flags; say what the batch's time pass wrote.
 import { join } from 'node:path';
 import { parseFitRange } from '../../core/batch';
 import { parseTimeSelection } from '../../core/timelapse';
-import { DEFAULT_TIMELAPSE_OPTIONS, runTimelapsePass, type TimelapseOptions } from '../batch/timelapse-pass';
-import type { BatchPlan } from './batch-command';
+import { DEFAULT_TIMELAPSE_OPTIONS, type MovieFailure, type MovieOutcome, type TimelapseOptions } from '../batch/timelapse-pass';
 import { UsageError, type CliIo } from './usage-error';
 
 /** The time flags as given (strings, or undefined when absent). */
@@ -39,13 +38,14 @@ export function parseTimelapseFlags(f: TimelapseFlags): TimelapseOptions {
   return { selection, axisPerTime: f.axisPerTime === true, timeStepS, tauRangeEl, baselineFrames };
 }
 
-/** Run the time analysis over the batch's files; prints what it wrote. Returns the number of movies that failed. */
-export async function runTimelapseStep(plan: BatchPlan, files: readonly string[], io: CliIo): Promise<number> {
-  const pass = await runTimelapsePass(plan.folder, plan.outDir, files, plan.settings, plan.doc, plan.timelapse,
-    (file, done) => io.stderr.write(`eggline: time analysis ${done}: ${file}\n`));
-  if (pass === null) return 0;
+/** What the batch's time pass did, for the terminal: failures, warnings, and the tables it wrote. Returns the number
+ *  of movies that failed. */
+export function reportTimelapse(
+  pass: { readonly movies: readonly MovieOutcome[]; readonly failures: readonly MovieFailure[] }, outDir: string, io: CliIo,
+): number {
+  if (pass.movies.length === 0 && pass.failures.length === 0) return 0;
   for (const f of pass.failures) io.stderr.write(`eggline: ${f.error}\n`);
   for (const m of pass.movies) for (const w of m.summary.warnings) io.stderr.write(`eggline: warning: ${m.file}: ${w}\n`);
-  io.stdout.write(`Time analysis of ${pass.movies.length} movie${pass.movies.length === 1 ? '' : 's'}: timecourse.csv, accumulation.csv, model_fit.csv and ${join(plan.outDir, 'timelapse.html')}\n`);
+  io.stdout.write(`Time analysis of ${pass.movies.length} movie${pass.movies.length === 1 ? '' : 's'}: timecourse.csv, accumulation.csv, model_fit.csv and ${join(outDir, 'timelapse.html')}\n`);
   return pass.failures.length;
 }

@@ -1,5 +1,6 @@
 // The cohort report: ONE self-contained HTML file (inline CSS and SVG; no scripts, no network). Order: summary,
-// figures, dosage test (tables, reading, caveats), per-condition tables, failed files, run settings (mostly folded).
+// figures, dosage test (tables, reading, caveats), per-condition tables, gradients over time (when the batch had
+// movies), failed files, run settings (mostly folded).
 import { quantityLabel, slopeRatio, type CohortAnalysis, type ConditionStat } from '../../core/cohort';
 import { escapeXml, plainNumber, sigFig, valueWithCi, type NamedFigure } from '../../core/figures';
 import { flattenRecord } from './flatten-record';
@@ -17,6 +18,9 @@ export interface ReportInput {
   readonly generatedAt: string;
   /** Embryos analysed without error (before matching to the sample sheet). */
   readonly okCount?: number;
+  /** The time-lapse section (HTML made by the batch's time pass), placed after the per-condition tables; absent or
+   *  empty when the batch had no movie. */
+  readonly timelapseHtml?: string;
 }
 
 const esc = escapeXml;
@@ -149,5 +153,5 @@ export function cohortReportHtml(r: ReportInput): string {
     + `<title>Eggline cohort report</title><style>${CSS}</style></head><body><h1>Eggline cohort report</h1>`
     + `<p class="note">Generated ${esc(r.generatedAt)}. Positions are x/EL (0 = anterior pole, 1 = posterior pole).</p>`
     + summarySection(r) + `<h2 id="figures">Figures</h2>${figs}` + dosageSection(r.analysis) + conditionTables(r.analysis)
-    + failed + settingsSection(r.analysis, r.sheetSource, r.runRecord) + '</body></html>\n';
+    + (r.timelapseHtml ?? '') + failed + settingsSection(r.analysis, r.sheetSource, r.runRecord) + '</body></html>\n';
 }

@@ -27,6 +27,8 @@ export interface CohortStepOptions {
   /** Equivalence margin of the ratio observed/predicted (see CohortOptions). */
   readonly equivalenceMargin?: number | null;
   readonly filenameRule?: FilenameRule;
+  /** The time-lapse section of report.html (HTML; see app/batch timelapseReportSection); absent: none. */
+  readonly timelapseHtml?: string;
 }
 
 /** What the cohort step wrote and computed (the window shows the same analysis and figures). */
@@ -80,7 +82,7 @@ export async function runCohortStep(opts: CohortStepOptions): Promise<CohortStep
   warnings.push(...analysis.warnings);
   const figures = cohortFigures(analysis);
   const failures = allFailures(opts);
-  const html = cohortReportHtml({ analysis, figures, failures, runRecord: opts.runRecord, warnings, sheetSource: sheet.source, generatedAt: new Date().toISOString(), okCount: opts.results.filter((r) => r.status === 'ok').length });
+  const html = cohortReportHtml({ analysis, figures, failures, runRecord: opts.runRecord, warnings, sheetSource: sheet.source, generatedAt: new Date().toISOString(), okCount: opts.results.filter((r) => r.status === 'ok').length, timelapseHtml: opts.timelapseHtml });
   const files: [string, string][] = [
     ['conditions.csv', conditionsCsv(analysis)], ['shifts.csv', shiftsCsv(analysis)], ['dosage_fit.csv', dosageFitCsv(analysis)],
     ['positional_error.csv', positionalErrorCsv(analysis)], ...figures.map((f): [string, string] => [`${f.name}.svg`, f.svg]), ['report.html', html],

@@ -4,3 +4,4 @@ export { createSharpPlaneSource, sharpDecodesExactly } from './sharp-decoder';
 export { openStackForAnalysis, withDecoderFallback, type OpenedStack, type OpenForAnalysisOptions } from './open-for-analysis';
 export { APP_CHUNK_CODECS, decodeLzmaChunk, xzDeclaredSize } from './lzma-codec';
 export { isZarrPath, openZarrStack, openZarrFirstPicture } from './open-zarr-stack';
+export { readPreviewPlane, type PreviewPlane } from './preview';

@@ -4,8 +4,9 @@ import type { BatchSummary, CohortSummary } from '../../core/contract';
 import type { Detection } from '../../core/model';
 import type { AnalysisSettings } from '../../core/settings';
 import { defaultWorkerPath, runBatch, type BatchRunResult } from '../batch/run-batch';
+import { DEFAULT_TIMELAPSE_OPTIONS } from '../batch/timelapse-pass';
 import { writeDemoDataSet } from '../batch/write-demo';
-import { openStackForAnalysis } from '../decode';
+import { openStackForAnalysis, readPreviewPlane } from '../decode';
 import { ApiFailure } from './api-failure';
 import { summariseCohort } from './cohort-summary';
 import type { AnalysisEngine, BatchRunOptions, SliceData, ViewData } from './engine';
@@ -58,9 +59,10 @@ function cohortOutcome(r: BatchRunResult, sheet: string | null): { cohort: Cohor
 /** Run the batch engine (with the cohort step when there is a sample sheet) and keep what the renderer needs. */
 async function runBatchSummary(options: BatchRunOptions): Promise<BatchSummary> {
   const sheet = options.sampleSheetPath ?? null;
-  const r = await runBatch({ ...options, doc: options.doc, cohort: sheet === null ? null : { sampleSheetPath: sheet, reference: null } });
+  // Movies are analysed per time point as on the command line's defaults (every time point, axis once per movie).
+  const r = await runBatch({ ...options, doc: options.doc, cohort: sheet === null ? null : { sampleSheetPath: sheet, reference: null }, timelapse: DEFAULT_TIMELAPSE_OPTIONS });
   const outcome = cohortOutcome(r, sheet);
-  return { runId: r.runId, outDir: r.outDir, ok: r.ok, failed: r.failed, cancelled: r.cancelled, results: r.results, ...outcome };
+  return { runId: r.runId, outDir: r.outDir, ok: r.ok, failed: r.failed, cancelled: r.cancelled, results: r.results, movies: r.movies ?? [], ...outcome };
 }
 
 /** The engine backed by app/decode, core/pipeline and app/batch. */
@@ -68,6 +70,7 @@ export function createDefaultEngine(): AnalysisEngine {
   return {
     loadForView,
     readSlice,
+    readPreview: (path, label) => readPreviewPlane(path, label),
     runBatch: runBatchSummary,
     // The built batch worker generates demo embryos in parallel (the writer falls back to this thread without it).
     writeDemoDataSet: (dir, options) => writeDemoDataSet(dir, { ...options, workerPath: defaultWorkerPath() }),

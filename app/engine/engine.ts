@@ -1,6 +1,6 @@
 // What the shell needs from the analysis side (decoding, pipeline, batch, demo data), as one replaceable interface:
 // the app wires the real modules; tests pass small fakes so shell behaviour is tested on its own.
-import type { BatchProgress, BatchSummary, ProjectDoc } from '../../core/contract';
+import type { BatchProgress, BatchSummary, ProjectDoc, StackPreview } from '../../core/contract';
 import type { Detection, ProjectedStack, StackInfo } from '../../core/model';
 import type { AnalysisSettings } from '../../core/settings';
 
@@ -35,6 +35,8 @@ export interface BatchRunOptions {
 export interface AnalysisEngine {
   /** Read tags, project over Z and detect the embryo. */
   loadForView(path: string, label: string, settings: AnalysisSettings): Promise<ViewData>;
+  /** The middle slice of the first channel as floats (the first picture while loadForView runs). */
+  readPreview?(path: string, label: string): Promise<StackPreview>;
   /** Decode one plane (z, c, t: 0-based) as floats; rejects with a message naming the file when out of range. */
   readSlice(path: string, label: string, z: number, c: number, t: number): Promise<SliceData>;
   /** Run a batch to completion or cancellation. */

@@ -5,7 +5,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { newProject } from '../project';
 import { DEFAULT_SETTINGS } from '../../core/settings';
 import { DEMO_MOVIE_PARAMS } from '../../core/synth';
-import { analyseMovieFile, movieTables, type MovieOutcome } from '../batch/timelapse-pass';
+import { analyseMovieFile, movieOutcomes, movieTables } from '../batch/timelapse-pass';
 import { demoMovieFile } from '../batch/write-demo';
 import { buildMovieView, frameShrinkFactor, shrinkPlane } from './movie-view';
 
@@ -38,7 +38,7 @@ describe('the window\'s movie analysis (a 6-frame variant of the demo movie)', (
     const done: number[] = [];
     const view = await buildMovieView(path, file, doc, options, { onTimePoint: (d) => done.push(d) });
     const batch = await analyseMovieFile(dir, file, doc.settings, doc, { ...options, selection: { kind: 'all' } });
-    expect(view.tables).toEqual(movieTables([batch as MovieOutcome]));
+    expect(view.tables).toEqual(movieTables(movieOutcomes([batch!.record], batch!.results).movies));
     expect(view.timeIndices).toEqual([0, 1, 2, 3, 4, 5]);
     expect(view.timesS).toEqual([0, 240, 480, 720, 960, 1200]);
     expect(view.timeSource).toBe('ome-increment');

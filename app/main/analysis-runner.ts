@@ -2,7 +2,7 @@
 // never blocks on decoding or segmentation.
 import { Worker } from 'node:worker_threads';
 import type { AnalysisSettings } from '../../core/settings';
-import type { ApiErrorCode, MovieProgress, MovieRequestOptions, MovieView, ProjectDoc } from '../../core/contract';
+import type { ApiErrorCode, MovieProgress, MovieRequestOptions, MovieView, ProjectDoc, StackPreview } from '../../core/contract';
 import type { SliceData, ViewData } from '../engine/engine';
 import type { AnalysisReply, AnalysisRequest } from '../engine/analysis-protocol';
 import { ApiFailure } from './result';
@@ -17,6 +17,8 @@ type RequestBody = AnalysisRequest extends infer R ? R extends AnalysisRequest ?
 export interface AnalysisRunner {
   run(path: string, label: string, settings: AnalysisSettings): Promise<ViewData>;
   readSlice(path: string, label: string, z: number, c: number, t: number): Promise<SliceData>;
+  /** The preview slice (HandlerDeps.readPreviewOffThread). */
+  readPreview(path: string, label: string): Promise<StackPreview>;
   /** Analyse a movie over time (label = the file's project key); progress per analysed time point. */
   movie(path: string, label: string, doc: ProjectDoc, options: MovieRequestOptions, onProgress: (p: MovieProgress) => void): Promise<MovieView>;
   /** Stop the worker (pending calls are rejected). */
@@ -82,6 +84,7 @@ export function createAnalysisRunner(workerPath: string, timeoutMs = 180_000): A
   return {
     run: (path, label, settings) => call<ViewData>({ kind: 'view', path, label, settings }),
     readSlice: (path, label, z, c, t) => call<SliceData>({ kind: 'slice', path, label, z, c, t }),
+    readPreview: (path, label) => call<StackPreview>({ kind: 'preview', path, label }),
     movie: (path, label, doc, options, onProgress) => call<MovieView>({ kind: 'movie', path, label, doc, options },
       (done, total) => onProgress({ file: label, done, total })),
     close: async () => { failAll((label) => `${label}: cancelled`, null); await stop(); },

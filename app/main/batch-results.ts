@@ -2,9 +2,9 @@
 // the folder's sample sheet), and its report opened in the system's browser: results stay after a restart.
 import { promises as fs } from 'node:fs';
 import { basename, join } from 'node:path';
-import { resultsFromJson } from '../../core/batch';
+import { embryoResults, resultsDocFromJson } from '../../core/batch';
 import type { BatchSummary, CohortSummary } from '../../core/contract';
-import type { EmbryoResult } from '../../core/model';
+import type { EmbryoResult, MovieRecord } from '../../core/model';
 import { requireAllowed } from './args';
 import { cohortSummaryFor, findSampleSheet } from '../engine/cohort-summary';
 import type { ShellContext } from './context';
@@ -52,17 +52,20 @@ export async function loadBatchResults(ctx: ShellContext, outArg: unknown, folde
     if ((e as NodeJS.ErrnoException).code === 'ENOENT') return null;
     throw new ApiFailure('io', `${labelOf(outDir)}/results.json: cannot be read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
   }
-  let results: EmbryoResult[];
+  let results: readonly EmbryoResult[];
+  let movies: readonly MovieRecord[];
   try {
-    results = resultsFromJson(text);
+    ({ results, movies } = resultsDocFromJson(text));
   } catch (e) {
     throw new ApiFailure('bad-file', `${labelOf(outDir)}/${(e as Error).message.split('\n')[0]}`);
   }
   const run = await readRunEnd(outDir);
-  const ok = results.filter((r) => r.status === 'ok').length;
+  // Counts and the cohort are per file (a movie's last analysed time point); the results keep every time point.
+  const embryos = embryoResults(results);
+  const ok = embryos.filter((r) => r.status === 'ok').length;
   return {
-    runId: run.runId, outDir, ok, failed: results.length - ok, cancelled: run.cancelled, results,
-    ...await savedCohort(results, folder, outDir, run.cancelled),
+    runId: run.runId, outDir, ok, failed: embryos.length - ok, cancelled: run.cancelled, results, movies,
+    ...await savedCohort(embryos, folder, outDir, run.cancelled),
   };
 }
 

@@ -21,6 +21,8 @@ export interface HandlerDeps {
   readonly runAnalysisOffThread?: (path: string, label: string, settings: AnalysisSettings) => Promise<ViewData>;
   /** Decode loadSlice's plane off the main thread (the app passes the worker runner); in-process when absent. */
   readonly readSliceOffThread?: AnalysisEngine['readSlice'];
+  /** Read the preview slice off the main thread (the app passes the worker runner's). */
+  readonly readPreviewOffThread?: NonNullable<AnalysisEngine['readPreview']>;
   /** Push movie-analysis progress to the renderer. */
   readonly emitMovieProgress?: (p: MovieProgress) => void;
   /** Analyse a movie over time off the main thread (the app passes a worker runner that stops when `signal` aborts);

@@ -13,13 +13,13 @@ import { openDropped, openFiles, openFolder, openProjectFile, openRecent } from 
 import { saveProject } from './project-handlers';
 import { addRecent, readRecent } from './recent';
 import { guard, labelOf, withLabel } from './result';
-import { loadSlice, loadStack } from './stack-handlers';
+import { loadPreview, loadSlice, loadStack } from './stack-handlers';
 
 export type { HandlerDeps } from './context';
 
 /** Every API method except the two event subscriptions (those live in the preload). */
-export type ApiHandlers = Omit<EgglineApi, 'onBatchProgress' | 'onMenuCommand' | 'onMovieProgress' | 'pathForDroppedFile' | 'openRecent'>
-  & { openRecent: NonNullable<EgglineApi['openRecent']> };
+export type ApiHandlers = Omit<EgglineApi, 'onBatchProgress' | 'onMenuCommand' | 'onMovieProgress' | 'pathForDroppedFile' | 'openRecent' | 'loadPreview'>
+  & { openRecent: NonNullable<EgglineApi['openRecent']>; loadPreview: NonNullable<EgglineApi['loadPreview']> };
 
 /** The label a path argument gets in messages (null when it is not a string). */
 function labelArg(value: unknown): string | null {
@@ -63,6 +63,7 @@ export function createHandlers(deps: HandlerDeps): ApiHandlers {
     recent: () => guard(null, () => readRecent(deps.dataDir)),
     openRecent: (path) => guard(labelArg(path), () => openRecent(ctx, path)),
     loadStack: (path, settings) => guard(labelArg(path), () => loadStack(ctx, path, settings), 'bad-file'),
+    loadPreview: (path) => guard(labelArg(path), () => loadPreview(ctx, path), 'bad-file'),
     loadSlice: (req) => guard(labelArg((req as { path?: unknown } | null)?.path), () => loadSlice(ctx, req), 'bad-file'),
     saveProject: (path, doc) => guard(labelArg(path), () => saveProject(ctx, path, doc), 'io'),
     openProject: () => guard(null, () => afterDialog(() => d.openProjectFile(),

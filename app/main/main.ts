@@ -74,6 +74,7 @@ async function onReady(e: ElectronModule, state: { window: electron.BrowserWindo
     emitBatchProgress: (p) => send(API_EVENT_CHANNELS.batchProgress, p),
     runAnalysisOffThread: runner.run,
     readSliceOffThread: runner.readSlice,
+    readPreviewOffThread: runner.readPreview,
     emitMovieProgress: (p) => send(API_EVENT_CHANNELS.movieProgress, p),
     runMovieOffThread: (path, file, doc, options, onProgress, signal) => {
       signal.addEventListener('abort', () => { void movieRunner.close(); }, { once: true });

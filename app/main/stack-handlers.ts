@@ -1,7 +1,7 @@
 // Loading stacks for viewing: the projected channels with detection, and single raw slices for the Z slider.
 import { promises as fs } from 'node:fs';
 import { isStackFolderName } from '../../core/batch';
-import type { LoadedStack, SliceRequest } from '../../core/contract';
+import type { LoadedStack, SliceRequest, StackPreview } from '../../core/contract';
 import { requireAllowed, requireInt, requireSettings } from './args';
 import type { ShellContext } from './context';
 import type { SliceData } from '../engine/engine';
@@ -25,6 +25,15 @@ export async function loadStack(ctx: ShellContext, pathArg: unknown, settingsArg
   const run = ctx.deps.runAnalysisOffThread ?? ctx.engine.loadForView.bind(ctx.engine);
   const view = await run(path, labelOf(path), settings);
   return { path, info: view.info, projected: view.projected, detection: view.detection };
+}
+
+/** The middle slice of the first channel of an allowed stack, shown while loadStack runs. */
+export async function loadPreview(ctx: ShellContext, pathArg: unknown): Promise<StackPreview> {
+  const path = requireAllowed(ctx.allow, 'read', pathArg, 'path');
+  await requireFile(path);
+  const read = ctx.deps.readPreviewOffThread ?? ctx.engine.readPreview?.bind(ctx.engine);
+  if (read === undefined) throw new ApiFailure('bad-argument', `${labelOf(path)}: no preview in this build`);
+  return read(path, labelOf(path));
 }
 
 /** Decode one slice (z, c, t) of an allowed stack as floats. */

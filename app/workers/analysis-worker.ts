@@ -3,6 +3,7 @@
 import { parentPort } from 'node:worker_threads';
 import type { MovieView } from '../../core/contract';
 import type { AnalysisReply, AnalysisRequest } from '../engine/analysis-protocol';
+import { readPreviewPlane } from '../decode';
 import { createDefaultEngine } from '../engine/default-engine';
 import type { SliceData, ViewData } from '../engine/engine';
 import { buildMovieView } from '../engine/movie-view';
@@ -30,11 +31,13 @@ async function answer(request: AnalysisRequest): Promise<AnalysisReply> {
   try {
     const value = request.kind === 'slice'
       ? await engine.readSlice(request.path, request.label, request.z, request.c, request.t)
-      : request.kind === 'movie'
-        ? await buildMovieView(request.path, request.label, request.doc, request.options, {
-          onTimePoint: (done, total) => parentPort?.postMessage({ id: request.id, ok: null, progress: { done, total } } satisfies AnalysisReply),
-        })
-        : await engine.loadForView(request.path, request.label, request.settings);
+      : request.kind === 'preview'
+        ? await readPreviewPlane(request.path, request.label)
+        : request.kind === 'movie'
+          ? await buildMovieView(request.path, request.label, request.doc, request.options, {
+            onTimePoint: (done, total) => parentPort?.postMessage({ id: request.id, ok: null, progress: { done, total } } satisfies AnalysisReply),
+          })
+          : await engine.loadForView(request.path, request.label, request.settings);
     return { id: request.id, ok: true, value };
   } catch (e) {
     const err: Error & { code?: unknown } = e instanceof Error ? e : new Error(String(e));

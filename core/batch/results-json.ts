@@ -74,7 +74,7 @@ function reviveMovie(raw: unknown, where: string): MovieRecord {
   const timesS = m.timesS === null || m.timesS === undefined ? null : toFloat64(m.timesS, `${where} timesS`);
   if (timesS !== null && timesS.length !== m.timeIndices.length) throw new Error(`results.json: ${where}: timesS has ${timesS.length} values for ${m.timeIndices.length} time points`);
   return {
-    file: m.file, timeIndices: [...m.timeIndices], timesS, fitRangeEl: [m.fitRangeEl[0], m.fitRangeEl[1]], modelRangeEl: [m.modelRangeEl[0], m.modelRangeEl[1]],
+    file: m.file, timeIndices: [...m.timeIndices], timesS, timeSource: typeof m.timeSource === 'string' ? m.timeSource : null, fitRangeEl: [m.fitRangeEl[0], m.fitRangeEl[1]], modelRangeEl: [m.modelRangeEl[0], m.modelRangeEl[1]],
     baselineFrames: m.baselineFrames, warnings: Array.isArray(m.warnings) ? m.warnings.map(String) : [], error: typeof m.error === 'string' ? m.error : null,
   };
 }

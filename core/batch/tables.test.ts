@@ -104,7 +104,7 @@ describe('results.json', () => {
   });
   it('round-trips the movie records', () => {
     const record = {
-      file: 'movie.ome.tif', timeIndices: [0, 1, 2], timesS: Float64Array.from([0, 60, 120]), fitRangeEl: [0.1, 0.6] as const,
+      file: 'movie.ome.tif', timeIndices: [0, 1, 2], timesS: Float64Array.from([0, 60, 120]), timeSource: 'ome-increment', fitRangeEl: [0.1, 0.6] as const,
       modelRangeEl: [0.1, 0.4] as const, baselineFrames: 1, warnings: ['times from the file'], error: null,
     };
     const doc = resultsDocFromJson(resultsToJson(movie, [record]));

@@ -1,7 +1,7 @@
 // The one contract between the renderer and the app (main process). Everything crossing it is plain data
 // (objects, arrays, typed arrays); errors come back as values, never as thrown exceptions.
 import type {
-  Detection, EmbryoResult, ProjectedStack, StackInfo,
+  Detection, EmbryoResult, MovieRecord, ProjectedStack, StackInfo,
 } from '../model';
 import type { AnalysisSettings, ProjectDoc } from '../settings';
 
@@ -39,6 +39,17 @@ export interface LoadedStack {
 /** One Z slice of one channel, for the Z slider. */
 export interface SliceRequest { readonly path: string; readonly z: number; readonly c: number; readonly t: number }
 
+/** The first picture of a stack while it loads: one raw slice (z of sizeZ, channel c of sizeC), not the projection. */
+export interface StackPreview {
+  readonly width: number;
+  readonly height: number;
+  readonly data: Float32Array;
+  readonly z: number;
+  readonly c: number;
+  readonly sizeZ: number;
+  readonly sizeC: number;
+}
+
 /** Progress of a running batch. */
 export interface BatchProgress {
   readonly runId: string;
@@ -56,7 +67,12 @@ export interface BatchSummary {
   readonly ok: number;
   readonly failed: number;
   readonly cancelled: boolean;
+  /** Every result keyed by (file, tIndex): one per file with one time point, one per analysed time point of a movie
+   *  (core/batch embryoResults gives one per file). */
   readonly results: readonly EmbryoResult[];
+  /** The movies analysed per time point (their time points, times and summary options: core/timelapse summarizeMovie
+   *  makes λ(t) and τ(x) from these and the results); absent or empty when there were none. */
+  readonly movies?: readonly MovieRecord[];
   /** Per-condition tables and figures of the cohort step (as in report.html); null when the folder has no sample
    *  sheet, the batch was cancelled or the step failed; absent from engines that do not run it. */
   readonly cohort?: CohortSummary | null;
@@ -214,6 +230,8 @@ export interface EgglineApi {
   recent(): Promise<ApiResult<string[]>>;
   /** Read, project and detect one stack (runs off the main thread). */
   loadStack(path: string, settings: AnalysisSettings): Promise<ApiResult<LoadedStack>>;
+  /** The middle slice of the first channel, shown at once while loadStack projects and detects (desktop app). */
+  loadPreview?(path: string): Promise<ApiResult<StackPreview>>;
   /** One raw slice for the Z slider. */
   loadSlice(req: SliceRequest): Promise<ApiResult<{ width: number; height: number; data: Float32Array }>>;
   /** Save the project atomically at its path. */
@@ -269,7 +287,7 @@ export const API_CHANNEL_PREFIX = 'eggline:';
 
 /** Methods the preload forwards with ipcRenderer.invoke on `eggline:<name>` (everything but the subscriptions). */
 export const API_INVOKE_METHODS = [
-  'openDemo', 'chooseFolder', 'chooseFiles', 'openDropped', 'recent', 'loadStack', 'loadSlice', 'saveProject',
+  'openDemo', 'chooseFolder', 'chooseFiles', 'openDropped', 'recent', 'loadStack', 'loadPreview', 'loadSlice', 'saveProject',
   'openProject', 'runBatch', 'cancelBatch', 'chooseOutputFolder', 'exportFile', 'svgToPng', 'openRecent',
   'loadBatchResults', 'openReport', 'analyseMovie', 'cancelMovie',
 ] as const satisfies readonly (keyof EgglineApi)[];

@@ -239,6 +239,8 @@ export interface MovieRecord {
   readonly timeIndices: readonly number[];
   /** Time of each analysed time point in s on the movie's clock (same length), or null when unknown. */
   readonly timesS: Float64Array | null;
+  /** Where the times came from (TimeSource: ome-plane, ome-increment, imagej, ome-zarr, user), or null when unknown. */
+  readonly timeSource?: string | null;
   /** x/EL range of the per-time-point exponential fits (the file's own, when the project sets one). */
   readonly fitRangeEl: readonly [number, number];
   /** x/EL range of the τ(x) model fit (--tau-range). */

@@ -1,5 +1,6 @@
 // Batch: choose an output folder, run over the open folder with the current settings and hand edits, follow progress.
 import type { BatchState } from '../hooks/useBatch';
+import { embryoResults } from '../../core/batch';
 import { resultKeyOf } from '../../core/model';
 import { fixed, fmt } from '../ui/format';
 
@@ -50,7 +51,7 @@ export function BatchPanel({ batch, folder, fileCount, onChooseOutput, onRun, on
           {batch.summary.cohortError && <p className="error" data-testid="batch-cohort-error">The cohort step failed: {batch.summary.cohortError}</p>}
           <div className="table-scroll">
           <table className="results" data-testid="batch-results"><thead><tr><th>file</th><th>status</th><th>λ µm</th><th>± SE</th><th>λ/EL</th><th>R²</th><th>EL µm</th><th>boundaries (x/EL)</th><th>warnings or error</th></tr></thead>
-            <tbody>{batch.summary.results.map((r) => (
+            <tbody>{embryoResults(batch.summary.results).map((r) => (
               <tr key={resultKeyOf(r)} className={`clickable${r.status === 'error' ? ' row-error' : ''}${r.file === current ? ' current' : ''}`} tabIndex={0}
                 data-testid="batch-row" data-file={r.file} aria-label={`show ${r.file}`}
                 onClick={() => onOpenFile(r.file)} onKeyDown={(e) => { if (e.key === 'Enter' || e.key === ' ') { e.preventDefault(); onOpenFile(r.file); } }}>

@@ -1,6 +1,7 @@
 // Cohort view of the last batch. With a sample sheet (samples.csv in the folder) it shows what report.html shows:
 // per-condition λ, the dosage test (observed vs predicted shift, λ_eff vs λ_ref) and the report's figures, with the
 // numbers formatted by core/figures so they read the same. Without one: a single-group summary of the batch.
+import { embryoResults } from '../../core/batch';
 import { useMemo } from 'react';
 import type { BatchSummary, CohortConditionRow, CohortSummary } from '../../core/contract';
 import { quantityLabel, slopeRatio, type DosageFit, type ShiftRow } from '../../core/cohort';
@@ -117,7 +118,8 @@ function ConditionsView({ c, outDir, onOpenReport }: { c: CohortSummary; outDir:
 /** The whole batch as one group (no sample sheet): mean scaled profile and λ per embryo, computed as the report does. */
 function SingleGroupView({ summary }: { summary: BatchSummary }) {
   const figs = useMemo(() => {
-    const ok = summary.results.filter((r) => r.status === 'ok');
+    // One row per embryo: a movie counts once, with its last analysed time point (as in the report).
+    const ok = embryoResults(summary.results).filter((r) => r.status === 'ok');
     const prof = meanScaledProfile(ok);
     const lam = lambdaValuesEl(ok);
     const { mean, sd, ciLow, ciHigh } = lambdaSummaryEl(ok);

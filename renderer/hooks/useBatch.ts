@@ -1,6 +1,7 @@
 // Runs a batch through the API and follows its progress events.
 import { useEffect, useMemo, useState } from 'react';
 import type { BatchProgress, BatchSummary, EgglineApi, ProjectDoc } from '../../core/contract';
+import { embryoResults } from '../../core/batch';
 import { indexResults, NO_RESULTS, type ResultIndex } from '../state';
 
 /** One file's line in the batch panel. */
@@ -51,7 +52,8 @@ export function useBatch(api: EgglineApi | null) {
     const r = await api.loadBatchResults(outDir, folder);
     if (!r.ok) { setState({ ...START, outDir, error: `The last batch's results could not be read: ${r.error.message}` }); return; }
     const summary = r.value;
-    setState({ ...START, outDir, summary, done: summary === null ? 0 : summary.results.length, total: summary === null ? 0 : summary.results.length });
+    const files = summary === null ? 0 : embryoResults(summary.results).length;
+    setState({ ...START, outDir, summary, done: files, total: files });
   };
   const cancel = async () => {
     if (api !== null && state.runId !== null) await api.cancelBatch(state.runId);

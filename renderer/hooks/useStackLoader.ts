@@ -1,6 +1,6 @@
 // Loads the shown file through the API whenever it or a setting that changes loading changes.
 import { useEffect, useState } from 'react';
-import type { EgglineApi, LoadedStack } from '../../core/contract';
+import type { EgglineApi, LoadedStack, StackPreview } from '../../core/contract';
 import type { AnalysisSettings } from '../../core/settings';
 
 /** What the loader reports. */
@@ -8,6 +8,9 @@ export interface StackLoad {
   readonly stack: LoadedStack | null;
   readonly loading: boolean;
   readonly error: string | null;
+  /** The first picture while the stack loads (one raw slice of `path`); null once the stack is there or when the
+   *  preview failed (the stack's own error, if any, is what the user sees). */
+  readonly preview: { readonly path: string; readonly plane: StackPreview } | null;
 }
 
 /** Settings that change what loadStack returns (projection, detection); others only change live measurement. */
@@ -17,16 +20,25 @@ export function loadKey(path: string | null, s: AnalysisSettings): string {
 
 /** Load `path` with `settings`; stale answers (the user moved on) are dropped. */
 export function useStackLoader(api: EgglineApi | null, path: string | null, settings: AnalysisSettings): StackLoad {
-  const [load, setLoad] = useState<StackLoad>({ stack: null, loading: false, error: null });
+  const [load, setLoad] = useState<StackLoad>({ stack: null, loading: false, error: null, preview: null });
   const key = loadKey(path, settings);
   useEffect(() => {
     if (api === null || path === null) return;
     let live = true;
-    setLoad((l) => ({ ...l, loading: true, error: null }));
+    setLoad((l) => ({ ...l, loading: true, error: null, preview: null }));
+    let stackArrived = false;
+    // The preview is asked for first and shown only until the stack arrives: a slice decodes in a few hundredths of
+    // a second, the projection and detection of a large stack take most of a second.
+    if (api.loadPreview !== undefined && (load.stack === null || load.stack.path !== path)) {
+      api.loadPreview(path).then((r) => {
+        if (live && !stackArrived && r.ok) setLoad((l) => ({ ...l, preview: { path, plane: r.value } }));
+      }, () => undefined);
+    }
     api.loadStack(path, settings).then((r) => {
       if (!live) return;
-      setLoad(r.ok ? { stack: r.value, loading: false, error: null } : { stack: null, loading: false, error: r.error.message });
-    }, (e: unknown) => live && setLoad({ stack: null, loading: false, error: `${path}: ${String(e)}` }));
+      stackArrived = true;
+      setLoad(r.ok ? { stack: r.value, loading: false, error: null, preview: null } : { stack: null, loading: false, error: r.error.message, preview: null });
+    }, (e: unknown) => { if (live) { stackArrived = true; setLoad({ stack: null, loading: false, error: `${path}: ${String(e)}`, preview: null }); } });
     return () => { live = false; };
     // The key captures every setting that matters; settings itself changes on unrelated edits.
   }, [api, key]);

@@ -115,7 +115,7 @@ describe('eggline batch --shard and eggline merge', () => {
     const out = join(dir, 'cluster');
     const r = await cli(['batch', demo, '--out', out, '--slurm', '2', '--samples', join(demo, 'samples.csv'), '--slurm-options', '--partition=long --time=01:00:00']);
     expect(r.code).toBe(0);
-    expect(r.stdout).toContain(`  jobid=$(sbatch --parsable ${join(out, 'eggline-array.sbatch')})\n  sbatch --dependency=afterok:\${jobid%%;*} ${join(out, 'eggline-merge.sbatch')}\n`);
+    expect(r.stdout).toContain(`  jobid=$(sbatch --parsable ${join(out, 'eggline-array.sbatch')})\n  sbatch --dependency=afterok:\${jobid%%;*} --kill-on-invalid-dep=yes ${join(out, 'eggline-merge.sbatch')}\n`);
     expect(existsSync(join(out, 'parts'))).toBe(false);
     const array = readFileSync(join(out, 'eggline-array.sbatch'), 'utf8');
     expect(array).toContain(`OUT=${out}\n`);

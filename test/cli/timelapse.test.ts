@@ -52,6 +52,32 @@ describe('eggline batch on a movie', () => {
     expect(table(join(out, 'timecourse_profiles.csv')).length).toBe(24 * 100);
   });
 
+  it('keys the main tables by (file, time point): every time point of the movie in profiles.csv and boundaries.csv', () => {
+    const out = join(dir, 'out');
+    const profiles = table(join(out, 'profiles.csv'));
+    const movie = profiles.filter((row) => row.file === 'movie.ome.tif');
+    expect(movie).toHaveLength(24 * 100);
+    // Frames 480 s apart (demo data): time point t at t·480 s, written beside its index.
+    expect([...new Set(movie.map((row) => `${row.t_index}@${row.t_s}`))]).toEqual(Array.from({ length: 24 }, (_, t) => `${t}@${t * 480}`));
+    // The same rows as timecourse_profiles.csv, the older table of the time pass.
+    const course = table(join(out, 'timecourse_profiles.csv'));
+    expect(movie.map((row) => [row.t_index, row.x_el, row.mean])).toEqual(course.map((row) => [row.t_index, row.x_el, row.mean]));
+    // The single-page file has one time point: t_index 0 and no time.
+    const single = table(join(out, 'embryos.csv')).find((row) => row.file === 'single.tif')!;
+    expect([single.t_index, single.t_s]).toEqual(['0', '']);
+    const boundaries = table(join(out, 'boundaries.csv')).filter((row) => row.file === 'movie.ome.tif');
+    expect(boundaries.map((row) => row.t_index)).toEqual(table(join(out, 'timecourse_boundaries.csv')).map((row) => row.t_index));
+    // embryos.csv keeps one row per file; a movie's is its last analysed time point, equal to timecourse.csv's last row.
+    const embryos = table(join(out, 'embryos.csv'));
+    expect(embryos.map((row) => row.file)).toEqual(['movie.ome.tif', 'single.tif']);
+    const last = table(join(out, 'timecourse.csv'))[23];
+    expect(embryos[0]).toEqual({ ...last, file: 'movie.ome.tif' });
+    const doc = JSON.parse(readFileSync(join(out, 'results.json'), 'utf8')) as { schemaVersion: number; results: { file: string; tIndex: number }[]; movies: { file: string; timeIndices: number[] }[] };
+    expect(doc.schemaVersion).toBe(2);
+    expect(doc.results.filter((r) => r.file === 'movie.ome.tif').map((r) => r.tIndex)).toEqual(Array.from({ length: 24 }, (_, t) => t));
+    expect(doc.movies.map((m) => [m.file, m.timeIndices.length])).toEqual([['movie.ome.tif', 24]]);
+  });
+
   it('analyses a chosen range of time points, and refuses bad time flags with a usage error', async () => {
     const out = join(dir, 'out-range');
     const r = await cli(['batch', input, '--out', out, '--jobs', '1', '--time', '20:23', '--baseline-frames', '0']);

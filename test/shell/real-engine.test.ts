@@ -52,6 +52,20 @@ describe('handlers with the real analysis engine', () => {
       message: `${demo.entries[0].name.split('/').pop()}: z=${loaded.info.sizeZ} is out of range (the stack has ${loaded.info.sizeZ} slices)` } });
   });
 
+  it('gives the middle slice of the first channel as the preview, the same pixels loadSlice gives', async () => {
+    // Demo data; the preview is the decoded slice itself, so it must equal loadSlice of the same plane.
+    const path = demo.entries[0].path;
+    const preview = value(await api.loadPreview(path));
+    const loaded = value(await api.loadStack(path, demo.project.settings));
+    expect({ z: preview.z, c: preview.c, sizeZ: preview.sizeZ, sizeC: preview.sizeC })
+      .toEqual({ z: Math.floor(loaded.info.sizeZ / 2), c: 0, sizeZ: loaded.info.sizeZ, sizeC: loaded.info.sizeC });
+    const slice = value(await api.loadSlice({ path, z: preview.z, c: 0, t: 0 }));
+    expect({ width: preview.width, height: preview.height }).toEqual({ width: slice.width, height: slice.height });
+    expect(preview.data).toEqual(slice.data);
+    const bad = await api.loadPreview(join(root, 'nowhere.tif'));
+    expect(bad.ok).toBe(false);
+  });
+
   it('reports a file that is not a TIFF with a one-line message naming it', async () => {
     const bad = join(root, 'not-a-stack.tif');
     await writeFile(bad, 'hello, this is text');

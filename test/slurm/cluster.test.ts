@@ -161,7 +161,8 @@ describe.skipIf(reason !== null)('eggline on a one-node Slurm cluster', () => {
     const commands = r.stdout.split('\n').map((l) => l.trim()).filter((l) => /^(jobid=|sbatch )/.test(l));
     expect(commands).toHaveLength(2);
     expect(commands[0]).toMatch(/^jobid=\$\(sbatch --parsable .*eggline-array\.sbatch\)$/);
-    expect(commands[1]).toMatch(/^sbatch --dependency=afterok:\$\{jobid%%;\*\} .*eggline-merge\.sbatch$/);
+    // Source: sbatch(1), --kill-on-invalid-dep=<yes|no>: a merge whose array failed is cancelled, not left pending.
+    expect(commands[1]).toMatch(/^sbatch --dependency=afterok:\$\{jobid%%;\*\} --kill-on-invalid-dep=yes .*eggline-merge\.sbatch$/);
     const script = commands.map((c) => c.replace('sbatch ', 'sbatch --wait ')).join(' && \\\n');
     try {
       execFileSync('bash', ['-euc', script], { cwd: dir, env, timeout: 100_000, stdio: 'pipe' });
