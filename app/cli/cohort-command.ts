@@ -2,6 +2,7 @@
 import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { parseArgs } from 'node:util';
+import { joinNegativeValues } from './parse-command-args';
 import { resultsFromJson } from '../../core/batch';
 import type { FilenameRule, Normalisation } from '../../core/cohort';
 import { runCohortStep } from '../cohort/run-cohort';
@@ -60,19 +61,18 @@ function parseDosages(values: readonly string[]): Record<string, number> | { usa
   return out;
 }
 
+const COHORT_OPTIONS = {
+  samples: { type: 'string' }, pattern: { type: 'string' }, dosage: { type: 'string', multiple: true },
+  reference: { type: 'string' }, normalise: { type: 'string' }, 'lambda-posterior-el': { type: 'string' },
+  'equivalence-margin': { type: 'string' },
+  out: { type: 'string' }, help: { type: 'boolean', short: 'h' },
+} as const;
+
 /** Parse the arguments; returns a plan, 'help', or a usage-error message. */
 export function parseCohortArgs(argv: readonly string[]): CohortPlan | 'help' | { usage: string } {
   let parsed;
   try {
-    parsed = parseArgs({
-      args: [...argv], allowPositionals: true, strict: true,
-      options: {
-        samples: { type: 'string' }, pattern: { type: 'string' }, dosage: { type: 'string', multiple: true },
-        reference: { type: 'string' }, normalise: { type: 'string' }, 'lambda-posterior-el': { type: 'string' },
-        'equivalence-margin': { type: 'string' },
-        out: { type: 'string' }, help: { type: 'boolean', short: 'h' },
-      },
-    });
+    parsed = parseArgs({ args: joinNegativeValues(argv, COHORT_OPTIONS), allowPositionals: true, strict: true, options: COHORT_OPTIONS });
   } catch (e) {
     return { usage: (e as Error).message.split('\n')[0].replace(/\. To specify a positional argument.*$/, '') };
   }
