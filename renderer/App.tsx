@@ -197,7 +197,8 @@ export function App() {
           {tab === 'batch' && <BatchPanel batch={batch} folder={session.folder} fileCount={session.entries.length} onChooseOutput={chooseOutput}
             onRun={() => { void runBatchNow(); }} onCancel={cancel} onOpenFile={openFromBatch} onOpenReport={openReport} current={state.current} />}
           {tab === 'time' && <TimelapseView api={api} file={entry === null ? null : { name: entry.name, path: entry.path }} sizeT={stack?.info.sizeT ?? null} movie={movie}
-            onAnalyse={(o) => { if (entry !== null) void analyseMovie(entry.path, entry.name, toProjectDoc(state.doc, session.folder, session.batchOutDir), o); }}
+            basis={JSON.stringify([state.doc.settings, entry === null ? null : state.doc.files[entry.name] ?? null])}
+            onAnalyse={(o, basis) => { if (entry !== null) void analyseMovie(entry.path, entry.name, toProjectDoc(state.doc, session.folder, session.batchOutDir), o, basis); }}
             onCancel={() => { void cancelMovie(); }} onTimePoint={(t) => dispatch({ type: 'showTimePoint', tIndex: t })} setMessage={setMessage} />}
           {tab === 'cohort' && <CohortView summary={batch.summary} onOpenReport={openReport} />}
         </main>

@@ -16,6 +16,8 @@ const ROWS: [string, string][] = [
   ['Tab, then arrows, Home, End', 'a focused histogram handle moves the display range 1% of the data range (Shift: 10%); Home and End go to its ends'],
   ['Tab to the bar under the image, ↑ / ↓', 'give the image or the profile more room (or drag the bar)'],
   ['Enter on a batch row', 'show that embryo with its status and warnings'],
+  ['Over time: ← / →, Shift+← / →', 'previous / next time point (five with Shift); Home and End go to the first and last'],
+  ['Over time: Space', 'play or pause the movie'],
 ];
 
 /** The help overlay; click anywhere to close. */

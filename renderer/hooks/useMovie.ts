@@ -12,10 +12,12 @@ export interface MovieState {
   readonly total: number;
   readonly view: MovieView | null;
   readonly error: string | null;
+  /** What the analysis was made from (settings, the file's hand edits, options), to tell when it is out of date. */
+  readonly basis: string | null;
 }
 
 /** Nothing analysed yet. */
-export const MOVIE_IDLE: MovieState = { status: 'idle', file: null, done: 0, total: 0, view: null, error: null };
+export const MOVIE_IDLE: MovieState = { status: 'idle', file: null, done: 0, total: 0, view: null, error: null, basis: null };
 
 /** The defaults of the batch's time flags (--tau-range 0.1,0.4, --baseline-frames 1, axis once per movie). */
 export const DEFAULT_MOVIE_OPTIONS: MovieRequestOptions = { axisPerTime: false, tauRangeEl: [0.1, 0.4], baselineFrames: 1, timeStepS: null };
@@ -38,10 +40,10 @@ export function useMovie(api: EgglineApi | null) {
   const current = useRef(state);
   current.current = state;
   useEffect(() => (api === null ? undefined : api.onMovieProgress((p) => setState((s) => applyMovieProgress(s, p)))), [api]);
-  /** Analyse `file` (at `path`) with the project's settings and hand edits. */
-  const analyse = async (path: string, file: string, doc: ProjectDoc, options: MovieRequestOptions): Promise<void> => {
+  /** Analyse `file` (at `path`) with the project's settings and hand edits; `basis` names what it is made from. */
+  const analyse = async (path: string, file: string, doc: ProjectDoc, options: MovieRequestOptions, basis: string): Promise<void> => {
     if (api === null || current.current.status === 'running') return;
-    setState({ ...MOVIE_IDLE, status: 'running', file });
+    setState({ ...MOVIE_IDLE, status: 'running', file, basis });
     const r = await api.analyseMovie(path, file, doc, options);
     setState((s) => applyMovieAnswer(s, file, r));
   };

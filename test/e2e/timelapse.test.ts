@@ -105,6 +105,12 @@ describe('the time-lapse view', { timeout: 180_000 }, () => {
     await page.keyboard.press('ArrowLeft');
     await expect.poll(() => attr(page, 'movie-time-label', 'data-k')).toBe('19');
     expect(Number(await markerY(page))).toBeLessThan(y20);
+    await page.keyboard.press('Shift+ArrowRight');
+    await expect.poll(() => attr(page, 'movie-time-label', 'data-k')).toBe('24');
+    await page.keyboard.press('End');
+    await expect.poll(() => attr(page, 'movie-time-label', 'data-k')).toBe('45');
+    await page.keyboard.press('Home');
+    await expect.poll(() => attr(page, 'movie-time-label', 'data-k')).toBe('0');
   });
 
   it('play advances the time point and pause stops it (Space does both)', async () => {
@@ -141,6 +147,12 @@ describe('the time-lapse view', { timeout: 180_000 }, () => {
       expect(Math.abs(shown - Number(model[column])) / Math.abs(Number(model[column]))).toBeLessThan(1e-9);
     }
     expect(await page.getByTestId('movie-reading').textContent()).toBe(model.reading);
+    // A changed option makes the shown analysis out of date, and says so; back to the old value, it is current again.
+    expect(await page.getByTestId('movie-stale').count()).toBe(0);
+    await page.getByLabel('τ fit range start (x/EL)').fill('0.15');
+    await page.getByTestId('movie-stale').waitFor();
+    await page.getByLabel('τ fit range start (x/EL)').fill('0.1');
+    await expect.poll(() => page.getByTestId('movie-stale').count()).toBe(0);
   });
 
   it('exports the batch\'s tables byte for byte and the figures as SVG and PNG', async () => {
@@ -148,20 +160,23 @@ describe('the time-lapse view', { timeout: 180_000 }, () => {
     const saveDir = join(scratch, 'exports');
     await fs.mkdir(saveDir);
     h.dialogs.saveDir = saveDir;
+    await page.getByTestId('movie-slider').fill('30');
     const exportOne = async (cmd: string) => {
       await page.getByTestId('movie-export').click();
       await page.getByTestId(`movie-export-${cmd}`).click();
       await expect.poll(() => page.getByTestId('message').textContent().catch(() => '')).toMatch(/^Saved /);
       await page.getByRole('button', { name: 'dismiss the message' }).click();
     };
-    for (const cmd of ['timecourse-csv', 'model-fit-csv', 'accumulation-csv', 'lambda-svg', 'kymograph-png']) await exportOne(cmd);
+    for (const cmd of ['timecourse-csv', 'model-fit-csv', 'accumulation-csv', 'lambda-svg', 'kymograph-png', 'image-png']) await exportOne(cmd);
     const stem = 'timelapse-forming-gradient_embryo-01-ome';
     for (const [mine, theirs] of [['timecourse', 'timecourse'], ['model_fit', 'model_fit'], ['accumulation', 'accumulation']]) {
       expect(await fs.readFile(join(saveDir, `${stem}-${mine}.csv`), 'utf8')).toBe(await fs.readFile(join(batchOut, `${theirs}.csv`), 'utf8'));
     }
     expect(await fs.readFile(join(saveDir, `${stem}-lambda.svg`), 'utf8')).toMatch(/^<svg[\s\S]*lambda-point[\s\S]*<\/svg>\s*$/);
     // Source: PNG specification §5.2 (the eight-byte signature).
-    expect([...(await fs.readFile(join(saveDir, `${stem}-kymograph.png`))).subarray(0, 8)]).toEqual([137, 80, 78, 71, 13, 10, 26, 10]);
+    for (const png of [`${stem}-kymograph.png`, `${stem}-t30-image.png`]) {
+      expect([...(await fs.readFile(join(saveDir, png))).subarray(0, 8)]).toEqual([137, 80, 78, 71, 13, 10, 26, 10]);
+    }
   });
 
   it('at 1440×900 and 1280×720 the time bar, the figures and their axis titles are on screen and inside their cells', async () => {

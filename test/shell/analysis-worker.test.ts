@@ -4,7 +4,10 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { build } from 'esbuild';
 import { createAnalysisRunner, type AnalysisRunner } from '../../app/main/analysis-runner';
-import { writeDemoDataSet } from '../../app/batch/write-demo';
+import { demoMovieFile, writeDemoDataSet } from '../../app/batch/write-demo';
+import { newProject } from '../../app/project';
+import { DEMO_MOVIE_PARAMS } from '../../core/synth';
+import type { MovieProgress } from '../../core/contract';
 import { DEFAULT_SETTINGS } from '../../core/settings';
 
 // The real worker bundle (built here the way scripts/build.mjs builds it) analysing one synthetic demo embryo.
@@ -50,5 +53,22 @@ describe('analysis worker (built bundle)', () => {
     const bad = join(dataDir, 'bad.tif');
     await writeFile(bad, new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0, 0, 0, 0]));
     await expect(runner.run(bad, 'bad.tif', DEFAULT_SETTINGS)).rejects.toMatchObject({ name: 'TiffError', message: expect.stringMatching(/^bad\.tif: /) });
+  });
+
+  it('analyses a movie over time with a progress message per time point, and stops when closed', async () => {
+    // Source: demo data (a 5-frame variant of the demo movie).
+    const movie = join(dataDir, 'movie.ome.tif');
+    await writeFile(movie, demoMovieFile({ ...DEMO_MOVIE_PARAMS, frames: 5 }));
+    const doc = { ...newProject(dataDir), settings: { ...DEFAULT_SETTINGS, boundaryChannels: [2] } };
+    const options = { axisPerTime: false, tauRangeEl: [0.1, 0.4] as const, baselineFrames: 1, timeStepS: null };
+    const progress: MovieProgress[] = [];
+    const view = await runner.movie(movie, 'movie.ome.tif', doc, options, (p) => progress.push(p));
+    expect(progress.map((p) => `${p.file} ${p.done}/${p.total}`)).toEqual([1, 2, 3, 4, 5].map((d) => `movie.ome.tif ${d}/5`));
+    expect(view.timeIndices).toEqual([0, 1, 2, 3, 4]);
+    expect(view.frames[4]!.channels[0]).toBeInstanceOf(Float32Array);
+    expect(view.tables.timecourse.split('\n')[0]).toMatch(/^file,t_index,t_s,/);
+    const stopped = expect(runner.movie(movie, 'movie.ome.tif', doc, options, () => undefined)).rejects.toThrow('movie.ome.tif: cancelled');
+    await runner.close();
+    await stopped;
   });
 });

@@ -40,22 +40,27 @@ function drawMarks(ctx: CanvasRenderingContext2D, axis: ApAxis | null, landmarks
   }
 }
 
+/** Paint time point k (merged channels, axis, landmarks) into a canvas of the frame's size; false without a frame. */
+export function paintFrame(c: HTMLCanvasElement, view: MovieView, k: number, display: DisplayState): boolean {
+  const frame = view.frames[k] ?? null;
+  const ctx = frame === null ? null : c.getContext('2d');
+  if (frame === null || ctx === null) return false;
+  c.width = frame.width; c.height = frame.height;
+  const planes: Plane[] = frame.channels.map((data) => ({ width: frame.width, height: frame.height, data }));
+  ctx.putImageData(new ImageData(compositeRgba(planes, display), frame.width, frame.height), 0, 0);
+  const r = view.results[k];
+  drawMarks(ctx, r?.axis ?? null, (r?.landmarks ?? []).map((l) => ({ name: l.name, point: l.point })), frame.scale);
+  return true;
+}
+
 /** The image panel of the time-lapse view. */
 export function FrameImage({ view, k }: { view: MovieView; k: number }) {
   const canvas = useRef<HTMLCanvasElement>(null);
   const display = useMemo(() => movieDisplay(view), [view]);
   const frame = view.frames[k] ?? null;
-  const result = view.results[k];
   useEffect(() => {
-    const c = canvas.current;
-    if (c === null || frame === null) return;
-    c.width = frame.width; c.height = frame.height;
-    const ctx = c.getContext('2d');
-    if (ctx === null) return;
-    const planes: Plane[] = frame.channels.map((data) => ({ width: frame.width, height: frame.height, data }));
-    ctx.putImageData(new ImageData(compositeRgba(planes, display), frame.width, frame.height), 0, 0);
-    drawMarks(ctx, result?.axis ?? null, (result?.landmarks ?? []).map((l) => ({ name: l.name, point: l.point })), frame.scale);
-  }, [frame, display, result]);
+    if (canvas.current !== null) paintFrame(canvas.current, view, k, display);
+  }, [view, k, display]);
   return (
     <div className="tl-cell tl-image" data-testid="movie-image" data-t={k}>
       {frame === null ? <p className="muted tl-empty">no image at this time point</p>

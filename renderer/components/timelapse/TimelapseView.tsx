@@ -21,7 +21,9 @@ export interface TimelapseViewProps {
   /** Time points of the shown file as its stack reports them; null while it loads. */
   readonly sizeT: number | null;
   readonly movie: MovieState;
-  readonly onAnalyse: (options: MovieRequestOptions) => void;
+  /** The shared settings and this file's hand edits as they are now (any text that changes when they change). */
+  readonly basis: string;
+  readonly onAnalyse: (options: MovieRequestOptions, basis: string) => void;
   readonly onCancel: () => void;
   /** The shown time point changed (its 0-based index in the file). */
   readonly onTimePoint: (tIndex: number) => void;
@@ -117,6 +119,8 @@ export function TimelapseView(p: TimelapseViewProps) {
   const view = movie.view !== null && p.file !== null && movie.view.file === p.file.name ? movie.view : null;
   const n = view?.timeIndices.length ?? 0;
   const running = movie.status === 'running';
+  const basis = JSON.stringify([p.basis, options]);
+  const stale = view !== null && movie.basis !== null && movie.basis !== basis;
   // A new outcome starts at the first time point.
   useEffect(() => { setK(0); setPlaying(false); }, [view]);
   useEffect(() => { if (view !== null && view.timeIndices[k] !== undefined) p.onTimePoint(view.timeIndices[k]); }, [view, k]);
@@ -186,13 +190,14 @@ export function TimelapseView(p: TimelapseViewProps) {
             ) : (
               <button className="primary" data-testid="movie-analyse" disabled={p.sizeT === null}
                 title="Analyse every time point with the current settings and hand edits, as the batch does"
-                onClick={() => p.onAnalyse(options)}>{view === null ? 'Analyse over time' : 'Analyse again'}</button>
+                onClick={() => p.onAnalyse(options, basis)}>{view === null ? 'Analyse over time' : 'Analyse again'}</button>
             )}
             <MenuButton label="Export ▾" items={exportItems} open={exportMenu} onOpen={setExportMenu} disabled={view === null} testId="movie-export" alignRight />
           </>
         )}
       </div>
       {movie.file === p.file.name && movie.status === 'error' && <p className="error tl-hint" data-testid="movie-error">{movie.error}</p>}
+      {stale && <p className="tl-hint tl-stale" data-testid="movie-stale">The settings, this file&apos;s hand edits or the options above changed after this analysis: the figures show the analysis as it was. Analyse again to update them.</p>}
       {movie.file === p.file.name && movie.status === 'cancelled' && <p className="muted tl-hint" data-testid="movie-cancelled">Cancelled; nothing was kept. Analyse again to start over.</p>}
       {view === null && !running && !oneFrame && movie.status !== 'error' && <p className="muted tl-hint">Each time point gets its own projection, background, profile and fit along one axis for the movie; then λ over time, the kymograph and the local accumulation time τ(x) with the synthesis–diffusion–degradation model&apos;s test. The batch writes the same numbers to timecourse.csv and model_fit.csv.</p>}
       {view !== null && draws !== null && (
