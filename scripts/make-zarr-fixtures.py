@@ -35,7 +35,10 @@ CASES = {
     'blosc-lz4-slash-tiles': (Blosc(cname='lz4', clevel=5, shuffle=Blosc.SHUFFLE), (1, 1, 2, 48, 40), '/', 'tczyx'),
     'zlib-czyx-whole-stack': (Zlib(level=6), (2, 4, 256, 256), '.', 'czyx'),
     'zstd-slash-f-order': (Zstd(level=1), (1, 1, 1, 64, 64), '/', 'f-order'),
+    # Three resolution levels: 0 the stack, 1 and 2 every 2nd and 4th pixel along y and x (numpy slicing [::2, ::2]).
+    'blosc-lz4-pyramid': (Blosc(cname='lz4', clevel=5, shuffle=Blosc.SHUFFLE), None, '.', 'pyramid'),
 }
+PYRAMID_LEVELS = 3
 
 
 def read_tczyx(path):
@@ -52,8 +55,8 @@ def read_tczyx(path):
     return np.ascontiguousarray(np.transpose(data, order))
 
 
-def ngff_attrs(names, scale, channels):
-    """NGFF 0.4 .zattrs for one image with one resolution level."""
+def ngff_attrs(names, scale, channels, levels=1):
+    """NGFF 0.4 .zattrs for one image with `levels` resolution levels, each halving y and x."""
     units = {'t': 'second', 'z': 'micrometer', 'y': 'micrometer', 'x': 'micrometer'}
     types = {'t': 'time', 'c': 'channel'}
     axes = []
@@ -67,7 +70,8 @@ def ngff_attrs(names, scale, channels):
             'version': '0.4',
             'name': 'demo',
             'axes': axes,
-            'datasets': [{'path': '0', 'coordinateTransformations': [{'type': 'scale', 'scale': scale}]}],
+            'datasets': [{'path': str(k), 'coordinateTransformations': [{'type': 'scale', 'scale': scale[:-2] + [v * 2 ** k for v in scale[-2:]]}]}
+                         for k in range(levels)],
         }],
         'omero': {'channels': [{'label': c, 'color': 'FFFFFF', 'window': {'start': 0, 'end': 65535, 'min': 0, 'max': 65535}} for c in channels]},
     }
@@ -88,10 +92,13 @@ def write_case(name, stack, out, pixel_um, z_um, channels):
     path = os.path.join(out, f'{name}.ome.zarr')
     store = zarr.DirectoryStore(path, dimension_separator=separator)
     root = zarr.group(store=store, overwrite=True)
-    root.attrs.put(ngff_attrs(names, scale5, channels))
-    array = root.create_dataset('0', shape=data.shape, chunks=chunks,
-                                dtype=data.dtype, compressor=compressor, order=order, dimension_separator=separator)
-    array[...] = data
+    levels = PYRAMID_LEVELS if layout == 'pyramid' else 1
+    root.attrs.put(ngff_attrs(names, scale5, channels, levels))
+    for k in range(levels):
+        level = np.ascontiguousarray(data[..., ::2 ** k, ::2 ** k])
+        array = root.create_dataset(str(k), shape=level.shape, chunks=chunks[:-2] + level.shape[-2:] if k else chunks,
+                                    dtype=data.dtype, compressor=compressor, order=order, dimension_separator=separator)
+        array[...] = level
     return path
 
 

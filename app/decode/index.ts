@@ -3,5 +3,5 @@
 export { createSharpPlaneSource, sharpDecodesExactly } from './sharp-decoder';
 export { openStackForAnalysis, withDecoderFallback, type OpenedStack, type OpenForAnalysisOptions } from './open-for-analysis';
 export { APP_CHUNK_CODECS, decodeLzmaChunk, xzDeclaredSize } from './lzma-codec';
-export { isZarrPath, openZarrStack } from './open-zarr-stack';
+export { isZarrPath, openZarrStack, openZarrFirstPicture } from './open-zarr-stack';
 export { readPreviewPlane, type PreviewPlane } from './preview';

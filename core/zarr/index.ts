@@ -6,7 +6,7 @@ export { micrometresPerSpaceUnit, secondsPerTimeUnit } from './units';
 export { arrayStorage, type ArrayStorage } from './array-meta';
 export { createChunkPlaneSource, type ChunkedArray, type DecodedChunk, type ChunkPlaneOptions } from './plane-reader';
 export { readJson, trackMissingChunks, isMetadataKey, MAX_METADATA_BYTES, type ZarrStore } from './store';
-export { openOmeZarr, type OpenedZarr, type OpenZarrOptions, type ZarrDetails } from './open-zarr';
+export { openOmeZarr, firstPictureLevel, type OpenedZarr, type OpenZarrOptions, type ZarrDetails } from './open-zarr';
 export { describeZarr } from './describe';
 export { guardZarrCodecs, declaredBloscBytes, declaredZstdBytes, type BoundedInflate } from './decode-guard';
 export { decodeBloscLz4, unshuffleBytes } from './blosc-lz4';

@@ -16,6 +16,8 @@ export interface NgffImage {
   readonly axes: readonly NgffAxis[] | null;
   /** Path of the full-resolution array (the first dataset, as NGFF orders them finest first). */
   readonly datasetPath: string;
+  /** Paths of every resolution level, full resolution first (levels whose path is missing or leaves the store are left out). */
+  readonly levelPaths: readonly string[];
   /** Number of resolution levels. */
   readonly levels: number;
   /** Scale of the full-resolution array per axis (dataset scale × multiscale scale), or null when none is given. */
@@ -52,6 +54,16 @@ function parseAxes(raw: unknown, label: string): NgffAxis[] | null {
     const unit = typeof a.unit === 'string' ? a.unit : typeof a.units === 'string' ? a.units : null;
     return { name: a.name, type: typeof a.type === 'string' ? a.type : null, unit };
   });
+}
+
+/** Paths of the datasets in order, stopping before the first one without a usable path. */
+function levelPathsOf(datasets: readonly unknown[]): string[] {
+  const paths: string[] = [];
+  for (const d of datasets) {
+    if (!isObject(d) || typeof d.path !== 'string' || d.path === '' || d.path.split('/').some((part) => part === '..')) break;
+    paths.push(d.path);
+  }
+  return paths;
 }
 
 /** The "scale" of a coordinateTransformations list, checked to have one finite positive entry per axis; null if none. */
@@ -118,6 +130,6 @@ export function parseNgffGroup(attrs: unknown, label: string): NgffGroup {
   const version = omeVersion ?? (typeof ms.version === 'string' ? ms.version : 'unknown');
   return {
     kind: 'image',
-    image: { version, axes, datasetPath: first.path, levels: datasets.length, scale, channelNames: channelLabels(keys.omero), warnings },
+    image: { version, axes, datasetPath: first.path, levelPaths: levelPathsOf(datasets), levels: datasets.length, scale, channelNames: channelLabels(keys.omero), warnings },
   };
 }

@@ -21,6 +21,11 @@ export interface OpenZarrOptions {
   readonly maxCacheBytes?: number;
   /** zlib/gzip decoder that stops at a chunk's size (node:zlib, from core/io); without it zarrita's own is used. */
   readonly inflate?: BoundedInflate;
+  /**
+   * Resolution level to open (0, the default, is full resolution; analysis always uses it). A lower level's pixel
+   * size is the full-resolution one times the ratio of the two levels' widths and heights.
+   */
+  readonly level?: number;
 }
 
 /** Facts about the store beyond StackInfo, for `inspect`. */
@@ -173,6 +178,41 @@ function channelNamesOf(image: NgffImage, sizeC: number, label: string, warnings
   return Array.from({ length: sizeC }, (_, c) => (labels.length === sizeC && labels[c] ? labels[c] : `C${c + 1}`));
 }
 
+/** The shape of the array at `path` from its metadata (no chunk is read); ZarrError when it is missing or malformed. */
+async function levelShape(store: ZarrStore, path: string, zarrFormat: 2 | 3, label: string): Promise<number[]> {
+  const meta = await readJson(store, `/${path}/${zarrFormat === 3 ? 'zarr.json' : '.zarray'}`, label);
+  const shape = meta?.shape;
+  if (!Array.isArray(shape) || !shape.every((v) => Number.isSafeInteger(v) && v > 0)) {
+    throw new ZarrError('bad-metadata', label, `resolution level "${path}" has no valid shape`);
+  }
+  return shape as number[];
+}
+
+/** Pixel size of a lower level: the full-resolution one times the ratio of the levels' sizes along x and y. */
+function scaledPixelSize(full: PixelSize, fullShape: readonly number[], shape: readonly number[], roles: AxisRoles): PixelSize {
+  if (full.xUm === null || full.yUm === null) return full;
+  return { ...full, xUm: full.xUm * (fullShape[roles.x] / shape[roles.x]), yUm: full.yUm * (fullShape[roles.y] / shape[roles.y]) };
+}
+
+/**
+ * The resolution level for a window's first picture: the coarsest level whose planes are at least `viewWidthPx` ×
+ * `viewHeightPx` (so it still fills the view), 0 when no lower level does or the store has one level. Reads only
+ * metadata. Throws ZarrError like openOmeZarr.
+ */
+export async function firstPictureLevel(store: ZarrStore, label: string, viewWidthPx: number, viewHeightPx: number): Promise<number> {
+  const { image, prefix, zarrFormat } = await findImage(store, label);
+  const full = await levelShape(store, `${prefix}${image.levelPaths[0]}`, zarrFormat, label);
+  const roles = assignAxisRoles(image.axes ?? impliedAxes(full.length), full, label);
+  let best = 0;
+  for (let level = 1; level < image.levelPaths.length; level++) {
+    const shape = await levelShape(store, `${prefix}${image.levelPaths[level]}`, zarrFormat, label).catch(() => null);
+    if (!shape || shape.length !== full.length) break;
+    if (shape[roles.x] < viewWidthPx || shape[roles.y] < viewHeightPx) break;
+    best = level;
+  }
+  return best;
+}
+
 /**
  * Chunk reading past zarrita for arrays whose chunks are each one Blosc stream (the common OME-Zarr layout), when the
  * store can decode such streams itself (in another thread): undefined otherwise.
@@ -200,7 +240,11 @@ export async function openOmeZarr(store: ZarrStore, label: string, options: Open
     const text = `${label}: ${missing} chunk(s) missing (first ${key.slice(1)}); read as the fill value`;
     if (missingAt < 0) { missingAt = warnings.length; warnings.push(text); } else warnings[missingAt] = text;
   });
-  const arrayPath = `${prefix}${image.datasetPath}`;
+  const level = options.level ?? 0;
+  if (!(Number.isInteger(level) && level >= 0 && level < image.levelPaths.length)) {
+    throw new ZarrError('bad-metadata', label, `has no resolution level ${level} (${image.levelPaths.length} readable)`);
+  }
+  const arrayPath = `${prefix}${image.levelPaths[level]}`;
   const { array, storage } = await openArray(tracked, arrayPath, zarrFormat, label);
   if (!SAMPLE_TYPES.includes(array.dtype)) throw new ZarrError('unsupported', label, `sample type ${array.dtype} is not supported (8, 16 or 32-bit integers, 32 or 64-bit floats)`);
   const type = array.dtype as SampleType;
@@ -216,7 +260,8 @@ export async function openOmeZarr(store: ZarrStore, label: string, options: Open
     sizeX: array.shape[roles.x], sizeY: array.shape[roles.y], sizeZ: roleSize(array.shape, roles.z), sizeC, sizeT,
     dimensionOrder: dimensionOrderOf(roles), sampleType: type, samplesPerPixel: 1,
     channelNames: channelNamesOf(image, sizeC, label, warnings),
-    pixelSize: pixelSizeOf(image, axes, roles, label, warnings),
+    pixelSize: level === 0 ? pixelSizeOf(image, axes, roles, label, warnings)
+      : scaledPixelSize(pixelSizeOf(image, axes, roles, label, warnings), await levelShape(store, `${prefix}${image.levelPaths[0]}`, zarrFormat, label), array.shape, roles),
     compression: storage.codecs, planeIfd: new Int32Array(0), ifdCount: 0, description: null, warnings: [...warnings],
     ...(timeStepS !== null ? { time: { timesS: Float64Array.from({ length: sizeT }, (_, i) => i * timeStepS), source: 'ome-zarr' as const } } : {}),
   };

@@ -4,12 +4,12 @@ import { cpSync, existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } 
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openStackForAnalysis, type OpenedStack } from '../../app/decode';
+import { openStackForAnalysis, openZarrFirstPicture, type OpenedStack } from '../../app/decode';
 import { bloscChunkThread } from '../../app/decode/zarr-chunk-thread';
 import { inflateZarrChunk, openZarrFolderStore, readBloscChunkFile } from '../../core/io';
 import type { EmbryoResult } from '../../core/model';
 import { analyseStack } from '../../core/pipeline';
-import { decodeBloscLz4, openOmeZarr } from '../../core/zarr';
+import { decodeBloscLz4, firstPictureLevel, openOmeZarr } from '../../core/zarr';
 import Blosc from 'numcodecs/blosc';
 import { DEFAULT_SETTINGS } from '../../core/settings';
 import { allPlanes, comparableResult as comparable, pythonZarrMissing, REFERENCE, writePythonStores, writeReferenceTiff } from './stack-fixture';
@@ -22,7 +22,7 @@ afterAll(() => rmSync(dir, { recursive: true, force: true }));
 // scripts/make-zarr-fixtures.py, one per codec, chunk layout and key separator; the pixels come from tifffile.
 const CASES = [
   'blosc-lz4', 'blosc-lz4hc', 'blosc-zstd', 'blosc-zlib', 'blosc-blosclz', 'zlib', 'gzip', 'zstd', 'none',
-  'blosc-lz4-slash-tiles', 'zlib-czyx-whole-stack', 'zstd-slash-f-order',
+  'blosc-lz4-slash-tiles', 'zlib-czyx-whole-stack', 'zstd-slash-f-order', 'blosc-lz4-pyramid',
 ];
 const settings = { ...DEFAULT_SETTINGS, boundaryChannels: [2] };
 
@@ -122,5 +122,39 @@ describe.skipIf(missing !== null)('OME-Zarr Blosc chunks decoded past zarrita', 
     expect(Array.from((await zarr.source.readPlane(1, 1, 0)).data).every((v) => v === 0)).toBe(true);
     expect(zarr.warnings).toEqual(['damaged-lz4.ome.zarr: 1 chunk(s) missing (first 0/0.1.1.0.0); read as the fill value']);
     await zarr.source.close();
+  });
+});
+
+describe.skipIf(missing !== null)('OME-Zarr resolution levels for the first picture', () => {
+  // Source: NGFF 0.4 multiscales — datasets ordered from the highest resolution down, each with its own scale; the
+  // pyramid written by Python's zarr holds levels 1 and 2 as numpy's [::2, ::2] and [::4, ::4] of the 200×130 stack.
+  const name = 'blosc-lz4-pyramid';
+  const path = () => join(dir, `${name}.ome.zarr`);
+
+  it('picks the coarsest level that still fills the view, and full resolution when no lower level does', async () => {
+    const store = await openZarrFolderStore(path(), name);
+    expect(await firstPictureLevel(store, name, 200, 130)).toBe(0);
+    expect(await firstPictureLevel(store, name, 101, 60)).toBe(0); // level 1 is 100 px wide
+    expect(await firstPictureLevel(store, name, 100, 65)).toBe(1);
+    expect(await firstPictureLevel(store, name, 50, 33)).toBe(2); // level 2: 50 × 33
+    expect(await firstPictureLevel(store, name, 10, 10)).toBe(2);
+    expect(await openZarrFirstPicture(path(), name, 400, 300)).toBeNull();
+  });
+
+  it('opens a lower level with its own pixels and pixel size; analysis still reads level 0', async () => {
+    const tiff = await openStackForAnalysis(join(dir, 'reference.ome.tif'), 'reference.ome.tif');
+    const full = await allPlanes(tiff);
+    await tiff.source.close();
+    const low = await openZarrFirstPicture(path(), name, 60, 40);
+    expect(low).not.toBeNull();
+    expect(low!.details.arrayPath).toBe('1');
+    expect([low!.info.sizeX, low!.info.sizeY]).toEqual([100, 65]);
+    expect(low!.info.pixelSize).toMatchObject({ xUm: 2 * REFERENCE.pixelSizeUm, yUm: 2 * REFERENCE.pixelSizeUm });
+    const subsampled = full.map((plane) => plane.filter((_, i) => Math.floor(i / 200) % 2 === 0 && (i % 200) % 2 === 0));
+    expect(await allPlanes(low!)).toEqual(subsampled);
+    await low!.source.close();
+    const analysed = await openStackForAnalysis(path(), name);
+    expect([analysed.info.sizeX, analysed.info.sizeY]).toEqual([200, 130]);
+    await analysed.source.close();
   });
 });
