@@ -2,7 +2,9 @@
 // time point): t_index and t_s are the last two columns of embryos.csv, boundaries.csv and profiles.csv (appended, so
 // that readers of the older tables by position keep working); t_index is 0 and t_s the file's time (often empty) for a
 // file with one time point.
-import { resultTimeIndex, type Boundary, type EmbryoResult, type Profile } from '../model';
+import { embryoResults, resultTimeIndex, type Boundary, type EmbryoResult, type Profile } from '../model';
+
+export { embryoResults };
 import { toCsv, type CsvValue } from '../csv';
 import { clipMessage, warningsCell } from './messages';
 
@@ -33,21 +35,6 @@ export const PROFILE_COLUMNS = ['file', 'channel', 'x_el', 'x_um', 'mean', 'sd',
 /** The t_index and t_s cells of a result. */
 function timeCells(r: EmbryoResult): CsvValue[] {
   return [resultTimeIndex(r), r.tS ?? null];
-}
-
-/**
- * One result per file, for the tables and statistics that count embryos (embryos.csv, landmarks.csv, the cohort):
- * a file's result with the highest time point — for a movie analysed over time its last analysed time point (the
- * gradient nearest steady state; with --time K, time point K), for any other file its only result. Files keep the
- * order of their first result.
- */
-export function embryoResults(results: readonly EmbryoResult[]): EmbryoResult[] {
-  const chosen = new Map<string, EmbryoResult>();
-  for (const r of results) {
-    const before = chosen.get(r.file);
-    if (before === undefined || resultTimeIndex(r) > resultTimeIndex(before)) chosen.set(r.file, r);
-  }
-  return [...chosen.values()];
 }
 
 /** Columns of landmarks.csv, one row per hand-marked landmark. */

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { withTimePoint } from '../model';
 import { analyseCohort } from './analyse';
 import { CohortError } from './cohort-error';
 import { checkCohortOptions } from './options';
@@ -31,6 +32,16 @@ describe('analyseCohort', () => {
     expect(ref('lambda', 'EL').n).toBe(5);
     expect(ref('egg_length', 'um').n).toBe(6);
     expect(a.warnings).toContain(`λ left out of the statistics for 1 embryo whose fit is not a decaying gradient: ${bad[0].file} (λ = -79.0 µm is not positive; amplitude A = -5.00 is not positive)`);
+  });
+  it('counts a movie once, with its last analysed time point, when given results keyed by (file, time point)', () => {
+    // demo data: the first reference embryo as a movie of three time points whose λ grows towards the embryo's own
+    const [first, ...rest] = demo.results;
+    const at = (t: number, scale: number) => withTimePoint({ ...first, gradientFit: { ...first.gradientFit!, lambdaEl: first.gradientFit!.lambdaEl * scale, lambdaUm: first.gradientFit!.lambdaUm * scale } }, t, 600 * t);
+    const keyed = analyseCohort([at(0, 0.5), at(1, 0.8), at(2, 1), ...rest], sheet);
+    const plain = analyseCohort(demo.results, sheet);
+    const lam = (a: typeof plain) => a.stats.find((s) => s.condition === 'ref' && s.quantity === 'lambda' && s.unit === 'EL')!;
+    expect(lam(keyed).n).toBe(6);
+    expect(lam(keyed).mean).toBe(lam(plain).mean);
   });
   it('positional error of a boundary is its SD across embryos (about the 0.01 EL noise plus λ spread)', () => {
     const a = analyseCohort(demo.results, sheet);

@@ -1,5 +1,5 @@
 // The cohort step end to end (pure): assignment → observations → per-condition statistics → dosage test → profiles.
-import type { EmbryoResult } from '../model';
+import { embryoResults, type EmbryoResult } from '../model';
 import { assignConditions } from './assign';
 import { conditionStats } from './condition-stats';
 import { dosageFits, lambdaTrend, measuredDosages } from './dosage-fit';
@@ -12,9 +12,14 @@ import type { CohortAnalysis, CohortAssignment, CohortOptions, ConditionProfile,
 import { positionQuantities, referenceLambda, shiftRows } from './dosage-test';
 import { meanOf } from './stats-local';
 
-/** Analyse a cohort of embryo results with a sample sheet; throws CohortError for bad sheets or options. */
-export function analyseCohort(results: readonly EmbryoResult[], sheet: SampleSheet, options: CohortOptions = {}): CohortAnalysis {
+/**
+ * Analyse a cohort of embryo results with a sample sheet; throws CohortError for bad sheets or options. Results may be
+ * keyed by (file, time point): each embryo counts once, with its file's highest time point (a movie's last analysed
+ * one; embryoResults).
+ */
+export function analyseCohort(keyed: readonly EmbryoResult[], sheet: SampleSheet, options: CohortOptions = {}): CohortAnalysis {
   const opts = checkCohortOptions(options);
+  const results = embryoResults(keyed);
   const assignment = assignConditions(results, sheet, opts.reference);
   const warnings = [...assignment.warnings];
   const flat = notDecayingFits(assignment.groups.flatMap((g) => g.embryos));

@@ -285,5 +285,5 @@ export interface Detection {
 }
 
 export { errorResult, oneLine } from './error-result';
-export { resultKey, resultKeyOf, resultTimeIndex, parseResultKey, withTimePoint, type ResultKey } from './result-key';
+export { resultKey, resultKeyOf, resultTimeIndex, parseResultKey, withTimePoint, embryoResults, type ResultKey } from './result-key';
 export type * from './cohort';

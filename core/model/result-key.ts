@@ -35,3 +35,18 @@ export function withTimePoint(r: EmbryoResult, tIndex: number, tS: number | null
   const { file, tIndex: _t, tS: _s, ...rest } = r;
   return { file, tIndex, tS: tS !== null && Number.isFinite(tS) ? tS : null, ...rest };
 }
+
+/**
+ * One result per file, for the tables and statistics that count embryos (embryos.csv, landmarks.csv, the cohort):
+ * a file's result with the highest time point — for a movie analysed over time its last analysed time point (the
+ * gradient nearest steady state; with --time K, time point K), for any other file its only result. Files keep the
+ * order of their first result.
+ */
+export function embryoResults(results: readonly EmbryoResult[]): EmbryoResult[] {
+  const chosen = new Map<string, EmbryoResult>();
+  for (const r of results) {
+    const before = chosen.get(r.file);
+    if (before === undefined || resultTimeIndex(r) > resultTimeIndex(before)) chosen.set(r.file, r);
+  }
+  return [...chosen.values()];
+}
