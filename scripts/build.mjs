@@ -3,7 +3,7 @@
 import { build } from 'esbuild';
 import { existsSync } from 'node:fs';
 import { build as viteBuild } from 'vite';
-import { externalExceptEsmOnly } from './bundle-externals.mjs';
+import { externalExceptBundled, externalExceptEsmOnly } from './bundle-externals.mjs';
 
 const nodeEntries = [
   { in: 'app/cli/main.ts', out: 'cli' },
@@ -24,7 +24,7 @@ if (nodeEntries.length > 0) {
     outdir: 'dist',
     format: 'esm',
     outExtension: { '.js': '.mjs' },
-    packages: 'external',
+    plugins: [externalExceptBundled],
     banner: { js: "import { createRequire as __cr } from 'node:module'; const require = __cr(import.meta.url);" },
   });
 }

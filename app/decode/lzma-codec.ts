@@ -1,6 +1,6 @@
 // LZMA (TIFF compression 34925, as libtiff's tif_lzma.c writes it: one .xz stream per strip or tile, with the delta
 // filter before LZMA2) through lzma-native (liblzma), with the stream's own index checked before anything is decoded.
-import lzma from 'lzma-native';
+import type LzmaModule from 'lzma-native';
 import type { ChunkCodecs } from '../../core/tiff';
 import { NODE_CHUNK_CODECS } from '../../core/io';
 
@@ -45,10 +45,19 @@ export function xzDeclaredSize(input: Uint8Array): number {
 /** liblzma's memory limit for one chunk's decoder (LZMA2 dictionaries of libtiff's presets need at most 64 MiB). */
 const MEMLIMIT_BYTES = 256 * 2 ** 20;
 
+let lzmaLoaded: Promise<typeof LzmaModule> | null = null;
+
+/** lzma-native (native liblzma), loaded when the first LZMA chunk is met rather than by every worker at start. */
+function loadLzma(): Promise<typeof LzmaModule> {
+  lzmaLoaded ??= import('lzma-native').then((m) => m.default);
+  return lzmaLoaded;
+}
+
 /** Decodes an .xz chunk into `out`; refuses before decoding when the stream declares more than the chunk holds. */
 export async function decodeLzmaChunk(input: Uint8Array, out: Uint8Array): Promise<number> {
   const declared = xzDeclaredSize(input);
   if (declared > out.length) throw new Error(`the stream declares ${declared} bytes, more than the chunk's ${out.length}`);
+  const lzma = await loadLzma();
   const result = await lzma.decompress(Buffer.from(input.buffer, input.byteOffset, input.length), { memlimit: MEMLIMIT_BYTES });
   const n = Math.min(result.length, out.length);
   out.set(result.subarray(0, n));

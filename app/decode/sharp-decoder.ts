@@ -1,7 +1,39 @@
 // PlaneSource backed by sharp (libvips/libtiff): the fast decoder for the sample types it returns exactly.
-import sharp from 'sharp';
+import type SharpModule from 'sharp';
 import type { PixelArray, PlaneSource, RawPlane, SampleType, StackInfo } from '../../core/model';
 import { checkPlaneIndex, planeSlot, TiffError } from '../../core/tiff';
+
+/** libvips threads to set when sharp is loaded (null: sharp's default). */
+let decoderThreads: number | null = null;
+let sharpLoaded: Promise<typeof SharpModule> | null = null;
+
+/**
+ * sharp, loaded on first use. Why lazily: the direct decode path reads almost every stack without it, and loading
+ * sharp (libvips) cost each batch worker about 0.1 s of CPU and 30 MiB of memory at start.
+ */
+export function loadSharp(): Promise<typeof SharpModule> {
+  sharpLoaded ??= import('sharp').then((m) => {
+    const sharp = m.default;
+    if (decoderThreads !== null) {
+      sharp.concurrency(decoderThreads);
+      sharp.cache(false);
+    }
+    return sharp;
+  });
+  return sharpLoaded;
+}
+
+/**
+ * libvips (inside sharp) keeps its own thread pool per process; with several batch workers it is shrunk so the
+ * workers do not fight over the cores, and its cache is turned off because every plane is read once. Applied when
+ * sharp is loaded (at once when it already is).
+ */
+export function limitDecoderThreads(threads: number): void {
+  decoderThreads = Math.max(1, Math.floor(threads));
+  if (sharpLoaded !== null) {
+    void sharpLoaded.then((sharp) => { sharp.concurrency(decoderThreads!); sharp.cache(false); });
+  }
+}
 
 type RawDepth = 'uchar' | 'char' | 'ushort' | 'uint' | 'int' | 'float';
 
@@ -29,6 +61,7 @@ export function sharpDecodesExactly(info: StackInfo): boolean {
 async function decodePage(path: string, page: number, type: SampleType): Promise<{ data: Buffer; width: number; height: number; channels: number }> {
   const spec = EXACT[type];
   if (!spec) throw new Error(`sharp cannot decode ${type} samples exactly`);
+  const sharp = await loadSharp();
   const image = sharp(path, { page, limitInputPixels: false });
   const pipeline = type === 'uint16' ? image.toColourspace('grey16') : image.extractChannel(0);
   const { data, info } = await pipeline.raw({ depth: spec.depth }).toBuffer({ resolveWithObject: true });

@@ -1,5 +1,8 @@
 // PlaneSource backed by geotiff (pure JS): the fallback decoder and the reference in tests.
-import { GeoTIFF, getDecoder } from 'geotiff';
+import type { GeoTIFF, getDecoder as GetDecoder } from 'geotiff';
+
+/** geotiff, loaded when a plane first falls back to it (it is the fallback decoder, not needed at start). */
+const loadGeotiff = () => import('geotiff');
 import type { PixelArray, PlaneSource, RawPlane, SampleType, StackInfo } from '../model';
 import { cachedByteSource } from './block-cache';
 import { memoryByteSource, type ByteSource } from './byte-source';
@@ -45,7 +48,8 @@ function predictorFixingPool(littleEndian: boolean) {
     bindParameters(compression: number, params: DecoderParameters) {
       return {
         async decode(buffer: ArrayBuffer): Promise<ArrayBuffer> {
-          const asGeotiff = (p: DecoderParameters) => p as unknown as Parameters<typeof getDecoder>[1];
+          const asGeotiff = (p: DecoderParameters) => p as unknown as Parameters<typeof GetDecoder>[1];
+          const { getDecoder } = await loadGeotiff();
           if (params.predictor !== 2) return (await getDecoder(compression, asGeotiff(params))).decode(buffer) as Promise<ArrayBuffer>;
           const raw = (await (await getDecoder(compression, asGeotiff({ ...params, predictor: 1 }))).decode(buffer)) as ArrayBuffer;
           const bits = typeof params.bitsPerSample === 'number' ? [params.bitsPerSample] : Array.from(params.bitsPerSample);
@@ -84,7 +88,7 @@ export function checkPlaneIndex(info: StackInfo, z: number, c: number, t: number
 export function createGeotiffPlaneSource(bytesOrSource: Uint8Array | ByteSource, info: StackInfo, fileLabel = 'file'): PlaneSource {
   const source = bytesOrSource instanceof Uint8Array ? memoryByteSource(bytesOrSource) : bytesOrSource;
   let tiff: Promise<GeoTIFF> | null = null;
-  const openTiff = () => (tiff ??= GeoTIFF.fromSource(toGeotiffSource(source)));
+  const openTiff = () => (tiff ??= loadGeotiff().then((m) => m.GeoTIFF.fromSource(toGeotiffSource(source))));
   const tags = cachedByteSource(source);
   const openChain = lazyIfdChain(tags, fileLabel);
   return {
