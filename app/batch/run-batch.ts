@@ -280,7 +280,9 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
     ok, failed: finished.length - ok, inputs, warnings: [...warnings],
   });
   // The time pass: movies per time point; their results replace the main pass's one result of each movie.
-  const runs = complete && opts.timelapse ? await analyseMovies(folder, tasks.map((t) => t.file), opts.settings, opts.doc, opts.timelapse, opts.onMovie) : [];
+  // A stop request during it ends the time pass before the next movie; movies not reached keep their main-pass row.
+  const runs = complete && opts.timelapse ? await analyseMovies(folder, tasks.map((t) => t.file), opts.settings, opts.doc, opts.timelapse, opts.onMovie, opts.signal) : [];
+  if (complete && opts.timelapse && opts.signal?.aborted) warnings.push('stopped during the time analysis: movies after the last one analysed keep one row (their main-pass time point); rerun to analyse them over time');
   const keyed = withMovieResults(finished, runs);
   const movies: MovieRecord[] = runs.map((r) => r.record);
   const written = await writeBatchOutputs(outDir, keyed, final, movies).catch(failed);

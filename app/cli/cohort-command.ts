@@ -3,7 +3,9 @@ import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { parseArgs } from 'node:util';
 import { joinNegativeValues } from './parse-command-args';
-import { resultsFromJson } from '../../core/batch';
+import { resultsDocFromJson } from '../../core/batch';
+import { timelapseReportSection } from '../batch/timelapse-page';
+import { movieFigures, movieOutcomes } from '../batch/timelapse-pass';
 import type { FilenameRule, Normalisation } from '../../core/cohort';
 import { runCohortStep } from '../cohort/run-cohort';
 
@@ -116,15 +118,18 @@ export async function cohortCommand(argv: readonly string[], io: CohortCommandIo
     } catch (e) {
       throw new Error(`${resultsPath}: cannot read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
     }
-    let results;
+    let doc;
     try {
-      results = resultsFromJson(text);
+      doc = resultsDocFromJson(text);
     } catch (e) {
       throw new Error(`${resultsPath}: ${(e as Error).message.replace(/^results\.json: /, '')}`);
     }
     const runRecord = await readOptionalJson(join(plan.resultsDir, 'run.json'));
+    // Movies analysed over time get the report's time-lapse section, made again from their records and results.
+    const { movies, failures: movieFailures } = movieOutcomes(doc.movies, doc.results);
+    const timelapseHtml = timelapseReportSection(movies.map((movie) => ({ movie, figures: movieFigures(movie) })), movieFailures);
     const out = await runCohortStep({
-      results, failures: [], sampleSheetPath: plan.samples, reference: plan.reference, outDir: plan.outDir, runRecord,
+      results: doc.results, failures: [], timelapseHtml, sampleSheetPath: plan.samples, reference: plan.reference, outDir: plan.outDir, runRecord,
       normalisation: plan.normalisation, lambdaPosteriorEl: plan.lambdaPosteriorEl, equivalenceMargin: plan.equivalenceMargin, ...(plan.rule ? { filenameRule: plan.rule } : {}),
     });
     for (const w of out.warnings) io.stderr.write(`warning: ${w}\n`);

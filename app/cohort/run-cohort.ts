@@ -3,7 +3,7 @@
 import { mkdir, readFile } from 'node:fs/promises';
 import sharp from 'sharp';
 import { basename, join } from 'node:path';
-import type { EmbryoResult } from '../../core/model';
+import { embryoResults, type EmbryoResult } from '../../core/model';
 import {
   analyseCohort, CohortError, conditionsCsv, dosageFitCsv, positionalErrorCsv, sheetFromFilenameRule, parseSampleSheet, shiftsCsv,
   type CohortAnalysis, type FilenameRule, type Normalisation, type SampleSheet,
@@ -73,6 +73,8 @@ function allFailures(opts: CohortStepOptions): { file: string; error: string }[]
 
 /** Run the cohort step and write its outputs; rejects with CohortError (one line, names the file) for bad input. */
 export async function runCohortStep(opts: CohortStepOptions): Promise<CohortStepResult> {
+  // Each embryo once: results may be keyed by (file, time point); a movie counts with its last analysed time point.
+  opts = { ...opts, results: embryoResults(opts.results) };
   if (typeof opts.outDir !== 'string' || opts.outDir.trim() === '') throw new CohortError('outDir must be a non-empty path');
   const warnings: string[] = [];
   const sheet = await loadSheet(opts, warnings);

@@ -65,4 +65,24 @@ describe('a split batch with a movie', () => {
       expect(section).toContain(readFileSync(join(out, 'timelapse', 'timelapse-movie-tau.svg'), 'utf8').trim());
     }
   });
+
+  it('eggline cohort on results with a movie: the movie counts once (its last time point) and the report keeps the time-lapse section', async () => {
+    // Demo data: the sample sheet gains the movie as a fourth embryo of the reference condition.
+    const sheet = join(dir, 'samples-with-movie.csv');
+    const lines = readFileSync(join(demo, 'samples.csv'), 'utf8').trimEnd().split(/\r?\n/);
+    const header = lines[0].split(',');
+    const ref = lines[1].split(',');
+    writeFileSync(sheet, `${[...lines, header.map((h, i) => (h === 'file' ? MOVIE : ref[i])).join(',')].join('\n')}\n`);
+    const out = join(dir, 'cohort');
+    const r = await cli(['cohort', single, '--samples', sheet, '--out', out]);
+    expect(r.code, r.stderr).toBe(0);
+    const conditions = readFileSync(join(out, 'conditions.csv'), 'utf8').split('\r\n').map((l) => l.split(','));
+    const h = conditions[0];
+    const refCondition = ref[header.indexOf('condition')];
+    const lambdaRows = conditions.filter((c) => c[h.indexOf('condition')] === refCondition && c[h.indexOf('quantity')] === 'lambda' && c[h.indexOf('unit')] === 'EL');
+    const before = readFileSync(join(single, 'conditions.csv'), 'utf8').split('\r\n').map((l) => l.split(','))
+      .filter((c) => c[h.indexOf('condition')] === refCondition && c[h.indexOf('quantity')] === 'lambda' && c[h.indexOf('unit')] === 'EL');
+    expect(Number(lambdaRows[0][h.indexOf('n')])).toBe(Number(before[0][h.indexOf('n')]) + 1);
+    expect(readFileSync(join(out, 'report.html'), 'utf8')).toContain(`<h3>${MOVIE}</h3>`);
+  });
 });
