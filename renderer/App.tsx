@@ -205,7 +205,10 @@ export function App() {
         <aside className="right">
           <FitNumbers m={measurement} pixelSizeUm={pixelSizeUm} loading={loading || session.opening} axisSource={axis?.source ?? null}
             file={entry === null ? null : { name: entry.name, status: statusOf(entry), result: resultFor(entry.name) ?? null }}
-            settingsFitRangeEl={edits.fitRangeEl === null ? null : settings.fitRangeEl} />
+            settingsFitRangeEl={edits.fitRangeEl === null ? null : settings.fitRangeEl}
+            dorsal={state.doc.settings.profile.mode === 'edge' && state.doc.settings.profile.edgeSide !== 'both'
+              ? { own: edits.dorsalSide ?? null, shared: state.doc.settings.profile.dorsalSide, onChange: (side) => dispatch({ type: 'setDorsalSide', side }) }
+              : null} />
           <ChannelPanel state={state} dispatch={dispatch} planes={planes} names={names} sizeZ={stack?.info.sizeZ ?? 1} zSlice={zSlice} onZSlice={setZSlice} />
           <LandmarkList landmarks={measurement?.landmarks ?? []} selected={state.selectedLandmark} dispatch={dispatch} axis={axis} />
         </aside>

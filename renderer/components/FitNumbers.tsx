@@ -21,6 +21,27 @@ export interface FitNumbersProps {
   readonly file: ShownFile | null;
   /** The settings' fit range, x/EL, when the file uses its own instead (null when it follows the settings). */
   readonly settingsFitRangeEl?: readonly [number, number] | null;
+  /** This file's own dorsal side (null: the shared setting's, `sharedDorsalSide`), and how to change it. */
+  readonly dorsal?: {
+    readonly own: 'left' | 'right' | null;
+    readonly shared: 'left' | 'right';
+    readonly onChange: (side: 'left' | 'right' | null) => void;
+  } | null;
+}
+
+/** This file's dorsal side: the shared setting, or left/right of A→P for a flipped or mirrored embryo. */
+export function DorsalSideControl({ own, shared, onChange }: NonNullable<FitNumbersProps['dorsal']>) {
+  return (
+    <label className="field" title="which side of the A→P line is dorsal in this file; the edge band and the overlay follow it; saved in the project">
+      <span>dorsal side (this file)</span>
+      <select data-testid="file-dorsal-side" value={own ?? 'shared'}
+        onChange={(e) => onChange(e.target.value === 'shared' ? null : (e.target.value as 'left' | 'right'))}>
+        <option value="shared">as the settings ({shared === 'left' ? 'left' : 'right'} of A→P)</option>
+        <option value="left">left of A→P</option>
+        <option value="right">right of A→P</option>
+      </select>
+    </label>
+  );
 }
 
 /** Why λ can come out negative, and what to check: with the automatic axis the anterior pole is already the high end
@@ -45,7 +66,7 @@ function FileNote({ file }: { file: ShownFile }) {
 }
 
 /** Table of fit results for the shown embryo. */
-export function FitNumbers({ m, pixelSizeUm, loading, axisSource, file, settingsFitRangeEl = null }: FitNumbersProps) {
+export function FitNumbers({ m, pixelSizeUm, loading, axisSource, file, settingsFitRangeEl = null, dorsal = null }: FitNumbersProps) {
   const f = m?.fit ?? null;
   const rows: [string, string, string?][] = [
     ['λ', f === null ? '—' : `${fmt(f.lambdaUm)} ± ${fmt(f.lambdaSeUm, 2)} µm`, 'lambda-um'],
@@ -62,6 +83,7 @@ export function FitNumbers({ m, pixelSizeUm, loading, axisSource, file, settings
     <section className="panel fit-numbers" data-testid="fit-numbers">
       <h3>Gradient fit <span className="muted">A·e^(−x/λ)+B{loading ? ' · loading…' : ''}</span></h3>
       {file !== null && <FileNote file={file} />}
+      {file !== null && dorsal !== null && <DorsalSideControl {...dorsal} />}
       <table><tbody>
         {rows.map(([k, v, id]) => <tr key={k}><th>{k}</th><td data-testid={id}>{v}</td></tr>)}
         {m?.boundaries.map((b, i) => <tr key={`b${i}`}><th>{b.channel} {b.method}</th><td>{b.positionEl === null ? (b.note ?? '—') : `${fixed(b.positionEl, 3)} EL · ${fmt(b.positionUm)} µm · ${b.direction}`}</td></tr>)}

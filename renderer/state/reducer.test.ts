@@ -137,6 +137,20 @@ describe('setFitRange', () => {
   });
 });
 
+describe('setDorsalSide', () => {
+  it('sets the shown file\'s own dorsal side in its project entry, which undo takes back and null clears', () => {
+    const s = reduce(opened(), { type: 'setDorsalSide', side: 'right' });
+    expect(s.doc.files['e1.tif'].dorsalSide).toBe('right');
+    expect(s.past).toHaveLength(1);
+    expect(reduce(s, { type: 'undo' }).doc.files['e1.tif']?.dorsalSide ?? null).toBe(null);
+    expect(reduce(s, { type: 'setDorsalSide', side: null }).doc.files['e1.tif']?.dorsalSide ?? null).toBe(null);
+  });
+  it('does nothing without a shown file', () => {
+    const s = initialState();
+    expect(reduce(s, { type: 'setDorsalSide', side: 'left' })).toBe(s);
+  });
+});
+
 describe('setSetting', () => {
   it('merges into the settings and enters history', () => {
     const s = reduce(opened(), { type: 'setSetting', patch: { projection: 'max' } });

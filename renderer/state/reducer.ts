@@ -1,7 +1,7 @@
 // The editor reducer: runs one named action and keeps the undo history of the document.
 import { resetAxis, setAxisHandle, swapPoles } from './axisActions';
 import { addLandmark, deleteLandmark, moveLandmark, renameLandmark } from './landmarkActions';
-import { setFitRange, setSetting } from './settingsActions';
+import { setDorsalSide, setFitRange, setSetting } from './settingsActions';
 import { entriesForChange, entryApplies, restoreEntry, sameScope, snapshotLike } from './history';
 import type { ActionOutcome, EditorAction, EditorState } from './types';
 import {
@@ -26,6 +26,7 @@ export function perform(state: EditorState, action: EditorAction): ActionOutcome
     case 'deleteLandmark': return deleteLandmark(state, action.index);
     case 'selectLandmark': return selectLandmark(state, action.index);
     case 'setFitRange': return setFitRange(state, action.rangeEl, action.coalesce);
+    case 'setDorsalSide': return setDorsalSide(state, action.side);
     case 'setSetting': return setSetting(state, action.patch);
     case 'setChannelDisplay': return setChannelDisplay(state, action.index, action.patch);
     case 'initChannelDisplay': return initChannelDisplay(state, action.channels);

@@ -22,6 +22,12 @@ export function setFitRange(state: EditorState, rangeEl: readonly [number, numbe
   return { state: withEdits(state, { fitRangeEl: range }), history: coalesce ? 'none' : 'push' };
 }
 
+/** Set which side of A→P is dorsal for the shown file (null: follow the shared setting); saved in its project entry. */
+export function setDorsalSide(state: EditorState, side: 'left' | 'right' | null): ActionOutcome {
+  if (state.current === null) return { state, history: 'none' };
+  return { state: withEdits(state, { dorsalSide: side }), history: 'push' };
+}
+
 /** Merge `patch` into the analysis settings (shared by every file of the project); nested groups merge key by key.
  *  Settings that break a rule of the settings table are not taken (the fields refuse them first, with the message). */
 export function setSetting(state: EditorState, patch: SettingsOverrides): ActionOutcome {

@@ -71,6 +71,7 @@ export type EditorAction =
   | { type: 'deleteLandmark'; index: number }
   | { type: 'selectLandmark'; index: number | null }
   | { type: 'setFitRange'; rangeEl: readonly [number, number]; coalesce?: boolean }
+  | { type: 'setDorsalSide'; side: 'left' | 'right' | null }
   | { type: 'setSetting'; patch: SettingsOverrides }
   | { type: 'setChannelDisplay'; index: number; patch: Partial<ChannelDisplay> }
   | { type: 'initChannelDisplay'; channels: readonly ChannelDisplay[] }
