@@ -164,7 +164,8 @@ describe('editor window', { timeout: 150_000 }, () => {
     await page.getByTestId('edge-depth').press('Enter');
     await expect.poll(async () => (await saved()).settings.profile.edgeDepthUm, { timeout: 10_000 }).toBe(10);
     expect((await saved()).settings.fitRangeEl).toEqual([0.1, 0.6]);
-    expect(await text(page, 'save-status')).toMatch(/^saved/);
+    // The status may still say "saving…" for a moment after the file is written.
+    await expect.poll(() => text(page, 'save-status'), { timeout: 10_000 }).toMatch(/^saved/);
     // Back to the demo's values for the tests that follow.
     await page.getByTestId('fit-range-from').fill('0.1');
     await page.getByTestId('fit-range-from').press('Enter');
@@ -173,6 +174,33 @@ describe('editor window', { timeout: 150_000 }, () => {
     await expect.poll(async () => (await saved()).settings.profile.edgeDepthUm, { timeout: 10_000 }).toBe(12);
     await expect.poll(() => page.getByTestId('field-error-fit-range').count()).toBe(0);
     await expect.poll(() => text(page, 'lambda-um'), { timeout: 10_000 }).toBe(lambdaAfterEdits);
+  });
+
+  it('switching the profile mode shows that sampler\'s own settings, its region on the image, and its numbers', async () => {
+    const { page } = h;
+    // [polygons, points] of the drawn region. Source: core/profile/samplers (the axis strip is one rectangle, the edge
+    // band the contours of its pixels: many points).
+    const shape = async () => {
+      const d = (await page.getByTestId('band').getAttribute('d')) ?? '';
+      return [d.split('M').length - 1, d.split(',').length - 1];
+    };
+    const isBand = async () => { const [polygons, points] = await shape(); return polygons >= 1 && points > 4 * polygons; };
+    await expect.poll(isBand, { timeout: 10_000 }).toBe(true);
+    await page.getByTestId('profile').selectOption('axis');
+    await expect.poll(() => page.getByTestId('strip-width').count()).toBe(1);
+    expect(await page.getByTestId('edge-depth').count()).toBe(0);
+    await expect.poll(shape, { timeout: 10_000 }).toEqual([1, 4]);
+    await expect.poll(() => text(page, 'lambda-um'), { timeout: 10_000 }).not.toBe(lambdaAfterEdits);
+    await shot(page, '04d-axis-strip');
+    await page.getByTestId('profile').selectOption('edge');
+    await expect.poll(() => page.getByTestId('edge-depth').count()).toBe(1);
+    await expect.poll(isBand, { timeout: 10_000 }).toBe(true);
+    await expect.poll(() => text(page, 'lambda-um'), { timeout: 10_000 }).toBe(lambdaAfterEdits);
+    // The project is saved with the edge band again before the next test reloads it.
+    const projectFile = join(dataDir, 'demo', 'eggline-project.json');
+    const savedMode = async () => (JSON.parse(await fs.readFile(projectFile, 'utf8')) as { settings: { profile: { mode: string } } }).settings.profile.mode;
+    await expect.poll(savedMode, { timeout: 10_000 }).toBe('edge');
+    await expect.poll(() => text(page, 'save-status'), { timeout: 10_000 }).toMatch(/^saved/);
   });
 
   it('after a reload with fresh handlers on the same data folder, everything is restored', async () => {

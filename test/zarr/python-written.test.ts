@@ -4,7 +4,7 @@ import { cpSync, existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } 
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openStackForAnalysis, openZarrFirstPicture, type OpenedStack } from '../../app/decode';
+import { openStackForAnalysis, openZarrFirstPicture, readPreviewPlane, type OpenedStack } from '../../app/decode';
 import { bloscChunkThread } from '../../app/decode/zarr-chunk-thread';
 import { inflateZarrChunk, openZarrFolderStore, readBloscChunkFile } from '../../core/io';
 import type { EmbryoResult } from '../../core/model';
@@ -153,6 +153,12 @@ describe.skipIf(missing !== null)('OME-Zarr resolution levels for the first pict
     const subsampled = full.map((plane) => plane.filter((_, i) => Math.floor(i / 200) % 2 === 0 && (i % 200) % 2 === 0));
     expect(await allPlanes(low!)).toEqual(subsampled);
     await low!.source.close();
+    // The window's first picture: the middle slice of the first channel, from the level that fills the view.
+    const preview = await readPreviewPlane(path(), name, 0, { width: 60, height: 40 });
+    expect([preview.width, preview.height, preview.z]).toEqual([100, 65, 1]);
+    expect(Array.from(preview.data)).toEqual(subsampled[1 * 2 + 0]);
+    const fullPreview = await readPreviewPlane(path(), name);
+    expect([fullPreview.width, fullPreview.height]).toEqual([200, 130]);
     const analysed = await openStackForAnalysis(path(), name);
     expect([analysed.info.sizeX, analysed.info.sizeY]).toEqual([200, 130]);
     await analysed.source.close();

@@ -184,7 +184,7 @@ export function TimelapseView(p: TimelapseViewProps) {
             {running ? (
               <>
                 <progress max={Math.max(1, movie.total)} value={movie.done} data-testid="movie-progress" />
-                <span className="muted" data-testid="movie-progress-text">{movie.total > 0 ? `time point ${movie.done} of ${movie.total}` : 'finding the embryo over the movie…'}</span>
+                <span className="muted" data-testid="movie-progress-text">{movie.total > 0 ? `time point ${movie.done} of ${movie.total}` : 'finding the embryo over the movie…'}{movie.file !== p.file.name ? ` (${movie.file})` : ''}</span>
                 <button data-testid="movie-cancel" onClick={p.onCancel}>Cancel</button>
               </>
             ) : (
