@@ -4,6 +4,7 @@ import { errorResult, oneLine, type EmbryoResult, type StackInfo } from '../../c
 import { analysisBytesEstimate, WORKER_BASE_BYTES } from '../../core/tiff';
 import { formatByteSize as formatBytes } from '../../core/batch';
 import { analyse, openStack } from './deps';
+import { loadImageCorrections } from './correction-images';
 import { hashingByteSource, type HashingByteSource } from './hashing-source';
 import type { BatchTask, InputDigest } from './task';
 
@@ -49,8 +50,10 @@ async function analyseOpened(task: BatchTask, wrapSource: ((s: Parameters<typeof
     opened = await openStack(task.path, task.file, wrapSource ? { wrapSource } : {});
     const refusal = task.maxMemoryBytes === undefined ? null : memoryRefusal(opened.info, task.maxMemoryBytes);
     if (refusal !== null) return errorResult(task.file, `${task.file}: ${refusal}`, opened.info.warnings);
+    // Relative paths of the correction images are taken from the input folder (the task's path minus its file).
+    const corrections = await loadImageCorrections(task.settings, task.path.slice(0, task.path.length - task.file.length) || '.');
     const result = await analyse(opened.info, opened.source, task.settings,
-      task.handEdits ? { fileLabel: task.file, handEdits: task.handEdits } : { fileLabel: task.file });
+      { fileLabel: task.file, ...(task.handEdits ? { handEdits: task.handEdits } : {}), corrections });
     const warnings = [...result.warnings, ...opened.warnings.filter((w) => !result.warnings.includes(w))];
     const error = result.status === 'error' && result.error ? fileMessage(task.file, result.error) : result.error;
     return { ...result, file: task.file, error, warnings };

@@ -1,7 +1,7 @@
 // Adapters to the modules of other areas that the batch uses (decoder, pipeline), kept in one place.
 import type { EmbryoResult, HandEdits, PlaneSource, StackInfo } from '../../core/model';
 import type { AnalysisSettings } from '../../core/settings';
-import { analyseStack } from '../../core/pipeline';
+import { analyseStack, type ImageCorrections } from '../../core/pipeline';
 import { openStackForAnalysis, type OpenForAnalysisOptions } from '../decode';
 
 export { openFileByteSource as openByteSource } from '../../core/io';
@@ -13,7 +13,7 @@ export function openStack(path: string, label: string, options: OpenForAnalysisO
 
 /** Analyse one opened stack (never throws for bad data: returns status 'error'). */
 export function analyse(
-  info: StackInfo, source: PlaneSource, settings: AnalysisSettings, opts: { fileLabel: string; handEdits?: HandEdits },
+  info: StackInfo, source: PlaneSource, settings: AnalysisSettings, opts: { fileLabel: string; handEdits?: HandEdits; corrections?: ImageCorrections | null },
 ): Promise<EmbryoResult> {
   return analyseStack(info, source, settings, opts);
 }

@@ -17,6 +17,7 @@ import { settingsInForce, type AnalysisSettings } from '../../core/settings';
 import type { ShardSpec } from '../../core/shard';
 import { analyseFile } from './analyse-file';
 import { runCohort } from './cohort-adapter';
+import { correctionRecord, loadImageCorrections } from './correction-images';
 import { sha256File } from './hash-file';
 import { openJournal, readJournal, settingsKey } from './journal-file';
 import { isInside, listStackFiles } from './list-stacks';
@@ -184,6 +185,19 @@ function endNote(reason: RunEndReason | null, done: number, total: number): stri
   return `an error stopped the batch: ${tables}`;
 }
 
+/** The correction images' record for run.json, after reading them once (a file that cannot be read or used stops
+ *  the run before any stack is analysed, with one line); null when the settings name none. */
+async function checkedCorrections(settings: RunBatchOptions['settings'], folder: string): Promise<RunRecord['corrections'] | null> {
+  const loading = loadImageCorrections(settings, folder);
+  if (loading === null) return null;
+  try {
+    await loading;
+    return await correctionRecord(settings, folder);
+  } catch (e) {
+    throw new BatchOptionError(e instanceof Error ? e.message : String(e));
+  }
+}
+
 /** Run a batch over `folder`, writing outputs to `outDir`. Rejects only for unusable options (BatchOptionError) or I/O on the output. */
 export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   const folder = resolve(opts.folder);
@@ -204,13 +218,14 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
     return opts.maxMemoryBytes === undefined ? task : { ...task, maxMemoryBytes: opts.maxMemoryBytes };
   });
   const software = await softwareVersions();
+  const corrections = await checkedCorrections(opts.settings, folder);
   const timeoutMs = (opts.timeoutPerFileS ?? DEFAULT_TIMEOUT_PER_FILE_S) * 1000;
   const record = (over: Partial<RunRecord>): RunRecord => ({
     schema: 'eggline-run', version: 2, runId, software, startedAt, endedAt: new Date().toISOString(),
     commandLine: opts.commandLine ?? null, folder, outDir, projectFile: opts.projectFile ?? null, configFile: opts.configFile ?? null,
     settings: opts.settings, jobs: opts.jobs, timeoutPerFileS: timeoutMs / 1000, maxMemoryBytes: opts.maxMemoryBytes ?? null, cancelled: false, complete: false, reason: 'killed',
     note: 'written when the run started; no later record replaced it, so the run was killed (or is still running) and the tables here are not a finished run',
-    reused: 0, ok: 0, failed: 0, inputs: [], warnings: [...warnings], ...(part ? { shard: part.info } : {}), ...over,
+    reused: 0, ok: 0, failed: 0, inputs: [], warnings: [...warnings], ...(corrections ? { corrections } : {}), ...(part ? { shard: part.info } : {}), ...over,
   });
   await fs.mkdir(outDir, { recursive: true });
   const earlier = opts.resume === true ? await readJournal(outDir) : null;

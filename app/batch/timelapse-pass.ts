@@ -3,7 +3,7 @@
 // (λ(t), τ(x), the model fit) and written as tables, SVG figures and a page. The summary is made from the records and
 // results alone, so a merge of parts makes the same one.
 import { promises as fs } from 'node:fs';
-import { join } from 'node:path';
+import { dirname, join } from 'node:path';
 import { editsForFile, embryoMeasureRow, EMBRYO_MEASURE_COLUMNS, normalizeResult, summaryBoundary } from '../../core/batch';
 import { toCsv, type CsvValue } from '../../core/csv';
 import type { ProjectDoc } from '../../core/contract';
@@ -12,6 +12,7 @@ import {
   resultKey, resultKeyOf, withTimePoint, type EmbryoResult, type HandEdits, type MovieRecord, type PlaneSource, type ProjectedStack, type StackInfo,
 } from '../../core/model';
 import { analyseMovie } from '../../core/pipeline';
+import { loadImageCorrections } from './correction-images';
 import { settingsInForce, type AnalysisSettings } from '../../core/settings';
 import { pagesAsTimePoints, resolveTimeAxis } from '../../core/tiff';
 import {
@@ -98,7 +99,7 @@ export interface MovieHooks {
  */
 async function analyseOpenedMovie(
   opened: { info: StackInfo; source: PlaneSource }, file: string, settings: AnalysisSettings, doc: ProjectDoc | null,
-  options: TimelapseOptions, hooks: MovieHooks,
+  options: TimelapseOptions, hooks: MovieHooks, baseDir: string,
 ): Promise<MovieRun | null> {
   const info = asMovie(opened.info, options.timeStepS);
   if (info.sizeT <= 1) return null;
@@ -107,7 +108,9 @@ async function analyseOpenedMovie(
   const warnings: string[] = [];
   const axis = resolveTimeAxis(info, options.timeStepS, warnings);
   const own = editsAt(doc, file, settings, null);
+  const corrections = await loadImageCorrections(settings, baseDir);
   const m = await analyseMovie(info, opened.source, own.settings, {
+    corrections,
     fileLabel: file, handEdits: own.handEdits, editsAt: (t) => editsAt(doc, file, settings, t),
     timeIndices: picked, axisPerTime: options.axisPerTime, ...hooks,
   });
@@ -129,7 +132,7 @@ export async function analyseMovieFile(
   try {
     opened = await openStack(join(folder, file), file).catch(() => null);
     if (!opened) return null;
-    return await analyseOpenedMovie(opened, file, settings, doc, options, {});
+    return await analyseOpenedMovie(opened, file, settings, doc, options, {}, folder);
   } catch (e) {
     return { record: failedRecord(file, fileMessage(file, e), settings, options), results: [] };
   } finally {
@@ -146,7 +149,7 @@ export async function analyseMovieAtPath(
 ): Promise<MovieOutcome> {
   const opened = await openStack(path, file);
   try {
-    const r = await analyseOpenedMovie(opened, file, settings, doc, options, hooks);
+    const r = await analyseOpenedMovie(opened, file, settings, doc, options, hooks, path.endsWith(file) && path.length > file.length ? path.slice(0, path.length - file.length) : dirname(path));
     if (r === null) throw new Error(`${file}: has one time point; the time-lapse view needs a movie`);
     if (r.record.error !== null) throw new Error(r.record.error);
     return movieOutcomes([r.record], r.results).movies[0];

@@ -128,7 +128,14 @@ export async function planBatch(given: readonly string[]): Promise<BatchPlan | '
     throw new UsageError(`sample sheet not found: ${v.samples}`, 'batch');
   }
   const typed = v as Record<string, string | string[] | boolean | undefined>;
-  const flags = parseSettingsFlags(Object.fromEntries(SETTINGS.map((s) => [flagKey(s.flag), typed[s.flag.slice(2)] as string | string[] | undefined])));
+  const parsedFlags = parseSettingsFlags(Object.fromEntries(SETTINGS.map((s) => [flagKey(s.flag), typed[s.flag.slice(2)] as string | string[] | undefined])));
+  // Image paths given on the command line are taken from the current folder (in project and config files, from the
+  // input folder).
+  const flags: SettingsOverrides = {
+    ...parsedFlags,
+    ...(typeof parsedFlags.flatFieldFile === 'string' ? { flatFieldFile: resolve(parsedFlags.flatFieldFile) } : {}),
+    ...(typeof parsedFlags.backgroundImageFile === 'string' ? { backgroundImageFile: resolve(parsedFlags.backgroundImageFile) } : {}),
+  };
   const config = v.config !== undefined ? await readConfig(v.config) : {};
   const project = await readProject(v.project, folder, v['no-project'] === true);
   const [jobsText, memoryText, timeoutText] = ['jobs', 'maxMemoryBytes', 'fileTimeoutS'].map((k) => runText(v, k));

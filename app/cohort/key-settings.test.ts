@@ -11,6 +11,10 @@ describe('keySettings', () => {
       ['profile', 'edge band, both side(s), 12 µm deep'], ['fit range', '0.1 to 0.6 x/EL'], ['background', 'outside the embryo'],
     ]);
   });
+  it('names the flat-field and background images with the start of their SHA-256 when the run used them', () => {
+    const record = { settings: {}, corrections: { flatField: { file: '/data/flat.tif', sha256: 'a'.repeat(64) }, backgroundImage: null } };
+    expect(keySettings(record)).toEqual([['flat-field image (divided by)', `/data/flat.tif (SHA-256 ${'a'.repeat(12)}…)`]]);
+  });
   it('skips what the record does not have, and never throws on odd shapes', () => {
     expect(keySettings(null)).toEqual([]);
     expect(keySettings({ settings: [] })).toEqual([]);

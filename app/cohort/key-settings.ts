@@ -34,7 +34,16 @@ function backgroundText(b: unknown): string {
   return mode === 'none' ? 'none (raw intensities)' : typeof mode === 'string' ? mode : '';
 }
 
-/** [setting, value] rows: gradient and boundary channels, projection, profile mode, fit range, background. */
+/** "flat.tif (SHA-256 1a2b3c4d5e6f…)" for a correction image of the run record, '' when none was used. */
+function imageText(entry: unknown): string {
+  const file = at(entry, ['file']);
+  const sha = at(entry, ['sha256']);
+  if (typeof file !== 'string') return '';
+  return typeof sha === 'string' ? `${file} (SHA-256 ${sha.slice(0, 12)}…)` : file;
+}
+
+/** [setting, value] rows: gradient and boundary channels, projection, profile mode, fit range, background, and the
+ *  flat-field and background images when the run used them. */
 export function keySettings(runRecord: unknown): [string, string][] {
   const s = at(runRecord, ['settings']);
   const boundaries = at(s, ['boundaryChannels']);
@@ -46,6 +55,8 @@ export function keySettings(runRecord: unknown): [string, string][] {
     ['profile', profileText(at(s, ['profile']))],
     ['fit range', Array.isArray(range) && range.length === 2 ? `${String(range[0])} to ${String(range[1])} x/EL` : ''],
     ['background', backgroundText(at(s, ['background']))],
+    ['background image (subtracted)', imageText(at(runRecord, ['corrections', 'backgroundImage']))],
+    ['flat-field image (divided by)', imageText(at(runRecord, ['corrections', 'flatField']))],
   ];
   return rows.filter(([, v]) => v !== '');
 }

@@ -13,7 +13,7 @@ describe('dosageReading', () => {
     expect(r.findings.map((f) => f.quantity)).toEqual(['boundary:target:logistic', 'boundary:target:half-max', 'landmark:furrow']);
     expect(r.findings.map((f) => f.label)).toEqual(['boundary in ‘target’ (logistic)', 'boundary in ‘target’ (half-max)', 'landmark ‘furrow’']);
     const s = r.findings[0].sentences;
-    expect(s[0]).toMatch(/^The boundary in ‘target’ \(logistic\) moves λ_eff\/λ_ref = \d\.\d+ \[-?\d\.\d+, \d\.\d+\] times the shift a fixed threshold on this gradient predicts \(95% CI, /);
+    expect(s[0]).toMatch(/^The boundary in ‘target’ \(logistic\) moves λ_eff\/λ_ref = \d\.\d+ \[-?\d\.\d+, \d\.\d+\] times the shift a fixed threshold on this gradient predicts \(95% CI by the delta method, the uncertainties of the slope and of the reference λ both counted; Fieller's CI (\S+ to \S+, g = \S+|unbounded.*)\)\./);
     expect(s[0]).toContain('A ratio of 1 is not rejected at the 0.05 level. Not rejecting 1 does not show agreement');
     expect(s.join(' ')).not.toMatch(/consistent with|inside that interval/);
     expect(s[1]).toMatch(/^Slope of position on ln f: 0\.\d+ x\/EL per unit ln f \(95% CI .+\), fitted to the 3 condition means \(15 embryos; t on 1 degree of freedom; /);

@@ -55,7 +55,7 @@ function ratioSentence(fit: DosageFit, a: CohortAnalysis, pct: number): string {
   const label = quantityLabel(fit.quantity);
   const r = slopeRatio(fit, a.referenceLambda, a.options.level);
   if (r.ratio === null || r.ratioCiLow === null || r.ratioCiHigh === null) return `The ${label} has no predicted shift: the reference has no fitted λ.`;
-  const head = `The ${label} moves λ_eff/λ_ref = ${withCi(r.ratio, r.ratioCiLow, r.ratioCiHigh)} times the shift a fixed threshold on this gradient predicts (${pct}% CI, the uncertainties of the slope and of the reference λ both counted).`;
+  const head = `The ${label} moves λ_eff/λ_ref = ${withCi(r.ratio, r.ratioCiLow, r.ratioCiHigh)} times the shift a fixed threshold on this gradient predicts (${pct}% CI by the delta method, the uncertainties of the slope and of the reference λ both counted; ${fiellerText(r)}).`;
   const alpha = plainNumber(1 - a.options.level);
   if (r.ratioCiLow <= 1 && r.ratioCiHigh >= 1) return `${head} A ratio of 1 is not rejected at the ${alpha} level.${equivalenceSentence(fit, a)}`;
   const way = r.ratioCiHigh < 1 ? 'less' : 'more';
@@ -99,6 +99,14 @@ export function r2Text(r2: number): string {
   return Number.isFinite(r2) && r2 > 0.9995 && r2 < 1 ? '> 0.999' : sigFig(r2, 3);
 }
 
+/** "Fieller's CI 0.79 to 1.00, g = 0.003" (or unbounded when g ≥ 1): the ratio's interval without assuming it normal. */
+export function fiellerText(r: { ratioFiellerLow: number | null; ratioFiellerHigh: number | null; fiellerG: number | null }): string {
+  if (r.fiellerG === null) return "Fieller's CI n/a";
+  const g = `g = ${sigFig(r.fiellerG, 2)}`;
+  if (r.ratioFiellerLow === null || r.ratioFiellerHigh === null) return `Fieller's CI unbounded, ${g} ≥ 1: the prediction is not distinguishable from 0`;
+  return `Fieller's CI ${valueWithCi(r.ratioFiellerLow, r.ratioFiellerLow, r.ratioFiellerHigh, { style: 'words' }).ci}, ${g}`;
+}
+
 function shiftSentence(s: ShiftRow): string {
   const dir = s.observedShiftEl > 0 ? 'posterior' : 'anterior';
   const expected = s.lnF === null || s.lnF === 0 ? '' : (s.lnF > 0) === (s.observedShiftEl > 0) ? ' (the direction the model expects)' : ' (opposite to the direction the model expects)';
@@ -106,7 +114,7 @@ function shiftSentence(s: ShiftRow): string {
   const moved = valueWithCi(Math.abs(s.observedShiftEl), s.ciLow, s.ciHigh).value;
   const pred = s.predictedShiftEl === null ? 'n/a' : (({ value, ci }) => ci === 'n/a' ? value : `${value} (CI ${ci})`)(valueWithCi(s.predictedShiftEl, s.predictedCiLow, s.predictedCiHigh, { signed: true, style: 'words' }));
   const ratio = s.ratio !== null
-    ? (({ value, ci }) => `; observed/predicted ${value} (CI ${ci}), p(ratio = 1) = ${pText(s.pRatio)}, Holm-adjusted ${pText(s.pRatioHolm)}`)(valueWithCi(s.ratio, s.ratioCiLow, s.ratioCiHigh, { style: 'words' }))
+    ? (({ value, ci }) => `; observed/predicted ${value} (CI ${ci}; ${fiellerText(s)}), p(ratio = 1) = ${pText(s.pRatio)}, Holm-adjusted ${pText(s.pRatioHolm)}`)(valueWithCi(s.ratio, s.ratioCiLow, s.ratioCiHigh, { style: 'words' }))
     : '';
   return `${s.condition} (f = ${plainNumber(s.lnF !== null ? Math.exp(s.lnF) : null)}, n = ${s.nCondition} vs ${s.nReference} in the reference): moved ${moved} x/EL ${dir}${expected}, CI ${obs.ci}; predicted ${pred}${ratio}.`;
 }

@@ -1,5 +1,7 @@
 // The real analysis services: sharp decoding (app/decode), the core pipeline, the batch engine and the demo writer.
-import { detectEmbryo, projectStack } from '../../core/pipeline';
+import { applyImageCorrections, detectEmbryo, projectStack } from '../../core/pipeline';
+import { dirname } from 'node:path';
+import { loadImageCorrections } from '../batch/correction-images';
 import type { BatchSummary, CohortSummary } from '../../core/contract';
 import type { Detection } from '../../core/model';
 import type { AnalysisSettings } from '../../core/settings';
@@ -16,7 +18,11 @@ import { placeholderDetection } from './placeholder-detection';
 async function loadForView(path: string, label: string, settings: AnalysisSettings): Promise<ViewData> {
   const opened = await openStackForAnalysis(path, label);
   try {
-    const projected = await projectStack(opened.info, opened.source, settings);
+    const raw = await projectStack(opened.info, opened.source, settings);
+    // The flat field and background image, as the batch applies them (relative paths from the folder of the file list).
+    const baseDir = path.endsWith(label) && path.length > label.length ? path.slice(0, path.length - label.length) : dirname(path);
+    const corrections = await loadImageCorrections(settings, baseDir);
+    const projected = corrections ? applyImageCorrections(raw, corrections, settings.projection === 'sum' ? opened.info.sizeZ : 1) : raw;
     let detection: Detection;
     try {
       detection = detectEmbryo(projected, settings);

@@ -78,6 +78,11 @@ export interface RunRecord {
   readonly inputs: readonly RunInput[];
   /** Problems that did not stop the run (e.g. an unreadable subfolder), one line each. */
   readonly warnings: readonly string[];
+  /** The flat-field and background images used (absolute path and SHA-256), when the settings name any. */
+  readonly corrections?: {
+    readonly flatField: { readonly file: string; readonly sha256: string } | null;
+    readonly backgroundImage: { readonly file: string; readonly sha256: string } | null;
+  };
   /** Present when the run analysed one part of a split batch. */
   readonly shard?: ShardInfo;
   /** Present when the record was made by merging parts. */

@@ -60,7 +60,7 @@ describe('analyseCohort', () => {
   it('CSV tables have the agreed headers and one row per item', () => {
     const a = analyseCohort(demo.results, sheet);
     expect(conditionsCsv(a).split('\r\n')[0]).toBe('condition,dosage,quantity,unit,n,mean,sd,sem,ci_low,ci_high,median,sd_ci_low,sd_ci_high');
-    expect(shiftsCsv(a).split('\r\n')[0]).toBe('quantity,condition,dosage,ln_f,observed_shift_el,ci_low,ci_high,predicted_shift_el,predicted_ci_low,predicted_ci_high,predicted_two_gradient_el,ratio,ratio_ci_low,ratio_ci_high,p_ratio_1,p_ratio_1_holm,predicted_local_el');
+    expect(shiftsCsv(a).split('\r\n')[0]).toBe('quantity,condition,dosage,ln_f,observed_shift_el,ci_low,ci_high,predicted_shift_el,predicted_ci_low,predicted_ci_high,predicted_two_gradient_el,ratio,ratio_ci_low,ratio_ci_high,p_ratio_1,p_ratio_1_holm,predicted_local_el,ratio_fieller_low,ratio_fieller_high,fieller_g');
     expect(dosageFitCsv(a).split('\r\n')[0]).toBe('quantity,method,slope_el,slope_se_el,ci_low,ci_high,dof,p_slope,intercept_el,r2,n,conditions,lack_of_fit_f,lack_of_fit_p,tau2_el2,predicted_slope_el,predicted_two_gradient_slope_el,local_lambda_el,local_lambda_se_el');
     expect(shiftsCsv(a).trim().split('\r\n').length).toBe(1 + 3);
     expect(positionalErrorCsv(a).trim().split('\r\n').length).toBe(1 + 2 * 101);

@@ -64,6 +64,17 @@ describe('dosage test (threshold model Δx = λ·ln f)', () => {
     const lam = a.referenceLambda!.lambdaEl;
     expect(a.shifts[0].predictedTwoGradientEl).toBeCloseTo(Math.log(2) / (1 / lam + 1 / 0.3), 12);
   });
+  it('gives Fieller\'s interval and g beside the delta method\'s', () => {
+    // Source: test/stats-reference/fieller_reference.py (numpy roots of Fieller's quadratic; demo data).
+    const r = ratioWithCi(0.17, 0.0075, 10, 0.19, 0.005, 12);
+    expect(r.ratioFiellerLow).toBeCloseTo(0.7951893747895242, 8);
+    expect(r.ratioFiellerHigh).toBeCloseTo(1.0004579073597557, 8);
+    expect(r.fiellerG).toBeCloseTo(0.003438090542683957, 9);
+    // g ≥ 1: the prediction is not distinguishable from 0 and Fieller's set is unbounded.
+    const wide = ratioWithCi(0.3, 0.05, 10, 0.05, 0.04, 10);
+    expect([wide.ratioFiellerLow, wide.ratioFiellerHigh]).toEqual([null, null]);
+    expect(wide.fiellerG).toBeGreaterThan(1);
+  });
   it('ratio interval by the delta method on a hand case; none when the prediction is 0', () => {
     // Source: hand-computed: O = 0.1 ± 0.02, P = 0.2 ± 0.01 → r = 0.5, se = sqrt(0.1² + 0.025²); t(0.975, 4) = 2.776445 (from memory)
     const r = ratioWithCi(0.1, 0.02, 4, 0.2, 0.01, 10);
@@ -71,7 +82,7 @@ describe('dosage test (threshold model Δx = λ·ln f)', () => {
     expect(r.ratio).toBeCloseTo(0.5, 14);
     expect(r.ratioCiLow!).toBeCloseTo(0.5 - 2.776445 * se, 5);
     expect(r.ratioCiHigh!).toBeCloseTo(0.5 + 2.776445 * se, 5);
-    expect(ratioWithCi(0.1, 0.02, 4, 0, 0.01, 10)).toEqual({ ratio: null, ratioCiLow: null, ratioCiHigh: null, pRatio: null });
+    expect(ratioWithCi(0.1, 0.02, 4, 0, 0.01, 10)).toEqual({ ratio: null, ratioCiLow: null, ratioCiHigh: null, ratioFiellerLow: null, ratioFiellerHigh: null, fiellerG: null, pRatio: null });
   });
   it('slopeRatio: λ_eff / λ_ref with both uncertainties (known answer)', () => {
     // Source: hand-computed: 0.19 / 0.2 = 0.95; SE = √((0.01/0.2)² + (0.19·0.005/0.2²)²) = 0.0553535;
@@ -88,6 +99,6 @@ describe('dosage test (threshold model Δx = λ·ln f)', () => {
     expect(0.95 - r.ratioCiLow!).toBeCloseTo(0.1422918, 5);
     // Source: t test of ratio = 1: t = −0.05/0.0553535 = −0.9033 on 5 dof, two-sided p = 0.4078 (scipy.stats.t.sf).
     expect(r.pRatio!).toBeCloseTo(0.4078, 3);
-    expect(slopeRatio(fit, null)).toEqual({ ratio: null, ratioCiLow: null, ratioCiHigh: null, pRatio: null });
+    expect(slopeRatio(fit, null)).toEqual({ ratio: null, ratioCiLow: null, ratioCiHigh: null, ratioFiellerLow: null, ratioFiellerHigh: null, fiellerG: null, pRatio: null });
   });
 });

@@ -8,7 +8,7 @@
 // observed/predicted gets a first-order (delta-method) interval with t at min(Welch dof, n_ref − 1) — it is only
 // meaningful when the predicted shift is clearly away from zero.
 import { describeSample } from './describe';
-import { holmAdjust, tTwoSidedP } from '../stats';
+import { fiellerInterval, holmAdjust, tTwoSidedP } from '../stats';
 import { tQuantileOf } from './stats-local';
 import type { ConditionInfo, DosageFit, Observation, ReferenceLambda, ShiftRow } from '../model';
 import { welchDifference } from './welch';
@@ -75,7 +75,7 @@ function shiftRow(
     observedShiftEl: obs.difference, ciLow: obs.ciLow, ciHigh: obs.ciHigh,
   };
   if (lnF === null || lambda === null) {
-    return { ...base, predictedShiftEl: null, predictedCiLow: null, predictedCiHigh: null, predictedTwoGradientEl: null, predictedLocalShiftEl: null, ratio: null, ratioCiLow: null, ratioCiHigh: null, pRatio: null, pRatioHolm: null };
+    return { ...base, predictedShiftEl: null, predictedCiLow: null, predictedCiHigh: null, predictedTwoGradientEl: null, predictedLocalShiftEl: null, ...NO_RATIO, pRatioHolm: null };
   }
   const predicted = lambda.lambdaEl * lnF;
   const ends = [lambda.ciLowEl * lnF, lambda.ciHighEl * lnF].sort((p, q) => p - q);
@@ -89,22 +89,32 @@ export interface RatioInterval {
   readonly ratio: number | null;
   readonly ratioCiLow: number | null;
   readonly ratioCiHigh: number | null;
+  /** Fieller's interval beside the delta method's: null ends when unbounded (g ≥ 1); g null without a ratio. */
+  readonly ratioFiellerLow: number | null;
+  readonly ratioFiellerHigh: number | null;
+  readonly fiellerG: number | null;
   readonly pRatio: number | null;
 }
+
+const NO_RATIO: RatioInterval = { ratio: null, ratioCiLow: null, ratioCiHigh: null, ratioFiellerLow: null, ratioFiellerHigh: null, fiellerG: null, pRatio: null };
 
 /** Ratio O/P with a delta-method interval and a t-test of O/P = 1; nulls when P is zero (f = 1). */
 export function ratioWithCi(
   observed: number, observedSe: number, observedDof: number,
   predicted: number, predictedSe: number, predictedDof: number, level = 0.95,
 ): RatioInterval {
-  if (!(Math.abs(predicted) > 1e-12)) return { ratio: null, ratioCiLow: null, ratioCiHigh: null, pRatio: null };
+  if (!(Math.abs(predicted) > 1e-12)) return NO_RATIO;
   const ratio = observed / predicted;
   // Var(O/P) ≈ (σO/P)² + (O·σP/P²)², written without dividing by O so it stays finite near O = 0.
   const se = Math.sqrt((observedSe / predicted) ** 2 + ((observed * predictedSe) / (predicted * predicted)) ** 2);
   const dof = Math.min(observedDof, predictedDof);
   const t = tQuantileOf(1 - (1 - level) / 2, dof);
   const p = tTwoSidedP((ratio - 1) / se, dof);
-  return { ratio, ratioCiLow: ratio - t * se, ratioCiHigh: ratio + t * se, pRatio: Number.isFinite(p) ? p : null };
+  const f = dof > 0 && Number.isFinite(observedSe) && Number.isFinite(predictedSe) ? fiellerInterval(observed, observedSe, predicted, predictedSe, dof, level) : { low: null, high: null, g: NaN };
+  return {
+    ratio, ratioCiLow: ratio - t * se, ratioCiHigh: ratio + t * se, ratioFiellerLow: f.low, ratioFiellerHigh: f.high,
+    fiellerG: Number.isFinite(f.g) ? f.g : null, pRatio: Number.isFinite(p) ? p : null,
+  };
 }
 
 /** λ_eff / λ_ref: fitted slope over the reference λ (both x/EL), with a delta-method interval that carries the
@@ -112,6 +122,6 @@ export function ratioWithCi(
 export function slopeRatio(
   fit: DosageFit, lambda: ReferenceLambda | null, level = 0.95,
 ): RatioInterval {
-  if (lambda === null || !(fit.dof > 0)) return { ratio: null, ratioCiLow: null, ratioCiHigh: null, pRatio: null };
+  if (lambda === null || !(fit.dof > 0)) return NO_RATIO;
   return ratioWithCi(fit.slopeEl, fit.slopeSeEl, fit.dof, lambda.lambdaEl, lambda.seEl, lambda.dof, level);
 }

@@ -16,9 +16,10 @@ export function shiftsCsv(a: CohortAnalysis): string {
   return toCsv(
     ['quantity', 'condition', 'dosage', 'ln_f', 'observed_shift_el', 'ci_low', 'ci_high', 'predicted_shift_el',
       'predicted_ci_low', 'predicted_ci_high', 'predicted_two_gradient_el', 'ratio', 'ratio_ci_low', 'ratio_ci_high',
-      'p_ratio_1', 'p_ratio_1_holm', 'predicted_local_el'],
+      'p_ratio_1', 'p_ratio_1_holm', 'predicted_local_el', 'ratio_fieller_low', 'ratio_fieller_high', 'fieller_g'],
     a.shifts.map((s) => [s.quantity, s.condition, s.dosage, s.lnF, s.observedShiftEl, s.ciLow, s.ciHigh, s.predictedShiftEl,
-      s.predictedCiLow, s.predictedCiHigh, s.predictedTwoGradientEl, s.ratio, s.ratioCiLow, s.ratioCiHigh, s.pRatio, s.pRatioHolm, s.predictedLocalShiftEl]),
+      s.predictedCiLow, s.predictedCiHigh, s.predictedTwoGradientEl, s.ratio, s.ratioCiLow, s.ratioCiHigh, s.pRatio, s.pRatioHolm, s.predictedLocalShiftEl,
+      s.ratioFiellerLow, s.ratioFiellerHigh, s.fiellerG]),
   );
 }
 

@@ -123,6 +123,10 @@ export interface ShiftRow {
   readonly ratio: number | null;
   readonly ratioCiLow: number | null;
   readonly ratioCiHigh: number | null;
+  /** Fieller's interval of the ratio (null ends when unbounded, g ≥ 1) and its g = t²·CV² of the prediction. */
+  readonly ratioFiellerLow: number | null;
+  readonly ratioFiellerHigh: number | null;
+  readonly fiellerG: number | null;
   /** Two-sided p-value of ratio = 1 (the threshold model's prediction) and its Holm adjustment over every row. */
   readonly pRatio: number | null;
   readonly pRatioHolm: number | null;

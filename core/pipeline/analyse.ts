@@ -1,7 +1,7 @@
 // One embryo end to end: project → detect → (hand axis) → sampler (prepare, sample) → fit, as an EmbryoResult that never throws.
 import { errorResult, withTimePoint, type EmbryoResult, type HandEdits, type PlaneSource, type ProjectedStack, type StackInfo } from '../model';
 import type { AnalysisSettings } from '../settings';
-import { projectStack } from '../image';
+import { applyImageCorrections, projectStack, type ImageCorrections } from '../image';
 import { detectEmbryo, type EmbryoDetection } from '../geometry';
 import { fitSampledProfiles, prepareSampling, sampleProfiles, type PreparedSampling } from '../profile';
 
@@ -21,6 +21,15 @@ export interface AnalyseOptions {
   readonly projected?: ProjectedStack;
   /** Prepares sampling within `detection` (samplingWithin: a movie reuses what depends on the mask alone). */
   readonly prepare?: (projected: ProjectedStack, settings: AnalysisSettings) => PreparedSampling;
+  /** Flat field and background image applied to the projection it reads (see core/image/corrections.ts); a
+   *  `projected` given by the caller is taken as already corrected. Absent = none. */
+  readonly corrections?: ImageCorrections | null;
+}
+
+/** The Z projection with the flat field and background image applied (when given). */
+export async function correctedProjection(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, corrections: ImageCorrections | null | undefined): Promise<ProjectedStack> {
+  const raw = await projectStack(info, source, settings);
+  return corrections ? applyImageCorrections(raw, corrections, settings.projection === 'sum' ? info.sizeZ : 1) : raw;
 }
 
 /** Check that the stack has something to analyse (exact messages). */
@@ -46,7 +55,7 @@ async function analyseOneTimePoint(info: StackInfo, source: PlaneSource, setting
   const bad = checkInfo(info);
   if (bad) return errorResult(file, bad);
   try {
-    const projected = options.projected ?? await projectStack(info, source, settings);
+    const projected = options.projected ?? await correctedProjection(info, source, settings, options.corrections);
     options.onProjected?.(projected);
     const detection = options.detection ?? detectEmbryo(projected, settings);
     const hand = options.handEdits?.axis ?? null;

@@ -2,9 +2,9 @@
 // then every chosen time point analysed as a single stack with its own background. Never throws for bad data.
 import { errorResult, withTimePoint, type ApAxis, type EmbryoResult, type HandEdits, type PlaneSource, type Plane, type ProjectedStack, type StackInfo } from '../model';
 import type { AnalysisSettings } from '../settings';
-import { projectStack } from '../image';
+import type { ImageCorrections } from '../image';
 import { detectEmbryo, type EmbryoDetection } from '../geometry';
-import { analyseStack } from './analyse';
+import { analyseStack, correctedProjection } from './analyse';
 import { samplingWithin } from '../profile';
 
 /** Per-movie options of analyseMovie. */
@@ -26,6 +26,8 @@ export interface MovieOptions {
   readonly onProjected?: (k: number, projected: ProjectedStack, total: number) => void;
   /** Checked before each time point; when aborted, analyseMovie rejects with an AbortError naming the file. */
   readonly signal?: { readonly aborted: boolean } | null;
+  /** Flat field and background image applied to every time point's projection. */
+  readonly corrections?: ImageCorrections | null;
 }
 
 /** The error a cancelled movie analysis rejects with. */
@@ -64,13 +66,13 @@ const KEEP_PROJECTIONS_BYTES = 128 * 2 ** 20;
  * The mean over sampled time points of the Z projections, and the projections of those time points in `keep`
  * (while they fit in KEEP_PROJECTIONS_BYTES), so their analysis does not read their planes again.
  */
-async function projectSampled(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, times: readonly number[], keep: ReadonlySet<number>): Promise<{ mean: ProjectedStack; kept: Map<number, ProjectedStack> }> {
+async function projectSampled(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, times: readonly number[], keep: ReadonlySet<number>, corrections: ImageCorrections | null = null): Promise<{ mean: ProjectedStack; kept: Map<number, ProjectedStack> }> {
   let first: ProjectedStack | null = null;
   let sums: Float32Array[] = [];
   const kept = new Map<number, ProjectedStack>();
   let keptBytes = 0;
   for (const t of times) {
-    const p = await projectStack(info, source, { ...settings, timeIndex: t });
+    const p = await correctedProjection(info, source, { ...settings, timeIndex: t }, corrections);
     if (!first) { first = p; sums = p.channels.map((c) => Float32Array.from(c.data)); } else p.channels.forEach((c, i) => addInto(sums[i], c.data));
     const bytes = p.channels.reduce((n, c) => n + c.data.byteLength, 0);
     if (keep.has(t) && keptBytes + bytes <= KEEP_PROJECTIONS_BYTES) { kept.set(t, p); keptBytes += bytes; }
@@ -107,7 +109,7 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
   if (options.signal?.aborted) throw cancelled(fileLabel);
   if (!options.axisPerTime) {
     try {
-      const sampled = await projectSampled(info, source, settings, axisSampleTimes(info.sizeT, options.axisSampleCount ?? 8), new Set(timeIndices));
+      const sampled = await projectSampled(info, source, settings, axisSampleTimes(info.sizeT, options.axisSampleCount ?? 8), new Set(timeIndices), options.corrections ?? null);
       kept = sampled.kept;
       detection = detectEmbryo(sampled.mean, settings);
     } catch (e) {
@@ -126,7 +128,7 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
     // A kept projection serves only settings that differ from the movie's in the fit range alone.
     const projected = kept.get(t) && sameButFitRange(settingsAtT, settings) ? kept.get(t) : undefined;
     kept.delete(t);
-    results.push(await analyseStack(info, source, settingsAtT, { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection, onProjected, projected, prepare }));
+    results.push(await analyseStack(info, source, settingsAtT, { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection, onProjected, projected, prepare, corrections: options.corrections ?? null }));
     options.onTimePoint?.(k + 1, timeIndices.length);
   }
   const hand = options.handEdits?.axis ?? null;

@@ -5,7 +5,7 @@ import type { AnalysisSettings } from '../settings';
 import { createRng } from '../stats';
 import { maskOutline } from '../geometry';
 import { prepareSampling } from './prepare';
-import { measureEmbryo } from './measure';
+import { boundaryWindowOf, measureEmbryo } from './measure';
 import { sampleBandOutline } from './band-outline';
 
 // Demo data: a 200×80 rectangle "embryo" (x 20..219, y 20..99) in a 240×120 frame, background 100 ± 2;
@@ -61,6 +61,22 @@ describe('measureEmbryo', () => {
     const beyond = settings({ boundarySearchEl: [0.4, 1] });
     const half = measureEmbryo(prepareSampling(projected, detection, beyond), detection.axis, beyond, []).boundaries.find((b) => b.method === 'half-max')!;
     expect(half.positionEl === null || half.positionEl >= 0.4).toBe(true);
+  });
+
+  it('a channel\'s own window overrides the shared one, by number or by name (demo data)', () => {
+    const { projected, detection } = scene(2);
+    const halfMax = (s: AnalysisSettings) => measureEmbryo(prepareSampling(projected, detection, s), detection.axis, s, []).boundaries.find((b) => b.method === 'half-max')!;
+    // Shared window 0.4–1 misses the edge at 0.3; the channel's own 0.2–0.5 (by number, then by name) finds it.
+    for (const channel of [2, 'bnd']) {
+      const own = settings({ boundarySearchEl: [0.4, 1], boundaryWindows: [{ channel, rangeEl: [0.2, 0.5] }] });
+      expect(Math.abs(halfMax(own).positionEl! - 0.3)).toBeLessThan(0.01);
+    }
+    // A window for another channel leaves this one on the shared window.
+    const other = settings({ boundarySearchEl: [0.4, 1], boundaryWindows: [{ channel: 1, rangeEl: [0.2, 0.5] }] });
+    const half = halfMax(other);
+    expect(half.positionEl === null || half.positionEl >= 0.4).toBe(true);
+    expect(boundaryWindowOf(1, ['grad', 'bnd'], other)).toEqual([0.4, 1]);
+    expect(boundaryWindowOf(0, ['grad', 'bnd'], other)).toEqual([0.2, 0.5]);
   });
 
   it('warns when a pole lies outside the embryo, with the distance and the egg length it gives (demo data)', () => {

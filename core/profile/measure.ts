@@ -146,6 +146,14 @@ export function sampleProfiles(prepared: PreparedSampling, axis: ApAxis, setting
   };
 }
 
+/** The x/EL search window of boundary channel `c` (0-based): its own from settings.boundaryWindows (the last entry
+ *  naming it, by number or name), else settings.boundarySearchEl. */
+export function boundaryWindowOf(c: number, channelNames: readonly string[], settings: AnalysisSettings): readonly [number, number] {
+  let window = settings.boundarySearchEl;
+  for (const w of settings.boundaryWindows) if (resolveChannel(w.channel, channelNames) === c) window = w.rangeEl;
+  return window;
+}
+
 /**
  * The fitter's step on sampled profiles: the exponential fit of the gradient over settings.fitRangeEl, boundaries per
  * boundary channel within settings.boundarySearchEl, and the landmarks' positions on the axis.
@@ -156,9 +164,10 @@ export function fitSampledProfiles(sampled: SampledProfiles, prepared: PreparedS
   const warnings: string[] = [...sampled.warnings, ...sampled.gradientWarnings];
   const gradientFit = gradientProfile ? fitProfile(gradientProfile, axisPx, px, settings.fitRangeEl, warnings) : null;
   warnings.push(...sampled.boundaryWarnings);
-  const boundaries = boundaryProfiles.flatMap((p) => {
+  const boundaries = boundaryProfiles.flatMap((p, k) => {
     try {
-      return findBoundaries(binsWithin(filledBins(p), settings.boundarySearchEl), settings.boundaryMethods, settings.boundaryThresholdFraction, eggLengthUm);
+      const window = boundaryWindowOf(sampled.boundaryChannels[k], prepared.channelNames, settings);
+      return findBoundaries(binsWithin(filledBins(p), window), settings.boundaryMethods, settings.boundaryThresholdFraction, eggLengthUm);
     } catch (e) {
       warnings.push(`boundaries of ${p.channel} failed: ${e instanceof Error ? e.message : String(e)}`);
       return [];

@@ -1,9 +1,9 @@
 // Public surface of core/settings: the analysis settings, their defaults, the one table that describes and checks
 // them (schema.ts), merging of layers (defaults < project < config < flags) and the settings in force for a file.
-export type { AnalysisSettings, ProfileSettings, BackgroundSettings, ChannelRef, EdgeSide } from './types';
+export type { AnalysisSettings, ProfileSettings, BackgroundSettings, ChannelRef, ChannelWindow, EdgeSide } from './types';
 export { DEFAULT_SETTINGS } from './defaults';
 export {
-  SETTINGS, settingSpec, flagKey, numberFromText, RUN_SETTINGS, runSettingSpec, bytesFromText, MIN_MAX_MEMORY_BYTES, type SettingSpec, type SettingKind,
+  SETTINGS, settingSpec, flagKey, numberFromText, channelWindowFromText, RUN_SETTINGS, runSettingSpec, bytesFromText, MIN_MAX_MEMORY_BYTES, type SettingSpec, type SettingKind,
 } from './schema';
 export {
   settingValue, overrideOf, flagValue, settingProblem, fieldProblem, settingsProblem, applyOverrides, mergeSettings, checkCombination, combinationProblem,

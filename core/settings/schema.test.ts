@@ -58,6 +58,19 @@ describe('flags for every setting', () => {
     expect(settingsFromFlags({ backgroundRegion: '1,2,30,40', background: 'region' }))
       .toEqual({ background: { mode: 'region', regionPx: { x: 1, y: 2, width: 30, height: 40 } } });
   });
+  it('reads image files and per-channel boundary windows', () => {
+    expect(settingsFromFlags({ flat: 'f.tif', backgroundImage: 'dark.tif', channelWindow: ['2=0.2,0.6', 'late=0.1,0.5', 'a=b=0,1'] })).toEqual({
+      flatFieldFile: 'f.tif', backgroundImageFile: 'dark.tif',
+      boundaryWindows: [{ channel: 2, rangeEl: [0.2, 0.6] }, { channel: 'late', rangeEl: [0.1, 0.5] }, { channel: 'a=b', rangeEl: [0, 1] }],
+    });
+    expect(() => settingsFromFlags({ channelWindow: ['2=0.6,0.2'] }))
+      .toThrow('--channel-window must be CH=a,b with CH a channel number or name and 0 ≤ a < b ≤ 1 (got "2=0.6,0.2")');
+    expect(() => settingsFromFlags({ channelWindow: ['0.2,0.6'] })).toThrow('--channel-window must be CH=a,b');
+    expect(() => settingsFromFlags({ flat: ' ' })).toThrow('--flat must be a file path (got " ")');
+    expect(settingsFromStored({ boundaryWindows: [{ channel: 2, rangeEl: [0.1, 0.4] }], flatFieldFile: 'f.tif' }).boundaryWindows).toEqual([{ channel: 2, rangeEl: [0.1, 0.4] }]);
+    expect(() => settingsFromStored({ boundaryWindows: [{ channel: 0, rangeEl: [0.1, 0.4] }] }))
+      .toThrow('settings.boundaryWindows must be a list of { channel, rangeEl: [a, b] } with 0 ≤ a < b ≤ 1');
+  });
   it('refuses bad values with the rule', () => {
     expect(() => settingsFromFlags({ edgeDepth: '0' })).toThrow('--edge-depth must be a positive number of µm (got "0")');
     expect(() => settingsFromFlags({ edgeSide: 'top' })).toThrow('--edge-side must be dorsal, ventral or both (got "top")');

@@ -6,7 +6,7 @@ import type { BoundaryMethod } from '../model';
 import type { ChannelRef } from './types';
 
 /** What kind of value a setting holds (decides how a flag's text is read and which field the window shows). */
-export type SettingKind = 'number' | 'integer' | 'choice' | 'channel' | 'channels' | 'range' | 'methods' | 'region' | 'size';
+export type SettingKind = 'number' | 'integer' | 'choice' | 'channel' | 'channels' | 'range' | 'methods' | 'region' | 'size' | 'file' | 'channel-windows';
 
 /** One row of the table. `key` is the path in AnalysisSettings ('profile.edgeDepthUm'). */
 export interface SettingSpec {
@@ -82,11 +82,34 @@ function choice(row: Omit<SettingSpec, 'kind' | 'isValid' | 'fromText' | 'rule' 
   };
 }
 
+const isFilePath = (v: unknown): boolean => v === null || (typeof v === 'string' && v.trim() !== '' && !/[\n\r\0]/.test(v));
+
+/** A row naming an image file (null = none), e.g. a flat field. */
+function fileRow(row: Omit<SettingSpec, 'kind' | 'isValid' | 'fromText' | 'rule' | 'flagRule' | 'nullable' | 'unit' | 'flagValue'>): SettingSpec {
+  return {
+    ...row, kind: 'file', unit: '', flagValue: 'FILE', nullable: true, rule: 'a file path or null', flagRule: 'a file path', isValid: isFilePath,
+    fromText: (text) => (text.trim() !== '' && isFilePath(text) ? text : undefined),
+  };
+}
+
 const isRange = (v: unknown): boolean => Array.isArray(v) && v.length === 2 && v.every((x) => typeof x === 'number' && Number.isFinite(x))
   && v[0] >= 0 && v[0] < v[1] && v[1] <= 1;
 const isRegion = (v: unknown): boolean => v === null || (typeof v === 'object' && !Array.isArray(v)
   && ['x', 'y', 'width', 'height'].every((k) => isCount((v as Record<string, unknown>)[k]))
   && (v as { width: number }).width > 0 && (v as { height: number }).height > 0);
+
+const isChannelWindow = (v: unknown): boolean => typeof v === 'object' && v !== null && !Array.isArray(v)
+  && isChannel((v as Record<string, unknown>).channel) && isRange((v as Record<string, unknown>).rangeEl);
+
+/** "CH=A,B" → { channel, rangeEl: [A, B] } (CH a 1-based number or a channel name; the last "=" splits), or undefined. */
+export function channelWindowFromText(text: string): { channel: ChannelRef; rangeEl: [number, number] } | undefined {
+  const at = text.lastIndexOf('=');
+  if (at <= 0) return undefined;
+  const channel = channelFromText(text.slice(0, at));
+  const range = text.slice(at + 1).split(',').map(numberFromText);
+  if (channel === undefined || range.length !== 2 || !isRange(range)) return undefined;
+  return { channel, rangeEl: [range[0] as number, range[1] as number] };
+}
 
 /** Every analysis setting, in the order the help and the window show them. */
 export const SETTINGS: readonly SettingSpec[] = [
@@ -126,7 +149,7 @@ export const SETTINGS: readonly SettingSpec[] = [
   choice({ key: 'profile.dorsalSide', unit: '', label: 'dorsal is', flag: '--dorsal-side', flagValue: 'SIDE', help: 'dorsal is left or right of the direction anterior→posterior', choices: ['left', 'right'] }),
   numeric({
     key: 'profile.edgeDepthUm', unit: 'µm', label: 'edge band depth µm', flag: '--edge-depth', flagValue: 'UM',
-    help: 'depth of the edge band inward from the outline, µm', rule: 'a positive number of µm', min: 0, exclusive: true,
+    help: 'depth of the edge band inward from the outline, µm (reach past the nuclear layer)', rule: 'a positive number of µm', min: 0, exclusive: true,
   }),
   numeric({
     key: 'profile.axisWidthUm', unit: 'µm', label: 'axis strip width µm', flag: '--strip-width', flagValue: 'UM',
@@ -148,6 +171,14 @@ export const SETTINGS: readonly SettingSpec[] = [
       return isRegion({ x, y, width, height }) ? { x, y, width, height } : undefined;
     },
   },
+  fileRow({
+    key: 'flatFieldFile', label: 'flat-field image', flag: '--flat',
+    help: 'image with one plane per channel (mean over Z if several), normalised to mean 1, that divides every plane',
+  }),
+  fileRow({
+    key: 'backgroundImageFile', label: 'background image', flag: '--background-image',
+    help: 'image with one plane per channel (mean over Z if several) subtracted from every plane before the flat field',
+  }),
   {
     key: 'fitRangeEl', kind: 'range', unit: 'x/EL', label: 'fit range x/EL', flag: '--fit-range', flagValue: 'A,B',
     help: 'x/EL range of the exponential fit, 0 ≤ A < B ≤ 1', rule: 'two numbers [a, b] with 0 ≤ a < b ≤ 1',
@@ -181,6 +212,12 @@ export const SETTINGS: readonly SettingSpec[] = [
       const parts = text.split(',').map(numberFromText);
       return parts.length === 2 && isRange(parts) ? parts : undefined;
     },
+  },
+  {
+    key: 'boundaryWindows', kind: 'channel-windows', unit: 'x/EL', label: 'search window per channel', flag: '--channel-window', flagValue: 'CH=A,B',
+    help: 'x/EL range searched for boundaries in one channel (1-based or name), overriding --boundary-window for it; repeat for more',
+    rule: 'a list of { channel, rangeEl: [a, b] } with 0 ≤ a < b ≤ 1', flagRule: 'CH=a,b with CH a channel number or name and 0 ≤ a < b ≤ 1',
+    repeatable: true, isValid: (v) => Array.isArray(v) && v.every(isChannelWindow), fromText: channelWindowFromText,
   },
 ];
 

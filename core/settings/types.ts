@@ -4,6 +4,12 @@ import type { BoundaryMethod, ProjectionMethod } from '../model';
 /** A channel chosen by 1-based index or by the name stored in the file. */
 export type ChannelRef = number | string;
 
+/** A boundary channel's own x/EL search window, [start, end]. */
+export interface ChannelWindow {
+  readonly channel: ChannelRef;
+  readonly rangeEl: readonly [number, number];
+}
+
 /** Which edge of the embryo the edge band follows, seen with anterior left and dorsal up. */
 export type EdgeSide = 'dorsal' | 'ventral' | 'both';
 
@@ -41,6 +47,11 @@ export interface AnalysisSettings {
   readonly sliceIndex: number | null;
   readonly profile: ProfileSettings;
   readonly background: BackgroundSettings;
+  /** Flat-field image (path; relative paths from the current folder on the command line, from the project's folder in
+   *  the window): one plane per channel, normalised to mean 1, dividing every plane. null = none. */
+  readonly flatFieldFile: string | null;
+  /** Background image (path, as flatFieldFile): one plane per channel subtracted from every plane. null = none. */
+  readonly backgroundImageFile: string | null;
   /** x/EL range of the exponential fit, [start, end]. */
   readonly fitRangeEl: readonly [number, number];
   /** 'auto' = anterior is the high end of the gradient channel; 'high'/'low' force it. */
@@ -50,6 +61,8 @@ export interface AnalysisSettings {
   readonly boundaryThresholdFraction: number;
   /** x/EL range searched for boundaries, [start, end]: keeps pole artefacts and other domains out. */
   readonly boundarySearchEl: readonly [number, number];
+  /** Boundary search windows of single channels, each overriding boundarySearchEl for its channel. */
+  readonly boundaryWindows: readonly ChannelWindow[];
   /** Time point to analyse (0-based). */
   readonly timeIndex: number;
 }

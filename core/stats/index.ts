@@ -12,3 +12,5 @@ export { olsHc3, lackOfFitTest, randomInterceptLine, yorkFit } from './line-fits
 export type { SlopeEstimate, LackOfFit, RandomInterceptLine, YorkFit } from './line-fits';
 export { notDecayingReasons, notDecayingWarning } from './decay-check';
 export { sdConfidenceInterval } from './sd-interval';
+export { fiellerInterval } from './fieller';
+export type { FiellerInterval } from './fieller';

@@ -2,7 +2,7 @@
 import { useEffect, useState } from 'react';
 import { PROFILE_SAMPLERS } from '../../../core/profile';
 import { fieldProblem, settingSpec } from '../../../core/settings';
-import { ChoiceSetting, FieldFrame, NumberSetting, valueFromText, type SettingFieldProps } from './SettingField';
+import { ChoiceSetting, FieldFrame, FileSetting, NumberSetting, valueFromText, type SettingFieldProps } from './SettingField';
 
 /** Z projection, slice and time point. */
 export function ProjectionSettings({ settings: s, onChange }: SettingFieldProps) {
@@ -47,6 +47,8 @@ export function BackgroundSettings({ settings: s, onChange }: SettingFieldProps)
       {s.background.mode === 'region' && region !== null && (['x', 'y', 'width', 'height'] as const).map((k) => (
         <RegionNumber key={k} part={k} settings={s} onChange={onChange} />
       ))}
+      <FileSetting settingKey="backgroundImageFile" settings={s} onChange={onChange} />
+      <FileSetting settingKey="flatFieldFile" settings={s} onChange={onChange} />
     </fieldset>
   );
 }

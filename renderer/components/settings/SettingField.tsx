@@ -75,3 +75,23 @@ export function ChoiceSetting({ settingKey, settings, onChange, names = {}, extr
     </FieldFrame>
   );
 }
+
+/** An image-file setting (a path; empty = none), committed on Enter or blur when the table's rule allows it. */
+export function FileSetting({ settingKey, settings, onChange }: SettingFieldProps & { settingKey: string }) {
+  const spec = settingSpec(settingKey);
+  const value = settingValue(settings, settingKey);
+  const [text, setText, error, setError] = useFieldText(value);
+  const testId = spec.flag.slice(2);
+  const commit = (): void => {
+    const v = text.trim() === '' ? null : text.trim();
+    const problem = fieldProblem(settingKey, v);
+    setError(problem);
+    if (problem === null && v !== value) onChange(overrideOf(settingKey, v));
+  };
+  return (
+    <FieldFrame label={spec.label} help={`${spec.help}; a relative path is taken from the project's folder; empty = none`} error={error} testId={testId}>
+      <input type="text" value={text} data-testid={testId} aria-invalid={error !== null} placeholder="none"
+        onChange={(e) => setText(e.target.value)} onBlur={commit} onKeyDown={(e) => { if (e.key === 'Enter') commit(); }} />
+    </FieldFrame>
+  );
+}

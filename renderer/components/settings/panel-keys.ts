@@ -6,6 +6,6 @@ export const PANEL_SETTING_KEYS: readonly string[] = [
   'gradientChannel', 'boundaryChannels', 'anterior', 'pixelSizeUm', // ChannelSettings
   'projection', 'sliceIndex', 'timeIndex', // ProjectionSettings
   'profile.mode', ...new Set(PROFILE_SAMPLERS.flatMap((s) => s.settingKeys)), 'profile.binCount', // ProfileSettings (each sampler's own)
-  'background.mode', 'background.regionPx', // BackgroundSettings
-  'fitRangeEl', 'boundarySearchEl', 'boundaryMethods', 'boundaryThresholdFraction', // FitSettings
+  'background.mode', 'background.regionPx', 'backgroundImageFile', 'flatFieldFile', // BackgroundSettings
+  'fitRangeEl', 'boundarySearchEl', 'boundaryWindows', 'boundaryMethods', 'boundaryThresholdFraction', // FitSettings
 ];

@@ -1,0 +1,71 @@
+// Reading the flat-field and background images named by the settings (one plane per channel: the mean over Z of
+// the first time point), once per process and path.
+import { isAbsolute, resolve } from 'node:path';
+import { backgroundImage, normaliseFlatField, projectStack, type ImageCorrections } from '../../core/pipeline';
+import { DEFAULT_SETTINGS, type AnalysisSettings } from '../../core/settings';
+import type { Plane } from '../../core/model';
+import { openStackForAnalysis } from '../decode';
+import { sha256File } from './hash-file';
+
+/** A settings path made absolute: relative paths are taken from `baseDir` (the input folder). */
+export function correctionPath(path: string, baseDir: string): string {
+  return isAbsolute(path) ? path : resolve(baseDir, path);
+}
+
+/** Every channel of an image file as one plane: the mean over Z at the first time point. */
+async function readChannelPlanes(path: string, label: string): Promise<Plane[]> {
+  const opened = await openStackForAnalysis(path, label);
+  try {
+    const p = await projectStack(opened.info, opened.source, { ...DEFAULT_SETTINGS, projection: 'mean', sliceIndex: null, timeIndex: 0 });
+    return [...p.channels];
+  } finally {
+    await opened.source.close().catch(() => undefined);
+  }
+}
+
+const cache = new Map<string, Promise<ImageCorrections>>();
+
+/**
+ * The corrections the settings name, read once per process (keyed by the absolute paths), or null when they name
+ * none. Rejects with one line naming the image file when it cannot be read or is not usable.
+ */
+export function loadImageCorrections(settings: AnalysisSettings, baseDir: string): Promise<ImageCorrections> | null {
+  const { flatFieldFile: flat, backgroundImageFile: bg } = settings;
+  if (flat === null && bg === null) return null;
+  const flatPath = flat === null ? null : correctionPath(flat, baseDir);
+  const bgPath = bg === null ? null : correctionPath(bg, baseDir);
+  const key = `${flatPath ?? ''}\n${bgPath ?? ''}`;
+  let loaded = cache.get(key);
+  if (!loaded) {
+    loaded = (async () => ({
+      flat: flat !== null && flatPath !== null ? normaliseFlatField(flat, await readImage(flatPath, flat, 'flat-field image')) : null,
+      background: bg !== null && bgPath !== null ? backgroundImage(bg, await readImage(bgPath, bg, 'background image')) : null,
+    }))();
+    loaded.catch(() => undefined);
+    cache.set(key, loaded);
+  }
+  return loaded;
+}
+
+/** Read an image's planes; failures name the role and file. */
+async function readImage(path: string, label: string, role: string): Promise<Plane[]> {
+  try {
+    return await readChannelPlanes(path, label);
+  } catch (e) {
+    const text = e instanceof Error ? e.message : String(e);
+    throw new Error(text.startsWith(label) ? `${role} ${text}` : `${role} ${label}: ${text}`);
+  }
+}
+
+/** The file and SHA-256 of each correction image, for run.json (null entries when not used). */
+export async function correctionRecord(settings: AnalysisSettings, baseDir: string): Promise<{
+  readonly flatField: { readonly file: string; readonly sha256: string } | null;
+  readonly backgroundImage: { readonly file: string; readonly sha256: string } | null;
+}> {
+  const one = async (p: string | null): Promise<{ file: string; sha256: string } | null> => {
+    if (p === null) return null;
+    const file = correctionPath(p, baseDir);
+    return { file, sha256: (await sha256File(file)).sha256 };
+  };
+  return { flatField: await one(settings.flatFieldFile), backgroundImage: await one(settings.backgroundImageFile) };
+}
