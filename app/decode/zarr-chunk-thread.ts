@@ -33,11 +33,13 @@ interface Pending { resolve(v: Uint8Array | undefined | null): void; reject(e: E
 
 /**
  * A function reading and decoding Blosc chunk files on a worker thread, or null when the built worker is not there
- * (tests run from source; chunks are then decoded on the calling thread by zarrita's codecs).
+ * (tests run from source; chunks are then decoded on the calling thread by zarrita's codecs). It answers null (use
+ * zarrita) for every request once the thread has failed to start or died.
  */
 export function bloscChunkThread(workerPath: string | null = builtWorkerPath()): ((path: string, maxBytes: number) => Promise<Uint8Array | undefined | null>) | null {
   if (workerPath === null) return null;
   let worker: Worker | null = null;
+  let broken = false;
   let nextId = 0;
   const pending = new Map<number, Pending>();
   const start = (): Worker => {
@@ -51,17 +53,21 @@ export function bloscChunkThread(workerPath: string | null = builtWorkerPath()):
       else if (reply.kind === 'error') p.reject(new Error(reply.message));
       else p.resolve(reply.kind === 'missing' ? undefined : null);
     });
-    const fail = (err: Error): void => {
+    // A thread that cannot start or dies (e.g. a packaged app that cannot load the worker file) is not the chunk's
+    // fault: its requests, and all later ones, go to zarrita's codecs on the calling thread instead.
+    const fail = (): void => {
       worker = null;
-      for (const p of pending.values()) p.reject(new Error(`the chunk thread stopped (${err.message.split(/\r?\n/)[0]})`));
+      broken = true;
+      for (const p of pending.values()) p.resolve(null);
       pending.clear();
     };
     w.on('error', fail);
-    w.on('exit', (code) => { if (worker === w) fail(new Error(`exit code ${code}`)); });
+    w.on('exit', () => { if (worker === w) fail(); });
     w.unref();
     return w;
   };
   return (path, maxBytes) => new Promise((resolve, reject) => {
+    if (broken) { resolve(null); return; }
     worker ??= start();
     const id = nextId++;
     pending.set(id, { resolve, reject });
