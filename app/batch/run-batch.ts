@@ -234,7 +234,11 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   await writeFileAtomic(join(outDir, 'run.json'), runRecordToJson(record({})));
   const journal = await openJournal(outDir, { runId, startedAt, eggline: software.eggline, resume: opts.resume === true });
   const hashOf = fileHashes();
-  const keys = tasks.map((t) => settingsKey(t.settings, t.handEdits, software.eggline));
+  // A correction image changed under the same path must not let --resume reuse results: its SHA-256 joins the key.
+  const keyVersion = corrections
+    ? `${software.eggline}; flat ${corrections.flatField?.sha256 ?? '-'}; background ${corrections.backgroundImage?.sha256 ?? '-'}`
+    : software.eggline;
+  const keys = tasks.map((t) => settingsKey(t.settings, t.handEdits, keyVersion));
   const results: (EmbryoResult | undefined)[] = new Array(tasks.length);
   const kept = earlier ? await reusable(earlier, tasks, keys, hashOf) : new Map<number, EmbryoResult>();
   for (const [i, r] of kept) results[i] = r;

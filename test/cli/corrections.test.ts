@@ -47,6 +47,18 @@ describe('eggline batch --flat / --background-image', () => {
     expect([run.settings.flatFieldFile, run.settings.backgroundImageFile]).toEqual([flat, dark]);
   }, 180_000);
 
+  it('--resume reuses results only while the flat file\'s bytes are unchanged', async () => {
+    const flat = join(dir, 'flat-resume.ome.tif');
+    const out = join(dir, 'resume');
+    flatImage(flat, size.x, size.y, 7);
+    expect((await cli(['batch', demo, '--out', out, '--jobs', '1', '--flat', flat])).code).toBe(0);
+    expect((await cli(['batch', demo, '--out', out, '--jobs', '1', '--flat', flat, '--resume'])).code).toBe(0);
+    expect(JSON.parse(readFileSync(join(out, 'run.json'), 'utf8')).reused).toBe(1);
+    flatImage(flat, size.x, size.y, 3); // same path, other bytes
+    expect((await cli(['batch', demo, '--out', out, '--jobs', '1', '--flat', flat, '--resume'])).code).toBe(0);
+    expect(JSON.parse(readFileSync(join(out, 'run.json'), 'utf8')).reused).toBe(0);
+  }, 180_000);
+
   it('a flat of another size gives each stack an error row of one line naming both, and exit 1', async () => {
     const small = join(dir, 'small.ome.tif');
     flatImage(small, 10, 10, 1);
