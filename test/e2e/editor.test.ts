@@ -7,6 +7,7 @@ import type { Page } from 'playwright-core';
 import { openStackForAnalysis } from '../../app/decode/open-for-analysis';
 import { ARTIFACTS, ensureRendererBuilt, startHarness } from './harness';
 import type { Harness } from './harness';
+import { DEFAULT_SETTINGS } from '../../core/settings';
 
 let h: Harness;
 let scratch: string;
@@ -169,9 +170,9 @@ describe('editor window', { timeout: 150_000 }, () => {
     // Back to the demo's values for the tests that follow.
     await page.getByTestId('fit-range-from').fill('0.1');
     await page.getByTestId('fit-range-from').press('Enter');
-    await page.getByTestId('edge-depth').fill('12');
+    await page.getByTestId('edge-depth').fill(String(DEFAULT_SETTINGS.profile.edgeDepthUm));
     await page.getByTestId('edge-depth').press('Enter');
-    await expect.poll(async () => (await saved()).settings.profile.edgeDepthUm, { timeout: 10_000 }).toBe(12);
+    await expect.poll(async () => (await saved()).settings.profile.edgeDepthUm, { timeout: 10_000 }).toBe(DEFAULT_SETTINGS.profile.edgeDepthUm);
     await expect.poll(() => page.getByTestId('field-error-fit-range').count()).toBe(0);
     await expect.poll(() => text(page, 'lambda-um'), { timeout: 10_000 }).toBe(lambdaAfterEdits);
   });
