@@ -1,4 +1,5 @@
 // The first picture of a stack while it loads: one slice of the first channel, as floats, before any projection.
+import type { StackPreview } from '../../core/contract';
 import { openStackForAnalysis } from './open-for-analysis';
 import { isZarrPath, openZarrFirstPicture } from './open-zarr-stack';
 
@@ -8,17 +9,8 @@ import { isZarrPath, openZarrFirstPicture } from './open-zarr-stack';
  */
 export const FIRST_PICTURE_VIEW_PX = Object.freeze({ width: 960, height: 720 });
 
-/** One raw slice shown while a stack loads, with where it sits in the stack. */
-export interface PreviewPlane {
-  readonly width: number;
-  readonly height: number;
-  readonly data: Float32Array;
-  /** The slice shown (0-based) and the stack's slice and channel counts. */
-  readonly z: number;
-  readonly c: number;
-  readonly sizeZ: number;
-  readonly sizeC: number;
-}
+/** One raw slice shown while a stack loads, with where it sits in the stack (the contract's StackPreview). */
+export type PreviewPlane = StackPreview;
 
 /**
  * The middle slice of the first channel at time point `t` (0 when out of range). Why the middle: in a stack taken
