@@ -204,6 +204,40 @@ describe('editor window', { timeout: 150_000 }, () => {
     await expect.poll(() => text(page, 'save-status'), { timeout: 10_000 }).toMatch(/^saved/);
   });
 
+  it('the file\'s own dorsal side: shown for a one-sided band, moves the band and λ, saved in the project, and back', async () => {
+    const { page } = h;
+    const projectFile = join(dataDir, 'demo', 'eggline-project.json');
+    type Saved = { settings: { profile: { edgeSide: string } }; files: Record<string, { dorsalSide?: string | null }> };
+    const saved = async () => JSON.parse(await fs.readFile(projectFile, 'utf8')) as Saved;
+    const band = async () => (await page.getByTestId('band').getAttribute('d')) ?? '';
+    // With both sides sampled the file's dorsal side changes nothing, so the control is not offered.
+    expect(await page.getByTestId('file-dorsal-side').count()).toBe(0);
+    await page.getByTestId('edge-side').selectOption('dorsal');
+    await expect.poll(() => page.getByTestId('file-dorsal-side').count(), { timeout: 10_000 }).toBe(1);
+    await expect.poll(() => text(page, 'lambda-um'), { timeout: 10_000 }).not.toBe(lambdaAfterEdits);
+    // Settled: the band and λ read the same twice, half a second apart.
+    const settled = async () => { const a = [await band(), await text(page, 'lambda-um')]; await page.waitForTimeout(500); const b = [await band(), await text(page, 'lambda-um')]; return a[0] === b[0] && a[1] === b[1]; };
+    await expect.poll(settled, { timeout: 10_000 }).toBe(true);
+    const sharedBand = await band();
+    const sharedLambda = await text(page, 'lambda-um');
+    // The other side of A→P for this file only: the band moves to the other half of the outline and λ follows it.
+    const other = DEFAULT_SETTINGS.profile.dorsalSide === 'left' ? 'right' : 'left';
+    await page.getByTestId('file-dorsal-side').selectOption(other);
+    await expect.poll(band, { timeout: 10_000 }).not.toBe(sharedBand);
+    await expect.poll(() => text(page, 'lambda-um'), { timeout: 10_000 }).not.toBe(sharedLambda);
+    await expect.poll(async () => Object.values((await saved()).files).filter((f) => f.dorsalSide === other).length, { timeout: 10_000 }).toBe(1);
+    // Back to the settings' side: the band and λ are the shared ones again and the project forgets the file's own.
+    await page.getByTestId('file-dorsal-side').selectOption('shared');
+    await expect.poll(band, { timeout: 10_000 }).toBe(sharedBand);
+    await expect.poll(() => text(page, 'lambda-um'), { timeout: 10_000 }).toBe(sharedLambda);
+    await expect.poll(async () => Object.values((await saved()).files).filter((f) => f.dorsalSide === other).length, { timeout: 10_000 }).toBe(0);
+    // Both sides again for the tests that follow.
+    await page.getByTestId('edge-side').selectOption('both');
+    await expect.poll(() => text(page, 'lambda-um'), { timeout: 10_000 }).toBe(lambdaAfterEdits);
+    await expect.poll(async () => (await saved()).settings.profile.edgeSide, { timeout: 10_000 }).toBe('both');
+    await expect.poll(() => text(page, 'save-status'), { timeout: 10_000 }).toMatch(/^saved/);
+  });
+
   it('after a reload with fresh handlers on the same data folder, everything is restored', async () => {
     const { page } = h;
     h.freshHandlers();
