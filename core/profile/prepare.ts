@@ -64,10 +64,10 @@ function subtractAt(data: Float32Array, idx: Int32Array, b: number, out: Float32
  * the sampler of settings.profile.mode (among `samplers`) prepares the pixels it draws from. Re-prepare when the
  * projection, the mask, the mode, its settings or the background settings change.
  */
-export function prepareSampling(projected: ProjectedStack, detection: Detection, settings: AnalysisSettings, samplers: readonly ProfileSampler[] = PROFILE_SAMPLERS): PreparedSampling {
+export function prepareSampling(projected: ProjectedStack, detection: Detection, settings: AnalysisSettings, samplers: readonly ProfileSampler[] = PROFILE_SAMPLERS, known: MaskBasics | null = null): PreparedSampling {
   checkSamplingSettings(settings);
   const sampler = samplerFor(settings.profile.mode, samplers);
-  const base = samplingBase(projected, detection, settings);
+  const base = samplingBase(projected, detection, settings, known);
   return { ...base, sampler, region: sampler.prepare(base, settings) };
 }
 
@@ -77,7 +77,7 @@ function backgroundMarginPx(pixelSizeUm: number | null): number {
 }
 
 /** What every sampler prepares from: mask, its box, backgrounds, and the pixel gatherer. */
-export function samplingBase(projected: ProjectedStack, detection: Detection, settings: AnalysisSettings, known: MaskParts | null = null): SamplingBase {
+export function samplingBase(projected: ProjectedStack, detection: Detection, settings: AnalysisSettings, known: MaskBasics | null = null): SamplingBase {
   const warnings: string[] = [];
   const px = projected.pixelSizeUm;
   if (px === null) warnings.push('pixel size unknown: edge depth, strip width and background margin are taken as pixels');
@@ -92,11 +92,16 @@ export function samplingBase(projected: ProjectedStack, detection: Detection, se
   };
 }
 
-/** The parts of a preparation that depend on the mask and the settings only, not on the pixel values. */
-interface MaskParts {
+/** What the base of a preparation takes from the mask alone: its box and, for the 'outside' background, the pixels
+ *  far from it. */
+interface MaskBasics {
   readonly box: MaskBox | null;
   /** farFromMask(mask, margin) for the 'outside' background, else null. */
   readonly far: Uint8Array | null;
+}
+
+/** The parts of a preparation that depend on the mask and the settings only, not on the pixel values. */
+interface MaskParts extends MaskBasics {
   /** The sampler's region mask (its pixels are gathered again for every projection). */
   readonly region: Mask;
 }
@@ -114,8 +119,9 @@ export function samplingWithin(detection: Detection, samplers: readonly ProfileS
   return (projected, settings) => {
     const key = JSON.stringify([projected.pixelSizeUm, projected.channels.length, settings.profile, settings.background]);
     if (kept?.key !== key) {
-      const prepared = prepareSampling(projected, detection, settings, samplers);
+      // The box and the far pixels are made once here and given to the first preparation too, not made twice.
       const far = settings.background.mode === 'outside' ? farFromMask(detection.mask, backgroundMarginPx(projected.pixelSizeUm)) : null;
+      const prepared = prepareSampling(projected, detection, settings, samplers, { box: foregroundBox(detection.mask), far });
       kept = { key, parts: { box: prepared.box, far, region: prepared.region.mask } };
       return prepared;
     }
