@@ -4,7 +4,7 @@ import { errorResult, oneLine, type EmbryoResult, type StackInfo } from '../../c
 import { analysisBytesEstimate, WORKER_BASE_BYTES } from '../../core/tiff';
 import { formatByteSize as formatBytes } from '../../core/batch';
 import { analyse, openStack } from './deps';
-import { loadImageCorrections } from './correction-images';
+import { inputFolderOf, loadImageCorrections } from './correction-images';
 import { hashingByteSource, type HashingByteSource } from './hashing-source';
 import type { BatchTask, InputDigest } from './task';
 
@@ -51,7 +51,7 @@ async function analyseOpened(task: BatchTask, wrapSource: ((s: Parameters<typeof
     const refusal = task.maxMemoryBytes === undefined ? null : memoryRefusal(opened.info, task.maxMemoryBytes);
     if (refusal !== null) return errorResult(task.file, `${task.file}: ${refusal}`, opened.info.warnings);
     // Relative paths of the correction images are taken from the input folder (the task's path minus its file).
-    const corrections = await loadImageCorrections(task.settings, task.path.slice(0, task.path.length - task.file.length) || '.');
+    const corrections = await loadImageCorrections(task.settings, inputFolderOf(task.path, task.file));
     const result = await analyse(opened.info, opened.source, task.settings,
       { fileLabel: task.file, ...(task.handEdits ? { handEdits: task.handEdits } : {}), corrections });
     const warnings = [...result.warnings, ...opened.warnings.filter((w) => !result.warnings.includes(w))];

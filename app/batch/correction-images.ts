@@ -1,6 +1,6 @@
 // Reading the flat-field and background images named by the settings (one plane per channel: the mean over Z of
 // the first time point), once per process and path.
-import { isAbsolute, resolve } from 'node:path';
+import { dirname, isAbsolute, resolve } from 'node:path';
 import { backgroundImage, normaliseFlatField, projectStack, type ImageCorrections } from '../../core/pipeline';
 import { DEFAULT_SETTINGS, type AnalysisSettings } from '../../core/settings';
 import type { Plane } from '../../core/model';
@@ -10,6 +10,12 @@ import { sha256File } from './hash-file';
 /** A settings path made absolute: relative paths are taken from `baseDir` (the input folder). */
 export function correctionPath(path: string, baseDir: string): string {
   return isAbsolute(path) ? path : resolve(baseDir, path);
+}
+
+/** The input folder of a file at `path` whose project key is `file` (the path minus the key, so relative correction
+ *  paths are taken from the folder the batch or project names, not the file's own subfolder); else its folder. */
+export function inputFolderOf(path: string, file: string): string {
+  return path.endsWith(file) ? path.slice(0, path.length - file.length) || '.' : dirname(path);
 }
 
 /** Every channel of an image file as one plane: the mean over Z at the first time point. */

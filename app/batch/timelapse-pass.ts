@@ -3,7 +3,7 @@
 // (λ(t), τ(x), the model fit) and written as tables, SVG figures and a page. The summary is made from the records and
 // results alone, so a merge of parts makes the same one.
 import { promises as fs } from 'node:fs';
-import { dirname, join } from 'node:path';
+import { join } from 'node:path';
 import { editsForFile, embryoMeasureRow, EMBRYO_MEASURE_COLUMNS, normalizeResult, summaryBoundary } from '../../core/batch';
 import { toCsv, type CsvValue } from '../../core/csv';
 import type { ProjectDoc } from '../../core/contract';
@@ -12,7 +12,7 @@ import {
   resultKey, resultKeyOf, withTimePoint, type EmbryoResult, type HandEdits, type MovieRecord, type PlaneSource, type ProjectedStack, type StackInfo,
 } from '../../core/model';
 import { analyseMovie } from '../../core/pipeline';
-import { loadImageCorrections } from './correction-images';
+import { inputFolderOf, loadImageCorrections } from './correction-images';
 import { settingsInForce, type AnalysisSettings } from '../../core/settings';
 import { pagesAsTimePoints, resolveTimeAxis } from '../../core/tiff';
 import {
@@ -149,7 +149,7 @@ export async function analyseMovieAtPath(
 ): Promise<MovieOutcome> {
   const opened = await openStack(path, file);
   try {
-    const r = await analyseOpenedMovie(opened, file, settings, doc, options, hooks, path.endsWith(file) && path.length > file.length ? path.slice(0, path.length - file.length) : dirname(path));
+    const r = await analyseOpenedMovie(opened, file, settings, doc, options, hooks, inputFolderOf(path, file));
     if (r === null) throw new Error(`${file}: has one time point; the time-lapse view needs a movie`);
     if (r.record.error !== null) throw new Error(r.record.error);
     return movieOutcomes([r.record], r.results).movies[0];
