@@ -21,8 +21,8 @@ export interface SegmentOptions {
   readonly edgeFraction?: number;
   /** Run the coarse stage on 2×2-averaged images (1 or 2); null = 2 for images over 500 000 pixels. @default null */
   readonly coarseDownsample?: 1 | 2 | null;
-  /** Segment on images binned by this integer factor and upsample the mask; null = 1 up to 500 000 pixels, else
-   * the smallest factor that brings the long side to at most 384 px. @default null */
+  /** Segment on images binned by this integer factor, upsample the mask and refine its edge at full resolution;
+   * null = the smallest factor that brings the long side to at most 384 px (1 for smaller images). @default null */
   readonly binFactor?: number | null;
 }
 
@@ -316,14 +316,15 @@ function smoothUpsampled(small: Mask, f: number, width: number, height: number):
  * Two stages: a coarse SNR mask (strong smoothing, low threshold) finds where the embryo is; near its edge the
  * outline is then placed where a lightly smoothed channel falls to edgeFraction of its own local maximum, so a very
  * bright end is not pushed outwards. Each channel is judged on its own so a step inside one channel (an expression
- * boundary) does not cut the embryo; the coarse mask's deep interior is kept as is. Large images are segmented
- * binned (see SegmentOptions.binFactor) and the mask is upsampled.
+ * boundary) does not cut the embryo; the coarse mask's deep interior is kept as is. Images with a long side over
+ * 384 px are segmented binned (see SegmentOptions.binFactor), the mask is upsampled and its edge band is decided
+ * again by the same edge rule at full resolution (refineEdge).
  */
 export function segmentEmbryo(channels: readonly Plane[], options: SegmentOptions = {}): Mask {
   const o = checkSegmentOptions(options);
   if (channels.length === 0) throw new Error('segmentEmbryo needs at least one channel');
   const { width, height } = channels[0];
-  const bin = o.binFactor ?? (width * height > 500_000 ? Math.ceil(Math.max(width, height) / BINNED_LONG_SIDE_PX) : 1);
+  const bin = o.binFactor ?? Math.ceil(Math.max(width, height) / BINNED_LONG_SIDE_PX);
   if (bin === 1) return segmentAtScale(channels, o);
   // Pixel-sized options shrink with the image; the binned image is small, so its coarse stage runs at full scale.
   const small = segmentAtScale(channels.map((c) => binMean(c, bin)), {
