@@ -21,6 +21,7 @@ export { gridEl, interpolateOnGrid, normaliseProfile, centralSlope, conditionPro
 export { analyseCohort, type CohortRunOptions } from './analyse';
 export { splitBackgroundCondition, applyBackgroundCondition, jackknifeSe, type BackgroundSplit } from './background-condition';
 export { backgroundConditionOf, backgroundProfile, backgroundProfiles, BACKGROUND_CONDITION_RULE, ROLE_COLUMN } from './background-profile';
+export { backgroundProfileCsv, backgroundRefitCsv, backgroundConditionsCsv, backgroundRecordJson } from './background-tables';
 export { refitEmbryo, subtractProfile, refitWindowOf, type RefitSettings } from './background-refit';
 export { conditionsCsv, shiftsCsv, dosageFitCsv, positionalErrorCsv } from './tables';
 export { makeDemoCohort, type DemoCohortSpec } from './demo-cohort';
