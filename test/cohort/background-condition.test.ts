@@ -9,6 +9,7 @@ import { parseCsv } from '../../core/csv';
 import { DEFAULT_SETTINGS } from '../../core/settings';
 import { backgroundDemoCohort } from '../../core/cohort/background-demo.test-helper';
 import { cohortCommand } from '../../app/cli/cohort-command';
+import { cohortSummaryFor } from '../../app/engine/cohort-summary';
 
 // Source: demo data (invented: null-stained embryos share an additive background bump with the stained ones; the
 // truth is λ = 0.2 EL and a dosage series 1, 2 whose target boundary moves by λ·ln 2).
@@ -85,5 +86,12 @@ describe('eggline cohort --background-condition', () => {
     const u = buffers();
     expect(await cohortCommand([run, '--samples', sheetPath, '--background-condition', ' '], u.io)).toBe(2);
     expect(u.err.join('')).toBe('eggline cohort: --background-condition needs a condition name (see "eggline cohort --help")\n');
+  });
+  it('the window\'s cohort summary (role column, settings from run.json) names the background condition first', async () => {
+    const marked = join(dir, 'marked.csv');
+    const s = await cohortSummaryFor(demo.results, marked, null, run);
+    expect(s.warnings[0]).toBe('λ, amplitude and boundaries are refitted after subtracting background condition "null-stain" (3 embryos: null_1.tif, null_2.tif, null_3.tif); see report.html');
+    expect(s.conditions.map((c) => c.name)).toEqual(['dosage-1x', 'dosage-2x']);
+    expect(s.warnings.some((w) => w.startsWith('no batch settings'))).toBe(false);
   });
 });
