@@ -36,7 +36,7 @@ export interface AnalyseOptions {
  */
 export async function correctedProjection(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, corrections: ImageCorrections | null | undefined,
   into: readonly Float32Array[] | null = null): Promise<ProjectedStack> {
-  const raw = await projectStack(info, source, settings, into);
+  const raw = await projectStack(info, source, settings, corrections ?? null, into);
   return corrections ? applyImageCorrections(raw, corrections, settings.projection === 'sum' ? info.sizeZ : 1, into !== null) : raw;
 }
 
