@@ -101,6 +101,8 @@ function failedRecord(file: string, error: string, settings: AnalysisSettings, o
 export interface MovieHooks {
   readonly onTimePoint?: (done: number, total: number) => void;
   readonly onProjected?: (k: number, projected: ProjectedStack, total: number) => void;
+  /** Told the movie's StackInfo (its time points as the time pass reads them) before any time point is analysed. */
+  readonly onInfo?: (info: StackInfo) => void;
   /** Told the embryo found once for the movie (not with axisPerTime), before the first time point is analysed. */
   readonly onDetection?: (detection: Detection) => void;
   readonly signal?: { readonly aborted: boolean } | null;
@@ -118,6 +120,7 @@ async function analyseOpenedMovie(
   const options = fileTimelapseOptions(doc, file, runOptions);
   const info = asMovie(opened.info, options.timeStepS);
   if (info.sizeT <= 1) return null;
+  hooks.onInfo?.(info);
   const picked = selectTimeIndices(options.selection, info.sizeT);
   if (typeof picked === 'string') return { record: failedRecord(file, `${file}: ${picked}`, settings, options), results: [] };
   const warnings: string[] = [];

@@ -54,6 +54,7 @@ describe('the window\'s movie analysis (a 6-frame variant of the demo movie)', (
     const view = await buildMovieView(path, file, own, options);
     const batch = await analyseMovieFile(dir, file, doc.settings, doc, { ...options, selection: { kind: 'range', first: 2, last: 4 } });
     expect(view.timeIndices).toEqual([2, 3, 4]);
+    expect(view.sizeT).toBe(6);
     expect(view.tables).toEqual(movieTables(movieOutcomes([batch!.record], batch!.results).movies));
     expect(view.detection!.mask.width).toBe(400);
     expect(view.detection!.axis).toEqual(view.results[0].axis);

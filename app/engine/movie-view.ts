@@ -74,16 +74,17 @@ export async function buildMovieView(
     frames[k] = { width: shrunk[0].width, height: shrunk[0].height, scale: factor, channels: shrunk.map((c) => c.data as Float32Array) };
   };
   let detection: Detection | null = null;
+  let movieSizeT = 0;
   // The embryo's mask, outline and axis only (the detector's pixel sizes stay behind).
   const onDetection = (d: Detection): void => {
     detection = { mask: d.mask, outline: d.outline, axis: d.axis, eggLengthUm: d.eggLengthUm, eggWidthUm: d.eggWidthUm, warnings: d.warnings };
   };
-  const m = await analyseMovieAtPath(path, file, doc.settings, doc, passOptions(options), { ...hooks, onProjected, onDetection });
+  const m = await analyseMovieAtPath(path, file, doc.settings, doc, passOptions(options), { ...hooks, onProjected, onDetection, onInfo: (info) => { movieSizeT = info.sizeT; } });
   const s = m.summary;
   const d = movieFigureData(m);
   const list = (a: ArrayLike<number>): number[] => Array.from(a);
   return {
-    path, file, sizeT: m.timeIndices.length, timeIndices: [...m.timeIndices], timesS: m.timesS ? list(m.timesS) : null,
+    path, file, sizeT: Math.max(movieSizeT, m.timeIndices.length), timeIndices: [...m.timeIndices], timesS: m.timesS ? list(m.timesS) : null,
     timeSource: m.timeSource ?? null, channelNames, results: m.results, frames: m.timeIndices.map((_, k) => frames[k] ?? null), detection,
     lambda: d.lambda, steadyLambdaEl: d.steadyLambdaEl ?? null,
     kymograph: d.kymograph && {

@@ -161,7 +161,9 @@ export interface MovieView {
   readonly path: string;
   /** The file's key in the project (path relative to the folder). */
   readonly file: string;
+  /** Time points in the movie (all of them, analysed or not). */
   readonly sizeT: number;
+  /** The analysed time points (0-based, ascending). */
   readonly timeIndices: readonly number[];
   /** Seconds from the first time point; null when the times are unknown. */
   readonly timesS: readonly number[] | null;
