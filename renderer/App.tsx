@@ -27,7 +27,7 @@ import { useExports } from './hooks/useExports';
 import { useLiveMeasurement } from './hooks/useLiveMeasurement';
 import { movieViewOf, useMovie } from './hooks/useMovie';
 import { TimelapseView } from './components/timelapse/TimelapseView';
-import type { FolderEntry } from '../core/contract';
+import type { FolderEntry, LoadedStack } from '../core/contract';
 import { fileStatus } from './state/fileStatus';
 import { currentEdits, editorReducer, fileResult, initialState, storedEdits, timePointEdits } from './state';
 import { fileEditsAt } from '../core/settings';
@@ -118,19 +118,20 @@ export function App() {
   useEffect(() => { void openAtStart(); }, []);
 
   // A newly loaded stack brings its automatic axis, display ranges fitted to it, and the image fitted to the window;
-  // another time point of the same file brings its automatic axis and display ranges, and the view stays where it is.
-  const shownLoad = useRef<{ path: string; t: number | null } | null>(null);
+  // another time point of the same file keeps the view where it is, and the movie's embryo arriving for the stack
+  // already shown changes only the automatic axis.
+  const shownLoad = useRef<{ loaded: LoadedStack; path: string; t: number | null } | null>(null);
   useEffect(() => {
-    if (stack === null || state.current === null) return;
+    if (stack === null || state.current === null || load.stack === null) return;
     dispatch({ type: 'selectFile', key: state.current, autoAxis: stack.detection.axis });
     const before = shownLoad.current;
-    if (before !== null && before.path === stack.path && before.t === load.timeIndex) return;
-    shownLoad.current = { path: stack.path, t: load.timeIndex };
+    if (before !== null && before.loaded === load.stack) return;
+    shownLoad.current = { loaded: load.stack, path: stack.path, t: load.timeIndex };
     dispatch({ type: 'initChannelDisplay', channels: stack.projected.channels.map((p, i) => {
       const [low, high] = autoDisplayRange(p);
       return { colour: CHANNEL_COLOURS[i % CHANNEL_COLOURS.length], low, high };
     }) });
-    if (before === null || before.path !== stack.path) setFitRequest((n) => n + 1);
+    if (before === null || before.path !== stack.path || before.t === load.timeIndex) setFitRequest((n) => n + 1);
   }, [stack]);
 
   // The preview gets a display range of its own and is fitted to the window like a loaded stack.
