@@ -4,7 +4,6 @@ import { parseCsv } from '../csv';
 import { errorResult, withTimePoint } from '../model';
 import { jsonWithArrays, resultsDocFromJson, resultsFromJson, resultsToJson } from './results-json';
 import { boundariesCsv, embryoResults, embryosCsv, EMBRYO_COLUMNS, landmarksCsv, profilesCsv, SIDE_COLUMNS, summaryBoundary } from './tables';
-import { resultsFromJson, resultsToJson } from './results-json';
 
 // Source: demo data (a hand-built result; every expected cell is copied from it).
 const profile = (channel: string, mean: number[]): Profile => ({

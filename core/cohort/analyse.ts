@@ -11,6 +11,7 @@ import { conditionProfile } from './profiles';
 import type { CohortAnalysis, CohortAssignment, CohortOptions, ConditionProfile, Observation, ResolvedCohortOptions, SampleSheet } from '../model';
 import { positionQuantities, referenceLambda, shiftRows } from './dosage-test';
 import { meanOf } from './stats-local';
+import { sideDifferences } from './sides';
 
 /**
  * Analyse a cohort of embryo results with a sample sheet; throws CohortError for bad sheets or options. Results may be
@@ -51,7 +52,8 @@ export function analyseCohort(keyed: readonly EmbryoResult[], sheet: SampleSheet
     measuredDosages: measured, lambdaTrend: lambdaTrend(observations, opts.level),
     reliability: conditionReliability(assignment.groups, observations),
     fitRanges: fitRangesUsed(assignment.groups.flatMap((g) => g.embryos)),
-    sheetColumns: [...new Set(sheet.rows.flatMap((r) => Object.keys(r.extra)))], profiles, warnings };
+    sheetColumns: [...new Set(sheet.rows.flatMap((r) => Object.keys(r.extra)))], profiles, warnings,
+    sideDifferences: sideDifferences(observations, conditions, opts.level) };
 }
 
 /** λ_local (x/EL) and its jackknife SE per position quantity at the reference's mean position (finite λ only). */
