@@ -30,7 +30,7 @@ const coreMayImport = {
   synth: ['model', 'settings', 'stats', 'image', 'tiff', 'fit', 'timelapse'],
   batch: ['model', 'settings', 'stats', 'csv', 'contract'],
   shard: ['model', 'settings', 'stats', 'csv', 'batch'],
-  cohort: ['model', 'settings', 'stats', 'csv'],
+  cohort: ['model', 'settings', 'stats', 'csv', 'geometry', 'fit', 'profile'],
   timelapse: ['model', 'settings', 'stats', 'fit'],
   figures: ['model', 'settings', 'stats', 'cohort'],
 };

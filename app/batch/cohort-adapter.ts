@@ -10,6 +10,8 @@ export interface CohortStepOptions {
   readonly failures: { file: string; error: string }[];
   readonly sampleSheetPath: string | null;
   readonly reference: string | null;
+  /** The condition subtracted as background (see runCohortStep); null or absent: from the sheet's role column. */
+  readonly backgroundCondition?: string | null;
   readonly outDir: string;
   readonly runRecord: unknown;
   /** The batch's movies and failed movies: the report gets a time-lapse section with their figures. */

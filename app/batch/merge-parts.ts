@@ -23,7 +23,7 @@ export interface MergePartsOptions {
   /** Merge the parts that are there; list the files of missing parts in run.json. */
   readonly allowMissing: boolean;
   readonly commandLine?: readonly string[];
-  readonly cohort?: { readonly sampleSheetPath: string; readonly reference: string | null } | null;
+  readonly cohort?: { readonly sampleSheetPath: string; readonly reference: string | null; readonly backgroundCondition?: string | null } | null;
 }
 
 /** What a merge wrote. */
@@ -149,7 +149,7 @@ export async function mergeParts(opts: MergePartsOptions): Promise<MergePartsRes
   if (opts.cohort) {
     const failures = results.filter((r) => r.status === 'error').map((r) => ({ file: r.file, error: r.error ?? 'error' }));
     const step = await runCohort({
-      results: embryoResults(results), failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, outDir: opts.outDir, runRecord: record,
+      results: embryoResults(results), failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, backgroundCondition: opts.cohort.backgroundCondition ?? null, outDir: opts.outDir, runRecord: record,
       movies: timelapse.movies, movieFailures: timelapse.failures,
     });
     written.push(...step.written);

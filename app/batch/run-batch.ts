@@ -61,7 +61,7 @@ export interface RunBatchOptions {
   /** Reuse the results the journal in outDir holds for files whose bytes and settings are unchanged. */
   readonly resume?: boolean;
   /** Run the cohort step afterwards with this sample sheet. */
-  readonly cohort?: { readonly sampleSheetPath: string; readonly reference: string | null } | null;
+  readonly cohort?: { readonly sampleSheetPath: string; readonly reference: string | null; readonly backgroundCondition?: string | null } | null;
   /** Analyse only this part of the sorted, size-balanced file list, writing to `<outDir>/parts/K-of-N`. */
   readonly shard?: ShardSpec | null;
   /** Analyse every file with more than one time point per time point after the main pass (absent or null: not). */
@@ -313,7 +313,7 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   if (opts.cohort && complete) {
     const failures = finished.filter((r) => r.status === 'error').map((r) => ({ file: r.file, error: r.error ?? 'error' }));
     const step = await runCohort({
-      results: embryoResults(keyed), failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, outDir, runRecord: final,
+      results: embryoResults(keyed), failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, backgroundCondition: opts.cohort.backgroundCondition ?? null, outDir, runRecord: final,
       movies: timelapse.movies, movieFailures: timelapse.failures,
     });
     written.push(...step.written);

@@ -58,4 +58,10 @@ describe('planBatch', () => {
     await expect(planBatch([input, '--out', join(root, 'o'), '--strip-width', '-.5'])).rejects.toThrow('--strip-width must be a positive number of µm (got "-.5")');
     await expect(planBatch([input, '--out', join(root, 'o'), '--jobs', '-2'])).rejects.toThrow('--jobs must be a whole number from 1 to 256 (got "-2")');
   });
+  it('--background-condition goes with --samples to the cohort step', async () => {
+    writeFileSync(join(root, 'samples.csv'), 'file,condition\na.tif,null-stain\n');
+    const plan = await planBatch([input, '--out', join(root, 'o'), '--samples', join(root, 'samples.csv'), '--background-condition', 'null-stain']);
+    expect(plan !== 'help' && plan.backgroundCondition).toBe('null-stain');
+    await expect(planBatch([input, '--out', join(root, 'o'), '--background-condition', 'null-stain'])).rejects.toThrow('--background-condition needs --samples');
+  });
 });

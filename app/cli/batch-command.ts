@@ -30,7 +30,7 @@ const RUN_OPTIONS = Object.fromEntries(RUN_SETTINGS.map((s) => [s.flag.slice(2),
 const OPTIONS = {
   ...SETTING_OPTIONS, ...RUN_OPTIONS,
   out: { type: 'string' }, config: { type: 'string' },
-  project: { type: 'string' }, 'no-project': { type: 'boolean' }, samples: { type: 'string' }, reference: { type: 'string' },
+  project: { type: 'string' }, 'no-project': { type: 'boolean' }, samples: { type: 'string' }, reference: { type: 'string' }, 'background-condition': { type: 'string' },
   resume: { type: 'boolean' }, shard: { type: 'string' },
   slurm: { type: 'string' }, 'slurm-options': { type: 'string' }, help: { type: 'boolean', short: 'h' },
   time: { type: 'string' }, 'axis-per-time': { type: 'boolean' }, 'time-step': { type: 'string' }, 'tau-range': { type: 'string' },
@@ -48,6 +48,8 @@ export interface BatchPlan {
   readonly configFile: string | null;
   readonly samples: string | null;
   readonly reference: string | null;
+  /** The sample sheet's condition subtracted as background (--background-condition). */
+  readonly backgroundCondition: string | null;
   readonly timeoutS: number | undefined;
   readonly resume: boolean;
   readonly maxMemoryBytes: number;
@@ -117,6 +119,8 @@ export async function planBatch(given: readonly string[]): Promise<BatchPlan | '
     throw new UsageError(`--out must not be inside the input folder (${v.out}${realOut !== resolve(v.out) ? `, through a symlink, is ${realOut}` : ''}; nothing is written next to the inputs)`, 'batch');
   }
   if (v.reference !== undefined && v.samples === undefined) throw new UsageError('--reference needs --samples', 'batch');
+  if (v['background-condition'] !== undefined && v.samples === undefined) throw new UsageError('--background-condition needs --samples', 'batch');
+  if (v['background-condition'] !== undefined && v['background-condition'].trim() === '') throw new UsageError('--background-condition needs a condition name', 'batch');
   if (v.shard !== undefined && v.slurm !== undefined) throw new UsageError('use --shard (analyse one part) or --slurm (write the scripts), not both', 'batch');
   if (v['slurm-options'] !== undefined && v.slurm === undefined) throw new UsageError('--slurm-options needs --slurm N', 'batch');
   if (v.shard !== undefined && v.samples !== undefined) {
@@ -145,7 +149,7 @@ export async function planBatch(given: readonly string[]): Promise<BatchPlan | '
     folder, outDir: resolve(v.out), settings: mergeSettings(DEFAULT_SETTINGS, project.doc?.settings ?? {}, config, flags), doc: project.doc,
     jobs,
     projectFile: project.path, configFile: v.config !== undefined ? resolve(v.config) : null,
-    samples: v.samples !== undefined ? resolve(v.samples) : null, reference: v.reference ?? null,
+    samples: v.samples !== undefined ? resolve(v.samples) : null, reference: v.reference ?? null, backgroundCondition: v['background-condition'] ?? null,
     timeoutS: timeoutText !== undefined ? runFlag('fileTimeoutS', timeoutText) : undefined,
     resume: v.resume === true, maxMemoryBytes: maxMemory, notes: project.note ? [project.note] : [], shard,
     timelapse: parseTimelapseFlags({ time: v.time, axisPerTime: v['axis-per-time'], timeStep: v['time-step'], tauRange: v['tau-range'], baselineFrames: v['baseline-frames'] }),
@@ -209,7 +213,8 @@ function reportEnd(io: CliIo, summary: BatchRunResult, plan: BatchPlan): void {
 /** `--slurm N`: write the two scripts and print how to submit them; analyses nothing. */
 async function slurmCommand(plan: BatchPlan, io: CliIo, cliPath: string): Promise<number> {
   const slurm = plan.slurm as NonNullable<BatchPlan['slurm']>;
-  const mergeArgs = plan.samples ? ['--samples', plan.samples, ...(plan.reference !== null ? ['--reference', plan.reference] : [])] : [];
+  const mergeArgs = plan.samples ? ['--samples', plan.samples, ...(plan.reference !== null ? ['--reference', plan.reference] : []),
+    ...(plan.backgroundCondition !== null ? ['--background-condition', plan.backgroundCondition] : [])] : [];
   const { plan: p, arrayPath, mergePath } = await writeSlurmScripts({
     folder: plan.folder, outDir: plan.outDir, parts: slurm.parts, cpusPerTask: slurm.cpusPerTask, optionsText: slurm.options,
     batchArgs: slurm.partArgs, mergeArgs, nodePath: process.execPath, cliPath,
@@ -250,7 +255,7 @@ export async function batchCommand(argv: readonly string[], io: CliIo, extra: Pa
       folder: plan.folder, outDir: plan.outDir, settings: plan.settings, doc: plan.doc, jobs: plan.jobs,
       onProgress: printer.onProgress, signal: abort.signal, timeoutPerFileS: plan.timeoutS, resume: plan.resume, maxMemoryBytes: plan.maxMemoryBytes,
       commandLine: ['eggline', 'batch', ...argv], projectFile: plan.projectFile, configFile: plan.configFile,
-      cohort: plan.samples ? { sampleSheetPath: plan.samples, reference: plan.reference } : null, shard: plan.shard,
+      cohort: plan.samples ? { sampleSheetPath: plan.samples, reference: plan.reference, backgroundCondition: plan.backgroundCondition } : null, shard: plan.shard,
       timelapse: plan.timelapse, onMovie: (file, done) => io.stderr.write(`eggline: time analysis ${done}: ${file}\n`), ...extra,
     });
     printer.end();

@@ -32,6 +32,11 @@ Options:
                               named group (?<condition>...) and optionally (?<dosage>...)
   --dosage COND=F             dosage of a condition for --pattern (repeat for each condition)
   --reference COND            reference condition              [default: the one with dosage 1]
+  --background-condition COND a condition of null or secondary-only stainings: its mean profile
+                              (after each embryo's own background) is subtracted from every other
+                              embryo's, whose λ and boundaries are then fitted again; it is not
+                              compared. Default: the condition whose rows say "background" in a
+                              role column of the sheet, else none
   --normalise MODE            scale-offset | none | amplitude | minmax: profile scaling before
                               averaging (scale-offset: each profile fitted onto the mean)  [scale-offset]
   --lambda-posterior-el V     decay length of an opposing posterior gradient (x/EL), adds the
@@ -49,6 +54,7 @@ const NORMALISE = ['none', 'amplitude', 'minmax', 'scale-offset'];
 interface CohortPlan {
   resultsDir: string; samples: string | null; rule: FilenameRule | null; reference: string | null;
   normalisation: Normalisation; lambdaPosteriorEl: number | null; equivalenceMargin: number | null; outDir: string;
+  backgroundCondition: string | null;
 }
 
 /** `--dosage COND=F` values as a map, or a usage message. */
@@ -65,7 +71,7 @@ function parseDosages(values: readonly string[]): Record<string, number> | { usa
 
 const COHORT_OPTIONS = {
   samples: { type: 'string' }, pattern: { type: 'string' }, dosage: { type: 'string', multiple: true },
-  reference: { type: 'string' }, normalise: { type: 'string' }, 'lambda-posterior-el': { type: 'string' },
+  reference: { type: 'string' }, 'background-condition': { type: 'string' }, normalise: { type: 'string' }, 'lambda-posterior-el': { type: 'string' },
   'equivalence-margin': { type: 'string' },
   out: { type: 'string' }, help: { type: 'boolean', short: 'h' },
 } as const;
@@ -92,9 +98,11 @@ export function parseCohortArgs(argv: readonly string[]): CohortPlan | 'help' | 
   const em = v['equivalence-margin'];
   const equivalenceMargin = em === undefined ? null : Number(em);
   if (equivalenceMargin !== null && !(Number.isFinite(equivalenceMargin) && equivalenceMargin > 0 && equivalenceMargin < 1)) return { usage: `--equivalence-margin must be a number between 0 and 1 (got "${em}")` };
+  const bgc = v['background-condition'];
+  if (bgc !== undefined && bgc.trim() === '') return { usage: '--background-condition needs a condition name' };
   const resultsDir = parsed.positionals[0];
   const rule = v.pattern ? { pattern: v.pattern, dosages: dosages as Record<string, number> } : null;
-  return { resultsDir, samples: v.samples ?? null, rule, reference: v.reference ?? null, normalisation: (v.normalise ?? 'scale-offset') as Normalisation, lambdaPosteriorEl, equivalenceMargin, outDir: v.out ?? join(resultsDir, 'cohort') };
+  return { resultsDir, samples: v.samples ?? null, rule, reference: v.reference ?? null, normalisation: (v.normalise ?? 'scale-offset') as Normalisation, lambdaPosteriorEl, equivalenceMargin, outDir: v.out ?? join(resultsDir, 'cohort'), backgroundCondition: bgc ?? null };
 }
 
 async function readOptionalJson(path: string): Promise<unknown> {
@@ -130,9 +138,11 @@ export async function cohortCommand(argv: readonly string[], io: CohortCommandIo
     const timelapseHtml = timelapseReportSection(movies.map((movie) => ({ movie, figures: movieFigures(movie) })), movieFailures);
     const out = await runCohortStep({
       results: doc.results, failures: [], timelapseHtml, sampleSheetPath: plan.samples, reference: plan.reference, outDir: plan.outDir, runRecord,
-      normalisation: plan.normalisation, lambdaPosteriorEl: plan.lambdaPosteriorEl, equivalenceMargin: plan.equivalenceMargin, ...(plan.rule ? { filenameRule: plan.rule } : {}),
+      normalisation: plan.normalisation, lambdaPosteriorEl: plan.lambdaPosteriorEl, equivalenceMargin: plan.equivalenceMargin, backgroundCondition: plan.backgroundCondition, ...(plan.rule ? { filenameRule: plan.rule } : {}),
     });
     for (const w of out.warnings) io.stderr.write(`warning: ${w}\n`);
+    const bg = out.analysis.backgroundCondition;
+    if (bg) io.stdout.write(`background condition "${bg.condition}" (${bg.files.length} embryo${bg.files.length === 1 ? '' : 's'}) subtracted; λ and boundaries fitted again (background_refit.csv)\n`);
     io.stdout.write(`wrote ${out.written.length} files to ${plan.outDir} (open report.html)\n`);
     return 0;
   } catch (e) {

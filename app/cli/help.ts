@@ -71,6 +71,9 @@ ${settingsHelp()}
   --no-project                ignore <folder>/eggline-project.json
   --samples CSV               sample sheet (file,condition[,dosage]); runs the cohort step after
   --reference COND            reference condition for the cohort step (needs --samples)
+  --background-condition COND the sheet's condition of null or secondary-only stainings, subtracted
+                              from every other embryo's profile before λ and boundaries are fitted
+                              again in the cohort step (needs --samples; see eggline cohort --help)
 ${runSettingHelp('fileTimeoutS', String(DEFAULT_TIMEOUT_PER_FILE_S))}
 ${runSettingHelp('maxMemoryBytes', '3/4 of memory / jobs, 1G to 8G')}
   --resume                    reuse the results journal.jsonl in <dir> holds for files whose bytes
@@ -103,7 +106,8 @@ Splitting a batch (a cluster, or several machines sharing a file system):
   --slurm-options "…"         sbatch options for both scripts (partition, account, time limit, …),
                               e.g. "--partition=long --time=04:00:00"; --cpus-per-task or --mem here
                               replace the ones Eggline sets
-  With --slurm, --jobs sets the cores per task [2]; --samples and --reference go to the merge job.
+  With --slurm, --jobs sets the cores per task [2]; --samples, --reference and
+  --background-condition go to the merge job.
 
 Exit status: 0 all files analysed, 1 some files failed or the run stopped early, 2 usage error.
 `;
@@ -119,6 +123,9 @@ a part present twice, and parts made with different settings, hand edits, Egglin
 Options:
   --samples CSV               sample sheet (file,condition[,dosage]); runs the cohort step after the merge
   --reference COND            reference condition for the cohort step (needs --samples)
+  --background-condition COND the sheet's condition of null or secondary-only stainings, subtracted
+                              from every other embryo's profile before λ and boundaries are fitted
+                              again in the cohort step (needs --samples; see eggline cohort --help)
   --allow-missing             merge the parts that are there; run.json lists the files without a row
   -h, --help                  show this help
 

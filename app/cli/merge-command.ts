@@ -8,7 +8,7 @@ import { parseCommandArgs } from './parse-command-args';
 import { UsageError, type CliIo } from './usage-error';
 
 const OPTIONS = {
-  samples: { type: 'string' }, reference: { type: 'string' }, 'allow-missing': { type: 'boolean' }, help: { type: 'boolean', short: 'h' },
+  samples: { type: 'string' }, reference: { type: 'string' }, 'background-condition': { type: 'string' }, 'allow-missing': { type: 'boolean' }, help: { type: 'boolean', short: 'h' },
 } as const;
 
 /** Run `eggline merge`; returns the exit code (0 merged and every file ok, 1 some files failed or missing or the cohort
@@ -20,6 +20,7 @@ export async function mergeCommand(argv: readonly string[], io: CliIo): Promise<
     throw new UsageError(positionals.length === 0 ? 'missing the batch output folder (the --out of the split batch)' : `expected one folder, got ${positionals.length}: ${positionals.join(' ')}`, 'merge');
   }
   if (v.reference !== undefined && v.samples === undefined) throw new UsageError('--reference needs --samples', 'merge');
+  if (v['background-condition'] !== undefined && v.samples === undefined) throw new UsageError('--background-condition needs --samples', 'merge');
   if (v.samples !== undefined && !(await fs.stat(v.samples).then((s) => s.isFile(), () => false))) {
     throw new UsageError(`sample sheet not found: ${v.samples}`, 'merge');
   }
@@ -27,7 +28,7 @@ export async function mergeCommand(argv: readonly string[], io: CliIo): Promise<
   try {
     const merged = await mergeParts({
       outDir, allowMissing: v['allow-missing'] === true, commandLine: ['eggline', 'merge', ...argv],
-      cohort: v.samples !== undefined ? { sampleSheetPath: resolve(v.samples), reference: v.reference ?? null } : null,
+      cohort: v.samples !== undefined ? { sampleSheetPath: resolve(v.samples), reference: v.reference ?? null, backgroundCondition: v['background-condition'] ?? null } : null,
     });
     for (const w of merged.warnings) io.stderr.write(`eggline: warning: ${w}\n`);
     const total = merged.ok + merged.failed;

@@ -77,8 +77,10 @@ function summarySection(r: ReportInput): string {
     dosage = `<h3>Dosage test: position vs ln f</h3>${table(['quantity', `ratio λ_eff/λ_ref [${pct}% CI]`, 'test of ratio = 1', `slope λ_eff, x/EL per ln f [${pct}% CI]`, 'predicted λ_ref [CI]'], rows, 1)}`;
     dosage += `<p class="note">λ_ref: mean λ of the reference condition; the threshold model predicts slope = λ_ref, i.e. a ratio of 1. The ratio interval counts both uncertainties; "not rejected" does not mean "confirmed" (details and caveats under <a href="#dosage">Dosage test</a>).</p>`;
   }
+  const bg = a.backgroundCondition;
+  const subtracted = bg ? `<p><strong>Background condition subtracted:</strong> every λ, amplitude and boundary position in this report is refitted after subtracting the mean profile of <strong>${esc(bg.condition)}</strong> (${bg.files.length} embryo${bg.files.length === 1 ? '' : 's'}, not compared as a condition); see <a href="#background">Background condition</a>.</p>` : '';
   const warnings = r.warnings.length ? `<h3 class="warn">Warnings (${r.warnings.length})</h3><ul>${r.warnings.map((w) => `<li class="warn">${esc(w)}</li>`).join('')}</ul>` : '';
-  return `<section class="summary" id="summary"><h2>Summary</h2>${files}${conds}${dosage}${warnings}</section>`;
+  return `<section class="summary" id="summary"><h2>Summary</h2>${files}${subtracted}${conds}${dosage}${warnings}</section>`;
 }
 
 function settingsSection(a: CohortAnalysis, sheetSource: string, runRecord: unknown): string {
@@ -145,6 +147,24 @@ function dosageSection(a: CohortAnalysis): string {
     + `<h3>Position vs ln f</h3>${fits}<h3>Shift per condition</h3>${shifts}<h3>Reading</h3>${findings}<h3>Caveats</h3><ul>${reading.caveats.map((c) => `<li>${esc(c)}</li>`).join('')}</ul>`;
 }
 
+/** The background condition: the rule, its embryos, and per condition the means before and after with both SEs. */
+function backgroundSection(a: CohortAnalysis): string {
+  const bg = a.backgroundCondition;
+  if (!bg) return '';
+  const pct = Math.round(a.options.level * 100);
+  const num = (v: number | null): string => (v === null || !Number.isFinite(v) ? 'n/a' : sigFig(v, 3));
+  const rows = bg.summaries.filter((s) => s.unit !== 'um').map((s) => [s.condition, quantityLabel(s.quantity), unitText(s.unit), String(s.n), num(s.meanBefore), num(s.meanAfter),
+    num(s.seBetween), num(s.seBackground), Number.isFinite(s.ciLow) ? `${num(s.ciLow)} to ${num(s.ciHigh)}` : 'n/a']);
+  const named = bg.source === 'option' ? 'named by --background-condition' : 'marked background in the sample sheet\'s role column';
+  return `<h2 id="background">Background condition</h2><p>${esc(bg.rule)} The background condition <strong>${esc(bg.condition)}</strong> (${esc(named)}) is not compared as a condition; `
+    + `its embryos: ${bg.files.map(esc).join(', ')}. Channels: ${bg.profiles.map((p) => esc(p.channel)).join(', ')}.</p>`
+    + table(['condition', 'quantity', 'unit', 'n', 'mean before', 'mean after', 'SE between embryos', 'SE from the background', `${pct}% CI (both)`], rows, 3)
+    + `<p class="note">The background's own noise is shared by every embryo, so the spread between embryos does not show it: its SE is a jackknife over the background embryos `
+    + `(each left out in turn, the rest subtracted, every embryo fitted again). The intervals in the other tables of this report count the spread between embryos only; the last column counts both. `
+    + `Subtracting assumes the background condition was stained, mounted and imaged like the others; a background profile brighter than the embryo's own signal leaves negative values. `
+    + `Every number is in background_refit.csv, background_conditions.csv and background_profile.csv; background_condition.json records the subtraction.</p>`;
+}
+
 /** Build the report HTML. */
 export function cohortReportHtml(r: ReportInput): string {
   const figs = r.figures.map((f) => `<figure id="fig-${esc(f.name)}">${f.svg}<figcaption>${esc(f.title)} (also saved as ${esc(f.name)}.svg and .png)</figcaption></figure>`).join('');
@@ -153,6 +173,6 @@ export function cohortReportHtml(r: ReportInput): string {
     + `<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:">`
     + `<title>Eggline cohort report</title><style>${CSS}</style></head><body><h1>Eggline cohort report</h1>`
     + `<p class="note">Generated ${esc(r.generatedAt)}. Positions are x/EL (0 = anterior pole, 1 = posterior pole).</p>`
-    + summarySection(r) + `<h2 id="figures">Figures</h2>${figs}` + dosageSection(r.analysis) + sidesSection(r.analysis) + conditionTables(r.analysis)
+    + summarySection(r) + `<h2 id="figures">Figures</h2>${figs}` + backgroundSection(r.analysis) + dosageSection(r.analysis) + sidesSection(r.analysis) + conditionTables(r.analysis)
     + (r.timelapseHtml ?? '') + failed + settingsSection(r.analysis, r.sheetSource, r.runRecord) + '</body></html>\n';
 }

@@ -1,13 +1,14 @@
 // The cohort step as files: reads the sample sheet, analyses, writes conditions.csv, shifts.csv, dosage_fit.csv,
 // positional_error.csv, one .svg and one .png per figure and report.html into outDir. Every file is written atomically.
-import { mkdir, readFile } from 'node:fs/promises';
+import { mkdir, readFile, rm } from 'node:fs/promises';
 import sharp from 'sharp';
 import { basename, join } from 'node:path';
 import { embryoResults, type EmbryoResult } from '../../core/model';
 import {
-  analyseCohort, CohortError, conditionsCsv, dosageFitCsv, positionalErrorCsv, sheetFromFilenameRule, parseSampleSheet, shiftsCsv, sideDifferencesCsv,
-  type CohortAnalysis, type FilenameRule, type Normalisation, type SampleSheet,
+  analyseCohort, backgroundConditionsCsv, backgroundProfileCsv, backgroundRecordJson, backgroundRefitCsv, CohortError, conditionsCsv, dosageFitCsv, positionalErrorCsv, sheetFromFilenameRule, parseSampleSheet, shiftsCsv, sideDifferencesCsv,
+  type CohortAnalysis, type FilenameRule, type Normalisation, type RefitSettings, type SampleSheet,
 } from '../../core/cohort';
+import { settingsFromStored } from '../../core/settings';
 import { cohortFigures, type NamedFigure } from '../../core/figures';
 import { writeFileAtomic } from '../project';
 import { cohortReportHtml } from './report-html';
@@ -27,6 +28,9 @@ export interface CohortStepOptions {
   /** Equivalence margin of the ratio observed/predicted (see CohortOptions). */
   readonly equivalenceMargin?: number | null;
   readonly filenameRule?: FilenameRule;
+  /** The condition whose mean profile is subtracted from every other embryo's (a null or secondary-only staining);
+   *  null or absent: the one the sheet's role column marks, else none. */
+  readonly backgroundCondition?: string | null;
   /** The time-lapse section of report.html (HTML; see app/batch timelapseReportSection); absent: none. */
   readonly timelapseHtml?: string;
 }
@@ -80,6 +84,7 @@ export async function runCohortStep(opts: CohortStepOptions): Promise<CohortStep
   const sheet = await loadSheet(opts, warnings);
   const analysis = analyseCohort(opts.results, sheet, {
     reference: opts.reference, normalisation: opts.normalisation ?? 'scale-offset', lambdaPosteriorEl: opts.lambdaPosteriorEl ?? null, equivalenceMargin: opts.equivalenceMargin ?? null,
+    backgroundCondition: opts.backgroundCondition ?? null, refitSettings: batchSettings(opts.runRecord),
   });
   warnings.push(...analysis.warnings);
   const figures = cohortFigures(analysis);
@@ -87,7 +92,7 @@ export async function runCohortStep(opts: CohortStepOptions): Promise<CohortStep
   const html = cohortReportHtml({ analysis, figures, failures, runRecord: opts.runRecord, warnings, sheetSource: sheet.source, generatedAt: new Date().toISOString(), okCount: opts.results.filter((r) => r.status === 'ok').length, timelapseHtml: opts.timelapseHtml });
   const files: [string, string][] = [
     ['conditions.csv', conditionsCsv(analysis)], ['shifts.csv', shiftsCsv(analysis)], ['dosage_fit.csv', dosageFitCsv(analysis)],
-    ['positional_error.csv', positionalErrorCsv(analysis)], ...figures.map((f): [string, string] => [`${f.name}.svg`, f.svg]), ['report.html', html],
+    ['positional_error.csv', positionalErrorCsv(analysis)], ...backgroundFiles(analysis, sheet.source), ...figures.map((f): [string, string] => [`${f.name}.svg`, f.svg]), ['report.html', html],
   ];
   const sides = sideDifferencesCsv(analysis.sideDifferences);
   if (sides !== null) files.splice(4, 0, ['side_differences.csv', sides]);
@@ -97,8 +102,33 @@ export async function runCohortStep(opts: CohortStepOptions): Promise<CohortStep
   } catch (e) {
     throw new CohortError(`${opts.outDir}: cannot write the cohort outputs (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
   }
+  // Background tables of an earlier cohort run that subtracted a background condition must not outlive it.
+  if (!analysis.backgroundCondition) for (const name of BACKGROUND_FILES) await rm(join(opts.outDir, name), { force: true }).catch(() => undefined);
   const pngs = await writePngs(figures, opts.outDir, warnings);
   return { written: [...files.map(([name]) => join(opts.outDir, name)), ...pngs], warnings, analysis, figures };
+}
+
+/** The batch settings recorded in run.json (the refit after a background condition searches boundaries with them), or
+ *  null when the record has none or they do not check. */
+export function batchSettings(runRecord: unknown): RefitSettings | null {
+  const stored = typeof runRecord === 'object' && runRecord !== null ? (runRecord as { settings?: unknown }).settings : undefined;
+  if (stored === undefined) return null;
+  try {
+    return settingsFromStored(stored, 'run.json settings');
+  } catch {
+    return null;
+  }
+}
+
+/** The files written only when a background condition was subtracted. */
+export const BACKGROUND_FILES = ['background_profile.csv', 'background_refit.csv', 'background_conditions.csv', 'background_condition.json'] as const;
+
+/** The background condition's tables and record, when one was subtracted. */
+function backgroundFiles(a: CohortAnalysis, sheetSource: string): [string, string][] {
+  const r = a.backgroundCondition;
+  if (!r) return [];
+  return [['background_profile.csv', backgroundProfileCsv(r)], ['background_refit.csv', backgroundRefitCsv(r)],
+    ['background_conditions.csv', backgroundConditionsCsv(r)], ['background_condition.json', backgroundRecordJson(r, sheetSource)]];
 }
 
 /** Each figure also as PNG (2× scale, white background); a failure here is a warning, the SVGs stay. */

@@ -5,7 +5,7 @@ import { join } from 'node:path';
 import { analyseCohort, type CohortAnalysis, type ConditionStat } from '../../core/cohort';
 import type { CohortConditionRow, CohortSummary } from '../../core/contract';
 import { cohortFigures, type NamedFigure } from '../../core/figures';
-import { readSampleSheet } from '../cohort/run-cohort';
+import { batchSettings, readSampleSheet } from '../cohort/run-cohort';
 import type { EmbryoResult } from '../../core/model';
 
 /** File name of the sample sheet the app looks for in a batch's input folder. */
@@ -35,6 +35,12 @@ export function conditionRows(a: CohortAnalysis): CohortConditionRow[] {
   }));
 }
 
+/** The line that says the values are background-subtracted, when they are (the window lists it first). */
+function backgroundNote(a: CohortAnalysis): string[] {
+  const bg = a.backgroundCondition;
+  return bg ? [`λ, amplitude and boundaries are refitted after subtracting background condition "${bg.condition}" (${bg.files.length} embryo${bg.files.length === 1 ? '' : 's'}: ${bg.files.join(', ')}); see report.html`] : [];
+}
+
 /** Plain-data summary of an analysis (figures included: those given, else drawn here) for the renderer. */
 export function summariseCohort(
   a: CohortAnalysis, sampleSheetPath: string, outDir: string, figures: readonly NamedFigure[] = cohortFigures(a),
@@ -42,7 +48,7 @@ export function summariseCohort(
   return {
     reportPath: join(outDir, 'report.html'), sampleSheetPath, reference: a.reference, level: a.options.level,
     referenceLambda: a.referenceLambda, conditions: conditionRows(a), stats: a.stats, shifts: a.shifts, dosageFit: a.dosageFits,
-    figures: figures.map((f) => ({ name: f.name, title: f.title, svg: f.svg })), warnings: [...a.warnings],
+    figures: figures.map((f) => ({ name: f.name, title: f.title, svg: f.svg })), warnings: [...backgroundNote(a), ...a.warnings],
   };
 }
 
@@ -52,6 +58,8 @@ export async function cohortSummaryFor(
   results: readonly EmbryoResult[], sampleSheetPath: string, reference: string | null, outDir: string,
 ): Promise<CohortSummary> {
   const sheet = await readSampleSheet(sampleSheetPath);
-  const analysis = analyseCohort(results, sheet, { reference, lambdaPosteriorEl: null });
+  // The batch's settings, for a background condition's refit (the sheet's role column may name one).
+  const record = await fs.readFile(join(outDir, 'run.json'), 'utf8').then((t) => JSON.parse(t) as unknown, () => null);
+  const analysis = analyseCohort(results, sheet, { reference, lambdaPosteriorEl: null, refitSettings: batchSettings(record) });
   return summariseCohort(analysis, sampleSheetPath, outDir);
 }

@@ -18,10 +18,10 @@ import { placeholderDetection } from './placeholder-detection';
 async function loadForView(path: string, label: string, settings: AnalysisSettings): Promise<ViewData> {
   const opened = await openStackForAnalysis(path, label);
   try {
-    const raw = await projectStack(opened.info, opened.source, settings);
     // The flat field and background image, as the batch applies them (relative paths from the folder of the file list).
     const baseDir = path.endsWith(label) && path.length > label.length ? path.slice(0, path.length - label.length) : dirname(path);
     const corrections = await loadImageCorrections(settings, baseDir);
+    const raw = await projectStack(opened.info, opened.source, settings, corrections);
     const projected = corrections ? applyImageCorrections(raw, corrections, settings.projection === 'sum' ? opened.info.sizeZ : 1) : raw;
     let detection: Detection;
     try {

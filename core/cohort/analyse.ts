@@ -12,17 +12,42 @@ import type { CohortAnalysis, CohortAssignment, CohortOptions, ConditionProfile,
 import { positionQuantities, referenceLambda, shiftRows } from './dosage-test';
 import { meanOf } from './stats-local';
 import { sideDifferences } from './sides';
+import { applyBackgroundCondition, splitBackgroundCondition } from './background-condition';
+import type { RefitSettings } from './background-refit';
+import { CohortError } from './cohort-error';
+import { DEFAULT_SETTINGS } from '../settings';
+
+/** Options of analyseCohort: the cohort options, and the batch's settings a background-condition refit uses (the
+ *  boundary search and the shared fit range; default: the built-in settings, with a warning). */
+export interface CohortRunOptions extends CohortOptions {
+  readonly refitSettings?: RefitSettings | null;
+}
 
 /**
  * Analyse a cohort of embryo results with a sample sheet; throws CohortError for bad sheets or options. Results may be
  * keyed by (file, time point): each embryo counts once, with its file's highest time point (a movie's last analysed
  * one; embryoResults).
  */
-export function analyseCohort(keyed: readonly EmbryoResult[], sheet: SampleSheet, options: CohortOptions = {}): CohortAnalysis {
+export function analyseCohort(keyed: readonly EmbryoResult[], fullSheet: SampleSheet, options: CohortRunOptions = {}): CohortAnalysis {
   const opts = checkCohortOptions(options);
-  const results = embryoResults(keyed);
-  const assignment = assignConditions(results, sheet, opts.reference);
-  const warnings = [...assignment.warnings];
+  const given = options.backgroundCondition ?? null;
+  if (given !== null && given.trim() === '') throw new CohortError('backgroundCondition must be a non-empty condition name');
+  // A background condition (null or secondary-only staining) leaves the comparison; its profile is subtracted below.
+  const split = splitBackgroundCondition(embryoResults(keyed), fullSheet, given);
+  if (split !== null && split.condition === opts.reference) throw new CohortError(`${fullSheet.source}: "${split.condition}" cannot be both the reference and the background condition`);
+  const sheet = split?.sheet ?? fullSheet;
+  const results = split?.results ?? embryoResults(keyed);
+  const assigned = assignConditions(results, sheet, opts.reference);
+  const warnings = [...assigned.warnings, ...(split?.warnings ?? [])];
+  let assignment = assigned;
+  let background: ReturnType<typeof applyBackgroundCondition>['record'] | null = null;
+  if (split !== null) {
+    if (!options.refitSettings) warnings.push(`no batch settings were given; the boundaries after subtracting "${split.condition}" were searched with the built-in settings`);
+    const applied = applyBackgroundCondition(assigned.groups, split, options.refitSettings ?? DEFAULT_SETTINGS, opts.level);
+    assignment = { ...assigned, groups: applied.groups };
+    background = applied.record;
+    if (split.embryos.length < 2) warnings.push(`background condition "${split.condition}" has one embryo: the background's own noise cannot be estimated, and it adds to every embryo's`);
+  }
   const flat = notDecayingFits(assignment.groups.flatMap((g) => g.embryos));
   if (flat.length > 0) {
     warnings.push(`λ left out of the statistics for ${flat.length} embryo${flat.length === 1 ? '' : 's'} whose fit is not a decaying gradient: ${flat.join(', ')}`);
@@ -42,6 +67,9 @@ export function analyseCohort(keyed: readonly EmbryoResult[], sheet: SampleSheet
     const l = local.get(s.quantity);
     return { ...s, predictedLocalShiftEl: l !== undefined && s.lnF !== null ? l.lambdaEl * s.lnF : null };
   });
+  if (background !== null && observations.some((o) => o.kind === 'side-difference')) {
+    warnings.push('the dorsal − ventral differences of λ are those of the batch: the background condition\'s profile was not subtracted from each side');
+  }
   const profiles: ConditionProfile[] = [];
   for (const g of assignment.groups) {
     const r = conditionProfile(g.embryos, g.condition, opts);
@@ -53,7 +81,8 @@ export function analyseCohort(keyed: readonly EmbryoResult[], sheet: SampleSheet
     reliability: conditionReliability(assignment.groups, observations),
     fitRanges: fitRangesUsed(assignment.groups.flatMap((g) => g.embryos)),
     sheetColumns: [...new Set(sheet.rows.flatMap((r) => Object.keys(r.extra)))], profiles, warnings,
-    sideDifferences: sideDifferences(observations, conditions, opts.level) };
+    sideDifferences: sideDifferences(observations, conditions, opts.level),
+    ...(background !== null ? { backgroundCondition: background } : {}) };
 }
 
 /** λ_local (x/EL) and its jackknife SE per position quantity at the reference's mean position (finite λ only). */

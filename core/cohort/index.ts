@@ -3,7 +3,7 @@
 export type {
   CohortAnalysis, CohortAssignment, CohortOptions, ConditionInfo, ConditionProfile, ConditionStat, DosageFit,
   FilenameRule, MeasuredDosage, Normalisation, SlopeSummary, Observation, QuantityKind, QuantityUnit, ReferenceLambda, ResolvedCohortOptions,
-  SampleRow, SampleSheet, ShiftRow,
+  SampleRow, SampleSheet, ShiftRow, BackgroundConditionRecord, BackgroundConditionSummary, BackgroundProfile, BackgroundRefitRow,
 } from '../model';
 export { CohortError } from './cohort-error';
 export { checkCohortOptions } from './options';
@@ -18,7 +18,11 @@ export { welchDifference, type MeanDifference } from './welch';
 export { referenceLambda, shiftRows, ratioWithCi, slopeRatio, twoGradientShiftEl, positionQuantities, type RatioInterval } from './dosage-test';
 export { dosageFits, lambdaTrend, measuredDosages, conditionMeansLine } from './dosage-fit';
 export { gridEl, interpolateOnGrid, normaliseProfile, centralSlope, conditionProfile } from './profiles';
-export { analyseCohort } from './analyse';
+export { analyseCohort, type CohortRunOptions } from './analyse';
+export { splitBackgroundCondition, applyBackgroundCondition, jackknifeSe, type BackgroundSplit } from './background-condition';
+export { backgroundConditionOf, backgroundProfile, backgroundProfiles, BACKGROUND_CONDITION_RULE, ROLE_COLUMN } from './background-profile';
+export { backgroundProfileCsv, backgroundRefitCsv, backgroundConditionsCsv, backgroundRecordJson } from './background-tables';
+export { refitEmbryo, subtractProfile, refitWindowOf, type RefitSettings } from './background-refit';
 export { conditionsCsv, shiftsCsv, dosageFitCsv, positionalErrorCsv } from './tables';
 export { makeDemoCohort, type DemoCohortSpec } from './demo-cohort';
 export { conditionReliability, fitRangesUsed, lambdaPositionCorrelation, LAMBDA_RELATIVE_SE_LIMIT } from './reliability';

@@ -87,3 +87,16 @@ export function applyImageCorrections(projected: ProjectedStack, corrections: Im
   }));
   return { ...projected, channels };
 }
+
+/**
+ * The planes of one slice (one per channel) as the corrections make them, (p − b)/f, for scoring the automatic slice
+ * choice on what the analysis will see; the planes as they are when there is no correction or an image does not fit
+ * (the projection's correction then fails with the mismatch message).
+ */
+export function correctedSlicePlanes(planes: readonly Plane[], corrections: ImageCorrections | null | undefined): readonly Plane[] {
+  if (!corrections || (!corrections.flat && !corrections.background) || planes.length === 0) return planes;
+  const { flat, background } = corrections;
+  const { width, height } = planes[0];
+  for (const image of [flat, background]) if (image && correctionMismatch(image, 'image', width, height, planes.length) !== null) return planes;
+  return planes.map((p, c) => ({ width, height, data: correctPlane(p.data, background ? background.channels[c] : null, 1, flat ? flat.channels[c] : null) }));
+}

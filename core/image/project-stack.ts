@@ -4,6 +4,7 @@ import type { AnalysisSettings } from '../settings';
 import { createProjector } from './projector';
 import type { Projector } from './projector';
 import { toFloatPlane } from './plane-convert';
+import { correctedSlicePlanes, type ImageCorrections } from './corrections';
 
 /**
  * Score used to pick a slice automatically: the variance of the plane's pixel values, summed over channels.
@@ -57,15 +58,17 @@ function checkIndices(info: StackInfo, settings: AnalysisSettings): void {
   }
 }
 
-/** Automatic slice: keep only the best-scoring z (all channels) while streaming through the stack. */
-async function bestSlice(info: StackInfo, source: PlaneSource, t: number): Promise<{ planes: Plane[]; z: number }> {
+/** Automatic slice: keep only the best-scoring z (all channels) while streaming through the stack. With corrections,
+ *  each slice is scored as the flat field and background image make it (the planes kept are the raw ones; the
+ *  projection is corrected afterwards, as for every projection). */
+async function bestSlice(info: StackInfo, source: PlaneSource, t: number, corrections: ImageCorrections | null): Promise<{ planes: Plane[]; z: number }> {
   let best: Plane[] = [];
   let bestZ = 0;
   let bestScore = -Infinity;
   for (let z = 0; z < info.sizeZ; z++) {
     const planes: RawPlane[] = [];
     for (let c = 0; c < info.sizeC; c++) planes.push(await readChecked(source, info, z, c, t));
-    const score = chooseSliceScore(planes);
+    const score = corrections ? chooseSliceScore(correctedSlicePlanes(planes.map(toFloatPlane), corrections)) : chooseSliceScore(planes);
     if (score > bestScore) { bestScore = score; bestZ = z; best = planes.map(toFloatPlane); }
   }
   return { planes: best, z: bestZ };
@@ -99,10 +102,12 @@ function clearNonFinite(planes: readonly Plane[]): number {
 
 /**
  * Project every channel of a stack over Z at settings.timeIndex with settings.projection, reading one plane at a time.
- * 'slice' uses settings.sliceIndex, or, when null, the slice with the highest contrast (see chooseSliceScore).
- * Rejects with a one-line message on bad indices or planes of the wrong size.
+ * 'slice' uses settings.sliceIndex, or, when null, the slice with the highest contrast (see chooseSliceScore), scored
+ * on the planes as `corrections` (flat field, background image) make them; the projection itself is returned
+ * uncorrected (applyImageCorrections does that). Rejects with a one-line message on bad indices or planes of the
+ * wrong size.
  */
-export async function projectStack(info: StackInfo, source: PlaneSource, settings: AnalysisSettings): Promise<ProjectedStack> {
+export async function projectStack(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, corrections: ImageCorrections | null = null): Promise<ProjectedStack> {
   checkIndices(info, settings);
   const warnings: string[] = [];
   const px = resolvePixelSize(info.pixelSize, settings.pixelSizeUm, warnings);
@@ -111,7 +116,7 @@ export async function projectStack(info: StackInfo, source: PlaneSource, setting
   let channels: Plane[];
   let sliceIndex: number | null = null;
   if (settings.projection === 'slice' && settings.sliceIndex === null) {
-    const best = await bestSlice(info, source, t);
+    const best = await bestSlice(info, source, t, corrections);
     channels = best.planes;
     sliceIndex = best.z;
   } else {

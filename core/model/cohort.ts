@@ -240,6 +240,10 @@ export interface CohortOptions {
   /** Equivalence margin m for the ratio observed/predicted: equivalence to 1 is shown when the (1 − 2α) interval
    *  lies inside [1 − m, 1 + m] (two one-sided tests); default none. */
   readonly equivalenceMargin?: number | null;
+  /** A condition of the sheet (e.g. a null or secondary-only staining) whose mean profile is subtracted from every
+   *  other embryo's profile before λ and the boundaries are fitted again; its embryos are not compared. Default:
+   *  the condition whose rows say `background` in the sheet's `role` column, else none. */
+  readonly backgroundCondition?: string | null;
 }
 
 /** Options with every default filled in. */
@@ -275,6 +279,9 @@ export interface CohortAnalysis {
   readonly sheetColumns: readonly string[];
   readonly profiles: readonly ConditionProfile[];
   readonly warnings: readonly string[];
+  /** Present only when a background condition was subtracted: then every λ, amplitude and boundary above is the
+   *  refitted, background-subtracted value (see BackgroundConditionRecord). */
+  readonly backgroundCondition?: BackgroundConditionRecord;
   /** Per condition, the mean paired difference λ_dorsal − λ_ventral of embryos measured on each side (--edge-side
    *  each); empty or absent when none was. */
   readonly sideDifferences?: readonly SideDifferenceRow[];
@@ -302,6 +309,66 @@ export interface SideDifferenceRow {
   /** Two-sided p of mean = 0 (t test on n − 1 dof; NaN for n < 2) and Holm's adjustment over the conditions. */
   readonly p: number;
   readonly pHolm: number;
+}
+
+/** The mean profile of one channel over the background condition's embryos, on the batch's x/EL bins. */
+export interface BackgroundProfile {
+  readonly channel: string;
+  readonly xEl: Float64Array;
+  /** Mean over the background embryos of their (already background-subtracted) bin means; NaN where none has data. */
+  readonly mean: Float64Array;
+  /** SD between the background embryos (n − 1), and its standard error SD/√n; NaN when n < 2. */
+  readonly sd: Float64Array;
+  readonly se: Float64Array;
+  /** Background embryos with data in the bin. */
+  readonly n: Float64Array;
+}
+
+/** One quantity of one embryo before and after the background condition's profile was subtracted. */
+export interface BackgroundRefitRow {
+  readonly file: string;
+  readonly condition: string;
+  readonly quantity: string;
+  readonly unit: QuantityUnit;
+  readonly before: number | null;
+  readonly after: number | null;
+  /** The refit's own standard error (λ, amplitude, a boundary's position where its method gives one), else null. */
+  readonly seFit: number | null;
+  /** Jackknife SE over the background embryos: how much `after` moves with the background's own noise; null with
+   *  fewer than two background embryos. */
+  readonly seBackground: number | null;
+}
+
+/** Per condition and quantity: the mean before and after, and the jackknife SE of the mean after from the
+ *  background's own noise (shared by every condition; not part of the between-embryo CI). */
+export interface BackgroundConditionSummary {
+  readonly condition: string;
+  readonly quantity: string;
+  readonly unit: QuantityUnit;
+  readonly n: number;
+  readonly meanBefore: number;
+  readonly meanAfter: number;
+  readonly seBackground: number | null;
+  /** SEM of the values after (the spread between embryos), and √(SEM² + seBackground²) with its interval at the
+   *  cohort's level on Welch–Satterthwaite degrees of freedom; NaN when either part is missing. */
+  readonly seBetween: number;
+  readonly seCombined: number;
+  readonly ciLow: number;
+  readonly ciHigh: number;
+}
+
+/** What subtracting a background condition did: the condition, its embryos, its profiles and every refitted value. */
+export interface BackgroundConditionRecord {
+  readonly condition: string;
+  /** Where the name came from: the --background-condition option, or the sample sheet's role column. */
+  readonly source: 'option' | 'sheet';
+  /** The background condition's embryos (files), in sheet order. */
+  readonly files: readonly string[];
+  /** The rule in one sentence. */
+  readonly rule: string;
+  readonly profiles: readonly BackgroundProfile[];
+  readonly refits: readonly BackgroundRefitRow[];
+  readonly summaries: readonly BackgroundConditionSummary[];
 }
 
 /** Reliability summary of one condition (see core/cohort reliability). */

@@ -28,7 +28,7 @@ export interface AnalyseOptions {
 
 /** The Z projection with the flat field and background image applied (when given). */
 export async function correctedProjection(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, corrections: ImageCorrections | null | undefined): Promise<ProjectedStack> {
-  const raw = await projectStack(info, source, settings);
+  const raw = await projectStack(info, source, settings, corrections ?? null);
   return corrections ? applyImageCorrections(raw, corrections, settings.projection === 'sum' ? info.sizeZ : 1) : raw;
 }
 

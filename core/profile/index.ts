@@ -6,7 +6,7 @@ export {
 } from './samplers';
 export type { PreparedSampling, PixelSet, ProfileSampler, SampledRegion, SamplingBase, MaskBox, SideBins } from './samplers';
 export {
-  measureEmbryo, sampleProfiles, fitSampledProfiles, filledBins, fitProfile, binWeights, polesOutsideWarnings, poleSlackPx, boundaryWindowOf,
+  measureEmbryo, sampleProfiles, fitSampledProfiles, filledBins, binsWithin, fitProfile, binWeights, polesOutsideWarnings, poleSlackPx, boundaryWindowOf,
 } from './measure';
 export type { Measurement, SampledProfiles } from './measure';
 export { measureSides } from './sides';

@@ -1,0 +1,97 @@
+// `eggline cohort --background-condition` (and a sample sheet's role column) on a small demo-like set: outputs,
+// report and one-line errors.
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { resultsToJson } from '../../core/batch';
+import { parseCsv } from '../../core/csv';
+import { DEFAULT_SETTINGS } from '../../core/settings';
+import { backgroundDemoCohort } from '../../core/cohort/background-demo.test-helper';
+import { cohortCommand } from '../../app/cli/cohort-command';
+import { cohortSummaryFor } from '../../app/engine/cohort-summary';
+
+// Source: demo data (invented: null-stained embryos share an additive background bump with the stained ones; the
+// truth is λ = 0.2 EL and a dosage series 1, 2 whose target boundary moves by λ·ln 2).
+const dir = mkdtempSync(join(tmpdir(), 'eggline-background-cli-'));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+const demo = backgroundDemoCohort(23, 4, 3, [{ name: 'dosage-1x', dosage: 1 }, { name: 'dosage-2x', dosage: 2 }]);
+const run = join(dir, 'run');
+mkdirSync(run);
+writeFileSync(join(run, 'results.json'), resultsToJson(demo.results));
+writeFileSync(join(run, 'run.json'), JSON.stringify({ settings: { ...DEFAULT_SETTINGS, boundaryChannels: ['target'] } }));
+const sheetPath = join(dir, 'samples.csv');
+writeFileSync(sheetPath, demo.sheet);
+
+function buffers() {
+  const out: string[] = [];
+  const err: string[] = [];
+  return { io: { stdout: { write: (t: string) => out.push(t) }, stderr: { write: (t: string) => err.push(t) } }, out, err };
+}
+
+const rowsOf = (path: string): Record<string, string>[] => {
+  const [header, ...rows] = parseCsv(readFileSync(path, 'utf8'));
+  return rows.map((r) => Object.fromEntries(header.map((h, i) => [h, r[i]])));
+};
+
+describe('eggline cohort --background-condition', () => {
+  it('subtracts the null staining, refits, and writes the background tables, record and report section', async () => {
+    const b = buffers();
+    const out = join(dir, 'with');
+    expect(await cohortCommand([run, '--samples', sheetPath, '--background-condition', 'null-stain', '--out', out], b.io)).toBe(0);
+    expect(b.out.join('')).toContain('background condition "null-stain" (3 embryos) subtracted; λ and boundaries fitted again (background_refit.csv)');
+    for (const f of ['background_profile.csv', 'background_refit.csv', 'background_conditions.csv', 'background_condition.json']) expect(existsSync(join(out, f))).toBe(true);
+    const record = JSON.parse(readFileSync(join(out, 'background_condition.json'), 'utf8'));
+    expect(record.embryos).toEqual(['null_1.tif', 'null_2.tif', 'null_3.tif']);
+    expect(record.namedBy).toBe('--background-condition');
+    // The conditions table has the refitted λ, and no row for the background condition
+    const lam = rowsOf(join(out, 'conditions.csv')).filter((r) => r.quantity === 'lambda' && r.unit === 'EL');
+    expect(lam.map((r) => r.condition)).toEqual(['dosage-1x', 'dosage-2x']);
+    for (const r of lam) expect(Math.abs(Number(r.mean) - 0.2)).toBeLessThan(0.01);
+    const summary = rowsOf(join(out, 'background_conditions.csv')).find((r) => r.condition === 'dosage-1x' && r.quantity === 'lambda' && r.unit === 'EL')!;
+    expect(Number(summary.mean_before)).toBeGreaterThan(0.25);
+    expect(Number(summary.mean_after)).toBe(Number(lam[0].mean));
+    expect(Number(summary.ci_low)).toBeLessThan(0.2);
+    expect(Number(summary.ci_high)).toBeGreaterThan(0.2);
+    expect(rowsOf(join(out, 'background_profile.csv')).filter((r) => r.channel === 'target')).toHaveLength(100);
+    const html = readFileSync(join(out, 'report.html'), 'utf8');
+    expect(html).toContain('<h2 id="background">Background condition</h2>');
+    expect(html).toContain('Background condition subtracted:</strong> every λ, amplitude and boundary position in this report is refitted after subtracting the mean profile of <strong>null-stain</strong> (3 embryos');
+    expect(html).toContain('null_1.tif, null_2.tif, null_3.tif');
+  });
+
+  it('without the option the null staining is just another condition, and no background table is left from before', async () => {
+    const b = buffers();
+    const out = join(dir, 'with');
+    expect(await cohortCommand([run, '--samples', sheetPath, '--out', out], b.io)).toBe(0);
+    expect(existsSync(join(out, 'background_refit.csv'))).toBe(false);
+    expect(rowsOf(join(out, 'conditions.csv')).some((r) => r.condition === 'null-stain')).toBe(true);
+    expect(readFileSync(join(out, 'report.html'), 'utf8')).not.toContain('id="background"');
+  });
+
+  it('takes the background condition from the sheet\'s role column', async () => {
+    const marked = join(dir, 'marked.csv');
+    writeFileSync(marked, demo.sheet.split('\n').map((l, i) => (i === 0 ? `${l},role` : l === '' ? l : `${l},${l.startsWith('null') ? 'background' : 'sample'}`)).join('\n'));
+    const b = buffers();
+    const out = join(dir, 'marked');
+    expect(await cohortCommand([run, '--samples', marked, '--out', out], b.io)).toBe(0);
+    expect(JSON.parse(readFileSync(join(out, 'background_condition.json'), 'utf8')).namedBy).toBe('role column of the sample sheet');
+  });
+
+  it('bad input: one line naming the sheet or condition, exit 1', async () => {
+    const b = buffers();
+    expect(await cohortCommand([run, '--samples', sheetPath, '--background-condition', 'secondary-only', '--out', join(dir, 'bad')], b.io)).toBe(1);
+    expect(b.err.join('')).toBe('eggline cohort: samples.csv: background condition "secondary-only" is not in the sheet (conditions: dosage-1x, dosage-2x, null-stain)\n');
+    const u = buffers();
+    expect(await cohortCommand([run, '--samples', sheetPath, '--background-condition', ' '], u.io)).toBe(2);
+    expect(u.err.join('')).toBe('eggline cohort: --background-condition needs a condition name (see "eggline cohort --help")\n');
+  });
+  it('the window\'s cohort summary (role column, settings from run.json) names the background condition first', async () => {
+    const marked = join(dir, 'marked.csv');
+    const s = await cohortSummaryFor(demo.results, marked, null, run);
+    expect(s.warnings[0]).toBe('λ, amplitude and boundaries are refitted after subtracting background condition "null-stain" (3 embryos: null_1.tif, null_2.tif, null_3.tif); see report.html');
+    expect(s.conditions.map((c) => c.name)).toEqual(['dosage-1x', 'dosage-2x']);
+    expect(s.warnings.some((w) => w.startsWith('no batch settings'))).toBe(false);
+  });
+});
