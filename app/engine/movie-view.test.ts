@@ -48,4 +48,17 @@ describe('the window\'s movie analysis (a 6-frame variant of the demo movie)', (
     expect(view.kymograph!.values).toHaveLength(6);
   });
 
+
+  it('analyses the time points the project names for the file (as --time A:B does in the batch), and hands over the movie\'s embryo', async () => {
+    const own = { ...doc, files: { [file]: { axis: null, landmarks: [], fitRangeEl: null, time: '2:4' } } };
+    const view = await buildMovieView(path, file, own, options);
+    const batch = await analyseMovieFile(dir, file, doc.settings, doc, { ...options, selection: { kind: 'range', first: 2, last: 4 } });
+    expect(view.timeIndices).toEqual([2, 3, 4]);
+    expect(view.sizeT).toBe(6);
+    expect(view.tables).toEqual(movieTables(movieOutcomes([batch!.record], batch!.results).movies));
+    expect(view.detection!.mask.width).toBe(400);
+    expect(view.detection!.axis).toEqual(view.results[0].axis);
+    const perTime = await buildMovieView(path, file, own, { ...options, axisPerTime: true });
+    expect(perTime.detection).toBeNull();
+  });
 });

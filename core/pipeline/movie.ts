@@ -24,6 +24,8 @@ export interface MovieOptions {
   readonly onTimePoint?: (done: number, total: number) => void;
   /** Told each time point's Z projection (k = position in timeIndices, of total). */
   readonly onProjected?: (k: number, projected: ProjectedStack, total: number) => void;
+  /** Told the embryo found once for the movie (not with axisPerTime), before the first time point is analysed. */
+  readonly onDetection?: (detection: EmbryoDetection) => void;
   /** Checked before each time point; when aborted, analyseMovie rejects with an AbortError naming the file. */
   readonly signal?: { readonly aborted: boolean } | null;
   /** Flat field and background image applied to every time point's projection. */
@@ -112,6 +114,7 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
       const sampled = await projectSampled(info, source, settings, axisSampleTimes(info.sizeT, options.axisSampleCount ?? 8), new Set(timeIndices), options.corrections ?? null);
       kept = sampled.kept;
       detection = detectEmbryo(sampled.mean, settings);
+      options.onDetection?.(detection);
     } catch (e) {
       const r = errorResult(fileLabel, `embryo over time: ${e instanceof Error ? e.message : String(e)}`);
       return { timeIndices, results: timeIndices.map((t) => withTimePoint(r, t, info.time?.timesS?.[t] ?? null)), movieAxis: null };

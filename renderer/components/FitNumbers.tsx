@@ -104,7 +104,7 @@ export function FitNumbers({ m, pixelSizeUm, loading, axisSource, file, settings
       {file !== null && <FileNote file={file} />}
       {file !== null && dorsal !== null && <DorsalSideControl {...dorsal} />}
       <table><tbody>
-        {rows.map(([k, v, id]) => <tr key={k}><th>{k}</th><td data-testid={id}>{v}</td></tr>)}
+        {rows.map(([k, v, id]) => <tr key={k}><th>{k}</th><td data-testid={id} data-value={id === 'lambda-el' ? f?.lambdaEl : undefined}>{v}</td></tr>)}
         {m?.boundaries.map((b, i) => <tr key={`b${i}`}><th>{b.channel} {b.method}</th><td>{b.positionEl === null ? (b.note ?? '—') : `${fixed(b.positionEl, 3)} EL · ${fmt(b.positionUm)} µm · ${b.direction}`}</td></tr>)}
       </tbody></table>
       {m !== null && (m.warnings.length > 0 || (f !== null && f.lambdaEl < 0)) && (

@@ -22,7 +22,7 @@ export function timeOf(view: MovieView, k: number): number {
 /** "t = 12 min · time point 4 of 46" (minutes for movies of 10 min or more; "time unknown" without times). */
 export function timeLabel(view: MovieView, k: number): string {
   const n = view.timeIndices.length;
-  const where = `time point ${view.timeIndices[k] + 1} of ${view.sizeT}`;
+  const where = `time point ${view.timeIndices[k] + 1} of ${view.sizeT}${n < view.sizeT ? ` (${k + 1} of ${n} analysed)` : ''}`;
   if (!view.timesS || n === 0) return `${where} · times unknown`;
   const { unit, perS } = movieTimeUnit(view.timesS[n - 1] - view.timesS[0]);
   return `t = ${fmt(view.timesS[k] * perS, 3)} ${unit} · ${where}`;
