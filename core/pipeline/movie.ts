@@ -22,7 +22,8 @@ export interface MovieOptions {
   readonly axisSampleCount?: number;
   /** Told after each analysed time point: how many are done of how many (the window's progress). */
   readonly onTimePoint?: (done: number, total: number) => void;
-  /** Told each time point's Z projection (k = position in timeIndices, of total). */
+  /** Told each time point's Z projection (k = position in timeIndices, of total); it lives only during the call
+   *  (its arrays are reused for the next time point), so copy what you keep. */
   readonly onProjected?: (k: number, projected: ProjectedStack, total: number) => void;
   /** Told the embryo found once for the movie (not with axisPerTime), before the first time point is analysed. */
   readonly onDetection?: (detection: EmbryoDetection) => void;
@@ -123,6 +124,8 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
   const results: EmbryoResult[] = [];
   // One embryo for the whole movie: what depends on its mask alone is prepared once (samplingWithin).
   const prepare = detection ? samplingWithin(detection) : undefined;
+  // One set of projection arrays serves every time point: nothing keeps a time point's projection past its analysis.
+  const projectionBuffers = Array.from({ length: info.sizeC }, () => new Float32Array(info.sizeX * info.sizeY));
   for (const [k, t] of timeIndices.entries()) {
     if (options.signal?.aborted) throw cancelled(fileLabel);
     const at = options.editsAt?.(t);
@@ -131,7 +134,7 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
     // A kept projection serves only settings that differ from the movie's in the fit range alone.
     const projected = kept.get(t) && sameButFitRange(settingsAtT, settings) ? kept.get(t) : undefined;
     kept.delete(t);
-    results.push(await analyseStack(info, source, settingsAtT, { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection, onProjected, projected, prepare, corrections: options.corrections ?? null }));
+    results.push(await analyseStack(info, source, settingsAtT, { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection, onProjected, projected, prepare, corrections: options.corrections ?? null, projectionBuffers }));
     options.onTimePoint?.(k + 1, timeIndices.length);
   }
   const hand = options.handEdits?.axis ?? null;
