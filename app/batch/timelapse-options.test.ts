@@ -31,7 +31,7 @@ describe('timePassNeeds', () => {
 
   it("takes a file's own time step from the project, and always hands over a file with time points of its own", () => {
     const base = newProject(null);
-    const doc: ProjectDoc = { ...base, files: { 'pages.tif': { timeStepS: 10 }, 'one.tif': { time: '0:3' } } } as ProjectDoc;
+    const doc: ProjectDoc = { ...base, files: { 'pages.tif': { timeStepS: 10 }, 'one.tif': { time: '0:3' } } } as unknown as ProjectDoc;
     const plainPages = { sizeT: 1, sizeZ: 5, isOme: false };
     expect(timePassNeeds(null, 'pages.tif', DEFAULT_TIMELAPSE_OPTIONS, plainPages)).toBe(false);
     expect(timePassNeeds(doc, 'pages.tif', DEFAULT_TIMELAPSE_OPTIONS, plainPages)).toBe(true);
