@@ -9,61 +9,40 @@ import { toCsv, type CsvValue } from '../../core/csv';
 import type { ProjectDoc } from '../../core/contract';
 import { accumulationFigure, figureSlug, kymographFigure, lambdaOverTimeFigure, type AccumulationFigureInput, type KymographInput, type LambdaPoint } from '../../core/figures';
 import {
-  resultKey, resultKeyOf, withTimePoint, type EmbryoResult, type HandEdits, type MovieRecord, type PlaneSource, type ProjectedStack, type StackInfo,
+  resultKey, resultKeyOf, withTimePoint, type Detection, type EmbryoResult, type HandEdits, type MovieRecord, type PlaneSource, type ProjectedStack, type StackInfo,
 } from '../../core/model';
 import { analyseMovie } from '../../core/pipeline';
 import { inputFolderOf, loadImageCorrections } from './correction-images';
 import { settingsInForce, type AnalysisSettings } from '../../core/settings';
 import { pagesAsTimePoints, resolveTimeAxis } from '../../core/tiff';
 import {
-  ACCUMULATION_COLUMNS, accumulationRows, MODEL_FIT_COLUMNS, modelFitRow, selectTimeIndices, summarizeMovie,
-  type MovieSummary, type TimeSelection,
+  ACCUMULATION_COLUMNS, accumulationRows, MODEL_FIT_COLUMNS, modelFitRow, parseTimeSelection, selectTimeIndices, summarizeMovie,
 } from '../../core/timelapse';
 import { writeFileAtomic } from '../project';
 import { openStack } from './deps';
 import { fileMessage } from './analyse-file';
 import { timelapsePage } from './timelapse-page';
 
-/** Options of the time analysis (flags --time, --axis-per-time, --time-step, --tau-range, --baseline-frames). */
-export interface TimelapseOptions {
-  readonly selection: TimeSelection;
-  readonly axisPerTime: boolean;
-  /** Seconds between time points when the file does not say; plain multi-page files are then read as frames. */
-  readonly timeStepS: number | null;
-  readonly tauRangeEl: readonly [number, number];
-  readonly baselineFrames: number;
-}
-
-/** Defaults: every time point, axis once per movie, no time step, τ model over 0.1–0.4 EL, one baseline frame. */
-export const DEFAULT_TIMELAPSE_OPTIONS: TimelapseOptions = Object.freeze({
-  selection: { kind: 'all' as const }, axisPerTime: false, timeStepS: null, tauRangeEl: [0.1, 0.4] as const, baselineFrames: 1,
-});
-
-/** One analysed movie: its per-time-point results with their indices and times, and the summary. */
-export interface MovieOutcome {
-  readonly file: string;
-  readonly timeIndices: readonly number[];
-  readonly timesS: Float64Array | null;
-  /** Where the times came from (ome-plane, ome-increment, imagej, ome-zarr, user), or null. */
-  readonly timeSource?: string | null;
-  readonly results: readonly EmbryoResult[];
-  readonly summary: MovieSummary;
-}
-
-/** A movie the time pass could not analyse, with a one-line reason naming the file. */
-export interface MovieFailure {
-  readonly file: string;
-  readonly error: string;
-}
-
-/** Files of the time pass: tables, figures and the page. */
-export const TIMELAPSE_FILES = ['timecourse.csv', 'timecourse_profiles.csv', 'timecourse_boundaries.csv', 'accumulation.csv', 'model_fit.csv', 'timelapse.html'] as const;
+import type { MovieFailure, MovieOutcome, TimelapseOptions } from './timelapse-options';
+export { DEFAULT_TIMELAPSE_OPTIONS, TIMELAPSE_FILES, type MovieFailure, type MovieOutcome, type TimelapseOptions } from './timelapse-options';
 
 /** The hand edits and settings in force for one file at time point t (null: the file's own): the file's (they apply
  *  to every time point), with that time point's own edits over them. */
 function editsAt(doc: ProjectDoc | null, file: string, settings: AnalysisSettings, t: number | null): { handEdits: HandEdits | null; settings: AnalysisSettings } {
   const e = editsForFile(doc, file, undefined, t);
   return { handEdits: e ? { axis: e.axis, landmarks: e.landmarks } : null, settings: settingsInForce(settings, e) };
+}
+
+/** The time options for one file: its own time points and time step from the project file (per-file `time`,
+ *  `timeStepS`) over the run's (--time, --time-step), as a file's own fit range or dorsal side beats the shared one. */
+export function fileTimelapseOptions(doc: ProjectDoc | null, file: string, options: TimelapseOptions): TimelapseOptions {
+  const own = editsForFile(doc, file, undefined, null);
+  if (!own || (own.time === undefined && own.timeStepS === undefined)) return options;
+  return {
+    ...options,
+    selection: own.time !== undefined ? parseTimeSelection(own.time, `${file}: time`) : options.selection,
+    timeStepS: own.timeStepS ?? options.timeStepS,
+  };
 }
 
 /** The movie's StackInfo for the time pass: plain multi-page files become frames when the user gives a time step. */
@@ -89,6 +68,10 @@ function failedRecord(file: string, error: string, settings: AnalysisSettings, o
 export interface MovieHooks {
   readonly onTimePoint?: (done: number, total: number) => void;
   readonly onProjected?: (k: number, projected: ProjectedStack, total: number) => void;
+  /** Told the movie's StackInfo (its time points as the time pass reads them) before any time point is analysed. */
+  readonly onInfo?: (info: StackInfo) => void;
+  /** Told the embryo found once for the movie (not with axisPerTime), before the first time point is analysed. */
+  readonly onDetection?: (detection: Detection) => void;
   readonly signal?: { readonly aborted: boolean } | null;
 }
 
@@ -99,10 +82,12 @@ export interface MovieHooks {
  */
 async function analyseOpenedMovie(
   opened: { info: StackInfo; source: PlaneSource }, file: string, settings: AnalysisSettings, doc: ProjectDoc | null,
-  options: TimelapseOptions, hooks: MovieHooks, baseDir: string,
+  runOptions: TimelapseOptions, hooks: MovieHooks, baseDir: string,
 ): Promise<MovieRun | null> {
+  const options = fileTimelapseOptions(doc, file, runOptions);
   const info = asMovie(opened.info, options.timeStepS);
   if (info.sizeT <= 1) return null;
+  hooks.onInfo?.(info);
   const picked = selectTimeIndices(options.selection, info.sizeT);
   if (typeof picked === 'string') return { record: failedRecord(file, `${file}: ${picked}`, settings, options), results: [] };
   const warnings: string[] = [];

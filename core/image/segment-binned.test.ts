@@ -3,6 +3,8 @@ import { createRng } from '../stats';
 import type { Plane } from '../model';
 import { binMean, checkSegmentOptions, segmentEmbryo, upsampleMask } from './segment';
 import { fastGaussianSmooth } from './box-blur';
+import { distanceInside, distanceOutside } from './distance';
+import { makeSyntheticEmbryo } from '../synth';
 
 describe('binMean', () => {
   it('averages f×f blocks, partial blocks at the edge over the pixels they hold', () => {
@@ -58,4 +60,33 @@ describe('segmentEmbryo on large images (binned)', () => {
   it('checks binFactor with an exact message', () => {
     expect(() => checkSegmentOptions({ binFactor: 1.5 })).toThrow('binFactor must be a positive integer or null, got 1.5');
   });
+});
+
+describe('segmentEmbryo binned against full resolution on mid-size frames', () => {
+  // Demo data: synthetic embryos of the demo's frame size and a larger one (both binned by 2), mean projection.
+  for (const [w, h, seed] of [[512, 384, 41], [700, 520, 43]] as const) {
+    it(`moves the outline by at most a pixel (${w}×${h})`, () => {
+      const e = makeSyntheticEmbryo({ widthPx: w, heightPx: h, sizeZ: 3, pixelSizeUm: 560 / w }, seed);
+      const { sizeX, sizeY, sizeZ, sizeC, planes } = e.stack;
+      const channels = Array.from({ length: sizeC }, (_, c) => {
+        const data = new Float32Array(sizeX * sizeY);
+        for (let z = 0; z < sizeZ; z++) { const p = planes[c * sizeZ + z]; for (let i = 0; i < data.length; i++) data[i] += p[i] / sizeZ; }
+        return { width: sizeX, height: sizeY, data };
+      });
+      const full = segmentEmbryo(channels, { binFactor: 1 });
+      const binned = segmentEmbryo(channels);
+      const din = distanceInside(full);
+      const dout = distanceOutside(full);
+      let area = 0; let differ = 0; let worst = 0;
+      for (let i = 0; i < full.data.length; i++) {
+        area += full.data[i];
+        if (full.data[i] === binned.data[i]) continue;
+        differ++;
+        worst = Math.max(worst, full.data[i] ? din[i] : dout[i]);
+      }
+      console.log(`${w}×${h}: ${differ} of ${area} mask pixels differ, farthest ${worst.toFixed(2)} px from the full-resolution edge`);
+      expect(differ).toBeLessThan(0.002 * area);
+      expect(worst).toBeLessThanOrEqual(1);
+    });
+  }
 });

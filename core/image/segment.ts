@@ -4,7 +4,7 @@ import { estimateBackgroundLevel } from './background-level';
 import { largestComponent } from './components';
 import { fillHoles } from './fill-holes';
 import { fastGaussianSmooth } from './box-blur';
-import { maxFilter, rowMaxima } from './max-filter';
+import { rowMaxima } from './max-filter';
 import { open, squareDilate, squareErode } from './morphology';
 import { otsuThreshold } from './threshold';
 
@@ -21,8 +21,8 @@ export interface SegmentOptions {
   readonly edgeFraction?: number;
   /** Run the coarse stage on 2×2-averaged images (1 or 2); null = 2 for images over 500 000 pixels. @default null */
   readonly coarseDownsample?: 1 | 2 | null;
-  /** Segment on images binned by this integer factor and upsample the mask; null = 1 up to 500 000 pixels, else
-   * the smallest factor that brings the long side to at most 384 px. @default null */
+  /** Segment on images binned by this integer factor, upsample the mask and refine its edge at full resolution;
+   * null = the smallest factor that brings the long side to at most 384 px (1 for smaller images). @default null */
   readonly binFactor?: number | null;
 }
 
@@ -55,26 +55,44 @@ export function channelSnr(channel: Plane, sigmaPx: number): Plane {
 
 /**
  * Signal-to-noise image: the maximum over channels of channelSnr. Normalising by noise lets a dim channel count as
- * much as a bright one.
+ * much as a bright one. Each channel is scaled straight into the maximum (no plane of its own): the scaled value is
+ * rounded to Float32 as channelSnr stores it, and a NaN never wins (the maximum starts at −Infinity).
  */
 export function combinedSnr(channels: readonly Plane[], sigmaPx: number): Plane {
   const { width, height } = channels[0];
   const out = new Float32Array(width * height).fill(-Infinity);
   for (const ch of channels) {
-    const z = channelSnr(ch, sigmaPx).data;
-    for (let i = 0; i < z.length; i++) if (z[i] > out[i]) out[i] = z[i];
+    const s = fastGaussianSmooth(ch, sigmaPx).data;
+    const bg = estimateBackgroundLevel(s);
+    maxScaled(s, bg.level, bg.noiseSd, out);
   }
   return { width, height, data: out };
+}
+
+/** out[i] = max(out[i], fround((s[i] − level) / sd)), keeping out[i] when the scaled value is NaN. */
+function maxScaled(s: Float32Array, level: number, sd: number, out: Float32Array): void {
+  for (let i = 0; i < s.length; i++) {
+    const z = Math.fround((s[i] - level) / sd);
+    if (z > out[i]) out[i] = z;
+  }
 }
 
 /** Coarse mask: Otsu on log SNR (log so a dim end is not lost beside a bright one), kept within 4..30 noise SDs. */
 function coarseMask(snr: Plane): Mask {
   const logs = new Float32Array(snr.data.length);
-  for (let i = 0; i < logs.length; i++) logs[i] = Math.log(Math.max(1, snr.data[i]));
+  logAboveOne(snr.data, logs);
   const t = Math.min(30, Math.max(4, Math.exp(otsuThreshold(logs))));
   const data = new Uint8Array(logs.length);
   for (let i = 0; i < data.length; i++) data[i] = snr.data[i] > t ? 1 : 0;
   return fillHoles(largestComponent({ width: snr.width, height: snr.height, data }));
+}
+
+/** out[i] = log(max(1, v[i])), without calling log where the value is at most 1 (most of the background). */
+function logAboveOne(v: Float32Array, out: Float32Array): void {
+  for (let i = 0; i < v.length; i++) {
+    const x = v[i];
+    out[i] = x > 1 ? Math.log(x) : x !== x ? NaN : 0;
+  }
 }
 
 /** Mean of 2×2 blocks (a last odd row or column is averaged with itself), half the size rounded up. */
@@ -107,24 +125,13 @@ function coarseAtScale(channels: readonly Plane[], sigmaPx: number, factor: 1 | 
   return { width, height, data };
 }
 
-/** Pixels where some channel is at least edgeFraction of its own local maximum (and above 3 noise SDs). */
-function nearLocalLevel(channels: readonly Plane[], o: Required<SegmentOptions>): Uint8Array {
-  const keep = new Uint8Array(channels[0].data.length);
-  for (const ch of channels) {
-    const fine = channelSnr(ch, o.fineSigmaPx);
-    const local = maxFilter(fine, o.localRadiusPx).data;
-    for (let i = 0; i < keep.length; i++) {
-      if (fine.data[i] >= Math.max(3, o.edgeFraction * local[i])) keep[i] = 1;
-    }
-  }
-  return keep;
-}
-
 /**
- * nearLocalLevel evaluated only at the pixels listed in `at` (indices into the channels' pixels): the same noise
- * units and the same local maximum, so the same decisions, without filtering the whole image. The local maximum of
- * the noise-scaled image is the noise-scaled maximum of the smoothed one (the scaling is monotone), so it is taken
- * on the smoothed values: the maximum of the row maxima (rowMaxima) of the window's rows.
+ * The edge rule at the pixels listed in `at` (indices into the channels' pixels): 1 where some channel, smoothed by
+ * fineSigmaPx and scaled to noise SDs as channelSnr scales it, is at least edgeFraction of its own local maximum
+ * (the maximum over the (2·localRadiusPx + 1)² square, clipped at the border) and above 3 noise SDs; 0 elsewhere.
+ * The local maximum of the noise-scaled image is the noise-scaled maximum of the smoothed one (the scaling is
+ * monotone), so it is taken on the smoothed values: the maximum of the row maxima (rowMaxima) of the window's rows.
+ * Only the pixels where the rule decides anything are listed, so no full-image maximum filter is needed.
  */
 function nearLocalLevelAt(channels: readonly Plane[], at: Int32Array, o: Required<SegmentOptions>): Uint8Array {
   const { width, height } = channels[0];
@@ -309,14 +316,15 @@ function smoothUpsampled(small: Mask, f: number, width: number, height: number):
  * Two stages: a coarse SNR mask (strong smoothing, low threshold) finds where the embryo is; near its edge the
  * outline is then placed where a lightly smoothed channel falls to edgeFraction of its own local maximum, so a very
  * bright end is not pushed outwards. Each channel is judged on its own so a step inside one channel (an expression
- * boundary) does not cut the embryo; the coarse mask's deep interior is kept as is. Large images are segmented
- * binned (see SegmentOptions.binFactor) and the mask is upsampled.
+ * boundary) does not cut the embryo; the coarse mask's deep interior is kept as is. Images with a long side over
+ * 384 px are segmented binned (see SegmentOptions.binFactor), the mask is upsampled and its edge band is decided
+ * again by the same edge rule at full resolution (refineEdge).
  */
 export function segmentEmbryo(channels: readonly Plane[], options: SegmentOptions = {}): Mask {
   const o = checkSegmentOptions(options);
   if (channels.length === 0) throw new Error('segmentEmbryo needs at least one channel');
   const { width, height } = channels[0];
-  const bin = o.binFactor ?? (width * height > 500_000 ? Math.ceil(Math.max(width, height) / BINNED_LONG_SIDE_PX) : 1);
+  const bin = o.binFactor ?? Math.ceil(Math.max(width, height) / BINNED_LONG_SIDE_PX);
   if (bin === 1) return segmentAtScale(channels, o);
   // Pixel-sized options shrink with the image; the binned image is small, so its coarse stage runs at full scale.
   const small = segmentAtScale(channels.map((c) => binMean(c, bin)), {
@@ -369,6 +377,15 @@ function refineEdge(up: Float32Array, channels: readonly Plane[], o: Required<Se
   return { width, height, data: out };
 }
 
+/** Indices of the pixels in `near` but not in `deep`, ascending. */
+function ringPixels(near: Uint8Array, deep: Uint8Array): Int32Array {
+  let n = 0;
+  for (let i = 0; i < near.length; i++) n += near[i] & (deep[i] ^ 1);
+  const at = new Int32Array(n);
+  for (let i = 0, k = 0; k < n; i++) if (near[i] && !deep[i]) at[k++] = i;
+  return at;
+}
+
 /** segmentEmbryo at the channels' own scale (checked options). */
 function segmentAtScale(channels: readonly Plane[], o: Required<SegmentOptions>): Mask {
   const { width, height } = channels[0];
@@ -378,7 +395,8 @@ function segmentAtScale(channels: readonly Plane[], o: Required<SegmentOptions>)
   // suffice for these margins and cost far less than distance maps.
   const near = squareDilate(coarse, 2 * o.coarseSigmaPx).data;
   const deep = squareErode(coarse, Math.max(2 * o.localRadiusPx, 3 * o.coarseSigmaPx)).data;
-  const keep = nearLocalLevel(channels, o);
+  // The edge rule decides only between the deep interior and the near zone; it is evaluated there alone.
+  const keep = nearLocalLevelAt(channels, ringPixels(near, deep), o);
   const data = new Uint8Array(width * height);
   for (let i = 0; i < data.length; i++) {
     data[i] = deep[i] || (near[i] && keep[i]) ? 1 : 0;
