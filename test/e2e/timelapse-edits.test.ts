@@ -104,6 +104,20 @@ describe('the window\'s movie controls', { timeout: 180_000 }, () => {
       expect(Number(await attr(page, 'movie-lambda-now', 'data-value'))).toBeCloseTo(Number(rowAt(reference, 10 + k).lambda_el), 9);
     }
     expect(await page.getByTestId('movie-time-label').textContent()).toMatch(/ · time point 26 of 46 \(16 of 16 analysed\)$/);
+    // The bar with the new fields stays on screen and its controls do not overlap.
+    for (const [w, hgt] of [[1440, 900], [1280, 720]] as const) {
+      await page.setViewportSize({ width: w, height: hgt });
+      await page.waitForTimeout(300);
+      const ids = ['movie-time', 'movie-time-step', 'movie-axis-per-time', 'movie-analyse', 'movie-export'];
+      const boxes = await Promise.all(ids.map(async (id) => (await page.getByTestId(id).first().boundingBox())!));
+      for (const b of boxes) expect(b.x + b.width).toBeLessThanOrEqual(w);
+      for (let i = 0; i < boxes.length; i++) for (let j = i + 1; j < boxes.length; j++) {
+        const [a, b] = [boxes[i], boxes[j]];
+        const apart = a.x + a.width <= b.x + 0.5 || b.x + b.width <= a.x + 0.5 || a.y + a.height <= b.y + 0.5 || b.y + b.height <= a.y + 0.5;
+        expect(apart, `${ids[i]} and ${ids[j]} overlap at ${w}×${hgt}`).toBe(true);
+      }
+      await page.screenshot({ path: join(ARTIFACTS, `timelapse-range-${w}x${hgt}.png`) });
+    }
   });
 
   it('a new range analyses the movie again at once (progress shown), and going back gives the batch\'s numbers again', async () => {
