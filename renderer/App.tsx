@@ -25,11 +25,14 @@ import { useSession } from './hooks/useSession';
 import { useStackLoader } from './hooks/useStackLoader';
 import { useExports } from './hooks/useExports';
 import { useLiveMeasurement } from './hooks/useLiveMeasurement';
-import { useMovie } from './hooks/useMovie';
+import { movieViewOf, useMovie } from './hooks/useMovie';
 import { TimelapseView } from './components/timelapse/TimelapseView';
-import type { FolderEntry } from '../core/contract';
+import type { FolderEntry, LoadedStack } from '../core/contract';
 import { fileStatus } from './state/fileStatus';
-import { currentEdits, editorReducer, fileResult, initialState } from './state';
+import { currentEdits, editorReducer, fileResult, initialState, storedEdits, timePointEdits } from './state';
+import { fileEditsAt } from '../core/settings';
+import { TimePointPanel, shownTimeText } from './components/TimePointPanel';
+import { useSettled } from './hooks/useSettled';
 import { autoDisplayRange, CHANNEL_COLOURS } from './view';
 
 export type { Tab } from './components/Toolbar';
@@ -51,16 +54,36 @@ export function App() {
   const [overlays, setOverlays] = useState(ALL_OVERLAYS);
   const [readoutTarget, setReadoutTarget] = useState<HTMLElement | null>(null);
   const entry = session.entries.find((e) => e.name === state.current) ?? null;
-  const load = useStackLoader(api, entry?.path ?? null, state.doc.settings);
+  const { movie, analyse: analyseMovie, cancel: cancelMovie, options: movieOptions, setOptions: setMovieOptions } = useMovie(api);
+  const movieView = movieViewOf(movie, entry?.name ?? null);
+  // The shown time point: one of the analysed movie's (picked on the Over time slider), else the settings' time index.
+  useEffect(() => {
+    const t = state.shownTimeIndex;
+    if (movieView === null) dispatch({ type: 'showTimePoint', tIndex: state.doc.settings.timeIndex });
+    else if (!movieView.timeIndices.includes(t) && movieView.timeIndices.length > 0) dispatch({ type: 'showTimePoint', tIndex: movieView.timeIndices[0] });
+  }, [movieView, state.doc.settings.timeIndex, state.current]);
+  // The Embryo view loads the shown time point once the slider rests (not every frame while it plays).
+  const restingT = useSettled(state.shownTimeIndex, 250);
+  const loadT = movieView === null ? state.doc.settings.timeIndex : restingT;
+  const loadSettings = useMemo(() => (loadT === state.doc.settings.timeIndex ? state.doc.settings : { ...state.doc.settings, timeIndex: loadT }), [state.doc.settings, loadT]);
+  const load = useStackLoader(api, entry?.path ?? null, loadSettings);
+  // The movie's embryo (found once over time, as the batch measures every time point in it) while the settings are
+  // those it was found with; a movie analysed at every time point uses each time point's own, as loadStack finds it.
+  const movieDetection = movieView !== null && movie.settings === JSON.stringify(state.doc.settings) ? movieView.detection : null;
   // Until the shown file's stack arrives, show nothing rather than its edits over the previous image.
-  const stack = load.stack !== null && load.stack.path === entry?.path ? load.stack : null;
+  const stack = useMemo(() => {
+    const s = load.stack !== null && load.stack.path === entry?.path ? load.stack : null;
+    if (s === null || movieDetection === null || s.info.sizeT <= 1) return s;
+    const c = s.projected.channels[0];
+    return c !== undefined && c.width === movieDetection.mask.width && c.height === movieDetection.mask.height ? { ...s, detection: movieDetection } : s;
+  }, [load.stack, entry?.path, movieDetection]);
+  const isMovie = stack !== null && stack.info.sizeT > 1;
   const { loading, error: loadError } = load;
   // The first picture while the stack loads: one raw slice, replaced by the projection when the stack arrives.
   const preview = stack === null && load.preview !== null && load.preview.path === entry?.path ? load.preview.plane : null;
   const [saveStatus, saveNow] = useAutosave(api, session.projectPath, session.folder, state.doc, state.revision, session.batchOutDir);
   flushSave.current = () => (saveStatus.kind === 'pending' ? saveNow() : Promise.resolve());
   const { batch, results, chooseOutput, run, cancel, restore } = useBatch(api);
-  const { movie, analyse: analyseMovie, cancel: cancelMovie } = useMovie(api);
   // The project's last batch comes back with the project (results.json in the output folder it records).
   useEffect(() => { void restore(session.batchOutDir, session.folder); }, [session.projectPath, session.folder]);
   // A finished batch's output folder is written into the project at once, so its results reopen after a restart.
@@ -81,7 +104,7 @@ export function App() {
   }, [loadError, loading, stack, state.current]);
   // A file's result at the shown time point (t = 0 unless a movie's time point is chosen); a file with one time point has only t = 0.
   const resultFor = (name: string | null) => (name === null ? undefined : fileResult(results, name, name === state.current ? state.shownTimeIndex : 0));
-  const statusOf = (e: FolderEntry) => fileStatus(e, state.doc.files[e.name], resultFor(e.name), loadErrors[e.name] ?? null);
+  const statusOf = (e: FolderEntry) => fileStatus(e, fileEditsAt(state.doc.files[e.name], e.name === state.current ? state.shownTimeIndex : 0) ?? undefined, resultFor(e.name), loadErrors[e.name] ?? null);
   const openReport = async (path: string) => {
     if (api === null) return;
     const r = await api.openReport(path);
@@ -94,15 +117,21 @@ export function App() {
 
   useEffect(() => { void openAtStart(); }, []);
 
-  // A newly loaded stack brings its automatic axis and fresh display ranges.
+  // A newly loaded stack brings its automatic axis, display ranges fitted to it, and the image fitted to the window;
+  // another time point of the same file keeps the view where it is, and the movie's embryo arriving for the stack
+  // already shown changes only the automatic axis.
+  const shownLoad = useRef<{ loaded: LoadedStack; path: string; t: number | null } | null>(null);
   useEffect(() => {
-    if (stack === null || state.current === null) return;
+    if (stack === null || state.current === null || load.stack === null) return;
     dispatch({ type: 'selectFile', key: state.current, autoAxis: stack.detection.axis });
+    const before = shownLoad.current;
+    if (before !== null && before.loaded === load.stack) return;
+    shownLoad.current = { loaded: load.stack, path: stack.path, t: load.timeIndex };
     dispatch({ type: 'initChannelDisplay', channels: stack.projected.channels.map((p, i) => {
       const [low, high] = autoDisplayRange(p);
       return { colour: CHANNEL_COLOURS[i % CHANNEL_COLOURS.length], low, high };
     }) });
-    setFitRequest((n) => n + 1);
+    if (before === null || before.path !== stack.path || before.t === load.timeIndex) setFitRequest((n) => n + 1);
   }, [stack]);
 
   // The preview gets a display range of its own and is fitted to the window like a loaded stack.
@@ -116,7 +145,7 @@ export function App() {
   useEffect(() => {
     if (api === null || stack === null || zSlice === null) { setSlicePlanes(null); return; }
     let live = true;
-    Promise.all(stack.projected.channels.map((_, c) => api.loadSlice({ path: stack.path, z: zSlice, c, t: state.doc.settings.timeIndex }))).then((rs) => {
+    Promise.all(stack.projected.channels.map((_, c) => api.loadSlice({ path: stack.path, z: zSlice, c, t: load.timeIndex ?? state.doc.settings.timeIndex }))).then((rs) => {
       if (!live) return;
       const bad = rs.find((r) => !r.ok);
       if (bad !== undefined && !bad.ok) { setMessage(bad.error.message); return; }
@@ -126,6 +155,21 @@ export function App() {
   }, [api, stack, zSlice]);
 
   const edits = currentEdits(state);
+  const stored = storedEdits(state);
+  // What an analysis over time is made from: the settings, this file's stored edits (every time point's), the options.
+  const movieBasis = JSON.stringify([state.doc.settings, entry === null ? null : state.doc.files[entry.name] ?? null, movieOptions]);
+  const movieRequest = { ...movieOptions, timeStepS: stored.timeStepS ?? null };
+  const startMovie = () => { if (entry !== null) void analyseMovie(entry.path, entry.name, toProjectDoc(state.doc, session.folder, session.batchOutDir), movieRequest, movieBasis); };
+  // New time points or a new time step for the shown movie analyse it again (cancelling a run under way).
+  const movieTimeKey = JSON.stringify([state.current, stored.time ?? null, stored.timeStepS ?? null]);
+  const lastMovieTime = useRef(movieTimeKey);
+  useEffect(() => {
+    const before = lastMovieTime.current;
+    lastMovieTime.current = movieTimeKey;
+    if (before === movieTimeKey || entry === null || (JSON.parse(before) as unknown[])[0] !== entry.name) return;
+    if (movie.file === entry.name && (movie.view !== null || movie.status === 'running')) startMovie();
+  }, [movieTimeKey]);
+  const embryoLoading = stack !== null && isMovie && load.timeIndex !== state.shownTimeIndex;
   const { settings, axis, fitRangeEl, measurement, bandOutlines, pixelSizeUm, halfWidthPx } = useLiveMeasurement(stack, state);
   const planes = slicePlanes ?? stack?.projected.channels ?? (preview === null ? [] : [preview]);
   const names = stack?.projected.channelNames ?? (preview === null ? [] : ['C1']);
@@ -187,7 +231,7 @@ export function App() {
       <div className={tab === 'time' ? 'body wide-centre' : 'body'}>
         <aside className="left">
           <FolderList folder={session.folder} entries={session.entries} current={state.current} onSelect={select} status={statusOf}
-            handEdited={(n) => { const f = state.doc.files[n]; return f !== undefined && (f.axis !== null || f.landmarks.length > 0 || f.fitRangeEl !== null); }} />
+            handEdited={(n) => { const f = state.doc.files[n]; return f !== undefined && (f.axis !== null || f.landmarks.length > 0 || f.fitRangeEl !== null || f.timePoints !== undefined); }} />
           <SettingsPanel settings={settings} channelNames={names} dispatch={dispatch} />
         </aside>
         <main className="centre" ref={centre}>
@@ -196,13 +240,18 @@ export function App() {
             spaceHeld={spaceHeld} overlays={overlays} onOverlays={setOverlays} readoutTarget={readoutTarget} loadError={loadError} />
           {tab === 'batch' && <BatchPanel batch={batch} folder={session.folder} fileCount={session.entries.length} onChooseOutput={chooseOutput}
             onRun={() => { void runBatchNow(); }} onCancel={cancel} onOpenFile={openFromBatch} onOpenReport={openReport} current={state.current} />}
-          {tab === 'time' && <TimelapseView api={api} file={entry === null ? null : { name: entry.name, path: entry.path }} sizeT={stack?.info.sizeT ?? null} movie={movie}
-            basis={JSON.stringify([state.doc.settings, entry === null ? null : state.doc.files[entry.name] ?? null])}
-            onAnalyse={(o, basis) => { if (entry !== null) void analyseMovie(entry.path, entry.name, toProjectDoc(state.doc, session.folder, session.batchOutDir), o, basis); }}
-            onCancel={() => { void cancelMovie(); }} onTimePoint={(t) => dispatch({ type: 'showTimePoint', tIndex: t })} setMessage={setMessage} />}
+          {tab === 'time' && <TimelapseView api={api} file={entry === null ? null : { name: entry.name, path: entry.path }} info={stack?.info ?? null} movie={movie}
+            basis={movieBasis} options={movieOptions} onOptions={setMovieOptions}
+            movieTime={{ time: stored.time ?? null, timeStepS: stored.timeStepS ?? null }}
+            onMovieTime={(time, timeStepS) => dispatch({ type: 'setMovieTime', time, timeStepS })}
+            onAnalyse={startMovie} onCancel={() => { void cancelMovie(); }}
+            tIndex={state.shownTimeIndex} onTimePoint={(t) => dispatch({ type: 'showTimePoint', tIndex: t })} setMessage={setMessage} />}
           {tab === 'cohort' && <CohortView summary={batch.summary} onOpenReport={openReport} />}
         </main>
         <aside className="right">
+          {isMovie && stack !== null && <TimePointPanel tIndex={state.shownTimeIndex} sizeT={movieView?.sizeT ?? stack.info.sizeT}
+            timeText={shownTimeText(movieView, stack.info, state.shownTimeIndex)} analysed={movieView?.timeIndices ?? []} loading={embryoLoading}
+            scope={state.editScope} own={timePointEdits(state)} dispatch={dispatch} />}
           <FitNumbers m={measurement} pixelSizeUm={pixelSizeUm} loading={loading || session.opening} axisSource={axis?.source ?? null}
             file={entry === null ? null : { name: entry.name, status: statusOf(entry), result: resultFor(entry.name) ?? null }}
             settingsFitRangeEl={edits.fitRangeEl === null ? null : settings.fitRangeEl}
@@ -214,7 +263,7 @@ export function App() {
         </aside>
       </div>
       <footer className="statusbar">
-        <span>{entry?.name ?? 'no file'}{axis ? ` · axis ${axis.source}` : ''}{preview === null ? '' : ` · slice ${preview.z + 1} of ${preview.sizeZ}, first channel: projecting…`}{edits.fitRangeEl ? ' · own fit range' : ''}</span>
+        <span>{entry?.name ?? 'no file'}{isMovie && stack !== null ? ` · time point ${(load.timeIndex ?? 0) + 1} of ${stack.info.sizeT}` : ''}{axis ? ` · axis ${axis.source}` : ''}{preview === null ? '' : ` · slice ${preview.z + 1} of ${preview.sizeZ}, first channel: projecting…`}{edits.fitRangeEl ? ' · own fit range' : ''}</span>
         <span className="readout-slot" ref={setReadoutTarget} />
         <span className="muted keys-hint">drag A/P · S swap · L landmark · Del delete · Space+drag pan · wheel/± zoom · F fit · Ctrl+Z undo · F1 help</span>
       </footer>

@@ -9,14 +9,14 @@ import { toCsv, type CsvValue } from '../../core/csv';
 import type { ProjectDoc } from '../../core/contract';
 import { accumulationFigure, figureSlug, kymographFigure, lambdaOverTimeFigure, type AccumulationFigureInput, type KymographInput, type LambdaPoint } from '../../core/figures';
 import {
-  resultKey, resultKeyOf, withTimePoint, type EmbryoResult, type HandEdits, type MovieRecord, type PlaneSource, type ProjectedStack, type StackInfo,
+  resultKey, resultKeyOf, withTimePoint, type Detection, type EmbryoResult, type HandEdits, type MovieRecord, type PlaneSource, type ProjectedStack, type StackInfo,
 } from '../../core/model';
 import { analyseMovie } from '../../core/pipeline';
 import { inputFolderOf, loadImageCorrections } from './correction-images';
 import { settingsInForce, type AnalysisSettings } from '../../core/settings';
 import { pagesAsTimePoints, resolveTimeAxis } from '../../core/tiff';
 import {
-  ACCUMULATION_COLUMNS, accumulationRows, MODEL_FIT_COLUMNS, modelFitRow, selectTimeIndices, summarizeMovie,
+  ACCUMULATION_COLUMNS, accumulationRows, MODEL_FIT_COLUMNS, modelFitRow, parseTimeSelection, selectTimeIndices, summarizeMovie,
   type MovieSummary, type TimeSelection,
 } from '../../core/timelapse';
 import { writeFileAtomic } from '../project';
@@ -66,6 +66,18 @@ function editsAt(doc: ProjectDoc | null, file: string, settings: AnalysisSetting
   return { handEdits: e ? { axis: e.axis, landmarks: e.landmarks } : null, settings: settingsInForce(settings, e) };
 }
 
+/** The time options for one file: its own time points and time step from the project file (per-file `time`,
+ *  `timeStepS`) over the run's (--time, --time-step), as a file's own fit range or dorsal side beats the shared one. */
+export function fileTimelapseOptions(doc: ProjectDoc | null, file: string, options: TimelapseOptions): TimelapseOptions {
+  const own = editsForFile(doc, file, undefined, null);
+  if (!own || (own.time === undefined && own.timeStepS === undefined)) return options;
+  return {
+    ...options,
+    selection: own.time !== undefined ? parseTimeSelection(own.time, `${file}: time`) : options.selection,
+    timeStepS: own.timeStepS ?? options.timeStepS,
+  };
+}
+
 /** The movie's StackInfo for the time pass: plain multi-page files become frames when the user gives a time step. */
 function asMovie(info: StackInfo, timeStepS: number | null): StackInfo {
   return timeStepS !== null && info.sizeT === 1 && !info.isOme ? pagesAsTimePoints(info) : info;
@@ -89,6 +101,10 @@ function failedRecord(file: string, error: string, settings: AnalysisSettings, o
 export interface MovieHooks {
   readonly onTimePoint?: (done: number, total: number) => void;
   readonly onProjected?: (k: number, projected: ProjectedStack, total: number) => void;
+  /** Told the movie's StackInfo (its time points as the time pass reads them) before any time point is analysed. */
+  readonly onInfo?: (info: StackInfo) => void;
+  /** Told the embryo found once for the movie (not with axisPerTime), before the first time point is analysed. */
+  readonly onDetection?: (detection: Detection) => void;
   readonly signal?: { readonly aborted: boolean } | null;
 }
 
@@ -99,10 +115,12 @@ export interface MovieHooks {
  */
 async function analyseOpenedMovie(
   opened: { info: StackInfo; source: PlaneSource }, file: string, settings: AnalysisSettings, doc: ProjectDoc | null,
-  options: TimelapseOptions, hooks: MovieHooks, baseDir: string,
+  runOptions: TimelapseOptions, hooks: MovieHooks, baseDir: string,
 ): Promise<MovieRun | null> {
+  const options = fileTimelapseOptions(doc, file, runOptions);
   const info = asMovie(opened.info, options.timeStepS);
   if (info.sizeT <= 1) return null;
+  hooks.onInfo?.(info);
   const picked = selectTimeIndices(options.selection, info.sizeT);
   if (typeof picked === 'string') return { record: failedRecord(file, `${file}: ${picked}`, settings, options), results: [] };
   const warnings: string[] = [];

@@ -1,6 +1,7 @@
 // The batch command's time analysis: parse its flags; say what the batch's time pass wrote.
 import { join } from 'node:path';
 import { parseFitRange } from '../../core/batch';
+import { parseTimeStepS } from '../../core/settings';
 import { parseTimeSelection } from '../../core/timelapse';
 import { DEFAULT_TIMELAPSE_OPTIONS, type MovieFailure, type MovieOutcome, type TimelapseOptions } from '../batch/timelapse-pass';
 import { UsageError, type CliIo } from './usage-error';
@@ -23,8 +24,7 @@ export function parseTimelapseFlags(f: TimelapseFlags): TimelapseOptions {
   const selection = f.time !== undefined ? (() => { try { return parseTimeSelection(f.time!); } catch (e) { return usage(e); } })() : DEFAULT_TIMELAPSE_OPTIONS.selection;
   let timeStepS: number | null = null;
   if (f.timeStep !== undefined) {
-    timeStepS = Number(f.timeStep);
-    if (!(Number.isFinite(timeStepS) && timeStepS > 0)) throw new UsageError(`--time-step must be a positive number of seconds (got "${f.timeStep}")`, 'batch');
+    try { timeStepS = parseTimeStepS(f.timeStep); } catch (e) { usage(e); }
   }
   let tauRangeEl = DEFAULT_TIMELAPSE_OPTIONS.tauRangeEl;
   if (f.tauRange !== undefined) {

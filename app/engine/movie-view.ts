@@ -1,7 +1,7 @@
 // A movie analysed over time for the window: the batch's own analysis of the file (app/batch/timelapse-pass), its
 // tables for that file, the figures' data, and each time point's projection shrunk for the time slider.
 import type { MovieFrame, MovieRequestOptions, MovieView, ProjectDoc } from '../../core/contract';
-import type { Plane, ProjectedStack } from '../../core/model';
+import type { Detection, Plane, ProjectedStack } from '../../core/model';
 import type { Estimate } from '../../core/timelapse';
 import { analyseMovieAtPath, movieFigureData, movieTables, type MovieHooks } from '../batch/timelapse-pass';
 
@@ -48,7 +48,8 @@ function est(e: Estimate): { value: number; ciLow: number; ciHigh: number } {
   return { value: e.value, ciLow: e.ciLow, ciHigh: e.ciHigh };
 }
 
-/** Options of the batch's time pass from the window's request: every time point. */
+/** Options of the batch's time pass from the window's request: every time point unless the project's entry for the
+ *  file names its own (the time pass reads it from the project, as the batch does). */
 function passOptions(o: MovieRequestOptions) {
   return { selection: { kind: 'all' as const }, axisPerTime: o.axisPerTime, timeStepS: o.timeStepS, tauRangeEl: o.tauRangeEl, baselineFrames: o.baselineFrames };
 }
@@ -72,13 +73,19 @@ export async function buildMovieView(
     const shrunk = p.channels.map((c) => shrinkPlane(c, factor));
     frames[k] = { width: shrunk[0].width, height: shrunk[0].height, scale: factor, channels: shrunk.map((c) => c.data as Float32Array) };
   };
-  const m = await analyseMovieAtPath(path, file, doc.settings, doc, passOptions(options), { ...hooks, onProjected });
+  let detection: Detection | null = null;
+  let movieSizeT = 0;
+  // The embryo's mask, outline and axis only (the detector's pixel sizes stay behind).
+  const onDetection = (d: Detection): void => {
+    detection = { mask: d.mask, outline: d.outline, axis: d.axis, eggLengthUm: d.eggLengthUm, eggWidthUm: d.eggWidthUm, warnings: d.warnings };
+  };
+  const m = await analyseMovieAtPath(path, file, doc.settings, doc, passOptions(options), { ...hooks, onProjected, onDetection, onInfo: (info) => { movieSizeT = info.sizeT; } });
   const s = m.summary;
   const d = movieFigureData(m);
   const list = (a: ArrayLike<number>): number[] => Array.from(a);
   return {
-    path, file, sizeT: m.timeIndices.length, timeIndices: [...m.timeIndices], timesS: m.timesS ? list(m.timesS) : null,
-    timeSource: m.timeSource ?? null, channelNames, results: m.results, frames: m.timeIndices.map((_, k) => frames[k] ?? null),
+    path, file, sizeT: Math.max(movieSizeT, m.timeIndices.length), timeIndices: [...m.timeIndices], timesS: m.timesS ? list(m.timesS) : null,
+    timeSource: m.timeSource ?? null, channelNames, results: m.results, frames: m.timeIndices.map((_, k) => frames[k] ?? null), detection,
     lambda: d.lambda, steadyLambdaEl: d.steadyLambdaEl ?? null,
     kymograph: d.kymograph && {
       xEl: list(d.kymograph.xEl), timesS: list(d.kymograph.timesS), values: d.kymograph.values.map(list),

@@ -129,7 +129,8 @@ export interface CohortSummary {
 export interface MovieEstimate { readonly value: number; readonly ciLow: number; readonly ciHigh: number }
 
 /** How a movie is analysed over time in the window (the batch's --axis-per-time, --tau-range, --baseline-frames,
- *  --time-step); every time point is analysed. */
+ *  --time-step). The time points analysed and a time step of the file's own come from the project's entry for the
+ *  file (FileEdits.time, FileEdits.timeStepS), as in the batch; without them every time point is analysed. */
 export interface MovieRequestOptions {
   readonly axisPerTime: boolean;
   readonly tauRangeEl: readonly [number, number];
@@ -160,7 +161,9 @@ export interface MovieView {
   readonly path: string;
   /** The file's key in the project (path relative to the folder). */
   readonly file: string;
+  /** Time points in the movie (all of them, analysed or not). */
   readonly sizeT: number;
+  /** The analysed time points (0-based, ascending). */
   readonly timeIndices: readonly number[];
   /** Seconds from the first time point; null when the times are unknown. */
   readonly timesS: readonly number[] | null;
@@ -171,6 +174,9 @@ export interface MovieView {
   readonly results: readonly EmbryoResult[];
   /** Each time point's projection shrunk (null where the time point could not be read). */
   readonly frames: readonly (MovieFrame | null)[];
+  /** The embryo found once for the movie (mask, outline, axis) that every time point was measured in; null when it
+   *  was found at every time point (axisPerTime) or could not be found. */
+  readonly detection: Detection | null;
   /** λ (x/EL) per time point with its 95% CI; NaN where the fit failed. */
   readonly lambda: readonly { readonly tS: number; readonly lambdaEl: number; readonly ciLowEl: number; readonly ciHighEl: number }[];
   /** λ of the mean profile of the last frames (x/EL), or null. */

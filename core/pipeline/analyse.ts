@@ -24,12 +24,20 @@ export interface AnalyseOptions {
   /** Flat field and background image applied to the projection it reads (see core/image/corrections.ts); a
    *  `projected` given by the caller is taken as already corrected. Absent = none. */
   readonly corrections?: ImageCorrections | null;
+  /** Arrays the projection it reads is written into (one per channel, sizeX·sizeY values), when the caller reuses
+   *  them (a movie, for every time point): the projection, and what onProjected was told, then last only until the
+   *  caller's next use of them. Absent = new arrays. */
+  readonly projectionBuffers?: readonly Float32Array[] | null;
 }
 
-/** The Z projection with the flat field and background image applied (when given). */
-export async function correctedProjection(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, corrections: ImageCorrections | null | undefined): Promise<ProjectedStack> {
-  const raw = await projectStack(info, source, settings, corrections ?? null);
-  return corrections ? applyImageCorrections(raw, corrections, settings.projection === 'sum' ? info.sizeZ : 1) : raw;
+/**
+ * The Z projection with the flat field and background image applied (when given); written into `into` (one array
+ * of sizeX·sizeY values per channel) when given, corrections included, else into new arrays.
+ */
+export async function correctedProjection(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, corrections: ImageCorrections | null | undefined,
+  into: readonly Float32Array[] | null = null): Promise<ProjectedStack> {
+  const raw = await projectStack(info, source, settings, corrections ?? null, into);
+  return corrections ? applyImageCorrections(raw, corrections, settings.projection === 'sum' ? info.sizeZ : 1, into !== null) : raw;
 }
 
 /** Check that the stack has something to analyse (exact messages). */
@@ -55,7 +63,7 @@ async function analyseOneTimePoint(info: StackInfo, source: PlaneSource, setting
   const bad = checkInfo(info);
   if (bad) return errorResult(file, bad);
   try {
-    const projected = options.projected ?? await correctedProjection(info, source, settings, options.corrections);
+    const projected = options.projected ?? await correctedProjection(info, source, settings, options.corrections, options.projectionBuffers ?? null);
     options.onProjected?.(projected);
     const detection = options.detection ?? detectEmbryo(projected, settings);
     const hand = options.handEdits?.axis ?? null;
@@ -71,6 +79,7 @@ async function analyseOneTimePoint(info: StackInfo, source: PlaneSource, setting
       eggLengthUm: m.eggLengthUm, eggWidthUm: px !== null ? detection.eggWidthUm : null, axis,
       gradientChannel: m.gradientChannel, gradientProfile: m.gradientProfile, gradientFit: m.gradientFit,
       boundaryProfiles: m.boundaryProfiles, boundaries: m.boundaries, landmarks: m.landmarks, backgrounds: m.backgrounds,
+      ...(m.sides ? { sides: m.sides } : {}),
     };
   } catch (e) {
     return errorResult(file, e instanceof Error ? e.message : String(e));

@@ -22,8 +22,11 @@ export interface MovieOptions {
   readonly axisSampleCount?: number;
   /** Told after each analysed time point: how many are done of how many (the window's progress). */
   readonly onTimePoint?: (done: number, total: number) => void;
-  /** Told each time point's Z projection (k = position in timeIndices, of total). */
+  /** Told each time point's Z projection (k = position in timeIndices, of total); it lives only during the call
+   *  (its arrays are reused for the next time point), so copy what you keep. */
   readonly onProjected?: (k: number, projected: ProjectedStack, total: number) => void;
+  /** Told the embryo found once for the movie (not with axisPerTime), before the first time point is analysed. */
+  readonly onDetection?: (detection: EmbryoDetection) => void;
   /** Checked before each time point; when aborted, analyseMovie rejects with an AbortError naming the file. */
   readonly signal?: { readonly aborted: boolean } | null;
   /** Flat field and background image applied to every time point's projection. */
@@ -112,6 +115,7 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
       const sampled = await projectSampled(info, source, settings, axisSampleTimes(info.sizeT, options.axisSampleCount ?? 8), new Set(timeIndices), options.corrections ?? null);
       kept = sampled.kept;
       detection = detectEmbryo(sampled.mean, settings);
+      options.onDetection?.(detection);
     } catch (e) {
       const r = errorResult(fileLabel, `embryo over time: ${e instanceof Error ? e.message : String(e)}`);
       return { timeIndices, results: timeIndices.map((t) => withTimePoint(r, t, info.time?.timesS?.[t] ?? null)), movieAxis: null };
@@ -120,6 +124,8 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
   const results: EmbryoResult[] = [];
   // One embryo for the whole movie: what depends on its mask alone is prepared once (samplingWithin).
   const prepare = detection ? samplingWithin(detection) : undefined;
+  // One set of projection arrays serves every time point: nothing keeps a time point's projection past its analysis.
+  const projectionBuffers = Array.from({ length: info.sizeC }, () => new Float32Array(info.sizeX * info.sizeY));
   for (const [k, t] of timeIndices.entries()) {
     if (options.signal?.aborted) throw cancelled(fileLabel);
     const at = options.editsAt?.(t);
@@ -128,7 +134,7 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
     // A kept projection serves only settings that differ from the movie's in the fit range alone.
     const projected = kept.get(t) && sameButFitRange(settingsAtT, settings) ? kept.get(t) : undefined;
     kept.delete(t);
-    results.push(await analyseStack(info, source, settingsAtT, { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection, onProjected, projected, prepare, corrections: options.corrections ?? null }));
+    results.push(await analyseStack(info, source, settingsAtT, { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection, onProjected, projected, prepare, corrections: options.corrections ?? null, projectionBuffers }));
     options.onTimePoint?.(k + 1, timeIndices.length);
   }
   const hand = options.handEdits?.axis ?? null;

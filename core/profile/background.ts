@@ -1,7 +1,7 @@
 // Background estimates per channel: outside the embryo (robust), a drawn rectangle, or none.
 import type { BackgroundEstimate, Mask, Plane } from '../model';
 import type { BackgroundSettings } from '../settings';
-import { maskedMedian, sortedQuantile, squareDilate } from '../image';
+import { keptIndices, maskedMedian, sortedQuantile, squareDilate, wholeNumberMedian } from '../image';
 
 /** Fewest outside pixels accepted for the 'outside' estimate before falling back to a low percentile. */
 const MIN_OUTSIDE_PX = 100;
@@ -23,9 +23,25 @@ export function farFromMask(mask: Mask, marginPx: number): Uint8Array {
   return far;
 }
 
-/** outsideBackground with the far-from-mask pixels already known (so several channels share one distance map). */
-export function outsideBackgroundFar(plane: Plane, far: Uint8Array): { value: number; warning: string | null } {
-  const { median, count } = maskedMedian(plane.data, far);
+/** The pixels far from a mask (farFromMask) as a 0/1 image and as their indices, ascending: made once per mask. */
+export interface FarPixels {
+  readonly mask: Uint8Array;
+  readonly indices: Int32Array;
+}
+
+/** farFromMask with the indices of those pixels, for a series of planes measured within one mask (a movie). */
+export function farPixels(mask: Mask, marginPx: number): FarPixels {
+  const far = farFromMask(mask, marginPx);
+  return { mask: far, indices: keptIndices(far) };
+}
+
+/**
+ * outsideBackground with the far-from-mask pixels already known (so several channels share one distance map), and
+ * their indices when known (farIdx = keptIndices(far)). Whole-number values (8/16-bit samples, not averaged) take
+ * their median from one counting pass (wholeNumberMedian), others from maskedMedian: the same number either way.
+ */
+export function outsideBackgroundFar(plane: Plane, far: Uint8Array, farIdx: Int32Array | null = null): { value: number; warning: string | null } {
+  const { median, count } = wholeNumberMedian(plane.data, far, farIdx) ?? maskedMedian(plane.data, far);
   if (count >= MIN_OUTSIDE_PX) return { value: median, warning: null };
   const all = Float64Array.from(plane.data).sort();
   return { value: sortedQuantile(all, 0.02), warning: 'too little background outside the embryo; the 2nd percentile of the image was used as background' };
@@ -45,10 +61,10 @@ export function regionMean(plane: Plane, region: { x: number; y: number; width: 
 
 /** Background of every channel by settings.mode, with warnings (a bad region gives 0 and a warning). */
 export function estimateBackgrounds(channels: readonly Plane[], names: readonly string[], mask: Mask, settings: BackgroundSettings, marginPx: number,
-  knownFar: Uint8Array | null = null): { backgrounds: BackgroundEstimate[]; warnings: string[] } {
+  knownFar: FarPixels | null = null): { backgrounds: BackgroundEstimate[]; warnings: string[] } {
   const warnings: string[] = [];
-  // knownFar: farFromMask(mask, marginPx) already computed for this mask (a movie's time points share one mask).
-  const far = settings.mode === 'outside' ? knownFar ?? farFromMask(mask, marginPx) : null;
+  // knownFar: farPixels(mask, marginPx) already computed for this mask (a movie's time points share one mask).
+  const far = settings.mode === 'outside' ? knownFar ?? { mask: farFromMask(mask, marginPx), indices: null } : null;
   const backgrounds = channels.map((plane, c): BackgroundEstimate => {
     if (settings.mode === 'none') return { channel: names[c], method: 'none', value: 0 };
     if (settings.mode === 'region') {
@@ -59,7 +75,7 @@ export function estimateBackgrounds(channels: readonly Plane[], names: readonly 
       }
       return { channel: names[c], method: 'region', value: v };
     }
-    const out = outsideBackgroundFar(plane, far as Uint8Array);
+    const out = outsideBackgroundFar(plane, far!.mask, far!.indices);
     if (out.warning && c === 0) warnings.push(out.warning);
     return { channel: names[c], method: 'outside', value: out.value };
   });

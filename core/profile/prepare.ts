@@ -2,7 +2,7 @@
 import type { BackgroundEstimate, Detection, Mask, ProjectedStack } from '../model';
 import type { AnalysisSettings } from '../settings';
 import { foregroundBox } from '../image';
-import { estimateBackgrounds, farFromMask } from './background';
+import { estimateBackgrounds, farPixels, type FarPixels } from './background';
 import { checkSamplingSettings } from './check-settings';
 import { PROFILE_SAMPLERS, samplerFor } from './samplers';
 import type { MaskBox, PixelSet, PreparedSampling, ProfileSampler, SamplingBase } from './samplers';
@@ -96,8 +96,8 @@ export function samplingBase(projected: ProjectedStack, detection: Detection, se
  *  far from it. */
 interface MaskBasics {
   readonly box: MaskBox | null;
-  /** farFromMask(mask, margin) for the 'outside' background, else null. */
-  readonly far: Uint8Array | null;
+  /** farPixels(mask, margin) for the 'outside' background, else null. */
+  readonly far: FarPixels | null;
 }
 
 /** The parts of a preparation that depend on the mask and the settings only, not on the pixel values. */
@@ -120,7 +120,7 @@ export function samplingWithin(detection: Detection, samplers: readonly ProfileS
     const key = JSON.stringify([projected.pixelSizeUm, projected.channels.length, settings.profile, settings.background]);
     if (kept?.key !== key) {
       // The box and the far pixels are made once here and given to the first preparation too, not made twice.
-      const far = settings.background.mode === 'outside' ? farFromMask(detection.mask, backgroundMarginPx(projected.pixelSizeUm)) : null;
+      const far = settings.background.mode === 'outside' ? farPixels(detection.mask, backgroundMarginPx(projected.pixelSizeUm)) : null;
       const prepared = prepareSampling(projected, detection, settings, samplers, { box: foregroundBox(detection.mask), far });
       kept = { key, parts: { box: prepared.box, far, region: prepared.region.mask } };
       return prepared;

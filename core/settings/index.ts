@@ -12,6 +12,7 @@ export {
 export { SettingsError } from './settings-error';
 export type { FileEdits, ProjectDoc, TimePointEdits } from './project-types';
 export { fileEditsAt } from './time-point-edits';
+export { parseTimeSelection, selectTimeIndices, timeSelectionText, checkTimeStepS, parseTimeStepS, type TimeSelection } from './time-selection';
 export { ProjectFormatError } from './project-error';
 export {
   PROJECT_SCHEMA, PROJECT_VERSION, PROJECT_OLDEST_VERSION, checkProjectDoc, checkFileEdits, checkSettings, checkRangeEl, parseProjectText,

@@ -48,4 +48,14 @@ describe('project file versions', () => {
     expect(bad({ 2: { fitRangeEl: [0.6, 0.2] } })).toThrow(/^p\.json: files\["a\.tif"\]\.timePoints\["2"\]\.fitRangeEl must be/);
     expect(() => parseProjectText(JSON.stringify({ ...v1, version: 3 }), 'p.json')).toThrow(/version is 3, newer than this Eggline reads \(2\)/);
   });
+
+  it('reads a movie\'s own time points and time step, in the --time and --time-step flags\' text and wording', () => {
+    const doc = (file: unknown) => parseProjectText(JSON.stringify({ ...v1, version: 2, files: { 'm.tif': { axis: null, landmarks: [], ...(file as object) } } }), 'p.json');
+    expect(doc({ time: ' 10:25 ', timeStepS: 30 }).files['m.tif']).toMatchObject({ time: '10:25', timeStepS: 30 });
+    expect(doc({ time: 'all' }).files['m.tif'].time).toBe('all');
+    expect(doc({ time: null, timeStepS: null }).files['m.tif']).toEqual({ axis: null, landmarks: [], fitRangeEl: null });
+    expect(() => doc({ time: '9:3' })).toThrow('p.json: files["m.tif"].time must be all, a time point K or a range A:B (0-based, A ≤ B), got "9:3"');
+    expect(() => doc({ time: 4 })).toThrow('p.json: files["m.tif"].time must be all, a time point K or a range A:B (0-based, A ≤ B)');
+    expect(() => doc({ timeStepS: 0 })).toThrow('p.json: files["m.tif"].timeStepS must be a positive number of seconds (got "0")');
+  });
 });

@@ -6,6 +6,7 @@ import { checkFiniteNumber, checkOneOf, isRecord } from './check-values';
 import { settingsFromStored } from './check';
 import { settingSpec } from './schema';
 import { SettingsError } from './settings-error';
+import { checkTimeStepS, parseTimeSelection, timeSelectionText } from './time-selection';
 import type { FileEdits, ProjectDoc, TimePointEdits } from './project-types';
 import type { AnalysisSettings } from './types';
 
@@ -97,7 +98,20 @@ export function checkFileEdits(value: unknown, where: string, version: number = 
       : checkRangeEl(value.fitRangeEl, `${where}.fitRangeEl`),
     ...(value.dorsalSide === undefined || value.dorsalSide === null ? {} : { dorsalSide: checkDorsalSide(value.dorsalSide, `${where}.dorsalSide`) }),
     ...(Object.keys(timePoints).length > 0 ? { timePoints } : {}),
+    ...(value.time === undefined || value.time === null ? {} : { time: checkTimeText(value.time, `${where}.time`) }),
+    ...(value.timeStepS === undefined || value.timeStepS === null ? {} : { timeStepS: checkStep(value.timeStepS, `${where}.timeStepS`) }),
   };
+}
+
+/** Check a file's time points to analyse: the --time flag's text and rule. */
+function checkTimeText(value: unknown, where: string): string {
+  if (typeof value !== 'string') return badField(where, 'must be all, a time point K or a range A:B (0-based, A ≤ B)');
+  try { return timeSelectionText(parseTimeSelection(value, where)); } catch (e) { throw new ProjectFormatError((e as Error).message); }
+}
+
+/** Check a file's time step in seconds: the --time-step flag's rule. */
+function checkStep(value: unknown, where: string): number {
+  try { return checkTimeStepS(value, where); } catch (e) { throw new ProjectFormatError((e as Error).message); }
 }
 
 /** Check a per-file dorsal side: 'left' or 'right'. */

@@ -22,6 +22,11 @@ export interface FileEdits {
   /** Edits of single time points of a movie, keyed by the time point (0-based, as decimal text: "0", "12"); absent
    *  or empty: the file's edits hold at every time point. */
   readonly timePoints?: Readonly<Record<string, TimePointEdits>>;
+  /** Time points of a movie to analyse over time, as the --time flag takes them ("all", "K" or "A:B", 0-based); absent:
+   *  the run's own (--time, default all). */
+  readonly time?: string;
+  /** Seconds between time points for a movie whose file gives no times, as --time-step; absent: the run's own. */
+  readonly timeStepS?: number;
 }
 
 /** The project file's content (JSON, versioned). Version 2 adds per-time-point edits (FileEdits.timePoints); a

@@ -11,6 +11,8 @@ export interface StackLoad {
   /** The first picture while the stack loads (one raw slice of `path`); null once the stack is there or when the
    *  preview failed (the stack's own error, if any, is what the user sees). */
   readonly preview: { readonly path: string; readonly plane: StackPreview } | null;
+  /** The time point the stack shows (the settings' timeIndex it was loaded with), or null with no stack. */
+  readonly timeIndex: number | null;
 }
 
 /** Settings that change what loadStack returns (projection, detection); others only change live measurement. */
@@ -20,7 +22,7 @@ export function loadKey(path: string | null, s: AnalysisSettings): string {
 
 /** Load `path` with `settings`; stale answers (the user moved on) are dropped. */
 export function useStackLoader(api: EgglineApi | null, path: string | null, settings: AnalysisSettings): StackLoad {
-  const [load, setLoad] = useState<StackLoad>({ stack: null, loading: false, error: null, preview: null });
+  const [load, setLoad] = useState<StackLoad>({ stack: null, loading: false, error: null, preview: null, timeIndex: null });
   const key = loadKey(path, settings);
   useEffect(() => {
     if (api === null || path === null) return;
@@ -37,8 +39,9 @@ export function useStackLoader(api: EgglineApi | null, path: string | null, sett
     api.loadStack(path, settings).then((r) => {
       if (!live) return;
       stackArrived = true;
-      setLoad(r.ok ? { stack: r.value, loading: false, error: null, preview: null } : { stack: null, loading: false, error: r.error.message, preview: null });
-    }, (e: unknown) => { if (live) { stackArrived = true; setLoad({ stack: null, loading: false, error: `${path}: ${String(e)}`, preview: null }); } });
+      setLoad(r.ok ? { stack: r.value, loading: false, error: null, preview: null, timeIndex: settings.timeIndex }
+        : { stack: null, loading: false, error: r.error.message, preview: null, timeIndex: null });
+    }, (e: unknown) => { if (live) { stackArrived = true; setLoad({ stack: null, loading: false, error: `${path}: ${String(e)}`, preview: null, timeIndex: null }); } });
     return () => { live = false; };
     // The key captures every setting that matters; settings itself changes on unrelated edits.
   }, [api, key]);

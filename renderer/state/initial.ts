@@ -8,6 +8,7 @@ export function initialState(): EditorState {
     doc: { settings: DEFAULT_SETTINGS, files: {} },
     current: null,
     shownTimeIndex: 0,
+    editScope: 'file',
     autoAxis: null,
     display: { mode: 'merged', active: 0, channels: [] },
     view: { zoom: 1, offsetX: 0, offsetY: 0 },

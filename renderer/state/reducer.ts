@@ -2,10 +2,11 @@
 import { resetAxis, setAxisHandle, swapPoles } from './axisActions';
 import { addLandmark, deleteLandmark, moveLandmark, renameLandmark } from './landmarkActions';
 import { setDorsalSide, setFitRange, setSetting } from './settingsActions';
+import { withMovieTime, withoutTimePointEdits } from './fileEdits';
 import { entriesForChange, entryApplies, restoreEntry, sameScope, snapshotLike } from './history';
 import type { ActionOutcome, EditorAction, EditorState } from './types';
 import {
-  initChannelDisplay, openDoc, selectFile, selectLandmark, setChannelDisplay, setDisplayMode, setTool, setView, showTimePoint,
+  initChannelDisplay, openDoc, selectFile, selectLandmark, setChannelDisplay, setDisplayMode, setEditScope, setTool, setView, showTimePoint,
 } from './viewActions';
 
 /** Most undo steps kept (older ones are dropped). */
@@ -17,6 +18,9 @@ export function perform(state: EditorState, action: EditorAction): ActionOutcome
     case 'openDoc': return openDoc(state, action.doc);
     case 'selectFile': return selectFile(state, action.key, action.autoAxis);
     case 'showTimePoint': return showTimePoint(state, action.tIndex);
+    case 'setEditScope': return setEditScope(state, action.scope);
+    case 'clearTimePointEdits': return { state: withoutTimePointEdits(state), history: 'push' };
+    case 'setMovieTime': return { state: withMovieTime(state, action.time, action.timeStepS), history: 'push' };
     case 'setAxisHandle': return setAxisHandle(state, action.end, action.point, action.coalesce);
     case 'swapPoles': return swapPoles(state);
     case 'resetAxis': return resetAxis(state);

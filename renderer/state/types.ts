@@ -4,6 +4,9 @@ import type { AnalysisSettings, SettingsOverrides } from '../../core/settings';
 import type { FileEdits } from '../../core/contract';
 import type { ViewTransform } from '../geometry';
 
+/** Where hand edits go: the whole file (every time point of a movie) or the shown time point alone. */
+export type EditScope = 'file' | 'timePoint';
+
 /** Pointer tools in the image view. */
 export type ToolName = 'pan' | 'axis' | 'landmark';
 
@@ -40,6 +43,9 @@ export interface EditorState {
   /** Time point of the shown file whose result is shown (0-based; 0 for a file with one time point). Back to 0 when
    *  another file is shown. */
   readonly shownTimeIndex: number;
+  /** Where hand edits of the axis, landmarks and fit range go: the file ('file': every time point) or the shown time
+   *  point alone ('timePoint', movies only). Back to 'file' when another file is shown. */
+  readonly editScope: EditScope;
   /** The automatically found axis of the shown file (used when there is no hand axis). */
   readonly autoAxis: ApAxis | null;
   readonly display: DisplayState;
@@ -62,6 +68,9 @@ export type EditorAction =
   | { type: 'openDoc'; doc: DocState }
   | { type: 'selectFile'; key: string; autoAxis: ApAxis | null }
   | { type: 'showTimePoint'; tIndex: number }
+  | { type: 'setEditScope'; scope: EditScope }
+  | { type: 'clearTimePointEdits' }
+  | { type: 'setMovieTime'; time: string | null; timeStepS: number | null }
   | { type: 'setAxisHandle'; end: AxisEnd; point: ImagePoint; coalesce?: boolean }
   | { type: 'swapPoles' }
   | { type: 'resetAxis' }

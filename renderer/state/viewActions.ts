@@ -1,7 +1,7 @@
 // Actions that change only how things are shown; none enter undo history.
 import type { ApAxis } from '../../core/model';
 import type { ViewTransform } from '../geometry';
-import type { ActionOutcome, ChannelDisplay, DocState, EditorState, ToolName } from './types';
+import type { ActionOutcome, ChannelDisplay, DocState, EditScope, EditorState, ToolName } from './types';
 
 const shown = (state: EditorState): ActionOutcome => ({ state, history: 'none' });
 
@@ -39,8 +39,9 @@ export const selectLandmark = (state: EditorState, index: number | null): Action
 
 /** Show another file: its automatic axis comes from the loaded stack; history is kept (undo then reaches only this file's edits and the settings). */
 export function selectFile(state: EditorState, key: string, autoAxis: ApAxis | null): ActionOutcome {
-  const shownTimeIndex = key === state.current ? state.shownTimeIndex : 0;
-  return shown({ ...state, current: key, shownTimeIndex, autoAxis, selectedLandmark: null });
+  const same = key === state.current;
+  const shownTimeIndex = same ? state.shownTimeIndex : 0;
+  return shown({ ...state, current: key, shownTimeIndex, editScope: same ? state.editScope : 'file', autoAxis, selectedLandmark: null });
 }
 
 /** Show another time point of the shown file (a whole number ≥ 0; anything else leaves the state as it is). */
@@ -48,6 +49,9 @@ export function showTimePoint(state: EditorState, tIndex: number): ActionOutcome
   if (!(Number.isInteger(tIndex) && tIndex >= 0) || tIndex === state.shownTimeIndex) return shown(state);
   return shown({ ...state, shownTimeIndex: tIndex });
 }
+
+/** Send hand edits to the whole file or to the shown time point alone. */
+export const setEditScope = (state: EditorState, scope: EditScope): ActionOutcome => shown(state.editScope === scope ? state : { ...state, editScope: scope });
 
 /** Start from a document read from disk: empties undo history. */
 export function openDoc(state: EditorState, doc: DocState): ActionOutcome {

@@ -3,9 +3,11 @@
 // faded behind), the kymograph, λ over time and τ(x) with the model line, and the model's numbers in plain words.
 import { useEffect, useMemo, useRef, useState } from 'react';
 import type { EgglineApi, MovieRequestOptions, MovieView } from '../../../core/contract';
+import type { StackInfo } from '../../../core/model';
+import { parseTimeSelection, parseTimeStepS, selectTimeIndices, timeSelectionText } from '../../../core/settings';
+import { FieldFrame } from '../settings/SettingField';
 import { valueWithCi } from '../../../core/figures';
 import type { MovieState } from '../../hooks/useMovie';
-import { DEFAULT_MOVIE_OPTIONS } from '../../hooks/useMovie';
 import { useElementSize } from '../../hooks/useElementSize';
 import { fmt } from '../../ui/format';
 import { MenuButton } from '../MenuButton';
@@ -18,16 +20,93 @@ export interface TimelapseViewProps {
   readonly api: EgglineApi | null;
   /** The shown file (project key and path), or null. */
   readonly file: { readonly name: string; readonly path: string } | null;
-  /** Time points of the shown file as its stack reports them; null while it loads. */
-  readonly sizeT: number | null;
+  /** The shown file's stack as read (time points, where its times come from); null while it loads. */
+  readonly info: StackInfo | null;
   readonly movie: MovieState;
-  /** The shared settings and this file's hand edits as they are now (any text that changes when they change). */
+  /** What an analysis would be made from now (settings, this file's edits, the options): any text that changes when
+   *  they change; an outcome made from another is shown as out of date. */
   readonly basis: string;
-  readonly onAnalyse: (options: MovieRequestOptions, basis: string) => void;
+  /** The run options (the batch's --axis-per-time, --tau-range, --baseline-frames), kept while tabs change. */
+  readonly options: MovieRequestOptions;
+  readonly onOptions: (o: MovieRequestOptions) => void;
+  /** The file's own time points to analyse ('all', 'K', 'A:B'; null: all) and time step (s; null: the file's times). */
+  readonly movieTime: { readonly time: string | null; readonly timeStepS: number | null };
+  /** Change them (saved in the project; the analysis runs again). */
+  readonly onMovieTime: (time: string | null, timeStepS: number | null) => void;
+  /** Analyse the file over time with the options and the project as they are now. */
+  readonly onAnalyse: () => void;
   readonly onCancel: () => void;
+  /** The shown time point (0-based index in the file), shared with the Embryo view. */
+  readonly tIndex: number;
   /** The shown time point changed (its 0-based index in the file). */
   readonly onTimePoint: (tIndex: number) => void;
   readonly setMessage: (m: string | null) => void;
+}
+
+/** Where a movie's times come from, in words. */
+export function timeSourceText(source: string | null | undefined): string {
+  switch (source) {
+    case 'ome-plane': return 'the file (OME Plane DeltaT)';
+    case 'ome-increment': return 'the file (OME TimeIncrement)';
+    case 'imagej': return 'the file (ImageJ frame interval)';
+    case 'ome-zarr': return 'the file (OME-Zarr time scale)';
+    case 'user': return 'you (the time step below)';
+    default: return 'nowhere: unknown (give a time step)';
+  }
+}
+
+/** The file's own times, when it gives them (then a time step is not used). */
+function fileTimeSource(info: StackInfo | null): string | null {
+  return info?.time && info.time.timesS !== null ? info.time.source : null;
+}
+
+/** The time points to analyse and the time step: the --time and --time-step flags' rules and wording. */
+function MovieTimeFields({ movieTime, info, disabled, onChange }: {
+  movieTime: TimelapseViewProps['movieTime']; info: StackInfo | null; disabled: boolean; onChange: TimelapseViewProps['onMovieTime'];
+}) {
+  const timeValue = movieTime.time ?? 'all';
+  const stepValue = movieTime.timeStepS === null ? '' : String(movieTime.timeStepS);
+  const [timeText, setTimeText] = useState(timeValue);
+  const [stepText, setStepText] = useState(stepValue);
+  const [timeError, setTimeError] = useState<string | null>(null);
+  const [stepError, setStepError] = useState<string | null>(null);
+  useEffect(() => { setTimeText(timeValue); setTimeError(null); }, [timeValue]);
+  useEffect(() => { setStepText(stepValue); setStepError(null); }, [stepValue]);
+  const own = fileTimeSource(info);
+  const commitTime = (): void => {
+    try {
+      const sel = parseTimeSelection(timeText, 'time points');
+      const sizeT = info === null ? null : Math.max(info.sizeT, movieTime.timeStepS !== null && !info.isOme && info.sizeT === 1 ? info.sizeZ : 1);
+      const none = sizeT === null || sizeT <= 1 ? null : selectTimeIndices(sel, sizeT);
+      if (typeof none === 'string') { setTimeError(`time points: ${none}`); return; }
+      setTimeError(null);
+      const text = timeSelectionText(sel);
+      if (text !== timeValue) onChange(text === 'all' ? null : text, movieTime.timeStepS);
+    } catch (e) { setTimeError((e as Error).message); }
+  };
+  const commitStep = (): void => {
+    try {
+      const step = stepText.trim() === '' ? null : parseTimeStepS(stepText, 'time step');
+      setStepError(null);
+      if (step !== movieTime.timeStepS) onChange(movieTime.time, step);
+    } catch (e) { setStepError((e as Error).message); }
+  };
+  return (
+    <>
+      <FieldFrame label="time points" help="Time points to analyse, 0-based as eggline batch --time takes them: all, one time point K, or a range A:B (both ends included). Saved for this file in the project; the batch uses it too."
+        error={timeError} testId="movie-time">
+        <input type="text" value={timeText} disabled={disabled} data-testid="movie-time" aria-invalid={timeError !== null} placeholder="all, K or A:B" size={7}
+          onChange={(e) => setTimeText(e.target.value)} onBlur={commitTime} onKeyDown={(e) => { if (e.key === 'Enter') commitTime(); }} />
+      </FieldFrame>
+      <FieldFrame label="time step (s)" help={own !== null ? `The file gives its own times (${timeSourceText(own)}); a time step is used only for files that give none.`
+        : 'Seconds between time points, as eggline batch --time-step: for files that give no times (a plain multi-page file is then read as frames). Saved for this file in the project.'}
+        error={stepError} testId="movie-time-step">
+        <input type="text" inputMode="decimal" value={stepText} disabled={disabled || (own !== null && stepValue === '')} data-testid="movie-time-step" aria-invalid={stepError !== null}
+          placeholder={own !== null ? 'from file' : 'none'} size={5}
+          onChange={(e) => setStepText(e.target.value)} onBlur={commitStep} onKeyDown={(e) => { if (e.key === 'Enter') commitStep(); }} />
+      </FieldFrame>
+    </>
+  );
 }
 
 /** Milliseconds between frames while playing. */
@@ -82,7 +161,7 @@ function MovieNumbers({ view, k }: { view: MovieView; k: number }) {
         </>
       ) : <p className="muted" data-testid="movie-note">{view.note ?? 'no model fit'}</p>}
       {view.warnings.length > 0 && <ul className="warnings" data-testid="movie-warnings">{view.warnings.map((w) => <li key={w}>{w}</li>)}</ul>}
-      <p className="muted small">Research software: these numbers support your judgement; check the kymograph and the fits. Times from {view.timeSource ?? 'nowhere (unknown)'}.</p>
+      <p className="muted small" data-testid="movie-time-source" data-source={view.timeSource ?? ''}>Research software: these numbers support your judgement; check the kymograph and the fits. Times from {timeSourceText(view.timeSource)}.</p>
     </div>
   );
 }
@@ -109,30 +188,48 @@ function RunOptions({ options, onChange, disabled }: { options: MovieRequestOpti
   );
 }
 
+/** One line: which time points are (to be) analysed and where their times come from. */
+export function timesLine(info: StackInfo | null, view: MovieView | null, t: TimelapseViewProps['movieTime']): string {
+  const sizeT = view?.sizeT ?? (info !== null && info.sizeT > 1 ? info.sizeT : null);
+  const of = sizeT === null ? '' : ` of ${sizeT}`;
+  const which = t.time === null ? (sizeT === null ? 'Every time point' : `All ${sizeT} time points`)
+    : t.time.includes(':') ? `Time points ${t.time.replace(':', ' to ')} (0-based)${of}` : `Time point ${t.time} (0-based)${of}`;
+  const source = view !== null ? view.timeSource : fileTimeSource(info) ?? (t.timeStepS !== null ? 'user' : null);
+  const step = t.timeStepS !== null && source === 'user' ? `, ${t.timeStepS} s apart` : '';
+  return `${which}; times from ${timeSourceText(source)}${step}.`;
+}
+
 /** The time-lapse view. */
 export function TimelapseView(p: TimelapseViewProps) {
-  const [options, setOptions] = useState<MovieRequestOptions>(DEFAULT_MOVIE_OPTIONS);
-  const [k, setK] = useState(0);
+  const { options, movie } = p;
   const [playing, setPlaying] = useState(false);
   const [exportMenu, setExportMenu] = useState(false);
-  const { movie } = p;
   const view = movie.view !== null && p.file !== null && movie.view.file === p.file.name ? movie.view : null;
   const n = view?.timeIndices.length ?? 0;
   const running = movie.status === 'running';
-  const basis = JSON.stringify([p.basis, options]);
-  const stale = view !== null && movie.basis !== null && movie.basis !== basis;
-  // A new outcome starts at the first time point.
-  useEffect(() => { setK(0); setPlaying(false); }, [view]);
-  useEffect(() => { if (view !== null && view.timeIndices[k] !== undefined) p.onTimePoint(view.timeIndices[k]); }, [view, k]);
+  const stale = view !== null && movie.basis !== null && movie.basis !== p.basis;
+  // The shown time point is the window's (the Embryo view follows it); k is its place among the analysed ones.
+  const found = view === null ? -1 : view.timeIndices.indexOf(p.tIndex);
+  const k = Math.max(0, found);
+  const kRef = useRef(k);
+  kRef.current = k;
+  const setK = (next: number | ((i: number) => number)): void => {
+    if (view === null) return;
+    const i = Math.max(0, Math.min(n - 1, typeof next === 'function' ? next(kRef.current) : next));
+    kRef.current = i;
+    p.onTimePoint(view.timeIndices[i]);
+  };
+  // A new outcome stops playing (the window moves the shown time point to its first when it was not analysed).
+  useEffect(() => { setPlaying(false); }, [view]);
   // Playing advances one time point per step and stops at the last.
   useEffect(() => {
     if (!playing || n === 0) return;
-    const id = setInterval(() => setK((i) => {
-      if (i + 1 >= n) { setPlaying(false); return i; }
-      return i + 1;
-    }), PLAY_STEP_MS);
+    const id = setInterval(() => {
+      if (kRef.current + 1 >= n) { setPlaying(false); return; }
+      setK(kRef.current + 1);
+    }, PLAY_STEP_MS);
     return () => clearInterval(id);
-  }, [playing, n]);
+  }, [playing, n, view]);
   const togglePlay = () => {
     if (n === 0) return;
     if (!playing && k >= n - 1) setK(0);
@@ -169,7 +266,8 @@ export function TimelapseView(p: TimelapseViewProps) {
   }), [view, k]);
 
   if (p.file === null) return <section className="timelapse" data-testid="timelapse-view"><p className="muted tl-hint">Open a folder and choose a movie in the file list.</p></section>;
-  const oneFrame = p.sizeT === 1 && view === null;
+  const pages = p.info !== null && p.info.sizeT === 1 && !p.info.isOme && p.info.sizeZ > 1;
+  const oneFrame = p.info !== null && p.info.sizeT === 1 && view === null && !(pages && p.movieTime.timeStepS !== null);
   const exportItems = (Object.keys(MOVIE_EXPORT_LABELS) as MovieExportCommand[]).map((c) => ({
     id: c, label: MOVIE_EXPORT_LABELS[c], testId: `movie-export-${c}`,
     onSelect: () => { if (view !== null && p.api !== null) void movieExport(p.api, view, k, c, p.setMessage); },
@@ -178,9 +276,15 @@ export function TimelapseView(p: TimelapseViewProps) {
     <section className="timelapse" data-testid="timelapse-view">
       <div className="tl-head">
         <h3 title={p.file.name}>Over time: {p.file.name}</h3>
-        {oneFrame ? <span className="muted" data-testid="movie-one-frame">This file has one time point; the view over time needs a movie (OME-TIFF with SizeT &gt; 1, an ImageJ hyperstack with frames, or OME-Zarr with a t axis).</span> : (
+        {oneFrame ? (
           <>
-            <RunOptions options={options} onChange={setOptions} disabled={running} />
+            <span className="muted" data-testid="movie-one-frame">This file has one time point; the view over time needs a movie (OME-TIFF with SizeT &gt; 1, an ImageJ hyperstack with frames, or OME-Zarr with a t axis){pages ? ', or a time step to read its pages as frames' : ''}.</span>
+            {pages && <MovieTimeFields movieTime={p.movieTime} info={p.info} disabled={running} onChange={p.onMovieTime} />}
+          </>
+        ) : (
+          <>
+            <MovieTimeFields movieTime={p.movieTime} info={p.info} disabled={false} onChange={p.onMovieTime} />
+            <RunOptions options={options} onChange={p.onOptions} disabled={running} />
             {running ? (
               <>
                 <progress max={Math.max(1, movie.total)} value={movie.done} data-testid="movie-progress" />
@@ -188,17 +292,18 @@ export function TimelapseView(p: TimelapseViewProps) {
                 <button data-testid="movie-cancel" onClick={p.onCancel}>Cancel</button>
               </>
             ) : (
-              <button className="primary" data-testid="movie-analyse" disabled={p.sizeT === null}
-                title="Analyse every time point with the current settings and hand edits, as the batch does"
-                onClick={() => p.onAnalyse(options, basis)}>{view === null ? 'Analyse over time' : 'Analyse again'}</button>
+              <button className="primary" data-testid="movie-analyse" disabled={p.info === null}
+                title="Analyse the chosen time points with the current settings and hand edits, as the batch does"
+                onClick={p.onAnalyse}>{view === null ? 'Analyse over time' : 'Analyse again'}</button>
             )}
             <MenuButton label="Export ▾" items={exportItems} open={exportMenu} onOpen={setExportMenu} disabled={view === null} testId="movie-export" alignRight />
           </>
         )}
       </div>
       {movie.file === p.file.name && movie.status === 'error' && <p className="error tl-hint" data-testid="movie-error">{movie.error}</p>}
-      {stale && <p className="tl-hint tl-stale" data-testid="movie-stale">The settings, this file&apos;s hand edits or the options above changed after this analysis: the figures show the analysis as it was. Analyse again to update them.</p>}
+      {stale && !running && <p className="tl-hint tl-stale" data-testid="movie-stale">The settings, this file&apos;s hand edits or the options above changed after this analysis: the figures show the analysis as it was. Analyse again to update them.</p>}
       {movie.file === p.file.name && movie.status === 'cancelled' && <p className="muted tl-hint" data-testid="movie-cancelled">Cancelled; nothing was kept. Analyse again to start over.</p>}
+      <p className="muted tl-hint tl-times" data-testid="movie-times">{timesLine(p.info, view, p.movieTime)}</p>
       {view === null && !running && !oneFrame && movie.status !== 'error' && <p className="muted tl-hint">Each time point gets its own projection, background, profile and fit along one axis for the movie; then λ over time, the kymograph and the local accumulation time τ(x) with the synthesis–diffusion–degradation model&apos;s test. The batch writes the same numbers to timecourse.csv and model_fit.csv.</p>}
       {view !== null && draws !== null && (
         <>

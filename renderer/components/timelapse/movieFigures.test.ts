@@ -23,8 +23,14 @@ describe('the time-lapse view\'s figure helpers', () => {
     expect(movieIntensityRange(view(null, [null]))).toEqual([0, 1]);
   });
   it('labels the time in minutes from 10 min on, with the time point counted from 1', () => {
-    expect(timeLabel(view([0, 300, 600], [null, null, null]), 1)).toBe('t = 5 min · time point 2 of 46'); // the movie spans 10 min
-    expect(timeLabel(view([0, 30, 60], [null, null, null]), 1)).toBe('t = 30 s · time point 2 of 46');
-    expect(timeLabel(view(null, [null, null]), 1)).toBe('time point 2 of 46 · times unknown');
+    const all = (v: MovieView): MovieView => ({ ...v, sizeT: v.timeIndices.length });
+    expect(timeLabel(all(view([0, 300, 600], [null, null, null])), 1)).toBe('t = 5 min · time point 2 of 3'); // the movie spans 10 min
+    expect(timeLabel(all(view([0, 30, 60], [null, null, null])), 1)).toBe('t = 30 s · time point 2 of 3');
+    expect(timeLabel(all(view(null, [null, null])), 1)).toBe('time point 2 of 2 · times unknown');
+  });
+  it('says which of the analysed time points is shown when only some of the movie\'s were analysed', () => {
+    const part = { ...view([600, 660, 720], [null, null, null]), timeIndices: [10, 11, 12] };
+    expect(timeLabel(part, 2)).toBe('t = 720 s · time point 13 of 46 (3 of 3 analysed)');
+    expect(timeLabel(part, 2, false)).toBe('t = 720 s · time point 13 of 46');
   });
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { parseTimeSelection, selectTimeIndices } from './time-selection';
+import { checkTimeStepS, parseTimeSelection, parseTimeStepS, selectTimeIndices, timeSelectionText } from './time-selection';
 
 describe('parseTimeSelection / selectTimeIndices', () => {
   it('reads all, one time point and an inclusive range', () => {
@@ -14,5 +14,17 @@ describe('parseTimeSelection / selectTimeIndices', () => {
     expect(selectTimeIndices(parseTimeSelection('7'), 5)).toBe('time point 7 is outside the movie (T = 5, time points 0 to 4)');
     expect(() => parseTimeSelection('4:2')).toThrow('--time must be all, a time point K or a range A:B (0-based, A ≤ B), got "4:2"');
     expect(() => parseTimeSelection('-1')).toThrow(/got "-1"/);
+  });
+
+  it('writes a selection back as the flag\'s text', () => {
+    for (const t of ['all', '7', '3:9']) expect(timeSelectionText(parseTimeSelection(t))).toBe(t);
+  });
+
+  it('reads a time step in seconds and refuses what is not a positive number, with the flag\'s message', () => {
+    expect(parseTimeStepS('30')).toBe(30);
+    expect(parseTimeStepS(' 2.5 ')).toBe(2.5);
+    expect(checkTimeStepS(0.5)).toBe(0.5);
+    for (const bad of ['0', '-3', 'abc', '', 'Infinity']) expect(() => parseTimeStepS(bad)).toThrow(`--time-step must be a positive number of seconds (got "${bad}")`);
+    expect(() => checkTimeStepS(NaN, 'time step')).toThrow('time step must be a positive number of seconds (got "NaN")');
   });
 });

@@ -1,0 +1,82 @@
+import { describe, expect, it } from 'vitest';
+import { keptIndices, wholeNumberMedian } from './median-whole';
+import { maskedMedian } from './select';
+
+/** Seeded linear congruential generator (demo data). */
+function lcg(seed: number): () => number {
+  let s = seed >>> 0;
+  return () => { s = (Math.imul(s, 1664525) + 1013904223) >>> 0; return s / 4294967296; };
+}
+
+/** Reference: median of a sorted copy (mean of the two middle values for an even count). */
+function sortMedian(values: number[]): number {
+  // Source: from memory, the textbook definition of the sample median.
+  const s = [...values].sort((a, b) => a - b);
+  const n = s.length;
+  return n % 2 === 1 ? s[n >> 1] : (s[(n >> 1) - 1] + s[n >> 1]) / 2;
+}
+
+describe('wholeNumberMedian', () => {
+  it('gives the median and count of the kept values (tiny known answers, odd and even counts)', () => {
+    // Source: from memory, median definition: kept 1, 5, 3 → 3; with 8 added → (3 + 5) / 2 = 4.
+    const values = new Float32Array([1, 100, 5, 7, 3, 9, 2, 8]);
+    expect(wholeNumberMedian(values, new Uint8Array([1, 0, 1, 0, 1, 0, 0, 0]))).toEqual({ median: 3, count: 3 });
+    expect(wholeNumberMedian(values, new Uint8Array([1, 0, 1, 0, 2, 0, 0, 1]))).toEqual({ median: 4, count: 4 });
+    const keep = new Uint8Array([1, 0, 1, 0, 2, 0, 0, 1]);
+    expect(wholeNumberMedian(values, keep, keptIndices(keep))).toEqual({ median: 4, count: 4 });
+  });
+
+  it('declines (null) values that are not whole numbers in 0…65 535, an empty set, and a middle zero that may be −0', () => {
+    // Source: from memory: a 16-bit sample holds 0…65 535; IEEE 754 −0 equals +0 but prints and divides differently.
+    const keep = new Uint8Array([1, 1, 1]);
+    for (const odd of [2.5, -1, 65_536, NaN, Infinity, -Infinity]) {
+      expect(wholeNumberMedian(new Float32Array([1, odd, 3]), keep), String(odd)).toBeNull();
+      expect(wholeNumberMedian(new Float32Array([1, odd, 3]), keep, keptIndices(keep)), String(odd)).toBeNull();
+    }
+    expect(wholeNumberMedian(new Float32Array([1, 2, 3]), new Uint8Array(3))).toBeNull();
+    expect(wholeNumberMedian(new Float32Array([-0, 0, 0]), keep)).toBeNull();
+    expect(wholeNumberMedian(new Float32Array([0, 0, 5, 0]), new Uint8Array([1, 1, 1, 0]))).toEqual({ median: 0, count: 3 });
+    // A fraction beyond the first block of values still declines.
+    const long = new Float32Array(40_000).fill(7);
+    long[39_999] = 7.5;
+    expect(wholeNumberMedian(long, new Uint8Array(40_000).fill(1))).toBeNull();
+  });
+
+  it('equals a sort-based median on small seeded sets with many ties', () => {
+    // Source: from memory, median definition; demo data: seeded whole numbers from a narrow range (ties).
+    for (const n of [1, 2, 3, 10, 11, 1000, 1001]) {
+      const rnd = lcg(n);
+      const values = Float32Array.from({ length: n }, () => Math.floor(rnd() * 7) * 3);
+      const keep = new Uint8Array(n).fill(1);
+      expect(wholeNumberMedian(values, keep)?.median).toBe(sortMedian(Array.from(values)));
+    }
+  });
+
+  it('gives the same median as maskedMedian on seeded images, by mask and by index list, odd and even counts', () => {
+    // Source: maskedMedian (radix selection, and Hoare selection below 65 536 values) as reference (demo data:
+    // seeded 16-bit noise around a background level with bright outliers and saturated pixels; ties everywhere).
+    for (const n of [5_001, 5_002, 200_001, 200_002]) {
+      const rnd = lcg(n);
+      const values = new Float32Array(n);
+      const keep = new Uint8Array(n);
+      for (let i = 0; i < n; i++) {
+        const u = rnd();
+        values[i] = u < 0.05 ? 65_535 : u < 0.2 ? Math.floor(rnd() * 4000) : 100 + Math.floor(rnd() * 12);
+        keep[i] = +(rnd() < 0.7);
+      }
+      // Make the kept count's parity follow n's, so both odd and even counts are checked.
+      let count = 0;
+      for (let i = 0; i < n; i++) count += keep[i];
+      if (count % 2 !== n % 2) keep[keep.indexOf(1)] = 0;
+      const expected = maskedMedian(values, keep);
+      expect(wholeNumberMedian(values, keep), `n=${n}`).toEqual(expected);
+      expect(wholeNumberMedian(values, keep, keptIndices(keep)), `n=${n} indices`).toEqual(expected);
+    }
+  });
+
+  it('lists kept indices in order', () => {
+    // Source: hand-computed (demo data).
+    expect(Array.from(keptIndices(new Uint8Array([0, 1, 0, 3, 1, 0])))).toEqual([1, 3, 4]);
+    expect(keptIndices(new Uint8Array(4)).length).toBe(0);
+  });
+});

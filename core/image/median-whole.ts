@@ -1,0 +1,117 @@
+// Median of whole-number pixel values (8- and 16-bit samples projected without averaging) by one counting pass.
+
+/** Values are counted in blocks of this many; a block holding a value that is not a whole number 0…65 535 ends the count. */
+const BLOCK = 16_384;
+
+/**
+ * Counts of values[i] for the pixels with keep[i] ≠ 0 (idx null) or for the pixels idx[k] (idx given), into counts
+ * (4 lanes × 65 536 slots, value v of the pixel's lane j at 4·v + j); false as soon as one counted value is not a
+ * whole number in 0…65 535 (then the counts are partial). `v & 0xffff` equals v exactly for those values, and
+ * differs for fractions, negatives, larger values, NaN and ±∞. Four lanes: background pixels repeat a few values, and
+ * increments of one counter in a row wait for each other (integer counts, so the lanes' sums are exact).
+ */
+function countWhole(values: Float32Array, keep: Uint8Array, idx: Int32Array | null, counts: Uint32Array): boolean {
+  const n = idx ? idx.length : Math.min(values.length, keep.length);
+  for (let start = 0; start < n; start += BLOCK) {
+    const end = Math.min(n, start + BLOCK);
+    const bad = idx ? countAtIndices(values, idx, start, end, counts) : countWhereKept(values, keep, start, end, counts);
+    if (bad !== 0) return false;
+  }
+  return true;
+}
+
+/** countWhole over idx[start..end): nonzero when a value was not a whole number 0…65 535. */
+function countAtIndices(values: Float32Array, idx: Int32Array, start: number, end: number, counts: Uint32Array): number {
+  let bad = 0;
+  let k = start;
+  for (; k + 3 < end; k += 4) {
+    const v0 = values[idx[k]];
+    const v1 = values[idx[k + 1]];
+    const v2 = values[idx[k + 2]];
+    const v3 = values[idx[k + 3]];
+    const u0 = v0 & 0xffff;
+    const u1 = v1 & 0xffff;
+    const u2 = v2 & 0xffff;
+    const u3 = v3 & 0xffff;
+    bad |= +(u0 !== v0) | +(u1 !== v1) | +(u2 !== v2) | +(u3 !== v3);
+    counts[u0 << 2]++;
+    counts[(u1 << 2) | 1]++;
+    counts[(u2 << 2) | 2]++;
+    counts[(u3 << 2) | 3]++;
+  }
+  for (; k < end; k++) {
+    const v = values[idx[k]];
+    const u = v & 0xffff;
+    bad |= +(u !== v);
+    counts[u << 2]++;
+  }
+  return bad;
+}
+
+/** countWhole over the kept pixels of [start, end): nonzero when a value was not a whole number 0…65 535. */
+function countWhereKept(values: Float32Array, keep: Uint8Array, start: number, end: number, counts: Uint32Array): number {
+  let bad = 0;
+  for (let i = start; i < end; i++) {
+    if (keep[i] === 0) continue;
+    const v = values[i];
+    const u = v & 0xffff;
+    bad |= +(u !== v);
+    counts[(u << 2) | (i & 3)]++;
+  }
+  return bad;
+}
+
+/** The four lanes of countWhole's counts added up per value (65 536 slots). */
+function laneTotals(counts: Uint32Array): Uint32Array {
+  const out = new Uint32Array(65_536);
+  for (let v = 0; v < 65_536; v++) out[v] = counts[4 * v] + counts[4 * v + 1] + counts[4 * v + 2] + counts[4 * v + 3];
+  return out;
+}
+
+/** The value (slot) of 0-based rank `rank` among the counted values. */
+function valueAtRank(counts: Uint32Array, rank: number): number {
+  let slot = 0;
+  let seen = counts[0];
+  while (seen <= rank) seen += counts[++slot];
+  return slot;
+}
+
+/** True when one of the counted values is −0 (which `& 0xffff` counts as 0). */
+function hasNegativeZero(values: Float32Array, keep: Uint8Array, idx: Int32Array | null): boolean {
+  if (idx) {
+    for (let k = 0; k < idx.length; k++) if (Object.is(values[idx[k]], -0)) return true;
+    return false;
+  }
+  for (let i = 0; i < Math.min(values.length, keep.length); i++) if (keep[i] !== 0 && Object.is(values[i], -0)) return true;
+  return false;
+}
+
+/**
+ * The median (mean of the two middle values for an even count) of the values at the kept pixels — keep[i] ≠ 0, or
+ * the pixel indices idx when given (they must be the kept pixels, each once) — and their count, when every such
+ * value is a whole number in 0…65 535; null otherwise (and when there is none), so the caller falls back to
+ * maskedMedian. One counting pass over the kept pixels, then a walk over 65 536 counts: exact, and the same number
+ * maskedMedian gives for the same values (a middle value of 0 is +0 unless a −0 is among them; then it is null too).
+ */
+export function wholeNumberMedian(values: Float32Array, keep: Uint8Array, idx: Int32Array | null = null): { median: number; count: number } | null {
+  const lanes = new Uint32Array(4 * 65_536);
+  if (!countWhole(values, keep, idx, lanes)) return null;
+  const counts = laneTotals(lanes);
+  let n = 0;
+  for (let b = 0; b < 65_536; b++) n += counts[b];
+  if (n === 0) return null;
+  const hiRank = n >> 1;
+  const upper = valueAtRank(counts, hiRank);
+  const lower = n % 2 === 1 ? upper : valueAtRank(counts, hiRank - 1);
+  if ((lower === 0 || upper === 0) && hasNegativeZero(values, keep, idx)) return null;
+  return { median: n % 2 === 1 ? upper : (lower + upper) / 2, count: n };
+}
+
+/** Indices i (ascending) where keep[i] ≠ 0. */
+export function keptIndices(keep: Uint8Array): Int32Array {
+  let n = 0;
+  for (let i = 0; i < keep.length; i++) n += +(keep[i] !== 0);
+  const out = new Int32Array(n);
+  for (let i = 0, k = 0; i < keep.length; i++) if (keep[i] !== 0) out[k++] = i;
+  return out;
+}

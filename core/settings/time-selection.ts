@@ -1,0 +1,45 @@
+// The time points a movie's analysis covers: `all`, one index K, or a range A:B (0-based, both ends included), and
+// the time step for files that give no times. One reading and one wording for the --time and --time-step flags,
+// the project file's per-file values and the window's fields.
+
+/** A parsed --time value. */
+export type TimeSelection =
+  | { readonly kind: 'all' }
+  | { readonly kind: 'one'; readonly index: number }
+  | { readonly kind: 'range'; readonly first: number; readonly last: number };
+
+/** Parses "all", "K" or "A:B" (0-based, A ≤ B); throws RangeError with a one-line message naming the flag. */
+export function parseTimeSelection(text: string, flag = '--time'): TimeSelection {
+  const t = text.trim();
+  if (t === 'all') return { kind: 'all' };
+  if (/^\d+$/.test(t)) return { kind: 'one', index: Number(t) };
+  const m = /^(\d+):(\d+)$/.exec(t);
+  if (m && Number(m[1]) <= Number(m[2])) return { kind: 'range', first: Number(m[1]), last: Number(m[2]) };
+  throw new RangeError(`${flag} must be all, a time point K or a range A:B (0-based, A ≤ B), got "${text}"`);
+}
+
+/** The text of a selection as --time takes it ("all", "K", "A:B"). */
+export function timeSelectionText(s: TimeSelection): string {
+  return s.kind === 'all' ? 'all' : s.kind === 'one' ? String(s.index) : `${s.first}:${s.last}`;
+}
+
+/** The time indices of a movie with sizeT time points that a selection picks; an error message when it picks none. */
+export function selectTimeIndices(selection: TimeSelection, sizeT: number): number[] | string {
+  const { first, last } = selection.kind === 'all' ? { first: 0, last: sizeT - 1 }
+    : selection.kind === 'one' ? { first: selection.index, last: selection.index } : selection;
+  if (first >= sizeT) return `time point ${first} is outside the movie (T = ${sizeT}, time points 0 to ${sizeT - 1})`;
+  return Array.from({ length: Math.min(last, sizeT - 1) - first + 1 }, (_, i) => first + i);
+}
+
+/** Checks a time step in seconds (a positive finite number); throws RangeError with a one-line message naming the flag. */
+export function checkTimeStepS(value: unknown, flag = '--time-step'): number {
+  if (typeof value === 'number' && Number.isFinite(value) && value > 0) return value;
+  throw new RangeError(`${flag} must be a positive number of seconds (got "${String(value)}")`);
+}
+
+/** Reads a time step in seconds from text ("30", "2.5"); throws RangeError with the message of checkTimeStepS. */
+export function parseTimeStepS(text: string, flag = '--time-step'): number {
+  const v = text.trim() === '' ? NaN : Number(text);
+  if (!(Number.isFinite(v) && v > 0)) throw new RangeError(`${flag} must be a positive number of seconds (got "${text}")`);
+  return v;
+}
