@@ -120,16 +120,26 @@ describe('the window\'s movie controls', { timeout: 180_000 }, () => {
     }
   });
 
-  it('a new range analyses the movie again at once (progress shown), and going back gives the batch\'s numbers again', async () => {
+  it('a new range analyses the movie again at once (progress shown); one given while a run is under way cancels it first', async () => {
     const { page } = h;
     h.movieProgress.length = 0;
     await page.getByTestId('movie-time').fill('20:25');
     await page.getByTestId('movie-time').press('Enter');
     await expect.poll(() => attr(page, 'movie-slider', 'max'), { timeout: 120_000 }).toBe('5');
     expect(h.movieProgress.at(-1)).toMatchObject({ done: 6, total: 6 });
+    // Every time point, then 10:25 while that run is under way: the first run stops, the second runs to its end.
+    h.movieProgress.length = 0;
+    await page.getByTestId('movie-time').fill('all');
+    await page.getByTestId('movie-time').press('Enter');
+    await expect.poll(() => h.movieProgress.some((p) => p.total === 46), { timeout: 60_000 }).toBe(true);
+    await page.getByTestId('movie-progress').waitFor();
     await page.getByTestId('movie-time').fill('10:25');
     await page.getByTestId('movie-time').press('Enter');
     await expect.poll(() => attr(page, 'movie-slider', 'max'), { timeout: 120_000 }).toBe('15');
+    await expect.poll(() => page.getByTestId('movie-progress').count(), { timeout: 120_000 }).toBe(0);
+    expect(h.movieProgress.some((p) => p.total === 46 && p.done === 46)).toBe(false);
+    expect(h.movieProgress.at(-1)).toMatchObject({ done: 16, total: 16 });
+    await expect.poll(savedEntry).toMatchObject({ time: '10:25' });
     await page.getByTestId('movie-slider').fill('5');
     await expect.poll(() => attr(page, 'movie-time-label', 'data-k')).toBe('5');
     expect(Number(await attr(page, 'movie-lambda-now', 'data-value'))).toBeCloseTo(Number(rowAt(reference, 15).lambda_el), 9);
