@@ -1,7 +1,7 @@
 // Build everything into dist/: the CLI, workers and Electron processes with esbuild, the renderer with Vite.
 // Entries that do not exist yet are skipped so the tree builds at every stage of development.
 import { build } from 'esbuild';
-import { existsSync } from 'node:fs';
+import { existsSync, readdirSync, rmSync } from 'node:fs';
 import { build as viteBuild } from 'vite';
 import { externalExceptBundled, externalExceptEsmOnly } from './bundle-externals.mjs';
 
@@ -18,11 +18,17 @@ const nodeEntries = [
 const common = { bundle: true, platform: 'node', target: 'node20', sourcemap: true, logLevel: 'warning' };
 
 if (nodeEntries.length > 0) {
+  // Code split: what an entry imports dynamically (each command of the CLI, the cohort step, …) is a chunk of its
+  // own (dist/chunk-*.mjs, beside the entries so import.meta.url-relative paths still hold), loaded only when used.
+  // Chunks of earlier builds are removed first (their names carry a hash of their content).
+  for (const f of existsSync('dist') ? readdirSync('dist') : []) if (/^chunk-.*\.mjs(\.map)?$/.test(f)) rmSync(`dist/${f}`);
   await build({
     ...common,
     entryPoints: nodeEntries,
     outdir: 'dist',
     format: 'esm',
+    splitting: true,
+    chunkNames: 'chunk-[hash]',
     outExtension: { '.js': '.mjs' },
     plugins: [externalExceptBundled],
     banner: { js: "import { createRequire as __cr } from 'node:module'; const require = __cr(import.meta.url);" },

@@ -15,22 +15,17 @@ import type { CohortAnalysis } from '../../core/cohort';
 import type { NamedFigure } from '../../core/figures';
 import { settingsInForce, type AnalysisSettings } from '../../core/settings';
 import type { ShardSpec } from '../../core/shard';
-import { analyseFile } from './analyse-file';
-import { runCohort } from './cohort-adapter';
-import { correctionRecord, loadImageCorrections } from './correction-images';
 import { sha256File } from './hash-file';
 import { openJournal, readJournal, settingsKey } from './journal-file';
 import { isInside, listStackFiles } from './list-stacks';
 import { partDir, selectPart } from './shard';
 import type { BatchTask, InputDigest } from './task';
-import {
-  analyseMovies, movieOutcomes, TIMELAPSE_FILES, withMovieResults, writeTimelapseOutputs,
-  type MovieFailure, type MovieOutcome, type TimelapseOptions,
-} from './timelapse-pass';
+import { TIMELAPSE_FILES, type MovieFailure, type MovieOutcome, type TimelapseOptions } from './timelapse-options';
 import { softwareVersions } from './versions';
-import { runPool } from './worker-pool';
+import { openPool, type WorkerPool } from './worker-pool';
 import { OUTPUT_FILES, writeBatchOutputs } from './write-outputs';
 import { writeFileAtomic } from '../project';
+import { mark } from './timeline';
 
 /** Default per-file time limit, seconds: generous, a 2 GB stack on a slow disk must not be cut off. */
 export const DEFAULT_TIMEOUT_PER_FILE_S = 900;
@@ -52,6 +47,9 @@ export interface RunBatchOptions {
   readonly maxMemoryBytes?: number;
   /** Built worker script; default: batch-worker.mjs next to the running bundle. */
   readonly workerPath?: string;
+  /** Node flags and environment added to the worker processes' own (the command line's tuning, app/cli/batch-tuning). */
+  readonly workerExecArgv?: readonly string[];
+  readonly workerEnv?: Readonly<Record<string, string>>;
   /** In-process analysis function (jobs = 0); default: the real decoder + pipeline. */
   readonly analyseInProcess?: (task: BatchTask) => Promise<EmbryoResult>;
   /** Recorded in run.json. */
@@ -188,6 +186,9 @@ function endNote(reason: RunEndReason | null, done: number, total: number): stri
 /** The correction images' record for run.json, after reading them once (a file that cannot be read or used stops
  *  the run before any stack is analysed, with one line); null when the settings name none. */
 async function checkedCorrections(settings: RunBatchOptions['settings'], folder: string): Promise<RunRecord['corrections'] | null> {
+  // The reader (the decoder and the pipeline's projection) is loaded only when a correction image is named.
+  if (settings.flatFieldFile === null && settings.backgroundImageFile === null) return null;
+  const { correctionRecord, loadImageCorrections } = await import('./correction-images');
   const loading = loadImageCorrections(settings, folder);
   if (loading === null) return null;
   try {
@@ -200,6 +201,7 @@ async function checkedCorrections(settings: RunBatchOptions['settings'], folder:
 
 /** Run a batch over `folder`, writing outputs to `outDir`. Rejects only for unusable options (BatchOptionError) or I/O on the output. */
 export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
+  mark('batch started');
   const folder = resolve(opts.folder);
   const root = resolve(opts.outDir);
   await checkFolders(folder, root);
@@ -207,6 +209,7 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   const startedAt = new Date().toISOString();
   const warnings: string[] = [];
   const listed = await listStackFiles(folder, [root], warnings);
+  mark('folder listed');
   const part = opts.shard ? await selectPart(listed, opts.shard, opts.projectFile ?? null) : null;
   const files = part ? part.files : listed;
   const outDir = opts.shard ? partDir(root, opts.shard) : root;
@@ -217,6 +220,42 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
     const task = { index, path: f.path, file: f.file, settings: settingsInForce(opts.settings, edits), handEdits: toHandEdits(edits) };
     return opts.maxMemoryBytes === undefined ? task : { ...task, maxMemoryBytes: opts.maxMemoryBytes };
   });
+  // The workers start now and load their code while this process writes run.json, opens the journal and orders the
+  // files; whatever stops the batch before its files are handed out stops them too.
+  const pool = opts.jobs > 0 && tasks.length > 0 ? openPool({
+    jobs: Math.min(opts.jobs, tasks.length), workerPath, maxMemoryBytes: opts.maxMemoryBytes, execArgv: opts.workerExecArgv, env: opts.workerEnv,
+    workerData: { decoderThreads: Math.max(1, Math.floor(defaultJobs() / opts.jobs)) },
+  }) : null;
+  try {
+    return await runListed(opts, { folder, outDir, runId, startedAt, warnings, tasks, part, pool });
+  } finally {
+    pool?.close();
+  }
+}
+
+/** What runBatch found before the run record is written: the files as tasks, the part, and the started workers. */
+interface ListedRun {
+  readonly folder: string;
+  readonly outDir: string;
+  readonly runId: string;
+  readonly startedAt: string;
+  readonly warnings: string[];
+  readonly tasks: readonly BatchTask[];
+  readonly part: Awaited<ReturnType<typeof selectPart>> | null;
+  readonly pool: WorkerPool | null;
+}
+
+/** Largest file first, so that no worker is left with a big file while the others have finished (equal sizes keep
+ *  their order; a file that cannot be read counts as empty). */
+async function largestFirst(tasks: readonly BatchTask[]): Promise<BatchTask[]> {
+  const sizes = await Promise.all(tasks.map((t) => fs.stat(t.path).then((s) => s.size, () => 0)));
+  const order = tasks.map((_, i) => i).sort((a, b) => sizes[b] - sizes[a] || a - b);
+  return order.map((i) => tasks[i]);
+}
+
+/** The batch after listing: run record, journal, the files (on the pool, or here when it is null), the tables. */
+async function runListed(opts: RunBatchOptions, listed: ListedRun): Promise<BatchRunResult> {
+  const { folder, outDir, runId, startedAt, warnings, tasks, part, pool } = listed;
   const software = await softwareVersions();
   const corrections = await checkedCorrections(opts.settings, folder);
   const timeoutMs = (opts.timeoutPerFileS ?? DEFAULT_TIMEOUT_PER_FILE_S) * 1000;
@@ -233,6 +272,7 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   if (opts.resume !== true) await removeOldTables(outDir);
   await writeFileAtomic(join(outDir, 'run.json'), runRecordToJson(record({})));
   const journal = await openJournal(outDir, { runId, startedAt, eggline: software.eggline, resume: opts.resume === true });
+  mark('run.json written, journal open');
   const hashOf = fileHashes();
   // A correction image changed under the same path must not let --resume reuse results: its SHA-256 joins the key.
   const keyVersion = corrections
@@ -269,20 +309,17 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
     await writeFileAtomic(join(outDir, 'run.json'), runRecordToJson(record({ reason: 'failed', note: line }))).catch(() => undefined);
     throw e;
   };
+  mark('files handed out');
   try {
-    if (opts.jobs <= 0) await runInProcess(pending, opts.analyseInProcess ?? analyseFile, timeoutMs, opts.signal, onStart, onResult);
-    else {
-      await runPool(pending, {
-        jobs: opts.jobs, workerPath, timeoutMs, maxMemoryBytes: opts.maxMemoryBytes, signal: opts.signal, onStart, onResult,
-        workerData: { decoderThreads: Math.max(1, Math.floor(defaultJobs() / opts.jobs)) },
-      });
-    }
+    if (pool) await pool.run(await largestFirst(pending), { timeoutMs, signal: opts.signal, onStart, onResult });
+    else if (opts.jobs <= 0) await runInProcess(pending, opts.analyseInProcess ?? (await import('./analyse-file')).analyseFile, timeoutMs, opts.signal, onStart, onResult);
   } catch (e) {
     await failed(e);
   } finally {
     await Promise.all([...appends]);
     await journal.close();
   }
+  mark('last file done, journal closed');
   if (journalError !== null) warnings.push(journalError);
   const complete = results.filter((r) => r !== undefined).length === tasks.length;
   const reason: RunEndReason | null = complete ? null : opts.signal?.reason === 'killed' ? 'killed' : opts.signal?.aborted ? 'cancelled' : 'failed';
@@ -300,18 +337,22 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   });
   // The time pass: movies per time point; their results replace the main pass's one result of each movie.
   // A stop request during it ends the time pass before the next movie; movies not reached keep their main-pass row.
-  const runs = complete && opts.timelapse ? await analyseMovies(folder, tasks.map((t) => t.file), opts.settings, opts.doc, opts.timelapse, opts.onMovie, opts.signal) : [];
+  // Its code (and the pipeline's) is loaded only when a time analysis was asked for.
+  const pass = opts.timelapse ? await import('./timelapse-pass') : null;
+  const runs = complete && pass && opts.timelapse ? await pass.analyseMovies(folder, tasks.map((t) => t.file), opts.settings, opts.doc, opts.timelapse, opts.onMovie, opts.signal) : [];
   if (complete && opts.timelapse && opts.signal?.aborted) warnings.push('stopped during the time analysis: movies after the last one analysed keep one row (their main-pass time point); rerun to analyse them over time');
-  const keyed = withMovieResults(finished, runs);
+  const keyed = pass ? pass.withMovieResults(finished, runs) : [...finished];
   const movies: MovieRecord[] = runs.map((r) => r.record);
   const written = await writeBatchOutputs(outDir, keyed, final, movies).catch(failed);
   written.push(journal.path);
-  const timelapse = movieOutcomes(movies, keyed);
-  if (movies.length > 0) written.push(...await writeTimelapseOutputs(outDir, timelapse.movies, timelapse.failures).catch(failed));
+  mark('tables written');
+  const timelapse: { movies: MovieOutcome[]; failures: MovieFailure[] } = pass ? pass.movieOutcomes(movies, keyed) : { movies: [], failures: [] };
+  if (pass && movies.length > 0) written.push(...await pass.writeTimelapseOutputs(outDir, timelapse.movies, timelapse.failures).catch(failed));
   let cohortError: string | null = null;
   let cohortStep: BatchRunResult['cohortStep'] = null;
   if (opts.cohort && complete) {
     const failures = finished.filter((r) => r.status === 'error').map((r) => ({ file: r.file, error: r.error ?? 'error' }));
+    const { runCohort } = await import('./cohort-adapter');
     const step = await runCohort({
       results: embryoResults(keyed), failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, backgroundCondition: opts.cohort.backgroundCondition ?? null, outDir, runRecord: final,
       movies: timelapse.movies, movieFailures: timelapse.failures,
@@ -321,6 +362,7 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
     cohortError = step.error;
     if (step.error === null) cohortStep = { analysis: step.analysis, figures: step.figures };
   }
+  mark('batch done');
   progress({ done, file: null, status: complete ? 'finished' : 'cancelled', message: null });
   return {
     runId, outDir, ok, failed: finished.length - ok, cancelled: !complete, complete, reason, reused: kept.size,

@@ -17,47 +17,14 @@ import { settingsInForce, type AnalysisSettings } from '../../core/settings';
 import { pagesAsTimePoints, resolveTimeAxis } from '../../core/tiff';
 import {
   ACCUMULATION_COLUMNS, accumulationRows, MODEL_FIT_COLUMNS, modelFitRow, parseTimeSelection, selectTimeIndices, summarizeMovie,
-  type MovieSummary, type TimeSelection,
 } from '../../core/timelapse';
 import { writeFileAtomic } from '../project';
 import { openStack } from './deps';
 import { fileMessage } from './analyse-file';
 import { timelapsePage } from './timelapse-page';
 
-/** Options of the time analysis (flags --time, --axis-per-time, --time-step, --tau-range, --baseline-frames). */
-export interface TimelapseOptions {
-  readonly selection: TimeSelection;
-  readonly axisPerTime: boolean;
-  /** Seconds between time points when the file does not say; plain multi-page files are then read as frames. */
-  readonly timeStepS: number | null;
-  readonly tauRangeEl: readonly [number, number];
-  readonly baselineFrames: number;
-}
-
-/** Defaults: every time point, axis once per movie, no time step, τ model over 0.1–0.4 EL, one baseline frame. */
-export const DEFAULT_TIMELAPSE_OPTIONS: TimelapseOptions = Object.freeze({
-  selection: { kind: 'all' as const }, axisPerTime: false, timeStepS: null, tauRangeEl: [0.1, 0.4] as const, baselineFrames: 1,
-});
-
-/** One analysed movie: its per-time-point results with their indices and times, and the summary. */
-export interface MovieOutcome {
-  readonly file: string;
-  readonly timeIndices: readonly number[];
-  readonly timesS: Float64Array | null;
-  /** Where the times came from (ome-plane, ome-increment, imagej, ome-zarr, user), or null. */
-  readonly timeSource?: string | null;
-  readonly results: readonly EmbryoResult[];
-  readonly summary: MovieSummary;
-}
-
-/** A movie the time pass could not analyse, with a one-line reason naming the file. */
-export interface MovieFailure {
-  readonly file: string;
-  readonly error: string;
-}
-
-/** Files of the time pass: tables, figures and the page. */
-export const TIMELAPSE_FILES = ['timecourse.csv', 'timecourse_profiles.csv', 'timecourse_boundaries.csv', 'accumulation.csv', 'model_fit.csv', 'timelapse.html'] as const;
+import type { MovieFailure, MovieOutcome, TimelapseOptions } from './timelapse-options';
+export { DEFAULT_TIMELAPSE_OPTIONS, TIMELAPSE_FILES, type MovieFailure, type MovieOutcome, type TimelapseOptions } from './timelapse-options';
 
 /** The hand edits and settings in force for one file at time point t (null: the file's own): the file's (they apply
  *  to every time point), with that time point's own edits over them. */

@@ -1,16 +1,17 @@
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { DEFAULT_SETTINGS } from '../../core/settings';
 import type { BatchTask } from './task';
-import { runPool } from './worker-pool';
+import { openPool, runPool } from './worker-pool';
 
 // A stand-in worker (demo data): behaves by file name so crashes, exits and hangs can be provoked on purpose.
 const dir = mkdtempSync(join(tmpdir(), 'eggline-pool-'));
 const workerPath = join(dir, 'fake-worker.mjs');
-writeFileSync(workerPath, `
+writeFileSync(workerPath, `const require = (await import('node:module')).createRequire(import.meta.url);
 process.on('disconnect', () => process.exit(0));
+if (process.env.PID_FILE) require('node:fs').appendFileSync(process.env.PID_FILE, JSON.stringify({ pid: process.pid, execArgv: process.execArgv }) + '\\n');
 const keep = [];
 process.on('message', (task) => {
   if (task.file.includes('crash')) throw new Error('boom in ' + task.file);
@@ -63,5 +64,34 @@ describe('runPool', () => {
   });
   it('resolves at once for an empty batch', async () => {
     expect(await runPool([], { jobs: 2, workerPath, timeoutMs: 1000 })).toEqual([]);
+  });
+});
+
+/** True while a process with this id exists (signal 0 only checks; from memory: POSIX kill(2)). */
+const alive = (pid: number): boolean => { try { process.kill(pid, 0); return true; } catch { return false; } };
+const until = async (ok: () => boolean): Promise<void> => { for (let i = 0; i < 400 && !ok(); i++) await new Promise((r) => setTimeout(r, 25)); };
+/** The workers that started with PID_FILE = `file`: their pids and node flags. */
+const startedIn = (file: string): { pid: number; execArgv: string[] }[] =>
+  (existsSync(file) ? readFileSync(file, 'utf8').trim().split('\n').filter(Boolean) : []).map((l) => JSON.parse(l) as { pid: number; execArgv: string[] });
+
+describe('openPool', () => {
+  it('starts its workers with the given flags and environment before the files are known, and stops those it has no file for', async () => {
+    const file = join(dir, 'pids-early');
+    const pool = openPool({ jobs: 3, workerPath, execArgv: ['--max-semi-space-size=2'], env: { PID_FILE: file } });
+    await until(() => startedIn(file).length === 3);
+    const started = startedIn(file);
+    expect(started.map((w) => w.execArgv.includes('--max-semi-space-size=2'))).toEqual([true, true, true]);
+    expect((await pool.run(tasks(['a.tif']), { timeoutMs: 10_000 })).map((r) => r?.status)).toEqual(['ok']);
+    await until(() => started.every((w) => !alive(w.pid)));
+    expect(started.filter((w) => alive(w.pid))).toEqual([]);
+  });
+  it('close() before run stops every worker, and the closed pool runs nothing', async () => {
+    const file = join(dir, 'pids-closed');
+    const pool = openPool({ jobs: 2, workerPath, env: { PID_FILE: file } });
+    await until(() => startedIn(file).length === 2);
+    pool.close();
+    await until(() => startedIn(file).every((w) => !alive(w.pid)));
+    expect(startedIn(file).filter((w) => alive(w.pid))).toEqual([]);
+    expect(await pool.run(tasks(['a.tif']), { timeoutMs: 1000 })).toEqual([undefined]);
   });
 });

@@ -9,25 +9,46 @@ import { formatByteSize } from '../../core/batch';
 import { errorResult } from '../../core/model';
 import type { EmbryoResult } from '../../core/model';
 import type { BatchTask, InputDigest, WorkerReply } from './task';
+import { mark } from './timeline';
 
-/** How the pool runs. */
-export interface PoolOptions {
+/** How the pool's workers are started (known before the files are). */
+export interface PoolStart {
   /** Number of worker processes (≥ 1). */
   readonly jobs: number;
   /** Path of the built worker script (dist/batch-worker.mjs). */
   readonly workerPath: string;
-  /** Per-file limit in milliseconds; the worker is killed and replaced when exceeded. */
-  readonly timeoutMs: number;
   /** Resident memory a worker may use, bytes; it is killed and its file gets an error row when it uses more. */
   readonly maxMemoryBytes?: number;
-  readonly signal?: AbortSignal;
   /** Data handed to each worker at start (e.g. libvips threads per worker). */
   readonly workerData?: unknown;
+  /** Node flags added to this process's own for each worker (before the script). */
+  readonly execArgv?: readonly string[];
+  /** Environment variables added to this process's environment for each worker. */
+  readonly env?: Readonly<Record<string, string>>;
+}
+
+/** How the pool runs its tasks. */
+export interface PoolRun {
+  /** Per-file limit in milliseconds; the worker is killed and replaced when exceeded. */
+  readonly timeoutMs: number;
+  readonly signal?: AbortSignal;
   readonly onStart?: (task: BatchTask) => void;
   /** `input` is the file's digest when the worker computed it from the bytes it decoded. */
   readonly onResult?: (task: BatchTask, result: EmbryoResult, input?: InputDigest | null) => void;
   /** Memory reports from workers (bytes), sent after each file. */
   readonly onMemory?: (report: Extract<WorkerReply, { type: 'memory' }>) => void;
+}
+
+/** Everything runPool needs. */
+export type PoolOptions = PoolStart & PoolRun;
+
+/** Workers started ahead of their files: each loads its code while the batch lists, hashes and orders the files. */
+export interface WorkerPool {
+  /** Analyse the tasks (once per pool); resolves with results by task index (missing = not run because cancelled).
+   *  Workers beyond the number of tasks are stopped; the pool is closed when it resolves. */
+  run(tasks: readonly BatchTask[], options: PoolRun): Promise<(EmbryoResult | undefined)[]>;
+  /** Stop every worker without running anything (the batch stopped before handing out its files). */
+  close(): void;
 }
 
 /** How often a worker's resident memory is read, ms. */
@@ -65,108 +86,136 @@ interface Slot {
   task: BatchTask | null;
   stderr: string;
   killedFor: string | null;
+  /** Stopped because nothing was left to do (its exit is no failure). */
+  idle: boolean;
 }
 
-/** Run every task on the pool; resolves with results by task index (missing entries = not run because cancelled). */
-export function runPool(tasks: readonly BatchTask[], opts: PoolOptions): Promise<(EmbryoResult | undefined)[]> {
-  const results: (EmbryoResult | undefined)[] = new Array(tasks.length);
-  let next = 0;
-  let active = 0;
+/** Start `jobs` workers now; hand them tasks with `run`. */
+export function openPool(start: PoolStart): WorkerPool {
   const slots = new Set<Slot>();
-  return new Promise((resolveAll) => {
-    let finished = false;
-    let poll: NodeJS.Timeout | null = null;
-    const finish = (): void => {
-      if (finished) return;
-      finished = true;
-      opts.signal?.removeEventListener('abort', onAbort);
-      if (poll) clearInterval(poll);
-      for (const s of slots) {
-        if (s.timer) clearTimeout(s.timer);
-        s.child.kill('SIGKILL');
-      }
-      slots.clear();
-      resolveAll(results);
-    };
-    const onAbort = (): void => finish();
-    const settle = (slot: Slot, result: EmbryoResult, input: InputDigest | null = null): void => {
-      const task = slot.task;
-      if (!task || finished) return;
-      slot.task = null;
-      if (slot.timer) clearTimeout(slot.timer);
-      slot.timer = null;
-      results[task.index] = result;
-      active -= 1;
-      opts.onResult?.(task, result, input);
-    };
-    const kill = (slot: Slot, why: string): void => {
-      if (slot.killedFor !== null) return;
-      slot.killedFor = why;
+  /** The run in progress, once `run` was called. */
+  let current: {
+    readonly tasks: readonly BatchTask[]; readonly options: PoolRun; readonly results: (EmbryoResult | undefined)[];
+    next: number; active: number; readonly done: () => void;
+  } | null = null;
+  let finished = false;
+  let poll: NodeJS.Timeout | null = null;
+  const finish = (): void => {
+    if (finished) return;
+    finished = true;
+    current?.options.signal?.removeEventListener('abort', onAbort);
+    if (poll) clearInterval(poll);
+    for (const s of slots) {
+      if (s.timer) clearTimeout(s.timer);
+      s.child.kill('SIGKILL');
+    }
+    slots.clear();
+    current?.done();
+  };
+  const onAbort = (): void => finish();
+  const settle = (slot: Slot, result: EmbryoResult, input: InputDigest | null = null): void => {
+    const task = slot.task;
+    if (!task || finished || !current) return;
+    slot.task = null;
+    if (slot.timer) clearTimeout(slot.timer);
+    slot.timer = null;
+    current.results[task.index] = result;
+    current.active -= 1;
+    current.options.onResult?.(task, result, input);
+  };
+  const kill = (slot: Slot, why: string): void => {
+    if (slot.killedFor !== null) return;
+    slot.killedFor = why;
+    slot.child.kill('SIGKILL');
+  };
+  /** Give the slot its next task; a slot with nothing left to do is stopped, and the last one ends the run. */
+  const feed = (slot: Slot): void => {
+    if (finished || !current) return;
+    const run = current;
+    if (run.next >= run.tasks.length) {
+      slot.idle = true;
+      slots.delete(slot);
       slot.child.kill('SIGKILL');
+      if (run.active === 0) finish();
+      return;
+    }
+    const task = run.tasks[run.next];
+    run.next += 1;
+    run.active += 1;
+    slot.task = task;
+    slot.stderr = '';
+    run.options.onStart?.(task);
+    slot.timer = setTimeout(() => kill(slot, `timed out after ${Math.round(run.options.timeoutMs / 1000)} s (the file may be damaged or too large)`), run.options.timeoutMs);
+    slot.child.send(task, (e) => { if (e) kill(slot, `the analysis could not be started (${e.message})`); });
+  };
+  const spawn = (): void => {
+    mark('worker started');
+    const child = fork(start.workerPath, [], {
+      execArgv: [...process.execArgv, ...(start.execArgv ?? []), ...heapLimitArgs(start.maxMemoryBytes)], serialization: 'advanced', stdio: ['ignore', 'inherit', 'pipe', 'ipc'],
+      env: { ...process.env, ...start.env, ELECTRON_RUN_AS_NODE: '1', EGGLINE_WORKER_DATA: JSON.stringify(start.workerData ?? null) },
+    });
+    const slot: Slot = { child, timer: null, task: null, stderr: '', killedFor: null, idle: false };
+    slots.add(slot);
+    child.stderr?.setEncoding('utf8');
+    child.stderr?.on('data', (d: string) => { slot.stderr = (slot.stderr + d).slice(-STDERR_KEEP); });
+    let gone = false;
+    const replace = (message: string): void => {
+      if (gone || slot.idle) return;
+      gone = true;
+      slots.delete(slot);
+      if (slot.task) settle(slot, errorResult(slot.task.file, `${slot.task.file}: ${message}`));
+      child.kill('SIGKILL');
+      // Before the run, a worker that died is simply not there; run() starts what is missing.
+      if (finished || !current) return;
+      if (current.next < current.tasks.length) spawn();
+      else if (current.active === 0) finish();
     };
-    const spawn = (): void => {
-      const child = fork(opts.workerPath, [], {
-        execArgv: [...process.execArgv, ...heapLimitArgs(opts.maxMemoryBytes)], serialization: 'advanced', stdio: ['ignore', 'inherit', 'pipe', 'ipc'],
-        env: { ...process.env, ELECTRON_RUN_AS_NODE: '1', EGGLINE_WORKER_DATA: JSON.stringify(opts.workerData ?? null) },
+    child.on('message', (msg: WorkerReply) => {
+      if (msg.type === 'memory') { current?.options.onMemory?.(msg); return; }
+      if (msg.type !== 'result' || slot.task?.index !== msg.index) return;
+            settle(slot, msg.result, msg.input ?? null);
+      feed(slot);
+    });
+    child.on('error', (e) => replace(`the analysis could not run (${e.message.split(/\r?\n/)[0]})`));
+    // 'close' comes after stderr has ended, so the reason can quote the worker's last words.
+    child.on('close', (code, signal) => replace(slot.killedFor ?? deathReason(code, signal, slot.stderr)));
+    if (current) feed(slot);
+  };
+  const watchMemory = (limit: number): void => {
+    poll = setInterval(() => {
+      for (const s of slots) {
+        const pid = s.child.pid;
+        if (pid === undefined || s.task === null) continue;
+        void residentBytes(pid).then((rss) => {
+          if (rss !== null && rss > limit && s.task !== null) {
+            kill(s, `used more than ${formatByteSize(limit)} of memory and was stopped (the file may be damaged, or raise the limit with --max-memory)`);
+          }
+        });
+      }
+    }, MEMORY_POLL_MS);
+    poll.unref();
+  };
+  for (let i = 0; i < start.jobs; i += 1) spawn();
+  return {
+    run(tasks, options) {
+      if (current) throw new Error('a worker pool runs once');
+      return new Promise((resolveAll) => {
+        const results: (EmbryoResult | undefined)[] = new Array(tasks.length);
+        current = { tasks, options, results, next: 0, active: 0, done: () => resolveAll(results) };
+        if (finished) { resolveAll(results); return; }
+        if (options.signal?.aborted || tasks.length === 0) { finish(); return; }
+        options.signal?.addEventListener('abort', onAbort);
+        if (start.maxMemoryBytes !== undefined) watchMemory(start.maxMemoryBytes);
+        for (const slot of [...slots]) feed(slot);
+        for (let i = slots.size; i < Math.min(start.jobs, tasks.length) && current.next < tasks.length; i += 1) spawn();
       });
-      const slot: Slot = { child, timer: null, task: null, stderr: '', killedFor: null };
-      slots.add(slot);
-      child.stderr?.setEncoding('utf8');
-      child.stderr?.on('data', (d: string) => { slot.stderr = (slot.stderr + d).slice(-STDERR_KEEP); });
-      let gone = false;
-      const replace = (message: string): void => {
-        if (gone) return;
-        gone = true;
-        slots.delete(slot);
-        if (slot.task) settle(slot, errorResult(slot.task.file, `${slot.task.file}: ${message}`));
-        child.kill('SIGKILL');
-        if (!finished && next < tasks.length) spawn();
-        else if (active === 0) finish();
-      };
-      child.on('message', (msg: WorkerReply) => {
-        if (msg.type === 'memory') { opts.onMemory?.(msg); return; }
-        if (msg.type !== 'result' || slot.task?.index !== msg.index) return;
-        settle(slot, msg.result, msg.input ?? null);
-        feed();
-      });
-      child.on('error', (e) => replace(`the analysis could not run (${e.message.split(/\r?\n/)[0]})`));
-      // 'close' comes after stderr has ended, so the reason can quote the worker's last words.
-      child.on('close', (code, signal) => replace(slot.killedFor ?? deathReason(code, signal, slot.stderr)));
-      const feed = (): void => {
-        if (finished) return;
-        if (next >= tasks.length) {
-          if (active === 0) finish();
-          return;
-        }
-        const task = tasks[next];
-        next += 1;
-        active += 1;
-        slot.task = task;
-        slot.stderr = '';
-        opts.onStart?.(task);
-        slot.timer = setTimeout(() => kill(slot, `timed out after ${Math.round(opts.timeoutMs / 1000)} s (the file may be damaged or too large)`), opts.timeoutMs);
-        child.send(task, (e) => { if (e) kill(slot, `the analysis could not be started (${e.message})`); });
-      };
-      feed();
-    };
-    const watchMemory = (limit: number): void => {
-      poll = setInterval(() => {
-        for (const s of slots) {
-          const pid = s.child.pid;
-          if (pid === undefined || s.task === null) continue;
-          void residentBytes(pid).then((rss) => {
-            if (rss !== null && rss > limit && s.task !== null) {
-              kill(s, `used more than ${formatByteSize(limit)} of memory and was stopped (the file may be damaged, or raise the limit with --max-memory)`);
-            }
-          });
-        }
-      }, MEMORY_POLL_MS);
-      poll.unref();
-    };
-    if (opts.signal?.aborted) { finish(); return; }
-    opts.signal?.addEventListener('abort', onAbort);
-    if (tasks.length === 0) { finish(); return; }
-    if (opts.maxMemoryBytes !== undefined) watchMemory(opts.maxMemoryBytes);
-    for (let i = 0; i < Math.min(opts.jobs, tasks.length); i += 1) spawn();
-  });
+    },
+    close: finish,
+  };
+}
+
+/** Run every task on a pool of `opts.jobs` workers (fewer for fewer tasks); resolves with results by task index
+ *  (missing entries = not run because cancelled). */
+export function runPool(tasks: readonly BatchTask[], opts: PoolOptions): Promise<(EmbryoResult | undefined)[]> {
+  return openPool({ ...opts, jobs: Math.min(opts.jobs, tasks.length) }).run(tasks, opts);
 }

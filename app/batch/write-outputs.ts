@@ -22,11 +22,9 @@ export async function writeBatchOutputs(outDir: string, results: readonly Embryo
     'results.json': resultsToJson(results, movies),
     'run.json': runRecordToJson(record),
   };
-  const written: string[] = [];
-  for (const name of OUTPUT_FILES) {
-    const path = join(outDir, name);
-    await writeFileAtomic(path, contents[name]);
-    written.push(path);
-  }
-  return written;
+  // The tables at once (their flushes to disk overlap), then run.json, which says the run is finished, last.
+  const tables = OUTPUT_FILES.filter((name) => name !== 'run.json');
+  await Promise.all(tables.map((name) => writeFileAtomic(join(outDir, name), contents[name])));
+  await writeFileAtomic(join(outDir, 'run.json'), contents['run.json']);
+  return OUTPUT_FILES.map((name) => join(outDir, name));
 }

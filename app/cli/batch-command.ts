@@ -18,7 +18,7 @@ import { progressPrinter } from './progress';
 import { DEFAULT_CPUS_PER_TASK, joinSlurmOptions, partArguments, submitCommands, writeSlurmScripts } from './slurm-scripts';
 import { UsageError, type CliIo } from './usage-error';
 import { parseTimelapseFlags, reportTimelapse } from './timelapse-step';
-import type { TimelapseOptions } from '../batch/timelapse-pass';
+import type { TimelapseOptions } from '../batch/timelapse-options';
 
 /** One flag per analysis setting, from the settings table (core/settings SETTINGS). */
 const SETTING_OPTIONS = Object.fromEntries(SETTINGS.map((s) => [s.flag.slice(2), s.repeatable ? { type: 'string', multiple: true } : { type: 'string' }])) as

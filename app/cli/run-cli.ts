@@ -1,12 +1,8 @@
 // The `eggline` command dispatcher: picks the command, maps usage errors to exit code 2 with a hint to --help.
 import { BatchOptionError } from '../../core/batch';
 import { EGGLINE_VERSION } from '../batch/versions';
-import { batchCommand } from './batch-command';
-import { cohortCommand } from './cohort-command';
-import { demoCommand } from './demo-command';
+import { workerTuning } from './batch-tuning';
 import { MAIN_HELP } from './help';
-import { inspectCommand } from './inspect-command';
-import { mergeCommand } from './merge-command';
 import { UsageError, type CliIo } from './usage-error';
 
 /** Where the entry point found things it alone can locate (the built worker next to the bundle). */
@@ -16,11 +12,21 @@ export interface CliEnv {
   readonly cliPath?: string;
 }
 
+/** What the batch command gets from the entry point: the built worker, started tuned for batches (batch-tuning). */
+function batchExtra(env: CliEnv): { workerPath?: string; workerExecArgv: readonly string[]; workerEnv: Readonly<Record<string, string>> } {
+  const tuning = workerTuning(process.platform, process.env);
+  return { ...(env.workerPath ? { workerPath: env.workerPath } : {}), workerExecArgv: tuning.execArgv, workerEnv: tuning.env };
+}
+
 /** Run the command line; resolves with the exit code (0 ok, 1 some files failed, 2 usage error). */
 export async function runCli(argv: readonly string[], io: CliIo, env: CliEnv = {}): Promise<number> {
+  // Each command's module is loaded when it runs: `eggline batch` never loads the cohort report's figures or sharp.
   const COMMANDS: Record<string, (argv: readonly string[], io: CliIo) => Promise<number>> = {
-    batch: (a, o) => batchCommand(a, o, env.workerPath ? { workerPath: env.workerPath } : {}, env.cliPath),
-    cohort: (a, o) => cohortCommand([...a], o), inspect: inspectCommand, merge: mergeCommand, demo: (a, o) => demoCommand(a, o, env.workerPath),
+    batch: async (a, o) => (await import('./batch-command')).batchCommand(a, o, batchExtra(env), env.cliPath),
+    cohort: async (a, o) => (await import('./cohort-command')).cohortCommand([...a], o),
+    inspect: async (a, o) => (await import('./inspect-command')).inspectCommand(a, o),
+    merge: async (a, o) => (await import('./merge-command')).mergeCommand(a, o),
+    demo: async (a, o) => (await import('./demo-command')).demoCommand(a, o, env.workerPath),
   };
   const [first, ...rest] = argv;
   if (first === undefined || first === '--help' || first === '-h' || first === 'help') {

@@ -3,7 +3,7 @@ import { join } from 'node:path';
 import { parseFitRange } from '../../core/batch';
 import { parseTimeStepS } from '../../core/settings';
 import { parseTimeSelection } from '../../core/timelapse';
-import { DEFAULT_TIMELAPSE_OPTIONS, type MovieFailure, type MovieOutcome, type TimelapseOptions } from '../batch/timelapse-pass';
+import { DEFAULT_TIMELAPSE_OPTIONS, type MovieFailure, type MovieOutcome, type TimelapseOptions } from '../batch/timelapse-options';
 import { UsageError, type CliIo } from './usage-error';
 
 /** The time flags as given (strings, or undefined when absent). */

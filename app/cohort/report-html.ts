@@ -5,6 +5,7 @@ import { quantityLabel, slopeRatio, type CohortAnalysis, type ConditionStat } fr
 import { escapeXml, plainNumber, sigFig, valueWithCi, type NamedFigure } from '../../core/figures';
 import { flattenRecord } from './flatten-record';
 import { keySettings } from './key-settings';
+import { sidesSection } from './sides-section';
 import { dosageReading, prose, pText, r2Text, slopeVerdict, withCi } from './reading';
 
 /** Everything the report shows. */
@@ -172,6 +173,6 @@ export function cohortReportHtml(r: ReportInput): string {
     + `<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:">`
     + `<title>Eggline cohort report</title><style>${CSS}</style></head><body><h1>Eggline cohort report</h1>`
     + `<p class="note">Generated ${esc(r.generatedAt)}. Positions are x/EL (0 = anterior pole, 1 = posterior pole).</p>`
-    + summarySection(r) + `<h2 id="figures">Figures</h2>${figs}` + backgroundSection(r.analysis) + dosageSection(r.analysis) + conditionTables(r.analysis)
+    + summarySection(r) + `<h2 id="figures">Figures</h2>${figs}` + backgroundSection(r.analysis) + dosageSection(r.analysis) + sidesSection(r.analysis) + conditionTables(r.analysis)
     + (r.timelapseHtml ?? '') + failed + settingsSection(r.analysis, r.sheetSource, r.runRecord) + '</body></html>\n';
 }

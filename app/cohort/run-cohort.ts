@@ -5,7 +5,7 @@ import sharp from 'sharp';
 import { basename, join } from 'node:path';
 import { embryoResults, type EmbryoResult } from '../../core/model';
 import {
-  analyseCohort, backgroundConditionsCsv, backgroundProfileCsv, backgroundRecordJson, backgroundRefitCsv, CohortError, conditionsCsv, dosageFitCsv, positionalErrorCsv, sheetFromFilenameRule, parseSampleSheet, shiftsCsv,
+  analyseCohort, backgroundConditionsCsv, backgroundProfileCsv, backgroundRecordJson, backgroundRefitCsv, CohortError, conditionsCsv, dosageFitCsv, positionalErrorCsv, sheetFromFilenameRule, parseSampleSheet, shiftsCsv, sideDifferencesCsv,
   type CohortAnalysis, type FilenameRule, type Normalisation, type RefitSettings, type SampleSheet,
 } from '../../core/cohort';
 import { settingsFromStored } from '../../core/settings';
@@ -94,6 +94,8 @@ export async function runCohortStep(opts: CohortStepOptions): Promise<CohortStep
     ['conditions.csv', conditionsCsv(analysis)], ['shifts.csv', shiftsCsv(analysis)], ['dosage_fit.csv', dosageFitCsv(analysis)],
     ['positional_error.csv', positionalErrorCsv(analysis)], ...backgroundFiles(analysis, sheet.source), ...figures.map((f): [string, string] => [`${f.name}.svg`, f.svg]), ['report.html', html],
   ];
+  const sides = sideDifferencesCsv(analysis.sideDifferences);
+  if (sides !== null) files.splice(4, 0, ['side_differences.csv', sides]);
   try {
     await mkdir(opts.outDir, { recursive: true });
     for (const [name, text] of files) await writeFileAtomic(join(opts.outDir, name), text);

@@ -4,7 +4,8 @@ import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { newProject } from '../project';
 import { DEFAULT_SETTINGS } from '../../core/settings';
-import { DEMO_MOVIE_PARAMS } from '../../core/synth';
+import { DEMO_MOVIE_PARAMS, DEMO_MOVIE_SEED, movieFrame, planSyntheticMovie } from '../../core/synth';
+import { writeOmeTiff } from '../../core/tiff';
 import { analyseMovieFile, movieOutcomes, movieTables } from '../batch/timelapse-pass';
 import { demoMovieFile } from '../batch/write-demo';
 import { buildMovieView, frameShrinkFactor, shrinkPlane } from './movie-view';
@@ -60,5 +61,34 @@ describe('the window\'s movie analysis (a 6-frame variant of the demo movie)', (
     expect(view.detection!.axis).toEqual(view.results[0].axis);
     const perTime = await buildMovieView(path, file, own, { ...options, axisPerTime: true });
     expect(perTime.detection).toBeNull();
+  });
+});
+
+// Source: demo data — the same 4-frame movie written without any time values (no DeltaT, no TimeIncrement).
+describe('a movie whose file gives no times', () => {
+  const dir = mkdtempSync(join(tmpdir(), 'eggline-movie-view-step-'));
+  afterAll(() => rmSync(dir, { recursive: true, force: true }));
+  const file = 'untimed.ome.tif';
+  const params = { ...DEMO_MOVIE_PARAMS, frames: 4 };
+  const movie = planSyntheticMovie(params, DEMO_MOVIE_SEED);
+  const frames = Array.from(movie.timesS, (_, t) => movieFrame(movie, t));
+  const planes = frames.flatMap((f) => f.stack.planes.map((data) => ({ width: f.stack.sizeX, height: f.stack.sizeY, data })));
+  writeFileSync(join(dir, file), writeOmeTiff(planes, {
+    sizeZ: movie.embryo.sizeZ, sizeC: frames[0].channelNames.length, sizeT: 4, dimensionOrder: 'XYZCT', channelNames: frames[0].channelNames,
+    physicalSizeXUm: frames[0].pixelSizeUm, physicalSizeZUm: movie.embryo.zStepUm,
+  }));
+  const doc = { ...newProject(dir), settings: { ...DEFAULT_SETTINGS, boundaryChannels: [2] } };
+  const options = { axisPerTime: false, tauRangeEl: [0.1, 0.4] as const, baselineFrames: 1, timeStepS: null };
+
+  it('has unknown times without a time step, and the user\'s times with the file\'s own time step in the project (as --time-step)', async () => {
+    const plain = await buildMovieView(join(dir, file), file, doc, options);
+    expect(plain.timesS).toBeNull();
+    expect(plain.timeSource).toBeNull();
+    const own = { ...doc, files: { [file]: { axis: null, landmarks: [], fitRangeEl: null, timeStepS: 90 } } };
+    const stepped = await buildMovieView(join(dir, file), file, own, options);
+    expect(stepped.timesS).toEqual([0, 90, 180, 270]);
+    expect(stepped.timeSource).toBe('user');
+    const batch = await analyseMovieFile(dir, file, doc.settings, doc, { ...options, timeStepS: 90, selection: { kind: 'all' } });
+    expect(stepped.tables).toEqual(movieTables(movieOutcomes([batch!.record], batch!.results).movies));
   });
 });

@@ -5,6 +5,7 @@ import { parentPort, workerData } from 'node:worker_threads';
 import { analyseFileWithDigest } from '../batch/analyse-file';
 import { limitDecoderThreads } from '../batch/decoder-threads';
 import type { BatchTask, DemoRequest, WorkerReply } from '../batch/task';
+import { mark, markProcessStart } from '../batch/timeline';
 import { demoFile } from '../batch/write-demo';
 
 /** The two ways this worker talks to its parent. */
@@ -21,9 +22,15 @@ function processChannel(): Channel {
   if (typeof process.send !== 'function') throw new Error('batch-worker must run as a worker thread or a child process with IPC');
   // The batch went away (killed, even by SIGKILL): its IPC channel closed, so stop at once rather than run on.
   process.on('disconnect', () => process.exit(0));
+  // A terminal's Ctrl+C (and a hang-up or a SIGTERM sent to the whole process group, as job schedulers do) reaches
+  // the batch and its workers at once. The batch stops cleanly and ends its workers itself; a worker that died of
+  // the signal first would give its file an error row in the journal, which --resume would then keep.
+  for (const signal of ['SIGINT', 'SIGHUP', 'SIGTERM'] as const) process.on(signal, () => undefined);
   return { on: (l) => process.on('message', l), post: (m) => { process.send?.(m); } };
 }
 
+markProcessStart();
+mark('worker loaded');
 const channel = parentPort ? threadChannel(parentPort) : processChannel();
 const data = (parentPort ? workerData : JSON.parse(process.env.EGGLINE_WORKER_DATA ?? 'null')) as { decoderThreads?: number } | null;
 limitDecoderThreads(data?.decoderThreads ?? 1);
@@ -35,7 +42,9 @@ channel.on((msg) => {
     return;
   }
   const task = msg as BatchTask;
+  mark(`file started ${task.file}`);
   void analyseFileWithDigest(task).then(({ result, input }) => {
+    mark(`file done ${task.file}`);
     channel.post({ type: 'result', index: task.index, result, input });
     const m = process.memoryUsage();
     channel.post({ type: 'memory', rssBytes: m.rss, heapUsedBytes: m.heapUsed, externalBytes: m.external + m.arrayBuffers });

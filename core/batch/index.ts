@@ -4,7 +4,7 @@ export { parseSettingsFlags, parseFitRange, type SettingsFlags, type SettingsOve
 export { parseConfigText } from './parse-config';
 export { mergeSettings } from '../settings';
 export {
-  EMBRYO_COLUMNS, EMBRYO_MEASURE_COLUMNS, TIME_COLUMNS, BOUNDARY_COLUMNS, PROFILE_COLUMNS, LANDMARK_COLUMNS,
+  EMBRYO_COLUMNS, EMBRYO_MEASURE_COLUMNS, SIDE_COLUMNS, TIME_COLUMNS, BOUNDARY_COLUMNS, PROFILE_COLUMNS, LANDMARK_COLUMNS,
   embryoRow, embryoMeasureRow, embryoResults, embryosCsv, boundariesCsv, profilesCsv, landmarksCsv, summaryBoundary, embryoProfiles,
 } from './tables';
 export {

@@ -1,7 +1,7 @@
 // results.json: every result of a batch keyed by (file, time point) as plain JSON (typed arrays become arrays; NaN
 // becomes null), with the movies analysed per time point. Schema version 2; version 1 files (one result per file, no
 // time points) are still read, their results taken as time point 0.
-import { resultKeyOf, resultTimeIndex, withTimePoint, type EmbryoResult, type ExponentialFit, type MovieRecord, type Profile } from '../model';
+import { resultKeyOf, resultTimeIndex, withTimePoint, type EmbryoResult, type ExponentialFit, type MovieRecord, type Profile, type SidesMeasurement } from '../model';
 
 /** Schema tag written into results.json. */
 export const RESULTS_SCHEMA = 'eggline-results';
@@ -41,6 +41,21 @@ function reviveFit(f: ExponentialFit, file: string): ExponentialFit {
   return { ...f, xEl: toFloat64(f.xEl, `fit xEl of ${file}`), residuals: toFloat64(f.residuals, `fit residuals of ${file}`) };
 }
 
+/** The per-side profiles and fits of a result, typed arrays revived (null fits and difference stay null). */
+function reviveSides(sd: SidesMeasurement, file: string): SidesMeasurement {
+  return {
+    ...sd,
+    dorsalProfile: reviveProfile(sd.dorsalProfile, file), ventralProfile: reviveProfile(sd.ventralProfile, file),
+    dorsalFit: sd.dorsalFit ? reviveFit(sd.dorsalFit, file) : null, ventralFit: sd.ventralFit ? reviveFit(sd.ventralFit, file) : null,
+    difference: sd.difference ? reviveNumbers(sd.difference) : null,
+  };
+}
+
+/** A flat record of numbers (and words) from JSON: null back to NaN. */
+function reviveNumbers<T extends object>(o: T): T {
+  return Object.fromEntries(Object.entries(o).map(([k, v]) => [k, v === null ? Number.NaN : v])) as T;
+}
+
 /** JSON text of values that may hold typed arrays (as plain arrays; NaN becomes null), `space` as in JSON.stringify. */
 export function jsonWithArrays(value: unknown, space?: number): string {
   return JSON.stringify(value, (_key, v: unknown) => (ArrayBuffer.isView(v) ? Array.from(v as Float64Array) : v), space);
@@ -60,6 +75,7 @@ export function reviveResult(raw: unknown, where: string): EmbryoResult {
     gradientFit: r.gradientFit ? reviveFit(r.gradientFit, r.file) : null,
     boundaryProfiles: (r.boundaryProfiles ?? []).map((p) => reviveProfile(p, r.file)),
     boundaries: r.boundaries ?? [], landmarks: r.landmarks ?? [], backgrounds: r.backgrounds ?? [], warnings: r.warnings ?? [],
+    ...(r.sides ? { sides: reviveSides(r.sides, r.file) } : {}),
   };
 }
 

@@ -3,7 +3,7 @@ import type { EmbryoResult, Profile } from '../model';
 import { parseCsv } from '../csv';
 import { errorResult, withTimePoint } from '../model';
 import { jsonWithArrays, resultsDocFromJson, resultsFromJson, resultsToJson } from './results-json';
-import { boundariesCsv, embryoResults, embryosCsv, EMBRYO_COLUMNS, landmarksCsv, profilesCsv, summaryBoundary } from './tables';
+import { boundariesCsv, embryoResults, embryosCsv, EMBRYO_COLUMNS, landmarksCsv, profilesCsv, SIDE_COLUMNS, summaryBoundary } from './tables';
 
 // Source: demo data (a hand-built result; every expected cell is copied from it).
 const profile = (channel: string, mean: number[]): Profile => ({
@@ -51,6 +51,29 @@ describe('output tables', () => {
     // A file with one time point: t_index 0, t_s empty (its time unknown), as the last two columns.
     expect(EMBRYO_COLUMNS.slice(-2)).toEqual(['t_index', 't_s']);
     expect([row.t_index, row.t_s]).toEqual(['0', '']);
+  });
+  it('embryos.csv carries each side\'s λ and their difference before the time columns, empty when not measured', () => {
+    // Demo data: invented numbers, checked cell by cell.
+    const difference = {
+      lambdaUm: 20, lambdaEl: 0.04, seUm: 4, seEl: 0.008, ciLowUm: 12, ciHighUm: 28, ciLowEl: 0.024, ciHighEl: 0.056,
+      seModelEl: 0.008, seSerialEl: 0.006, seSource: 'model' as const, sideCorrelation: 0.3, dof: 40,
+    };
+    const withSides = { ...ok, sides: { dorsalProfile: ok.gradientProfile!, ventralProfile: ok.gradientProfile!, dorsalFit: ok.gradientFit, ventralFit: null, difference } };
+    const rows = parseCsv(embryosCsv([withSides, { ...ok, file: 'other.tif' }]));
+    const row = Object.fromEntries(EMBRYO_COLUMNS.map((c, i) => [c, rows[1][i]]));
+    expect(row).toMatchObject({
+      lambda_dorsal_um: '100', lambda_dorsal_el: '0.2', lambda_ventral_um: '', lambda_ventral_ci_high_um: '',
+      lambda_dorsal_minus_ventral_um: '20', lambda_dorsal_minus_ventral_se_el: '0.008', lambda_dorsal_minus_ventral_ci_low_um: '12',
+      lambda_dorsal_minus_ventral_ci_high_el: '0.056', lambda_dorsal_minus_ventral_se_source: 'model', side_error_correlation: '0.3', t_index: '0',
+    });
+    expect(EMBRYO_COLUMNS.indexOf('side_error_correlation')).toBe(EMBRYO_COLUMNS.length - 3);
+    const plain = Object.fromEntries(EMBRYO_COLUMNS.map((c, i) => [c, rows[2][i]]));
+    expect(SIDE_COLUMNS.every((c) => plain[c] === '')).toBe(true);
+    // results.json keeps them (typed arrays and NaN revived) and leaves them out when not measured.
+    const back = resultsFromJson(resultsToJson([withSides, { ...ok, file: 'other.tif' }]));
+    expect(back[0].sides?.difference).toEqual(difference);
+    expect(back[0].sides?.dorsalProfile.mean).toBeInstanceOf(Float64Array);
+    expect('sides' in back[1]).toBe(false);
   });
   it('summary boundary is the first channel, logistic preferred', () => {
     expect(summaryBoundary(ok)?.positionEl).toBe(0.5);

@@ -2,7 +2,7 @@
 // time point): t_index and t_s are the last two columns of embryos.csv, boundaries.csv and profiles.csv (appended, so
 // that readers of the older tables by position keep working); t_index is 0 and t_s the file's time (often empty) for a
 // file with one time point.
-import { embryoResults, resultTimeIndex, type Boundary, type EmbryoResult, type Profile } from '../model';
+import { embryoResults, resultTimeIndex, type Boundary, type EmbryoResult, type ExponentialFit, type Profile } from '../model';
 
 export { embryoResults };
 import { toCsv, type CsvValue } from '../csv';
@@ -18,11 +18,21 @@ export const EMBRYO_MEASURE_COLUMNS = [
   'fit_start_el', 'fit_end_el', 'boundary_el', 'boundary_width_el', 'boundary_width_10_90_el',
 ] as const;
 
+/** embryos.csv's columns of each side measured on its own (--edge-side each; empty otherwise): each side's λ, and the
+ *  paired difference dorsal − ventral with its SE, 95% interval, which SE was used and the sides' error correlation. */
+export const SIDE_COLUMNS = [
+  'lambda_dorsal_um', 'lambda_dorsal_el', 'lambda_dorsal_se_um', 'lambda_dorsal_ci_low_um', 'lambda_dorsal_ci_high_um',
+  'lambda_ventral_um', 'lambda_ventral_el', 'lambda_ventral_se_um', 'lambda_ventral_ci_low_um', 'lambda_ventral_ci_high_um',
+  'lambda_dorsal_minus_ventral_um', 'lambda_dorsal_minus_ventral_el', 'lambda_dorsal_minus_ventral_se_um', 'lambda_dorsal_minus_ventral_se_el',
+  'lambda_dorsal_minus_ventral_ci_low_um', 'lambda_dorsal_minus_ventral_ci_high_um', 'lambda_dorsal_minus_ventral_ci_low_el', 'lambda_dorsal_minus_ventral_ci_high_el',
+  'lambda_dorsal_minus_ventral_se_source', 'side_error_correlation',
+] as const;
+
 /** The key columns added to the per-result tables: time point (0-based) and its time in s (empty when unknown). */
 export const TIME_COLUMNS = ['t_index', 't_s'] as const;
 
 /** Columns of embryos.csv, one row per input file (a movie's: its last analysed time point). */
-export const EMBRYO_COLUMNS = [...EMBRYO_MEASURE_COLUMNS, ...TIME_COLUMNS] as const;
+export const EMBRYO_COLUMNS = [...EMBRYO_MEASURE_COLUMNS, ...SIDE_COLUMNS, ...TIME_COLUMNS] as const;
 
 /** Columns of boundaries.csv, one row per file × time point × channel × method. */
 export const BOUNDARY_COLUMNS = [
@@ -50,7 +60,18 @@ export function summaryBoundary(result: EmbryoResult): Boundary | null {
 
 /** One embryos.csv row (cells in EMBRYO_COLUMNS order). */
 export function embryoRow(r: EmbryoResult): CsvValue[] {
-  return [...embryoMeasureRow(r), ...timeCells(r)];
+  return [...embryoMeasureRow(r), ...sideCells(r), ...timeCells(r)];
+}
+
+/** The SIDE_COLUMNS cells of a result (all empty when the sides were not measured apart). */
+export function sideCells(r: EmbryoResult): CsvValue[] {
+  const s = r.sides;
+  const fitCells = (f: ExponentialFit | null | undefined): CsvValue[] => [f?.lambdaUm, f?.lambdaEl, f?.lambdaSeUm, f?.lambdaCiLowUm, f?.lambdaCiHighUm];
+  const d = s?.difference;
+  return [
+    ...fitCells(s?.dorsalFit), ...fitCells(s?.ventralFit),
+    d?.lambdaUm, d?.lambdaEl, d?.seUm, d?.seEl, d?.ciLowUm, d?.ciHighUm, d?.ciLowEl, d?.ciHighEl, d?.seSource, d?.sideCorrelation,
+  ];
 }
 
 /** The measurement cells of one result (EMBRYO_MEASURE_COLUMNS order). */

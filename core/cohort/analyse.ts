@@ -11,6 +11,7 @@ import { conditionProfile } from './profiles';
 import type { CohortAnalysis, CohortAssignment, CohortOptions, ConditionProfile, Observation, ResolvedCohortOptions, SampleSheet } from '../model';
 import { positionQuantities, referenceLambda, shiftRows } from './dosage-test';
 import { meanOf } from './stats-local';
+import { sideDifferences } from './sides';
 import { applyBackgroundCondition, splitBackgroundCondition } from './background-condition';
 import type { RefitSettings } from './background-refit';
 import { CohortError } from './cohort-error';
@@ -66,6 +67,9 @@ export function analyseCohort(keyed: readonly EmbryoResult[], fullSheet: SampleS
     const l = local.get(s.quantity);
     return { ...s, predictedLocalShiftEl: l !== undefined && s.lnF !== null ? l.lambdaEl * s.lnF : null };
   });
+  if (background !== null && observations.some((o) => o.kind === 'side-difference')) {
+    warnings.push('the dorsal − ventral differences of λ are those of the batch: the background condition\'s profile was not subtracted from each side');
+  }
   const profiles: ConditionProfile[] = [];
   for (const g of assignment.groups) {
     const r = conditionProfile(g.embryos, g.condition, opts);
@@ -77,6 +81,7 @@ export function analyseCohort(keyed: readonly EmbryoResult[], fullSheet: SampleS
     reliability: conditionReliability(assignment.groups, observations),
     fitRanges: fitRangesUsed(assignment.groups.flatMap((g) => g.embryos)),
     sheetColumns: [...new Set(sheet.rows.flatMap((r) => Object.keys(r.extra)))], profiles, warnings,
+    sideDifferences: sideDifferences(observations, conditions, opts.level),
     ...(background !== null ? { backgroundCondition: background } : {}) };
 }
 

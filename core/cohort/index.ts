@@ -26,4 +26,5 @@ export { refitEmbryo, subtractProfile, refitWindowOf, type RefitSettings } from 
 export { conditionsCsv, shiftsCsv, dosageFitCsv, positionalErrorCsv } from './tables';
 export { makeDemoCohort, type DemoCohortSpec } from './demo-cohort';
 export { conditionReliability, fitRangesUsed, lambdaPositionCorrelation, LAMBDA_RELATIVE_SE_LIMIT } from './reliability';
-export type { ConditionReliability, FitRangeUse } from '../model';
+export type { ConditionReliability, FitRangeUse, SideDifferenceRow } from '../model';
+export { SIDE_DIFFERENCE_QUANTITY, SIDE_DIFFERENCE_COLUMNS, sideObservations, sideDifferences, sideDifferencesCsv } from './sides';

@@ -1,6 +1,7 @@
 // Per-embryo quantities: λ (µm, EL), amplitude, egg length, each boundary (channel × method) and landmark (EL, µm).
 import { notDecayingReasons } from '../stats';
 import type { EmbryoResult } from '../model';
+import { SIDE_DIFFERENCE_QUANTITY, sideObservations } from './sides';
 import type { ConditionInfo, Observation, QuantityKind, QuantityUnit } from '../model';
 
 // Quantity keys (the `quantity` column of the CSV files) are machine-friendly: `lambda`, `amplitude`, `egg_length`,
@@ -24,6 +25,7 @@ export function quantityLabel(quantity: string): string {
   if (quantity === 'lambda') return 'decay length λ';
   if (quantity === EGG_LENGTH_QUANTITY) return 'egg length';
   if (quantity === 'amplitude') return 'amplitude A';
+  if (quantity === SIDE_DIFFERENCE_QUANTITY) return 'λ dorsal − ventral';
   if (quantity.startsWith('landmark:')) return `landmark ‘${quantity.slice('landmark:'.length)}’`;
   const last = quantity.lastIndexOf(':');
   if (quantity.startsWith('boundary:') && last > 'boundary:'.length - 1) {
@@ -66,6 +68,7 @@ export function observationsOf(result: EmbryoResult, condition: ConditionInfo): 
     add(q, 'landmark', 'EL', l.xEl);
     add(q, 'landmark', 'um', l.xUm);
   }
+  out.push(...sideObservations(result, condition.name, lnF));
   return out;
 }
 

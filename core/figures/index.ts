@@ -2,7 +2,7 @@
 // HTML report and by the desktop app alike.
 export type { FigureOptions } from './common';
 export { escapeXml, FONT_FAMILY } from './svg';
-export { SERIES_COLOURS, seriesColour, PROFILE_COLOURS, BOUNDARY_COLOURS, boundaryColour, TIME_MARKER_COLOUR } from './palette';
+export { SERIES_COLOURS, seriesColour, PROFILE_COLOURS, SIDE_COLOURS, BOUNDARY_COLOURS, boundaryColour, TIME_MARKER_COLOUR } from './palette';
 export { profileFigure, type ProfileFigureInput, type ProfileFigureOptions } from './profile-figure';
 export { cohortProfilesFigure, type ProfileSeries } from './cohort-profiles-figure';
 export { lambdaByConditionFigure, type StripGroup } from './lambda-figure';

@@ -15,6 +15,10 @@ export const INK = { axis: '#333333', grid: '#e3e3e3', muted: '#777777', shade: 
  *  read on the window's dark background and on white paper alike). */
 export const PROFILE_COLOURS = { data: '#56B4E9', fit: '#E69F00' } as const;
 
+/** Colours of the dorsal and the ventral side's own profiles and fits (--edge-side each), apart from the pooled
+ *  profile's blue and orange; drawn thin and dashed so they do not read as boundary channels. */
+export const SIDE_COLOURS = { dorsal: '#009E73', ventral: '#CC79A7' } as const;
+
 /** Boundary colours by the channel's place among the boundary channels (kept apart from the fit's orange). */
 export const BOUNDARY_COLOURS: readonly string[] = ['#CC79A7', '#009E73', '#D55E00'];
 

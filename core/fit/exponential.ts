@@ -112,7 +112,7 @@ export function fitExponentialDecay(xUm: Float64Array, y: Float64Array, options:
 }
 
 /** Degrees of freedom n·(1 − ρ)/(1 + ρ) − p for ρ > 0 (n − p otherwise), at least 1. */
-function effectiveDof(n: number, rho: number, p: number): number {
+export function effectiveDof(n: number, rho: number, p: number): number {
   const nEff = rho > 0 ? (n * (1 - rho)) / (1 + rho) : n;
   return Math.max(1, nEff - p);
 }

@@ -12,3 +12,5 @@ export type { LogisticBoundary, LogisticOptions } from './logistic-boundary';
 export { halfMaxCrossing, thresholdCrossing } from './crossing';
 export type { CrossingOptions, CrossingResult, Threshold } from './crossing';
 export { findBoundaries } from './boundary';
+export { decayLengthDifference } from './paired-difference';
+export type { SideFit } from './paired-difference';

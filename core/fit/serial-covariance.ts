@@ -42,7 +42,7 @@ export function lag1Correlation(u: ArrayLike<number>): number {
 }
 
 /** Σ_ab X_ab·ρ^|a−b| for a symmetric n × n matrix X. */
-function traceWithAr1(x: Float64Array, n: number, rho: number): number {
+export function traceWithAr1(x: Float64Array, n: number, rho: number): number {
   let s = 0;
   for (let a = 0; a < n; a++) {
     let p = 1;

@@ -108,20 +108,23 @@ function slideColumns(ring: Float32Array, add: number, sub: number, dst: Float32
 
 /**
  * Approximately Gaussian-smoothed copy (three box passes in x and in y; same size; edges replicated). The first
- * pass reads the input directly (no copy of it); later passes work in place in the output.
+ * pass reads the input directly (no copy of it); later passes work in place in the output. `out` (optional, at
+ * least width × height long, not the input's own array) receives the result instead of a new array, so a caller
+ * smoothing several planes in turn can reuse one buffer; the returned plane's data is then a view of it.
  */
-export function fastGaussianSmooth(plane: Plane, sigmaPx: number): Plane {
+export function fastGaussianSmooth(plane: Plane, sigmaPx: number, out?: Float32Array): Plane {
   const { width, height } = plane;
   const widths = boxWidthsForSigma(sigmaPx);
   let cur = plane.data;
-  const out = new Float32Array(width * height);
+  const dst = out ? out.subarray(0, width * height) : new Float32Array(width * height);
   const ring = new Float32Array(Math.min(2 * ((Math.max(...widths) - 1) >> 1) + 2, height) * width);
   const sums = new Float64Array(width);
   for (const w of widths) {
     const r = (w - 1) >> 1;
     if (r === 0) continue;
-    boxPass(cur, ring, out, width, height, r, sums);
-    cur = out;
+    boxPass(cur, ring, dst, width, height, r, sums);
+    cur = dst;
   }
-  return { width, height, data: cur === out ? out : Float32Array.from(cur) };
+  if (cur !== dst) dst.set(cur);
+  return { width, height, data: dst };
 }

@@ -157,15 +157,16 @@ export function maxFilter(plane: Plane, radiusPx: number): Plane {
 /**
  * Maximum over the (2·radiusPx+1)-pixel window of each row centred on each pixel (clipped at the row ends): the
  * row pass of maxFilter alone, for callers that need the square maximum at a few pixels only (the maximum over a
- * square is the maximum of the row maxima of its rows).
+ * square is the maximum of the row maxima of its rows). `into` (optional, at least width × height long, not the
+ * input's own array) receives them instead of a new array; the result is then a view of it.
  */
-export function rowMaxima(plane: Plane, radiusPx: number): Float32Array {
+export function rowMaxima(plane: Plane, radiusPx: number, into?: Float32Array): Float32Array {
   const { width, height } = plane;
-  const out = new Float32Array(width * height);
+  const out = into ? into.subarray(0, width * height) : new Float32Array(width * height);
   if (out.length === 0) return out;
   const r = Math.min(Math.max(0, Math.round(radiusPx)), width - 1);
   const bits = new Int32Array(plane.data.buffer, plane.data.byteOffset, width * height);
-  const outBits = new Int32Array(out.buffer);
+  const outBits = new Int32Array(out.buffer, out.byteOffset, width * height);
   const line = { pad: new Int32Array(width + 2 * r).fill(BELOW_ALL), g: new Int32Array(width + 2 * r), h: new Int32Array(width + 2 * r) };
   for (let y = 0; y < height; y++) {
     maxRow(bits, y * width, width, r, outBits, y * width, line);

@@ -11,7 +11,8 @@ import { largestComponent } from './components';
 import { fillHoles } from './fill-holes';
 import { maxFilter } from './max-filter';
 import { open, squareDilate, squareErode } from './morphology';
-import { checkSegmentOptions, combinedSnr, downsample2, segmentEmbryo, type SegmentOptions } from './segment';
+import { binMean, checkSegmentOptions, combinedSnr, downsample2, segmentEmbryo, type SegmentOptions } from './segment';
+import { rowMaxima } from './max-filter';
 import { otsuThreshold } from './threshold';
 
 /** Reference: one channel smoothed, minus its background level, divided by its noise SD, as a Float32 plane. */
@@ -106,6 +107,41 @@ describe('segmentEmbryo against the plain full-image reference', () => {
     const b = { width: 37, height: 23, data: Float32Array.from({ length: 37 * 23 }, (_, i) => (i % 97 === 5 ? NaN : 50 + 300 * rng.uniform())) };
     for (const channels of [[a], [a, b], [b, a]]) {
       expect(Array.from(combinedSnr(channels, 1.7).data)).toEqual(Array.from(refCombinedSnr(channels, 1.7).data));
+    }
+  });
+});
+
+/** Reference: f×f block means through a float64 plane of sums, each row added into its blocks in turn. */
+function refBinMean(plane: Plane, f: number): Plane {
+  const { width, height, data } = plane;
+  const w = Math.ceil(width / f);
+  const h = Math.ceil(height / f);
+  const sum = new Float64Array(w * h);
+  for (let y = 0; y < height; y++) for (let x = 0; x < width; x++) sum[Math.floor(y / f) * w + Math.floor(x / f)] += data[y * width + x];
+  const out = new Float32Array(w * h);
+  for (let by = 0; by < h; by++) {
+    for (let bx = 0; bx < w; bx++) out[by * w + bx] = sum[by * w + bx] / (Math.min(f, height - by * f) * Math.min(f, width - bx * f));
+  }
+  return { width: w, height: h, data: out };
+}
+
+describe('binMean and the reusable buffers against plain versions', () => {
+  it('binMean gives the reference block means bit for bit (f = 1..4, odd and even sizes; random data)', () => {
+    const rng = createRng(9);
+    for (const [w, h] of [[7, 5], [8, 6], [33, 17], [1, 3]]) {
+      const p = { width: w, height: h, data: Float32Array.from({ length: w * h }, () => 1000 * rng.normal()) };
+      for (const f of [1, 2, 3, 4]) expect(Array.from(binMean(p, f).data), `${w}×${h} f=${f}`).toEqual(Array.from(refBinMean(p, f).data));
+    }
+  });
+
+  it('smoothing and row maxima written into a larger reused buffer equal fresh results (random data)', () => {
+    const rng = createRng(10);
+    const buffer = new Float32Array(40 * 30).fill(7);
+    for (const [w, h] of [[31, 22], [12, 9]]) {
+      const p = { width: w, height: h, data: Float32Array.from({ length: w * h }, () => rng.normal()) };
+      expect(Array.from(fastGaussianSmooth(p, 1.5, buffer).data)).toEqual(Array.from(fastGaussianSmooth(p, 1.5).data));
+      expect(Array.from(fastGaussianSmooth(p, 0.3, buffer).data)).toEqual(Array.from(fastGaussianSmooth(p, 0.3).data));
+      expect(Array.from(rowMaxima(p, 3, buffer))).toEqual(Array.from(rowMaxima(p, 3)));
     }
   });
 });

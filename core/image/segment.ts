@@ -61,8 +61,10 @@ export function channelSnr(channel: Plane, sigmaPx: number): Plane {
 export function combinedSnr(channels: readonly Plane[], sigmaPx: number): Plane {
   const { width, height } = channels[0];
   const out = new Float32Array(width * height).fill(-Infinity);
+  // One smoothing buffer serves every channel in turn.
+  const buffer = new Float32Array(width * height);
   for (const ch of channels) {
-    const s = fastGaussianSmooth(ch, sigmaPx).data;
+    const s = fastGaussianSmooth(ch, sigmaPx, buffer).data;
     const bg = estimateBackgroundLevel(s);
     maxScaled(s, bg.level, bg.noiseSd, out);
   }
@@ -133,27 +135,42 @@ function coarseAtScale(channels: readonly Plane[], sigmaPx: number, factor: 1 | 
  * monotone), so it is taken on the smoothed values: the maximum of the row maxima (rowMaxima) of the window's rows.
  * Only the pixels where the rule decides anything are listed, so no full-image maximum filter is needed.
  */
-function nearLocalLevelAt(channels: readonly Plane[], at: Int32Array, o: Required<SegmentOptions>): Uint8Array {
-  const { width, height } = channels[0];
+function nearLocalLevelAt(channels: readonly Plane[], at: Int32Array, o: Required<SegmentOptions>, box: PixelBox | null = null): Uint8Array {
+  const width = box ? box.x1 - box.x0 : channels[0].width;
+  const height = box ? box.y1 - box.y0 : channels[0].height;
   const keep = new Uint8Array(width * height);
   const r = Math.max(0, Math.round(o.localRadiusPx));
-  for (const ch of channels) {
-    const smooth = fastGaussianSmooth(ch, o.fineSigmaPx);
-    const s = smooth.data;
-    const rows = rowMaxima(smooth, r);
-    const bg = estimateBackgroundLevel(s);
-    for (let k = 0; k < at.length; k++) {
-      const i = at[k];
-      const y = (i / width) | 0;
-      const x = i - y * width;
-      const local = columnMax(rows, width, x, Math.max(0, y - r), Math.min(height - 1, y + r));
-      // Rounded to Float32 as channelSnr's output plane stores them.
-      const fine = Math.fround((s[i] - bg.level) / bg.noiseSd);
-      const localFine = Math.fround((local - bg.level) / bg.noiseSd);
-      if (fine >= Math.max(3, o.edgeFraction * localFine)) keep[i] = 1;
-    }
+  // One buffer each for the crop, the smoothed plane and its row maxima serves every channel in turn.
+  const crop = box ? new Float32Array(width * height) : null;
+  const smoothed = new Float32Array(width * height);
+  const rowMax = new Float32Array(width * height);
+  for (const channel of channels) {
+    const ch = box && crop ? cropPlane(channel, box, crop) : channel;
+    const smooth = fastGaussianSmooth(ch, o.fineSigmaPx, smoothed);
+    const rows = rowMaxima(smooth, r, rowMax);
+    const bg = estimateBackgroundLevel(smooth.data);
+    edgeRuleAt(smooth.data, rows, width, height, r, at, bg.level, bg.noiseSd, o.edgeFraction, keep);
   }
   return keep;
+}
+
+/**
+ * keep[i] = 1 for the pixels i of `at` where the noise-scaled smoothed value s is at least edgeFraction of the
+ * noise-scaled maximum of the (2r + 1)² window (from the row maxima `rows`) and above 3 noise SDs. Pixels already
+ * kept (by an earlier channel) are not evaluated again: a channel can only add pixels.
+ */
+function edgeRuleAt(s: Float32Array, rows: Float32Array, width: number, height: number, r: number, at: Int32Array, level: number, noiseSd: number, edgeFraction: number, keep: Uint8Array): void {
+  for (let k = 0; k < at.length; k++) {
+    const i = at[k];
+    if (keep[i]) continue;
+    const y = (i / width) | 0;
+    const x = i - y * width;
+    const local = columnMax(rows, width, x, Math.max(0, y - r), Math.min(height - 1, y + r));
+    // Rounded to Float32 as channelSnr's output plane stores them.
+    const fine = Math.fround((s[i] - level) / noiseSd);
+    const localFine = Math.fround((local - level) / noiseSd);
+    if (fine >= Math.max(3, edgeFraction * localFine)) keep[i] = 1;
+  }
 }
 
 /** Maximum of values in column x over rows y0..y1 (inclusive) of a row-major image `width` wide. */
@@ -163,10 +180,10 @@ function columnMax(values: Float32Array, width: number, x: number, y0: number, y
   return m;
 }
 
-/** The part of a plane inside box, as a plane of its own. */
-function cropPlane(plane: Plane, box: PixelBox): Plane {
+/** The part of a plane inside box, as a plane of its own (in `into`, at least the box's size). */
+function cropPlane(plane: Plane, box: PixelBox, into: Float32Array): Plane {
   const cw = box.x1 - box.x0;
-  const data = new Float32Array(cw * (box.y1 - box.y0));
+  const data = into.subarray(0, cw * (box.y1 - box.y0));
   for (let y = box.y0; y < box.y1; y++) data.set(plane.data.subarray(y * plane.width + box.x0, y * plane.width + box.x1), (y - box.y0) * cw);
   return { width: cw, height: box.y1 - box.y0, data };
 }
@@ -199,34 +216,54 @@ const REFINE_RING_PX = 32;
 /** Long side (px) that automatic binning aims at: large enough for the outline, small enough to be quick. */
 const BINNED_LONG_SIDE_PX = 384;
 
-/** Mean of f×f blocks (x = column, y = row); blocks cut by the right or bottom edge average the pixels they hold. */
+/**
+ * Mean of f×f blocks (x = column, y = row); blocks cut by the right or bottom edge average the pixels they hold.
+ * Each block's sum runs in float64 from 0, row by row and left to right within a row.
+ */
 export function binMean(plane: Plane, f: number): Plane {
   const { width, height, data } = plane;
   const w = Math.ceil(width / f);
   const h = Math.ceil(height / f);
-  const sum = new Float64Array(w * h);
-  const fullBlocks = Math.floor(width / f);
-  for (let y = 0; y < height; y++) {
-    const o = y * width;
-    const ob = Math.floor(y / f) * w;
-    // Same order of additions as pixel by pixel; the loop over whole blocks needs no per-pixel test.
-    for (let bx = 0; bx < fullBlocks; bx++) {
-      let acc = sum[ob + bx];
-      for (let x = o + bx * f, end = x + f; x < end; x++) acc += data[x];
-      sum[ob + bx] = acc;
-    }
-    if (fullBlocks < w) {
-      let acc = sum[ob + fullBlocks];
-      for (let x = o + fullBlocks * f; x < o + width; x++) acc += data[x];
-      sum[ob + fullBlocks] = acc;
-    }
-  }
   const out = new Float32Array(w * h);
   for (let by = 0; by < h; by++) {
-    const rows = Math.min(f, height - by * f);
-    for (let bx = 0; bx < w; bx++) out[by * w + bx] = sum[by * w + bx] / (rows * Math.min(f, width - bx * f));
+    const y0 = by * f;
+    const rows = Math.min(f, height - y0);
+    if (f === 2 && rows === 2) binRowPairs(data, y0 * width, width, out, by * w);
+    else binBlockRow(data, width, y0, rows, f, out, by * w, w);
   }
   return { width: w, height: h, data: out };
+}
+
+/** One row of f×f block means (rows image rows from y0; the last block may be narrower), into out[o..o + w). */
+function binBlockRow(data: Float32Array, width: number, y0: number, rows: number, f: number, out: Float32Array, o: number, w: number): void {
+  for (let bx = 0; bx < w; bx++) {
+    const x0 = bx * f;
+    const x1 = Math.min(width, x0 + f);
+    let acc = 0;
+    for (let y = y0; y < y0 + rows; y++) for (let i = y * width + x0, end = y * width + x1; i < end; i++) acc += data[i];
+    out[o + bx] = acc / (rows * (x1 - x0));
+  }
+}
+
+/** binBlockRow for f = 2 and two whole rows (at data[r]): the same additions in the same order, written out. */
+function binRowPairs(data: Float32Array, r: number, width: number, out: Float32Array, o: number): void {
+  const below = r + width;
+  const pairs = width >> 1;
+  for (let bx = 0; bx < pairs; bx++) {
+    const x = 2 * bx;
+    let acc = 0;
+    acc += data[r + x];
+    acc += data[r + x + 1];
+    acc += data[below + x];
+    acc += data[below + x + 1];
+    out[o + bx] = acc / 4;
+  }
+  if (width & 1) {
+    let acc = 0;
+    acc += data[r + width - 1];
+    acc += data[below + width - 1];
+    out[o + pairs] = acc / 2;
+  }
 }
 
 /**
@@ -370,7 +407,7 @@ function refineEdge(up: Float32Array, channels: readonly Plane[], o: Required<Se
       if (u > 0 && u < 1) at[k++] = y * cw + x;
     }
   }
-  const keep = nearLocalLevelAt(channels.map((c) => cropPlane(c, box)), at, o);
+  const keep = nearLocalLevelAt(channels, at, o, box);
   for (let k = 0; k < at.length; k++) crop[at[k]] = keep[at[k]];
   const clean = fillHoles(largestComponent(open({ width: cw, height: ch, data: crop }, 1.5))).data;
   for (let y = 0; y < ch; y++) out.set(clean.subarray(y * cw, (y + 1) * cw), (y + box.y0) * width + box.x0);

@@ -24,7 +24,7 @@ export type Normalisation = 'none' | 'amplitude' | 'minmax' | 'scale-offset';
 export type QuantityUnit = 'EL' | 'um' | 'a.u.';
 
 /** What a quantity measures; boundaries and landmarks are positions that enter the dosage test. */
-export type QuantityKind = 'lambda' | 'amplitude' | 'egg-length' | 'boundary' | 'landmark';
+export type QuantityKind = 'lambda' | 'amplitude' | 'egg-length' | 'boundary' | 'landmark' | 'side-difference';
 
 /** One row of a sample sheet. */
 export interface SampleRow {
@@ -282,6 +282,33 @@ export interface CohortAnalysis {
   /** Present only when a background condition was subtracted: then every λ, amplitude and boundary above is the
    *  refitted, background-subtracted value (see BackgroundConditionRecord). */
   readonly backgroundCondition?: BackgroundConditionRecord;
+  /** Per condition, the mean paired difference λ_dorsal − λ_ventral of embryos measured on each side (--edge-side
+   *  each); empty or absent when none was. */
+  readonly sideDifferences?: readonly SideDifferenceRow[];
+}
+
+/**
+ * One condition's mean of its embryos' paired differences λ_dorsal − λ_ventral: the t interval from the spread between
+ * embryos, and the one-sample t test of a zero mean with its Holm adjustment across conditions.
+ */
+export interface SideDifferenceRow {
+  readonly condition: string;
+  readonly dosage: number | null;
+  /** Embryos with a difference (both sides' fits decaying). */
+  readonly n: number;
+  readonly meanEl: number;
+  readonly sdEl: number;
+  readonly semEl: number;
+  readonly ciLowEl: number;
+  readonly ciHighEl: number;
+  /** The same in µm (embryos with a pixel size; NaN when none). */
+  readonly nUm: number;
+  readonly meanUm: number;
+  readonly ciLowUm: number;
+  readonly ciHighUm: number;
+  /** Two-sided p of mean = 0 (t test on n − 1 dof; NaN for n < 2) and Holm's adjustment over the conditions. */
+  readonly p: number;
+  readonly pHolm: number;
 }
 
 /** The mean profile of one channel over the background condition's embryos, on the batch's x/EL bins. */

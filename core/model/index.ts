@@ -154,6 +154,45 @@ export interface ExponentialFit {
   readonly residuals: Float64Array;
 }
 
+/**
+ * The paired difference of the decay lengths of one embryo's two sides, λ_dorsal − λ_ventral. Its standard error
+ * allows for errors that are correlated between the two sides at the same position (shared axis, staining and
+ * blur): the covariance of the two fits comes from their sandwich with the sides' cross-covariance estimated from
+ * the residuals at shared positions (see README, "Both sides measured").
+ */
+export interface DecayLengthDifference {
+  /** λ_dorsal − λ_ventral in µm (NaN when the pixel size is unknown) and as a fraction of egg length. */
+  readonly lambdaUm: number;
+  readonly lambdaEl: number;
+  readonly seUm: number;
+  readonly seEl: number;
+  /** 95% t interval (µm: NaN without a pixel size). */
+  readonly ciLowUm: number;
+  readonly ciHighUm: number;
+  readonly ciLowEl: number;
+  readonly ciHighEl: number;
+  /** SE (EL) with errors independent between bins, and allowing first-order autoregressive errors (NaN if not computable). */
+  readonly seModelEl: number;
+  readonly seSerialEl: number;
+  /** Which of the two gave seEl and the interval (the wider). */
+  readonly seSource: 'model' | 'serial';
+  /** Estimated correlation of the two sides' errors at the same position (of the estimate that was used). */
+  readonly sideCorrelation: number;
+  /** Degrees of freedom of the t quantile (the smaller side's). */
+  readonly dof: number;
+}
+
+/** Each side of the edge band profiled and fitted on its own, and the paired difference of their decay lengths. */
+export interface SidesMeasurement {
+  readonly dorsalProfile: Profile;
+  readonly ventralProfile: Profile;
+  /** null when that side's fit failed (the warnings say why). */
+  readonly dorsalFit: ExponentialFit | null;
+  readonly ventralFit: ExponentialFit | null;
+  /** null when either fit failed or the difference's SE could not be computed. */
+  readonly difference: DecayLengthDifference | null;
+}
+
 /** Boundary-finding methods. */
 export type BoundaryMethod = 'logistic' | 'half-max' | 'threshold';
 
@@ -226,6 +265,8 @@ export interface EmbryoResult {
   readonly boundaries: readonly Boundary[];
   readonly landmarks: readonly LandmarkPosition[];
   readonly backgrounds: readonly BackgroundEstimate[];
+  /** Each side measured on its own with the paired difference (edge band, --edge-side each); absent otherwise. */
+  readonly sides?: SidesMeasurement;
 }
 
 /**

@@ -79,6 +79,7 @@ async function analyseOneTimePoint(info: StackInfo, source: PlaneSource, setting
       eggLengthUm: m.eggLengthUm, eggWidthUm: px !== null ? detection.eggWidthUm : null, axis,
       gradientChannel: m.gradientChannel, gradientProfile: m.gradientProfile, gradientFit: m.gradientFit,
       boundaryProfiles: m.boundaryProfiles, boundaries: m.boundaries, landmarks: m.landmarks, backgrounds: m.backgrounds,
+      ...(m.sides ? { sides: m.sides } : {}),
     };
   } catch (e) {
     return errorResult(file, e instanceof Error ? e.message : String(e));

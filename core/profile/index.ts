@@ -4,11 +4,13 @@ export { prepareSampling, samplingBase, samplingWithin } from './prepare';
 export {
   PROFILE_SAMPLERS, samplerFor, EDGE_BAND, AXIS_STRIP, edgeSideFilter, edgeDepthPx, stripHalfWidthPx, rowsWhere, straightViewHalfWidthPx,
 } from './samplers';
-export type { PreparedSampling, PixelSet, ProfileSampler, SampledRegion, SamplingBase, MaskBox } from './samplers';
+export type { PreparedSampling, PixelSet, ProfileSampler, SampledRegion, SamplingBase, MaskBox, SideBins } from './samplers';
 export {
   measureEmbryo, sampleProfiles, fitSampledProfiles, filledBins, binsWithin, fitProfile, binWeights, polesOutsideWarnings, poleSlackPx, boundaryWindowOf,
 } from './measure';
 export type { Measurement, SampledProfiles } from './measure';
+export { measureSides } from './sides';
+export type { SideProfiles } from './sides';
 export { binIndices, binProfile } from './bin';
 export type { SideFilter } from './bin';
 export { estimateBackgrounds, outsideBackground, regionMean } from './background';

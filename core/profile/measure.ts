@@ -7,8 +7,9 @@ import { axisLengthPx, distanceOutsideMaskPx, projectPointOntoAxis } from '../ge
 import { findBoundaries, fitExponentialDecay } from '../fit';
 import { notDecayingWarning } from '../stats';
 import type { PreparedSampling } from './samplers';
-import { groupByBin, groupedProfile, type BinGroups } from './bin';
+import { binProfile, groupByBin, groupedProfile, type BinGroups } from './bin';
 import { checkSamplingSettings } from './check-settings';
+import { measureSides, type SideProfiles } from './sides';
 
 /**
  * Everything measured along one axis: the measurement fields of an EmbryoResult. µm values are null/NaN when the pixel
@@ -16,7 +17,7 @@ import { checkSamplingSettings } from './check-settings';
  */
 export type Measurement = Pick<EmbryoResult,
   'gradientChannel' | 'gradientProfile' | 'gradientFit' | 'boundaryProfiles' | 'boundaries' | 'landmarks' | 'backgrounds'
-  | 'eggLengthUm' | 'warnings'>;
+  | 'eggLengthUm' | 'warnings' | 'sides'>;
 
 /** Copy of a profile without its empty bins (fit and boundary finders need finite values). */
 export function filledBins(p: Profile): Profile {
@@ -116,6 +117,8 @@ export interface SampledProfiles {
   /** Indices and profiles of the boundary channels the file has. */
   readonly boundaryChannels: readonly number[];
   readonly boundaryProfiles: readonly Profile[];
+  /** The gradient channel's profile on each side on its own, when the sampler measures the sides apart; else null. */
+  readonly sideProfiles: SideProfiles | null;
   /** Warnings so far: the preparation's, poles outside the embryo, then missing gradient and boundary channels. */
   readonly warnings: readonly string[];
   readonly gradientWarnings: readonly string[];
@@ -152,9 +155,13 @@ export function sampleProfiles(prepared: PreparedSampling, axis: ApAxis, setting
   const g = resolveRefs([settings.gradientChannel], prepared.channelNames, 'gradient', gradientWarnings)[0] ?? null;
   const boundaryWarnings: string[] = [];
   const bc = resolveRefs(settings.boundaryChannels, prepared.channelNames, 'boundary', boundaryWarnings);
+  const sideBins = g !== null ? prepared.sampler.sideBins?.(prepared, axis, settings) ?? null : null;
+  const sideProfile = (b: Int32Array): Profile => binProfile(values[g!], b, settings.profile.binCount, prepared.channelNames[g!], eggLengthUm);
   return {
     axis, axisPx, pixelSizeUm: px, eggLengthUm, gradient: g, gradientProfile: g !== null ? profileOf(g) : null,
-    boundaryChannels: bc, boundaryProfiles: bc.map(profileOf), warnings, gradientWarnings, boundaryWarnings,
+    boundaryChannels: bc, boundaryProfiles: bc.map(profileOf),
+    sideProfiles: sideBins ? { dorsal: sideProfile(sideBins.dorsal), ventral: sideProfile(sideBins.ventral) } : null,
+    warnings, gradientWarnings, boundaryWarnings,
   };
 }
 
@@ -175,6 +182,7 @@ export function fitSampledProfiles(sampled: SampledProfiles, prepared: PreparedS
   const px = sampled.pixelSizeUm;
   const warnings: string[] = [...sampled.warnings, ...sampled.gradientWarnings];
   const gradientFit = gradientProfile ? fitProfile(gradientProfile, axisPx, px, settings.fitRangeEl, warnings) : null;
+  const sides = sampled.sideProfiles ? measureSides(sampled.sideProfiles, axisPx, px, settings.fitRangeEl, warnings) : null;
   warnings.push(...sampled.boundaryWarnings);
   const boundaries = boundaryProfiles.flatMap((p, k) => {
     try {
@@ -190,7 +198,7 @@ export function fitSampledProfiles(sampled: SampledProfiles, prepared: PreparedS
   return {
     gradientChannel: g !== null ? prepared.channelNames[g] : null, gradientProfile, gradientFit, boundaryProfiles: [...boundaryProfiles], boundaries,
     landmarks: landmarks.map((l) => ({ name: l.name, point: l.point, ...pick(projectPointOntoAxis(l.point, axis, px)) })),
-    backgrounds: used.map((c) => prepared.backgrounds[c]), eggLengthUm, warnings,
+    backgrounds: used.map((c) => prepared.backgrounds[c]), eggLengthUm, warnings, ...(sides ? { sides } : {}),
   };
 }
 

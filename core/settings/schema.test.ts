@@ -73,7 +73,7 @@ describe('flags for every setting', () => {
   });
   it('refuses bad values with the rule', () => {
     expect(() => settingsFromFlags({ edgeDepth: '0' })).toThrow('--edge-depth must be a positive number of µm (got "0")');
-    expect(() => settingsFromFlags({ edgeSide: 'top' })).toThrow('--edge-side must be dorsal, ventral or both (got "top")');
+    expect(() => settingsFromFlags({ edgeSide: 'top' })).toThrow('--edge-side must be dorsal, ventral, both or each (got "top")');
     expect(() => settingsFromFlags({ threshold: '1' })).toThrow('--threshold must be a number between 0 and 1 (got "1")');
     expect(() => settingsFromFlags({ boundaryMethods: 'logistic,spline' }))
       .toThrow('--boundary-methods must be logistic, half-max and/or threshold, comma-separated (got "logistic,spline")');

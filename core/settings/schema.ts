@@ -145,7 +145,7 @@ export const SETTINGS: readonly SettingSpec[] = [
     help: 'time point to analyse in a movie (0-based)', rule: 'a 0-based time point number', min: 0, integer: true,
   }),
   choice({ key: 'profile.mode', unit: '', label: 'sample', flag: '--profile', flagValue: 'MODE', help: 'edge (band under the outline) | axis (strip on the axis)', choices: ['edge', 'axis'] }),
-  choice({ key: 'profile.edgeSide', unit: '', label: 'edge', flag: '--edge-side', flagValue: 'SIDE', help: 'edge band on the dorsal, ventral or both sides', choices: ['dorsal', 'ventral', 'both'] }),
+  choice({ key: 'profile.edgeSide', unit: '', label: 'edge', flag: '--edge-side', flagValue: 'SIDE', help: 'dorsal | ventral | both (pooled) | each (pooled, plus each side\'s λ and their difference)', choices: ['dorsal', 'ventral', 'both', 'each'] }),
   choice({ key: 'profile.dorsalSide', unit: '', label: 'dorsal is', flag: '--dorsal-side', flagValue: 'SIDE', help: 'dorsal is left or right of the direction anterior→posterior', choices: ['left', 'right'] }),
   numeric({
     key: 'profile.edgeDepthUm', unit: 'µm', label: 'edge band depth µm', flag: '--edge-depth', flagValue: 'UM',

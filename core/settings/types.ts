@@ -10,8 +10,9 @@ export interface ChannelWindow {
   readonly rangeEl: readonly [number, number];
 }
 
-/** Which edge of the embryo the edge band follows, seen with anterior left and dorsal up. */
-export type EdgeSide = 'dorsal' | 'ventral' | 'both';
+/** Which edge of the embryo the edge band follows, seen with anterior left and dorsal up: one side, both pooled, or
+ *  'each' = both pooled for the main profile and, besides, each side measured on its own with their paired difference. */
+export type EdgeSide = 'dorsal' | 'ventral' | 'both' | 'each';
 
 /** How the profile is sampled. */
 export interface ProfileSettings {

@@ -149,6 +149,8 @@ function embryoFrame(p: SyntheticEmbryoParams, t: SyntheticTruth, box: Box): Fra
   // A sampled shape that never reaches the threshold leaves the boundary channel off.
   const xbShape = p.gradientShape ? thresholdUm(p, p.boundaryThreshold) : NaN;
   const xb = !p.gradientShape ? p.lambdaUm * Math.log(ampl / p.boundaryThreshold) : Number.isFinite(xbShape) ? xbShape : -Infinity;
+  // The gradient's parameters right of A→P (Y < 0): a decay length of their own when rightLambdaUm is set.
+  const right = p.rightLambdaUm ? { ...p, lambdaUm: p.rightLambdaUm } : p;
   for (let y = box.y0; y < box.y1; y++) {
     const dy = (y - t.centre.y) * px;
     for (let x = box.x0; x < box.x1; x++) {
@@ -160,7 +162,7 @@ function embryoFrame(p: SyntheticEmbryoParams, t: SyntheticTruth, box: Box): Fra
       const tex = 1 - p.nucleiContrast * 0.5 * (1 - Math.cos((2 * Math.PI * X) / period) * Math.cos((2 * Math.PI * Y) / period));
       f.X[i] = X;
       f.Y[i] = Y;
-      f.gradient[i] = (p.gradientBaseline + ampl * gradientShapeAt(p, xAp)) * tex;
+      f.gradient[i] = (p.gradientBaseline + ampl * gradientShapeAt(Y < 0 ? right : p, xAp)) * tex;
       f.boundary[i] = (p.boundaryAmplitude * tex) / (1 + Math.exp((xAp - xb) / widthUm));
     }
   }

@@ -23,6 +23,9 @@ export interface SyntheticEmbryoParams {
   readonly angleDeg: number | null;
   /** Decay length of the gradient, µm. */
   readonly lambdaUm: number;
+  /** Decay length right of A→P (image coordinates; ventral when dorsal is left), µm; absent or null = lambdaUm on
+   *  both sides. The boundary channel and the furrow follow lambdaUm. */
+  readonly rightLambdaUm?: number | null;
   /**
    * Shape of the gradient instead of exp(−x/λ): relative level sampled every stepUm from the anterior pole (linear
    * between samples, the last value beyond), e.g. one time point of a forming gradient; null = the exponential.
@@ -96,6 +99,8 @@ export function checkSynthParams(p: SyntheticEmbryoParams): void {
   for (const k of ['widthPx', 'heightPx', 'sizeZ'] as const) {
     if (!Number.isInteger(p[k])) throw new Error(`${k} must be an integer, got ${p[k]}`);
   }
+  const right = p.rightLambdaUm;
+  if (right !== undefined && right !== null && !(right > 0 && Number.isFinite(right))) throw new Error(`rightLambdaUm must be a positive number or null, got ${right}`);
   const shape = p.gradientShape;
   if (shape && !(shape.stepUm > 0 && shape.values.length >= 2 && shape.values.every(Number.isFinite))) {
     throw new Error('gradientShape must have stepUm > 0 and at least 2 finite values');

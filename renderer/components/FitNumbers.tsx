@@ -1,5 +1,6 @@
-// The numbers of the live measurement: λ ± SE, 95% CI, R², A, B, egg length, boundaries, warnings.
-import type { EmbryoResult } from '../../core/model';
+// The numbers of the live measurement: λ ± SE, 95% CI, R², A, B, each side's λ and their difference (when measured
+// apart), egg length, boundaries, warnings.
+import type { EmbryoResult, ExponentialFit, SidesMeasurement } from '../../core/model';
 import type { LiveMeasurement } from '../live';
 import type { FileStatus } from '../state/fileStatus';
 import { fixed, fmt } from '../ui/format';
@@ -44,6 +45,23 @@ export function DorsalSideControl({ own, shared, onChange }: NonNullable<FitNumb
   );
 }
 
+/** Rows of the numbers panel for each side measured on its own and their paired difference (none when not measured). */
+export function sideNumberRows(sides: SidesMeasurement | null | undefined): [string, string, string][] {
+  if (!sides) return [];
+  const side = (f: ExponentialFit | null): string => (f === null ? 'fit failed'
+    : `${fmt(f.lambdaUm)} ± ${fmt(f.lambdaSeUm, 2)} µm (${fmt(f.lambdaCiLowUm)} – ${fmt(f.lambdaCiHighUm)})`);
+  const d = sides.difference;
+  const inUm = d !== null && Number.isFinite(d.lambdaUm);
+  return [
+    ['λ dorsal', side(sides.dorsalFit), 'lambda-dorsal'],
+    ['λ ventral', side(sides.ventralFit), 'lambda-ventral'],
+    ['dorsal − ventral', d === null ? '—' : inUm
+      ? `${fmt(d.lambdaUm)} ± ${fmt(d.seUm, 2)} µm (95% CI ${fmt(d.ciLowUm)} – ${fmt(d.ciHighUm)})`
+      : `${fixed(d.lambdaEl, 4)} ± ${fixed(d.seEl, 4)} EL (95% CI ${fixed(d.ciLowEl, 4)} – ${fixed(d.ciHighEl, 4)})`, 'lambda-difference'],
+    ['sides\' error corr.', d === null ? '—' : `${fixed(d.sideCorrelation, 2)} (${d.seSource} SE)`, 'side-correlation'],
+  ];
+}
+
 /** Why λ can come out negative, and what to check: with the automatic axis the anterior pole is already the high end
  *  of the gradient channel, so the channel is the likelier culprit; with a hand axis, the poles may be swapped. */
 export function negativeLambdaHint(axisSource: 'auto' | 'hand' | null): string {
@@ -76,6 +94,7 @@ export function FitNumbers({ m, pixelSizeUm, loading, axisSource, file, settings
     ['A', f === null ? '—' : `${fmt(f.amplitude)} ± ${fmt(f.amplitudeSe, 2)}`],
     ['B', f === null ? '—' : `${fmt(f.background)} ± ${fmt(f.backgroundSe, 2)}`],
     ['fit range', f === null ? '—' : `${fixed(f.fitRangeEl[0], 3)} – ${fixed(f.fitRangeEl[1], 3)} EL (${f.dof + 3} bins)${settingsFitRangeEl === null ? '' : ` · this file's own (settings: ${fixed(settingsFitRangeEl[0], 2)} – ${fixed(settingsFitRangeEl[1], 2)})`}`, 'fit-range'],
+    ...sideNumberRows(m?.sides),
     ['egg length', m === null ? '—' : `${fmt(m.eggLengthUm, 4)} µm`],
     ['pixel size', pixelSizeUm === null ? 'unknown' : `${fmt(pixelSizeUm, 4)} µm`],
   ];

@@ -4,7 +4,7 @@ import { useId, useRef } from 'react';
 import type { Dispatch } from 'react';
 import { scaleLinear } from 'd3-scale';
 import { area, line } from 'd3-shape';
-import { boundaryColour, PROFILE_COLOURS } from '../../core/figures';
+import { boundaryColour, PROFILE_COLOURS, SIDE_COLOURS } from '../../core/figures';
 import type { LiveMeasurement } from '../live';
 import type { EditorAction } from '../state';
 import { elToPx, pxToEl } from '../ui/plotLayout';
@@ -20,14 +20,33 @@ export interface ProfilePlotProps {
   readonly dispatch: Dispatch<EditorAction>;
 }
 
-/** Y extent of the profile (mean ± SD), padded. */
+/** Y extent of the profile (mean ± SD, and each side's mean when the sides are measured apart), padded. */
 function yDomain(m: LiveMeasurement): [number, number] {
   let lo = 0, hi = 1;
   m.profile?.mean.forEach((v, i) => {
     const s = m.profile?.sd[i] ?? 0;
     if (Number.isFinite(v)) { lo = Math.min(lo, v - s); hi = Math.max(hi, v + s); }
   });
+  for (const p of m.sides ? [m.sides.dorsalProfile, m.sides.ventralProfile] : []) {
+    p.mean.forEach((v) => { if (Number.isFinite(v)) { lo = Math.min(lo, v); hi = Math.max(hi, v); } });
+  }
   return [lo, hi * 1.05];
+}
+
+/** Each side's bin means and its fit over the fit range (paths), when the sides are measured apart. */
+function sidePaths(m: LiveMeasurement, x: (v: number) => number, y: (v: number) => number, fitRangeEl: readonly [number, number]) {
+  if (!m.sides) return [];
+  const s = m.sides;
+  return (['dorsal', 'ventral'] as const).map((side) => {
+    const p = side === 'dorsal' ? s.dorsalProfile : s.ventralProfile;
+    const fit = side === 'dorsal' ? s.dorsalFit : s.ventralFit;
+    const idx = Array.from(p.xEl.keys()).filter((i) => Number.isFinite(p.mean[i]));
+    const mean = line<number>().x((i) => x(p.xEl[i])).y((i) => y(p.mean[i]))(idx) ?? '';
+    const model = (xe: number) => (fit === null ? NaN : fit.amplitude * Math.exp(-(xe * m.eggLengthUm) / fit.lambdaUm) + fit.background);
+    const [a, b] = fitRangeEl;
+    const curve = fit === null ? '' : line<number>().x((t) => x(t)).y((t) => y(model(t)))(Array.from({ length: 61 }, (_, k) => a + ((b - a) * k) / 60)) ?? '';
+    return { side, mean, curve, colour: SIDE_COLOURS[side] };
+  });
 }
 
 /** Legend entries for what is drawn. */
@@ -39,6 +58,10 @@ function legendFor(m: LiveMeasurement, channels: readonly string[]): LegendEntry
   if (m.fit !== null) {
     items.push({ label: 'fit (fit range)', colour: PROFILE_COLOURS.fit, shape: 'line' });
     items.push({ label: 'fit extended', colour: PROFILE_COLOURS.fit, shape: 'dash' });
+  }
+  if (m.sides) {
+    items.push({ label: 'dorsal side: mean, fit', colour: SIDE_COLOURS.dorsal, shape: 'dash' });
+    items.push({ label: 'ventral side: mean, fit', colour: SIDE_COLOURS.ventral, shape: 'dash' });
   }
   channels.forEach((c) => items.push({ label: `${c} (scaled 0–max) and boundary`, colour: boundaryColour(c, channels), shape: 'dash' }));
   if (m.landmarks.length > 0) items.push({ label: 'landmark', colour: '#d0d4dc', shape: 'dash' });
@@ -95,6 +118,7 @@ export function ProfilePlot({ measurement: m, width, height, fitRangeEl, dispatc
   // A label that would run past the right edge is written to the left of its line.
   const placed = labels.map((l) => (l.x + l.text.length * 5.6 > right ? { ...l, x: l.x - 6 - l.text.length * 5.6 } : l));
   const dys = staggerLabels(placed, 5.6, 14);
+  const sides = sidePaths(m, x, y, fitRangeEl);
   const clipMain = `pp-main-${uid}`, clipRes = `pp-res-${uid}`;
   const fx0 = x(Math.max(0, fitRangeEl[0])), fx1 = x(Math.min(1, fitRangeEl[1]));
   return (
@@ -119,7 +143,9 @@ export function ProfilePlot({ measurement: m, width, height, fitRangeEl, dispatc
       <g clipPath={`url(#${clipMain})`} data-testid="profile-main-marks">
         <path d={sdPath} className="sd-band" fill={PROFILE_COLOURS.data} />
         {others.map((d, i) => <path key={i} d={d} className="other-profile" stroke={boundaryColour(channels[i], channels)} />)}
+        {sides.map((sp) => <path key={`${sp.side}-mean`} d={sp.mean} className="side-line" stroke={sp.colour} fill="none" strokeWidth={1} strokeOpacity={0.8} data-testid={`side-mean-${sp.side}`} />)}
         <path d={meanPath} className="mean-line" stroke={PROFILE_COLOURS.data} />
+        {sides.map((sp) => <path key={`${sp.side}-fit`} d={sp.curve} className="side-fit" stroke={sp.colour} fill="none" strokeWidth={1.5} strokeDasharray="6 3" data-testid={`side-fit-${sp.side}`} />)}
         {fit !== null && <path d={curve(0, 1)} className="fit-curve-ext" stroke={PROFILE_COLOURS.fit} data-testid="fit-curve-ext" />}
         {fit !== null && <path d={curve(fitRangeEl[0], fitRangeEl[1])} className="fit-curve" stroke={PROFILE_COLOURS.fit} data-testid="fit-curve" />}
         {found.map((b, i) => <line key={i} x1={x(b.positionEl as number)} x2={x(b.positionEl as number)} y1={MAIN.top} y2={MAIN.top + MAIN.height} className="boundary-line" stroke={boundaryColour(b.channel, channels)} />)}

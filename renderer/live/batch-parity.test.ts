@@ -25,6 +25,7 @@ describe('live measurement equals the batch, per profile mode', () => {
   const modes: [string, AnalysisSettings][] = [
     ['edge band, both sides', base],
     ['edge band, dorsal side, dorsal right', { ...base, profile: { ...base.profile, edgeSide: 'dorsal', dorsalSide: 'right' } }],
+    ['edge band, each side apart, dorsal right', { ...base, profile: { ...base.profile, edgeSide: 'each', dorsalSide: 'right' } }],
     ['axis strip', { ...base, profile: { ...base.profile, mode: 'axis', axisWidthUm: 30 } }],
   ];
   it.each(modes)('%s', async (_, settings) => {
@@ -37,5 +38,6 @@ describe('live measurement equals the batch, per profile mode', () => {
     expect(live.landmarks).toEqual(batch.landmarks);
     expect(live.eggLengthUm).toBe(batch.eggLengthUm);
     expect(live.fit).not.toBeNull();
+    expect(live.sides).toEqual(batch.sides ?? null);
   });
 });

@@ -1,7 +1,7 @@
 // Live measurement of the shown embryo with the same core functions the batch uses (prepareSampling, i.e. the
 // mode's sampler, once per file and settings; measureEmbryo per edit), plus the straightened strip for the view.
 import type { LoadedStack } from '../../core/contract';
-import type { ApAxis, Boundary, ExponentialFit, ImagePoint, Landmark, LandmarkPosition, Plane, Profile } from '../../core/model';
+import type { ApAxis, Boundary, ExponentialFit, ImagePoint, Landmark, LandmarkPosition, Plane, Profile, SidesMeasurement } from '../../core/model';
 import { axisLengthPx, measureEmbryo, prepareSampling, sampleBandOutline, straightenPlane, straightViewHalfWidthPx } from '../../core/pipeline';
 import type { PreparedSampling } from '../../core/pipeline';
 import type { AnalysisSettings } from '../../core/settings';
@@ -32,6 +32,8 @@ export interface LiveMeasurement {
   readonly warnings: readonly string[];
   /** Poles that lie outside the embryo's mask (by more than the slack the warning allows); drawn marked. */
   readonly polesOutside: readonly ('anterior' | 'posterior')[];
+  /** Each side's profile and fit and their paired difference, when the sampler measures the sides apart; else null. */
+  readonly sides: SidesMeasurement | null;
 }
 
 /** Per-file preparation (re-run when the stack or the settings change). */
@@ -71,6 +73,7 @@ export function measureLive(prep: LivePrepared, axis: ApAxis, settings: Analysis
     profile: m.gradientProfile, fit: m.gradientFit, boundaryProfiles: m.boundaryProfiles, boundaries: m.boundaries,
     landmarks: m.landmarks, warnings: m.warnings,
     polesOutside: (['anterior', 'posterior'] as const).filter((end) => distanceOutsideMaskPx(prep.sampling.mask, axis[end], lengthPx) > poleSlackPx(lengthPx)),
+    sides: m.sides ?? null,
   };
 }
 

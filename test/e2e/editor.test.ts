@@ -204,7 +204,7 @@ describe('editor window', { timeout: 150_000 }, () => {
     await expect.poll(() => text(page, 'save-status'), { timeout: 10_000 }).toMatch(/^saved/);
   });
 
-  it('the file\'s own dorsal side: shown for a one-sided band, moves the band and λ, saved in the project, and back', async () => {
+  it('the file\'s own dorsal side: shown for a one-sided band, moves the band and λ, saved in the project, and back; each side apart shows both fits and their difference', async () => {
     const { page } = h;
     const projectFile = join(dataDir, 'demo', 'eggline-project.json');
     type Saved = { settings: { profile: { edgeSide: string } }; files: Record<string, { dorsalSide?: string | null }> };
@@ -231,6 +231,15 @@ describe('editor window', { timeout: 150_000 }, () => {
     await expect.poll(band, { timeout: 10_000 }).toBe(sharedBand);
     await expect.poll(() => text(page, 'lambda-um'), { timeout: 10_000 }).toBe(sharedLambda);
     await expect.poll(async () => Object.values((await saved()).files).filter((f) => f.dorsalSide === other).length, { timeout: 10_000 }).toBe(0);
+    // Each side apart: λ stays that of both sides pooled; each side's fit, its band and their difference appear.
+    await page.getByTestId('edge-side').selectOption('each');
+    await expect.poll(() => text(page, 'lambda-um'), { timeout: 10_000 }).toBe(lambdaAfterEdits);
+    await expect.poll(() => text(page, 'lambda-difference'), { timeout: 10_000 }).toMatch(/µm \(95% CI .+ – .+\)$/);
+    expect(await text(page, 'lambda-dorsal')).toMatch(/µm/);
+    expect(await page.getByTestId('side-fit-dorsal').count()).toBe(1);
+    expect(await page.getByTestId('side-fit-ventral').count()).toBe(1);
+    expect(await page.getByTestId('file-dorsal-side').count()).toBe(1);
+    await shot(page, '04e-each-side');
     // Both sides again for the tests that follow.
     await page.getByTestId('edge-side').selectOption('both');
     await expect.poll(() => text(page, 'lambda-um'), { timeout: 10_000 }).toBe(lambdaAfterEdits);

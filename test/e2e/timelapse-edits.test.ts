@@ -104,18 +104,42 @@ describe('the window\'s movie controls', { timeout: 180_000 }, () => {
       expect(Number(await attr(page, 'movie-lambda-now', 'data-value'))).toBeCloseTo(Number(rowAt(reference, 10 + k).lambda_el), 9);
     }
     expect(await page.getByTestId('movie-time-label').textContent()).toMatch(/ · time point 26 of 46 \(16 of 16 analysed\)$/);
+    // The bar with the new fields stays on screen and its controls do not overlap.
+    for (const [w, hgt] of [[1440, 900], [1280, 720]] as const) {
+      await page.setViewportSize({ width: w, height: hgt });
+      await page.waitForTimeout(300);
+      const ids = ['movie-time', 'movie-time-step', 'movie-axis-per-time', 'movie-analyse', 'movie-export'];
+      const boxes = await Promise.all(ids.map(async (id) => (await page.getByTestId(id).first().boundingBox())!));
+      for (const b of boxes) expect(b.x + b.width).toBeLessThanOrEqual(w);
+      for (let i = 0; i < boxes.length; i++) for (let j = i + 1; j < boxes.length; j++) {
+        const [a, b] = [boxes[i], boxes[j]];
+        const apart = a.x + a.width <= b.x + 0.5 || b.x + b.width <= a.x + 0.5 || a.y + a.height <= b.y + 0.5 || b.y + b.height <= a.y + 0.5;
+        expect(apart, `${ids[i]} and ${ids[j]} overlap at ${w}×${hgt}`).toBe(true);
+      }
+      await page.screenshot({ path: join(ARTIFACTS, `timelapse-range-${w}x${hgt}.png`) });
+    }
   });
 
-  it('a new range analyses the movie again at once (progress shown), and going back gives the batch\'s numbers again', async () => {
+  it('a new range analyses the movie again at once (progress shown); one given while a run is under way cancels it first', async () => {
     const { page } = h;
     h.movieProgress.length = 0;
     await page.getByTestId('movie-time').fill('20:25');
     await page.getByTestId('movie-time').press('Enter');
     await expect.poll(() => attr(page, 'movie-slider', 'max'), { timeout: 120_000 }).toBe('5');
     expect(h.movieProgress.at(-1)).toMatchObject({ done: 6, total: 6 });
+    // Every time point, then 10:25 while that run is under way: the first run stops, the second runs to its end.
+    h.movieProgress.length = 0;
+    await page.getByTestId('movie-time').fill('all');
+    await page.getByTestId('movie-time').press('Enter');
+    await expect.poll(() => h.movieProgress.some((p) => p.total === 46), { timeout: 60_000 }).toBe(true);
+    await page.getByTestId('movie-progress').waitFor();
     await page.getByTestId('movie-time').fill('10:25');
     await page.getByTestId('movie-time').press('Enter');
     await expect.poll(() => attr(page, 'movie-slider', 'max'), { timeout: 120_000 }).toBe('15');
+    await expect.poll(() => page.getByTestId('movie-progress').count(), { timeout: 120_000 }).toBe(0);
+    expect(h.movieProgress.some((p) => p.total === 46 && p.done === 46)).toBe(false);
+    expect(h.movieProgress.at(-1)).toMatchObject({ done: 16, total: 16 });
+    await expect.poll(savedEntry).toMatchObject({ time: '10:25' });
     await page.getByTestId('movie-slider').fill('5');
     await expect.poll(() => attr(page, 'movie-time-label', 'data-k')).toBe('5');
     expect(Number(await attr(page, 'movie-lambda-now', 'data-value'))).toBeCloseTo(Number(rowAt(reference, 15).lambda_el), 9);

@@ -1,11 +1,12 @@
-// The edge band: pixels just inside the outline (the nuclear layer), on the dorsal, ventral or both sides of the axis.
+// The edge band: pixels just inside the outline (the nuclear layer), on the dorsal, ventral or both sides of the axis;
+// with --edge-side each, both pooled and, besides, each side on its own (for the paired difference of their λ).
 import type { ApAxis, ImagePoint, Mask } from '../../model';
 import type { AnalysisSettings } from '../../settings';
 import { distanceInside } from '../../image';
 import { maskContours } from '../../geometry';
 import { binIndices, type SideFilter } from '../bin';
 import { rowsWhere } from './rows';
-import type { PreparedSampling, ProfileSampler, SampledRegion, SamplingBase } from './types';
+import type { PreparedSampling, ProfileSampler, SampledRegion, SamplingBase, SideBins } from './types';
 
 /**
  * Side of the A→P line the band is sampled on: 'all' for both sides, else the side (left or right of the direction
@@ -13,9 +14,19 @@ import type { PreparedSampling, ProfileSampler, SampledRegion, SamplingBase } fr
  */
 export function edgeSideFilter(settings: AnalysisSettings): SideFilter {
   const p = settings.profile;
-  if (p.edgeSide === 'both') return 'all';
+  if (p.edgeSide === 'both' || p.edgeSide === 'each') return 'all';
   const dorsalLeft = p.dorsalSide === 'left';
   return (p.edgeSide === 'dorsal') === dorsalLeft ? 'left' : 'right';
+}
+
+/** The sides of A→P (left/right in image coordinates) that are dorsal and ventral. */
+function dorsalVentralFilters(settings: AnalysisSettings): { dorsal: SideFilter; ventral: SideFilter } {
+  return settings.profile.dorsalSide === 'left' ? { dorsal: 'left', ventral: 'right' } : { dorsal: 'right', ventral: 'left' };
+}
+
+/** Whether the settings ask for each side measured on its own besides the pooled band. */
+function eachSide(settings: AnalysisSettings): boolean {
+  return settings.profile.edgeSide === 'each';
 }
 
 /** 1 where a mask pixel's centre lies within edgeDepthPx of the outline (depth − 0.5 ≤ edgeDepthPx), in the box. */
@@ -45,15 +56,31 @@ function bins(prepared: PreparedSampling, axis: ApAxis, settings: AnalysisSettin
   return binIndices(xs, ys, axis, settings.profile.binCount, edgeSideFilter(settings));
 }
 
-/** Contours of the band pixels on the chosen side: outer and inner rings. */
-function outline(prepared: PreparedSampling, axis: ApAxis, settings: AnalysisSettings): ImagePoint[][] {
+/** Contours of the band pixels on one side of A→P ('all': both): outer and inner rings. */
+function sideContours(prepared: PreparedSampling, axis: ApAxis, side: SideFilter): ImagePoint[][] {
   const { xs, ys } = prepared.region.pixels;
   const { width, height } = prepared;
-  const onSide = binIndices(xs, ys, axis, 1, edgeSideFilter(settings));
+  const onSide = binIndices(xs, ys, axis, 1, side);
   const data = new Uint8Array(width * height);
   for (let k = 0; k < onSide.length; k++) if (onSide[k] >= 0) data[ys[k] * width + xs[k]] = 1;
   const sided: Mask = { width, height, data };
   return maskContours(sided).filter((c) => c.length >= 3);
+}
+
+/** Contours of the band on the chosen side; with each side measured apart, the two sides' bands separately. */
+function outline(prepared: PreparedSampling, axis: ApAxis, settings: AnalysisSettings): ImagePoint[][] {
+  if (!eachSide(settings)) return sideContours(prepared, axis, edgeSideFilter(settings));
+  const { dorsal, ventral } = dorsalVentralFilters(settings);
+  return [...sideContours(prepared, axis, dorsal), ...sideContours(prepared, axis, ventral)];
+}
+
+/** Each side's bins on its own when --edge-side is 'each'. */
+function sideBins(prepared: PreparedSampling, axis: ApAxis, settings: AnalysisSettings): SideBins | null {
+  if (!eachSide(settings)) return null;
+  const { xs, ys } = prepared.region.pixels;
+  const { dorsal, ventral } = dorsalVentralFilters(settings);
+  const binCount = settings.profile.binCount;
+  return { dorsal: binIndices(xs, ys, axis, binCount, dorsal), ventral: binIndices(xs, ys, axis, binCount, ventral) };
 }
 
 /** Rows on the sampled side(s); the band's depth is already in the region. */
@@ -68,5 +95,5 @@ export const EDGE_BAND: ProfileSampler = {
   label: 'edge band',
   settingKeys: ['profile.edgeSide', 'profile.dorsalSide', 'profile.edgeDepthUm'],
   describe: (get) => `edge band, ${String(get('edgeSide') ?? '?')} side(s), ${String(get('edgeDepthUm') ?? '?')} µm deep`,
-  prepare, bins, outline, stripRows,
+  prepare, bins, outline, stripRows, sideBins,
 };

@@ -79,4 +79,15 @@ export interface ProfileSampler {
    * and centred on the axis (the centre row counts as left).
    */
   stripRows(rowCount: number, rowStepUm: number, settings: AnalysisSettings): Uint8Array;
+  /**
+   * Bin index of each region pixel on each side on its own (−1 elsewhere), when the settings ask for the two sides
+   * measured apart (the edge band's --edge-side each); null otherwise. Samplers without sides leave it out.
+   */
+  sideBins?(prepared: PreparedSampling, axis: ApAxis, settings: AnalysisSettings): SideBins | null;
+}
+
+/** Bins of the dorsal and the ventral side of a sampled region, each on its own. */
+export interface SideBins {
+  readonly dorsal: Int32Array;
+  readonly ventral: Int32Array;
 }

@@ -20,6 +20,7 @@ export function ProjectionSettings({ settings: s, onChange }: SettingFieldProps)
 const OPTION_NAMES: Readonly<Record<string, Readonly<Record<string, string>>>> = {
   'profile.mode': Object.fromEntries(PROFILE_SAMPLERS.map((m) => [m.mode, m.label])),
   'profile.dorsalSide': { left: 'left of A→P', right: 'right of A→P' },
+  'profile.edgeSide': { dorsal: 'dorsal', ventral: 'ventral', both: 'both (pooled)', each: 'each side apart' },
 };
 
 /** The profile: sampler, the settings of the chosen sampler, and the bins. */

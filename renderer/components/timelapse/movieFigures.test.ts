@@ -31,5 +31,6 @@ describe('the time-lapse view\'s figure helpers', () => {
   it('says which of the analysed time points is shown when only some of the movie\'s were analysed', () => {
     const part = { ...view([600, 660, 720], [null, null, null]), timeIndices: [10, 11, 12] };
     expect(timeLabel(part, 2)).toBe('t = 720 s · time point 13 of 46 (3 of 3 analysed)');
+    expect(timeLabel(part, 2, false)).toBe('t = 720 s · time point 13 of 46');
   });
 });

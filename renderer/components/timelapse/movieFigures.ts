@@ -19,10 +19,11 @@ export function timeOf(view: MovieView, k: number): number {
   return view.timesS ? view.timesS[k] : view.timeIndices[k];
 }
 
-/** "t = 12 min · time point 4 of 46" (minutes for movies of 10 min or more; "time unknown" without times). */
-export function timeLabel(view: MovieView, k: number): string {
+/** "t = 12 min · time point 4 of 46" (minutes for movies of 10 min or more; "time unknown" without times), with
+ *  "(k of n analysed)" when only some time points were analysed, unless withAnalysed is false (figure titles). */
+export function timeLabel(view: MovieView, k: number, withAnalysed = true): string {
   const n = view.timeIndices.length;
-  const where = `time point ${view.timeIndices[k] + 1} of ${view.sizeT}${n < view.sizeT ? ` (${k + 1} of ${n} analysed)` : ''}`;
+  const where = `time point ${view.timeIndices[k] + 1} of ${view.sizeT}${withAnalysed && n < view.sizeT ? ` (${k + 1} of ${n} analysed)` : ''}`;
   if (!view.timesS || n === 0) return `${where} · times unknown`;
   const { unit, perS } = movieTimeUnit(view.timesS[n - 1] - view.timesS[0]);
   return `t = ${fmt(view.timesS[k] * perS, 3)} ${unit} · ${where}`;
@@ -58,7 +59,7 @@ export function profileAt(view: MovieView, k: number, box: FigureBox, title?: st
   const earlier = earlierIndices(k).map((j) => view.results[j].gradientProfile).filter((q): q is Profile => q !== null)
     .map((q) => ({ xEl: q.xEl, mean: q.mean }));
   return profileFigure({ profile: p, fit: r.gradientFit, boundaries: r.boundaries, landmarks: r.landmarks, boundaryChannels: r.boundaryProfiles.map((b) => b.channel), earlier },
-    { ...sized(box), yDomain: movieIntensityRange(view), title: title ?? `Profile at ${timeLabel(view, k)}`, subtitle: '' });
+    { ...sized(box), yDomain: movieIntensityRange(view), title: title ?? `Profile at ${timeLabel(view, k, false)}`, subtitle: '' });
 }
 
 /** The kymograph with the shown time point marked; null when no time point has a profile. */

@@ -1,0 +1,89 @@
+// Each side of the edge band measured on its own (--edge-side each): hand counts on a drawn rectangle, and an embryo
+// from the project's generator painted with a different λ on each side (demo data).
+import { describe, expect, it } from 'vitest';
+import type { Detection, ProjectedStack } from '../model';
+import { analyseStack } from '../pipeline';
+import { DEFAULT_SETTINGS, type AnalysisSettings } from '../settings';
+import { makeSyntheticEmbryo, syntheticPlaneSource, syntheticStackInfo } from '../synth';
+import { maskOutline } from '../geometry';
+import { prepareSampling } from './prepare';
+import { measureEmbryo } from './measure';
+import { sampleBandOutline } from './band-outline';
+
+// Demo data: a 200×80 rectangle "embryo" (x 20..219, y 20..99) in a 240×120 frame; channel 1 = 50 + 1000·exp(−x/λ)
+// with λ = 40 px above the axis (y < 59.5, left of A→P = +x in image coordinates) and 25 px below, no noise.
+const W = 240, H = 120;
+function scene(): { projected: ProjectedStack; detection: Detection } {
+  const mask = new Uint8Array(W * H);
+  const g = new Float32Array(W * H);
+  for (let y = 0; y < H; y++) for (let x = 0; x < W; x++) {
+    const i = y * W + x;
+    const inside = x >= 20 && x < 220 && y >= 20 && y < 100;
+    mask[i] = inside ? 1 : 0;
+    g[i] = inside ? 50 + 1000 * Math.exp(-(x - 19.5) / (y < 59.5 ? 40 : 25)) : 0;
+  }
+  const m = { width: W, height: H, data: mask };
+  return {
+    projected: { channels: [{ width: W, height: H, data: g }], channelNames: ['grad'], pixelSizeUm: 1, pixelSizeSource: 'ome', projection: 'mean', sliceIndex: null, warnings: [] },
+    detection: { mask: m, outline: maskOutline(m), axis: { anterior: { x: 19.5, y: 59.5 }, posterior: { x: 219.5, y: 59.5 }, source: 'auto' }, eggLengthUm: 200, eggWidthUm: 80, warnings: [] },
+  };
+}
+const settings = (profile: Partial<AnalysisSettings['profile']>): AnalysisSettings => ({
+  ...DEFAULT_SETTINGS, background: { mode: 'none', regionPx: null }, boundaryChannels: [],
+  profile: { ...DEFAULT_SETTINGS.profile, edgeDepthUm: 5, binCount: 50, ...profile },
+});
+
+describe('the edge band with each side measured on its own', () => {
+  const { projected, detection } = scene();
+  const measure = (s: AnalysisSettings) => measureEmbryo(prepareSampling(projected, detection, s), detection.axis, s, []);
+
+  it('pools both sides for the main profile, exactly as --edge-side both, and adds each side', () => {
+    const each = measure(settings({ edgeSide: 'each' }));
+    const both = measure(settings({ edgeSide: 'both' }));
+    expect(each.gradientProfile).toEqual(both.gradientProfile);
+    expect(each.gradientFit).toEqual(both.gradientFit);
+    expect(both.sides).toBeUndefined();
+    const count = (p: { n: Float64Array }) => p.n.reduce((a, v) => a + v, 0);
+    // Source: hand count: rows 20..24 (depth ≤ 5 px) × 200 columns, plus the 5 columns at each pole for rows 25..59.
+    expect(count(each.sides!.dorsalProfile)).toBe(200 * 5 + 2 * 5 * 35);
+    expect(count(each.sides!.ventralProfile)).toBe(200 * 5 + 2 * 5 * 35);
+    expect(each.sides!.dorsalProfile).toEqual(measure(settings({ edgeSide: 'dorsal' })).gradientProfile);
+    expect(each.sides!.ventralProfile).toEqual(measure(settings({ edgeSide: 'ventral' })).gradientProfile);
+  });
+
+  it('fits each side (noise-free: λ exact) and gives the difference; dorsal on the other side swaps them', () => {
+    // Source: demo data built from λ = 40 px left of A→P and 25 px right of it, over an egg length of 200 px.
+    // The pole columns of the band mix both sides' values near x = 0, outside the fit range 0.1–0.6 EL.
+    const left = measure(settings({ edgeSide: 'each', dorsalSide: 'left' })).sides!;
+    expect(left.dorsalFit!.lambdaUm).toBeCloseTo(40, 3);
+    expect(left.ventralFit!.lambdaUm).toBeCloseTo(25, 3);
+    expect(left.difference!.lambdaUm).toBeCloseTo(15, 3);
+    expect(left.difference!.lambdaEl).toBeCloseTo(15 / 200, 5);
+    const right = measure(settings({ edgeSide: 'each', dorsalSide: 'right' })).sides!;
+    expect(right.difference!.lambdaUm).toBeCloseTo(-15, 3);
+  });
+
+  it('outlines the two sides\' bands separately', () => {
+    const s = settings({ edgeSide: 'each' });
+    const rings = sampleBandOutline(prepareSampling(projected, detection, s), detection.axis, s);
+    expect(rings).toHaveLength(2); // one closed band per side (the pooled band has an outer and an inner ring)
+  });
+});
+
+describe('an embryo painted with a different λ on each side (the project\'s generator, demo data)', () => {
+  it('recovers both decay lengths and their difference within their 95% intervals', async () => {
+    // Source: demo data built with λ = 100 µm left of A→P (dorsal by default) and 70 µm right of it.
+    const e = makeSyntheticEmbryo({ sizeZ: 4, lambdaUm: 100, rightLambdaUm: 70, angleDeg: 25 }, 5);
+    const s: AnalysisSettings = { ...DEFAULT_SETTINGS, profile: { ...DEFAULT_SETTINGS.profile, edgeSide: 'each' } };
+    const r = await analyseStack(syntheticStackInfo(e), syntheticPlaneSource(e), s, { fileLabel: 'sides.ome.tif' });
+    expect(r.status).toBe('ok');
+    const { dorsalFit, ventralFit, difference } = r.sides!;
+    expect(dorsalFit!.lambdaCiLowUm).toBeLessThanOrEqual(100);
+    expect(dorsalFit!.lambdaCiHighUm).toBeGreaterThanOrEqual(100);
+    expect(ventralFit!.lambdaCiLowUm).toBeLessThanOrEqual(70);
+    expect(ventralFit!.lambdaCiHighUm).toBeGreaterThanOrEqual(70);
+    expect(difference!.ciLowUm).toBeLessThanOrEqual(30);
+    expect(difference!.ciHighUm).toBeGreaterThanOrEqual(30);
+    expect(difference!.ciLowUm).toBeGreaterThan(0); // and the difference is resolved
+  });
+});
