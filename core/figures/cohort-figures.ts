@@ -85,7 +85,20 @@ function sigmaFigure(a: CohortAnalysis, size: Size): NamedFigure {
   return { name: 'positional-error', title, svg: positionalErrorFigure(series, { ...size, title }) };
 }
 
-/** Cohort figures: mean profiles, λ by condition, one position-vs-ln f figure per boundary/landmark, σx. */
+/** λ_dorsal − λ_ventral per embryo by condition (embryos measured with each side apart), with a line at zero. */
+function sidesFigure(a: CohortAnalysis, size: Size): NamedFigure {
+  const title = 'Dorsal − ventral decay length by condition';
+  const groups: StripGroup[] = (a.sideDifferences ?? []).map((r) => ({
+    label: r.condition, mean: r.meanEl, ciLow: r.ciLowEl, ciHigh: r.ciHighEl,
+    values: a.observations.filter((o) => o.condition === r.condition && o.kind === 'side-difference' && o.unit === 'EL').map((o) => o.value),
+  }));
+  const svg = lambdaByConditionFigure(groups, { ...size, title, unit: 'EL', level: a.options.level, yTitle: 'λ dorsal − λ ventral (EL)', zeroLine: true });
+  return { name: 'lambda-dorsal-minus-ventral', title, svg };
+}
+
+/** Cohort figures: mean profiles, λ by condition, one position-vs-ln f figure per boundary/landmark, σx, and the
+ *  dorsal − ventral differences when the sides were measured apart. */
 export function cohortFigures(a: CohortAnalysis, size: Size = {}): NamedFigure[] {
-  return [profilesFigure(a, size), lambdaFigure(a, size), ...a.dosageFits.map((f) => shiftFigure(a, f.quantity, size)), sigmaFigure(a, size)];
+  const sides = (a.sideDifferences ?? []).length > 0 ? [sidesFigure(a, size)] : [];
+  return [profilesFigure(a, size), lambdaFigure(a, size), ...a.dosageFits.map((f) => shiftFigure(a, f.quantity, size)), sigmaFigure(a, size), ...sides];
 }
