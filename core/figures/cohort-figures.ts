@@ -96,9 +96,20 @@ function sidesFigure(a: CohortAnalysis, size: Size): NamedFigure {
   return { name: 'lambda-dorsal-minus-ventral', title, svg };
 }
 
-/** Cohort figures: mean profiles, λ by condition, one position-vs-ln f figure per boundary/landmark, σx, and the
- *  dorsal − ventral differences when the sides were measured apart. */
+/** The background condition's mean profile per channel ± SE, when one was subtracted (none otherwise). */
+function backgroundFigure(a: CohortAnalysis, size: Size): NamedFigure[] {
+  const bg = a.backgroundCondition;
+  if (!bg) return [];
+  const title = `Background condition "${bg.condition}": mean profile subtracted`;
+  const subtitle = `line: mean over its ${bg.files.length} embryo${bg.files.length === 1 ? '' : 's'}; band: ± SE between them (SD/√n)`;
+  const series = bg.profiles.map((p) => ({ label: p.channel, xEl: p.xEl, mean: p.mean, sd: p.se }));
+  return [{ name: 'background-condition', title, svg: cohortProfilesFigure(series, { ...size, title, subtitle, yLabel: 'intensity after each embryo\'s own background' }) }];
+}
+
+/** Cohort figures: mean profiles, λ by condition, one position-vs-ln f figure per boundary/landmark, σx, the
+ *  background condition's profile when one was subtracted, and the dorsal − ventral differences when the sides were
+ *  measured apart. */
 export function cohortFigures(a: CohortAnalysis, size: Size = {}): NamedFigure[] {
   const sides = (a.sideDifferences ?? []).length > 0 ? [sidesFigure(a, size)] : [];
-  return [profilesFigure(a, size), lambdaFigure(a, size), ...a.dosageFits.map((f) => shiftFigure(a, f.quantity, size)), sigmaFigure(a, size), ...sides];
+  return [profilesFigure(a, size), lambdaFigure(a, size), ...a.dosageFits.map((f) => shiftFigure(a, f.quantity, size)), sigmaFigure(a, size), ...backgroundFigure(a, size), ...sides];
 }
