@@ -63,8 +63,11 @@ export function App() {
     else if (!movieView.timeIndices.includes(t) && movieView.timeIndices.length > 0) dispatch({ type: 'showTimePoint', tIndex: movieView.timeIndices[0] });
   }, [movieView, state.doc.settings.timeIndex, state.current]);
   // The Embryo view loads the shown time point once the slider rests (not every frame while it plays).
+  // Only a file whose stack has time points is loaded at another one (a plain multi-page file read as frames through
+  // a time step is still one Z stack to loadStack).
   const restingT = useSettled(state.shownTimeIndex, 250);
-  const loadT = movieView === null ? state.doc.settings.timeIndex : restingT;
+  const [timedPath, setTimedPath] = useState<string | null>(null);
+  const loadT = movieView === null || timedPath !== entry?.path ? state.doc.settings.timeIndex : restingT;
   const loadSettings = useMemo(() => (loadT === state.doc.settings.timeIndex ? state.doc.settings : { ...state.doc.settings, timeIndex: loadT }), [state.doc.settings, loadT]);
   const load = useStackLoader(api, entry?.path ?? null, loadSettings);
   // The movie's embryo (found once over time, as the batch measures every time point in it) while the settings are
@@ -78,6 +81,7 @@ export function App() {
     return c !== undefined && c.width === movieDetection.mask.width && c.height === movieDetection.mask.height ? { ...s, detection: movieDetection } : s;
   }, [load.stack, entry?.path, movieDetection]);
   const isMovie = stack !== null && stack.info.sizeT > 1;
+  useEffect(() => { if (stack !== null) setTimedPath(isMovie ? stack.path : null); }, [stack?.path, isMovie]);
   const { loading, error: loadError } = load;
   // The first picture while the stack loads: one raw slice, replaced by the projection when the stack arrives.
   const preview = stack === null && load.preview !== null && load.preview.path === entry?.path ? load.preview.plane : null;

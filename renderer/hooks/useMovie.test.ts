@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { MovieView } from '../../core/contract';
-import { applyMovieAnswer, applyMovieProgress, MOVIE_IDLE, type MovieState } from './useMovie';
+import { applyMovieAnswer, applyMovieProgress, MOVIE_IDLE, movieViewOf, type MovieState } from './useMovie';
 
 // Source: demo data (invented file names and counts).
 describe('movie state', () => {
@@ -16,5 +16,13 @@ describe('movie state', () => {
     expect(applyMovieAnswer(running, 'a.ome.tif', { ok: false, error: { code: 'cancelled', message: 'a.ome.tif: analysis over time cancelled' } }).status).toBe('cancelled');
     expect(applyMovieAnswer(running, 'a.ome.tif', { ok: false, error: { code: 'bad-file', message: 'a.ome.tif: truncated' } })).toMatchObject({ status: 'error', error: 'a.ome.tif: truncated' });
     expect(applyMovieAnswer(running, 'b.ome.tif', { ok: true, value: view })).toBe(running);
+  });
+  it('gives the outcome of the shown file only', () => {
+    const view = { file: 'a.ome.tif', timeIndices: [0, 1] } as unknown as MovieView;
+    const done = applyMovieAnswer(running, 'a.ome.tif', { ok: true, value: view });
+    expect(movieViewOf(done, 'a.ome.tif')).toBe(view);
+    expect(movieViewOf(done, 'b.ome.tif')).toBeNull();
+    expect(movieViewOf(done, null)).toBeNull();
+    expect(movieViewOf(MOVIE_IDLE, 'a.ome.tif')).toBeNull();
   });
 });
