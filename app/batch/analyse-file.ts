@@ -7,6 +7,7 @@ import { analyse, openStack } from './deps';
 import { inputFolderOf, loadImageCorrections } from './correction-images';
 import { hashingByteSource, type HashingByteSource } from './hashing-source';
 import type { BatchTask, InputDigest } from './task';
+import type { TimeShape } from './timelapse-options';
 
 /** One line naming the file: the message as is when it already names it, else "file: message". */
 export function fileMessage(file: string, e: unknown): string {
@@ -35,19 +36,25 @@ export async function analyseFile(task: BatchTask): Promise<EmbryoResult> {
  * Analyse the task's file and, when `digest` is set, hash the bytes the decoder reads on the way (SHA-256 for
  * run.json and the journal), so the file is read once; `input` is null when the file could not be opened.
  */
-export async function analyseFileWithDigest(task: BatchTask, digest = true): Promise<{ result: EmbryoResult; input: InputDigest | null }> {
+export async function analyseFileWithDigest(
+  task: BatchTask, digest = true,
+): Promise<{ result: EmbryoResult; input: InputDigest | null; shape: TimeShape | null }> {
   let hashing: HashingByteSource | null = null;
   const wrapSource = digest ? (s: Parameters<typeof hashingByteSource>[0]) => (hashing = hashingByteSource(s)) : undefined;
-  const result = await analyseOpened(task, wrapSource);
+  let shape: TimeShape | null = null;
+  const result = await analyseOpened(task, wrapSource, (info) => { shape = { sizeT: info.sizeT, sizeZ: info.sizeZ, isOme: info.isOme }; });
   const h = hashing as HashingByteSource | null;
   const input = h ? await h.finish().then(({ sha256, bytes }) => ({ sha256, bytes }), () => null) : null;
-  return { result, input };
+  return { result, input, shape };
 }
 
-async function analyseOpened(task: BatchTask, wrapSource: ((s: Parameters<typeof hashingByteSource>[0]) => HashingByteSource) | undefined): Promise<EmbryoResult> {
+async function analyseOpened(
+  task: BatchTask, wrapSource: ((s: Parameters<typeof hashingByteSource>[0]) => HashingByteSource) | undefined, onInfo: (info: StackInfo) => void,
+): Promise<EmbryoResult> {
   let opened: Awaited<ReturnType<typeof openStack>> | null = null;
   try {
     opened = await openStack(task.path, task.file, wrapSource ? { wrapSource } : {});
+    onInfo(opened.info);
     const refusal = task.maxMemoryBytes === undefined ? null : memoryRefusal(opened.info, task.maxMemoryBytes);
     if (refusal !== null) return errorResult(task.file, `${task.file}: ${refusal}`, opened.info.warnings);
     // Relative paths of the correction images are taken from the input folder (the task's path minus its file).

@@ -20,7 +20,7 @@ import { openJournal, readJournal, settingsKey } from './journal-file';
 import { isInside, listStackFiles } from './list-stacks';
 import { partDir, selectPart } from './shard';
 import type { BatchTask, InputDigest } from './task';
-import { TIMELAPSE_FILES, type MovieFailure, type MovieOutcome, type TimelapseOptions } from './timelapse-options';
+import { TIMELAPSE_FILES, timePassNeeds, type MovieFailure, type MovieOutcome, type TimelapseOptions, type TimeShape } from './timelapse-options';
 import { softwareVersions } from './versions';
 import { openPool, type WorkerPool } from './worker-pool';
 import { OUTPUT_FILES, writeBatchOutputs } from './write-outputs';
@@ -292,8 +292,10 @@ async function runListed(opts: RunBatchOptions, listed: ListedRun): Promise<Batc
     if (opts.jobs <= 0) void hashOf(t);
     progress({ done, file: t.file, status: 'running', message: null });
   };
-  const onResult = (t: BatchTask, raw: EmbryoResult, input?: InputDigest | null): void => {
+  const shapes = new Map<number, TimeShape>();
+  const onResult = (t: BatchTask, raw: EmbryoResult, input?: InputDigest | null, shape?: TimeShape | null): void => {
     if (input) hashOf.know(t, input);
+    if (shape) shapes.set(t.index, shape);
     const r = normalizeResult({ ...raw, file: t.file });
     results[t.index] = r;
     done += 1;
@@ -337,9 +339,14 @@ async function runListed(opts: RunBatchOptions, listed: ListedRun): Promise<Batc
   });
   // The time pass: movies per time point; their results replace the main pass's one result of each movie.
   // A stop request during it ends the time pass before the next movie; movies not reached keep their main-pass row.
-  // Its code (and the pipeline's) is loaded only when a time analysis was asked for.
-  const pass = opts.timelapse ? await import('./timelapse-pass') : null;
-  const runs = complete && pass && opts.timelapse ? await pass.analyseMovies(folder, tasks.map((t) => t.file), opts.settings, opts.doc, opts.timelapse, opts.onMovie, opts.signal) : [];
+  // Files a worker found to have one time point are not opened again, and the pass's code (and the pipeline's) is
+  // loaded only when some file may be a movie.
+  const timeOptions = opts.timelapse;
+  const movieFiles = timeOptions && complete
+    ? tasks.filter((t) => { const s = shapes.get(t.index); return !s || timePassNeeds(opts.doc, t.file, timeOptions, s); }).map((t) => t.file)
+    : [];
+  const pass = movieFiles.length > 0 ? await import('./timelapse-pass') : null;
+  const runs = pass && timeOptions ? await pass.analyseMovies(folder, movieFiles, opts.settings, opts.doc, timeOptions, opts.onMovie, opts.signal) : [];
   if (complete && opts.timelapse && opts.signal?.aborted) warnings.push('stopped during the time analysis: movies after the last one analysed keep one row (their main-pass time point); rerun to analyse them over time');
   const keyed = pass ? pass.withMovieResults(finished, runs) : [...finished];
   const movies: MovieRecord[] = runs.map((r) => r.record);

@@ -2,6 +2,7 @@
 import type { EmbryoResult, HandEdits, ImagePoint } from '../../core/model';
 import type { DemoItem } from '../../core/synth';
 import type { AnalysisSettings } from '../../core/settings';
+import type { TimeShape } from './timelapse-options';
 
 /** One file to analyse. */
 export interface BatchTask {
@@ -32,6 +33,10 @@ export interface InputDigest {
 
 /** Messages a batch worker sends back; `input` is the digest of the bytes the decoder read (null if none). */
 export type WorkerReply =
-  | { readonly type: 'result'; readonly index: number; readonly result: EmbryoResult; readonly input?: InputDigest | null }
+  | {
+    readonly type: 'result'; readonly index: number; readonly result: EmbryoResult; readonly input?: InputDigest | null;
+    /** The file's time shape as opened (null: it did not open), so the time pass opens only possible movies. */
+    readonly shape?: TimeShape | null;
+  }
   | { readonly type: 'demo'; readonly index: number; readonly bytes: Uint8Array; readonly furrow: ImagePoint }
   | { readonly type: 'memory'; readonly rssBytes: number; readonly heapUsedBytes: number; readonly externalBytes: number };

@@ -9,6 +9,7 @@ import { formatByteSize } from '../../core/batch';
 import { errorResult } from '../../core/model';
 import type { EmbryoResult } from '../../core/model';
 import type { BatchTask, InputDigest, WorkerReply } from './task';
+import type { TimeShape } from './timelapse-options';
 import { mark } from './timeline';
 
 /** How the pool's workers are started (known before the files are). */
@@ -33,8 +34,8 @@ export interface PoolRun {
   readonly timeoutMs: number;
   readonly signal?: AbortSignal;
   readonly onStart?: (task: BatchTask) => void;
-  /** `input` is the file's digest when the worker computed it from the bytes it decoded. */
-  readonly onResult?: (task: BatchTask, result: EmbryoResult, input?: InputDigest | null) => void;
+  /** `input` is the file's digest when the worker computed it from the bytes it decoded; `shape` its time shape. */
+  readonly onResult?: (task: BatchTask, result: EmbryoResult, input?: InputDigest | null, shape?: TimeShape | null) => void;
   /** Memory reports from workers (bytes), sent after each file. */
   readonly onMemory?: (report: Extract<WorkerReply, { type: 'memory' }>) => void;
 }
@@ -113,7 +114,7 @@ export function openPool(start: PoolStart): WorkerPool {
     current?.done();
   };
   const onAbort = (): void => finish();
-  const settle = (slot: Slot, result: EmbryoResult, input: InputDigest | null = null): void => {
+  const settle = (slot: Slot, result: EmbryoResult, input: InputDigest | null = null, shape: TimeShape | null = null): void => {
     const task = slot.task;
     if (!task || finished || !current) return;
     slot.task = null;
@@ -121,7 +122,7 @@ export function openPool(start: PoolStart): WorkerPool {
     slot.timer = null;
     current.results[task.index] = result;
     current.active -= 1;
-    current.options.onResult?.(task, result, input);
+    current.options.onResult?.(task, result, input, shape);
   };
   const kill = (slot: Slot, why: string): void => {
     if (slot.killedFor !== null) return;
@@ -173,7 +174,7 @@ export function openPool(start: PoolStart): WorkerPool {
     child.on('message', (msg: WorkerReply) => {
       if (msg.type === 'memory') { current?.options.onMemory?.(msg); return; }
       if (msg.type !== 'result' || slot.task?.index !== msg.index) return;
-            settle(slot, msg.result, msg.input ?? null);
+            settle(slot, msg.result, msg.input ?? null, msg.shape ?? null);
       feed(slot);
     });
     child.on('error', (e) => replace(`the analysis could not run (${e.message.split(/\r?\n/)[0]})`));

@@ -43,9 +43,9 @@ channel.on((msg) => {
   }
   const task = msg as BatchTask;
   mark(`file started ${task.file}`);
-  void analyseFileWithDigest(task).then(({ result, input }) => {
+  void analyseFileWithDigest(task).then(({ result, input, shape }) => {
     mark(`file done ${task.file}`);
-    channel.post({ type: 'result', index: task.index, result, input });
+    channel.post({ type: 'result', index: task.index, result, input, shape });
     const m = process.memoryUsage();
     channel.post({ type: 'memory', rssBytes: m.rss, heapUsedBytes: m.heapUsed, externalBytes: m.external + m.arrayBuffers });
   });
