@@ -121,7 +121,9 @@ export function batchSettings(runRecord: unknown): RefitSettings | null {
 }
 
 /** The files written only when a background condition was subtracted. */
-export const BACKGROUND_FILES = ['background_profile.csv', 'background_refit.csv', 'background_conditions.csv', 'background_condition.json'] as const;
+export const BACKGROUND_FILES = [
+  'background_profile.csv', 'background_refit.csv', 'background_conditions.csv', 'background_condition.json', 'background-condition.svg', 'background-condition.png',
+] as const;
 
 /** The background condition's tables and record, when one was subtracted. */
 function backgroundFiles(a: CohortAnalysis, sheetSource: string): [string, string][] {

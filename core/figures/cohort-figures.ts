@@ -85,7 +85,18 @@ function sigmaFigure(a: CohortAnalysis, size: Size): NamedFigure {
   return { name: 'positional-error', title, svg: positionalErrorFigure(series, { ...size, title }) };
 }
 
-/** Cohort figures: mean profiles, λ by condition, one position-vs-ln f figure per boundary/landmark, σx. */
+/** The background condition's mean profile per channel ± SE, when one was subtracted (none otherwise). */
+function backgroundFigure(a: CohortAnalysis, size: Size): NamedFigure[] {
+  const bg = a.backgroundCondition;
+  if (!bg) return [];
+  const title = `Background condition "${bg.condition}": mean profile subtracted`;
+  const subtitle = `line: mean over its ${bg.files.length} embryo${bg.files.length === 1 ? '' : 's'}; band: ± SE between them (SD/√n)`;
+  const series = bg.profiles.map((p) => ({ label: p.channel, xEl: p.xEl, mean: p.mean, sd: p.se }));
+  return [{ name: 'background-condition', title, svg: cohortProfilesFigure(series, { ...size, title, subtitle, yLabel: 'intensity after each embryo\'s own background' }) }];
+}
+
+/** Cohort figures: mean profiles, λ by condition, one position-vs-ln f figure per boundary/landmark, σx, and the
+ *  background condition's profile when one was subtracted. */
 export function cohortFigures(a: CohortAnalysis, size: Size = {}): NamedFigure[] {
-  return [profilesFigure(a, size), lambdaFigure(a, size), ...a.dosageFits.map((f) => shiftFigure(a, f.quantity, size)), sigmaFigure(a, size)];
+  return [profilesFigure(a, size), lambdaFigure(a, size), ...a.dosageFits.map((f) => shiftFigure(a, f.quantity, size)), sigmaFigure(a, size), ...backgroundFigure(a, size)];
 }

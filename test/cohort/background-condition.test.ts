@@ -41,7 +41,9 @@ describe('eggline cohort --background-condition', () => {
     const out = join(dir, 'with');
     expect(await cohortCommand([run, '--samples', sheetPath, '--background-condition', 'null-stain', '--out', out], b.io)).toBe(0);
     expect(b.out.join('')).toContain('background condition "null-stain" (3 embryos) subtracted; λ and boundaries fitted again (background_refit.csv)');
-    for (const f of ['background_profile.csv', 'background_refit.csv', 'background_conditions.csv', 'background_condition.json']) expect(existsSync(join(out, f))).toBe(true);
+    for (const f of ['background_profile.csv', 'background_refit.csv', 'background_conditions.csv', 'background_condition.json', 'background-condition.svg', 'background-condition.png']) {
+      expect(existsSync(join(out, f))).toBe(true);
+    }
     const record = JSON.parse(readFileSync(join(out, 'background_condition.json'), 'utf8'));
     expect(record.embryos).toEqual(['null_1.tif', 'null_2.tif', 'null_3.tif']);
     expect(record.namedBy).toBe('--background-condition');
@@ -59,6 +61,7 @@ describe('eggline cohort --background-condition', () => {
     expect(html).toContain('<h2 id="background">Background condition</h2>');
     expect(html).toContain('Background condition subtracted:</strong> every λ, amplitude and boundary position in this report is refitted after subtracting the mean profile of <strong>null-stain</strong> (3 embryos');
     expect(html).toContain('null_1.tif, null_2.tif, null_3.tif');
+    expect(html).toContain('<figure id="fig-background-condition">');
   });
 
   it('without the option the null staining is just another condition, and no background table is left from before', async () => {
@@ -66,6 +69,7 @@ describe('eggline cohort --background-condition', () => {
     const out = join(dir, 'with');
     expect(await cohortCommand([run, '--samples', sheetPath, '--out', out], b.io)).toBe(0);
     expect(existsSync(join(out, 'background_refit.csv'))).toBe(false);
+    expect(existsSync(join(out, 'background-condition.svg'))).toBe(false);
     expect(rowsOf(join(out, 'conditions.csv')).some((r) => r.condition === 'null-stain')).toBe(true);
     expect(readFileSync(join(out, 'report.html'), 'utf8')).not.toContain('id="background"');
   });
