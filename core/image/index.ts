@@ -19,6 +19,8 @@ export { segmentEmbryo, combinedSnr, channelSnr, checkSegmentOptions, downsample
 export type { SegmentOptions } from './segment';
 export { resolveChannel, describeChannelRef } from './channel-ref';
 export { selectKth, medianInPlace, maskedMedian } from './select';
-export { wholeNumberMedian, keptIndices } from './median-whole';
+export { wholeNumberMedian } from './median-whole';
+export { maskRuns } from './runs';
+export type { MaskRuns } from './runs';
 export { applyImageCorrections, backgroundImage, correctionMismatch, normaliseFlatField } from './corrections';
 export type { CorrectionImage, ImageCorrections } from './corrections';

@@ -1,34 +1,42 @@
 // Median of whole-number pixel values (8- and 16-bit samples projected without averaging) by one counting pass.
+import type { MaskRuns } from './runs';
 
 /** Values are counted in blocks of this many; a block holding a value that is not a whole number 0…65 535 ends the count. */
 const BLOCK = 16_384;
 
 /**
- * Counts of values[i] for the pixels with keep[i] ≠ 0 (idx null) or for the pixels idx[k] (idx given), into counts
+ * Counts of values[i] for the pixels with keep[i] ≠ 0 (runs null) or for the pixels of the runs (given), into counts
  * (4 lanes × 65 536 slots, value v of the pixel's lane j at 4·v + j); false as soon as one counted value is not a
  * whole number in 0…65 535 (then the counts are partial). `v & 0xffff` equals v exactly for those values, and
  * differs for fractions, negatives, larger values, NaN and ±∞. Four lanes: background pixels repeat a few values, and
  * increments of one counter in a row wait for each other (integer counts, so the lanes' sums are exact).
  */
-function countWhole(values: Float32Array, keep: Uint8Array, idx: Int32Array | null, counts: Uint32Array): boolean {
-  const n = idx ? idx.length : Math.min(values.length, keep.length);
+function countWhole(values: Float32Array, keep: Uint8Array, runs: MaskRuns | null, counts: Uint32Array): boolean {
+  if (runs) {
+    // A run at a time; a long run is counted in blocks, so a bad value ends the count soon.
+    for (let r = 0; r < runs.count; r++) {
+      for (let from = runs.start[r], end = runs.end[r]; from < end; from += BLOCK) {
+        if (countRange(values, from, Math.min(end, from + BLOCK), counts) !== 0) return false;
+      }
+    }
+    return true;
+  }
+  const n = Math.min(values.length, keep.length);
   for (let start = 0; start < n; start += BLOCK) {
-    const end = Math.min(n, start + BLOCK);
-    const bad = idx ? countAtIndices(values, idx, start, end, counts) : countWhereKept(values, keep, start, end, counts);
-    if (bad !== 0) return false;
+    if (countWhereKept(values, keep, start, Math.min(n, start + BLOCK), counts) !== 0) return false;
   }
   return true;
 }
 
-/** countWhole over idx[start..end): nonzero when a value was not a whole number 0…65 535. */
-function countAtIndices(values: Float32Array, idx: Int32Array, start: number, end: number, counts: Uint32Array): number {
+/** countWhole over values[from..end): nonzero when a value was not a whole number 0…65 535. */
+function countRange(values: Float32Array, from: number, end: number, counts: Uint32Array): number {
   let bad = 0;
-  let k = start;
-  for (; k + 3 < end; k += 4) {
-    const v0 = values[idx[k]];
-    const v1 = values[idx[k + 1]];
-    const v2 = values[idx[k + 2]];
-    const v3 = values[idx[k + 3]];
+  let i = from;
+  for (; i + 3 < end; i += 4) {
+    const v0 = values[i];
+    const v1 = values[i + 1];
+    const v2 = values[i + 2];
+    const v3 = values[i + 3];
     const u0 = v0 & 0xffff;
     const u1 = v1 & 0xffff;
     const u2 = v2 & 0xffff;
@@ -39,8 +47,8 @@ function countAtIndices(values: Float32Array, idx: Int32Array, start: number, en
     counts[(u2 << 2) | 2]++;
     counts[(u3 << 2) | 3]++;
   }
-  for (; k < end; k++) {
-    const v = values[idx[k]];
+  for (; i < end; i++) {
+    const v = values[i];
     const u = v & 0xffff;
     bad |= +(u !== v);
     counts[u << 2]++;
@@ -76,26 +84,23 @@ function valueAtRank(counts: Uint32Array, rank: number): number {
   return slot;
 }
 
-/** True when one of the counted values is −0 (which `& 0xffff` counts as 0). */
-function hasNegativeZero(values: Float32Array, keep: Uint8Array, idx: Int32Array | null): boolean {
-  if (idx) {
-    for (let k = 0; k < idx.length; k++) if (Object.is(values[idx[k]], -0)) return true;
-    return false;
-  }
+/** True when one of the kept values is −0 (which `& 0xffff` counts as 0); the runs, when given, are keep's. */
+function hasNegativeZero(values: Float32Array, keep: Uint8Array): boolean {
   for (let i = 0; i < Math.min(values.length, keep.length); i++) if (keep[i] !== 0 && Object.is(values[i], -0)) return true;
   return false;
 }
 
 /**
- * The median (mean of the two middle values for an even count) of the values at the kept pixels — keep[i] ≠ 0, or
- * the pixel indices idx when given (they must be the kept pixels, each once) — and their count, when every such
- * value is a whole number in 0…65 535; null otherwise (and when there is none), so the caller falls back to
- * maskedMedian. One counting pass over the kept pixels, then a walk over 65 536 counts: exact, and the same number
- * maskedMedian gives for the same values (a middle value of 0 is +0 unless a −0 is among them; then it is null too).
+ * The median (mean of the two middle values for an even count) of the values at the kept pixels (keep[i] ≠ 0) and
+ * their count, when every such value is a whole number in 0…65 535; null otherwise (and when there is none), so the
+ * caller falls back to maskedMedian. One counting pass over the kept pixels — over `runs` = maskRuns(keep, true)
+ * when given (made once for many images), so no pixel outside them is visited — then a walk over 65 536 counts:
+ * exact, and the same number maskedMedian gives for the same values (a middle value of 0 is +0 unless a −0 is among
+ * them; then it is null too).
  */
-export function wholeNumberMedian(values: Float32Array, keep: Uint8Array, idx: Int32Array | null = null): { median: number; count: number } | null {
+export function wholeNumberMedian(values: Float32Array, keep: Uint8Array, runs: MaskRuns | null = null): { median: number; count: number } | null {
   const lanes = new Uint32Array(4 * 65_536);
-  if (!countWhole(values, keep, idx, lanes)) return null;
+  if (!countWhole(values, keep, runs, lanes)) return null;
   const counts = laneTotals(lanes);
   let n = 0;
   for (let b = 0; b < 65_536; b++) n += counts[b];
@@ -103,15 +108,6 @@ export function wholeNumberMedian(values: Float32Array, keep: Uint8Array, idx: I
   const hiRank = n >> 1;
   const upper = valueAtRank(counts, hiRank);
   const lower = n % 2 === 1 ? upper : valueAtRank(counts, hiRank - 1);
-  if ((lower === 0 || upper === 0) && hasNegativeZero(values, keep, idx)) return null;
+  if ((lower === 0 || upper === 0) && hasNegativeZero(values, keep)) return null;
   return { median: n % 2 === 1 ? upper : (lower + upper) / 2, count: n };
-}
-
-/** Indices i (ascending) where keep[i] ≠ 0. */
-export function keptIndices(keep: Uint8Array): Int32Array {
-  let n = 0;
-  for (let i = 0; i < keep.length; i++) n += +(keep[i] !== 0);
-  const out = new Int32Array(n);
-  for (let i = 0, k = 0; i < keep.length; i++) if (keep[i] !== 0) out[k++] = i;
-  return out;
 }

@@ -51,6 +51,27 @@ describe('analyseMovie (demo data: a small synthetic movie)', () => {
     }
   });
 
+  it('keeps to each time point\'s own hand axis and settings while the others reuse the movie\'s bins', async () => {
+    // Time point 2 has its own hand axis, 3 its own fit range, 4 a one-sided band, 5 each side apart: each must equal that time point
+    // analysed alone with those edits (demo data), and the time points around them the plain analysis.
+    const settings = DEFAULT_SETTINGS;
+    const hand = { anterior: { x: 25, y: 72 }, posterior: { x: 178, y: 66 }, source: 'hand' as const };
+    const own = (t: number) => ({
+      handEdits: t === 2 ? { axis: hand, landmarks: [] } : null,
+      settings: t === 3 ? { ...settings, fitRangeEl: [0.15, 0.5] as const }
+        : t === 4 || t === 5 ? { ...settings, profile: { ...settings.profile, edgeSide: t === 4 ? 'dorsal' as const : 'each' as const } } : settings,
+    });
+    const times = [0, 1, 2, 3, 4, 5];
+    const m = await analyseMovie(info, syntheticMoviePlaneSource(movie), settings, { fileLabel: 'm.ome.tif', timeIndices: times, editsAt: own });
+    const source = syntheticMoviePlaneSource(movie);
+    const detection = detectEmbryo(await projectOverTime(info, source, settings, axisSampleTimes(info.sizeT, 8)), settings);
+    for (const t of times) {
+      const at = own(t);
+      expect(m.results[t], `t=${t}`).toEqual(await analyseStack(info, source, { ...at.settings, timeIndex: t }, { fileLabel: 'm.ome.tif', detection, handEdits: at.handEdits }));
+    }
+    expect(m.results[2].axis).toEqual(hand);
+  });
+
   it('reads each sampled time point once: the axis sample\'s projections serve their own analysis', async () => {
     const source = syntheticMoviePlaneSource(movie);
     const reads = new Map<number, number>();

@@ -1,7 +1,7 @@
 // Background estimates per channel: outside the embryo (robust), a drawn rectangle, or none.
 import type { BackgroundEstimate, Mask, Plane } from '../model';
 import type { BackgroundSettings } from '../settings';
-import { keptIndices, maskedMedian, sortedQuantile, squareDilate, wholeNumberMedian } from '../image';
+import { maskRuns, maskedMedian, sortedQuantile, squareDilate, wholeNumberMedian, type MaskRuns } from '../image';
 
 /** Fewest outside pixels accepted for the 'outside' estimate before falling back to a low percentile. */
 const MIN_OUTSIDE_PX = 100;
@@ -23,25 +23,25 @@ export function farFromMask(mask: Mask, marginPx: number): Uint8Array {
   return far;
 }
 
-/** The pixels far from a mask (farFromMask) as a 0/1 image and as their indices, ascending: made once per mask. */
+/** The pixels far from a mask (farFromMask) as a 0/1 image and as its runs along rows: made once per mask. */
 export interface FarPixels {
   readonly mask: Uint8Array;
-  readonly indices: Int32Array;
+  readonly runs: MaskRuns;
 }
 
-/** farFromMask with the indices of those pixels, for a series of planes measured within one mask (a movie). */
+/** farFromMask with the runs of those pixels, for a series of planes measured within one mask (a movie). */
 export function farPixels(mask: Mask, marginPx: number): FarPixels {
   const far = farFromMask(mask, marginPx);
-  return { mask: far, indices: keptIndices(far) };
+  return { mask: far, runs: maskRuns({ width: mask.width, height: mask.height, data: far }, true) };
 }
 
 /**
  * outsideBackground with the far-from-mask pixels already known (so several channels share one distance map), and
- * their indices when known (farIdx = keptIndices(far)). Whole-number values (8/16-bit samples, not averaged) take
- * their median from one counting pass (wholeNumberMedian), others from maskedMedian: the same number either way.
+ * their runs when known (farRuns = maskRuns of far). Whole-number values (8/16-bit samples, not averaged) take their
+ * median from one counting pass (wholeNumberMedian), others from maskedMedian: the same number either way.
  */
-export function outsideBackgroundFar(plane: Plane, far: Uint8Array, farIdx: Int32Array | null = null): { value: number; warning: string | null } {
-  const { median, count } = wholeNumberMedian(plane.data, far, farIdx) ?? maskedMedian(plane.data, far);
+export function outsideBackgroundFar(plane: Plane, far: Uint8Array, farRuns: MaskRuns | null = null): { value: number; warning: string | null } {
+  const { median, count } = wholeNumberMedian(plane.data, far, farRuns) ?? maskedMedian(plane.data, far);
   if (count >= MIN_OUTSIDE_PX) return { value: median, warning: null };
   const all = Float64Array.from(plane.data).sort();
   return { value: sortedQuantile(all, 0.02), warning: 'too little background outside the embryo; the 2nd percentile of the image was used as background' };
@@ -64,7 +64,7 @@ export function estimateBackgrounds(channels: readonly Plane[], names: readonly 
   knownFar: FarPixels | null = null): { backgrounds: BackgroundEstimate[]; warnings: string[] } {
   const warnings: string[] = [];
   // knownFar: farPixels(mask, marginPx) already computed for this mask (a movie's time points share one mask).
-  const far = settings.mode === 'outside' ? knownFar ?? { mask: farFromMask(mask, marginPx), indices: null } : null;
+  const far = settings.mode === 'outside' ? knownFar ?? { mask: farFromMask(mask, marginPx), runs: null } : null;
   const backgrounds = channels.map((plane, c): BackgroundEstimate => {
     if (settings.mode === 'none') return { channel: names[c], method: 'none', value: 0 };
     if (settings.mode === 'region') {
@@ -75,7 +75,7 @@ export function estimateBackgrounds(channels: readonly Plane[], names: readonly 
       }
       return { channel: names[c], method: 'region', value: v };
     }
-    const out = outsideBackgroundFar(plane, far!.mask, far!.indices);
+    const out = outsideBackgroundFar(plane, far!.mask, far!.runs);
     if (out.warning && c === 0) warnings.push(out.warning);
     return { channel: names[c], method: 'outside', value: out.value };
   });

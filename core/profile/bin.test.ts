@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { ApAxis } from '../model';
-import { binIndices, binProfile } from './bin';
+import { binIndices, binProfile, groupByBin, groupedProfile } from './bin';
 import { regionMean, outsideBackground } from './background';
 import { filledBins } from './measure';
 import { edgeSideFilter } from './samplers';
@@ -41,6 +41,44 @@ describe('binIndices / binProfile', () => {
     const f = filledBins(p);
     expect(Array.from(f.mean)).toEqual([7]);
     expect(Array.from(f.xEl)).toEqual([2.5 / 3]);
+  });
+});
+
+/** Reference binning: one pass over the pixels in order adding each to its bin, then one for the squared deviations. */
+function scatterProfile(values: Float32Array, bins: Int32Array, binCount: number): { mean: number[]; sd: number[]; n: number[] } {
+  // Source: from memory, the two-pass sample mean and SD (n − 1) of a statistics text.
+  const sum = new Float64Array(binCount);
+  const n = new Float64Array(binCount);
+  for (let k = 0; k < bins.length; k++) if (bins[k] >= 0) { sum[bins[k]] += values[k]; n[bins[k]]++; }
+  const mean = Array.from(sum, (s, b) => (n[b] > 0 ? s / n[b] : NaN));
+  const ss = new Float64Array(binCount);
+  for (let k = 0; k < bins.length; k++) if (bins[k] >= 0) { const d = values[k] - mean[bins[k]]; ss[bins[k]] += d * d; }
+  return { mean, sd: Array.from(ss, (v, b) => (n[b] > 1 ? Math.sqrt(v / (n[b] - 1)) : n[b] === 1 ? 0 : NaN)), n: Array.from(n) };
+}
+
+describe('groupByBin / groupedProfile', () => {
+  it('groups pixels by bin in ascending order, leaving out unbinned ones (hand count)', () => {
+    // Source: hand count: bins [2, −1, 0, 2, 0] of 3 → bin 0: pixels 2, 4; bin 1: none; bin 2: pixels 0, 3.
+    const g = groupByBin(Int32Array.from([2, -1, 0, 2, 0]), 3);
+    expect(Array.from(g.order)).toEqual([2, 4, 0, 3]);
+    expect(Array.from(g.start)).toEqual([0, 2, 2, 4]);
+  });
+
+  it('gives bit for bit the profile of one pass over the pixels in order, on seeded data with empty and unbinned pixels', () => {
+    // Demo data: seeded values with a wide range (so the order of the additions shows in the last bits).
+    let seed = 12345;
+    const rnd = (): number => { seed = (Math.imul(seed, 1664525) + 1013904223) >>> 0; return seed / 4294967296; };
+    for (const count of [1, 7, 5000]) {
+      const binCount = 37;
+      const bins = Int32Array.from({ length: count }, () => (rnd() < 0.2 ? -1 : Math.floor(rnd() * (binCount - 3))));
+      const values = Float32Array.from({ length: count }, () => (rnd() - 0.2) * 10 ** Math.floor(rnd() * 6));
+      const ref = scatterProfile(values, bins, binCount);
+      const p = groupedProfile(values, groupByBin(bins, binCount), 'g', 100);
+      expect(Array.from(p.mean)).toEqual(ref.mean);
+      expect(Array.from(p.sd)).toEqual(ref.sd);
+      expect(Array.from(p.n)).toEqual(ref.n);
+      expect(binProfile(values, bins, binCount, 'g', 100)).toEqual(p);
+    }
   });
 });
 

@@ -7,7 +7,7 @@ import { axisLengthPx, distanceOutsideMaskPx, projectPointOntoAxis } from '../ge
 import { findBoundaries, fitExponentialDecay } from '../fit';
 import { notDecayingWarning } from '../stats';
 import type { PreparedSampling } from './samplers';
-import { binProfile } from './bin';
+import { binProfile, groupByBin, groupedProfile, type BinGroups } from './bin';
 import { checkSamplingSettings } from './check-settings';
 import { measureSides, type SideProfiles } from './sides';
 
@@ -126,6 +126,19 @@ export interface SampledProfiles {
 }
 
 /**
+ * The sampler's bins of the region pixels along `axis`, grouped by bin: remembered in prepared.binning (when the
+ * preparation has one) for the next preparation of the series measured along the same axis with the same settings.
+ */
+function binGroupsAlong(prepared: PreparedSampling, axis: ApAxis, settings: AnalysisSettings): BinGroups {
+  const binCount = settings.profile.binCount;
+  const memo = prepared.binning;
+  if (!memo) return groupByBin(prepared.sampler.bins(prepared, axis, settings), binCount);
+  const key = JSON.stringify([axis, { ...settings, timeIndex: 0 }]);
+  if (memo.last?.key !== key) memo.last = { key, groups: groupByBin(prepared.sampler.bins(prepared, axis, settings), binCount) };
+  return memo.last.groups;
+}
+
+/**
  * Sample along `axis` with the prepared sampler: its bins for every region pixel, then one profile per channel used
  * (gradient, boundary channels), background subtracted.
  */
@@ -135,16 +148,15 @@ export function sampleProfiles(prepared: PreparedSampling, axis: ApAxis, setting
   const warnings = [...prepared.warnings, ...polesOutsideWarnings(prepared.mask, axis, px)];
   const axisPx = axisLengthPx(axis);
   const eggLengthUm = px !== null ? axisPx * px : null;
-  const binCount = settings.profile.binCount;
-  const bins = prepared.sampler.bins(prepared, axis, settings);
+  const groups = binGroupsAlong(prepared, axis, settings);
   const values = prepared.region.pixels.values;
-  const profileOf = (c: number): Profile => binProfile(values[c], bins, binCount, prepared.channelNames[c], eggLengthUm);
+  const profileOf = (c: number): Profile => groupedProfile(values[c], groups, prepared.channelNames[c], eggLengthUm);
   const gradientWarnings: string[] = [];
   const g = resolveRefs([settings.gradientChannel], prepared.channelNames, 'gradient', gradientWarnings)[0] ?? null;
   const boundaryWarnings: string[] = [];
   const bc = resolveRefs(settings.boundaryChannels, prepared.channelNames, 'boundary', boundaryWarnings);
   const sideBins = g !== null ? prepared.sampler.sideBins?.(prepared, axis, settings) ?? null : null;
-  const sideProfile = (b: Int32Array): Profile => binProfile(values[g!], b, binCount, prepared.channelNames[g!], eggLengthUm);
+  const sideProfile = (b: Int32Array): Profile => binProfile(values[g!], b, settings.profile.binCount, prepared.channelNames[g!], eggLengthUm);
   return {
     axis, axisPx, pixelSizeUm: px, eggLengthUm, gradient: g, gradientProfile: g !== null ? profileOf(g) : null,
     boundaryChannels: bc, boundaryProfiles: bc.map(profileOf),

@@ -5,7 +5,7 @@ import { foregroundBox } from '../image';
 import { estimateBackgrounds, farPixels, type FarPixels } from './background';
 import { checkSamplingSettings } from './check-settings';
 import { PROFILE_SAMPLERS, samplerFor } from './samplers';
-import type { MaskBox, PixelSet, PreparedSampling, ProfileSampler, SamplingBase } from './samplers';
+import type { BinningMemo, MaskBox, PixelSet, PreparedSampling, ProfileSampler, SamplingBase } from './samplers';
 
 export type { PixelSet, PreparedSampling } from './samplers';
 
@@ -18,20 +18,30 @@ type Box = MaskBox | null;
  * in small functions" in DEVELOPERS.md).
  */
 function pixelSet(projected: ProjectedStack, keep: Uint8Array, backgrounds: readonly BackgroundEstimate[], box: Box): PixelSet {
-  const { width } = projected.channels[0];
+  const { idx, xs, ys } = keptPositions(keep, projected.channels[0].width, box);
+  return { xs, ys, values: valuesAt(projected, idx, backgrounds) };
+}
+
+/** Index, column and row of each pixel with keep[i] = 1 within the box (row-major): the pixels gather lists. */
+function keptPositions(keep: Uint8Array, width: number, box: Box): { idx: Int32Array; xs: Float32Array; ys: Float32Array } {
   const { x0, y0, x1, y1 } = box ?? { x0: 0, y0: 0, x1: 0, y1: 0 };
   const n = countKept(keep, width, x0, y0, x1, y1);
   const idx = new Int32Array(n);
   const xs = new Float32Array(n);
   const ys = new Float32Array(n);
   keptPixelPositions(keep, width, x0, y0, x1, y1, idx, xs, ys);
+  return { idx, xs, ys };
+}
+
+/** The background-subtracted values of every channel at the pixels idx. */
+function valuesAt(projected: ProjectedStack, idx: Int32Array, backgrounds: readonly BackgroundEstimate[]): Float32Array[] {
   const values: Float32Array[] = [];
   for (let c = 0; c < projected.channels.length; c++) {
-    const v = new Float32Array(n);
+    const v = new Float32Array(idx.length);
     subtractAt(projected.channels[c].data, idx, backgrounds[c].value, v);
     values.push(v);
   }
-  return { xs, ys, values };
+  return values;
 }
 
 /** Number of pixels with keep[i] = 1 in [x0, x1) × [y0, y1). */
@@ -102,17 +112,25 @@ interface MaskBasics {
 
 /** The parts of a preparation that depend on the mask and the settings only, not on the pixel values. */
 interface MaskParts extends MaskBasics {
-  /** The sampler's region mask (its pixels are gathered again for every projection). */
+  /** The sampler's region mask. */
   readonly region: Mask;
+  /** Its pixels' indices and positions (row-major, as gather lists them): only their values change per projection. */
+  readonly idx: Int32Array;
+  readonly xs: Float32Array;
+  readonly ys: Float32Array;
+  /** The bins along the last axis measured, shared by every preparation made from these parts. */
+  readonly binning: BinningMemo;
 }
 
 /**
  * prepareSampling for a series of projections measured within one detection (a movie whose embryo is found once):
  * the first call prepares as prepareSampling does; later calls with the same pixel size, channels and sampling and
- * background settings reuse what depends on the mask alone (its box, the pixels far from it, the sampler's region:
- * the edge band's distance map is the costly part) and only estimate the backgrounds and gather the pixel values
- * again. Each call gives what prepareSampling gives on that projection (the region's pixels are by contract
- * base.gather(region.mask.data)); other settings are prepared from scratch.
+ * background settings reuse what depends on the mask alone (its box, the pixels far from it and their index list,
+ * the sampler's region and its pixels' positions: the edge band's distance map is the costly part) and only
+ * estimate the backgrounds and take the region pixels' values again. The preparations share a BinningMemo, so
+ * measuring them along the same axis with the same settings bins the pixels once. Each call gives what
+ * prepareSampling gives on that projection (the region's pixels are by contract base.gather(region.mask.data));
+ * other settings are prepared from scratch.
  */
 export function samplingWithin(detection: Detection, samplers: readonly ProfileSampler[] = PROFILE_SAMPLERS): (projected: ProjectedStack, settings: AnalysisSettings) => PreparedSampling {
   let kept: { key: string; parts: MaskParts } | null = null;
@@ -122,11 +140,15 @@ export function samplingWithin(detection: Detection, samplers: readonly ProfileS
       // The box and the far pixels are made once here and given to the first preparation too, not made twice.
       const far = settings.background.mode === 'outside' ? farPixels(detection.mask, backgroundMarginPx(projected.pixelSizeUm)) : null;
       const prepared = prepareSampling(projected, detection, settings, samplers, { box: foregroundBox(detection.mask), far });
-      kept = { key, parts: { box: prepared.box, far, region: prepared.region.mask } };
-      return prepared;
+      const { mask } = prepared.region;
+      const parts = { box: prepared.box, far, region: mask, ...keptPositions(mask.data, mask.width, prepared.box), binning: { last: null } };
+      kept = { key, parts };
+      return { ...prepared, binning: parts.binning };
     }
-    const base = samplingBase(projected, detection, settings, kept.parts);
+    const { parts } = kept;
+    const base = samplingBase(projected, detection, settings, parts);
     const sampler = samplerFor(settings.profile.mode, samplers);
-    return { ...base, sampler, region: { mask: kept.parts.region, pixels: base.gather(kept.parts.region.data) } };
+    const pixels = { xs: parts.xs, ys: parts.ys, values: valuesAt(projected, parts.idx, base.backgrounds) };
+    return { ...base, sampler, region: { mask: parts.region, pixels }, binning: parts.binning };
   };
 }

@@ -5,7 +5,7 @@ import { AXIS_STRIP } from './axis-strip';
 import { EDGE_BAND } from './edge-band';
 import type { ProfileSampler } from './types';
 
-export type { MaskBox, PixelSet, PreparedSampling, ProfileSampler, SampledRegion, SamplingBase, SideBins } from './types';
+export type { BinningMemo, MaskBox, PixelSet, PreparedSampling, ProfileSampler, SampledRegion, SamplingBase, SideBins } from './types';
 export { EDGE_BAND, edgeDepthPx, edgeSideFilter } from './edge-band';
 export { AXIS_STRIP, stripHalfWidthPx } from './axis-strip';
 export { rowsWhere } from './rows';

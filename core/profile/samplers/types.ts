@@ -1,6 +1,7 @@
 // The one interface every profile mode implements, and the data it prepares from and into.
 import type { ApAxis, BackgroundEstimate, ImagePoint, Mask } from '../../model';
 import type { AnalysisSettings } from '../../settings';
+import type { BinGroups } from '../bin';
 
 /** Pixel positions (px, pixel centres) and background-subtracted values of every channel at those pixels. */
 export interface PixelSet {
@@ -37,10 +38,21 @@ export interface SampledRegion {
   readonly pixels: PixelSet;
 }
 
+/**
+ * The last bins of a series of preparations whose region pixels lie at the same positions (samplingWithin: a movie's
+ * time points), with the axis and settings they were made for (key), so a time point measured along the same axis
+ * with the same settings is not binned again.
+ */
+export interface BinningMemo {
+  last: { readonly key: string; readonly groups: BinGroups } | null;
+}
+
 /** A sampler's preparation together with the base it was made from: what measuring along an axis needs. */
 export interface PreparedSampling extends SamplingBase {
   readonly sampler: ProfileSampler;
   readonly region: SampledRegion;
+  /** Shared by the preparations of one samplingWithin (same region pixel positions); absent = bin every time. */
+  readonly binning?: BinningMemo;
 }
 
 /**
