@@ -22,7 +22,8 @@ export interface SegmentOptions {
   /** Run the coarse stage on 2×2-averaged images (1 or 2); null = 2 for images over 500 000 pixels. @default null */
   readonly coarseDownsample?: 1 | 2 | null;
   /** Segment on images binned by this integer factor, upsample the mask and refine its edge at full resolution;
-   * null = the smallest factor that brings the long side to at most 384 px (1 for smaller images). @default null */
+   * null = the smallest factor that brings the long side to at most 384 px (1 for smaller images), limited so the
+   * short side keeps at least 64 px (autoBinFactor). @default null */
   readonly binFactor?: number | null;
 }
 
@@ -221,6 +222,16 @@ const REFINE_RING_PX = 32;
 /** Long side (px) that automatic binning aims at: large enough for the outline, small enough to be quick. */
 const BINNED_LONG_SIDE_PX = 384;
 
+/** Short side (px) a binned image keeps at least: thinner frames (strips, line scans) are segmented unbinned. */
+const BINNED_MIN_SHORT_SIDE_PX = 64;
+
+/** Automatic bin factor: the smallest that brings the long side to at most 384 px, but none that would leave the
+ *  short side under 64 px. */
+export function autoBinFactor(width: number, height: number): number {
+  const f = Math.ceil(Math.max(width, height) / BINNED_LONG_SIDE_PX);
+  return Math.max(1, Math.min(f, Math.floor(Math.min(width, height) / BINNED_MIN_SHORT_SIDE_PX)));
+}
+
 /**
  * Mean of f×f blocks (x = column, y = row); blocks cut by the right or bottom edge average the pixels they hold.
  * Each block's sum runs in float64 from 0, row by row and left to right within a row.
@@ -366,7 +377,7 @@ export function segmentEmbryo(channels: readonly Plane[], options: SegmentOption
   const o = checkSegmentOptions(options);
   if (channels.length === 0) throw new Error('segmentEmbryo needs at least one channel');
   const { width, height } = channels[0];
-  const bin = o.binFactor ?? Math.ceil(Math.max(width, height) / BINNED_LONG_SIDE_PX);
+  const bin = o.binFactor ?? autoBinFactor(width, height);
   if (bin === 1) return segmentAtScale(channels, o);
   // Pixel-sized options shrink with the image; the binned image is small, so its coarse stage runs at full scale.
   const small = segmentAtScale(channels.map((c) => binMean(c, bin)), {
