@@ -50,6 +50,7 @@ export function summariseCohort(
     reportPath: join(outDir, 'report.html'), sampleSheetPath, reference: a.reference, level: a.options.level,
     referenceLambda: a.referenceLambda, conditions: conditionRows(a), stats: a.stats, shifts: a.shifts, dosageFit: a.dosageFits,
     figures: figures.map((f) => ({ name: f.name, title: f.title, svg: f.svg })), warnings: [...backgroundNote(a), ...a.warnings],
+    backgroundCondition: a.backgroundCondition?.condition ?? null,
   };
 }
 

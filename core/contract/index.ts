@@ -123,6 +123,8 @@ export interface CohortSummary {
   readonly dosageFit: readonly DosageFit[];
   readonly figures: readonly CohortFigure[];
   readonly warnings: readonly string[];
+  /** The condition subtracted as background (left out of the comparison), when one was; absent or null: none. */
+  readonly backgroundCondition?: string | null;
 }
 
 /** A value with its confidence interval (NaN where not measured). */
