@@ -86,6 +86,27 @@ function ShiftTable({ c }: { c: CohortSummary }) {
   );
 }
 
+/** σx per condition at a few positions, with the normalisation it follows (positional_error.csv has every position). */
+function PositionalErrorTable({ c }: { c: CohortSummary }) {
+  const rows = c.positionalError ?? [];
+  if (rows.length === 0) return null;
+  const pct = Math.round(c.level * 100);
+  const xs = rows[0].points.map((p) => p.xEl);
+  return (
+    <div className="table-scroll" data-testid="cohort-sigma-scroll">
+      <h4>Positional error σx, x/EL [{pct}% CI] <span className="muted">after normalisation <code data-testid="cohort-sigma-normalisation">{rows[0].normalisation}</code>; every position in positional_error.csv</span></h4>
+      <table className="results cohort-table" data-testid="cohort-sigma">
+        <thead><tr><th>condition</th>{xs.map((x) => <th key={x}>x = {sigFig(x, 2)} EL</th>)}</tr></thead>
+        <tbody>{rows.map((r) => (
+          <tr key={r.condition} data-testid="cohort-sigma-row" data-condition={r.condition}>
+            <td>{r.condition}</td>
+            {r.points.map((p) => <td key={p.xEl} data-x={sigFig(p.xEl, 2)}>{withCi(p.sigmaXEl, p.ciLowEl, p.ciHighEl)}</td>)}
+          </tr>))}</tbody>
+      </table>
+    </div>
+  );
+}
+
 function DosageTest({ c }: { c: CohortSummary }) {
   if (c.reference === null) return <p className="muted">Dosage test skipped: no reference condition (give the reference dosage 1 in samples.csv).</p>;
   if (c.dosageFit.length === 0 && c.shifts.length === 0) return <p className="muted">Dosage test: no boundary or landmark positions to compare.</p>;
@@ -103,13 +124,14 @@ function DosageTest({ c }: { c: CohortSummary }) {
 function ConditionsView({ c, outDir, onOpenReport, options }: { c: CohortSummary; outDir: string; onOpenReport: (path: string) => void; options?: ComparisonOptionsProps }) {
   return (
     <section className="panel cohort" data-testid="cohort-view">
-      <h3>Cohort <span className="muted">last batch · {c.conditions.length} conditions from <code>{c.sampleSheetPath}</code> · reference: {c.reference ?? 'none'}</span></h3>
+      <h3>Cohort <span className="muted">last batch · {c.conditions.length} conditions from <code data-testid="cohort-sheet">{c.sampleSheetPath}</code> · reference: {c.reference ?? 'none'}</span></h3>
       <p className="muted small"><button data-testid="cohort-open-report" onClick={() => onOpenReport(c.reportPath)} title="Open report.html in the system's browser">Open report</button>{' '}
         <code data-testid="cohort-report">{c.reportPath}</code> · tables (conditions.csv, shifts.csv, dosage_fit.csv) in <code>{outDir}</code></p>
       {options && <ComparisonOptions {...options} />}
       {options && <p className="muted small" data-testid="cohort-options-note">The files in <code>{outDir}</code> (report.html, the tables) keep the options of the batch that wrote them; the window shows the options above.</p>}
       <ConditionTable c={c} />
       <DosageTest c={c} />
+      <PositionalErrorTable c={c} />
       {c.warnings.length > 0 && <ul className="warnings" data-testid="cohort-warnings">{c.warnings.map((w) => <li key={w}>{w}</li>)}</ul>}
       <div className="figures cohort-figures">
         {c.figures.map((f) => <figure key={f.name} className="figure" data-testid="cohort-figure" data-name={f.name} title={f.title} dangerouslySetInnerHTML={{ __html: f.svg }} />)}
