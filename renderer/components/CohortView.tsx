@@ -96,11 +96,11 @@ function PositionalErrorTable({ c }: { c: CohortSummary }) {
     <div className="table-scroll" data-testid="cohort-sigma-scroll">
       <h4>Positional error σx, x/EL [{pct}% CI] <span className="muted">after normalisation <code data-testid="cohort-sigma-normalisation">{rows[0].normalisation}</code>; every position in positional_error.csv</span></h4>
       <table className="results cohort-table" data-testid="cohort-sigma">
-        <thead><tr><th>condition</th>{xs.map((x) => <th key={x}>x = {sigFig(x, 2)} EL</th>)}</tr></thead>
+        <thead><tr><th>condition</th>{xs.map((x) => <th key={x}>x = {x.toFixed(1)} EL</th>)}</tr></thead>
         <tbody>{rows.map((r) => (
           <tr key={r.condition} data-testid="cohort-sigma-row" data-condition={r.condition}>
             <td>{r.condition}</td>
-            {r.points.map((p) => <td key={p.xEl} data-x={sigFig(p.xEl, 2)}>{withCi(p.sigmaXEl, p.ciLowEl, p.ciHighEl)}</td>)}
+            {r.points.map((p) => <td key={p.xEl} data-x={p.xEl.toFixed(1)}>{withCi(p.sigmaXEl, p.ciLowEl, p.ciHighEl)}</td>)}
           </tr>))}</tbody>
       </table>
     </div>
