@@ -1,5 +1,6 @@
 // Adapter to the cohort step (per-condition statistics after a batch), owned by the cohort area.
 import type { EmbryoResult } from '../../core/model';
+import type { Normalisation } from '../../core/cohort';
 import { runCohortStep, type CohortStepResult } from '../cohort/run-cohort';
 import { timelapseReportSection } from './timelapse-page';
 import { movieFigures, type MovieFailure, type MovieOutcome } from './timelapse-pass';
@@ -12,6 +13,10 @@ export interface CohortStepOptions {
   readonly reference: string | null;
   /** The condition subtracted as background (see runCohortStep); null or absent: from the sheet's role column. */
   readonly backgroundCondition?: string | null;
+  /** Profile normalisation, opposing gradient's λ and equivalence margin (see runCohortStep); absent: the defaults. */
+  readonly normalisation?: Normalisation;
+  readonly lambdaPosteriorEl?: number | null;
+  readonly equivalenceMargin?: number | null;
   readonly outDir: string;
   readonly runRecord: unknown;
   /** The batch's movies and failed movies: the report gets a time-lapse section with their figures. */

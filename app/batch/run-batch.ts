@@ -11,7 +11,7 @@ import {
 } from '../../core/batch';
 import type { BatchProgress, BatchSummary, ProjectDoc } from '../../core/contract';
 import { errorResult, type EmbryoResult, type MovieRecord } from '../../core/model';
-import type { CohortAnalysis } from '../../core/cohort';
+import type { CohortAnalysis, Normalisation } from '../../core/cohort';
 import type { NamedFigure } from '../../core/figures';
 import { settingsInForce, type AnalysisSettings } from '../../core/settings';
 import type { ShardSpec } from '../../core/shard';
@@ -59,7 +59,11 @@ export interface RunBatchOptions {
   /** Reuse the results the journal in outDir holds for files whose bytes and settings are unchanged. */
   readonly resume?: boolean;
   /** Run the cohort step afterwards with this sample sheet. */
-  readonly cohort?: { readonly sampleSheetPath: string; readonly reference: string | null; readonly backgroundCondition?: string | null } | null;
+  readonly cohort?: {
+    readonly sampleSheetPath: string; readonly reference: string | null; readonly backgroundCondition?: string | null;
+    /** The cohort step's other options (see runCohortStep); absent: its defaults. */
+    readonly normalisation?: Normalisation; readonly lambdaPosteriorEl?: number | null; readonly equivalenceMargin?: number | null;
+  } | null;
   /** Analyse only this part of the sorted, size-balanced file list, writing to `<outDir>/parts/K-of-N`. */
   readonly shard?: ShardSpec | null;
   /** Analyse every file with more than one time point per time point after the main pass (absent or null: not). */
@@ -362,6 +366,7 @@ async function runListed(opts: RunBatchOptions, listed: ListedRun): Promise<Batc
     const { runCohort } = await import('./cohort-adapter');
     const step = await runCohort({
       results: embryoResults(keyed), failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, backgroundCondition: opts.cohort.backgroundCondition ?? null, outDir, runRecord: final,
+      normalisation: opts.cohort.normalisation, lambdaPosteriorEl: opts.cohort.lambdaPosteriorEl ?? null, equivalenceMargin: opts.cohort.equivalenceMargin ?? null,
       movies: timelapse.movies, movieFailures: timelapse.failures,
     });
     written.push(...step.written);

@@ -4,7 +4,7 @@
 // results alone, so a merge of parts makes the same one.
 import { promises as fs } from 'node:fs';
 import { join } from 'node:path';
-import { editsForFile, embryoMeasureRow, EMBRYO_MEASURE_COLUMNS, normalizeResult, summaryBoundary } from '../../core/batch';
+import { editsForFile, embryoMeasureRow, EMBRYO_MEASURE_COLUMNS, normalizeResult, sideCells, SIDE_COLUMNS, summaryBoundary } from '../../core/batch';
 import { toCsv, type CsvValue } from '../../core/csv';
 import type { ProjectDoc } from '../../core/contract';
 import { accumulationFigure, figureSlug, kymographFigure, lambdaOverTimeFigure, type AccumulationFigureInput, type KymographInput, type LambdaPoint } from '../../core/figures';
@@ -197,10 +197,10 @@ function timeCell(m: MovieOutcome, k: number): CsvValue {
   return m.timesS ? m.timesS[k] : null;
 }
 
-/** timecourse.csv: file, t_index, t_s, then every embryos.csv column after `file`. */
+/** timecourse.csv: file, t_index, t_s, then every embryos.csv column after `file` (its measurements and each side's). */
 export function timecourseCsv(movies: readonly MovieOutcome[]): string {
-  const rows = movies.flatMap((m) => m.results.map((r, k) => [m.file, m.timeIndices[k], timeCell(m, k), ...embryoMeasureRow(r).slice(1)]));
-  return toCsv(['file', 't_index', 't_s', ...EMBRYO_MEASURE_COLUMNS.slice(1)], rows);
+  const rows = movies.flatMap((m) => m.results.map((r, k) => [m.file, m.timeIndices[k], timeCell(m, k), ...embryoMeasureRow(r).slice(1), ...sideCells(r)]));
+  return toCsv(['file', 't_index', 't_s', ...EMBRYO_MEASURE_COLUMNS.slice(1), ...SIDE_COLUMNS], rows);
 }
 
 /** timecourse_profiles.csv: every channel's profile at every analysed time point (long format). */

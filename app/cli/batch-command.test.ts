@@ -61,7 +61,7 @@ describe('planBatch', () => {
   it('--background-condition goes with --samples to the cohort step', async () => {
     writeFileSync(join(root, 'samples.csv'), 'file,condition\na.tif,null-stain\n');
     const plan = await planBatch([input, '--out', join(root, 'o'), '--samples', join(root, 'samples.csv'), '--background-condition', 'null-stain']);
-    expect(plan !== 'help' && plan.backgroundCondition).toBe('null-stain');
+    expect(plan !== 'help' && plan.cohort.backgroundCondition).toBe('null-stain');
     await expect(planBatch([input, '--out', join(root, 'o'), '--background-condition', 'null-stain'])).rejects.toThrow('--background-condition needs --samples');
   });
 });

@@ -19,6 +19,7 @@ import { DEFAULT_CPUS_PER_TASK, joinSlurmOptions, partArguments, submitCommands,
 import { UsageError, type CliIo } from './usage-error';
 import { parseTimelapseFlags, reportTimelapse } from './timelapse-step';
 import type { TimelapseOptions } from '../batch/timelapse-options';
+import { cohortChoices, type CohortChoices } from '../cohort/cohort-choices';
 
 /** One flag per analysis setting, from the settings table (core/settings SETTINGS). */
 const SETTING_OPTIONS = Object.fromEntries(SETTINGS.map((s) => [s.flag.slice(2), s.repeatable ? { type: 'string', multiple: true } : { type: 'string' }])) as
@@ -47,9 +48,9 @@ export interface BatchPlan {
   readonly projectFile: string | null;
   readonly configFile: string | null;
   readonly samples: string | null;
-  readonly reference: string | null;
-  /** The sample sheet's condition subtracted as background (--background-condition). */
-  readonly backgroundCondition: string | null;
+  /** The cohort step's options: --reference and --background-condition over the project's cohort entry over the
+   *  defaults (reference, backgroundCondition, normalisation, lambdaPosteriorEl, equivalenceMargin). */
+  readonly cohort: CohortChoices;
   readonly timeoutS: number | undefined;
   readonly resume: boolean;
   readonly maxMemoryBytes: number;
@@ -149,7 +150,8 @@ export async function planBatch(given: readonly string[]): Promise<BatchPlan | '
     folder, outDir: resolve(v.out), settings: mergeSettings(DEFAULT_SETTINGS, project.doc?.settings ?? {}, config, flags), doc: project.doc,
     jobs,
     projectFile: project.path, configFile: v.config !== undefined ? resolve(v.config) : null,
-    samples: v.samples !== undefined ? resolve(v.samples) : null, reference: v.reference ?? null, backgroundCondition: v['background-condition'] ?? null,
+    samples: v.samples !== undefined ? resolve(v.samples) : null,
+    cohort: cohortChoices(project.doc?.cohort, { reference: v.reference, backgroundCondition: v['background-condition'] }),
     timeoutS: timeoutText !== undefined ? runFlag('fileTimeoutS', timeoutText) : undefined,
     resume: v.resume === true, maxMemoryBytes: maxMemory, notes: project.note ? [project.note] : [], shard,
     timelapse: parseTimelapseFlags({ time: v.time, axisPerTime: v['axis-per-time'], timeStep: v['time-step'], tauRange: v['tau-range'], baselineFrames: v['baseline-frames'] }),
@@ -213,8 +215,9 @@ function reportEnd(io: CliIo, summary: BatchRunResult, plan: BatchPlan): void {
 /** `--slurm N`: write the two scripts and print how to submit them; analyses nothing. */
 async function slurmCommand(plan: BatchPlan, io: CliIo, cliPath: string): Promise<number> {
   const slurm = plan.slurm as NonNullable<BatchPlan['slurm']>;
-  const mergeArgs = plan.samples ? ['--samples', plan.samples, ...(plan.reference !== null ? ['--reference', plan.reference] : []),
-    ...(plan.backgroundCondition !== null ? ['--background-condition', plan.backgroundCondition] : [])] : [];
+  const c = plan.cohort;
+  const mergeArgs = plan.samples ? ['--samples', plan.samples, ...(c.reference !== null ? ['--reference', c.reference] : []),
+    ...(c.backgroundCondition !== null ? ['--background-condition', c.backgroundCondition] : [])] : [];
   const { plan: p, arrayPath, mergePath } = await writeSlurmScripts({
     folder: plan.folder, outDir: plan.outDir, parts: slurm.parts, cpusPerTask: slurm.cpusPerTask, optionsText: slurm.options,
     batchArgs: slurm.partArgs, mergeArgs, nodePath: process.execPath, cliPath,
@@ -255,7 +258,7 @@ export async function batchCommand(argv: readonly string[], io: CliIo, extra: Pa
       folder: plan.folder, outDir: plan.outDir, settings: plan.settings, doc: plan.doc, jobs: plan.jobs,
       onProgress: printer.onProgress, signal: abort.signal, timeoutPerFileS: plan.timeoutS, resume: plan.resume, maxMemoryBytes: plan.maxMemoryBytes,
       commandLine: ['eggline', 'batch', ...argv], projectFile: plan.projectFile, configFile: plan.configFile,
-      cohort: plan.samples ? { sampleSheetPath: plan.samples, reference: plan.reference, backgroundCondition: plan.backgroundCondition } : null, shard: plan.shard,
+      cohort: plan.samples ? { sampleSheetPath: plan.samples, ...plan.cohort } : null, shard: plan.shard,
       timelapse: plan.timelapse, onMovie: (file, done) => io.stderr.write(`eggline: time analysis ${done}: ${file}\n`), ...extra,
     });
     printer.end();

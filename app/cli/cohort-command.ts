@@ -8,6 +8,8 @@ import { timelapseReportSection } from '../batch/timelapse-page';
 import { movieFigures, movieOutcomes } from '../batch/timelapse-pass';
 import type { FilenameRule, Normalisation } from '../../core/cohort';
 import { runCohortStep } from '../cohort/run-cohort';
+import { cohortChoices, type CohortChoices, type CohortFlags } from '../cohort/cohort-choices';
+import { loadProjectOrBackup } from '../project';
 
 /** Streams the command writes to (process.stdout/stderr, or buffers in tests). */
 export interface CohortCommandIo {
@@ -43,6 +45,8 @@ Options:
                               two-gradient prediction Δx = ln f / (1/λ_A + 1/λ_P)
   --equivalence-margin M      also test whether observed/predicted lies within 1 ± M (two one-sided
                               tests on the 90% interval); 0 < M < 1                        [none]
+  --project FILE              take the options above from the project file's cohort entry (as the
+                              window saves them); a flag given here overrides the project's value
   --out DIR                   output folder                          [default: <results-dir>/cohort]
   -h, --help                  show this help
 
@@ -55,6 +59,10 @@ interface CohortPlan {
   resultsDir: string; samples: string | null; rule: FilenameRule | null; reference: string | null;
   normalisation: Normalisation; lambdaPosteriorEl: number | null; equivalenceMargin: number | null; outDir: string;
   backgroundCondition: string | null;
+  /** The project file whose cohort options apply (--project), or null. */
+  project: string | null;
+  /** The options given as flags (undefined: not given), for the precedence flag > project > default. */
+  flags: CohortFlags;
 }
 
 /** `--dosage COND=F` values as a map, or a usage message. */
@@ -72,7 +80,7 @@ function parseDosages(values: readonly string[]): Record<string, number> | { usa
 const COHORT_OPTIONS = {
   samples: { type: 'string' }, pattern: { type: 'string' }, dosage: { type: 'string', multiple: true },
   reference: { type: 'string' }, 'background-condition': { type: 'string' }, normalise: { type: 'string' }, 'lambda-posterior-el': { type: 'string' },
-  'equivalence-margin': { type: 'string' },
+  'equivalence-margin': { type: 'string' }, project: { type: 'string' },
   out: { type: 'string' }, help: { type: 'boolean', short: 'h' },
 } as const;
 
@@ -102,7 +110,21 @@ export function parseCohortArgs(argv: readonly string[]): CohortPlan | 'help' | 
   if (bgc !== undefined && bgc.trim() === '') return { usage: '--background-condition needs a condition name' };
   const resultsDir = parsed.positionals[0];
   const rule = v.pattern ? { pattern: v.pattern, dosages: dosages as Record<string, number> } : null;
-  return { resultsDir, samples: v.samples ?? null, rule, reference: v.reference ?? null, normalisation: (v.normalise ?? 'scale-offset') as Normalisation, lambdaPosteriorEl, equivalenceMargin, outDir: v.out ?? join(resultsDir, 'cohort'), backgroundCondition: bgc ?? null };
+  if (v.project !== undefined && v.project.trim() === '') return { usage: '--project needs a project file' };
+  const flags: CohortFlags = {
+    reference: v.reference, backgroundCondition: bgc, normalisation: v.normalise as Normalisation | undefined,
+    lambdaPosteriorEl: lambdaPosteriorEl ?? undefined, equivalenceMargin: equivalenceMargin ?? undefined,
+  };
+  const c = cohortChoices(null, flags);
+  return { resultsDir, samples: v.samples ?? null, rule, ...c, outDir: v.out ?? join(resultsDir, 'cohort'), project: v.project ?? null, flags };
+}
+
+/** The plan's options with the project's cohort entry under the flags (flag > project > default); rejects with one
+ *  line naming the project file when it cannot be read or checked. */
+export async function planChoices(plan: CohortPlan): Promise<{ choices: CohortChoices; warning: string | null }> {
+  if (plan.project === null) return { choices: cohortChoices(null, plan.flags), warning: null };
+  const loaded = await loadProjectOrBackup(plan.project);
+  return { choices: cohortChoices(loaded.doc.cohort, plan.flags), warning: loaded.warning };
 }
 
 async function readOptionalJson(path: string): Promise<unknown> {
@@ -132,13 +154,15 @@ export async function cohortCommand(argv: readonly string[], io: CohortCommandIo
     } catch (e) {
       throw new Error(`${resultsPath}: ${(e as Error).message.replace(/^results\.json: /, '')}`);
     }
+    const { choices, warning } = await planChoices(plan);
+    if (warning !== null) io.stderr.write(`warning: ${warning}\n`);
     const runRecord = await readOptionalJson(join(plan.resultsDir, 'run.json'));
     // Movies analysed over time get the report's time-lapse section, made again from their records and results.
     const { movies, failures: movieFailures } = movieOutcomes(doc.movies, doc.results);
     const timelapseHtml = timelapseReportSection(movies.map((movie) => ({ movie, figures: movieFigures(movie) })), movieFailures);
     const out = await runCohortStep({
-      results: doc.results, failures: [], timelapseHtml, sampleSheetPath: plan.samples, reference: plan.reference, outDir: plan.outDir, runRecord,
-      normalisation: plan.normalisation, lambdaPosteriorEl: plan.lambdaPosteriorEl, equivalenceMargin: plan.equivalenceMargin, backgroundCondition: plan.backgroundCondition, ...(plan.rule ? { filenameRule: plan.rule } : {}),
+      results: doc.results, failures: [], timelapseHtml, sampleSheetPath: plan.samples, reference: choices.reference, outDir: plan.outDir, runRecord,
+      normalisation: choices.normalisation, lambdaPosteriorEl: choices.lambdaPosteriorEl, equivalenceMargin: choices.equivalenceMargin, backgroundCondition: choices.backgroundCondition, ...(plan.rule ? { filenameRule: plan.rule } : {}),
     });
     for (const w of out.warnings) io.stderr.write(`warning: ${w}\n`);
     const bg = out.analysis.backgroundCondition;

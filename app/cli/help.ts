@@ -66,7 +66,10 @@ Options:
 ${runSettingHelp('jobs', 'default: number of cores')}
 ${settingsHelp()}
   --config FILE               settings JSON (keys as in results.json settings); flags win over it
-  --project FILE              hand edits (axis, landmarks, fit range per file)
+  --project FILE              hand edits (axis, landmarks, fit range per file) and the cohort
+                              options saved in the window (reference, background condition,
+                              normalisation, equivalence margin, opposing gradient's λ); the
+                              flags below override them
                               [default: <folder>/eggline-project.json when present]
   --no-project                ignore <folder>/eggline-project.json
   --samples CSV               sample sheet (file,condition[,dosage]); runs the cohort step after

@@ -90,6 +90,7 @@ function settingsSection(a: CohortAnalysis, sheetSource: string, runRecord: unkn
     ['λ used for predictions', 'mean λ (x/EL) of the reference condition; its CI is scaled by ln f'],
     ['profile normalisation', o.normalisation], ['posterior gradient λ_P (x/EL)', o.lambdaPosteriorEl === null ? 'not given' : String(o.lambdaPosteriorEl)],
     ['confidence level', String(o.level)], ['profile grid step (x/EL)', String(o.gridStepEl)], ['slope half-window h (x/EL)', String(o.slopeHalfWidthEl)],
+    ...(a.backgroundCondition ? [['background condition (subtracted, refitted)', `${a.backgroundCondition.condition}: ${a.backgroundCondition.files.join(', ')}`]] : []),
   ];
   const key = keySettings(runRecord);
   const keyTable = key.length > 0 ? table(['setting', 'value'], [...key, ['profile normalisation (cohort)', o.normalisation]], 2)

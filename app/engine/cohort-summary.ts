@@ -7,6 +7,7 @@ import type { CohortConditionRow, CohortSummary } from '../../core/contract';
 import { cohortFigures, type NamedFigure } from '../../core/figures';
 import { batchSettings, readSampleSheet } from '../cohort/run-cohort';
 import type { EmbryoResult } from '../../core/model';
+import { DEFAULT_COHORT_CHOICES, type CohortChoices } from '../cohort/cohort-choices';
 
 /** File name of the sample sheet the app looks for in a batch's input folder. */
 export const SAMPLE_SHEET_NAME = 'samples.csv';
@@ -52,14 +53,15 @@ export function summariseCohort(
   };
 }
 
-/** Read the sample sheet and analyse the batch results with the cohort step's defaults (as `eggline batch --samples`).
- *  Rejects with CohortError (one line naming the sheet) when the sheet cannot be read or parsed. */
+/** Read the sample sheet and analyse the batch results with the given cohort options (as `eggline cohort` with the same
+ *  flags; default: the step's defaults). Rejects with CohortError (one line naming the sheet) when the sheet cannot be
+ *  read or parsed or an option does not fit it (e.g. a reference the sheet does not have). */
 export async function cohortSummaryFor(
-  results: readonly EmbryoResult[], sampleSheetPath: string, reference: string | null, outDir: string,
+  results: readonly EmbryoResult[], sampleSheetPath: string, choices: CohortChoices | null, outDir: string,
 ): Promise<CohortSummary> {
   const sheet = await readSampleSheet(sampleSheetPath);
   // The batch's settings, for a background condition's refit (the sheet's role column may name one).
   const record = await fs.readFile(join(outDir, 'run.json'), 'utf8').then((t) => JSON.parse(t) as unknown, () => null);
-  const analysis = analyseCohort(results, sheet, { reference, lambdaPosteriorEl: null, refitSettings: batchSettings(record) });
+  const analysis = analyseCohort(results, sheet, { ...(choices ?? DEFAULT_COHORT_CHOICES), refitSettings: batchSettings(record) });
   return summariseCohort(analysis, sampleSheetPath, outDir);
 }

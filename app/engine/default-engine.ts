@@ -1,4 +1,5 @@
 // The real analysis services: sharp decoding (app/decode), the core pipeline, the batch engine and the demo writer.
+import { cohortChoices } from '../cohort/cohort-choices';
 import { applyImageCorrections, detectEmbryo, projectStack } from '../../core/pipeline';
 import { dirname } from 'node:path';
 import { loadImageCorrections } from '../batch/correction-images';
@@ -66,7 +67,7 @@ function cohortOutcome(r: BatchRunResult, sheet: string | null): { cohort: Cohor
 async function runBatchSummary(options: BatchRunOptions): Promise<BatchSummary> {
   const sheet = options.sampleSheetPath ?? null;
   // Movies are analysed per time point as on the command line's defaults (every time point, axis once per movie).
-  const r = await runBatch({ ...options, doc: options.doc, cohort: sheet === null ? null : { sampleSheetPath: sheet, reference: null }, timelapse: DEFAULT_TIMELAPSE_OPTIONS });
+  const r = await runBatch({ ...options, doc: options.doc, cohort: sheet === null ? null : { sampleSheetPath: sheet, ...cohortChoices(options.doc?.cohort) }, timelapse: DEFAULT_TIMELAPSE_OPTIONS });
   const outcome = cohortOutcome(r, sheet);
   return { runId: r.runId, outDir: r.outDir, ok: r.ok, failed: r.failed, cancelled: r.cancelled, results: r.results, movies: r.movies ?? [], ...outcome };
 }

@@ -7,6 +7,8 @@ import type { BatchSummary, CohortSummary } from '../../core/contract';
 import type { EmbryoResult, MovieRecord } from '../../core/model';
 import { requireAllowed } from './args';
 import { cohortSummaryFor, findSampleSheet } from '../engine/cohort-summary';
+import { cohortChoices, type CohortChoices } from '../cohort/cohort-choices';
+import { checkProjectCohort, ProjectFormatError, type ProjectCohortOptions } from '../../core/settings';
 import type { ShellContext } from './context';
 import { ApiFailure, labelOf } from './result';
 
@@ -30,21 +32,34 @@ async function readRunEnd(outDir: string): Promise<{ runId: string; cancelled: b
 }
 
 /** The cohort step over the saved results, as after a run (nothing when there is no sheet or the run was cancelled). */
-async function savedCohort(results: readonly EmbryoResult[], folder: string, outDir: string, cancelled: boolean):
+async function savedCohort(results: readonly EmbryoResult[], folder: string, outDir: string, cancelled: boolean, choices: CohortChoices):
   Promise<{ cohort: CohortSummary | null; cohortError: string | null }> {
   const sheet = await findSampleSheet(folder);
   if (sheet === null || cancelled) return { cohort: null, cohortError: null };
   try {
-    return { cohort: await cohortSummaryFor(results, sheet, null, outDir), cohortError: null };
+    return { cohort: await cohortSummaryFor(results, sheet, choices, outDir), cohortError: null };
   } catch (e) {
     return { cohort: null, cohortError: (e instanceof Error ? e.message : String(e)).split(/\r?\n/)[0] };
   }
 }
 
-/** The batch summary saved in `outDir` for the images in `folder`; null when the folder holds no results.json. */
-export async function loadBatchResults(ctx: ShellContext, outArg: unknown, folderArg: unknown): Promise<BatchSummary | null> {
+/** The project's cohort options as sent by the renderer (absent or null: the defaults), or a 'bad-argument' failure. */
+function requireCohortOptions(value: unknown): ProjectCohortOptions | null {
+  if (value === undefined || value === null) return null;
+  try {
+    return checkProjectCohort(value);
+  } catch (e) {
+    if (e instanceof ProjectFormatError) throw new ApiFailure('bad-argument', e.message);
+    throw e;
+  }
+}
+
+/** The batch summary saved in `outDir` for the images in `folder`, its cohort step run with the project's cohort
+ *  options (`cohortArg`; absent: the defaults); null when the folder holds no results.json. */
+export async function loadBatchResults(ctx: ShellContext, outArg: unknown, folderArg: unknown, cohortArg?: unknown): Promise<BatchSummary | null> {
   const outDir = requireAllowed(ctx.allow, 'results', outArg, 'outDir');
   const folder = requireAllowed(ctx.allow, 'read', folderArg, 'folder');
+  const choices = cohortChoices(requireCohortOptions(cohortArg));
   let text: string;
   try {
     text = await fs.readFile(join(outDir, 'results.json'), 'utf8');
@@ -65,7 +80,7 @@ export async function loadBatchResults(ctx: ShellContext, outArg: unknown, folde
   const ok = embryos.filter((r) => r.status === 'ok').length;
   return {
     runId: run.runId, outDir, ok, failed: embryos.length - ok, cancelled: run.cancelled, results, movies,
-    ...await savedCohort(embryos, folder, outDir, run.cancelled),
+    ...await savedCohort(embryos, folder, outDir, run.cancelled, choices),
   };
 }
 

@@ -74,7 +74,7 @@ export function createHandlers(deps: HandlerDeps): ApiHandlers {
       ctx.allow.allowTree('output', dir);
       return dir;
     })),
-    loadBatchResults: (outDir, folder) => guard(labelArg(outDir), () => loadBatchResults(ctx, outDir, folder), 'bad-file'),
+    loadBatchResults: (outDir, folder, cohort) => guard(labelArg(outDir), () => loadBatchResults(ctx, outDir, folder, cohort), 'bad-file'),
     openReport: (path) => guard(labelArg(path), () => openReport(ctx, path), 'io'),
     exportFile: (kind, name, content) => guard(labelArg(name), () => exportFile(ctx, kind, name, content), 'io'),
     svgToPng: (svg, scale) => guard(null, () => svgToPng(svg, scale)),

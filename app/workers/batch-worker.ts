@@ -6,7 +6,6 @@ import { analyseFileWithDigest } from '../batch/analyse-file';
 import { limitDecoderThreads } from '../batch/decoder-threads';
 import type { BatchTask, DemoRequest, WorkerReply } from '../batch/task';
 import { mark, markProcessStart } from '../batch/timeline';
-import { demoFile } from '../batch/write-demo';
 
 /** The two ways this worker talks to its parent. */
 interface Channel {
@@ -37,8 +36,12 @@ limitDecoderThreads(data?.decoderThreads ?? 1);
 
 channel.on((msg) => {
   if ('kind' in msg && msg.kind === 'demo') {
-    const { bytes, furrow } = demoFile(msg.item);
-    channel.post({ type: 'demo', index: msg.index, bytes, furrow }, [bytes.buffer as ArrayBuffer]);
+    // The demo writer (synthetic embryos, the OME-TIFF writer) is loaded only by workers that write demo files.
+    const request = msg;
+    void import('../batch/write-demo').then(({ demoFile }) => {
+      const { bytes, furrow } = demoFile(request.item);
+      channel.post({ type: 'demo', index: request.index, bytes, furrow }, [bytes.buffer as ArrayBuffer]);
+    });
     return;
   }
   const task = msg as BatchTask;

@@ -5,7 +5,7 @@ export { parseConfigText } from './parse-config';
 export { mergeSettings } from '../settings';
 export {
   EMBRYO_COLUMNS, EMBRYO_MEASURE_COLUMNS, SIDE_COLUMNS, TIME_COLUMNS, BOUNDARY_COLUMNS, PROFILE_COLUMNS, LANDMARK_COLUMNS,
-  embryoRow, embryoMeasureRow, embryoResults, embryosCsv, boundariesCsv, profilesCsv, landmarksCsv, summaryBoundary, embryoProfiles,
+  embryoRow, embryoMeasureRow, sideCells, embryoResults, embryosCsv, boundariesCsv, profilesCsv, landmarksCsv, summaryBoundary, embryoProfiles,
 } from './tables';
 export {
   resultsToJson, resultsFromJson, resultsDocFromJson, reviveResult, jsonWithArrays, RESULTS_SCHEMA, RESULTS_SCHEMA_VERSION, RESULTS_OLD_VERSION,

@@ -113,6 +113,9 @@ describe('background condition', () => {
     expect(run(fewer, text, 'null-stain')).toThrow('background condition "null-stain": its embryos have different channels (null_1.tif: gradient, target; null_2.tif: gradient)');
     const range = results.map((r) => (r.file === 'null_3.tif' ? { ...r, gradientFit: { ...r.gradientFit!, fitRangeEl: [0.2, 0.6] as const } } : r));
     expect(run(range, text, 'null-stain')).toThrow('background condition "null-stain": its embryos were fitted over different x/EL ranges (null_1.tif: 0.1–0.6; null_3.tif: 0.2–0.6); analyse them with one fit range');
+    // A null-stained embryo whose exponential fit failed is still a background embryo (its range is not compared)
+    const failed = results.map((r) => (r.file === 'null_1.tif' ? { ...r, gradientFit: null } : r));
+    expect(run(failed, text, 'null-stain')).not.toThrow();
     const extra = results.map((r) => (r.file === 'stained_2.tif' ? { ...r, boundaryProfiles: [...r.boundaryProfiles, { ...r.boundaryProfiles[0], channel: 'late' }] } : r));
     expect(run(extra, text, 'null-stain')).toThrow('stained_2.tif: channel "late" has no profile in background condition "null-stain" (it has gradient, target)');
     expect(() => analyseCohort(results, sheet, { backgroundCondition: 'stained', reference: 'stained' })).toThrow('samples.csv: "stained" cannot be both the reference and the background condition');

@@ -31,7 +31,7 @@ export function backgroundRecordJson(r: BackgroundConditionRecord, sheetSource: 
   const doc = {
     schema: 'eggline-background-condition', version: 1, condition: r.condition, namedBy: r.source === 'option' ? '--background-condition' : 'role column of the sample sheet',
     sampleSheet: sheetSource, rule: r.rule, embryos: r.files, channels: r.profiles.map((p) => p.channel), bins: r.profiles[0]?.xEl.length ?? 0,
-    outputs: ['background_profile.csv', 'background_refit.csv', 'background_conditions.csv'],
+    outputs: ['background_profile.csv', 'background_refit.csv', 'background_conditions.csv', 'background-condition.svg', 'background-condition.png'],
   };
   return `${JSON.stringify(doc, null, 2)}\n`;
 }

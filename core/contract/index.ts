@@ -3,9 +3,9 @@
 import type {
   Detection, EmbryoResult, MovieRecord, ProjectedStack, StackInfo,
 } from '../model';
-import type { AnalysisSettings, ProjectDoc } from '../settings';
+import type { AnalysisSettings, ProjectCohortOptions, ProjectDoc } from '../settings';
 
-export type { FileEdits, ProjectDoc, TimePointEdits } from '../settings';
+export type { FileEdits, ProjectCohortOptions, ProjectDoc, TimePointEdits } from '../settings';
 import type { ConditionStat, DosageFit, ReferenceLambda, ShiftRow } from '../model';
 
 /** Error codes the app returns; messages are one line and name the file when there is one. */
@@ -250,8 +250,9 @@ export interface EgglineApi {
   /** Native dialog: choose an output folder. */
   chooseOutputFolder(): Promise<ApiResult<string | null>>;
   /** The batch saved in an output folder the open project records (results.json, run.json, the cohort step over the
-   *  folder's samples.csv); null when the folder holds no results. */
-  loadBatchResults(outDir: string, folder: string): Promise<ApiResult<BatchSummary | null>>;
+   *  folder's samples.csv with the project's cohort options, default: the step's defaults); null when the folder holds
+   *  no results. The window calls it again to recompute the cohort when an option changes. */
+  loadBatchResults(outDir: string, folder: string, cohort?: ProjectCohortOptions | null): Promise<ApiResult<BatchSummary | null>>;
   /** Open a batch's report.html in the system's default browser (never inside the app window). */
   openReport(path: string): Promise<ApiResult<null>>;
   /** Subscribe to batch progress; returns an unsubscribe function. */

@@ -85,6 +85,17 @@ function sigmaFigure(a: CohortAnalysis, size: Size): NamedFigure {
   return { name: 'positional-error', title, svg: positionalErrorFigure(series, { ...size, title }) };
 }
 
+/** λ_dorsal − λ_ventral per embryo by condition (embryos measured with each side apart), with a line at zero. */
+function sidesFigure(a: CohortAnalysis, size: Size): NamedFigure {
+  const title = 'Dorsal − ventral decay length by condition';
+  const groups: StripGroup[] = (a.sideDifferences ?? []).map((r) => ({
+    label: r.condition, mean: r.meanEl, ciLow: r.ciLowEl, ciHigh: r.ciHighEl,
+    values: a.observations.filter((o) => o.condition === r.condition && o.kind === 'side-difference' && o.unit === 'EL').map((o) => o.value),
+  }));
+  const svg = lambdaByConditionFigure(groups, { ...size, title, unit: 'EL', level: a.options.level, yTitle: 'λ dorsal − λ ventral (EL)', zeroLine: true });
+  return { name: 'lambda-dorsal-minus-ventral', title, svg };
+}
+
 /** The background condition's mean profile per channel ± SE, when one was subtracted (none otherwise). */
 function backgroundFigure(a: CohortAnalysis, size: Size): NamedFigure[] {
   const bg = a.backgroundCondition;
@@ -95,8 +106,10 @@ function backgroundFigure(a: CohortAnalysis, size: Size): NamedFigure[] {
   return [{ name: 'background-condition', title, svg: cohortProfilesFigure(series, { ...size, title, subtitle, yLabel: 'intensity after each embryo\'s own background' }) }];
 }
 
-/** Cohort figures: mean profiles, λ by condition, one position-vs-ln f figure per boundary/landmark, σx, and the
- *  background condition's profile when one was subtracted. */
+/** Cohort figures: mean profiles, λ by condition, one position-vs-ln f figure per boundary/landmark, σx, the
+ *  background condition's profile when one was subtracted, and the dorsal − ventral differences when the sides were
+ *  measured apart. */
 export function cohortFigures(a: CohortAnalysis, size: Size = {}): NamedFigure[] {
-  return [profilesFigure(a, size), lambdaFigure(a, size), ...a.dosageFits.map((f) => shiftFigure(a, f.quantity, size)), sigmaFigure(a, size), ...backgroundFigure(a, size)];
+  const sides = (a.sideDifferences ?? []).length > 0 ? [sidesFigure(a, size)] : [];
+  return [profilesFigure(a, size), lambdaFigure(a, size), ...a.dosageFits.map((f) => shiftFigure(a, f.quantity, size)), sigmaFigure(a, size), ...backgroundFigure(a, size), ...sides];
 }

@@ -120,6 +120,22 @@ describe('cohort figures', () => {
     expect(count(figs[5].svg, /class="sigma-line"/g)).toBe(3);
     expect(figs[5].svg).toContain('positional error σx (fraction of EL)');
   });
+  it('with each side measured apart: a strip figure of λ_dorsal − λ_ventral per condition with a line at zero', () => {
+    // Demo data: the demo cohort's results given invented paired differences of 0.001·k EL.
+    const withSides = demo.results.map((r, k) => ({
+      ...r, sides: {
+        dorsalProfile: r.gradientProfile!, ventralProfile: r.gradientProfile!, dorsalFit: r.gradientFit, ventralFit: r.gradientFit,
+        difference: { lambdaUm: NaN, lambdaEl: 0.001 * k, seUm: NaN, seEl: 0.001, ciLowUm: NaN, ciHighUm: NaN, ciLowEl: 0, ciHighEl: 0, seModelEl: 0.001, seSerialEl: NaN, seSource: 'model' as const, sideCorrelation: 0, dof: 40 },
+      },
+    }));
+    const figs = cohortFigures(analyseCohort(withSides, parseSampleSheet(demo.sheetCsv, 's.csv')));
+    const sides = figs[figs.length - 1];
+    expect(sides.name).toBe('lambda-dorsal-minus-ventral');
+    checkSvg(sides.svg);
+    expect(count(sides.svg, /class="embryo-point"/g)).toBe(15);
+    expect(count(sides.svg, /class="zero-line"/g)).toBe(1);
+    expect(sides.svg).toContain('λ dorsal − λ ventral (EL)');
+  });
   it('shift figures: readable titles, legends with enough digits that the interval ends differ', () => {
     const figs = cohortFigures(analysis);
     expect(figs[2].title).toBe('boundary in ‘target’ (logistic): position vs ln f');

@@ -29,21 +29,23 @@ function groupMarks(g: StripGroup, cx: number, half: number, y: (v: number) => n
   return el('g', { class: 'group' }, dots.join('') + mean + ci || ' ');
 }
 
-/** SVG: λ per embryo by condition (dots), mean (bar) and CI (whiskers); unit 'EL' (fraction of egg length) or 'um'. */
-export function lambdaByConditionFigure(groups: readonly StripGroup[], options: FigureOptions & { unit?: 'EL' | 'um'; level?: number } = {}): string {
+/** SVG: λ per embryo by condition (dots), mean (bar) and CI (whiskers); unit 'EL' (fraction of egg length) or 'um';
+ *  another quantity with its own y title, and a dashed line at zero when asked (e.g. a difference). */
+export function lambdaByConditionFigure(groups: readonly StripGroup[], options: FigureOptions & { unit?: 'EL' | 'um'; level?: number; yTitle?: string; zeroLine?: boolean } = {}): string {
   const pct = Math.round((options.level ?? 0.95) * 100);
   const { widthPx, heightPx, title, subtitle } = figureSize(options, 'Decay length λ by condition', `dots: embryos; bar: mean; whiskers: ${pct}% CI of the mean`);
   const a = plotArea(widthPx, heightPx, { top: 52, right: 20, bottom: 52, left: 68 });
   const x = scalePoint<string>().domain(groups.map((_, i) => `${i}`)).range([a.left, a.left + a.width]).padding(0.6);
   const cx = (i: number): number => x(`${i}`) ?? a.left;
   const half = Math.min(40, x.step() / 2);
-  const [lo, hi] = finiteExtent(groups.flatMap((g) => [...g.values, g.ciLow, g.ciHigh]), [0, 1]);
+  const [lo, hi] = finiteExtent([...groups.flatMap((g) => [...g.values, g.ciLow, g.ciHigh]), ...(options.zeroLine ? [0] : [])], [0, 1]);
   const y = scaleLinear().domain([lo - (hi - lo) * 0.08, hi + (hi - lo) * 0.08]).nice().range([a.top + a.height, a.top]);
   const bottom = a.top + a.height;
   const marks = groups.map((g, i) => groupMarks(g, cx(i), half, y, seriesColour(i))).join('');
   const labels = groups.map((g, i) => textSvg(cx(i), bottom + 18, `${g.label} (n=${g.values.length})`, { anchor: 'middle', size: 11, cls: 'tick-label' })).join('');
-  const yTitle = (options.unit ?? 'EL') === 'EL' ? 'decay length λ (fraction of egg length, EL)' : 'decay length λ (µm)';
-  const body = titleSvg(a, title, subtitle) + yAxisSvg(y, a, yTitle) + lineSvg(a.left, bottom, a.left + a.width, bottom, { stroke: INK.axis })
+  const yTitle = options.yTitle ?? ((options.unit ?? 'EL') === 'EL' ? 'decay length λ (fraction of egg length, EL)' : 'decay length λ (µm)');
+  const zero = options.zeroLine ? lineSvg(a.left, y(0), a.left + a.width, y(0), { class: 'zero-line', stroke: INK.muted, 'stroke-dasharray': '4 3' }) : '';
+  const body = titleSvg(a, title, subtitle) + yAxisSvg(y, a, yTitle) + zero + lineSvg(a.left, bottom, a.left + a.width, bottom, { stroke: INK.axis })
     + labels + textSvg(a.left + a.width / 2, bottom + 38, 'condition', { anchor: 'middle', cls: 'axis-title' }) + marks;
   return svgDocument(widthPx, heightPx, title, body);
 }

@@ -48,6 +48,17 @@ interface Histogram {
 function histogram(values: Float32Array | Float64Array, lo: number, hi: number, bins: number): Histogram {
   const stride = bins + 3;
   const c = new Int32Array(4 * stride);
+  countInRange(values, lo, hi, bins, c);
+  const n = values.length;
+  const sum = (k: number): number => c[k] + c[stride + k] + c[2 * stride + k] + c[3 * stride + k];
+  const counts = new Float64Array(bins);
+  for (let b = 0; b < bins; b++) counts[b] = sum(b);
+  return { counts, below: sum(bins), total: n - sum(bins + 2) };
+}
+
+/** The counting loop of histogram (a function of its own, as countFullRange), into c (4 × (bins + 3) slots). */
+function countInRange(values: Float32Array | Float64Array, lo: number, hi: number, bins: number, c: Int32Array): void {
+  const stride = bins + 3;
   const scale = bins / (hi - lo);
   const last = bins - 1;
   const n = values.length;
@@ -58,10 +69,6 @@ function histogram(values: Float32Array | Float64Array, lo: number, hi: number, 
     const bin = last + (over & (over >> 31));
     c[(i & 3) * stride + ((bin & keep) | ((last + 2 - +(v < lo) + +(v !== v)) & ~keep))]++;
   }
-  const sum = (k: number): number => c[k] + c[stride + k] + c[2 * stride + k] + c[3 * stride + k];
-  const counts = new Float64Array(bins);
-  for (let b = 0; b < bins; b++) counts[b] = sum(b);
-  return { counts, below: sum(bins), total: n - sum(bins + 2) };
 }
 
 /**
@@ -73,8 +80,18 @@ function fullRangeHistogram(values: Float32Array | Float64Array, min: number, ma
   const c1 = new Int32Array(bins);
   const c2 = new Int32Array(bins);
   const c3 = new Int32Array(bins);
-  const scale = bins / (max - min);
-  const last = bins - 1;
+  countFullRange(values, min, bins / (max - min), c0, c1, c2, c3);
+  const counts = new Float64Array(bins);
+  for (let b = 0; b < bins; b++) counts[b] = c0[b] + c1[b] + c2[b] + c3[b];
+  return { counts, below: 0, total: values.length };
+}
+
+/**
+ * The counting loop of fullRangeHistogram, a function of its own so V8's on-stack-replaced code for it is not thrown
+ * away at the loop's end on every call (see "Pixel loops in small functions" in DEVELOPERS.md).
+ */
+function countFullRange(values: Float32Array | Float64Array, min: number, scale: number, c0: Int32Array, c1: Int32Array, c2: Int32Array, c3: Int32Array): void {
+  const last = c0.length - 1;
   const n = values.length;
   let i = 0;
   for (; i + 3 < n; i += 4) {
@@ -88,9 +105,6 @@ function fullRangeHistogram(values: Float32Array | Float64Array, min: number, ma
     c3[last + (b3 & (b3 >> 31))]++;
   }
   for (; i < n; i++) { const b = (((values[i] - min) * scale) | 0) - last; c0[last + (b & (b >> 31))]++; }
-  const counts = new Float64Array(bins);
-  for (let b = 0; b < bins; b++) counts[b] = c0[b] + c1[b] + c2[b] + c3[b];
-  return { counts, below: 0, total: n };
 }
 
 /**

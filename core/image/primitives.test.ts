@@ -287,6 +287,57 @@ describe('otsuThreshold against a directly built histogram', () => {
   });
 });
 
+/** Plain reference of estimateBackgroundLevel's two histograms (one loop, one test per value, Math.floor bins). */
+function refBackgroundLevel(values: ArrayLike<number>): { level: number; noiseSd: number } {
+  const v = Array.from(values).filter((x) => !Number.isNaN(x));
+  const min = Math.min(...v);
+  const max = Math.max(...v);
+  const floor = Math.max(1e-6 * (max - min), 1e-12);
+  const hist = (lo: number, hi: number, bins: number) => {
+    const counts = new Float64Array(bins);
+    let below = 0;
+    for (const x of v) {
+      if (x < lo) below++;
+      else if (x <= hi) counts[Math.min(bins - 1, Math.floor((x - lo) * (bins / (hi - lo))))]++;
+    }
+    return { counts, below };
+  };
+  const quantile = (h: { counts: Float64Array; below: number }, lo: number, hi: number, p: number) => {
+    const target = p * v.length;
+    let acc = h.below;
+    for (let b = 0; b < h.counts.length; b++) {
+      if (acc + h.counts[b] >= target && h.counts[b] > 0) return lo + (b + (target - acc) / h.counts[b]) * ((hi - lo) / h.counts.length);
+      acc += h.counts[b];
+    }
+    return hi;
+  };
+  const coarse = hist(min, max, 4096);
+  const lo = quantile(coarse, min, max, 0.001);
+  const hi = Math.max(quantile(coarse, min, max, 0.5), lo + floor);
+  const top = hi + (hi - lo) / 4096;
+  const fine = hist(lo, top, 1024);
+  let best = 0;
+  for (let b = 1; b < 1024; b++) if (fine.counts[b] > fine.counts[best]) best = b;
+  const level = lo + (best + 0.5) * ((top - lo) / 1024);
+  let belowLevel = fine.below;
+  for (let b = 0; b < best; b++) belowLevel += fine.counts[b];
+  belowLevel += fine.counts[best] / 2;
+  const sdQuantile = quantile(fine, lo, top, (0.3173 * belowLevel) / v.length);
+  return { level, noiseSd: Math.max(level - sdQuantile, floor) };
+}
+
+describe('estimateBackgroundLevel against a plain two-histogram reference', () => {
+  it('gives the same level and noise bit for bit (random data, with and without NaN; demo data)', () => {
+    const rng = createRng(22);
+    for (const n of [10_001, 4_099, 97]) {
+      const v = Float32Array.from({ length: n }, (_, i) => (i % 7 < 2 ? 300 + 40 * rng.normal() : 100 + 5 * rng.normal()));
+      expect(estimateBackgroundLevel(v), `n=${n}`).toEqual(refBackgroundLevel(v));
+      const f64 = Float64Array.from(v, (x, i) => (i % 53 === 0 ? NaN : x * 1.37));
+      expect(estimateBackgroundLevel(f64), `n=${n} with NaN`).toEqual(refBackgroundLevel(f64));
+    }
+  });
+});
+
 describe('estimateBackgroundLevel input handling', () => {
   it('gives the same result for any array type and ignores NaN', () => {
     // Demo data: 70% normal(20, 2), 30% normal(80, 4), seeded.

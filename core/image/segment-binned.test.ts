@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { createRng } from '../stats';
 import type { Plane } from '../model';
-import { binMean, checkSegmentOptions, segmentEmbryo, upsampleMask } from './segment';
+import { autoBinFactor, binMean, checkSegmentOptions, segmentEmbryo, upsampleMask } from './segment';
 import { fastGaussianSmooth } from './box-blur';
 import { distanceInside, distanceOutside } from './distance';
 import { makeSyntheticEmbryo } from '../synth';
@@ -13,6 +13,19 @@ describe('binMean', () => {
     const b = binMean(p, 2);
     expect([b.width, b.height]).toEqual([3, 1]);
     expect(Array.from(b.data)).toEqual([4, 6, 7.5]);
+  });
+});
+
+describe('autoBinFactor', () => {
+  it('brings the long side to at most 384 px, keeping at least 64 px across', () => {
+    // Source: the rule as documented in SegmentOptions.binFactor (hand computation).
+    expect(autoBinFactor(384, 300)).toBe(1);
+    expect(autoBinFactor(512, 384)).toBe(2);
+    expect(autoBinFactor(820, 820)).toBe(3);
+    expect(autoBinFactor(1024, 1024)).toBe(3);
+    expect(autoBinFactor(770, 100)).toBe(1);
+    expect(autoBinFactor(2000, 130)).toBe(2);
+    expect(autoBinFactor(770, 5)).toBe(1);
   });
 });
 

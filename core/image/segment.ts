@@ -22,7 +22,8 @@ export interface SegmentOptions {
   /** Run the coarse stage on 2×2-averaged images (1 or 2); null = 2 for images over 500 000 pixels. @default null */
   readonly coarseDownsample?: 1 | 2 | null;
   /** Segment on images binned by this integer factor, upsample the mask and refine its edge at full resolution;
-   * null = the smallest factor that brings the long side to at most 384 px (1 for smaller images). @default null */
+   * null = the smallest factor that brings the long side to at most 384 px (1 for smaller images), limited so the
+   * short side keeps at least 64 px (autoBinFactor). @default null */
   readonly binFactor?: number | null;
 }
 
@@ -85,8 +86,13 @@ function coarseMask(snr: Plane): Mask {
   logAboveOne(snr.data, logs);
   const t = Math.min(30, Math.max(4, Math.exp(otsuThreshold(logs))));
   const data = new Uint8Array(logs.length);
-  for (let i = 0; i < data.length; i++) data[i] = snr.data[i] > t ? 1 : 0;
+  above(snr.data, t, data);
   return fillHoles(largestComponent({ width: snr.width, height: snr.height, data }));
+}
+
+/** out[i] = 1 where v[i] > t, else 0 (pixel loops sit in small functions: see DEVELOPERS.md). */
+function above(v: Float32Array, t: number, out: Uint8Array): void {
+  for (let i = 0; i < out.length; i++) out[i] = v[i] > t ? 1 : 0;
 }
 
 /** out[i] = log(max(1, v[i])), without calling log where the value is at most 1 (most of the background). */
@@ -215,6 +221,16 @@ const REFINE_RING_PX = 32;
 
 /** Long side (px) that automatic binning aims at: large enough for the outline, small enough to be quick. */
 const BINNED_LONG_SIDE_PX = 384;
+
+/** Short side (px) a binned image keeps at least: thinner frames (strips, line scans) are segmented unbinned. */
+const BINNED_MIN_SHORT_SIDE_PX = 64;
+
+/** Automatic bin factor: the smallest that brings the long side to at most 384 px, but none that would leave the
+ *  short side under 64 px. */
+export function autoBinFactor(width: number, height: number): number {
+  const f = Math.ceil(Math.max(width, height) / BINNED_LONG_SIDE_PX);
+  return Math.max(1, Math.min(f, Math.floor(Math.min(width, height) / BINNED_MIN_SHORT_SIDE_PX)));
+}
 
 /**
  * Mean of f×f blocks (x = column, y = row); blocks cut by the right or bottom edge average the pixels they hold.
@@ -361,7 +377,7 @@ export function segmentEmbryo(channels: readonly Plane[], options: SegmentOption
   const o = checkSegmentOptions(options);
   if (channels.length === 0) throw new Error('segmentEmbryo needs at least one channel');
   const { width, height } = channels[0];
-  const bin = o.binFactor ?? Math.ceil(Math.max(width, height) / BINNED_LONG_SIDE_PX);
+  const bin = o.binFactor ?? autoBinFactor(width, height);
   if (bin === 1) return segmentAtScale(channels, o);
   // Pixel-sized options shrink with the image; the binned image is small, so its coarse stage runs at full scale.
   const small = segmentAtScale(channels.map((c) => binMean(c, bin)), {
@@ -391,27 +407,44 @@ function refineEdge(up: Float32Array, channels: readonly Plane[], o: Required<Se
   const cw = box.x1 - box.x0;
   const ch = box.y1 - box.y0;
   const crop = new Uint8Array(cw * ch);
+  const bandCount = cropInterior(up, width, box.x0, box.y0, cw, ch, crop);
+  // Only band pixels consult the edge rule, so it runs there alone.
+  const at = new Int32Array(bandCount);
+  cropBandPixels(up, width, box.x0, box.y0, cw, ch, at);
+  const keep = nearLocalLevelAt(channels, at, o, box);
+  copyAt(keep, at, crop);
+  const clean = fillHoles(largestComponent(open({ width: cw, height: ch, data: crop }, 1.5))).data;
+  for (let y = 0; y < ch; y++) out.set(clean.subarray(y * cw, (y + 1) * cw), (y + box.y0) * width + box.x0);
+  return { width, height, data: out };
+}
+
+/** crop[y·cw + x] = 1 where up (the full frame, `width` wide) is ≥ 1 at (x0 + x, y0 + y); returns the number of
+ *  band pixels (0 < up < 1) in the crop. */
+function cropInterior(up: Float32Array, width: number, x0: number, y0: number, cw: number, ch: number, crop: Uint8Array): number {
   let bandCount = 0;
   for (let y = 0; y < ch; y++) {
     for (let x = 0; x < cw; x++) {
-      const u = up[(y + box.y0) * width + x + box.x0];
+      const u = up[(y + y0) * width + x + x0];
       if (u >= 1) crop[y * cw + x] = 1;
       else if (u > 0) bandCount++;
     }
   }
-  // Only band pixels consult the edge rule, so it runs there alone.
-  const at = new Int32Array(bandCount);
+  return bandCount;
+}
+
+/** Crop indices of the band pixels (0 < up < 1), row-major, into at. */
+function cropBandPixels(up: Float32Array, width: number, x0: number, y0: number, cw: number, ch: number, at: Int32Array): void {
   for (let y = 0, k = 0; y < ch; y++) {
     for (let x = 0; x < cw; x++) {
-      const u = up[(y + box.y0) * width + x + box.x0];
+      const u = up[(y + y0) * width + x + x0];
       if (u > 0 && u < 1) at[k++] = y * cw + x;
     }
   }
-  const keep = nearLocalLevelAt(channels, at, o, box);
-  for (let k = 0; k < at.length; k++) crop[at[k]] = keep[at[k]];
-  const clean = fillHoles(largestComponent(open({ width: cw, height: ch, data: crop }, 1.5))).data;
-  for (let y = 0; y < ch; y++) out.set(clean.subarray(y * cw, (y + 1) * cw), (y + box.y0) * width + box.x0);
-  return { width, height, data: out };
+}
+
+/** dst[at[k]] = src[at[k]] for every k. */
+function copyAt(src: Uint8Array, at: Int32Array, dst: Uint8Array): void {
+  for (let k = 0; k < at.length; k++) dst[at[k]] = src[at[k]];
 }
 
 /** Indices of the pixels in `near` but not in `deep`, ascending. */
@@ -421,6 +454,13 @@ function ringPixels(near: Uint8Array, deep: Uint8Array): Int32Array {
   const at = new Int32Array(n);
   for (let i = 0, k = 0; k < n; i++) if (near[i] && !deep[i]) at[k++] = i;
   return at;
+}
+
+/** data[i] = 1 where deep[i], or near[i] and keep[i]; else 0. */
+function deepOrNearKept(deep: Uint8Array, near: Uint8Array, keep: Uint8Array, data: Uint8Array): void {
+  for (let i = 0; i < data.length; i++) {
+    data[i] = deep[i] || (near[i] && keep[i]) ? 1 : 0;
+  }
 }
 
 /** segmentEmbryo at the channels' own scale (checked options). */
@@ -435,9 +475,7 @@ function segmentAtScale(channels: readonly Plane[], o: Required<SegmentOptions>)
   // The edge rule decides only between the deep interior and the near zone; it is evaluated there alone.
   const keep = nearLocalLevelAt(channels, ringPixels(near, deep), o);
   const data = new Uint8Array(width * height);
-  for (let i = 0; i < data.length; i++) {
-    data[i] = deep[i] || (near[i] && keep[i]) ? 1 : 0;
-  }
+  deepOrNearKept(deep, near, keep, data);
   const filled = fillHoles(largestComponent({ width, height, data }));
   return fillHoles(largestComponent(open(filled, 1.5)));
 }

@@ -6,21 +6,38 @@
  */
 export function otsuThreshold(values: ArrayLike<number>, bins = 256): number {
   if (!Number.isInteger(bins) || bins < 2) throw new Error(`bins must be an integer ≥ 2, got ${bins}`);
+  const range = new Float64Array(2);
+  finiteRange(values, range);
+  const lo = range[0];
+  const hi = range[1];
+  if (!(hi >= lo)) throw new Error('otsuThreshold needs at least one finite value');
+  if (hi === lo) return lo;
+  const hist = new Float64Array(bins);
+  const scale = bins / (hi - lo);
+  histogramInto(values, lo, scale, hist);
+  return lo + (otsuBin(hist) + 1) / scale;
+}
+
+/** Smallest and largest finite value into out = [lo, hi] (Infinity, −Infinity when there is none). A pixel loop
+ *  of its own (see "Pixel loops in small functions" in DEVELOPERS.md). */
+function finiteRange(values: ArrayLike<number>, out: Float64Array): void {
   let lo = Infinity;
   let hi = -Infinity;
   for (let i = 0; i < values.length; i++) {
     const v = values[i];
     if (Number.isFinite(v)) { if (v < lo) lo = v; if (v > hi) hi = v; }
   }
-  if (!(hi >= lo)) throw new Error('otsuThreshold needs at least one finite value');
-  if (hi === lo) return lo;
-  const hist = new Float64Array(bins);
-  const scale = bins / (hi - lo);
+  out[0] = lo;
+  out[1] = hi;
+}
+
+/** Counts of the finite values in `bins` equal bins from lo (bin width 1 / scale), the top value in the last bin. */
+function histogramInto(values: ArrayLike<number>, lo: number, scale: number, hist: Float64Array): void {
+  const bins = hist.length;
   for (let i = 0; i < values.length; i++) {
     const v = values[i];
     if (Number.isFinite(v)) hist[Math.min(bins - 1, Math.floor((v - lo) * scale))]++;
   }
-  return lo + (otsuBin(hist) + 1) / scale;
 }
 
 /** Index of the last histogram bin of the dark class that maximises the between-class variance. */

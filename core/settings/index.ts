@@ -10,7 +10,8 @@ export {
   settingsFromFlags, overridesFromJson, settingsFromStored, settingsInForce, type SettingsOverrides, type SettingsFlags,
 } from './check';
 export { SettingsError } from './settings-error';
-export type { FileEdits, ProjectDoc, TimePointEdits } from './project-types';
+export type { FileEdits, ProjectCohortOptions, ProjectDoc, TimePointEdits } from './project-types';
+export { checkProjectCohort, COHORT_NORMALISATIONS, equivalenceMarginProblem, lambdaPosteriorElProblem } from './project-cohort';
 export { fileEditsAt } from './time-point-edits';
 export { parseTimeSelection, selectTimeIndices, timeSelectionText, checkTimeStepS, parseTimeStepS, type TimeSelection } from './time-selection';
 export { ProjectFormatError } from './project-error';

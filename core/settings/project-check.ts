@@ -5,6 +5,7 @@ import { badField, ProjectFormatError } from './project-error';
 import { checkFiniteNumber, checkOneOf, isRecord } from './check-values';
 import { settingsFromStored } from './check';
 import { settingSpec } from './schema';
+import { checkProjectCohort } from './project-cohort';
 import { SettingsError } from './settings-error';
 import { checkTimeStepS, parseTimeSelection, timeSelectionText } from './time-selection';
 import type { FileEdits, ProjectDoc, TimePointEdits } from './project-types';
@@ -157,6 +158,7 @@ export function checkProjectDoc(value: unknown): ProjectDoc {
     settings: checkSettings(value.settings ?? {}),
     files: cleanFiles,
     ...(typeof value.batchOutDir === 'string' ? { batchOutDir: value.batchOutDir } : {}),
+    ...(value.cohort === undefined || value.cohort === null ? {} : { cohort: checkProjectCohort(value.cohort) }),
   };
 }
 

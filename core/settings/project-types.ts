@@ -1,5 +1,5 @@
 // What a project file holds: the shared settings and every file's hand edits (axis, landmarks, fit range).
-import type { ApAxis, Landmark } from '../model';
+import type { ApAxis, Landmark, Normalisation } from '../model';
 import type { AnalysisSettings } from './types';
 
 /** Hand edits of one time point of a movie (project version 2): each field given replaces the file's at that time
@@ -29,6 +29,21 @@ export interface FileEdits {
   readonly timeStepS?: number;
 }
 
+/** How the cohort step compares conditions, kept with the project (the window's options; the command line uses them
+ *  unless a flag says otherwise). Every field is optional: absent means the cohort step's default. */
+export interface ProjectCohortOptions {
+  /** Reference condition; absent: the one with dosage 1. */
+  readonly reference?: string;
+  /** Condition of null or secondary-only stainings subtracted as background; absent: the sheet's role column, else none. */
+  readonly backgroundCondition?: string;
+  /** Profile normalisation before averaging; absent: scale-offset. */
+  readonly normalisation?: Normalisation;
+  /** Equivalence margin M of observed/predicted (0 < M < 1); absent: no equivalence test. */
+  readonly equivalenceMargin?: number;
+  /** Decay length of an opposing posterior gradient, x/EL; absent: no two-gradient prediction. */
+  readonly lambdaPosteriorEl?: number;
+}
+
 /** The project file's content (JSON, versioned). Version 2 adds per-time-point edits (FileEdits.timePoints); a
  *  version 1 file reads as version 2 with none. Files are always written as version 2. */
 export interface ProjectDoc {
@@ -42,4 +57,6 @@ export interface ProjectDoc {
   /** Output folder of the last batch run from the window (absolute), so its results reopen with the project;
    *  null or absent when there is none. */
   readonly batchOutDir?: string | null;
+  /** The cohort step's options; absent in older files (then every default holds). */
+  readonly cohort?: ProjectCohortOptions;
 }

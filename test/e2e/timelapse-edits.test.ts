@@ -205,4 +205,21 @@ describe('the window\'s movie controls', { timeout: 180_000 }, () => {
     expect(await page.getByTestId('time-point-own').count()).toBe(0);
     await page.getByTestId('edit-scope-file').check();
   });
+
+  it('with the axis found at every time point, the Embryo view measures each time point in its own embryo, as the analysis over time did', async () => {
+    const { page } = h;
+    await page.getByTestId('tab-time').click();
+    await page.getByTestId('movie-axis-per-time').check();
+    await page.getByTestId('movie-analyse').click();
+    await expect.poll(() => page.getByTestId('movie-stale').count(), { timeout: 120_000 }).toBe(0);
+    await expect.poll(() => page.getByTestId('movie-progress').count(), { timeout: 120_000 }).toBe(0);
+    await page.getByTestId('movie-slider').fill('9');
+    await expect.poll(() => attr(page, 'movie-time-label', 'data-k')).toBe('9');
+    const overTime = Number(await attr(page, 'movie-lambda-now', 'data-value'));
+    // Another embryo outline and axis than the one found once for the movie, so another λ.
+    expect(overTime).not.toBeCloseTo(Number(rowAt(reference, 19).lambda_el), 9);
+    await page.getByTestId('tab-embryo').click();
+    await expect.poll(() => attr(page, 'embryo-time-label', 'data-t')).toBe('19');
+    await expect.poll(() => liveLambdaEl(page), { timeout: 30_000 }).toBeCloseTo(overTime, 9);
+  });
 });

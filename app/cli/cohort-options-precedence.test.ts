@@ -1,0 +1,56 @@
+// The cohort options' precedence on the command line: a flag over the project's cohort entry over the default, for
+// `eggline batch --project P --samples S` and `eggline cohort --project P`. Condition names and files are demo data;
+// the defaults are the cohort step's (core/cohort checkCohortOptions).
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { cohortChoices, DEFAULT_COHORT_CHOICES } from '../cohort/cohort-choices';
+import { planBatch } from './batch-command';
+import { parseCohortArgs, planChoices } from './cohort-command';
+
+const root = mkdtempSync(join(tmpdir(), 'eggline-cohort-opts-'));
+const input = join(root, 'in');
+mkdirSync(input);
+const kept = { reference: 'half', backgroundCondition: 'null-stain', normalisation: 'minmax', equivalenceMargin: 0.25, lambdaPosteriorEl: 0.12 } as const;
+const projectPath = join(root, 'kept.eggline.json');
+writeFileSync(projectPath, JSON.stringify({ schema: 'eggline-project', version: 2, folder: '.', settings: {}, files: {}, cohort: kept }));
+const samples = join(root, 'samples.csv');
+writeFileSync(samples, 'file,condition,dosage\na.tif,wt,1\nb.tif,half,0.5\n');
+afterAll(() => rmSync(root, { recursive: true, force: true }));
+
+const plan = (argv: string[]) => {
+  const p = parseCohortArgs(argv);
+  if (p === 'help' || 'usage' in p) throw new Error(`unexpected ${JSON.stringify(p)}`);
+  return p;
+};
+
+describe('cohort options: flag over project over default', () => {
+  it('takes each default when neither a flag nor the project sets it', () => {
+    expect(cohortChoices(undefined)).toEqual(DEFAULT_COHORT_CHOICES);
+    expect(DEFAULT_COHORT_CHOICES).toEqual({ reference: null, backgroundCondition: null, normalisation: 'scale-offset', lambdaPosteriorEl: null, equivalenceMargin: null });
+    expect(cohortChoices({ normalisation: 'none' }, { reference: 'wt' })).toEqual({ ...DEFAULT_COHORT_CHOICES, normalisation: 'none', reference: 'wt' });
+  });
+
+  it('eggline cohort --project: the project\'s options, each flag over its own', async () => {
+    expect((await planChoices(plan(['res', '--samples', samples, '--project', projectPath]))).choices).toEqual(kept);
+    const flagged = await planChoices(plan(['res', '--samples', samples, '--project', projectPath, '--reference', 'wt', '--normalise', 'amplitude', '--equivalence-margin', '0.1']));
+    expect(flagged.choices).toEqual({ ...kept, reference: 'wt', normalisation: 'amplitude', equivalenceMargin: 0.1 });
+    expect((await planChoices(plan(['res', '--samples', samples]))).choices).toEqual(DEFAULT_COHORT_CHOICES);
+  });
+
+  it('eggline cohort --project with a bad project file rejects with one line naming it', async () => {
+    const bad = join(root, 'bad.eggline.json');
+    writeFileSync(bad, JSON.stringify({ schema: 'eggline-project', version: 2, folder: null, settings: {}, files: {}, cohort: { equivalenceMargin: 2 } }));
+    await expect(planChoices(plan(['res', '--samples', samples, '--project', bad]))).rejects.toThrow('bad.eggline.json: cohort.equivalenceMargin must be a number between 0 and 1 (got 2)');
+  });
+
+  it('eggline batch --project P --samples S: the project\'s options, --reference and --background-condition over them', async () => {
+    const fromProject = await planBatch([input, '--out', join(root, 'o'), '--project', projectPath, '--samples', samples]);
+    expect(fromProject !== 'help' && fromProject.cohort).toEqual(kept);
+    const flagged = await planBatch([input, '--out', join(root, 'o'), '--project', projectPath, '--samples', samples, '--reference', 'wt', '--background-condition', 'other']);
+    expect(flagged !== 'help' && flagged.cohort).toEqual({ ...kept, reference: 'wt', backgroundCondition: 'other' });
+    const none = await planBatch([input, '--out', join(root, 'o'), '--no-project', '--samples', samples]);
+    expect(none !== 'help' && none.cohort).toEqual(DEFAULT_COHORT_CHOICES);
+  });
+});

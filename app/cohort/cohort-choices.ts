@@ -1,0 +1,35 @@
+// The cohort step's options in force: a flag given on the command line, else the project's `cohort` entry, else the
+// step's default. The command line (batch, cohort) and the window resolve them here, so all three agree.
+import type { Normalisation } from '../../core/cohort';
+import type { ProjectCohortOptions } from '../../core/settings';
+
+/** The five options a project can keep, resolved. */
+export interface CohortChoices {
+  readonly reference: string | null;
+  readonly backgroundCondition: string | null;
+  readonly normalisation: Normalisation;
+  readonly lambdaPosteriorEl: number | null;
+  readonly equivalenceMargin: number | null;
+}
+
+/** The defaults (as `eggline cohort` with no option): reference with dosage 1, the sheet's role column, scale-offset. */
+export const DEFAULT_COHORT_CHOICES: CohortChoices = {
+  reference: null, backgroundCondition: null, normalisation: 'scale-offset', lambdaPosteriorEl: null, equivalenceMargin: null,
+};
+
+/** Options given as flags; undefined: not given. */
+export type CohortFlags = { readonly [K in keyof CohortChoices]?: CohortChoices[K] | undefined };
+
+/** Flag over project over default, per option. */
+export function cohortChoices(project: ProjectCohortOptions | null | undefined, flags: CohortFlags = {}): CohortChoices {
+  const pick = <K extends keyof CohortChoices>(key: K): CohortChoices[K] => {
+    const flag = flags[key];
+    if (flag !== undefined) return flag as CohortChoices[K];
+    const kept = project?.[key];
+    return kept !== undefined ? kept as CohortChoices[K] : DEFAULT_COHORT_CHOICES[key];
+  };
+  return {
+    reference: pick('reference'), backgroundCondition: pick('backgroundCondition'), normalisation: pick('normalisation'),
+    lambdaPosteriorEl: pick('lambdaPosteriorEl'), equivalenceMargin: pick('equivalenceMargin'),
+  };
+}
