@@ -27,7 +27,7 @@ import { useExports } from './hooks/useExports';
 import { useLiveMeasurement } from './hooks/useLiveMeasurement';
 import { movieViewOf, useMovie } from './hooks/useMovie';
 import { TimelapseView } from './components/timelapse/TimelapseView';
-import type { FolderEntry, LoadedStack } from '../core/contract';
+import type { FolderEntry, LoadedStack, ProjectCohortOptions } from '../core/contract';
 import { fileStatus } from './state/fileStatus';
 import { currentEdits, editorReducer, fileResult, initialState, storedEdits, timePointEdits } from './state';
 import { fileEditsAt } from '../core/settings';
@@ -87,9 +87,15 @@ export function App() {
   const preview = stack === null && load.preview !== null && load.preview.path === entry?.path ? load.preview.plane : null;
   const [saveStatus, saveNow] = useAutosave(api, session.projectPath, session.folder, state.doc, state.revision, session.batchOutDir);
   flushSave.current = () => (saveStatus.kind === 'pending' ? saveNow() : Promise.resolve());
-  const { batch, results, chooseOutput, run, cancel, restore } = useBatch(api);
-  // The project's last batch comes back with the project (results.json in the output folder it records).
-  useEffect(() => { void restore(session.batchOutDir, session.folder); }, [session.projectPath, session.folder]);
+  const { batch, results, chooseOutput, run, cancel, restore, recomputeCohort } = useBatch(api);
+  // The project's last batch comes back with the project (results.json in the output folder it records), compared with
+  // the project's cohort options.
+  useEffect(() => { void restore(session.batchOutDir, session.folder, state.doc.cohort ?? null); }, [session.projectPath, session.folder]);
+  // A comparison option: saved in the project (autosave) and the cohort recomputed with it in the main process.
+  const setCohortOptions = (cohort: ProjectCohortOptions) => {
+    dispatch({ type: 'setCohortOptions', cohort });
+    void recomputeCohort(session.folder, cohort);
+  };
   // A finished batch's output folder is written into the project at once, so its results reopen after a restart.
   const [outDirSaves, setOutDirSaves] = useState(0);
   useEffect(() => { if (outDirSaves > 0) void saveNow(); }, [outDirSaves]);
@@ -250,7 +256,8 @@ export function App() {
             onMovieTime={(time, timeStepS) => dispatch({ type: 'setMovieTime', time, timeStepS })}
             onAnalyse={startMovie} onCancel={() => { void cancelMovie(); }}
             tIndex={state.shownTimeIndex} onTimePoint={(t) => dispatch({ type: 'showTimePoint', tIndex: t })} setMessage={setMessage} />}
-          {tab === 'cohort' && <CohortView summary={batch.summary} onOpenReport={openReport} />}
+          {tab === 'cohort' && <CohortView summary={batch.summary} onOpenReport={openReport}
+            options={{ options: state.doc.cohort ?? {}, conditions: batch.sheetConditions, busy: batch.recomputing, onChange: setCohortOptions }} />}
         </main>
         <aside className="right">
           {isMovie && stack !== null && <TimePointPanel tIndex={state.shownTimeIndex} sizeT={movieView?.sizeT ?? stack.info.sizeT}

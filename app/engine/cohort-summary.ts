@@ -3,7 +3,7 @@
 import { promises as fs } from 'node:fs';
 import { join } from 'node:path';
 import { analyseCohort, type CohortAnalysis, type ConditionStat } from '../../core/cohort';
-import type { CohortConditionRow, CohortSummary } from '../../core/contract';
+import type { CohortConditionRow, CohortPositionalError, CohortSummary } from '../../core/contract';
 import { cohortFigures, type NamedFigure } from '../../core/figures';
 import { batchSettings, readSampleSheet } from '../cohort/run-cohort';
 import type { EmbryoResult } from '../../core/model';
@@ -36,6 +36,21 @@ export function conditionRows(a: CohortAnalysis): CohortConditionRow[] {
   }));
 }
 
+/** Positions (x/EL) at which the window shows σx: grid points of positional_error.csv across the usual gradient range. */
+export const POSITIONAL_ERROR_XS_EL = [0.2, 0.3, 0.4, 0.5, 0.6] as const;
+
+/** σx of each condition at POSITIONAL_ERROR_XS_EL (the nearest grid point, as written in positional_error.csv). */
+export function positionalErrorRows(a: CohortAnalysis): CohortPositionalError[] {
+  return a.profiles.map((p) => ({
+    condition: p.condition, normalisation: p.normalisation,
+    points: POSITIONAL_ERROR_XS_EL.flatMap((x) => {
+      let best = -1;
+      for (let i = 0; i < p.xEl.length; i++) if (best < 0 || Math.abs(p.xEl[i] - x) < Math.abs(p.xEl[best] - x)) best = i;
+      return best < 0 || Math.abs(p.xEl[best] - x) > 1e-6 ? [] : [{ xEl: p.xEl[best], sigmaXEl: p.sigmaXEl[best], ciLowEl: p.sigmaXCiLowEl[best], ciHighEl: p.sigmaXCiHighEl[best] }];
+    }),
+  }));
+}
+
 /** The line that says the values are background-subtracted, when they are (the window lists it first). */
 function backgroundNote(a: CohortAnalysis): string[] {
   const bg = a.backgroundCondition;
@@ -50,6 +65,7 @@ export function summariseCohort(
     reportPath: join(outDir, 'report.html'), sampleSheetPath, reference: a.reference, level: a.options.level,
     referenceLambda: a.referenceLambda, conditions: conditionRows(a), stats: a.stats, shifts: a.shifts, dosageFit: a.dosageFits,
     figures: figures.map((f) => ({ name: f.name, title: f.title, svg: f.svg })), warnings: [...backgroundNote(a), ...a.warnings],
+    backgroundCondition: a.backgroundCondition?.condition ?? null, positionalError: positionalErrorRows(a),
   };
 }
 

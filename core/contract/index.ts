@@ -123,6 +123,18 @@ export interface CohortSummary {
   readonly dosageFit: readonly DosageFit[];
   readonly figures: readonly CohortFigure[];
   readonly warnings: readonly string[];
+  /** Positional error σx of each condition's mean profile at a few positions (positional_error.csv's rows there),
+   *  with the normalisation it was computed after; absent in older summaries. */
+  readonly positionalError?: readonly CohortPositionalError[];
+  /** The condition subtracted as background (left out of the comparison), when one was; absent or null: none. */
+  readonly backgroundCondition?: string | null;
+}
+
+/** σx of one condition at the positions shown (x/EL, NaN where the slope is not resolved), with its interval. */
+export interface CohortPositionalError {
+  readonly condition: string;
+  readonly normalisation: string;
+  readonly points: readonly { readonly xEl: number; readonly sigmaXEl: number; readonly ciLowEl: number; readonly ciHighEl: number }[];
 }
 
 /** A value with its confidence interval (NaN where not measured). */

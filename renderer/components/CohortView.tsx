@@ -7,6 +7,7 @@ import type { BatchSummary, CohortConditionRow, CohortSummary } from '../../core
 import { quantityLabel, slopeRatio, type DosageFit, type ShiftRow } from '../../core/cohort';
 import { cohortProfilesFigure, lambdaByConditionFigure, plainNumber, sigFig, valueWithCi } from '../../core/figures';
 import { lambdaSummaryEl, lambdaValuesEl, meanScaledProfile } from '../export/cohortSeries';
+import { ComparisonOptions, type ComparisonOptionsProps } from './ComparisonOptions';
 import { fmt } from '../ui/format';
 
 /** "value [lo, hi]" at the interval's precision; the value alone when there is no interval (n = 1); "n/a" without a value. */
@@ -85,6 +86,27 @@ function ShiftTable({ c }: { c: CohortSummary }) {
   );
 }
 
+/** σx per condition at a few positions, with the normalisation it follows (positional_error.csv has every position). */
+function PositionalErrorTable({ c }: { c: CohortSummary }) {
+  const rows = c.positionalError ?? [];
+  if (rows.length === 0) return null;
+  const pct = Math.round(c.level * 100);
+  const xs = rows[0].points.map((p) => p.xEl);
+  return (
+    <div className="table-scroll" data-testid="cohort-sigma-scroll">
+      <h4>Positional error σx, x/EL [{pct}% CI] <span className="muted">after normalisation <code data-testid="cohort-sigma-normalisation">{rows[0].normalisation}</code>; every position in positional_error.csv</span></h4>
+      <table className="results cohort-table" data-testid="cohort-sigma">
+        <thead><tr><th>condition</th>{xs.map((x) => <th key={x}>x = {x.toFixed(1)} EL</th>)}</tr></thead>
+        <tbody>{rows.map((r) => (
+          <tr key={r.condition} data-testid="cohort-sigma-row" data-condition={r.condition}>
+            <td>{r.condition}</td>
+            {r.points.map((p) => <td key={p.xEl} data-x={p.xEl.toFixed(1)}>{withCi(p.sigmaXEl, p.ciLowEl, p.ciHighEl)}</td>)}
+          </tr>))}</tbody>
+      </table>
+    </div>
+  );
+}
+
 function DosageTest({ c }: { c: CohortSummary }) {
   if (c.reference === null) return <p className="muted">Dosage test skipped: no reference condition (give the reference dosage 1 in samples.csv).</p>;
   if (c.dosageFit.length === 0 && c.shifts.length === 0) return <p className="muted">Dosage test: no boundary or landmark positions to compare.</p>;
@@ -99,14 +121,17 @@ function DosageTest({ c }: { c: CohortSummary }) {
   );
 }
 
-function ConditionsView({ c, outDir, onOpenReport }: { c: CohortSummary; outDir: string; onOpenReport: (path: string) => void }) {
+function ConditionsView({ c, outDir, onOpenReport, options }: { c: CohortSummary; outDir: string; onOpenReport: (path: string) => void; options?: ComparisonOptionsProps }) {
   return (
     <section className="panel cohort" data-testid="cohort-view">
-      <h3>Cohort <span className="muted">last batch · {c.conditions.length} conditions from <code>{c.sampleSheetPath}</code> · reference: {c.reference ?? 'none'}</span></h3>
+      <h3>Cohort <span className="muted">last batch · {c.conditions.length} conditions from <code data-testid="cohort-sheet">{c.sampleSheetPath}</code> · reference: {c.reference ?? 'none'}</span></h3>
       <p className="muted small"><button data-testid="cohort-open-report" onClick={() => onOpenReport(c.reportPath)} title="Open report.html in the system's browser">Open report</button>{' '}
         <code data-testid="cohort-report">{c.reportPath}</code> · tables (conditions.csv, shifts.csv, dosage_fit.csv) in <code>{outDir}</code></p>
+      {options && <ComparisonOptions {...options} />}
+      {options && <p className="muted small" data-testid="cohort-options-note">The files in <code>{outDir}</code> (report.html, the tables) keep the options of the batch that wrote them; the window shows the options above.</p>}
       <ConditionTable c={c} />
       <DosageTest c={c} />
+      <PositionalErrorTable c={c} />
       {c.warnings.length > 0 && <ul className="warnings" data-testid="cohort-warnings">{c.warnings.map((w) => <li key={w}>{w}</li>)}</ul>}
       <div className="figures cohort-figures">
         {c.figures.map((f) => <figure key={f.name} className="figure" data-testid="cohort-figure" data-name={f.name} title={f.title} dangerouslySetInnerHTML={{ __html: f.svg }} />)}
@@ -116,7 +141,7 @@ function ConditionsView({ c, outDir, onOpenReport }: { c: CohortSummary; outDir:
 }
 
 /** The whole batch as one group (no sample sheet): mean scaled profile and λ per embryo, computed as the report does. */
-function SingleGroupView({ summary }: { summary: BatchSummary }) {
+function SingleGroupView({ summary, options }: { summary: BatchSummary; options?: ComparisonOptionsProps }) {
   const figs = useMemo(() => {
     // One row per embryo: a movie counts once, with its last analysed time point (as in the report).
     const ok = embryoResults(summary.results).filter((r) => r.status === 'ok');
@@ -133,7 +158,7 @@ function SingleGroupView({ summary }: { summary: BatchSummary }) {
     };
   }, [summary]);
   const hint = summary.cohortError
-    ? <p className="error" data-testid="cohort-error">The cohort step failed: {summary.cohortError}</p>
+    ? <>{options && options.conditions.length > 0 && <ComparisonOptions {...options} />}<p className="error" data-testid="cohort-error">The cohort step failed: {summary.cohortError}</p></>
     : summary.cancelled ? <p className="muted" data-testid="cohort-hint">The batch was cancelled; conditions are compared after a complete batch.</p>
     : <p className="muted" data-testid="cohort-hint">All embryos are shown as one group. To compare conditions (and run the dosage test), put a <code>samples.csv</code> with columns file, condition, dosage (reference = 1) in the folder and run the batch again.</p>;
   if (figs.n === 0) return <section className="panel cohort" data-testid="cohort-view">{hint}<p className="muted">The last batch has no embryo with a gradient fit, so there is nothing to summarise.</p></section>;
@@ -150,8 +175,8 @@ function SingleGroupView({ summary }: { summary: BatchSummary }) {
 }
 
 /** Cohort view; empty until a batch has finished. */
-export function CohortView({ summary, onOpenReport }: { summary: BatchSummary | null; onOpenReport: (path: string) => void }) {
+export function CohortView({ summary, onOpenReport, options }: { summary: BatchSummary | null; onOpenReport: (path: string) => void; options?: ComparisonOptionsProps }) {
   if (summary === null) return <section className="panel cohort"><p className="muted">Run a batch to see the cohort summary here.</p></section>;
-  if (summary.cohort) return <ConditionsView c={summary.cohort} outDir={summary.outDir} onOpenReport={onOpenReport} />;
-  return <SingleGroupView summary={summary} />;
+  if (summary.cohort) return <ConditionsView c={summary.cohort} outDir={summary.outDir} onOpenReport={onOpenReport} options={options} />;
+  return <SingleGroupView summary={summary} options={options} />;
 }

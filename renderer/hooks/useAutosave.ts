@@ -12,7 +12,9 @@ export type SaveStatus = { kind: 'idle' } | { kind: 'pending' } | { kind: 'saved
 
 /** The project file content for a document. */
 export function toProjectDoc(doc: DocState, folder: string | null, batchOutDir: string | null = null): ProjectDoc {
-  const base: ProjectDoc = { schema: 'eggline-project', version: PROJECT_VERSION, folder, settings: doc.settings, files: doc.files };
+  const base: ProjectDoc = {
+    schema: 'eggline-project', version: PROJECT_VERSION, folder, settings: doc.settings, files: doc.files, ...(doc.cohort ? { cohort: doc.cohort } : {}),
+  };
   return batchOutDir === null ? base : { ...base, batchOutDir };
 }
 

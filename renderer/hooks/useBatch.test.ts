@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { applyProgress } from './useBatch';
+import { applyProgress, sheetConditionsOf } from './useBatch';
 
 // Demo progress events.
 describe('applyProgress', () => {
-  const s0 = { outDir: '/o', running: true, runId: null, done: 0, total: 0, files: [], summary: null, error: null };
+  const s0 = { outDir: '/o', running: true, runId: null, done: 0, total: 0, files: [], summary: null, error: null, sheetConditions: [], recomputing: false };
   it('records counts and replaces a file line by name', () => {
     const s1 = applyProgress(s0, { runId: 'r1', done: 0, total: 2, file: 'a.tif', status: 'running', message: null });
     const s2 = applyProgress(s1, { runId: 'r1', done: 1, total: 2, file: 'a.tif', status: 'error', message: 'a.tif: bad' });
@@ -12,5 +12,14 @@ describe('applyProgress', () => {
   });
   it('ignores file-less events for the list', () => {
     expect(applyProgress(s0, { runId: 'r', done: 2, total: 2, file: null, status: 'finished', message: null }).files).toEqual([]);
+  });
+});
+
+describe('sheetConditionsOf', () => {
+  const cohort = (names: string[], backgroundCondition: string | null) => ({ cohort: { conditions: names.map((name) => ({ name })), backgroundCondition } }) as unknown as Parameters<typeof sheetConditionsOf>[0];
+  it('lists the compared conditions and the background condition last; keeps the previous list without a comparison', () => {
+    expect(sheetConditionsOf(cohort(['wt', 'half'], 'null-stain'), [])).toEqual(['wt', 'half', 'null-stain']);
+    expect(sheetConditionsOf(cohort(['wt'], null), ['x'])).toEqual(['wt']);
+    expect(sheetConditionsOf(null, ['wt', 'half'])).toEqual(['wt', 'half']);
   });
 });

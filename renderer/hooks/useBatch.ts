@@ -1,6 +1,6 @@
 // Runs a batch through the API and follows its progress events.
-import { useEffect, useMemo, useState } from 'react';
-import type { BatchProgress, BatchSummary, EgglineApi, ProjectDoc } from '../../core/contract';
+import { useEffect, useMemo, useRef, useState } from 'react';
+import type { BatchProgress, BatchSummary, EgglineApi, ProjectCohortOptions, ProjectDoc } from '../../core/contract';
 import { embryoResults } from '../../core/batch';
 import { indexResults, NO_RESULTS, type ResultIndex } from '../state';
 
@@ -17,9 +17,22 @@ export interface BatchState {
   readonly files: readonly BatchFileLine[];
   readonly summary: BatchSummary | null;
   readonly error: string | null;
+  /** The sample sheet's conditions as last compared (the background condition included), so the comparison's
+   *  options stay offered when a choice makes the cohort step fail. */
+  readonly sheetConditions: readonly string[];
+  /** True while the comparison is recomputed after an option changed. */
+  readonly recomputing: boolean;
 }
 
-const START: BatchState = { outDir: null, running: false, runId: null, done: 0, total: 0, files: [], summary: null, error: null };
+const START: BatchState = { outDir: null, running: false, runId: null, done: 0, total: 0, files: [], summary: null, error: null, sheetConditions: [], recomputing: false };
+
+/** The sheet's conditions a summary compared (the background condition, left out of the comparison, last). */
+export function sheetConditionsOf(summary: BatchSummary | null, previous: readonly string[]): readonly string[] {
+  const c = summary?.cohort;
+  if (!c) return previous;
+  const names = c.conditions.map((r) => r.name);
+  return c.backgroundCondition ? [...names, c.backgroundCondition] : names;
+}
 
 /** Fold one progress event into the state (pure). */
 export function applyProgress(s: BatchState, p: BatchProgress): BatchState {
@@ -30,6 +43,8 @@ export function applyProgress(s: BatchState, p: BatchProgress): BatchState {
 /** Batch state, its results keyed by (file, time point), plus commands: choose output, run, cancel. */
 export function useBatch(api: EgglineApi | null) {
   const [state, setState] = useState<BatchState>(START);
+  // Only the newest recomputation is shown (options may change again before an earlier one answers).
+  const recomputeSeq = useRef(0);
   useEffect(() => (api === null ? undefined : api.onBatchProgress((p) => setState((s) => applyProgress(s, p)))), [api]);
   const chooseOutput = async () => {
     if (api === null) return;
@@ -42,22 +57,40 @@ export function useBatch(api: EgglineApi | null) {
     if (api === null || state.outDir === null || state.running) return null;
     setState((s) => ({ ...START, outDir: s.outDir, running: true }));
     const r = await api.runBatch(folder, state.outDir, doc);
-    setState((s) => (r.ok ? { ...s, running: false, summary: r.value } : { ...s, running: false, error: r.error.message }));
+    setState((s) => (r.ok ? { ...s, running: false, summary: r.value, sheetConditions: sheetConditionsOf(r.value, s.sheetConditions) } : { ...s, running: false, error: r.error.message }));
     return r.ok ? r.value.outDir : null;
   };
   /** Show the batch saved in a project's output folder (after a restart); forget it when there is none. */
-  const restore = async (outDir: string | null, folder: string | null) => {
+  const restore = async (outDir: string | null, folder: string | null, cohort: ProjectCohortOptions | null = null) => {
     if (api === null) return;
     if (outDir === null || folder === null) { setState(START); return; }
-    const r = await api.loadBatchResults(outDir, folder);
+    recomputeSeq.current += 1;
+    const r = await api.loadBatchResults(outDir, folder, cohort);
     if (!r.ok) { setState({ ...START, outDir, error: `The last batch's results could not be read: ${r.error.message}` }); return; }
     const summary = r.value;
     const files = summary === null ? 0 : embryoResults(summary.results).length;
-    setState({ ...START, outDir, summary, done: files, total: files });
+    setState({ ...START, outDir, summary, done: files, total: files, sheetConditions: sheetConditionsOf(summary, []) });
+  };
+  /** Compare the shown batch's conditions again with other options (the same cohort step as `eggline cohort`, in the
+   *  main process, over the batch's saved results); only its cohort part of the summary changes. */
+  const recomputeCohort = async (folder: string | null, cohort: ProjectCohortOptions) => {
+    const outDir = state.summary?.outDir ?? null;
+    if (api === null || outDir === null || folder === null || state.running) return;
+    const seq = ++recomputeSeq.current;
+    setState((s) => ({ ...s, recomputing: true }));
+    const r = await api.loadBatchResults(outDir, folder, cohort);
+    if (seq !== recomputeSeq.current) return;
+    setState((s) => {
+      if (s.summary === null) return { ...s, recomputing: false };
+      if (!r.ok) return { ...s, recomputing: false, summary: { ...s.summary, cohort: null, cohortError: r.error.message } };
+      const fresh = r.value;
+      const summary = { ...s.summary, cohort: fresh?.cohort ?? null, cohortError: fresh?.cohortError ?? null };
+      return { ...s, recomputing: false, summary, sheetConditions: sheetConditionsOf(summary, s.sheetConditions) };
+    });
   };
   const cancel = async () => {
     if (api !== null && state.runId !== null) await api.cancelBatch(state.runId);
   };
   const results: ResultIndex = useMemo(() => (state.summary === null ? NO_RESULTS : indexResults(state.summary.results)), [state.summary]);
-  return { batch: state, results, chooseOutput, run, cancel, restore };
+  return { batch: state, results, chooseOutput, run, cancel, restore, recomputeCohort };
 }

@@ -24,7 +24,7 @@ export function useSession(api: EgglineApi | null, dispatch: Dispatch<EditorActi
   const [session, setSession] = useState<Session>({ folder: null, entries: [], projectPath: null, message: null, opening: false, batchOutDir: null });
   const adopt = (o: Opened) => {
     setSession({ folder: o.folder, entries: o.entries, projectPath: o.projectPath, message: o.warning ?? null, opening: false, batchOutDir: o.project.batchOutDir ?? null });
-    dispatch({ type: 'openDoc', doc: { settings: o.project.settings, files: o.project.files } });
+    dispatch({ type: 'openDoc', doc: { settings: o.project.settings, files: o.project.files, ...(o.project.cohort ? { cohort: o.project.cohort } : {}) } });
     onOpened(o.entries[0]?.name ?? null);
   };
   /** Files without a project folder (chosen, dropped or recent): hand edits stay in this window. */

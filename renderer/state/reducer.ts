@@ -16,6 +16,7 @@ export const HISTORY_LIMIT = 200;
 export function perform(state: EditorState, action: EditorAction): ActionOutcome {
   switch (action.type) {
     case 'openDoc': return openDoc(state, action.doc);
+    case 'setCohortOptions': return { state: { ...state, doc: { ...state.doc, cohort: action.cohort } }, history: 'none' };
     case 'selectFile': return selectFile(state, action.key, action.autoAxis);
     case 'showTimePoint': return showTimePoint(state, action.tIndex);
     case 'setEditScope': return setEditScope(state, action.scope);

@@ -1,6 +1,6 @@
 // Editor state: the undoable document (settings + per-file hand edits) and the non-undoable view state.
 import type { ApAxis, ImagePoint } from '../../core/model';
-import type { AnalysisSettings, SettingsOverrides } from '../../core/settings';
+import type { AnalysisSettings, ProjectCohortOptions, SettingsOverrides } from '../../core/settings';
 import type { FileEdits } from '../../core/contract';
 import type { ViewTransform } from '../geometry';
 
@@ -33,6 +33,9 @@ export type HistoryEntry =
 export interface DocState {
   readonly settings: AnalysisSettings;
   readonly files: Readonly<Record<string, FileEdits>>;
+  /** How the cohort step compares conditions (the Cohort tab's options); absent: the defaults. Not undoable: each
+   *  change recomputes the comparison at once and is saved. */
+  readonly cohort?: ProjectCohortOptions;
 }
 
 /** Everything the editor needs to draw; large pixel data lives outside (see app/useStack). */
@@ -66,6 +69,7 @@ export type AxisEnd = 'anterior' | 'posterior';
 /** Every named edit. `coalesce` marks the continuation of a drag that already entered history. */
 export type EditorAction =
   | { type: 'openDoc'; doc: DocState }
+  | { type: 'setCohortOptions'; cohort: ProjectCohortOptions }
   | { type: 'selectFile'; key: string; autoAxis: ApAxis | null }
   | { type: 'showTimePoint'; tIndex: number }
   | { type: 'setEditScope'; scope: EditScope }
