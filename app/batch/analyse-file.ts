@@ -42,14 +42,20 @@ export async function analyseFileWithDigest(
   let hashing: HashingByteSource | null = null;
   const wrapSource = digest ? (s: Parameters<typeof hashingByteSource>[0]) => (hashing = hashingByteSource(s)) : undefined;
   let shape: TimeShape | null = null;
-  const result = await analyseOpened(task, wrapSource, (info) => { shape = { sizeT: info.sizeT, sizeZ: info.sizeZ, isOme: info.isOme }; });
-  const h = hashing as HashingByteSource | null;
-  const input = h ? await h.finish().then(({ sha256, bytes }) => ({ sha256, bytes }), () => null) : null;
+  let input: InputDigest | null = null;
+  // The hash is completed before the file is closed: it reads the bytes the decoder skipped (tags read through
+  // their own cache, padding). Completed after the close, that read failed, and the batch hashed every file again.
+  const finishHash = async (): Promise<void> => {
+    const h = hashing as HashingByteSource | null;
+    input = h ? await h.finish().then(({ sha256, bytes }) => ({ sha256, bytes }), () => null) : null;
+  };
+  const result = await analyseOpened(task, wrapSource, (info) => { shape = { sizeT: info.sizeT, sizeZ: info.sizeZ, isOme: info.isOme }; }, finishHash);
   return { result, input, shape };
 }
 
 async function analyseOpened(
   task: BatchTask, wrapSource: ((s: Parameters<typeof hashingByteSource>[0]) => HashingByteSource) | undefined, onInfo: (info: StackInfo) => void,
+  beforeClose: () => Promise<void> = async () => undefined,
 ): Promise<EmbryoResult> {
   let opened: Awaited<ReturnType<typeof openStack>> | null = null;
   try {
@@ -67,6 +73,7 @@ async function analyseOpened(
   } catch (e) {
     return errorResult(task.file, fileMessage(task.file, e));
   } finally {
+    await beforeClose();
     await opened?.source.close().catch(() => undefined);
   }
 }
