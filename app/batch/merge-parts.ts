@@ -7,6 +7,7 @@ import { embryoResults, resultsDocFromJson, type ResultsDoc, type RunRecord } fr
 import type { EmbryoResult, MovieRecord } from '../../core/model';
 import { checkParts, isUnfinished, mergeRunRecords, orderLikeOneRun, type PartEntry } from '../../core/shard';
 import { runCohort } from './cohort-adapter';
+import type { Normalisation } from '../../core/cohort';
 import { filesOfMissingParts } from './shard';
 import { movieOutcomes, writeTimelapseOutputs, type MovieFailure, type MovieOutcome } from './timelapse-pass';
 import { writeBatchOutputs } from './write-outputs';
@@ -23,7 +24,11 @@ export interface MergePartsOptions {
   /** Merge the parts that are there; list the files of missing parts in run.json. */
   readonly allowMissing: boolean;
   readonly commandLine?: readonly string[];
-  readonly cohort?: { readonly sampleSheetPath: string; readonly reference: string | null; readonly backgroundCondition?: string | null } | null;
+  readonly cohort?: {
+    readonly sampleSheetPath: string; readonly reference: string | null; readonly backgroundCondition?: string | null;
+    /** The cohort step's other options (see runCohortStep); absent: its defaults. */
+    readonly normalisation?: Normalisation; readonly lambdaPosteriorEl?: number | null; readonly equivalenceMargin?: number | null;
+  } | null;
 }
 
 /** What a merge wrote. */
@@ -150,6 +155,7 @@ export async function mergeParts(opts: MergePartsOptions): Promise<MergePartsRes
     const failures = results.filter((r) => r.status === 'error').map((r) => ({ file: r.file, error: r.error ?? 'error' }));
     const step = await runCohort({
       results: embryoResults(results), failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, backgroundCondition: opts.cohort.backgroundCondition ?? null, outDir: opts.outDir, runRecord: record,
+      normalisation: opts.cohort.normalisation, lambdaPosteriorEl: opts.cohort.lambdaPosteriorEl ?? null, equivalenceMargin: opts.cohort.equivalenceMargin ?? null,
       movies: timelapse.movies, movieFailures: timelapse.failures,
     });
     written.push(...step.written);

@@ -221,9 +221,13 @@ function reportEnd(io: CliIo, summary: BatchRunResult, plan: BatchPlan): void {
 /** `--slurm N`: write the two scripts and print how to submit them; analyses nothing. */
 async function slurmCommand(plan: BatchPlan, io: CliIo, cliPath: string): Promise<number> {
   const slurm = plan.slurm as NonNullable<BatchPlan['slurm']>;
+  // The merge job compares conditions with the options in force here (flags over the project's cohort entry).
   const c = plan.cohort;
   const mergeArgs = plan.samples ? ['--samples', plan.samples, ...(c.reference !== null ? ['--reference', c.reference] : []),
-    ...(c.backgroundCondition !== null ? ['--background-condition', c.backgroundCondition] : [])] : [];
+    ...(c.backgroundCondition !== null ? ['--background-condition', c.backgroundCondition] : []),
+    ...(c.normalisation !== 'scale-offset' ? ['--normalise', c.normalisation] : []),
+    ...(c.lambdaPosteriorEl !== null ? ['--lambda-posterior-el', String(c.lambdaPosteriorEl)] : []),
+    ...(c.equivalenceMargin !== null ? ['--equivalence-margin', String(c.equivalenceMargin)] : [])] : [];
   const { plan: p, arrayPath, mergePath } = await writeSlurmScripts({
     folder: plan.folder, outDir: plan.outDir, parts: slurm.parts, cpusPerTask: slurm.cpusPerTask, optionsText: slurm.options,
     batchArgs: slurm.partArgs, mergeArgs, nodePath: process.execPath, cliPath,

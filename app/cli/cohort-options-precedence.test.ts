@@ -65,3 +65,12 @@ describe('cohort options: flag over project over default', () => {
     await expect(planBatch([input, '--out', join(root, 'o'), '--normalise', 'none'])).rejects.toThrow('--normalise needs --samples');
   });
 });
+
+describe('eggline merge takes the same three options', () => {
+  const io = { stdout: { write: () => true }, stderr: { write: () => true } };
+  it('refuses them without --samples, and a bad value with eggline cohort\'s rule', async () => {
+    const { mergeCommand } = await import('./merge-command');
+    await expect(mergeCommand([root, '--normalise', 'none'], io)).rejects.toThrow('--normalise needs --samples');
+    await expect(mergeCommand([root, '--samples', samples, '--lambda-posterior-el', '-0.1'], io)).rejects.toThrow('--lambda-posterior-el must be a positive number (got "-0.1")');
+  });
+});

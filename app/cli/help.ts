@@ -132,6 +132,8 @@ Options:
   --background-condition COND the sheet's condition of null or secondary-only stainings, subtracted
                               from every other embryo's profile before λ and boundaries are fitted
                               again in the cohort step (needs --samples; see eggline cohort --help)
+  --normalise MODE, --lambda-posterior-el V, --equivalence-margin M
+                              the cohort step's other options, as in eggline cohort (need --samples)
   --allow-missing             merge the parts that are there; run.json lists the files without a row
   -h, --help                  show this help
 

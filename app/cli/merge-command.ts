@@ -4,23 +4,30 @@ import { join, resolve } from 'node:path';
 import { mergeParts, MergeRefusal } from '../batch/merge-parts';
 import { MERGE_HELP } from './help';
 import { reportTimelapse } from './timelapse-step';
-import { parseCommandArgs } from './parse-command-args';
+import { joinNegativeValues, parseCommandArgs } from './parse-command-args';
+import { parseComparisonFlags } from '../cohort/cohort-choices';
 import { UsageError, type CliIo } from './usage-error';
 
 const OPTIONS = {
   samples: { type: 'string' }, reference: { type: 'string' }, 'background-condition': { type: 'string' }, 'allow-missing': { type: 'boolean' }, help: { type: 'boolean', short: 'h' },
+  normalise: { type: 'string' }, 'lambda-posterior-el': { type: 'string' }, 'equivalence-margin': { type: 'string' },
 } as const;
 
 /** Run `eggline merge`; returns the exit code (0 merged and every file ok, 1 some files failed or missing or the cohort
  *  step failed, 2 usage error or a merge refused: a part missing, present twice, or made differently). */
 export async function mergeCommand(argv: readonly string[], io: CliIo): Promise<number> {
-  const { values: v, positionals } = parseCommandArgs(argv, OPTIONS, 'merge');
+  const { values: v, positionals } = parseCommandArgs(joinNegativeValues(argv, OPTIONS), OPTIONS, 'merge');
   if (v.help) { io.stdout.write(MERGE_HELP); return 0; }
   if (positionals.length !== 1) {
     throw new UsageError(positionals.length === 0 ? 'missing the batch output folder (the --out of the split batch)' : `expected one folder, got ${positionals.length}: ${positionals.join(' ')}`, 'merge');
   }
   if (v.reference !== undefined && v.samples === undefined) throw new UsageError('--reference needs --samples', 'merge');
   if (v['background-condition'] !== undefined && v.samples === undefined) throw new UsageError('--background-condition needs --samples', 'merge');
+  for (const flag of ['normalise', 'lambda-posterior-el', 'equivalence-margin'] as const) {
+    if (v[flag] !== undefined && v.samples === undefined) throw new UsageError(`--${flag} needs --samples`, 'merge');
+  }
+  const comparison = parseComparisonFlags(v);
+  if ('usage' in comparison) throw new UsageError(comparison.usage as string, 'merge');
   if (v.samples !== undefined && !(await fs.stat(v.samples).then((s) => s.isFile(), () => false))) {
     throw new UsageError(`sample sheet not found: ${v.samples}`, 'merge');
   }
@@ -28,7 +35,10 @@ export async function mergeCommand(argv: readonly string[], io: CliIo): Promise<
   try {
     const merged = await mergeParts({
       outDir, allowMissing: v['allow-missing'] === true, commandLine: ['eggline', 'merge', ...argv],
-      cohort: v.samples !== undefined ? { sampleSheetPath: resolve(v.samples), reference: v.reference ?? null, backgroundCondition: v['background-condition'] ?? null } : null,
+      cohort: v.samples !== undefined ? {
+        sampleSheetPath: resolve(v.samples), reference: v.reference ?? null, backgroundCondition: v['background-condition'] ?? null,
+        normalisation: comparison.normalisation, lambdaPosteriorEl: comparison.lambdaPosteriorEl ?? null, equivalenceMargin: comparison.equivalenceMargin ?? null,
+      } : null,
     });
     for (const w of merged.warnings) io.stderr.write(`eggline: warning: ${w}\n`);
     const total = merged.ok + merged.failed;
