@@ -1,11 +1,12 @@
 // How the per-embryo intervals of each side's λ and of λ_dorsal − λ_ventral hold on the project's own synthetic
 // embryos (demo data: the same λ = 100 µm on both sides unless a second value is given; random position and rotation,
 // nuclear texture, z-blur, shot and read noise), analysed with --edge-side each:
-//   npx tsx scripts/side-difference-coverage.ts [embryos=80] [rightLambdaUm=100] [edgeDepthUm=the default, 20]
+//   npx tsx scripts/side-difference-coverage.ts [embryos=80] [rightLambdaUm=100] [edgeDepthUm=the default, 20] [firstSeed=90000]
 // Prints how many 95% intervals held the truth (dorsal, ventral, difference), the SD of each side's error against
 // its mean SE, the mean errors, the SD of the detected axis's angle error and its correlation with the λ errors, the
 // correlation of the two sides' λ errors across embryos and the mean estimated correlation of their residuals
-// (nothing is written). The embryos are those of scripts/lambda-coverage.ts (seeds 90 000 + 17k).
+// (nothing is written). By default the embryos are those of
+// scripts/lambda-coverage.ts (seeds 90 000 + 17k); another firstSeed gives an independent set (firstSeed + 17k).
 import { analyseStack } from '../core/pipeline';
 import { DEFAULT_SETTINGS, type AnalysisSettings } from '../core/settings';
 import { makeSyntheticEmbryo, syntheticPlaneSource, syntheticStackInfo } from '../core/synth';
@@ -13,10 +14,11 @@ import { makeSyntheticEmbryo, syntheticPlaneSource, syntheticStackInfo } from '.
 const n = Number(process.argv[2] ?? 80);
 const rightUm = Number(process.argv[3] ?? 100);
 const edgeDepthUm = Number(process.argv[4] ?? DEFAULT_SETTINGS.profile.edgeDepthUm);
+const firstSeed = Number(process.argv[5] ?? 90_000);
 const settings: AnalysisSettings = { ...DEFAULT_SETTINGS, profile: { ...DEFAULT_SETTINGS.profile, edgeSide: 'each', edgeDepthUm } };
 const rows: { d: number; v: number; seD: number; seV: number; diff: number; seDiff: number; inD: boolean; inV: boolean; inDiff: boolean; corr: number; angleErrDeg: number }[] = [];
 for (let k = 0; k < n; k++) {
-  const e = makeSyntheticEmbryo({ widthPx: 384, heightPx: 384, pixelSizeUm: 1.5, sizeZ: 8, rightLambdaUm: rightUm, dosage: [0.5, 1, 2, 4][k % 4] }, 90_000 + 17 * k);
+  const e = makeSyntheticEmbryo({ widthPx: 384, heightPx: 384, pixelSizeUm: 1.5, sizeZ: 8, rightLambdaUm: rightUm, dosage: [0.5, 1, 2, 4][k % 4] }, firstSeed + 17 * k);
   const r = await analyseStack(syntheticStackInfo(e), syntheticPlaneSource(e), settings, { fileLabel: `embryo-${k}` });
   const s = r.sides;
   if (!s?.dorsalFit || !s.ventralFit || !s.difference) { console.log(`embryo-${k}: no difference (${r.warnings.join('; ')})`); continue; }

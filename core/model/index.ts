@@ -180,6 +180,12 @@ export interface DecayLengthDifference {
   readonly sideCorrelation: number;
   /** Degrees of freedom of the t quantile (the smaller side's). */
   readonly dof: number;
+  /**
+   * The depth term (EL), in seE and the interval when present: half the change of the difference when only the outer
+   * half of the band is sampled, added in quadrature to the SE of seSource (an error smooth along each side that no
+   * residual sees; see the README's methods). Absent when it was not computed.
+   */
+  readonly depthTermEl?: number;
 }
 
 /** Each side of the edge band profiled and fitted on its own, and the paired difference of their decay lengths. */

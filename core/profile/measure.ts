@@ -160,7 +160,10 @@ export function sampleProfiles(prepared: PreparedSampling, axis: ApAxis, setting
   return {
     axis, axisPx, pixelSizeUm: px, eggLengthUm, gradient: g, gradientProfile: g !== null ? profileOf(g) : null,
     boundaryChannels: bc, boundaryProfiles: bc.map(profileOf),
-    sideProfiles: sideBins ? { dorsal: sideProfile(sideBins.dorsal), ventral: sideProfile(sideBins.ventral) } : null,
+    sideProfiles: sideBins ? {
+      dorsal: sideProfile(sideBins.dorsal), ventral: sideProfile(sideBins.ventral),
+      ...(sideBins.outerHalf ? { outerHalf: { dorsal: sideProfile(sideBins.outerHalf.dorsal), ventral: sideProfile(sideBins.outerHalf.ventral) } } : {}),
+    } : null,
     warnings, gradientWarnings, boundaryWarnings,
   };
 }

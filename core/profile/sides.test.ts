@@ -9,6 +9,8 @@ import { maskOutline } from '../geometry';
 import { prepareSampling } from './prepare';
 import { measureEmbryo } from './measure';
 import { sampleBandOutline } from './band-outline';
+import { withDepthTerm } from './sides';
+import type { DecayLengthDifference } from '../model';
 
 // Demo data: a 200×80 rectangle "embryo" (x 20..219, y 20..99) in a 240×120 frame; channel 1 = 50 + 1000·exp(−x/λ)
 // with λ = 40 px above the axis (y < 59.5, left of A→P = +x in image coordinates) and 25 px below, no noise.
@@ -61,6 +63,9 @@ describe('the edge band with each side measured on its own', () => {
     expect(left.difference!.lambdaEl).toBeCloseTo(15 / 200, 5);
     const right = measure(settings({ edgeSide: 'each', dorsalSide: 'right' })).sides!;
     expect(right.difference!.lambdaUm).toBeCloseTo(-15, 3);
+    // Source: demo data: λ does not change with depth here, so the outer half of the band gives the same difference
+    // and the depth term is 0 (the interval is the model's).
+    expect(left.difference!.depthTermEl).toBeCloseTo(0, 6);
   });
 
   it('outlines the two sides\' bands separately', () => {
@@ -85,5 +90,23 @@ describe('an embryo painted with a different λ on each side (the project\'s gen
     expect(difference!.ciLowUm).toBeLessThanOrEqual(30);
     expect(difference!.ciHighUm).toBeGreaterThanOrEqual(30);
     expect(difference!.ciLowUm).toBeGreaterThan(0); // and the difference is resolved
+  });
+});
+
+describe('the depth term of the difference', () => {
+  // Source: hand calculation (demo data): Δ = 0.05 EL with SE 0.03 and t = 2 (interval 0.05 ± 0.06); the outer half
+  // gives 0.13, so T = |0.05 − 0.13|/2 = 0.04, SE' = √(0.03² + 0.04²) = 0.05 and the interval 0.05 ± 2·0.05.
+  const d = { lambdaUm: 25, lambdaEl: 0.05, seUm: 15, seEl: 0.03, ciLowUm: -5, ciHighUm: 55, ciLowEl: -0.01, ciHighEl: 0.11, seModelEl: 0.03, seSerialEl: 0.02, seSource: 'model', sideCorrelation: 0.1, dof: 20 } as DecayLengthDifference;
+  it('adds half the change with the outer half of the band in quadrature and keeps the t quantile', () => {
+    const r = withDepthTerm(d, { ...d, lambdaUm: 65, lambdaEl: 0.13 });
+    expect(r.depthTermEl).toBeCloseTo(0.04, 12);
+    expect(r.seEl).toBeCloseTo(0.05, 12);
+    expect(r.seUm).toBeCloseTo(25, 9); // µm: T = |25 − 65|/2 = 20, √(15² + 20²) = 25
+    expect([r.ciLowEl, r.ciHighEl]).toEqual([expect.closeTo(-0.05, 12), expect.closeTo(0.15, 12)]);
+    expect([r.ciLowUm, r.ciHighUm]).toEqual([expect.closeTo(-25, 9), expect.closeTo(75, 9)]);
+    expect([r.lambdaEl, r.seModelEl, r.seSource, r.dof]).toEqual([0.05, 0.03, 'model', 20]);
+  });
+  it('leaves the difference as it is when the outer half could not be fitted', () => {
+    expect(withDepthTerm(d, null)).toBe(d);
   });
 });

@@ -1,6 +1,6 @@
 // Each side of the sampled region profiled and fitted on its own, and the paired difference λ_dorsal − λ_ventral
 // (the edge band with --edge-side each). The sides use the same bins, weights and fit as the main profile.
-import type { ExponentialFit, Profile, SidesMeasurement } from '../model';
+import type { DecayLengthDifference, ExponentialFit, Profile, SidesMeasurement } from '../model';
 import { decayLengthDifference } from '../fit';
 import { binWeights, filledBins, fitProfile } from './measure';
 
@@ -8,6 +8,26 @@ import { binWeights, filledBins, fitProfile } from './measure';
 export interface SideProfiles {
   readonly dorsal: Profile;
   readonly ventral: Profile;
+  /** The two sides' profiles of the outer half of the band's depth alone (for the depth term), when sampled. */
+  readonly outerHalf?: { readonly dorsal: Profile; readonly ventral: Profile };
+}
+
+/**
+ * The difference with the depth term added: half the change of λ_dorsal − λ_ventral when only the outer half of
+ * the band is sampled, T = |Δ − Δ_outer|/2, in quadrature with the SE, SE' = √(SE² + T²); the interval keeps its
+ * t quantile (same dof). Unchanged when the outer half's difference is null.
+ */
+export function withDepthTerm(d: DecayLengthDifference, outer: DecayLengthDifference | null): DecayLengthDifference {
+  if (outer === null || !Number.isFinite(outer.lambdaEl)) return d;
+  const t = (d.ciHighEl - d.lambdaEl) / d.seEl;
+  const termEl = Math.abs(d.lambdaEl - outer.lambdaEl) / 2;
+  const seEl = Math.hypot(d.seEl, termEl);
+  const termUm = Math.abs(d.lambdaUm - outer.lambdaUm) / 2;
+  const seUm = Number.isFinite(d.seUm) ? Math.hypot(d.seUm, termUm) : NaN;
+  return {
+    ...d, seEl, seUm, ciLowEl: d.lambdaEl - t * seEl, ciHighEl: d.lambdaEl + t * seEl,
+    ciLowUm: d.lambdaUm - t * seUm, ciHighUm: d.lambdaUm + t * seUm, depthTermEl: termEl,
+  };
 }
 
 /** The weights fitProfile gave the points of `fit` (the filled bins inside its range), null when it was unweighted. */
@@ -17,6 +37,15 @@ function weightsOfFit(profile: Profile, fit: ExponentialFit): Float64Array | nul
   if (!weights || !fit.weighted) return null;
   const [start, end] = fit.fitRangeEl;
   return weights.filter((_, i) => p.xEl[i] >= start && p.xEl[i] <= end);
+}
+
+/** λ_dorsal − λ_ventral of the outer half of the band (null when either fit or the difference fails; no warnings). */
+function outerHalfDifference(outer: { readonly dorsal: Profile; readonly ventral: Profile }, axisPx: number, pixelSizeUm: number | null, fitRangeEl: readonly [number, number], eggLengthUm: number | null): DecayLengthDifference | null {
+  const quiet: string[] = [];
+  const d = fitProfile(outer.dorsal, axisPx, pixelSizeUm, fitRangeEl, quiet);
+  const v = fitProfile(outer.ventral, axisPx, pixelSizeUm, fitRangeEl, quiet);
+  if (!d || !v) return null;
+  return decayLengthDifference({ fit: d, weights: weightsOfFit(outer.dorsal, d) }, { fit: v, weights: weightsOfFit(outer.ventral, v) }, eggLengthUm);
 }
 
 /**
@@ -39,6 +68,7 @@ export function measureSides(sides: SideProfiles, axisPx: number, pixelSizeUm: n
       { fit: dorsalFit, weights: weightsOfFit(sides.dorsal, dorsalFit) },
       { fit: ventralFit, weights: weightsOfFit(sides.ventral, ventralFit) }, eggLengthUm);
     if (difference === null) warnings.push('the dorsal − ventral difference of λ could not be computed (the sides share too few bins in the fit range)');
+    else if (sides.outerHalf) difference = withDepthTerm(difference, outerHalfDifference(sides.outerHalf, axisPx, pixelSizeUm, fitRangeEl, eggLengthUm));
   }
   return { dorsalProfile: sides.dorsal, ventralProfile: sides.ventral, dorsalFit, ventralFit, difference };
 }

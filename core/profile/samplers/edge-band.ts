@@ -74,13 +74,23 @@ function outline(prepared: PreparedSampling, axis: ApAxis, settings: AnalysisSet
   return [...sideContours(prepared, axis, dorsal), ...sideContours(prepared, axis, ventral)];
 }
 
-/** Each side's bins on its own when --edge-side is 'each'. */
+/** `bins` with −1 for the pixels whose centre lies deeper than halfDepthPx (depth − 0.5 > halfDepthPx, as bandPixels). */
+export function outerHalfBins(bins: Int32Array, depthPx: Float32Array, xs: Float32Array, ys: Float32Array, width: number, halfDepthPx: number): Int32Array {
+  return Int32Array.from(bins, (b, k) => (depthPx[ys[k] * width + xs[k]] - 0.5 <= halfDepthPx ? b : -1));
+}
+
+/** Each side's bins on its own when --edge-side is 'each', and the same for the outer half of the band's depth. */
 function sideBins(prepared: PreparedSampling, axis: ApAxis, settings: AnalysisSettings): SideBins | null {
   if (!eachSide(settings)) return null;
   const { xs, ys } = prepared.region.pixels;
   const { dorsal, ventral } = dorsalVentralFilters(settings);
   const binCount = settings.profile.binCount;
-  return { dorsal: binIndices(xs, ys, axis, binCount, dorsal), ventral: binIndices(xs, ys, axis, binCount, ventral) };
+  const d = binIndices(xs, ys, axis, binCount, dorsal);
+  const v = binIndices(xs, ys, axis, binCount, ventral);
+  const depthPx = distanceInside(prepared.mask);
+  const half = edgeDepthPx(settings, prepared.pixelSizeUm) / 2;
+  const w = prepared.mask.width;
+  return { dorsal: d, ventral: v, outerHalf: { dorsal: outerHalfBins(d, depthPx, xs, ys, w, half), ventral: outerHalfBins(v, depthPx, xs, ys, w, half) } };
 }
 
 /** Rows on the sampled side(s); the band's depth is already in the region. */

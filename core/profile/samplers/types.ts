@@ -90,4 +90,6 @@ export interface ProfileSampler {
 export interface SideBins {
   readonly dorsal: Int32Array;
   readonly ventral: Int32Array;
+  /** The same bins with only the pixels of the outer half of the band's depth (−1 elsewhere), for the depth term. */
+  readonly outerHalf?: { readonly dorsal: Int32Array; readonly ventral: Int32Array };
 }
