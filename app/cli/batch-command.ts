@@ -19,7 +19,7 @@ import { DEFAULT_CPUS_PER_TASK, joinSlurmOptions, partArguments, submitCommands,
 import { UsageError, type CliIo } from './usage-error';
 import { parseTimelapseFlags, reportTimelapse } from './timelapse-step';
 import type { TimelapseOptions } from '../batch/timelapse-options';
-import { cohortChoices, type CohortChoices } from '../cohort/cohort-choices';
+import { cohortChoices, parseComparisonFlags, type CohortChoices } from '../cohort/cohort-choices';
 
 /** One flag per analysis setting, from the settings table (core/settings SETTINGS). */
 const SETTING_OPTIONS = Object.fromEntries(SETTINGS.map((s) => [s.flag.slice(2), s.repeatable ? { type: 'string', multiple: true } : { type: 'string' }])) as
@@ -32,6 +32,7 @@ const OPTIONS = {
   ...SETTING_OPTIONS, ...RUN_OPTIONS,
   out: { type: 'string' }, config: { type: 'string' },
   project: { type: 'string' }, 'no-project': { type: 'boolean' }, samples: { type: 'string' }, reference: { type: 'string' }, 'background-condition': { type: 'string' },
+  normalise: { type: 'string' }, 'lambda-posterior-el': { type: 'string' }, 'equivalence-margin': { type: 'string' },
   resume: { type: 'boolean' }, shard: { type: 'string' },
   slurm: { type: 'string' }, 'slurm-options': { type: 'string' }, help: { type: 'boolean', short: 'h' },
   time: { type: 'string' }, 'axis-per-time': { type: 'boolean' }, 'time-step': { type: 'string' }, 'tau-range': { type: 'string' },
@@ -122,6 +123,11 @@ export async function planBatch(given: readonly string[]): Promise<BatchPlan | '
   if (v.reference !== undefined && v.samples === undefined) throw new UsageError('--reference needs --samples', 'batch');
   if (v['background-condition'] !== undefined && v.samples === undefined) throw new UsageError('--background-condition needs --samples', 'batch');
   if (v['background-condition'] !== undefined && v['background-condition'].trim() === '') throw new UsageError('--background-condition needs a condition name', 'batch');
+  for (const flag of ['normalise', 'lambda-posterior-el', 'equivalence-margin'] as const) {
+    if (v[flag] !== undefined && v.samples === undefined) throw new UsageError(`--${flag} needs --samples`, 'batch');
+  }
+  const comparison = parseComparisonFlags(v);
+  if ('usage' in comparison) throw new UsageError(comparison.usage as string, 'batch');
   if (v.shard !== undefined && v.slurm !== undefined) throw new UsageError('use --shard (analyse one part) or --slurm (write the scripts), not both', 'batch');
   if (v['slurm-options'] !== undefined && v.slurm === undefined) throw new UsageError('--slurm-options needs --slurm N', 'batch');
   if (v.shard !== undefined && v.samples !== undefined) {
@@ -151,7 +157,7 @@ export async function planBatch(given: readonly string[]): Promise<BatchPlan | '
     jobs,
     projectFile: project.path, configFile: v.config !== undefined ? resolve(v.config) : null,
     samples: v.samples !== undefined ? resolve(v.samples) : null,
-    cohort: cohortChoices(project.doc?.cohort, { reference: v.reference, backgroundCondition: v['background-condition'] }),
+    cohort: cohortChoices(project.doc?.cohort, { ...comparison, reference: v.reference, backgroundCondition: v['background-condition'] }),
     timeoutS: timeoutText !== undefined ? runFlag('fileTimeoutS', timeoutText) : undefined,
     resume: v.resume === true, maxMemoryBytes: maxMemory, notes: project.note ? [project.note] : [], shard,
     timelapse: parseTimelapseFlags({ time: v.time, axisPerTime: v['axis-per-time'], timeStep: v['time-step'], tauRange: v['tau-range'], baselineFrames: v['baseline-frames'] }),

@@ -8,7 +8,7 @@ import { timelapseReportSection } from '../batch/timelapse-page';
 import { movieFigures, movieOutcomes } from '../batch/timelapse-pass';
 import type { FilenameRule, Normalisation } from '../../core/cohort';
 import { runCohortStep } from '../cohort/run-cohort';
-import { cohortChoices, type CohortChoices, type CohortFlags } from '../cohort/cohort-choices';
+import { cohortChoices, parseComparisonFlags, type CohortChoices, type CohortFlags } from '../cohort/cohort-choices';
 import { loadProjectOrBackup } from '../project';
 
 /** Streams the command writes to (process.stdout/stderr, or buffers in tests). */
@@ -52,8 +52,6 @@ Options:
 
 Exit status: 0 outputs written, 1 bad input (results, sample sheet) or write failure, 2 usage error.
 `;
-
-const NORMALISE = ['none', 'amplitude', 'minmax', 'scale-offset'];
 
 interface CohortPlan {
   resultsDir: string; samples: string | null; rule: FilenameRule | null; reference: string | null;
@@ -99,22 +97,14 @@ export function parseCohortArgs(argv: readonly string[]): CohortPlan | 'help' | 
   if (v.samples && v.pattern) return { usage: 'use either --samples or --pattern, not both' };
   const dosages = parseDosages(v.dosage ?? []);
   if ('usage' in dosages) return { usage: dosages.usage as string };
-  if (v.normalise !== undefined && !NORMALISE.includes(v.normalise)) return { usage: `--normalise must be scale-offset, none, amplitude or minmax (got "${v.normalise}")` };
-  const lp = v['lambda-posterior-el'];
-  const lambdaPosteriorEl = lp === undefined ? null : Number(lp);
-  if (lambdaPosteriorEl !== null && !(Number.isFinite(lambdaPosteriorEl) && lambdaPosteriorEl > 0)) return { usage: `--lambda-posterior-el must be a positive number (got "${lp}")` };
-  const em = v['equivalence-margin'];
-  const equivalenceMargin = em === undefined ? null : Number(em);
-  if (equivalenceMargin !== null && !(Number.isFinite(equivalenceMargin) && equivalenceMargin > 0 && equivalenceMargin < 1)) return { usage: `--equivalence-margin must be a number between 0 and 1 (got "${em}")` };
+  const shared = parseComparisonFlags(v);
+  if ('usage' in shared) return { usage: shared.usage as string };
   const bgc = v['background-condition'];
   if (bgc !== undefined && bgc.trim() === '') return { usage: '--background-condition needs a condition name' };
   const resultsDir = parsed.positionals[0];
   const rule = v.pattern ? { pattern: v.pattern, dosages: dosages as Record<string, number> } : null;
   if (v.project !== undefined && v.project.trim() === '') return { usage: '--project needs a project file' };
-  const flags: CohortFlags = {
-    reference: v.reference, backgroundCondition: bgc, normalisation: v.normalise as Normalisation | undefined,
-    lambdaPosteriorEl: lambdaPosteriorEl ?? undefined, equivalenceMargin: equivalenceMargin ?? undefined,
-  };
+  const flags: CohortFlags = { ...shared, reference: v.reference, backgroundCondition: bgc };
   const c = cohortChoices(null, flags);
   return { resultsDir, samples: v.samples ?? null, rule, ...c, outDir: v.out ?? join(resultsDir, 'cohort'), project: v.project ?? null, flags };
 }

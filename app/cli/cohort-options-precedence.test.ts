@@ -53,4 +53,15 @@ describe('cohort options: flag over project over default', () => {
     const none = await planBatch([input, '--out', join(root, 'o'), '--no-project', '--samples', samples]);
     expect(none !== 'help' && none.cohort).toEqual(DEFAULT_COHORT_CHOICES);
   });
+
+  it('eggline batch: --normalise, --lambda-posterior-el and --equivalence-margin over the project, with eggline cohort\'s rules', async () => {
+    const flagged = await planBatch([input, '--out', join(root, 'o'), '--project', projectPath, '--samples', samples,
+      '--normalise', 'none', '--lambda-posterior-el', '0.2', '--equivalence-margin', '0.3']);
+    expect(flagged !== 'help' && flagged.cohort).toEqual({ ...kept, normalisation: 'none', lambdaPosteriorEl: 0.2, equivalenceMargin: 0.3 });
+    await expect(planBatch([input, '--out', join(root, 'o'), '--samples', samples, '--equivalence-margin', '-1']))
+      .rejects.toThrow('--equivalence-margin must be a number between 0 and 1 (got "-1")');
+    await expect(planBatch([input, '--out', join(root, 'o'), '--samples', samples, '--normalise', 'z']))
+      .rejects.toThrow('--normalise must be scale-offset, none, amplitude or minmax (got "z")');
+    await expect(planBatch([input, '--out', join(root, 'o'), '--normalise', 'none'])).rejects.toThrow('--normalise needs --samples');
+  });
 });

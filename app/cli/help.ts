@@ -77,6 +77,9 @@ ${settingsHelp()}
   --background-condition COND the sheet's condition of null or secondary-only stainings, subtracted
                               from every other embryo's profile before λ and boundaries are fitted
                               again in the cohort step (needs --samples; see eggline cohort --help)
+  --normalise MODE, --lambda-posterior-el V, --equivalence-margin M
+                              the cohort step's profile normalisation, opposing gradient's decay
+                              length and equivalence margin, as in eggline cohort (need --samples)
 ${runSettingHelp('fileTimeoutS', String(DEFAULT_TIMEOUT_PER_FILE_S))}
 ${runSettingHelp('maxMemoryBytes', '3/4 of memory / jobs, 1G to 8G')}
   --resume                    reuse the results journal.jsonl in <dir> holds for files whose bytes

@@ -33,3 +33,18 @@ export function cohortChoices(project: ProjectCohortOptions | null | undefined, 
     lambdaPosteriorEl: pick('lambdaPosteriorEl'), equivalenceMargin: pick('equivalenceMargin'),
   };
 }
+
+const NORMALISE: readonly Normalisation[] = ['scale-offset', 'none', 'amplitude', 'minmax'];
+
+/** The three option flags `eggline cohort` and `eggline batch` share (--normalise, --lambda-posterior-el,
+ *  --equivalence-margin) as flags (undefined: not given), or the usage message of the first bad one. */
+export function parseComparisonFlags(v: { normalise?: string; 'lambda-posterior-el'?: string; 'equivalence-margin'?: string }): CohortFlags | { usage: string } {
+  if (v.normalise !== undefined && !(NORMALISE as readonly string[]).includes(v.normalise)) return { usage: `--normalise must be scale-offset, none, amplitude or minmax (got "${v.normalise}")` };
+  const lp = v['lambda-posterior-el'];
+  const lambdaPosteriorEl = lp === undefined ? undefined : Number(lp);
+  if (lambdaPosteriorEl !== undefined && !(Number.isFinite(lambdaPosteriorEl) && lambdaPosteriorEl > 0)) return { usage: `--lambda-posterior-el must be a positive number (got "${lp}")` };
+  const em = v['equivalence-margin'];
+  const equivalenceMargin = em === undefined ? undefined : Number(em);
+  if (equivalenceMargin !== undefined && !(Number.isFinite(equivalenceMargin) && equivalenceMargin > 0 && equivalenceMargin < 1)) return { usage: `--equivalence-margin must be a number between 0 and 1 (got "${em}")` };
+  return { normalisation: v.normalise as Normalisation | undefined, lambdaPosteriorEl, equivalenceMargin };
+}
