@@ -158,7 +158,7 @@ function SingleGroupView({ summary, options }: { summary: BatchSummary; options?
     };
   }, [summary]);
   const hint = summary.cohortError
-    ? <>{options && options.conditions.length > 0 && <ComparisonOptions {...options} />}<p className="error" data-testid="cohort-error">The cohort step failed: {summary.cohortError}</p></>
+    ? <>{options && <ComparisonOptions {...options} />}<p className="error" data-testid="cohort-error">The cohort step failed: {summary.cohortError}</p></>
     : summary.cancelled ? <p className="muted" data-testid="cohort-hint">The batch was cancelled; conditions are compared after a complete batch.</p>
     : <p className="muted" data-testid="cohort-hint">All embryos are shown as one group. To compare conditions (and run the dosage test), put a <code>samples.csv</code> with columns file, condition, dosage (reference = 1) in the folder and run the batch again.</p>;
   if (figs.n === 0) return <section className="panel cohort" data-testid="cohort-view">{hint}<p className="muted">The last batch has no embryo with a gradient fit, so there is nothing to summarise.</p></section>;

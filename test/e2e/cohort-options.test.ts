@@ -124,6 +124,19 @@ describe('comparison options in the Cohort tab', { timeout: 240_000 }, () => {
     await expect.poll(() => page.getByTestId('cohort-options').getAttribute('aria-busy'), { timeout: 60_000 }).toBe('false');
   });
 
+  it('a background condition picked in the window leaves the comparison and stays offered; the default brings it back', async () => {
+    const { page } = h;
+    const names = await page.getByTestId('cohort-condition').evaluateAll((els) => els.map((e) => e.getAttribute('data-name') ?? ''));
+    const reference = await page.getByTestId('cohort-opt-reference').inputValue();
+    const background = names.find((n) => n !== reference) as string;
+    await page.getByTestId('cohort-opt-background').selectOption(background);
+    await expect.poll(() => page.getByTestId('cohort-condition').count(), { timeout: 60_000 }).toBe(names.length - 1);
+    expect(await page.getByTestId('cohort-warnings').first().textContent()).toContain(`background condition "${background}"`);
+    expect(await page.locator(`[data-testid=cohort-opt-background] option[value="${background}"]`).count()).toBe(1);
+    await page.getByTestId('cohort-opt-background').selectOption('');
+    await expect.poll(() => page.getByTestId('cohort-condition').count(), { timeout: 60_000 }).toBe(names.length);
+  });
+
   it('nothing in the options area is clipped or overlapping at 1280×720 and 1440×900', async () => {
     const { page } = h;
     for (const [width, height] of [[1280, 720], [1440, 900]] as const) {
