@@ -9,7 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { cohortCommand } from '../../app/cli/cohort-command';
 import { valueWithCi } from '../../core/figures';
-import { ARTIFACTS, ensureRendererBuilt, startHarness } from './harness';
+import { ARTIFACTS, ensureRendererBuilt, startReadyHarness } from './harness';
 import type { Harness } from './harness';
 
 let h: Harness;
@@ -38,8 +38,7 @@ beforeAll(async () => {
   scratch = mkdtempSync(join(tmpdir(), 'eggline-cohort-options-'));
   await fs.mkdir(ARTIFACTS, { recursive: true });
   await ensureRendererBuilt();
-  h = await startHarness(join(scratch, 'data'), 8);
-  await h.page.getByTestId('handle-anterior').waitFor({ timeout: 90_000 });
+  h = await startReadyHarness(join(scratch, 'data'), 8);
 }, 180_000);
 
 afterAll(async () => {

@@ -11,6 +11,7 @@ import { createDefaultEngine } from '../../app/engine/default-engine';
 import { createHandlers } from '../../app/main/handlers';
 import type { ApiHandlers, HandlerDeps } from '../../app/main/handlers';
 import { API_INVOKE_METHODS } from '../../core/contract';
+import { parseCsv } from '../../core/csv';
 import type { BatchProgress, ExportKind, MovieProgress } from '../../core/contract';
 
 /** Repository root and the built renderer. */
@@ -163,4 +164,30 @@ export async function startHarness(dataDir: string, demoSubset?: number): Promis
     freshHandlers: () => { current.handlers = createHandlers(deps); },
     close: async () => { await browser.close(); if (errors.length > 0) console.warn(`page errors:\n${errors.join('\n')}`); },
   };
+}
+
+/**
+ * startHarness, then (when given) the viewport, and wait until the first demo embryo's axis is drawn: the window is
+ * ready for a test.
+ */
+export async function startReadyHarness(dataDir: string, demoSubset: number, viewport?: { width: number; height: number }): Promise<Harness> {
+  const h = await startHarness(dataDir, demoSubset);
+  if (viewport) await h.page.setViewportSize(viewport);
+  await h.page.getByTestId('handle-anterior').waitFor({ timeout: 90_000 });
+  return h;
+}
+
+/** Open `folder` through the menu (the fake folder dialog answers it) and make `name` the shown file. */
+export async function openFolderAt(h: Harness, folder: string, name: string): Promise<void> {
+  h.dialogs.folder = folder;
+  await h.page.evaluate(() => (window as unknown as { __egglineMenu(c: string): void }).__egglineMenu('open-folder'));
+  await h.page.locator(`[data-testid=folder-entry][data-name="${name}"]`).click({ timeout: 30_000 });
+  // A movie's first frame may show no gradient: wait for the file itself, not for an axis.
+  await h.page.locator(`[data-testid=folder-entry].current[data-name="${name}"]`).waitFor({ timeout: 60_000 });
+}
+
+/** Rows of a CSV file as objects by column name. */
+export async function csvFileRows(path: string): Promise<Record<string, string>[]> {
+  const [head, ...rows] = parseCsv(await fs.readFile(path, 'utf8'));
+  return rows.map((r) => Object.fromEntries(head.map((k, i) => [k, r[i]])));
 }

@@ -6,7 +6,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { ARTIFACTS, ensureRendererBuilt, startHarness } from './harness';
+import { ARTIFACTS, ensureRendererBuilt, startReadyHarness } from './harness';
 import type { Harness } from './harness';
 
 let h: Harness;
@@ -27,8 +27,7 @@ beforeAll(async () => {
   scratch = mkdtempSync(join(tmpdir(), 'eggline-layout-'));
   await fs.mkdir(ARTIFACTS, { recursive: true });
   await ensureRendererBuilt();
-  h = await startHarness(join(scratch, 'data'), 4);
-  await h.page.getByTestId('handle-anterior').waitFor({ timeout: 90_000 });
+  h = await startReadyHarness(join(scratch, 'data'), 4);
   // A boundary channel, so boundaries, their labels and the scaled second channel are drawn too.
   await h.page.getByTestId('boundary-channel-2').check();
   await h.page.locator('[data-testid=profile-plot] .boundary-line').first().waitFor({ state: 'attached', timeout: 10_000 });

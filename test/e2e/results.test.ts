@@ -7,7 +7,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { ARTIFACTS, ensureRendererBuilt, startHarness } from './harness';
+import { ARTIFACTS, ensureRendererBuilt, startReadyHarness } from './harness';
 import type { Harness } from './harness';
 
 let h: Harness;
@@ -23,9 +23,7 @@ beforeAll(async () => {
   scratch = mkdtempSync(join(tmpdir(), 'eggline-results-'));
   await fs.mkdir(ARTIFACTS, { recursive: true });
   await ensureRendererBuilt();
-  h = await startHarness(join(scratch, 'data'), 4);
-  await h.page.setViewportSize({ width: 1280, height: 720 });
-  await h.page.getByTestId('handle-anterior').waitFor({ timeout: 90_000 });
+  h = await startReadyHarness(join(scratch, 'data'), 4, { width: 1280, height: 720 });
 }, 180_000);
 
 afterAll(async () => {

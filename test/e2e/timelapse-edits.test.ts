@@ -14,10 +14,9 @@ import { parseTimelapseFlags } from '../../app/cli/timelapse-step';
 import { demoMovieFile } from '../../app/batch/write-demo';
 import { runTimelapsePass } from '../../app/batch/timelapse-pass';
 import { newProject, saveProject } from '../../app/project';
-import { parseCsv } from '../../core/csv';
 import { DEFAULT_SETTINGS, parseProjectText } from '../../core/settings';
 import { DEMO_MOVIE_FILE } from '../../core/synth';
-import { ARTIFACTS, ensureRendererBuilt, startHarness } from './harness';
+import { ARTIFACTS, csvFileRows, ensureRendererBuilt, openFolderAt, startReadyHarness } from './harness';
 import type { Harness } from './harness';
 
 let h: Harness;
@@ -26,11 +25,6 @@ let folder: string;
 const movieName = DEMO_MOVIE_FILE;
 const projectFile = () => join(folder, 'eggline-project.json');
 
-/** Rows of a CSV file as objects by column name. */
-async function csvRows(path: string): Promise<Record<string, string>[]> {
-  const [head, ...rows] = parseCsv(await fs.readFile(path, 'utf8'));
-  return rows.map((r) => Object.fromEntries(head.map((k, i) => [k, r[i]])));
-}
 const attr = (page: Page, testId: string, name: string) => page.getByTestId(testId).first().getAttribute(name);
 const liveLambdaEl = async (page: Page) => Number(await attr(page, 'lambda-el', 'data-value'));
 /** The movie's entry in the saved project file. */
@@ -43,7 +37,7 @@ async function batchRows(time: string, out: string): Promise<Record<string, stri
   await fs.mkdir(out, { recursive: true });
   const pass = await runTimelapsePass(folder, out, [movieName], doc.settings, doc, parseTimelapseFlags({ time }));
   expect(pass?.movies).toHaveLength(1);
-  return csvRows(join(out, 'timecourse.csv'));
+  return csvFileRows(join(out, 'timecourse.csv'));
 }
 const rowAt = (rows: Record<string, string>[], t: number) => rows.find((r) => r.t_index === String(t))!;
 
@@ -60,13 +54,8 @@ beforeAll(async () => {
   reference = await batchRows('10:25', join(scratch, 'batch-range'));
   expect(reference.map((r) => r.t_index)).toEqual(Array.from({ length: 16 }, (_, i) => String(10 + i)));
   await ensureRendererBuilt();
-  h = await startHarness(join(scratch, 'data'), 1);
-  await h.page.setViewportSize({ width: 1280, height: 720 });
-  await h.page.getByTestId('handle-anterior').waitFor({ timeout: 90_000 });
-  h.dialogs.folder = folder;
-  await h.page.evaluate(() => (window as unknown as { __egglineMenu(c: string): void }).__egglineMenu('open-folder'));
-  await h.page.locator(`[data-testid=folder-entry][data-name="${movieName}"]`).click({ timeout: 30_000 });
-  await h.page.locator(`[data-testid=folder-entry].current[data-name="${movieName}"]`).waitFor({ timeout: 60_000 });
+  h = await startReadyHarness(join(scratch, 'data'), 1, { width: 1280, height: 720 });
+  await openFolderAt(h, folder, movieName);
 }, 240_000);
 
 afterAll(async () => {

@@ -10,10 +10,9 @@ import type { Page } from 'playwright-core';
 import { demoMovieFile } from '../../app/batch/write-demo';
 import { runTimelapsePass, DEFAULT_TIMELAPSE_OPTIONS } from '../../app/batch/timelapse-pass';
 import { newProject, saveProject } from '../../app/project';
-import { parseCsv } from '../../core/csv';
 import { DEFAULT_SETTINGS } from '../../core/settings';
 import { DEMO_MOVIE_FILE } from '../../core/synth';
-import { ARTIFACTS, ensureRendererBuilt, startHarness } from './harness';
+import { ARTIFACTS, csvFileRows, ensureRendererBuilt, openFolderAt, startReadyHarness } from './harness';
 import type { Harness } from './harness';
 
 let h: Harness;
@@ -22,11 +21,6 @@ let folder: string;
 let batchOut: string;
 const movieName = DEMO_MOVIE_FILE; // timelapse/forming-gradient_embryo-01.ome.tif
 
-/** Rows of a CSV file as objects by column name. */
-async function csvRows(path: string): Promise<Record<string, string>[]> {
-  const [head, ...rows] = parseCsv(await fs.readFile(path, 'utf8'));
-  return rows.map((r) => Object.fromEntries(head.map((k, i) => [k, r[i]])));
-}
 const attr = (page: Page, testId: string, name: string) => page.getByTestId(testId).first().getAttribute(name);
 const markerY = (page: Page) => page.locator('[data-testid=movie-kymograph] .time-marker').getAttribute('y1');
 
@@ -44,15 +38,8 @@ beforeAll(async () => {
   const pass = await runTimelapsePass(folder, batchOut, [movieName], doc.settings, doc, DEFAULT_TIMELAPSE_OPTIONS);
   expect(pass?.movies).toHaveLength(1);
   await ensureRendererBuilt();
-  h = await startHarness(join(scratch, 'data'), 1);
-  await h.page.setViewportSize({ width: 1280, height: 720 });
-  await h.page.getByTestId('handle-anterior').waitFor({ timeout: 90_000 });
-  h.dialogs.folder = folder;
-  await h.page.evaluate(() => (window as unknown as { __egglineMenu(c: string): void }).__egglineMenu('open-folder'));
-  await h.page.locator(`[data-testid=folder-entry][data-name="${movieName}"]`).waitFor({ timeout: 30_000 });
-  await h.page.locator(`[data-testid=folder-entry][data-name="${movieName}"]`).click();
-  // The movie's first frame is from before production: the single-stack view may find no axis there, so wait for the file itself.
-  await h.page.locator(`[data-testid=folder-entry].current[data-name="${movieName}"]`).waitFor({ timeout: 60_000 });
+  h = await startReadyHarness(join(scratch, 'data'), 1, { width: 1280, height: 720 });
+  await openFolderAt(h, folder, movieName);
 }, 240_000);
 
 afterAll(async () => {
@@ -132,7 +119,7 @@ describe('the time-lapse view', { timeout: 180_000 }, () => {
 
   it('shows the numbers the batch writes: λ per time point as in timecourse.csv, k, D, λ_τ and λ as in model_fit.csv', async () => {
     const { page } = h;
-    const course = await csvRows(join(batchOut, 'timecourse.csv'));
+    const course = await csvFileRows(join(batchOut, 'timecourse.csv'));
     expect(course).toHaveLength(46);
     for (const k of [5, 30, 45]) {
       await page.getByTestId('movie-slider').fill(String(k));
@@ -140,7 +127,7 @@ describe('the time-lapse view', { timeout: 180_000 }, () => {
       const row = course.find((r) => r.t_index === String(k))!;
       expect(Number(await attr(page, 'movie-lambda-now', 'data-value'))).toBeCloseTo(Number(row.lambda_el), 9);
     }
-    const [model] = await csvRows(join(batchOut, 'model_fit.csv'));
+    const [model] = await csvFileRows(join(batchOut, 'model_fit.csv'));
     const cases: [string, string][] = [['movie-tau0', 'tau0_s'], ['movie-k', 'k_per_s'], ['movie-d', 'd_um2_per_s'], ['movie-lambda-tau', 'lambda_tau_el'], ['movie-lambda-steady', 'lambda_el']];
     for (const [id, column] of cases) {
       const shown = Number(await attr(page, id, 'data-value'));
