@@ -6,17 +6,16 @@ import { mkdtempSync, promises as fs } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Page } from 'playwright-core';
 import { cohortCommand } from '../../app/cli/cohort-command';
 import { valueWithCi } from '../../core/figures';
-import { ARTIFACTS, ensureRendererBuilt, startReadyHarness } from './harness';
+import { ARTIFACTS, chooseBatchOutput, ensureRendererBuilt, startReadyHarness, testIdText } from './harness';
 import type { Harness } from './harness';
 
 let h: Harness;
 let scratch: string;
 let out: string;
 
-const text = async (page: Page, testId: string) => (await page.getByTestId(testId).first().textContent()) ?? '';
+const text = testIdText;
 const quiet = { stdout: { write: () => true }, stderr: { write: () => true } };
 
 /** The rows of a CSV written by the cohort step (no quoted commas in these tables). */
@@ -49,11 +48,7 @@ afterAll(async () => {
 describe('comparison options in the Cohort tab', { timeout: 240_000 }, () => {
   it('a reference and a normalisation picked in the window give the σx that eggline cohort writes with the same flags', async () => {
     const { page } = h;
-    out = join(scratch, 'out');
-    await fs.mkdir(out);
-    h.dialogs.output = out;
-    await page.getByTestId('tab-batch').click();
-    await page.getByTestId('batch-choose').click();
+    out = await chooseBatchOutput(h, join(scratch, 'out'));
     await page.getByTestId('batch-run').click();
     await page.getByTestId('batch-results').waitFor({ timeout: 180_000 });
     await page.getByTestId('tab-cohort').click();

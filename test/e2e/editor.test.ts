@@ -5,7 +5,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { openStackForAnalysis } from '../../app/decode/open-for-analysis';
-import { ARTIFACTS, ensureRendererBuilt, startHarness } from './harness';
+import { ARTIFACTS, chooseBatchOutput, ensureRendererBuilt, startHarness, testIdText } from './harness';
 import type { Harness } from './harness';
 import { DEFAULT_SETTINGS } from '../../core/settings';
 
@@ -14,7 +14,7 @@ let scratch: string;
 let dataDir: string;
 
 const shot = (page: Page, name: string) => page.screenshot({ path: join(ARTIFACTS, `${name}.png`) });
-const text = async (page: Page, testId: string) => (await page.getByTestId(testId).first().textContent()) ?? '';
+const text = testIdText;
 const centre = async (page: Page, selector: string) => {
   const box = await page.locator(selector).first().boundingBox();
   if (box === null) throw new Error(`${selector} is not visible`);
@@ -40,15 +40,6 @@ const canvasBrightness = (page: Page) => page.locator('.image-canvas').first().e
   return sum / (d.length / 4);
 });
 /** Open the batch tab and pick a new output folder `name` (in the scratch folder) through the fake dialog. */
-const chooseBatchOutput = async (page: Page, name: string): Promise<string> => {
-  const out = join(scratch, name);
-  await fs.mkdir(out);
-  h.dialogs.output = out;
-  await page.getByTestId('tab-batch').click();
-  await page.getByTestId('batch-choose').click();
-  await expect.poll(() => text(page, 'batch-out')).toBe(out);
-  return out;
-};
 const numberIn = (s: string) => Number(/-?\d+(\.\d+)?(e[-+]?\d+)?/i.exec(s)?.[0] ?? NaN);
 
 beforeAll(async () => {
@@ -345,7 +336,7 @@ describe('editor window', { timeout: 150_000 }, () => {
 
   it('runs a batch on the demo folder: progress, then results', async () => {
     const { page } = h;
-    const out = await chooseBatchOutput(page, 'out');
+    const out = await chooseBatchOutput(h, join(scratch, 'out'));
     await page.getByTestId('batch-run').click();
     await page.getByTestId('batch-results').waitFor({ timeout: 120_000 });
     expect(h.progress.length).toBeGreaterThan(2);
@@ -393,7 +384,7 @@ describe('editor window', { timeout: 150_000 }, () => {
 
   it('cancelling a batch: the panel says it was cancelled and the files finished before keep their rows', async () => {
     const { page } = h;
-    await chooseBatchOutput(page, 'out-cancelled');
+    await chooseBatchOutput(h, join(scratch, 'out-cancelled'));
     const from = h.progress.length;
     // The demo files analyse in well under a second each, so the run is held before its second file until
     // Cancel reaches the app: then the first file is surely done and the rest surely not (real analysis throughout).

@@ -5,6 +5,7 @@ import { extname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium } from 'playwright-core';
 import type { Browser, Page } from 'playwright-core';
+import { expect } from 'vitest';
 import { analyseFile } from '../../app/batch/analyse-file';
 import type { BatchTask } from '../../app/batch/task';
 import { createDefaultEngine } from '../../app/engine/default-engine';
@@ -12,6 +13,10 @@ import { createHandlers } from '../../app/main/handlers';
 import type { ApiHandlers, HandlerDeps } from '../../app/main/handlers';
 import { API_INVOKE_METHODS } from '../../core/contract';
 import { parseCsv } from '../../core/csv';
+import { demoMovieFile } from '../../app/batch/write-demo';
+import { newProject, saveProject } from '../../app/project';
+import { DEFAULT_SETTINGS, type ProjectDoc } from '../../core/settings';
+import { DEMO_MOVIE_FILE } from '../../core/synth';
 import type { BatchProgress, ExportKind, MovieProgress } from '../../core/contract';
 
 /** Repository root and the built renderer. */
@@ -190,4 +195,32 @@ export async function openFolderAt(h: Harness, folder: string, name: string): Pr
 export async function csvFileRows(path: string): Promise<Record<string, string>[]> {
   const [head, ...rows] = parseCsv(await fs.readFile(path, 'utf8'));
   return rows.map((r) => Object.fromEntries(head.map((k, i) => [k, r[i]])));
+}
+
+/** The text of the first element with this test id ('' when it has none). */
+export async function testIdText(page: Page, testId: string): Promise<string> {
+  return (await page.getByTestId(testId).first().textContent()) ?? '';
+}
+
+/** Make `out`, let the fake output dialog answer it, and choose it in the Batch tab (waits until the tab shows it). */
+export async function chooseBatchOutput(h: Harness, out: string): Promise<string> {
+  await fs.mkdir(out);
+  h.dialogs.output = out;
+  await h.page.getByTestId('tab-batch').click();
+  await h.page.getByTestId('batch-choose').click();
+  await expect.poll(() => testIdText(h.page, 'batch-out')).toBe(out);
+  return out;
+}
+
+/**
+ * `<scratch>/movie` holding the demo movie (demo data) and a project with the demo's settings (channel 2 holds the
+ * boundary); returns the folder and the saved project.
+ */
+export async function writeDemoMovieFolder(scratch: string): Promise<{ folder: string; doc: ProjectDoc }> {
+  const folder = join(scratch, 'movie');
+  await fs.mkdir(join(folder, 'timelapse'), { recursive: true });
+  await fs.writeFile(join(folder, DEMO_MOVIE_FILE), demoMovieFile());
+  const doc = { ...newProject(folder), settings: { ...DEFAULT_SETTINGS, boundaryChannels: [2] } };
+  await saveProject(join(folder, 'eggline-project.json'), doc);
+  return { folder, doc };
 }

@@ -7,7 +7,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { ARTIFACTS, ensureRendererBuilt, startReadyHarness } from './harness';
+import { ARTIFACTS, chooseBatchOutput, ensureRendererBuilt, startReadyHarness, testIdText } from './harness';
 import type { Harness } from './harness';
 
 let h: Harness;
@@ -15,7 +15,7 @@ let scratch: string;
 let out: string;
 
 type Box = { x: number; y: number; width: number; height: number };
-const text = async (page: Page, testId: string) => (await page.getByTestId(testId).first().textContent()) ?? '';
+const text = testIdText;
 const statuses = (page: Page) => page.getByTestId('folder-entry').evaluateAll((els) => els.map((e) => e.getAttribute('data-status')));
 const currentFile = (page: Page) => page.locator('[data-testid=folder-entry].current').getAttribute('data-name');
 
@@ -35,11 +35,7 @@ describe('results that stay', { timeout: 150_000 }, () => {
   it('files read new before a batch and analysed after it', async () => {
     const { page } = h;
     expect(new Set(await statuses(page))).toEqual(new Set(['new']));
-    out = join(scratch, 'out');
-    await fs.mkdir(out);
-    h.dialogs.output = out;
-    await page.getByTestId('tab-batch').click();
-    await page.getByTestId('batch-choose').click();
+    out = await chooseBatchOutput(h, join(scratch, 'out'));
     await page.getByTestId('batch-run').click();
     await page.getByTestId('batch-results').waitFor({ timeout: 120_000 });
     await expect.poll(() => statuses(page)).toEqual(['analysed', 'analysed', 'analysed', 'analysed']);

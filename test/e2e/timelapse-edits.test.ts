@@ -11,12 +11,10 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { parseTimelapseFlags } from '../../app/cli/timelapse-step';
-import { demoMovieFile } from '../../app/batch/write-demo';
 import { runTimelapsePass } from '../../app/batch/timelapse-pass';
-import { newProject, saveProject } from '../../app/project';
-import { DEFAULT_SETTINGS, parseProjectText } from '../../core/settings';
+import { parseProjectText } from '../../core/settings';
 import { DEMO_MOVIE_FILE } from '../../core/synth';
-import { ARTIFACTS, csvFileRows, ensureRendererBuilt, openFolderAt, startReadyHarness } from './harness';
+import { ARTIFACTS, csvFileRows, ensureRendererBuilt, openFolderAt, startReadyHarness, writeDemoMovieFolder } from './harness';
 import type { Harness } from './harness';
 
 let h: Harness;
@@ -45,11 +43,8 @@ let reference: Record<string, string>[];
 
 beforeAll(async () => {
   scratch = mkdtempSync(join(tmpdir(), 'eggline-timelapse-edits-'));
-  folder = join(scratch, 'movie');
-  await fs.mkdir(join(folder, 'timelapse'), { recursive: true });
   await fs.mkdir(ARTIFACTS, { recursive: true });
-  await fs.writeFile(join(folder, movieName), demoMovieFile());
-  await saveProject(projectFile(), { ...newProject(folder), settings: { ...DEFAULT_SETTINGS, boundaryChannels: [2] } });
+  folder = (await writeDemoMovieFolder(scratch)).folder;
   // The reference before any edit: `eggline batch --time 10:25`.
   reference = await batchRows('10:25', join(scratch, 'batch-range'));
   expect(reference.map((r) => r.t_index)).toEqual(Array.from({ length: 16 }, (_, i) => String(10 + i)));

@@ -7,12 +7,9 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { demoMovieFile } from '../../app/batch/write-demo';
 import { runTimelapsePass, DEFAULT_TIMELAPSE_OPTIONS } from '../../app/batch/timelapse-pass';
-import { newProject, saveProject } from '../../app/project';
-import { DEFAULT_SETTINGS } from '../../core/settings';
 import { DEMO_MOVIE_FILE } from '../../core/synth';
-import { ARTIFACTS, csvFileRows, ensureRendererBuilt, openFolderAt, startReadyHarness } from './harness';
+import { ARTIFACTS, csvFileRows, ensureRendererBuilt, openFolderAt, startReadyHarness, writeDemoMovieFolder } from './harness';
 import type { Harness } from './harness';
 
 let h: Harness;
@@ -26,14 +23,12 @@ const markerY = (page: Page) => page.locator('[data-testid=movie-kymograph] .tim
 
 beforeAll(async () => {
   scratch = mkdtempSync(join(tmpdir(), 'eggline-timelapse-'));
-  folder = join(scratch, 'movie');
   batchOut = join(scratch, 'batch');
-  await fs.mkdir(join(folder, 'timelapse'), { recursive: true });
   await fs.mkdir(ARTIFACTS, { recursive: true });
   // The demo movie with the demo project's settings (channel 2 holds the boundary), and the batch's time pass over it.
-  await fs.writeFile(join(folder, movieName), demoMovieFile());
-  const doc = { ...newProject(folder), settings: { ...DEFAULT_SETTINGS, boundaryChannels: [2] } };
-  await saveProject(join(folder, 'eggline-project.json'), doc);
+  const written = await writeDemoMovieFolder(scratch);
+  folder = written.folder;
+  const doc = written.doc;
   await fs.mkdir(batchOut);
   const pass = await runTimelapsePass(folder, batchOut, [movieName], doc.settings, doc, DEFAULT_TIMELAPSE_OPTIONS);
   expect(pass?.movies).toHaveLength(1);
