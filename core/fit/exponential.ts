@@ -117,17 +117,27 @@ export function effectiveDof(n: number, rho: number, p: number): number {
   return Math.max(1, nEff - p);
 }
 
-/** AR(1) sandwich covariance of (A0, k, B) on the whitened problem, points in x order; null if not computable. */
-function serialCovariance(x: Float64Array, y: Float64Array, w: Float64Array | undefined, xRef: number, params: number[]): SerialCovariance | null {
-  const [a0, k, b] = params;
+/**
+ * The whitened Jacobian of A0·e^(−k(x − xRef)) + B in (A0, k, B) at the given A0 and k: n × 3, row-major, row i scaled
+ * by √w_i (weights absent or null = unweighted).
+ */
+export function whitenedDecayJacobian(x: Float64Array, w: Float64Array | null | undefined, xRef: number, a0: number, k: number): Float64Array {
   const n = x.length;
-  const j = new Float64Array(n * 3), u = new Float64Array(n);
+  const j = new Float64Array(n * 3);
   for (let i = 0; i < n; i++) {
     const sw = w ? Math.sqrt(w[i]) : 1;
     const e = Math.exp(-k * (x[i] - xRef));
     j[3 * i] = sw * e; j[3 * i + 1] = -sw * a0 * (x[i] - xRef) * e; j[3 * i + 2] = sw;
-    u[i] = sw * (y[i] - a0 * e - b);
   }
+  return j;
+}
+
+/** AR(1) sandwich covariance of (A0, k, B) on the whitened problem, points in x order; null if not computable. */
+function serialCovariance(x: Float64Array, y: Float64Array, w: Float64Array | undefined, xRef: number, params: number[]): SerialCovariance | null {
+  const [a0, k, b] = params;
+  const n = x.length;
+  const j = whitenedDecayJacobian(x, w, xRef, a0, k);
+  const u = Float64Array.from(y, (yi, i) => (w ? Math.sqrt(w[i]) : 1) * (yi - a0 * Math.exp(-k * (x[i] - xRef)) - b));
   return ar1Covariance(j, u, n, 3);
 }
 

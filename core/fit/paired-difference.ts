@@ -11,7 +11,7 @@
 import type { DecayLengthDifference, ExponentialFit } from '../model';
 import { tQuantile } from '../stats';
 import { inverseNormalMatrix } from './covariance';
-import { effectiveDof } from './exponential';
+import { effectiveDof, whitenedDecayJacobian } from './exponential';
 import { ar1Covariance, residualMaker, traceWithAr1 } from './serial-covariance';
 
 /** One side's fit and the weights it used at its points (fit.xEl order; null = unweighted). */
@@ -46,13 +46,8 @@ function sideDesign({ fit, weights }: SideFit): SideDesign | null {
   const k = 1 / fit.lambdaEl;
   const xRef = x.reduce((s, v) => s + v, 0) / n;
   const a0 = fit.amplitude * Math.exp(-k * xRef);
-  const j = new Float64Array(n * 3), u = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    const sw = weights ? Math.sqrt(weights[i]) : 1;
-    const e = Math.exp(-k * (x[i] - xRef));
-    j[3 * i] = sw * e; j[3 * i + 1] = -sw * a0 * (x[i] - xRef) * e; j[3 * i + 2] = sw;
-    u[i] = sw * fit.residuals[i];
-  }
+  const j = whitenedDecayJacobian(x, weights, xRef, a0, k);
+  const u = Float64Array.from({ length: n }, (_, i) => (weights ? Math.sqrt(weights[i]) : 1) * fit.residuals[i]);
   const bread = inverseNormalMatrix(j, n, 3);
   if (!bread) return null;
   const m = residualMaker(j, bread, n, 3);
