@@ -1,5 +1,6 @@
 // Reading the flat-field and background images named by the settings (one plane per channel: the mean over Z of
 // the first time point), once per process and path.
+import { stat } from 'node:fs/promises';
 import { dirname, isAbsolute, resolve } from 'node:path';
 import { backgroundImage, normaliseFlatField, projectStack, type ImageCorrections } from '../../core/pipeline';
 import { DEFAULT_SETTINGS, type AnalysisSettings } from '../../core/settings';
@@ -31,26 +32,37 @@ async function readChannelPlanes(path: string, label: string): Promise<Plane[]> 
 
 const cache = new Map<string, Promise<ImageCorrections>>();
 
+/** A file's identity for the cache: its path with its size and modification time ('' when it cannot be read: the
+ *  read then fails with its own message), so an image replaced under the same name is read again. */
+async function fileStamp(path: string | null): Promise<string> {
+  if (path === null) return '';
+  const s = await stat(path).catch(() => null);
+  return `${path}\t${s ? `${s.size}:${s.mtimeMs}` : ''}`;
+}
+
 /**
- * The corrections the settings name, read once per process (keyed by the absolute paths), or null when they name
- * none. Rejects with one line naming the image file when it cannot be read or is not usable.
+ * The corrections the settings name, read once per process for each image's path, size and modification time (a
+ * long-lived process, such as the window's, reads an image again when it is replaced), or null when they name none.
+ * Rejects with one line naming the image file when it cannot be read or is not usable.
  */
 export function loadImageCorrections(settings: AnalysisSettings, baseDir: string): Promise<ImageCorrections> | null {
   const { flatFieldFile: flat, backgroundImageFile: bg } = settings;
   if (flat === null && bg === null) return null;
   const flatPath = flat === null ? null : correctionPath(flat, baseDir);
   const bgPath = bg === null ? null : correctionPath(bg, baseDir);
-  const key = `${flatPath ?? ''}\n${bgPath ?? ''}`;
-  let loaded = cache.get(key);
-  if (!loaded) {
-    loaded = (async () => ({
-      flat: flat !== null && flatPath !== null ? normaliseFlatField(flat, await readImage(flatPath, flat, 'flat-field image')) : null,
-      background: bg !== null && bgPath !== null ? backgroundImage(bg, await readImage(bgPath, bg, 'background image')) : null,
-    }))();
-    loaded.catch(() => undefined);
-    cache.set(key, loaded);
-  }
-  return loaded;
+  return (async () => {
+    const key = `${await fileStamp(flatPath)}\n${await fileStamp(bgPath)}`;
+    let loaded = cache.get(key);
+    if (!loaded) {
+      loaded = (async () => ({
+        flat: flat !== null && flatPath !== null ? normaliseFlatField(flat, await readImage(flatPath, flat, 'flat-field image')) : null,
+        background: bg !== null && bgPath !== null ? backgroundImage(bg, await readImage(bgPath, bg, 'background image')) : null,
+      }))();
+      loaded.catch(() => undefined);
+      cache.set(key, loaded);
+    }
+    return loaded;
+  })();
 }
 
 /** Read an image's planes; failures name the role and file. */
