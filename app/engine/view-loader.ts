@@ -30,7 +30,7 @@ export function viewCancelled(label: string): Error {
 function stoppable(source: PlaneSource, signal: Signal, label: string): PlaneSource {
   if (signal === null) return source;
   return {
-    readPlane: (z, c, t) => (signal.aborted ? Promise.reject(viewCancelled(label)) : source.readPlane(z, c, t)),
+    readPlane: (z, c, t, into) => (signal.aborted ? Promise.reject(viewCancelled(label)) : source.readPlane(z, c, t, into)),
     close: () => source.close(),
   };
 }
@@ -48,6 +48,13 @@ export function viewOfTime(opened: { info: StackInfo; source: PlaneSource }, tim
 async function projectTimePoint(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, corrections: ImageCorrections | null): Promise<ProjectedStack> {
   const raw = await projectStack(info, source, settings, corrections);
   return corrections ? applyImageCorrections(raw, corrections, settings.projection === 'sum' ? info.sizeZ : 1) : raw;
+}
+
+/** A projection without the decoded planes a projection may carry for the background (the window measures on the
+ *  channels, and the planes' arrays may be reused). */
+function withoutRawPlanes(p: ProjectedStack): ProjectedStack {
+  const { rawPlanes: _planes, ...rest } = p;
+  return rest;
 }
 
 /** The embryo of one time point alone; a placeholder (the user can set the axis by hand) when none is found. */
@@ -77,8 +84,8 @@ async function embryoOverTime(info: StackInfo, source: PlaneSource, settings: An
   const m = await analyseMovie(info, source, settings, {
     fileLabel: label, timeIndices: [settings.timeIndex], corrections,
     onDetection: (d) => { detection = plainDetection(d); },
-    // The projection lives only during this call (its arrays are reused): keep a copy.
-    onProjected: (_k, p) => { projected = { ...p, channels: p.channels.map((c) => ({ ...c, data: Float32Array.from(c.data) })) }; },
+    // The projection lives only during this call (its arrays are reused): keep a copy of its channels.
+    onProjected: (_k, p) => { projected = withoutRawPlanes({ ...p, channels: p.channels.map((c) => ({ ...c, data: Float32Array.from(c.data) })) }); },
   });
   if (signal?.aborted) throw viewCancelled(label);
   if (detection !== null) return { detection, projected, found: true };
@@ -121,7 +128,7 @@ export function createViewLoader(): (path: string, label: string, settings: Anal
       projected ??= await projectTimePoint(info, source, settings, corrections);
       if (signal?.aborted) throw viewCancelled(label);
       detection ??= detectOrPlaceholder(projected, settings, label);
-      return { info, projected: { ...projected, warnings: [...projected.warnings, ...warnings] }, detection };
+      return { info, projected: { ...withoutRawPlanes(projected), warnings: [...projected.warnings, ...warnings] }, detection };
     } finally {
       await opened.source.close();
     }

@@ -50,7 +50,7 @@ export function pagesAsTimePointsWithSource(info: StackInfo, source: PlaneSource
   return {
     info: frames,
     source: {
-      readPlane: (z, c, t) => (z === 0 ? source.readPlane(t, c, 0)
+      readPlane: (z, c, t, into) => (z === 0 ? source.readPlane(t, c, 0, into)
         : Promise.reject(new RangeError(`plane (z=${z}, c=${c}, t=${t}) is outside the stack (Z 1, C ${frames.sizeC}, T ${frames.sizeT})`))),
       close: () => source.close(),
     },
