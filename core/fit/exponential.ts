@@ -54,11 +54,22 @@ function transformCovariance(g: number[][], c: number[][]): number[][] {
   return gc.map((row) => g.map((gRow) => row.reduce((s, v, k) => s + v * gRow[k], 0)));
 }
 
+/** A fit with the weights it gave its points (in fit.xEl order; null = unweighted). */
+export interface WeightedExponentialFit {
+  readonly fit: ExponentialFit;
+  readonly weights: Float64Array | null;
+}
+
 /**
  * Fits A·exp(−x/λ) + B to (xUm, y) restricted to points with xEl in fitRangeEl (inclusive). Returns λ in µm and
  * EL (λ/eggLengthUm) with standard errors from the Jacobian and a 95% t interval. Throws FitError.
  */
 export function fitExponentialDecay(xUm: Float64Array, y: Float64Array, options: ExponentialOptions): ExponentialFit {
+  return fitExponentialDecayWeighted(xUm, y, options).fit;
+}
+
+/** fitExponentialDecay, returning also the weights of the points it used (options.weights at those points). */
+export function fitExponentialDecayWeighted(xUm: Float64Array, y: Float64Array, options: ExponentialOptions): WeightedExponentialFit {
   const used = selectPoints(xUm, y, options);
   const x = Float64Array.from(used, (i) => xUm[i]);
   const yy = Float64Array.from(used, (i) => y[i]);
@@ -97,7 +108,7 @@ export function fitExponentialDecay(xUm: Float64Array, y: Float64Array, options:
   // points: the t quantile then uses the effective number n·(1 − ρ)/(1 + ρ) (common practice for AR(1) series).
   const t = tQuantile(0.975, serial ? effectiveDof(x.length, serial.rho, 3) : fit.dof);
   const model = (v: number): number => a0 * Math.exp(-k * (v - xRef)) + b;
-  return {
+  const result: ExponentialFit = {
     amplitude: a0 * growth, amplitudeSe: Math.sqrt(cov[0][0]),
     lambdaUm, lambdaSeUm, lambdaCiLowUm: lambdaUm - t * lambdaSeUm, lambdaCiHighUm: lambdaUm + t * lambdaSeUm,
     lambdaEl: lambdaUm / options.eggLengthUm, lambdaSeEl: lambdaSeUm / options.eggLengthUm,
@@ -109,6 +120,7 @@ export function fitExponentialDecay(xUm: Float64Array, y: Float64Array, options:
     xEl: Float64Array.from(used, (i) => options.xEl[i]),
     residuals: yy.map((v, i) => v - model(x[i])),
   };
+  return { fit: result, weights: w ?? null };
 }
 
 /** Degrees of freedom n·(1 − ρ)/(1 + ρ) − p for ρ > 0 (n − p otherwise), at least 1. */

@@ -8,17 +8,14 @@
 // K = ρ̄^lag (first-order autoregressive errors, ρ̄ the mean of the two sides' ρ). c is matched to the residuals at
 // shared positions in expectation through the residual makers, E[u_dᵀPu_v] = c·Σ_pairs (M_d·K·M_v)_ij, as the
 // one-sided serial estimator matches ρ (serial-covariance.ts). The wider of the two SEs is used, as for λ itself.
-import type { DecayLengthDifference, ExponentialFit } from '../model';
+import type { DecayLengthDifference } from '../model';
 import { tQuantile } from '../stats';
 import { inverseNormalMatrix } from './covariance';
-import { effectiveDof, whitenedDecayJacobian } from './exponential';
+import { effectiveDof, whitenedDecayJacobian, type WeightedExponentialFit } from './exponential';
 import { ar1Covariance, residualMaker, traceWithAr1 } from './serial-covariance';
 
-/** One side's fit and the weights it used at its points (fit.xEl order; null = unweighted). */
-export interface SideFit {
-  readonly fit: ExponentialFit;
-  readonly weights: Float64Array | null;
-}
+/** One side's fit and the weights it used at its points (fit.xEl order; null = unweighted), as the fit returns them. */
+export type SideFit = WeightedExponentialFit;
 
 /** Largest magnitude of the estimated correlation between the sides' errors (as ρ is clamped to ±0.95). */
 const MAX_CORRELATION = 0.95;

@@ -4,7 +4,7 @@ import type { ApAxis, EmbryoResult, ExponentialFit, Landmark, Mask, Profile } fr
 import type { AnalysisSettings, ChannelRef } from '../settings';
 import { describeChannelRef, resolveChannel } from '../image';
 import { axisLengthPx, distanceOutsideMaskPx, projectPointOntoAxis } from '../geometry';
-import { findBoundaries, fitExponentialDecay } from '../fit';
+import { findBoundaries, fitExponentialDecayWeighted, type WeightedExponentialFit } from '../fit';
 import { notDecayingWarning } from '../stats';
 import type { PreparedSampling } from './samplers';
 import { binProfile, groupByBin, groupedProfile, type BinGroups } from './bin';
@@ -54,16 +54,21 @@ export function binWeights(sd: Float64Array, n: Float64Array): Float64Array | nu
  * runs in pixels and its µm values are NaN (λ in EL stays valid).
  */
 export function fitProfile(profile: Profile, axisPx: number, pixelSizeUm: number | null, fitRangeEl: readonly [number, number], warnings: string[]): ExponentialFit | null {
+  return fitProfileWeighted(profile, axisPx, pixelSizeUm, fitRangeEl, warnings)?.fit ?? null;
+}
+
+/** fitProfile with the weights the fit gave its points (the filled bins inside the fit range; null = unweighted). */
+export function fitProfileWeighted(profile: Profile, axisPx: number, pixelSizeUm: number | null, fitRangeEl: readonly [number, number], warnings: string[]): WeightedExponentialFit | null {
   const p = filledBins(profile);
   const scale = pixelSizeUm ?? 1;
   const xUm = Float64Array.from(p.xEl, (x) => x * axisPx * scale);
   try {
     const weights = binWeights(p.sd, p.n);
-    const raw = fitExponentialDecay(xUm, p.mean, { eggLengthUm: axisPx * scale, fitRangeEl, xEl: p.xEl, ...(weights ? { weights } : {}) });
-    const fit = pixelSizeUm !== null ? raw : { ...raw, lambdaUm: NaN, lambdaSeUm: NaN, lambdaCiLowUm: NaN, lambdaCiHighUm: NaN };
+    const raw = fitExponentialDecayWeighted(xUm, p.mean, { eggLengthUm: axisPx * scale, fitRangeEl, xEl: p.xEl, ...(weights ? { weights } : {}) });
+    const fit = pixelSizeUm !== null ? raw.fit : { ...raw.fit, lambdaUm: NaN, lambdaSeUm: NaN, lambdaCiLowUm: NaN, lambdaCiHighUm: NaN };
     const odd = notDecayingWarning(profile.channel, fit);
     if (odd !== null) warnings.push(odd);
-    return fit;
+    return { fit, weights: raw.weights };
   } catch (e) {
     warnings.push(`exponential fit of ${profile.channel} failed: ${e instanceof Error ? e.message : String(e)}`);
     return null;

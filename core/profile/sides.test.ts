@@ -7,7 +7,7 @@ import { DEFAULT_SETTINGS, type AnalysisSettings } from '../settings';
 import { makeSyntheticEmbryo, syntheticPlaneSource, syntheticStackInfo } from '../synth';
 import { maskOutline } from '../geometry';
 import { prepareSampling } from './prepare';
-import { measureEmbryo } from './measure';
+import { fitProfile, fitProfileWeighted, measureEmbryo } from './measure';
 import { sampleBandOutline } from './band-outline';
 import { withDepthTerm } from './sides';
 import type { DecayLengthDifference } from '../model';
@@ -108,5 +108,24 @@ describe('the depth term of the difference', () => {
   });
   it('leaves the difference as it is when the outer half could not be fitted', () => {
     expect(withDepthTerm(d, null)).toBe(d);
+  });
+});
+
+describe('the weights a side\'s fit carries', () => {
+  it('are n/SD² of the filled bins inside the fit range, in the fit\'s point order, and the fit is fitProfile\'s', () => {
+    // Demo data: 12 bins over 0–1 EL of 100·exp(−x/0.3) + 5 with a small wiggle, SD 2 and n = 4 except bin 3 (empty,
+    // n = 0), bin 5 (SD 4) and bin 7 (n = 16). Source: hand calculation of n/SD²: 4/4 = 1, 4/16 = 0.25, 16/4 = 4.
+    const xEl = Float64Array.from({ length: 12 }, (_, i) => (i + 0.5) / 12);
+    const sd = new Float64Array(12).fill(2); sd[5] = 4;
+    const n = new Float64Array(12).fill(4); n[3] = 0; n[7] = 16;
+    const mean = Float64Array.from(xEl, (x, i) => (n[i] === 0 ? NaN : 100 * Math.exp(-x / 0.3) + 5 + 0.3 * Math.sin(7 * i)));
+    const profile = { channel: 'g', xEl, xUm: xEl.map((x) => x * 500), mean, sd, n };
+    const warnings: string[] = [];
+    const carried = fitProfileWeighted(profile, 500, 1, [0.1, 0.7], warnings)!;
+    // Bins 1–7 have centres ((i + 0.5)/12) within 0.1–0.7; bin 3 is empty.
+    expect(Array.from(carried.fit.xEl)).toEqual([1, 2, 4, 5, 6, 7].map((i) => xEl[i]));
+    expect(Array.from(carried.weights!)).toEqual([1, 1, 1, 0.25, 1, 4]);
+    expect(carried.fit).toEqual(fitProfile(profile, 500, 1, [0.1, 0.7], []));
+    expect(warnings).toEqual([]);
   });
 });

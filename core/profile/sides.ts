@@ -1,8 +1,8 @@
 // Each side of the sampled region profiled and fitted on its own, and the paired difference λ_dorsal − λ_ventral
 // (the edge band with --edge-side each). The sides use the same bins, weights and fit as the main profile.
-import type { DecayLengthDifference, ExponentialFit, Profile, SidesMeasurement } from '../model';
-import { decayLengthDifference } from '../fit';
-import { binWeights, filledBins, fitProfile } from './measure';
+import type { DecayLengthDifference, Profile, SidesMeasurement } from '../model';
+import { decayLengthDifference, type SideFit } from '../fit';
+import { fitProfileWeighted } from './measure';
 
 /** The two sides' profiles of the gradient channel. */
 export interface SideProfiles {
@@ -30,22 +30,13 @@ export function withDepthTerm(d: DecayLengthDifference, outer: DecayLengthDiffer
   };
 }
 
-/** The weights fitProfile gave the points of `fit` (the filled bins inside its range), null when it was unweighted. */
-function weightsOfFit(profile: Profile, fit: ExponentialFit): Float64Array | null {
-  const p = filledBins(profile);
-  const weights = binWeights(p.sd, p.n);
-  if (!weights || !fit.weighted) return null;
-  const [start, end] = fit.fitRangeEl;
-  return weights.filter((_, i) => p.xEl[i] >= start && p.xEl[i] <= end);
-}
-
 /** λ_dorsal − λ_ventral of the outer half of the band (null when either fit or the difference fails; no warnings). */
 function outerHalfDifference(outer: { readonly dorsal: Profile; readonly ventral: Profile }, axisPx: number, pixelSizeUm: number | null, fitRangeEl: readonly [number, number], eggLengthUm: number | null): DecayLengthDifference | null {
   const quiet: string[] = [];
-  const d = fitProfile(outer.dorsal, axisPx, pixelSizeUm, fitRangeEl, quiet);
-  const v = fitProfile(outer.ventral, axisPx, pixelSizeUm, fitRangeEl, quiet);
+  const d = fitProfileWeighted(outer.dorsal, axisPx, pixelSizeUm, fitRangeEl, quiet);
+  const v = fitProfileWeighted(outer.ventral, axisPx, pixelSizeUm, fitRangeEl, quiet);
   if (!d || !v) return null;
-  return decayLengthDifference({ fit: d, weights: weightsOfFit(outer.dorsal, d) }, { fit: v, weights: weightsOfFit(outer.ventral, v) }, eggLengthUm);
+  return decayLengthDifference(d, v, eggLengthUm);
 }
 
 /**
@@ -53,20 +44,20 @@ function outerHalfDifference(outer: { readonly dorsal: Profile; readonly ventral
  * fit fails gets null and a warning naming the side; the difference is then null.
  */
 export function measureSides(sides: SideProfiles, axisPx: number, pixelSizeUm: number | null, fitRangeEl: readonly [number, number], warnings: string[]): SidesMeasurement {
-  const fitSide = (name: 'dorsal' | 'ventral'): ExponentialFit | null => {
+  const fitSide = (name: 'dorsal' | 'ventral'): SideFit | null => {
     const own: string[] = [];
-    const fit = fitProfile(sides[name], axisPx, pixelSizeUm, fitRangeEl, own);
+    const fit = fitProfileWeighted(sides[name], axisPx, pixelSizeUm, fitRangeEl, own);
     warnings.push(...own.map((w) => `${name} side: ${w}`));
     return fit;
   };
-  const dorsalFit = fitSide('dorsal');
-  const ventralFit = fitSide('ventral');
+  const dorsal = fitSide('dorsal');
+  const ventral = fitSide('ventral');
+  const dorsalFit = dorsal?.fit ?? null;
+  const ventralFit = ventral?.fit ?? null;
   let difference = null;
-  if (dorsalFit && ventralFit) {
+  if (dorsal && ventral) {
     const eggLengthUm = pixelSizeUm !== null ? axisPx * pixelSizeUm : null;
-    difference = decayLengthDifference(
-      { fit: dorsalFit, weights: weightsOfFit(sides.dorsal, dorsalFit) },
-      { fit: ventralFit, weights: weightsOfFit(sides.ventral, ventralFit) }, eggLengthUm);
+    difference = decayLengthDifference(dorsal, ventral, eggLengthUm);
     if (difference === null) warnings.push('the dorsal − ventral difference of λ could not be computed (the sides share too few bins in the fit range)');
     else if (sides.outerHalf) difference = withDepthTerm(difference, outerHalfDifference(sides.outerHalf, axisPx, pixelSizeUm, fitRangeEl, eggLengthUm));
   }
