@@ -47,7 +47,7 @@ export interface RunBatchOptions {
   readonly maxMemoryBytes?: number;
   /** Built worker script; default: batch-worker.mjs next to the running bundle. */
   readonly workerPath?: string;
-  /** Node flags and environment added to the worker processes' own (the command line's tuning, app/cli/batch-tuning). */
+  /** Node flags and environment added to the worker processes' own (the command line's tuning, app/batch/worker-tuning). */
   readonly workerExecArgv?: readonly string[];
   readonly workerEnv?: Readonly<Record<string, string>>;
   /** In-process analysis function (jobs = 0); default: the real decoder + pipeline. */
