@@ -347,3 +347,4 @@ export interface Detection {
 export { errorResult, oneLine } from './error-result';
 export { resultKey, resultKeyOf, resultTimeIndex, parseResultKey, withTimePoint, embryoResults, type ResultKey } from './result-key';
 export type * from './cohort';
+export { NO_BACKGROUND_CONDITION } from './cohort';
