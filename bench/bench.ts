@@ -11,7 +11,7 @@ import { writeOmeTiff } from '../core/tiff';
 import { BENCH_SETTINGS, decodeOnce, pipelineOnce } from './measure-file';
 import { runBatch } from '../app/batch/run-batch';
 import { limitDecoderThreads } from '../app/batch/decoder-threads';
-import { ARENA_LIMIT, BATCH_V8_FLAGS } from '../app/cli/batch-tuning';
+import { ARENA_LIMIT, BATCH_V8_FLAGS } from '../app/batch/worker-tuning';
 
 const SIZE = { widthPx: 1024, heightPx: 1024, sizeZ: 24, sizeC: 2 };
 const RAW_BYTES = SIZE.widthPx * SIZE.heightPx * SIZE.sizeZ * SIZE.sizeC * 2;
@@ -107,7 +107,7 @@ async function childPool(dir: string, jobs: number): Promise<Record<string, numb
   return { ms, cpuMs: (cpu.user + cpu.system) / 1000, peakExtra: peakRss() - base, ok: s.ok, files: s.ok + s.failed };
 }
 
-/** Environment and V8 flags of every measurement: as `eggline batch` runs (app/cli/batch-tuning.ts). */
+/** Environment and V8 flags of every measurement: as `eggline batch` runs (app/batch/worker-tuning.ts). */
 const childEnv = { ...process.env, MALLOC_ARENA_MAX: process.env.MALLOC_ARENA_MAX ?? ARENA_LIMIT };
 const childArgs = (args: readonly string[]): string[] => [...BATCH_V8_FLAGS, self, '--child', ...args];
 

@@ -6,7 +6,7 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { ARENA_LIMIT, BATCH_V8_FLAGS } from '../app/cli/batch-tuning';
+import { ARENA_LIMIT, BATCH_V8_FLAGS } from '../app/batch/worker-tuning';
 import { makeSyntheticEmbryo } from '../core/synth';
 import { writeOmeTiff } from '../core/tiff';
 import { writeV3Store } from '../scripts/make-zarr-v3-fixtures';

@@ -91,11 +91,10 @@ export function App() {
   // The project's last batch comes back with the project (results.json in the output folder it records), compared with
   // the project's cohort options.
   useEffect(() => { void restore(session.batchOutDir, session.folder, state.doc.cohort ?? null); }, [session.projectPath, session.folder]);
-  // A comparison option: saved in the project (autosave) and the cohort recomputed with it in the main process.
-  const setCohortOptions = (cohort: ProjectCohortOptions) => {
-    dispatch({ type: 'setCohortOptions', cohort });
-    void recomputeCohort(session.folder, cohort);
-  };
+  // A comparison option: an undoable project edit, saved (autosave); after it, or its undo or redo, the cohort is
+  // recomputed with the options then in force, in the main process.
+  const setCohortOptions = (cohort: ProjectCohortOptions) => dispatch({ type: 'setCohortOptions', cohort });
+  useEffect(() => { if (state.cohortRevision > 0) void recomputeCohort(session.folder, state.doc.cohort ?? {}); }, [state.cohortRevision]);
   // A finished batch's output folder is written into the project at once, so its results reopen after a restart.
   const [outDirSaves, setOutDirSaves] = useState(0);
   useEffect(() => { if (outDirSaves > 0) void saveNow(); }, [outDirSaves]);

@@ -3,11 +3,10 @@
 import { build } from 'esbuild';
 import { existsSync, readdirSync, rmSync } from 'node:fs';
 import { build as viteBuild } from 'vite';
-import { externalExceptBundled, externalExceptEsmOnly } from './bundle-externals.mjs';
+import { bundledExceptNative, externalExceptBundled, externalExceptEsmOnly } from './bundle-externals.mjs';
 
 const nodeEntries = [
   { in: 'app/cli/main.ts', out: 'cli' },
-  { in: 'app/workers/batch-worker.ts', out: 'batch-worker' },
   { in: 'app/workers/analysis-worker.ts', out: 'analysis-worker' },
   { in: 'app/workers/zarr-chunk-worker.ts', out: 'zarr-chunk-worker' },
   { in: 'bench/bench.ts', out: 'bench' },
@@ -31,6 +30,21 @@ if (nodeEntries.length > 0) {
     chunkNames: 'chunk-[hash]',
     outExtension: { '.js': '.mjs' },
     plugins: [externalExceptBundled],
+    banner: { js: "import { createRequire as __cr } from 'node:module'; const require = __cr(import.meta.url);" },
+  });
+}
+
+// The batch worker is one file of its own (no shared chunks) with its packages inside (bundledExceptNative): each
+// worker process loads only the code it uses, in one read and one parse. Modules it imports dynamically (the demo
+// writer, OME-Zarr) are in the same file and run only when first imported.
+if (existsSync('app/workers/batch-worker.ts')) {
+  await build({
+    ...common,
+    entryPoints: [{ in: 'app/workers/batch-worker.ts', out: 'batch-worker' }],
+    outdir: 'dist',
+    format: 'esm',
+    outExtension: { '.js': '.mjs' },
+    plugins: [bundledExceptNative],
     banner: { js: "import { createRequire as __cr } from 'node:module'; const require = __cr(import.meta.url);" },
   });
 }

@@ -10,6 +10,22 @@ export const ESM_ONLY = /^(zarrita|numcodecs|@zarrita\/[^/]+)(\/|$)/;
  */
 export const BUNDLED = /^@stdlib\//;
 
+/**
+ * Packages a batch worker still loads from node_modules: native addons (sharp, lzma-native) cannot be bundled, and
+ * geotiff is imported only when a file needs it. Every other package is bundled into the worker: resolving and
+ * loading them from node_modules (fast-xml-parser, ml-levenberg-marquardt, zarrita, …; CommonJS ones lexed for their
+ * exports first) was most of a worker's start-up CPU.
+ */
+export const WORKER_EXTERNAL = /^(sharp|lzma-native|geotiff)(\/|$)/;
+
+/** esbuild plugin for the batch worker's bundle: bare imports are bundled except WORKER_EXTERNAL. */
+export const bundledExceptNative = {
+  name: 'bundled-except-native',
+  setup(b) {
+    b.onResolve({ filter: /^[^./]/ }, (args) => (WORKER_EXTERNAL.test(args.path) ? { path: args.path, external: true } : undefined));
+  },
+};
+
 /** esbuild plugin for the ES-module Node bundles: every bare import stays external except the BUNDLED packages. */
 export const externalExceptBundled = {
   name: 'external-except-bundled',

@@ -47,7 +47,7 @@ export interface RunBatchOptions {
   readonly maxMemoryBytes?: number;
   /** Built worker script; default: batch-worker.mjs next to the running bundle. */
   readonly workerPath?: string;
-  /** Node flags and environment added to the worker processes' own (the command line's tuning, app/cli/batch-tuning). */
+  /** Node flags and environment added to the worker processes' own (the command line's tuning, app/batch/worker-tuning). */
   readonly workerExecArgv?: readonly string[];
   readonly workerEnv?: Readonly<Record<string, string>>;
   /** In-process analysis function (jobs = 0); default: the real decoder + pipeline. */
@@ -61,6 +61,8 @@ export interface RunBatchOptions {
   /** Run the cohort step afterwards with this sample sheet. */
   readonly cohort?: {
     readonly sampleSheetPath: string; readonly reference: string | null; readonly backgroundCondition?: string | null;
+    /** Who gave backgroundCondition (the record says it); absent: --background-condition. */
+    readonly backgroundConditionNamedBy?: string;
     /** The cohort step's other options (see runCohortStep); absent: its defaults. */
     readonly normalisation?: Normalisation; readonly lambdaPosteriorEl?: number | null; readonly equivalenceMargin?: number | null;
   } | null;
@@ -365,7 +367,8 @@ async function runListed(opts: RunBatchOptions, listed: ListedRun): Promise<Batc
     const failures = finished.filter((r) => r.status === 'error').map((r) => ({ file: r.file, error: r.error ?? 'error' }));
     const { runCohort } = await import('./cohort-adapter');
     const step = await runCohort({
-      results: embryoResults(keyed), failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, backgroundCondition: opts.cohort.backgroundCondition ?? null, outDir, runRecord: final,
+      results: embryoResults(keyed), failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, backgroundCondition: opts.cohort.backgroundCondition ?? null,
+      ...(opts.cohort.backgroundConditionNamedBy !== undefined ? { backgroundConditionNamedBy: opts.cohort.backgroundConditionNamedBy } : {}), outDir, runRecord: final,
       normalisation: opts.cohort.normalisation, lambdaPosteriorEl: opts.cohort.lambdaPosteriorEl ?? null, equivalenceMargin: opts.cohort.equivalenceMargin ?? null,
       movies: timelapse.movies, movieFailures: timelapse.failures,
     });

@@ -10,7 +10,7 @@ import { DEFAULT_SETTINGS, flagKey, flagValue, RUN_SETTINGS, runSettingSpec, SET
 import { MAX_PARTS, parseShardSpec, type ShardSpec } from '../../core/shard';
 import { defaultJobs, realPathOf, runBatch, type BatchRunResult, type RunBatchOptions } from '../batch/run-batch';
 import { isInside } from '../batch/list-stacks';
-import { STOP_MESSAGE } from './batch-tuning';
+import { STOP_MESSAGE } from '../batch/worker-tuning';
 import { loadProjectOrBackup } from '../project';
 import { BATCH_HELP } from './help';
 import { joinNegativeValues, parseCommandArgs } from './parse-command-args';

@@ -1,7 +1,7 @@
 // The `eggline` command dispatcher: picks the command, maps usage errors to exit code 2 with a hint to --help.
 import { BatchOptionError } from '../../core/batch';
 import { EGGLINE_VERSION } from '../batch/versions';
-import { workerTuning } from './batch-tuning';
+import { workerTuning } from '../batch/worker-tuning';
 import { MAIN_HELP } from './help';
 import { UsageError, type CliIo } from './usage-error';
 
@@ -12,7 +12,7 @@ export interface CliEnv {
   readonly cliPath?: string;
 }
 
-/** What the batch command gets from the entry point: the built worker, started tuned for batches (batch-tuning). */
+/** What the batch command gets from the entry point: the built worker, started tuned for batches (worker-tuning). */
 function batchExtra(env: CliEnv): { workerPath?: string; workerExecArgv: readonly string[]; workerEnv: Readonly<Record<string, string>> } {
   const tuning = workerTuning(process.platform, process.env);
   return { ...(env.workerPath ? { workerPath: env.workerPath } : {}), workerExecArgv: tuning.execArgv, workerEnv: tuning.env };

@@ -29,6 +29,9 @@ export interface BatchRunOptions {
   readonly signal: AbortSignal;
   /** Sample sheet for the cohort step after the batch (conditions, dosages); null or absent = no cohort step. */
   readonly sampleSheetPath?: string | null;
+  /** Node flags and environment added to the worker processes' own (app/batch/worker-tuning). */
+  readonly workerExecArgv?: readonly string[];
+  readonly workerEnv?: Readonly<Record<string, string>>;
 }
 
 /** The analysis services the handlers call. `label` is the file's display name used in messages. */

@@ -3,6 +3,7 @@ import { availableParallelism } from 'node:os';
 import { randomUUID } from 'node:crypto';
 import type { BatchSummary } from '../../core/contract';
 import { requireAllowed, requireProjectDoc, requireText } from './args';
+import { workerTuning } from '../batch/worker-tuning';
 import { findSampleSheet } from '../engine/cohort-summary';
 import type { ShellContext } from './context';
 import { ApiFailure } from './result';
@@ -24,11 +25,13 @@ export async function runBatch(ctx: ShellContext, folderArg: unknown, outArg: un
   const runId = randomUUID();
   const controller = new AbortController();
   ctx.batches.set(runId, controller);
+  // The worker processes start tuned as the command line's do (V8 flags, MALLOC_ARENA_MAX on Linux).
+  const tuning = workerTuning(process.platform, process.env);
   try {
     const summary = await ctx.engine.runBatch({
       folder, outDir, settings: doc.settings, doc: { ...doc, folder }, jobs: ctx.deps.batchJobs ?? defaultBatchJobs(),
       onProgress: (p) => ctx.deps.emitBatchProgress({ ...p, runId }),
-      signal: controller.signal, sampleSheetPath,
+      signal: controller.signal, sampleSheetPath, workerExecArgv: tuning.execArgv, workerEnv: tuning.env,
     });
     // Its results may be read back later (and its report opened) from this window.
     ctx.allow.allowTree('results', outDir);

@@ -128,6 +128,9 @@ export interface CohortSummary {
   readonly positionalError?: readonly CohortPositionalError[];
   /** The condition subtracted as background (left out of the comparison), when one was; absent or null: none. */
   readonly backgroundCondition?: string | null;
+  /** With the background choice `none`: the condition the sheet's role column marks, left out of the comparison and
+   *  not subtracted; absent or null: none. */
+  readonly backgroundSetAside?: string | null;
 }
 
 /** σx of one condition at the positions shown (x/EL, NaN where the slope is not resolved), with its interval. */

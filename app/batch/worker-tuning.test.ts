@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { ARENA_LIMIT, BATCH_V8_FLAGS, workerTuning } from './batch-tuning';
+import { ARENA_LIMIT, BATCH_V8_FLAGS, workerTuning } from './worker-tuning';
 
 describe('workerTuning', () => {
   it('gives Linux workers the V8 flags and MALLOC_ARENA_MAX, and other systems nothing', () => {
