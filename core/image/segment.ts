@@ -4,7 +4,7 @@ import { estimateBackgroundLevel } from './background-level';
 import { largestComponent } from './components';
 import { fillHoles } from './fill-holes';
 import { fastGaussianSmooth } from './box-blur';
-import { rowMaxima } from './max-filter';
+import { rowMaximaAt } from './max-filter';
 import { open, squareDilate, squareErode } from './morphology';
 import { otsuThreshold } from './threshold';
 
@@ -138,8 +138,10 @@ function coarseAtScale(channels: readonly Plane[], sigmaPx: number, factor: 1 | 
  * fineSigmaPx and scaled to noise SDs as channelSnr scales it, is at least edgeFraction of its own local maximum
  * (the maximum over the (2·localRadiusPx + 1)² square, clipped at the border) and above 3 noise SDs; 0 elsewhere.
  * The local maximum of the noise-scaled image is the noise-scaled maximum of the smoothed one (the scaling is
- * monotone), so it is taken on the smoothed values: the maximum of the row maxima (rowMaxima) of the window's rows.
- * Only the pixels where the rule decides anything are listed, so no full-image maximum filter is needed.
+ * monotone), so it is taken on the smoothed values: the maximum of the row maxima of the window's rows. Only the
+ * pixels where the rule decides anything are listed, so neither a full-image maximum filter nor the row maxima of
+ * the whole image are needed: the row maxima are taken only where a listed pixel's window reaches (rowMaximaAt),
+ * about a tenth of the image near the edge band.
  */
 function nearLocalLevelAt(channels: readonly Plane[], at: Int32Array, o: Required<SegmentOptions>, box: PixelBox | null = null): Uint8Array {
   const width = box ? box.x1 - box.x0 : channels[0].width;
@@ -150,14 +152,40 @@ function nearLocalLevelAt(channels: readonly Plane[], at: Int32Array, o: Require
   const crop = box ? new Float32Array(width * height) : null;
   const smoothed = new Float32Array(width * height);
   const rowMax = new Float32Array(width * height);
+  const windowRows = windowRowPixels(at, width, height, r);
   for (const channel of channels) {
     const ch = box && crop ? cropPlane(channel, box, crop) : channel;
     const smooth = fastGaussianSmooth(ch, o.fineSigmaPx, smoothed);
-    const rows = rowMaxima(smooth, r, rowMax);
+    rowMaximaAt(smooth, r, windowRows, rowMax);
     const bg = estimateBackgroundLevel(smooth.data);
-    edgeRuleAt(smooth.data, rows, width, height, r, at, bg.level, bg.noiseSd, o.edgeFraction, keep);
+    edgeRuleAt(smooth.data, rowMax, width, height, r, at, bg.level, bg.noiseSd, o.edgeFraction, keep);
   }
   return keep;
+}
+
+/** The pixels whose row maxima edgeRuleAt reads: for each listed pixel, its column from r rows above to r rows below
+ *  (clipped at the border); each once, in no particular order. */
+function windowRowPixels(at: Int32Array, width: number, height: number, r: number): Int32Array {
+  const seen = new Uint8Array(width * height);
+  const out = new Int32Array(at.length * (2 * r + 1));
+  const n = markColumns(at, width, height, r, seen, out);
+  return out.subarray(0, n);
+}
+
+/** windowRowPixels' loop: appends each not yet seen pixel of the listed pixels' columns to out; returns the count. */
+function markColumns(at: Int32Array, width: number, height: number, r: number, seen: Uint8Array, out: Int32Array): number {
+  let n = 0;
+  for (let k = 0; k < at.length; k++) {
+    const i = at[k];
+    const y = (i / width) | 0;
+    const x = i - y * width;
+    const y0 = y - r < 0 ? 0 : y - r;
+    const y1 = y + r > height - 1 ? height - 1 : y + r;
+    for (let q = y0 * width + x, end = y1 * width + x; q <= end; q += width) {
+      if (seen[q] === 0) { seen[q] = 1; out[n++] = q; }
+    }
+  }
+  return n;
 }
 
 /**
