@@ -1,6 +1,6 @@
 // Open a stack for analysis: tags from core/tiff; pixels on the direct path where it reaches, else sharp; geotiff
 // when neither can or when a plane fails.
-import type { PlaneSource, RawPlane, StackInfo } from '../../core/model';
+import type { PixelArray, PlaneSource, RawPlane, StackInfo } from '../../core/model';
 import { openFileByteSource } from '../../core/io';
 import { createDirectPlaneSource, createGeotiffPlaneSource, directPathRefusal, readStackInfoWithChain, type ByteSource, type StackInfoOptions, type TiffChain } from '../../core/tiff';
 import { APP_CHUNK_CODECS } from './lzma-codec';
@@ -21,13 +21,13 @@ const FAILURES_BEFORE_SWITCH = 3;
 export function withDecoderFallback(primary: PlaneSource, fallback: PlaneSource, warnings: string[], fileLabel: string): PlaneSource {
   let failures = 0;
   return {
-    async readPlane(z: number, c: number, t: number): Promise<RawPlane> {
-      if (failures >= FAILURES_BEFORE_SWITCH) return fallback.readPlane(z, c, t);
+    async readPlane(z: number, c: number, t: number, into?: PixelArray): Promise<RawPlane> {
+      if (failures >= FAILURES_BEFORE_SWITCH) return fallback.readPlane(z, c, t, into);
       try {
-        return await primary.readPlane(z, c, t);
+        return await primary.readPlane(z, c, t, into);
       } catch (err) {
         if (err instanceof RangeError) throw err;
-        const plane = await fallback.readPlane(z, c, t);
+        const plane = await fallback.readPlane(z, c, t, into);
         const reason = err instanceof Error ? err.message.replace(`${fileLabel}: `, '') : String(err);
         warnings.push(`${fileLabel}: plane z=${z} c=${c} t=${t} decoded with the pure-JS decoder (${reason})`);
         failures++;

@@ -85,7 +85,9 @@ export function applyImageCorrections(projected: ProjectedStack, corrections: Im
     width: p.width, height: p.height,
     data: correctPlane(p.data, background?.channels[c] ?? null, planesSummed, flat?.channels[c] ?? null, inPlace ? p.data : new Float32Array(p.data.length)),
   }));
-  return { ...projected, channels };
+  // The corrected values are no longer the decoded samples.
+  const { rawPlanes: _dropped, ...rest } = projected;
+  return { ...rest, channels };
 }
 
 /**

@@ -4,6 +4,8 @@ export { createProjector } from './projector';
 export type { Projector } from './projector';
 export { projectStack, chooseSliceScore, readAhead } from './project-stack';
 export { toFloatPlane } from './plane-convert';
+export { reusedPlaneArrays } from './plane-arrays';
+export type { PlaneArrays } from './plane-arrays';
 export { gaussianKernel, gaussianSmooth } from './gaussian';
 export { fastGaussianSmooth, boxWidthsForSigma } from './box-blur';
 export { otsuThreshold, otsuBin } from './threshold';
@@ -19,7 +21,7 @@ export { segmentEmbryo, combinedSnr, channelSnr, checkSegmentOptions, downsample
 export type { SegmentOptions } from './segment';
 export { resolveChannel, describeChannelRef } from './channel-ref';
 export { selectKth, medianInPlace, maskedMedian } from './select';
-export { wholeNumberMedian } from './median-whole';
+export { sampleMedian, wholeNumberMedian } from './median-whole';
 export { maskRuns } from './runs';
 export type { MaskRuns } from './runs';
 export { applyImageCorrections, backgroundImage, correctionMismatch, normaliseFlatField } from './corrections';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { wholeNumberMedian } from './median-whole';
+import { sampleMedian, wholeNumberMedian } from './median-whole';
 import { maskRuns } from './runs';
 import { maskedMedian } from './select';
 
@@ -77,6 +77,53 @@ describe('wholeNumberMedian', () => {
       const expected = maskedMedian(values, keep);
       expect(wholeNumberMedian(values, keep), `n=${n}`).toEqual(expected);
       expect(wholeNumberMedian(values, keep, runsOf(keep)), `n=${n} runs`).toEqual(expected);
+    }
+  });
+});
+
+describe('sampleMedian', () => {
+  it('gives the median and count of the samples in the runs (tiny known answers, odd and even counts, none)', () => {
+    // Source: from memory, median definition: kept 1, 5, 3 → 3; with 8 added → (3 + 5) / 2 = 4.
+    const values = [1, 100, 5, 7, 3, 9, 2, 8];
+    const odd = new Uint8Array([1, 0, 1, 0, 1, 0, 0, 0]);
+    const even = new Uint8Array([1, 0, 1, 0, 1, 0, 0, 1]);
+    for (const samples of [Uint8Array.from(values), Uint16Array.from(values)]) {
+      expect(sampleMedian(samples, runsOf(odd))).toEqual({ median: 3, count: 3 });
+      expect(sampleMedian(samples, runsOf(even))).toEqual({ median: 4, count: 4 });
+      expect(sampleMedian(samples, runsOf(new Uint8Array(8)))).toBeNull();
+    }
+    // Source: from memory: a 16-bit sample holds 0…65 535; the extremes are counted like any other value.
+    expect(sampleMedian(Uint16Array.from([65_535, 0, 65_535]), runsOf(new Uint8Array([1, 1, 1])))).toEqual({ median: 65_535, count: 3 });
+    expect(sampleMedian(Uint16Array.from([0, 65_535]), runsOf(new Uint8Array([1, 1])))).toEqual({ median: 32_767.5, count: 2 });
+  });
+
+  it('gives what wholeNumberMedian and maskedMedian give for the same values as floats (seeded 2-D images, 8 and 16 bit)', () => {
+    // Source: maskedMedian (radix selection) and wholeNumberMedian as references; demo data: seeded noise around a
+    // background level with bright outliers and saturated pixels (many ties), masks of random blobs, so runs of every
+    // length including 1, 2 and 3 (the counting loop's remainder); odd and even kept counts.
+    for (const [seed, width, height, bits] of [[1, 64, 48, 16], [2, 97, 61, 16], [3, 200, 150, 8], [4, 31, 7, 8], [5, 513, 257, 16]] as const) {
+      const rnd = lcg(seed);
+      const n = width * height;
+      const top = bits === 8 ? 255 : 65_535;
+      const samples = bits === 8 ? new Uint8Array(n) : new Uint16Array(n);
+      for (let i = 0; i < n; i++) {
+        const u = rnd();
+        samples[i] = u < 0.05 ? top : u < 0.2 ? Math.floor(rnd() * (top + 1)) : Math.min(top, 20 + Math.floor(rnd() * 12));
+      }
+      for (const parity of [0, 1]) {
+        const keep = new Uint8Array(n);
+        for (let i = 0; i < n; i++) keep[i] = +(rnd() < (i % width < width / 2 ? 0.9 : 0.3));
+        let count = 0;
+        for (let i = 0; i < n; i++) count += keep[i];
+        if (count % 2 !== parity) keep[keep.indexOf(1)] = 0;
+        const runs = maskRuns({ width, height, data: keep }, true);
+        const floats = Float32Array.from(samples);
+        const expected = maskedMedian(floats, keep);
+        const got = sampleMedian(samples, runs);
+        expect(got, `seed ${seed} parity ${parity}`).toEqual(expected);
+        expect(got).toEqual(wholeNumberMedian(floats, keep, runs));
+        expect(got!.count % 2).toBe(parity);
+      }
     }
   });
 });

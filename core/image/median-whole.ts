@@ -111,3 +111,45 @@ export function wholeNumberMedian(values: Float32Array, keep: Uint8Array, runs: 
   if ((lower === 0 || upper === 0) && hasNegativeZero(values, keep)) return null;
   return { median: n % 2 === 1 ? upper : (lower + upper) / 2, count: n };
 }
+
+/** counts[v + 65 536·j] += 1 for each sample v of runs, lane j = position mod 4 within a run (see countWhole). */
+function countSamples(samples: Uint8Array | Uint16Array, runs: MaskRuns, counts: Uint32Array): void {
+  for (let r = 0; r < runs.count; r++) {
+    const end = runs.end[r];
+    let i = runs.start[r];
+    for (; i + 3 < end; i += 4) {
+      counts[samples[i]]++;
+      counts[samples[i + 1] + 65_536]++;
+      counts[samples[i + 2] + 131_072]++;
+      counts[samples[i + 3] + 196_608]++;
+    }
+    for (; i < end; i++) counts[samples[i]]++;
+  }
+}
+
+/** The four lanes of countSamples added up per value (`values` slots). */
+function sampleLaneTotals(lanes: Uint32Array, values: number): Uint32Array {
+  const out = new Uint32Array(values);
+  for (let v = 0; v < values; v++) out[v] = lanes[v] + lanes[v + 65_536] + lanes[v + 131_072] + lanes[v + 196_608];
+  return out;
+}
+
+/**
+ * The median (mean of the two middle values for an even count) and count of decoded 8- or 16-bit samples at the
+ * pixels of `runs` (maskRuns of a 0/1 mask, made once for many planes), or null when the runs hold no pixel. One
+ * counting pass over the samples themselves — half the bytes of their float copy, and no whole-number test, as every
+ * sample is one — then a walk over the counts: the same number as wholeNumberMedian and maskedMedian give for the
+ * same values as floats (a sample is never −0).
+ */
+export function sampleMedian(samples: Uint8Array | Uint16Array, runs: MaskRuns): { median: number; count: number } | null {
+  const lanes = new Uint32Array(4 * 65_536);
+  countSamples(samples, runs, lanes);
+  const counts = sampleLaneTotals(lanes, samples instanceof Uint8Array ? 256 : 65_536);
+  let n = 0;
+  for (let b = 0; b < counts.length; b++) n += counts[b];
+  if (n === 0) return null;
+  const hiRank = n >> 1;
+  const upper = valueAtRank(counts, hiRank);
+  const lower = n % 2 === 1 ? upper : valueAtRank(counts, hiRank - 1);
+  return { median: n % 2 === 1 ? upper : (lower + upper) / 2, count: n };
+}

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import type { PlaneSource, StackInfo } from '../model';
 import { DEFAULT_SETTINGS } from '../settings';
 import { chooseSliceScore, projectStack } from './project-stack';
+import { reusedPlaneArrays } from './plane-arrays';
 
 // Demo data: a 3×1 stack with 2 channels and 3 slices; plane (z, c) holds values (10c + z) · [1, 2, 3],
 // except slice 1 of both channels, which has the most contrast.
@@ -39,6 +40,40 @@ describe('projectStack', () => {
     expect(p.pixelSizeUm).toBe(0.5);
     expect(p.pixelSizeSource).toBe('ome');
     expect(p.sliceIndex).toBeNull();
+  });
+
+  it('lends its plane arrays to the source: slot c for one plane per channel (kept as rawPlanes), slots 0, 1 in turn for several', async () => {
+    // Demo data: the tiny stack above, with a source that decodes into the lent array (as the direct TIFF path does).
+    const { info, source } = tinyStack(known);
+    const lentTo: string[] = [];
+    const lending: PlaneSource = {
+      async readPlane(z, c, t, into) {
+        const plane = await source.readPlane(z, c, t);
+        if (!(into instanceof Uint16Array)) return plane;
+        lentTo.push(`${z},${c}`);
+        into.set(plane.data);
+        return { ...plane, data: into };
+      },
+      close: () => source.close(),
+    };
+    const arrays = reusedPlaneArrays();
+    const slice = { ...DEFAULT_SETTINGS, projection: 'slice' as const, sliceIndex: 2 };
+    const p = await projectStack(info, lending, slice, null, null, arrays);
+    expect(p.rawPlanes?.map((r) => Array.from(r.data))).toEqual([[2, 4, 6], [12, 24, 36]]);
+    expect(p.rawPlanes?.[0].data).toBe(arrays.at(0, 'uint16', 3));
+    expect(p.rawPlanes?.[1].data).toBe(arrays.at(1, 'uint16', 3));
+    // The next projection with the same arrays decodes into the same ones.
+    const again = await projectStack(info, lending, { ...slice, sliceIndex: 0 }, null, null, arrays);
+    expect(again.rawPlanes?.[1].data).toBe(p.rawPlanes?.[1].data);
+    expect(Array.from(again.rawPlanes![1].data)).toEqual([10, 20, 30]);
+    // Several planes per channel: the same values as without lent arrays, and no rawPlanes (no one plane holds them).
+    const mean = await projectStack(info, lending, { ...DEFAULT_SETTINGS, projection: 'mean' }, null, null, arrays);
+    const fresh = await projectStack(info, source, { ...DEFAULT_SETTINGS, projection: 'mean' });
+    expect(mean.channels.map((c) => Array.from(c.data))).toEqual(fresh.channels.map((c) => Array.from(c.data)));
+    expect(mean.rawPlanes).toBeUndefined();
+    expect(lentTo).toHaveLength(2 + 2 + 6);
+    // Without lent arrays nothing is kept.
+    expect((await projectStack(info, source, slice)).rawPlanes).toBeUndefined();
   });
 
   it('takes the chosen slice and reads only it', async () => {

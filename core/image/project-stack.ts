@@ -1,10 +1,11 @@
 // Project a stack over Z per channel, reading plane by plane (a stack is never held whole; at most two planes are).
-import type { PixelSize, PixelSizeSource, Plane, PlaneSource, ProjectedStack, RawPlane, StackInfo } from '../model';
+import type { PixelSize, PixelSizeSource, Plane, PlaneSource, ProjectedStack, RawPlane, SampleType, StackInfo } from '../model';
 import type { AnalysisSettings } from '../settings';
 import { createProjector, projectOnePlane } from './projector';
 import type { Projector } from './projector';
 import { toFloatPlane } from './plane-convert';
 import { correctedSlicePlanes, type ImageCorrections } from './corrections';
+import type { PlaneArrays } from './plane-arrays';
 
 /**
  * Score used to pick a slice automatically: the variance of the plane's pixel values, summed over channels.
@@ -38,9 +39,9 @@ function resolvePixelSize(px: PixelSize, fallbackUm: number | null, warnings: st
   return { um: null, source: 'unknown' };
 }
 
-/** Read one plane and check it has the declared size. */
-async function readChecked(source: PlaneSource, info: StackInfo, z: number, c: number, t: number): Promise<RawPlane> {
-  const p = await source.readPlane(z, c, t);
+/** Read one plane (into `into` when the source can) and check it has the declared size. */
+async function readChecked(source: PlaneSource, info: StackInfo, z: number, c: number, t: number, into?: RawPlane['data']): Promise<RawPlane> {
+  const p = await source.readPlane(z, c, t, into);
   if (p.width !== info.sizeX || p.height !== info.sizeY || p.data.length !== info.sizeX * info.sizeY) {
     throw new Error(`plane z=${z} c=${c} t=${t} is ${p.width}×${p.height}, expected ${info.sizeX}×${info.sizeY}`);
   }
@@ -100,16 +101,22 @@ function clearNonFinite(planes: readonly Plane[]): number {
   return count;
 }
 
+/** 8- and 16-bit integer samples: a projection of one such plane holds its values exactly (see projectOnePlane). */
+const EXACT_IN_FLOAT32: ReadonlySet<SampleType> = new Set(['uint8', 'int8', 'uint16', 'int16']);
+
 /**
  * Project every channel of a stack over Z at settings.timeIndex with settings.projection, reading one plane at a time.
  * 'slice' uses settings.sliceIndex, or, when null, the slice with the highest contrast (see chooseSliceScore), scored
  * on the planes as `corrections` (flat field, background image) make them; the projection itself is returned
  * uncorrected (applyImageCorrections does that). `into` (one array of sizeX·sizeY values per channel), when given,
- * receives the projections (a movie reuses its arrays at every time point) except for an automatic slice. Rejects
- * with a one-line message on bad indices or planes of the wrong size.
+ * receives the projections (a movie reuses its arrays at every time point) except for an automatic slice. `planes`,
+ * when given, are the arrays the planes are decoded into (slot c for a channel's one plane; slots 0 and 1 in turn
+ * when channels have several): then a projection of one 8- or 16-bit plane per channel also gives those planes as
+ * `rawPlanes` (valid until `planes` serve the next projection). Rejects with a one-line message on bad indices or
+ * planes of the wrong size.
  */
 export async function projectStack(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, corrections: ImageCorrections | null = null,
-  into: readonly Float32Array[] | null = null): Promise<ProjectedStack> {
+  into: readonly Float32Array[] | null = null, planes: PlaneArrays | null = null): Promise<ProjectedStack> {
   checkIndices(info, settings);
   const warnings: string[] = [];
   const px = resolvePixelSize(info.pixelSize, settings.pixelSizeUm, warnings);
@@ -117,6 +124,7 @@ export async function projectStack(info: StackInfo, source: PlaneSource, setting
   const names = Array.from({ length: info.sizeC }, (_, c) => info.channelNames[c] || `C${c + 1}`);
   let channels: Plane[];
   let sliceIndex: number | null = null;
+  let rawPlanes: RawPlane[] | undefined;
   if (settings.projection === 'slice' && settings.sliceIndex === null) {
     const best = await bestSlice(info, source, t, corrections);
     channels = best.planes;
@@ -130,11 +138,16 @@ export async function projectStack(info: StackInfo, source: PlaneSource, setting
     // front to back, which disks like and which lets the batch hash the bytes as they are decoded.
     const order = zs.flatMap((z) => names.map((_, c) => ({ z, c, ifd: info.planeIfd[(t * info.sizeC + c) * info.sizeZ + z] ?? 0 })))
       .sort((a, b) => a.ifd - b.ifd);
+    const read: RawPlane[] = [];
     const add = zs.length === 1
-      ? (c: number, plane: RawPlane) => { one[c] = projectOnePlane(plane, settings.projection, into?.[c]); }
+      ? (c: number, plane: RawPlane) => { one[c] = projectOnePlane(plane, settings.projection, into?.[c]); read[c] = plane; }
       : (c: number, plane: RawPlane) => projectors[c].add(plane);
-    await readAhead(order.length, (i) => readChecked(source, info, order[i].z, order[i].c, t), (i, plane) => add(order[i].c, plane));
+    // At most two planes are held at once (readAhead), so several planes per channel take slots 0 and 1 in turn.
+    const slot = (i: number): number => (zs.length === 1 ? order[i].c : i % 2);
+    const intoAt = (i: number) => planes?.at(slot(i), info.sampleType, info.sizeX * info.sizeY);
+    await readAhead(order.length, (i) => readChecked(source, info, order[i].z, order[i].c, t, intoAt(i)), (i, plane) => add(order[i].c, plane));
     channels = zs.length === 1 ? one : projectors.map((p, c) => p.result(into?.[c]));
+    if (planes && zs.length === 1 && EXACT_IN_FLOAT32.has(info.sampleType)) rawPlanes = read;
     if (settings.projection === 'slice') sliceIndex = settings.sliceIndex;
   }
   // One NaN would spread through every later filter, so non-finite values (float files) become 0 here; projections
@@ -142,5 +155,5 @@ export async function projectStack(info: StackInfo, source: PlaneSource, setting
   const floatSamples = info.sampleType === 'float32' || info.sampleType === 'float64';
   const bad = floatSamples ? clearNonFinite(channels) : 0;
   if (bad > 0) warnings.push(`${bad} projected pixel value(s) were NaN or infinite and were set to 0`);
-  return { channels, channelNames: names, pixelSizeUm: px.um, pixelSizeSource: px.source, projection: settings.projection, sliceIndex, warnings };
+  return { channels, channelNames: names, pixelSizeUm: px.um, pixelSizeSource: px.source, projection: settings.projection, sliceIndex, warnings, ...(rawPlanes ? { rawPlanes } : {}) };
 }

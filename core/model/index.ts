@@ -152,6 +152,12 @@ export interface ExponentialFit {
   /** x/EL of each point used in the fit, and its residual (data − model). */
   readonly xEl: Float64Array;
   readonly residuals: Float64Array;
+  /**
+   * Each side's own fit with --edge-side each only: the depth term (EL), in lambdaSe* and the interval: half the
+   * change of λ when only the outer half of the band is sampled, added in quadrature (an error smooth along the side
+   * that no residual sees; see the README's methods). Absent elsewhere.
+   */
+  readonly depthTermEl?: number;
 }
 
 /**
@@ -301,8 +307,14 @@ export interface MovieRecord {
 
 /** Reads decoded planes of one stack; implemented by the sharp decoder (app/) and the geotiff decoder (core/tiff). */
 export interface PlaneSource {
-  /** Decode plane (z, c, t), all 0-based. Rejects with a clear message on bad data. */
-  readPlane(z: number, c: number, t: number): Promise<RawPlane>;
+  /**
+   * Decode plane (z, c, t), all 0-based. Rejects with a clear message on bad data. `into`, when given, is an array
+   * of the stack's sample type holding sizeX·sizeY values that the source may decode into instead of a new array
+   * (then the returned data is `into`; a source that cannot, or a plane of another type or size, returns a new array
+   * and leaves `into` as it was or partly written). The caller lends `into` until the promise settles: a reader of
+   * many planes (a movie's time points) reuses one array per plane it holds, so no plane costs a fresh allocation.
+   */
+  readPlane(z: number, c: number, t: number, into?: PixelArray): Promise<RawPlane>;
   /** Release file handles. */
   close(): Promise<void>;
 }
@@ -318,6 +330,13 @@ export interface ProjectedStack {
   /** The slice used when projection is 'slice' (0-based), else null. */
   readonly sliceIndex: number | null;
   readonly warnings: readonly string[];
+  /**
+   * Per channel, the one decoded plane whose values each channel holds exactly (8/16-bit samples, one plane per
+   * channel, no correction applied), when the projection was asked to keep them (projectStack's `planes`: a movie);
+   * else absent. The background counts these samples instead of the floats. Anything that changes the channels'
+   * values drops it.
+   */
+  readonly rawPlanes?: readonly RawPlane[];
 }
 
 /** What segmentation and axis finding produce for one embryo. */
@@ -334,3 +353,4 @@ export interface Detection {
 export { errorResult, oneLine } from './error-result';
 export { resultKey, resultKeyOf, resultTimeIndex, parseResultKey, withTimePoint, embryoResults, type ResultKey } from './result-key';
 export type * from './cohort';
+export { NO_BACKGROUND_CONDITION } from './cohort';

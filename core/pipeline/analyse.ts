@@ -1,7 +1,7 @@
 // One embryo end to end: project → detect → (hand axis) → sampler (prepare, sample) → fit, as an EmbryoResult that never throws.
 import { errorResult, withTimePoint, type EmbryoResult, type HandEdits, type PlaneSource, type ProjectedStack, type StackInfo } from '../model';
 import type { AnalysisSettings } from '../settings';
-import { applyImageCorrections, projectStack, type ImageCorrections } from '../image';
+import { applyImageCorrections, projectStack, type ImageCorrections, type PlaneArrays } from '../image';
 import { detectEmbryo, type EmbryoDetection } from '../geometry';
 import { fitSampledProfiles, prepareSampling, sampleProfiles, type PreparedSampling } from '../profile';
 
@@ -28,6 +28,9 @@ export interface AnalyseOptions {
    *  them (a movie, for every time point): the projection, and what onProjected was told, then last only until the
    *  caller's next use of them. Absent = new arrays. */
   readonly projectionBuffers?: readonly Float32Array[] | null;
+  /** Arrays the planes it reads are decoded into (reusedPlaneArrays; a movie, for every time point), so that no plane
+   *  is a new array and a one-plane projection keeps its decoded samples for the background. Absent = new arrays. */
+  readonly planeArrays?: PlaneArrays | null;
 }
 
 /**
@@ -35,8 +38,8 @@ export interface AnalyseOptions {
  * of sizeX·sizeY values per channel) when given, corrections included, else into new arrays.
  */
 export async function correctedProjection(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, corrections: ImageCorrections | null | undefined,
-  into: readonly Float32Array[] | null = null): Promise<ProjectedStack> {
-  const raw = await projectStack(info, source, settings, corrections ?? null, into);
+  into: readonly Float32Array[] | null = null, planes: PlaneArrays | null = null): Promise<ProjectedStack> {
+  const raw = await projectStack(info, source, settings, corrections ?? null, into, planes);
   return corrections ? applyImageCorrections(raw, corrections, settings.projection === 'sum' ? info.sizeZ : 1, into !== null) : raw;
 }
 
@@ -63,7 +66,7 @@ async function analyseOneTimePoint(info: StackInfo, source: PlaneSource, setting
   const bad = checkInfo(info);
   if (bad) return errorResult(file, bad);
   try {
-    const projected = options.projected ?? await correctedProjection(info, source, settings, options.corrections, options.projectionBuffers ?? null);
+    const projected = options.projected ?? await correctedProjection(info, source, settings, options.corrections, options.projectionBuffers ?? null, options.planeArrays ?? null);
     options.onProjected?.(projected);
     const detection = options.detection ?? detectEmbryo(projected, settings);
     const hand = options.handEdits?.axis ?? null;

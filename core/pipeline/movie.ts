@@ -2,7 +2,7 @@
 // then every chosen time point analysed as a single stack with its own background. Never throws for bad data.
 import { errorResult, withTimePoint, type ApAxis, type EmbryoResult, type HandEdits, type PlaneSource, type Plane, type ProjectedStack, type StackInfo } from '../model';
 import type { AnalysisSettings } from '../settings';
-import type { ImageCorrections } from '../image';
+import { reusedPlaneArrays, type ImageCorrections } from '../image';
 import { detectEmbryo, type EmbryoDetection } from '../geometry';
 import { analyseStack, correctedProjection } from './analyse';
 import { samplingWithin } from '../profile';
@@ -82,7 +82,8 @@ async function projectSampled(info: StackInfo, source: PlaneSource, settings: An
   }
   if (!first) throw new Error('no time points to project');
   const channels: Plane[] = first.channels.map((c, i) => ({ width: c.width, height: c.height, data: sums[i].map((v) => v / times.length) }));
-  return { mean: { ...first, channels }, kept };
+  const { rawPlanes: _notTheMean, ...rest } = first;
+  return { mean: { ...rest, channels }, kept };
 }
 
 /**
@@ -126,6 +127,8 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
   const prepare = detection ? samplingWithin(detection) : undefined;
   // One set of projection arrays serves every time point: nothing keeps a time point's projection past its analysis.
   const projectionBuffers = Array.from({ length: info.sizeC }, () => new Float32Array(info.sizeX * info.sizeY));
+  // Likewise the decoded planes: every time point's are read into the same arrays.
+  const planeArrays = reusedPlaneArrays();
   for (const [k, t] of timeIndices.entries()) {
     if (options.signal?.aborted) throw cancelled(fileLabel);
     const at = options.editsAt?.(t);
@@ -134,7 +137,7 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
     // A kept projection serves only settings that differ from the movie's in the fit range alone.
     const projected = kept.get(t) && sameButFitRange(settingsAtT, settings) ? kept.get(t) : undefined;
     kept.delete(t);
-    results.push(await analyseStack(info, source, settingsAtT, { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection, onProjected, projected, prepare, corrections: options.corrections ?? null, projectionBuffers }));
+    results.push(await analyseStack(info, source, settingsAtT, { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection, onProjected, projected, prepare, corrections: options.corrections ?? null, projectionBuffers, planeArrays }));
     options.onTimePoint?.(k + 1, timeIndices.length);
   }
   const hand = options.handEdits?.axis ?? null;

@@ -1,7 +1,7 @@
 // Background estimates per channel: outside the embryo (robust), a drawn rectangle, or none.
-import type { BackgroundEstimate, Mask, Plane } from '../model';
+import type { BackgroundEstimate, Mask, Plane, RawPlane } from '../model';
 import type { BackgroundSettings } from '../settings';
-import { maskRuns, maskedMedian, sortedQuantile, squareDilate, wholeNumberMedian, type MaskRuns } from '../image';
+import { maskRuns, maskedMedian, sampleMedian, sortedQuantile, squareDilate, wholeNumberMedian, type MaskRuns } from '../image';
 
 /** Fewest outside pixels accepted for the 'outside' estimate before falling back to a low percentile. */
 const MIN_OUTSIDE_PX = 100;
@@ -37,11 +37,16 @@ export function farPixels(mask: Mask, marginPx: number): FarPixels {
 
 /**
  * outsideBackground with the far-from-mask pixels already known (so several channels share one distance map), and
- * their runs when known (farRuns = maskRuns of far). Whole-number values (8/16-bit samples, not averaged) take their
- * median from one counting pass (wholeNumberMedian), others from maskedMedian: the same number either way.
+ * their runs when known (farRuns = maskRuns of far). With the runs and `raw`, the decoded 8/16-bit plane whose
+ * values `plane` holds exactly (ProjectedStack.rawPlanes), the median is counted from those samples (sampleMedian);
+ * else whole-number values (8/16-bit samples, not averaged) take it from one counting pass over the floats
+ * (wholeNumberMedian), others from maskedMedian: the same number every way.
  */
-export function outsideBackgroundFar(plane: Plane, far: Uint8Array, farRuns: MaskRuns | null = null): { value: number; warning: string | null } {
-  const { median, count } = wholeNumberMedian(plane.data, far, farRuns) ?? maskedMedian(plane.data, far);
+export function outsideBackgroundFar(plane: Plane, far: Uint8Array, farRuns: MaskRuns | null = null, raw: RawPlane | null = null): { value: number; warning: string | null } {
+  const samples = raw?.data;
+  const counted = farRuns && (samples instanceof Uint16Array || samples instanceof Uint8Array) && samples.length === plane.data.length
+    ? sampleMedian(samples, farRuns) : null;
+  const { median, count } = counted ?? wholeNumberMedian(plane.data, far, farRuns) ?? maskedMedian(plane.data, far);
   if (count >= MIN_OUTSIDE_PX) return { value: median, warning: null };
   const all = Float64Array.from(plane.data).sort();
   return { value: sortedQuantile(all, 0.02), warning: 'too little background outside the embryo; the 2nd percentile of the image was used as background' };
@@ -61,7 +66,7 @@ export function regionMean(plane: Plane, region: { x: number; y: number; width: 
 
 /** Background of every channel by settings.mode, with warnings (a bad region gives 0 and a warning). */
 export function estimateBackgrounds(channels: readonly Plane[], names: readonly string[], mask: Mask, settings: BackgroundSettings, marginPx: number,
-  knownFar: FarPixels | null = null): { backgrounds: BackgroundEstimate[]; warnings: string[] } {
+  knownFar: FarPixels | null = null, rawPlanes: readonly RawPlane[] | null = null): { backgrounds: BackgroundEstimate[]; warnings: string[] } {
   const warnings: string[] = [];
   // knownFar: farPixels(mask, marginPx) already computed for this mask (a movie's time points share one mask).
   const far = settings.mode === 'outside' ? knownFar ?? { mask: farFromMask(mask, marginPx), runs: null } : null;
@@ -75,7 +80,8 @@ export function estimateBackgrounds(channels: readonly Plane[], names: readonly 
       }
       return { channel: names[c], method: 'region', value: v };
     }
-    const out = outsideBackgroundFar(plane, far!.mask, far!.runs);
+    // rawPlanes: the decoded samples the channels hold exactly (ProjectedStack.rawPlanes), when known.
+    const out = outsideBackgroundFar(plane, far!.mask, far!.runs, rawPlanes?.[c] ?? null);
     if (out.warning && c === 0) warnings.push(out.warning);
     return { channel: names[c], method: 'outside', value: out.value };
   });

@@ -109,6 +109,32 @@ describe('background', () => {
     const bg = outsideBackground({ width: w, height: w, data }, { width: w, height: w, data: m }, 2);
     expect(bg).toEqual({ value: 11, warning: null });
   });
+
+  it('gives the same value from the decoded 8/16-bit samples (rawPlanes) as from their floats, and the floats when raw does not fit', async () => {
+    const { estimateBackgrounds, farPixels } = await import('./background');
+    // Demo data: seeded 40×30 planes, a noisy background with bright pixels and ties around an elliptic mask; odd and
+    // even counts of far pixels come from the two margins.
+    let s = 7;
+    const rnd = () => { s = (Math.imul(s, 1664525) + 1013904223) >>> 0; return s / 4294967296; };
+    const w = 40, h = 30;
+    const mask = { width: w, height: h, data: Uint8Array.from({ length: w * h }, (_, i) => +(((i % w) - 20) ** 2 / 100 + (Math.floor(i / w) - 15) ** 2 / 36 < 1)) };
+    const u16 = Uint16Array.from({ length: w * h }, () => (rnd() < 0.1 ? 60_000 : 100 + Math.floor(rnd() * 9)));
+    const u8 = Uint8Array.from(u16, (v) => v & 0xff);
+    const raws = [{ width: w, height: h, data: u16 }, { width: w, height: h, data: u8 }];
+    const planes = raws.map((r) => ({ width: w, height: h, data: Float32Array.from(r.data) }));
+    const settings = { mode: 'outside' as const, regionPx: null };
+    for (const margin of [2, 3]) {
+      const far = farPixels(mask, margin);
+      const fromFloats = estimateBackgrounds(planes, ['a', 'b'], mask, settings, margin, far);
+      expect(estimateBackgrounds(planes, ['a', 'b'], mask, settings, margin, far, raws)).toEqual(fromFloats);
+      expect(estimateBackgrounds(planes, ['a', 'b'], mask, settings, margin)).toEqual(fromFloats);
+    }
+    // A raw plane of another length or type is not counted: the floats decide.
+    const shifted = planes.map((p) => ({ ...p, data: p.data.map((v) => v + 0.5) }));
+    const far = farPixels(mask, 2);
+    const wrong = [{ width: w, height: h, data: u16.subarray(1) }, { width: w, height: h, data: Float32Array.from(u8) }];
+    expect(estimateBackgrounds(shifted, ['a', 'b'], mask, settings, 2, far, wrong)).toEqual(estimateBackgrounds(shifted, ['a', 'b'], mask, settings, 2, far));
+  });
 });
 
 describe('estimateBackgrounds and setting checks', () => {

@@ -92,7 +92,7 @@ export function samplingBase(projected: ProjectedStack, detection: Detection, se
   const px = projected.pixelSizeUm;
   if (px === null) warnings.push('pixel size unknown: edge depth, strip width and background margin are taken as pixels');
   const mask = detection.mask;
-  const bg = estimateBackgrounds(projected.channels, projected.channelNames, mask, settings.background, backgroundMarginPx(px), known?.far ?? null);
+  const bg = estimateBackgrounds(projected.channels, projected.channelNames, mask, settings.background, backgroundMarginPx(px), known?.far ?? null, projected.rawPlanes ?? null);
   warnings.push(...bg.warnings);
   // Every sampled pixel lies within the mask's bounding box.
   const box = known ? known.box : foregroundBox(mask);

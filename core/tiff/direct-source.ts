@@ -126,12 +126,26 @@ export function chunkPlanReader(source: ByteSource, header: TiffHeader, fileLabe
   };
 }
 
-/** Reusable scratch space for one source: chunk output and one row for the floating-point predictor. */
-interface Scratch { chunk: Uint8Array; row: Uint8Array; busy?: boolean }
+/** Reusable scratch space for one decode: chunk output, one row for the floating-point predictor, and the plane's
+ *  compressed bytes when they are read in one piece. */
+interface Scratch { chunk: Uint8Array; row: Uint8Array; span: Uint8Array }
 
-function scratchBytes(scratch: Scratch, key: 'chunk' | 'row', n: number): Uint8Array {
+function newScratch(): Scratch {
+  return { chunk: new Uint8Array(0), row: new Uint8Array(0), span: new Uint8Array(0) };
+}
+
+function scratchBytes(scratch: Scratch, key: 'chunk' | 'row' | 'span', n: number): Uint8Array {
   if (scratch[key].length < n) scratch[key] = new Uint8Array(n);
   return scratch[key].subarray(0, n);
+}
+
+/** Scratch spaces of one source not in use: planes are read ahead, so two decodes may overlap, each with its own. */
+export type ScratchPool = Scratch[];
+
+/** The plane's array: `into` when it has the plan's sample type and the plane's length, else a new one. */
+function planeArray(plan: ChunkPlan, length: number, into: PixelArray | undefined): PixelArray {
+  if (into !== undefined && into.constructor === ARRAYS[plan.sampleType] && into.length === length) return into;
+  return new ARRAYS[plan.sampleType](new ArrayBuffer(length * plan.bytesPerSample));
 }
 
 /** Decoded size in bytes of chunk i (strips: a short last strip; tiles: always whole). */
@@ -140,31 +154,31 @@ function chunkRows(plan: ChunkPlan, heightPx: number, row: number): number {
 }
 
 /**
- * Decodes sample `sample` of IFD `plan.ifd` into a new typed array of widthPx × heightPx. Reads all of the plane's
- * chunks with one byte-range read when they lie close together. Throws Error with "strip 3: reason" on bad data.
+ * Decodes sample `sample` of IFD `plan.ifd` into a typed array of widthPx × heightPx: `into` when it is an array of
+ * the plan's sample type and that length (no new array; its old values are overwritten), else a new one. Reads all
+ * of the plane's chunks with one byte-range read when they lie close together (uncompressed strips straight into
+ * the plane). Scratch space comes from `pool` and goes back to it, so a source decoding plane after plane allocates
+ * nothing once its scratch has grown. Throws Error with "strip 3: reason" on bad data (`into` is then partly written).
  */
 export async function decodePlaneDirect(
   source: ByteSource, plan: ChunkPlan, widthPx: number, heightPx: number, sample: number, littleEndian: boolean,
-  codecs: ChunkCodecs, shared: Scratch = { chunk: new Uint8Array(0), row: new Uint8Array(0) },
+  codecs: ChunkCodecs, pool: ScratchPool = [], into?: PixelArray,
 ): Promise<PixelArray> {
-  // Planes are read ahead, so two decodes may overlap; the second gets scratch space of its own.
-  const scratch: Scratch = shared.busy ? { chunk: new Uint8Array(0), row: new Uint8Array(0) } : shared;
-  scratch.busy = true;
+  const scratch = pool.pop() ?? newScratch();
   try {
-    return await decodeInto(source, plan, widthPx, heightPx, sample, littleEndian, codecs, scratch);
+    return await decodeInto(source, plan, widthPx, heightPx, sample, littleEndian, codecs, scratch, planeArray(plan, widthPx * heightPx, into));
   } finally {
-    scratch.busy = false;
+    pool.push(scratch);
   }
 }
 
 async function decodeInto(
   source: ByteSource, plan: ChunkPlan, widthPx: number, heightPx: number, sample: number, littleEndian: boolean,
-  codecs: ChunkCodecs, scratch: Scratch,
+  codecs: ChunkCodecs, scratch: Scratch, out: PixelArray,
 ): Promise<PixelArray> {
   const decode = codecs[plan.compression];
   if (!decode) throw new Error(`no decoder for ${describeCompression(plan.compression, 1)}`);
   const bps = plan.bytesPerSample;
-  const out = new ARRAYS[plan.sampleType](new ArrayBuffer(widthPx * heightPx * bps));
   const perPlane = plan.chunksAcross * plan.chunksDown;
   const first = plan.planar ? sample * perPlane : 0;
   const kind = plan.tiled ? 'tile' : 'strip';
@@ -188,14 +202,14 @@ async function decodeInto(
   }
   if (simpleCopy && hi - lo === total && isPackedPlane(plan, heightPx, first, perPlane)) {
     // Uncompressed strips back to back: the file's bytes go straight into the plane.
-    const target = new Uint8Array(out.buffer);
+    const target = new Uint8Array(out.buffer, out.byteOffset, out.byteLength);
     const got = source.readInto ? await source.readInto(lo, target) : copyChunk(await source.read(lo, target.length), target);
     if (got < target.length) throw new Error(`strips hold ${got} bytes, the plane needs ${target.length}`);
     if (!littleEndian && bps > 1) swapBytesInPlace(target, bps);
     return out;
   }
-  const span = hi - lo <= 2 * total + 65536 ? await source.read(lo, hi - lo) : null;
-  const outBytes = new Uint8Array(out.buffer);
+  const span = hi - lo <= 2 * total + 65536 ? await readSpan(source, lo, hi - lo, scratch) : null;
+  const outBytes = new Uint8Array(out.buffer, out.byteOffset, out.byteLength);
   const chunkInput = async (i: number): Promise<Uint8Array> => {
     const input = span ? span.subarray(plan.offsets[i] - lo, plan.offsets[i] - lo + plan.byteCounts[i]) : await source.read(plan.offsets[i], plan.byteCounts[i]);
     if (input.length < plan.byteCounts[i]) throw new Error(`${kind} ${i} has ${input.length} of its ${plan.byteCounts[i]} bytes`);
@@ -228,6 +242,13 @@ async function decodeInto(
     }
   }
   return out;
+}
+
+/** length bytes from offset, read into the scratch's span array when the source can (no new array per plane). */
+async function readSpan(source: ByteSource, offset: number, length: number, scratch: Scratch): Promise<Uint8Array> {
+  if (!source.readInto) return source.read(offset, length);
+  const span = scratchBytes(scratch, 'span', length);
+  return span.subarray(0, await source.readInto(offset, span));
 }
 
 /** Runs one chunk's decoder; a failure becomes "strip 3: corrupt LZW stream (…)". */
@@ -332,9 +353,9 @@ export function createDirectPlaneSource(source: ByteSource, info: StackInfo, cod
   // planes costs one file read per block, not one per plane.
   const small = smallReadsThrough(source, tags);
   let planOf: ((ifd: Ifd) => Promise<ChunkPlan>) | null = null;
-  const scratch: Scratch = { chunk: new Uint8Array(0), row: new Uint8Array(0) };
+  const scratch: ScratchPool = [];
   return {
-    async readPlane(z: number, c: number, t: number): Promise<RawPlane> {
+    async readPlane(z: number, c: number, t: number, into?: PixelArray): Promise<RawPlane> {
       checkPlaneIndex(info, z, c, t);
       const ifd = info.planeIfd[planeSlot(info, z, c, t)];
       const what = `plane z=${z} c=${c} t=${t}`;
@@ -345,7 +366,7 @@ export function createDirectPlaneSource(source: ByteSource, info: StackInfo, cod
         throw new TiffError('decode', fileLabel, `cannot decode ${what}: IFD ${ifd} holds ${plan.samplesPerPixel} ${plan.sampleType} samples per pixel, IFD 0 ${info.samplesPerPixel} ${info.sampleType}`);
       }
       try {
-        const data = await decodePlaneDirect(small, plan, info.sizeX, info.sizeY, info.samplesPerPixel > 1 ? c : 0, header.littleEndian, codecs, scratch);
+        const data = await decodePlaneDirect(small, plan, info.sizeX, info.sizeY, info.samplesPerPixel > 1 ? c : 0, header.littleEndian, codecs, scratch, into);
         return { width: info.sizeX, height: info.sizeY, data };
       } catch (err) {
         if (err instanceof TiffError) throw err;

@@ -73,6 +73,35 @@ describe('TIFF fixtures decode pixel-identical to the known pattern', () => {
     }
   });
 
+  // Source: as above (files by tiffcp — uncompressed and Deflate, little- and big-endian (-B), strips and tiles —,
+  // gdal_translate, tifffile and our writer). One array per fixture is lent to every plane in turn, as a movie does.
+  it('on the direct path into a lent array: the same planes, in that array, whatever it held before', async () => {
+    for (const f of fixtures) {
+      const file = await openFileByteSource(f.path, f.name);
+      const info = await readStackInfoFromFile(f.path, f.name);
+      const direct = createDirectPlaneSource(file, info, APP_CHUNK_CODECS, f.name);
+      const expected0 = f.expected(0, 0, 0);
+      // A view 8 bytes into a larger buffer, so the decoder must respect the array's own offset.
+      const View = expected0.constructor as new (buffer: ArrayBuffer, byteOffset: number, length: number) => typeof expected0;
+      const lent = new View(new ArrayBuffer(8 + expected0.byteLength + 8), 8, expected0.length).fill(7);
+      for (const [z, c, t] of planesOf(f)) {
+        const plane = await direct.readPlane(z, c, t, lent);
+        expect(plane.data, `${f.name} z${z} c${c} t${t} decoded into the lent array`).toBe(lent);
+        expect(plane.data, `${f.name} (${f.writer}) z${z} c${c} t${t}`).toEqual(f.expected(z, c, t));
+      }
+      // An array of another type or length is not used: the plane comes in a new array, the lent one is untouched.
+      const other = expected0 instanceof Float64Array ? new Float32Array(expected0.length) : new Float64Array(expected0.length);
+      const short = new (expected0.constructor as new (n: number) => typeof expected0)(expected0.length - 1);
+      for (const wrong of [other, short]) {
+        const plane = await direct.readPlane(0, 0, 0, wrong);
+        expect(plane.data).not.toBe(wrong);
+        expect(plane.data, `${f.name} with a lent array that does not fit`).toEqual(f.expected(0, 0, 0));
+        expect(wrong.every((v) => v === 0), `${f.name}: the unfit array is left as it was`).toBe(true);
+      }
+      await direct.close();
+    }
+  });
+
   // Source: libtiff's LZMA decoder (tif_lzma.c, liblzma), run through tiffcp -c none.
   it.runIf(TIFFCP)('LZMA files decode as libtiff decodes them', async () => {
     const lzma = fixtures.filter((f) => f.name.includes('lzma'));
