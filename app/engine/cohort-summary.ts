@@ -6,6 +6,7 @@ import { analyseCohort, type CohortAnalysis, type ConditionStat } from '../../co
 import type { CohortConditionRow, CohortPositionalError, CohortSummary } from '../../core/contract';
 import { cohortFigures, type NamedFigure } from '../../core/figures';
 import { batchSettings, readSampleSheet } from '../cohort/run-cohort';
+import { dosageReading } from '../cohort/reading';
 import type { EmbryoResult } from '../../core/model';
 import { DEFAULT_COHORT_CHOICES, type CohortChoices } from '../cohort/cohort-choices';
 
@@ -70,6 +71,7 @@ export function summariseCohort(
     figures: figures.map((f) => ({ name: f.name, title: f.title, svg: f.svg })), warnings: [...backgroundNote(a), ...a.warnings],
     backgroundCondition: a.backgroundCondition?.condition ?? null, positionalError: positionalErrorRows(a),
     ...(a.backgroundChoice?.setAside ? { backgroundSetAside: a.backgroundChoice.setAside } : {}),
+    ...(a.reference !== null ? { reading: dosageReading(a) } : {}),
   };
 }
 

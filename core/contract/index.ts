@@ -141,6 +141,15 @@ export interface CohortSummary {
   /** With the background choice `none`: the condition the sheet's role column marks, left out of the comparison and
    *  not subtracted; absent or null: none. */
   readonly backgroundSetAside?: string | null;
+  /** The report's plain reading of the dosage test: per quantity its sentences, then the caveats that apply (the same
+   *  text as report.html's *Reading* and *Caveats*); absent in older summaries. */
+  readonly reading?: CohortReading;
+}
+
+/** The dosage test in words (see CohortSummary.reading). */
+export interface CohortReading {
+  readonly findings: readonly { readonly quantity: string; readonly label: string; readonly sentences: readonly string[] }[];
+  readonly caveats: readonly string[];
 }
 
 /** σx of one condition at the positions shown (x/EL, NaN where the slope is not resolved), with its interval. */

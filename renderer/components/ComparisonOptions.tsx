@@ -81,9 +81,9 @@ export function ComparisonOptions({ options, conditions, busy, onChange }: Compa
       </label>
       <label className="comparison-option">
         <span>Background condition</span>
-        <select data-testid="cohort-opt-background" value={options.backgroundCondition ?? ''} title="Null or secondary-only stainings: their mean profile is subtracted from every other embryo's, and λ and boundaries are fitted again; none: nothing is subtracted (a condition the sheet's role column marks stays out of the comparison)"
+        <select data-testid="cohort-opt-background" value={options.backgroundCondition ?? ''} title="From the sample sheet: the condition its role column marks background, else none. A condition of null or secondary-only stainings: its mean profile is subtracted from every other embryo's, and λ and boundaries are fitted again; none: nothing is subtracted (a condition the sheet's role column marks stays out of the comparison)"
           onChange={(e) => onChange(withOption(options, 'backgroundCondition', e.target.value))}>
-          <option value="">from the sample sheet's role column, else none (default)</option>
+          <option value="">from the sample sheet (default)</option>
           <option value={NO_BACKGROUND_CONDITION}>none: subtract nothing</option>
           {names.filter((n) => n !== options.reference && n !== NO_BACKGROUND_CONDITION).map((n) => <option key={n} value={n}>{n}</option>)}
         </select>

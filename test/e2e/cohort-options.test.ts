@@ -7,7 +7,7 @@ import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { cohortCommand } from '../../app/cli/cohort-command';
-import { valueWithCi } from '../../core/figures';
+import { escapeXml, valueWithCi } from '../../core/figures';
 import { ARTIFACTS, chooseBatchOutput, ensureRendererBuilt, startReadyHarness, testIdText } from './harness';
 import type { Harness } from './harness';
 
@@ -95,6 +95,14 @@ describe('comparison options in the Cohort tab', { timeout: 240_000 }, () => {
       expect(shiftCells[i][3]).toBe(signed(row.observed_shift_el, row.ci_low, row.ci_high));
       expect(shiftCells[i][4]).toBe(signed(row.predicted_shift_el, row.predicted_ci_low, row.predicted_ci_high));
     }
+
+    // The reading and its caveats under the dosage test are report.html's, word for word.
+    const caveats = await page.locator('[data-testid=cohort-caveats] li').allTextContents();
+    expect(caveats.length).toBeGreaterThan(1);
+    const report = await fs.readFile(join(cliOut, 'report.html'), 'utf8');
+    for (const c of caveats) expect(report).toContain(`<li>${escapeXml(c)}</li>`);
+    const firstFinding = await page.getByTestId('cohort-finding').first().locator('p').first().textContent();
+    expect(report).toContain(`<p>${escapeXml(firstFinding ?? '')}</p>`);
 
     // The choice is saved in the project (autosave), and `eggline cohort --project` over it writes the same table.
     const projectPath = join(dirname(sheet), 'eggline-project.json');
