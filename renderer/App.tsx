@@ -56,32 +56,26 @@ export function App() {
   const entry = session.entries.find((e) => e.name === state.current) ?? null;
   const { movie, analyse: analyseMovie, cancel: cancelMovie, options: movieOptions, setOptions: setMovieOptions } = useMovie(api);
   const movieView = movieViewOf(movie, entry?.name ?? null);
-  // The shown time point: one of the analysed movie's (picked on the Over time slider), else the settings' time index.
+  // The Over time tab shows the analysed time points only: there, a shown time point that was not analysed moves to
+  // the nearest analysed one (the Embryo view shows any time point).
   useEffect(() => {
     const t = state.shownTimeIndex;
-    if (movieView === null) dispatch({ type: 'showTimePoint', tIndex: state.doc.settings.timeIndex });
-    else if (!movieView.timeIndices.includes(t) && movieView.timeIndices.length > 0) dispatch({ type: 'showTimePoint', tIndex: movieView.timeIndices[0] });
-  }, [movieView, state.doc.settings.timeIndex, state.current]);
-  // The Embryo view loads the shown time point once the slider rests (not every frame while it plays).
-  // Only a file whose stack has time points is loaded at another one (a plain multi-page file read as frames through
-  // a time step is still one Z stack to loadStack).
+    if (tab !== 'time' || movieView === null || movieView.timeIndices.length === 0 || movieView.timeIndices.includes(t)) return;
+    const nearest = movieView.timeIndices.reduce((a, b) => (Math.abs(b - t) < Math.abs(a - t) ? b : a));
+    dispatch({ type: 'showTimePoint', tIndex: nearest });
+  }, [movieView, tab, state.shownTimeIndex]);
+  // The Embryo view loads the shown time point once it rests for a moment (not every frame while the movie plays or
+  // the slider is dragged; the app stops a load the window no longer wants), reading the file's time points as the
+  // batch does: with the file's time step a plain multi-page file is read as frames, and a movie's embryo is found once
+  // over time unless it is found at every time point.
   const restingT = useSettled(state.shownTimeIndex, 250);
-  const [timedPath, setTimedPath] = useState<string | null>(null);
-  const loadT = movieView === null || timedPath !== entry?.path ? state.doc.settings.timeIndex : restingT;
-  const loadSettings = useMemo(() => (loadT === state.doc.settings.timeIndex ? state.doc.settings : { ...state.doc.settings, timeIndex: loadT }), [state.doc.settings, loadT]);
-  const load = useStackLoader(api, entry?.path ?? null, loadSettings);
-  // The movie's embryo (found once over time, as the batch measures every time point in it) while the settings are
-  // those it was found with; a movie analysed at every time point uses each time point's own, as loadStack finds it.
-  const movieDetection = movieView !== null && movie.settings === JSON.stringify(state.doc.settings) ? movieView.detection : null;
+  const storedTimeStepS = (entry === null ? undefined : state.doc.files[entry.name]?.timeStepS) ?? null;
+  const loadTime = useMemo(() => ({ timeStepS: storedTimeStepS, axisPerTime: movieOptions.axisPerTime }), [storedTimeStepS, movieOptions.axisPerTime]);
+  const loadSettings = useMemo(() => (restingT === state.doc.settings.timeIndex ? state.doc.settings : { ...state.doc.settings, timeIndex: restingT }), [state.doc.settings, restingT]);
+  const load = useStackLoader(api, entry?.path ?? null, loadSettings, loadTime);
   // Until the shown file's stack arrives, show nothing rather than its edits over the previous image.
-  const stack = useMemo(() => {
-    const s = load.stack !== null && load.stack.path === entry?.path ? load.stack : null;
-    if (s === null || movieDetection === null || s.info.sizeT <= 1) return s;
-    const c = s.projected.channels[0];
-    return c !== undefined && c.width === movieDetection.mask.width && c.height === movieDetection.mask.height ? { ...s, detection: movieDetection } : s;
-  }, [load.stack, entry?.path, movieDetection]);
+  const stack = load.stack !== null && load.stack.path === entry?.path ? load.stack : null;
   const isMovie = stack !== null && stack.info.sizeT > 1;
-  useEffect(() => { if (stack !== null) setTimedPath(isMovie ? stack.path : null); }, [stack?.path, isMovie]);
   const { loading, error: loadError } = load;
   // The first picture while the stack loads: one raw slice, replaced by the projection when the stack arrives.
   const preview = stack === null && load.preview !== null && load.preview.path === entry?.path ? load.preview.plane : null;
@@ -91,11 +85,10 @@ export function App() {
   // The project's last batch comes back with the project (results.json in the output folder it records), compared with
   // the project's cohort options.
   useEffect(() => { void restore(session.batchOutDir, session.folder, state.doc.cohort ?? null); }, [session.projectPath, session.folder]);
-  // A comparison option: saved in the project (autosave) and the cohort recomputed with it in the main process.
-  const setCohortOptions = (cohort: ProjectCohortOptions) => {
-    dispatch({ type: 'setCohortOptions', cohort });
-    void recomputeCohort(session.folder, cohort);
-  };
+  // A comparison option: an undoable project edit, saved (autosave); after it, or its undo or redo, the cohort is
+  // recomputed with the options then in force, in the main process.
+  const setCohortOptions = (cohort: ProjectCohortOptions) => dispatch({ type: 'setCohortOptions', cohort });
+  useEffect(() => { if (state.cohortRevision > 0) void recomputeCohort(session.folder, state.doc.cohort ?? {}); }, [state.cohortRevision]);
   // A finished batch's output folder is written into the project at once, so its results reopen after a restart.
   const [outDirSaves, setOutDirSaves] = useState(0);
   useEffect(() => { if (outDirSaves > 0) void saveNow(); }, [outDirSaves]);
@@ -242,7 +235,7 @@ export function App() {
         <aside className="left">
           <FolderList folder={session.folder} entries={session.entries} current={state.current} onSelect={select} status={statusOf}
             handEdited={(n) => { const f = state.doc.files[n]; return f !== undefined && (f.axis !== null || f.landmarks.length > 0 || f.fitRangeEl !== null || f.timePoints !== undefined); }} />
-          <SettingsPanel settings={settings} channelNames={names} dispatch={dispatch} />
+          <SettingsPanel settings={settings} channelNames={names} dispatch={dispatch} shownTimeIndex={state.shownTimeIndex} />
         </aside>
         <main className="centre" ref={centre}>
           <EmbryoView hidden={tab !== 'embryo'} state={state} dispatch={dispatch} planes={planes} channelNames={names} outline={stack?.detection.outline ?? []} axis={axis}
@@ -260,7 +253,7 @@ export function App() {
             options={{ options: state.doc.cohort ?? {}, conditions: batch.sheetConditions, busy: batch.recomputing, onChange: setCohortOptions }} />}
         </main>
         <aside className="right">
-          {isMovie && stack !== null && <TimePointPanel tIndex={state.shownTimeIndex} sizeT={movieView?.sizeT ?? stack.info.sizeT}
+          {isMovie && stack !== null && <TimePointPanel tIndex={state.shownTimeIndex} sizeT={stack.info.sizeT}
             timeText={shownTimeText(movieView, stack.info, state.shownTimeIndex)} analysed={movieView?.timeIndices ?? []} loading={embryoLoading}
             scope={state.editScope} own={timePointEdits(state)} dispatch={dispatch} />}
           <FitNumbers m={measurement} pixelSizeUm={pixelSizeUm} loading={loading || session.opening} axisSource={axis?.source ?? null}

@@ -13,6 +13,8 @@ export interface CohortStepOptions {
   readonly reference: string | null;
   /** The condition subtracted as background (see runCohortStep); null or absent: from the sheet's role column. */
   readonly backgroundCondition?: string | null;
+  /** Who gave backgroundCondition (see runCohortStep). */
+  readonly backgroundConditionNamedBy?: string;
   /** Profile normalisation, opposing gradient's λ and equivalence margin (see runCohortStep); absent: the defaults. */
   readonly normalisation?: Normalisation;
   readonly lambdaPosteriorEl?: number | null;

@@ -1,12 +1,13 @@
 // Reading the correction images once per process, and again when one is replaced under the same name (a long-lived
 // process such as the window's must not keep an image the user has since changed). Demo data: flat 8×8 planes.
-import { mkdtempSync, rmSync, writeFileSync, utimesSync } from 'node:fs';
+import { createHash } from 'node:crypto';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync, utimesSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { writePlainTiff } from '../../core/tiff';
 import { DEFAULT_SETTINGS } from '../../core/settings';
-import { loadImageCorrections } from './correction-images';
+import { correctionRecord, loadImageCorrections } from './correction-images';
 
 const dir = mkdtempSync(join(tmpdir(), 'eggline-corrections-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -41,5 +42,32 @@ describe('loadImageCorrections', () => {
     writeFileSync(join(dir, 'flat.tif'), image(7));
     const loaded = await loadImageCorrections(s, dir);
     expect(loaded?.flat?.channels[0][0]).toBe(1);
+  });
+});
+
+describe('correctionRecord', () => {
+  it("gives each image's SHA-256 from the one read that decoded it", async () => {
+    const s = { ...DEFAULT_SETTINGS, flatFieldFile: 'flat-2.tif', backgroundImageFile: 'dark-2.tif' };
+    const flatPath = join(dir, 'flat-2.tif');
+    const darkPath = join(dir, 'dark-2.tif');
+    // Two planes each, so the decoder reads several separate byte ranges of the file.
+    writeFileSync(flatPath, writePlainTiff([{ width: 8, height: 8, data: new Uint16Array(64).fill(9) }, { width: 8, height: 8, data: new Uint16Array(64).fill(11) }]));
+    writeFileSync(darkPath, writePlainTiff([{ width: 8, height: 8, data: new Uint16Array(64).fill(3) }, { width: 8, height: 8, data: new Uint16Array(64).fill(5) }]));
+    utimesSync(flatPath, 3_000, 3_000);
+    utimesSync(darkPath, 3_000, 3_000);
+    // Source: SHA-256 of the whole file by node:crypto (OpenSSL's FIPS 180-4 implementation), independent of the decoder.
+    const sha = (p: string): string => createHash('sha256').update(readFileSync(p)).digest('hex');
+    const expected = { flatField: { file: flatPath, sha256: sha(flatPath) }, backgroundImage: { file: darkPath, sha256: sha(darkPath) } };
+    await loadImageCorrections(s, dir);
+    expect(await correctionRecord(s, dir)).toEqual(expected);
+    // Other bytes under the same size and modification time: the record still gives the digest of the bytes that were
+    // decoded, so the images were not read a second time to hash them.
+    writeFileSync(darkPath, Buffer.alloc(readFileSync(darkPath).length, 1));
+    utimesSync(darkPath, 3_000, 3_000);
+    expect(await correctionRecord(s, dir)).toEqual(expected);
+  });
+
+  it('gives null entries when the settings name no image', async () => {
+    expect(await correctionRecord(DEFAULT_SETTINGS, dir)).toEqual({ flatField: null, backgroundImage: null });
   });
 });

@@ -26,6 +26,8 @@ export interface MergePartsOptions {
   readonly commandLine?: readonly string[];
   readonly cohort?: {
     readonly sampleSheetPath: string; readonly reference: string | null; readonly backgroundCondition?: string | null;
+    /** Who gave backgroundCondition (the record says it); absent: --background-condition. */
+    readonly backgroundConditionNamedBy?: string;
     /** The cohort step's other options (see runCohortStep); absent: its defaults. */
     readonly normalisation?: Normalisation; readonly lambdaPosteriorEl?: number | null; readonly equivalenceMargin?: number | null;
   } | null;
@@ -154,7 +156,8 @@ export async function mergeParts(opts: MergePartsOptions): Promise<MergePartsRes
   if (opts.cohort) {
     const failures = results.filter((r) => r.status === 'error').map((r) => ({ file: r.file, error: r.error ?? 'error' }));
     const step = await runCohort({
-      results: embryoResults(results), failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, backgroundCondition: opts.cohort.backgroundCondition ?? null, outDir: opts.outDir, runRecord: record,
+      results: embryoResults(results), failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, backgroundCondition: opts.cohort.backgroundCondition ?? null,
+      ...(opts.cohort.backgroundConditionNamedBy !== undefined ? { backgroundConditionNamedBy: opts.cohort.backgroundConditionNamedBy } : {}), outDir: opts.outDir, runRecord: record,
       normalisation: opts.cohort.normalisation, lambdaPosteriorEl: opts.cohort.lambdaPosteriorEl ?? null, equivalenceMargin: opts.cohort.equivalenceMargin ?? null,
       movies: timelapse.movies, movieFailures: timelapse.failures,
     });

@@ -61,6 +61,8 @@ export interface RunBatchOptions {
   /** Run the cohort step afterwards with this sample sheet. */
   readonly cohort?: {
     readonly sampleSheetPath: string; readonly reference: string | null; readonly backgroundCondition?: string | null;
+    /** Who gave backgroundCondition (the record says it); absent: --background-condition. */
+    readonly backgroundConditionNamedBy?: string;
     /** The cohort step's other options (see runCohortStep); absent: its defaults. */
     readonly normalisation?: Normalisation; readonly lambdaPosteriorEl?: number | null; readonly equivalenceMargin?: number | null;
   } | null;
@@ -365,7 +367,8 @@ async function runListed(opts: RunBatchOptions, listed: ListedRun): Promise<Batc
     const failures = finished.filter((r) => r.status === 'error').map((r) => ({ file: r.file, error: r.error ?? 'error' }));
     const { runCohort } = await import('./cohort-adapter');
     const step = await runCohort({
-      results: embryoResults(keyed), failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, backgroundCondition: opts.cohort.backgroundCondition ?? null, outDir, runRecord: final,
+      results: embryoResults(keyed), failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, backgroundCondition: opts.cohort.backgroundCondition ?? null,
+      ...(opts.cohort.backgroundConditionNamedBy !== undefined ? { backgroundConditionNamedBy: opts.cohort.backgroundConditionNamedBy } : {}), outDir, runRecord: final,
       normalisation: opts.cohort.normalisation, lambdaPosteriorEl: opts.cohort.lambdaPosteriorEl ?? null, equivalenceMargin: opts.cohort.equivalenceMargin ?? null,
       movies: timelapse.movies, movieFailures: timelapse.failures,
     });

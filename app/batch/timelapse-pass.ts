@@ -14,7 +14,7 @@ import {
 import { analyseMovie } from '../../core/pipeline';
 import { inputFolderOf, loadImageCorrections } from './correction-images';
 import { settingsInForce, type AnalysisSettings } from '../../core/settings';
-import { pagesAsTimePoints, resolveTimeAxis } from '../../core/tiff';
+import { pagesAsTimePointsWithSource, resolveTimeAxis } from '../../core/tiff';
 import {
   ACCUMULATION_COLUMNS, accumulationRows, MODEL_FIT_COLUMNS, modelFitRow, parseTimeSelection, selectTimeIndices, summarizeMovie,
 } from '../../core/timelapse';
@@ -45,9 +45,10 @@ export function fileTimelapseOptions(doc: ProjectDoc | null, file: string, optio
   };
 }
 
-/** The movie's StackInfo for the time pass: plain multi-page files become frames when the user gives a time step. */
-function asMovie(info: StackInfo, timeStepS: number | null): StackInfo {
-  return timeStepS !== null && info.sizeT === 1 && !info.isOme ? pagesAsTimePoints(info) : info;
+/** The movie's StackInfo and plane source for the time pass: plain multi-page files become frames when the user
+ *  gives a time step. */
+export function asMovie(opened: { info: StackInfo; source: PlaneSource }, timeStepS: number | null): { info: StackInfo; source: PlaneSource } {
+  return timeStepS !== null && opened.info.sizeT === 1 && !opened.info.isOme ? pagesAsTimePointsWithSource(opened.info, opened.source) : opened;
 }
 
 /** One movie as analysed: its record (what results.json keeps) and its results per time point, in time order. */
@@ -85,7 +86,7 @@ async function analyseOpenedMovie(
   runOptions: TimelapseOptions, hooks: MovieHooks, baseDir: string,
 ): Promise<MovieRun | null> {
   const options = fileTimelapseOptions(doc, file, runOptions);
-  const info = asMovie(opened.info, options.timeStepS);
+  const { info, source } = asMovie(opened, options.timeStepS);
   if (info.sizeT <= 1) return null;
   hooks.onInfo?.(info);
   const picked = selectTimeIndices(options.selection, info.sizeT);
@@ -94,7 +95,7 @@ async function analyseOpenedMovie(
   const axis = resolveTimeAxis(info, options.timeStepS, warnings);
   const own = editsAt(doc, file, settings, null);
   const corrections = await loadImageCorrections(settings, baseDir);
-  const m = await analyseMovie(info, opened.source, own.settings, {
+  const m = await analyseMovie(info, source, own.settings, {
     corrections,
     fileLabel: file, handEdits: own.handEdits, editsAt: (t) => editsAt(doc, file, settings, t),
     timeIndices: picked, axisPerTime: options.axisPerTime, ...hooks,

@@ -10,7 +10,7 @@ import {
   DEMO_MOVIE_FILE, DEMO_MOVIE_PARAMS, DEMO_MOVIE_SEED, demoDataSet, makeSyntheticEmbryo, movieFrame, planSyntheticMovie, type DemoItem,
   type SyntheticMovieParams,
 } from '../../core/synth';
-import { writeOmeTiff } from '../../core/tiff';
+import { writeOmeTiff, writePlainTiff } from '../../core/tiff';
 import { demoFilesInWorkers } from './demo-in-workers';
 import { newProject, PROJECT_FILE_NAME, saveProject, writeFileAtomic } from '../project';
 
@@ -86,6 +86,23 @@ export function demoMovieFile(params: SyntheticMovieParams = DEMO_MOVIE_PARAMS):
     sizeZ: movie.embryo.sizeZ, sizeC: names.length, sizeT: movie.timesS.length, dimensionOrder: 'XYZCT', channelNames: names,
     physicalSizeXUm: pixelSizeUm, physicalSizeZUm: movie.embryo.zStepUm, compression: 'deflate', timeIncrementS: params.frameIntervalS,
   });
+}
+
+/**
+ * The demo movie as a plain multi-page TIFF (no OME-XML, no times): one page per frame, the gradient channel's middle
+ * slice, the pixel size in the resolution tags. Read as frames only with a time step (`--time-step`), as such
+ * exports are; for tests of that path.
+ */
+export function demoMoviePlainPages(params: SyntheticMovieParams = DEMO_MOVIE_PARAMS): Uint8Array {
+  const movie = planSyntheticMovie(params, DEMO_MOVIE_SEED);
+  let pixelSizeUm = 1;
+  const pages = Array.from(movie.timesS, (_, t) => {
+    const frame = movieFrame(movie, t);
+    const { sizeX, sizeY, sizeZ, planes } = frame.stack;
+    pixelSizeUm = frame.pixelSizeUm;
+    return { width: sizeX, height: sizeY, data: planes[Math.floor(sizeZ / 2)] };
+  });
+  return writePlainTiff(pages, { pixelSizeUm });
 }
 
 /** Options of writeDemoDataSet. */

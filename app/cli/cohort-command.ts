@@ -37,8 +37,9 @@ Options:
   --background-condition COND a condition of null or secondary-only stainings: its mean profile
                               (after each embryo's own background) is subtracted from every other
                               embryo's, whose λ and boundaries are then fitted again; it is not
-                              compared. Default: the condition whose rows say "background" in a
-                              role column of the sheet, else none
+                              compared. "none": subtract nothing (rows the role column marks
+                              stay out of the comparison). Default: the condition whose rows say
+                              "background" in a role column of the sheet, else none
   --normalise MODE            scale-offset | none | amplitude | minmax: profile scaling before
                               averaging (scale-offset: each profile fitted onto the mean)  [scale-offset]
   --lambda-posterior-el V     decay length of an opposing posterior gradient (x/EL), adds the
@@ -152,11 +153,14 @@ export async function cohortCommand(argv: readonly string[], io: CohortCommandIo
     const timelapseHtml = timelapseReportSection(movies.map((movie) => ({ movie, figures: movieFigures(movie) })), movieFailures);
     const out = await runCohortStep({
       results: doc.results, failures: [], timelapseHtml, sampleSheetPath: plan.samples, reference: choices.reference, outDir: plan.outDir, runRecord,
-      normalisation: choices.normalisation, lambdaPosteriorEl: choices.lambdaPosteriorEl, equivalenceMargin: choices.equivalenceMargin, backgroundCondition: choices.backgroundCondition, ...(plan.rule ? { filenameRule: plan.rule } : {}),
+      normalisation: choices.normalisation, lambdaPosteriorEl: choices.lambdaPosteriorEl, equivalenceMargin: choices.equivalenceMargin, backgroundCondition: choices.backgroundCondition,
+      backgroundConditionNamedBy: choices.backgroundConditionNamedBy, ...(plan.rule ? { filenameRule: plan.rule } : {}),
     });
     for (const w of out.warnings) io.stderr.write(`warning: ${w}\n`);
     const bg = out.analysis.backgroundCondition;
     if (bg) io.stdout.write(`background condition "${bg.condition}" (${bg.files.length} embryo${bg.files.length === 1 ? '' : 's'}) subtracted; λ and boundaries fitted again (background_refit.csv)\n`);
+    const choice = out.analysis.backgroundChoice;
+    if (choice?.rule === 'none') io.stdout.write(`no background condition: ${choice.why} (background_condition.json)\n`);
     io.stdout.write(`wrote ${out.written.length} files to ${plan.outDir} (open report.html)\n`);
     return 0;
   } catch (e) {

@@ -13,6 +13,8 @@ const root = mkdtempSync(join(tmpdir(), 'eggline-cohort-opts-'));
 const input = join(root, 'in');
 mkdirSync(input);
 const kept = { reference: 'half', backgroundCondition: 'null-stain', normalisation: 'minmax', equivalenceMargin: 0.25, lambdaPosteriorEl: 0.12 } as const;
+// The resolved choices also say who gave the background condition (the record names it).
+const fromKept = { ...kept, backgroundConditionNamedBy: "the project's cohort.backgroundCondition" };
 const projectPath = join(root, 'kept.eggline.json');
 writeFileSync(projectPath, JSON.stringify({ schema: 'eggline-project', version: 2, folder: '.', settings: {}, files: {}, cohort: kept }));
 const samples = join(root, 'samples.csv');
@@ -28,14 +30,14 @@ const plan = (argv: string[]) => {
 describe('cohort options: flag over project over default', () => {
   it('takes each default when neither a flag nor the project sets it', () => {
     expect(cohortChoices(undefined)).toEqual(DEFAULT_COHORT_CHOICES);
-    expect(DEFAULT_COHORT_CHOICES).toEqual({ reference: null, backgroundCondition: null, normalisation: 'scale-offset', lambdaPosteriorEl: null, equivalenceMargin: null });
+    expect(DEFAULT_COHORT_CHOICES).toEqual({ reference: null, backgroundCondition: null, backgroundConditionNamedBy: '--background-condition', normalisation: 'scale-offset', lambdaPosteriorEl: null, equivalenceMargin: null });
     expect(cohortChoices({ normalisation: 'none' }, { reference: 'wt' })).toEqual({ ...DEFAULT_COHORT_CHOICES, normalisation: 'none', reference: 'wt' });
   });
 
   it('eggline cohort --project: the project\'s options, each flag over its own', async () => {
-    expect((await planChoices(plan(['res', '--samples', samples, '--project', projectPath]))).choices).toEqual(kept);
+    expect((await planChoices(plan(['res', '--samples', samples, '--project', projectPath]))).choices).toEqual(fromKept);
     const flagged = await planChoices(plan(['res', '--samples', samples, '--project', projectPath, '--reference', 'wt', '--normalise', 'amplitude', '--equivalence-margin', '0.1']));
-    expect(flagged.choices).toEqual({ ...kept, reference: 'wt', normalisation: 'amplitude', equivalenceMargin: 0.1 });
+    expect(flagged.choices).toEqual({ ...fromKept, reference: 'wt', normalisation: 'amplitude', equivalenceMargin: 0.1 });
     expect((await planChoices(plan(['res', '--samples', samples]))).choices).toEqual(DEFAULT_COHORT_CHOICES);
   });
 
@@ -47,9 +49,14 @@ describe('cohort options: flag over project over default', () => {
 
   it('eggline batch --project P --samples S: the project\'s options, --reference and --background-condition over them', async () => {
     const fromProject = await planBatch([input, '--out', join(root, 'o'), '--project', projectPath, '--samples', samples]);
-    expect(fromProject !== 'help' && fromProject.cohort).toEqual(kept);
+    expect(fromProject !== 'help' && fromProject.cohort).toEqual(fromKept);
     const flagged = await planBatch([input, '--out', join(root, 'o'), '--project', projectPath, '--samples', samples, '--reference', 'wt', '--background-condition', 'other']);
-    expect(flagged !== 'help' && flagged.cohort).toEqual({ ...kept, reference: 'wt', backgroundCondition: 'other' });
+    expect(flagged !== 'help' && flagged.cohort).toEqual({ ...kept, reference: 'wt', backgroundCondition: 'other', backgroundConditionNamedBy: '--background-condition' });
+    // "none" is a value like a name: from the flag over the project's name, or from the project itself.
+    const noneFlag = await planBatch([input, '--out', join(root, 'o'), '--project', projectPath, '--samples', samples, '--background-condition', 'none']);
+    expect(noneFlag !== 'help' && noneFlag.cohort).toMatchObject({ backgroundCondition: 'none', backgroundConditionNamedBy: '--background-condition' });
+    expect(cohortChoices({ backgroundCondition: 'none' })).toMatchObject({ backgroundCondition: 'none', backgroundConditionNamedBy: "the project's cohort.backgroundCondition" });
+    expect(cohortChoices({ backgroundCondition: 'none' }, { backgroundCondition: 'null-stain' })).toMatchObject({ backgroundCondition: 'null-stain', backgroundConditionNamedBy: '--background-condition' });
     const none = await planBatch([input, '--out', join(root, 'o'), '--no-project', '--samples', samples]);
     expect(none !== 'help' && none.cohort).toEqual(DEFAULT_COHORT_CHOICES);
   });
@@ -57,7 +64,7 @@ describe('cohort options: flag over project over default', () => {
   it('eggline batch: --normalise, --lambda-posterior-el and --equivalence-margin over the project, with eggline cohort\'s rules', async () => {
     const flagged = await planBatch([input, '--out', join(root, 'o'), '--project', projectPath, '--samples', samples,
       '--normalise', 'none', '--lambda-posterior-el', '0.2', '--equivalence-margin', '0.3']);
-    expect(flagged !== 'help' && flagged.cohort).toEqual({ ...kept, normalisation: 'none', lambdaPosteriorEl: 0.2, equivalenceMargin: 0.3 });
+    expect(flagged !== 'help' && flagged.cohort).toEqual({ ...fromKept, normalisation: 'none', lambdaPosteriorEl: 0.2, equivalenceMargin: 0.3 });
     await expect(planBatch([input, '--out', join(root, 'o'), '--samples', samples, '--equivalence-margin', '-1']))
       .rejects.toThrow('--equivalence-margin must be a number between 0 and 1 (got "-1")');
     await expect(planBatch([input, '--out', join(root, 'o'), '--samples', samples, '--normalise', 'z']))

@@ -76,7 +76,8 @@ ${settingsHelp()}
   --reference COND            reference condition for the cohort step (needs --samples)
   --background-condition COND the sheet's condition of null or secondary-only stainings, subtracted
                               from every other embryo's profile before λ and boundaries are fitted
-                              again in the cohort step (needs --samples; see eggline cohort --help)
+                              again in the cohort step (needs --samples; see eggline cohort --help);
+                              "none" subtracts nothing even when the sheet's role column marks one
   --normalise MODE, --lambda-posterior-el V, --equivalence-margin M
                               the cohort step's profile normalisation, opposing gradient's decay
                               length and equivalence margin, as in eggline cohort (need --samples)
@@ -131,7 +132,8 @@ Options:
   --reference COND            reference condition for the cohort step (needs --samples)
   --background-condition COND the sheet's condition of null or secondary-only stainings, subtracted
                               from every other embryo's profile before λ and boundaries are fitted
-                              again in the cohort step (needs --samples; see eggline cohort --help)
+                              again in the cohort step (needs --samples; see eggline cohort --help);
+                              "none" subtracts nothing even when the sheet's role column marks one
   --normalise MODE, --lambda-posterior-el V, --equivalence-margin M
                               the cohort step's other options, as in eggline cohort (need --samples)
   --allow-missing             merge the parts that are there; run.json lists the files without a row

@@ -3,33 +3,43 @@
 import type { Normalisation } from '../../core/cohort';
 import type { ProjectCohortOptions } from '../../core/settings';
 
-/** The five options a project can keep, resolved. */
+/** The five options a project can keep, resolved, and who gave the background condition. */
 export interface CohortChoices {
   readonly reference: string | null;
+  /** A condition's name, `none` (NO_BACKGROUND_CONDITION: subtract nothing), or null (the sheet's role column). */
   readonly backgroundCondition: string | null;
+  /** Who gave backgroundCondition, as the cohort's record names it (the flag, or the project's entry). */
+  readonly backgroundConditionNamedBy: string;
   readonly normalisation: Normalisation;
   readonly lambdaPosteriorEl: number | null;
   readonly equivalenceMargin: number | null;
 }
 
+/** Who gave the background condition: the flag of `eggline cohort`, `batch` and `merge`, or the project's entry (where the
+ *  window's comparison options are saved). */
+export const BACKGROUND_FLAG = '--background-condition';
+export const BACKGROUND_PROJECT_FIELD = "the project's cohort.backgroundCondition";
+
 /** The defaults (as `eggline cohort` with no option): reference with dosage 1, the sheet's role column, scale-offset. */
 export const DEFAULT_COHORT_CHOICES: CohortChoices = {
-  reference: null, backgroundCondition: null, normalisation: 'scale-offset', lambdaPosteriorEl: null, equivalenceMargin: null,
+  reference: null, backgroundCondition: null, backgroundConditionNamedBy: BACKGROUND_FLAG, normalisation: 'scale-offset', lambdaPosteriorEl: null, equivalenceMargin: null,
 };
 
 /** Options given as flags; undefined: not given. */
-export type CohortFlags = { readonly [K in keyof CohortChoices]?: CohortChoices[K] | undefined };
+export type CohortFlags = { readonly [K in Exclude<keyof CohortChoices, 'backgroundConditionNamedBy'>]?: CohortChoices[K] | undefined };
 
 /** Flag over project over default, per option. */
 export function cohortChoices(project: ProjectCohortOptions | null | undefined, flags: CohortFlags = {}): CohortChoices {
-  const pick = <K extends keyof CohortChoices>(key: K): CohortChoices[K] => {
+  const pick = <K extends keyof CohortFlags>(key: K): CohortChoices[K] => {
     const flag = flags[key];
     if (flag !== undefined) return flag as CohortChoices[K];
     const kept = project?.[key];
     return kept !== undefined ? kept as CohortChoices[K] : DEFAULT_COHORT_CHOICES[key];
   };
   return {
-    reference: pick('reference'), backgroundCondition: pick('backgroundCondition'), normalisation: pick('normalisation'),
+    reference: pick('reference'), backgroundCondition: pick('backgroundCondition'),
+    backgroundConditionNamedBy: flags.backgroundCondition === undefined && project?.backgroundCondition !== undefined ? BACKGROUND_PROJECT_FIELD : BACKGROUND_FLAG,
+    normalisation: pick('normalisation'),
     lambdaPosteriorEl: pick('lambdaPosteriorEl'), equivalenceMargin: pick('equivalenceMargin'),
   };
 }

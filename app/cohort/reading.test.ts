@@ -58,6 +58,18 @@ describe('dosageReading', () => {
     expect(rc.some((x) => x.startsWith('λ was fitted over different x/EL ranges: 0.1–0.3 in 10 embryos, 0.1–0.6 in 5 embryos'))).toBe(true);
     expect(rc.some((x) => /^The boundary in ‘target’ \(logistic\) sits at 0\.\d+ x\/EL in the reference, outside the λ fit range 0\.1–0\.3/.test(x))).toBe(true);
   });
+  it('names imprecise λ fits, positions not found in every embryo and a median far from the mean, only when they occur', () => {
+    // Source: demo data; the counts below are set by hand on the analysis's reliability rows.
+    expect(caveats(a).some((x) => x.startsWith('Imprecise λ fits'))).toBe(false);
+    const rel = a.reliability[0];
+    const q = Object.keys(rel.detected)[0];
+    const flagged: CohortAnalysis = { ...a, reliability: [{ ...rel, lambdaImprecise: 2, detected: { ...rel.detected, [q]: rel.embryos - 1 }, lambdaFitted: 6, lambdaMeanEl: 0.2, lambdaMedianEl: 0.22 }, ...a.reliability.slice(1)] };
+    const c = caveats(flagged);
+    expect(c).toContain('Imprecise λ fits (SE above 25% of λ): 2 of 6 in ref. They enter the means unweighted; check them in the per-embryo table.');
+    expect(c.some((x) => x.startsWith('Not every position was found: ') && x.includes(`in ${rel.embryos - 1} of ${rel.embryos} embryos of ref`))).toBe(true);
+    expect(c.some((x) => x.startsWith('The median λ differs from the mean by more than 5% in ref (median 0.220, mean 0.200 x/EL)'))).toBe(true);
+  });
+
   it("Fieller's g does not depend on f", () => {
     // Source: g = t²·(SE/λ)² (Fieller 1954; from memory) — t(0.975, 5) = 2.570582 (t table, from memory), CV = 0.1.
     expect(fiellerG({ condition: 'r', n: 6, lambdaEl: 0.2, seEl: 0.02, ciLowEl: 0, ciHighEl: 0, dof: 5 }, 0.95)).toBeCloseTo(2.570582 ** 2 * 0.01, 6);

@@ -78,7 +78,8 @@ function summarySection(r: ReportInput): string {
     dosage += `<p class="note">λ_ref: mean λ of the reference condition; the threshold model predicts slope = λ_ref, i.e. a ratio of 1. The ratio interval counts both uncertainties; "not rejected" does not mean "confirmed" (details and caveats under <a href="#dosage">Dosage test</a>).</p>`;
   }
   const bg = a.backgroundCondition;
-  const subtracted = bg ? `<p><strong>Background condition subtracted:</strong> every λ, amplitude and boundary position in this report is refitted after subtracting the mean profile of <strong>${esc(bg.condition)}</strong> (${bg.files.length} embryo${bg.files.length === 1 ? '' : 's'}, not compared as a condition); see <a href="#background">Background condition</a>.</p>` : '';
+  const none = a.backgroundChoice?.rule === 'none' ? `<p><strong>No background condition subtracted:</strong> ${esc(a.backgroundChoice.why)}; see <a href="#background">Background condition</a>.</p>` : '';
+  const subtracted = none !== '' ? none : bg ? `<p><strong>Background condition subtracted:</strong> every λ, amplitude and boundary position in this report is refitted after subtracting the mean profile of <strong>${esc(bg.condition)}</strong> (${bg.files.length} embryo${bg.files.length === 1 ? '' : 's'}, not compared as a condition); see <a href="#background">Background condition</a>.</p>` : '';
   const warnings = r.warnings.length ? `<h3 class="warn">Warnings (${r.warnings.length})</h3><ul>${r.warnings.map((w) => `<li class="warn">${esc(w)}</li>`).join('')}</ul>` : '';
   return `<section class="summary" id="summary"><h2>Summary</h2>${files}${subtracted}${conds}${dosage}${warnings}</section>`;
 }
@@ -91,6 +92,7 @@ function settingsSection(a: CohortAnalysis, sheetSource: string, runRecord: unkn
     ['profile normalisation', o.normalisation], ['posterior gradient λ_P (x/EL)', o.lambdaPosteriorEl === null ? 'not given' : String(o.lambdaPosteriorEl)],
     ['confidence level', String(o.level)], ['profile grid step (x/EL)', String(o.gridStepEl)], ['slope half-window h (x/EL)', String(o.slopeHalfWidthEl)],
     ...(a.backgroundCondition ? [['background condition (subtracted, refitted)', `${a.backgroundCondition.condition}: ${a.backgroundCondition.files.join(', ')}`]] : []),
+    ...(a.backgroundChoice?.rule === 'none' ? [['background condition', `none (${a.backgroundChoice.namedBy})${a.backgroundChoice.setAside === null ? '' : `; set aside, not subtracted: ${a.backgroundChoice.setAside}`}`]] : []),
   ];
   const key = keySettings(runRecord);
   const keyTable = key.length > 0 ? table(['setting', 'value'], [...key, ['profile normalisation (cohort)', o.normalisation]], 2)
@@ -151,12 +153,18 @@ function dosageSection(a: CohortAnalysis): string {
 /** The background condition: the rule, its embryos, and per condition the means before and after with both SEs. */
 function backgroundSection(a: CohortAnalysis): string {
   const bg = a.backgroundCondition;
+  const choice = a.backgroundChoice;
+  if (!bg && choice?.rule === 'none') {
+    const aside = choice.setAside === null ? '' : ` Its embryos (${choice.setAsideFiles.length}): ${choice.setAsideFiles.map(esc).join(', ') || 'none analysed'}.`;
+    return `<h2 id="background">Background condition</h2><p>None: ${esc(choice.why)}.${aside} Every λ, amplitude and boundary in this report is the batch's own, `
+      + `after each embryo's own background setting only. background_condition.json records this choice.</p>`;
+  }
   if (!bg) return '';
   const pct = Math.round(a.options.level * 100);
   const num = (v: number | null): string => (v === null || !Number.isFinite(v) ? 'n/a' : sigFig(v, 3));
   const rows = bg.summaries.filter((s) => s.unit !== 'um').map((s) => [s.condition, quantityLabel(s.quantity), unitText(s.unit), String(s.n), num(s.meanBefore), num(s.meanAfter),
     num(s.seBetween), num(s.seBackground), Number.isFinite(s.ciLow) ? `${num(s.ciLow)} to ${num(s.ciHigh)}` : 'n/a']);
-  const named = bg.source === 'option' ? 'named by --background-condition' : 'marked background in the sample sheet\'s role column';
+  const named = bg.source === 'option' ? `named by ${bg.namedBy ?? '--background-condition'}` : 'marked background in the sample sheet\'s role column';
   return `<h2 id="background">Background condition</h2><p>${esc(bg.rule)} The background condition <strong>${esc(bg.condition)}</strong> (${esc(named)}) is not compared as a condition; `
     + `its embryos: ${bg.files.map(esc).join(', ')}. Channels: ${bg.profiles.map((p) => esc(p.channel)).join(', ')}.</p>`
     + table(['condition', 'quantity', 'unit', 'n', 'mean before', 'mean after', 'SE between embryos', 'SE from the background', `${pct}% CI (both)`], rows, 3)

@@ -5,7 +5,7 @@ import sharp from 'sharp';
 import { basename, join } from 'node:path';
 import { embryoResults, type EmbryoResult } from '../../core/model';
 import {
-  analyseCohort, backgroundConditionsCsv, backgroundProfileCsv, backgroundRecordJson, backgroundRefitCsv, CohortError, conditionsCsv, dosageFitCsv, positionalErrorCsv, sheetFromFilenameRule, parseSampleSheet, shiftsCsv, sideDifferencesCsv,
+  analyseCohort, backgroundChoiceJson, backgroundConditionsCsv, backgroundProfileCsv, backgroundRecordJson, backgroundRefitCsv, CohortError, conditionsCsv, dosageFitCsv, positionalErrorCsv, sheetFromFilenameRule, parseSampleSheet, shiftsCsv, sideDifferencesCsv,
   type CohortAnalysis, type FilenameRule, type Normalisation, type RefitSettings, type SampleSheet,
 } from '../../core/cohort';
 import { settingsFromStored } from '../../core/settings';
@@ -29,8 +29,11 @@ export interface CohortStepOptions {
   readonly equivalenceMargin?: number | null;
   readonly filenameRule?: FilenameRule;
   /** The condition whose mean profile is subtracted from every other embryo's (a null or secondary-only staining);
-   *  null or absent: the one the sheet's role column marks, else none. */
+   *  `none`: nothing is subtracted (a condition the role column marks stays out of the comparison); null or absent:
+   *  the one the sheet's role column marks, else none. */
   readonly backgroundCondition?: string | null;
+  /** Who gave backgroundCondition, as background_condition.json and the report name it; absent: --background-condition. */
+  readonly backgroundConditionNamedBy?: string;
   /** The time-lapse section of report.html (HTML; see app/batch timelapseReportSection); absent: none. */
   readonly timelapseHtml?: string;
 }
@@ -85,6 +88,7 @@ export async function runCohortStep(opts: CohortStepOptions): Promise<CohortStep
   const analysis = analyseCohort(opts.results, sheet, {
     reference: opts.reference, normalisation: opts.normalisation ?? 'scale-offset', lambdaPosteriorEl: opts.lambdaPosteriorEl ?? null, equivalenceMargin: opts.equivalenceMargin ?? null,
     backgroundCondition: opts.backgroundCondition ?? null, refitSettings: batchSettings(opts.runRecord),
+    ...(opts.backgroundConditionNamedBy !== undefined ? { backgroundConditionNamedBy: opts.backgroundConditionNamedBy } : {}),
   });
   warnings.push(...analysis.warnings);
   const figures = cohortFigures(analysis);
@@ -102,8 +106,11 @@ export async function runCohortStep(opts: CohortStepOptions): Promise<CohortStep
   } catch (e) {
     throw new CohortError(`${opts.outDir}: cannot write the cohort outputs (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
   }
-  // Background tables of an earlier cohort run that subtracted a background condition must not outlive it.
-  if (!analysis.backgroundCondition) for (const name of BACKGROUND_FILES) await rm(join(opts.outDir, name), { force: true }).catch(() => undefined);
+  // Background tables of an earlier cohort run that subtracted a background condition must not outlive it (with
+  // `none`, its record is this run's own background_condition.json).
+  if (!analysis.backgroundCondition) {
+    for (const name of BACKGROUND_FILES) if (!files.some(([n]) => n === name)) await rm(join(opts.outDir, name), { force: true }).catch(() => undefined);
+  }
   const pngs = await writePngs(figures, opts.outDir, warnings);
   return { written: [...files.map(([name]) => join(opts.outDir, name)), ...pngs], warnings, analysis, figures };
 }
@@ -125,12 +132,12 @@ export const BACKGROUND_FILES = [
   'background_profile.csv', 'background_refit.csv', 'background_conditions.csv', 'background_condition.json', 'background-condition.svg', 'background-condition.png',
 ] as const;
 
-/** The background condition's tables and record, when one was subtracted. */
+/** The background condition's tables and record, when one was subtracted; with `none`, the record of that choice. */
 function backgroundFiles(a: CohortAnalysis, sheetSource: string): [string, string][] {
   const r = a.backgroundCondition;
-  if (!r) return [];
+  if (!r) return a.backgroundChoice?.rule === 'none' ? [['background_condition.json', backgroundChoiceJson(a.backgroundChoice, sheetSource)]] : [];
   return [['background_profile.csv', backgroundProfileCsv(r)], ['background_refit.csv', backgroundRefitCsv(r)],
-    ['background_conditions.csv', backgroundConditionsCsv(r)], ['background_condition.json', backgroundRecordJson(r, sheetSource)]];
+    ['background_conditions.csv', backgroundConditionsCsv(r)], ['background_condition.json', backgroundRecordJson(r, sheetSource, a.backgroundChoice)]];
 }
 
 /** Each figure also as PNG (2× scale, white background); a failure here is a warning, the SVGs stay. The figures

@@ -1,12 +1,13 @@
 // The messages between the main process and the analysis worker thread (app/workers/analysis-worker.ts).
-import type { MovieRequestOptions, MovieView, ProjectDoc, StackPreview } from '../../core/contract';
+import type { MovieRequestOptions, MovieView, ProjectDoc, StackPreview, StackTimeOptions } from '../../core/contract';
 import type { AnalysisSettings } from '../../core/settings';
 import type { SliceData, ViewData } from './engine';
 
-/** A request to the analysis worker: a whole view (project + detect), one raw slice, the preview slice, or a movie
- *  over time. */
+/** A request to the analysis worker: a whole view (project + detect, at a movie's time point with `time`), one raw
+ *  slice, the preview slice, a movie over time, or stopping the view request `target` (no answer of its own). */
 export type AnalysisRequest =
-  | { readonly id: number; readonly kind: 'view'; readonly path: string; readonly label: string; readonly settings: AnalysisSettings }
+  | { readonly id: number; readonly kind: 'view'; readonly path: string; readonly label: string; readonly settings: AnalysisSettings; readonly time?: StackTimeOptions | null }
+  | { readonly id: number; readonly kind: 'cancel'; readonly label: string; readonly target: number }
   | { readonly id: number; readonly kind: 'slice'; readonly path: string; readonly label: string; readonly z: number; readonly c: number; readonly t: number }
   | { readonly id: number; readonly kind: 'preview'; readonly path: string; readonly label: string }
   | { readonly id: number; readonly kind: 'movie'; readonly path: string; readonly label: string; readonly doc: ProjectDoc; readonly options: MovieRequestOptions };

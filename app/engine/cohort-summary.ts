@@ -6,6 +6,7 @@ import { analyseCohort, type CohortAnalysis, type ConditionStat } from '../../co
 import type { CohortConditionRow, CohortPositionalError, CohortSummary } from '../../core/contract';
 import { cohortFigures, type NamedFigure } from '../../core/figures';
 import { batchSettings, readSampleSheet } from '../cohort/run-cohort';
+import { dosageReading } from '../cohort/reading';
 import type { EmbryoResult } from '../../core/model';
 import { DEFAULT_COHORT_CHOICES, type CohortChoices } from '../cohort/cohort-choices';
 
@@ -51,10 +52,13 @@ export function positionalErrorRows(a: CohortAnalysis): CohortPositionalError[] 
   }));
 }
 
-/** The line that says the values are background-subtracted, when they are (the window lists it first). */
+/** The line that says the values are background-subtracted, when they are, or that `none` was chosen (the window lists
+ *  it first). */
 function backgroundNote(a: CohortAnalysis): string[] {
   const bg = a.backgroundCondition;
-  return bg ? [`λ, amplitude and boundaries are refitted after subtracting background condition "${bg.condition}" (${bg.files.length} embryo${bg.files.length === 1 ? '' : 's'}: ${bg.files.join(', ')}); see report.html`] : [];
+  if (bg) return [`λ, amplitude and boundaries are refitted after subtracting background condition "${bg.condition}" (${bg.files.length} embryo${bg.files.length === 1 ? '' : 's'}: ${bg.files.join(', ')}); see report.html`];
+  const c = a.backgroundChoice;
+  return c?.rule === 'none' ? [`no background condition: ${c.why}`] : [];
 }
 
 /** Plain-data summary of an analysis (figures included: those given, else drawn here) for the renderer. */
@@ -66,6 +70,8 @@ export function summariseCohort(
     referenceLambda: a.referenceLambda, conditions: conditionRows(a), stats: a.stats, shifts: a.shifts, dosageFit: a.dosageFits,
     figures: figures.map((f) => ({ name: f.name, title: f.title, svg: f.svg })), warnings: [...backgroundNote(a), ...a.warnings],
     backgroundCondition: a.backgroundCondition?.condition ?? null, positionalError: positionalErrorRows(a),
+    ...(a.backgroundChoice?.setAside ? { backgroundSetAside: a.backgroundChoice.setAside } : {}),
+    ...(a.reference !== null ? { reading: dosageReading(a) } : {}),
   };
 }
 

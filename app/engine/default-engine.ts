@@ -1,41 +1,14 @@
 // The real analysis services: sharp decoding (app/decode), the core pipeline, the batch engine and the demo writer.
 import { cohortChoices } from '../cohort/cohort-choices';
-import { applyImageCorrections, detectEmbryo, projectStack } from '../../core/pipeline';
-import { dirname } from 'node:path';
-import { loadImageCorrections } from '../batch/correction-images';
 import type { BatchSummary, CohortSummary } from '../../core/contract';
-import type { Detection } from '../../core/model';
-import type { AnalysisSettings } from '../../core/settings';
 import { defaultWorkerPath, runBatch, type BatchRunResult } from '../batch/run-batch';
 import { DEFAULT_TIMELAPSE_OPTIONS } from '../batch/timelapse-pass';
 import { writeDemoDataSet } from '../batch/write-demo';
 import { openStackForAnalysis, readPreviewPlane } from '../decode';
 import { ApiFailure } from './api-failure';
 import { summariseCohort } from './cohort-summary';
-import type { AnalysisEngine, BatchRunOptions, SliceData, ViewData } from './engine';
-import { placeholderDetection } from './placeholder-detection';
-
-/** Read, project over Z and detect (a placeholder axis when none is found); decoder fallbacks join the warnings. */
-async function loadForView(path: string, label: string, settings: AnalysisSettings): Promise<ViewData> {
-  const opened = await openStackForAnalysis(path, label);
-  try {
-    // The flat field and background image, as the batch applies them (relative paths from the folder of the file list).
-    const baseDir = path.endsWith(label) && path.length > label.length ? path.slice(0, path.length - label.length) : dirname(path);
-    const corrections = await loadImageCorrections(settings, baseDir);
-    const raw = await projectStack(opened.info, opened.source, settings, corrections);
-    const projected = corrections ? applyImageCorrections(raw, corrections, settings.projection === 'sum' ? opened.info.sizeZ : 1) : raw;
-    let detection: Detection;
-    try {
-      detection = detectEmbryo(projected, settings);
-    } catch (e) {
-      // The image is still worth showing: the user can place the axis by hand.
-      detection = placeholderDetection(projected, label, e instanceof Error ? e.message : String(e));
-    }
-    return { info: opened.info, projected: { ...projected, warnings: [...projected.warnings, ...opened.warnings] }, detection };
-  } finally {
-    await opened.source.close();
-  }
-}
+import type { AnalysisEngine, BatchRunOptions, SliceData } from './engine';
+import { createViewLoader } from './view-loader';
 
 /** Check a plane index against the stack's size. */
 function checkIndex(label: string, name: string, value: number, size: number, unit: string): void {
@@ -75,7 +48,8 @@ async function runBatchSummary(options: BatchRunOptions): Promise<BatchSummary> 
 /** The engine backed by app/decode, core/pipeline and app/batch. */
 export function createDefaultEngine(): AnalysisEngine {
   return {
-    loadForView,
+    // Read, project over Z and detect (a placeholder axis when none is found); decoder fallbacks join the warnings.
+    loadForView: createViewLoader(),
     readSlice,
     readPreview: (path, label) => readPreviewPlane(path, label),
     runBatch: runBatchSummary,

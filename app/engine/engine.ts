@@ -1,6 +1,6 @@
 // What the shell needs from the analysis side (decoding, pipeline, batch, demo data), as one replaceable interface:
 // the app wires the real modules; tests pass small fakes so shell behaviour is tested on its own.
-import type { BatchProgress, BatchSummary, ProjectDoc, StackPreview } from '../../core/contract';
+import type { BatchProgress, BatchSummary, ProjectDoc, StackPreview, StackTimeOptions } from '../../core/contract';
 import type { Detection, ProjectedStack, StackInfo } from '../../core/model';
 import type { AnalysisSettings } from '../../core/settings';
 
@@ -36,8 +36,9 @@ export interface BatchRunOptions {
 
 /** The analysis services the handlers call. `label` is the file's display name used in messages. */
 export interface AnalysisEngine {
-  /** Read tags, project over Z and detect the embryo. */
-  loadForView(path: string, label: string, settings: AnalysisSettings): Promise<ViewData>;
+  /** Read tags, project over Z and detect the embryo; with `time`, a movie's time point in the movie's embryo (see
+   *  EgglineApi.loadStack). Rejects with an AbortError naming the file once `signal` is aborted. */
+  loadForView(path: string, label: string, settings: AnalysisSettings, time?: StackTimeOptions | null, signal?: { readonly aborted: boolean } | null): Promise<ViewData>;
   /** The middle slice of the first channel as floats (the first picture while loadForView runs). */
   readPreview?(path: string, label: string): Promise<StackPreview>;
   /** Decode one plane (z, c, t: 0-based) as floats; rejects with a message naming the file when out of range. */

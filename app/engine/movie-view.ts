@@ -43,6 +43,11 @@ function shrinkInto(src: ArrayLike<number>, width: number, height: number, f: nu
   }
 }
 
+/** The embryo's mask, outline and axis only (a detector's other fields, e.g. its pixel sizes, stay behind). */
+export function plainDetection(d: Detection): Detection {
+  return { mask: d.mask, outline: d.outline, axis: d.axis, eggLengthUm: d.eggLengthUm, eggWidthUm: d.eggWidthUm, warnings: d.warnings };
+}
+
 /** Plain copy of an estimate (value and interval). */
 function est(e: Estimate): { value: number; ciLow: number; ciHigh: number } {
   return { value: e.value, ciLow: e.ciLow, ciHigh: e.ciHigh };
@@ -75,10 +80,7 @@ export async function buildMovieView(
   };
   let detection: Detection | null = null;
   let movieSizeT = 0;
-  // The embryo's mask, outline and axis only (the detector's pixel sizes stay behind).
-  const onDetection = (d: Detection): void => {
-    detection = { mask: d.mask, outline: d.outline, axis: d.axis, eggLengthUm: d.eggLengthUm, eggWidthUm: d.eggWidthUm, warnings: d.warnings };
-  };
+  const onDetection = (d: Detection): void => { detection = plainDetection(d); };
   const m = await analyseMovieAtPath(path, file, doc.settings, doc, passOptions(options), { ...hooks, onProjected, onDetection, onInfo: (info) => { movieSizeT = info.sizeT; } });
   const s = m.summary;
   const d = movieFigureData(m);

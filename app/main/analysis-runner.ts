@@ -2,7 +2,7 @@
 // never blocks on decoding or segmentation.
 import { Worker } from 'node:worker_threads';
 import type { AnalysisSettings } from '../../core/settings';
-import type { ApiErrorCode, MovieProgress, MovieRequestOptions, MovieView, ProjectDoc, StackPreview } from '../../core/contract';
+import type { ApiErrorCode, MovieProgress, MovieRequestOptions, MovieView, ProjectDoc, StackPreview, StackTimeOptions } from '../../core/contract';
 import type { SliceData, ViewData } from '../engine/engine';
 import type { AnalysisReply, AnalysisRequest } from '../engine/analysis-protocol';
 import { ApiFailure } from './result';
@@ -10,12 +10,13 @@ import { ApiFailure } from './result';
 export type { AnalysisReply, AnalysisRequest } from '../engine/analysis-protocol';
 
 /** Requests without their id (the runner numbers them). */
-type RequestBody = AnalysisRequest extends infer R ? R extends AnalysisRequest ? Omit<R, 'id'> : never : never;
+type RequestBody = AnalysisRequest extends infer R ? R extends Exclude<AnalysisRequest, { kind: 'cancel' }> ? Omit<R, 'id'> : never : never;
 
 
 /** A worker-backed runner: `run` fits HandlerDeps.runAnalysisOffThread, `readSlice` HandlerDeps.readSliceOffThread. */
 export interface AnalysisRunner {
-  run(path: string, label: string, settings: AnalysisSettings): Promise<ViewData>;
+  /** A view; when `signal` aborts, the call rejects at once and the worker stops reading that stack's planes. */
+  run(path: string, label: string, settings: AnalysisSettings, time?: StackTimeOptions | null, signal?: AbortSignal | null): Promise<ViewData>;
   readSlice(path: string, label: string, z: number, c: number, t: number): Promise<SliceData>;
   /** The preview slice (HandlerDeps.readPreviewOffThread). */
   readPreview(path: string, label: string): Promise<StackPreview>;
@@ -66,7 +67,7 @@ export function createAnalysisRunner(workerPath: string, timeoutMs = 180_000): A
     w.on('exit', (code) => { if (worker === w) worker = null; failAll((label) => `${label}: analysis stopped unexpectedly (exit code ${code})`, w); });
     return w;
   };
-  const call = <T>(body: RequestBody, onProgress?: (done: number, total: number) => void): Promise<T> => new Promise<T>((resolve, reject) => {
+  const call = <T>(body: RequestBody, onProgress?: (done: number, total: number) => void, signal: AbortSignal | null = null): Promise<T> => new Promise<T>((resolve, reject) => {
     const w = worker ??= start();
     const id = nextId++;
     const expire = () => {
@@ -80,9 +81,16 @@ export function createAnalysisRunner(workerPath: string, timeoutMs = 180_000): A
     entry.restartTimer = () => { clearTimeout(entry.timer); entry.timer = setTimeout(expire, timeoutMs); };
     pending.set(id, entry);
     w.postMessage({ ...body, id } as AnalysisRequest);
+    signal?.addEventListener('abort', () => {
+      if (!pending.has(id)) return;
+      pending.delete(id);
+      clearTimeout(entry.timer);
+      reject(Object.assign(new Error(`${body.label}: loading cancelled (another view was asked for)`), { name: 'AbortError' }));
+      w.postMessage({ kind: 'cancel', id: nextId++, label: body.label, target: id } satisfies AnalysisRequest);
+    }, { once: true });
   });
   return {
-    run: (path, label, settings) => call<ViewData>({ kind: 'view', path, label, settings }),
+    run: (path, label, settings, time = null, signal = null) => call<ViewData>({ kind: 'view', path, label, settings, time }, undefined, signal),
     readSlice: (path, label, z, c, t) => call<SliceData>({ kind: 'slice', path, label, z, c, t }),
     readPreview: (path, label) => call<StackPreview>({ kind: 'preview', path, label }),
     movie: (path, label, doc, options, onProgress) => call<MovieView>({ kind: 'movie', path, label, doc, options },

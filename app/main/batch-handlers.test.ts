@@ -28,7 +28,7 @@ describe("the window's batch", () => {
         return { runId: 'r', outDir: o.outDir, ok: 0, failed: 0, cancelled: false, results: [], movies: [], cohort: null, cohortError: null };
       },
     } as unknown as AnalysisEngine;
-    return { deps: { dataDir: dir, dialogs: null as never, emitBatchProgress: () => undefined, batchJobs: 2 }, engine, allow, batches: new Map(), movies: new Set(), noteRecent: async () => undefined };
+    return { deps: { dataDir: dir, dialogs: null as never, emitBatchProgress: () => undefined, batchJobs: 2 }, engine, allow, batches: new Map(), movies: new Set(), viewLoads: new Set(), noteRecent: async () => undefined };
   };
 
   it('starts its worker processes tuned as the command line does (V8 flags and MALLOC_ARENA_MAX on Linux)', async () => {

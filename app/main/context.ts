@@ -1,5 +1,5 @@
 // Shared state of one handler set: dependencies, the path allow-list and running batches.
-import type { BatchProgress, ExportKind, MovieProgress, MovieRequestOptions, MovieView, ProjectDoc } from '../../core/contract';
+import type { BatchProgress, ExportKind, MovieProgress, MovieRequestOptions, MovieView, ProjectDoc, StackTimeOptions } from '../../core/contract';
 import type { AnalysisSettings } from '../../core/settings';
 import type { PathAllowList } from './allow-list';
 import type { AnalysisEngine, ViewData } from '../engine/engine';
@@ -18,7 +18,8 @@ export interface HandlerDeps {
   /** Push batch progress to the renderer. */
   emitBatchProgress(p: BatchProgress): void;
   /** Run loadStack's analysis off the main thread (the app passes a worker runner); in-process when absent. */
-  readonly runAnalysisOffThread?: (path: string, label: string, settings: AnalysisSettings) => Promise<ViewData>;
+  readonly runAnalysisOffThread?: (path: string, label: string, settings: AnalysisSettings, time?: StackTimeOptions | null,
+    signal?: AbortSignal | null) => Promise<ViewData>;
   /** Decode loadSlice's plane off the main thread (the app passes the worker runner); in-process when absent. */
   readonly readSliceOffThread?: AnalysisEngine['readSlice'];
   /** Read the preview slice off the main thread (the app passes the worker runner's). */
@@ -51,6 +52,8 @@ export interface ShellContext {
   readonly batches: Map<string, AbortController>;
   /** The running movie analysis (at most one). */
   readonly movies: Set<AbortController>;
+  /** Loads of a stack with time options under way (a newer one aborts them). */
+  readonly viewLoads: Set<AbortController>;
   /** Record a path in the recent list (failures to write it are ignored: it is a convenience). */
   noteRecent(path: string): Promise<void>;
 }

@@ -34,6 +34,7 @@ function createContext(deps: HandlerDeps): ShellContext {
     allow: createPathAllowList(),
     batches: new Map(),
     movies: new Set(),
+    viewLoads: new Set(),
     noteRecent: async (path) => {
       const list = await addRecent(deps.dataDir, path).catch(() => null);
       if (list !== null) deps.onRecentChanged?.(list);
@@ -62,7 +63,7 @@ export function createHandlers(deps: HandlerDeps): ApiHandlers {
     openDropped: (paths) => guard(null, () => openDropped(ctx, paths)),
     recent: () => guard(null, () => readRecent(deps.dataDir)),
     openRecent: (path) => guard(labelArg(path), () => openRecent(ctx, path)),
-    loadStack: (path, settings) => guard(labelArg(path), () => loadStack(ctx, path, settings), 'bad-file'),
+    loadStack: (path, settings, time) => guard(labelArg(path), () => loadStack(ctx, path, settings, time), 'bad-file'),
     loadPreview: (path) => guard(labelArg(path), () => loadPreview(ctx, path), 'bad-file'),
     loadSlice: (req) => guard(labelArg((req as { path?: unknown } | null)?.path), () => loadSlice(ctx, req), 'bad-file'),
     saveProject: (path, doc) => guard(labelArg(path), () => saveProject(ctx, path, doc), 'io'),

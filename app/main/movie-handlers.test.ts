@@ -24,7 +24,7 @@ describe('the movie handlers', () => {
   const context = (): ShellContext => {
     const allow = createPathAllowList();
     allow.allowTree('read', dir);
-    return { deps: { dataDir: dir, dialogs: null as never, emitBatchProgress: () => undefined }, engine: createDefaultEngine(), allow, batches: new Map(), movies: new Set(), noteRecent: async () => undefined };
+    return { deps: { dataDir: dir, dialogs: null as never, emitBatchProgress: () => undefined }, engine: createDefaultEngine(), allow, batches: new Map(), movies: new Set(), viewLoads: new Set(), noteRecent: async () => undefined };
   };
 
   it('refuses a second movie while one runs, stops when cancelled, and names the file when it cannot open', async () => {

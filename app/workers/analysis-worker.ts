@@ -26,8 +26,11 @@ function transferList(reply: AnalysisReply): ArrayBuffer[] {
   return [...new Set(buffers)];
 }
 
+/** View requests the main process no longer wants (their loads stop before the next plane). */
+const stopped = new Set<number>();
+
 /** Answer one request; errors travel as name, code and message. */
-async function answer(request: AnalysisRequest): Promise<AnalysisReply> {
+async function answer(request: Exclude<AnalysisRequest, { kind: 'cancel' }>): Promise<AnalysisReply> {
   try {
     const value = request.kind === 'slice'
       ? await engine.readSlice(request.path, request.label, request.z, request.c, request.t)
@@ -37,7 +40,7 @@ async function answer(request: AnalysisRequest): Promise<AnalysisReply> {
           ? await buildMovieView(request.path, request.label, request.doc, request.options, {
             onTimePoint: (done, total) => parentPort?.postMessage({ id: request.id, ok: null, progress: { done, total } } satisfies AnalysisReply),
           })
-          : await engine.loadForView(request.path, request.label, request.settings);
+          : await engine.loadForView(request.path, request.label, request.settings, request.time ?? null, { get aborted() { return stopped.has(request.id); } });
     return { id: request.id, ok: true, value };
   } catch (e) {
     const err: Error & { code?: unknown } = e instanceof Error ? e : new Error(String(e));
@@ -46,5 +49,6 @@ async function answer(request: AnalysisRequest): Promise<AnalysisReply> {
 }
 
 parentPort?.on('message', (request: AnalysisRequest) => {
-  void answer(request).then((reply) => parentPort?.postMessage(reply, transferList(reply)));
+  if (request.kind === 'cancel') { stopped.add(request.target); return; }
+  void answer(request).then((reply) => { stopped.delete(request.id); parentPort?.postMessage(reply, transferList(reply)); });
 });

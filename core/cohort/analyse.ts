@@ -1,5 +1,5 @@
 // The cohort step end to end (pure): assignment → observations → per-condition statistics → dosage test → profiles.
-import { embryoResults, type EmbryoResult } from '../model';
+import { embryoResults, NO_BACKGROUND_CONDITION, type BackgroundChoiceRecord, type EmbryoResult } from '../model';
 import { assignConditions } from './assign';
 import { conditionStats } from './condition-stats';
 import { dosageFits, lambdaTrend, measuredDosages } from './dosage-fit';
@@ -12,7 +12,8 @@ import type { CohortAnalysis, CohortAssignment, CohortOptions, ConditionProfile,
 import { positionQuantities, referenceLambda, shiftRows } from './dosage-test';
 import { meanOf } from './stats-local';
 import { sideDifferences } from './sides';
-import { applyBackgroundCondition, splitBackgroundCondition } from './background-condition';
+import { applyBackgroundCondition, splitByChoice } from './background-condition';
+import { backgroundConditionOf } from './background-profile';
 import type { RefitSettings } from './background-refit';
 import { CohortError } from './cohort-error';
 import { DEFAULT_SETTINGS } from '../settings';
@@ -33,21 +34,32 @@ export function analyseCohort(keyed: readonly EmbryoResult[], fullSheet: SampleS
   const given = options.backgroundCondition ?? null;
   if (given !== null && given.trim() === '') throw new CohortError('backgroundCondition must be a non-empty condition name');
   // A background condition (null or secondary-only staining) leaves the comparison; its profile is subtracted below.
-  const split = splitBackgroundCondition(embryoResults(keyed), fullSheet, given);
-  if (split !== null && split.condition === opts.reference) throw new CohortError(`${fullSheet.source}: "${split.condition}" cannot be both the reference and the background condition`);
+  // With `none`, nothing is subtracted and a condition the role column marks only leaves the comparison.
+  const choice = backgroundConditionOf(fullSheet, given, options.backgroundConditionNamedBy);
+  const { split, subtract } = splitByChoice(embryoResults(keyed), fullSheet, choice);
+  if (split !== null && split.condition === opts.reference) {
+    throw new CohortError(subtract ? `${fullSheet.source}: "${split.condition}" cannot be both the reference and the background condition`
+      : `${fullSheet.source}: "${split.condition}" is marked background in the role column, so it cannot be the reference; unmark it or choose another reference`);
+  }
   const sheet = split?.sheet ?? fullSheet;
   const results = split?.results ?? embryoResults(keyed);
   const assigned = assignConditions(results, sheet, opts.reference);
   const warnings = [...assigned.warnings, ...(split?.warnings ?? [])];
+  if (choice?.rule === 'none' && fullSheet.rows.some((r) => r.condition === NO_BACKGROUND_CONDITION)) {
+    warnings.push(`${fullSheet.source}: a condition is named "${NO_BACKGROUND_CONDITION}"; the background choice "${NO_BACKGROUND_CONDITION}" means no background condition, so it is compared like the others`);
+  }
   let assignment = assigned;
   let background: ReturnType<typeof applyBackgroundCondition>['record'] | null = null;
-  if (split !== null) {
+  if (split !== null && subtract) {
     if (!options.refitSettings) warnings.push(`no batch settings were given; the boundaries after subtracting "${split.condition}" were searched with the built-in settings`);
     const applied = applyBackgroundCondition(assigned.groups, split, options.refitSettings ?? DEFAULT_SETTINGS, opts.level);
     assignment = { ...assigned, groups: applied.groups };
     background = applied.record;
     if (split.embryos.length < 2) warnings.push(`background condition "${split.condition}" has one embryo: the background's own noise cannot be estimated, and it adds to every embryo's`);
   }
+  const backgroundChoice: BackgroundChoiceRecord | null = choice === null ? null : {
+    rule: choice.rule, condition: choice.name, setAside: choice.setAside, setAsideFiles: subtract ? [] : split?.embryos.map((e) => e.file) ?? [], namedBy: choice.namedBy, why: choice.why,
+  };
   const flat = notDecayingFits(assignment.groups.flatMap((g) => g.embryos));
   if (flat.length > 0) {
     warnings.push(`λ left out of the statistics for ${flat.length} embryo${flat.length === 1 ? '' : 's'} whose fit is not a decaying gradient: ${flat.join(', ')}`);
@@ -82,7 +94,7 @@ export function analyseCohort(keyed: readonly EmbryoResult[], fullSheet: SampleS
     fitRanges: fitRangesUsed(assignment.groups.flatMap((g) => g.embryos)),
     sheetColumns: [...new Set(sheet.rows.flatMap((r) => Object.keys(r.extra)))], profiles, warnings,
     sideDifferences: sideDifferences(observations, conditions, opts.level),
-    ...(background !== null ? { backgroundCondition: background } : {}) };
+    ...(background !== null ? { backgroundCondition: background } : {}), ...(backgroundChoice !== null ? { backgroundChoice } : {}) };
 }
 
 /** λ_local (x/EL) and its jackknife SE per position quantity at the reference's mean position (finite λ only). */

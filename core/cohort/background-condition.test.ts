@@ -3,7 +3,8 @@ import type { EmbryoResult, Profile } from '../model';
 import { DEFAULT_SETTINGS } from '../settings';
 import { analyseCohort } from './analyse';
 import { jackknifeSe } from './background-condition';
-import { backgroundProfile } from './background-profile';
+import { backgroundConditionOf, backgroundProfile } from './background-profile';
+import { NO_BACKGROUND_CONDITION } from '../model';
 import { refitEmbryo, refitWindowOf, subtractProfile } from './background-refit';
 import { parseSampleSheet } from './sample-sheet';
 
@@ -103,6 +104,56 @@ describe('background condition', () => {
     const a = analyseCohort(results, parseSampleSheet(marked, 'samples.csv'), { refitSettings: DEFAULT_SETTINGS });
     expect(a.backgroundCondition!.condition).toBe('null-stain');
     expect(a.backgroundCondition!.source).toBe('sheet');
+  });
+
+  describe('which background rule applies: one function for every caller', () => {
+    // Source: demo data (the invented null-stain sheet above); the rule is this project's own (README, Background condition).
+    const marked = text.split('\n').map((l, i) => (i === 0 ? `${l},role` : l === '' ? l : `${l},${l.startsWith('null') ? 'background' : ''}`)).join('\n');
+    const markedSheet = parseSampleSheet(marked, 'samples.csv');
+    it('a named condition (flag or project) wins over the role column and says who named it', () => {
+      const c = backgroundConditionOf(markedSheet, 'stained', "project file's cohort.backgroundCondition");
+      expect(c).toEqual({ rule: 'option', name: 'stained', setAside: null, namedBy: "project file's cohort.backgroundCondition",
+        why: 'project file\'s cohort.backgroundCondition names "stained": its mean profile is subtracted' });
+      expect(backgroundConditionOf(sheet, 'null-stain')?.namedBy).toBe('--background-condition');
+    });
+    it('the role column decides when nothing is given; no role column and nothing given: no rule at all', () => {
+      expect(backgroundConditionOf(markedSheet, null)).toMatchObject({ rule: 'sheet', name: 'null-stain', namedBy: "the sample sheet's role column" });
+      expect(backgroundConditionOf(sheet, null)).toBeNull();
+    });
+    it('"none" subtracts nothing: with a role column its condition is set aside, without one nothing is', () => {
+      expect(NO_BACKGROUND_CONDITION).toBe('none');
+      expect(backgroundConditionOf(markedSheet, 'none')).toEqual({ rule: 'none', name: null, setAside: 'null-stain', namedBy: '--background-condition',
+        why: '--background-condition is "none": nothing is subtracted; "null-stain", marked background in the sample sheet\'s role column, is left out of the comparison' });
+      expect(backgroundConditionOf(sheet, 'none')).toMatchObject({ rule: 'none', name: null, setAside: null });
+    });
+    it('with "none" the comparison is the batch\'s own numbers for the other conditions, and the record says why', () => {
+      const a = analyseCohort(results, markedSheet, { backgroundCondition: 'none', refitSettings: DEFAULT_SETTINGS });
+      const plainText = text.split('\n').filter((l) => !l.startsWith('null')).join('\n');
+      const plain = analyseCohort(results.filter((r) => !r.file.startsWith('null')), parseSampleSheet(plainText, 'samples.csv'));
+      expect(a.backgroundCondition).toBeUndefined();
+      expect(a.conditions.map((c) => c.name)).toEqual(['stained']);
+      expect(a.stats).toEqual(plain.stats);
+      expect(a.profiles).toEqual(plain.profiles);
+      expect(a.backgroundChoice).toEqual({ rule: 'none', condition: null, setAside: 'null-stain', setAsideFiles: ['null_1.tif', 'null_2.tif', 'null_3.tif', 'null_4.tif'],
+        namedBy: '--background-condition', why: backgroundConditionOf(markedSheet, 'none')!.why });
+      // ... while the role column alone subtracts, and says so
+      const sub = analyseCohort(results, markedSheet, { refitSettings: DEFAULT_SETTINGS });
+      expect(sub.backgroundChoice).toMatchObject({ rule: 'sheet', condition: 'null-stain', setAside: null, setAsideFiles: [] });
+      expect(lambdaStat(sub).mean).not.toBe(lambdaStat(a).mean);
+      // No role column, nothing given: no record (the outputs stay as they were before the choice existed)
+      expect(analyseCohort(results, sheet).backgroundChoice).toBeUndefined();
+      expect(analyseCohort(results, sheet, { backgroundCondition: 'none' }).backgroundChoice).toMatchObject({ rule: 'none', setAside: null, setAsideFiles: [] });
+      expect(analyseCohort(results, sheet, { backgroundCondition: 'none' }).stats).toEqual(analyseCohort(results, sheet).stats);
+    });
+    it('"none" with a role column: the set-aside condition cannot be the reference; a condition named "none" is warned about', () => {
+      expect(() => analyseCohort(results, markedSheet, { backgroundCondition: 'none', reference: 'null-stain' }))
+        .toThrow('samples.csv: "null-stain" is marked background in the role column, so it cannot be the reference; unmark it or choose another reference');
+      const named = parseSampleSheet(text.replace(/null-stain/g, 'none'), 'samples.csv');
+      expect(analyseCohort(results, named, { backgroundCondition: 'none' }).warnings)
+        .toContain('samples.csv: a condition is named "none"; the background choice "none" means no background condition, so it is compared like the others');
+      const only = parseSampleSheet('file,condition,role\nnull_1.tif,null-stain,background\n', 'samples.csv');
+      expect(() => analyseCohort(results, only, { backgroundCondition: 'none' })).toThrow('samples.csv: "null-stain", marked background in the role column, is the only condition; there is nothing to compare');
+    });
   });
 
   it('one clear line for each bad case', () => {

@@ -5,7 +5,7 @@
 // ch. 11, from memory: SE² = (k − 1)/k · Σ (θ₍ᵢ₎ − θ̄₍·₎)²).
 import type { EmbryoResult } from '../model';
 import { assignConditions } from './assign';
-import { backgroundConditionOf, backgroundProfiles, BACKGROUND_CONDITION_RULE } from './background-profile';
+import { backgroundConditionOf, backgroundProfiles, BACKGROUND_CONDITION_RULE, type BackgroundChoice } from './background-profile';
 import { refitEmbryo, type RefitSettings } from './background-refit';
 import { CohortError } from './cohort-error';
 import { observationsOf } from './observations';
@@ -14,7 +14,8 @@ import type {
   BackgroundConditionRecord, BackgroundConditionSummary, BackgroundProfile, BackgroundRefitRow, CohortAssignment, ConditionInfo, Observation, SampleSheet,
 } from '../model';
 
-/** The sheet and results without the background condition, and that condition's name, source and embryos. */
+/** The sheet and results without the background condition (or, with rule 'none', the condition the role column
+ *  marks), and that condition's name, source and embryos. */
 export interface BackgroundSplit {
   readonly sheet: SampleSheet;
   readonly results: readonly EmbryoResult[];
@@ -22,21 +23,41 @@ export interface BackgroundSplit {
   readonly source: 'option' | 'sheet';
   readonly embryos: readonly EmbryoResult[];
   readonly warnings: readonly string[];
+  /** Who named the condition (see BackgroundChoice.namedBy). */
+  readonly namedBy?: string;
 }
 
-/** Take the background condition (given, or marked in the sheet's role column) out of the sheet and the results;
- *  null when there is none. Throws CohortError (one line) when it is not in the sheet or is the only condition. */
-export function splitBackgroundCondition(results: readonly EmbryoResult[], sheet: SampleSheet, given: string | null): BackgroundSplit | null {
-  const bg = backgroundConditionOf(sheet, given);
-  if (bg === null) return null;
-  const rows = sheet.rows.filter((r) => r.condition === bg.name);
-  const rest = sheet.rows.filter((r) => r.condition !== bg.name);
-  if (rest.length === 0) throw new CohortError(`${sheet.source}: background condition "${bg.name}" is the only condition; there is nothing to subtract it from`);
+/** Take one condition's rows out of the sheet and its embryos out of the results. Throws CohortError (one line) when
+ *  it is the only condition. */
+function splitCondition(results: readonly EmbryoResult[], sheet: SampleSheet, name: string, source: 'option' | 'sheet', subtracted: boolean): BackgroundSplit {
+  const rows = sheet.rows.filter((r) => r.condition === name);
+  const rest = sheet.rows.filter((r) => r.condition !== name);
+  if (rest.length === 0) {
+    throw new CohortError(subtracted ? `${sheet.source}: background condition "${name}" is the only condition; there is nothing to subtract it from`
+      : `${sheet.source}: "${name}", marked background in the role column, is the only condition; there is nothing to compare`);
+  }
   const own = assignConditions(results, { source: sheet.source, rows });
   const embryos = own.groups[0]?.embryos ?? [];
   const taken = new Set(embryos);
   const missing = own.warnings.filter((w) => w.startsWith(`${sheet.source}: no analysed result for `));
-  return { sheet: { source: sheet.source, rows: rest }, results: results.filter((r) => !taken.has(r)), condition: bg.name, source: bg.source, embryos, warnings: missing };
+  return { sheet: { source: sheet.source, rows: rest }, results: results.filter((r) => !taken.has(r)), condition: name, source, embryos, warnings: missing };
+}
+
+/** Take the background condition (given, or marked in the sheet's role column) out of the sheet and the results;
+ *  null when there is none. Throws CohortError (one line) when it is not in the sheet or is the only condition. With
+ *  `given` = `none`, see splitByChoice. */
+export function splitBackgroundCondition(results: readonly EmbryoResult[], sheet: SampleSheet, given: string | null): BackgroundSplit | null {
+  return splitByChoice(results, sheet, backgroundConditionOf(sheet, given)).split;
+}
+
+/** The split a background choice asks for: the subtracted condition's (rules 'option', 'sheet'), or with rule 'none'
+ *  the role column's condition set aside (not subtracted); null split when there is nothing to take out. */
+export function splitByChoice(results: readonly EmbryoResult[], sheet: SampleSheet, choice: BackgroundChoice | null): { choice: BackgroundChoice | null; split: BackgroundSplit | null; subtract: boolean } {
+  if (choice === null) return { choice, split: null, subtract: false };
+  if (choice.rule === 'none') {
+    return { choice, split: choice.setAside === null ? null : splitCondition(results, sheet, choice.setAside, 'sheet', false), subtract: false };
+  }
+  return { choice, split: { ...splitCondition(results, sheet, choice.name as string, choice.rule, true), namedBy: choice.namedBy }, subtract: true };
 }
 
 const CHANGED = new Set(['lambda', 'amplitude', 'boundary']);
@@ -139,6 +160,6 @@ export function applyBackgroundCondition(groups: Groups, split: BackgroundSplit,
   });
   return {
     groups: refitted,
-    record: { condition: split.condition, source: split.source, files: split.embryos.map((e) => e.file), rule: BACKGROUND_CONDITION_RULE, profiles, refits, summaries },
+    record: { condition: split.condition, source: split.source, ...(split.namedBy !== undefined ? { namedBy: split.namedBy } : {}), files: split.embryos.map((e) => e.file), rule: BACKGROUND_CONDITION_RULE, profiles, refits, summaries },
   };
 }

@@ -3,7 +3,7 @@
 // line each, naming the sheet, the condition or the file at fault.
 import type { EmbryoResult } from '../model';
 import { CohortError } from './cohort-error';
-import type { BackgroundProfile, Profile, SampleSheet } from '../model';
+import { NO_BACKGROUND_CONDITION, type BackgroundProfile, type Profile, type SampleSheet } from '../model';
 
 /** The rule, in one sentence, as the report and the record state it. */
 export const BACKGROUND_CONDITION_RULE = 'Each embryo\'s profile, after its own background setting, minus the mean profile of the '
@@ -17,22 +17,53 @@ function roleOf(extra: Readonly<Record<string, string>>): string {
   return key === undefined ? '' : extra[key].trim().toLowerCase();
 }
 
-/** The background condition: the one given, else the one the sheet's role column marks, else null. One line when the
- *  given name is not in the sheet, the role column marks rows of several conditions, or only some rows of one. */
-export function backgroundConditionOf(sheet: SampleSheet, given: string | null): { name: string; source: 'option' | 'sheet' } | null {
-  const names = [...new Set(sheet.rows.map((r) => r.condition))];
-  if (given !== null) {
-    if (!names.includes(given)) {
-      throw new CohortError(`${sheet.source}: background condition "${given}" is not in the sheet (conditions: ${names.join(', ')})`);
-    }
-    return { name: given, source: 'option' };
-  }
+/** The background rule in force: the condition subtracted (null with rule 'none'), the condition the role column marks
+ *  that is set aside without subtraction (rule 'none' only), who chose, and why in one sentence. */
+export interface BackgroundChoice {
+  readonly rule: 'option' | 'sheet' | 'none';
+  readonly name: string | null;
+  readonly setAside: string | null;
+  readonly namedBy: string;
+  readonly why: string;
+}
+
+/** The condition the sheet's role column marks as background, or null; one line when it marks rows of several
+ *  conditions, or only some rows of one. */
+function markedCondition(sheet: SampleSheet): string | null {
   const marked = [...new Set(sheet.rows.filter((r) => roleOf(r.extra) === 'background').map((r) => r.condition))];
   if (marked.length === 0) return null;
   if (marked.length > 1) throw new CohortError(`${sheet.source}: the role column marks rows of several conditions as background (${marked.join(', ')}); mark one`);
   const unmarked = sheet.rows.find((r) => r.condition === marked[0] && roleOf(r.extra) !== 'background');
   if (unmarked) throw new CohortError(`${sheet.source} line ${unmarked.line}: ${unmarked.file} is in background condition "${marked[0]}" but its role is not background`);
-  return { name: marked[0], source: 'sheet' };
+  return marked[0];
+}
+
+const ROLE_TEXT = `the sample sheet's ${ROLE_COLUMN} column`;
+
+/**
+ * The one rule for the background condition, for every caller (command line, project, window): `given` names a
+ * condition (subtracted), or is NO_BACKGROUND_CONDITION (`none`: nothing subtracted; a condition the role column marks
+ * stays out of the comparison), or null (the condition the role column marks, else none: returns null). `namedBy`
+ * says who gave `given`. One line when the name is not in the sheet, or the role column is inconsistent.
+ */
+export function backgroundConditionOf(sheet: SampleSheet, given: string | null, namedBy = '--background-condition'): BackgroundChoice | null {
+  const names = [...new Set(sheet.rows.map((r) => r.condition))];
+  if (given === NO_BACKGROUND_CONDITION) {
+    const setAside = markedCondition(sheet);
+    const why = setAside === null
+      ? `${namedBy} is "${NO_BACKGROUND_CONDITION}": no background condition is subtracted`
+      : `${namedBy} is "${NO_BACKGROUND_CONDITION}": nothing is subtracted; "${setAside}", marked background in ${ROLE_TEXT}, is left out of the comparison`;
+    return { rule: 'none', name: null, setAside, namedBy, why };
+  }
+  if (given !== null) {
+    if (!names.includes(given)) {
+      throw new CohortError(`${sheet.source}: background condition "${given}" is not in the sheet (conditions: ${names.join(', ')})`);
+    }
+    return { rule: 'option', name: given, setAside: null, namedBy, why: `${namedBy} names "${given}": its mean profile is subtracted` };
+  }
+  const marked = markedCondition(sheet);
+  if (marked === null) return null;
+  return { rule: 'sheet', name: marked, setAside: null, namedBy: ROLE_TEXT, why: `${ROLE_TEXT} marks "${marked}" as background and no option overrides it: its mean profile is subtracted` };
 }
 
 /** The profiles an embryo has, by channel name: the gradient's, then each boundary channel's (a channel in both roles

@@ -1,7 +1,7 @@
 // The background condition's outputs (written only when one was subtracted): its mean profile per channel, every
 // embryo's values before and after the refit, the per-condition means with the background's SE, and a JSON record.
 import { toCsv, type CsvValue } from '../csv';
-import type { BackgroundConditionRecord } from '../model';
+import type { BackgroundChoiceRecord, BackgroundConditionRecord } from '../model';
 
 /** background_profile.csv: the background condition's mean profile per channel and bin, with SD and SE between its
  *  embryos and how many had data. */
@@ -25,13 +25,25 @@ export function backgroundConditionsCsv(r: BackgroundConditionRecord): string {
     r.summaries.map((s) => [s.condition, s.quantity, s.unit, s.n, s.meanBefore, s.meanAfter, s.seBetween, s.seBackground, s.seCombined, s.ciLow, s.ciHigh]));
 }
 
-/** background_condition.json: which condition, from where, its embryos, the rule, the channels and bins, and the
- *  sample sheet; the cohort's own record of the subtraction. */
-export function backgroundRecordJson(r: BackgroundConditionRecord, sheetSource: string): string {
+/** background_condition.json: which condition, from where (and why, when `choice` is given), its embryos, the rule,
+ *  the channels and bins, and the sample sheet; the cohort's own record of the subtraction. */
+export function backgroundRecordJson(r: BackgroundConditionRecord, sheetSource: string, choice?: BackgroundChoiceRecord): string {
+  const namedBy = r.source === 'option' ? r.namedBy ?? '--background-condition' : 'role column of the sample sheet';
   const doc = {
-    schema: 'eggline-background-condition', version: 1, condition: r.condition, namedBy: r.source === 'option' ? '--background-condition' : 'role column of the sample sheet',
+    schema: 'eggline-background-condition', version: 1, condition: r.condition, namedBy,
+    ...(choice ? { choice: choice.rule, why: choice.why } : {}),
     sampleSheet: sheetSource, rule: r.rule, embryos: r.files, channels: r.profiles.map((p) => p.channel), bins: r.profiles[0]?.xEl.length ?? 0,
     outputs: ['background_profile.csv', 'background_refit.csv', 'background_conditions.csv', 'background-condition.svg', 'background-condition.png'],
+  };
+  return `${JSON.stringify(doc, null, 2)}\n`;
+}
+
+/** background_condition.json when `none` was chosen: no condition subtracted, who chose and why, and the condition
+ *  the role column marks that was left out of the comparison (with its embryos), if any. */
+export function backgroundChoiceJson(c: BackgroundChoiceRecord, sheetSource: string): string {
+  const doc = {
+    schema: 'eggline-background-condition', version: 1, condition: null, namedBy: c.namedBy, choice: c.rule, why: c.why,
+    sampleSheet: sheetSource, setAside: c.setAside, setAsideEmbryos: c.setAsideFiles, outputs: [],
   };
   return `${JSON.stringify(doc, null, 2)}\n`;
 }

@@ -3,7 +3,7 @@
 export type {
   CohortAnalysis, CohortAssignment, CohortOptions, ConditionInfo, ConditionProfile, ConditionStat, DosageFit,
   FilenameRule, MeasuredDosage, Normalisation, SlopeSummary, Observation, QuantityKind, QuantityUnit, ReferenceLambda, ResolvedCohortOptions,
-  SampleRow, SampleSheet, ShiftRow, BackgroundConditionRecord, BackgroundConditionSummary, BackgroundProfile, BackgroundRefitRow,
+  SampleRow, SampleSheet, ShiftRow, BackgroundChoiceRecord, BackgroundConditionRecord, BackgroundConditionSummary, BackgroundProfile, BackgroundRefitRow,
 } from '../model';
 export { CohortError } from './cohort-error';
 export { checkCohortOptions } from './options';
@@ -19,9 +19,10 @@ export { referenceLambda, shiftRows, ratioWithCi, slopeRatio, twoGradientShiftEl
 export { dosageFits, lambdaTrend, measuredDosages, conditionMeansLine } from './dosage-fit';
 export { gridEl, interpolateOnGrid, normaliseProfile, centralSlope, conditionProfile } from './profiles';
 export { analyseCohort, type CohortRunOptions } from './analyse';
-export { splitBackgroundCondition, applyBackgroundCondition, jackknifeSe, type BackgroundSplit } from './background-condition';
-export { backgroundConditionOf, backgroundProfile, backgroundProfiles, BACKGROUND_CONDITION_RULE, ROLE_COLUMN } from './background-profile';
-export { backgroundProfileCsv, backgroundRefitCsv, backgroundConditionsCsv, backgroundRecordJson } from './background-tables';
+export { splitBackgroundCondition, splitByChoice, applyBackgroundCondition, jackknifeSe, type BackgroundSplit } from './background-condition';
+export { backgroundConditionOf, backgroundProfile, backgroundProfiles, BACKGROUND_CONDITION_RULE, ROLE_COLUMN, type BackgroundChoice } from './background-profile';
+export { NO_BACKGROUND_CONDITION } from '../model';
+export { backgroundProfileCsv, backgroundRefitCsv, backgroundConditionsCsv, backgroundRecordJson, backgroundChoiceJson } from './background-tables';
 export { refitEmbryo, subtractProfile, refitWindowOf, type RefitSettings } from './background-refit';
 export { conditionsCsv, shiftsCsv, dosageFitCsv, positionalErrorCsv } from './tables';
 export { makeDemoCohort, type DemoCohortSpec } from './demo-cohort';

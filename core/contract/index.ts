@@ -36,6 +36,16 @@ export interface LoadedStack {
   readonly detection: Detection;
 }
 
+/** How loadStack reads a file's time points for the Embryo view, as the batch's time pass does. */
+export interface StackTimeOptions {
+  /** Seconds between time points for a file that gives no times (the file's `timeStepS`, as `--time-step`): a plain
+   *  multi-page file is then read as frames, one time point per page; null: its pages are Z slices. */
+  readonly timeStepS: number | null;
+  /** Find the embryo in the shown time point alone (as `--axis-per-time`) instead of once for the movie on the
+   *  projection over time. */
+  readonly axisPerTime: boolean;
+}
+
 /** One Z slice of one channel, for the Z slider. */
 export interface SliceRequest { readonly path: string; readonly z: number; readonly c: number; readonly t: number }
 
@@ -128,6 +138,18 @@ export interface CohortSummary {
   readonly positionalError?: readonly CohortPositionalError[];
   /** The condition subtracted as background (left out of the comparison), when one was; absent or null: none. */
   readonly backgroundCondition?: string | null;
+  /** With the background choice `none`: the condition the sheet's role column marks, left out of the comparison and
+   *  not subtracted; absent or null: none. */
+  readonly backgroundSetAside?: string | null;
+  /** The report's plain reading of the dosage test: per quantity its sentences, then the caveats that apply (the same
+   *  text as report.html's *Reading* and *Caveats*); absent in older summaries. */
+  readonly reading?: CohortReading;
+}
+
+/** The dosage test in words (see CohortSummary.reading). */
+export interface CohortReading {
+  readonly findings: readonly { readonly quantity: string; readonly label: string; readonly sentences: readonly string[] }[];
+  readonly caveats: readonly string[];
 }
 
 /** σx of one condition at the positions shown (x/EL, NaN where the slope is not resolved), with its interval. */
@@ -246,8 +268,11 @@ export interface EgglineApi {
   openDropped(paths: readonly string[]): Promise<ApiResult<FolderEntry[]>>;
   /** Recently opened folders and files. */
   recent(): Promise<ApiResult<string[]>>;
-  /** Read, project and detect one stack (runs off the main thread). */
-  loadStack(path: string, settings: AnalysisSettings): Promise<ApiResult<LoadedStack>>;
+  /** Read, project and detect one stack at the settings' time point (runs off the main thread). With `time`, a movie
+   *  (a plain multi-page file too, when a time step is given) is shown at that time point in the embryo found once for
+   *  the movie on its projection over time (kept, so another time point reads only its own planes), as the batch
+   *  measures it; a newer call with `time` cancels one still under way (code 'cancelled'). */
+  loadStack(path: string, settings: AnalysisSettings, time?: StackTimeOptions | null): Promise<ApiResult<LoadedStack>>;
   /** The middle slice of the first channel, shown at once while loadStack projects and detects (desktop app). */
   loadPreview?(path: string): Promise<ApiResult<StackPreview>>;
   /** One raw slice for the Z slider. */

@@ -174,3 +174,31 @@ export function rowMaxima(plane: Plane, radiusPx: number, into?: Float32Array): 
   }
   return out;
 }
+
+/**
+ * rowMaxima at the listed pixels only (indices into the plane's pixels, in any order, each at most once), written to
+ * the same places of `into` (at least width × height long; other entries are left as they are). Each value has the
+ * same bits as rowMaxima's there: the maximum of the same clipped window, compared on the same integer keys. For
+ * callers that need the row maxima near a thin band of pixels only.
+ */
+export function rowMaximaAt(plane: Plane, radiusPx: number, at: Int32Array, into: Float32Array): void {
+  const { width, height } = plane;
+  if (width * height === 0) return;
+  const r = Math.min(Math.max(0, Math.round(radiusPx)), width - 1);
+  const bits = new Int32Array(plane.data.buffer, plane.data.byteOffset, width * height);
+  const outBits = new Int32Array(into.buffer, into.byteOffset, width * height);
+  windowKeysAt(bits, width, r, at, outBits);
+}
+
+/** For each index p of `at`: out[p] = the float bits of the largest key over row p's pixels within r of p. */
+function windowKeysAt(bits: Int32Array, width: number, r: number, at: Int32Array, out: Int32Array): void {
+  for (let k = 0; k < at.length; k++) {
+    const p = at[k];
+    const x = p % width;
+    const a = p - (x < r ? x : r);
+    const b = p + (width - 1 - x < r ? width - 1 - x : r);
+    let m = BELOW_ALL;
+    for (let i = a; i <= b; i++) m = larger(m, flipKey(bits[i]));
+    out[p] = flipKey(m);
+  }
+}

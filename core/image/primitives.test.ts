@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { createRng } from '../stats';
 import type { Mask, Plane } from '../model';
 import { boxWidthsForSigma, fastGaussianSmooth } from './box-blur';
-import { maxFilter, rowMaxima } from './max-filter';
+import { maxFilter, rowMaxima, rowMaximaAt } from './max-filter';
 import { dilate, erode, open, squareDilate, squareErode } from './morphology';
 import { distanceInside, distanceOutside, squaredDistanceToFeatures } from './distance';
 import { fillHoles } from './fill-holes';
@@ -113,6 +113,27 @@ describe('rowMaxima against a direct row-window search', () => {
           for (let xx = Math.max(0, x - r); xx <= Math.min(w - 1, x + r); xx++) m = Math.max(m, p.data[y * w + xx]);
           expect(out[y * w + x]).toBe(m);
         }
+      }
+    }
+  });
+});
+
+describe('rowMaximaAt against rowMaxima', () => {
+  it('gives the same bits at the listed pixels, in any order, and leaves the others alone', () => {
+    // Source: rowMaxima (checked above against a direct search); the values include ±0, ±Infinity and NaN, whose
+    // bits must come out as rowMaxima gives them.
+    for (const [w, h] of SIZES) {
+      const p = randomPlane(w, h, 5 * w + 3 * h);
+      const specials = [0, -0, Infinity, -Infinity, NaN];
+      for (let i = 0; i < p.data.length; i += 7) p.data[i] = specials[i % specials.length];
+      const at = Int32Array.from({ length: Math.ceil(w * h / 3) }, (_, k) => (k * 3 * 7919) % (w * h)).filter((v, k, a) => a.indexOf(v) === k);
+      for (const r of [0, 1, 2, 5, 40]) {
+        const full = new Int32Array(rowMaxima(p, r).buffer);
+        const into = new Float32Array(w * h).fill(12345);
+        rowMaximaAt(p, r, at, into);
+        const bits = new Int32Array(into.buffer);
+        const listed = new Set(at);
+        for (let i = 0; i < w * h; i++) expect(bits[i]).toBe(listed.has(i) ? full[i] : new Int32Array(Float32Array.of(12345).buffer)[0]);
       }
     }
   });

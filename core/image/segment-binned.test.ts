@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { createRng } from '../stats';
 import type { Plane } from '../model';
-import { autoBinFactor, binMean, checkSegmentOptions, segmentEmbryo, upsampleMask } from './segment';
+import { autoBinFactor, bandReach, binMean, checkSegmentOptions, fractionalBox, segmentEmbryo, smooth121, smoothUpsampled, upsampleMask } from './segment';
 import { fastGaussianSmooth } from './box-blur';
 import { distanceInside, distanceOutside } from './distance';
 import { makeSyntheticEmbryo } from '../synth';
@@ -35,6 +35,40 @@ describe('upsampleMask', () => {
     const small = { width: 2, height: 1, data: Uint8Array.from([1, 0]) };
     expect(Array.from(upsampleMask(small, 2, 4, 2).data)).toEqual([1, 1, 0, 0, 1, 1, 0, 0]);
     expect(Array.from(upsampleMask(small, 3, 6, 1).data)).toEqual([1, 1, 1, 0, 0, 0]);
+  });
+});
+
+describe('the upsampled mask over the band\'s reach', () => {
+  it('holds every band pixel, and gives inside it the values of the whole-image upsampling (random blobs; demo data)', () => {
+    // Source: smoothUpsampled over the whole image (the definition); bandReach's claim checked pixel by pixel.
+    const rng = createRng(21);
+    let bands = 0;
+    for (let trial = 0; trial < 60; trial++) {
+      const sw = 3 + Math.floor(rng.uniform() * 20);
+      const sh = 3 + Math.floor(rng.uniform() * 20);
+      const f = 2 + Math.floor(rng.uniform() * 3);
+      // A random blob: a disc or a half-plane (touching the border), or noise.
+      const kind = trial % 3;
+      const cx = rng.uniform() * sw; const cy = rng.uniform() * sh; const rad = 1 + rng.uniform() * sw / 2;
+      const small = { width: sw, height: sh, data: Uint8Array.from({ length: sw * sh }, (_, i) => {
+        const x = i % sw; const y = Math.floor(i / sw);
+        return kind === 0 ? +((x - cx) ** 2 + (y - cy) ** 2 <= rad * rad) : kind === 1 ? +(x < cx) : +(rng.uniform() < 0.3);
+      }) };
+      const width = sw * f - Math.floor(rng.uniform() * f);
+      const height = sh * f - Math.floor(rng.uniform() * f);
+      const sd = smooth121(small);
+      const whole = smoothUpsampled(sd, sw, sh, f, { x0: 0, y0: 0, x1: width, y1: height });
+      const frac = fractionalBox(sd, sw, sh);
+      const reach = frac ? bandReach(frac, f, width, height, 0) : { x0: 0, y0: 0, x1: width, y1: height };
+      const part = smoothUpsampled(sd, sw, sh, f, reach);
+      for (let y = 0; y < height; y++) for (let x = 0; x < width; x++) {
+        const v = whole[y * width + x];
+        const inReach = x >= reach.x0 && x < reach.x1 && y >= reach.y0 && y < reach.y1;
+        if (v > 0 && v < 1) { bands++; expect(inReach, `trial ${trial} (${x}, ${y})`).toBe(true); }
+        if (inReach) expect(part[(y - reach.y0) * (reach.x1 - reach.x0) + x - reach.x0]).toBe(v);
+      }
+    }
+    expect(bands).toBeGreaterThan(1000);
   });
 });
 

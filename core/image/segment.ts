@@ -4,7 +4,7 @@ import { estimateBackgroundLevel } from './background-level';
 import { largestComponent } from './components';
 import { fillHoles } from './fill-holes';
 import { fastGaussianSmooth } from './box-blur';
-import { rowMaxima } from './max-filter';
+import { rowMaximaAt } from './max-filter';
 import { open, squareDilate, squareErode } from './morphology';
 import { otsuThreshold } from './threshold';
 
@@ -138,8 +138,10 @@ function coarseAtScale(channels: readonly Plane[], sigmaPx: number, factor: 1 | 
  * fineSigmaPx and scaled to noise SDs as channelSnr scales it, is at least edgeFraction of its own local maximum
  * (the maximum over the (2·localRadiusPx + 1)² square, clipped at the border) and above 3 noise SDs; 0 elsewhere.
  * The local maximum of the noise-scaled image is the noise-scaled maximum of the smoothed one (the scaling is
- * monotone), so it is taken on the smoothed values: the maximum of the row maxima (rowMaxima) of the window's rows.
- * Only the pixels where the rule decides anything are listed, so no full-image maximum filter is needed.
+ * monotone), so it is taken on the smoothed values: the maximum of the row maxima of the window's rows. Only the
+ * pixels where the rule decides anything are listed, so neither a full-image maximum filter nor the row maxima of
+ * the whole image are needed: the row maxima are taken only where a listed pixel's window reaches (rowMaximaAt),
+ * about a tenth of the image near the edge band.
  */
 function nearLocalLevelAt(channels: readonly Plane[], at: Int32Array, o: Required<SegmentOptions>, box: PixelBox | null = null): Uint8Array {
   const width = box ? box.x1 - box.x0 : channels[0].width;
@@ -150,14 +152,40 @@ function nearLocalLevelAt(channels: readonly Plane[], at: Int32Array, o: Require
   const crop = box ? new Float32Array(width * height) : null;
   const smoothed = new Float32Array(width * height);
   const rowMax = new Float32Array(width * height);
+  const windowRows = windowRowPixels(at, width, height, r);
   for (const channel of channels) {
     const ch = box && crop ? cropPlane(channel, box, crop) : channel;
     const smooth = fastGaussianSmooth(ch, o.fineSigmaPx, smoothed);
-    const rows = rowMaxima(smooth, r, rowMax);
+    rowMaximaAt(smooth, r, windowRows, rowMax);
     const bg = estimateBackgroundLevel(smooth.data);
-    edgeRuleAt(smooth.data, rows, width, height, r, at, bg.level, bg.noiseSd, o.edgeFraction, keep);
+    edgeRuleAt(smooth.data, rowMax, width, height, r, at, bg.level, bg.noiseSd, o.edgeFraction, keep);
   }
   return keep;
+}
+
+/** The pixels whose row maxima edgeRuleAt reads: for each listed pixel, its column from r rows above to r rows below
+ *  (clipped at the border); each once, in no particular order. */
+function windowRowPixels(at: Int32Array, width: number, height: number, r: number): Int32Array {
+  const seen = new Uint8Array(width * height);
+  const out = new Int32Array(at.length * (2 * r + 1));
+  const n = markColumns(at, width, height, r, seen, out);
+  return out.subarray(0, n);
+}
+
+/** windowRowPixels' loop: appends each not yet seen pixel of the listed pixels' columns to out; returns the count. */
+function markColumns(at: Int32Array, width: number, height: number, r: number, seen: Uint8Array, out: Int32Array): number {
+  let n = 0;
+  for (let k = 0; k < at.length; k++) {
+    const i = at[k];
+    const y = (i / width) | 0;
+    const x = i - y * width;
+    const y0 = y - r < 0 ? 0 : y - r;
+    const y1 = y + r > height - 1 ? height - 1 : y + r;
+    for (let q = y0 * width + x, end = y1 * width + x; q <= end; q += width) {
+      if (seen[q] === 0) { seen[q] = 1; out[n++] = q; }
+    }
+  }
+  return n;
 }
 
 /**
@@ -195,7 +223,7 @@ function cropPlane(plane: Plane, box: PixelBox, into: Float32Array): Plane {
 }
 
 /** Pixel rectangle [x0, x1) × [y0, y1). */
-interface PixelBox { readonly x0: number; readonly y0: number; readonly x1: number; readonly y1: number }
+export interface PixelBox { readonly x0: number; readonly y0: number; readonly x1: number; readonly y1: number }
 
 /** Bounding box of the pixels where 0 < up < 1, grown by marginPx and clipped to the image; null when none. */
 function bandBox(up: Float32Array, width: number, height: number, marginPx: number): PixelBox | null {
@@ -287,7 +315,7 @@ function binRowPairs(data: Float32Array, r: number, width: number, out: Float32A
  * the corners of a blocky staircase are rounded, so the upsampled outline has no bumps at block corners (an outline's
  * extremes, the poles, would pick them up).
  */
-function smooth121(mask: Mask): Float32Array {
+export function smooth121(mask: Mask): Float32Array {
   const { width: w, height: h, data } = mask;
   const tmp = new Float32Array(w * h);
   for (let y = 0; y < h; y++) {
@@ -310,40 +338,40 @@ function smooth121(mask: Mask): Float32Array {
  * smooth, not blocky.
  */
 export function upsampleMask(small: Mask, f: number, width: number, height: number): Mask {
-  const up = smoothUpsampled(small, f, width, height);
+  const up = smoothUpsampled(smooth121(small), small.width, small.height, f, { x0: 0, y0: 0, x1: width, y1: height });
   const out = new Uint8Array(width * height);
   for (let i = 0; i < out.length; i++) out[i] = up[i] >= 0.5 ? 1 : 0;
   return { width, height, data: out };
 }
 
 /**
- * The binned mask after [1 2 1] smoothing, bilinearly interpolated at every full-size pixel centre (0..1). Where
- * the four binned values around a run of pixels are equal (most of the image: all 0 outside, all 1 inside), the
- * interpolation gives that value exactly, so the run is filled with it.
+ * The binned mask after [1 2 1] smoothing (`sd`, sw × sh), bilinearly interpolated at the full-size pixel centres of
+ * `rect` (0..1; the result is rect's size, row-major). Where the four binned values around a run of pixels are equal
+ * (most of the image: all 0 outside, all 1 inside), the interpolation gives that value exactly, so the run is filled
+ * with it; a pixel's value does not depend on the rectangle it is computed in.
  */
-function smoothUpsampled(small: Mask, f: number, width: number, height: number): Float32Array {
-  const { width: sw, height: sh } = small;
-  const sd = smooth121(small);
-  const out = new Float32Array(width * height);
-  const x0 = new Int32Array(width);
-  const x1 = new Int32Array(width);
-  const fx = new Float64Array(width);
-  for (let x = 0; x < width; x++) {
-    const u = Math.min(sw - 1, Math.max(0, (x - (f - 1) / 2) / f));
-    x0[x] = Math.floor(u);
-    x1[x] = Math.min(sw - 1, x0[x] + 1);
-    fx[x] = u - x0[x];
+export function smoothUpsampled(sd: Float32Array, sw: number, sh: number, f: number, rect: PixelBox): Float32Array {
+  const rw = rect.x1 - rect.x0;
+  const out = new Float32Array(rw * (rect.y1 - rect.y0));
+  const x0 = new Int32Array(rw);
+  const x1 = new Int32Array(rw);
+  const fx = new Float64Array(rw);
+  for (let j = 0; j < rw; j++) {
+    const u = Math.min(sw - 1, Math.max(0, (rect.x0 + j - (f - 1) / 2) / f));
+    x0[j] = Math.floor(u);
+    x1[j] = Math.min(sw - 1, x0[j] + 1);
+    fx[j] = u - x0[j];
   }
   // Runs of pixels that share x0 (and so x1): x0 never decreases along a row.
   const runStart: number[] = [];
-  for (let x = 0; x < width; x++) if (x === 0 || x0[x] !== x0[x - 1]) runStart.push(x);
-  runStart.push(width);
-  for (let y = 0; y < height; y++) {
+  for (let j = 0; j < rw; j++) if (j === 0 || x0[j] !== x0[j - 1]) runStart.push(j);
+  runStart.push(rw);
+  for (let y = rect.y0; y < rect.y1; y++) {
     const v = Math.min(sh - 1, Math.max(0, (y - (f - 1) / 2) / f));
     const r0 = Math.floor(v) * sw;
     const r1 = Math.min(sh - 1, Math.floor(v) + 1) * sw;
     const fy = v - Math.floor(v);
-    const o = y * width;
+    const o = (y - rect.y0) * rw;
     for (let k = 0; k + 1 < runStart.length; k++) {
       const xs = runStart[k];
       const xe = runStart[k + 1];
@@ -362,6 +390,38 @@ function smoothUpsampled(small: Mask, f: number, width: number, height: number):
     }
   }
   return out;
+}
+
+/** Bounding box (binned pixels, [x0, x1) × [y0, y1)) of the values strictly between 0 and 1; null when none. */
+export function fractionalBox(sd: Float32Array, sw: number, sh: number): PixelBox | null {
+  let x0 = sw; let y0 = sh; let x1 = -1; let y1 = -1;
+  for (let y = 0; y < sh; y++) {
+    for (let x = 0; x < sw; x++) {
+      const v = sd[y * sw + x];
+      if (!(v > 0 && v < 1)) continue;
+      if (x < x0) x0 = x;
+      if (x > x1) x1 = x;
+      if (y < y0) y0 = y;
+      y1 = y;
+    }
+  }
+  return x1 < 0 ? null : { x0, y0, x1: x1 + 1, y1: y1 + 1 };
+}
+
+/**
+ * Full-size pixels that can lie in the upsampled band (0 < up < 1), grown by marginPx and clipped to the image.
+ * Smoothed with [1 2 1] on both axes, a binned 1 has no 0 among its eight neighbours and a 0 no 1 (each one's
+ * window holds the other), so four binned values around a full-size pixel that are all 0 or 1 are all equal: the
+ * pixel's value is then 0 or 1. Band pixels therefore interpolate a fractional binned value; a pixel's four binned
+ * neighbours are columns x0 and x0 + 1 with x0 = ⌊(x − (f − 1)/2)/f⌋ (clamped), so x0 ≥ fx0 − 1 and x0 < fx1 hold
+ * for x in [f·(fx0 − 1), f·(fx1 + 1)), and likewise for rows.
+ */
+export function bandReach(frac: PixelBox, f: number, width: number, height: number, marginPx: number): PixelBox {
+  const m = Math.ceil(marginPx);
+  return {
+    x0: Math.max(0, f * (frac.x0 - 1) - m), y0: Math.max(0, f * (frac.y0 - 1) - m),
+    x1: Math.min(width, f * (frac.x1 + 1) + m), y1: Math.min(height, f * (frac.y1 + 1) + m),
+  };
 }
 
 /**
@@ -384,33 +444,65 @@ export function segmentEmbryo(channels: readonly Plane[], options: SegmentOption
     ...o, coarseSigmaPx: o.coarseSigmaPx / bin, fineSigmaPx: o.fineSigmaPx / bin, localRadiusPx: o.localRadiusPx / bin,
     coarseDownsample: 1, binFactor: 1,
   });
-  return refineEdge(smoothUpsampled(small, bin, width, height), channels, o);
+  // The upsampled mask is needed only where its edge band can lie and the crop around it reaches (refineEdge).
+  const sd = smooth121(small);
+  const frac = fractionalBox(sd, small.width, small.height);
+  const whole = { x0: 0, y0: 0, x1: width, y1: height };
+  const reach = frac ? bandReach(frac, bin, width, height, refineMarginPx(o)) : whole;
+  const up = smoothUpsampled(sd, small.width, small.height, bin, reach);
+  const band = bandBox(up, reach.x1 - reach.x0, reach.y1 - reach.y0, 0);
+  if (band === null) {
+    // Without band pixels, the mask is the upsampled one over the whole image (reach may not cover all of it).
+    const all = reach === whole ? up : smoothUpsampled(sd, small.width, small.height, bin, whole);
+    const out = new Uint8Array(width * height);
+    for (let i = 0; i < out.length; i++) out[i] = all[i] >= 1 ? 1 : 0;
+    return fillHoles(largestComponent({ width, height, data: out }));
+  }
+  // bandReach holds the crop around the band by construction; should it not, the whole image is used.
+  const box = cropBox(band, reach, refineMarginPx(o), width, height);
+  if (box.x0 < reach.x0 || box.y0 < reach.y0 || box.x1 > reach.x1 || box.y1 > reach.y1) {
+    const all = smoothUpsampled(sd, small.width, small.height, bin, whole);
+    return refineEdge(all, whole, cropBox(bandBox(all, width, height, 0) as PixelBox, whole, refineMarginPx(o), width, height), channels, o);
+  }
+  return refineEdge(up, reach, box, channels, o);
+}
+
+/** The crop refineEdge works in: the band's bounding box (given within `reach`) grown by marginPx, clipped to the
+ *  image (image coordinates). */
+function cropBox(band: PixelBox, reach: PixelBox, marginPx: number, width: number, height: number): PixelBox {
+  const m = Math.ceil(marginPx);
+  return {
+    x0: Math.max(0, band.x0 + reach.x0 - m), y0: Math.max(0, band.y0 + reach.y0 - m),
+    x1: Math.min(width, band.x1 + reach.x0 + m), y1: Math.min(height, band.y1 + reach.y0 + m),
+  };
+}
+
+/** Margin (px) of the crop around the edge band in which refineEdge decides the edge again. */
+function refineMarginPx(o: Required<SegmentOptions>): number {
+  return Math.round(o.localRadiusPx) + 4 * o.fineSigmaPx + REFINE_RING_PX;
 }
 
 /**
- * Full-size mask from the smoothed, upsampled binned mask `up` (0..1): pixels where it is 0 or 1 keep that value;
- * in the band between (within about a block of the binned edge) the full-resolution edge rule of nearLocalLevel
- * decides, so the outline sits where it would without binning. The largest region is kept and its holes filled.
+ * Full-size mask from the smoothed, upsampled binned mask `up` (0..1), given over the rectangle `reach` that holds
+ * every band pixel (0 < up < 1) and the crop `box` around them (cropBox; image coordinates): the edge rule runs on
+ * that crop, wide enough that the smoothing and the local-maximum window reach no crop border from a band pixel,
+ * and that a ring of background sets the noise level as in the whole image. Pixels where `up` is 0 or 1 keep that
+ * value; in the band between (within about a block of the binned edge) the full-resolution edge rule of
+ * nearLocalLevel decides, so the outline sits where it would without binning. The largest region is kept and its holes filled.
  */
-function refineEdge(up: Float32Array, channels: readonly Plane[], o: Required<SegmentOptions>): Mask {
+function refineEdge(up: Float32Array, reach: PixelBox, box: PixelBox, channels: readonly Plane[], o: Required<SegmentOptions>): Mask {
   const { width, height } = channels[0];
-  // The edge rule runs on a crop around the band: wide enough that the smoothing and the local-maximum window
-  // reach no crop border from a band pixel, and that a ring of background sets the noise level as in the whole image.
-  const box = bandBox(up, width, height, Math.round(o.localRadiusPx) + 4 * o.fineSigmaPx + REFINE_RING_PX);
+  const rw = reach.x1 - reach.x0;
   const out = new Uint8Array(width * height);
-  if (box === null) {
-    for (let i = 0; i < out.length; i++) out[i] = up[i] >= 1 ? 1 : 0;
-    return fillHoles(largestComponent({ width, height, data: out }));
-  }
   // The whole region lies inside the box (its edge band does) and the box's rim is background (or the image
   // border), so cleaning up the crop alone gives the same mask as cleaning up the whole frame.
   const cw = box.x1 - box.x0;
   const ch = box.y1 - box.y0;
   const crop = new Uint8Array(cw * ch);
-  const bandCount = cropInterior(up, width, box.x0, box.y0, cw, ch, crop);
+  const bandCount = cropInterior(up, rw, box.x0 - reach.x0, box.y0 - reach.y0, cw, ch, crop);
   // Only band pixels consult the edge rule, so it runs there alone.
   const at = new Int32Array(bandCount);
-  cropBandPixels(up, width, box.x0, box.y0, cw, ch, at);
+  cropBandPixels(up, rw, box.x0 - reach.x0, box.y0 - reach.y0, cw, ch, at);
   const keep = nearLocalLevelAt(channels, at, o, box);
   copyAt(keep, at, crop);
   const clean = fillHoles(largestComponent(open({ width: cw, height: ch, data: crop }, 1.5))).data;

@@ -241,9 +241,34 @@ export interface CohortOptions {
    *  lies inside [1 − m, 1 + m] (two one-sided tests); default none. */
   readonly equivalenceMargin?: number | null;
   /** A condition of the sheet (e.g. a null or secondary-only staining) whose mean profile is subtracted from every
-   *  other embryo's profile before λ and the boundaries are fitted again; its embryos are not compared. Default:
-   *  the condition whose rows say `background` in the sheet's `role` column, else none. */
+   *  other embryo's profile before λ and the boundaries are fitted again; its embryos are not compared. The word
+   *  `none` (NO_BACKGROUND_CONDITION) subtracts nothing, even when the sheet's `role` column marks a condition (whose
+   *  rows then stay out of the comparison). Default (null): the condition whose rows say `background` in the sheet's
+   *  `role` column, else none. */
   readonly backgroundCondition?: string | null;
+  /** Who gave `backgroundCondition`, as the record states it (e.g. `--background-condition`, the project's cohort
+   *  entry); default `--background-condition`. */
+  readonly backgroundConditionNamedBy?: string;
+}
+
+/** The value of `backgroundCondition` (flag, project, window) that asks for no background condition. */
+export const NO_BACKGROUND_CONDITION = 'none';
+
+/** Which background rule the cohort step used and why (present whenever a condition was named, the word `none`
+ *  was given, or the sheet's role column marks a condition). */
+export interface BackgroundChoiceRecord {
+  /** 'option': a condition named by the caller; 'sheet': the one the role column marks; 'none': nothing subtracted. */
+  readonly rule: 'option' | 'sheet' | 'none';
+  /** The condition subtracted; null with rule 'none'. */
+  readonly condition: string | null;
+  /** With rule 'none': the condition the role column marks, left out of the comparison and not subtracted; else null. */
+  readonly setAside: string | null;
+  /** The set-aside condition's embryos (files) in the results; empty when none. */
+  readonly setAsideFiles: readonly string[];
+  /** Who made the choice: `--background-condition`, the project's cohort entry, or the sample sheet's role column. */
+  readonly namedBy: string;
+  /** The rule in force and why, one sentence. */
+  readonly why: string;
 }
 
 /** Options with every default filled in. */
@@ -282,6 +307,9 @@ export interface CohortAnalysis {
   /** Present only when a background condition was subtracted: then every λ, amplitude and boundary above is the
    *  refitted, background-subtracted value (see BackgroundConditionRecord). */
   readonly backgroundCondition?: BackgroundConditionRecord;
+  /** Which background rule was used and why; absent when no condition was named, `none` was not asked for and the
+   *  sheet marks none (then nothing was subtracted and nothing set aside). */
+  readonly backgroundChoice?: BackgroundChoiceRecord;
   /** Per condition, the mean paired difference λ_dorsal − λ_ventral of embryos measured on each side (--edge-side
    *  each); empty or absent when none was. */
   readonly sideDifferences?: readonly SideDifferenceRow[];
@@ -360,8 +388,10 @@ export interface BackgroundConditionSummary {
 /** What subtracting a background condition did: the condition, its embryos, its profiles and every refitted value. */
 export interface BackgroundConditionRecord {
   readonly condition: string;
-  /** Where the name came from: the --background-condition option, or the sample sheet's role column. */
+  /** Where the name came from: the --background-condition option (or the project's entry), or the sheet's role column. */
   readonly source: 'option' | 'sheet';
+  /** Who named it, as written in background_condition.json (see BackgroundChoiceRecord.namedBy). */
+  readonly namedBy?: string;
   /** The background condition's embryos (files), in sheet order. */
   readonly files: readonly string[];
   /** The rule in one sentence. */

@@ -152,6 +152,12 @@ export interface ExponentialFit {
   /** x/EL of each point used in the fit, and its residual (data − model). */
   readonly xEl: Float64Array;
   readonly residuals: Float64Array;
+  /**
+   * Each side's own fit with --edge-side each only: the depth term (EL), in lambdaSe* and the interval: half the
+   * change of λ when only the outer half of the band is sampled, added in quadrature (an error smooth along the side
+   * that no residual sees; see the README's methods). Absent elsewhere.
+   */
+  readonly depthTermEl?: number;
 }
 
 /**
@@ -347,3 +353,4 @@ export interface Detection {
 export { errorResult, oneLine } from './error-result';
 export { resultKey, resultKeyOf, resultTimeIndex, parseResultKey, withTimePoint, embryoResults, type ResultKey } from './result-key';
 export type * from './cohort';
+export { NO_BACKGROUND_CONDITION } from './cohort';

@@ -9,8 +9,8 @@ import { maskOutline } from '../geometry';
 import { prepareSampling } from './prepare';
 import { fitProfile, fitProfileWeighted, measureEmbryo } from './measure';
 import { sampleBandOutline } from './band-outline';
-import { withDepthTerm } from './sides';
-import type { DecayLengthDifference } from '../model';
+import { sideWithDepthTerm, withDepthTerm } from './sides';
+import type { DecayLengthDifference, ExponentialFit } from '../model';
 
 // Demo data: a 200×80 rectangle "embryo" (x 20..219, y 20..99) in a 240×120 frame; channel 1 = 50 + 1000·exp(−x/λ)
 // with λ = 40 px above the axis (y < 59.5, left of A→P = +x in image coordinates) and 25 px below, no noise.
@@ -66,6 +66,8 @@ describe('the edge band with each side measured on its own', () => {
     // Source: demo data: λ does not change with depth here, so the outer half of the band gives the same difference
     // and the depth term is 0 (the interval is the model's).
     expect(left.difference!.depthTermEl).toBeCloseTo(0, 6);
+    expect(left.dorsalFit!.depthTermEl).toBeCloseTo(0, 6);
+    expect(left.ventralFit!.depthTermEl).toBeCloseTo(0, 6);
   });
 
   it('outlines the two sides\' bands separately', () => {
@@ -108,6 +110,28 @@ describe('the depth term of the difference', () => {
   });
   it('leaves the difference as it is when the outer half could not be fitted', () => {
     expect(withDepthTerm(d, null)).toBe(d);
+  });
+});
+
+describe('the depth term of each side\'s own λ', () => {
+  // Source: hand calculation (demo data): λ = 100 µm = 0.2 EL (egg 500 µm) with SE 3 µm and t = 2 (interval 94–106);
+  // the outer half gives 108 µm, so T = |100 − 108|/2 = 4 µm = 0.008 EL, SE' = √(3² + 4²) = 5 µm and the interval
+  // 100 ± 2·5.
+  const fit = { lambdaUm: 100, lambdaEl: 0.2, lambdaSeUm: 3, lambdaSeEl: 0.006, lambdaCiLowUm: 94, lambdaCiHighUm: 106, lambdaSeModelUm: 3, lambdaSeSerialUm: 2, lambdaSeSource: 'model' } as ExponentialFit;
+  it('adds half the change with the outer half of the band in quadrature and keeps the t quantile', () => {
+    const r = sideWithDepthTerm(fit, { ...fit, lambdaUm: 108, lambdaEl: 0.216 });
+    expect(r.depthTermEl).toBeCloseTo(0.008, 12);
+    expect(r.lambdaSeUm).toBeCloseTo(5, 12);
+    expect(r.lambdaSeEl).toBeCloseTo(0.01, 12);
+    expect([r.lambdaCiLowUm, r.lambdaCiHighUm]).toEqual([expect.closeTo(90, 9), expect.closeTo(110, 9)]);
+    expect([r.lambdaUm, r.lambdaSeModelUm, r.lambdaSeSerialUm, r.lambdaSeSource]).toEqual([100, 3, 2, 'model']);
+  });
+  it('widens only the SE in EL when the pixel size is unknown, and leaves the fit when the outer half failed', () => {
+    const noPx = { ...fit, lambdaUm: NaN, lambdaSeUm: NaN, lambdaCiLowUm: NaN, lambdaCiHighUm: NaN };
+    const r = sideWithDepthTerm(noPx, { ...noPx, lambdaEl: 0.216 });
+    expect(r.lambdaSeEl).toBeCloseTo(0.01, 12);
+    expect(r.lambdaSeUm).toBeNaN();
+    expect(sideWithDepthTerm(fit, null)).toBe(fit);
   });
 });
 

@@ -1,6 +1,6 @@
 // Each side of the sampled region profiled and fitted on its own, and the paired difference λ_dorsal − λ_ventral
 // (the edge band with --edge-side each). The sides use the same bins, weights and fit as the main profile.
-import type { DecayLengthDifference, Profile, SidesMeasurement } from '../model';
+import type { DecayLengthDifference, ExponentialFit, Profile, SidesMeasurement } from '../model';
 import { decayLengthDifference, type SideFit } from '../fit';
 import { fitProfileWeighted } from './measure';
 
@@ -30,13 +30,21 @@ export function withDepthTerm(d: DecayLengthDifference, outer: DecayLengthDiffer
   };
 }
 
-/** λ_dorsal − λ_ventral of the outer half of the band (null when either fit or the difference fails; no warnings). */
-function outerHalfDifference(outer: { readonly dorsal: Profile; readonly ventral: Profile }, axisPx: number, pixelSizeUm: number | null, fitRangeEl: readonly [number, number], eggLengthUm: number | null): DecayLengthDifference | null {
-  const quiet: string[] = [];
-  const d = fitProfileWeighted(outer.dorsal, axisPx, pixelSizeUm, fitRangeEl, quiet);
-  const v = fitProfileWeighted(outer.ventral, axisPx, pixelSizeUm, fitRangeEl, quiet);
-  if (!d || !v) return null;
-  return decayLengthDifference(d, v, eggLengthUm);
+/**
+ * One side's fit with the depth term added: half the change of its λ when only the outer half of the band is sampled,
+ * T = |λ − λ_outer|/2, in quadrature with its SE, SE' = √(SE² + T²) (in µm and EL); the interval (µm) keeps its t
+ * quantile. Unchanged when the outer half's fit is null.
+ */
+export function sideWithDepthTerm(fit: ExponentialFit, outer: ExponentialFit | null): ExponentialFit {
+  if (outer === null || !Number.isFinite(outer.lambdaEl)) return fit;
+  const termEl = Math.abs(fit.lambdaEl - outer.lambdaEl) / 2;
+  const lambdaSeEl = Math.hypot(fit.lambdaSeEl, termEl);
+  if (!Number.isFinite(fit.lambdaSeUm)) return { ...fit, lambdaSeEl, depthTermEl: termEl };
+  const t = (fit.lambdaCiHighUm - fit.lambdaUm) / fit.lambdaSeUm;
+  const lambdaSeUm = Math.hypot(fit.lambdaSeUm, Math.abs(fit.lambdaUm - outer.lambdaUm) / 2);
+  return {
+    ...fit, lambdaSeUm, lambdaSeEl, lambdaCiLowUm: fit.lambdaUm - t * lambdaSeUm, lambdaCiHighUm: fit.lambdaUm + t * lambdaSeUm, depthTermEl: termEl,
+  };
 }
 
 /**
@@ -52,14 +60,19 @@ export function measureSides(sides: SideProfiles, axisPx: number, pixelSizeUm: n
   };
   const dorsal = fitSide('dorsal');
   const ventral = fitSide('ventral');
-  const dorsalFit = dorsal?.fit ?? null;
-  const ventralFit = ventral?.fit ?? null;
+  // The outer half of the band's depth on each side (no warnings: it only sets the depth terms).
+  const quiet: string[] = [];
+  const outer = sides.outerHalf;
+  const outerDorsal = dorsal && outer ? fitProfileWeighted(outer.dorsal, axisPx, pixelSizeUm, fitRangeEl, quiet) : null;
+  const outerVentral = ventral && outer ? fitProfileWeighted(outer.ventral, axisPx, pixelSizeUm, fitRangeEl, quiet) : null;
   let difference = null;
   if (dorsal && ventral) {
     const eggLengthUm = pixelSizeUm !== null ? axisPx * pixelSizeUm : null;
     difference = decayLengthDifference(dorsal, ventral, eggLengthUm);
     if (difference === null) warnings.push('the dorsal − ventral difference of λ could not be computed (the sides share too few bins in the fit range)');
-    else if (sides.outerHalf) difference = withDepthTerm(difference, outerHalfDifference(sides.outerHalf, axisPx, pixelSizeUm, fitRangeEl, eggLengthUm));
+    else if (outer) difference = withDepthTerm(difference, outerDorsal && outerVentral ? decayLengthDifference(outerDorsal, outerVentral, eggLengthUm) : null);
   }
+  const dorsalFit = dorsal ? (outer ? sideWithDepthTerm(dorsal.fit, outerDorsal?.fit ?? null) : dorsal.fit) : null;
+  const ventralFit = ventral ? (outer ? sideWithDepthTerm(ventral.fit, outerVentral?.fit ?? null) : ventral.fit) : null;
   return { dorsalProfile: sides.dorsal, ventralProfile: sides.ventral, dorsalFit, ventralFit, difference };
 }

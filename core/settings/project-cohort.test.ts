@@ -20,6 +20,13 @@ describe('project cohort options', () => {
     for (const n of ['scale-offset', 'none', 'amplitude', 'minmax']) expect(checkProjectCohort({ normalisation: n })).toEqual({ normalisation: n });
   });
 
+  it('keeps the background choice "none" (subtract nothing) apart from an absent field (the sheet\'s role column decides)', () => {
+    // Source: this project's rule (README, Background condition); condition names are demo data.
+    expect(read({ backgroundCondition: 'none' }).cohort).toEqual({ backgroundCondition: 'none' });
+    expect(read({ reference: 'none', backgroundCondition: 'none' }).cohort).toEqual({ reference: 'none', backgroundCondition: 'none' });
+    expect(read({}).cohort).toEqual({});
+  });
+
   it('reads a project file without a cohort entry (older files) with no cohort options', () => {
     expect(parseProjectText(JSON.stringify(base), 'old.json').cohort).toBeUndefined();
     expect(read(null).cohort).toBeUndefined();

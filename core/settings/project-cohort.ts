@@ -1,6 +1,6 @@
 // The project's cohort options (how conditions are compared): checked with the same rules and wording as the
 // `eggline cohort` flags. Every field is optional; an absent one takes the cohort step's default.
-import type { Normalisation } from '../model';
+import { NO_BACKGROUND_CONDITION, type Normalisation } from '../model';
 import { badField } from './project-error';
 import { isRecord } from './check-values';
 import type { ProjectCohortOptions } from './project-types';
@@ -30,7 +30,8 @@ export function checkProjectCohort(value: unknown, where = 'cohort'): ProjectCoh
   const out: { -readonly [K in keyof ProjectCohortOptions]: ProjectCohortOptions[K] } = {};
   if (value.reference !== undefined && value.reference !== null) out.reference = checkConditionName(value.reference, `${where}.reference`);
   if (value.backgroundCondition !== undefined && value.backgroundCondition !== null) out.backgroundCondition = checkConditionName(value.backgroundCondition, `${where}.backgroundCondition`);
-  if (out.reference !== undefined && out.reference === out.backgroundCondition) badField(`${where}.backgroundCondition`, `must differ from the reference ("${out.reference}")`);
+  // `none` (no background condition) is a choice, not a condition, so it never clashes with the reference.
+  if (out.reference !== undefined && out.reference === out.backgroundCondition && out.backgroundCondition !== NO_BACKGROUND_CONDITION) badField(`${where}.backgroundCondition`, `must differ from the reference ("${out.reference}")`);
   if (value.normalisation !== undefined && value.normalisation !== null) {
     if (typeof value.normalisation !== 'string' || !(COHORT_NORMALISATIONS as readonly string[]).includes(value.normalisation)) {
       badField(`${where}.normalisation`, `must be scale-offset, none, amplitude or minmax (got ${JSON.stringify(value.normalisation)})`);

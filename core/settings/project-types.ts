@@ -34,7 +34,8 @@ export interface FileEdits {
 export interface ProjectCohortOptions {
   /** Reference condition; absent: the one with dosage 1. */
   readonly reference?: string;
-  /** Condition of null or secondary-only stainings subtracted as background; absent: the sheet's role column, else none. */
+  /** Condition of null or secondary-only stainings subtracted as background, or `none` (subtract nothing, even when the
+   *  sheet's role column marks a condition); absent: the sheet's role column, else none. */
   readonly backgroundCondition?: string;
   /** Profile normalisation before averaging; absent: scale-offset. */
   readonly normalisation?: Normalisation;

@@ -11,7 +11,7 @@ export { sampleTypeOf, bytesPerSample } from './sample-type';
 export { describeCompression, unsupportedCompression } from './compression';
 export { micrometresPerUnit } from './units';
 export { secondsPerUnit } from './time-units';
-export { resolveTimeAxis, pagesAsTimePoints, evenTimes, omeTimeAxis, imagejTimeAxis, UNKNOWN_TIME } from './time-axis';
+export { resolveTimeAxis, pagesAsTimePoints, pagesAsTimePointsWithSource, evenTimes, omeTimeAxis, imagejTimeAxis, UNKNOWN_TIME } from './time-axis';
 export { micrometresPerPixel } from './resolution';
 export { DIMENSION_ORDERS, isDimensionOrder, planeNumber, planeCoordinates, planeSlot, type PlaneCounts } from './dimension-order';
 export { parseOmeXml, looksLikeOmeXml, type OmeImage, type OmeTiffData } from './ome';

@@ -1,6 +1,6 @@
 // Time of each time point of a stack: OME Plane/@DeltaT (per plane), else Pixels/@TimeIncrement, else ImageJ's
 // finterval, else a step the user gives; the source is recorded like the pixel size's.
-import type { StackInfo, TimeAxis } from '../model';
+import type { PlaneSource, StackInfo, TimeAxis } from '../model';
 import type { ImageJDescription } from './imagej';
 import type { OmeImage } from './ome';
 
@@ -37,6 +37,24 @@ export function pagesAsTimePoints(info: StackInfo): StackInfo {
   // Old slot (z, c, 0) = c·pages + z; new slot (0, c, t) = t·sizeC + c.
   for (let t = 0; t < pages; t++) for (let c = 0; c < sizeC; c++) planeIfd[t * sizeC + c] = info.planeIfd[c * pages + t];
   return { ...info, sizeZ: 1, sizeT: pages, planeIfd, time: info.time ?? UNKNOWN_TIME };
+}
+
+/**
+ * A file and its plane source read with pagesAsTimePoints: the source then serves plane (z 0, c, t) from the file's
+ * page (z = t, c), since a source checks and maps planes by the file's own layout. Files pagesAsTimePoints leaves as
+ * they are keep their source.
+ */
+export function pagesAsTimePointsWithSource(info: StackInfo, source: PlaneSource): { info: StackInfo; source: PlaneSource } {
+  const frames = pagesAsTimePoints(info);
+  if (frames === info) return { info, source };
+  return {
+    info: frames,
+    source: {
+      readPlane: (z, c, t, into) => (z === 0 ? source.readPlane(t, c, 0, into)
+        : Promise.reject(new RangeError(`plane (z=${z}, c=${c}, t=${t}) is outside the stack (Z 1, C ${frames.sizeC}, T ${frames.sizeT})`))),
+      close: () => source.close(),
+    },
+  };
 }
 
 /**

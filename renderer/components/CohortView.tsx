@@ -3,7 +3,7 @@
 // numbers formatted by core/figures so they read the same. Without one: a single-group summary of the batch.
 import { embryoResults } from '../../core/batch';
 import { useMemo } from 'react';
-import type { BatchSummary, CohortConditionRow, CohortSummary } from '../../core/contract';
+import type { BatchSummary, CohortConditionRow, CohortReading, CohortSummary } from '../../core/contract';
 import { quantityLabel, slopeRatio, type DosageFit, type ShiftRow } from '../../core/cohort';
 import { cohortProfilesFigure, lambdaByConditionFigure, plainNumber, sigFig, valueWithCi } from '../../core/figures';
 import { lambdaSummaryEl, lambdaValuesEl, meanScaledProfile } from '../export/cohortSeries';
@@ -117,7 +117,24 @@ function DosageTest({ c }: { c: CohortSummary }) {
       {c.dosageFit.length > 0 && <SlopeTable c={c} />}
       {c.shifts.length > 0 && <ShiftTable c={c} />}
       {smallN && <p className="muted small">Conditions with one embryo have no confidence interval; the value alone is shown.</p>}
+      {c.reading && <Reading reading={c.reading} />}
     </div>
+  );
+}
+
+/** The report's reading of the dosage test in words, and the caveats that apply (the same text as report.html). */
+function Reading({ reading }: { reading: CohortReading }) {
+  return (
+    <details className="cohort-reading" data-testid="cohort-reading" open>
+      <summary>Reading and caveats <span className="muted small">(as in report.html; they support, not replace, your judgement)</span></summary>
+      {reading.findings.map((f) => (
+        <div key={f.quantity} data-testid="cohort-finding" data-quantity={f.quantity}>
+          <h5>{f.label}</h5>
+          {f.sentences.map((t) => <p key={t} className="small">{t}</p>)}
+        </div>))}
+      <h5>Caveats</h5>
+      <ul className="small" data-testid="cohort-caveats">{reading.caveats.map((t) => <li key={t}>{t}</li>)}</ul>
+    </details>
   );
 }
 

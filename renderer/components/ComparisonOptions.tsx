@@ -1,9 +1,10 @@
 // The cohort step's options in the Cohort tab ("Comparison options"): reference and background condition, profile
 // normalisation, equivalence margin and an opposing posterior gradient's decay length. The values are checked with
 // the command line's rules and wording (core/settings); the numbers are recomputed in the main process, never here.
+// Each change is an ordinary project edit: Undo and Redo step through it like the window's other edits.
 import { useEffect, useState } from 'react';
 import type { ProjectCohortOptions } from '../../core/contract';
-import type { Normalisation } from '../../core/cohort';
+import { NO_BACKGROUND_CONDITION, type Normalisation } from '../../core/cohort';
 import { COHORT_NORMALISATIONS, equivalenceMarginProblem, lambdaPosteriorElProblem } from '../../core/settings';
 
 /** What the window says for each normalisation (the first is the default). */
@@ -66,7 +67,8 @@ export interface ComparisonOptionsProps {
 /** The options area of the Cohort tab; every change is saved in the project and recomputes the comparison. */
 export function ComparisonOptions({ options, conditions, busy, onChange }: ComparisonOptionsProps) {
   // A condition kept in the project but not in this sheet stays listed, so the choice is visible and can be changed.
-  const names = [...conditions, ...[options.reference, options.backgroundCondition].filter((n): n is string => n !== undefined && !conditions.includes(n))];
+  // "none" is a choice (subtract nothing), not a condition.
+  const names = [...conditions, ...[options.reference, options.backgroundCondition].filter((n): n is string => n !== undefined && n !== NO_BACKGROUND_CONDITION && !conditions.includes(n))];
   return (
     <fieldset className="comparison-options" data-testid="cohort-options" aria-busy={busy}>
       <legend>Comparison options <span className="muted small">saved in the project; <code>eggline cohort --project</code> and <code>eggline batch</code> use them{busy ? ' · recomputing…' : ''}</span></legend>
@@ -79,10 +81,11 @@ export function ComparisonOptions({ options, conditions, busy, onChange }: Compa
       </label>
       <label className="comparison-option">
         <span>Background condition</span>
-        <select data-testid="cohort-opt-background" value={options.backgroundCondition ?? ''} title="Null or secondary-only stainings: their mean profile is subtracted from every other embryo's, and λ and boundaries are fitted again"
+        <select data-testid="cohort-opt-background" value={options.backgroundCondition ?? ''} title="From the sample sheet: the condition its role column marks background, else none. A condition of null or secondary-only stainings: its mean profile is subtracted from every other embryo's, and λ and boundaries are fitted again; none: nothing is subtracted (a condition the sheet's role column marks stays out of the comparison)"
           onChange={(e) => onChange(withOption(options, 'backgroundCondition', e.target.value))}>
-          <option value="">the sheet's role column, else none (default)</option>
-          {names.filter((n) => n !== options.reference).map((n) => <option key={n} value={n}>{n}</option>)}
+          <option value="">from the sample sheet (default)</option>
+          <option value={NO_BACKGROUND_CONDITION}>none: subtract nothing</option>
+          {names.filter((n) => n !== options.reference && n !== NO_BACKGROUND_CONDITION).map((n) => <option key={n} value={n}>{n}</option>)}
         </select>
       </label>
       <label className="comparison-option">

@@ -10,7 +10,7 @@ const ROWS: [string, string][] = [
   ['F or 0', 'fit the image to the window'],
   ['drag the yellow lines', 'change the fit range on the profile'],
   ['PgDn / PgUp or ] / [', 'next / previous file'],
-  ['Ctrl+Z, Ctrl+Shift+Z', "undo, redo (the settings and the shown file's hand edits; other files are never changed)"],
+  ['Ctrl+Z, Ctrl+Shift+Z', "undo, redo (the settings, the comparison options and the shown file's hand edits; other files are never changed)"],
   ['Ctrl+S', 'save now (edits also save themselves)'],
   ['Tab, then arrows', 'a focused A/P handle or landmark moves 1 px (Shift: 10 px); a focused fit-range line moves 0.01 EL (Shift: 0.05)'],
   ['Tab, then arrows, Home, End', 'a focused histogram handle moves the display range 1% of the data range (Shift: 10%); Home and End go to its ends'],

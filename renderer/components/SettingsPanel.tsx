@@ -10,16 +10,19 @@ export interface SettingsPanelProps {
   readonly settings: AnalysisSettings;
   readonly channelNames: readonly string[];
   readonly dispatch: Dispatch<EditorAction>;
+  /** The window's shown time point: the time point field shows it (one state with the Embryo view's time point); a
+   *  time point typed there is shown and saved as the settings' time point. */
+  readonly shownTimeIndex?: number;
 }
 
 /** The settings form. */
-export function SettingsPanel({ settings, channelNames, dispatch }: SettingsPanelProps) {
+export function SettingsPanel({ settings, channelNames, dispatch, shownTimeIndex }: SettingsPanelProps) {
   const onChange = (patch: SettingsOverrides) => dispatch({ type: 'setSetting', patch });
   return (
     <section className="panel settings" data-testid="settings">
       <h3>Analysis settings <span className="muted">shared by all files · saved in the project</span></h3>
       <ChannelSettings settings={settings} onChange={onChange} channelNames={channelNames} />
-      <ProjectionSettings settings={settings} onChange={onChange} />
+      <ProjectionSettings settings={shownTimeIndex === undefined ? settings : { ...settings, timeIndex: shownTimeIndex }} onChange={onChange} />
       <ProfileSettings settings={settings} onChange={onChange} />
       <BackgroundSettings settings={settings} onChange={onChange} />
       <FitSettings settings={settings} onChange={onChange} />

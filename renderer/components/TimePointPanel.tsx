@@ -1,4 +1,5 @@
-// The shown time point of a movie in the Embryo view: which one it is, a step to the previous or next analysed one,
+// The shown time point of a movie in the Embryo view: which one it is, a slider and steps to any other (before or
+// after the analysis over time),
 // whether hand edits of the axis, landmarks and fit range apply to every time point or to this one alone, and a way
 // back to the file's edits at this time point.
 import type { MovieView, TimePointEdits } from '../../core/contract';
@@ -29,7 +30,7 @@ export interface TimePointPanelProps {
   readonly sizeT: number;
   /** The time of the shown time point in words ("t = 80 min"), or null when unknown. */
   readonly timeText: string | null;
-  /** The analysed time points to step through (empty before the movie is analysed over time). */
+  /** The time points analysed over time (empty before the movie is analysed over time). */
   readonly analysed: readonly number[];
   /** True while the image and numbers still show another time point (the new one is loading). */
   readonly loading: boolean;
@@ -48,17 +49,19 @@ export function ownFieldsText(own: TimePointEdits): string {
 
 /** The panel (shown for movies only). */
 export function TimePointPanel(p: TimePointPanelProps) {
-  const at = p.analysed.indexOf(p.tIndex);
-  const go = (d: number) => { const t = p.analysed[at + d]; if (t !== undefined) p.dispatch({ type: 'showTimePoint', tIndex: t }); };
+  const go = (t: number) => { if (Number.isInteger(t) && t >= 0 && t < p.sizeT) p.dispatch({ type: 'showTimePoint', tIndex: t }); };
+  const notAnalysed = p.analysed.length > 0 && !p.analysed.includes(p.tIndex);
   return (
     <section className="panel time-point" data-testid="time-point-panel" aria-label="time point">
       <h3>Time point</h3>
       <div className="tp-row">
-        <button aria-label="previous analysed time point" title="Previous analysed time point" disabled={at <= 0} onClick={() => go(-1)}>◀</button>
+        <button aria-label="previous time point" title="Previous time point" disabled={p.tIndex <= 0} onClick={() => go(p.tIndex - 1)}>◀</button>
         <span data-testid="embryo-time-label" data-t={p.tIndex}>{p.tIndex + 1} of {p.sizeT}{p.timeText ? ` · ${p.timeText}` : ''}{p.loading ? ' · loading…' : ''}</span>
-        <button aria-label="next analysed time point" title="Next analysed time point" disabled={at < 0 || at >= p.analysed.length - 1} onClick={() => go(1)}>▶</button>
+        <button aria-label="next time point" title="Next time point" disabled={p.tIndex >= p.sizeT - 1} onClick={() => go(p.tIndex + 1)}>▶</button>
       </div>
-      {p.analysed.length === 0 && <p className="muted small">Analyse the movie on the Over time tab to step through its time points here.</p>}
+      <input type="range" className="tp-slider" data-testid="embryo-time-slider" aria-label="time point" min={0} max={p.sizeT - 1} step={1}
+        value={Math.min(p.tIndex, p.sizeT - 1)} onChange={(e) => go(Number(e.target.value))} />
+      {notAnalysed && <p className="muted small" data-testid="time-point-not-analysed">Not among the time points analysed over time.</p>}
       <fieldset className="tp-scope">
         <legend>Moving the axis, landmarks or fit range changes</legend>
         <label title="The file's edits: they hold at every time point that has none of its own">

@@ -76,7 +76,7 @@ function groups(p: ToolbarProps): Group[] {
       { id: 'auto-axis', label: 'Auto axis', title: 'Back to the automatic axis', testId: 'auto-axis', onClick: () => dispatch({ type: 'resetAxis' }) },
     ]),
     g('history', 4, [
-      { id: 'undo', label: 'Undo', title: 'Undo the last edit of this file or the settings (Ctrl+Z)', testId: 'undo', disabled: !canUndo(state), onClick: () => dispatch({ type: 'undo' }) },
+      { id: 'undo', label: 'Undo', title: 'Undo the last edit of this file, the settings or the comparison options (Ctrl+Z)', testId: 'undo', disabled: !canUndo(state), onClick: () => dispatch({ type: 'undo' }) },
       { id: 'redo', label: 'Redo', title: 'Redo (Ctrl+Shift+Z)', testId: 'redo', disabled: !canRedo(state), onClick: () => dispatch({ type: 'redo' }) },
     ]),
     g('view', 1, [

@@ -22,4 +22,8 @@ describe('sheetConditionsOf', () => {
     expect(sheetConditionsOf(cohort(['wt'], null), ['x'])).toEqual(['wt']);
     expect(sheetConditionsOf(null, ['wt', 'half'])).toEqual(['wt', 'half']);
   });
+  it('lists a condition set aside by the choice "none" last too, so it can be chosen again', () => {
+    const aside = { cohort: { conditions: [{ name: 'wt' }], backgroundCondition: null, backgroundSetAside: 'null-stain' } } as unknown as Parameters<typeof sheetConditionsOf>[0];
+    expect(sheetConditionsOf(aside, [])).toEqual(['wt', 'null-stain']);
+  });
 });

@@ -26,12 +26,14 @@ export interface BatchState {
 
 const START: BatchState = { outDir: null, running: false, runId: null, done: 0, total: 0, files: [], summary: null, error: null, sheetConditions: [], recomputing: false };
 
-/** The sheet's conditions a summary compared (the background condition, left out of the comparison, last). */
+/** The sheet's conditions a summary compared (the background condition, or the one set aside with `none`, both left
+ *  out of the comparison, last). */
 export function sheetConditionsOf(summary: BatchSummary | null, previous: readonly string[]): readonly string[] {
   const c = summary?.cohort;
   if (!c) return previous;
   const names = c.conditions.map((r) => r.name);
-  return c.backgroundCondition ? [...names, c.backgroundCondition] : names;
+  const aside = [c.backgroundCondition, c.backgroundSetAside].filter((n): n is string => typeof n === 'string' && n !== '');
+  return [...names, ...aside];
 }
 
 /** Fold one progress event into the state (pure). */

@@ -15,13 +15,10 @@ export interface MovieState {
   readonly error: string | null;
   /** What the analysis was made from (settings, the file's hand edits, options), to tell when it is out of date. */
   readonly basis: string | null;
-  /** The shared settings the analysis was made with (JSON): the movie's embryo holds for the Embryo view while they
-   *  are the same. */
-  readonly settings: string | null;
 }
 
 /** Nothing analysed yet. */
-export const MOVIE_IDLE: MovieState = { status: 'idle', file: null, done: 0, total: 0, view: null, error: null, basis: null, settings: null };
+export const MOVIE_IDLE: MovieState = { status: 'idle', file: null, done: 0, total: 0, view: null, error: null, basis: null };
 
 /** The defaults of the batch's time flags (--tau-range 0.1,0.4, --baseline-frames 1, axis once per movie). */
 export const DEFAULT_MOVIE_OPTIONS: MovieRequestOptions = { axisPerTime: false, tauRangeEl: [0.1, 0.4], baselineFrames: 1, timeStepS: null };
@@ -64,8 +61,8 @@ export function useMovie(api: EgglineApi | null) {
     running.current = true;
     // While it runs the earlier outcome stays on screen (marked out of date), so the view does not go blank.
     setState((s) => (s.file === req.file && s.view !== null
-      ? { ...MOVIE_IDLE, status: 'running', file: req.file, basis: s.basis, settings: s.settings, view: s.view }
-      : { ...MOVIE_IDLE, status: 'running', file: req.file, basis: req.basis, settings: JSON.stringify(req.doc.settings) }));
+      ? { ...MOVIE_IDLE, status: 'running', file: req.file, basis: s.basis, view: s.view }
+      : { ...MOVIE_IDLE, status: 'running', file: req.file, basis: req.basis }));
     const r = await api.analyseMovie(req.path, req.file, req.doc, req.options);
     running.current = false;
     const next = queued.current;
@@ -74,7 +71,7 @@ export function useMovie(api: EgglineApi | null) {
     setState((s) => {
       const out = applyMovieAnswer(s, req.file, r);
       // A cancelled or failed rerun keeps nothing: its earlier outcome no longer matches what was asked.
-      return out.status === 'done' ? { ...out, basis: req.basis, settings: JSON.stringify(req.doc.settings) } : { ...out, view: null };
+      return out.status === 'done' ? { ...out, basis: req.basis } : { ...out, view: null };
     });
   };
   /** Analyse `file` (at `path`) with the project's settings and hand edits; `basis` names what it is made from. A

@@ -1,6 +1,6 @@
 // Loads the shown file through the API whenever it or a setting that changes loading changes.
 import { useEffect, useState } from 'react';
-import type { EgglineApi, LoadedStack, StackPreview } from '../../core/contract';
+import type { EgglineApi, LoadedStack, StackPreview, StackTimeOptions } from '../../core/contract';
 import type { AnalysisSettings } from '../../core/settings';
 
 /** What the loader reports. */
@@ -16,14 +16,15 @@ export interface StackLoad {
 }
 
 /** Settings that change what loadStack returns (projection, detection); others only change live measurement. */
-export function loadKey(path: string | null, s: AnalysisSettings): string {
-  return JSON.stringify([path, s.projection, s.sliceIndex, s.timeIndex, s.pixelSizeUm, s.anterior, s.gradientChannel]);
+export function loadKey(path: string | null, s: AnalysisSettings, time: StackTimeOptions | null = null): string {
+  return JSON.stringify([path, s.projection, s.sliceIndex, s.timeIndex, s.pixelSizeUm, s.anterior, s.gradientChannel, s.flatFieldFile, s.backgroundImageFile, time]);
 }
 
-/** Load `path` with `settings`; stale answers (the user moved on) are dropped. */
-export function useStackLoader(api: EgglineApi | null, path: string | null, settings: AnalysisSettings): StackLoad {
+/** Load `path` with `settings` at the settings' time point (a movie's in the movie's embryo, read with `time`'s time
+ *  step); stale answers (the user moved on) are dropped, and the app stops the stale load itself. */
+export function useStackLoader(api: EgglineApi | null, path: string | null, settings: AnalysisSettings, time: StackTimeOptions | null = null): StackLoad {
   const [load, setLoad] = useState<StackLoad>({ stack: null, loading: false, error: null, preview: null, timeIndex: null });
-  const key = loadKey(path, settings);
+  const key = loadKey(path, settings, time);
   useEffect(() => {
     if (api === null || path === null) return;
     let live = true;
@@ -36,7 +37,7 @@ export function useStackLoader(api: EgglineApi | null, path: string | null, sett
         if (live && !stackArrived && r.ok) setLoad((l) => ({ ...l, preview: { path, plane: r.value } }));
       }, () => undefined);
     }
-    api.loadStack(path, settings).then((r) => {
+    api.loadStack(path, settings, time).then((r) => {
       if (!live) return;
       stackArrived = true;
       setLoad(r.ok ? { stack: r.value, loading: false, error: null, preview: null, timeIndex: settings.timeIndex }

@@ -17,5 +17,6 @@ export function initialState(): EditorState {
     past: [],
     future: [],
     revision: 0,
+    cohortRevision: 0,
   };
 }

@@ -198,6 +198,40 @@ describe('setView / setTool', () => {
   });
 });
 
+describe('setCohortOptions', () => {
+  // Demo condition names; the options are the project's cohort entry.
+  it('is an ordinary undoable edit: undo puts back the previous options (none kept: the entry goes), redo re-applies', () => {
+    const s1 = reduce(opened(), { type: 'setCohortOptions', cohort: { backgroundCondition: 'none' } });
+    const s2 = reduce(s1, { type: 'setCohortOptions', cohort: { backgroundCondition: 'none', normalisation: 'minmax' } });
+    expect([s2.past.length, canUndo(s2)]).toEqual([2, true]);
+    const u1 = reduce(s2, { type: 'undo' });
+    expect(u1.doc.cohort).toEqual({ backgroundCondition: 'none' });
+    const u2 = reduce(u1, { type: 'undo' });
+    expect(u2.doc.cohort).toBeUndefined();
+    expect('cohort' in u2.doc).toBe(false);
+    expect(u2.doc.settings).toBe(s2.doc.settings);
+    expect(reduce(u2, { type: 'redo' }).doc.cohort).toEqual({ backgroundCondition: 'none' });
+    // Each change, undo and redo counts as a change of the options (the window compares again on it); the revision
+    // moves too, so the project is saved.
+    expect([s1.cohortRevision, s2.cohortRevision, u1.cohortRevision, u2.cohortRevision]).toEqual([1, 2, 3, 4]);
+    expect(u2.revision).toBeGreaterThan(s2.revision);
+  });
+  it('undo of an option works whichever file is shown, and a settings edit does not count as an option change', () => {
+    const s = run(opened(), { type: 'setCohortOptions', cohort: { reference: 'half' } }, { type: 'selectFile', key: 'other.tif', autoAxis: AUTO });
+    expect(reduce(s, { type: 'undo' }).doc.cohort).toBeUndefined();
+    const t = reduce(s, { type: 'setSetting', patch: { projection: 'max' } });
+    expect(t.cohortRevision).toBe(s.cohortRevision);
+    // Undo takes the settings edit back first, then the option.
+    const back = run(t, { type: 'undo' }, { type: 'undo' });
+    expect([back.doc.settings.projection, back.doc.cohort]).toEqual([opened().doc.settings.projection, undefined]);
+  });
+  it('opening a project does not count as an option change and clears the history', () => {
+    const s = reduce(opened(), { type: 'setCohortOptions', cohort: { reference: 'half' } });
+    const o = reduce(s, { type: 'openDoc', doc: { settings: s.doc.settings, files: {}, cohort: { normalisation: 'none' } } });
+    expect([o.cohortRevision, o.past.length]).toEqual([s.cohortRevision, 0]);
+  });
+});
+
 describe('undo / redo', () => {
   it('undo restores the previous document; redo re-applies; a new edit clears redo', () => {
     const s1 = run(opened(), { type: 'addLandmark', point: { x: 5, y: 5 } }, { type: 'moveLandmark', index: 0, point: { x: 9, y: 9 } });

@@ -16,7 +16,7 @@ export const HISTORY_LIMIT = 200;
 export function perform(state: EditorState, action: EditorAction): ActionOutcome {
   switch (action.type) {
     case 'openDoc': return openDoc(state, action.doc);
-    case 'setCohortOptions': return { state: { ...state, doc: { ...state.doc, cohort: action.cohort } }, history: 'none' };
+    case 'setCohortOptions': return { state: { ...state, doc: { ...state.doc, cohort: action.cohort } }, history: 'push' };
     case 'selectFile': return selectFile(state, action.key, action.autoAxis);
     case 'showTimePoint': return showTimePoint(state, action.tIndex);
     case 'setEditScope': return setEditScope(state, action.scope);
@@ -78,8 +78,15 @@ export function redo(state: EditorState): EditorState {
   return { ...state, doc: restoreEntry(state.doc, entry), past, future, selectedLandmark: null, revision: state.revision + 1 };
 }
 
-/** The React reducer: perform, then record the previous document when the action enters history. */
+/** The React reducer: perform, record the previous document when the action enters history, and count changes of the
+ *  comparison options (an edit, undo or redo; opening a project is not one). */
 export function editorReducer(state: EditorState, action: EditorAction): EditorState {
+  const next = withHistory(state, action);
+  return action.type !== 'openDoc' && next.doc.cohort !== state.doc.cohort ? { ...next, cohortRevision: state.cohortRevision + 1 } : next;
+}
+
+/** Perform, then record the previous document when the action enters history. */
+function withHistory(state: EditorState, action: EditorAction): EditorState {
   const { state: next, history } = perform(state, action);
   if (action.type === 'undo' || action.type === 'redo' || action.type === 'openDoc') return next;
   const docChanged = next.doc !== state.doc;

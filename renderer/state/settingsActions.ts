@@ -29,9 +29,11 @@ export function setDorsalSide(state: EditorState, side: 'left' | 'right' | null)
 }
 
 /** Merge `patch` into the analysis settings (shared by every file of the project); nested groups merge key by key.
- *  Settings that break a rule of the settings table are not taken (the fields refuse them first, with the message). */
+ *  Settings that break a rule of the settings table are not taken (the fields refuse them first, with the message).
+ *  A time point given here is also the one shown (the window has one time point). */
 export function setSetting(state: EditorState, patch: SettingsOverrides): ActionOutcome {
   const settings = applyOverrides(state.doc.settings, patch);
   if (settingsProblem(settings) !== null) return { state, history: 'none' };
-  return { state: { ...state, doc: { ...state.doc, settings } }, history: 'push' };
+  const shownTimeIndex = patch.timeIndex === undefined ? state.shownTimeIndex : settings.timeIndex;
+  return { state: { ...state, shownTimeIndex, doc: { ...state.doc, settings } }, history: 'push' };
 }

@@ -66,3 +66,16 @@ describe('a movie\'s own time points and time step', () => {
     expect(storedEdits(run(s, { type: 'undo' })).time).toBe('10:25');
   });
 });
+
+describe('the window\'s one time point', () => {
+  it('a time point set in the settings is the one shown, and another file opens at the settings\' time point', () => {
+    const s = run(movieAt(12), { type: 'setSetting', patch: { timeIndex: 5 } });
+    expect([s.shownTimeIndex, s.doc.settings.timeIndex]).toEqual([5, 5]);
+    // Stepping shows another time point without changing the setting (no undo step, nothing saved).
+    const stepped = run(s, { type: 'showTimePoint', tIndex: 6 });
+    expect([stepped.shownTimeIndex, stepped.doc.settings.timeIndex, stepped.past.length]).toEqual([6, 5, s.past.length]);
+    expect(run(stepped, { type: 'selectFile', key: 'other.tif', autoAxis: null }).shownTimeIndex).toBe(5);
+    // Another setting leaves the shown time point alone.
+    expect(run(stepped, { type: 'setSetting', patch: { projection: 'max' } }).shownTimeIndex).toBe(6);
+  });
+});

@@ -24,17 +24,19 @@ export interface DisplayState {
   readonly channels: readonly ChannelDisplay[];
 }
 
-/** One undo/redo step: the value to put back for the settings or for one file's edits (undefined = no edits). */
+/** One undo/redo step: the value to put back for the settings, the comparison options (undefined = none kept) or one
+ *  file's edits (undefined = no edits). */
 export type HistoryEntry =
   | { readonly kind: 'settings'; readonly settings: AnalysisSettings }
+  | { readonly kind: 'cohort'; readonly cohort: ProjectCohortOptions | undefined }
   | { readonly kind: 'file'; readonly key: string; readonly edits: FileEdits | undefined };
 
 /** The part of the state that undo/redo restores and the project file stores. */
 export interface DocState {
   readonly settings: AnalysisSettings;
   readonly files: Readonly<Record<string, FileEdits>>;
-  /** How the cohort step compares conditions (the Cohort tab's options); absent: the defaults. Not undoable: each
-   *  change recomputes the comparison at once and is saved. */
+  /** How the cohort step compares conditions (the Cohort tab's options); absent: the defaults. Undoable like the
+   *  settings; each change (an edit, undo or redo) recomputes the comparison (see cohortRevision) and is saved. */
   readonly cohort?: ProjectCohortOptions;
 }
 
@@ -61,6 +63,9 @@ export interface EditorState {
   readonly future: readonly HistoryEntry[];
   /** Bumped whenever doc changes, so the autosave effect can debounce on it. */
   readonly revision: number;
+  /** Bumped whenever the comparison options change by an edit, undo or redo (not when a project opens), so the window
+   *  compares the conditions again with them. */
+  readonly cohortRevision: number;
 }
 
 /** Which end of the AP axis a handle moves. */

@@ -37,10 +37,11 @@ export const setTool = (state: EditorState, tool: ToolName): ActionOutcome => sh
 /** Select a landmark (or none). */
 export const selectLandmark = (state: EditorState, index: number | null): ActionOutcome => shown({ ...state, selectedLandmark: index });
 
-/** Show another file: its automatic axis comes from the loaded stack; history is kept (undo then reaches only this file's edits and the settings). */
+/** Show another file (at the settings' time point): its automatic axis comes from the loaded stack; history is kept
+ *  (undo then reaches only this file's edits and the settings). */
 export function selectFile(state: EditorState, key: string, autoAxis: ApAxis | null): ActionOutcome {
   const same = key === state.current;
-  const shownTimeIndex = same ? state.shownTimeIndex : 0;
+  const shownTimeIndex = same ? state.shownTimeIndex : state.doc.settings.timeIndex;
   return shown({ ...state, current: key, shownTimeIndex, editScope: same ? state.editScope : 'file', autoAxis, selectedLandmark: null });
 }
 

@@ -83,6 +83,58 @@ describe('eggline cohort --background-condition', () => {
     expect(JSON.parse(readFileSync(join(out, 'background_condition.json'), 'utf8')).namedBy).toBe('role column of the sample sheet');
   });
 
+  describe('the choice "none": subtract nothing, even when the role column marks a condition', () => {
+    // Source: this project's rule (README, Background condition), on demo data.
+    const marked = join(dir, 'marked-none.csv');
+    writeFileSync(marked, demo.sheet.split('\n').map((l, i) => (i === 0 ? `${l},role` : l === '' ? l : `${l},${l.startsWith('null') ? 'background' : 'sample'}`)).join('\n'));
+    const plain = join(dir, 'plain.csv');
+    writeFileSync(plain, demo.sheet.split('\n').filter((l) => !l.startsWith('null')).join('\n'));
+    const tables = ['conditions.csv', 'shifts.csv', 'dosage_fit.csv', 'positional_error.csv'];
+
+    it('eggline cohort --background-condition none: the batch\'s own numbers without the marked condition, the record says why', async () => {
+      const out = join(dir, 'none');
+      // First a run that subtracts (the role column), then "none" into the same folder: no subtraction table is left.
+      expect(await cohortCommand([run, '--samples', marked, '--out', out], buffers().io)).toBe(0);
+      expect(existsSync(join(out, 'background_refit.csv'))).toBe(true);
+      const b = buffers();
+      expect(await cohortCommand([run, '--samples', marked, '--background-condition', 'none', '--out', out], b.io)).toBe(0);
+      expect(b.out.join('')).toContain('no background condition: --background-condition is "none": nothing is subtracted; "null-stain", marked background in the sample sheet\'s role column, is left out of the comparison (background_condition.json)');
+      for (const f of ['background_profile.csv', 'background_refit.csv', 'background_conditions.csv', 'background-condition.svg', 'background-condition.png']) expect(existsSync(join(out, f))).toBe(false);
+      const record = JSON.parse(readFileSync(join(out, 'background_condition.json'), 'utf8'));
+      expect(record).toMatchObject({ condition: null, choice: 'none', namedBy: '--background-condition', setAside: 'null-stain', setAsideEmbryos: ['null_1.tif', 'null_2.tif', 'null_3.tif'], sampleSheet: 'marked-none.csv' });
+      // The same tables as a sheet without the null-stained rows, byte for byte: nothing was subtracted.
+      const ref = join(dir, 'plain-out');
+      expect(await cohortCommand([run, '--samples', plain, '--out', ref], buffers().io)).toBe(0);
+      for (const t of tables) expect(readFileSync(join(out, t), 'utf8')).toBe(readFileSync(join(ref, t), 'utf8'));
+      const html = readFileSync(join(out, 'report.html'), 'utf8');
+      expect(html).toContain('<strong>No background condition subtracted:</strong> --background-condition is &quot;none&quot;');
+      expect(html).toContain('<h2 id="background">Background condition</h2><p>None: ');
+      // Without any choice or role column there is no record at all.
+      expect(existsSync(join(ref, 'background_condition.json'))).toBe(false);
+    });
+
+    it('from the project (and the flag over it): the record names who chose', async () => {
+      const project = join(dir, 'none.eggline.json');
+      writeFileSync(project, JSON.stringify({ schema: 'eggline-project', version: 2, folder: '.', settings: {}, files: {}, cohort: { backgroundCondition: 'none' } }));
+      const out = join(dir, 'none-project');
+      expect(await cohortCommand([run, '--samples', marked, '--project', project, '--out', out], buffers().io)).toBe(0);
+      expect(JSON.parse(readFileSync(join(out, 'background_condition.json'), 'utf8'))).toMatchObject({ choice: 'none', namedBy: "the project's cohort.backgroundCondition" });
+      const over = join(dir, 'none-over');
+      expect(await cohortCommand([run, '--samples', marked, '--project', project, '--background-condition', 'null-stain', '--out', over], buffers().io)).toBe(0);
+      expect(JSON.parse(readFileSync(join(over, 'background_condition.json'), 'utf8'))).toMatchObject({ condition: 'null-stain', choice: 'option', namedBy: '--background-condition' });
+    });
+
+    it('the window\'s summary with "none" says so first and offers the set-aside condition; its numbers are the command line\'s', async () => {
+      const s = await cohortSummaryFor(demo.results, marked, { reference: null, backgroundCondition: 'none', backgroundConditionNamedBy: "the project's cohort.backgroundCondition", normalisation: 'scale-offset', lambdaPosteriorEl: null, equivalenceMargin: null }, run);
+      expect(s.warnings[0]).toBe('no background condition: the project\'s cohort.backgroundCondition is "none": nothing is subtracted; "null-stain", marked background in the sample sheet\'s role column, is left out of the comparison');
+      expect(s.conditions.map((c) => c.name)).toEqual(['dosage-1x', 'dosage-2x']);
+      expect(s.backgroundCondition).toBeNull();
+      expect(s.backgroundSetAside).toBe('null-stain');
+      const lam = rowsOf(join(dir, 'none', 'conditions.csv')).find((r) => r.condition === 'dosage-1x' && r.quantity === 'lambda' && r.unit === 'EL')!;
+      expect(s.stats.find((x) => x.condition === 'dosage-1x' && x.quantity === 'lambda' && x.unit === 'EL')!.mean).toBe(Number(lam.mean));
+    });
+  });
+
   it('bad input: one line naming the sheet or condition, exit 1', async () => {
     const b = buffers();
     expect(await cohortCommand([run, '--samples', sheetPath, '--background-condition', 'secondary-only', '--out', join(dir, 'bad')], b.io)).toBe(1);

@@ -7,7 +7,7 @@ import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { cohortCommand } from '../../app/cli/cohort-command';
-import { valueWithCi } from '../../core/figures';
+import { escapeXml, valueWithCi } from '../../core/figures';
 import { ARTIFACTS, chooseBatchOutput, ensureRendererBuilt, startReadyHarness, testIdText } from './harness';
 import type { Harness } from './harness';
 
@@ -96,6 +96,14 @@ describe('comparison options in the Cohort tab', { timeout: 240_000 }, () => {
       expect(shiftCells[i][4]).toBe(signed(row.predicted_shift_el, row.predicted_ci_low, row.predicted_ci_high));
     }
 
+    // The reading and its caveats under the dosage test are report.html's, word for word.
+    const caveats = await page.locator('[data-testid=cohort-caveats] li').allTextContents();
+    expect(caveats.length).toBeGreaterThan(1);
+    const report = await fs.readFile(join(cliOut, 'report.html'), 'utf8');
+    for (const c of caveats) expect(report).toContain(`<li>${escapeXml(c)}</li>`);
+    const firstFinding = await page.getByTestId('cohort-finding').first().locator('p').first().textContent();
+    expect(report).toContain(`<p>${escapeXml(firstFinding ?? '')}</p>`);
+
     // The choice is saved in the project (autosave), and `eggline cohort --project` over it writes the same table.
     const projectPath = join(dirname(sheet), 'eggline-project.json');
     await expect.poll(async () => (JSON.parse(await fs.readFile(projectPath, 'utf8')) as { cohort?: unknown }).cohort, { timeout: 10_000 })
@@ -127,6 +135,63 @@ describe('comparison options in the Cohort tab', { timeout: 240_000 }, () => {
     await expect.poll(() => page.getByTestId('cohort-condition').count(), { timeout: 60_000 }).toBe(names.length - 1);
     expect(await page.getByTestId('cohort-warnings').first().textContent()).toContain(`background condition "${background}"`);
     expect(await page.locator(`[data-testid=cohort-opt-background] option[value="${background}"]`).count()).toBe(1);
+    await page.getByTestId('cohort-opt-background').selectOption('');
+    await expect.poll(() => page.getByTestId('cohort-condition').count(), { timeout: 60_000 }).toBe(names.length);
+  });
+
+  it('"none" with a role column in the sheet gives eggline cohort --background-condition none\'s numbers; Undo and Redo step through the choice', async () => {
+    const { page } = h;
+    const sheet = await text(page, 'cohort-sheet');
+    const original = await fs.readFile(sheet, 'utf8');
+    const names = await page.getByTestId('cohort-condition').evaluateAll((els) => els.map((e) => e.getAttribute('data-name') ?? ''));
+    const reference = await page.getByTestId('cohort-opt-reference').inputValue();
+    const marked = names.find((n) => n !== reference) as string;
+    // Demo data: the sheet's rows of one condition marked background in a role column.
+    const [head, ...lines] = original.trim().split(/\r?\n/);
+    const condIndex = head.split(',').indexOf('condition');
+    await fs.writeFile(sheet, [`${head},role`, ...lines.map((l) => `${l},${l.split(',')[condIndex] === marked ? 'background' : ''}`)].join('\n') + '\n');
+    try {
+      const firstNote = () => page.locator('[data-testid=cohort-warnings] li').first().textContent();
+      // "none": nothing is subtracted, and the marked condition stays out of the comparison.
+      await page.getByTestId('cohort-opt-background').selectOption('none');
+      await expect.poll(firstNote, { timeout: 60_000 }).toContain('no background condition:');
+      expect(await firstNote()).toContain(`"${marked}", marked background in the sample sheet's role column, is left out of the comparison`);
+      await expect.poll(() => page.getByTestId('cohort-options').getAttribute('aria-busy'), { timeout: 60_000 }).toBe('false');
+      expect(await page.getByTestId('cohort-condition').count()).toBe(names.length - 1);
+      expect(await page.locator(`[data-testid=cohort-opt-background] option[value="${marked}"]`).count()).toBe(1);
+
+      // The command line with the same options (the project's, which the window saved) and --background-condition none.
+      const projectPath = join(dirname(sheet), 'eggline-project.json');
+      await expect.poll(async () => (JSON.parse(await fs.readFile(projectPath, 'utf8')) as { cohort?: { backgroundCondition?: string } }).cohort?.backgroundCondition, { timeout: 10_000 }).toBe('none');
+      const cliOut = join(scratch, 'cli-none');
+      expect(await cohortCommand([out, '--samples', sheet, '--project', projectPath, '--background-condition', 'none', '--out', cliOut], quiet)).toBe(0);
+      const rows = await csvRows(join(cliOut, 'positional_error.csv'));
+      let compared = 0;
+      for (const condition of names.filter((n) => n !== marked)) {
+        for (const x of ['0.3', '0.4']) {
+          const cell = page.locator(`[data-testid=cohort-sigma-row][data-condition="${condition}"] td[data-x="${x}"]`);
+          expect(await cell.textContent()).toBe(shownSigma(rows, condition, Number(x)));
+          compared += 1;
+        }
+      }
+      expect(compared).toBe((names.length - 1) * 2);
+      expect(rows.some((r) => r.condition === marked)).toBe(false);
+      const record = JSON.parse(await fs.readFile(join(cliOut, 'background_condition.json'), 'utf8')) as { choice: string; setAside: string };
+      expect([record.choice, record.setAside]).toEqual(['none', marked]);
+
+      // Undo: back to the default (the role column subtracts the marked condition); Redo: "none" again.
+      await page.getByTestId('undo').click();
+      await expect.poll(() => page.getByTestId('cohort-opt-background').inputValue()).toBe('');
+      await expect.poll(firstNote, { timeout: 60_000 }).toContain(`after subtracting background condition "${marked}"`);
+      await page.getByTestId('redo').click();
+      await expect.poll(() => page.getByTestId('cohort-opt-background').inputValue()).toBe('none');
+      await expect.poll(firstNote, { timeout: 60_000 }).toContain('no background condition:');
+      await expect.poll(() => page.getByTestId('cohort-options').getAttribute('aria-busy'), { timeout: 60_000 }).toBe('false');
+      await page.screenshot({ path: join(ARTIFACTS, 'cohort-options-none.png') });
+    } finally {
+      await fs.writeFile(sheet, original);
+    }
+    // Back to the default for the tests after this one (the sheet has no role column again).
     await page.getByTestId('cohort-opt-background').selectOption('');
     await expect.poll(() => page.getByTestId('cohort-condition').count(), { timeout: 60_000 }).toBe(names.length);
   });

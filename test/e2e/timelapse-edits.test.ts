@@ -137,9 +137,9 @@ describe('the window\'s movie controls', { timeout: 180_000 }, () => {
     await expect.poll(() => page.locator('footer.statusbar').textContent()).toContain('time point 16 of 46');
     await expect.poll(() => liveLambdaEl(page), { timeout: 30_000 }).toBeCloseTo(Number(rowAt(reference, 15).lambda_el), 9);
     // The panel's step goes to the next analysed time point, and the numbers follow.
-    await page.getByRole('button', { name: 'next analysed time point' }).click();
+    await page.getByRole('button', { name: 'next time point' }).click();
     await expect.poll(() => liveLambdaEl(page), { timeout: 30_000 }).toBeCloseTo(Number(rowAt(reference, 16).lambda_el), 9);
-    await page.getByRole('button', { name: 'previous analysed time point' }).click();
+    await page.getByRole('button', { name: 'previous time point' }).click();
     await expect.poll(() => liveLambdaEl(page), { timeout: 30_000 }).toBeCloseTo(Number(rowAt(reference, 15).lambda_el), 9);
     for (const [w, hgt] of [[1440, 900], [1280, 720]] as const) {
       await page.setViewportSize({ width: w, height: hgt });
@@ -165,10 +165,10 @@ describe('the window\'s movie controls', { timeout: 180_000 }, () => {
     expect((saved.timePoints as Record<string, { axis: { source: string } }>)['15'].axis.source).toBe('hand');
     const edited = await liveLambdaEl(page);
     // The next time point keeps the file's (automatic) axis.
-    await page.getByRole('button', { name: 'next analysed time point' }).click();
+    await page.getByRole('button', { name: 'next time point' }).click();
     await expect.poll(() => liveLambdaEl(page), { timeout: 30_000 }).toBeCloseTo(Number(rowAt(reference, 16).lambda_el), 9);
     expect(await page.getByTestId('time-point-own').count()).toBe(0);
-    await page.getByRole('button', { name: 'previous analysed time point' }).click();
+    await page.getByRole('button', { name: 'previous time point' }).click();
     await expect.poll(() => liveLambdaEl(page), { timeout: 30_000 }).toBeCloseTo(edited, 12);
     // The batch's time pass over the same project file (the file's own time points, 10:25, come with it).
     const rows = await batchRows('all', join(scratch, 'batch-edited'));

@@ -55,6 +55,24 @@ describe('analysis worker (built bundle)', () => {
     await expect(runner.run(bad, 'bad.tif', DEFAULT_SETTINGS)).rejects.toMatchObject({ name: 'TiffError', message: expect.stringMatching(/^bad\.tif: /) });
   });
 
+  it('shows a movie\'s time point in the embryo found over time, twice with the same kept embryo, and stops a load when told', async () => {
+    // Source: demo data (a 5-frame variant of the demo movie).
+    const movie = join(dataDir, 'steps.ome.tif');
+    await writeFile(movie, demoMovieFile({ ...DEMO_MOVIE_PARAMS, frames: 5 }));
+    const time = { timeStepS: null, axisPerTime: false };
+    const at1 = await runner.run(movie, 'steps.ome.tif', { ...DEFAULT_SETTINGS, timeIndex: 1 }, time);
+    const at3 = await runner.run(movie, 'steps.ome.tif', { ...DEFAULT_SETTINGS, timeIndex: 3 }, time);
+    expect(at3.detection.axis).toEqual(at1.detection.axis);
+    // The kept mask stays whole in the worker after an answer moved its copy here.
+    expect(at3.detection.mask.data.length).toBe(at3.info.sizeX * at3.info.sizeY);
+    const stop = new AbortController();
+    const stale = runner.run(movie, 'steps.ome.tif', { ...DEFAULT_SETTINGS, timeIndex: 4 }, time, stop.signal);
+    stop.abort();
+    await expect(stale).rejects.toMatchObject({ name: 'AbortError', message: 'steps.ome.tif: loading cancelled (another view was asked for)' });
+    // The worker goes on answering.
+    expect((await runner.run(movie, 'steps.ome.tif', { ...DEFAULT_SETTINGS, timeIndex: 2 }, time)).detection.axis).toEqual(at1.detection.axis);
+  });
+
   it('analyses a movie over time with a progress message per time point, and stops when closed', async () => {
     // Source: demo data (a 5-frame variant of the demo movie).
     const movie = join(dataDir, 'movie.ome.tif');

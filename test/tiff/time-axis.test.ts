@@ -7,9 +7,10 @@ import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { readStackInfoFromFile } from '../../core/io';
 import {
-  describeStack, memoryByteSource, pagesAsTimePoints, readStackInfo, resolveTimeAxis, writeOmeTiff, writePlainTiff,
+  describeStack, memoryByteSource, pagesAsTimePoints, pagesAsTimePointsWithSource, readStackInfo, resolveTimeAxis, writeOmeTiff, writePlainTiff,
 } from '../../core/tiff';
 import type { ByteSource } from '../../core/tiff';
+import type { PlaneSource } from '../../core/model';
 
 const dir = mkdtempSync(join(tmpdir(), 'eggline-time-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -79,6 +80,15 @@ describe('time points from our own writer and from the user', () => {
     expect([frames.sizeZ, frames.sizeT]).toEqual([1, 4]);
     expect(Array.from(frames.planeIfd)).toEqual([0, 1, 2, 3]);
     expect(resolveTimeAxis(frames, 30)).toEqual({ timesS: Float64Array.of(0, 30, 60, 90), source: 'user' });
+    // Its plane source serves time point t from page t (the file's own source knows only its Z slices).
+    const asked: number[][] = [];
+    const pages: PlaneSource = { readPlane: async (z, c, t) => { asked.push([z, c, t]); return plane(z + 1); }, close: async () => undefined };
+    const timed = pagesAsTimePointsWithSource(info, pages);
+    expect(timed.info.sizeT).toBe(4);
+    expect((await timed.source.readPlane(0, 0, 2)).data[0]).toBe(3);
+    expect(asked).toEqual([[2, 0, 0]]);
+    await expect(timed.source.readPlane(1, 0, 0)).rejects.toThrow('plane (z=1, c=0, t=0) is outside the stack (Z 1, C 1, T 4)');
+    expect(pagesAsTimePointsWithSource(frames, pages).source).toBe(pages);
     // The file's own times win over the user's step, with a warning, as the pixel size does.
     const ome = await readStackInfo(memoryByteSource(writeOmeTiff([plane(1), plane(2)], {
       sizeZ: 1, sizeC: 1, sizeT: 2, dimensionOrder: 'XYZCT', channelNames: ['g'], physicalSizeXUm: 1, timeIncrementS: 5,

@@ -55,9 +55,10 @@ export function timeSourceText(source: string | null | undefined): string {
   }
 }
 
-/** The file's own times, when it gives them (then a time step is not used). */
+/** The file's own times, when it gives them (then a time step is not used); times made from the user's time step (a
+ *  file loaded with it) are not the file's. */
 function fileTimeSource(info: StackInfo | null): string | null {
-  return info?.time && info.time.timesS !== null ? info.time.source : null;
+  return info?.time && info.time.timesS !== null && info.time.source !== 'user' ? info.time.source : null;
 }
 
 /** The time points to analyse and the time step: the --time and --time-step flags' rules and wording. */
