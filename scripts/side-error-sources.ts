@@ -6,6 +6,7 @@
 //   - reseed:   the same placement (centre, angle) with other noise (the share of the error fixed by the geometry)
 //   - angleA:   A→P at A degrees to the image's x axis (e.g. angle0, angle22.5), other placement as drawn
 //   - uniformA: as angleA with the stain the same at every depth (no nuclear layer: interiorLevel 1)
+//   - binsN@A:  as angleA, analysed with N bins along the axis instead of the default
 //   - truemask: the generator's outline (the ellipse of the egg) and poles given as the detection
 //   - flat:     no nuclear texture (nucleiContrast 0)
 //   - sharp:    almost no blur (0.1 px in every slice)
@@ -45,6 +46,7 @@ function params(variant: string, k: number): Partial<SyntheticEmbryoParams> {
   const base: Partial<SyntheticEmbryoParams> = { widthPx: 384, heightPx: 384, pixelSizeUm: 1.5, sizeZ: 8, rightLambdaUm: 100, dosage: [0.5, 1, 2, 4][k % 4] };
   const f = 5;
   if (variant.startsWith('angle')) return { ...base, angleDeg: Number(variant.slice(5)) };
+  if (variant.startsWith('bins')) return { ...base, angleDeg: Number(variant.split('@')[1]) };
   if (variant.startsWith('uniform')) return { ...base, angleDeg: Number(variant.slice(7)), interiorLevel: 1 };
   switch (variant) {
     case 'photons': return { ...base, gradientAmplitude: P.gradientAmplitude * f, gradientBaseline: P.gradientBaseline * f, boundaryThreshold: P.boundaryThreshold * f,
@@ -76,7 +78,8 @@ for (const variant of variants) {
     const e = variant === 'reseed'
       ? makeSyntheticEmbryo({ ...params(variant, k), ...syntheticPlacement(params(variant, k), seed) }, seed + 7_000_000)
       : makeSyntheticEmbryo(params(variant, k), seed);
-    const r = await analyseStack(syntheticStackInfo(e), syntheticPlaneSource(e), settings, { fileLabel: `embryo-${k}`, ...(variant === 'truemask' ? { detection: trueDetection(e) } : {}) });
+    const bins = variant.startsWith('bins') ? Number(variant.slice(4).split('@')[0]) : settings.profile.binCount;
+    const r = await analyseStack(syntheticStackInfo(e), syntheticPlaneSource(e), { ...settings, profile: { ...settings.profile, binCount: bins } }, { fileLabel: `embryo-${k}`, ...(variant === 'truemask' ? { detection: trueDetection(e) } : {}) });
     const d = r.sides?.dorsalFit, v = r.sides?.ventralFit, p = r.gradientFit;
     if (!d || !v || !p) { rows.push({ d: NaN, v: NaN, p: NaN, seD: NaN, seV: NaN, seP: NaN, inD: false, inV: false, inP: false }); continue; }
     const inside = (f: typeof d) => f.lambdaCiLowUm <= 100 && 100 <= f.lambdaCiHighUm;

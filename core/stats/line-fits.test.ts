@@ -92,6 +92,29 @@ describe('randomInterceptLine', () => {
     expect(f.ciHigh).toBeCloseTo(0.12101375124571813, 10);
     expect(f.interceptSe).toBeCloseTo(0.012135387998045262, 12);
   });
+  it('reproduces a textbook meta-regression: teacher expectancy effects against weeks of prior contact', () => {
+    // Source: Raudenbush (2009), "Analyzing effect sizes: random-effects models", in The Handbook of Research Synthesis
+    // and Meta-Analysis, 2nd ed., ch. 16, Table 16.2 (mixed-effects model, weeks capped at 3): τ² = 0, coefficients
+    // 0.407 and −0.157, Q_E = 16.57, z = 4.68 and −4.39, as reproduced in the metafor package's own test
+    // tests/testthat/test_analysis_example_raudenbush2009.r. Effect sizes yi and variances vi as printed for
+    // dat.raudenbush1985 on metafor-project.org (tips: multiple factors and interactions). The weeks of prior contact
+    // are from memory (2, 21, 19, 0, 0, 3, 17, 24, 0, 1, 0, 0, 1, 2, 17, 5, 1, 2, 7); each agrees with the category
+    // (none 0, some 1–9, high 10+) printed there for that study.
+    const yi = [0.03, 0.12, -0.14, 1.18, 0.26, -0.06, -0.02, -0.32, 0.27, 0.80, 0.54, 0.18, -0.02, 0.23, -0.18, -0.06, 0.30, 0.07, -0.07];
+    const vi = [0.0156, 0.0216, 0.0279, 0.1391, 0.1362, 0.0106, 0.0106, 0.0484, 0.0269, 0.0630, 0.0912, 0.0497, 0.0835, 0.0841, 0.0253, 0.0279, 0.0193, 0.0088, 0.0303];
+    const weeks = [2, 21, 19, 0, 0, 3, 17, 24, 0, 1, 0, 0, 1, 2, 17, 5, 1, 2, 7];
+    const f = randomInterceptLine(weeks.map((w) => Math.min(w, 3)), yi, vi);
+    // Q_E below its k − 2 = 17 degrees of freedom: the moment estimate of τ² is 0, as the text's.
+    expect(f.tau2).toBe(0);
+    expect(f.q).toBeCloseTo(16.57, 2);
+    expect(f.intercept).toBeCloseTo(0.407, 3);
+    expect(f.slope).toBeCloseTo(-0.157, 3);
+    expect(f.dof).toBe(17);
+    // The text's z uses the fixed-effect SE; Knapp–Hartung scales it by √(Q_E/(k − 2)), so z = t·√(Q_E/17).
+    const scale = Math.sqrt(f.q / 17);
+    expect((f.intercept / f.interceptSe) * scale).toBeCloseTo(4.68, 2);
+    expect((f.slope / f.slopeSe) * scale).toBeCloseTo(-4.39, 2);
+  });
   it('condition means cover the true slope ≥ 93% when conditions carry a shared random offset (2000 seeded cohorts)', () => {
     // Source: project requirement (≥ 93% for nominal 95%); demo data: 5 dosages, 6 embryos each, embryo SD 0.02 EL
     // differing by condition (×0.5–×2), a shared offset per condition with SD 0.01 EL.
