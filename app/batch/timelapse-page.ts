@@ -29,7 +29,8 @@ function movieSection(m: MovieOutcome, figures: readonly { title: string; svg: s
 <tr><td class="t">D = k·λ² (µm²/s)</td>${cell(fit.dUm2PerS)}</tr></table>
 <p>${esc(fit.reading)}</p>` : '';
   const notes = [s.note, ...s.warnings].filter((w): w is string => w !== null).map((w) => `<p class="warn">${esc(w)}</p>`).join('');
-  const span = m.timesS ? `${m.timeIndices.length} time points over ${sigFig(m.timesS[m.timesS.length - 1] - m.timesS[0], 3)} s` : `${m.timeIndices.length} time points (times unknown)`;
+  const span = m.timesS ? `${m.timeIndices.length} time points over ${sigFig(m.timesS[m.timesS.length - 1] - m.timesS[0], 3)} s (times from: ${m.timeSource ?? 'unknown'})`
+    : `${m.timeIndices.length} time points (times unknown)`;
   return `<h${h}>${esc(m.file)}</h${h}><p class="note">${esc(span)}; model fit over x/EL ${fit ? `${fit.rangeEl[0]}–${fit.rangeEl[1]}` : '—'}</p>${table}${notes}`
     + figures.map((f) => `<figure>${f.svg}<figcaption class="note">${esc(f.title)}</figcaption></figure>`).join('');
 }

@@ -200,8 +200,8 @@ function timeCell(m: MovieOutcome, k: number): CsvValue {
 
 /** timecourse.csv: file, t_index, t_s, then every embryos.csv column after `file` (its measurements and each side's). */
 export function timecourseCsv(movies: readonly MovieOutcome[]): string {
-  const rows = movies.flatMap((m) => m.results.map((r, k) => [m.file, m.timeIndices[k], timeCell(m, k), ...embryoMeasureRow(r).slice(1), ...sideCells(r)]));
-  return toCsv(['file', 't_index', 't_s', ...EMBRYO_MEASURE_COLUMNS.slice(1), ...SIDE_COLUMNS], rows);
+  const rows = movies.flatMap((m) => m.results.map((r, k) => [m.file, m.timeIndices[k], timeCell(m, k), ...embryoMeasureRow(r).slice(1), ...sideCells(r), m.timesS ? m.timeSource ?? null : null]));
+  return toCsv(['file', 't_index', 't_s', ...EMBRYO_MEASURE_COLUMNS.slice(1), ...SIDE_COLUMNS, 'time_source'], rows);
 }
 
 /** timecourse_profiles.csv: every channel's profile at every analysed time point (long format). */

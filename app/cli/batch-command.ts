@@ -19,7 +19,7 @@ import { DEFAULT_CPUS_PER_TASK, joinSlurmOptions, partArguments, submitCommands,
 import { UsageError, type CliIo } from './usage-error';
 import { parseTimelapseFlags, reportTimelapse } from './timelapse-step';
 import type { TimelapseOptions } from '../batch/timelapse-options';
-import { cohortChoices, parseComparisonFlags, type CohortChoices } from '../cohort/cohort-choices';
+import { backgroundLine, cohortChoices, parseComparisonFlags, type CohortChoices } from '../cohort/cohort-choices';
 
 /** One flag per analysis setting, from the settings table (core/settings SETTINGS). */
 const SETTING_OPTIONS = Object.fromEntries(SETTINGS.map((s) => [s.flag.slice(2), s.repeatable ? { type: 'string', multiple: true } : { type: 'string' }])) as
@@ -215,7 +215,11 @@ function reportEnd(io: CliIo, summary: BatchRunResult, plan: BatchPlan): void {
   io.stdout.write(`Analysed ${total} file${total === 1 ? '' : 's'}${part}${reused}: ${summary.ok} ok, ${summary.failed} failed.\n`);
   io.stdout.write(`Tables written to ${summary.outDir}\n`);
   if (summary.cohortError) io.stderr.write(`eggline: the cohort step failed: ${summary.cohortError}\n`);
-  else if (plan.samples) io.stdout.write(`Cohort report: ${join(summary.outDir, 'report.html')}\n`);
+  else if (plan.samples) {
+    const background = summary.cohortStep ? backgroundLine(summary.cohortStep.analysis) : null;
+    if (background !== null) io.stdout.write(`Cohort: ${background}\n`);
+    io.stdout.write(`Cohort report: ${join(summary.outDir, 'report.html')}\n`);
+  }
 }
 
 /** `--slurm N`: write the two scripts and print how to submit them; analyses nothing. */

@@ -8,7 +8,7 @@ import { timelapseReportSection } from '../batch/timelapse-page';
 import { movieFigures, movieOutcomes } from '../batch/timelapse-pass';
 import type { FilenameRule, Normalisation } from '../../core/cohort';
 import { runCohortStep } from '../cohort/run-cohort';
-import { cohortChoices, parseComparisonFlags, type CohortChoices, type CohortFlags } from '../cohort/cohort-choices';
+import { backgroundLine, cohortChoices, parseComparisonFlags, type CohortChoices, type CohortFlags } from '../cohort/cohort-choices';
 import { loadProjectOrBackup } from '../project';
 
 /** Streams the command writes to (process.stdout/stderr, or buffers in tests). */
@@ -157,10 +157,8 @@ export async function cohortCommand(argv: readonly string[], io: CohortCommandIo
       backgroundConditionNamedBy: choices.backgroundConditionNamedBy, ...(plan.rule ? { filenameRule: plan.rule } : {}),
     });
     for (const w of out.warnings) io.stderr.write(`warning: ${w}\n`);
-    const bg = out.analysis.backgroundCondition;
-    if (bg) io.stdout.write(`background condition "${bg.condition}" (${bg.files.length} embryo${bg.files.length === 1 ? '' : 's'}) subtracted; λ and boundaries fitted again (background_refit.csv)\n`);
-    const choice = out.analysis.backgroundChoice;
-    if (choice?.rule === 'none') io.stdout.write(`no background condition: ${choice.why} (background_condition.json)\n`);
+    const background = backgroundLine(out.analysis);
+    if (background !== null) io.stdout.write(`${background}\n`);
     io.stdout.write(`wrote ${out.written.length} files to ${plan.outDir} (open report.html)\n`);
     return 0;
   } catch (e) {

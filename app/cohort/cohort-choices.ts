@@ -1,6 +1,7 @@
 // The cohort step's options in force: a flag given on the command line, else the project's `cohort` entry, else the
-// step's default. The command line (batch, cohort) and the window resolve them here, so all three agree.
-import type { Normalisation } from '../../core/cohort';
+// step's default. The command line (batch, cohort) and the window resolve them here, so all three agree. Also the
+// one line the command line prints about the background choice.
+import type { CohortAnalysis, Normalisation } from '../../core/cohort';
 import type { ProjectCohortOptions } from '../../core/settings';
 
 /** The five options a project can keep, resolved, and who gave the background condition. */
@@ -57,4 +58,13 @@ export function parseComparisonFlags(v: { normalise?: string; 'lambda-posterior-
   const equivalenceMargin = em === undefined ? undefined : Number(em);
   if (equivalenceMargin !== undefined && !(Number.isFinite(equivalenceMargin) && equivalenceMargin > 0 && equivalenceMargin < 1)) return { usage: `--equivalence-margin must be a number between 0 and 1 (got "${em}")` };
   return { normalisation: v.normalise as Normalisation | undefined, lambdaPosteriorEl, equivalenceMargin };
+}
+
+/** One line saying what the cohort step did about a background condition (subtracted, or `none` chosen), or null
+ *  when no background rule applied; `eggline cohort` and `eggline batch` print it. */
+export function backgroundLine(a: CohortAnalysis): string | null {
+  const bg = a.backgroundCondition;
+  if (bg) return `background condition "${bg.condition}" (${bg.files.length} embryo${bg.files.length === 1 ? '' : 's'}) subtracted; λ and boundaries fitted again (background_refit.csv)`;
+  const c = a.backgroundChoice;
+  return c?.rule === 'none' ? `no background condition: ${c.why} (background_condition.json)` : null;
 }

@@ -36,6 +36,8 @@ describe('eggline batch on a movie', () => {
     expect(course).toHaveLength(24);
     expect(course.map((row) => row.t_index)).toEqual(Array.from({ length: 24 }, (_, t) => String(t)));
     expect(course[3].t_s).toBe('1440');
+    // Where the times came from, as pixel_size_source says it for the pixel size (the file's OME TimeIncrement).
+    expect(new Set(course.map((row) => row.time_source))).toEqual(new Set(['ome-increment']));
     // Demo scenario: λ = 100 µm on a 500 µm egg, so 0.2 EL once formed.
     expect(Math.abs(Number(course[23].lambda_el) / 0.2 - 1)).toBeLessThan(0.05);
     const acc = table(join(out, 'accumulation.csv'));
@@ -46,6 +48,7 @@ describe('eggline batch on a movie', () => {
     expect(Math.abs(Number(fit[0].k_per_s) * 1200 - 1)).toBeLessThan(0.25);
     const page = readFileSync(join(out, 'timelapse.html'), 'utf8');
     expect(page).toContain('<h2>movie.ome.tif</h2>');
+    expect(page).toContain('24 time points over 11040 s (times from: ome-increment)');
     expect(page.match(/<svg /g)).toHaveLength(3);
     expect(readFileSync(join(out, 'timelapse', 'movie-lambda.svg'), 'utf8')).toMatch(/^<svg /);
     // No boundary channel is set (no project file), so only the gradient channel: 100 bins per time point.
@@ -70,7 +73,9 @@ describe('eggline batch on a movie', () => {
     // embryos.csv keeps one row per file; a movie's is its last analysed time point, equal to timecourse.csv's last row.
     const embryos = table(join(out, 'embryos.csv'));
     expect(embryos.map((row) => row.file)).toEqual(['movie.ome.tif', 'single.tif']);
-    const last = table(join(out, 'timecourse.csv'))[23];
+    // (timecourse.csv adds where the times came from at the end.)
+    const { time_source: timeSource, ...last } = table(join(out, 'timecourse.csv'))[23];
+    expect(timeSource).toBe('ome-increment');
     expect(embryos[0]).toEqual({ ...last, file: 'movie.ome.tif' });
     const doc = JSON.parse(readFileSync(join(out, 'results.json'), 'utf8')) as { schemaVersion: number; results: { file: string; tIndex: number }[]; movies: { file: string; timeIndices: number[] }[] };
     expect(doc.schemaVersion).toBe(2);
