@@ -26,7 +26,9 @@ function transferList(reply: AnalysisReply): ArrayBuffer[] {
   return [...new Set(buffers)];
 }
 
-/** View requests the main process no longer wants (their loads stop before the next plane). */
+/** Requests being answered, and those of them the main process no longer wants (their loads stop before the next
+ *  plane); a cancel for a request already answered is dropped. */
+const answering = new Set<number>();
 const stopped = new Set<number>();
 
 /** Answer one request; errors travel as name, code and message. */
@@ -49,6 +51,11 @@ async function answer(request: Exclude<AnalysisRequest, { kind: 'cancel' }>): Pr
 }
 
 parentPort?.on('message', (request: AnalysisRequest) => {
-  if (request.kind === 'cancel') { stopped.add(request.target); return; }
-  void answer(request).then((reply) => { stopped.delete(request.id); parentPort?.postMessage(reply, transferList(reply)); });
+  if (request.kind === 'cancel') { if (answering.has(request.target)) stopped.add(request.target); return; }
+  answering.add(request.id);
+  void answer(request).then((reply) => {
+    answering.delete(request.id);
+    stopped.delete(request.id);
+    parentPort?.postMessage(reply, transferList(reply));
+  });
 });
