@@ -8,6 +8,7 @@ import { inputFolderOf, loadImageCorrections } from './correction-images';
 import { hashingByteSource, type HashingByteSource } from './hashing-source';
 import type { BatchTask, InputDigest } from './task';
 import type { TimeShape } from './timelapse-options';
+import type { WorkerBuffers } from './worker-buffers';
 
 /** One line naming the file: the message as is when it already names it, else "file: message". */
 export function fileMessage(file: string, e: unknown): string {
@@ -34,10 +35,11 @@ export async function analyseFile(task: BatchTask): Promise<EmbryoResult> {
 
 /**
  * Analyse the task's file and, when `digest` is set, hash the bytes the decoder reads on the way (SHA-256 for
- * run.json and the journal), so the file is read once; `input` is null when the file could not be opened.
+ * run.json and the journal), so the file is read once; `input` is null when the file could not be opened. `buffers`
+ * (a batch worker's, lent to one file at a time) receive the decoded planes and the projection.
  */
 export async function analyseFileWithDigest(
-  task: BatchTask, digest = true,
+  task: BatchTask, digest = true, buffers: WorkerBuffers | null = null,
 ): Promise<{ result: EmbryoResult; input: InputDigest | null; shape: TimeShape | null }> {
   let hashing: HashingByteSource | null = null;
   const wrapSource = digest ? (s: Parameters<typeof hashingByteSource>[0]) => (hashing = hashingByteSource(s)) : undefined;
@@ -49,13 +51,13 @@ export async function analyseFileWithDigest(
     const h = hashing as HashingByteSource | null;
     input = h ? await h.finish().then(({ sha256, bytes }) => ({ sha256, bytes }), () => null) : null;
   };
-  const result = await analyseOpened(task, wrapSource, (info) => { shape = { sizeT: info.sizeT, sizeZ: info.sizeZ, isOme: info.isOme }; }, finishHash);
+  const result = await analyseOpened(task, wrapSource, (info) => { shape = { sizeT: info.sizeT, sizeZ: info.sizeZ, isOme: info.isOme }; }, finishHash, buffers);
   return { result, input, shape };
 }
 
 async function analyseOpened(
   task: BatchTask, wrapSource: ((s: Parameters<typeof hashingByteSource>[0]) => HashingByteSource) | undefined, onInfo: (info: StackInfo) => void,
-  beforeClose: () => Promise<void> = async () => undefined,
+  beforeClose: () => Promise<void> = async () => undefined, buffers: WorkerBuffers | null = null,
 ): Promise<EmbryoResult> {
   let opened: Awaited<ReturnType<typeof openStack>> | null = null;
   try {
@@ -66,7 +68,7 @@ async function analyseOpened(
     // Relative paths of the correction images are taken from the input folder (the task's path minus its file).
     const corrections = await loadImageCorrections(task.settings, inputFolderOf(task.path, task.file));
     const result = await analyse(opened.info, opened.source, task.settings,
-      { fileLabel: task.file, ...(task.handEdits ? { handEdits: task.handEdits } : {}), corrections });
+      { fileLabel: task.file, ...(task.handEdits ? { handEdits: task.handEdits } : {}), corrections, buffers });
     const warnings = [...result.warnings, ...opened.warnings.filter((w) => !result.warnings.includes(w))];
     const error = result.status === 'error' && result.error ? fileMessage(task.file, result.error) : result.error;
     return { ...result, file: task.file, error, warnings };
