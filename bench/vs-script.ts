@@ -13,7 +13,8 @@ import { makeSyntheticEmbryo } from '../core/synth';
 import { readChunkPlan, readIfdChain, readTiffHeader, writeOmeTiff, writePlainTiff } from '../core/tiff';
 import { DEFAULT_SETTINGS } from '../core/settings';
 import { detectEmbryo, measureEmbryo, prepareSampling, projectStack } from '../core/pipeline';
-import { analyseFile } from '../app/batch/analyse-file';
+import { analyseFileWithDigest } from '../app/batch/analyse-file';
+import { workerBuffers } from '../app/batch/worker-buffers';
 import { openStackForAnalysis, readPreviewPlane } from '../app/decode';
 
 const self = fileURLToPath(import.meta.url);
@@ -106,10 +107,12 @@ async function childFloor(paths: string[]): Promise<void> {
   }
 }
 
-/** Child: the whole per-file analysis, one file after another in one process (one batch worker's work). */
+/** Child: the whole per-file analysis, one file after another in one process, as a batch worker does it (the
+ *  SHA-256 from the decoder's reads, the worker's lent arrays). */
 async function childPipeline(paths: string[]): Promise<void> {
+  const buffers = workerBuffers();
   for (const path of paths) {
-    const r = await analyseFile({ index: 0, path, file: path, settings: SETTINGS, handEdits: null });
+    const { result: r } = await analyseFileWithDigest({ index: 0, path, file: path, settings: SETTINGS, handEdits: null }, true, buffers);
     if (r.status !== 'ok') process.stderr.write(`bench: ${r.error}\n`);
   }
 }

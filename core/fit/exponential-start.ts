@@ -11,10 +11,10 @@ export interface ExponentialStart {
   readonly rss: number;
 }
 
-/** Linear solve for (A0, B) at a fixed k; null if the two basis columns are dependent. */
-function linearPart(xUm: Float64Array, y: Float64Array, sqrtW: Float64Array, xRef: number, k: number): ExponentialStart | null {
+/** Linear solve for (A0, B) at a fixed k; null if the two basis columns are dependent. `a` (2n values) and `b` (n)
+ *  are working space, overwritten. */
+function linearPart(xUm: Float64Array, y: Float64Array, sqrtW: Float64Array, xRef: number, k: number, a: Float64Array, b: Float64Array): ExponentialStart | null {
   const n = xUm.length;
-  const a = new Float64Array(2 * n), b = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     a[2 * i] = sqrtW[i] * Math.exp(-k * (xUm[i] - xRef));
     a[2 * i + 1] = sqrtW[i];
@@ -37,10 +37,12 @@ export function exponentialStart(xUm: Float64Array, y: Float64Array, sqrtW: Floa
   if (!(span > 0)) return null;
   let best: ExponentialStart | null = null;
   const steps = 32;
+  // One working space for the 64 trial solves (each writes all of it first).
+  const a = new Float64Array(2 * xUm.length), b = new Float64Array(xUm.length);
   for (let s = 0; s < steps; s++) {
     const lambda = (span / 50) * 2500 ** (s / (steps - 1));
     for (const sign of [1, -1]) {
-      const trial = linearPart(xUm, y, sqrtW, xRef, sign / lambda);
+      const trial = linearPart(xUm, y, sqrtW, xRef, sign / lambda, a, b);
       if (trial && (!best || trial.rss < best.rss)) best = trial;
     }
   }

@@ -53,11 +53,34 @@ export function traceWithAr1(x: Float64Array, n: number, rho: number): number {
 }
 
 /**
+ * traceWithAr1(x, n, ρ) / traceWithAr1(y, n, ρ) in one pass over both matrices, with the powers of ρ made once
+ * (each the same product ρ·ρ·… that traceWithAr1 forms, summed in the same order: the same number bit for bit).
+ * `powers` (n values) is working space.
+ */
+function traceRatioWithAr1(x: Float64Array, y: Float64Array, n: number, rho: number, powers: Float64Array): number {
+  let p = 1;
+  for (let l = 1; l < n; l++) { p *= rho; powers[l] = p; }
+  let sx = 0, sy = 0;
+  for (let a = 0; a < n; a++) {
+    const row = a * n;
+    sx += x[row + a];
+    sy += y[row + a];
+    for (let b = a + 1; b < n; b++) {
+      const pw = powers[b - a];
+      sx += 2 * x[row + b] * pw;
+      sy += 2 * y[row + b] * pw;
+    }
+  }
+  return sx / sy;
+}
+
+/**
  * ρ such that E[Σu_i·u_{i+1}] / E[Σu_i²] of the residuals under AR(1) errors equals the measured lag-1 value
  * (a ratio-of-expectations match, solved by bisection on [−0.95, 0.95]; the ratio rises with ρ).
  */
 export function matchedRho(mm: Float64Array, mam: Float64Array, n: number, measured: number): number {
-  const ratio = (rho: number): number => traceWithAr1(mam, n, rho) / traceWithAr1(mm, n, rho);
+  const powers = new Float64Array(n);
+  const ratio = (rho: number): number => traceRatioWithAr1(mam, mm, n, rho, powers);
   let lo = -0.95, hi = 0.95;
   if (measured <= ratio(lo)) return lo;
   if (measured >= ratio(hi)) return hi;
@@ -70,17 +93,19 @@ export function matchedRho(mm: Float64Array, mam: Float64Array, n: number, measu
 
 /** M·A·M for a symmetric M, with A the lag-1 matrix (½ on the first off-diagonals): Σu_i·u_{i+1} = uᵀAu. */
 export function lagProductOfM(m: Float64Array, n: number): Float64Array {
-  const am = new Float64Array(n * n);
-  for (let a = 0; a < n; a++) {
+  // (A·M) transposed, amT[b·n + c] = (A·M)_cb, so the product below reads both factors along rows (the same
+  // products summed in the same order as with A·M itself).
+  const amT = new Float64Array(n * n);
+  for (let c = 0; c < n; c++) {
     for (let b = 0; b < n; b++) {
-      am[a * n + b] = 0.5 * ((a > 0 ? m[(a - 1) * n + b] : 0) + (a + 1 < n ? m[(a + 1) * n + b] : 0));
+      amT[b * n + c] = 0.5 * ((c > 0 ? m[(c - 1) * n + b] : 0) + (c + 1 < n ? m[(c + 1) * n + b] : 0));
     }
   }
   const out = new Float64Array(n * n);
   for (let a = 0; a < n; a++) {
     for (let b = a; b < n; b++) {
       let v = 0;
-      for (let c = 0; c < n; c++) v += m[a * n + c] * am[c * n + b];
+      for (let c = 0, i = a * n, k = b * n; c < n; c++, i++, k++) v += m[i] * amT[k];
       out[a * n + b] = v;
       out[b * n + a] = v;
     }

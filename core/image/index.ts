@@ -21,7 +21,7 @@ export { segmentEmbryo, combinedSnr, channelSnr, checkSegmentOptions, downsample
 export type { SegmentOptions } from './segment';
 export { resolveChannel, describeChannelRef } from './channel-ref';
 export { selectKth, medianInPlace, maskedMedian } from './select';
-export { sampleMedian, wholeNumberMedian } from './median-whole';
+export { SAMPLE_COUNTS, sampleMedian, wholeNumberMedian } from './median-whole';
 export { maskRuns } from './runs';
 export type { MaskRuns } from './runs';
 export { applyImageCorrections, backgroundImage, correctionMismatch, normaliseFlatField } from './corrections';

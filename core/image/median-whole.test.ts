@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { sampleMedian, wholeNumberMedian } from './median-whole';
+import { SAMPLE_COUNTS, sampleMedian, wholeNumberMedian } from './median-whole';
 import { maskRuns } from './runs';
 import { maskedMedian } from './select';
 
@@ -121,6 +121,13 @@ describe('sampleMedian', () => {
         const expected = maskedMedian(floats, keep);
         const got = sampleMedian(samples, runs);
         expect(got, `seed ${seed} parity ${parity}`).toEqual(expected);
+        // Lent counts holding another plane's counts give the same answer; counts of another length are not used.
+        const dirty = new Uint32Array(SAMPLE_COUNTS).fill(3);
+        expect(sampleMedian(samples, runs, dirty)).toEqual(expected);
+        expect(sampleMedian(samples, runs, dirty)).toEqual(expected);
+        const short = new Uint32Array(10).fill(3);
+        expect(sampleMedian(samples, runs, short)).toEqual(expected);
+        expect(short.every((v) => v === 3)).toBe(true);
         expect(got).toEqual(wholeNumberMedian(floats, keep, runs));
         expect(got!.count % 2).toBe(parity);
       }

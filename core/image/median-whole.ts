@@ -112,11 +112,14 @@ export function wholeNumberMedian(values: Float32Array, keep: Uint8Array, runs: 
   return { median: n % 2 === 1 ? upper : (lower + upper) / 2, count: n };
 }
 
-/** counts[v + 65 536·j] += 1 for each sample v of runs, lane j = position mod 4 within a run (see countWhole). */
-function countSamples(samples: Uint8Array | Uint16Array, runs: MaskRuns, counts: Uint32Array): void {
+/** counts[v + 65 536·j] += 1 for each sample v of runs, lane j = position mod 4 within a run (see countWhole);
+ *  returns how many samples were counted. */
+function countSamples(samples: Uint8Array | Uint16Array, runs: MaskRuns, counts: Uint32Array): number {
+  let n = 0;
   for (let r = 0; r < runs.count; r++) {
     const end = runs.end[r];
     let i = runs.start[r];
+    n += end - i;
     for (; i + 3 < end; i += 4) {
       counts[samples[i]]++;
       counts[samples[i + 1] + 65_536]++;
@@ -125,31 +128,40 @@ function countSamples(samples: Uint8Array | Uint16Array, runs: MaskRuns, counts:
     }
     for (; i < end; i++) counts[samples[i]]++;
   }
+  return n;
 }
 
-/** The four lanes of countSamples added up per value (`values` slots). */
-function sampleLaneTotals(lanes: Uint32Array, values: number): Uint32Array {
-  const out = new Uint32Array(values);
-  for (let v = 0; v < values; v++) out[v] = lanes[v] + lanes[v + 65_536] + lanes[v + 131_072] + lanes[v + 196_608];
-  return out;
+/** The value of 0-based rank `rank` among the samples counted in the four lanes of countSamples: the lanes are
+ *  added up only for the values up to it (a background's median lies low, so few of the 65 536 slots are read). */
+function sampleAtRank(lanes: Uint32Array, rank: number): number {
+  let v = 0;
+  let seen = lanes[0] + lanes[65_536] + lanes[131_072] + lanes[196_608];
+  while (seen <= rank) {
+    v++;
+    seen += lanes[v] + lanes[v + 65_536] + lanes[v + 131_072] + lanes[v + 196_608];
+  }
+  return v;
 }
+
+/** Length of the counts sampleMedian uses (four lanes of 65 536 values); a scratch array lent to it has this length. */
+export const SAMPLE_COUNTS = 4 * 65_536;
 
 /**
  * The median (mean of the two middle values for an even count) and count of decoded 8- or 16-bit samples at the
  * pixels of `runs` (maskRuns of a 0/1 mask, made once for many planes), or null when the runs hold no pixel. One
  * counting pass over the samples themselves — half the bytes of their float copy, and no whole-number test, as every
- * sample is one — then a walk over the counts: the same number as wholeNumberMedian and maskedMedian give for the
- * same values as floats (a sample is never −0).
+ * sample is one — then a walk over the counts up to the middle: the same number as wholeNumberMedian and
+ * maskedMedian give for the same values as floats (a sample is never −0). `scratch`, an array of SAMPLE_COUNTS
+ * values, is used for the counts when given (its contents are overwritten).
  */
-export function sampleMedian(samples: Uint8Array | Uint16Array, runs: MaskRuns): { median: number; count: number } | null {
-  const lanes = new Uint32Array(4 * 65_536);
-  countSamples(samples, runs, lanes);
-  const counts = sampleLaneTotals(lanes, samples instanceof Uint8Array ? 256 : 65_536);
-  let n = 0;
-  for (let b = 0; b < counts.length; b++) n += counts[b];
+export function sampleMedian(samples: Uint8Array | Uint16Array, runs: MaskRuns, scratch: Uint32Array | null = null): { median: number; count: number } | null {
+  // A caller measuring plane after plane lends its counts (zeroed here): a new 1 MiB array per plane makes V8 collect
+  // garbage more often.
+  const lanes = scratch !== null && scratch.length === SAMPLE_COUNTS ? scratch.fill(0) : new Uint32Array(SAMPLE_COUNTS);
+  const n = countSamples(samples, runs, lanes);
   if (n === 0) return null;
   const hiRank = n >> 1;
-  const upper = valueAtRank(counts, hiRank);
-  const lower = n % 2 === 1 ? upper : valueAtRank(counts, hiRank - 1);
+  const upper = sampleAtRank(lanes, hiRank);
+  const lower = n % 2 === 1 ? upper : sampleAtRank(lanes, hiRank - 1);
   return { median: n % 2 === 1 ? upper : (lower + upper) / 2, count: n };
 }

@@ -33,11 +33,11 @@ function keptPositions(keep: Uint8Array, width: number, box: Box): { idx: Int32A
   return { idx, xs, ys };
 }
 
-/** The background-subtracted values of every channel at the pixels idx. */
-function valuesAt(projected: ProjectedStack, idx: Int32Array, backgrounds: readonly BackgroundEstimate[]): Float32Array[] {
+/** The background-subtracted values of every channel at the pixels idx, into `into[c]` when given (else new arrays). */
+function valuesAt(projected: ProjectedStack, idx: Int32Array, backgrounds: readonly BackgroundEstimate[], into: Float32Array[] | null = null): Float32Array[] {
   const values: Float32Array[] = [];
   for (let c = 0; c < projected.channels.length; c++) {
-    const v = new Float32Array(idx.length);
+    const v = into?.[c] ?? new Float32Array(idx.length);
     subtractAt(projected.channels[c].data, idx, backgrounds[c].value, v);
     values.push(v);
   }
@@ -120,6 +120,8 @@ interface MaskParts extends MaskBasics {
   readonly ys: Float32Array;
   /** The bins along the last axis measured, shared by every preparation made from these parts. */
   readonly binning: BinningMemo;
+  /** Per channel, the array the region pixels' values are written into at every later preparation. */
+  readonly values: Float32Array[];
 }
 
 /**
@@ -127,7 +129,8 @@ interface MaskParts extends MaskBasics {
  * the first call prepares as prepareSampling does; later calls with the same pixel size, channels and sampling and
  * background settings reuse what depends on the mask alone (its box, the pixels far from it and their index list,
  * the sampler's region and its pixels' positions: the edge band's distance map is the costly part) and only
- * estimate the backgrounds and take the region pixels' values again. The preparations share a BinningMemo, so
+ * estimate the backgrounds and take the region pixels' values again, into the same arrays each time: a later
+ * call's values replace the earlier preparation's (measure each before preparing the next, as a movie does). The preparations share a BinningMemo, so
  * measuring them along the same axis with the same settings bins the pixels once. Each call gives what
  * prepareSampling gives on that projection (the region's pixels are by contract base.gather(region.mask.data));
  * other settings are prepared from scratch.
@@ -141,14 +144,16 @@ export function samplingWithin(detection: Detection, samplers: readonly ProfileS
       const far = settings.background.mode === 'outside' ? farPixels(detection.mask, backgroundMarginPx(projected.pixelSizeUm)) : null;
       const prepared = prepareSampling(projected, detection, settings, samplers, { box: foregroundBox(detection.mask), far });
       const { mask } = prepared.region;
-      const parts = { box: prepared.box, far, region: mask, ...keptPositions(mask.data, mask.width, prepared.box), binning: { last: null } };
+      const positions = keptPositions(mask.data, mask.width, prepared.box);
+      const values = projected.channels.map(() => new Float32Array(positions.idx.length));
+      const parts = { box: prepared.box, far, region: mask, ...positions, binning: { last: null }, values };
       kept = { key, parts };
       return { ...prepared, binning: parts.binning };
     }
     const { parts } = kept;
     const base = samplingBase(projected, detection, settings, parts);
     const sampler = samplerFor(settings.profile.mode, samplers);
-    const pixels = { xs: parts.xs, ys: parts.ys, values: valuesAt(projected, parts.idx, base.backgrounds) };
+    const pixels = { xs: parts.xs, ys: parts.ys, values: valuesAt(projected, parts.idx, base.backgrounds, parts.values) };
     return { ...base, sampler, region: { mask: parts.region, pixels }, binning: parts.binning };
   };
 }

@@ -112,35 +112,49 @@ function ifdBytes(entries: Entry[], offset: number, nextOffset: number): Uint8Ar
   return out;
 }
 
-/** A complete little-endian TIFF holding `images` in order, one IFD each. */
-export function encodeTiff(images: readonly EncodeImage[]): Uint8Array {
-  const chunks: Uint8Array[] = [new Uint8Array(8)];
+/**
+ * encodeTiff piece by piece: each image is taken from `images` only when the previous one's strips are written, and
+ * every piece goes to `write(bytes, position)` (position = byte offset in the file; the 8-byte header comes last, at
+ * position 0, once the first IFD's offset is known). Returns the file's length. Only one image's pixels are held at a
+ * time, so a file larger than memory can be written to disk. Throws before writing the IFDs when the file would
+ * exceed 4 GB.
+ */
+export function encodeTiffPieces(images: Iterable<EncodeImage>, write: (bytes: Uint8Array, position: number) => void): number {
   let at = 8;
-  const layouts = images.map((image) => {
+  const layouts: Entry[][] = [];
+  for (const image of images) {
     const { rowsPerStrip, strips } = makeStrips(image);
     const offsets: number[] = [];
     for (const strip of strips) {
       offsets.push(at);
-      chunks.push(strip);
+      write(strip, at);
       at += strip.length;
-      if (at & 1) { chunks.push(new Uint8Array(1)); at += 1; } // keep offsets on word boundaries
+      if (at & 1) { write(new Uint8Array(1), at); at += 1; } // keep offsets on word boundaries
     }
-    return imageEntries(image, rowsPerStrip, offsets, strips.map((s) => s.length));
-  });
+    layouts.push(imageEntries(image, rowsPerStrip, offsets, strips.map((s) => s.length)));
+  }
   const firstIfd = at;
   const sizes = layouts.map((entries) => ifdBytes(entries, 0, 0).length);
+  if (at + sizes.reduce((sum, n) => sum + n, 0) > 0xffffffff) throw new Error('image data exceeds 4 GB, too large for a classic TIFF');
   layouts.forEach((entries, i) => {
     const next = i + 1 < layouts.length ? at + sizes[i] : 0;
-    chunks.push(ifdBytes(entries, at, next));
+    write(ifdBytes(entries, at, next), at);
     at += sizes[i];
   });
-  if (at > 0xffffffff) throw new Error('image data exceeds 4 GB, too large for a classic TIFF');
-  const out = new Uint8Array(at);
-  let pos = 0;
-  for (const chunk of chunks) { out.set(chunk, pos); pos += chunk.length; }
-  const header = new DataView(out.buffer);
-  header.setUint16(0, 0x4949, false); // "II"
-  header.setUint16(2, 42, true);
-  header.setUint32(4, firstIfd, true);
+  const header = new Uint8Array(8);
+  const view = new DataView(header.buffer);
+  view.setUint16(0, 0x4949, false); // "II"
+  view.setUint16(2, 42, true);
+  view.setUint32(4, firstIfd, true);
+  write(header, 0);
+  return at;
+}
+
+/** A complete little-endian TIFF holding `images` in order, one IFD each. */
+export function encodeTiff(images: readonly EncodeImage[]): Uint8Array {
+  const pieces: { bytes: Uint8Array; position: number }[] = [];
+  const length = encodeTiffPieces(images, (bytes, position) => pieces.push({ bytes, position }));
+  const out = new Uint8Array(length);
+  for (const { bytes, position } of pieces) out.set(bytes, position);
   return out;
 }

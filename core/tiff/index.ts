@@ -19,7 +19,7 @@ export { mapOmePlanes, sequentialPlaneMap } from './plane-map';
 export { parseImageJDescription, type ImageJDescription } from './imagej';
 export { readStackInfo, readStackInfoWithChain, type StackInfoOptions, type TiffChain } from './stack-info';
 export { describeStack, stackFacts, type StackFactsJson } from './describe';
-export { writeOmeTiff, writePlainTiff, type WritePlane, type OmeTiffMeta, type PlainTiffOptions } from './write';
+export { writeOmeTiff, writeOmeTiffPieces, writePlainTiff, type WritePlane, type OmeTiffMeta, type PlainTiffOptions } from './write';
 export { toRational } from './rational';
 export { createGeotiffPlaneSource, checkPlaneIndex } from './geotiff-source';
 export { checkChunkExtents } from './chunk-extent';

@@ -6,7 +6,7 @@ import { readIfdChain } from './ifd';
 import { parseOmeXml } from './ome';
 import { readStackInfo } from './stack-info';
 import { readNumbers, readTag } from './tag-value';
-import { writeOmeTiff, writePlainTiff } from './write';
+import { writeOmeTiff, writeOmeTiffPieces, writePlainTiff } from './write';
 
 /** Demo data: a 5×3 plane whose value encodes (plane, x, y). */
 const plane = (n: number) => ({ width: 5, height: 3, data: Uint16Array.from({ length: 15 }, (_, i) => n * 100 + i * 7 + 60000 * (i % 2)) });
@@ -55,6 +55,40 @@ describe('writeOmeTiff', () => {
         expect(plane0.data).toEqual(data);
       }
     }
+  });
+});
+
+describe('writeOmeTiffPieces', () => {
+  /** The pieces laid out at their positions, and the order planes were asked for. */
+  function assemble(count: number, planeAt: (n: number) => ReturnType<typeof plane>, m: Parameters<typeof writeOmeTiff>[1]) {
+    const asked: number[] = [];
+    const pieces: { bytes: Uint8Array; position: number }[] = [];
+    const length = writeOmeTiffPieces(count, (n) => { asked.push(n); return planeAt(n); }, m, (bytes, position) => pieces.push({ bytes: bytes.slice(), position }));
+    const out = new Uint8Array(length);
+    for (const { bytes, position } of pieces) out.set(bytes, position);
+    return { out, asked, pieces };
+  }
+
+  it('writes the bytes writeOmeTiff writes, asking for each plane once in order, with and without Deflate', () => {
+    // Demo data: 2 z × 2 c × 3 t planes of the pattern above.
+    const movie = { ...meta, sizeC: 2, sizeT: 3, channelNames: ['a', 'b'], timeIncrementS: 30 };
+    for (const compression of ['none', 'deflate'] as const) {
+      const planes = Array.from({ length: 12 }, (_, n) => plane(n));
+      const { out, asked, pieces } = assemble(12, (n) => plane(n), { ...movie, compression });
+      expect(out).toEqual(writeOmeTiff(planes, { ...movie, compression }));
+      expect(asked).toEqual(Array.from({ length: 12 }, (_, n) => n));
+      // The header is the last piece (the first IFD's offset is known only then); no piece overlaps another.
+      expect(pieces[pieces.length - 1].position).toBe(0);
+      const covered = pieces.reduce((n, p) => n + p.bytes.length, 0);
+      expect(covered).toBe(out.length);
+    }
+  });
+
+  it('checks each plane as it is made, with writeOmeTiff\'s messages', () => {
+    expect(() => assemble(0, plane, meta)).toThrow('at least one plane is required');
+    expect(() => assemble(1, plane, meta)).toThrow('expected 2 planes (sizeZ × sizeC × sizeT) but got 1');
+    expect(() => assemble(2, (n) => (n === 0 ? plane(0) : { width: 4, height: 3, data: new Uint16Array(12) }), meta)).toThrow('plane 1 is 4×3 but plane 0 is 5×3');
+    expect(() => assemble(2, (n) => (n === 0 ? plane(0) : { width: 5, height: 3, data: new Uint16Array(15), samplesPerPixel: 2 } as never), meta)).toThrow();
   });
 });
 

@@ -1,7 +1,7 @@
 // Writing simple TIFF and OME-TIFF files (used for demo data, benchmarks and test fixtures).
 import type { DimensionOrder, PixelArray } from '../model';
 import { isDimensionOrder, DIMENSION_ORDERS } from './dimension-order';
-import { encodeTiff, sampleFormatOf, type EncodeImage } from './encode';
+import { encodeTiff, encodeTiffPieces, sampleFormatOf, type EncodeImage } from './encode';
 import { buildOmeXml } from './ome-xml';
 import { toRational } from './rational';
 
@@ -41,16 +41,18 @@ export interface PlainTiffOptions {
 /** Throws with an exact message unless every plane has the size, type and sample count of plane 0. */
 function checkPlanes(planes: readonly WritePlane[]): void {
   if (planes.length === 0) throw new Error('at least one plane is required');
-  const p0 = planes[0];
-  planes.forEach((p, i) => {
-    const spp = p.samplesPerPixel ?? 1;
-    if (!Number.isInteger(p.width) || !Number.isInteger(p.height) || p.width < 1 || p.height < 1) {
-      throw new Error(`plane ${i} width and height must be positive integers`);
-    }
-    if (p.width !== p0.width || p.height !== p0.height) throw new Error(`plane ${i} is ${p.width}×${p.height} but plane 0 is ${p0.width}×${p0.height}`);
-    if (p.data.constructor !== p0.data.constructor || spp !== (p0.samplesPerPixel ?? 1)) throw new Error(`plane ${i} sample type differs from plane 0`);
-    if (p.data.length !== p.width * p.height * spp) throw new Error(`plane ${i} data has ${p.data.length} values, expected ${p.width * p.height * spp}`);
-  });
+  planes.forEach((p, i) => checkPlane(p, i, planes[0]));
+}
+
+/** Throws with an exact message unless plane i has the size, type and sample count of plane 0. */
+function checkPlane(p: WritePlane, i: number, p0: WritePlane): void {
+  const spp = p.samplesPerPixel ?? 1;
+  if (!Number.isInteger(p.width) || !Number.isInteger(p.height) || p.width < 1 || p.height < 1) {
+    throw new Error(`plane ${i} width and height must be positive integers`);
+  }
+  if (p.width !== p0.width || p.height !== p0.height) throw new Error(`plane ${i} is ${p.width}×${p.height} but plane 0 is ${p0.width}×${p0.height}`);
+  if (p.data.constructor !== p0.data.constructor || spp !== (p0.samplesPerPixel ?? 1)) throw new Error(`plane ${i} sample type differs from plane 0`);
+  if (p.data.length !== p.width * p.height * spp) throw new Error(`plane ${i} data has ${p.data.length} values, expected ${p.width * p.height * spp}`);
 }
 
 /** Checks a value is a positive finite number (µm). */
@@ -72,39 +74,71 @@ function omeType(data: PixelArray): string {
 }
 
 /** Checks OME-TIFF metadata against the planes; exact messages. */
-function checkOmeMeta(planes: readonly WritePlane[], meta: OmeTiffMeta): void {
+function checkOmeMeta(planeCount: number, meta: OmeTiffMeta): void {
   for (const key of ['sizeZ', 'sizeC', 'sizeT'] as const) {
     if (!Number.isInteger(meta[key]) || meta[key] < 1) throw new Error(`${key} must be a positive integer`);
   }
   if (!isDimensionOrder(meta.dimensionOrder)) throw new Error(`dimensionOrder must be one of ${DIMENSION_ORDERS.join(', ')}`);
   const expected = meta.sizeZ * meta.sizeC * meta.sizeT;
-  if (planes.length !== expected) throw new Error(`expected ${expected} planes (sizeZ × sizeC × sizeT) but got ${planes.length}`);
+  if (planeCount !== expected) throw new Error(`expected ${expected} planes (sizeZ × sizeC × sizeT) but got ${planeCount}`);
   if (meta.channelNames.length !== meta.sizeC) throw new Error(`channelNames must have sizeC (${meta.sizeC}) entries`);
   if (meta.physicalSizeXUm === undefined) throw new Error('physicalSizeXUm must be a positive number');
   checkPositive(meta.physicalSizeXUm, 'physicalSizeXUm');
   checkPositive(meta.physicalSizeYUm, 'physicalSizeYUm');
   checkPositive(meta.physicalSizeZUm, 'physicalSizeZUm');
   checkPositive(meta.timeIncrementS, 'timeIncrementS');
-  if (planes.some((p) => (p.samplesPerPixel ?? 1) !== 1)) throw new Error('OME-TIFF planes must have one sample per pixel');
 }
 
-/** A single-file OME-TIFF (classic, little-endian); OME-XML in IFD 0, plane n of `dimensionOrder` in IFD n. */
-export function writeOmeTiff(planes: readonly WritePlane[], meta: OmeTiffMeta): Uint8Array {
-  checkPlanes(planes);
-  checkOmeMeta(planes, meta);
+/** The same message for a plane of more than one sample, whether the planes come as an array or one by one. */
+function checkOneSample(p: WritePlane): void {
+  if ((p.samplesPerPixel ?? 1) !== 1) throw new Error('OME-TIFF planes must have one sample per pixel');
+}
+
+/** The IFDs of an OME-TIFF: plane n from planeAt(n), taken one at a time; OME-XML from plane 0 and meta in IFD 0. */
+function* omeImages(planeCount: number, planeAt: (n: number) => WritePlane, meta: OmeTiffMeta, first: WritePlane): Generator<EncodeImage> {
   const yUm = meta.physicalSizeYUm ?? meta.physicalSizeXUm;
   const description = buildOmeXml({
-    sizeX: planes[0].width, sizeY: planes[0].height, sizeZ: meta.sizeZ, sizeC: meta.sizeC, sizeT: meta.sizeT,
-    dimensionOrder: meta.dimensionOrder, type: omeType(planes[0].data), channelNames: meta.channelNames,
+    sizeX: first.width, sizeY: first.height, sizeZ: meta.sizeZ, sizeC: meta.sizeC, sizeT: meta.sizeT,
+    dimensionOrder: meta.dimensionOrder, type: omeType(first.data), channelNames: meta.channelNames,
     physicalSizeXUm: meta.physicalSizeXUm, physicalSizeYUm: yUm, physicalSizeZUm: meta.physicalSizeZUm ?? null,
     timeIncrementS: meta.timeIncrementS ?? null,
   });
   const resolution = resolutionTags(meta.physicalSizeXUm, yUm, 'cm');
   const compression = meta.compression === 'deflate' ? 8 : 1;
-  return encodeTiff(planes.map((p, i) => ({
-    widthPx: p.width, heightPx: p.height, samplesPerPixel: 1, data: p.data, compression, resolution,
-    ...(i === 0 ? { description } : {}),
-  })));
+  for (let i = 0; i < planeCount; i++) {
+    const p = i === 0 ? first : planeAt(i);
+    yield { widthPx: p.width, heightPx: p.height, samplesPerPixel: 1, data: p.data, compression, resolution, ...(i === 0 ? { description } : {}) };
+  }
+}
+
+/** A single-file OME-TIFF (classic, little-endian); OME-XML in IFD 0, plane n of `dimensionOrder` in IFD n. */
+export function writeOmeTiff(planes: readonly WritePlane[], meta: OmeTiffMeta): Uint8Array {
+  checkPlanes(planes);
+  checkOmeMeta(planes.length, meta);
+  planes.forEach(checkOneSample);
+  return encodeTiff([...omeImages(planes.length, (n) => planes[n], meta, planes[0])]);
+}
+
+/**
+ * writeOmeTiff for planes made one at a time (planeAt(n), n = 0 … planeCount − 1, in file order) and written piece
+ * by piece through `write(bytes, position)` (see encodeTiffPieces), so only one plane is held at a time: a movie
+ * larger than memory can be written to disk. The same bytes as writeOmeTiff on the same planes; the same checks and
+ * messages, each plane's when it is made. Returns the file's length.
+ */
+export function writeOmeTiffPieces(planeCount: number, planeAt: (n: number) => WritePlane, meta: OmeTiffMeta,
+  write: (bytes: Uint8Array, position: number) => void): number {
+  if (planeCount === 0) throw new Error('at least one plane is required');
+  const first = planeAt(0);
+  checkPlane(first, 0, first);
+  checkOmeMeta(planeCount, meta);
+  checkOneSample(first);
+  const checked = (n: number): WritePlane => {
+    const p = planeAt(n);
+    checkPlane(p, n, first);
+    checkOneSample(p);
+    return p;
+  };
+  return encodeTiffPieces(omeImages(planeCount, checked, meta, first), write);
 }
 
 /** A plain multi-page TIFF (classic, little-endian), one IFD per plane, optional resolution tags. */
