@@ -30,7 +30,7 @@ import { TimelapseView } from './components/timelapse/TimelapseView';
 import type { FolderEntry, LoadedStack, ProjectCohortOptions } from '../core/contract';
 import { fileStatus } from './state/fileStatus';
 import { currentEdits, editorReducer, fileResult, initialState, storedEdits, timePointEdits } from './state';
-import { fileEditsAt } from '../core/settings';
+import { fileEditsAt, timePointForFile } from '../core/settings';
 import { TimePointPanel, shownTimeText } from './components/TimePointPanel';
 import { useSettled } from './hooks/useSettled';
 import { autoDisplayRange, CHANNEL_COLOURS } from './view';
@@ -173,6 +173,12 @@ export function App() {
     if (movie.file === entry.name && (movie.view !== null || movie.status === 'running')) startMovie();
   }, [movieTimeKey]);
   const embryoLoading = stack !== null && isMovie && load.timeIndex !== state.shownTimeIndex;
+  // The settings' time point in this file: a file with fewer time points shows its last (a single stack its only
+  // one), as the batch analyses it, with the batch's warning.
+  const sharedTimePoint = stack === null || entry === null ? null : timePointForFile(state.doc.settings.timeIndex, stack.info.sizeT, entry.name);
+  useEffect(() => {
+    if (stack !== null && state.shownTimeIndex > stack.info.sizeT - 1) dispatch({ type: 'showTimePoint', tIndex: stack.info.sizeT - 1 });
+  }, [stack, state.shownTimeIndex]);
   const { settings, axis, fitRangeEl, measurement, bandOutlines, pixelSizeUm, halfWidthPx } = useLiveMeasurement(stack, state);
   const planes = slicePlanes ?? stack?.projected.channels ?? (preview === null ? [] : [preview]);
   const names = stack?.projected.channelNames ?? (preview === null ? [] : ['C1']);
@@ -258,6 +264,7 @@ export function App() {
             scope={state.editScope} own={timePointEdits(state)} dispatch={dispatch} />}
           <FitNumbers m={measurement} pixelSizeUm={pixelSizeUm} loading={loading || session.opening} axisSource={axis?.source ?? null}
             file={entry === null ? null : { name: entry.name, status: statusOf(entry), result: resultFor(entry.name) ?? null }}
+            timePointWarning={sharedTimePoint !== null && sharedTimePoint.tIndex === state.shownTimeIndex ? sharedTimePoint.warning : null}
             settingsFitRangeEl={edits.fitRangeEl === null ? null : settings.fitRangeEl}
             dorsal={state.doc.settings.profile.mode === 'edge' && state.doc.settings.profile.edgeSide !== 'both'
               ? { own: edits.dorsalSide ?? null, shared: state.doc.settings.profile.dorsalSide, onChange: (side) => dispatch({ type: 'setDorsalSide', side }) }
