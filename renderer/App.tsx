@@ -46,7 +46,13 @@ export function App() {
   const [spaceHeld, setSpaceHeld] = useState(false);
   const [zSlice, setZSlice] = useState<number | null>(null);
   const [slicePlanes, setSlicePlanes] = useState<Plane[] | null>(null);
-  const select = useCallback((name: string | null) => { if (name !== null) { dispatch({ type: 'selectFile', key: name, autoAxis: null }); setZSlice(null); } }, []);
+  // Selecting the file already shown changes nothing: its stack stays loaded, so dropping its automatic axis (as a
+  // newly selected file does until its stack arrives) would leave it without one.
+  const shownName = useRef<string | null>(null);
+  shownName.current = state.current;
+  const select = useCallback((name: string | null) => {
+    if (name !== null && name !== shownName.current) { dispatch({ type: 'selectFile', key: name, autoAxis: null }); setZSlice(null); }
+  }, []);
   const flushSave = useRef<() => Promise<void>>(async () => undefined);
   const { session, openDemo, openFolder, openProject, openFiles, openRecent, openAtStart, openDroppedFiles, setMessage, setBatchOutDir } = useSession(api, dispatch, select, () => flushSave.current());
   const [help, setHelp] = useState(false);
