@@ -40,7 +40,7 @@ describe('project cohort options', () => {
     [{ normalisation: 'zscore' }, 'p.eggline.json: cohort.normalisation must be scale-offset, none, amplitude or minmax (got "zscore")'],
     [{ reference: '  ' }, 'p.eggline.json: cohort.reference must be a condition name of the sample sheet (non-empty text)'],
     [{ reference: 'wt', backgroundCondition: 'wt' }, 'p.eggline.json: cohort.backgroundCondition must differ from the reference ("wt")'],
-    ['scale-offset', 'p.eggline.json: cohort must be an object {reference, backgroundCondition, normalisation, equivalenceMargin, lambdaPosteriorEl}'],
+    ['scale-offset', 'p.eggline.json: cohort must be an object {reference, backgroundCondition, normalisation, equivalenceMargin, lambdaPosteriorEl, covariates}'],
   ])('refuses %j with one line naming the file and field', (cohort, message) => {
     expect(() => read(cohort)).toThrow(message);
     expect(message).not.toContain('\n');
