@@ -74,13 +74,14 @@ export function withinGroupFit(group: readonly string[], z: readonly (readonly n
   if (dof < 1) throw new WithinFitError('dof', -1, `${n} rows in ${k} groups leave no degrees of freedom for ${p} terms`);
   const a = new Matrix(p, p), b = new Matrix(p, 1);
   for (let r = 0; r < p; r++) {
-    for (let c = 0; c < p; c++) a.set(r, c, zt[r].reduce((s, v, i) => s + v * zt[c][i], 0));
+    // Upper triangle mirrored: the sums are exactly symmetric (the factorisation checks it to the last bit).
+    for (let c = r; c < p; c++) { const v = zt[r].reduce((s, x, i) => s + x * zt[c][i], 0); a.set(r, c, v); a.set(c, r, v); }
     b.set(r, 0, zt[r].reduce((s, v, i) => s + v * yt[i], 0));
   }
   // Scale to unit diagonal before the Cholesky factorisation so the collinearity test does not depend on units.
   const scale = Array.from({ length: p }, (_, t) => 1 / Math.sqrt(a.get(t, t)));
   const as = new Matrix(p, p);
-  for (let r = 0; r < p; r++) for (let c = 0; c < p; c++) as.set(r, c, a.get(r, c) * scale[r] * scale[c]);
+  for (let r = 0; r < p; r++) for (let c = r; c < p; c++) { const v = a.get(r, c) * scale[r] * scale[c]; as.set(r, c, v); as.set(c, r, v); }
   const chol = new CholeskyDecomposition(as);
   const lower = chol.lowerTriangularMatrix;
   const minPivot = Math.min(...Array.from({ length: p }, (_, t) => lower.get(t, t)));
