@@ -6,7 +6,8 @@ import { formatByteSize as formatBytes } from '../../core/batch';
 import { analyse, openStack } from './deps';
 import { inputFolderOf, loadImageCorrections } from './correction-images';
 import { hashingByteSource, type HashingByteSource } from './hashing-source';
-import type { BatchTask, InputDigest } from './task';
+import { timePointForFile } from '../../core/settings';
+import type { BatchTask, InputDigest, TaskEdits } from './task';
 import type { TimeShape } from './timelapse-options';
 import type { WorkerBuffers } from './worker-buffers';
 
@@ -55,6 +56,13 @@ export async function analyseFileWithDigest(
   return { result, input, shape };
 }
 
+/** The settings (at time point `tIndex`) and hand edits a task's file is analysed with at time point `tIndex`. */
+function editsAtTimePoint(task: BatchTask, tIndex: number): TaskEdits {
+  if (tIndex === task.settings.timeIndex) return task;
+  const e = task.timePointEdits ? task.timePointEdits.at[String(tIndex)] ?? task.timePointEdits.own : task;
+  return { settings: { ...e.settings, timeIndex: tIndex }, handEdits: e.handEdits };
+}
+
 async function analyseOpened(
   task: BatchTask, wrapSource: ((s: Parameters<typeof hashingByteSource>[0]) => HashingByteSource) | undefined, onInfo: (info: StackInfo) => void,
   beforeClose: () => Promise<void> = async () => undefined, buffers: WorkerBuffers | null = null,
@@ -66,10 +74,13 @@ async function analyseOpened(
     const refusal = task.maxMemoryBytes === undefined ? null : memoryRefusal(opened.info, task.maxMemoryBytes);
     if (refusal !== null) return errorResult(task.file, `${task.file}: ${refusal}`, opened.info.warnings);
     // Relative paths of the correction images are taken from the input folder (the task's path minus its file).
-    const corrections = await loadImageCorrections(task.settings, inputFolderOf(task.path, task.file));
-    const result = await analyse(opened.info, opened.source, task.settings,
-      { fileLabel: task.file, ...(task.handEdits ? { handEdits: task.handEdits } : {}), corrections, buffers });
-    const warnings = [...result.warnings, ...opened.warnings.filter((w) => !result.warnings.includes(w))];
+    // The shared time point, or the file's last when it has fewer (a single stack beside movies), with a warning.
+    const at = timePointForFile(task.settings.timeIndex, opened.info.sizeT, task.file);
+    const { settings, handEdits } = editsAtTimePoint(task, at.tIndex);
+    const corrections = await loadImageCorrections(settings, inputFolderOf(task.path, task.file));
+    const result = await analyse(opened.info, opened.source, settings,
+      { fileLabel: task.file, ...(handEdits ? { handEdits } : {}), corrections, buffers });
+    const warnings = [...result.warnings, ...opened.warnings.filter((w) => !result.warnings.includes(w)), ...(at.warning === null ? [] : [at.warning])];
     const error = result.status === 'error' && result.error ? fileMessage(task.file, result.error) : result.error;
     return { ...result, file: task.file, error, warnings };
   } catch (e) {
