@@ -13,7 +13,8 @@ import { makeSyntheticEmbryo } from '../core/synth';
 import { readChunkPlan, readIfdChain, readTiffHeader, writeOmeTiff, writePlainTiff } from '../core/tiff';
 import { DEFAULT_SETTINGS } from '../core/settings';
 import { detectEmbryo, measureEmbryo, prepareSampling, projectStack } from '../core/pipeline';
-import { analyseFile } from '../app/batch/analyse-file';
+import { analyseFileWithDigest } from '../app/batch/analyse-file';
+import { workerBuffers } from '../app/batch/worker-buffers';
 import { openStackForAnalysis, readPreviewPlane } from '../app/decode';
 
 const self = fileURLToPath(import.meta.url);
@@ -106,10 +107,12 @@ async function childFloor(paths: string[]): Promise<void> {
   }
 }
 
-/** Child: the whole per-file analysis, one file after another in one process (one batch worker's work). */
+/** Child: the whole per-file analysis, one file after another in one process, with a batch worker's lent arrays
+ *  (one batch worker's work, less the SHA-256 it takes of each file for run.json, as in earlier versions' figures). */
 async function childPipeline(paths: string[]): Promise<void> {
+  const buffers = workerBuffers();
   for (const path of paths) {
-    const r = await analyseFile({ index: 0, path, file: path, settings: SETTINGS, handEdits: null });
+    const { result: r } = await analyseFileWithDigest({ index: 0, path, file: path, settings: SETTINGS, handEdits: null }, false, buffers);
     if (r.status !== 'ok') process.stderr.write(`bench: ${r.error}\n`);
   }
 }

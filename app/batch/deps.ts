@@ -3,6 +3,7 @@ import type { EmbryoResult, HandEdits, PlaneSource, StackInfo } from '../../core
 import type { AnalysisSettings } from '../../core/settings';
 import { analyseStack, type ImageCorrections } from '../../core/pipeline';
 import { openStackForAnalysis, type OpenForAnalysisOptions } from '../decode';
+import type { WorkerBuffers } from './worker-buffers';
 
 export { openFileByteSource as openByteSource } from '../../core/io';
 
@@ -13,7 +14,12 @@ export function openStack(path: string, label: string, options: OpenForAnalysisO
 
 /** Analyse one opened stack (never throws for bad data: returns status 'error'). */
 export function analyse(
-  info: StackInfo, source: PlaneSource, settings: AnalysisSettings, opts: { fileLabel: string; handEdits?: HandEdits; corrections?: ImageCorrections | null },
+  info: StackInfo, source: PlaneSource, settings: AnalysisSettings,
+  opts: { fileLabel: string; handEdits?: HandEdits; corrections?: ImageCorrections | null; buffers?: WorkerBuffers | null },
 ): Promise<EmbryoResult> {
-  return analyseStack(info, source, settings, opts);
+  const { buffers, ...rest } = opts;
+  // A worker's lent arrays: the planes are decoded into them and the projection written into them.
+  return analyseStack(info, source, settings, buffers
+    ? { ...rest, planeArrays: buffers.planeArrays, projectionBuffers: buffers.projection(info.sizeC, info.sizeX * info.sizeY) }
+    : rest);
 }

@@ -6,7 +6,7 @@ import { existsSync, promises as fs } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { basename, dirname, join, resolve } from 'node:path';
 import {
-  BatchOptionError, editsForFile, embryoResults, JOURNAL_FILE_NAME, normalizeResult, runRecordToJson, toHandEdits,
+  BatchOptionError, editsForFile, embryoResults, JOURNAL_FILE_NAME, normalizeResult, runRecordToJson, storedFileEdits, toHandEdits,
   type ParsedJournal, type RunEndReason, type RunInput, type RunRecord,
 } from '../../core/batch';
 import type { BatchProgress, BatchSummary, ProjectDoc } from '../../core/contract';
@@ -205,6 +205,18 @@ async function checkedCorrections(settings: RunBatchOptions['settings'], folder:
   }
 }
 
+/** For a file with edits of single time points in the project: the edits in force at each and at any other time
+ *  point, which the worker takes when the file has fewer time points than settings.timeIndex; else nothing. */
+function timePointEditsOf(opts: RunBatchOptions, f: { file: string; path: string }): Pick<BatchTask, 'timePointEdits'> {
+  const keys = Object.keys(storedFileEdits(opts.doc, f.file, f.path)?.timePoints ?? {});
+  if (keys.length === 0) return {};
+  const edits = (t: number | null) => {
+    const e = editsForFile(opts.doc, f.file, f.path, t);
+    return { settings: settingsInForce(opts.settings, e), handEdits: toHandEdits(e) };
+  };
+  return { timePointEdits: { own: edits(null), at: Object.fromEntries(keys.map((k) => [k, edits(Number(k))])) } };
+}
+
 /** Run a batch over `folder`, writing outputs to `outDir`. Rejects only for unusable options (BatchOptionError) or I/O on the output. */
 export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   mark('batch started');
@@ -223,7 +235,7 @@ export async function runBatch(opts: RunBatchOptions): Promise<BatchRunResult> {
   if (opts.jobs > 0 && !existsSync(workerPath)) throw new Error(`the batch worker ${workerPath} is missing; build it with "npm run build"`);
   const tasks: BatchTask[] = files.map((f, index) => {
     const edits = editsForFile(opts.doc, f.file, f.path, opts.settings.timeIndex);
-    const task = { index, path: f.path, file: f.file, settings: settingsInForce(opts.settings, edits), handEdits: toHandEdits(edits) };
+    const task = { index, path: f.path, file: f.file, settings: settingsInForce(opts.settings, edits), handEdits: toHandEdits(edits), ...timePointEditsOf(opts, f) };
     return opts.maxMemoryBytes === undefined ? task : { ...task, maxMemoryBytes: opts.maxMemoryBytes };
   });
   // The workers start now and load their code while this process writes run.json, opens the journal and orders the

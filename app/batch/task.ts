@@ -14,8 +14,18 @@ export interface BatchTask {
   readonly file: string;
   readonly settings: AnalysisSettings;
   readonly handEdits: HandEdits | null;
+  /** When the file has edits of single time points in the project: the settings and hand edits in force at each of
+   *  them (`at`, keyed by time point) and at any other (`own`), for a file analysed at another time point than
+   *  settings.timeIndex (one past its last; see timePointForFile). Absent = settings and handEdits hold at every one. */
+  readonly timePointEdits?: { readonly own: TaskEdits; readonly at: Readonly<Record<string, TaskEdits>> };
   /** Memory one file's analysis may use, bytes (the worker's resident size); absent = no limit. */
   readonly maxMemoryBytes?: number;
+}
+
+/** The settings and hand edits in force at one time point of a file. */
+export interface TaskEdits {
+  readonly settings: AnalysisSettings;
+  readonly handEdits: HandEdits | null;
 }
 
 /** A request to generate one demo file (sent with `kind: 'demo'`; analysis tasks carry no `kind`). */

@@ -6,6 +6,7 @@ import { analyseFileWithDigest } from '../batch/analyse-file';
 import { limitDecoderThreads } from '../batch/decoder-threads';
 import type { BatchTask, DemoRequest, WorkerReply } from '../batch/task';
 import { mark, markProcessStart } from '../batch/timeline';
+import { workerBuffers } from '../batch/worker-buffers';
 
 /** The two ways this worker talks to its parent. */
 interface Channel {
@@ -33,6 +34,9 @@ mark('worker loaded');
 const channel = parentPort ? threadChannel(parentPort) : processChannel();
 const data = (parentPort ? workerData : JSON.parse(process.env.EGGLINE_WORKER_DATA ?? 'null')) as { decoderThreads?: number } | null;
 limitDecoderThreads(data?.decoderThreads ?? 1);
+// Arrays lent to each file in turn (planes decoded into them, the projection written into them): the worker
+// analyses one file at a time and keeps nothing of a file once its result is sent.
+const buffers = workerBuffers();
 
 channel.on((msg) => {
   if ('kind' in msg && msg.kind === 'demo') {
@@ -46,7 +50,7 @@ channel.on((msg) => {
   }
   const task = msg as BatchTask;
   mark(`file started ${task.file}`);
-  void analyseFileWithDigest(task).then(({ result, input, shape }) => {
+  void analyseFileWithDigest(task, true, buffers).then(({ result, input, shape }) => {
     mark(`file done ${task.file}`);
     channel.post({ type: 'result', index: task.index, result, input, shape });
     const m = process.memoryUsage();

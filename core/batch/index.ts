@@ -17,7 +17,7 @@ export {
 } from './journal';
 export { MAX_CELL_CHARS, clipMessage, collapseMessages, warningsCell, tidyMessages } from './messages';
 export {
-  PROJECT_FILE_NAME, projectKey, editsForFile, toHandEdits,
+  PROJECT_FILE_NAME, projectKey, editsForFile, storedFileEdits, toHandEdits,
 } from './project-edits';
 export { isStackFileName, isStackFolderName, sortStackPaths } from './stack-files';
 export {

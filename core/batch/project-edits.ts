@@ -15,12 +15,17 @@ export function projectKey(relPath: string): string {
 /** The edits in force for one file at time point `tIndex` (default 0; the time point's own edits over the file's;
  *  null: the file's own alone): looked up by relative path, then by absolute path; null when none. */
 export function editsForFile(doc: ProjectDoc | null, relPath: string, absPath?: string, tIndex: number | null = 0): FileEdits | null {
-  if (!doc) return null;
+  return fileEditsAt(storedFileEdits(doc, relPath, absPath), tIndex);
+}
+
+/** A file's stored entry in the project, with its edits of single time points (`timePoints`): looked up by relative
+ *  path, then by absolute path; undefined when none. */
+export function storedFileEdits(doc: ProjectDoc | null, relPath: string, absPath?: string): FileEdits | undefined {
+  if (!doc) return undefined;
   const files = doc.files;
   const key = projectKey(relPath);
-  const hit = Object.prototype.hasOwnProperty.call(files, key) ? files[key]
+  return Object.prototype.hasOwnProperty.call(files, key) ? files[key]
     : absPath !== undefined && Object.prototype.hasOwnProperty.call(files, absPath) ? files[absPath] : undefined;
-  return fileEditsAt(hit, tIndex);
 }
 
 /** The pipeline's hand edits from stored file edits (axis marked 'hand'); null when there is nothing to apply. */

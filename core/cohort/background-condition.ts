@@ -5,7 +5,7 @@
 // ch. 11, from memory: SE² = (k − 1)/k · Σ (θ₍ᵢ₎ − θ̄₍·₎)²).
 import type { EmbryoResult } from '../model';
 import { assignConditions } from './assign';
-import { backgroundConditionOf, backgroundProfiles, BACKGROUND_CONDITION_RULE, type BackgroundChoice } from './background-profile';
+import { backgroundProfiles, BACKGROUND_CONDITION_RULE, type BackgroundChoice } from './background-profile';
 import { refitEmbryo, type RefitSettings } from './background-refit';
 import { CohortError } from './cohort-error';
 import { observationsOf } from './observations';
@@ -41,13 +41,6 @@ function splitCondition(results: readonly EmbryoResult[], sheet: SampleSheet, na
   const taken = new Set(embryos);
   const missing = own.warnings.filter((w) => w.startsWith(`${sheet.source}: no analysed result for `));
   return { sheet: { source: sheet.source, rows: rest }, results: results.filter((r) => !taken.has(r)), condition: name, source, embryos, warnings: missing };
-}
-
-/** Take the background condition (given, or marked in the sheet's role column) out of the sheet and the results;
- *  null when there is none. Throws CohortError (one line) when it is not in the sheet or is the only condition. With
- *  `given` = `none`, see splitByChoice. */
-export function splitBackgroundCondition(results: readonly EmbryoResult[], sheet: SampleSheet, given: string | null): BackgroundSplit | null {
-  return splitByChoice(results, sheet, backgroundConditionOf(sheet, given)).split;
 }
 
 /** The split a background choice asks for: the subtracted condition's (rules 'option', 'sheet'), or with rule 'none'

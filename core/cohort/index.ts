@@ -19,7 +19,7 @@ export { referenceLambda, shiftRows, ratioWithCi, slopeRatio, twoGradientShiftEl
 export { dosageFits, lambdaTrend, measuredDosages, conditionMeansLine } from './dosage-fit';
 export { gridEl, interpolateOnGrid, normaliseProfile, centralSlope, conditionProfile } from './profiles';
 export { analyseCohort, type CohortRunOptions } from './analyse';
-export { splitBackgroundCondition, splitByChoice, applyBackgroundCondition, jackknifeSe, type BackgroundSplit } from './background-condition';
+export { splitByChoice, applyBackgroundCondition, jackknifeSe, type BackgroundSplit } from './background-condition';
 export { backgroundConditionOf, backgroundProfile, backgroundProfiles, BACKGROUND_CONDITION_RULE, ROLE_COLUMN, type BackgroundChoice } from './background-profile';
 export { NO_BACKGROUND_CONDITION } from '../model';
 export { backgroundProfileCsv, backgroundRefitCsv, backgroundConditionsCsv, backgroundRecordJson, backgroundChoiceJson } from './background-tables';

@@ -7,10 +7,11 @@ import { foregroundBox } from '../image';
 const CORNERS = [[0, 0], [1, 0], [1, 1], [0, 1]] as const;
 const EDGES = [[0, 1], [1, 2], [2, 3], [3, 0]] as const;
 
-interface Segment { sx: number; sy: number; ex: number; ey: number }
+/** One oriented segment of a contour, from (sx, sy) to (ex, ey). */
+export interface Segment { sx: number; sy: number; ex: number; ey: number }
 
 /** Segments of one cell, oriented so the inside corner is on the same side (cross product > 0). */
-function cellSegments(inside: readonly boolean[], x: number, y: number, out: Segment[]): void {
+export function cellSegments(inside: readonly boolean[], x: number, y: number, out: Segment[]): void {
   const mid = (e: number): [number, number] => {
     const [i, j] = EDGES[e];
     return [x + (CORNERS[i][0] + CORNERS[j][0]) / 2, y + (CORNERS[i][1] + CORNERS[j][1]) / 2];
@@ -35,13 +36,23 @@ function cellSegments(inside: readonly boolean[], x: number, y: number, out: Seg
   }
 }
 
+/**
+ * The segments of each of the 16 cells (index: top-left inside = 1, top-right = 2, bottom-right = 4, bottom-left = 8)
+ * at x = y = 0, in the order cellSegments gives them; a cell at (x, y) has them moved by (x, y). Coordinates are
+ * whole or half numbers, so moving them is exact and gives the very numbers cellSegments computes there.
+ */
+const CELL_SEGMENTS: readonly (readonly Segment[])[] = Array.from({ length: 16 }, (_, k) => {
+  const out: Segment[] = [];
+  cellSegments([(k & 1) !== 0, (k & 2) !== 0, (k & 4) !== 0, (k & 8) !== 0], 0, 0, out);
+  return out;
+});
+
 /** All closed contours of the mask (each a list of vertices, last vertex not repeated), in discovery order. */
 export function maskContours(mask: Mask): ImagePoint[][] {
   const { width, height, data } = mask;
   const segs: Segment[] = [];
   const box = foregroundBox(mask);
   if (box === null) return [];
-  const inside = [false, false, false, false];
   // Rows of the mask padded by one outside pixel on each side; cell (x, y) has corners in rows y and y + 1. Only
   // cells touching the foreground's bounding box can hold segments, so the scan stays inside it (same order).
   let top = new Uint8Array(width + 2);
@@ -50,10 +61,9 @@ export function maskContours(mask: Mask): ImagePoint[][] {
     bottom.fill(0);
     if (y + 1 < box.y1) for (let x = box.x0; x < box.x1; x++) bottom[x + 1] = data[(y + 1) * width + x] !== 0 ? 1 : 0;
     for (let x = box.x0 - 1; x < box.x1; x++) {
-      const count = top[x + 1] + top[x + 2] + bottom[x + 2] + bottom[x + 1];
-      if (count === 0 || count === 4) continue;
-      inside[0] = top[x + 1] === 1; inside[1] = top[x + 2] === 1; inside[2] = bottom[x + 2] === 1; inside[3] = bottom[x + 1] === 1;
-      cellSegments(inside, x, y, segs);
+      const k = top[x + 1] | (top[x + 2] << 1) | (bottom[x + 2] << 2) | (bottom[x + 1] << 3);
+      if (k === 0 || k === 15) continue;
+      for (const c of CELL_SEGMENTS[k]) segs.push({ sx: x + c.sx, sy: y + c.sy, ex: x + c.ex, ey: y + c.ey });
     }
     [top, bottom] = [bottom, top];
   }

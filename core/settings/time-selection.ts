@@ -43,3 +43,13 @@ export function parseTimeStepS(text: string, flag = '--time-step'): number {
   if (!(Number.isFinite(v) && v > 0)) throw new RangeError(`${flag} must be a positive number of seconds (got "${text}")`);
   return v;
 }
+
+/** The time point a single-time-point analysis uses in a file with `sizeT` time points when `askedIndex` (the shared
+ *  --time-index) is asked for: the asked one when the file has it, else the file's last (its only one for a single
+ *  stack), with a one-line warning naming the file, the asked and the used time point (null when the asked one is used). */
+export function timePointForFile(askedIndex: number, sizeT: number, file: string): { readonly tIndex: number; readonly warning: string | null } {
+  if (!(sizeT >= 1) || askedIndex < sizeT) return { tIndex: askedIndex, warning: null };
+  const tIndex = sizeT - 1;
+  const has = sizeT === 1 ? 'has one time point' : `has ${sizeT} time points (0 to ${tIndex})`;
+  return { tIndex, warning: `${file}: time point ${askedIndex} asked for (--time-index, 0-based), but the file ${has}; time point ${tIndex} was analysed` };
+}
