@@ -138,7 +138,7 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
   // The time points whose planes are read, each read while the one before it is analysed.
   const reading = prefetchingSource(source, info, timeIndices.filter((_, k) => keptFor[k] === undefined));
   try {
-    for (const [k, t] of timeIndices.entries()) {
+    for (let k = 0; k < timeIndices.length; k++) {
       if (options.signal?.aborted) throw cancelled(fileLabel);
       const at = edits[k];
       const onProjected = options.onProjected ? (p: ProjectedStack) => options.onProjected!(k, p, timeIndices.length) : undefined;
