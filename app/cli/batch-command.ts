@@ -32,7 +32,7 @@ const OPTIONS = {
   ...SETTING_OPTIONS, ...RUN_OPTIONS,
   out: { type: 'string' }, config: { type: 'string' },
   project: { type: 'string' }, 'no-project': { type: 'boolean' }, samples: { type: 'string' }, reference: { type: 'string' }, 'background-condition': { type: 'string' },
-  normalise: { type: 'string' }, 'lambda-posterior-el': { type: 'string' }, 'equivalence-margin': { type: 'string' },
+  normalise: { type: 'string' }, 'lambda-posterior-el': { type: 'string' }, 'equivalence-margin': { type: 'string' }, covariate: { type: 'string', multiple: true },
   resume: { type: 'boolean' }, shard: { type: 'string' },
   slurm: { type: 'string' }, 'slurm-options': { type: 'string' }, help: { type: 'boolean', short: 'h' },
   time: { type: 'string' }, 'axis-per-time': { type: 'boolean' }, 'time-step': { type: 'string' }, 'tau-range': { type: 'string' },
@@ -123,7 +123,7 @@ export async function planBatch(given: readonly string[]): Promise<BatchPlan | '
   if (v.reference !== undefined && v.samples === undefined) throw new UsageError('--reference needs --samples', 'batch');
   if (v['background-condition'] !== undefined && v.samples === undefined) throw new UsageError('--background-condition needs --samples', 'batch');
   if (v['background-condition'] !== undefined && v['background-condition'].trim() === '') throw new UsageError('--background-condition needs a condition name', 'batch');
-  for (const flag of ['normalise', 'lambda-posterior-el', 'equivalence-margin'] as const) {
+  for (const flag of ['normalise', 'lambda-posterior-el', 'equivalence-margin', 'covariate'] as const) {
     if (v[flag] !== undefined && v.samples === undefined) throw new UsageError(`--${flag} needs --samples`, 'batch');
   }
   const comparison = parseComparisonFlags(v);
@@ -231,7 +231,8 @@ async function slurmCommand(plan: BatchPlan, io: CliIo, cliPath: string): Promis
     ...(c.backgroundCondition !== null ? ['--background-condition', c.backgroundCondition] : []),
     ...(c.normalisation !== 'scale-offset' ? ['--normalise', c.normalisation] : []),
     ...(c.lambdaPosteriorEl !== null ? ['--lambda-posterior-el', String(c.lambdaPosteriorEl)] : []),
-    ...(c.equivalenceMargin !== null ? ['--equivalence-margin', String(c.equivalenceMargin)] : [])] : [];
+    ...(c.equivalenceMargin !== null ? ['--equivalence-margin', String(c.equivalenceMargin)] : []),
+    ...c.covariates.flatMap((col) => ['--covariate', col])] : [];
   const { plan: p, arrayPath, mergePath } = await writeSlurmScripts({
     folder: plan.folder, outDir: plan.outDir, parts: slurm.parts, cpusPerTask: slurm.cpusPerTask, optionsText: slurm.options,
     batchArgs: slurm.partArgs, mergeArgs, nodePath: process.execPath, cliPath,

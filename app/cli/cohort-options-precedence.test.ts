@@ -12,7 +12,7 @@ import { parseCohortArgs, planChoices } from './cohort-command';
 const root = mkdtempSync(join(tmpdir(), 'eggline-cohort-opts-'));
 const input = join(root, 'in');
 mkdirSync(input);
-const kept = { reference: 'half', backgroundCondition: 'null-stain', normalisation: 'minmax', equivalenceMargin: 0.25, lambdaPosteriorEl: 0.12 } as const;
+const kept = { reference: 'half', backgroundCondition: 'null-stain', normalisation: 'minmax', equivalenceMargin: 0.25, lambdaPosteriorEl: 0.12, covariates: ['stage'] };
 // The resolved choices also say who gave the background condition (the record names it).
 const fromKept = { ...kept, backgroundConditionNamedBy: "the project's cohort.backgroundCondition" };
 const projectPath = join(root, 'kept.eggline.json');
@@ -30,7 +30,7 @@ const plan = (argv: string[]) => {
 describe('cohort options: flag over project over default', () => {
   it('takes each default when neither a flag nor the project sets it', () => {
     expect(cohortChoices(undefined)).toEqual(DEFAULT_COHORT_CHOICES);
-    expect(DEFAULT_COHORT_CHOICES).toEqual({ reference: null, backgroundCondition: null, backgroundConditionNamedBy: '--background-condition', normalisation: 'scale-offset', lambdaPosteriorEl: null, equivalenceMargin: null });
+    expect(DEFAULT_COHORT_CHOICES).toEqual({ reference: null, backgroundCondition: null, backgroundConditionNamedBy: '--background-condition', normalisation: 'scale-offset', lambdaPosteriorEl: null, equivalenceMargin: null, covariates: [] });
     expect(cohortChoices({ normalisation: 'none' }, { reference: 'wt' })).toEqual({ ...DEFAULT_COHORT_CHOICES, normalisation: 'none', reference: 'wt' });
   });
 
@@ -38,6 +38,9 @@ describe('cohort options: flag over project over default', () => {
     expect((await planChoices(plan(['res', '--samples', samples, '--project', projectPath]))).choices).toEqual(fromKept);
     const flagged = await planChoices(plan(['res', '--samples', samples, '--project', projectPath, '--reference', 'wt', '--normalise', 'amplitude', '--equivalence-margin', '0.1']));
     expect(flagged.choices).toEqual({ ...fromKept, reference: 'wt', normalisation: 'amplitude', equivalenceMargin: 0.1 });
+    // --covariate (repeatable) replaces the project's list as a whole.
+    const covariates = await planChoices(plan(['res', '--samples', samples, '--project', projectPath, '--covariate', 'batch', '--covariate', 'age:numeric']));
+    expect(covariates.choices).toEqual({ ...fromKept, covariates: ['batch', 'age:numeric'] });
     expect((await planChoices(plan(['res', '--samples', samples]))).choices).toEqual(DEFAULT_COHORT_CHOICES);
   });
 

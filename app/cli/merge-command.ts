@@ -10,7 +10,7 @@ import { UsageError, type CliIo } from './usage-error';
 
 const OPTIONS = {
   samples: { type: 'string' }, reference: { type: 'string' }, 'background-condition': { type: 'string' }, 'allow-missing': { type: 'boolean' }, help: { type: 'boolean', short: 'h' },
-  normalise: { type: 'string' }, 'lambda-posterior-el': { type: 'string' }, 'equivalence-margin': { type: 'string' },
+  normalise: { type: 'string' }, 'lambda-posterior-el': { type: 'string' }, 'equivalence-margin': { type: 'string' }, covariate: { type: 'string', multiple: true },
 } as const;
 
 /** Run `eggline merge`; returns the exit code (0 merged and every file ok, 1 some files failed or missing or the cohort
@@ -23,7 +23,7 @@ export async function mergeCommand(argv: readonly string[], io: CliIo): Promise<
   }
   if (v.reference !== undefined && v.samples === undefined) throw new UsageError('--reference needs --samples', 'merge');
   if (v['background-condition'] !== undefined && v.samples === undefined) throw new UsageError('--background-condition needs --samples', 'merge');
-  for (const flag of ['normalise', 'lambda-posterior-el', 'equivalence-margin'] as const) {
+  for (const flag of ['normalise', 'lambda-posterior-el', 'equivalence-margin', 'covariate'] as const) {
     if (v[flag] !== undefined && v.samples === undefined) throw new UsageError(`--${flag} needs --samples`, 'merge');
   }
   const comparison = parseComparisonFlags(v);
@@ -38,6 +38,7 @@ export async function mergeCommand(argv: readonly string[], io: CliIo): Promise<
       cohort: v.samples !== undefined ? {
         sampleSheetPath: resolve(v.samples), reference: v.reference ?? null, backgroundCondition: v['background-condition'] ?? null,
         normalisation: comparison.normalisation, lambdaPosteriorEl: comparison.lambdaPosteriorEl ?? null, equivalenceMargin: comparison.equivalenceMargin ?? null,
+        ...(comparison.covariates !== undefined ? { covariates: comparison.covariates } : {}),
       } : null,
     });
     for (const w of merged.warnings) io.stderr.write(`eggline: warning: ${w}\n`);
