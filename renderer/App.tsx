@@ -262,7 +262,7 @@ export function App() {
             onAnalyse={startMovie} onCancel={() => { void cancelMovie(); }}
             tIndex={state.shownTimeIndex} onTimePoint={(t) => dispatch({ type: 'showTimePoint', tIndex: t })} setMessage={setMessage} />}
           {tab === 'cohort' && <CohortView summary={batch.summary} onOpenReport={openReport}
-            options={{ options: state.doc.cohort ?? {}, conditions: batch.sheetConditions, busy: batch.recomputing, onChange: setCohortOptions }} />}
+            options={{ options: state.doc.cohort ?? {}, conditions: batch.sheetConditions, columns: batch.sheetColumns, busy: batch.recomputing, onChange: setCohortOptions }} />}
         </main>
         <aside className="right">
           {isMovie && stack !== null && <TimePointPanel tIndex={state.shownTimeIndex} sizeT={stack.info.sizeT}

@@ -19,6 +19,8 @@ export interface CohortStepOptions {
   readonly normalisation?: Normalisation;
   readonly lambdaPosteriorEl?: number | null;
   readonly equivalenceMargin?: number | null;
+  /** Sample-sheet columns adjusting the dosage regression (see runCohortStep); absent: none. */
+  readonly covariates?: readonly string[];
   readonly outDir: string;
   readonly runRecord: unknown;
   /** The batch's movies and failed movies: the report gets a time-lapse section with their figures. */

@@ -30,6 +30,8 @@ export interface MergePartsOptions {
     readonly backgroundConditionNamedBy?: string;
     /** The cohort step's other options (see runCohortStep); absent: its defaults. */
     readonly normalisation?: Normalisation; readonly lambdaPosteriorEl?: number | null; readonly equivalenceMargin?: number | null;
+    /** Sample-sheet columns adjusting the dosage regression (see runCohortStep); absent: none. */
+    readonly covariates?: readonly string[];
   } | null;
 }
 
@@ -159,6 +161,7 @@ export async function mergeParts(opts: MergePartsOptions): Promise<MergePartsRes
       results: embryoResults(results), failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, backgroundCondition: opts.cohort.backgroundCondition ?? null,
       ...(opts.cohort.backgroundConditionNamedBy !== undefined ? { backgroundConditionNamedBy: opts.cohort.backgroundConditionNamedBy } : {}), outDir: opts.outDir, runRecord: record,
       normalisation: opts.cohort.normalisation, lambdaPosteriorEl: opts.cohort.lambdaPosteriorEl ?? null, equivalenceMargin: opts.cohort.equivalenceMargin ?? null,
+      ...(opts.cohort.covariates !== undefined && opts.cohort.covariates.length > 0 ? { covariates: opts.cohort.covariates } : {}),
       movies: timelapse.movies, movieFailures: timelapse.failures,
     });
     written.push(...step.written);

@@ -65,6 +65,8 @@ export interface RunBatchOptions {
     readonly backgroundConditionNamedBy?: string;
     /** The cohort step's other options (see runCohortStep); absent: its defaults. */
     readonly normalisation?: Normalisation; readonly lambdaPosteriorEl?: number | null; readonly equivalenceMargin?: number | null;
+    /** Sample-sheet columns adjusting the dosage regression (see runCohortStep); absent: none. */
+    readonly covariates?: readonly string[];
   } | null;
   /** Analyse only this part of the sorted, size-balanced file list, writing to `<outDir>/parts/K-of-N`. */
   readonly shard?: ShardSpec | null;
@@ -382,6 +384,7 @@ async function runListed(opts: RunBatchOptions, listed: ListedRun): Promise<Batc
       results: embryoResults(keyed), failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, backgroundCondition: opts.cohort.backgroundCondition ?? null,
       ...(opts.cohort.backgroundConditionNamedBy !== undefined ? { backgroundConditionNamedBy: opts.cohort.backgroundConditionNamedBy } : {}), outDir, runRecord: final,
       normalisation: opts.cohort.normalisation, lambdaPosteriorEl: opts.cohort.lambdaPosteriorEl ?? null, equivalenceMargin: opts.cohort.equivalenceMargin ?? null,
+      ...(opts.cohort.covariates !== undefined && opts.cohort.covariates.length > 0 ? { covariates: opts.cohort.covariates } : {}),
       movies: timelapse.movies, movieFailures: timelapse.failures,
     });
     written.push(...step.written);

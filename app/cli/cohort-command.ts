@@ -46,6 +46,12 @@ Options:
                               two-gradient prediction Δx = ln f / (1/λ_A + 1/λ_P)
   --equivalence-margin M      also test whether observed/predicted lies within 1 ± M (two one-sided
                               tests on the 90% interval); 0 < M < 1                        [none]
+  --covariate COLUMN          adjust the dosage regression for a free column of the sample sheet
+                              (repeat for several): COLUMN:numeric (e.g. stage in minutes) or
+                              COLUMN:categorical (e.g. batch; dummies against its first level in
+                              the sheet); plain COLUMN is numeric when every value is a number.
+                              Coefficients are estimated within conditions; adds a
+                              covariate-adjusted row to dosage_fit.csv and covariates.csv  [none]
   --project FILE              take the options above from the project file's cohort entry (as the
                               window saves them); a flag given here overrides the project's value
   --out DIR                   output folder                          [default: <results-dir>/cohort]
@@ -79,7 +85,7 @@ function parseDosages(values: readonly string[]): Record<string, number> | { usa
 const COHORT_OPTIONS = {
   samples: { type: 'string' }, pattern: { type: 'string' }, dosage: { type: 'string', multiple: true },
   reference: { type: 'string' }, 'background-condition': { type: 'string' }, normalise: { type: 'string' }, 'lambda-posterior-el': { type: 'string' },
-  'equivalence-margin': { type: 'string' }, project: { type: 'string' },
+  'equivalence-margin': { type: 'string' }, covariate: { type: 'string', multiple: true }, project: { type: 'string' },
   out: { type: 'string' }, help: { type: 'boolean', short: 'h' },
 } as const;
 
@@ -154,7 +160,7 @@ export async function cohortCommand(argv: readonly string[], io: CohortCommandIo
     const out = await runCohortStep({
       results: doc.results, failures: [], timelapseHtml, sampleSheetPath: plan.samples, reference: choices.reference, outDir: plan.outDir, runRecord,
       normalisation: choices.normalisation, lambdaPosteriorEl: choices.lambdaPosteriorEl, equivalenceMargin: choices.equivalenceMargin, backgroundCondition: choices.backgroundCondition,
-      backgroundConditionNamedBy: choices.backgroundConditionNamedBy, ...(plan.rule ? { filenameRule: plan.rule } : {}),
+      backgroundConditionNamedBy: choices.backgroundConditionNamedBy, covariates: choices.covariates, ...(plan.rule ? { filenameRule: plan.rule } : {}),
     });
     for (const w of out.warnings) io.stderr.write(`warning: ${w}\n`);
     const background = backgroundLine(out.analysis);

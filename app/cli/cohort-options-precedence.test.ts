@@ -6,13 +6,13 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { cohortChoices, DEFAULT_COHORT_CHOICES } from '../cohort/cohort-choices';
-import { planBatch } from './batch-command';
+import { mergeCohortArgs, planBatch } from './batch-command';
 import { parseCohortArgs, planChoices } from './cohort-command';
 
 const root = mkdtempSync(join(tmpdir(), 'eggline-cohort-opts-'));
 const input = join(root, 'in');
 mkdirSync(input);
-const kept = { reference: 'half', backgroundCondition: 'null-stain', normalisation: 'minmax', equivalenceMargin: 0.25, lambdaPosteriorEl: 0.12 } as const;
+const kept = { reference: 'half', backgroundCondition: 'null-stain', normalisation: 'minmax', equivalenceMargin: 0.25, lambdaPosteriorEl: 0.12, covariates: ['stage'] };
 // The resolved choices also say who gave the background condition (the record names it).
 const fromKept = { ...kept, backgroundConditionNamedBy: "the project's cohort.backgroundCondition" };
 const projectPath = join(root, 'kept.eggline.json');
@@ -30,7 +30,7 @@ const plan = (argv: string[]) => {
 describe('cohort options: flag over project over default', () => {
   it('takes each default when neither a flag nor the project sets it', () => {
     expect(cohortChoices(undefined)).toEqual(DEFAULT_COHORT_CHOICES);
-    expect(DEFAULT_COHORT_CHOICES).toEqual({ reference: null, backgroundCondition: null, backgroundConditionNamedBy: '--background-condition', normalisation: 'scale-offset', lambdaPosteriorEl: null, equivalenceMargin: null });
+    expect(DEFAULT_COHORT_CHOICES).toEqual({ reference: null, backgroundCondition: null, backgroundConditionNamedBy: '--background-condition', normalisation: 'scale-offset', lambdaPosteriorEl: null, equivalenceMargin: null, covariates: [] });
     expect(cohortChoices({ normalisation: 'none' }, { reference: 'wt' })).toEqual({ ...DEFAULT_COHORT_CHOICES, normalisation: 'none', reference: 'wt' });
   });
 
@@ -38,6 +38,9 @@ describe('cohort options: flag over project over default', () => {
     expect((await planChoices(plan(['res', '--samples', samples, '--project', projectPath]))).choices).toEqual(fromKept);
     const flagged = await planChoices(plan(['res', '--samples', samples, '--project', projectPath, '--reference', 'wt', '--normalise', 'amplitude', '--equivalence-margin', '0.1']));
     expect(flagged.choices).toEqual({ ...fromKept, reference: 'wt', normalisation: 'amplitude', equivalenceMargin: 0.1 });
+    // --covariate (repeatable) replaces the project's list as a whole.
+    const covariates = await planChoices(plan(['res', '--samples', samples, '--project', projectPath, '--covariate', 'batch', '--covariate', 'age:numeric']));
+    expect(covariates.choices).toEqual({ ...fromKept, covariates: ['batch', 'age:numeric'] });
     expect((await planChoices(plan(['res', '--samples', samples]))).choices).toEqual(DEFAULT_COHORT_CHOICES);
   });
 
@@ -70,6 +73,23 @@ describe('cohort options: flag over project over default', () => {
     await expect(planBatch([input, '--out', join(root, 'o'), '--samples', samples, '--normalise', 'z']))
       .rejects.toThrow('--normalise must be scale-offset, none, amplitude or minmax (got "z")');
     await expect(planBatch([input, '--out', join(root, 'o'), '--normalise', 'none'])).rejects.toThrow('--normalise needs --samples');
+  });
+});
+
+describe('eggline batch --slurm hands the cohort options to the merge job', () => {
+  it('with a project cohort entry: --project and only the flags given (so the merge resolves and records them alike)', async () => {
+    const plain = await planBatch([input, '--out', join(root, 'o'), '--project', projectPath, '--samples', samples]);
+    if (plain === 'help') throw new Error('unexpected help');
+    expect(mergeCohortArgs(plain)).toEqual(['--project', projectPath]);
+    const flagged = await planBatch([input, '--out', join(root, 'o'), '--project', projectPath, '--samples', samples, '--reference', 'wt', '--covariate', 'batch']);
+    if (flagged === 'help') throw new Error('unexpected help');
+    expect(mergeCohortArgs(flagged)).toEqual(['--project', projectPath, '--reference', 'wt', '--covariate', 'batch']);
+  });
+
+  it('without a project: the options in force as flags', async () => {
+    const none = await planBatch([input, '--out', join(root, 'o'), '--no-project', '--samples', samples, '--normalise', 'none', '--covariate', 'stage']);
+    if (none === 'help') throw new Error('unexpected help');
+    expect(mergeCohortArgs(none)).toEqual(['--normalise', 'none', '--covariate', 'stage']);
   });
 });
 

@@ -78,9 +78,10 @@ ${settingsHelp()}
                               from every other embryo's profile before λ and boundaries are fitted
                               again in the cohort step (needs --samples; see eggline cohort --help);
                               "none" subtracts nothing even when the sheet's role column marks one
-  --normalise MODE, --lambda-posterior-el V, --equivalence-margin M
+  --normalise MODE, --lambda-posterior-el V, --equivalence-margin M, --covariate COLUMN
                               the cohort step's profile normalisation, opposing gradient's decay
-                              length and equivalence margin, as in eggline cohort (need --samples)
+                              length, equivalence margin and covariates (repeatable), as in
+                              eggline cohort (need --samples)
 ${runSettingHelp('fileTimeoutS', String(DEFAULT_TIMEOUT_PER_FILE_S))}
 ${runSettingHelp('maxMemoryBytes', '3/4 of memory / jobs, 1G to 8G')}
   --resume                    reuse the results journal.jsonl in <dir> holds for files whose bytes
@@ -134,8 +135,11 @@ Options:
                               from every other embryo's profile before λ and boundaries are fitted
                               again in the cohort step (needs --samples; see eggline cohort --help);
                               "none" subtracts nothing even when the sheet's role column marks one
-  --normalise MODE, --lambda-posterior-el V, --equivalence-margin M
-                              the cohort step's other options, as in eggline cohort (need --samples)
+  --normalise MODE, --lambda-posterior-el V, --equivalence-margin M, --covariate COLUMN
+                              the cohort step's other options, as in eggline cohort (need --samples;
+                              --covariate is repeatable)
+  --project FILE              take the options above from the project file's cohort entry; a flag
+                              given here overrides the project's value (needs --samples)
   --allow-missing             merge the parts that are there; run.json lists the files without a row
   -h, --help                  show this help
 

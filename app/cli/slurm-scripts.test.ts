@@ -48,12 +48,14 @@ describe('joinSlurmOptions and partArguments', () => {
   const options = {
     out: { type: 'string' }, jobs: { type: 'string' }, config: { type: 'string' }, 'fit-range': { type: 'string' },
     'boundary-channel': { type: 'string', multiple: true }, 'no-project': { type: 'boolean' }, slurm: { type: 'string' },
-    'slurm-options': { type: 'string' }, samples: { type: 'string' },
+    'slurm-options': { type: 'string' }, samples: { type: 'string' }, normalise: { type: 'string' }, covariate: { type: 'string', multiple: true },
+    'background-condition': { type: 'string' },
   } as const;
 
   it('keeps the settings for the parts, paths made absolute, and leaves out the split\'s and the merge\'s options', () => {
     const argv = joinSlurmOptions(['in', '--out', 'o', '--slurm', '4', '--slurm-options', '--partition=long -t 1:00:00', '--jobs', '4',
-      '--config', 'cfg.json', '--fit-range', '0.1,0.5', '--boundary-channel', '2', '--boundary-channel', 'target', '--no-project', '--samples', 's.csv']);
+      '--config', 'cfg.json', '--fit-range', '0.1,0.5', '--boundary-channel', '2', '--boundary-channel', 'target', '--no-project', '--samples', 's.csv',
+      '--normalise', 'none', '--covariate', 'stage', '--background-condition', 'null-stain']);
     expect(argv).toContain('--slurm-options=--partition=long -t 1:00:00');
     expect(partArguments(argv, options, '/home/u')).toEqual([
       '--config=/home/u/cfg.json', '--fit-range=0.1,0.5', '--boundary-channel=2', '--boundary-channel=target', '--no-project',

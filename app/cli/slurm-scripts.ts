@@ -225,7 +225,9 @@ export function submitCommands(outDir: string): string {
 }
 
 /** Options of `eggline batch` that do not go to the parts: they are the split's own, or the merge's. */
-const NOT_FOR_PARTS = new Set(['out', 'jobs', 'samples', 'reference', 'shard', 'resume', 'slurm', 'slurm-options', 'help']);
+const NOT_FOR_PARTS = new Set(['out', 'jobs', 'samples', 'reference', 'shard', 'resume', 'slurm', 'slurm-options', 'help',
+  // The comparison's options go to the merge job (they need --samples, which a part never gets).
+  'background-condition', 'normalise', 'lambda-posterior-el', 'equivalence-margin', 'covariate']);
 /** Options whose value is a path, made absolute for the scripts. */
 const PATH_OPTIONS = new Set(['config', 'project']);
 

@@ -4,7 +4,7 @@
 import type { CohortAnalysis, Normalisation } from '../../core/cohort';
 import type { ProjectCohortOptions } from '../../core/settings';
 
-/** The five options a project can keep, resolved, and who gave the background condition. */
+/** The six options a project can keep, resolved, and who gave the background condition. */
 export interface CohortChoices {
   readonly reference: string | null;
   /** A condition's name, `none` (NO_BACKGROUND_CONDITION: subtract nothing), or null (the sheet's role column). */
@@ -14,6 +14,8 @@ export interface CohortChoices {
   readonly normalisation: Normalisation;
   readonly lambdaPosteriorEl: number | null;
   readonly equivalenceMargin: number | null;
+  /** Sample-sheet columns adjusting the dosage regression (`column`, `column:numeric`, `column:categorical`); [] none. */
+  readonly covariates: readonly string[];
 }
 
 /** Who gave the background condition: the flag of `eggline cohort`, `batch` and `merge`, or the project's entry (where the
@@ -23,7 +25,7 @@ export const BACKGROUND_PROJECT_FIELD = "the project's cohort.backgroundConditio
 
 /** The defaults (as `eggline cohort` with no option): reference with dosage 1, the sheet's role column, scale-offset. */
 export const DEFAULT_COHORT_CHOICES: CohortChoices = {
-  reference: null, backgroundCondition: null, backgroundConditionNamedBy: BACKGROUND_FLAG, normalisation: 'scale-offset', lambdaPosteriorEl: null, equivalenceMargin: null,
+  reference: null, backgroundCondition: null, backgroundConditionNamedBy: BACKGROUND_FLAG, normalisation: 'scale-offset', lambdaPosteriorEl: null, equivalenceMargin: null, covariates: [],
 };
 
 /** Options given as flags; undefined: not given. */
@@ -41,15 +43,15 @@ export function cohortChoices(project: ProjectCohortOptions | null | undefined, 
     reference: pick('reference'), backgroundCondition: pick('backgroundCondition'),
     backgroundConditionNamedBy: flags.backgroundCondition === undefined && project?.backgroundCondition !== undefined ? BACKGROUND_PROJECT_FIELD : BACKGROUND_FLAG,
     normalisation: pick('normalisation'),
-    lambdaPosteriorEl: pick('lambdaPosteriorEl'), equivalenceMargin: pick('equivalenceMargin'),
+    lambdaPosteriorEl: pick('lambdaPosteriorEl'), equivalenceMargin: pick('equivalenceMargin'), covariates: pick('covariates'),
   };
 }
 
 const NORMALISE: readonly Normalisation[] = ['scale-offset', 'none', 'amplitude', 'minmax'];
 
-/** The three option flags `eggline cohort` and `eggline batch` share (--normalise, --lambda-posterior-el,
- *  --equivalence-margin) as flags (undefined: not given), or the usage message of the first bad one. */
-export function parseComparisonFlags(v: { normalise?: string; 'lambda-posterior-el'?: string; 'equivalence-margin'?: string }): CohortFlags | { usage: string } {
+/** The option flags `eggline cohort`, `batch` and `merge` share (--normalise, --lambda-posterior-el,
+ *  --equivalence-margin, --covariate, repeatable) as flags (undefined: not given), or the usage message of the first bad one. */
+export function parseComparisonFlags(v: { normalise?: string; 'lambda-posterior-el'?: string; 'equivalence-margin'?: string; covariate?: string[] }): CohortFlags | { usage: string } {
   if (v.normalise !== undefined && !(NORMALISE as readonly string[]).includes(v.normalise)) return { usage: `--normalise must be scale-offset, none, amplitude or minmax (got "${v.normalise}")` };
   const lp = v['lambda-posterior-el'];
   const lambdaPosteriorEl = lp === undefined ? undefined : Number(lp);
@@ -57,7 +59,10 @@ export function parseComparisonFlags(v: { normalise?: string; 'lambda-posterior-
   const em = v['equivalence-margin'];
   const equivalenceMargin = em === undefined ? undefined : Number(em);
   if (equivalenceMargin !== undefined && !(Number.isFinite(equivalenceMargin) && equivalenceMargin > 0 && equivalenceMargin < 1)) return { usage: `--equivalence-margin must be a number between 0 and 1 (got "${em}")` };
-  return { normalisation: v.normalise as Normalisation | undefined, lambdaPosteriorEl, equivalenceMargin };
+  const covariates = v.covariate === undefined || v.covariate.length === 0 ? undefined : v.covariate;
+  const badCovariate = covariates?.find((c) => c.trim() === '' || c.trim().startsWith(':'));
+  if (badCovariate !== undefined) return { usage: `--covariate needs a column of the sample sheet, e.g. stage, stage:numeric, batch:categorical (got "${badCovariate}")` };
+  return { normalisation: v.normalise as Normalisation | undefined, lambdaPosteriorEl, equivalenceMargin, covariates };
 }
 
 /** One line saying what the cohort step did about a background condition (subtracted, or `none` chosen), or null

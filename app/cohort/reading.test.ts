@@ -80,3 +80,18 @@ describe('dosageReading', () => {
     expect([pText(0.04321), pText(0.00001), pText(null)]).toEqual(['0.043', '< 0.0001', 'n/a']);
   });
 });
+
+describe('the reading with covariates', () => {
+  it('adds one sentence with the adjusted slope beside the unadjusted one and each coefficient, only when asked', () => {
+    // Source: demo data; stage (minutes) and batch invented.
+    const d = makeDemoCohort({ conditions: [{ name: 'ref', dosage: 1, count: 5 }, { name: 'dbl', dosage: 2, count: 5 }, { name: 'qd', dosage: 4, count: 5 }], seed: 9 });
+    const [head, ...rows] = d.sheetCsv.trim().split('\n');
+    const sheet = parseSampleSheet([`${head},stage,batch`, ...rows.map((r, i) => `${r},${20 + ((i * 7) % 11)},${i % 2 === 0 ? 'B1' : 'B2'}`)].join('\n'), 's.csv');
+    const plain = dosageReading(analyseCohort(d.results, sheet)).findings[0].sentences[1];
+    expect(plain).not.toContain('Adjusted for');
+    const adjusted = analyseCohort(d.results, sheet, { covariates: ['stage:numeric', 'batch'] });
+    const s = dosageReading(adjusted).findings[0].sentences[1];
+    expect(s).toMatch(/Adjusted for stage and batch \(coefficients estimated within conditions, 15 embryos; each position moved to the covariates' mean before the condition means were fitted\), the slope is \S+ \(95% CI \S+ to \S+, the coefficients' own uncertainty included\) against \S+ unadjusted; stage \S+ x\/EL per unit of stage \(CI \S+ to \S+\); batch B2 vs B1 \S+ x\/EL \(CI \S+ to \S+\)\./);
+    expect(s.match(/Adjusted for/g)).toHaveLength(1);
+  });
+});

@@ -4,7 +4,7 @@
 // only when they apply. Numbers are shown to the precision of their interval; the CSV files keep full precision.
 import {
   lambdaPositionCorrelation, LAMBDA_RELATIVE_SE_LIMIT, quantityLabel, slopeRatio,
-  type CohortAnalysis, type DosageFit, type ReferenceLambda, type ShiftRow,
+  type AdjustedDosageFit, type CohortAnalysis, type DosageFit, type ReferenceLambda, type ShiftRow,
 } from '../../core/cohort';
 import { plainNumber, sigFig, valueWithCi } from '../../core/figures';
 import { tQuantile } from '../../core/stats';
@@ -85,6 +85,7 @@ function slopeSentence(fit: DosageFit, pct: number): string {
     const m = fit.measured;
     text += ` Against the measured dosage (ln of the amplitude ratio to the reference, York fit with errors in both): ${valueWithCi(m.slope, m.ciLow, m.ciHigh).value} (${pct}% CI ${valueWithCi(m.slope, m.ciLow, m.ciHigh, { style: 'words' }).ci}).`;
   }
+  if (fit.adjusted) text += ` ${adjustedSentence(fit.adjusted, fit, pct)}`;
   if (fit.predictedTwoGradientSlopeEl !== null) text += ` The two-gradient reading predicts a slope of ${sigFig(fit.predictedTwoGradientSlopeEl, 3)}.`;
   if (fit.localLambdaEl !== null) {
     const se = fit.localLambdaSeEl !== null ? ` ± ${sigFig(fit.localLambdaSeEl, 2)} (jackknife SE over the reference embryos)` : ' (no SE: fewer than 3 reference embryos)';
@@ -92,6 +93,16 @@ function slopeSentence(fit: DosageFit, pct: number): string {
       + (fit.predictedSlopeEl !== null ? ` against the fitted ${sigFig(fit.predictedSlopeEl, 3)}; a fixed threshold there would move with that local value.` : '.');
   }
   return text;
+}
+
+/** One plain sentence on the covariate-adjusted slope beside the unadjusted one, with each coefficient. */
+export function adjustedSentence(adj: AdjustedDosageFit, fit: DosageFit, pct: number): string {
+  const s = valueWithCi(adj.slope, adj.ciLow, adj.ciHigh, { style: 'words' });
+  const terms = adj.terms.map((t) => {
+    const c = valueWithCi(t.coefficientEl, t.ciLow, t.ciHigh, { signed: true, style: 'words' });
+    return t.level === null ? `${t.covariate} ${c.value} x/EL per unit of ${t.covariate} (CI ${c.ci})` : `${t.covariate} ${t.level} vs ${t.baseLevel} ${c.value} x/EL (CI ${c.ci})`;
+  });
+  return `Adjusted for ${adj.covariates.join(' and ')} (coefficients estimated within conditions, ${adj.n} embryos; each position moved to the covariates' mean before the condition means were fitted), the slope is ${s.value} (${pct}% CI ${s.ci}, the coefficients' own uncertainty included) against ${valueWithCi(fit.slopeEl, fit.ciLow, fit.ciHigh).value} unadjusted; ${terms.join('; ')}.`;
 }
 
 /** R² with 3 significant digits, or "> 0.999" when it would round to 1.00. */

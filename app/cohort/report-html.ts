@@ -92,6 +92,7 @@ function settingsSection(a: CohortAnalysis, sheetSource: string, runRecord: unkn
     ['profile normalisation', o.normalisation], ['posterior gradient λ_P (x/EL)', o.lambdaPosteriorEl === null ? 'not given' : String(o.lambdaPosteriorEl)],
     ['confidence level', String(o.level)], ['profile grid step (x/EL)', String(o.gridStepEl)], ['slope half-window h (x/EL)', String(o.slopeHalfWidthEl)],
     ...(a.backgroundCondition ? [['background condition (subtracted, refitted)', `${a.backgroundCondition.condition}: ${a.backgroundCondition.files.join(', ')}`]] : []),
+    ...(a.covariates ? [['covariates (dosage regression; covariates.csv)', a.covariates.map((c) => c.kind === 'numeric' ? `${c.column} (numeric)` : `${c.column} (categorical, base level ${c.baseLevel ?? 'n/a'})`).join(', ')]] : []),
     ...(a.backgroundChoice?.rule === 'none' ? [['background condition', `none (${a.backgroundChoice.namedBy})${a.backgroundChoice.setAside === null ? '' : `; set aside, not subtracted: ${a.backgroundChoice.setAside}`}`]] : []),
   ];
   const key = keySettings(runRecord);

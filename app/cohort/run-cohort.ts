@@ -5,7 +5,7 @@ import sharp from 'sharp';
 import { basename, join } from 'node:path';
 import { embryoResults, type EmbryoResult } from '../../core/model';
 import {
-  analyseCohort, backgroundChoiceJson, backgroundConditionsCsv, backgroundProfileCsv, backgroundRecordJson, backgroundRefitCsv, CohortError, conditionsCsv, dosageFitCsv, positionalErrorCsv, sheetFromFilenameRule, parseSampleSheet, shiftsCsv, sideDifferencesCsv,
+  analyseCohort, backgroundChoiceJson, covariatesCsv, backgroundConditionsCsv, backgroundProfileCsv, backgroundRecordJson, backgroundRefitCsv, CohortError, conditionsCsv, dosageFitCsv, positionalErrorCsv, sheetFromFilenameRule, parseSampleSheet, shiftsCsv, sideDifferencesCsv,
   type CohortAnalysis, type FilenameRule, type Normalisation, type RefitSettings, type SampleSheet,
 } from '../../core/cohort';
 import { settingsFromStored } from '../../core/settings';
@@ -34,6 +34,9 @@ export interface CohortStepOptions {
   readonly backgroundCondition?: string | null;
   /** Who gave backgroundCondition, as background_condition.json and the report name it; absent: --background-condition. */
   readonly backgroundConditionNamedBy?: string;
+  /** Sample-sheet columns that adjust the dosage regression (`column`, `column:numeric`, `column:categorical`);
+   *  absent or empty: none (covariates.csv is then not written). */
+  readonly covariates?: readonly string[];
   /** The time-lapse section of report.html (HTML; see app/batch timelapseReportSection); absent: none. */
   readonly timelapseHtml?: string;
 }
@@ -89,6 +92,7 @@ export async function runCohortStep(opts: CohortStepOptions): Promise<CohortStep
     reference: opts.reference, normalisation: opts.normalisation ?? 'scale-offset', lambdaPosteriorEl: opts.lambdaPosteriorEl ?? null, equivalenceMargin: opts.equivalenceMargin ?? null,
     backgroundCondition: opts.backgroundCondition ?? null, refitSettings: batchSettings(opts.runRecord),
     ...(opts.backgroundConditionNamedBy !== undefined ? { backgroundConditionNamedBy: opts.backgroundConditionNamedBy } : {}),
+    ...(opts.covariates !== undefined && opts.covariates.length > 0 ? { covariates: opts.covariates } : {}),
   });
   warnings.push(...analysis.warnings);
   const figures = cohortFigures(analysis);
@@ -100,6 +104,8 @@ export async function runCohortStep(opts: CohortStepOptions): Promise<CohortStep
   ];
   const sides = sideDifferencesCsv(analysis.sideDifferences);
   if (sides !== null) files.splice(4, 0, ['side_differences.csv', sides]);
+  const covariates = covariatesCsv(analysis);
+  if (covariates !== null) files.splice(3, 0, ['covariates.csv', covariates]);
   try {
     await mkdir(opts.outDir, { recursive: true });
     for (const [name, text] of files) await writeFileAtomic(join(opts.outDir, name), text);
@@ -111,6 +117,8 @@ export async function runCohortStep(opts: CohortStepOptions): Promise<CohortStep
   if (!analysis.backgroundCondition) {
     for (const name of BACKGROUND_FILES) if (!files.some(([n]) => n === name)) await rm(join(opts.outDir, name), { force: true }).catch(() => undefined);
   }
+  // Nor may an earlier run's covariate table outlive a run without covariates.
+  if (covariates === null) await rm(join(opts.outDir, 'covariates.csv'), { force: true }).catch(() => undefined);
   const pngs = await writePngs(figures, opts.outDir, warnings);
   return { written: [...files.map(([name]) => join(opts.outDir, name)), ...pngs], warnings, analysis, figures };
 }

@@ -71,6 +71,7 @@ export function summariseCohort(
     figures: figures.map((f) => ({ name: f.name, title: f.title, svg: f.svg })), warnings: [...backgroundNote(a), ...a.warnings],
     backgroundCondition: a.backgroundCondition?.condition ?? null, positionalError: positionalErrorRows(a),
     ...(a.backgroundChoice?.setAside ? { backgroundSetAside: a.backgroundChoice.setAside } : {}),
+    ...(a.sheetColumns.length > 0 ? { sheetColumns: a.sheetColumns } : {}),
     ...(a.reference !== null ? { reading: dosageReading(a) } : {}),
   };
 }

@@ -16,6 +16,7 @@ import { applyBackgroundCondition, splitByChoice } from './background-condition'
 import { backgroundConditionOf } from './background-profile';
 import type { RefitSettings } from './background-refit';
 import { CohortError } from './cohort-error';
+import { covariateAdjustment, parseCovariateRequest } from './covariates';
 import { DEFAULT_SETTINGS } from '../settings';
 
 /** Options of analyseCohort: the cohort options, and the batch's settings a background-condition refit uses (the
@@ -31,6 +32,10 @@ export interface CohortRunOptions extends CohortOptions {
  */
 export function analyseCohort(keyed: readonly EmbryoResult[], fullSheet: SampleSheet, options: CohortRunOptions = {}): CohortAnalysis {
   const opts = checkCohortOptions(options);
+  if (options.covariates !== undefined && !(Array.isArray(options.covariates) && options.covariates.every((c) => typeof c === 'string'))) {
+    throw new CohortError('covariates must be a list of sample-sheet column names');
+  }
+  const covariateRequests = (options.covariates ?? []).map(parseCovariateRequest);
   const given = options.backgroundCondition ?? null;
   if (given !== null && given.trim() === '') throw new CohortError('backgroundCondition must be a non-empty condition name');
   // A background condition (null or secondary-only staining) leaves the comparison; its profile is subtracted below.
@@ -74,7 +79,14 @@ export function analyseCohort(keyed: readonly EmbryoResult[], fullSheet: SampleS
   const measured = reference !== null ? measuredDosages(observations, reference, new Map(conditions.map((c) => [c.name, c.factor]))) : [];
   const rawFits = reference !== null ? dosageFits(observations, lambda, opts.lambdaPosteriorEl, measured, opts.level) : [];
   const local = localLambdas(assignment.groups, reference, observations, opts);
-  const fits = rawFits.map((f) => ({ ...f, localLambdaEl: local.get(f.quantity)?.lambdaEl ?? null, localLambdaSeEl: local.get(f.quantity)?.seEl ?? null }));
+  // Covariates (asked for only): their coefficients within conditions, positions adjusted, the same means line.
+  const adjustment = covariateRequests.length > 0 && reference !== null ? covariateAdjustment(observations, sheet, covariateRequests, opts.level) : null;
+  if (covariateRequests.length > 0 && reference === null) warnings.push('covariates were given but there is no reference condition, so no dosage regression to adjust');
+  if (adjustment) warnings.push(...adjustment.warnings);
+  const fits = rawFits.map((f) => {
+    const adjusted = adjustment?.fits.get(f.quantity);
+    return { ...f, ...(adjusted ? { adjusted } : {}), localLambdaEl: local.get(f.quantity)?.lambdaEl ?? null, localLambdaSeEl: local.get(f.quantity)?.seEl ?? null };
+  });
   const shifts = rawShifts.map((s) => {
     const l = local.get(s.quantity);
     return { ...s, predictedLocalShiftEl: l !== undefined && s.lnF !== null ? l.lambdaEl * s.lnF : null };
@@ -93,6 +105,7 @@ export function analyseCohort(keyed: readonly EmbryoResult[], fullSheet: SampleS
     reliability: conditionReliability(assignment.groups, observations),
     fitRanges: fitRangesUsed(assignment.groups.flatMap((g) => g.embryos)),
     sheetColumns: [...new Set(sheet.rows.flatMap((r) => Object.keys(r.extra)))], profiles, warnings,
+    ...(adjustment ? { covariates: adjustment.used } : {}),
     sideDifferences: sideDifferences(observations, conditions, opts.level),
     ...(background !== null ? { backgroundCondition: background } : {}), ...(backgroundChoice !== null ? { backgroundChoice } : {}) };
 }

@@ -21,6 +21,19 @@ function rowFor(file: string, exact: Map<string, SampleRow>, byBase: Map<string,
   return candidates.length === 1 ? candidates[0] : null;
 }
 
+/** The sheet row each result file matches (as assignConditions matches them: exact path, else a unique base name). */
+export function sheetRowLookup(sheet: SampleSheet): (file: string) => SampleRow | null {
+  const exact = new Map<string, SampleRow>();
+  const byBase = new Map<string, SampleRow[]>();
+  for (const r of sheet.rows) {
+    const key = normPath(r.file);
+    if (exact.has(key)) continue;
+    exact.set(key, r);
+    byBase.set(baseName(r.file), [...(byBase.get(baseName(r.file)) ?? []), r]);
+  }
+  return (file) => rowFor(file, exact, byBase);
+}
+
 /** Conditions in sheet order with one dosage each; conflicting dosages are an error naming the sheet. */
 function conditionsOf(sheet: SampleSheet): { name: string; dosage: number | null }[] {
   const out = new Map<string, number | null>();

@@ -46,8 +46,39 @@ export function dosageFitCsv(a: CohortAnalysis): string {
     if (f.method !== 'embryos-hc3') alt('embryos-hc3', f.embryosHc3);
     alt('random-intercept', f.randomIntercept, f.randomIntercept?.tau2 ?? null);
     alt('measured-dosage', f.measured);
+    const adj = f.adjusted;
+    if (adj) {
+      rows.push([f.quantity, `${ADJUSTED_METHOD}:${adj.covariates.join('+')}`, adj.slope, adj.slopeSe, adj.ciLow, adj.ciHigh, adj.dof, adj.pSlope, adj.intercept, adj.r2,
+        adj.n, adj.conditions, null, null, null, ...tail]);
+    }
   }
   return toCsv(DOSAGE_FIT_COLUMNS, rows);
+}
+
+/** The method of a covariate-adjusted row in dosage_fit.csv, followed by `:` and the covariates joined by `+`. */
+export const ADJUSTED_METHOD = 'covariate-adjusted';
+
+/** Columns of covariates.csv. */
+export const COVARIATE_COLUMNS = [
+  'quantity', 'covariate', 'term', 'kind', 'level', 'base_level', 'coefficient_el', 'se_el', 'ci_low', 'ci_high', 'dof', 'p',
+  'mean_value', 'n', 'conditions', 'slope_unadjusted_el', 'slope_adjusted_el', 'slope_adjusted_se_el', 'slope_adjusted_se_means_only_el',
+] as const;
+
+/** covariates.csv, or null when no covariate was asked for: per position quantity and term, the coefficient
+ *  estimated within conditions (x/EL per unit of the column; per level against the base level), and beside it the
+ *  unadjusted and adjusted slopes on ln f. */
+export function covariatesCsv(a: CohortAnalysis): string | null {
+  if (!a.covariates) return null;
+  const rows: CsvValue[][] = [];
+  for (const f of a.dosageFits) {
+    const adj = f.adjusted;
+    if (!adj) continue;
+    for (const t of adj.terms) {
+      rows.push([f.quantity, t.covariate, t.term, t.kind, t.level, t.baseLevel, t.coefficientEl, t.seEl, t.ciLow, t.ciHigh, t.dof, t.p,
+        t.meanValue, adj.n, adj.conditions, f.slopeEl, adj.slope, adj.slopeSe, adj.slopeSeMeansOnly]);
+    }
+  }
+  return toCsv(COVARIATE_COLUMNS, rows);
 }
 
 /** positional_error.csv: mean profile ± SD per condition on the grid, and σx in x/EL and µm (long format). */

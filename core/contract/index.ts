@@ -141,6 +141,9 @@ export interface CohortSummary {
   /** With the background choice `none`: the condition the sheet's role column marks, left out of the comparison and
    *  not subtracted; absent or null: none. */
   readonly backgroundSetAside?: string | null;
+  /** The sample sheet's free columns (e.g. stage, batch): what the window offers as covariates; absent in older
+   *  summaries. */
+  readonly sheetColumns?: readonly string[];
   /** The report's plain reading of the dosage test: per quantity its sentences, then the caveats that apply (the same
    *  text as report.html's *Reading* and *Caveats*); absent in older summaries. */
   readonly reading?: CohortReading;

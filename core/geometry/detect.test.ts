@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import type { ProjectedStack } from '../model';
 import { DEFAULT_SETTINGS } from '../settings';
 import { makeSyntheticEmbryo } from '../synth';
-import { detectEmbryo } from './detect';
+import { detectEmbryo, maskArea } from './detect';
+import { createRng } from '../stats';
 
 /** Mean projection of a synthetic stack (demo data), done directly. */
 function projected(seed: number, angleDeg: number): { p: ProjectedStack; truth: ReturnType<typeof makeSyntheticEmbryo>['truth'] } {
@@ -41,5 +42,25 @@ describe('detectEmbryo', () => {
   it('throws a one-line message on a blank image', () => {
     const blank: ProjectedStack = { channels: [{ width: 50, height: 40, data: new Float32Array(2000).fill(100) }], channelNames: ['C1'], pixelSizeUm: 1, pixelSizeSource: 'ome', projection: 'mean', sliceIndex: null, warnings: [] };
     expect(() => detectEmbryo(blank, DEFAULT_SETTINGS)).toThrow('no embryo found: no region stands out from the background');
+  });
+});
+
+describe('maskArea', () => {
+  it('equals the byte-by-byte sum for any length, offset and byte values (seeded random data)', () => {
+    // Source: the definition (a plain loop over the bytes), on 0/1 masks and on bytes up to 255 in long runs, so the
+    // 16-bit lanes reach their largest totals; views at every byte offset 0–3.
+    const rng = createRng(8);
+    const buffer = new Uint8Array(4 * 2048 + 16);
+    for (const fill of ['binary', 'full'] as const) {
+      for (let i = 0; i < buffer.length; i++) buffer[i] = fill === 'binary' ? +(rng.uniform() < 0.5) : 255 - Math.floor(rng.uniform() * 3);
+      for (const offset of [0, 1, 2, 3]) {
+        for (const length of [0, 1, 3, 4, 5, 1023, 1024, 1025, 4 * 2048 + 7]) {
+          const view = buffer.subarray(offset, offset + length);
+          let plain = 0;
+          for (const v of view) plain += v;
+          expect(maskArea(view), `${fill} offset ${offset} length ${length}`).toBe(plain);
+        }
+      }
+    }
   });
 });

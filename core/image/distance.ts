@@ -98,10 +98,13 @@ export function squaredDistanceToFeatures(features: Mask): Float64Array {
 export function foregroundBox(mask: Mask): { x0: number; y0: number; x1: number; y1: number } | null {
   const { width, height, data } = mask;
   let x0 = width; let y0 = height; let x1 = -1; let y1 = -1;
+  // Runs of zeros (the empty rows above and below the object, the background beside it) are skipped four bytes at a
+  // time through a 32-bit view of the whole words the mask's bytes hold.
+  const start = (4 - (data.byteOffset & 3)) & 3;
+  const words = data.length > start ? new Uint32Array(data.buffer, data.byteOffset + start, (data.length - start) >> 2) : new Uint32Array(0);
   for (let y = 0; y < height; y++) {
     const o = y * width;
-    let a = 0;
-    while (a < width && data[o + a] === 0) a++;
+    const a = firstNonZero(data, words, start, o, o + width) - o;
     if (a === width) continue;
     let b = width - 1;
     while (data[o + b] === 0) b--;
@@ -111,6 +114,22 @@ export function foregroundBox(mask: Mask): { x0: number; y0: number; x1: number;
     y1 = y;
   }
   return x1 < 0 ? null : { x0, y0, x1: x1 + 1, y1: y1 + 1 };
+}
+
+/**
+ * Index of the first non-zero byte of data[from..to), or `to` when there is none. `words` views data's bytes from
+ * `start` on as 32-bit words (word k holds bytes start + 4k … start + 4k + 3): whole zero words are passed at once.
+ */
+function firstNonZero(data: Uint8Array, words: Uint32Array, start: number, from: number, to: number): number {
+  let i = from;
+  while (i < to && (i < start || ((i - start) & 3) !== 0)) { if (data[i] !== 0) return i; i++; }
+  if (i >= to) return to;
+  let k = (i - start) >> 2;
+  const kEnd = (to - start) >> 2;
+  while (k < kEnd && words[k] === 0) k++;
+  i = start + 4 * k;
+  while (i < to && data[i] === 0) i++;
+  return i;
 }
 
 /**

@@ -6,7 +6,7 @@ import type { Mask, Plane } from '../model';
 import { boxWidthsForSigma, fastGaussianSmooth } from './box-blur';
 import { maxFilter, rowMaxima, rowMaximaAt } from './max-filter';
 import { dilate, erode, open, squareDilate, squareErode } from './morphology';
-import { distanceInside, distanceOutside, squaredDistanceToFeatures } from './distance';
+import { distanceInside, distanceOutside, foregroundBox, squaredDistanceToFeatures } from './distance';
 import { fillHoles } from './fill-holes';
 import { labelComponents, largestComponent } from './components';
 import { estimateBackgroundLevel } from './background-level';
@@ -410,6 +410,29 @@ describe('distance transforms against brute force', () => {
         expect(Array.from(dilate(m, r).data)).toEqual(toFeature.map((v) => (v <= r * r ? 1 : 0)));
         expect(Array.from(erode(m, r).data)).toEqual(inside.map((v) => (v > r ? 1 : 0)));
       }
+    }
+  });
+});
+
+describe('foregroundBox against a plain scan', () => {
+  it('gives the bounding box of the non-zero bytes for masks at every byte offset (seeded random data)', () => {
+    // Source: the definition (every pixel looked at), on sparse random masks, empty masks and single pixels.
+    const rng = createRng(12);
+    for (let trial = 0; trial < 300; trial++) {
+      const width = 1 + Math.floor(rng.uniform() * 23);
+      const height = 1 + Math.floor(rng.uniform() * 9);
+      const offset = trial & 3;
+      const buffer = new Uint8Array(width * height + 8);
+      const p = trial % 5 === 0 ? 0 : rng.uniform() * 0.1;
+      const data = buffer.subarray(offset, offset + width * height);
+      for (let i = 0; i < data.length; i++) data[i] = rng.uniform() < p ? 1 + Math.floor(rng.uniform() * 255) : 0;
+      if (trial % 7 === 0) data[Math.floor(rng.uniform() * data.length)] = 1;
+      let x0 = width; let y0 = height; let x1 = -1; let y1 = -1;
+      for (let y = 0; y < height; y++) for (let x = 0; x < width; x++) {
+        if (data[y * width + x] === 0) continue;
+        x0 = Math.min(x0, x); x1 = Math.max(x1, x); y0 = Math.min(y0, y); y1 = Math.max(y1, y);
+      }
+      expect(foregroundBox({ width, height, data }), `trial ${trial}`).toEqual(x1 < 0 ? null : { x0, y0, x1: x1 + 1, y1: y1 + 1 });
     }
   });
 });

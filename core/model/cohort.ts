@@ -177,10 +177,58 @@ export interface DosageFit {
   readonly predictedSlopeEl: number | null;
   /** 1 / (1/λ_A + 1/λ_P) when a posterior gradient is given, else null. */
   readonly predictedTwoGradientSlopeEl: number | null;
+  /** Present only when covariates were asked for: the condition-means line after adjusting each embryo's position to
+   *  the covariates' overall mean, with their coefficients estimated within conditions. */
+  readonly adjusted?: AdjustedDosageFit;
   /** The local decay length (x/EL) at the reference's mean position: the slope predicted there; null if not readable. */
   readonly localLambdaEl: number | null;
   /** Its jackknife standard error over the reference embryos (x/EL); null if not computable. */
   readonly localLambdaSeEl: number | null;
+}
+
+/** A covariate asked for: a free column of the sample sheet; `auto` is numeric when every value is a number. */
+export interface CovariateRequest {
+  readonly column: string;
+  readonly kind: 'auto' | 'numeric' | 'categorical';
+}
+
+/** A covariate as used: its kind, and for a categorical one its levels in sheet order, the first being the base. */
+export interface CovariateUsed {
+  readonly column: string;
+  readonly kind: 'numeric' | 'categorical';
+  readonly levels: readonly string[];
+  readonly baseLevel: string | null;
+}
+
+/** One coefficient of the within-condition covariate fit (x/EL per unit of the column, or per level vs the base). */
+export interface CovariateTerm {
+  readonly covariate: string;
+  /** The column for a numeric covariate, `column=level` for a level of a categorical one. */
+  readonly term: string;
+  readonly kind: 'numeric' | 'categorical';
+  readonly level: string | null;
+  readonly baseLevel: string | null;
+  readonly coefficientEl: number;
+  readonly seEl: number;
+  readonly ciLow: number;
+  readonly ciHigh: number;
+  /** n − conditions − terms. */
+  readonly dof: number;
+  readonly p: number;
+  /** The term's mean over the embryos used: positions are adjusted to it. */
+  readonly meanValue: number;
+}
+
+/** The covariate-adjusted condition-means line of one position quantity. */
+export interface AdjustedDosageFit extends SlopeSummary {
+  readonly covariates: readonly string[];
+  readonly r2: number;
+  /** Embryos with every covariate given. */
+  readonly n: number;
+  readonly conditions: number;
+  /** The slope's SE with the coefficients taken as known (slopeSe adds their estimation error). */
+  readonly slopeSeMeansOnly: number;
+  readonly terms: readonly CovariateTerm[];
 }
 
 /** The measured dosage of a condition: its mean amplitude A over the reference's, with the SE of its logarithm. */
@@ -246,6 +294,9 @@ export interface CohortOptions {
    *  rows then stay out of the comparison). Default (null): the condition whose rows say `background` in the sheet's
    *  `role` column, else none. */
   readonly backgroundCondition?: string | null;
+  /** Free columns of the sample sheet that adjust the dosage regression (`column`, `column:numeric` or
+   *  `column:categorical`); default none. */
+  readonly covariates?: readonly string[];
   /** Who gave `backgroundCondition`, as the record states it (e.g. `--background-condition`, the project's cohort
    *  entry); default `--background-condition`. */
   readonly backgroundConditionNamedBy?: string;
@@ -302,6 +353,8 @@ export interface CohortAnalysis {
   readonly fitRanges: readonly FitRangeUse[];
   /** Free columns of the sample sheet (e.g. stage, batch), by header name. */
   readonly sheetColumns: readonly string[];
+  /** Present only when covariates were asked for: each as used. */
+  readonly covariates?: readonly CovariateUsed[];
   readonly profiles: readonly ConditionProfile[];
   readonly warnings: readonly string[];
   /** Present only when a background condition was subtracted: then every λ, amplitude and boundary above is the

@@ -6,6 +6,7 @@ import { reusedPlaneArrays, type ImageCorrections } from '../image';
 import { detectEmbryo, type EmbryoDetection } from '../geometry';
 import { analyseStack, correctedProjection } from './analyse';
 import { samplingWithin } from '../profile';
+import { prefetchingSource } from './prefetch';
 
 /** Per-movie options of analyseMovie. */
 export interface MovieOptions {
@@ -129,16 +130,26 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
   const projectionBuffers = Array.from({ length: info.sizeC }, () => new Float32Array(info.sizeX * info.sizeY));
   // Likewise the decoded planes: every time point's are read into the same arrays.
   const planeArrays = reusedPlaneArrays();
-  for (const [k, t] of timeIndices.entries()) {
-    if (options.signal?.aborted) throw cancelled(fileLabel);
-    const at = options.editsAt?.(t);
-    const settingsAtT = { ...(at ? at.settings : settings), timeIndex: t };
-    const onProjected = options.onProjected ? (p: ProjectedStack) => options.onProjected!(k, p, timeIndices.length) : undefined;
-    // A kept projection serves only settings that differ from the movie's in the fit range alone.
-    const projected = kept.get(t) && sameButFitRange(settingsAtT, settings) ? kept.get(t) : undefined;
-    kept.delete(t);
-    results.push(await analyseStack(info, source, settingsAtT, { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection, onProjected, projected, prepare, corrections: options.corrections ?? null, projectionBuffers, planeArrays }));
-    options.onTimePoint?.(k + 1, timeIndices.length);
+  const edits = timeIndices.map((t) => options.editsAt?.(t));
+  const settingsAt = timeIndices.map((t, k) => ({ ...(edits[k]?.settings ?? settings), timeIndex: t }));
+  // A kept projection serves only settings that differ from the movie's in the fit range alone.
+  const keptFor = timeIndices.map((t, k) => (kept.has(t) && sameButFitRange(settingsAt[k], settings) ? kept.get(t) : undefined));
+  kept.clear();
+  // The time points whose planes are read, each read while the one before it is analysed.
+  const reading = prefetchingSource(source, info, timeIndices.filter((_, k) => keptFor[k] === undefined));
+  try {
+    for (let k = 0; k < timeIndices.length; k++) {
+      if (options.signal?.aborted) throw cancelled(fileLabel);
+      const at = edits[k];
+      const onProjected = options.onProjected ? (p: ProjectedStack) => options.onProjected!(k, p, timeIndices.length) : undefined;
+      const projected = keptFor[k];
+      keptFor[k] = undefined;
+      results.push(await analyseStack(info, reading, settingsAt[k], { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection, onProjected, projected, prepare, corrections: options.corrections ?? null, projectionBuffers, planeArrays }));
+      options.onTimePoint?.(k + 1, timeIndices.length);
+    }
+  } finally {
+    // No read started ahead outlives the analysis (the caller closes the file next).
+    await reading.settle();
   }
   const hand = options.handEdits?.axis ?? null;
   return { timeIndices, results, movieAxis: hand ? { ...hand, source: 'hand' } : detection?.axis ?? null };

@@ -9,7 +9,7 @@ const read = (cohort: unknown) => parseProjectText(JSON.stringify({ ...base, coh
 
 describe('project cohort options', () => {
   it('reads every option and keeps them through a write and read', () => {
-    const cohort = { reference: 'wt', backgroundCondition: 'secondary-only', normalisation: 'minmax', equivalenceMargin: 0.2, lambdaPosteriorEl: 0.15 };
+    const cohort = { reference: 'wt', backgroundCondition: 'secondary-only', normalisation: 'minmax', equivalenceMargin: 0.2, lambdaPosteriorEl: 0.15, covariates: ['stage:numeric', 'batch'] };
     const doc = read(cohort);
     expect(doc.cohort).toEqual(cohort);
     expect(parseProjectText(JSON.stringify(doc), 'again.json')).toEqual(doc);
@@ -40,7 +40,10 @@ describe('project cohort options', () => {
     [{ normalisation: 'zscore' }, 'p.eggline.json: cohort.normalisation must be scale-offset, none, amplitude or minmax (got "zscore")'],
     [{ reference: '  ' }, 'p.eggline.json: cohort.reference must be a condition name of the sample sheet (non-empty text)'],
     [{ reference: 'wt', backgroundCondition: 'wt' }, 'p.eggline.json: cohort.backgroundCondition must differ from the reference ("wt")'],
-    ['scale-offset', 'p.eggline.json: cohort must be an object {reference, backgroundCondition, normalisation, equivalenceMargin, lambdaPosteriorEl}'],
+    [{ covariates: 'stage' }, 'p.eggline.json: cohort.covariates must be a list of sample-sheet column names (got "stage")'],
+    [{ covariates: ['stage', ''] }, 'p.eggline.json: cohort.covariates must hold column names of the sample sheet, e.g. "stage:numeric" (got "")'],
+    [{ covariates: ['stage', 'Stage:numeric'] }, 'p.eggline.json: cohort.covariates names the column "Stage:numeric" twice'],
+    ['scale-offset', 'p.eggline.json: cohort must be an object {reference, backgroundCondition, normalisation, equivalenceMargin, lambdaPosteriorEl, covariates}'],
   ])('refuses %j with one line naming the file and field', (cohort, message) => {
     expect(() => read(cohort)).toThrow(message);
     expect(message).not.toContain('\n');

@@ -26,7 +26,7 @@ export function lambdaPosteriorElProblem(value: number): string | null {
 
 /** Check a project's `cohort` entry; absent or null fields are left out (the defaults apply). Throws ProjectFormatError. */
 export function checkProjectCohort(value: unknown, where = 'cohort'): ProjectCohortOptions {
-  if (!isRecord(value)) return badField(where, 'must be an object {reference, backgroundCondition, normalisation, equivalenceMargin, lambdaPosteriorEl}');
+  if (!isRecord(value)) return badField(where, 'must be an object {reference, backgroundCondition, normalisation, equivalenceMargin, lambdaPosteriorEl, covariates}');
   const out: { -readonly [K in keyof ProjectCohortOptions]: ProjectCohortOptions[K] } = {};
   if (value.reference !== undefined && value.reference !== null) out.reference = checkConditionName(value.reference, `${where}.reference`);
   if (value.backgroundCondition !== undefined && value.backgroundCondition !== null) out.backgroundCondition = checkConditionName(value.backgroundCondition, `${where}.backgroundCondition`);
@@ -45,5 +45,19 @@ export function checkProjectCohort(value: unknown, where = 'cohort'): ProjectCoh
     if (p !== null) badField(`${where}.${key}`, `${p} (got ${JSON.stringify(v)})`);
     out[key] = v as number;
   }
+  if (value.covariates !== undefined && value.covariates !== null) out.covariates = checkCovariateList(value.covariates, `${where}.covariates`);
   return out;
+}
+
+/** A list of sample-sheet column names (each as `column`, `column:numeric` or `column:categorical`), no repeats. */
+function checkCovariateList(value: unknown, where: string): string[] {
+  if (!Array.isArray(value)) return badField(where, `must be a list of sample-sheet column names (got ${JSON.stringify(value)})`);
+  const seen = new Set<string>();
+  return value.map((c: unknown) => {
+    if (typeof c !== 'string' || c.trim() === '' || c.trim().startsWith(':') || c.length > 200) badField(where, `must hold column names of the sample sheet, e.g. "stage:numeric" (got ${JSON.stringify(c)})`);
+    const column = (c as string).replace(/:(numeric|categorical)$/i, '').trim().toLowerCase();
+    if (seen.has(column)) badField(where, `names the column ${JSON.stringify(c)} twice`);
+    seen.add(column);
+    return c as string;
+  });
 }

@@ -43,6 +43,9 @@ export interface ProjectCohortOptions {
   readonly equivalenceMargin?: number;
   /** Decay length of an opposing posterior gradient, x/EL; absent: no two-gradient prediction. */
   readonly lambdaPosteriorEl?: number;
+  /** Sample-sheet columns adjusting the dosage regression (`column`, `column:numeric`, `column:categorical`); absent
+   *  or empty: none. */
+  readonly covariates?: readonly string[];
 }
 
 /** The project file's content (JSON, versioned). Version 2 adds per-time-point edits (FileEdits.timePoints); a

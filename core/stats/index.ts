@@ -14,3 +14,5 @@ export { notDecayingReasons, notDecayingWarning } from './decay-check';
 export { sdConfidenceInterval } from './sd-interval';
 export { fiellerInterval } from './fieller';
 export type { FiellerInterval } from './fieller';
+export { withinGroupFit, covariateAdjustedLine, WithinFitError } from './within';
+export type { WithinFit, AdjustedLine } from './within';

@@ -56,16 +56,46 @@ function NumberOption({ id, label, flag, hint, value, problem, onValue }: Number
   );
 }
 
+/** The column a covariate entry names (`stage:numeric` → stage). */
+function columnOf(entry: string): string {
+  return entry.replace(/:(numeric|categorical)$/i, '').trim();
+}
+
+/** Covariates: a tick per free column of the sheet (the role column is not one); a column kept in the project but not
+ *  in this sheet stays listed. A column is numeric when every value is a number, else categorical (its first level in
+ *  the sheet is the base), as `--covariate COLUMN` takes it. */
+function CovariateChoice({ chosen, columns, onChosen }: { chosen: readonly string[]; columns: readonly string[]; onChosen: (list: string[]) => void }) {
+  const offered = [...columns.filter((c) => c.toLowerCase() !== 'role'), ...chosen.map(columnOf).filter((c) => !columns.includes(c))];
+  return (
+    <div className="comparison-option" data-testid="cohort-opt-covariates"
+      title="Adjust the dosage regression for sample-sheet columns: their coefficients are estimated within conditions and each position is moved to the columns' mean before the condition means are fitted on ln f (dosage_fit.csv, covariates.csv)">
+      <span>Covariates (dosage regression)</span>
+      {offered.length === 0 ? <span className="muted small">none: the sample sheet has no free columns (e.g. stage, batch)</span>
+        : offered.map((c) => {
+          const on = chosen.some((e) => columnOf(e) === c);
+          return (
+            <label key={c} className="small covariate">
+              <input type="checkbox" data-testid="cohort-opt-covariate" data-column={c} checked={on}
+                onChange={() => onChosen(on ? chosen.filter((e) => columnOf(e) !== c) : [...chosen, c])} /> {c}
+            </label>
+          );
+        })}
+    </div>
+  );
+}
+
 /** Props: the project's options, the sheet's conditions, and where a change goes. */
 export interface ComparisonOptionsProps {
   readonly options: ProjectCohortOptions;
   readonly conditions: readonly string[];
+  /** The sample sheet's free columns, offered as covariates (absent: none). */
+  readonly columns?: readonly string[];
   readonly busy: boolean;
   readonly onChange: (options: ProjectCohortOptions) => void;
 }
 
 /** The options area of the Cohort tab; every change is saved in the project and recomputes the comparison. */
-export function ComparisonOptions({ options, conditions, busy, onChange }: ComparisonOptionsProps) {
+export function ComparisonOptions({ options, conditions, columns = [], busy, onChange }: ComparisonOptionsProps) {
   // A condition kept in the project but not in this sheet stays listed, so the choice is visible and can be changed.
   // "none" is a choice (subtract nothing), not a condition.
   const names = [...conditions, ...[options.reference, options.backgroundCondition].filter((n): n is string => n !== undefined && n !== NO_BACKGROUND_CONDITION && !conditions.includes(n))];
@@ -101,6 +131,7 @@ export function ComparisonOptions({ options, conditions, busy, onChange }: Compa
       <NumberOption id="cohort-opt-lambda-p" label="Opposing posterior gradient λ (x/EL)" flag="Posterior gradient λ" value={options.lambdaPosteriorEl} problem={lambdaPosteriorElProblem}
         hint="Decay length of an opposing posterior gradient: adds the two-gradient prediction Δx = ln f / (1/λ_A + 1/λ_P); empty: none"
         onValue={(v) => onChange(withOption(options, 'lambdaPosteriorEl', v))} />
+      <CovariateChoice chosen={options.covariates ?? []} columns={columns} onChosen={(list) => onChange(withOption(options, 'covariates', list.length === 0 ? null : list))} />
     </fieldset>
   );
 }

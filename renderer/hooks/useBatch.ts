@@ -20,11 +20,13 @@ export interface BatchState {
   /** The sample sheet's conditions as last compared (the background condition included), so the comparison's
    *  options stay offered when a choice makes the cohort step fail. */
   readonly sheetConditions: readonly string[];
+  /** The sample sheet's free columns as last compared (offered as covariates; kept when a choice makes the step fail). */
+  readonly sheetColumns: readonly string[];
   /** True while the comparison is recomputed after an option changed. */
   readonly recomputing: boolean;
 }
 
-const START: BatchState = { outDir: null, running: false, runId: null, done: 0, total: 0, files: [], summary: null, error: null, sheetConditions: [], recomputing: false };
+const START: BatchState = { outDir: null, running: false, runId: null, done: 0, total: 0, files: [], summary: null, error: null, sheetConditions: [], sheetColumns: [], recomputing: false };
 
 /** The sheet's conditions a summary compared (the background condition, or the one set aside with `none`, both left
  *  out of the comparison, last). */
@@ -34,6 +36,12 @@ export function sheetConditionsOf(summary: BatchSummary | null, previous: readon
   const names = c.conditions.map((r) => r.name);
   const aside = [c.backgroundCondition, c.backgroundSetAside].filter((n): n is string => typeof n === 'string' && n !== '');
   return [...names, ...aside];
+}
+
+/** The sheet's free columns a summary compared, or the previous ones when it has no comparison. */
+export function sheetColumnsOf(summary: BatchSummary | null, previous: readonly string[]): readonly string[] {
+  const c = summary?.cohort;
+  return c ? c.sheetColumns ?? [] : previous;
 }
 
 /** Fold one progress event into the state (pure). */
@@ -59,7 +67,7 @@ export function useBatch(api: EgglineApi | null) {
     if (api === null || state.outDir === null || state.running) return null;
     setState((s) => ({ ...START, outDir: s.outDir, running: true }));
     const r = await api.runBatch(folder, state.outDir, doc);
-    setState((s) => (r.ok ? { ...s, running: false, summary: r.value, sheetConditions: sheetConditionsOf(r.value, s.sheetConditions) } : { ...s, running: false, error: r.error.message }));
+    setState((s) => (r.ok ? { ...s, running: false, summary: r.value, sheetConditions: sheetConditionsOf(r.value, s.sheetConditions), sheetColumns: sheetColumnsOf(r.value, s.sheetColumns) } : { ...s, running: false, error: r.error.message }));
     return r.ok ? r.value.outDir : null;
   };
   /** Show the batch saved in a project's output folder (after a restart); forget it when there is none. */
@@ -71,7 +79,7 @@ export function useBatch(api: EgglineApi | null) {
     if (!r.ok) { setState({ ...START, outDir, error: `The last batch's results could not be read: ${r.error.message}` }); return; }
     const summary = r.value;
     const files = summary === null ? 0 : embryoResults(summary.results).length;
-    setState({ ...START, outDir, summary, done: files, total: files, sheetConditions: sheetConditionsOf(summary, []) });
+    setState({ ...START, outDir, summary, done: files, total: files, sheetConditions: sheetConditionsOf(summary, []), sheetColumns: sheetColumnsOf(summary, []) });
   };
   /** Compare the shown batch's conditions again with other options (the same cohort step as `eggline cohort`, in the
    *  main process, over the batch's saved results); only its cohort part of the summary changes. */
@@ -87,7 +95,7 @@ export function useBatch(api: EgglineApi | null) {
       if (!r.ok) return { ...s, recomputing: false, summary: { ...s.summary, cohort: null, cohortError: r.error.message } };
       const fresh = r.value;
       const summary = { ...s.summary, cohort: fresh?.cohort ?? null, cohortError: fresh?.cohortError ?? null };
-      return { ...s, recomputing: false, summary, sheetConditions: sheetConditionsOf(summary, s.sheetConditions) };
+      return { ...s, recomputing: false, summary, sheetConditions: sheetConditionsOf(summary, s.sheetConditions), sheetColumns: sheetColumnsOf(summary, s.sheetColumns) };
     });
   };
   const cancel = async () => {

@@ -125,7 +125,7 @@ describe('eggline cohort --background-condition', () => {
     });
 
     it('the window\'s summary with "none" says so first and offers the set-aside condition; its numbers are the command line\'s', async () => {
-      const s = await cohortSummaryFor(demo.results, marked, { reference: null, backgroundCondition: 'none', backgroundConditionNamedBy: "the project's cohort.backgroundCondition", normalisation: 'scale-offset', lambdaPosteriorEl: null, equivalenceMargin: null }, run);
+      const s = await cohortSummaryFor(demo.results, marked, { reference: null, backgroundCondition: 'none', backgroundConditionNamedBy: "the project's cohort.backgroundCondition", normalisation: 'scale-offset', lambdaPosteriorEl: null, equivalenceMargin: null, covariates: [] }, run);
       expect(s.warnings[0]).toBe('no background condition: the project\'s cohort.backgroundCondition is "none": nothing is subtracted; "null-stain", marked background in the sample sheet\'s role column, is left out of the comparison');
       expect(s.conditions.map((c) => c.name)).toEqual(['dosage-1x', 'dosage-2x']);
       expect(s.backgroundCondition).toBeNull();

@@ -196,18 +196,70 @@ describe('comparison options in the Cohort tab', { timeout: 240_000 }, () => {
     await expect.poll(() => page.getByTestId('cohort-condition').count(), { timeout: 60_000 }).toBe(names.length);
   });
 
+  it('covariates ticked in the window give eggline cohort --covariate\'s reading and numbers; Undo takes one back', async () => {
+    const { page } = h;
+    const sheet = await text(page, 'cohort-sheet');
+    const original = await fs.readFile(sheet, 'utf8');
+    // Demo data: a stage (minutes) and a batch column that vary within every condition.
+    const [head, ...lines] = original.trim().split(/\r?\n/);
+    await fs.writeFile(sheet, [`${head},stage,batch`, ...lines.map((l, i) => `${l},${30 + ((i * 7) % 11)},${i % 2 === 0 ? 'B1' : 'B2'}`)].join('\n') + '\n');
+    try {
+      // Any recomputation reads the sheet again and offers its free columns.
+      await page.getByTestId('cohort-opt-normalisation').selectOption('none');
+      const tick = (c: string) => page.locator(`[data-testid=cohort-opt-covariate][data-column="${c}"]`);
+      await tick('stage').waitFor({ timeout: 60_000 });
+      await tick('stage').check();
+      await expect.poll(() => page.getByTestId('cohort-options').getAttribute('aria-busy'), { timeout: 60_000 }).toBe('false');
+      await tick('batch').check();
+      const slopeSentence = () => page.getByTestId('cohort-finding').first().locator('p').nth(1).textContent();
+      await expect.poll(slopeSentence, { timeout: 60_000 }).toContain('Adjusted for stage and batch');
+      await expect.poll(() => page.getByTestId('cohort-options').getAttribute('aria-busy'), { timeout: 60_000 }).toBe('false');
+      const shown = (await slopeSentence()) ?? '';
+
+      // The command line with the same options as flags, and with --project over what the window saved.
+      const cliOut = join(scratch, 'cli-covariates');
+      const reference = await page.getByTestId('cohort-opt-reference').inputValue();
+      expect(await cohortCommand([out, '--samples', sheet, '--normalise', 'none', ...(reference ? ['--reference', reference] : []),
+        '--equivalence-margin', '0.2', '--covariate', 'stage', '--covariate', 'batch', '--out', cliOut], quiet)).toBe(0);
+      const report = await fs.readFile(join(cliOut, 'report.html'), 'utf8');
+      expect(report).toContain(`<p>${escapeXml(shown)}</p>`);
+      const adjusted = (await csvRows(join(cliOut, 'dosage_fit.csv'))).filter((r) => r.method === 'covariate-adjusted:stage+batch');
+      expect(adjusted.length).toBeGreaterThan(0);
+      expect(shown).toContain(`the slope is ${valueWithCi(Number(adjusted[0].slope_el), Number(adjusted[0].ci_low), Number(adjusted[0].ci_high)).value} (`);
+      const projectPath = join(dirname(sheet), 'eggline-project.json');
+      await expect.poll(async () => (JSON.parse(await fs.readFile(projectPath, 'utf8')) as { cohort?: { covariates?: string[] } }).cohort?.covariates, { timeout: 10_000 }).toEqual(['stage', 'batch']);
+      const viaProject = join(scratch, 'cli-covariates-project');
+      expect(await cohortCommand([out, '--samples', sheet, '--project', projectPath, '--out', viaProject], quiet)).toBe(0);
+      expect(await fs.readFile(join(viaProject, 'covariates.csv'), 'utf8')).toBe(await fs.readFile(join(cliOut, 'covariates.csv'), 'utf8'));
+
+      // Undo takes batch back out: the reading is adjusted for stage alone.
+      await page.getByTestId('undo').click();
+      await expect.poll(slopeSentence, { timeout: 60_000 }).toContain('Adjusted for stage (');
+      expect(await tick('batch').isChecked()).toBe(false);
+      await expect.poll(() => page.getByTestId('cohort-options').getAttribute('aria-busy'), { timeout: 60_000 }).toBe('false');
+      await page.getByTestId('cohort-opt-covariates').scrollIntoViewIfNeeded();
+      await page.screenshot({ path: join(ARTIFACTS, 'cohort-options-covariates.png') });
+      await tick('stage').uncheck();
+      await expect.poll(slopeSentence, { timeout: 60_000 }).not.toContain('Adjusted for');
+    } finally {
+      await fs.writeFile(sheet, original);
+    }
+    await page.getByTestId('cohort-opt-normalisation').selectOption('scale-offset');
+    await expect.poll(() => page.getByTestId('cohort-options').getAttribute('aria-busy'), { timeout: 60_000 }).toBe('false');
+  });
+
   it('nothing in the options area is clipped or overlapping at 1280×720 and 1440×900', async () => {
     const { page } = h;
     for (const [width, height] of [[1280, 720], [1440, 900]] as const) {
       await page.setViewportSize({ width, height });
       const area = page.getByTestId('cohort-options');
       await area.scrollIntoViewIfNeeded();
-      const boxes = await area.locator('label.comparison-option').evaluateAll((els) => els.map((e) => {
+      const boxes = await area.locator('.comparison-option').evaluateAll((els) => els.map((e) => {
         const r = e.getBoundingClientRect();
         return { x: r.x, y: r.y, w: r.width, h: r.height, fits: e.scrollWidth <= e.clientWidth + 1 };
       }));
       const outer = await area.boundingBox();
-      expect(boxes.length).toBe(5);
+      expect(boxes.length).toBe(6);
       for (const [i, b] of boxes.entries()) {
         expect(b.fits).toBe(true);
         expect(b.x + b.w).toBeLessThanOrEqual((outer?.x ?? 0) + (outer?.width ?? 0) + 1);
