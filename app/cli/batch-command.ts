@@ -19,7 +19,7 @@ import { DEFAULT_CPUS_PER_TASK, joinSlurmOptions, partArguments, submitCommands,
 import { UsageError, type CliIo } from './usage-error';
 import { parseTimelapseFlags, reportTimelapse } from './timelapse-step';
 import type { TimelapseOptions } from '../batch/timelapse-options';
-import { backgroundLine, cohortChoices, parseComparisonFlags, type CohortChoices } from '../cohort/cohort-choices';
+import { backgroundLine, cohortChoices, parseComparisonFlags, type CohortChoices, type CohortFlags } from '../cohort/cohort-choices';
 
 /** One flag per analysis setting, from the settings table (core/settings SETTINGS). */
 const SETTING_OPTIONS = Object.fromEntries(SETTINGS.map((s) => [s.flag.slice(2), s.repeatable ? { type: 'string', multiple: true } : { type: 'string' }])) as
@@ -52,6 +52,8 @@ export interface BatchPlan {
   /** The cohort step's options: --reference and --background-condition over the project's cohort entry over the
    *  defaults (reference, backgroundCondition, normalisation, lambdaPosteriorEl, equivalenceMargin). */
   readonly cohort: CohortChoices;
+  /** The cohort options given as flags (undefined: not given); `--slurm` passes these and the project to the merge. */
+  readonly cohortFlags: CohortFlags;
   readonly timeoutS: number | undefined;
   readonly resume: boolean;
   readonly maxMemoryBytes: number;
@@ -158,6 +160,7 @@ export async function planBatch(given: readonly string[]): Promise<BatchPlan | '
     projectFile: project.path, configFile: v.config !== undefined ? resolve(v.config) : null,
     samples: v.samples !== undefined ? resolve(v.samples) : null,
     cohort: cohortChoices(project.doc?.cohort, { ...comparison, reference: v.reference, backgroundCondition: v['background-condition'] }),
+    cohortFlags: { ...comparison, reference: v.reference, backgroundCondition: v['background-condition'] },
     timeoutS: timeoutText !== undefined ? runFlag('fileTimeoutS', timeoutText) : undefined,
     resume: v.resume === true, maxMemoryBytes: maxMemory, notes: project.note ? [project.note] : [], shard,
     timelapse: parseTimelapseFlags({ time: v.time, axisPerTime: v['axis-per-time'], timeStep: v['time-step'], tauRange: v['tau-range'], baselineFrames: v['baseline-frames'] }),
@@ -222,17 +225,25 @@ function reportEnd(io: CliIo, summary: BatchRunResult, plan: BatchPlan): void {
   }
 }
 
+/** The merge job's cohort options: with a project that has a cohort entry, `--project` and only the flags given here
+ *  (so the merge resolves them as this command did, flag > project > default, and its record names who chose the
+ *  background condition); otherwise the options in force as flags. */
+export function mergeCohortArgs(plan: Pick<BatchPlan, 'cohort' | 'cohortFlags' | 'projectFile' | 'doc'>): string[] {
+  const withProject = plan.projectFile !== null && plan.doc?.cohort !== undefined;
+  const c: CohortFlags = withProject ? plan.cohortFlags : plan.cohort;
+  return [...(withProject ? ['--project', plan.projectFile as string] : []),
+    ...(c.reference != null ? ['--reference', c.reference] : []),
+    ...(c.backgroundCondition != null ? ['--background-condition', c.backgroundCondition] : []),
+    ...(c.normalisation !== undefined && (withProject || c.normalisation !== 'scale-offset') ? ['--normalise', c.normalisation] : []),
+    ...(c.lambdaPosteriorEl != null ? ['--lambda-posterior-el', String(c.lambdaPosteriorEl)] : []),
+    ...(c.equivalenceMargin != null ? ['--equivalence-margin', String(c.equivalenceMargin)] : []),
+    ...(c.covariates ?? []).flatMap((col) => ['--covariate', col])];
+}
+
 /** `--slurm N`: write the two scripts and print how to submit them; analyses nothing. */
 async function slurmCommand(plan: BatchPlan, io: CliIo, cliPath: string): Promise<number> {
   const slurm = plan.slurm as NonNullable<BatchPlan['slurm']>;
-  // The merge job compares conditions with the options in force here (flags over the project's cohort entry).
-  const c = plan.cohort;
-  const mergeArgs = plan.samples ? ['--samples', plan.samples, ...(c.reference !== null ? ['--reference', c.reference] : []),
-    ...(c.backgroundCondition !== null ? ['--background-condition', c.backgroundCondition] : []),
-    ...(c.normalisation !== 'scale-offset' ? ['--normalise', c.normalisation] : []),
-    ...(c.lambdaPosteriorEl !== null ? ['--lambda-posterior-el', String(c.lambdaPosteriorEl)] : []),
-    ...(c.equivalenceMargin !== null ? ['--equivalence-margin', String(c.equivalenceMargin)] : []),
-    ...c.covariates.flatMap((col) => ['--covariate', col])] : [];
+  const mergeArgs = plan.samples ? ['--samples', plan.samples, ...mergeCohortArgs(plan)] : [];
   const { plan: p, arrayPath, mergePath } = await writeSlurmScripts({
     folder: plan.folder, outDir: plan.outDir, parts: slurm.parts, cpusPerTask: slurm.cpusPerTask, optionsText: slurm.options,
     batchArgs: slurm.partArgs, mergeArgs, nodePath: process.execPath, cliPath,

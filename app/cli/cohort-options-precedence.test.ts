@@ -6,7 +6,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { cohortChoices, DEFAULT_COHORT_CHOICES } from '../cohort/cohort-choices';
-import { planBatch } from './batch-command';
+import { mergeCohortArgs, planBatch } from './batch-command';
 import { parseCohortArgs, planChoices } from './cohort-command';
 
 const root = mkdtempSync(join(tmpdir(), 'eggline-cohort-opts-'));
@@ -73,6 +73,23 @@ describe('cohort options: flag over project over default', () => {
     await expect(planBatch([input, '--out', join(root, 'o'), '--samples', samples, '--normalise', 'z']))
       .rejects.toThrow('--normalise must be scale-offset, none, amplitude or minmax (got "z")');
     await expect(planBatch([input, '--out', join(root, 'o'), '--normalise', 'none'])).rejects.toThrow('--normalise needs --samples');
+  });
+});
+
+describe('eggline batch --slurm hands the cohort options to the merge job', () => {
+  it('with a project cohort entry: --project and only the flags given (so the merge resolves and records them alike)', async () => {
+    const plain = await planBatch([input, '--out', join(root, 'o'), '--project', projectPath, '--samples', samples]);
+    if (plain === 'help') throw new Error('unexpected help');
+    expect(mergeCohortArgs(plain)).toEqual(['--project', projectPath]);
+    const flagged = await planBatch([input, '--out', join(root, 'o'), '--project', projectPath, '--samples', samples, '--reference', 'wt', '--covariate', 'batch']);
+    if (flagged === 'help') throw new Error('unexpected help');
+    expect(mergeCohortArgs(flagged)).toEqual(['--project', projectPath, '--reference', 'wt', '--covariate', 'batch']);
+  });
+
+  it('without a project: the options in force as flags', async () => {
+    const none = await planBatch([input, '--out', join(root, 'o'), '--no-project', '--samples', samples, '--normalise', 'none', '--covariate', 'stage']);
+    if (none === 'help') throw new Error('unexpected help');
+    expect(mergeCohortArgs(none)).toEqual(['--normalise', 'none', '--covariate', 'stage']);
   });
 });
 

@@ -138,6 +138,8 @@ Options:
   --normalise MODE, --lambda-posterior-el V, --equivalence-margin M, --covariate COLUMN
                               the cohort step's other options, as in eggline cohort (need --samples;
                               --covariate is repeatable)
+  --project FILE              take the options above from the project file's cohort entry; a flag
+                              given here overrides the project's value (needs --samples)
   --allow-missing             merge the parts that are there; run.json lists the files without a row
   -h, --help                  show this help
 

@@ -5,12 +5,14 @@ import { mergeParts, MergeRefusal } from '../batch/merge-parts';
 import { MERGE_HELP } from './help';
 import { reportTimelapse } from './timelapse-step';
 import { joinNegativeValues, parseCommandArgs } from './parse-command-args';
-import { parseComparisonFlags } from '../cohort/cohort-choices';
+import { cohortChoices, parseComparisonFlags } from '../cohort/cohort-choices';
+import { loadProjectOrBackup } from '../project';
 import { UsageError, type CliIo } from './usage-error';
 
 const OPTIONS = {
   samples: { type: 'string' }, reference: { type: 'string' }, 'background-condition': { type: 'string' }, 'allow-missing': { type: 'boolean' }, help: { type: 'boolean', short: 'h' },
   normalise: { type: 'string' }, 'lambda-posterior-el': { type: 'string' }, 'equivalence-margin': { type: 'string' }, covariate: { type: 'string', multiple: true },
+  project: { type: 'string' },
 } as const;
 
 /** Run `eggline merge`; returns the exit code (0 merged and every file ok, 1 some files failed or missing or the cohort
@@ -26,19 +28,34 @@ export async function mergeCommand(argv: readonly string[], io: CliIo): Promise<
   for (const flag of ['normalise', 'lambda-posterior-el', 'equivalence-margin', 'covariate'] as const) {
     if (v[flag] !== undefined && v.samples === undefined) throw new UsageError(`--${flag} needs --samples`, 'merge');
   }
+  if (v.project !== undefined && v.samples === undefined) throw new UsageError('--project needs --samples', 'merge');
   const comparison = parseComparisonFlags(v);
   if ('usage' in comparison) throw new UsageError(comparison.usage as string, 'merge');
   if (v.samples !== undefined && !(await fs.stat(v.samples).then((s) => s.isFile(), () => false))) {
     throw new UsageError(`sample sheet not found: ${v.samples}`, 'merge');
   }
   const outDir = resolve(positionals[0]);
+  // The cohort options: each flag over the project's cohort entry (--project, as eggline cohort takes it) over the
+  // defaults; the record then names who chose the background condition.
+  let project = null;
+  if (v.project !== undefined) {
+    try {
+      const loaded = await loadProjectOrBackup(resolve(v.project));
+      if (loaded.warning !== null) io.stderr.write(`eggline: warning: ${loaded.warning}\n`);
+      project = loaded.doc.cohort ?? null;
+    } catch (e) {
+      io.stderr.write(`eggline merge: ${(e as Error).message.split(/\r?\n/)[0]}\n`);
+      return 1;
+    }
+  }
+  const c = cohortChoices(project, { ...comparison, reference: v.reference, backgroundCondition: v['background-condition'] });
   try {
     const merged = await mergeParts({
       outDir, allowMissing: v['allow-missing'] === true, commandLine: ['eggline', 'merge', ...argv],
       cohort: v.samples !== undefined ? {
-        sampleSheetPath: resolve(v.samples), reference: v.reference ?? null, backgroundCondition: v['background-condition'] ?? null,
-        normalisation: comparison.normalisation, lambdaPosteriorEl: comparison.lambdaPosteriorEl ?? null, equivalenceMargin: comparison.equivalenceMargin ?? null,
-        ...(comparison.covariates !== undefined ? { covariates: comparison.covariates } : {}),
+        sampleSheetPath: resolve(v.samples), reference: c.reference, backgroundCondition: c.backgroundCondition, backgroundConditionNamedBy: c.backgroundConditionNamedBy,
+        normalisation: c.normalisation, lambdaPosteriorEl: c.lambdaPosteriorEl, equivalenceMargin: c.equivalenceMargin,
+        ...(c.covariates.length > 0 ? { covariates: c.covariates } : {}),
       } : null,
     });
     for (const w of merged.warnings) io.stderr.write(`eggline: warning: ${w}\n`);
