@@ -26,11 +26,14 @@ function zlibReason(err: unknown, outBytes: number): Error {
 
 /**
  * inflateChunk on libuv's thread pool: the strips of a plane inflate in parallel while the JS thread goes on (with
- * read-ahead, adding the previous plane to the projection). Same limits and results as inflateChunk.
+ * read-ahead, adding the previous plane to the projection). Same limits and results as inflateChunk. The stream's
+ * output chunk is the whole strip (chunkSize), not node's 16 KiB default: one output buffer per strip instead of
+ * several joined afterwards, which cut the CPU time of reading a Deflate movie's time point by about a quarter
+ * (two 2 MiB planes in 64 KiB strips; measured alternately, 12 against 16–20 ms under load).
  */
 export function inflateChunkAsync(input: Uint8Array, out: Uint8Array): Promise<number> {
   return new Promise((resolve, reject) => {
-    inflate(input, { maxOutputLength: out.length, finishFlush: constants.Z_SYNC_FLUSH }, (err, result) => {
+    inflate(input, { maxOutputLength: out.length, finishFlush: constants.Z_SYNC_FLUSH, chunkSize: Math.max(64, out.length) }, (err, result) => {
       if (err) { reject(zlibReason(err, out.length)); return; }
       out.set(result);
       resolve(result.length);
