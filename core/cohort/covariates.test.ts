@@ -47,6 +47,14 @@ describe('covariateColumns', () => {
 });
 
 describe('covariateAdjustment', () => {
+  it('warns when a column of few whole numbers is taken as numeric without being declared so', () => {
+    const coded = sheet((i) => ({ stage: String(stage[i]), lot: String(1 + (i % 3)) }));
+    const a = covariateAdjustment(observations, coded, ['stage', 'lot'].map(parseCovariateRequest));
+    expect(a.warnings).toEqual(['samples.csv: covariate "lot" is taken as numeric (every value is a whole number); if its values are labels (batch 1, 2, 3), give it as lot:categorical']);
+    expect(covariateAdjustment(observations, coded, ['stage', 'lot:numeric'].map(parseCovariateRequest)).warnings).toEqual([]);
+    expect(covariateAdjustment(observations, coded, ['stage', 'lot:categorical'].map(parseCovariateRequest)).fits.get('boundary:b:logistic')!.terms.map((t) => t.term)).toEqual(['stage', 'lot=2', 'lot=3']);
+  });
+
   it('uses the within-condition coefficients (equal to the dummy-variable fit) and names the covariates', () => {
     const a = covariateAdjustment(observations, full, ['stage', 'batch'].map(parseCovariateRequest));
     const fit = a.fits.get('boundary:b:logistic')!;

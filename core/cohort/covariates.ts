@@ -24,6 +24,8 @@ export function parseCovariateRequest(text: string): CovariateRequest {
 /** A covariate's value per sheet row: a number, a level, or null (empty cell: missing). */
 interface CovariateColumn extends CovariateUsed {
   readonly valueOf: (row: SampleRow) => number | string | null;
+  /** Taken as numeric without being declared so, from few whole numbers (perhaps labels such as batch 1, 2, 3). */
+  readonly guessedNumericLabels: boolean;
 }
 
 const isNumber = (s: string): boolean => s.trim() !== '' && Number.isFinite(Number(s));
@@ -52,7 +54,9 @@ export function covariateColumns(sheet: SampleSheet, requests: readonly Covariat
       const v = (row.extra[header] ?? '').trim();
       return v === '' ? null : kind === 'numeric' ? Number(v) : v;
     };
-    return { column: header, kind, levels, baseLevel: kind === 'categorical' ? levels[0] : null, valueOf };
+    const distinct = new Set(given.map((c) => Number(c.text)));
+    const guessedNumericLabels = req.kind === 'auto' && kind === 'numeric' && distinct.size <= 4 && [...distinct].every(Number.isInteger);
+    return { column: header, kind, levels, baseLevel: kind === 'categorical' ? levels[0] : null, valueOf, guessedNumericLabels };
   });
 }
 
@@ -120,6 +124,9 @@ export function covariateAdjustment(
   const columns = covariateColumns(sheet, requests);
   const rowOf = sheetRowLookup(sheet);
   const warnings: string[] = [];
+  for (const c of columns.filter((x) => x.guessedNumericLabels)) {
+    warnings.push(`${sheet.source}: covariate "${c.column}" is taken as numeric (every value is a whole number); if its values are labels (batch 1, 2, 3), give it as ${c.column}:categorical`);
+  }
   const names = columns.map((c) => c.column);
   const valuesOf = new Map<string, (number | string)[] | null>();
   const valuesFor = (file: string): (number | string)[] | null => {

@@ -72,12 +72,22 @@ function CovariateChoice({ chosen, columns, onChosen }: { chosen: readonly strin
       <span>Covariates (dosage regression)</span>
       {offered.length === 0 ? <span className="muted small">none: the sample sheet has no free columns (e.g. stage, batch)</span>
         : offered.map((c) => {
-          const on = chosen.some((e) => columnOf(e) === c);
+          const entry = chosen.find((e) => columnOf(e) === c);
+          const kind = entry === undefined ? '' : entry.slice(columnOf(entry).length).replace(/^:/, '').toLowerCase();
           return (
-            <label key={c} className="small covariate">
-              <input type="checkbox" data-testid="cohort-opt-covariate" data-column={c} checked={on}
-                onChange={() => onChosen(on ? chosen.filter((e) => columnOf(e) !== c) : [...chosen, c])} /> {c}
-            </label>
+            <span key={c} className="covariate-row">
+              <label className="small covariate">
+                <input type="checkbox" data-testid="cohort-opt-covariate" data-column={c} checked={entry !== undefined}
+                  onChange={() => onChosen(entry !== undefined ? chosen.filter((e) => columnOf(e) !== c) : [...chosen, c])} /> {c}
+              </label>
+              {entry !== undefined && (
+                <select className="small" data-testid="cohort-opt-covariate-kind" data-column={c} value={kind} aria-label={`how ${c} is read`}
+                  onChange={(e) => onChosen(chosen.map((x) => (columnOf(x) === c ? (e.target.value === '' ? c : `${c}:${e.target.value}`) : x)))}>
+                  <option value="">numbers: numeric</option>
+                  <option value="numeric">numeric</option>
+                  <option value="categorical">categorical (labels)</option>
+                </select>)}
+            </span>
           );
         })}
     </div>

@@ -210,6 +210,9 @@ describe('comparison options in the Cohort tab', { timeout: 240_000 }, () => {
       await tick('stage').waitFor({ timeout: 60_000 });
       await tick('stage').check();
       await expect.poll(() => page.getByTestId('cohort-options').getAttribute('aria-busy'), { timeout: 60_000 }).toBe('false');
+      // How a ticked column is read, as COLUMN:numeric on the command line.
+      await page.locator('[data-testid=cohort-opt-covariate-kind][data-column="stage"]').selectOption('numeric');
+      await expect.poll(() => page.getByTestId('cohort-options').getAttribute('aria-busy'), { timeout: 60_000 }).toBe('false');
       await tick('batch').check();
       const slopeSentence = () => page.getByTestId('cohort-finding').first().locator('p').nth(1).textContent();
       await expect.poll(slopeSentence, { timeout: 60_000 }).toContain('Adjusted for stage and batch');
@@ -220,14 +223,14 @@ describe('comparison options in the Cohort tab', { timeout: 240_000 }, () => {
       const cliOut = join(scratch, 'cli-covariates');
       const reference = await page.getByTestId('cohort-opt-reference').inputValue();
       expect(await cohortCommand([out, '--samples', sheet, '--normalise', 'none', ...(reference ? ['--reference', reference] : []),
-        '--equivalence-margin', '0.2', '--covariate', 'stage', '--covariate', 'batch', '--out', cliOut], quiet)).toBe(0);
+        '--equivalence-margin', '0.2', '--covariate', 'stage:numeric', '--covariate', 'batch', '--out', cliOut], quiet)).toBe(0);
       const report = await fs.readFile(join(cliOut, 'report.html'), 'utf8');
       expect(report).toContain(`<p>${escapeXml(shown)}</p>`);
       const adjusted = (await csvRows(join(cliOut, 'dosage_fit.csv'))).filter((r) => r.method === 'covariate-adjusted:stage+batch');
       expect(adjusted.length).toBeGreaterThan(0);
       expect(shown).toContain(`the slope is ${valueWithCi(Number(adjusted[0].slope_el), Number(adjusted[0].ci_low), Number(adjusted[0].ci_high)).value} (`);
       const projectPath = join(dirname(sheet), 'eggline-project.json');
-      await expect.poll(async () => (JSON.parse(await fs.readFile(projectPath, 'utf8')) as { cohort?: { covariates?: string[] } }).cohort?.covariates, { timeout: 10_000 }).toEqual(['stage', 'batch']);
+      await expect.poll(async () => (JSON.parse(await fs.readFile(projectPath, 'utf8')) as { cohort?: { covariates?: string[] } }).cohort?.covariates, { timeout: 10_000 }).toEqual(['stage:numeric', 'batch']);
       const viaProject = join(scratch, 'cli-covariates-project');
       expect(await cohortCommand([out, '--samples', sheet, '--project', projectPath, '--out', viaProject], quiet)).toBe(0);
       expect(await fs.readFile(join(viaProject, 'covariates.csv'), 'utf8')).toBe(await fs.readFile(join(cliOut, 'covariates.csv'), 'utf8'));
