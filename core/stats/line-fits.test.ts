@@ -115,6 +115,53 @@ describe('randomInterceptLine', () => {
     expect((f.intercept / f.interceptSe) * scale).toBeCloseTo(4.68, 2);
     expect((f.slope / f.slopeSe) * scale).toBeCloseTo(-4.39, 2);
   });
+  // Published example with τ² > 0. Data: the 13 vaccine trials of Colditz et al. (1994, JAMA 271:698), as listed for
+  // dat.bcg in the metafor R package's documentation (vaccinated TB+/TB−, control TB+/TB−, absolute latitude). Our
+  // function takes effect sizes and variances, so the log risk ratios and their variances are computed here with the
+  // textbook formulas (yi = ln[a/(a+b)] − ln[c/(c+d)], vi = 1/a − 1/(a+b) + 1/c − 1/(c+d); from memory, the formulas
+  // behind metafor's escalc(measure = "RR")).
+  const trials = [
+    [4, 119, 11, 128, 44], [6, 300, 29, 274, 55], [3, 228, 11, 209, 42], [62, 13536, 248, 12619, 52],
+    [33, 5036, 47, 5761, 13], [180, 1361, 372, 1079, 44], [8, 2537, 10, 619, 19], [505, 87886, 499, 87892, 13],
+    [29, 7470, 45, 7232, 27], [17, 1699, 65, 1600, 42], [186, 50448, 141, 27197, 18], [5, 2493, 3, 2338, 33],
+    [27, 16886, 29, 17825, 33],
+  ];
+  const logRr = trials.map(([a, b, c, d]) => Math.log(a / (a + b)) - Math.log(c / (c + d)));
+  const varLogRr = trials.map(([a, b, c, d]) => 1 / a - 1 / (a + b) + 1 / c - 1 / (c + d));
+  const latitude = trials.map((t) => t[4]);
+  it('reproduces a published DerSimonian–Laird random-effects fit with τ² > 0 (13 vaccine trials, log risk ratios)', () => {
+    // Source: metafor's tests/testthat/test_misc_metan_vs_rma.uni_with_dat.bcg.r, "RE model w/ DL estimator,
+    // measure='RR'": rma(yi, vi, method = "DL") gives τ² = 0.3088, estimate −0.7141, z = −3.9952, 95% CI
+    // [−1.0644, −0.3638], checked there against Stata's metan (randomi). That model has no covariate; ours fits a line,
+    // so the input is adapted: the 13 trials sit at x = 0 and one extra group at x = 1 (y = 0, v = 1, arbitrary). The
+    // line passes exactly through that lone group, which then adds nothing to Q or to tr(P) (its block of P is
+    // w − w²/w = 0), so τ² is the intercept-only moment estimate, and the intercept is the random-effects mean with
+    // variance 1/Σw*. Knapp–Hartung scales that variance by s² = Σw*·r²/(k − 2); dividing it out gives the z of the text.
+    const xs = [...logRr.map(() => 0), 1];
+    const f = randomInterceptLine(xs, [...logRr, 0], [...varLogRr, 1]);
+    expect(f.tau2).toBeCloseTo(0.3088, 4);
+    expect(f.intercept).toBeCloseTo(-0.7141, 4);
+    expect(f.q).toBeCloseTo(152.2330, 4); // Source: the same file's FE model, QE = 152.2330 (Cochran's Q).
+    const wStar = varLogRr.map((e) => 1 / (e + f.tau2));
+    const s2 = logRr.reduce((s, e, i) => s + wStar[i] * (e - f.intercept) ** 2, 0) / 12;
+    const seZ = f.interceptSe / Math.sqrt(s2);
+    expect(f.intercept / seZ).toBeCloseTo(-3.9952, 4);
+    expect(f.intercept - 1.959964 * seZ).toBeCloseTo(-1.0644, 4);
+    expect(f.intercept + 1.959964 * seZ).toBeCloseTo(-0.3638, 4);
+    expect(f.dof).toBe(12);
+  });
+  it('reproduces the published residual heterogeneity of a meta-regression on latitude (13 vaccine trials)', () => {
+    // Source: the metafor package's README (github.com/wviechtb/metafor), rma(yi, vi, mods = ~ ablat, test = "knha"):
+    // "QE(df = 11) = 30.7331, p-val = 0.0012". QE is the fixed-effect weighted residual sum of squares, the same for
+    // every τ² estimator, so it checks our Q with a covariate. (The README's τ² = 0.0764 and coefficients are REML;
+    // ours is the moment estimator, so only QE is comparable. τ² > 0 here: Q exceeds its 11 degrees of freedom.)
+    const f = randomInterceptLine(latitude, logRr, varLogRr);
+    expect(f.q).toBeCloseTo(30.7331, 4);
+    expect(f.pHeterogeneity).toBeCloseTo(0.0012, 4);
+    expect(f.tau2).toBeGreaterThan(0);
+    expect(f.slope).toBeLessThan(0);
+    expect(f.dof).toBe(11);
+  });
   it('condition means cover the true slope ≥ 93% when conditions carry a shared random offset (2000 seeded cohorts)', () => {
     // Source: project requirement (≥ 93% for nominal 95%); demo data: 5 dosages, 6 embryos each, embryo SD 0.02 EL
     // differing by condition (×0.5–×2), a shared offset per condition with SD 0.01 EL.
