@@ -34,6 +34,22 @@ describe('olsHc3', () => {
     expect(f.pSlope / 9.287706385138979e-07).toBeCloseTo(1, 6);
     expect(f.dof).toBe(10);
   });
+  it('reduces to Σ s_g²/(n_g − 1) for two groups (closed form, by hand)', () => {
+    // Source: HC3's definition (MacKinnon & White 1985; the same formula as statsmodels' documented HC3_se,
+    // (XᵀX)⁻¹Xᵀdiag(e_i²/(1 − h_ii)²)X(XᵀX)⁻¹) worked by hand for x ∈ {0, 1}: the line passes through the two group
+    // means, h_i = 1/n_g, and the slope's row of (XᵀX)⁻¹Xᵀ is ∓1/n_g, so Var(slope) = Σ_g SS_g/(n_g − 1)²
+    // = Σ_g s_g²/(n_g − 1) and Var(intercept) = s_0²/(n_0 − 1). (HC2 gives Welch's s²/n per group instead.) Demo data.
+    const g0 = [2.1, 2.9, 2.4, 3.3, 2.6];
+    const g1 = [4.0, 6.2, 3.1, 5.5, 7.4, 4.8, 5.9];
+    const mean = (a: number[]) => a.reduce((s, v) => s + v, 0) / a.length;
+    const varS = (a: number[]) => a.reduce((s, v) => s + (v - mean(a)) ** 2, 0) / (a.length - 1);
+    const f = olsHc3([...g0.map(() => 0), ...g1.map(() => 1)], [...g0, ...g1]);
+    expect(f.slope).toBeCloseTo(mean(g1) - mean(g0), 12);
+    expect(f.intercept).toBeCloseTo(mean(g0), 12);
+    expect(f.slopeSe).toBeCloseTo(Math.sqrt(varS(g0) / (g0.length - 1) + varS(g1) / (g1.length - 1)), 12);
+    expect(f.interceptSe).toBeCloseTo(Math.sqrt(varS(g0) / (g0.length - 1)), 12);
+    expect(f.dof).toBe(10);
+  });
 });
 
 describe('lackOfFitTest', () => {
