@@ -279,12 +279,18 @@ async function runListed(opts: RunBatchOptions, listed: ListedRun): Promise<Batc
   const software = await softwareVersions();
   const corrections = await checkedCorrections(opts.settings, folder);
   const timeoutMs = (opts.timeoutPerFileS ?? DEFAULT_TIMEOUT_PER_FILE_S) * 1000;
+  // The cohort options are recorded when the project's cohort entry gave any (the command line alone says the rest).
+  const c = opts.cohort;
+  const cohortOptions: RunRecord['cohortOptions'] | null = c && opts.doc?.cohort !== undefined && Object.keys(opts.doc.cohort).length > 0 ? {
+    reference: c.reference, backgroundCondition: c.backgroundCondition ?? null, backgroundConditionNamedBy: c.backgroundConditionNamedBy ?? '--background-condition',
+    normalisation: c.normalisation ?? 'scale-offset', lambdaPosteriorEl: c.lambdaPosteriorEl ?? null, equivalenceMargin: c.equivalenceMargin ?? null, covariates: c.covariates ?? [],
+  } : null;
   const record = (over: Partial<RunRecord>): RunRecord => ({
     schema: 'eggline-run', version: 2, runId, software, startedAt, endedAt: new Date().toISOString(),
     commandLine: opts.commandLine ?? null, folder, outDir, projectFile: opts.projectFile ?? null, configFile: opts.configFile ?? null,
     settings: opts.settings, jobs: opts.jobs, timeoutPerFileS: timeoutMs / 1000, maxMemoryBytes: opts.maxMemoryBytes ?? null, cancelled: false, complete: false, reason: 'killed',
     note: 'written when the run started; no later record replaced it, so the run was killed (or is still running) and the tables here are not a finished run',
-    reused: 0, ok: 0, failed: 0, inputs: [], warnings: [...warnings], ...(corrections ? { corrections } : {}), ...(part ? { shard: part.info } : {}), ...over,
+    reused: 0, ok: 0, failed: 0, inputs: [], warnings: [...warnings], ...(corrections ? { corrections } : {}), ...(cohortOptions ? { cohortOptions } : {}), ...(part ? { shard: part.info } : {}), ...over,
   });
   await fs.mkdir(outDir, { recursive: true });
   const earlier = opts.resume === true ? await readJournal(outDir) : null;

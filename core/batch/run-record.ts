@@ -83,6 +83,17 @@ export interface RunRecord {
     readonly flatField: { readonly file: string; readonly sha256: string } | null;
     readonly backgroundImage: { readonly file: string; readonly sha256: string } | null;
   };
+  /** Present when the cohort step ran with options from the project's cohort entry: the options in force (flag >
+   *  project > default) and who gave the background condition, as the cohort step used them. */
+  readonly cohortOptions?: {
+    readonly reference: string | null;
+    readonly backgroundCondition: string | null;
+    readonly backgroundConditionNamedBy: string;
+    readonly normalisation: string;
+    readonly lambdaPosteriorEl: number | null;
+    readonly equivalenceMargin: number | null;
+    readonly covariates: readonly string[];
+  };
   /** Present when the run analysed one part of a split batch. */
   readonly shard?: ShardInfo;
   /** Present when the record was made by merging parts. */
