@@ -30,7 +30,7 @@ import { TimelapseView } from './components/timelapse/TimelapseView';
 import type { FolderEntry, LoadedStack, ProjectCohortOptions } from '../core/contract';
 import { fileStatus } from './state/fileStatus';
 import { currentEdits, editorReducer, fileResult, initialState, storedEdits, timePointEdits } from './state';
-import { fileEditsAt } from '../core/settings';
+import { fileEditsAt, timePointForFile } from '../core/settings';
 import { TimePointPanel, shownTimeText } from './components/TimePointPanel';
 import { useSettled } from './hooks/useSettled';
 import { autoDisplayRange, CHANNEL_COLOURS } from './view';
@@ -46,7 +46,13 @@ export function App() {
   const [spaceHeld, setSpaceHeld] = useState(false);
   const [zSlice, setZSlice] = useState<number | null>(null);
   const [slicePlanes, setSlicePlanes] = useState<Plane[] | null>(null);
-  const select = useCallback((name: string | null) => { if (name !== null) { dispatch({ type: 'selectFile', key: name, autoAxis: null }); setZSlice(null); } }, []);
+  // Selecting the file already shown changes nothing: its stack stays loaded, so dropping its automatic axis (as a
+  // newly selected file does until its stack arrives) would leave it without one.
+  const shownName = useRef<string | null>(null);
+  shownName.current = state.current;
+  const select = useCallback((name: string | null) => {
+    if (name !== null && name !== shownName.current) { dispatch({ type: 'selectFile', key: name, autoAxis: null }); setZSlice(null); }
+  }, []);
   const flushSave = useRef<() => Promise<void>>(async () => undefined);
   const { session, openDemo, openFolder, openProject, openFiles, openRecent, openAtStart, openDroppedFiles, setMessage, setBatchOutDir } = useSession(api, dispatch, select, () => flushSave.current());
   const [help, setHelp] = useState(false);
@@ -173,6 +179,12 @@ export function App() {
     if (movie.file === entry.name && (movie.view !== null || movie.status === 'running')) startMovie();
   }, [movieTimeKey]);
   const embryoLoading = stack !== null && isMovie && load.timeIndex !== state.shownTimeIndex;
+  // The settings' time point in this file: a file with fewer time points shows its last (a single stack its only
+  // one), as the batch analyses it, with the batch's warning.
+  const sharedTimePoint = stack === null || entry === null ? null : timePointForFile(state.doc.settings.timeIndex, stack.info.sizeT, entry.name);
+  useEffect(() => {
+    if (stack !== null && state.shownTimeIndex > stack.info.sizeT - 1) dispatch({ type: 'showTimePoint', tIndex: stack.info.sizeT - 1 });
+  }, [stack, state.shownTimeIndex]);
   const { settings, axis, fitRangeEl, measurement, bandOutlines, pixelSizeUm, halfWidthPx } = useLiveMeasurement(stack, state);
   const planes = slicePlanes ?? stack?.projected.channels ?? (preview === null ? [] : [preview]);
   const names = stack?.projected.channelNames ?? (preview === null ? [] : ['C1']);
@@ -258,6 +270,7 @@ export function App() {
             scope={state.editScope} own={timePointEdits(state)} dispatch={dispatch} />}
           <FitNumbers m={measurement} pixelSizeUm={pixelSizeUm} loading={loading || session.opening} axisSource={axis?.source ?? null}
             file={entry === null ? null : { name: entry.name, status: statusOf(entry), result: resultFor(entry.name) ?? null }}
+            timePointWarning={sharedTimePoint !== null && sharedTimePoint.tIndex === state.shownTimeIndex ? sharedTimePoint.warning : null}
             settingsFitRangeEl={edits.fitRangeEl === null ? null : settings.fitRangeEl}
             dorsal={state.doc.settings.profile.mode === 'edge' && state.doc.settings.profile.edgeSide !== 'both'
               ? { own: edits.dorsalSide ?? null, shared: state.doc.settings.profile.dorsalSide, onChange: (side) => dispatch({ type: 'setDorsalSide', side }) }

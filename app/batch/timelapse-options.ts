@@ -38,7 +38,7 @@ export interface MovieFailure {
 }
 
 /** Files of the time pass: tables, figures and the page. */
-export const TIMELAPSE_FILES = ['timecourse.csv', 'timecourse_profiles.csv', 'timecourse_boundaries.csv', 'accumulation.csv', 'model_fit.csv', 'timelapse.html'] as const;
+export const TIMELAPSE_FILES = ['timecourse.csv', 'timecourse_profiles.csv', 'timecourse_boundaries.csv', 'timecourse_landmarks.csv', 'accumulation.csv', 'model_fit.csv', 'timelapse.html'] as const;
 
 /** What the time pass needs to know of a file to tell whether it is a movie: its time points, slices, and whether
  *  it is an OME file (as the batch worker opened it). */

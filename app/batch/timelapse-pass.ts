@@ -4,7 +4,7 @@
 // results alone, so a merge of parts makes the same one.
 import { promises as fs } from 'node:fs';
 import { join } from 'node:path';
-import { editsForFile, embryoMeasureRow, EMBRYO_MEASURE_COLUMNS, normalizeResult, sideCells, SIDE_COLUMNS, summaryBoundary } from '../../core/batch';
+import { editsForFile, embryoMeasureRow, EMBRYO_MEASURE_COLUMNS, LANDMARK_COLUMNS, normalizeResult, sideCells, SIDE_COLUMNS, summaryBoundary } from '../../core/batch';
 import { toCsv, type CsvValue } from '../../core/csv';
 import type { ProjectDoc } from '../../core/contract';
 import { accumulationFigure, figureSlug, kymographFigure, lambdaOverTimeFigure, type AccumulationFigureInput, type KymographInput, type LambdaPoint } from '../../core/figures';
@@ -219,6 +219,15 @@ export function timecourseBoundariesCsv(movies: readonly MovieOutcome[]): string
   return toCsv(['file', 't_index', 't_s', 'channel', 'method', 'position_el', 'position_um', 'width_el', 'position_se_el', 'direction', 'note'], rows);
 }
 
+/** timecourse_landmarks.csv: every hand-marked landmark at every analysed time point, with its image position and
+ *  its projection on that time point's AP axis (the columns of landmarks.csv after `file`). */
+export function timecourseLandmarksCsv(movies: readonly MovieOutcome[]): string {
+  const rows = movies.flatMap((m) => m.results.flatMap((r, k) => r.landmarks.map((l): CsvValue[] => [
+    m.file, m.timeIndices[k], timeCell(m, k), l.name, l.point.x, l.point.y, l.xEl, l.xUm, l.offAxisUm,
+  ])));
+  return toCsv(['file', 't_index', 't_s', ...LANDMARK_COLUMNS.slice(1)], rows);
+}
+
 /** The data of one movie's three figures (λ over time, the kymograph, τ(x) with the model lines). */
 export function movieFigureData(m: MovieOutcome): {
   lambda: LambdaPoint[]; steadyLambdaEl: number | undefined; kymograph: KymographInput | null; accumulation: AccumulationFigureInput | null;
@@ -260,12 +269,13 @@ export function movieFigures(m: MovieOutcome): { name: string; title: string; sv
   ];
 }
 
-/** The five tables of the given movies as the batch writes them (CSV text). */
-export function movieTables(movies: readonly MovieOutcome[]): { timecourse: string; profiles: string; boundaries: string; accumulation: string; modelFit: string } {
+/** The six tables of the given movies as the batch writes them (CSV text). */
+export function movieTables(movies: readonly MovieOutcome[]): { timecourse: string; profiles: string; boundaries: string; landmarks: string; accumulation: string; modelFit: string } {
   return {
     timecourse: timecourseCsv(movies),
     profiles: timecourseProfilesCsv(movies),
     boundaries: timecourseBoundariesCsv(movies),
+    landmarks: timecourseLandmarksCsv(movies),
     accumulation: toCsv(ACCUMULATION_COLUMNS, movies.flatMap((m) => accumulationRows(m.summary))),
     modelFit: toCsv(MODEL_FIT_COLUMNS, movies.map((m) => modelFitRow(m.summary))),
   };
@@ -281,6 +291,7 @@ export async function writeTimelapseOutputs(outDir: string, movies: readonly Mov
   await put(join(outDir, 'timecourse.csv'), tables.timecourse);
   await put(join(outDir, 'timecourse_profiles.csv'), tables.profiles);
   await put(join(outDir, 'timecourse_boundaries.csv'), tables.boundaries);
+  await put(join(outDir, 'timecourse_landmarks.csv'), tables.landmarks);
   await put(join(outDir, 'accumulation.csv'), tables.accumulation);
   await put(join(outDir, 'model_fit.csv'), tables.modelFit);
   const figures = movies.map((m) => ({ movie: m, figures: movieFigures(m) }));

@@ -96,8 +96,8 @@ Movies (files with more than one time point) are also analysed over time, after 
                               multi-page files are then read as one plane per time point
   --tau-range A,B             x/EL range of the accumulation-time model fit             [0.1,0.4]
   --baseline-frames N         frames before production starts (their mean is the zero)       [1]
-  They write timecourse.csv, timecourse_profiles.csv, timecourse_boundaries.csv, accumulation.csv,
-  model_fit.csv, timelapse/*.svg and timelapse.html. A movie's rows in profiles.csv, boundaries.csv and
+  They write timecourse.csv, timecourse_profiles.csv, timecourse_boundaries.csv, timecourse_landmarks.csv,
+  accumulation.csv, model_fit.csv, timelapse/*.svg and timelapse.html. A movie's rows in profiles.csv, boundaries.csv and
   results.json are then those of every analysed time point (columns t_index, t_s); its embryos.csv row,
   which the cohort step uses, is its last analysed time point. Each part of a split batch does this for
   its own movies.

@@ -6,7 +6,7 @@ import { promises as fs } from 'node:fs';
 import type { StackTimeOptions } from '../../core/contract';
 import type { Detection, PlaneSource, ProjectedStack, StackInfo } from '../../core/model';
 import { analyseMovie, applyImageCorrections, detectEmbryo, projectStack, type ImageCorrections } from '../../core/pipeline';
-import type { AnalysisSettings } from '../../core/settings';
+import { timePointForFile, type AnalysisSettings } from '../../core/settings';
 import { resolveTimeAxis } from '../../core/tiff';
 import { inputFolderOf, loadImageCorrections } from '../batch/correction-images';
 import { asMovie } from '../batch/timelapse-pass';
@@ -101,12 +101,16 @@ export function createViewLoader(): (path: string, label: string, settings: Anal
     embryos.set(key, d);
     while (embryos.size > KEPT_EMBRYOS) embryos.delete(embryos.keys().next().value as string);
   };
-  return async (path, label, settings, time = null, signal = null) => {
+  return async (path, label, asked, time = null, signal = null) => {
     const opened = await openStackForAnalysis(path, label);
     try {
       const warnings: string[] = [...opened.warnings];
       const timed = time === null ? opened : viewOfTime(opened, time.timeStepS, warnings);
       const info = timed.info;
+      // A time point past the file's last shows its last (a single stack's only one), as the batch analyses it.
+      const at = timePointForFile(asked.timeIndex, info.sizeT, label);
+      const settings = at.tIndex === asked.timeIndex ? asked : { ...asked, timeIndex: at.tIndex };
+      if (at.warning !== null) warnings.push(at.warning);
       const source = stoppable(timed.source, signal, label);
       // The flat field and background image, as the batch applies them (relative paths from the folder of the file list).
       const corrections = await loadImageCorrections(settings, inputFolderOf(path, label));

@@ -251,6 +251,7 @@ export interface MovieView {
     readonly timecourse: string;
     readonly profiles: string;
     readonly boundaries: string;
+    readonly landmarks: string;
     readonly accumulation: string;
     readonly modelFit: string;
   };

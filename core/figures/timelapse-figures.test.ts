@@ -41,6 +41,8 @@ describe('kymographFigure', () => {
     expect(count(cells, /<rect /g)).toBe(20 * 50);
     expect(count(svg, /class="track boundary"/g)).toBe(1);
     expect(count(svg, /class="track landmark"/g)).toBe(1);
+    // Each track carries its positions (x/EL per time point) beside the drawn line.
+    expect(svg).toContain(`data-label="furrow" data-x-el="${Array.from(timesS, () => '0.3').join(' ')}"`);
     expect(svg).toContain('x/EL (0 = anterior pole)');
   });
 });

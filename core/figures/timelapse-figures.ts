@@ -106,7 +106,10 @@ export function kymographFigure(input: KymographInput, options: FigureOptions & 
     const colour = track.kind === 'boundary' ? BOUNDARY_COLOURS[k % BOUNDARY_COLOURS.length] : INK.axis;
     const pts = Array.from(track.xEl, (v, t) => (Number.isFinite(v) ? `${px(x(v))},${px(y(input.timesS[t] * perS))}` : null));
     const path = pts.map((p, i) => (p === null ? '' : `${i > 0 && pts[i - 1] !== null ? 'L' : 'M'}${p}`)).join('');
-    return path ? el('path', { class: `track ${track.kind}`, d: path, fill: 'none', stroke: colour, 'stroke-width': 2, 'stroke-dasharray': track.kind === 'landmark' ? '4 3' : undefined }) : '';
+    // The track's positions ride along as data (x/EL per time point, empty where none), so a reader of the figure
+    // gets the numbers, not only the drawn line.
+    const data = { 'data-label': track.label, 'data-x-el': Array.from(track.xEl, (v) => (Number.isFinite(v) ? String(v) : '')).join(' ') };
+    return path ? el('path', { class: `track ${track.kind}`, ...data, d: path, fill: 'none', stroke: colour, 'stroke-width': 2, 'stroke-dasharray': track.kind === 'landmark' ? '4 3' : undefined }) : '';
   }).join('');
   const yAxis = yAxisSvg(y, a, `time (${unit}), down`);
   const clip = clipSvg(a, stableId('ky', `${title}${n}`));

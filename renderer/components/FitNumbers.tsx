@@ -20,6 +20,8 @@ export interface FitNumbersProps {
   /** Where the shown axis comes from (the negative-λ hint depends on it). */
   readonly axisSource: 'auto' | 'hand' | null;
   readonly file: ShownFile | null;
+  /** Why the shown time point is not the settings' one (a file with fewer time points), as the batch's row says it. */
+  readonly timePointWarning?: string | null;
   /** The settings' fit range, x/EL, when the file uses its own instead (null when it follows the settings). */
   readonly settingsFitRangeEl?: readonly [number, number] | null;
   /** This file's own dorsal side (null: the shared setting's, `sharedDorsalSide`), and how to change it. */
@@ -84,7 +86,7 @@ function FileNote({ file }: { file: ShownFile }) {
 }
 
 /** Table of fit results for the shown embryo. */
-export function FitNumbers({ m, pixelSizeUm, loading, axisSource, file, settingsFitRangeEl = null, dorsal = null }: FitNumbersProps) {
+export function FitNumbers({ m, pixelSizeUm, loading, axisSource, file, timePointWarning = null, settingsFitRangeEl = null, dorsal = null }: FitNumbersProps) {
   const f = m?.fit ?? null;
   const rows: [string, string, string?][] = [
     ['λ', f === null ? '—' : `${fmt(f.lambdaUm)} ± ${fmt(f.lambdaSeUm, 2)} µm`, 'lambda-um'],
@@ -107,8 +109,9 @@ export function FitNumbers({ m, pixelSizeUm, loading, axisSource, file, settings
         {rows.map(([k, v, id]) => <tr key={k}><th>{k}</th><td data-testid={id} data-value={id === 'lambda-el' ? f?.lambdaEl : undefined}>{v}</td></tr>)}
         {m?.boundaries.map((b, i) => <tr key={`b${i}`}><th>{b.channel} {b.method}</th><td>{b.positionEl === null ? (b.note ?? '—') : `${fixed(b.positionEl, 3)} EL · ${fmt(b.positionUm)} µm · ${b.direction}`}</td></tr>)}
       </tbody></table>
-      {m !== null && (m.warnings.length > 0 || (f !== null && f.lambdaEl < 0)) && (
+      {m !== null && (m.warnings.length > 0 || (f !== null && f.lambdaEl < 0) || timePointWarning !== null) && (
         <ul className="warnings" data-testid="warnings">
+          {timePointWarning !== null && <li data-testid="time-point-warning">{timePointWarning}</li>}
           {f !== null && f.lambdaEl < 0 && <li data-testid="negative-lambda">{negativeLambdaHint(axisSource)}</li>}
           {m.warnings.map((w, i) => <li key={i}>{w}</li>)}
         </ul>

@@ -1,7 +1,7 @@
 // Loads the shown file through the API whenever it or a setting that changes loading changes.
-import { useEffect, useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import type { EgglineApi, LoadedStack, StackPreview, StackTimeOptions } from '../../core/contract';
-import type { AnalysisSettings } from '../../core/settings';
+import { timePointForFile, type AnalysisSettings } from '../../core/settings';
 
 /** What the loader reports. */
 export interface StackLoad {
@@ -11,7 +11,8 @@ export interface StackLoad {
   /** The first picture while the stack loads (one raw slice of `path`); null once the stack is there or when the
    *  preview failed (the stack's own error, if any, is what the user sees). */
   readonly preview: { readonly path: string; readonly plane: StackPreview } | null;
-  /** The time point the stack shows (the settings' timeIndex it was loaded with), or null with no stack. */
+  /** The time point the stack shows (the settings' timeIndex it was loaded with, or the file's last when it has
+   *  fewer time points), or null with no stack. */
   readonly timeIndex: number | null;
 }
 
@@ -25,8 +26,12 @@ export function loadKey(path: string | null, s: AnalysisSettings, time: StackTim
 export function useStackLoader(api: EgglineApi | null, path: string | null, settings: AnalysisSettings, time: StackTimeOptions | null = null): StackLoad {
   const [load, setLoad] = useState<StackLoad>({ stack: null, loading: false, error: null, preview: null, timeIndex: null });
   const key = loadKey(path, settings, time);
+  // The key the shown stack answers (with the time point it shows): a request past the file's last time point is
+  // answered by the last, so asking for that one next needs no second load.
+  const served = useRef<string | null>(null);
   useEffect(() => {
-    if (api === null || path === null) return;
+    if (api === null || path === null || key === served.current) return;
+    served.current = null;
     let live = true;
     setLoad((l) => ({ ...l, loading: true, error: null, preview: null }));
     let stackArrived = false;
@@ -40,8 +45,10 @@ export function useStackLoader(api: EgglineApi | null, path: string | null, sett
     api.loadStack(path, settings, time).then((r) => {
       if (!live) return;
       stackArrived = true;
-      setLoad(r.ok ? { stack: r.value, loading: false, error: null, preview: null, timeIndex: settings.timeIndex }
-        : { stack: null, loading: false, error: r.error.message, preview: null, timeIndex: null });
+      if (!r.ok) { setLoad({ stack: null, loading: false, error: r.error.message, preview: null, timeIndex: null }); return; }
+      const t = timePointForFile(settings.timeIndex, r.value.info.sizeT, path).tIndex;
+      served.current = loadKey(path, { ...settings, timeIndex: t }, time);
+      setLoad({ stack: r.value, loading: false, error: null, preview: null, timeIndex: t });
     }, (e: unknown) => { if (live) { stackArrived = true; setLoad({ stack: null, loading: false, error: `${path}: ${String(e)}`, preview: null, timeIndex: null }); } });
     return () => { live = false; };
     // The key captures every setting that matters; settings itself changes on unrelated edits.

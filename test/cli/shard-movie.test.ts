@@ -15,7 +15,7 @@ const split = join(dir, 'split');
 const MOVIE = 'timelapse/movie.ome.tif';
 const TABLES = [
   'embryos.csv', 'boundaries.csv', 'profiles.csv', 'landmarks.csv', 'results.json',
-  'timecourse.csv', 'timecourse_profiles.csv', 'timecourse_boundaries.csv', 'accumulation.csv', 'model_fit.csv',
+  'timecourse.csv', 'timecourse_profiles.csv', 'timecourse_boundaries.csv', 'timecourse_landmarks.csv', 'accumulation.csv', 'model_fit.csv',
   'timelapse/timelapse-movie-lambda.svg', 'timelapse/timelapse-movie-kymograph.svg', 'timelapse/timelapse-movie-tau.svg',
 ];
 

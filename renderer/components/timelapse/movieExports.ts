@@ -1,5 +1,5 @@
 // Exports of the time-lapse view through the API's save dialog: each figure as SVG or PNG (PNG rendered by the app
-// at 2×), the image at the shown time point as PNG (as shown, with axis and landmarks), and the batch's five time
+// at 2×), the image at the shown time point as PNG (as shown, with axis and landmarks), and the batch's six time
 // tables for this movie as CSV.
 import type { EgglineApi, ExportKind, MovieView } from '../../../core/contract';
 import { fileStem } from '../../export/liveResult';
@@ -9,7 +9,7 @@ import { kymographAt, lambdaAt, profileAt, tauFigure } from './movieFigures';
 /** The export commands of the time-lapse view. */
 export type MovieExportCommand =
   | 'profile-svg' | 'profile-png' | 'kymograph-svg' | 'kymograph-png' | 'lambda-svg' | 'lambda-png' | 'tau-svg' | 'tau-png'
-  | 'image-png' | 'timecourse-csv' | 'profiles-csv' | 'boundaries-csv' | 'accumulation-csv' | 'model-fit-csv';
+  | 'image-png' | 'timecourse-csv' | 'profiles-csv' | 'boundaries-csv' | 'landmarks-csv' | 'accumulation-csv' | 'model-fit-csv';
 
 /** Menu labels in menu order. */
 export const MOVIE_EXPORT_LABELS: Record<MovieExportCommand, string> = {
@@ -18,7 +18,7 @@ export const MOVIE_EXPORT_LABELS: Record<MovieExportCommand, string> = {
   'lambda-svg': 'λ over time (SVG)', 'lambda-png': 'λ over time (PNG)',
   'tau-svg': 'τ(x) with the model (SVG)', 'tau-png': 'τ(x) with the model (PNG)',
   'image-png': 'Image at this time point (PNG, at the size shown)',
-  'timecourse-csv': 'Time course table (CSV)', 'profiles-csv': 'Profiles over time (CSV)', 'boundaries-csv': 'Boundaries over time (CSV)',
+  'timecourse-csv': 'Time course table (CSV)', 'profiles-csv': 'Profiles over time (CSV)', 'boundaries-csv': 'Boundaries over time (CSV)', 'landmarks-csv': 'Landmarks over time (CSV)',
   'accumulation-csv': 'Accumulation time τ(x) (CSV)', 'model-fit-csv': 'Model fit: k, D, λ_τ (CSV)',
 };
 
@@ -38,6 +38,7 @@ export function movieExportContent(view: MovieView, k: number, cmd: Exclude<Movi
     case 'timecourse-csv': return { name: `${stem}-timecourse.csv`, kind: 'csv', text: view.tables.timecourse };
     case 'profiles-csv': return { name: `${stem}-timecourse_profiles.csv`, kind: 'csv', text: view.tables.profiles };
     case 'boundaries-csv': return { name: `${stem}-timecourse_boundaries.csv`, kind: 'csv', text: view.tables.boundaries };
+    case 'landmarks-csv': return { name: `${stem}-timecourse_landmarks.csv`, kind: 'csv', text: view.tables.landmarks };
     case 'accumulation-csv': return { name: `${stem}-accumulation.csv`, kind: 'csv', text: view.tables.accumulation };
     case 'model-fit-csv': return { name: `${stem}-model_fit.csv`, kind: 'csv', text: view.tables.modelFit };
   }
