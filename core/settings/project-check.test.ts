@@ -58,4 +58,10 @@ describe('project file versions', () => {
     expect(() => doc({ time: 4 })).toThrow('p.json: files["m.tif"].time must be all, a time point K or a range A:B (0-based, A ≤ B)');
     expect(() => doc({ timeStepS: 0 })).toThrow('p.json: files["m.tif"].timeStepS must be a positive number of seconds (got "0")');
   });
+
+  it('keeps the shared time point as saved, whatever the files hold: a file with fewer is analysed at its last, with a warning (timePointForFile)', () => {
+    const doc = parseProjectText(JSON.stringify({ ...v1, version: 2, settings: { timeIndex: 5 } }), 'p.json');
+    expect(doc.settings.timeIndex).toBe(5);
+    expect(() => parseProjectText(JSON.stringify({ ...v1, version: 2, settings: { timeIndex: -1 } }), 'p.json')).toThrow(/timeIndex/);
+  });
 });

@@ -142,7 +142,7 @@ export const SETTINGS: readonly SettingSpec[] = [
   }),
   numeric({
     key: 'timeIndex', unit: '', label: 'time point (0-based)', flag: '--time-index', flagValue: 'T',
-    help: 'time point to analyse in a movie (0-based)', rule: 'a 0-based time point number', min: 0, integer: true,
+    help: 'time point to analyse (0-based); a file with fewer: its last, with a warning', rule: 'a 0-based time point number', min: 0, integer: true,
   }),
   choice({ key: 'profile.mode', unit: '', label: 'sample', flag: '--profile', flagValue: 'MODE', help: 'edge (band under the outline) | axis (strip on the axis)', choices: ['edge', 'axis'] }),
   choice({ key: 'profile.edgeSide', unit: '', label: 'edge', flag: '--edge-side', flagValue: 'SIDE', help: 'dorsal | ventral | both (pooled) | each (pooled, plus each side\'s λ and their difference)', choices: ['dorsal', 'ventral', 'both', 'each'] }),
