@@ -5,6 +5,7 @@ import { linearRegression } from './regression';
 import { createRng } from './rng';
 import { lackOfFitTest, olsHc3, randomInterceptLine, yorkFit } from './line-fits';
 import { holmAdjust } from './p-values';
+import { tQuantile } from './t-distribution';
 
 // Demo data: four dosage conditions (ln f), three embryos each; boundary positions in x/EL.
 const x = [0.5, 0.5, 0.5, 1, 1, 1, 2, 2, 2, 4, 4, 4].map(Math.log);
@@ -130,6 +131,34 @@ describe('randomInterceptLine', () => {
     const scale = Math.sqrt(f.q / 17);
     expect((f.intercept / f.interceptSe) * scale).toBeCloseTo(4.68, 2);
     expect((f.slope / f.slopeSe) * scale).toBeCloseTo(-4.39, 2);
+  });
+  it('reproduces the textbook random-effects fit with τ² > 0 and the Knapp–Hartung interval (teacher expectancy, DL row)', () => {
+    // Source: Raudenbush (2009), Handbook of Research Synthesis and Meta-Analysis, 2nd ed., ch. 16, Table 16.3
+    // (p. 309), method-of-moments (DL) row, as reproduced in metafor's tests/testthat/
+    // test_analysis_example_raudenbush2009.r: τ² = 0.0259, μ = 0.0893; conventional SE 0.0558, z = 1.6009, 95% CI
+    // [−0.0200, 0.1987]; Knapp–Hartung SE 0.0636, t = 1.405, 95% CI [−0.0442, 0.2229] (t on k − 1 = 18 df); Q of the
+    // fixed-effect model 35.8295 (Table 16.2). Same yi/vi as the test above. The book's model has no covariate, so the
+    // input is adapted as for the vaccine trials below: the 19 studies at x = 0 and one lone group at x = 1, which
+    // changes neither Q, nor tr(P), nor the intercept, and leaves k − 2 = 18 degrees of freedom, the book's k − 1.
+    const yi = [0.03, 0.12, -0.14, 1.18, 0.26, -0.06, -0.02, -0.32, 0.27, 0.80, 0.54, 0.18, -0.02, 0.23, -0.18, -0.06, 0.30, 0.07, -0.07];
+    const vi = [0.0156, 0.0216, 0.0279, 0.1391, 0.1362, 0.0106, 0.0106, 0.0484, 0.0269, 0.0630, 0.0912, 0.0497, 0.0835, 0.0841, 0.0253, 0.0279, 0.0193, 0.0088, 0.0303];
+    const f = randomInterceptLine([...yi.map(() => 0), 1], [...yi, 0], [...vi, 1]);
+    expect(f.q).toBeCloseTo(35.8295, 4);
+    expect(f.tau2).toBeCloseTo(0.0259, 4);
+    expect(f.intercept).toBeCloseTo(0.0893, 4);
+    expect(f.dof).toBe(18);
+    expect(f.interceptSe).toBeCloseTo(0.0636, 4);
+    expect(f.intercept / f.interceptSe).toBeCloseTo(1.405, 3);
+    const t18 = tQuantile(0.975, 18);
+    expect(f.intercept - t18 * f.interceptSe).toBeCloseTo(-0.0442, 4);
+    expect(f.intercept + t18 * f.interceptSe).toBeCloseTo(0.2229, 4);
+    // The conventional (z) SE is 1/√Σw*, the Knapp–Hartung SE divided by √s².
+    const wStar = vi.map((e) => 1 / (e + f.tau2));
+    const seZ = 1 / Math.sqrt(wStar.reduce((a, b) => a + b, 0));
+    expect(seZ).toBeCloseTo(0.0558, 4);
+    expect(f.intercept / seZ).toBeCloseTo(1.6009, 4);
+    expect(f.intercept - 1.959964 * seZ).toBeCloseTo(-0.02, 4);
+    expect(f.intercept + 1.959964 * seZ).toBeCloseTo(0.1987, 4);
   });
   // Published example with τ² > 0. Data: the 13 vaccine trials of Colditz et al. (1994, JAMA 271:698), as listed for
   // dat.bcg in the metafor R package's documentation (vaccinated TB+/TB−, control TB+/TB−, absolute latitude). Our
