@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { deflateSync } from 'node:zlib';
-import { inflateChunk, inflateChunkAsync, inflateChunkAuto, inflateChunkReused, SYNC_INFLATE_MAX_BYTES } from './node-codecs';
+import { inflateChunk, inflateChunkAsync, inflateChunkAuto, inflateChunkReused } from './node-codecs';
 
 /** Demo data: n bytes of a repeating ramp. */
 const ramp = (n: number) => Uint8Array.from({ length: n }, (_, i) => (i * 31) % 251);
@@ -8,14 +8,18 @@ const ramp = (n: number) => Uint8Array.from({ length: n }, (_, i) => (i * 31) % 
 describe('inflateChunkAuto', () => {
   // Source: RFC 1950/1951 zlib streams as written by node:zlib's deflateSync (zlib itself); the decoded bytes are
   // the input given to it.
-  it('inflates small chunks on the spot and larger ones on the thread pool, to the same bytes', async () => {
-    for (const n of [1, 8192, SYNC_INFLATE_MAX_BYTES, SYNC_INFLATE_MAX_BYTES + 1, 100_000]) {
+  it('inflates small and large chunks on the spot, to the same bytes as the thread pool', async () => {
+    for (const n of [1, 8192, 32 * 1024, 32 * 1024 + 1, 100_000, 2 * 1024 * 1024]) {
       const raw = ramp(n);
+      const z = deflateSync(raw);
       const out = new Uint8Array(n);
-      const r = inflateChunkAuto(deflateSync(raw), out);
-      expect(typeof r === 'number').toBe(n <= SYNC_INFLATE_MAX_BYTES);
-      expect(await r).toBe(n);
+      const r = inflateChunkAuto(z, out);
+      expect(typeof r).toBe('number');
+      expect(r).toBe(n);
       expect(out).toEqual(raw);
+      const pooled = new Uint8Array(n);
+      expect(await inflateChunkAsync(z, pooled)).toBe(n);
+      expect(pooled).toEqual(out);
     }
   });
 
@@ -55,7 +59,7 @@ describe('inflateChunkReused', () => {
     let state = 7;
     const noisy = (n: number) => Uint8Array.from({ length: n }, (_, i) => { state = (state * 1103515245 + 12345) >>> 0; return (i % 64) + (state >>> 29); });
     const cases: [Uint8Array, number][] = [];
-    for (const n of [1, 100, 4000, 8192, SYNC_INFLATE_MAX_BYTES]) {
+    for (const n of [1, 100, 4000, 8192, 32 * 1024, 65_536, 300_000]) {
       const raw = noisy(n);
       const z = deflateSync(raw);
       cases.push([z, n], [z, n + 10], [z, Math.max(1, n - 1)], [z.subarray(0, z.length >> 1), n], [Uint8Array.from([...z, 1, 2, 3]), n]);

@@ -25,7 +25,8 @@ function zlibReason(err: unknown, outBytes: number): Error {
 }
 
 /**
- * inflateChunk on libuv's thread pool: the strips of a plane inflate in parallel while the JS thread goes on (with
+ * inflateChunk on libuv's thread pool (not used by the decode path, see inflateChunkAuto; kept for callers that
+ * must not block the JS thread): the strips of a plane inflate in parallel while the JS thread goes on (with
  * read-ahead, adding the previous plane to the projection). Same limits and results as inflateChunk. The stream's
  * output chunk is the whole strip (chunkSize), not node's 16 KiB default: one output buffer per strip instead of
  * several joined afterwards, which cut the CPU time of reading a Deflate movie's time point by about a quarter
@@ -72,7 +73,7 @@ const PROBE = new Uint8Array(1);
 /**
  * inflateChunk through one zlib stream reset for every chunk, writing straight into `out`: what inflateSync does,
  * without making a new stream (and a result Buffer) per chunk, which cost about a quarter of the CPU time of an
- * 8 KiB chunk (a file of 65,535 small planes: one stream each). Same bytes, limits and messages as inflateChunk,
+ * 8 KiB chunk (a file of 65,535 small planes: one stream each), and without a result buffer the size of a large one. Same bytes, limits and messages as inflateChunk,
  * which it falls back to where node:zlib does not offer what it drives.
  */
 export function inflateChunkReused(input: Uint8Array, out: Uint8Array): number {
@@ -99,18 +100,16 @@ function streamFailure(z: ReusedInflate): Error | null {
   return zlibReason(z.stream.errored ?? new Error('inflate failed'), 0);
 }
 
-/** Chunks up to this many decoded bytes are inflated on the JS thread (see inflateChunkAuto). */
-export const SYNC_INFLATE_MAX_BYTES = 32 * 1024;
-
 /**
- * inflateChunk for small chunks, inflateChunkAsync for larger ones. Why: a call through the thread pool costs tens
- * of microseconds of bookkeeping (stream, callback, promise), more than inflating a few kilobytes; a file of many
- * small planes (or libtiff's default 8 KiB strips) spent most of its decode time there. Larger chunks keep
- * inflating off the JS thread while the previous plane is used. Same limits, results and messages either way.
+ * The Deflate decoder of the direct decode path: every chunk, small or large, through the one reused stream on the
+ * JS thread, straight into the plane. Why: large strips used to go to the thread pool (inflateChunkAsync), whose
+ * result buffers, allocated outside V8's heap, raised the process's memory while a Deflate stack was read; inflated
+ * in place they cost no buffer at all. Two Deflate 1024² × 2 × 24 stacks in one process, alternated three times
+ * each way (`npm run bench`'s child runs): decoding took 590–630 ms of CPU time against 920–1070 ms on the thread
+ * pool with 43–49 MiB of peak RSS against 52–61, and the whole pipeline 1330–1450 ms against 1770–1790 with 62–74
+ * MiB against 70–79. Same bytes, limits and messages as inflateChunk.
  */
-export function inflateChunkAuto(input: Uint8Array, out: Uint8Array): number | Promise<number> {
-  return out.length <= SYNC_INFLATE_MAX_BYTES ? inflateChunkReused(input, out) : inflateChunkAsync(input, out);
-}
+export const inflateChunkAuto: (input: Uint8Array, out: Uint8Array) => number = inflateChunkReused;
 
-/** The pure decoders plus Deflate through node:zlib (small chunks inline, larger ones on the thread pool). */
+/** The pure decoders plus Deflate through node:zlib (every chunk inflated in place on the JS thread). */
 export const NODE_CHUNK_CODECS: ChunkCodecs = { ...PURE_CHUNK_CODECS, 8: inflateChunkAuto, 32946: inflateChunkAuto };
