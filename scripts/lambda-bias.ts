@@ -18,8 +18,9 @@
 // `photons` multiplies every photon count of the generator (gradient, boundary, autofluorescence, stray light), so
 // shot noise shrinks by its square root. Prints the mean error of each ± its SE, and the paired differences.
 import { analyseStack, detectEmbryo, projectStack } from '../core/pipeline';
-import { maskOutline, type EmbryoDetection } from '../core/geometry';
+import type { EmbryoDetection } from '../core/geometry';
 import type { SyntheticEmbryo } from '../core/synth';
+import { trueDetection } from './synth-truth';
 import { DEFAULT_SETTINGS, type AnalysisSettings } from '../core/settings';
 import { DEFAULT_SYNTH_PARAMS, makeSyntheticEmbryo, syntheticPlaneSource, syntheticStackInfo } from '../core/synth';
 import { fitExponentialDecay } from '../core/fit';
@@ -54,23 +55,6 @@ function refit(r: EmbryoResult, variant: Variant): number {
   const weights = variant === 'smoothed' ? smoothedWeights(p.sd, p.n) : null;
   const f = fitExponentialDecay(Float64Array.from(p.xEl, (x) => x * L), p.mean, { eggLengthUm: L, fitRangeEl: settings.fitRangeEl, xEl: p.xEl, ...(weights ? { weights } : {}) });
   return f.lambdaUm;
-}
-
-/** The generator's own embryo outline: the ellipse of its egg length and width, with its poles as the axis. */
-function trueDetection(e: SyntheticEmbryo): EmbryoDetection {
-  const { sizeX: w, sizeY: h } = e.stack;
-  const t = e.truth;
-  const a = t.eggLengthUm / 2 / e.pixelSizeUm, b = t.eggWidthUm / 2 / e.pixelSizeUm;
-  const c = Math.cos((t.angleDeg * Math.PI) / 180), s = Math.sin((t.angleDeg * Math.PI) / 180);
-  const data = new Uint8Array(w * h);
-  for (let y = 0; y < h; y++) for (let x = 0; x < w; x++) {
-    const dx = x - t.centre.x, dy = y - t.centre.y;
-    const u = dx * c + dy * s, v = -dx * s + dy * c;
-    data[y * w + x] = +((u / a) ** 2 + (v / b) ** 2 <= 1);
-  }
-  const mask = { width: w, height: h, data };
-  return { mask, outline: maskOutline(mask), axis: { anterior: t.anterior, posterior: t.posterior, source: 'auto' }, eggLengthUm: t.eggLengthUm, eggWidthUm: t.eggWidthUm,
-    eggLengthPx: 2 * a, eggWidthPx: 2 * b, warnings: [] };
 }
 
 /** Mean signed distance (µm, + outside) of a detected outline from the generator's ellipse in the anterior and

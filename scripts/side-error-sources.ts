@@ -15,32 +15,15 @@
 // two sides' errors, how many 95% intervals held the truth, and for variants other than base the correlation of
 // each side's error with its base error (the same error when it is high). Writes nothing.
 import { analyseStack } from '../core/pipeline';
-import { maskOutline, type EmbryoDetection } from '../core/geometry';
 import { DEFAULT_SETTINGS, type AnalysisSettings } from '../core/settings';
-import { DEFAULT_SYNTH_PARAMS, makeSyntheticEmbryo, syntheticPlacement, syntheticPlaneSource, syntheticStackInfo, type SyntheticEmbryo, type SyntheticEmbryoParams } from '../core/synth';
+import { DEFAULT_SYNTH_PARAMS, makeSyntheticEmbryo, syntheticPlacement, syntheticPlaneSource, syntheticStackInfo, type SyntheticEmbryoParams } from '../core/synth';
+import { trueDetection } from './synth-truth';
 
 const n = Number(process.argv[2] ?? 40);
 const variants = (process.argv[3] ?? 'base,photons,reseed,truemask,flat,sharp,onez').split(',');
 const firstSeed = Number(process.argv[4] ?? 90_000);
 const settings: AnalysisSettings = { ...DEFAULT_SETTINGS, profile: { ...DEFAULT_SETTINGS.profile, edgeSide: 'each' } };
 const P = DEFAULT_SYNTH_PARAMS;
-
-/** The generator's own outline: the ellipse of its egg length and width, with its poles as the axis. */
-function trueDetection(e: SyntheticEmbryo): EmbryoDetection {
-  const { sizeX: w, sizeY: h } = e.stack;
-  const t = e.truth;
-  const a = t.eggLengthUm / 2 / e.pixelSizeUm, b = t.eggWidthUm / 2 / e.pixelSizeUm;
-  const c = Math.cos((t.angleDeg * Math.PI) / 180), s = Math.sin((t.angleDeg * Math.PI) / 180);
-  const data = new Uint8Array(w * h);
-  for (let y = 0; y < h; y++) for (let x = 0; x < w; x++) {
-    const dx = x - t.centre.x, dy = y - t.centre.y;
-    const u = dx * c + dy * s, v = -dx * s + dy * c;
-    data[y * w + x] = +((u / a) ** 2 + (v / b) ** 2 <= 1);
-  }
-  const mask = { width: w, height: h, data };
-  return { mask, outline: maskOutline(mask), axis: { anterior: t.anterior, posterior: t.posterior, source: 'auto' }, eggLengthUm: t.eggLengthUm, eggWidthUm: t.eggWidthUm,
-    eggLengthPx: 2 * a, eggWidthPx: 2 * b, warnings: [] };
-}
 
 function params(variant: string, k: number): Partial<SyntheticEmbryoParams> {
   const base: Partial<SyntheticEmbryoParams> = { widthPx: 384, heightPx: 384, pixelSizeUm: 1.5, sizeZ: 8, rightLambdaUm: 100, dosage: [0.5, 1, 2, 4][k % 4] };

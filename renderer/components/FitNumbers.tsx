@@ -47,16 +47,39 @@ export function DorsalSideControl({ own, shared, onChange }: NonNullable<FitNumb
   );
 }
 
+/** A row of the numbers panel: label, value, test id, and an optional note in small type under the value with the
+ *  fit it describes (its numbers are also given in full as data attributes). */
+export type NumberRow = readonly [string, string, string?, string?, ExponentialFit?];
+
+/** A signed number with a true minus sign. */
+const signed = (v: number, decimals: number): string => fixed(v, decimals).replace(/^-/, '\u2212');
+
+/** The sentence under an interval on which of λ's two standard errors it rests, both of them, the residuals' lag-1
+ *  correlation and, for one side's own fit, the depth term; every number is the fit's own (as the batch writes it). */
+export function intervalSourceText(f: ExponentialFit): string {
+  const model = `model SE ${fmt(f.lambdaSeModelUm, 2)} µm`;
+  const serial = Number.isFinite(f.lambdaSeSerialUm)
+    ? `serial-correlation SE ${fmt(f.lambdaSeSerialUm, 2)} µm` : 'serial-correlation SE not computable';
+  const lag = `residual lag-1 r = ${signed(f.residualLag1, 2)}`;
+  const text = f.lambdaSeSource === 'serial'
+    ? `interval from the ${serial} (${lag}); ${model}`
+    : `interval from the ${model}; ${serial} (${lag})`;
+  return f.depthTermEl === undefined ? text : `${text}; plus depth term ${fixed(f.depthTermEl, 4)} EL in quadrature`;
+}
+
+/** Tooltip of the sentence above. */
+export const INTERVAL_SOURCE_TIP = 'The interval uses the wider of the two SEs: residuals that are correlated along the axis make the model SE too small, and the wider one keeps the interval from claiming more than the profile shows.';
+
 /** Rows of the numbers panel for each side measured on its own and their paired difference (none when not measured). */
-export function sideNumberRows(sides: SidesMeasurement | null | undefined): [string, string, string][] {
+export function sideNumberRows(sides: SidesMeasurement | null | undefined): NumberRow[] {
   if (!sides) return [];
   const side = (f: ExponentialFit | null): string => (f === null ? 'fit failed'
     : `${fmt(f.lambdaUm)} ± ${fmt(f.lambdaSeUm, 2)} µm (${fmt(f.lambdaCiLowUm)} – ${fmt(f.lambdaCiHighUm)})`);
   const d = sides.difference;
   const inUm = d !== null && Number.isFinite(d.lambdaUm);
   return [
-    ['λ dorsal', side(sides.dorsalFit), 'lambda-dorsal'],
-    ['λ ventral', side(sides.ventralFit), 'lambda-ventral'],
+    ['λ dorsal', side(sides.dorsalFit), 'lambda-dorsal', sides.dorsalFit === null ? undefined : intervalSourceText(sides.dorsalFit), sides.dorsalFit ?? undefined],
+    ['λ ventral', side(sides.ventralFit), 'lambda-ventral', sides.ventralFit === null ? undefined : intervalSourceText(sides.ventralFit), sides.ventralFit ?? undefined],
     ['dorsal − ventral', d === null ? '—' : inUm
       ? `${fmt(d.lambdaUm)} ± ${fmt(d.seUm, 2)} µm (95% CI ${fmt(d.ciLowUm)} – ${fmt(d.ciHighUm)})`
       : `${fixed(d.lambdaEl, 4)} ± ${fixed(d.seEl, 4)} EL (95% CI ${fixed(d.ciLowEl, 4)} – ${fixed(d.ciHighEl, 4)})`, 'lambda-difference'],
@@ -88,10 +111,10 @@ function FileNote({ file }: { file: ShownFile }) {
 /** Table of fit results for the shown embryo. */
 export function FitNumbers({ m, pixelSizeUm, loading, axisSource, file, timePointWarning = null, settingsFitRangeEl = null, dorsal = null }: FitNumbersProps) {
   const f = m?.fit ?? null;
-  const rows: [string, string, string?][] = [
+  const rows: NumberRow[] = [
     ['λ', f === null ? '—' : `${fmt(f.lambdaUm)} ± ${fmt(f.lambdaSeUm, 2)} µm`, 'lambda-um'],
     ['λ / EL', f === null ? '—' : `${fixed(f.lambdaEl, 4)} ± ${fixed(f.lambdaSeEl, 4)}`, 'lambda-el'],
-    ['95% CI', f === null ? '—' : `${fmt(f.lambdaCiLowUm)} – ${fmt(f.lambdaCiHighUm)} µm`],
+    ['95% CI', f === null ? '—' : `${fmt(f.lambdaCiLowUm)} – ${fmt(f.lambdaCiHighUm)} µm`, 'lambda-ci', f === null ? undefined : intervalSourceText(f), f ?? undefined],
     ['R²', f === null ? '—' : fixed(f.r2, 4), 'r2'],
     ['A', f === null ? '—' : `${fmt(f.amplitude)} ± ${fmt(f.amplitudeSe, 2)}`],
     ['B', f === null ? '—' : `${fmt(f.background)} ± ${fmt(f.backgroundSe, 2)}`],
@@ -106,7 +129,16 @@ export function FitNumbers({ m, pixelSizeUm, loading, axisSource, file, timePoin
       {file !== null && <FileNote file={file} />}
       {file !== null && dorsal !== null && <DorsalSideControl {...dorsal} />}
       <table><tbody>
-        {rows.map(([k, v, id]) => <tr key={k}><th>{k}</th><td data-testid={id} data-value={id === 'lambda-el' ? f?.lambdaEl : undefined}>{v}</td></tr>)}
+        {rows.map(([k, v, id, note, nf]) => [
+          <tr key={k}><th>{k}</th><td data-testid={id} data-value={id === 'lambda-el' ? f?.lambdaEl : undefined}>{v}</td></tr>,
+          note !== undefined && (
+            <tr key={`${k}-source`} className="interval-source-row"><td colSpan={2}>
+              <div className="muted small interval-source" data-testid={id === undefined ? undefined : `${id}-source`} title={INTERVAL_SOURCE_TIP}
+                data-se-source={nf?.lambdaSeSource} data-se-model-um={nf?.lambdaSeModelUm} data-se-serial-um={nf?.lambdaSeSerialUm}
+                data-lag1={nf?.residualLag1} data-depth-term-el={nf?.depthTermEl}>{note}</div>
+            </td></tr>
+          ),
+        ])}
         {m?.boundaries.map((b, i) => <tr key={`b${i}`}><th>{b.channel} {b.method}</th><td>{b.positionEl === null ? (b.note ?? '—') : `${fixed(b.positionEl, 3)} EL · ${fmt(b.positionUm)} µm · ${b.direction}`}</td></tr>)}
       </tbody></table>
       {m !== null && (m.warnings.length > 0 || (f !== null && f.lambdaEl < 0) || timePointWarning !== null) && (

@@ -1,15 +1,15 @@
 // `eggline cohort --covariate` (and the project's cohort.covariates) on demo-like results with a stage and a batch
 // column: outputs, precedence, one-line errors, and no trace when no covariate is asked for.
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { resultsToJson } from '../../core/batch';
-import { parseCsv } from '../../core/csv';
 import { makeDemoCohort } from '../../core/cohort';
 import { withinGroupFit } from '../../core/stats';
 import type { EmbryoResult } from '../../core/model';
 import { cohortCommand } from '../../app/cli/cohort-command';
+import { capturedIo, csvRowsOf } from './command-io';
 
 // Source: demo data (invented). Four dosages, six embryos each, λ = 0.2 EL; stage (minutes) is later at higher
 // dosage and moves every position by +0.003 EL per minute; batch B2 adds +0.01 EL. The unadjusted slope is therefore
@@ -34,24 +34,15 @@ const lines = demo.sheetCsv.trim().split('\n');
 const sheet = join(dir, 'samples.csv');
 writeFileSync(sheet, [`${lines[0]},stage,batch,session,note`, ...lines.slice(1).map((l, i) => `${l},${stageOf(i)},${batchOf(i)},s${Math.floor(i / 6)},${i === 4 ? 'late' : String(i)}`)].join('\n') + '\n');
 
-function buffers() {
-  const out: string[] = [];
-  const err: string[] = [];
-  return { io: { stdout: { write: (t: string) => out.push(t) }, stderr: { write: (t: string) => err.push(t) } }, out, err };
-}
-const rowsOf = (path: string): Record<string, string>[] => {
-  const [header, ...rows] = parseCsv(readFileSync(path, 'utf8'));
-  return rows.map((r) => Object.fromEntries(header.map((h, i) => [h, r[i]])));
-};
 const LOGISTIC = 'boundary:target:logistic';
 
 describe('eggline cohort --covariate', () => {
   it('adds the adjusted row and covariates.csv; coefficients are the dummy-variable fit on the embryos\' positions', async () => {
     const out = join(dir, 'both');
-    const b = buffers();
+    const b = capturedIo();
     expect(await cohortCommand([run, '--samples', sheet, '--covariate', 'stage:numeric', '--covariate', 'batch', '--out', out], b.io)).toBe(0);
     expect(b.err.join('')).toBe('');
-    const fits = rowsOf(join(out, 'dosage_fit.csv')).filter((r) => r.quantity === LOGISTIC);
+    const fits = csvRowsOf(join(out, 'dosage_fit.csv')).filter((r) => r.quantity === LOGISTIC);
     const raw = fits.find((r) => r.method === 'condition-means')!;
     const adj = fits.find((r) => r.method === 'covariate-adjusted:stage+batch')!;
     expect(adj.n).toBe('24');
@@ -60,7 +51,7 @@ describe('eggline cohort --covariate', () => {
     expect(Math.abs(Number(adj.slope_el) - 0.2)).toBeLessThan(Math.abs(Number(raw.slope_el) - 0.2));
     expect(Number(adj.ci_low)).toBeLessThan(0.2);
     expect(Number(adj.ci_high)).toBeGreaterThan(0.2);
-    const cov = rowsOf(join(out, 'covariates.csv')).filter((r) => r.quantity === LOGISTIC);
+    const cov = csvRowsOf(join(out, 'covariates.csv')).filter((r) => r.quantity === LOGISTIC);
     expect(cov.map((r) => [r.term, r.kind, r.base_level])).toEqual([['stage', 'numeric', ''], ['batch=B2', 'categorical', 'B1']]);
     // Independent of the cohort code path: the positions straight from the results, one dummy per condition.
     const pos = results.map((r) => r.boundaries.find((x) => x.method === 'logistic')!.positionEl as number);
@@ -74,11 +65,11 @@ describe('eggline cohort --covariate', () => {
     const project = join(dir, 'p.eggline.json');
     writeFileSync(project, JSON.stringify({ schema: 'eggline-project', version: 2, folder: '.', settings: {}, files: {}, cohort: { covariates: ['stage'] } }));
     const fromProject = join(dir, 'project');
-    expect(await cohortCommand([run, '--samples', sheet, '--project', project, '--out', fromProject], buffers().io)).toBe(0);
-    expect([...new Set(rowsOf(join(fromProject, 'covariates.csv')).map((r) => r.term))]).toEqual(['stage']);
+    expect(await cohortCommand([run, '--samples', sheet, '--project', project, '--out', fromProject], capturedIo().io)).toBe(0);
+    expect([...new Set(csvRowsOf(join(fromProject, 'covariates.csv')).map((r) => r.term))]).toEqual(['stage']);
     const over = join(dir, 'over');
-    expect(await cohortCommand([run, '--samples', sheet, '--project', project, '--covariate', 'batch', '--out', over], buffers().io)).toBe(0);
-    expect([...new Set(rowsOf(join(over, 'covariates.csv')).map((r) => r.term))]).toEqual(['batch=B2']);
+    expect(await cohortCommand([run, '--samples', sheet, '--project', project, '--covariate', 'batch', '--out', over], capturedIo().io)).toBe(0);
+    expect([...new Set(csvRowsOf(join(over, 'covariates.csv')).map((r) => r.term))]).toEqual(['batch=B2']);
   });
 
   it.each([
@@ -86,21 +77,21 @@ describe('eggline cohort --covariate', () => {
     [['--covariate', 'session'], 'eggline cohort: samples.csv: covariate "session" is constant within every condition, so its effect cannot be told apart from the dosage\'s; leave it out'],
     [['--covariate', 'note:numeric'], 'eggline cohort: samples.csv line 6: covariate "note" is declared numeric but "late" (dosage-0.5x/embryo_05.ome.tif) is not a number'],
   ])('bad input %j: one line, exit 1', async (args, message) => {
-    const b = buffers();
+    const b = capturedIo();
     expect(await cohortCommand([run, '--samples', sheet, ...args, '--out', join(dir, 'bad')], b.io)).toBe(1);
     expect(b.err.join('')).toBe(`${message}\n`);
   });
 
   it('an empty --covariate is a usage error (exit 2)', async () => {
-    const b = buffers();
+    const b = capturedIo();
     expect(await cohortCommand([run, '--samples', sheet, '--covariate', ':numeric'], b.io)).toBe(2);
     expect(b.err.join('')).toContain('--covariate needs a column of the sample sheet');
   });
 
   it('without covariates: no adjusted row, and an earlier run\'s covariates.csv is removed', async () => {
     const out = join(dir, 'both');
-    expect(await cohortCommand([run, '--samples', sheet, '--out', out], buffers().io)).toBe(0);
+    expect(await cohortCommand([run, '--samples', sheet, '--out', out], capturedIo().io)).toBe(0);
     expect(existsSync(join(out, 'covariates.csv'))).toBe(false);
-    expect(rowsOf(join(out, 'dosage_fit.csv')).some((r) => r.method.startsWith('covariate-adjusted'))).toBe(false);
+    expect(csvRowsOf(join(out, 'dosage_fit.csv')).some((r) => r.method.startsWith('covariate-adjusted'))).toBe(false);
   });
 });
