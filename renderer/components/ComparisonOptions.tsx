@@ -10,7 +10,7 @@ import { COHORT_NORMALISATIONS, equivalenceMarginProblem, lambdaPosteriorElProbl
 /** What the window says for each normalisation (the first is the default). */
 const NORMALISATION_LABELS: Record<Normalisation, string> = {
   'scale-offset': 'scale and offset fitted onto the mean (default)',
-  none: 'none (raw intensities)',
+  none: 'raw intensities, not rescaled',
   amplitude: 'divided by the fitted amplitude A',
   minmax: 'min–max scaled to [0, 1]',
 };
