@@ -104,4 +104,17 @@ describe('analyseMovie (demo data: a small synthetic movie)', () => {
     });
     await expect(run).rejects.toThrow(/^m\.ome\.tif: analysis over time cancelled$/);
   });
+
+  it('lets a cancel from outside through while every read finishes at once (the event loop gets a turn now and then)', async () => {
+    // A plane source that answers at once but takes 30 ms of work per plane, as reads and inflates done on this thread do.
+    const source = syntheticMoviePlaneSource(movie);
+    const busy: typeof source = {
+      ...source,
+      readPlane: (z, c, t, into) => { const end = Date.now() + 30; while (Date.now() < end) { /* work */ } return source.readPlane(z, c, t, into); },
+    };
+    const signal = { aborted: false };
+    setTimeout(() => { signal.aborted = true; }, 0);
+    const run = analyseMovie(info, busy, DEFAULT_SETTINGS, { fileLabel: 'm.ome.tif', timeIndices: Array.from({ length: info.sizeT }, (_, t) => t), signal });
+    await expect(run).rejects.toThrow(/^m\.ome\.tif: analysis over time cancelled$/);
+  });
 });

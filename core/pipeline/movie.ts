@@ -34,6 +34,9 @@ export interface MovieOptions {
   readonly corrections?: ImageCorrections | null;
 }
 
+/** How long a movie's time points may run without giving the event loop a turn when the run can be cancelled. */
+const YIELD_EVERY_MS = 25;
+
 /** The error a cancelled movie analysis rejects with. */
 function cancelled(fileLabel: string): Error {
   return Object.assign(new Error(`${fileLabel}: analysis over time cancelled`), { name: 'AbortError' });
@@ -112,6 +115,7 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
   let detection: EmbryoDetection | null = null;
   let kept = new Map<number, ProjectedStack>();
   if (options.signal?.aborted) throw cancelled(fileLabel);
+  let lastYieldMs = Date.now();
   if (!options.axisPerTime) {
     try {
       const sampled = await projectSampled(info, source, settings, axisSampleTimes(info.sizeT, options.axisSampleCount ?? 8), new Set(timeIndices), options.corrections ?? null);
@@ -139,6 +143,12 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
   const reading = prefetchingSource(source, info, timeIndices.filter((_, k) => keptFor[k] === undefined));
   try {
     for (let k = 0; k < timeIndices.length; k++) {
+      // Reads and inflates may all finish synchronously, so give the event loop a turn now and then: a cancel (or a
+      // progress message) from the caller must get through while the movie runs.
+      if (options.signal && Date.now() - lastYieldMs >= YIELD_EVERY_MS) {
+        await new Promise<void>((resolve) => setTimeout(resolve, 0));
+        lastYieldMs = Date.now();
+      }
       if (options.signal?.aborted) throw cancelled(fileLabel);
       const at = edits[k];
       const onProjected = options.onProjected ? (p: ProjectedStack) => options.onProjected!(k, p, timeIndices.length) : undefined;
