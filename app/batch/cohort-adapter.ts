@@ -28,10 +28,34 @@ export interface CohortStepOptions {
   readonly movieFailures?: readonly MovieFailure[];
 }
 
+/** The cohort step as a batch or a merge is asked to run it (--samples and the comparison options). */
+export interface CohortRequest {
+  readonly sampleSheetPath: string; readonly reference: string | null; readonly backgroundCondition?: string | null;
+  /** Who gave backgroundCondition (the record says it); absent: --background-condition. */
+  readonly backgroundConditionNamedBy?: string;
+  /** The cohort step's other options (see runCohortStep); absent: its defaults. */
+  readonly normalisation?: Normalisation; readonly lambdaPosteriorEl?: number | null; readonly equivalenceMargin?: number | null;
+  /** Sample-sheet columns adjusting the dosage regression (see runCohortStep); absent: none. */
+  readonly covariates?: readonly string[];
+}
+
+/** What a batch or a merge hands the cohort step besides the request: its results and where to write. */
+type CohortInputs = Pick<CohortStepOptions, 'results' | 'failures' | 'outDir' | 'runRecord' | 'movies' | 'movieFailures'>;
+
 /** The step's outputs and analysis, or `error` (one line) with no analysis when it failed. */
 export type CohortOutcome =
   | (CohortStepResult & { readonly error: null })
   | { readonly written: string[]; readonly warnings: string[]; readonly analysis: null; readonly figures: null; readonly error: string };
+
+/** Run the cohort step a batch or a merge was asked for, on its results; never rejects. */
+export function runRequestedCohort(request: CohortRequest, inputs: CohortInputs): Promise<CohortOutcome> {
+  return runCohort({
+    ...inputs, sampleSheetPath: request.sampleSheetPath, reference: request.reference, backgroundCondition: request.backgroundCondition ?? null,
+    ...(request.backgroundConditionNamedBy !== undefined ? { backgroundConditionNamedBy: request.backgroundConditionNamedBy } : {}),
+    normalisation: request.normalisation, lambdaPosteriorEl: request.lambdaPosteriorEl ?? null, equivalenceMargin: request.equivalenceMargin ?? null,
+    ...(request.covariates !== undefined && request.covariates.length > 0 ? { covariates: request.covariates } : {}),
+  });
+}
 
 /** Run the cohort step once; never rejects. */
 export async function runCohort(opts: CohortStepOptions): Promise<CohortOutcome> {

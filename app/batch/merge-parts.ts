@@ -6,8 +6,7 @@ import { join } from 'node:path';
 import { embryoResults, resultsDocFromJson, type ResultsDoc, type RunRecord } from '../../core/batch';
 import type { EmbryoResult, MovieRecord } from '../../core/model';
 import { checkParts, isUnfinished, mergeRunRecords, orderLikeOneRun, type PartEntry } from '../../core/shard';
-import { runCohort } from './cohort-adapter';
-import type { Normalisation } from '../../core/cohort';
+import { runRequestedCohort, type CohortRequest } from './cohort-adapter';
 import { filesOfMissingParts } from './shard';
 import { movieOutcomes, writeTimelapseOutputs, type MovieFailure, type MovieOutcome } from './timelapse-pass';
 import { writeBatchOutputs } from './write-outputs';
@@ -24,15 +23,7 @@ export interface MergePartsOptions {
   /** Merge the parts that are there; list the files of missing parts in run.json. */
   readonly allowMissing: boolean;
   readonly commandLine?: readonly string[];
-  readonly cohort?: {
-    readonly sampleSheetPath: string; readonly reference: string | null; readonly backgroundCondition?: string | null;
-    /** Who gave backgroundCondition (the record says it); absent: --background-condition. */
-    readonly backgroundConditionNamedBy?: string;
-    /** The cohort step's other options (see runCohortStep); absent: its defaults. */
-    readonly normalisation?: Normalisation; readonly lambdaPosteriorEl?: number | null; readonly equivalenceMargin?: number | null;
-    /** Sample-sheet columns adjusting the dosage regression (see runCohortStep); absent: none. */
-    readonly covariates?: readonly string[];
-  } | null;
+  readonly cohort?: CohortRequest | null;
 }
 
 /** What a merge wrote. */
@@ -157,12 +148,8 @@ export async function mergeParts(opts: MergePartsOptions): Promise<MergePartsRes
   let cohortError: string | null = null;
   if (opts.cohort) {
     const failures = results.filter((r) => r.status === 'error').map((r) => ({ file: r.file, error: r.error ?? 'error' }));
-    const step = await runCohort({
-      results: embryoResults(results), failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, backgroundCondition: opts.cohort.backgroundCondition ?? null,
-      ...(opts.cohort.backgroundConditionNamedBy !== undefined ? { backgroundConditionNamedBy: opts.cohort.backgroundConditionNamedBy } : {}), outDir: opts.outDir, runRecord: record,
-      normalisation: opts.cohort.normalisation, lambdaPosteriorEl: opts.cohort.lambdaPosteriorEl ?? null, equivalenceMargin: opts.cohort.equivalenceMargin ?? null,
-      ...(opts.cohort.covariates !== undefined && opts.cohort.covariates.length > 0 ? { covariates: opts.cohort.covariates } : {}),
-      movies: timelapse.movies, movieFailures: timelapse.failures,
+    const step = await runRequestedCohort(opts.cohort, {
+      results: embryoResults(results), failures, outDir: opts.outDir, runRecord: record, movies: timelapse.movies, movieFailures: timelapse.failures,
     });
     written.push(...step.written);
     warnings.push(...step.warnings);

@@ -11,7 +11,8 @@ import {
 } from '../../core/batch';
 import type { BatchProgress, BatchSummary, ProjectDoc } from '../../core/contract';
 import { errorResult, type EmbryoResult, type MovieRecord } from '../../core/model';
-import type { CohortAnalysis, Normalisation } from '../../core/cohort';
+import type { CohortAnalysis } from '../../core/cohort';
+import type { CohortRequest } from './cohort-adapter';
 import type { NamedFigure } from '../../core/figures';
 import { settingsInForce, type AnalysisSettings } from '../../core/settings';
 import type { ShardSpec } from '../../core/shard';
@@ -59,15 +60,7 @@ export interface RunBatchOptions {
   /** Reuse the results the journal in outDir holds for files whose bytes and settings are unchanged. */
   readonly resume?: boolean;
   /** Run the cohort step afterwards with this sample sheet. */
-  readonly cohort?: {
-    readonly sampleSheetPath: string; readonly reference: string | null; readonly backgroundCondition?: string | null;
-    /** Who gave backgroundCondition (the record says it); absent: --background-condition. */
-    readonly backgroundConditionNamedBy?: string;
-    /** The cohort step's other options (see runCohortStep); absent: its defaults. */
-    readonly normalisation?: Normalisation; readonly lambdaPosteriorEl?: number | null; readonly equivalenceMargin?: number | null;
-    /** Sample-sheet columns adjusting the dosage regression (see runCohortStep); absent: none. */
-    readonly covariates?: readonly string[];
-  } | null;
+  readonly cohort?: CohortRequest | null;
   /** Analyse only this part of the sorted, size-balanced file list, writing to `<outDir>/parts/K-of-N`. */
   readonly shard?: ShardSpec | null;
   /** Analyse every file with more than one time point per time point after the main pass (absent or null: not). */
@@ -385,13 +378,9 @@ async function runListed(opts: RunBatchOptions, listed: ListedRun): Promise<Batc
   let cohortStep: BatchRunResult['cohortStep'] = null;
   if (opts.cohort && complete) {
     const failures = finished.filter((r) => r.status === 'error').map((r) => ({ file: r.file, error: r.error ?? 'error' }));
-    const { runCohort } = await import('./cohort-adapter');
-    const step = await runCohort({
-      results: embryoResults(keyed), failures, sampleSheetPath: opts.cohort.sampleSheetPath, reference: opts.cohort.reference, backgroundCondition: opts.cohort.backgroundCondition ?? null,
-      ...(opts.cohort.backgroundConditionNamedBy !== undefined ? { backgroundConditionNamedBy: opts.cohort.backgroundConditionNamedBy } : {}), outDir, runRecord: final,
-      normalisation: opts.cohort.normalisation, lambdaPosteriorEl: opts.cohort.lambdaPosteriorEl ?? null, equivalenceMargin: opts.cohort.equivalenceMargin ?? null,
-      ...(opts.cohort.covariates !== undefined && opts.cohort.covariates.length > 0 ? { covariates: opts.cohort.covariates } : {}),
-      movies: timelapse.movies, movieFailures: timelapse.failures,
+    const { runRequestedCohort } = await import('./cohort-adapter');
+    const step = await runRequestedCohort(opts.cohort, {
+      results: embryoResults(keyed), failures, outDir, runRecord: final, movies: timelapse.movies, movieFailures: timelapse.failures,
     });
     written.push(...step.written);
     warnings.push(...step.warnings);
