@@ -1,5 +1,5 @@
 // Decoders that need node built-ins, for the direct decode path: Deflate and Adobe Deflate through node:zlib.
-import { constants, createInflate, inflate, inflateSync, type Inflate } from 'node:zlib';
+import { constants, createInflate, inflateSync, type Inflate } from 'node:zlib';
 import { PURE_CHUNK_CODECS, type ChunkCodecs } from '../tiff';
 
 /**
@@ -22,24 +22,6 @@ export function inflateChunk(input: Uint8Array, out: Uint8Array): number {
 function zlibReason(err: unknown, outBytes: number): Error {
   if ((err as { code?: string }).code === 'ERR_BUFFER_TOO_LARGE') return new Error(`the stream holds more than the chunk's ${outBytes} bytes`);
   return new Error((err instanceof Error ? err.message : String(err)).split(/\r?\n/)[0]);
-}
-
-/**
- * inflateChunk on libuv's thread pool (not used by the decode path, see inflateChunkAuto; kept for callers that
- * must not block the JS thread): the strips of a plane inflate in parallel while the JS thread goes on (with
- * read-ahead, adding the previous plane to the projection). Same limits and results as inflateChunk. The stream's
- * output chunk is the whole strip (chunkSize), not node's 16 KiB default: one output buffer per strip instead of
- * several joined afterwards, which cut the CPU time of reading a Deflate movie's time point by about a quarter
- * (two 2 MiB planes in 64 KiB strips; measured alternately, 12 against 16–20 ms under load).
- */
-export function inflateChunkAsync(input: Uint8Array, out: Uint8Array): Promise<number> {
-  return new Promise((resolve, reject) => {
-    inflate(input, { maxOutputLength: out.length, finishFlush: constants.Z_SYNC_FLUSH, chunkSize: Math.max(64, out.length) }, (err, result) => {
-      if (err) { reject(zlibReason(err, out.length)); return; }
-      out.set(result);
-      resolve(result.length);
-    });
-  });
 }
 
 /** The part of a node:zlib stream that inflateSync itself drives (node's lib/zlib.js, processChunkSync): the native
@@ -102,7 +84,7 @@ function streamFailure(z: ReusedInflate): Error | null {
 
 /**
  * The Deflate decoder of the direct decode path: every chunk, small or large, through the one reused stream on the
- * JS thread, straight into the plane. Why: large strips used to go to the thread pool (inflateChunkAsync), whose
+ * JS thread, straight into the plane. Why: large strips used to go to libuv's thread pool (node:zlib's inflate), whose
  * result buffers, allocated outside V8's heap, raised the process's memory while a Deflate stack was read; inflated
  * in place they cost no buffer at all. Two Deflate 1024² × 2 × 24 stacks in one process, alternated three times
  * each way (`npm run bench`'s child runs): decoding took 590–630 ms of CPU time against 920–1070 ms on the thread
