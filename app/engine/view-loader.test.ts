@@ -4,11 +4,13 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
+import type { PlaneSource } from '../../core/model';
+import { axisSampleTimes } from '../../core/pipeline';
 import { DEFAULT_SETTINGS } from '../../core/settings';
-import { DEMO_MOVIE_PARAMS } from '../../core/synth';
+import { DEMO_MOVIE_PARAMS, planSyntheticMovie, syntheticMovieInfo, syntheticMoviePlaneSource } from '../../core/synth';
 import { analyseMovieFile } from '../batch/timelapse-pass';
 import { demoMovieFile, demoMoviePlainPages } from '../batch/write-demo';
-import { createViewLoader } from './view-loader';
+import { createViewLoader, embryoOverTime } from './view-loader';
 
 const dir = mkdtempSync(join(tmpdir(), 'eggline-view-loader-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -43,6 +45,49 @@ describe('the Embryo view\'s stack at a time point of a movie', () => {
     const load = createViewLoader();
     await expect(load(path, file, settings, { timeStepS: null, axisPerTime: false }, { aborted: true }))
       .rejects.toThrow('short.ome.tif: loading cancelled (another view was asked for)');
+  });
+});
+
+describe('a stale load of a movie\'s embryo over time', () => {
+  // Demo data: a small synthetic movie of 10 frames read from memory (every plane answers at once). Time point 4 is
+  // not among the 8 the embryo is found on, so its planes are read only when that time point itself is analysed.
+  const movie = planSyntheticMovie({
+    embryo: { widthPx: 160, heightPx: 100, pixelSizeUm: 4, sizeZ: 1 }, degradationPerS: 1 / 600, frameIntervalS: 300, frames: 10, framesBeforeOnset: 1,
+  }, 3);
+  const info = syntheticMovieInfo(movie);
+  /** The movie's planes, counting the reads of time point 4 and aborting `signal` at the `abortAtRead`-th read. */
+  const counted = (signal: { aborted: boolean }, abortAtRead: number | null): { source: PlaneSource; readsOfT4: () => number } => {
+    const inner = syntheticMoviePlaneSource(movie);
+    let reads = 0;
+    let readsOfT4 = 0;
+    const source: PlaneSource = {
+      readPlane: (z, c, t, into) => {
+        reads += 1;
+        if (t === 4) readsOfT4 += 1;
+        if (reads === abortAtRead) signal.aborted = true;
+        return inner.readPlane(z, c, t, into);
+      },
+      close: () => inner.close(),
+    };
+    return { source, readsOfT4: () => readsOfT4 };
+  };
+
+  it('stops before the shown time point is analysed once aborted mid-run, and rejects with the view\'s cancel error', async () => {
+    expect(axisSampleTimes(10, 8)).not.toContain(4);
+    const settings4 = { ...DEFAULT_SETTINGS, timeIndex: 4 };
+    // Not aborted: the embryo is found and time point 4's planes are read for its projection.
+    const calm = counted({ aborted: false }, null);
+    const found = await embryoOverTime(info, calm.source, settings4, 'm.ome.tif', null, { aborted: false });
+    expect(found.found).toBe(true);
+    expect(calm.readsOfT4()).toBe(info.sizeZ * info.sizeC);
+    // Aborted at the third plane read while the embryo is being found: time point 4 is never read, and the load
+    // rejects with the view's own message, not the movie analysis's.
+    const signal = { aborted: false };
+    const stale = counted(signal, 3);
+    await expect(embryoOverTime(info, stale.source, settings4, 'm.ome.tif', null, signal))
+      .rejects.toThrow(/^m\.ome\.tif: loading cancelled \(another view was asked for\)$/);
+    expect(signal.aborted).toBe(true);
+    expect(stale.readsOfT4()).toBe(0);
   });
 });
 

@@ -75,9 +75,10 @@ async function embryoKey(path: string, settings: AnalysisSettings, timeStepS: nu
 /**
  * The movie's embryo found by the batch's own movie analysis (on the mean projection of time points sampled over the
  * movie), with the projection of the shown time point it made on the way; a placeholder with the reason when no
- * embryo is found over time.
+ * embryo is found over time. Once `signal` is aborted it stops at the movie analysis's next check and rejects with
+ * viewCancelled (never with the movie analysis's own cancel error).
  */
-async function embryoOverTime(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, label: string, corrections: ImageCorrections | null,
+export async function embryoOverTime(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, label: string, corrections: ImageCorrections | null,
   signal: Signal): Promise<{ detection: Detection; projected: ProjectedStack | null; found: boolean }> {
   let detection: Detection | null = null;
   let projected: ProjectedStack | null = null;
@@ -86,7 +87,8 @@ async function embryoOverTime(info: StackInfo, source: PlaneSource, settings: An
     onDetection: (d) => { detection = plainDetection(d); },
     // The projection lives only during this call (its arrays are reused): keep a copy of its channels.
     onProjected: (_k, p) => { projected = withoutRawPlanes({ ...p, channels: p.channels.map((c) => ({ ...c, data: Float32Array.from(c.data) })) }); },
-  });
+    signal,
+  }).catch((e: unknown) => { throw signal?.aborted ? viewCancelled(label) : e; });
   if (signal?.aborted) throw viewCancelled(label);
   if (detection !== null) return { detection, projected, found: true };
   const own = projected ?? await projectTimePoint(info, source, settings, corrections);

@@ -5,7 +5,7 @@
 // the errors, so the lag-1 correlation is matched in expectation through the residual maker M = I − J̃BJ̃ᵀ rather
 // than taken at face value). Newey–West (1987) with Bartlett weights and ⌊4(n/100)^(2/9)⌋ lags was tried first
 // and covered only ~82% at ρ = 0.5 over 50 bins (nominal 95%): too few points for a model-free estimate.
-// The work is n × n for n ≤ a few hundred points.
+// The work is n²·m for n points and m parameters (n × n matrices are never multiplied together).
 import { inverseNormalMatrix } from './covariance';
 
 /** The serial-correlation covariance of the parameters and what it rests on. */
@@ -18,14 +18,35 @@ export interface SerialCovariance {
   readonly rho: number;
 }
 
-/** Residual maker M = I − J̃(J̃ᵀJ̃)⁻¹J̃ᵀ (n × n, row-major) from the bread. */
+/** P = J̃·B (n × m, row-major): the hat matrix is H = J̃(J̃ᵀJ̃)⁻¹J̃ᵀ = P·J̃ᵀ, of rank m. */
+function timesBread(j: Float64Array, bread: number[][], n: number, m: number): Float64Array {
+  const p = new Float64Array(n * m);
+  for (let a = 0; a < n; a++) {
+    for (let l = 0; l < m; l++) {
+      let s = 0;
+      for (let k = 0; k < m; k++) s += j[a * m + k] * bread[k][l];
+      p[a * m + l] = s;
+    }
+  }
+  return p;
+}
+
+/** Σ_l x[a·m + l]·y[b·m + l]: row a of x times row b of y (both n × m, row-major). */
+function rowDot(x: Float64Array, a: number, y: Float64Array, b: number, m: number): number {
+  let s = 0;
+  for (let l = 0, i = a * m, k = b * m; l < m; l++, i++, k++) s += x[i] * y[k];
+  return s;
+}
+
+/** Residual maker M = I − J̃(J̃ᵀJ̃)⁻¹J̃ᵀ (n × m·n work through P = J̃B; symmetric by construction). */
 export function residualMaker(j: Float64Array, bread: number[][], n: number, m: number): Float64Array {
+  const p = timesBread(j, bread, n, m);
   const out = new Float64Array(n * n);
   for (let a = 0; a < n; a++) {
-    for (let b = 0; b < n; b++) {
-      let h = 0;
-      for (let k = 0; k < m; k++) for (let l = 0; l < m; l++) h += j[a * m + k] * bread[k][l] * j[b * m + l];
-      out[a * n + b] = (a === b ? 1 : 0) - h;
+    for (let b = a; b < n; b++) {
+      const v = (a === b ? 1 : 0) - rowDot(p, a, j, b, m);
+      out[a * n + b] = v;
+      out[b * n + a] = v;
     }
   }
   return out;
@@ -52,35 +73,27 @@ export function traceWithAr1(x: Float64Array, n: number, rho: number): number {
   return s;
 }
 
-/**
- * traceWithAr1(x, n, ρ) / traceWithAr1(y, n, ρ) in one pass over both matrices, with the powers of ρ made once
- * (each the same product ρ·ρ·… that traceWithAr1 forms, summed in the same order: the same number bit for bit).
- * `powers` (n values) is working space.
- */
-function traceRatioWithAr1(x: Float64Array, y: Float64Array, n: number, rho: number, powers: Float64Array): number {
-  let p = 1;
-  for (let l = 1; l < n; l++) { p *= rho; powers[l] = p; }
-  let sx = 0, sy = 0;
-  for (let a = 0; a < n; a++) {
-    const row = a * n;
-    sx += x[row + a];
-    sy += y[row + a];
-    for (let b = a + 1; b < n; b++) {
-      const pw = powers[b - a];
-      sx += 2 * x[row + b] * pw;
-      sy += 2 * y[row + b] * pw;
-    }
-  }
-  return sx / sy;
+/** d[l] = Σ_a X_{a,a+l} for l = 0 … n − 1: the sums along the diagonals of an n × n matrix (upper triangle). */
+export function diagonalSums(x: Float64Array, n: number): Float64Array {
+  const d = new Float64Array(n);
+  for (let a = 0; a < n; a++) for (let b = a, row = a * n; b < n; b++) d[b - a] += x[row + b];
+  return d;
+}
+
+/** Σ_ab X_ab·ρ^|a−b| of a symmetric matrix from its diagonal sums d (diagonalSums): d₀ + 2·Σ_l d_l·ρ^l, by Horner. */
+export function ar1Weighted(d: Float64Array, rho: number): number {
+  let s = 0;
+  for (let l = d.length - 1; l >= 1; l--) s = s * rho + d[l];
+  return d[0] + 2 * rho * s;
 }
 
 /**
- * ρ such that E[Σu_i·u_{i+1}] / E[Σu_i²] of the residuals under AR(1) errors equals the measured lag-1 value
- * (a ratio-of-expectations match, solved by bisection on [−0.95, 0.95]; the ratio rises with ρ).
+ * ρ such that E[Σu_i·u_{i+1}] / E[Σu_i²] of the residuals under AR(1) errors equals the measured lag-1 value, from
+ * the diagonal sums of M·A·M and M (a ratio-of-expectations match, solved by bisection on [−0.95, 0.95]; the ratio
+ * rises with ρ). Each step costs n, not n².
  */
-export function matchedRho(mm: Float64Array, mam: Float64Array, n: number, measured: number): number {
-  const powers = new Float64Array(n);
-  const ratio = (rho: number): number => traceRatioWithAr1(mam, mm, n, rho, powers);
+export function matchedRhoFromSums(mamSums: Float64Array, mmSums: Float64Array, measured: number): number {
+  const ratio = (rho: number): number => ar1Weighted(mamSums, rho) / ar1Weighted(mmSums, rho);
   let lo = -0.95, hi = 0.95;
   if (measured <= ratio(lo)) return lo;
   if (measured >= ratio(hi)) return hi;
@@ -89,6 +102,11 @@ export function matchedRho(mm: Float64Array, mam: Float64Array, n: number, measu
     if (ratio(mid) < measured) lo = mid; else hi = mid;
   }
   return (lo + hi) / 2;
+}
+
+/** matchedRhoFromSums for the matrices M (mm) and M·A·M (mam) themselves. */
+export function matchedRho(mm: Float64Array, mam: Float64Array, n: number, measured: number): number {
+  return matchedRhoFromSums(diagonalSums(mam, n), diagonalSums(mm, n), measured);
 }
 
 /** M·A·M for a symmetric M, with A the lag-1 matrix (½ on the first off-diagonals): Σu_i·u_{i+1} = uᵀAu. */
@@ -113,37 +131,92 @@ export function lagProductOfM(m: Float64Array, n: number): Float64Array {
   return out;
 }
 
-/** B·(J̃ᵀ·S·J̃)·B where S_ab = k(a, b). */
+/** B·X·B for m × m matrices (B symmetric). */
+function breadAround(bread: number[][], x: number[][]): number[][] {
+  const bm = bread.map((row) => x[0].map((_, c) => row.reduce((s, v, r) => s + v * x[r][c], 0)));
+  return bm.map((row) => bread[0].map((_, c) => row.reduce((s, v, r) => s + v * bread[r][c], 0)));
+}
+
+/** B·(J̃ᵀ·S·J̃)·B where S_ab = k(a, b): S·J̃ first (n²·m), then J̃ᵀ·(S·J̃) (n·m²). */
 export function sandwich(j: Float64Array, bread: number[][], n: number, m: number, k: (a: number, b: number) => number): number[][] {
-  const meat = Array.from({ length: m }, () => new Array<number>(m).fill(0));
+  const sj = new Float64Array(n * m);
   for (let a = 0; a < n; a++) {
     for (let b = 0; b < n; b++) {
       const w = k(a, b);
       if (w === 0) continue;
-      for (let p = 0; p < m; p++) for (let q = 0; q < m; q++) meat[p][q] += j[a * m + p] * w * j[b * m + q];
+      for (let q = 0; q < m; q++) sj[a * m + q] += w * j[b * m + q];
     }
   }
-  const bm = bread.map((row) => meat[0].map((_, c) => row.reduce((s, v, r) => s + v * meat[r][c], 0)));
-  return bm.map((row) => bread[0].map((_, c) => row.reduce((s, v, r) => s + v * bread[r][c], 0)));
+  return breadAround(bread, crossProduct(j, sj, n, m));
+}
+
+/** J̃ᵀ·Y (m × m) for n × m row-major J̃ and Y. */
+function crossProduct(j: Float64Array, y: Float64Array, n: number, m: number): number[][] {
+  const out = Array.from({ length: m }, () => new Array<number>(m).fill(0));
+  for (let a = 0; a < n; a++) for (let p = 0; p < m; p++) for (let q = 0; q < m; q++) out[p][q] += j[a * m + p] * y[a * m + q];
+  return out;
+}
+
+/**
+ * R·J̃ with R_ab = ρ^|a−b| (the AR(1) correlation), in n·m work: the sums over b ≤ a and b ≥ a run as two
+ * recursions F_a = J̃_a + ρ·F_(a−1) and G_a = J̃_a + ρ·G_(a+1), and R·J̃ = F + G − J̃.
+ */
+export function ar1TimesJacobian(j: Float64Array, n: number, m: number, rho: number): Float64Array {
+  const forward = new Float64Array(n * m);
+  const out = new Float64Array(n * m);
+  for (let a = 0; a < n; a++) for (let q = 0; q < m; q++) forward[a * m + q] = j[a * m + q] + (a > 0 ? rho * forward[(a - 1) * m + q] : 0);
+  const backward = new Float64Array(m);
+  for (let a = n - 1; a >= 0; a--) {
+    for (let q = 0; q < m; q++) {
+      backward[q] = j[a * m + q] + (a < n - 1 ? rho * backward[q] : 0);
+      out[a * m + q] = forward[a * m + q] + backward[q] - j[a * m + q];
+    }
+  }
+  return out;
+}
+
+/**
+ * The diagonal sums (diagonalSums) of M and of M·A·M, with M = I − H the residual maker, H = P·J̃ᵀ and A the lag-1
+ * matrix, without forming either: with Ĵ = A·J̃ and C = J̃ᵀĴ, M·A·M = A − P·Ĵᵀ − Ĵ·Pᵀ + P·C·Pᵀ, each entry m or m²
+ * products (n²·m work instead of the n³ of the product itself).
+ */
+function residualDiagonalSums(j: Float64Array, p: Float64Array, n: number, m: number): { mm: Float64Array; mam: Float64Array } {
+  const jHat = new Float64Array(n * m);
+  for (let a = 0; a < n; a++) {
+    for (let q = 0; q < m; q++) jHat[a * m + q] = 0.5 * ((a > 0 ? j[(a - 1) * m + q] : 0) + (a + 1 < n ? j[(a + 1) * m + q] : 0));
+  }
+  // P·C (n × m), C = J̃ᵀĴ.
+  const c = crossProduct(j, jHat, n, m);
+  const pc = new Float64Array(n * m);
+  for (let a = 0; a < n; a++) for (let q = 0; q < m; q++) { let s = 0; for (let r = 0; r < m; r++) s += p[a * m + r] * c[r][q]; pc[a * m + q] = s; }
+  const mm = new Float64Array(n);
+  const mam = new Float64Array(n);
+  for (let a = 0; a < n; a++) {
+    for (let b = a; b < n; b++) {
+      const l = b - a;
+      mm[l] += (l === 0 ? 1 : 0) - rowDot(p, a, j, b, m);
+      mam[l] += (l === 1 ? 0.5 : 0) - rowDot(p, a, jHat, b, m) - rowDot(jHat, a, p, b, m) + rowDot(pc, a, p, b, m);
+    }
+  }
+  return { mm, mam };
 }
 
 /**
  * Covariance of the parameters under AR(1) errors along the point order: ρ matched to the residuals' lag-1
  * correlation, σ² = RSS / tr(M·R(ρ)) (unbiased under that model), covariance σ²·B·J̃ᵀR(ρ)J̃·B. j is the whitened
  * Jacobian (n × m, row-major) at the solution, u the whitened residuals in x order. Null when J̃ is singular.
+ * The work is n²·m (the residual maker's diagonal sums), not n³: the fit runs at every time point of a movie.
  */
 export function ar1Covariance(j: Float64Array, u: Float64Array, n: number, m: number): SerialCovariance | null {
   const bread = inverseNormalMatrix(j, n, m);
   if (!bread || n <= m + 1) return null;
-  const mk = residualMaker(j, bread, n, m);
   // E[uᵀAu] = σ²·tr(A·M·R·M) = σ²·Σ (MAM)_ab R_ab, and E[uᵀu] = σ²·Σ (MM)_ab R_ab = σ²·Σ M_ab R_ab.
-  const mam = lagProductOfM(mk, n);
+  const sums = residualDiagonalSums(j, timesBread(j, bread, n, m), n, m);
   const residualLag1 = lag1Correlation(u);
-  const rho = matchedRho(mk, mam, n, residualLag1);
+  const rho = matchedRhoFromSums(sums.mam, sums.mm, residualLag1);
   let rss = 0;
   for (let i = 0; i < n; i++) rss += u[i] * u[i];
-  const sigma2 = rss / traceWithAr1(mk, n, rho);
-  const powers = Float64Array.from({ length: n }, (_, l) => sigma2 * rho ** l);
-  const covariance = sandwich(j, bread, n, m, (a, b) => powers[Math.abs(a - b)]);
-  return { covariance, residualLag1, rho };
+  const sigma2 = rss / ar1Weighted(sums.mm, rho);
+  const meat = crossProduct(j, ar1TimesJacobian(j, n, m, rho), n, m).map((row) => row.map((v) => sigma2 * v));
+  return { covariance: breadAround(bread, meat), residualLag1, rho };
 }

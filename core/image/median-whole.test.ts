@@ -121,10 +121,20 @@ describe('sampleMedian', () => {
         const expected = maskedMedian(floats, keep);
         const got = sampleMedian(samples, runs);
         expect(got, `seed ${seed} parity ${parity}`).toEqual(expected);
-        // Lent counts holding another plane's counts give the same answer; counts of another length are not used.
-        const dirty = new Uint32Array(SAMPLE_COUNTS).fill(3);
-        expect(sampleMedian(samples, runs, dirty)).toEqual(expected);
-        expect(sampleMedian(samples, runs, dirty)).toEqual(expected);
+        // Lent counts (all zero) give the same answer and are all zero again after each plane, so they serve the
+        // next; counts of another length are not used.
+        const lent = new Uint32Array(SAMPLE_COUNTS);
+        expect(sampleMedian(samples, runs, lent)).toEqual(expected);
+        expect(lent.every((v) => v === 0)).toBe(true);
+        expect(sampleMedian(samples, runs, lent)).toEqual(expected);
+        expect(lent.every((v) => v === 0)).toBe(true);
+        // 16-bit samples that do not start on a 4-byte boundary are counted one at a time: the same answer.
+        if (samples instanceof Uint16Array) {
+          const shifted = new Uint16Array(new ArrayBuffer(2 * n + 2), 2, n);
+          shifted.set(samples);
+          expect(sampleMedian(shifted, runs, lent)).toEqual(expected);
+          expect(lent.every((v) => v === 0)).toBe(true);
+        }
         const short = new Uint32Array(10).fill(3);
         expect(sampleMedian(samples, runs, short)).toEqual(expected);
         expect(short.every((v) => v === 3)).toBe(true);

@@ -27,8 +27,8 @@ export function farFromMask(mask: Mask, marginPx: number): Uint8Array {
 export interface FarPixels {
   readonly mask: Uint8Array;
   readonly runs: MaskRuns;
-  /** Counts lent to sampleMedian for each plane measured over these pixels, one plane at a time (its contents are
-   *  scratch). */
+  /** Counts lent to sampleMedian for each plane measured over these pixels, one plane at a time (all zero between
+   *  planes: sampleMedian clears what it counted). */
   readonly counts: Uint32Array;
 }
 

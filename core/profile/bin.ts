@@ -31,6 +31,9 @@ export interface BinGroups {
   readonly order: Int32Array;
   /** binCount + 1 offsets into order. */
   readonly start: Int32Array;
+  /** Working space of order's length: one bin's values at a time are gathered here (groupedProfile; its contents
+   *  are scratch, so a BinGroups serves one profile at a time). */
+  readonly gathered: Float32Array;
 }
 
 /** Group the pixels with bins[k] ≥ 0 by bin (a counting sort that keeps ascending k within each bin). */
@@ -41,22 +44,24 @@ export function groupByBin(bins: Int32Array, binCount: number): BinGroups {
   const order = new Int32Array(start[binCount]);
   const next = start.slice(0, binCount);
   for (let k = 0; k < bins.length; k++) if (bins[k] >= 0) order[next[bins[k]]++] = k;
-  return { order, start };
+  return { order, start, gathered: new Float32Array(order.length) };
 }
 
 /**
  * Per bin, the sum of values[k] − shift, its mean, and the sum of squared deviations from that mean, in ascending k
- * within the bin (one bin's pixels after another: the sums stay in registers). Empty bins get NaN means.
+ * within the bin (one bin's pixels after another: the sums stay in registers). Empty bins get NaN means. Each bin's
+ * values are gathered into `gathered` once (the pixels lie scattered over the image), and both sums read them there.
  */
-function groupedMoments(values: Float32Array, order: Int32Array, start: Int32Array, binCount: number, mean: Float64Array, ss: Float64Array): void {
+function groupedMoments(values: Float32Array, order: Int32Array, start: Int32Array, binCount: number, mean: Float64Array, ss: Float64Array,
+  gathered: Float32Array): void {
   for (let b = 0; b < binCount; b++) {
     const from = start[b];
     const to = start[b + 1];
     let sum = 0;
-    for (let j = from; j < to; j++) sum += values[order[j]];
+    for (let j = from; j < to; j++) { const v = values[order[j]]; gathered[j] = v; sum += v; }
     const m = to > from ? sum / (to - from) : NaN;
     let s2 = 0;
-    for (let j = from; j < to; j++) { const d = values[order[j]] - m; s2 += d * d; }
+    for (let j = from; j < to; j++) { const d = gathered[j] - m; s2 += d * d; }
     mean[b] = m;
     ss[b] = s2;
   }
@@ -79,7 +84,7 @@ export function groupedProfile(values: Float32Array, groups: BinGroups, channel:
   const binCount = groups.start.length - 1;
   const mean = new Float64Array(binCount);
   const ss = new Float64Array(binCount);
-  groupedMoments(values, groups.order, groups.start, binCount, mean, ss);
+  groupedMoments(values, groups.order, groups.start, binCount, mean, ss, groups.gathered);
   const n = new Float64Array(binCount);
   const sd = new Float64Array(binCount);
   const xEl = new Float64Array(binCount);

@@ -33,15 +33,41 @@ function keptPositions(keep: Uint8Array, width: number, box: Box): { idx: Int32A
   return { idx, xs, ys };
 }
 
-/** The background-subtracted values of every channel at the pixels idx, into `into[c]` when given (else new arrays). */
-function valuesAt(projected: ProjectedStack, idx: Int32Array, backgrounds: readonly BackgroundEstimate[], into: Float32Array[] | null = null): Float32Array[] {
+/** The background-subtracted values of every channel at the pixels idx, into `into[c]` when given (else new arrays);
+ *  through `runs` (indexRuns(idx)) when given, the same values read along rows. */
+function valuesAt(projected: ProjectedStack, idx: Int32Array, backgrounds: readonly BackgroundEstimate[], into: Float32Array[] | null = null,
+  runs: IndexRuns | null = null): Float32Array[] {
   const values: Float32Array[] = [];
   for (let c = 0; c < projected.channels.length; c++) {
     const v = into?.[c] ?? new Float32Array(idx.length);
-    subtractAt(projected.channels[c].data, idx, backgrounds[c].value, v);
+    if (runs) subtractAlongRuns(projected.channels[c].data, runs, backgrounds[c].value, v);
+    else subtractAt(projected.channels[c].data, idx, backgrounds[c].value, v);
     values.push(v);
   }
   return values;
+}
+
+/** Stretches of consecutive pixel indices in an ascending index list: idx is the concatenation of start[r] … end[r] − 1. */
+interface IndexRuns { readonly start: Int32Array; readonly end: Int32Array }
+
+/** The runs of consecutive values in an ascending list of pixel indices. */
+export function indexRuns(idx: Int32Array): IndexRuns {
+  let count = 0;
+  for (let k = 0; k < idx.length; k++) if (k === 0 || idx[k] !== idx[k - 1] + 1) count++;
+  const start = new Int32Array(count);
+  const end = new Int32Array(count);
+  for (let k = 0, r = -1; k < idx.length; k++) {
+    if (k === 0 || idx[k] !== idx[k - 1] + 1) start[++r] = idx[k];
+    end[r] = idx[k] + 1;
+  }
+  return { start, end };
+}
+
+/** subtractAt for the pixels of `runs`: out[k] = data[i] − b for i along each run in turn (no index list to read). */
+function subtractAlongRuns(data: Float32Array, runs: IndexRuns, b: number, out: Float32Array): void {
+  for (let r = 0, k = 0; r < runs.start.length; r++) {
+    for (let i = runs.start[r], end = runs.end[r]; i < end; i++) out[k++] = data[i] - b;
+  }
 }
 
 /** Number of pixels with keep[i] = 1 in [x0, x1) × [y0, y1). */
@@ -118,6 +144,8 @@ interface MaskParts extends MaskBasics {
   readonly idx: Int32Array;
   readonly xs: Float32Array;
   readonly ys: Float32Array;
+  /** idx as runs of consecutive pixels (the region's rows), along which the values are read. */
+  readonly runs: IndexRuns;
   /** The bins along the last axis measured, shared by every preparation made from these parts. */
   readonly binning: BinningMemo;
   /** Per channel, the array the region pixels' values are written into at every later preparation. */
@@ -146,14 +174,14 @@ export function samplingWithin(detection: Detection, samplers: readonly ProfileS
       const { mask } = prepared.region;
       const positions = keptPositions(mask.data, mask.width, prepared.box);
       const values = projected.channels.map(() => new Float32Array(positions.idx.length));
-      const parts = { box: prepared.box, far, region: mask, ...positions, binning: { last: null }, values };
+      const parts = { box: prepared.box, far, region: mask, ...positions, runs: indexRuns(positions.idx), binning: { last: null }, values };
       kept = { key, parts };
       return { ...prepared, binning: parts.binning };
     }
     const { parts } = kept;
     const base = samplingBase(projected, detection, settings, parts);
     const sampler = samplerFor(settings.profile.mode, samplers);
-    const pixels = { xs: parts.xs, ys: parts.ys, values: valuesAt(projected, parts.idx, base.backgrounds, parts.values) };
+    const pixels = { xs: parts.xs, ys: parts.ys, values: valuesAt(projected, parts.idx, base.backgrounds, parts.values, parts.runs) };
     return { ...base, sampler, region: { mask: parts.region, pixels }, binning: parts.binning };
   };
 }
