@@ -34,7 +34,11 @@ describe('createProjector, first plane copied in natively', () => {
     for (const [Type, lo, hi] of types) {
       for (const method of ['mean', 'sum', 'max', 'slice'] as const) {
         for (const count of [1, 2, 5]) {
-          const planes = Array.from({ length: count }, () => Type.from({ length: w * h }, () => Math.floor(lo + rnd() * (hi - lo + 1))));
+          const planes = Array.from({ length: count }, () => {
+            const d = new Type(w * h);
+            for (let i = 0; i < d.length; i++) d[i] = Math.floor(lo + rnd() * (hi - lo + 1));
+            return d;
+          });
           const p = createProjector(w, h, method);
           for (const data of planes) p.add({ width: w, height: h, data });
           const ref = new Float64Array(w * h).fill(method === 'max' ? -Infinity : 0);
