@@ -31,10 +31,13 @@ export interface MovieOutcome {
   readonly summary: MovieSummary;
 }
 
-/** A movie the time pass could not analyse, with a one-line reason naming the file. */
+/** A movie the time pass did not analyse, with a one-line reason naming the file. */
 export interface MovieFailure {
   readonly file: string;
   readonly error: string;
+  /** True when nothing failed: the time points chosen for it all lie past its end (`error` is then a warning, and
+   *  the batch does not count the movie as failed). */
+  readonly warningOnly?: boolean;
 }
 
 /** Files of the time pass: tables, figures and the page. */

@@ -45,10 +45,11 @@ uniform degradation, τ(x) = (1 + x/λ)/(2k); the line τ₀(1 + x/λ_τ) fitted
 is compared with the steady-state λ. Agreement is consistent with that model but does not prove it.</p>`;
 const METHOD = `<h2>Method and caveats</h2>\n${METHOD_TEXT}`;
 
-/** The failed movies as a table (empty text when none), its heading at level h. */
-function failedTable(failures: readonly { file: string; error: string }[], h: number): string {
-  return failures.length > 0 ? `<h${h}>Movies not analysed</h${h}><table><tr><th class="t">file</th><th class="t">reason</th></tr>${
-    failures.map((f) => `<tr><td class="t">${esc(f.file)}</td><td class="t">${esc(f.error)}</td></tr>`).join('')}</table>` : '';
+/** The movies not analysed over time as a table (empty text when none), its heading at level h: failures, and
+ *  movies whose chosen time points all lie past their end (a warning; their main-pass row stands). */
+function failedTable(failures: readonly { file: string; error: string; warningOnly?: boolean }[], h: number): string {
+  return failures.length > 0 ? `<h${h}>Movies not analysed over time</h${h}><table><tr><th class="t">file</th><th class="t">reason</th></tr>${
+    failures.map((f) => `<tr><td class="t">${esc(f.file)}</td><td class="t${f.warningOnly ? ' warn' : ''}">${esc(f.error)}</td></tr>`).join('')}</table>` : '';
 }
 
 /**
@@ -57,7 +58,7 @@ function failedTable(failures: readonly { file: string; error: string }[], h: nu
  * movies not analysed and the method. Empty text when the batch had no movie.
  */
 export function timelapseReportSection(
-  movies: readonly { movie: MovieOutcome; figures: readonly { title: string; svg: string }[] }[], failures: readonly { file: string; error: string }[],
+  movies: readonly { movie: MovieOutcome; figures: readonly { title: string; svg: string }[] }[], failures: readonly { file: string; error: string; warningOnly?: boolean }[],
 ): string {
   if (movies.length === 0 && failures.length === 0) return '';
   return `<h2 id="timelapse">Gradients over time</h2><p class="note">Movies analysed per time point (tables: timecourse.csv, accumulation.csv, model_fit.csv; `
@@ -68,7 +69,7 @@ export function timelapseReportSection(
 /** The whole page. */
 export function timelapsePage(
   movies: readonly { movie: MovieOutcome; figures: readonly { title: string; svg: string }[] }[],
-  failures: readonly { file: string; error: string }[], generatedAt: string,
+  failures: readonly { file: string; error: string; warningOnly?: boolean }[], generatedAt: string,
 ): string {
   const failed = failedTable(failures, 2);
   return `<!DOCTYPE html><html lang="en"><head><meta charset="utf-8"><title>Eggline time-lapse analysis</title><style>${CSS}</style></head><body>

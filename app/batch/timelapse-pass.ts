@@ -13,10 +13,10 @@ import {
 } from '../../core/model';
 import { analyseMovie } from '../../core/pipeline';
 import { inputFolderOf, loadImageCorrections } from './correction-images';
-import { settingsInForce, type AnalysisSettings } from '../../core/settings';
+import { settingsInForce, timePointsForMovie, type AnalysisSettings } from '../../core/settings';
 import { pagesAsTimePointsWithSource, resolveTimeAxis } from '../../core/tiff';
 import {
-  ACCUMULATION_COLUMNS, accumulationRows, MODEL_FIT_COLUMNS, modelFitRow, parseTimeSelection, selectTimeIndices, summarizeMovie,
+  ACCUMULATION_COLUMNS, accumulationRows, MODEL_FIT_COLUMNS, modelFitRow, parseTimeSelection, summarizeMovie,
 } from '../../core/timelapse';
 import { writeFileAtomic } from '../project';
 import { openStack } from './deps';
@@ -31,6 +31,14 @@ export { DEFAULT_TIMELAPSE_OPTIONS, TIMELAPSE_FILES, type MovieFailure, type Mov
 function editsAt(doc: ProjectDoc | null, file: string, settings: AnalysisSettings, t: number | null): { handEdits: HandEdits | null; settings: AnalysisSettings } {
   const e = editsForFile(doc, file, undefined, t);
   return { handEdits: e ? { axis: e.axis, landmarks: e.landmarks } : null, settings: settingsInForce(settings, e) };
+}
+
+/** Where a file's time points come from, as its warnings name it: the file's own in the project, or --time. */
+export const OWN_TIME_ASKED_BY = 'this file\'s time points in the project';
+
+/** Who asked for the time points of `file`: the project's entry for the file when it gives its own, else --time. */
+function timeAskedBy(doc: ProjectDoc | null, file: string): string {
+  return editsForFile(doc, file, undefined, null)?.time !== undefined ? OWN_TIME_ASKED_BY : '--time';
 }
 
 /** The time options for one file: its own time points and time step from the project file (per-file `time`,
@@ -57,11 +65,12 @@ export interface MovieRun {
   readonly results: readonly EmbryoResult[];
 }
 
-/** A record of a movie that failed (no time points). */
-function failedRecord(file: string, error: string, settings: AnalysisSettings, options: TimelapseOptions): MovieRecord {
+/** A record of a movie with no analysed time points: one that failed (`error`), or whose chosen time points all lie
+ *  past its end (no error; `warnings` says so). */
+function emptyRecord(file: string, error: string | null, warnings: readonly string[], settings: AnalysisSettings, options: TimelapseOptions): MovieRecord {
   return {
     file, timeIndices: [], timesS: null, timeSource: null, fitRangeEl: settings.fitRangeEl, modelRangeEl: options.tauRangeEl,
-    baselineFrames: options.baselineFrames, warnings: [], error,
+    baselineFrames: options.baselineFrames, warnings, error,
   };
 }
 
@@ -89,9 +98,13 @@ async function analyseOpenedMovie(
   const { info, source } = asMovie(opened, options.timeStepS);
   if (info.sizeT <= 1) return null;
   hooks.onInfo?.(info);
-  const picked = selectTimeIndices(options.selection, info.sizeT);
-  if (typeof picked === 'string') return { record: failedRecord(file, `${file}: ${picked}`, settings, options), results: [] };
-  const warnings: string[] = [];
+  // One --time over movies of unequal length: each is analysed over the time points it has, with a warning when cut.
+  const chosen = timePointsForMovie(options.selection, info.sizeT, file, timeAskedBy(doc, file));
+  const cut = chosen.warning === null ? [] : [chosen.warning];
+  if (chosen.tIndices.length === 0) return { record: emptyRecord(file, null, cut, settings, options), results: [] };
+  const picked = [...chosen.tIndices];
+  // The warning comes first in each result's warnings: it says which time point the row is (a cell may be cut).
+  const warnings: string[] = [...cut];
   const axis = resolveTimeAxis(info, options.timeStepS, warnings);
   const own = editsAt(doc, file, settings, null);
   const corrections = await loadImageCorrections(settings, baseDir);
@@ -101,7 +114,7 @@ async function analyseOpenedMovie(
     timeIndices: picked, axisPerTime: options.axisPerTime, ...hooks,
   });
   const timesS = axis.timesS ? Float64Array.from(picked, (t) => axis.timesS![t]) : null;
-  const results = m.results.map((r, k) => normalizeResult(withTimePoint(r, picked[k], timesS ? timesS[k] : null)));
+  const results = m.results.map((r, k) => normalizeResult(withTimePoint({ ...r, warnings: [...cut, ...r.warnings] }, picked[k], timesS ? timesS[k] : null)));
   const record: MovieRecord = {
     file, timeIndices: picked, timesS, timeSource: axis.timesS ? axis.source : null, fitRangeEl: own.settings.fitRangeEl, modelRangeEl: options.tauRangeEl,
     baselineFrames: options.baselineFrames, warnings, error: null,
@@ -120,7 +133,7 @@ export async function analyseMovieFile(
     if (!opened) return null;
     return await analyseOpenedMovie(opened, file, settings, doc, options, {}, folder);
   } catch (e) {
-    return { record: failedRecord(file, fileMessage(file, e), settings, options), results: [] };
+    return { record: emptyRecord(file, fileMessage(file, e), [], settings, options), results: [] };
   } finally {
     await opened?.source.close().catch(() => undefined);
   }
@@ -138,6 +151,7 @@ export async function analyseMovieAtPath(
     const r = await analyseOpenedMovie(opened, file, settings, doc, options, hooks, inputFolderOf(path, file));
     if (r === null) throw new Error(`${file}: has one time point; the time-lapse view needs a movie`);
     if (r.record.error !== null) throw new Error(r.record.error);
+    if (r.record.timeIndices.length === 0) throw new Error(r.record.warnings[0] ?? `${file}: no time point to analyse`);
     return movieOutcomes([r.record], r.results).movies[0];
   } finally {
     await opened.source.close().catch(() => undefined);
@@ -164,11 +178,12 @@ export async function analyseMovies(
 /**
  * The batch's results with each movie's time points in place of its main-pass result: results keyed by (file, time
  * point), files in the main pass's order, a movie's time points in time order. A movie that failed keeps its
- * main-pass result.
+ * main-pass result; so does one whose chosen time points all lie past its end, with the warning that says so.
  */
 export function withMovieResults(main: readonly EmbryoResult[], runs: readonly MovieRun[]): EmbryoResult[] {
   const byFile = new Map(runs.filter((r) => r.record.error === null && r.results.length > 0).map((r) => [r.record.file, r.results]));
-  return main.flatMap((r) => byFile.get(r.file) ?? [r]);
+  const none = new Map(runs.filter((r) => r.record.error === null && r.record.timeIndices.length === 0).map((r) => [r.record.file, r.record.warnings]));
+  return main.flatMap((r) => byFile.get(r.file) ?? (none.has(r.file) ? [{ ...r, warnings: [...none.get(r.file)!.filter((w) => !r.warnings.includes(w)), ...r.warnings] }] : [r]));
 }
 
 /**
@@ -182,6 +197,8 @@ export function movieOutcomes(records: readonly MovieRecord[], results: readonly
   const failures: MovieFailure[] = [];
   for (const rec of records) {
     if (rec.error !== null) { failures.push({ file: rec.file, error: rec.error }); continue; }
+    // Chosen time points all past the movie's end: not analysed over time, but nothing failed.
+    if (rec.timeIndices.length === 0) { failures.push({ file: rec.file, error: rec.warnings[0] ?? `${rec.file}: no time point analysed over time`, warningOnly: true }); continue; }
     const own = rec.timeIndices.map((t) => byKey.get(resultKey(rec.file, t)));
     if (own.some((r) => r === undefined)) { failures.push({ file: rec.file, error: `${rec.file}: results of some time points are missing` }); continue; }
     const list = own as EmbryoResult[];

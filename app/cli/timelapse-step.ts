@@ -39,13 +39,14 @@ export function parseTimelapseFlags(f: TimelapseFlags): TimelapseOptions {
 }
 
 /** What the batch's time pass did, for the terminal: failures, warnings, and the tables it wrote. Returns the number
- *  of movies that failed. */
+ *  of movies that failed (a movie whose chosen time points all lie past its end is a warning, not a failure). */
 export function reportTimelapse(
   pass: { readonly movies: readonly MovieOutcome[]; readonly failures: readonly MovieFailure[] }, outDir: string, io: CliIo,
 ): number {
   if (pass.movies.length === 0 && pass.failures.length === 0) return 0;
-  for (const f of pass.failures) io.stderr.write(`eggline: ${f.error}\n`);
-  for (const m of pass.movies) for (const w of m.summary.warnings) io.stderr.write(`eggline: warning: ${m.file}: ${w}\n`);
+  for (const f of pass.failures) io.stderr.write(f.warningOnly ? `eggline: warning: ${f.error}\n` : `eggline: ${f.error}\n`);
+  const named = (file: string, w: string): string => (w.startsWith(`${file}: `) ? w : `${file}: ${w}`);
+  for (const m of pass.movies) for (const w of m.summary.warnings) io.stderr.write(`eggline: warning: ${named(m.file, w)}\n`);
   io.stdout.write(`Time analysis of ${pass.movies.length} movie${pass.movies.length === 1 ? '' : 's'}: timecourse.csv, accumulation.csv, model_fit.csv and ${join(outDir, 'timelapse.html')}\n`);
-  return pass.failures.length;
+  return pass.failures.filter((f) => !f.warningOnly).length;
 }

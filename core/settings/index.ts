@@ -13,7 +13,7 @@ export { SettingsError } from './settings-error';
 export type { FileEdits, ProjectCohortOptions, ProjectDoc, TimePointEdits } from './project-types';
 export { checkProjectCohort, COHORT_NORMALISATIONS, equivalenceMarginProblem, lambdaPosteriorElProblem } from './project-cohort';
 export { fileEditsAt } from './time-point-edits';
-export { parseTimeSelection, selectTimeIndices, timeSelectionText, checkTimeStepS, parseTimeStepS, timePointForFile, type TimeSelection } from './time-selection';
+export { parseTimeSelection, selectTimeIndices, timeSelectionText, checkTimeStepS, parseTimeStepS, timePointForFile, timePointsForMovie, type MovieTimePoints, type TimeSelection } from './time-selection';
 export { ProjectFormatError } from './project-error';
 export {
   PROJECT_SCHEMA, PROJECT_VERSION, PROJECT_OLDEST_VERSION, checkProjectDoc, checkFileEdits, checkSettings, checkRangeEl, parseProjectText,

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { checkTimeStepS, parseTimeSelection, parseTimeStepS, selectTimeIndices, timePointForFile, timeSelectionText } from './time-selection';
+import { checkTimeStepS, parseTimeSelection, parseTimeStepS, selectTimeIndices, timePointForFile, timePointsForMovie, timeSelectionText } from './time-selection';
 
 describe('parseTimeSelection / selectTimeIndices', () => {
   it('reads all, one time point and an inclusive range', () => {
@@ -10,8 +10,11 @@ describe('parseTimeSelection / selectTimeIndices', () => {
     expect(selectTimeIndices(parseTimeSelection('3:9'), 5)).toEqual([3, 4]);
   });
 
-  it('says why a selection picks nothing, and rejects bad text with a one-line message', () => {
-    expect(selectTimeIndices(parseTimeSelection('7'), 5)).toBe('time point 7 is outside the movie (T = 5, time points 0 to 4)');
+  it('takes the last time point for a single one past the end, picks none for a range wholly past it, and rejects bad text with a one-line message', () => {
+    expect(selectTimeIndices(parseTimeSelection('7'), 5)).toEqual([4]);
+    expect(selectTimeIndices(parseTimeSelection('5:9'), 5)).toEqual([]);
+    expect(selectTimeIndices(parseTimeSelection('4:9'), 5)).toEqual([4]);
+    expect(selectTimeIndices(parseTimeSelection('all'), 0)).toEqual([]);
     expect(() => parseTimeSelection('4:2')).toThrow('--time must be all, a time point K or a range A:B (0-based, A ≤ B), got "4:2"');
     expect(() => parseTimeSelection('-1')).toThrow(/got "-1"/);
   });
@@ -26,6 +29,42 @@ describe('parseTimeSelection / selectTimeIndices', () => {
     expect(checkTimeStepS(0.5)).toBe(0.5);
     for (const bad of ['0', '-3', 'abc', '', 'Infinity']) expect(() => parseTimeStepS(bad)).toThrow(`--time-step must be a positive number of seconds (got "${bad}")`);
     expect(() => checkTimeStepS(NaN, 'time step')).toThrow('time step must be a positive number of seconds (got "NaN")');
+  });
+});
+
+describe('timePointsForMovie', () => {
+  // Known answers (demo data): one --time over movies of 4 and 46 time points; each movie analysed over what it has.
+  it('keeps what the movie has, with no warning', () => {
+    expect(timePointsForMovie(parseTimeSelection('all'), 4, 'a.tif')).toEqual({ tIndices: [0, 1, 2, 3], warning: null });
+    expect(timePointsForMovie(parseTimeSelection('3'), 4, 'a.tif')).toEqual({ tIndices: [3], warning: null });
+    expect(timePointsForMovie(parseTimeSelection('1:3'), 4, 'a.tif')).toEqual({ tIndices: [1, 2, 3], warning: null });
+    expect(timePointsForMovie(parseTimeSelection('10:25'), 46, 'long.ome.tif')).toEqual({ tIndices: Array.from({ length: 16 }, (_, i) => 10 + i), warning: null });
+  });
+
+  it('analyses a single time point past the end at the last one, naming the file, the asked and the analysed time point', () => {
+    expect(timePointsForMovie(parseTimeSelection('50'), 4, 'short/m.tif')).toEqual({
+      tIndices: [3], warning: 'short/m.tif: time point 50 asked for (--time, 0-based), but the movie has 4 time points (0 to 3); time point 3 was analysed',
+    });
+    expect(timePointsForMovie(parseTimeSelection('4'), 4, 'm.tif').tIndices).toEqual([3]);
+  });
+
+  it('cuts a range at the movie\'s last time point, with the asked and the analysed range', () => {
+    expect(timePointsForMovie(parseTimeSelection('2:50'), 4, 'm.tif')).toEqual({
+      tIndices: [2, 3], warning: 'm.tif: time points 2:50 asked for (--time, 0-based), but the movie has 4 time points (0 to 3); time points 2 to 3 were analysed',
+    });
+    expect(timePointsForMovie(parseTimeSelection('3:50'), 4, 'm.tif').warning).toBe(
+      'm.tif: time points 3:50 asked for (--time, 0-based), but the movie has 4 time points (0 to 3); time point 3 was analysed');
+    // A range ending exactly at the last time point is not cut.
+    expect(timePointsForMovie(parseTimeSelection('2:3'), 4, 'm.tif').warning).toBeNull();
+  });
+
+  it('gives a range wholly past the end no time points, and says so; names where the selection came from', () => {
+    expect(timePointsForMovie(parseTimeSelection('10:20'), 4, 'm.tif')).toEqual({
+      tIndices: [], warning: 'm.tif: time points 10:20 asked for (--time, 0-based), but the movie has 4 time points (0 to 3); no time point was analysed over time',
+    });
+    expect(timePointsForMovie(parseTimeSelection('4:4'), 4, 'm.tif').tIndices).toEqual([]);
+    expect(timePointsForMovie(parseTimeSelection('9'), 4, 'm.tif', 'the project\'s time for this file').warning).toBe(
+      'm.tif: time point 9 asked for (the project\'s time for this file, 0-based), but the movie has 4 time points (0 to 3); time point 3 was analysed');
   });
 });
 

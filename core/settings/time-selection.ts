@@ -23,12 +23,45 @@ export function timeSelectionText(s: TimeSelection): string {
   return s.kind === 'all' ? 'all' : s.kind === 'one' ? String(s.index) : `${s.first}:${s.last}`;
 }
 
-/** The time indices of a movie with sizeT time points that a selection picks; an error message when it picks none. */
-export function selectTimeIndices(selection: TimeSelection, sizeT: number): number[] | string {
-  const { first, last } = selection.kind === 'all' ? { first: 0, last: sizeT - 1 }
-    : selection.kind === 'one' ? { first: selection.index, last: selection.index } : selection;
-  if (first >= sizeT) return `time point ${first} is outside the movie (T = ${sizeT}, time points 0 to ${sizeT - 1})`;
-  return Array.from({ length: Math.min(last, sizeT - 1) - first + 1 }, (_, i) => first + i);
+/**
+ * The time indices a selection analyses in a movie with sizeT time points (0-based, ascending): a range is cut at the
+ * movie's last time point, a single time point past the end is the last one, and a range that starts past the end
+ * picks none (empty). The batch applies one --time to movies of unequal length, each over what it has.
+ */
+export function selectTimeIndices(selection: TimeSelection, sizeT: number): number[] {
+  if (!(sizeT >= 1)) return [];
+  if (selection.kind === 'one') return [Math.min(selection.index, sizeT - 1)];
+  const { first, last } = selection.kind === 'all' ? { first: 0, last: sizeT - 1 } : selection;
+  const end = Math.min(last, sizeT - 1);
+  return first > end ? [] : Array.from({ length: end - first + 1 }, (_, i) => first + i);
+}
+
+/** The time points of a movie a selection analyses, and a one-line warning when the movie is too short for it. */
+export interface MovieTimePoints {
+  /** The analysed time points (0-based, ascending; empty when the selection lies wholly past the movie's end). */
+  readonly tIndices: readonly number[];
+  /** Names the file, what was asked and what was analysed; null when the movie has every asked time point. */
+  readonly warning: string | null;
+}
+
+/** "time point 3" or "time points 2 to 5" for ascending indices (at least one). */
+function pointsText(t: readonly number[]): string {
+  return t.length === 1 ? `time point ${t[0]} was analysed` : `time points ${t[0]} to ${t[t.length - 1]} were analysed`;
+}
+
+/**
+ * The time points of `file` (a movie with sizeT time points) that `selection` analyses, as selectTimeIndices picks
+ * them, with a warning naming the file, the asked and the analysed time points when the movie ends before the
+ * selection does. `askedBy` says where the selection came from (the flag, or the file's own value in the project).
+ */
+export function timePointsForMovie(selection: TimeSelection, sizeT: number, file: string, askedBy = '--time'): MovieTimePoints {
+  const tIndices = selectTimeIndices(selection, sizeT);
+  const lastAsked = selection.kind === 'one' ? selection.index : selection.kind === 'range' ? selection.last : -1;
+  if (lastAsked < sizeT || !(sizeT >= 1)) return { tIndices, warning: null };
+  const asked = selection.kind === 'one' ? `time point ${selection.index}` : `time points ${timeSelectionText(selection)}`;
+  const has = sizeT === 1 ? 'has one time point' : `has ${sizeT} time points (0 to ${sizeT - 1})`;
+  const done = tIndices.length === 0 ? 'no time point was analysed over time' : pointsText(tIndices);
+  return { tIndices, warning: `${file}: ${asked} asked for (${askedBy}, 0-based), but the movie ${has}; ${done}` };
 }
 
 /** Checks a time step in seconds (a positive finite number); throws RangeError with a one-line message naming the flag. */

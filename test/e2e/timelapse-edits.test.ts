@@ -1,6 +1,6 @@
 // The window's movie controls in Chromium over the real handlers (see harness.ts): the time points to analyse (as
 // `eggline batch --time A:B`) with the flag's refusal message, saved for the file in the project and analysed again
-// when changed; the Embryo view at the time point picked on the slider, with the numbers the batch writes for that
+// when changed, a time point past the movie's end taken at the last one as the batch takes it; the Embryo view at the time point picked on the slider, with the numbers the batch writes for that
 // time point; and edits of one time point (axis moved for it alone), saved in the project's per-time-point edits,
 // measured live, equal to what the batch's time pass makes of the same project file, and cleared again.
 // Demo data only; the reference is the batch's own time pass (app/batch/timelapse-pass.ts, the code behind
@@ -205,5 +205,29 @@ describe('the window\'s movie controls', { timeout: 180_000 }, () => {
     await page.getByTestId('tab-embryo').click();
     await expect.poll(() => attr(page, 'embryo-time-label', 'data-t')).toBe('19');
     await expect.poll(() => liveLambdaEl(page), { timeout: 30_000 }).toBeCloseTo(overTime, 9);
+  });
+
+  it('takes a time point past the movie\'s end as the batch does: analysed at the last, with the batch\'s warning and λ', async () => {
+    const { page } = h;
+    await page.getByTestId('tab-time').click();
+    await page.getByTestId('movie-axis-per-time').uncheck();
+    h.movieProgress.length = 0;
+    await page.getByTestId('movie-time').fill('50');
+    await page.getByTestId('movie-time').press('Enter');
+    expect(await page.getByTestId('field-error-movie-time').count()).toBe(0);
+    await expect.poll(savedEntry).toMatchObject({ time: '50' });
+    expect(await page.getByTestId('movie-times').textContent()).toBe('Time point 45 (0-based) of 46 (50 asked for, past the movie\'s end); times from the file (OME TimeIncrement).');
+    // The new time points analyse the movie again at once: one time point, the last.
+    await expect.poll(() => attr(page, 'movie-slider', 'max'), { timeout: 120_000 }).toBe('0');
+    await expect.poll(() => page.getByTestId('movie-progress').count(), { timeout: 120_000 }).toBe(0);
+    expect(h.movieProgress.at(-1)).toMatchObject({ done: 1, total: 1 });
+    const warning = `${movieName}: time point 50 asked for (this file's time points in the project, 0-based), but the movie has 46 time points (0 to 45); time point 45 was analysed`;
+    expect(await page.getByTestId('movie-warnings').textContent()).toContain(warning);
+    // The batch over the saved project (the file's own time points, 50, come with it): the same time point and λ.
+    const rows = await batchRows('all', join(scratch, 'batch-past-end'));
+    expect(rows.map((r) => r.t_index)).toEqual(['45']);
+    expect(rows[0].warnings.startsWith(warning)).toBe(true);
+    expect(Number(await attr(page, 'movie-lambda-now', 'data-value'))).toBeCloseTo(Number(rows[0].lambda_el), 9);
+    await page.screenshot({ path: join(ARTIFACTS, 'timelapse-past-end-1280x720.png') });
   });
 });

@@ -18,4 +18,13 @@ describe('the Over time bar', () => {
     expect(timesLine(untimed, { sizeT: 12, timeSource: 'user' } as unknown as MovieView, { time: null, timeStepS: 30 })).toBe('All 12 time points; times from you (the time step below), 30 s apart.');
     expect(timeSourceText('imagej')).toBe('the file (ImageJ frame interval)');
   });
+
+  it('says what is analysed when the movie ends before the chosen time points do, as the batch cuts them', () => {
+    expect(timesLine(timed, null, { time: '50', timeStepS: null })).toBe('Time point 45 (0-based) of 46 (50 asked for, past the movie\'s end); times from the file (OME TimeIncrement).');
+    expect(timesLine(timed, null, { time: '40:60', timeStepS: null })).toBe('Time points 40 to 45 (0-based) of 46 (40:60 asked for, past the movie\'s end); times from the file (OME TimeIncrement).');
+    expect(timesLine(timed, null, { time: '45:60', timeStepS: null })).toBe('Time point 45 (0-based) of 46 (45:60 asked for, past the movie\'s end); times from the file (OME TimeIncrement).');
+    expect(timesLine(untimed, null, { time: '20:30', timeStepS: 30 })).toBe('No time point (20:30 asked for lies past the movie\'s end, time points 0 to 11); times from you (the time step below), 30 s apart.');
+    // The last time point itself is not past the end.
+    expect(timesLine(timed, null, { time: '45', timeStepS: null })).toBe('Time point 45 (0-based) of 46; times from the file (OME TimeIncrement).');
+  });
 });

@@ -4,7 +4,7 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import type { EgglineApi, MovieRequestOptions, MovieView } from '../../../core/contract';
 import type { StackInfo } from '../../../core/model';
-import { parseTimeSelection, parseTimeStepS, selectTimeIndices, timeSelectionText } from '../../../core/settings';
+import { parseTimeSelection, parseTimeStepS, selectTimeIndices, timeSelectionText, type TimeSelection } from '../../../core/settings';
 import { FieldFrame } from '../settings/SettingField';
 import { valueWithCi } from '../../../core/figures';
 import type { MovieState } from '../../hooks/useMovie';
@@ -78,8 +78,12 @@ function MovieTimeFields({ movieTime, info, disabled, onChange }: {
     try {
       const sel = parseTimeSelection(timeText, 'time points');
       const sizeT = info === null ? null : Math.max(info.sizeT, movieTime.timeStepS !== null && !info.isOme && info.sizeT === 1 ? info.sizeZ : 1);
-      const none = sizeT === null || sizeT <= 1 ? null : selectTimeIndices(sel, sizeT);
-      if (typeof none === 'string') { setTimeError(`time points: ${none}`); return; }
+      // As the batch: a time point past the end is the last one, a range is cut at the end (the line below says
+      // so). A range wholly past the end would analyse nothing of this file, for which the field is: refused.
+      if (sel.kind === 'range' && sizeT !== null && sizeT > 1 && selectTimeIndices(sel, sizeT).length === 0) {
+        setTimeError(`time points: time point ${sel.first} is outside the movie (T = ${sizeT}, time points 0 to ${sizeT - 1})`);
+        return;
+      }
       setTimeError(null);
       const text = timeSelectionText(sel);
       if (text !== timeValue) onChange(text === 'all' ? null : text, movieTime.timeStepS);
@@ -189,12 +193,25 @@ function RunOptions({ options, onChange, disabled }: { options: MovieRequestOpti
   );
 }
 
+/** The time points a saved selection (as --time takes it) analyses in a movie of sizeT time points (null: unknown),
+ *  in words: what was asked, or what is analysed of it when the movie ends first (as the batch cuts it). */
+function chosenTimesText(time: string, sizeT: number | null): string {
+  const of = sizeT === null ? '' : ` of ${sizeT}`;
+  const asked = time.includes(':') ? `Time points ${time.replace(':', ' to ')} (0-based)${of}` : `Time point ${time} (0-based)${of}`;
+  let sel: TimeSelection;
+  try { sel = parseTimeSelection(time); } catch { return asked; }
+  const lastAsked = sel.kind === 'one' ? sel.index : sel.kind === 'range' ? sel.last : -1;
+  if (sizeT === null || lastAsked < sizeT) return asked;
+  const picked = selectTimeIndices(sel, sizeT);
+  if (picked.length === 0) return `No time point (${time} asked for lies past the movie's end, time points 0 to ${sizeT - 1})`;
+  const got = picked.length === 1 ? `Time point ${picked[0]}` : `Time points ${picked[0]} to ${picked[picked.length - 1]}`;
+  return `${got} (0-based)${of} (${time} asked for, past the movie's end)`;
+}
+
 /** One line: which time points are (to be) analysed and where their times come from. */
 export function timesLine(info: StackInfo | null, view: MovieView | null, t: TimelapseViewProps['movieTime']): string {
   const sizeT = view?.sizeT ?? (info !== null && info.sizeT > 1 ? info.sizeT : null);
-  const of = sizeT === null ? '' : ` of ${sizeT}`;
-  const which = t.time === null ? (sizeT === null ? 'Every time point' : `All ${sizeT} time points`)
-    : t.time.includes(':') ? `Time points ${t.time.replace(':', ' to ')} (0-based)${of}` : `Time point ${t.time} (0-based)${of}`;
+  const which = t.time === null ? (sizeT === null ? 'Every time point' : `All ${sizeT} time points`) : chosenTimesText(t.time, sizeT);
   const source = view !== null ? view.timeSource : fileTimeSource(info) ?? (t.timeStepS !== null ? 'user' : null);
   const step = t.timeStepS !== null && source === 'user' ? `, ${t.timeStepS} s apart` : '';
   return `${which}; times from ${timeSourceText(source)}${step}.`;
