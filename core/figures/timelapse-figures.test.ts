@@ -45,6 +45,18 @@ describe('kymographFigure', () => {
     expect(svg).toContain(`data-label="furrow" data-x-el="${Array.from(timesS, () => '0.3').join(' ')}"`);
     expect(svg).toContain('x/EL (0 = anterior pole)');
   });
+
+  it('draws a movie analysed at one time point as one row filling the plot, on a time axis with plain tick labels', () => {
+    const svg = kymographFigure({ xEl, timesS: Float64Array.of(10800), values: [xEl.map((x) => Math.exp(-x / 0.2))] });
+    checkSvg(svg);
+    const cells = svg.match(/<g class="kymograph-cells">(.*?)<\/g>/)![1];
+    expect(count(cells, /<rect /g)).toBe(50);
+    const heights = [...cells.matchAll(/height="([\d.]+)"/g)].map((m) => Number(m[1]));
+    expect(Math.min(...heights)).toBeGreaterThan(100);
+    // 10800 s = 180 min, with ticks on either side; no tick label carries a long run of digits.
+    expect(svg).toMatch(/>180\.0</);
+    expect(svg).not.toMatch(/>[^<]*\d{6,}[^<]*</);
+  });
 });
 
 describe('accumulationFigure', () => {

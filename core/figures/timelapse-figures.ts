@@ -93,13 +93,16 @@ export function kymographFigure(input: KymographInput, options: FigureOptions & 
   const x = scaleLinear().domain([0, 1]).range([a.left, a.left + a.width]);
   // Each row spans half-way to its neighbours in time, so uneven frame times draw as they are.
   const tEdge = (t: number): number => (t <= 0 ? input.timesS[0] : t >= n ? input.timesS[n - 1] : (input.timesS[t - 1] + input.timesS[t]) / 2);
-  const y = scaleLinear().domain([input.timesS[0] * perS, Math.max(span * perS, input.timesS[0] * perS + 1e-9)]).range([a.top, a.top + a.height]);
+  // One time point (e.g. --time K): its row fills the plot, on a time axis one unit either side of its time.
+  const t0 = n > 0 ? input.timesS[0] * perS : 0;
+  const single = n <= 1 || !(span * perS > t0);
+  const y = scaleLinear().domain(single ? [t0 - 1, t0 + 1] : [t0, span * perS]).range([a.top, a.top + a.height]);
   const [lo, hi] = finiteExtent(input.values.flatMap((row) => Array.from(row)), [0, 1]);
   const fill = ramp(Math.min(0, lo), hi);
   const xs = Array.from(input.xEl);
   const cellEdges = xs.map((v, i) => [i === 0 ? v - (xs[1] - v) / 2 : (xs[i - 1] + v) / 2, i === xs.length - 1 ? v + (v - xs[i - 1]) / 2 : (v + xs[i + 1]) / 2]);
   const cells = input.values.map((row, t) => {
-    const y0 = y(tEdge(t) * perS), y1 = y(tEdge(t + 1) * perS);
+    const y0 = single ? a.top : y(tEdge(t) * perS), y1 = single ? a.top + a.height : y(tEdge(t + 1) * perS);
     return cellEdges.map(([e0, e1], i) => el('rect', { x: x(e0), y: y0, width: Math.max(0.5, x(e1) - x(e0)), height: Math.max(0.5, y1 - y0), fill: fill(row[i]) })).join('');
   }).join('');
   const tracks = (input.tracks ?? []).map((track, k) => {

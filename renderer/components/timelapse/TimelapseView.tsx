@@ -4,7 +4,7 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import type { EgglineApi, MovieRequestOptions, MovieView } from '../../../core/contract';
 import type { StackInfo } from '../../../core/model';
-import { parseTimeSelection, parseTimeStepS, selectTimeIndices, timeSelectionText, type TimeSelection } from '../../../core/settings';
+import { parseTimeSelection, parseTimeStepS, selectTimeIndices, timePointsForMovie, timeSelectionText, type TimeSelection } from '../../../core/settings';
 import { FieldFrame } from '../settings/SettingField';
 import { valueWithCi } from '../../../core/figures';
 import type { MovieState } from '../../hooks/useMovie';
@@ -200,9 +200,9 @@ function chosenTimesText(time: string, sizeT: number | null): string {
   const asked = time.includes(':') ? `Time points ${time.replace(':', ' to ')} (0-based)${of}` : `Time point ${time} (0-based)${of}`;
   let sel: TimeSelection;
   try { sel = parseTimeSelection(time); } catch { return asked; }
-  const lastAsked = sel.kind === 'one' ? sel.index : sel.kind === 'range' ? sel.last : -1;
-  if (sizeT === null || lastAsked < sizeT) return asked;
-  const picked = selectTimeIndices(sel, sizeT);
+  if (sizeT === null) return asked;
+  const { tIndices: picked, warning } = timePointsForMovie(sel, sizeT, '');
+  if (warning === null) return asked;
   if (picked.length === 0) return `No time point (${time} asked for lies past the movie's end, time points 0 to ${sizeT - 1})`;
   const got = picked.length === 1 ? `Time point ${picked[0]}` : `Time points ${picked[0]} to ${picked[picked.length - 1]}`;
   return `${got} (0-based)${of} (${time} asked for, past the movie's end)`;
