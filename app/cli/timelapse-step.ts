@@ -47,6 +47,8 @@ export function reportTimelapse(
   for (const f of pass.failures) io.stderr.write(f.warningOnly ? `eggline: warning: ${f.error}\n` : `eggline: ${f.error}\n`);
   const named = (file: string, w: string): string => (w.startsWith(`${file}: `) ? w : `${file}: ${w}`);
   for (const m of pass.movies) for (const w of m.summary.warnings) io.stderr.write(`eggline: warning: ${named(m.file, w)}\n`);
-  io.stdout.write(`Time analysis of ${pass.movies.length} movie${pass.movies.length === 1 ? '' : 's'}: timecourse.csv, accumulation.csv, model_fit.csv and ${join(outDir, 'timelapse.html')}\n`);
+  io.stdout.write(pass.movies.length === 0
+    ? `No movie was analysed over time (see the warnings above); the time tables hold their headers only, and ${join(outDir, 'timelapse.html')} lists the movies\n`
+    : `Time analysis of ${pass.movies.length} movie${pass.movies.length === 1 ? '' : 's'}: timecourse.csv, accumulation.csv, model_fit.csv and ${join(outDir, 'timelapse.html')}\n`);
   return pass.failures.filter((f) => !f.warningOnly).length;
 }

@@ -21,7 +21,9 @@ export { segmentEmbryo, combinedSnr, channelSnr, checkSegmentOptions, downsample
 export type { SegmentOptions } from './segment';
 export { resolveChannel, describeChannelRef } from './channel-ref';
 export { selectKth, medianInPlace, maskedMedian } from './select';
-export { SAMPLE_COUNTS, sampleMedian, wholeNumberMedian } from './median-whole';
+export { SAMPLE_COUNTS, counterMedian, sampleMedian, wholeNumberMedian } from './median-whole';
+export { runCounter } from './run-counter';
+export type { RunCounter } from './run-counter';
 export { maskRuns } from './runs';
 export type { MaskRuns } from './runs';
 export { applyImageCorrections, backgroundImage, correctionMismatch, normaliseFlatField } from './corrections';

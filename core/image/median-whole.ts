@@ -1,5 +1,6 @@
 // Median of whole-number pixel values (8- and 16-bit samples projected without averaging) by one counting pass.
 import type { MaskRuns } from './runs';
+import { countRunSamples, type RunCounter } from './run-counter';
 
 /** Values are counted in blocks of this many; a block holding a value that is not a whole number 0…65 535 ends the count. */
 const BLOCK = 16_384;
@@ -112,27 +113,8 @@ export function wholeNumberMedian(values: Float32Array, keep: Uint8Array, runs: 
   return { median: n % 2 === 1 ? upper : (lower + upper) / 2, count: n };
 }
 
-/** counts[v + 65 536·j] += 1 for each sample v of runs, lane j = position mod 4 within a run (see countWhole);
- *  returns how many samples were counted. */
-function countSamples(samples: Uint8Array | Uint16Array, runs: MaskRuns, counts: Uint32Array): number {
-  let n = 0;
-  for (let r = 0; r < runs.count; r++) {
-    const end = runs.end[r];
-    let i = runs.start[r];
-    n += end - i;
-    for (; i + 3 < end; i += 4) {
-      counts[samples[i]]++;
-      counts[samples[i + 1] + 65_536]++;
-      counts[samples[i + 2] + 131_072]++;
-      counts[samples[i + 3] + 196_608]++;
-    }
-    for (; i < end; i++) counts[samples[i]]++;
-  }
-  return n;
-}
-
 /**
- * countSamples for 16-bit samples read two at a time as 32-bit words (`words` views the same bytes; a sample's lane
+ * countRunSamples for 16-bit samples read two at a time as 32-bit words (`words` views the same bytes; a sample's lane
  * is whichever half of a word it sits in, so the byte order does not matter): half the loads and bounds checks.
  */
 function countSampleWords(samples: Uint16Array, words: Uint32Array, runs: MaskRuns, counts: Uint32Array): number {
@@ -162,7 +144,7 @@ function countSampleWords(samples: Uint16Array, words: Uint32Array, runs: MaskRu
   return n;
 }
 
-/** The value of 0-based rank `rank` among the samples counted in the four lanes of countSamples: the lanes are
+/** The value of 0-based rank `rank` among the samples counted in the four lanes of countRunSamples: the lanes are
  *  added up only for the values up to it (a background's median lies low, so few of the 65 536 slots are read). */
 function sampleAtRank(lanes: Uint32Array, rank: number): number {
   let v = 0;
@@ -202,11 +184,21 @@ export function sampleMedian(samples: Uint8Array | Uint16Array, runs: MaskRuns, 
   const lanes = scratch !== null && scratch.length === SAMPLE_COUNTS ? scratch : new Uint32Array(SAMPLE_COUNTS);
   const n = samples instanceof Uint16Array && samples.byteOffset % 4 === 0
     ? countSampleWords(samples, new Uint32Array(samples.buffer, samples.byteOffset, samples.length >> 1), runs, lanes)
-    : countSamples(samples, runs, lanes);
+    : countRunSamples(samples, runs, lanes);
+  return medianOfCounted(lanes, n);
+}
+
+/** The median and count of the n samples counted in the lanes, which are then all zero again; null when n is 0. */
+function medianOfCounted(lanes: Uint32Array, n: number): { median: number; count: number } | null {
   if (n === 0) return null;
   const hiRank = n >> 1;
   const upper = sampleAtRank(lanes, hiRank);
   const lower = n % 2 === 1 ? upper : sampleAtRank(lanes, hiRank - 1);
   clearCounts(lanes, n);
   return { median: n % 2 === 1 ? upper : (lower + upper) / 2, count: n };
+}
+
+/** sampleMedian over the runs of a RunCounter (made once for a series of planes): the same number. */
+export function counterMedian(counter: RunCounter, samples: Uint8Array | Uint16Array): { median: number; count: number } | null {
+  return medianOfCounted(counter.lanes, counter.count(samples));
 }

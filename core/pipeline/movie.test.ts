@@ -117,4 +117,15 @@ describe('analyseMovie (demo data: a small synthetic movie)', () => {
     const run = analyseMovie(info, busy, DEFAULT_SETTINGS, { fileLabel: 'm.ome.tif', timeIndices: Array.from({ length: info.sizeT }, (_, t) => t), signal });
     await expect(run).rejects.toThrow(/^m\.ome\.tif: analysis over time cancelled$/);
   });
+
+  it('stops while the embryo is being found when cancelled then, reading no further sampled time point', async () => {
+    // Demo data: the cancel arrives with the first plane read; the sampled time points after the first are never read.
+    const source = syntheticMoviePlaneSource(movie);
+    const signal = { aborted: false };
+    const readTimes = new Set<number>();
+    const watched: typeof source = { ...source, readPlane: (z, c, t, into) => { readTimes.add(t); signal.aborted = true; return source.readPlane(z, c, t, into); } };
+    const run = analyseMovie(info, watched, DEFAULT_SETTINGS, { fileLabel: 'm.ome.tif', timeIndices: [0, 1, 2], signal });
+    await expect(run).rejects.toThrow(/^m\.ome\.tif: analysis over time cancelled$/);
+    expect(readTimes.size).toBe(1);
+  });
 });

@@ -73,12 +73,15 @@ const KEEP_PROJECTIONS_BYTES = 128 * 2 ** 20;
  * The mean over sampled time points of the Z projections, and the projections of those time points in `keep`
  * (while they fit in KEEP_PROJECTIONS_BYTES), so their analysis does not read their planes again.
  */
-async function projectSampled(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, times: readonly number[], keep: ReadonlySet<number>, corrections: ImageCorrections | null = null): Promise<{ mean: ProjectedStack; kept: Map<number, ProjectedStack> }> {
+async function projectSampled(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, times: readonly number[], keep: ReadonlySet<number>, corrections: ImageCorrections | null = null,
+  stop: (() => void) | null = null): Promise<{ mean: ProjectedStack; kept: Map<number, ProjectedStack> }> {
   let first: ProjectedStack | null = null;
   let sums: Float32Array[] = [];
   const kept = new Map<number, ProjectedStack>();
   let keptBytes = 0;
   for (const t of times) {
+    // stop() throws once the run is cancelled: before each sampled time point's planes are read.
+    stop?.();
     const p = await correctedProjection(info, source, { ...settings, timeIndex: t }, corrections);
     if (!first) { first = p; sums = p.channels.map((c) => Float32Array.from(c.data)); } else p.channels.forEach((c, i) => addInto(sums[i], c.data));
     const bytes = p.channels.reduce((n, c) => n + c.data.byteLength, 0);
@@ -117,12 +120,14 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
   if (options.signal?.aborted) throw cancelled(fileLabel);
   let lastYieldMs = Date.now();
   if (!options.axisPerTime) {
+    const stop = options.signal ? () => { if (options.signal?.aborted) throw cancelled(fileLabel); } : null;
     try {
-      const sampled = await projectSampled(info, source, settings, axisSampleTimes(info.sizeT, options.axisSampleCount ?? 8), new Set(timeIndices), options.corrections ?? null);
+      const sampled = await projectSampled(info, source, settings, axisSampleTimes(info.sizeT, options.axisSampleCount ?? 8), new Set(timeIndices), options.corrections ?? null, stop);
       kept = sampled.kept;
       detection = detectEmbryo(sampled.mean, settings);
       options.onDetection?.(detection);
     } catch (e) {
+      if (e instanceof Error && e.name === 'AbortError' && options.signal?.aborted) throw e;
       const r = errorResult(fileLabel, `embryo over time: ${e instanceof Error ? e.message : String(e)}`);
       return { timeIndices, results: timeIndices.map((t) => withTimePoint(r, t, info.time?.timesS?.[t] ?? null)), movieAxis: null };
     }

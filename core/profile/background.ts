@@ -1,7 +1,7 @@
 // Background estimates per channel: outside the embryo (robust), a drawn rectangle, or none.
 import type { BackgroundEstimate, Mask, Plane, RawPlane } from '../model';
 import type { BackgroundSettings } from '../settings';
-import { SAMPLE_COUNTS, maskRuns, maskedMedian, sampleMedian, sortedQuantile, squareDilate, wholeNumberMedian, type MaskRuns } from '../image';
+import { counterMedian, maskRuns, maskedMedian, runCounter, sampleMedian, sortedQuantile, squareDilate, wholeNumberMedian, type MaskRuns, type RunCounter } from '../image';
 
 /** Fewest outside pixels accepted for the 'outside' estimate before falling back to a low percentile. */
 const MIN_OUTSIDE_PX = 100;
@@ -27,29 +27,30 @@ export function farFromMask(mask: Mask, marginPx: number): Uint8Array {
 export interface FarPixels {
   readonly mask: Uint8Array;
   readonly runs: MaskRuns;
-  /** Counts lent to sampleMedian for each plane measured over these pixels, one plane at a time (all zero between
-   *  planes: sampleMedian clears what it counted). */
-  readonly counts: Uint32Array;
+  /** Counts these pixels' decoded samples, one plane at a time (counterMedian). */
+  readonly counter: RunCounter;
 }
 
 /** farFromMask with the runs of those pixels, for a series of planes measured within one mask (a movie). */
 export function farPixels(mask: Mask, marginPx: number): FarPixels {
   const far = farFromMask(mask, marginPx);
-  return { mask: far, runs: maskRuns({ width: mask.width, height: mask.height, data: far }, true), counts: new Uint32Array(SAMPLE_COUNTS) };
+  const runs = maskRuns({ width: mask.width, height: mask.height, data: far }, true);
+  return { mask: far, runs, counter: runCounter(runs, mask.width * mask.height) };
 }
 
 /**
  * outsideBackground with the far-from-mask pixels already known (so several channels share one distance map), and
  * their runs when known (farRuns = maskRuns of far). With the runs and `raw`, the decoded 8/16-bit plane whose
- * values `plane` holds exactly (ProjectedStack.rawPlanes), the median is counted from those samples (sampleMedian, into `counts` when lent);
+ * values `plane` holds exactly (ProjectedStack.rawPlanes), the median is counted from those samples (counterMedian
+ * with `counter`, a RunCounter of farRuns, when given; else sampleMedian);
  * else whole-number values (8/16-bit samples, not averaged) take it from one counting pass over the floats
  * (wholeNumberMedian), others from maskedMedian: the same number every way.
  */
 export function outsideBackgroundFar(plane: Plane, far: Uint8Array, farRuns: MaskRuns | null = null, raw: RawPlane | null = null,
-  counts: Uint32Array | null = null): { value: number; warning: string | null } {
+  counter: RunCounter | null = null): { value: number; warning: string | null } {
   const samples = raw?.data;
   const counted = farRuns && (samples instanceof Uint16Array || samples instanceof Uint8Array) && samples.length === plane.data.length
-    ? sampleMedian(samples, farRuns, counts) : null;
+    ? (counter ? counterMedian(counter, samples) : sampleMedian(samples, farRuns)) : null;
   const { median, count } = counted ?? wholeNumberMedian(plane.data, far, farRuns) ?? maskedMedian(plane.data, far);
   if (count >= MIN_OUTSIDE_PX) return { value: median, warning: null };
   const all = Float64Array.from(plane.data).sort();
@@ -73,7 +74,7 @@ export function estimateBackgrounds(channels: readonly Plane[], names: readonly 
   knownFar: FarPixels | null = null, rawPlanes: readonly RawPlane[] | null = null): { backgrounds: BackgroundEstimate[]; warnings: string[] } {
   const warnings: string[] = [];
   // knownFar: farPixels(mask, marginPx) already computed for this mask (a movie's time points share one mask).
-  const far = settings.mode === 'outside' ? knownFar ?? { mask: farFromMask(mask, marginPx), runs: null, counts: null } : null;
+  const far = settings.mode === 'outside' ? knownFar ?? { mask: farFromMask(mask, marginPx), runs: null, counter: null } : null;
   const backgrounds = channels.map((plane, c): BackgroundEstimate => {
     if (settings.mode === 'none') return { channel: names[c], method: 'none', value: 0 };
     if (settings.mode === 'region') {
@@ -85,7 +86,7 @@ export function estimateBackgrounds(channels: readonly Plane[], names: readonly 
       return { channel: names[c], method: 'region', value: v };
     }
     // rawPlanes: the decoded samples the channels hold exactly (ProjectedStack.rawPlanes), when known.
-    const out = outsideBackgroundFar(plane, far!.mask, far!.runs, rawPlanes?.[c] ?? null, far!.counts);
+    const out = outsideBackgroundFar(plane, far!.mask, far!.runs, rawPlanes?.[c] ?? null, far!.counter);
     if (out.warning && c === 0) warnings.push(out.warning);
     return { channel: names[c], method: 'outside', value: out.value };
   });
