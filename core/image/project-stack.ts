@@ -133,7 +133,7 @@ export async function projectStack(info: StackInfo, source: PlaneSource, setting
     const zs = settings.projection === 'slice' ? [settings.sliceIndex as number] : Array.from({ length: info.sizeZ }, (_, z) => z);
     // One plane per channel (a chosen slice, or a stack of one slice): its projection is a conversion of that plane.
     const one: Plane[] = [];
-    const projectors: Projector[] = zs.length === 1 ? [] : names.map(() => createProjector(info.sizeX, info.sizeY, settings.projection));
+    const projectors: Projector[] = zs.length === 1 ? [] : names.map((_, c) => createProjector(info.sizeX, info.sizeY, settings.projection, into?.[c] ?? null));
     // Planes in file order (by IFD; stable, so each channel still gets its slices in z order): the file is read
     // front to back, which disks like and which lets the batch hash the bytes as they are decoded.
     const order = zs.flatMap((z) => names.map((_, c) => ({ z, c, ifd: info.planeIfd[(t * info.sizeC + c) * info.sizeZ + z] ?? 0 })))

@@ -66,11 +66,19 @@ function copyInto(acc: Accumulator, d: ArrayLike<number>, n: number): void {
 }
 
 /** Accumulator for the first plane: narrow types keep the memory traffic low while staying exact — Uint32 sums of
- * 8/16-bit planes (exact up to 65 536 planes), Float32 maxima of values Float32 holds exactly — else Float64. */
-function newAccumulator(method: ProjectionMethod, d: ArrayLike<number>, n: number): Accumulator {
-  if ((method === 'mean' || method === 'sum') && (d instanceof Uint8Array || d instanceof Uint16Array)) return new Uint32Array(n);
-  if (method === 'max' && fitsFloat32(d)) return new Float32Array(n).fill(-Infinity);
+ * 8/16-bit planes (exact up to 65 536 planes), Float32 maxima of values Float32 holds exactly — else Float64. With
+ * `lent`, a narrow accumulator is a view of its bytes (same length, 4 bytes a value) instead of a new array. */
+function newAccumulator(method: ProjectionMethod, d: ArrayLike<number>, n: number, lent: Float32Array | null): Accumulator {
+  if ((method === 'mean' || method === 'sum') && (d instanceof Uint8Array || d instanceof Uint16Array)) {
+    return lent ? new Uint32Array(lent.buffer, lent.byteOffset, n) : new Uint32Array(n);
+  }
+  if (method === 'max' && fitsFloat32(d)) return (lent ?? new Float32Array(n)).fill(-Infinity);
   return method === 'max' ? new Float64Array(n).fill(-Infinity) : new Float64Array(n);
+}
+
+/** out[i] = acc[i] as a Float32 (a loop: TypedArray set would first copy a source that shares out's buffer). */
+function convertInto(out: Float32Array, acc: Accumulator, n: number): void {
+  for (let i = 0; i < n; i++) out[i] = acc[i];
 }
 
 /** Whether plane data d can be added exactly to acc (else acc is widened to Float64 first). */
@@ -113,23 +121,30 @@ export function projectOnePlane(plane: RawPlane | Plane, method: ProjectionMetho
 
 /**
  * Create a projector over Z for planes of widthPx × heightPx: 'max' = per-pixel maximum, 'mean' = average,
- * 'sum' = total, 'slice' = the last plane added (the caller adds only the chosen slice).
+ * 'sum' = total, 'slice' = the last plane added (the caller adds only the chosen slice). `lent` (optional, width ×
+ * height values), the array the caller will pass to result(): for 8- and 16-bit samples the planes are accumulated
+ * in its own bytes (a Uint32 view for a mean or sum, the array itself for a maximum), so a projection allocates no
+ * accumulator; its contents are overwritten from the first plane on. The result is the same either way.
  */
-export function createProjector(widthPx: number, heightPx: number, method: ProjectionMethod): Projector {
+export function createProjector(widthPx: number, heightPx: number, method: ProjectionMethod, lent: Float32Array | null = null): Projector {
   checkProjectorOptions(widthPx, heightPx, method);
   const n = widthPx * heightPx;
+  if (lent !== null && lent.length !== n) throw new Error(`output holds ${lent.length} values, the projection ${n}`);
   // Accumulation is exact: Float64 in general, narrower arrays where they are exact too (see newAccumulator).
   let acc: Accumulator | null = null;
   let count = 0;
+  // Set once result() has converted an accumulator held in the lent array's bytes into that array.
+  let spent = false;
   return {
     get count() { return count; },
     add(plane) {
+      if (spent) throw new Error('this projection was already written into its lent array');
       if (plane.width !== widthPx || plane.height !== heightPx || plane.data.length !== n) {
         throw new Error(`plane is ${plane.width}×${plane.height} but the projection is ${widthPx}×${heightPx}`);
       }
       const d = plane.data as ArrayLike<number>;
       if (acc === null) {
-        acc = newAccumulator(method, d, n);
+        acc = newAccumulator(method, d, n, lent);
         // The first plane of integer samples is copied in natively: 0 + v, max(−Infinity, v) and v are all v for
         // an integer, and every accumulator holds these exactly (float samples take the loops: −0 and NaN).
         if (isIntegerArray(d)) { acc.set(d); count++; return; }
@@ -141,11 +156,19 @@ export function createProjector(widthPx: number, heightPx: number, method: Proje
     },
     result(into) {
       if (count === 0 || acc === null) throw new Error('no planes were added to the projection');
+      if (spent) throw new Error('this projection was already written into its lent array');
       if (into !== undefined && into.length !== n) throw new Error(`output holds ${into.length} values, the projection ${n}`);
       const out = into ?? new Float32Array(n);
+      // An accumulator in the lent array's bytes is converted in place when `out` is that very array (each value
+      // is read before the same index is written); any other output sharing those bytes gets a copy first. After an
+      // in-place conversion the accumulator is gone, so this projector takes no more planes.
+      const inPlace = out === lent && acc.buffer === out.buffer && acc.byteOffset === out.byteOffset;
+      const from = acc.buffer === out.buffer && !inPlace ? acc.slice() : acc;
       // Unscaled (max, sum, slice, a mean of one plane): a conversion, which TypedArray set does natively (acc · 1 = acc).
-      if (method === 'mean' && count > 1) scaleInto(out, acc, 1 / count, n);
-      else out.set(acc);
+      if (method === 'mean' && count > 1) scaleInto(out, from, 1 / count, n);
+      else if (from === out) { /* a maximum kept in the output itself */ } else if (inPlace) convertInto(out, from, n);
+      else out.set(from);
+      if (inPlace) spent = true;
       return { width: widthPx, height: heightPx, data: out };
     },
   };
