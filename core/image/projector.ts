@@ -28,6 +28,11 @@ function fitsFloat32(d: ArrayLike<number>): boolean {
   return d instanceof Uint8Array || d instanceof Uint16Array || d instanceof Int8Array || d instanceof Int16Array || d instanceof Float32Array;
 }
 
+/** Integer sample arrays (every value an integer that the projector's accumulators hold exactly). */
+function isIntegerArray(d: ArrayLike<number>): d is Uint8Array | Uint16Array | Int8Array | Int16Array | Uint32Array | Int32Array {
+  return d instanceof Uint8Array || d instanceof Uint16Array || d instanceof Int8Array || d instanceof Int16Array || d instanceof Uint32Array || d instanceof Int32Array;
+}
+
 /** Per-pixel maximum into acc (separate small loops keep each call site to one array type). */
 function addMax(acc: Accumulator, d: ArrayLike<number>, n: number): void {
   for (let i = 0; i < n; i++) if (d[i] > acc[i]) acc[i] = d[i];
@@ -123,8 +128,12 @@ export function createProjector(widthPx: number, heightPx: number, method: Proje
         throw new Error(`plane is ${plane.width}×${plane.height} but the projection is ${widthPx}×${heightPx}`);
       }
       const d = plane.data as ArrayLike<number>;
-      if (acc === null) acc = newAccumulator(method, d, n);
-      else if (!accepts(acc, d, count)) acc = Float64Array.from(acc);
+      if (acc === null) {
+        acc = newAccumulator(method, d, n);
+        // The first plane of integer samples is copied in natively: 0 + v, max(−Infinity, v) and v are all v for
+        // an integer, and every accumulator holds these exactly (float samples take the loops: −0 and NaN).
+        if (isIntegerArray(d)) { acc.set(d); count++; return; }
+      } else if (!accepts(acc, d, count)) acc = Float64Array.from(acc);
       if (method === 'max') addMax(acc, d, n);
       else if (method === 'slice') copyInto(acc, d, n);
       else addSum(acc, d, n);

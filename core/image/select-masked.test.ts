@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { maskedMedian, medianInPlace } from './select';
+import { lowKeyCounts, maskedMedian, medianInPlace } from './select';
 
 /** Reference: median of a sorted copy (mean of the two middle values for an even count). */
 function sortMedian(values: number[]): number {
@@ -81,6 +81,44 @@ describe('maskedMedian', () => {
       const r = maskedMedian(v, k);
       expect(r.count).toBe(kept.length);
       expect(r.median).toBe(sortMedian(kept));
+    }
+  });
+});
+
+/** Order-key bucket of a Float32 bit pattern, written plainly: the top 16 bits with all bits flipped for a negative
+ *  value and only the sign bit for others. Source: from memory, the usual float radix-sort key. */
+function plainBucket(bits: number): number {
+  const key = bits >= 0x8000_0000 ? ~bits >>> 0 : (bits | 0x8000_0000) >>> 0;
+  return key >>> 16;
+}
+
+describe('lowKeyCounts', () => {
+  it('counts exactly what a plain loop with a test per pixel counts (random values, masks and buckets)', () => {
+    // Source: the plain loop below is the reference (demo data: seeded values of both signs, infinities, NaN,
+    // masks with values other than 0 and 1; one bucket and two).
+    const rnd = lcg(21);
+    for (const n of [1, 7, 1000, 50_003]) {
+      const values = Float32Array.from({ length: n }, () => {
+        const u = rnd();
+        if (u < 0.01) return [NaN, Infinity, -Infinity, -0, 0][Math.floor(rnd() * 5)];
+        return (rnd() - 0.3) * (u < 0.5 ? 4 : 400);
+      });
+      const bits = new Uint32Array(values.buffer);
+      const keep = Uint8Array.from({ length: n }, () => (rnd() < 0.7 ? (rnd() < 0.5 ? 1 : 3) : 0));
+      for (let t = 0; t < 6; t++) {
+        const b1 = plainBucket(bits[Math.floor(rnd() * n)]);
+        const b2 = t % 2 === 0 ? b1 : plainBucket(bits[Math.floor(rnd() * n)]);
+        const plain = new Uint32Array(2 * 65_536 + 1);
+        for (let i = 0; i < n; i++) {
+          if (keep[i] === 0) continue;
+          const b = plainBucket(bits[i]);
+          if (b !== b1 && b !== b2) continue;
+          const key = bits[i] >= 0x8000_0000 ? ~bits[i] >>> 0 : (bits[i] | 0x8000_0000) >>> 0;
+          plain[(b === b1 ? 0 : 65_536) + (key & 0xffff)]++;
+        }
+        const fast = lowKeyCounts(bits, keep, n, b1, b2);
+        expect(Array.from(fast.subarray(0, 2 * 65_536))).toEqual(Array.from(plain.subarray(0, 2 * 65_536)));
+      }
     }
   });
 });

@@ -132,16 +132,19 @@ function gatherKept(values: Float32Array, keep: Uint8Array, len: number, n: numb
 /**
  * Counts of the low 16 bits of the order keys of the kept values in the finite bucket b1 (slots 0..65 535) and, when
  * b2 ≠ b1, in bucket b2 (slots 65 536..131 071). The low 16 bits of the order key are the value's low 16 bits,
- * all flipped for a negative value.
+ * all flipped for a negative value. Without a branch per pixel (whether a value falls in b1 or b2 follows no
+ * pattern): a pixel that is not kept or lies in another bucket is counted in a spare slot (131 072) instead.
+ * Exactly the counts of the plain loop with tests (select-masked.test.ts).
  */
-function lowKeyCounts(bits: Uint32Array, keep: Uint8Array, len: number, b1: number, b2: number): Uint32Array {
-  const low = new Uint32Array(2 * 65_536);
+export function lowKeyCounts(bits: Uint32Array, keep: Uint8Array, len: number, b1: number, b2: number): Uint32Array {
+  const low = new Uint32Array(2 * 65_536 + 1);
+  const spare = 2 * 65_536;
   for (let i = 0; i < len; i++) {
-    if (keep[i] === 0) continue;
     const v = bits[i];
     const b = bucketOf(v);
-    if (b !== b1 && b !== b2) continue;
-    low[(+(b !== b1) << 16) | ((v & 0xffff) ^ ((v >> 31) & 0xffff))]++;
+    const hit = -(+(keep[i] !== 0) & (+(b === b1) | +(b === b2)));
+    const slot = (+(b !== b1) << 16) | ((v & 0xffff) ^ ((v >> 31) & 0xffff));
+    low[(slot & hit) | (spare & ~hit)]++;
   }
   return low;
 }
