@@ -76,6 +76,35 @@ describe('projectStack', () => {
     expect((await projectStack(info, source, slice)).rawPlanes).toBeUndefined();
   });
 
+  it('lazy: converts a one-plane channel to floats only when its data is read, to the same values', async () => {
+    // Demo data: the tiny stack above, slice 2 decoded into lent arrays; the floats go into the caller's arrays.
+    const { info, source } = tinyStack(known);
+    const lending: PlaneSource = {
+      async readPlane(z, c, t, into) {
+        const plane = await source.readPlane(z, c, t);
+        if (!(into instanceof Uint16Array)) return plane;
+        into.set(plane.data);
+        return { ...plane, data: into };
+      },
+      close: () => source.close(),
+    };
+    const slice = { ...DEFAULT_SETTINGS, projection: 'slice' as const, sliceIndex: 2 };
+    const into = [new Float32Array(3).fill(-1), new Float32Array(3).fill(-1)];
+    const lazy = await projectStack(info, lending, slice, null, into, reusedPlaneArrays(), true);
+    // Nothing converted yet: the caller's arrays are untouched, the raw planes are there.
+    expect(Array.from(into[0])).toEqual([-1, -1, -1]);
+    expect(lazy.rawPlanes?.map((r) => Array.from(r.data))).toEqual([[2, 4, 6], [12, 24, 36]]);
+    expect(lazy.channels[1].width).toBe(3);
+    expect(Array.from(into[1])).toEqual([-1, -1, -1]);
+    // Read: the same floats as the eager projection, in the caller's array, made once.
+    const eager = await projectStack(info, lending, slice, null, null, reusedPlaneArrays());
+    expect(Array.from(lazy.channels[1].data)).toEqual(Array.from(eager.channels[1].data));
+    expect(lazy.channels[1].data).toBe(into[1]);
+    expect(Array.from(into[0])).toEqual([-1, -1, -1]);
+    // Without lent plane arrays there are no raw planes to keep, so lazy changes nothing.
+    expect(Array.from((await projectStack(info, source, slice, null, null, null, true)).channels[0].data)).toEqual([2, 4, 6]);
+  });
+
   it('takes the chosen slice and reads only it', async () => {
     const { info, source, reads } = tinyStack(known);
     const p = await projectStack(info, source, { ...DEFAULT_SETTINGS, projection: 'slice', sliceIndex: 2 });

@@ -1,5 +1,5 @@
 // Project a stack over Z per channel, reading plane by plane (a stack is never held whole; at most two planes are).
-import type { PixelSize, PixelSizeSource, Plane, PlaneSource, ProjectedStack, RawPlane, SampleType, StackInfo } from '../model';
+import type { PixelSize, PixelSizeSource, Plane, PlaneSource, ProjectedStack, ProjectionMethod, RawPlane, SampleType, StackInfo } from '../model';
 import type { AnalysisSettings } from '../settings';
 import { createProjector, projectOnePlane } from './projector';
 import type { Projector } from './projector';
@@ -104,6 +104,19 @@ function clearNonFinite(planes: readonly Plane[]): number {
 /** 8- and 16-bit integer samples: a projection of one such plane holds its values exactly (see projectOnePlane). */
 const EXACT_IN_FLOAT32: ReadonlySet<SampleType> = new Set(['uint8', 'int8', 'uint16', 'int16']);
 
+/** projectOnePlane(plane, method, out), made when its `data` is first read (then kept). */
+function lazyOnePlane(plane: RawPlane, method: ProjectionMethod, out: Float32Array | undefined): Plane {
+  let data: Float32Array | null = null;
+  return {
+    width: plane.width,
+    height: plane.height,
+    get data(): Float32Array {
+      data ??= projectOnePlane(plane, method, out).data;
+      return data;
+    },
+  };
+}
+
 /**
  * Project every channel of a stack over Z at settings.timeIndex with settings.projection, reading one plane at a time.
  * 'slice' uses settings.sliceIndex, or, when null, the slice with the highest contrast (see chooseSliceScore), scored
@@ -112,11 +125,14 @@ const EXACT_IN_FLOAT32: ReadonlySet<SampleType> = new Set(['uint8', 'int8', 'uin
  * receives the projections (a movie reuses its arrays at every time point) except for an automatic slice. `planes`,
  * when given, are the arrays the planes are decoded into (slot c for a channel's one plane; slots 0 and 1 in turn
  * when channels have several): then a projection of one 8- or 16-bit plane per channel also gives those planes as
- * `rawPlanes` (valid until `planes` serve the next projection). Rejects with a one-line message on bad indices or
- * planes of the wrong size.
+ * `rawPlanes` (valid until `planes` serve the next projection). With `lazy` (and such raw planes), each channel's
+ * floats are converted from its plane only when its `data` is first read: a caller that reads the raw planes alone
+ * (a movie's time point within a known embryo) never pays for the conversion, and one that reads `data` gets the
+ * same values, as long as it does so before `planes` serve the next projection. Rejects with a one-line message on
+ * bad indices or planes of the wrong size.
  */
 export async function projectStack(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, corrections: ImageCorrections | null = null,
-  into: readonly Float32Array[] | null = null, planes: PlaneArrays | null = null): Promise<ProjectedStack> {
+  into: readonly Float32Array[] | null = null, planes: PlaneArrays | null = null, lazy = false): Promise<ProjectedStack> {
   checkIndices(info, settings);
   const warnings: string[] = [];
   const px = resolvePixelSize(info.pixelSize, settings.pixelSizeUm, warnings);
@@ -139,8 +155,12 @@ export async function projectStack(info: StackInfo, source: PlaneSource, setting
     const order = zs.flatMap((z) => names.map((_, c) => ({ z, c, ifd: info.planeIfd[(t * info.sizeC + c) * info.sizeZ + z] ?? 0 })))
       .sort((a, b) => a.ifd - b.ifd);
     const read: RawPlane[] = [];
+    const convertLater = lazy && planes !== null && EXACT_IN_FLOAT32.has(info.sampleType);
     const add = zs.length === 1
-      ? (c: number, plane: RawPlane) => { one[c] = projectOnePlane(plane, settings.projection, into?.[c]); read[c] = plane; }
+      ? (c: number, plane: RawPlane) => {
+        one[c] = convertLater ? lazyOnePlane(plane, settings.projection, into?.[c]) : projectOnePlane(plane, settings.projection, into?.[c]);
+        read[c] = plane;
+      }
       : (c: number, plane: RawPlane) => projectors[c].add(plane);
     // At most two planes are held at once (readAhead), so several planes per channel take slots 0 and 1 in turn.
     const slot = (i: number): number => (zs.length === 1 ? order[i].c : i % 2);

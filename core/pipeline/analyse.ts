@@ -31,6 +31,9 @@ export interface AnalyseOptions {
   /** Arrays the planes it reads are decoded into (reusedPlaneArrays; a movie, for every time point), so that no plane
    *  is a new array and a one-plane projection keeps its decoded samples for the background. Absent = new arrays. */
   readonly planeArrays?: PlaneArrays | null;
+  /** With planeArrays: a one-plane channel's floats are made only if something reads them (projectStack's `lazy`);
+   *  a movie's time point within its known embryo reads the decoded samples alone. */
+  readonly lazyProjection?: boolean;
 }
 
 /**
@@ -38,8 +41,8 @@ export interface AnalyseOptions {
  * of sizeX·sizeY values per channel) when given, corrections included, else into new arrays.
  */
 export async function correctedProjection(info: StackInfo, source: PlaneSource, settings: AnalysisSettings, corrections: ImageCorrections | null | undefined,
-  into: readonly Float32Array[] | null = null, planes: PlaneArrays | null = null): Promise<ProjectedStack> {
-  const raw = await projectStack(info, source, settings, corrections ?? null, into, planes);
+  into: readonly Float32Array[] | null = null, planes: PlaneArrays | null = null, lazy = false): Promise<ProjectedStack> {
+  const raw = await projectStack(info, source, settings, corrections ?? null, into, planes, lazy);
   return corrections ? applyImageCorrections(raw, corrections, settings.projection === 'sum' ? info.sizeZ : 1, into !== null) : raw;
 }
 
@@ -66,7 +69,7 @@ async function analyseOneTimePoint(info: StackInfo, source: PlaneSource, setting
   const bad = checkInfo(info);
   if (bad) return errorResult(file, bad);
   try {
-    const projected = options.projected ?? await correctedProjection(info, source, settings, options.corrections, options.projectionBuffers ?? null, options.planeArrays ?? null);
+    const projected = options.projected ?? await correctedProjection(info, source, settings, options.corrections, options.projectionBuffers ?? null, options.planeArrays ?? null, options.lazyProjection === true);
     options.onProjected?.(projected);
     const detection = options.detection ?? detectEmbryo(projected, settings);
     const hand = options.handEdits?.axis ?? null;

@@ -159,7 +159,7 @@ export async function analyseMovie(info: StackInfo, source: PlaneSource, setting
       const onProjected = options.onProjected ? (p: ProjectedStack) => options.onProjected!(k, p, timeIndices.length) : undefined;
       const projected = keptFor[k];
       keptFor[k] = undefined;
-      results.push(await analyseStack(info, reading, settingsAt[k], { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection, onProjected, projected, prepare, corrections: options.corrections ?? null, projectionBuffers, planeArrays }));
+      results.push(await analyseStack(info, reading, settingsAt[k], { fileLabel, handEdits: at ? at.handEdits : options.handEdits ?? null, detection, onProjected, projected, prepare, corrections: options.corrections ?? null, projectionBuffers, planeArrays, lazyProjection: detection !== null }));
       options.onTimePoint?.(k + 1, timeIndices.length);
     }
   } finally {

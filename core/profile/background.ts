@@ -49,7 +49,7 @@ export function farPixels(mask: Mask, marginPx: number): FarPixels {
 export function outsideBackgroundFar(plane: Plane, far: Uint8Array, farRuns: MaskRuns | null = null, raw: RawPlane | null = null,
   counter: RunCounter | null = null): { value: number; warning: string | null } {
   const samples = raw?.data;
-  const counted = farRuns && (samples instanceof Uint16Array || samples instanceof Uint8Array) && samples.length === plane.data.length
+  const counted = farRuns && (samples instanceof Uint16Array || samples instanceof Uint8Array) && samples.length === plane.width * plane.height
     ? (counter ? counterMedian(counter, samples) : sampleMedian(samples, farRuns)) : null;
   const { median, count } = counted ?? wholeNumberMedian(plane.data, far, farRuns) ?? maskedMedian(plane.data, far);
   if (count >= MIN_OUTSIDE_PX) return { value: median, warning: null };

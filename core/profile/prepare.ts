@@ -1,5 +1,5 @@
 // Everything about sampling that does not depend on where the axis handles are: computed once per detection.
-import type { BackgroundEstimate, Detection, Mask, ProjectedStack } from '../model';
+import type { BackgroundEstimate, Detection, Mask, ProjectedStack, RawPlane } from '../model';
 import type { AnalysisSettings } from '../settings';
 import { foregroundBox } from '../image';
 import { estimateBackgrounds, farPixels, type FarPixels } from './background';
@@ -34,13 +34,19 @@ function keptPositions(keep: Uint8Array, width: number, box: Box): { idx: Int32A
 }
 
 /** The background-subtracted values of every channel at the pixels idx, into `into[c]` when given (else new arrays);
- *  through `runs` (indexRuns(idx)) when given, the same values read along rows. */
+ *  through `runs` (indexRuns(idx)) when given, the same values read along rows, and from `raw` (the decoded 8/16-bit
+ *  samples the channels hold exactly, ProjectedStack.rawPlanes) when given: raw − b rounds to the same float as
+ *  float(raw) − b, as every such sample is exact in a float. */
 function valuesAt(projected: ProjectedStack, idx: Int32Array, backgrounds: readonly BackgroundEstimate[], into: Float32Array[] | null = null,
-  runs: IndexRuns | null = null): Float32Array[] {
+  runs: IndexRuns | null = null, raw: readonly RawPlane[] | null = null): Float32Array[] {
   const values: Float32Array[] = [];
   for (let c = 0; c < projected.channels.length; c++) {
     const v = into?.[c] ?? new Float32Array(idx.length);
-    if (runs) subtractAlongRuns(projected.channels[c].data, runs, backgrounds[c].value, v);
+    const { width, height } = projected.channels[c];
+    const samples = raw?.[c]?.data;
+    if (runs && samples instanceof Uint16Array && samples.length === width * height) subtractAlongRuns16(samples, runs, backgrounds[c].value, v);
+    else if (runs && samples instanceof Uint8Array && samples.length === width * height) subtractAlongRuns8(samples, runs, backgrounds[c].value, v);
+    else if (runs) subtractAlongRuns(projected.channels[c].data, runs, backgrounds[c].value, v);
     else subtractAt(projected.channels[c].data, idx, backgrounds[c].value, v);
     values.push(v);
   }
@@ -65,6 +71,20 @@ export function indexRuns(idx: Int32Array): IndexRuns {
 
 /** subtractAt for the pixels of `runs`: out[k] = data[i] − b for i along each run in turn (no index list to read). */
 function subtractAlongRuns(data: Float32Array, runs: IndexRuns, b: number, out: Float32Array): void {
+  for (let r = 0, k = 0; r < runs.start.length; r++) {
+    for (let i = runs.start[r], end = runs.end[r]; i < end; i++) out[k++] = data[i] - b;
+  }
+}
+
+/** subtractAlongRuns over 16-bit samples (a function of its own, so each loop sees one array type). */
+function subtractAlongRuns16(data: Uint16Array, runs: IndexRuns, b: number, out: Float32Array): void {
+  for (let r = 0, k = 0; r < runs.start.length; r++) {
+    for (let i = runs.start[r], end = runs.end[r]; i < end; i++) out[k++] = data[i] - b;
+  }
+}
+
+/** subtractAlongRuns over 8-bit samples. */
+function subtractAlongRuns8(data: Uint8Array, runs: IndexRuns, b: number, out: Float32Array): void {
   for (let r = 0, k = 0; r < runs.start.length; r++) {
     for (let i = runs.start[r], end = runs.end[r]; i < end; i++) out[k++] = data[i] - b;
   }
@@ -181,7 +201,7 @@ export function samplingWithin(detection: Detection, samplers: readonly ProfileS
     const { parts } = kept;
     const base = samplingBase(projected, detection, settings, parts);
     const sampler = samplerFor(settings.profile.mode, samplers);
-    const pixels = { xs: parts.xs, ys: parts.ys, values: valuesAt(projected, parts.idx, base.backgrounds, parts.values, parts.runs) };
+    const pixels = { xs: parts.xs, ys: parts.ys, values: valuesAt(projected, parts.idx, base.backgrounds, parts.values, parts.runs, projected.rawPlanes ?? null) };
     return { ...base, sampler, region: { mask: parts.region, pixels }, binning: parts.binning };
   };
 }
