@@ -31,8 +31,13 @@ export function xAxisSvg(x: ScaleLinear<number, number>, area: PlotArea, title: 
   return el('g', { class: 'axis x-axis' }, ticks.join('') + axis + label);
 }
 
+/** Rough width of an axis title at 12 px in a sans-serif font (about 0.55 em a character; common practice). */
+export function titleWidthPx(title: string): number {
+  return title.length * 6.6;
+}
+
 /** Left y axis with ticks, labels, horizontal grid lines and a rotated title. */
-export function yAxisSvg(y: ScaleLinear<number, number>, area: PlotArea, title: string, tickCount = 5): string {
+export function yAxisSvg(y: ScaleLinear<number, number>, area: PlotArea, title: string, tickCount = 5, shortTitle: string | null = null): string {
   const fmt = y.tickFormat(tickCount);
   const right = area.left + area.width;
   const ticks = y.ticks(tickCount).map((t) => {
@@ -42,7 +47,9 @@ export function yAxisSvg(y: ScaleLinear<number, number>, area: PlotArea, title: 
       + textSvg(area.left - 8, yp + 4, fmt(t), { anchor: 'end', size: 11, cls: 'tick-label' });
   });
   const axis = lineSvg(area.left, area.top, area.left, area.top + area.height, { stroke: INK.axis });
-  const label = textSvg(area.left - 48, area.top + area.height / 2, title, { anchor: 'middle', rotate: -90, cls: 'axis-title' });
+  // A title much longer than the plot is tall would run out of the figure: the short one then (when given).
+  const shown = shortTitle !== null && titleWidthPx(title) > area.height + 60 ? shortTitle : title;
+  const label = textSvg(area.left - 48, area.top + area.height / 2, shown, { anchor: 'middle', rotate: -90, cls: 'axis-title' });
   return el('g', { class: 'axis y-axis' }, ticks.join('') + axis + label);
 }
 

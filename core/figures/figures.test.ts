@@ -64,6 +64,14 @@ describe('profileFigure', () => {
     expect(svg.indexOf('earlier-profile')).toBeLessThan(svg.indexOf('class="data-point"'));
     expect(count(profileFigure({ profile: p }), /earlier/g)).toBe(0);
   });
+  it('keeps the y-axis title inside a short figure by shortening it', () => {
+    // Demo data: the same profile in a figure 300 px tall (a panel of the window at 1280×720) and 420 px tall.
+    const p = e.gradientProfile!;
+    const title = (svg: string): string => [...svg.matchAll(/class="axis-title"[^>]*>([^<]*)</g)].map((m) => m[1]).find((t) => t.startsWith('intensity'))!;
+    expect(title(profileFigure({ profile: p, fit: e.gradientFit }, { heightPx: 300 }))).toBe('intensity − bg (a.u.)');
+    expect(title(profileFigure({ profile: p, fit: e.gradientFit }, { heightPx: 420 }))).toBe('intensity (a.u., background subtracted)');
+    expect(title(profileFigure({ profile: p }, { heightPx: 300, yLabel: 'intensity ÷ reference' }))).toBe('intensity ÷ reference');
+  });
   it('draws one point per bin, the fit over its range, boundaries and landmarks, labelled axes', () => {
     const svg = profileFigure({ profile: e.gradientProfile!, fit: e.gradientFit, boundaries: e.boundaries, landmarks: e.landmarks });
     checkSvg(svg);

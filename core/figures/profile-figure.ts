@@ -183,7 +183,7 @@ export function profileFigure(input: ProfileFigureInput, options: ProfileFigureO
   const clip = clipSvg(a, stableId('clip-profile', `${title}${widthPx}x${heightPx}${p.channel}`));
   const xTitle = options.xAxis === 'um' ? 'distance from the anterior pole (µm)' : 'position along the AP axis, x/EL (0 = anterior pole)';
   let body = clip.def + titleSvg({ ...a, top: titleBottom }, title, subtitle) + legend.svg + fm.shade + xAxisSvg(x, a, withResiduals ? '' : xTitle)
-    + yAxisSvg(c.y, a, options.yLabel ?? 'intensity (a.u., background subtracted)') + clip.wrap(earlierMarks(earlier, c) + dataMarks(p, c) + fm.curves + bm.rules + lm.marks)
+    + yAxisSvg(c.y, a, options.yLabel ?? 'intensity (a.u., background subtracted)', 5, options.yLabel ? null : 'intensity − bg (a.u.)') + clip.wrap(earlierMarks(earlier, c) + dataMarks(p, c) + fm.curves + bm.rules + lm.marks)
     + topLabelsSvg([...bm.labels, ...lm.labels], a.left, a.left + a.width, a.top);
   if (withResiduals && fit) {
     const rTop = a.top + a.height + 26;

@@ -9,6 +9,7 @@ import { expect } from 'vitest';
 import { analyseFile } from '../../app/batch/analyse-file';
 import type { BatchTask } from '../../app/batch/task';
 import { createDefaultEngine } from '../../app/engine/default-engine';
+import { buildMovieView } from '../../app/engine/movie-view';
 import { createHandlers } from '../../app/main/handlers';
 import type { ApiHandlers, HandlerDeps } from '../../app/main/handlers';
 import { API_INVOKE_METHODS } from '../../core/contract';
@@ -17,7 +18,7 @@ import { demoMovieFile } from '../../app/batch/write-demo';
 import { newProject, saveProject } from '../../app/project';
 import { DEFAULT_SETTINGS, type ProjectDoc } from '../../core/settings';
 import { DEMO_MOVIE_FILE } from '../../core/synth';
-import type { BatchProgress, ExportKind, MovieProgress } from '../../core/contract';
+import type { BatchProgress, ExportKind, MovieProgress, MovieRequestOptions } from '../../core/contract';
 
 /** Repository root and the built renderer. */
 export const ROOT = fileURLToPath(new URL('../..', import.meta.url)).replace(/\/$/, '');
@@ -72,6 +73,9 @@ export interface Harness {
    * pass), so a test can press Cancel while the run is surely in the middle. Analysis stays the real one.
    */
   holdBatchUntilCancel(afterFiles: number): void;
+  /** The next movie analysis runs as usual but pauses `ms` after each time point (the thread blocked, as a slow
+   *  machine would be), so that a test can act while it is under way; the run still checks its cancel signal. */
+  slowNextMovie(ms: number): void;
   /** Replace the handlers by a fresh instance over the same data folder (as after an app restart). */
   freshHandlers(): void;
   close(): Promise<void>;
@@ -103,7 +107,20 @@ export async function startHarness(dataDir: string, demoSubset?: number): Promis
       return realEngine.runBatch(Object.assign({}, options, { analyseInProcess: held }));
     },
   };
+  // Movie slow-down (see Harness.slowNextMovie): the in-process movie analysis the handlers would run anyway, with a
+  // pause after each time point.
+  let slowMs = 0;
+  const pause = new Int32Array(new SharedArrayBuffer(4));
+  const runMovie = (path: string, file: string, doc: ProjectDoc, options: MovieRequestOptions, emit: (p: MovieProgress) => void, signal: AbortSignal) => {
+    const ms = slowMs;
+    slowMs = 0;
+    return buildMovieView(path, file, doc, options, {
+      signal,
+      onTimePoint: (done, total) => { emit({ file, done, total }); if (ms > 0) Atomics.wait(pause, 0, 0, ms); },
+    });
+  };
   const deps: HandlerDeps = {
+    runMovieOffThread: runMovie,
     // Batch jobs 0 analyses in this process: the worker script is a build output the test need not depend on.
     dataDir, batchJobs: 0, demoSubset, engine,
     dialogs: {
@@ -166,6 +183,7 @@ export async function startHarness(dataDir: string, demoSubset?: number): Promis
   return {
     browser, page, dialogs, progress, movieProgress, openedPaths,
     holdBatchUntilCancel: (afterFiles) => { hold = { afterFiles }; },
+    slowNextMovie: (ms) => { slowMs = ms; },
     freshHandlers: () => { current.handlers = createHandlers(deps); },
     close: async () => { await browser.close(); if (errors.length > 0) console.warn(`page errors:\n${errors.join('\n')}`); },
   };
