@@ -147,23 +147,34 @@ export function distanceInside(mask: Mask): Float32Array {
   const pw = box.x1 - box.x0 + 2;
   const ph = box.y1 - box.y0 + 2;
   const padded = new Uint8Array(pw * ph).fill(1);
-  for (let y = box.y0; y < box.y1; y++) {
-    const o = y * width;
-    const po = (y - box.y0 + 1) * pw + 1 - box.x0;
-    for (let x = box.x0; x < box.x1; x++) padded[po + x] = +(mask.data[o + x] === 0);
-  }
+  // The pixel loops are functions of their own (see "Pixel loops in small functions" in DEVELOPERS.md).
+  backgroundInBox(mask.data, width, box.x0, box.y0, box.x1, box.y1, padded, pw);
   const g = columnDistances({ width: pw, height: ph, data: padded });
   const line = rowScratch(pw);
-  for (let y = box.y0; y < box.y1; y++) {
-    // The ring holds background on every row, so each row of the box has finite distances.
-    envelopeRow(g, (y - box.y0 + 1) * pw, pw, line);
-    const d = line.d;
-    const o = y * width;
-    const po = 1 - box.x0;
-    // Background pixels are features of the padded mask (d = 0), so they get sqrt(0) = 0 without a branch.
-    for (let x = box.x0; x < box.x1; x++) out[o + x] = Math.sqrt(d[po + x]);
-  }
+  rootsInBox(g, line, width, box.x0, box.y0, box.x1, box.y1, pw, out);
   return out;
+}
+
+/** padded[(y − y0 + 1)·pw + 1 + x − x0] = 1 where data[y·width + x] is background (0), else 0, over the box. */
+function backgroundInBox(data: Uint8Array, width: number, x0: number, y0: number, x1: number, y1: number, padded: Uint8Array, pw: number): void {
+  for (let y = y0; y < y1; y++) {
+    const o = y * width;
+    const po = (y - y0 + 1) * pw + 1 - x0;
+    for (let x = x0; x < x1; x++) padded[po + x] = +(data[o + x] === 0);
+  }
+}
+
+/** The row pass over the box's rows of the padded column distances g, each row's square roots into out. */
+function rootsInBox(g: Int32Array, line: RowScratch, width: number, x0: number, y0: number, x1: number, y1: number, pw: number, out: Float32Array): void {
+  const d = line.d;
+  for (let y = y0; y < y1; y++) {
+    // The ring holds background on every row, so each row of the box has finite distances.
+    envelopeRow(g, (y - y0 + 1) * pw, pw, line);
+    const o = y * width;
+    const po = 1 - x0;
+    // Background pixels are features of the padded mask (d = 0), so they get sqrt(0) = 0 without a branch.
+    for (let x = x0; x < x1; x++) out[o + x] = Math.sqrt(d[po + x]);
+  }
 }
 
 /**

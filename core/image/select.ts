@@ -94,22 +94,21 @@ function middleByBuckets(a: Float32Array): number {
 export function maskedMedian(values: Float32Array, keep: Uint8Array): { median: number; count: number } {
   const len = Math.min(values.length, keep.length);
   const bits = new Uint32Array(values.buffer, values.byteOffset, values.length);
-  // Non-finite values are counted too: their buckets (see FINITE_BUCKETS) hold no finite value, so they are left
-  // out below without a test per pixel.
+  // Non-finite values are counted too: their buckets (see FIRST_FINITE_BUCKET) hold no finite value, so they are
+  // left out below without a test per pixel. The loops are functions of their own (see "Pixel loops in small
+  // functions" in DEVELOPERS.md).
   const total = new Uint32Array(65_536);
-  for (let i = 0; i < len; i++) if (keep[i] !== 0) total[bucketOf(bits[i])]++;
-  let n = 0;
-  for (let b = FINITE_BUCKETS.first; b <= FINITE_BUCKETS.last; b++) n += total[b];
+  countKeptBuckets(bits, keep, len, total);
+  const n = countInBuckets(total, FIRST_FINITE_BUCKET, LAST_FINITE_BUCKET);
   if (n === 0) return { median: NaN, count: 0 };
   if (n < 65_536) return { median: medianInPlace(gatherKept(values, keep, len, n)), count: n };
   const hiRank = n >> 1;
   const loRank = n % 2 === 1 ? hiRank : hiRank - 1;
-  let b1 = FINITE_BUCKETS.first;
-  let below = 0;
-  while (below + total[b1] <= loRank) below += total[b1++];
-  // Ranks loRank and hiRank are consecutive: hiRank lies in b1 or in the next non-empty bucket.
-  let b2 = b1;
-  if (below + total[b1] <= hiRank) { b2 += 1; while (total[b2] === 0) b2++; }
+  const found = new Int32Array(3);
+  middleBuckets(total, loRank, hiRank, found);
+  const b1 = found[0];
+  const b2 = found[1];
+  const below = found[2];
   const low = lowKeyCounts(bits, keep, len, b1, b2);
   const lower = rankedValue(low, b1, b2, loRank - below);
   if (loRank === hiRank) return { median: lower, count: n };
@@ -117,10 +116,38 @@ export function maskedMedian(values: Float32Array, keep: Uint8Array): { median: 
 }
 
 /**
- * The buckets (bucketOf) of finite Float32 values: −Infinity and negative NaNs fall below, +Infinity and positive
- * NaNs above (their exponent bits are all ones).
+ * The buckets (bucketOf) of finite Float32 values lie in FIRST_FINITE_BUCKET..LAST_FINITE_BUCKET: −Infinity and
+ * negative NaNs fall below, +Infinity and positive NaNs above (their exponent bits are all ones).
  */
-const FINITE_BUCKETS = { first: 0x0080, last: 0xff7f } as const;
+const FIRST_FINITE_BUCKET = 0x0080;
+const LAST_FINITE_BUCKET = 0xff7f;
+
+/** total[bucketOf(bits[i])] += 1 for every i < len with keep[i] ≠ 0. */
+function countKeptBuckets(bits: Uint32Array, keep: Uint8Array, len: number, total: Uint32Array): void {
+  for (let i = 0; i < len; i++) if (keep[i] !== 0) total[bucketOf(bits[i])]++;
+}
+
+/** Sum of counts[first..last]. */
+function countInBuckets(counts: Uint32Array, first: number, last: number): number {
+  let n = 0;
+  for (let b = first; b <= last; b++) n += counts[b];
+  return n;
+}
+
+/**
+ * The finite bucket b1 holding rank loRank of the counted values, the bucket b2 holding rank hiRank (b1 or the next
+ * non-empty one: the ranks are consecutive) and the count below b1, into found = [b1, b2, below].
+ */
+function middleBuckets(total: Uint32Array, loRank: number, hiRank: number, found: Int32Array): void {
+  let b1 = FIRST_FINITE_BUCKET;
+  let below = 0;
+  while (below + total[b1] <= loRank) below += total[b1++];
+  let b2 = b1;
+  if (below + total[b1] <= hiRank) { b2 += 1; while (total[b2] === 0) b2++; }
+  found[0] = b1;
+  found[1] = b2;
+  found[2] = below;
+}
 
 /** The n finite values[i] with keep[i] ≠ 0, in order. */
 function gatherKept(values: Float32Array, keep: Uint8Array, len: number, n: number): Float32Array {
