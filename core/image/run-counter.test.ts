@@ -57,6 +57,13 @@ describe('runCounter', () => {
     }
   });
 
+  it('counts planes over 64 MiB in JavaScript (no copy that large)', () => {
+    // Demo data: runs over a 6000 × 6000 plane (72 MB of 16-bit samples); only the counter's kind is checked.
+    const runs = { start: Int32Array.from([0]), end: Int32Array.from([10]), rowFirst: new Int32Array(1), count: 1 };
+    expect(runCounter(runs, 6000 * 6000).compiled).toBe(false);
+    expect(runCounter(runs, 4000 * 4000).compiled).toBe(true);
+  });
+
   it('gives null for runs that hold no pixel', () => {
     // Source: the median of no values is undefined (from memory).
     const runs = maskRuns({ width: 4, height: 2, data: new Uint8Array(8) }, true);

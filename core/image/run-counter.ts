@@ -1,16 +1,17 @@
 // Counting the 8/16-bit samples of a fixed set of pixel runs, plane after plane (a movie's background pixels at every
-// time point): four lanes of 65 536 counts, as countSamples in median-whole.ts fills them. For 16-bit planes the
-// counting loop runs as a small WebAssembly function (no bounds check per count: about a third of the JavaScript
-// loop's time per sample, measured in bench/timelapse.bench.ts), over a copy of the plane in its own memory; where
-// WebAssembly cannot be compiled (a page whose Content-Security-Policy forbids it) or for 8-bit planes, the
-// JavaScript loop counts instead. Either way the same counts, so the same medians.
+// time point): four lanes of 65 536 counts, as countRunSamples below fills them. For 16-bit planes the counting loop
+// runs as a small WebAssembly function (no bounds check per count: about half the JavaScript loop's time per plane,
+// the plane's copy included, in a CPU profile of the movie bench), over a copy of the plane in its own memory; where
+// WebAssembly cannot be compiled (a page whose Content-Security-Policy forbids it), for 8-bit planes and for planes
+// over 64 MiB (the copy would cost as much memory), the JavaScript loop counts instead. Either way the same counts,
+// so the same medians.
 import type { MaskRuns } from './runs';
 
 /** Counts of one run set's samples, one plane at a time. */
 export interface RunCounter {
   /** Four lanes of 65 536 counts (value v of lane j at v + 65 536·j); all zero between planes. */
   readonly lanes: Uint32Array;
-  /** Adds each sample of the runs to its lane (lane = position mod 4 within the run, as countSamples); returns how many
+  /** Adds each sample of the runs to its lane (lane = position mod 4 within the run, as countRunSamples); returns how many
    *  were counted. `samples` is a whole plane (the runs index it). */
   count(samples: Uint8Array | Uint16Array): number;
   /** True when 16-bit planes are counted by the WebAssembly loop. */
@@ -19,6 +20,8 @@ export interface RunCounter {
 
 const LANE = 65_536;
 const LANES_BYTES = 4 * LANE * 4;
+/** Largest plane (bytes) copied into a counter's memory; larger ones are counted in JavaScript. */
+const MAX_COPIED_PLANE_BYTES = 64 * 2 ** 20;
 
 /** counts[v + 65 536·j] += 1 for each sample v of runs, lane j = position mod 4 within a run. */
 export function countRunSamples(samples: Uint8Array | Uint16Array, runs: MaskRuns, counts: Uint32Array): number {
@@ -177,7 +180,7 @@ export function runCounter(runs: MaskRuns, planeValues: number, useWasm = true):
   const endsAt = startsAt + 4 * runs.count;
   const samplesAt = endsAt + 4 * runs.count;
   const bytes = samplesAt + 2 * planeValues;
-  if (bytes >= 2 ** 31) return plainCounter(runs);
+  if (2 * planeValues > MAX_COPIED_PLANE_BYTES) return plainCounter(runs);
   let instance: { readonly exports: Record<string, unknown> };
   let memory: { readonly buffer: ArrayBuffer };
   try {
