@@ -108,7 +108,7 @@ function plainAr1Covariance(j: Float64Array, u: Float64Array, n: number, m: numb
 
 describe('the n²·m forms against the plain matrix products', () => {
   it('give the same residual maker, ρ and covariance on random exponential-fit problems', () => {
-    // Demo data: decay Jacobians (A0, k, B) on 12–160 points with residuals of random smoothness; the plain forms are
+    // Demo data: decay Jacobians (A0, k, B) on 12–90 points with residuals of random smoothness; the plain forms are
     // the definitions M = I − J̃(J̃ᵀJ̃)⁻¹J̃ᵀ, Σ_ab X_ab ρ^|a−b| and B·J̃ᵀRJ̃·B summed term by term.
     let seed = 7;
     const rnd = () => ((seed = (seed * 1103515245 + 12345) >>> 0) / 2 ** 32) - 0.5;
