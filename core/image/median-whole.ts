@@ -1,6 +1,6 @@
 // Median of whole-number pixel values (8- and 16-bit samples projected without averaging) by one counting pass.
 import type { MaskRuns } from './runs';
-import { countRunSamples, type RunCounter } from './run-counter';
+import { countSamples, type RunCounter } from './run-counter';
 
 /** Values are counted in blocks of this many; a block holding a value that is not a whole number 0…65 535 ends the count. */
 const BLOCK = 16_384;
@@ -113,38 +113,7 @@ export function wholeNumberMedian(values: Float32Array, keep: Uint8Array, runs: 
   return { median: n % 2 === 1 ? upper : (lower + upper) / 2, count: n };
 }
 
-/**
- * countRunSamples for 16-bit samples read two at a time as 32-bit words (`words` views the same bytes; a sample's lane
- * is whichever half of a word it sits in, so the byte order does not matter): half the loads and bounds checks.
- */
-function countSampleWords(samples: Uint16Array, words: Uint32Array, runs: MaskRuns, counts: Uint32Array): number {
-  let n = 0;
-  for (let r = 0; r < runs.count; r++) {
-    const end = runs.end[r];
-    let i = runs.start[r];
-    n += end - i;
-    if ((i & 1) === 1 && i < end) counts[samples[i++]]++;
-    let k = i >> 1;
-    const wordsEnd = end >> 1;
-    for (; k + 1 < wordsEnd; k += 2) {
-      const w0 = words[k];
-      const w1 = words[k + 1];
-      counts[w0 & 0xffff]++;
-      counts[(w0 >>> 16) + 65_536]++;
-      counts[(w1 & 0xffff) + 131_072]++;
-      counts[(w1 >>> 16) + 196_608]++;
-    }
-    if (k < wordsEnd) {
-      const w = words[k];
-      counts[w & 0xffff]++;
-      counts[(w >>> 16) + 65_536]++;
-    }
-    if ((end & 1) === 1 && end - 1 >= i) counts[samples[end - 1]]++;
-  }
-  return n;
-}
-
-/** The value of 0-based rank `rank` among the samples counted in the four lanes of countRunSamples: the lanes are
+/** The value of 0-based rank `rank` among the samples counted in the four lanes of countSamples: the lanes are
  *  added up only for the values up to it (a background's median lies low, so few of the 65 536 slots are read). */
 function sampleAtRank(lanes: Uint32Array, rank: number): number {
   let v = 0;
@@ -182,10 +151,7 @@ export function sampleMedian(samples: Uint8Array | Uint16Array, runs: MaskRuns, 
   // per plane makes V8 collect garbage more often, and zeroing all of it per plane costs more than clearing the few
   // slots a background's values use.
   const lanes = scratch !== null && scratch.length === SAMPLE_COUNTS ? scratch : new Uint32Array(SAMPLE_COUNTS);
-  const n = samples instanceof Uint16Array && samples.byteOffset % 4 === 0
-    ? countSampleWords(samples, new Uint32Array(samples.buffer, samples.byteOffset, samples.length >> 1), runs, lanes)
-    : countRunSamples(samples, runs, lanes);
-  return medianOfCounted(lanes, n);
+  return medianOfCounted(lanes, countSamples(samples, runs, lanes));
 }
 
 /** The median and count of the n samples counted in the lanes, which are then all zero again; null when n is 0. */
