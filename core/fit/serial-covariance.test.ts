@@ -1,6 +1,30 @@
 import { describe, expect, it } from 'vitest';
 import { inverseNormalMatrix } from './covariance';
-import { ar1Covariance, ar1TimesJacobian, lag1Correlation, lagProductOfM, matchedRho, residualMaker, sandwich } from './serial-covariance';
+import { ar1Covariance, ar1Sandwich, ar1TimesJacobian, lag1Correlation, matchedRhoFromSums, residualMaker } from './serial-covariance';
+
+/** M·A·M for a symmetric M, with A the lag-1 matrix (½ on the first off-diagonals), as the product reads. */
+function lagProductOfM(m: Float64Array, n: number): Float64Array {
+  const out = new Float64Array(n * n);
+  for (let a = 0; a < n; a++) {
+    for (let b = 0; b < n; b++) {
+      let v = 0;
+      for (let c = 0; c < n; c++) v += m[a * n + c] * 0.5 * ((c > 0 ? m[(c - 1) * n + b] : 0) + (c + 1 < n ? m[(c + 1) * n + b] : 0));
+      out[a * n + b] = v;
+    }
+  }
+  return out;
+}
+
+/** d_l = Σ_a X_(a,a+l), the sums along the diagonals of an n × n matrix. */
+function diagonalSums(x: Float64Array, n: number): Float64Array {
+  const d = new Float64Array(n);
+  for (let a = 0; a < n; a++) for (let b = a; b < n; b++) d[b - a] += x[a * n + b];
+  return d;
+}
+
+/** ρ matched to a measured lag-1 correlation from the matrices M and M·A·M themselves. */
+const matchedRho = (mm: Float64Array, mam: Float64Array, n: number, measured: number): number =>
+  matchedRhoFromSums(diagonalSums(mam, n), diagonalSums(mm, n), measured);
 
 const ones = (n: number): Float64Array => new Float64Array(n).fill(1);
 
@@ -11,7 +35,7 @@ describe('AR(1) sandwich covariance', () => {
     for (const [n, rho] of [[20, 0.5], [50, 0.3], [7, -0.4]]) {
       const j = ones(n);
       const bread = inverseNormalMatrix(j, n, 1)!;
-      const v = sandwich(j, bread, n, 1, (a, b) => 2 * rho ** Math.abs(a - b))[0][0];
+      const v = ar1Sandwich(j, bread, n, 1, rho, 2)[0][0];
       const expected = (2 / n) * ((1 + rho) / (1 - rho) - (2 * rho * (1 - rho ** n)) / (n * (1 - rho) ** 2));
       expect(v).toBeCloseTo(expected, 12);
     }

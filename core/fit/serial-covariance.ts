@@ -73,14 +73,8 @@ export function traceWithAr1(x: Float64Array, n: number, rho: number): number {
   return s;
 }
 
-/** d[l] = Σ_a X_{a,a+l} for l = 0 … n − 1: the sums along the diagonals of an n × n matrix (upper triangle). */
-export function diagonalSums(x: Float64Array, n: number): Float64Array {
-  const d = new Float64Array(n);
-  for (let a = 0; a < n; a++) for (let b = a, row = a * n; b < n; b++) d[b - a] += x[row + b];
-  return d;
-}
-
-/** Σ_ab X_ab·ρ^|a−b| of a symmetric matrix from its diagonal sums d (diagonalSums): d₀ + 2·Σ_l d_l·ρ^l, by Horner. */
+/** Σ_ab X_ab·ρ^|a−b| of a symmetric matrix from the sums along its diagonals, d_l = Σ_a X_(a,a+l): d₀ + 2·Σ_l d_l·ρ^l,
+ *  by Horner. */
 export function ar1Weighted(d: Float64Array, rho: number): number {
   let s = 0;
   for (let l = d.length - 1; l >= 1; l--) s = s * rho + d[l];
@@ -104,50 +98,10 @@ export function matchedRhoFromSums(mamSums: Float64Array, mmSums: Float64Array, 
   return (lo + hi) / 2;
 }
 
-/** matchedRhoFromSums for the matrices M (mm) and M·A·M (mam) themselves. */
-export function matchedRho(mm: Float64Array, mam: Float64Array, n: number, measured: number): number {
-  return matchedRhoFromSums(diagonalSums(mam, n), diagonalSums(mm, n), measured);
-}
-
-/** M·A·M for a symmetric M, with A the lag-1 matrix (½ on the first off-diagonals): Σu_i·u_{i+1} = uᵀAu. */
-export function lagProductOfM(m: Float64Array, n: number): Float64Array {
-  // (A·M) transposed, amT[b·n + c] = (A·M)_cb, so the product below reads both factors along rows (the same
-  // products summed in the same order as with A·M itself).
-  const amT = new Float64Array(n * n);
-  for (let c = 0; c < n; c++) {
-    for (let b = 0; b < n; b++) {
-      amT[b * n + c] = 0.5 * ((c > 0 ? m[(c - 1) * n + b] : 0) + (c + 1 < n ? m[(c + 1) * n + b] : 0));
-    }
-  }
-  const out = new Float64Array(n * n);
-  for (let a = 0; a < n; a++) {
-    for (let b = a; b < n; b++) {
-      let v = 0;
-      for (let c = 0, i = a * n, k = b * n; c < n; c++, i++, k++) v += m[i] * amT[k];
-      out[a * n + b] = v;
-      out[b * n + a] = v;
-    }
-  }
-  return out;
-}
-
 /** B·X·B for m × m matrices (B symmetric). */
 function breadAround(bread: number[][], x: number[][]): number[][] {
   const bm = bread.map((row) => x[0].map((_, c) => row.reduce((s, v, r) => s + v * x[r][c], 0)));
   return bm.map((row) => bread[0].map((_, c) => row.reduce((s, v, r) => s + v * bread[r][c], 0)));
-}
-
-/** B·(J̃ᵀ·S·J̃)·B where S_ab = k(a, b): S·J̃ first (n²·m), then J̃ᵀ·(S·J̃) (n·m²). */
-export function sandwich(j: Float64Array, bread: number[][], n: number, m: number, k: (a: number, b: number) => number): number[][] {
-  const sj = new Float64Array(n * m);
-  for (let a = 0; a < n; a++) {
-    for (let b = 0; b < n; b++) {
-      const w = k(a, b);
-      if (w === 0) continue;
-      for (let q = 0; q < m; q++) sj[a * m + q] += w * j[b * m + q];
-    }
-  }
-  return breadAround(bread, crossProduct(j, sj, n, m));
 }
 
 /** J̃ᵀ·Y (m × m) for n × m row-major J̃ and Y. */
@@ -176,7 +130,7 @@ export function ar1TimesJacobian(j: Float64Array, n: number, m: number, rho: num
 }
 
 /**
- * The diagonal sums (diagonalSums) of M and of M·A·M, with M = I − H the residual maker, H = P·J̃ᵀ and A the lag-1
+ * The sums along the diagonals (as ar1Weighted takes them) of M and of M·A·M, with M = I − H the residual maker, H = P·J̃ᵀ and A the lag-1
  * matrix, without forming either: with Ĵ = A·J̃ and C = J̃ᵀĴ, M·A·M = A − P·Ĵᵀ − Ĵ·Pᵀ + P·C·Pᵀ, each entry m or m²
  * products (n²·m work instead of the n³ of the product itself).
  */
@@ -201,6 +155,13 @@ function residualDiagonalSums(j: Float64Array, p: Float64Array, n: number, m: nu
   return { mm, mam };
 }
 
+/** σ²·B·J̃ᵀR(ρ)J̃·B, the sandwich covariance under AR(1) errors of correlation ρ and variance σ² (R·J̃ by
+ *  ar1TimesJacobian). */
+export function ar1Sandwich(j: Float64Array, bread: number[][], n: number, m: number, rho: number, sigma2: number): number[][] {
+  const meat = crossProduct(j, ar1TimesJacobian(j, n, m, rho), n, m).map((row) => row.map((v) => sigma2 * v));
+  return breadAround(bread, meat);
+}
+
 /**
  * Covariance of the parameters under AR(1) errors along the point order: ρ matched to the residuals' lag-1
  * correlation, σ² = RSS / tr(M·R(ρ)) (unbiased under that model), covariance σ²·B·J̃ᵀR(ρ)J̃·B. j is the whitened
@@ -217,6 +178,5 @@ export function ar1Covariance(j: Float64Array, u: Float64Array, n: number, m: nu
   let rss = 0;
   for (let i = 0; i < n; i++) rss += u[i] * u[i];
   const sigma2 = rss / ar1Weighted(sums.mm, rho);
-  const meat = crossProduct(j, ar1TimesJacobian(j, n, m, rho), n, m).map((row) => row.map((v) => sigma2 * v));
-  return { covariance: breadAround(bread, meat), residualLag1, rho };
+  return { covariance: ar1Sandwich(j, bread, n, m, rho, sigma2), residualLag1, rho };
 }
