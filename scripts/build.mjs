@@ -35,25 +35,16 @@ if (nodeEntries.length > 0) {
 
 // The batch worker is one file of its own (no shared chunks) with its packages inside (bundledExceptNative): each
 // worker process loads only the code it uses, in one read and one parse. Modules it imports dynamically (the demo
-// writer, OME-Zarr) are in the same file and run only when first imported.
-if (existsSync('app/workers/batch-worker.ts')) {
+// writer, OME-Zarr) are in the same file and run only when first imported. The scripted-pipeline bench runs "one batch
+// worker's work" in a child process, so it is bundled the same way and starts as a worker does.
+const selfContained = [
+  { in: 'app/workers/batch-worker.ts', out: 'batch-worker' },
+  { in: 'bench/vs-script.ts', out: 'bench-script' },
+].filter((e) => existsSync(e.in));
+if (selfContained.length > 0) {
   await build({
     ...common,
-    entryPoints: [{ in: 'app/workers/batch-worker.ts', out: 'batch-worker' }],
-    outdir: 'dist',
-    format: 'esm',
-    outExtension: { '.js': '.mjs' },
-    plugins: [bundledExceptNative],
-    banner: { js: "import { createRequire as __cr } from 'node:module'; const require = __cr(import.meta.url);" },
-  });
-}
-
-// The scripted-pipeline bench runs "one batch worker's work" in a child process, so it is bundled as the worker is
-// (its packages inside, one file), and its start-up costs what a worker's does.
-if (existsSync('bench/vs-script.ts')) {
-  await build({
-    ...common,
-    entryPoints: [{ in: 'bench/vs-script.ts', out: 'bench-script' }],
+    entryPoints: selfContained,
     outdir: 'dist',
     format: 'esm',
     outExtension: { '.js': '.mjs' },
