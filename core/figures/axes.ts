@@ -32,7 +32,7 @@ export function xAxisSvg(x: ScaleLinear<number, number>, area: PlotArea, title: 
 }
 
 /** Rough width of an axis title at 12 px in a sans-serif font (about 0.55 em a character; common practice). */
-export function titleWidthPx(title: string): number {
+function titleWidthPx(title: string): number {
   return title.length * 6.6;
 }
 
